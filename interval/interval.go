@@ -1,0 +1,319 @@
+package interval
+
+import (
+	"fmt"
+	"math"
+)
+
+// I is the closed interval [Lo, Hi] of real numbers. The zero value is the
+// point 0. An I built by this package always has Lo ≤ Hi and no NaN end;
+// Lo may be −∞ and Hi may be +∞.
+type I struct {
+	Lo, Hi float64
+}
+
+// Point returns the degenerate interval [x, x]. It panics if x is NaN.
+func Point(x float64) I {
+	if math.IsNaN(x) {
+		panic("interval: NaN point")
+	}
+	return I{x, x}
+}
+
+// New returns [lo, hi]. It panics if lo > hi or either end is NaN.
+func New(lo, hi float64) I {
+	if !(lo <= hi) {
+		panic(fmt.Sprintf("interval: invalid ends [%g, %g]", lo, hi))
+	}
+	return I{lo, hi}
+}
+
+// Entire returns (−∞, +∞).
+func Entire() I { return I{math.Inf(-1), math.Inf(1)} }
+
+// Inf returns the lower end.
+func (x I) Inf() float64 { return x.Lo }
+
+// Sup returns the upper end.
+func (x I) Sup() float64 { return x.Hi }
+
+// Mid returns a float64 in x near its midpoint (IEEE 1788 mid: finite for
+// bounded x, 0 for the entire line, ±MaxFloat64 for half-bounded x). It is
+// a choice, not a bound: Mid is only guaranteed to lie in x.
+func (x I) Mid() float64 {
+	switch {
+	case math.IsInf(x.Lo, -1) && math.IsInf(x.Hi, 1):
+		return 0
+	case math.IsInf(x.Lo, -1):
+		return -math.MaxFloat64
+	case math.IsInf(x.Hi, 1):
+		return math.MaxFloat64
+	}
+	m := 0.5*x.Lo + 0.5*x.Hi // no overflow; exact unless subnormal
+	if m < x.Lo {
+		return x.Lo
+	}
+	if m > x.Hi {
+		return x.Hi
+	}
+	return m
+}
+
+// Rad returns an upper bound of the radius: x ⊆ [Mid − Rad, Mid + Rad].
+func (x I) Rad() float64 {
+	m := x.Mid()
+	return math.Max(SubUp(m, x.Lo), SubUp(x.Hi, m))
+}
+
+// Wid returns an upper bound of the width Hi − Lo.
+func (x I) Wid() float64 { return SubUp(x.Hi, x.Lo) }
+
+// Mag returns max |t| over t ∈ x (exact).
+func (x I) Mag() float64 { return math.Max(math.Abs(x.Lo), math.Abs(x.Hi)) }
+
+// Mig returns min |t| over t ∈ x (exact).
+func (x I) Mig() float64 {
+	if x.Lo <= 0 && x.Hi >= 0 {
+		return 0
+	}
+	return math.Min(math.Abs(x.Lo), math.Abs(x.Hi))
+}
+
+// IsPoint reports whether Lo == Hi.
+func (x I) IsPoint() bool { return x.Lo == x.Hi }
+
+// IsBounded reports whether both ends are finite.
+func (x I) IsBounded() bool { return !math.IsInf(x.Lo, 0) && !math.IsInf(x.Hi, 0) }
+
+// Contains reports whether t ∈ x.
+func (x I) Contains(t float64) bool { return x.Lo <= t && t <= x.Hi }
+
+// ContainsZero reports whether 0 ∈ x.
+func (x I) ContainsZero() bool { return x.Lo <= 0 && 0 <= x.Hi }
+
+// Subset reports whether x ⊆ y.
+func (x I) Subset(y I) bool { return y.Lo <= x.Lo && x.Hi <= y.Hi }
+
+// Interior reports whether x lies in the interior of y.
+func (x I) Interior(y I) bool {
+	return (y.Lo < x.Lo || math.IsInf(y.Lo, -1)) && (x.Hi < y.Hi || math.IsInf(y.Hi, 1))
+}
+
+// Positive reports whether every element of x is > 0 (a decided sign).
+func (x I) Positive() bool { return x.Lo > 0 }
+
+// Negative reports whether every element of x is < 0.
+func (x I) Negative() bool { return x.Hi < 0 }
+
+// NonNegative reports whether every element of x is ≥ 0.
+func (x I) NonNegative() bool { return x.Lo >= 0 }
+
+// Sign returns +1 if x > 0, −1 if x < 0, and 0 if the sign is not decided
+// (0 ∈ x).
+func (x I) Sign() int {
+	switch {
+	case x.Lo > 0:
+		return 1
+	case x.Hi < 0:
+		return -1
+	}
+	return 0
+}
+
+// Less reports whether every element of x is less than every element of y.
+func (x I) Less(y I) bool { return x.Hi < y.Lo }
+
+// Hull returns the smallest interval containing x and y.
+func (x I) Hull(y I) I { return I{math.Min(x.Lo, y.Lo), math.Max(x.Hi, y.Hi)} }
+
+// HullPoint returns the smallest interval containing x and t.
+func (x I) HullPoint(t float64) I { return I{math.Min(x.Lo, t), math.Max(x.Hi, t)} }
+
+// Intersection returns x ∩ y and whether it is nonempty.
+func (x I) Intersection(y I) (I, bool) {
+	lo, hi := math.Max(x.Lo, y.Lo), math.Min(x.Hi, y.Hi)
+	if lo > hi {
+		return I{}, false
+	}
+	return I{lo, hi}, true
+}
+
+// Neg returns −x (exact).
+func (x I) Neg() I { return I{-x.Hi, -x.Lo} }
+
+// Add returns an enclosure of x + y (tightest).
+func (x I) Add(y I) I { return I{AddDown(x.Lo, y.Lo), AddUp(x.Hi, y.Hi)} }
+
+// Sub returns an enclosure of x − y (tightest).
+func (x I) Sub(y I) I { return I{SubDown(x.Lo, y.Hi), SubUp(x.Hi, y.Lo)} }
+
+// AddF returns an enclosure of x + t.
+func (x I) AddF(t float64) I { return I{AddDown(x.Lo, t), AddUp(x.Hi, t)} }
+
+// MulF returns an enclosure of x · t.
+func (x I) MulF(t float64) I {
+	if t >= 0 {
+		return I{MulDown(x.Lo, t), MulUp(x.Hi, t)}
+	}
+	return I{MulDown(x.Hi, t), MulUp(x.Lo, t)}
+}
+
+// Mul returns an enclosure of x · y (tightest), with 0·∞ = 0.
+func (x I) Mul(y I) I {
+	a, b, c, d := x.Lo, x.Hi, y.Lo, y.Hi
+	switch {
+	case a >= 0: // x ≥ 0
+		switch {
+		case c >= 0:
+			return I{MulDown(a, c), MulUp(b, d)}
+		case d <= 0:
+			return I{MulDown(b, c), MulUp(a, d)}
+		default:
+			return I{MulDown(b, c), MulUp(b, d)}
+		}
+	case b <= 0: // x ≤ 0
+		switch {
+		case c >= 0:
+			return I{MulDown(a, d), MulUp(b, c)}
+		case d <= 0:
+			return I{MulDown(b, d), MulUp(a, c)}
+		default:
+			return I{MulDown(a, d), MulUp(a, c)}
+		}
+	default: // 0 in the interior of x
+		switch {
+		case c >= 0:
+			return I{MulDown(a, d), MulUp(b, d)}
+		case d <= 0:
+			return I{MulDown(b, c), MulUp(a, c)}
+		default:
+			return I{math.Min(MulDown(a, d), MulDown(b, c)), math.Max(MulUp(a, c), MulUp(b, d))}
+		}
+	}
+}
+
+// Sqr returns an enclosure of {t² : t ∈ x} (tighter than x.Mul(x)).
+func (x I) Sqr() I {
+	m, g := x.Mag(), x.Mig()
+	return I{MulDown(g, g), MulUp(m, m)}
+}
+
+// Div returns an enclosure of {s/t : s ∈ x, t ∈ y}. If 0 ∈ y the quotient
+// is not defined on all of y and Div returns Entire (sound but useless);
+// callers that must reject such cases check y.ContainsZero first.
+func (x I) Div(y I) I {
+	if y.ContainsZero() {
+		return Entire()
+	}
+	a, b, c, d := x.Lo, x.Hi, y.Lo, y.Hi
+	if c > 0 { // y > 0
+		switch {
+		case a >= 0:
+			return I{DivDown(a, d), DivUp(b, c)}
+		case b <= 0:
+			return I{DivDown(a, c), DivUp(b, d)}
+		default:
+			return I{DivDown(a, c), DivUp(b, c)}
+		}
+	}
+	// y < 0
+	switch {
+	case a >= 0:
+		return I{DivDown(b, d), DivUp(a, c)}
+	case b <= 0:
+		return I{DivDown(b, c), DivUp(a, d)}
+	default:
+		return I{DivDown(b, d), DivUp(a, d)}
+	}
+}
+
+// DivF returns an enclosure of x / t for t ≠ 0.
+func (x I) DivF(t float64) I { return x.Div(Point(t)) }
+
+// Recip returns an enclosure of 1/x (Entire if 0 ∈ x).
+func (x I) Recip() I { return I{1, 1}.Div(x) }
+
+// Sqrt returns an enclosure of {√t : t ∈ x} and whether x ⊆ [0, ∞), i.e.
+// whether √ is defined on all of x. If not, the returned interval is the
+// enclosure over x ∩ [0, ∞) (or [0, 0] if that is empty) and ok is false.
+func (x I) Sqrt() (r I, ok bool) {
+	ok = x.Lo >= 0
+	lo, hi := math.Max(x.Lo, 0), math.Max(x.Hi, 0)
+	return I{SqrtDown(lo), SqrtUp(hi)}, ok
+}
+
+// Abs returns {|t| : t ∈ x} (exact).
+func (x I) Abs() I { return I{x.Mig(), x.Mag()} }
+
+// Min returns {min(s, t) : s ∈ x, t ∈ y} (exact).
+func (x I) Min(y I) I { return I{math.Min(x.Lo, y.Lo), math.Min(x.Hi, y.Hi)} }
+
+// Max returns {max(s, t) : s ∈ x, t ∈ y} (exact).
+func (x I) Max(y I) I { return I{math.Max(x.Lo, y.Lo), math.Max(x.Hi, y.Hi)} }
+
+// PowInt returns an enclosure of {tⁿ : t ∈ x} for an integer n. For n < 0
+// the result is Entire when 0 ∈ x. x⁰ = [1, 1].
+func (x I) PowInt(n int) I {
+	if n < 0 {
+		return x.PowInt(-n).Recip()
+	}
+	if n == 0 {
+		return I{1, 1}
+	}
+	if n%2 == 0 {
+		g, m := x.Mig(), x.Mag()
+		return I{powDown(g, n), powUp(m, n)}
+	}
+	// Odd powers are increasing.
+	return I{oddPowDown(x.Lo, n), oddPowUp(x.Hi, n)}
+}
+
+// powDown returns a float64 ≤ tⁿ for t ≥ 0, n ≥ 1 (repeated squaring with
+// downward products: each partial product is ≤ the exact one and all are
+// nonnegative, so monotonicity of multiplication keeps the chain sound).
+func powDown(t float64, n int) float64 {
+	r, b := 1.0, t
+	for n > 0 {
+		if n&1 == 1 {
+			r = MulDown(r, b)
+		}
+		n >>= 1
+		if n > 0 {
+			b = MulDown(b, b)
+		}
+	}
+	return r
+}
+
+// powUp returns a float64 ≥ tⁿ for t ≥ 0, n ≥ 1.
+func powUp(t float64, n int) float64 {
+	r, b := 1.0, t
+	for n > 0 {
+		if n&1 == 1 {
+			r = MulUp(r, b)
+		}
+		n >>= 1
+		if n > 0 {
+			b = MulUp(b, b)
+		}
+	}
+	return r
+}
+
+func oddPowDown(t float64, n int) float64 {
+	if t >= 0 {
+		return powDown(t, n)
+	}
+	return -powUp(-t, n)
+}
+
+func oddPowUp(t float64, n int) float64 {
+	if t >= 0 {
+		return powUp(t, n)
+	}
+	return -powDown(-t, n)
+}
+
+// String formats x as [lo, hi] with %g ends. It is for diagnostics only:
+// %g rounds to nearest, so use package decimalio for printed bounds.
+func (x I) String() string { return fmt.Sprintf("[%g, %g]", x.Lo, x.Hi) }
