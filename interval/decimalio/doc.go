@@ -33,8 +33,7 @@
 //
 // References:
 //
-//	IEEE Std 754-2019, Standard for Floating-Point Arithmetic, §5.12
-//	(conversion between decimal character sequences and binary formats).
-//	W. D. Clinger, How to read floating point numbers accurately,
-//	Proc. ACM SIGPLAN PLDI 1990, 92–101.
+//	IEEE Std 754-2019, Standard for Floating-Point Arithmetic: §3.3
+//	(binary64 parameters, subnormals) and §5.12 (conversion between
+//	decimal character sequences and binary formats).
 package decimalio

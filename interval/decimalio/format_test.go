@@ -100,7 +100,7 @@ func checkDirected(t testing.TB, x float64, d int) {
 func TestFormatDirectedRandom(t *testing.T) {
 	rng := rand.New(rand.NewPCG(7, 8))
 	n := 0
-	for n < 24000 {
+	for n < cases(24000) {
 		var x float64
 		switch rng.IntN(4) {
 		case 0: // any finite float64, subnormals included
@@ -183,7 +183,7 @@ func TestFormatStyle(t *testing.T) {
 
 func TestFormatExactRandom(t *testing.T) {
 	rng := rand.New(rand.NewPCG(9, 10))
-	for i := 0; i < 3000; i++ {
+	for i := 0; i < cases(3000); i++ {
 		x := math.Float64frombits(rng.Uint64())
 		if math.IsInf(x, 0) || math.IsNaN(x) || x == 0 {
 			continue
@@ -220,7 +220,7 @@ func TestFormatInterval(t *testing.T) {
 	}
 	// Round trip through ParseLower/ParseUpper stays outward.
 	rng := rand.New(rand.NewPCG(11, 12))
-	for i := 0; i < 2000; i++ {
+	for i := 0; i < cases(2000); i++ {
 		a := math.Float64frombits(rng.Uint64())
 		if math.IsNaN(a) {
 			continue

@@ -3,6 +3,7 @@ package decimalio
 import (
 	"math"
 	"math/big"
+	"os"
 	"strings"
 	"testing"
 
@@ -62,4 +63,12 @@ func checkTight(t testing.TB, what string, x interval.I, r *big.Rat) {
 	if math.Nextafter(x.Lo, math.Inf(1)) != x.Hi {
 		t.Fatalf("%s: %v has float64 values inside", what, x)
 	}
+}
+
+// cases returns n, or 50·n when GAPCERT_LONG=1 asks for the long sweeps.
+func cases(n int) int {
+	if os.Getenv("GAPCERT_LONG") == "1" {
+		return 50 * n
+	}
+	return n
 }

@@ -210,7 +210,7 @@ func isZeroDecimal(s string) bool {
 
 func TestParseRandomTight(t *testing.T) {
 	rng := rand.New(rand.NewPCG(1, 2))
-	for i := 0; i < 20000; i++ {
+	for i := 0; i < cases(20000); i++ {
 		s := randomDecimal(rng)
 		r, err := ParseRat(s)
 		if err != nil {
@@ -243,7 +243,7 @@ func TestParseRandomTight(t *testing.T) {
 func TestParseHalfway(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 4))
 	var lows []float64
-	for i := 0; i < 300; i++ {
+	for i := 0; i < cases(300); i++ {
 		lows = append(lows, math.Float64frombits(rng.Uint64()>>1))        // positive, mostly normal
 		lows = append(lows, math.Float64frombits(rng.Uint64()&(1<<52-1))) // subnormal
 	}
@@ -287,7 +287,7 @@ func TestParseHalfway(t *testing.T) {
 func TestParseExactRoundTrip(t *testing.T) {
 	rng := rand.New(rand.NewPCG(5, 6))
 	xs := []float64{0.1, -0.1, math.MaxFloat64, -math.MaxFloat64, 0x1p-1074, 0x1p-1022, math.Pi, 1e23}
-	for i := 0; i < 3000; i++ {
+	for i := 0; i < cases(3000); i++ {
 		xs = append(xs, math.Float64frombits(rng.Uint64()))
 	}
 	for _, x := range xs {
