@@ -1,0 +1,298 @@
+package interval
+
+import (
+	"math"
+	"math/big"
+)
+
+// Trigonometric functions and the arctangent.
+//
+// References:
+//
+//	J.-M. Muller, Elementary Functions: Algorithms and Implementation,
+//	3rd ed., Birkhäuser, 2016 (ch. 11, additive range reduction).
+//	W. Tucker, Validated Numerics, Princeton University Press, 2011.
+
+const (
+	trigTerms = 9   // sin: degree 19, cos: degree 18 on |r| ≤ π/4
+	atanTerms = 11  // atan: degree 23 on |u| ≤ 1/8
+	fastTrig  = 1e6 // |x| ≤ fastTrig: Cody–Waite reduction in float64
+)
+
+var (
+	sinCoef [trigTerms]I // (−1)^{k+1}/(2k+3)!
+	cosCoef [trigTerms]I // (−1)^{k+1}/(2k+2)!
+	tanCoef [trigTerms]I // (−1)^k 2(k+1)/(2k+3)!
+	atnCoef [atanTerms]I // (−1)^{k+1}/(2k+3)
+	mask64  = new(big.Int).SetUint64(math.MaxUint64)
+)
+
+func init() {
+	for k := 0; k < trigTerms; k++ {
+		sinCoef[k] = invFact[2*k+3]
+		cosCoef[k] = invFact[2*k+2]
+		tanCoef[k] = invFact[2*k+3].MulF(float64(2 * (k + 1)))
+		if k%2 == 0 {
+			sinCoef[k] = sinCoef[k].Neg()
+			cosCoef[k] = cosCoef[k].Neg()
+		} else {
+			tanCoef[k] = tanCoef[k].Neg()
+		}
+	}
+	for k := range atnCoef {
+		atnCoef[k] = invOdd[k+1]
+		if k%2 == 0 {
+			atnCoef[k] = atnCoef[k].Neg()
+		}
+	}
+}
+
+// reduceHalfPi returns k (exact modulo 2⁶⁴) and an enclosure r of the real
+// number x − k·π/2, for finite x; k is chosen near x/(π/2), so |r| ≤ π/4
+// up to a few ulps.
+//
+// For |x| ≤ 10⁶ (|k| < 2²⁰) the Cody–Waite splitting
+// r ∈ ((x − k·halfPi1) − k·halfPi2) − k·halfPi3I is used, with k·halfPi1,
+// k·halfPi2 exact floats. Beyond, x (exact) is reduced in math/big with a
+// 1400-bit enclosure [p⁻, p⁺] ∋ π/2: r ∈ [x − k p⁺, x − k p⁻] for k ≥ 0
+// (swapped for k < 0), each end rounded outward; |x| < 2¹⁰²⁴ makes the
+// width of that enclosure below 2⁻³⁷⁰, so every float64 argument, however
+// large, is reduced correctly and tightly.
+func reduceHalfPi(x float64) (int64, I) {
+	if math.Abs(x) <= fastTrig {
+		kf := math.Round(float64(x * twoOverPi))
+		r := Point(x).Sub(Point(float64(kf * halfPi1))).Sub(Point(float64(kf * halfPi2))).Sub(halfPi3I.MulF(kf))
+		return int64(kf), r
+	}
+	return reduceHuge(x)
+}
+
+func reduceHuge(x float64) (int64, I) {
+	pLo, pHi := hugeHalfPi()
+	const w = 2*hugePrec + 200 // k·p± and x − k·p± are exact at w bits
+	X := new(big.Float).SetFloat64(x)
+	q := new(big.Float).SetPrec(1200).Quo(X, pLo) // a choice of k
+	half := big.NewFloat(0.5)
+	if x < 0 {
+		half.Neg(half)
+	}
+	q.Add(q, half)
+	kInt, _ := q.Int(nil)
+	K := new(big.Float).SetInt(kInt)
+	kpLo := new(big.Float).SetPrec(w).SetMode(big.ToNegativeInf).Mul(K, pLo)
+	kpHi := new(big.Float).SetPrec(w).SetMode(big.ToPositiveInf).Mul(K, pHi)
+	if kInt.Sign() < 0 {
+		kpLo.SetMode(big.ToPositiveInf).Mul(K, pLo)
+		kpHi.SetMode(big.ToNegativeInf).Mul(K, pHi)
+		kpLo, kpHi = kpHi, kpLo
+	}
+	// Now kpLo ≤ k·π/2 ≤ kpHi.
+	rLo := new(big.Float).SetPrec(w).SetMode(big.ToNegativeInf).Sub(X, kpHi)
+	rHi := new(big.Float).SetPrec(w).SetMode(big.ToPositiveInf).Sub(X, kpLo)
+	k := int64(new(big.Int).And(kInt, mask64).Uint64())
+	return k, bigToI(rLo, rHi)
+}
+
+// sinRel encloses sin(r)/r − 1 = Σ_{k≥1} (−1)^k r^{2k}/(2k+1)! by the
+// terms through r^{18} and the Lagrange remainder |r|^{20}/21! (that is,
+// |sin r − T₁₉(r)| ≤ |r|^{21}/21!, since |sin^{(21)}| ≤ 1).
+func sinRel(r2 I, m float64) I {
+	rem := MulUp(powUp(m, 2*trigTerms+2), invFact[2*trigTerms+3].Hi)
+	return r2.Mul(horner(sinCoef[:], r2)).Add(sym(rem))
+}
+
+// cosRel encloses cos(r) − 1 by the terms through r^{18} and the Lagrange
+// remainder |r|^{20}/20!.
+func cosRel(r2 I, m float64) I {
+	rem := MulUp(powUp(m, 2*trigTerms+2), invFact[2*trigTerms+2].Hi)
+	return r2.Mul(horner(cosCoef[:], r2)).Add(sym(rem))
+}
+
+// tanRel encloses g(r) = sin(r)/r − cos(r) = Σ_{k≥1} (−1)^{k+1} 2k r^{2k}/(2k+1)!
+// for |r| ≤ 1: the ratio of consecutive terms is r²/(2k(2k+3)) ≤ 1/10, so
+// the tail after k = 9 is at most 2·20|r|^{20}/21!.
+func tanRel(r2 I, m float64) I {
+	rem := MulUp(MulUp(powUp(m, 2*trigTerms+2), invFact[2*trigTerms+3].Hi), float64(4*(trigTerms+1)))
+	return r2.Mul(horner(tanCoef[:], r2)).Add(sym(rem))
+}
+
+// sinReduced encloses sin(k·π/2 + r) (r an enclosure, |r| ≤ 1).
+func sinReduced(k int64, r I) I {
+	var v I
+	r2, m := r.Sqr(), r.Mag()
+	switch k & 3 {
+	case 0:
+		v = r.Add(r.Mul(sinRel(r2, m)))
+	case 1:
+		v = cosRel(r2, m).AddF(1)
+	case 2:
+		v = r.Add(r.Mul(sinRel(r2, m))).Neg()
+	default:
+		v = cosRel(r2, m).AddF(1).Neg()
+	}
+	return clipUnit(v)
+}
+
+func clipUnit(v I) I {
+	return I{math.Max(v.Lo, -1), math.Min(v.Hi, 1)}
+}
+
+// Sin returns an enclosure of {sin t : t ∈ x}.
+//
+// At a point: sin(k·π/2 + r) is ±sin r or ±cos r by k mod 4 (reduction in
+// reduceHalfPi), with
+//
+//	sin r = Σ_{j=0}^{9} (−1)^j r^{2j+1}/(2j+1)! + R,  |R| ≤ |r|^{21}/21!,
+//	cos r = Σ_{j=0}^{9} (−1)^j r^{2j}/(2j)! + R,      |R| ≤ |r|^{20}/20!
+//
+// (Lagrange remainders; every derivative of sin and cos is bounded by 1).
+// On an interval: sin is monotone between consecutive odd multiples of
+// π/2; an odd multiple m·π/2 that may lie in x (decided with enclosures of
+// the ends' positions k + r/(π/2)) contributes its value ±1, and otherwise
+// the range is the hull of the values at the ends. Unbounded x or x wider
+// than 7 give [−1, 1].
+func Sin(x I) I { return trigRange(x, 0) }
+
+// Cos returns an enclosure of {cos t : t ∈ x}, by the method of Sin with
+// cos(k·π/2 + r) = sin((k+1)·π/2 + r); its extrema lie at even multiples
+// of π/2.
+func Cos(x I) I { return trigRange(x, 1) }
+
+// trigRange encloses sin(t + shift·π/2) over t ∈ x.
+func trigRange(x I, shift int64) I {
+	if !x.IsBounded() || x.Hi-x.Lo > 7 {
+		return I{-1, 1}
+	}
+	ka, ra := reduceHalfPi(x.Lo)
+	ka += shift
+	if x.IsPoint() {
+		return sinReduced(ka, ra)
+	}
+	kb, rb := reduceHalfPi(x.Hi)
+	kb += shift
+	v := sinReduced(ka, ra).Hull(sinReduced(kb, rb))
+	lo, hi, ok := multiplesIn(ka, ra, kb, rb)
+	if !ok {
+		return I{-1, 1}
+	}
+	for j := lo; j <= hi; j++ {
+		switch (ka + j) & 3 {
+		case 1:
+			v.Hi = 1
+		case 3:
+			v.Lo = -1
+		}
+	}
+	return v
+}
+
+// multiplesIn returns the range lo..hi of offsets j such that the multiple
+// (ka + j)·π/2 may lie in [ka·π/2 + ra, kb·π/2 + rb]: every j outside it is
+// proved outside. ok is false if kb − ka is not small.
+func multiplesIn(ka int64, ra I, kb int64, rb I) (lo, hi int64, ok bool) {
+	d := kb - ka
+	if d < 0 || d > 8 {
+		return 0, 0, false
+	}
+	fa := ra.Div(halfPiI)
+	fb := rb.Div(halfPiI)
+	// (ka + j)π/2 ≥ ka·π/2 + ra needs j ≥ ra/(π/2) ≥ fa.Lo;
+	// (ka + j)π/2 ≤ kb·π/2 + rb needs j ≤ d + rb/(π/2) ≤ d + fb.Hi.
+	return int64(math.Ceil(fa.Lo)), int64(math.Floor(AddUp(float64(d), fb.Hi))), true
+}
+
+// Tan returns an enclosure of {tan t : t ∈ x}, or a *DomainError if x is
+// unbounded or may contain an odd multiple of π/2.
+//
+// At a point t = k·π/2 + r: tan t = tan r for even k and −cot r for odd k,
+// with
+//
+//	tan r = r + r·g/(1 + c'),   cot r = 1/r − (1/r)·g/(1 + s'),
+//
+// where s' = sin(r)/r − 1, c' = cos r − 1 and g = s' − c' are enclosed by
+// their series (see Sin and tanRel). tan increases between its poles, so
+// on an interval without a pole the range is [tan x.Lo, tan x.Hi].
+func Tan(x I) (I, error) {
+	if !x.IsBounded() {
+		return Entire(), &DomainError{"tan", x}
+	}
+	ka, ra := reduceHalfPi(x.Lo)
+	if x.IsPoint() {
+		v, ok := tanReduced(ka, ra)
+		if !ok {
+			return Entire(), &DomainError{"tan", x}
+		}
+		return v, nil
+	}
+	kb, rb := reduceHalfPi(x.Hi)
+	lo, hi, ok := multiplesIn(ka, ra, kb, rb)
+	if !ok {
+		return Entire(), &DomainError{"tan", x}
+	}
+	for j := lo; j <= hi; j++ {
+		if (ka+j)&1 == 1 {
+			return Entire(), &DomainError{"tan", x}
+		}
+	}
+	va, oka := tanReduced(ka, ra)
+	vb, okb := tanReduced(kb, rb)
+	if !oka || !okb {
+		return Entire(), &DomainError{"tan", x}
+	}
+	return I{va.Lo, vb.Hi}, nil
+}
+
+// tanReduced encloses tan(k·π/2 + r); ok is false if k is odd and 0 ∈ r.
+func tanReduced(k int64, r I) (I, bool) {
+	r2, m := r.Sqr(), r.Mag()
+	g := tanRel(r2, m)
+	if k&1 == 0 {
+		return r.Add(r.Mul(g.Div(cosRel(r2, m).AddF(1)))), true
+	}
+	if r.ContainsZero() {
+		return Entire(), false
+	}
+	inv := Point(1).Div(r)
+	return inv.Sub(inv.Mul(g.Div(sinRel(r2, m).AddF(1)))).Neg(), true
+}
+
+// Atan returns an enclosure of {atan t : t ∈ x} (atan increases;
+// atan(±∞) = ±π/2).
+//
+// At a point t ≥ 0 (atan is odd): for t > 1, atan t = π/2 − atan(1/t);
+// for 0 ≤ t ≤ 1, with c = j/4 the nearest quarter,
+// atan t = atan c + atan u, u = (t − c)/(1 + t c), |u| ≤ 1/8 (the
+// addition formula, valid as t c > −1), and
+//
+//	atan u = Σ_{k=0}^{11} (−1)^k u^{2k+1}/(2k+1) + R,
+//	|R| ≤ Σ_{k>11} |u|^{2k+1}/(2k+1) ≤ |u|^{25}/(25(1 − u²)) ≤ (64/63)|u|^{25}/25.
+//
+// atan(j/4) are enclosed in math/big (see the constants).
+func Atan(x I) I {
+	return I{atanPoint(x.Lo).Lo, atanPoint(x.Hi).Hi}
+}
+
+func atanPoint(t float64) I {
+	if t < 0 {
+		return atanPoint(-t).Neg()
+	}
+	if t > 1 {
+		return halfPiI.Sub(atanUnit(Point(1).Div(Point(t))))
+	}
+	return atanUnit(Point(t))
+}
+
+// atanUnit encloses atan over t ⊆ [0, 1].
+func atanUnit(t I) I {
+	j := math.Round(4 * t.Mid())
+	c := j / 4
+	u := t.Sub(Point(c)).Div(Point(1).Add(t.MulF(c)))
+	m := u.Mag()
+	if !(m <= 0.126) {
+		panic("interval: internal error: atan reduction out of range")
+	}
+	rem := MulUp(powUp(m, 2*atanTerms+3), DivUp(64, float64(63*(2*atanTerms+3))))
+	u2 := u.Sqr()
+	s := u.Add(u.Mul(u2.Mul(horner(atnCoef[:], u2))).Add(sym(rem)))
+	return atanTab[int(j)].Add(s)
+}
