@@ -12,17 +12,19 @@ type I struct {
 	Lo, Hi float64
 }
 
-// Point returns the degenerate interval [x, x]. It panics if x is NaN.
+// Point returns the degenerate interval [x, x]. It panics unless x is
+// finite (an interval is a set of reals; ±∞ may only be an open end).
 func Point(x float64) I {
-	if math.IsNaN(x) {
-		panic("interval: NaN point")
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		panic(fmt.Sprintf("interval: point %g is not a real number", x))
 	}
 	return I{x, x}
 }
 
-// New returns [lo, hi]. It panics if lo > hi or either end is NaN.
+// New returns [lo, hi]. It panics if lo > hi, if an end is NaN, or if
+// lo = +∞ or hi = −∞.
 func New(lo, hi float64) I {
-	if !(lo <= hi) {
+	if !(lo <= hi) || math.IsInf(lo, 1) || math.IsInf(hi, -1) {
 		panic(fmt.Sprintf("interval: invalid ends [%g, %g]", lo, hi))
 	}
 	return I{lo, hi}
@@ -49,7 +51,7 @@ func (x I) Mid() float64 {
 	case math.IsInf(x.Hi, 1):
 		return math.MaxFloat64
 	}
-	m := 0.5*x.Lo + 0.5*x.Hi // no overflow; exact unless subnormal
+	m := float64(0.5*x.Lo) + float64(0.5*x.Hi) // no overflow
 	if m < x.Lo {
 		return x.Lo
 	}
@@ -126,8 +128,14 @@ func (x I) Less(y I) bool { return x.Hi < y.Lo }
 // Hull returns the smallest interval containing x and y.
 func (x I) Hull(y I) I { return I{math.Min(x.Lo, y.Lo), math.Max(x.Hi, y.Hi)} }
 
-// HullPoint returns the smallest interval containing x and t.
-func (x I) HullPoint(t float64) I { return I{math.Min(x.Lo, t), math.Max(x.Hi, t)} }
+// HullPoint returns the smallest interval containing x and t. It panics if
+// t is NaN.
+func (x I) HullPoint(t float64) I {
+	if math.IsNaN(t) {
+		panic("interval: NaN point")
+	}
+	return I{math.Min(x.Lo, t), math.Max(x.Hi, t)}
+}
 
 // Intersection returns x ∩ y and whether it is nonempty.
 func (x I) Intersection(y I) (I, bool) {
@@ -147,18 +155,34 @@ func (x I) Add(y I) I { return I{AddDown(x.Lo, y.Lo), AddUp(x.Hi, y.Hi)} }
 // Sub returns an enclosure of x − y (tightest).
 func (x I) Sub(y I) I { return I{SubDown(x.Lo, y.Hi), SubUp(x.Hi, y.Lo)} }
 
-// AddF returns an enclosure of x + t.
-func (x I) AddF(t float64) I { return I{AddDown(x.Lo, t), AddUp(x.Hi, t)} }
+// AddF returns the tightest enclosure of x + t. It panics unless t is
+// finite.
+func (x I) AddF(t float64) I {
+	mustFinite(t)
+	return I{AddDown(x.Lo, t), AddUp(x.Hi, t)}
+}
 
-// MulF returns an enclosure of x · t.
+// MulF returns the tightest enclosure of x · t, with 0·∞ = 0. It panics
+// unless t is finite.
 func (x I) MulF(t float64) I {
+	mustFinite(t)
 	if t >= 0 {
 		return I{MulDown(x.Lo, t), MulUp(x.Hi, t)}
 	}
 	return I{MulDown(x.Hi, t), MulUp(x.Lo, t)}
 }
 
-// Mul returns an enclosure of x · y (tightest), with 0·∞ = 0.
+func mustFinite(t float64) {
+	if math.IsNaN(t) || math.IsInf(t, 0) {
+		panic(fmt.Sprintf("interval: operand %g is not a real number", t))
+	}
+}
+
+// Mul returns the tightest enclosure of {s·t : s ∈ x, t ∈ y}. Infinite ends
+// stand for unbounded sets of reals, so a zero factor against an infinite
+// end contributes 0 (0·∞ = 0, IEEE 1788 §10.5.2). Each end is the directed
+// rounding of the extreme exact product, which is attained at a pair of ends
+// chosen by the signs of x and y.
 func (x I) Mul(y I) I {
 	a, b, c, d := x.Lo, x.Hi, y.Lo, y.Hi
 	switch {
@@ -192,15 +216,17 @@ func (x I) Mul(y I) I {
 	}
 }
 
-// Sqr returns an enclosure of {t² : t ∈ x} (tighter than x.Mul(x)).
+// Sqr returns the tightest enclosure of {t² : t ∈ x}, namely
+// [Mig², Mag²] rounded outward (tighter than x.Mul(x) when 0 ∈ x).
 func (x I) Sqr() I {
 	m, g := x.Mag(), x.Mig()
 	return I{MulDown(g, g), MulUp(m, m)}
 }
 
-// Div returns an enclosure of {s/t : s ∈ x, t ∈ y}. If 0 ∈ y the quotient
-// is not defined on all of y and Div returns Entire (sound but useless);
-// callers that must reject such cases check y.ContainsZero first.
+// Div returns an enclosure of {s/t : s ∈ x, t ∈ y}. If 0 ∉ y it is the
+// tightest one (an infinite end of y contributes the limit 0). If 0 ∈ y the
+// quotient is not defined on all of y and Div returns Entire (sound but
+// useless); callers that must reject such cases check y.ContainsZero first.
 func (x I) Div(y I) I {
 	if y.ContainsZero() {
 		return Entire()
@@ -227,7 +253,8 @@ func (x I) Div(y I) I {
 	}
 }
 
-// DivF returns an enclosure of x / t for t ≠ 0.
+// DivF returns the tightest enclosure of x / t for finite t ≠ 0 (Entire for
+// t = 0). It panics unless t is finite.
 func (x I) DivF(t float64) I { return x.Div(Point(t)) }
 
 // Recip returns an enclosure of 1/x (Entire if 0 ∈ x).
@@ -251,9 +278,17 @@ func (x I) Min(y I) I { return I{math.Min(x.Lo, y.Lo), math.Min(x.Hi, y.Hi)} }
 // Max returns {max(s, t) : s ∈ x, t ∈ y} (exact).
 func (x I) Max(y I) I { return I{math.Max(x.Lo, y.Lo), math.Max(x.Hi, y.Hi)} }
 
-// PowInt returns an enclosure of {tⁿ : t ∈ x} for an integer n. For n < 0
-// the result is Entire when 0 ∈ x. x⁰ = [1, 1].
+// PowInt returns an enclosure of {tⁿ : t ∈ x} for an integer n, with
+// x⁰ = [1, 1]. Even powers are enclosed by [Migⁿ, Magⁿ], odd powers
+// (increasing) by [Loⁿ, Hiⁿ], each end computed by repeated squaring with
+// directed products, so an end of |n| > 2 carries up to
+// bits.Len(|n|) + bits.OnesCount(|n|) − 2 directed roundings (n = 1, 2 are
+// tightest). For n < 0 the result is 1/x^|n| (one more rounding), Entire
+// when 0 ∈ x.
 func (x I) PowInt(n int) I {
+	if n == math.MinInt { // −n overflows; t^(2k) = (t^k)²
+		return x.PowInt(n / 2).Sqr()
+	}
 	if n < 0 {
 		return x.PowInt(-n).Recip()
 	}
@@ -264,7 +299,6 @@ func (x I) PowInt(n int) I {
 		g, m := x.Mig(), x.Mag()
 		return I{powDown(g, n), powUp(m, n)}
 	}
-	// Odd powers are increasing.
 	return I{oddPowDown(x.Lo, n), oddPowUp(x.Hi, n)}
 }
 
