@@ -1,0 +1,282 @@
+package certs
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+
+	"gapcert/interval"
+	"gapcert/interval/decimalio"
+)
+
+// Format is the format identifier written to, and required in, the "format"
+// field of every certificate this package reads or writes.
+const Format = "gapcert.certificate/v1"
+
+// Bound is a closed interval printed as two decimal strings: Lower is ≤ the
+// enclosed quantity and Upper is ≥ it. The strings are "Infinity" and
+// "-Infinity" for unbounded ends.
+type Bound struct {
+	Lower string `json:"lower"`
+	Upper string `json:"upper"`
+}
+
+// NewBound returns x printed with digits significant digits, the lower end
+// rounded toward −∞ and the upper end toward +∞, so that the exact values of
+// the printed strings enclose x. It panics if digits < 1.
+func NewBound(x interval.I, digits int) Bound {
+	if digits < 1 {
+		panic("certs: digits must be at least 1")
+	}
+	return Bound{Lower: decimalio.FormatLower(x.Lo, digits), Upper: decimalio.FormatUpper(x.Hi, digits)}
+}
+
+// Interval returns a float64 interval that contains the exact interval
+// [Lower, Upper] as printed (each end is read exactly and rounded outward).
+// It returns an error if a string is not a decimal, a fraction or ±Infinity,
+// or if the ends do not form a nonempty interval.
+func (b Bound) Interval() (interval.I, error) {
+	lo, err := decimalio.ParseLower(b.Lower)
+	if err != nil {
+		return interval.I{}, fmt.Errorf("lower end %q: %w", b.Lower, err)
+	}
+	hi, err := decimalio.ParseUpper(b.Upper)
+	if err != nil {
+		return interval.I{}, fmt.Errorf("upper end %q: %w", b.Upper, err)
+	}
+	if math.IsInf(lo, 1) || math.IsInf(hi, -1) || lo > hi {
+		return interval.I{}, fmt.Errorf("[%s, %s] is not an interval", b.Lower, b.Upper)
+	}
+	return interval.I{Lo: lo, Hi: hi}, nil
+}
+
+// Eigen is the enclosure of the eigenvalue λ_Index (1-based).
+type Eigen struct {
+	Index int    `json:"index"`
+	Lower string `json:"lower"`
+	Upper string `json:"upper"`
+}
+
+// Bound returns the enclosure of e as a Bound.
+func (e Eigen) Bound() Bound { return Bound{Lower: e.Lower, Upper: e.Upper} }
+
+// Results are the certified quantities.
+type Results struct {
+	Eigenvalues    []Eigen           `json:"eigenvalues"`
+	Gap            Bound             `json:"gap"`
+	Diameter       Bound             `json:"diameter"`
+	GapD2OverPi2   Bound             `json:"gap_d2_over_pi2"`
+	RelativeWidths map[string]string `json:"relative_widths"`
+}
+
+// Verdicts of a claim.
+const (
+	Holds     = "holds"
+	Fails     = "fails"
+	Undecided = "undecided"
+)
+
+// ClaimResult is the verdict on one claim. Margin encloses lhs − rhs over
+// the certified enclosures; Reason says why a claim could not be evaluated
+// (empty when it was).
+type ClaimResult struct {
+	Text    string `json:"text"`
+	Verdict string `json:"verdict"`
+	Margin  Bound  `json:"margin"`
+	Reason  string `json:"reason,omitempty"`
+}
+
+// Provenance records what produced a certificate. It is informative only;
+// nothing in it affects the bounds.
+type Provenance struct {
+	Tool      string `json:"tool"`
+	GoVersion string `json:"go_version"`
+	OS        string `json:"os"`
+	Arch      string `json:"arch"`
+	Time      string `json:"time"`
+}
+
+// Certificate is the whole document. Problem is the canonical JSON of the
+// problem (a JSON object) and ProblemSHA256 the hex SHA-256 of it; Method is
+// written by the certification driver and is opaque here (it may be null).
+type Certificate struct {
+	Format        string          `json:"format"`
+	Problem       json.RawMessage `json:"problem"`
+	ProblemSHA256 string          `json:"problem_sha256"`
+	Results       Results         `json:"results"`
+	Claims        []ClaimResult   `json:"claims"`
+	Method        json.RawMessage `json:"method"`
+	Warnings      []string        `json:"warnings"`
+	Provenance    Provenance      `json:"provenance"`
+}
+
+// FormatError reports a certificate that does not have the layout of
+// Format. Path is the JSON path of the offending value ("results.gap").
+type FormatError struct {
+	Path string
+	Msg  string
+}
+
+func (e *FormatError) Error() string {
+	if e.Path == "" {
+		return "certs: " + e.Msg
+	}
+	return "certs: " + e.Path + ": " + e.Msg
+}
+
+// Marshal returns the certificate as indented JSON (two spaces, field order
+// as declared, map keys sorted, no HTML escaping, trailing newline). Absent
+// lists and maps are written as [] and {}, a nil Method as null. It returns
+// an error if c.Format is not Format or c.Problem is not a JSON object.
+func (c *Certificate) Marshal() ([]byte, error) {
+	if c.Format != Format {
+		return nil, &FormatError{Path: "format", Msg: fmt.Sprintf("is %q, want %q", c.Format, Format)}
+	}
+	if !isObject(c.Problem) {
+		return nil, &FormatError{Path: "problem", Msg: "must be a JSON object"}
+	}
+	out := *c
+	if out.Results.Eigenvalues == nil {
+		out.Results.Eigenvalues = []Eigen{}
+	}
+	if out.Results.RelativeWidths == nil {
+		out.Results.RelativeWidths = map[string]string{}
+	}
+	if out.Claims == nil {
+		out.Claims = []ClaimResult{}
+	}
+	if out.Warnings == nil {
+		out.Warnings = []string{}
+	}
+	if len(out.Method) == 0 {
+		out.Method = json.RawMessage("null")
+	}
+	var buf bytes.Buffer
+	enc := json.NewEncoder(&buf)
+	enc.SetEscapeHTML(false)
+	enc.SetIndent("", "  ")
+	if err := enc.Encode(&out); err != nil {
+		return nil, fmt.Errorf("certs: %w", err)
+	}
+	return buf.Bytes(), nil // Encode ends with a newline
+}
+
+// Unmarshal reads a certificate strictly: the "format" field must be
+// present and equal to Format (checked first, so that a certificate of
+// another version is reported as such), every key must be known, every
+// section of the top level and of "results" must be present, nothing may
+// follow the document, and every bound must be readable by Bound.Interval.
+// Errors are *FormatError, except JSON syntax errors, which are wrapped.
+func Unmarshal(data []byte) (*Certificate, error) {
+	var head struct {
+		Format *string `json:"format"`
+	}
+	if err := json.NewDecoder(bytes.NewReader(data)).Decode(&head); err != nil {
+		return nil, fmt.Errorf("certs: not a JSON certificate: %w", err)
+	}
+	if head.Format == nil {
+		return nil, &FormatError{Msg: fmt.Sprintf("no \"format\" field; a gapcert certificate starts with \"format\": %q", Format)}
+	}
+	if *head.Format != Format {
+		return nil, &FormatError{Path: "format", Msg: fmt.Sprintf("certificate format %q is not supported; this version reads %q", *head.Format, Format)}
+	}
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.DisallowUnknownFields()
+	var c Certificate
+	if err := dec.Decode(&c); err != nil {
+		return nil, &FormatError{Msg: err.Error()}
+	}
+	if _, err := dec.Token(); !errors.Is(err, io.EOF) {
+		return nil, &FormatError{Msg: "data after the end of the certificate"}
+	}
+	if err := requireKeys(data, "", "format", "problem", "problem_sha256", "results", "claims", "method", "warnings", "provenance"); err != nil {
+		return nil, err
+	}
+	var top map[string]json.RawMessage
+	_ = json.Unmarshal(data, &top) // decoded above, so this cannot fail
+	if err := requireKeys(top["results"], "results.", "eigenvalues", "gap", "diameter", "gap_d2_over_pi2", "relative_widths"); err != nil {
+		return nil, err
+	}
+	if err := c.validate(); err != nil {
+		return nil, err
+	}
+	return &c, nil
+}
+
+// requireKeys checks that the JSON object obj has every key.
+func requireKeys(obj []byte, prefix string, keys ...string) error {
+	var m map[string]json.RawMessage
+	if err := json.Unmarshal(obj, &m); err != nil || m == nil {
+		return &FormatError{Path: trimDot(prefix), Msg: "must be a JSON object"}
+	}
+	for _, k := range keys {
+		if _, ok := m[k]; !ok {
+			return &FormatError{Path: prefix + k, Msg: "missing"}
+		}
+	}
+	return nil
+}
+
+func trimDot(p string) string {
+	if n := len(p); n > 0 && p[n-1] == '.' {
+		return p[:n-1]
+	}
+	return p
+}
+
+func isObject(raw json.RawMessage) bool {
+	var m map[string]json.RawMessage
+	return json.Unmarshal(raw, &m) == nil && m != nil
+}
+
+// validate checks the values that the JSON layout alone does not.
+func (c *Certificate) validate() error {
+	if !isObject(c.Problem) {
+		return &FormatError{Path: "problem", Msg: "must be a JSON object"}
+	}
+	bound := func(path string, b Bound) error {
+		if _, err := b.Interval(); err != nil {
+			return &FormatError{Path: path, Msg: err.Error()}
+		}
+		return nil
+	}
+	for i, e := range c.Results.Eigenvalues {
+		path := fmt.Sprintf("results.eigenvalues[%d]", i)
+		if e.Index < 1 || (i > 0 && e.Index <= c.Results.Eigenvalues[i-1].Index) {
+			return &FormatError{Path: path + ".index", Msg: fmt.Sprintf("index %d is not a positive number above the previous index", e.Index)}
+		}
+		if err := bound(path, e.Bound()); err != nil {
+			return err
+		}
+	}
+	for _, nb := range []struct {
+		path string
+		b    Bound
+	}{
+		{"results.gap", c.Results.Gap},
+		{"results.diameter", c.Results.Diameter},
+		{"results.gap_d2_over_pi2", c.Results.GapD2OverPi2},
+	} {
+		if err := bound(nb.path, nb.b); err != nil {
+			return err
+		}
+	}
+	for i, r := range c.Claims {
+		path := fmt.Sprintf("claims[%d]", i)
+		if r.Text == "" {
+			return &FormatError{Path: path + ".text", Msg: "empty claim"}
+		}
+		switch r.Verdict {
+		case Holds, Fails, Undecided:
+		default:
+			return &FormatError{Path: path + ".verdict", Msg: fmt.Sprintf("%q is not one of %q, %q, %q", r.Verdict, Holds, Fails, Undecided)}
+		}
+		if err := bound(path+".margin", r.Margin); err != nil {
+			return err
+		}
+	}
+	return nil
+}

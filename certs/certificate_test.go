@@ -1,0 +1,234 @@
+package certs
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"math"
+	"math/big"
+	"math/rand/v2"
+	"reflect"
+	"strings"
+	"testing"
+
+	"gapcert/interval"
+)
+
+func sample() *Certificate {
+	return &Certificate{
+		Format:        Format,
+		Problem:       json.RawMessage(`{"name":"unit interval","dim":1}`),
+		ProblemSHA256: "00ff",
+		Results: Results{
+			Eigenvalues: []Eigen{
+				{Index: 1, Lower: "9.8696044010", Upper: "9.8696044011"},
+				{Index: 2, Lower: "39.478417604", Upper: "39.478417605"},
+			},
+			Gap:            Bound{"29.608813203", "29.608813204"},
+			Diameter:       Bound{"1", "1"},
+			GapD2OverPi2:   Bound{"2.9999999999", "3.0000000001"},
+			RelativeWidths: map[string]string{"lambda2": "2.6e-11", "lambda1": "1.1e-11"},
+		},
+		Claims: []ClaimResult{
+			{Text: "lambda2 - lambda1 >= 3*pi^2/D^2", Verdict: Undecided, Margin: Bound{"-1e-9", "1e-9"}},
+			{Text: "pi > 3 & <", Verdict: Holds, Margin: Bound{"0.14", "0.15"}},
+		},
+		Method:     json.RawMessage(`{"mesh":{"cells":64}}`),
+		Warnings:   []string{"demo data"},
+		Provenance: Provenance{Tool: "gapcert test", GoVersion: "go1.26", OS: "linux", Arch: "amd64", Time: "2026-01-01T00:00:00Z"},
+	}
+}
+
+func TestRoundTrip(t *testing.T) {
+	c := sample()
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.HasSuffix(data, []byte("}\n")) || bytes.HasSuffix(data, []byte("\n\n")) {
+		t.Errorf("no single trailing newline")
+	}
+	if !bytes.HasPrefix(data, []byte("{\n  \"format\": \""+Format+"\",\n  \"problem\": {\n    \"name\"")) {
+		t.Errorf("unexpected layout:\n%s", data)
+	}
+	if !bytes.Contains(data, []byte(`"pi > 3 & <"`)) {
+		t.Errorf("claim text escaped:\n%s", data)
+	}
+	if !bytes.Contains(data, []byte("\"relative_widths\": {\n      \"lambda1\"")) {
+		t.Errorf("map keys not sorted:\n%s", data)
+	}
+	back, err := Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	again, err := back.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(data, again) {
+		t.Errorf("Marshal∘Unmarshal changed the document:\n%s\n---\n%s", data, again)
+	}
+	if !reflect.DeepEqual(back.Results, c.Results) || !reflect.DeepEqual(back.Claims, c.Claims) || back.Provenance != c.Provenance {
+		t.Errorf("round trip changed the values")
+	}
+	for _, key := range []string{"format", "problem", "problem_sha256", "results", "eigenvalues", "index", "lower", "upper", "gap", "diameter", "gap_d2_over_pi2", "relative_widths", "claims", "text", "verdict", "margin", "method", "warnings", "provenance", "tool", "go_version", "os", "arch", "time"} {
+		if !bytes.Contains(data, []byte(`"`+key+`":`)) {
+			t.Errorf("key %q missing", key)
+		}
+	}
+}
+
+func TestMarshalEmptyLists(t *testing.T) {
+	c := sample()
+	c.Claims, c.Warnings, c.Method, c.Results.Eigenvalues, c.Results.RelativeWidths = nil, nil, nil, nil, nil
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{`"claims": []`, `"warnings": []`, `"method": null`, `"eigenvalues": []`, `"relative_widths": {}`} {
+		if !bytes.Contains(data, []byte(want)) {
+			t.Errorf("missing %s in\n%s", want, data)
+		}
+	}
+	if _, err := Unmarshal(data); err != nil {
+		t.Error(err)
+	}
+}
+
+func TestMarshalRejects(t *testing.T) {
+	c := sample()
+	c.Format = "gapcert.certificate/v0"
+	if _, err := c.Marshal(); err == nil {
+		t.Error("wrong format marshalled")
+	}
+	c = sample()
+	c.Problem = json.RawMessage(`[1]`)
+	if _, err := c.Marshal(); err == nil {
+		t.Error("non-object problem marshalled")
+	}
+}
+
+func TestUnmarshalStrict(t *testing.T) {
+	good, err := sample().Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	edit := func(old, new string) []byte {
+		if !bytes.Contains(good, []byte(old)) {
+			t.Fatalf("fixture lacks %q", old)
+		}
+		return bytes.Replace(good, []byte(old), []byte(new), 1)
+	}
+	tests := []struct {
+		name string
+		data []byte
+		want string // substring of the error
+	}{
+		{"other version", edit(`"format": "gapcert.certificate/v1"`, `"format": "gapcert.certificate/v2"`), `"gapcert.certificate/v2" is not supported`},
+		{"no format", edit(`"format": "gapcert.certificate/v1",`, ``), `no "format" field`},
+		{"unknown top key", edit(`"warnings":`, `"extra": 1, "warnings":`), `unknown field "extra"`},
+		{"unknown nested key", edit(`"index": 1,`, `"index": 1, "mid": "9.87",`), `unknown field "mid"`},
+		{"missing section", edit(`"warnings": [
+    "demo data"
+  ],`, ``), `warnings: missing`},
+		{"missing result", edit(`"diameter": {
+      "lower": "1",
+      "upper": "1"
+    },`, ``), `results.diameter: missing`},
+		{"float bound", edit(`"lower": "1",`, `"lower": 1,`), `cannot unmarshal number`},
+		{"bad decimal", edit(`"lower": "1",`, `"lower": "1.0.0",`), `results.diameter`},
+		{"empty bound", edit(`"lower": "1",`, `"lower": "",`), `results.diameter`},
+		{"reversed bound", edit(`"upper": "1"`, `"upper": "0.5"`), `not an interval`},
+		{"bad verdict", edit(`"verdict": "holds"`, `"verdict": "true"`), `claims[1].verdict`},
+		{"bad index", edit(`"index": 2,`, `"index": 1,`), `results.eigenvalues[1].index`},
+		{"problem not object", edit(`"problem": {
+    "name": "unit interval",
+    "dim": 1
+  },`, `"problem": [1],`), `problem: must be a JSON object`},
+		{"problem null", edit(`"problem": {
+    "name": "unit interval",
+    "dim": 1
+  },`, `"problem": null,`), `problem: must be a JSON object`},
+		{"trailing data", append(append([]byte{}, good...), []byte(`{}`)...), `after the end`},
+		{"not json", []byte(`{"format": `), `not a JSON certificate`},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			_, err := Unmarshal(tc.data)
+			if err == nil {
+				t.Fatal("accepted")
+			}
+			if !strings.Contains(err.Error(), tc.want) {
+				t.Errorf("error %q does not mention %q", err, tc.want)
+			}
+		})
+	}
+	// Only syntax errors are not *FormatError.
+	var fe *FormatError
+	if _, err := Unmarshal(edit(`"index": 1,`, `"index": 1, "x": 0,`)); !errors.As(err, &fe) {
+		t.Errorf("unknown key: %T, want *FormatError", err)
+	}
+}
+
+// TestBoundContainsInterval: NewBound(x, d).Interval() ⊇ x, checked on
+// random intervals over many magnitudes with the exact comparison of
+// math/big (the printed decimals are read as exact rationals), and the
+// printed interval is not much wider than a unit in the last printed digit.
+func TestBoundContainsInterval(t *testing.T) {
+	rng := rand.New(rand.NewPCG(17, 88))
+	for i := 0; i < 3000; i++ {
+		a := math.Ldexp(rng.Float64()*2-1, rng.IntN(200)-100)
+		b := a + math.Abs(a)*rng.Float64()*math.Pow(10, -float64(rng.IntN(16)))
+		if rng.IntN(10) == 0 {
+			b = a
+		}
+		x := interval.New(a, b)
+		digits := 1 + rng.IntN(17)
+		bd := NewBound(x, digits)
+		y, err := bd.Interval()
+		if err != nil {
+			t.Fatalf("%v, %d digits: %v", x, digits, err)
+		}
+		if !x.Subset(y) {
+			t.Fatalf("%v, %d digits: printed [%s, %s] reads back as %v", x, digits, bd.Lower, bd.Upper, y)
+		}
+		lo, _ := new(big.Rat).SetString(bd.Lower)
+		hi, _ := new(big.Rat).SetString(bd.Upper)
+		if lo.Cmp(new(big.Rat).SetFloat64(a)) > 0 || hi.Cmp(new(big.Rat).SetFloat64(b)) < 0 {
+			t.Fatalf("%v, %d digits: printed [%s, %s] does not contain it (exact comparison)", x, digits, bd.Lower, bd.Upper)
+		}
+		// Each end moves by less than one unit in the digits-th place.
+		rel := 2 * math.Pow(10, float64(1-digits))
+		if y.Lo < a-math.Abs(a)*rel || y.Hi > b+math.Abs(b)*rel {
+			t.Fatalf("%v, %d digits: printed [%s, %s] is too wide", x, digits, bd.Lower, bd.Upper)
+		}
+	}
+}
+
+func TestBoundSpecial(t *testing.T) {
+	tests := []struct {
+		x interval.I
+		b Bound
+	}{
+		{interval.Entire(), Bound{"-Infinity", "Infinity"}},
+		{interval.I{Lo: 0, Hi: math.Inf(1)}, Bound{"0", "Infinity"}},
+		{interval.Point(0.5), Bound{"0.5000", "0.5000"}},
+		{interval.Point(1.0 / 3), Bound{"0.3333", "0.3334"}},
+		{interval.Point(-1.0 / 3), Bound{"-0.3334", "-0.3333"}},
+	}
+	for _, tc := range tests {
+		b := NewBound(tc.x, 4)
+		if b != tc.b {
+			t.Errorf("NewBound(%v, 4) = %v, want %v", tc.x, b, tc.b)
+		}
+		y, err := b.Interval()
+		if err != nil || !tc.x.Subset(y) {
+			t.Errorf("%v: Interval() = %v, %v", b, y, err)
+		}
+	}
+	for _, b := range []Bound{{"Infinity", "Infinity"}, {"-Infinity", "-Infinity"}, {"2", "1"}, {"x", "1"}, {"1", "1/0"}} {
+		if _, err := b.Interval(); err == nil {
+			t.Errorf("%v: no error", b)
+		}
+	}
+}

@@ -1,0 +1,309 @@
+package certify
+
+import (
+	"encoding/json"
+	"fmt"
+	"math"
+	"runtime"
+	"time"
+
+	"gapcert/certs"
+	"gapcert/fem/problem"
+	"gapcert/interval"
+	"gapcert/interval/decimalio"
+)
+
+// Digits is the number of significant digits of every bound in a
+// certificate (lower ends rounded down, upper ends up).
+const Digits = 17
+
+// Options controls the refinement loop. The zero value asks for the
+// problem's own target with the default budget.
+type Options struct {
+	RelWidth  float64       // target relative width (a choice); 0 = the problem's target
+	TimeLimit time.Duration // budget for refinement; 0 = DefaultTimeLimit
+	Tool      string        // tool name and version for the provenance block
+	Now       func() time.Time
+	Progress  func(format string, args ...any) // nil = quiet
+}
+
+// DefaultTimeLimit is the refinement budget when Options.TimeLimit is 0.
+const DefaultTimeLimit = 60 * time.Second
+
+// Certify encloses λ_1..λ_m (m = p.Eigenvalues) and the gap λ₂ − λ₁ of the
+// problem, refining until every relative width (see relWidth) is at most the
+// target or the budget is spent, and returns the certificate. When the
+// target is not met the certificate carries the widths reached and a
+// warning; its bounds are verified either way.
+func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
+	target := opt.RelWidth
+	if target == 0 {
+		target = p.RelWidth.Val.Hi // the looser end of the enclosed target
+	}
+	limit := opt.TimeLimit
+	if limit == 0 {
+		limit = DefaultTimeLimit
+	}
+	start := time.Now()
+	r, err := initialRecipe(p)
+	if err != nil {
+		return nil, err
+	}
+	var best *result
+	for {
+		t0 := time.Now()
+		out, err := compute(p, r)
+		if err != nil {
+			return nil, err
+		}
+		res, err := assemble(p, r, out)
+		if err != nil {
+			return nil, err
+		}
+		if opt.Progress != nil {
+			opt.Progress("cells %d, degree %d, stage-A cells %d: widths lambda1 %.2g, lambda2 %.2g, gap %.2g (%.2fs)\n",
+				r.cells, r.degree, r.stageACells, res.widths[0], res.widths[1], res.gapWidth, time.Since(t0).Seconds())
+		}
+		if best == nil || res.worst() <= best.worst() {
+			best = res
+		}
+		if res.worst() <= target {
+			break
+		}
+		next, ok := refine(r, out)
+		elapsed := time.Since(start)
+		// The next step costs a few times the last one; stop if it would not fit.
+		if !ok || elapsed+4*time.Since(t0) > limit {
+			best.warnings = append(best.warnings, fmt.Sprintf("target relative width %.3g not reached within the budget; widths reached are recorded in results.relative_widths", target))
+			break
+		}
+		r = next
+	}
+	return best.certificate(p, opt)
+}
+
+// initialRecipe chooses the first mesh, degrees, Taylor order and shift.
+//
+// The shift γ is an exact float64 with γ ≥ max(0, −inf V) + π²/D², so that
+// c = V + γ ≥ π²/D² > 0 on the domain (required by stage A, c_T ≥ 0, and by
+// stage B, whose weight is 1/c). inf V is taken from a verified enclosure
+// of V over the whole interval.
+func initialRecipe(p *problem.Problem) (recipe, error) {
+	vr, err := potentialRange(p)
+	if err != nil {
+		return recipe{}, fmt.Errorf("certify: potential: %w", err)
+	}
+	if !vr.IsBounded() {
+		return recipe{}, fmt.Errorf("certify: the potential is not bounded on the interval (enclosure %v)", vr)
+	}
+	d := p.Diameter()
+	scale := interval.Pi().Sqr().Div(d.Sqr()) // π²/D²
+	g := interval.Point(0).Max(vr.Neg()).Add(scale).Hi
+	taylor := 16
+	if poly, ok := p.Potential.Polynomial(); ok {
+		taylor = max(poly.Degree(), 1)
+	}
+	return recipe{cells: 4, degree: 6, fluxDegree: 7, taylor: taylor, stageACells: 256, gamma: roundShift(g)}, nil
+}
+
+// roundShift returns a float ≥ g with a short binary expansion (so that the
+// certificate's γ is readable); any float ≥ g is sound.
+func roundShift(g float64) float64 {
+	if g <= 0 {
+		return 0
+	}
+	e := math.Ilogb(g)
+	unit := math.Ldexp(1, e-10)
+	return math.Ceil(g/unit) * unit
+}
+
+// refine chooses the next recipe: raise the degree up to 12, then halve the
+// cells; refine the stage-A mesh when stage B could not separate.
+func refine(r recipe, out *outcome) (recipe, bool) {
+	if out.n == 0 {
+		if r.stageACells >= 1<<16 {
+			return r, false
+		}
+		r.stageACells *= 4
+		return r, true
+	}
+	switch {
+	case r.degree < 12:
+		r.degree += 2
+	case r.cells < 1<<12:
+		r.cells *= 2
+	default:
+		return r, false
+	}
+	r.fluxDegree = r.degree + 1
+	if r.taylor > 8 { // a general potential: keep the Taylor remainder small
+		r.taylor = min(2*r.degree+4, 24)
+	}
+	return r, true
+}
+
+// result is one computation turned into certified enclosures of λ_k.
+type result struct {
+	r        recipe
+	out      *outcome
+	lambda   []interval.I // λ_1..λ_m
+	gap      interval.I
+	widths   []float64
+	gapWidth float64
+	warnings []string
+}
+
+func (res *result) worst() float64 {
+	w := res.gapWidth
+	for _, x := range res.widths {
+		w = math.Max(w, x)
+	}
+	return w
+}
+
+// assemble combines the stages: λ_k ∈ [max(stage A, stage B) − γ, Ritz − γ].
+// A lower end above an upper end would contradict the theorems; it is
+// reported as an error and never certified.
+func assemble(p *problem.Problem, r recipe, out *outcome) (*result, error) {
+	m := p.Eigenvalues
+	res := &result{r: r, out: out, warnings: append([]string(nil), out.notes...)}
+	scale := interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
+	for k := 0; k < m; k++ {
+		lo := out.stageA[k]
+		if k < len(out.lg) {
+			lo = math.Max(lo, out.lg[k])
+		}
+		l := interval.I{Lo: interval.SubDown(lo, r.gamma), Hi: interval.SubUp(out.ritz[k], r.gamma)}
+		if l.Lo > l.Hi {
+			return nil, fmt.Errorf("certify: internal inconsistency: lower bound %g above upper bound %g for lambda%d", l.Lo, l.Hi, k+1)
+		}
+		res.lambda = append(res.lambda, l)
+		res.widths = append(res.widths, relWidth(l, scale))
+	}
+	res.gap = interval.I{
+		Lo: interval.SubDown(res.lambda[1].Lo, res.lambda[0].Hi),
+		Hi: interval.SubUp(res.lambda[1].Hi, res.lambda[0].Lo),
+	}
+	res.gapWidth = relWidth(res.gap, scale)
+	return res, nil
+}
+
+// relWidth is the width of x relative to max(|mid x|, scale), with
+// scale = π²/D² the natural size of the eigenvalues; it stays finite for
+// enclosures of 0 (Neumann λ₁) and of tiny gaps.
+func relWidth(x interval.I, scale float64) float64 {
+	return x.Wid() / math.Max(math.Abs(x.Mid()), scale)
+}
+
+// certificate writes the result as a certificate.
+func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certificate, error) {
+	d := p.Diameter()
+	pi2 := interval.Pi().Sqr()
+	c := &certs.Certificate{
+		Format:        certs.Format,
+		Problem:       json.RawMessage(p.Canonical()),
+		ProblemSHA256: p.SHA256(),
+		Warnings:      res.warnings,
+	}
+	for k, l := range res.lambda {
+		b := certs.NewBound(l, Digits)
+		c.Results.Eigenvalues = append(c.Results.Eigenvalues, certs.Eigen{Index: k + 1, Lower: b.Lower, Upper: b.Upper})
+	}
+	c.Results.Gap = certs.NewBound(res.gap, Digits)
+	c.Results.Diameter = certs.NewBound(d, Digits)
+	c.Results.GapD2OverPi2 = certs.NewBound(res.gap.Mul(d.Sqr()).Div(pi2), Digits)
+	c.Results.RelativeWidths = map[string]string{"gap": fmt.Sprintf("%.3g", res.gapWidth)}
+	for k, w := range res.widths {
+		c.Results.RelativeWidths[fmt.Sprintf("lambda%d", k+1)] = fmt.Sprintf("%.3g", w)
+	}
+	env := claimEnv(p, res)
+	for _, text := range p.Claims {
+		cl, err := certs.ParseClaim(text)
+		if err != nil {
+			return nil, fmt.Errorf("certify: claim %q: %w", text, err)
+		}
+		c.Claims = append(c.Claims, cl.Evaluate(env))
+	}
+	method, err := json.Marshal(res.method())
+	if err != nil {
+		return nil, err
+	}
+	c.Method = method
+	now := time.Now
+	if opt.Now != nil {
+		now = opt.Now
+	}
+	c.Provenance = certs.Provenance{
+		Tool:      opt.Tool,
+		GoVersion: runtime.Version(),
+		OS:        runtime.GOOS,
+		Arch:      runtime.GOARCH,
+		Time:      now().UTC().Format(time.RFC3339),
+	}
+	return c, nil
+}
+
+// claimEnv is the set of certified quantities a claim may name.
+func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
+	env := map[string]interval.I{
+		"gap": res.gap,
+		"D":   p.Diameter(),
+		"pi":  interval.Pi(),
+		"e":   interval.E(),
+	}
+	for k, l := range res.lambda {
+		env[fmt.Sprintf("lambda%d", k+1)] = l
+	}
+	for name, v := range p.Params {
+		env[name] = v.Val
+	}
+	// alpha names the Robin parameter when every Robin end has the same one.
+	var alpha *interval.I
+	same := true
+	for _, bc := range p.Boundary {
+		if bc.Kind != problem.Robin {
+			continue
+		}
+		a := bc.Alpha.Val
+		if alpha != nil && *alpha != a {
+			same = false
+		}
+		alpha = &a
+	}
+	if alpha != nil && same {
+		env["alpha"] = *alpha
+	}
+	return env
+}
+
+// method records the recipe and each stage's bounds.
+func (res *result) method() Method {
+	r, out := res.r, res.out
+	m := Method{
+		Kind:               "interval-1d",
+		Cells:              r.cells,
+		Degree:             r.degree,
+		FluxDegree:         r.fluxDegree,
+		TaylorOrder:        r.taylor,
+		StageACells:        r.stageACells,
+		Gamma:              decimalio.FormatExact(r.gamma),
+		N:                  out.n,
+		ProjectionConstant: decimalio.FormatUpper(out.ch.Hi, Digits),
+		Theorems:           theorems1D,
+	}
+	if out.n > 0 {
+		m.Rho = decimalio.FormatExact(out.rho)
+	}
+	for k, u := range out.ritz {
+		m.Stages.RitzUpper = append(m.Stages.RitzUpper, StageBound{k + 1, decimalio.FormatUpper(u, Digits)})
+	}
+	for k, l := range out.stageA {
+		m.Stages.ProjectionLower = append(m.Stages.ProjectionLower, StageBound{k + 1, decimalio.FormatLower(l, Digits)})
+	}
+	for k, l := range out.lg {
+		if !math.IsInf(l, -1) {
+			m.Stages.LehmannGoerisch = append(m.Stages.LehmannGoerisch, StageBound{k + 1, decimalio.FormatLower(l, Digits)})
+		}
+	}
+	return m
+}

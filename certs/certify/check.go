@@ -1,0 +1,128 @@
+package certify
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"reflect"
+
+	"gapcert/certs"
+	"gapcert/fem/problem"
+	"gapcert/interval/decimalio"
+)
+
+// MismatchError lists every way a certificate differs from its
+// recomputation.
+type MismatchError struct {
+	Problems []string
+}
+
+func (e *MismatchError) Error() string {
+	var b bytes.Buffer
+	b.WriteString("certificate does not verify:")
+	for _, p := range e.Problems {
+		b.WriteString("\n  - ")
+		b.WriteString(p)
+	}
+	return b.String()
+}
+
+// Check re-verifies a certificate: the format version is known, the
+// recorded problem parses and hashes to problem_sha256, and the recorded
+// method, recomputed by the same deterministic code, reproduces every
+// recorded bound, stage bound and claim verdict exactly. It returns nil if
+// the certificate verifies, a *MismatchError listing the differences, or
+// another error if the certificate cannot be read.
+func Check(data []byte) error {
+	cert, err := certs.Unmarshal(data)
+	if err != nil {
+		return err
+	}
+	p, err := problem.Parse(cert.Problem)
+	if err != nil {
+		return fmt.Errorf("the recorded problem does not parse: %w", err)
+	}
+	var bad []string
+	if got := p.SHA256(); got != cert.ProblemSHA256 {
+		bad = append(bad, fmt.Sprintf("problem_sha256 is %s but the recorded problem hashes to %s (the problem or the hash was edited)", cert.ProblemSHA256, got))
+	}
+	var m Method
+	dec := json.NewDecoder(bytes.NewReader(cert.Method))
+	dec.DisallowUnknownFields()
+	if err := dec.Decode(&m); err != nil {
+		return fmt.Errorf("the method block does not parse: %w", err)
+	}
+	if m.Kind != "interval-1d" {
+		return fmt.Errorf("unknown method kind %q", m.Kind)
+	}
+	gamma, err := decimalio.Parse(m.Gamma)
+	if err != nil || !gamma.IsPoint() {
+		return fmt.Errorf("method.gamma %q is not an exact float64", m.Gamma)
+	}
+	r := recipe{cells: m.Cells, degree: m.Degree, fluxDegree: m.FluxDegree, taylor: m.TaylorOrder, stageACells: m.StageACells, gamma: gamma.Lo}
+	if err := r.validate(); err != nil {
+		return err
+	}
+	out, err := compute(p, r)
+	if err != nil {
+		return fmt.Errorf("recomputation failed: %w", err)
+	}
+	res, err := assemble(p, r, out)
+	if err != nil {
+		return fmt.Errorf("recomputation failed: %w", err)
+	}
+	fresh, err := res.certificate(p, Options{})
+	if err != nil {
+		return fmt.Errorf("recomputation failed: %w", err)
+	}
+	if !reflect.DeepEqual(fresh.Results.Eigenvalues, cert.Results.Eigenvalues) {
+		bad = append(bad, "results.eigenvalues differ from the recomputation")
+	}
+	for _, f := range []struct {
+		name      string
+		got, want certs.Bound
+	}{
+		{"results.gap", fresh.Results.Gap, cert.Results.Gap},
+		{"results.diameter", fresh.Results.Diameter, cert.Results.Diameter},
+		{"results.gap_d2_over_pi2", fresh.Results.GapD2OverPi2, cert.Results.GapD2OverPi2},
+	} {
+		if f.got != f.want {
+			bad = append(bad, fmt.Sprintf("%s is [%s, %s], recomputed [%s, %s]", f.name, f.want.Lower, f.want.Upper, f.got.Lower, f.got.Upper))
+		}
+	}
+	if !reflect.DeepEqual(fresh.Results.RelativeWidths, cert.Results.RelativeWidths) {
+		bad = append(bad, "results.relative_widths differ from the recomputation")
+	}
+	if !reflect.DeepEqual(fresh.Claims, cert.Claims) {
+		bad = append(bad, "claims (texts, verdicts or margins) differ from the recomputation")
+	}
+	var recorded Method
+	_ = json.Unmarshal(cert.Method, &recorded) // decoded strictly above
+	if !reflect.DeepEqual(res.method(), recorded) {
+		bad = append(bad, "method (stage bounds, N, rho or constants) differs from the recomputation")
+	}
+	if len(bad) > 0 {
+		return &MismatchError{Problems: bad}
+	}
+	return nil
+}
+
+// validate rejects recipes that the computation cannot run (a certificate
+// with absurd numbers must fail cleanly, not exhaust memory).
+func (r recipe) validate() error {
+	switch {
+	case r.cells < 1 || r.cells > 1<<16:
+		return fmt.Errorf("method.cells %d out of range", r.cells)
+	case r.degree < 1 || r.degree > 16:
+		return fmt.Errorf("method.degree %d out of range", r.degree)
+	case r.fluxDegree < 1 || r.fluxDegree > 17:
+		return fmt.Errorf("method.flux_degree %d out of range", r.fluxDegree)
+	case r.taylor < 1 || r.taylor > 32:
+		return fmt.Errorf("method.taylor_order %d out of range", r.taylor)
+	case r.stageACells < 1 || r.stageACells > 1<<20:
+		return fmt.Errorf("method.stage_a_cells %d out of range", r.stageACells)
+	case r.gamma < 0:
+		return fmt.Errorf("method.gamma is negative")
+	}
+	return nil
+}

@@ -1,0 +1,24 @@
+// Package certs implements the gapcert certificate: the JSON document that
+// records a problem, the enclosures computed for it and the verdicts on the
+// claims made about it, so that anyone can re-check them.
+//
+// Guarantees. Every bound in a certificate is a pair of decimal strings
+// (never a JSON number): the lower string is rounded toward −∞ and the upper
+// string toward +∞ from a float64 enclosure, so the printed interval
+// contains the enclosure (NewBound), and reading it back with Bound.Interval
+// gives a float64 interval that contains the printed one. Printing keeps
+// signs: a lower end ≥ 0 (> 0) prints as a decimal ≥ 0 (> 0), and likewise
+// for upper ends, so a verdict on a claim can be re-derived from its printed
+// margin alone.
+//
+// A claim is an inequality "lhs REL rhs" between formulas (package
+// interval/formula) over certified quantities. Claim.Evaluate encloses
+// lhs − rhs in interval arithmetic over the enclosures it is given and says
+// "holds" only if the inequality is true for every value in them, "fails"
+// only if it is false for every value, and "undecided" otherwise.
+//
+// Marshal writes stable JSON (struct field order, sorted map keys, two-space
+// indentation, a trailing newline); Unmarshal is strict: unknown keys,
+// missing sections, unparsable bounds and any format other than Format are
+// errors.
+package certs
