@@ -1,0 +1,146 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"io/fs"
+	"sort"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/fem/problem"
+	"gapcert/interval"
+	"gapcert/interval/decimalio"
+)
+
+func newValidateCmd() *cobra.Command {
+	return &cobra.Command{
+		Use:   "validate FILE",
+		Short: "Check a problem file and show how it is understood",
+		Long: `validate reads the problem file FILE, checks it and prints the problem as
+gapcert understands it: the domain with an enclosure of every vertex, the
+orientation (and whether the vertices were reversed to counterclockwise),
+the convexity verdict, enclosures of the diameter, area and perimeter, the
+boundary condition on each side, the potential and whether it is a
+polynomial, and the SHA-256 of the canonical problem text that
+certificates refer to.
+
+If the file is invalid, every defect is listed as
+    FILE: json.path: what is wrong (hint: how to fix it)
+and the exit status is 2.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			file := args[0]
+			p, err := problem.ReadFile(file)
+			if err != nil {
+				var perr *problem.Error
+				if errors.As(err, &perr) {
+					var b strings.Builder
+					for i, is := range perr.Issues {
+						if i > 0 {
+							b.WriteByte('\n')
+						}
+						fmt.Fprintf(&b, "%s: %s", file, is)
+					}
+					return &exitError{code: exitInvalid, err: errors.New(b.String())}
+				}
+				if errors.Is(err, fs.ErrNotExist) {
+					return &exitError{code: exitFailure, err: fmt.Errorf("%s: no such file", file)}
+				}
+				return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
+			}
+			describe(cmd.OutOrStdout(), file, p)
+			return nil
+		},
+	}
+}
+
+// enclosureDigits is the number of significant digits of printed ends.
+const enclosureDigits = 17
+
+// formatEnclosure prints x as "[lo, hi]" rounded outward, or as the exact
+// value of a point with a short decimal expansion.
+func formatEnclosure(x interval.I) string {
+	if x.IsPoint() {
+		if s := decimalio.FormatExact(x.Lo); len(s) <= enclosureDigits+8 {
+			return s
+		}
+	}
+	return "[" + decimalio.FormatLower(x.Lo, enclosureDigits) + ", " + decimalio.FormatUpper(x.Hi, enclosureDigits) + "]"
+}
+
+// formatNumber prints an exact number's text and, if it is not a float,
+// its enclosure.
+func formatNumber(n problem.Number) string {
+	if n.Val.IsPoint() && n.Text == decimalio.FormatExact(n.Val.Lo) {
+		return n.Text
+	}
+	return n.Text + " ∈ " + formatEnclosure(n.Val)
+}
+
+func formatBC(bc problem.BC) string {
+	if bc.Kind == problem.Robin {
+		return "robin, α = " + formatNumber(bc.Alpha)
+	}
+	return bc.Kind.String()
+}
+
+// describe prints the validated problem p read from file.
+func describe(w io.Writer, file string, p *problem.Problem) {
+	fmt.Fprintf(w, "%s: valid problem\n", file)
+	if p.Name != "" {
+		fmt.Fprintf(w, "name:        %s\n", p.Name)
+	}
+	if p.Dim == 1 {
+		fmt.Fprintf(w, "domain:      interval (a, b)\n")
+		fmt.Fprintf(w, "  a = %s\n", formatNumber(p.Interval[0]))
+		fmt.Fprintf(w, "  b = %s\n", formatNumber(p.Interval[1]))
+		fmt.Fprintf(w, "length:      %s\n", formatEnclosure(p.Diameter()))
+		fmt.Fprintf(w, "boundary:    left %s, right %s\n", formatBC(p.Boundary[0]), formatBC(p.Boundary[1]))
+	} else {
+		n := len(p.Vertices)
+		orient := "counterclockwise as given"
+		if p.Reversed() {
+			orient = "counterclockwise (the file lists it clockwise; vertices and edges reversed, v0 kept first)"
+		}
+		fmt.Fprintf(w, "domain:      polygon with %d vertices, %s\n", n, orient)
+		for i, v := range p.Vertices {
+			fmt.Fprintf(w, "  v%d = (%s, %s)\n", i, formatNumber(v[0]), formatNumber(v[1]))
+		}
+		fmt.Fprintf(w, "convexity:   %s\n", p.Convex())
+		fmt.Fprintf(w, "diameter:    %s\n", formatEnclosure(p.Diameter()))
+		fmt.Fprintf(w, "area:        %s\n", formatEnclosure(p.Area()))
+		fmt.Fprintf(w, "perimeter:   %s\n", formatEnclosure(p.Perimeter()))
+		fmt.Fprintf(w, "boundary:\n")
+		for i, bc := range p.Boundary {
+			fmt.Fprintf(w, "  edge %d (v%d → v%d): %s\n", i, i, (i+1)%n, formatBC(bc))
+		}
+	}
+	form := "general (Taylor models on each element)"
+	if p.PotentialIsPolynomial() {
+		form = "polynomial (exact element integrals)"
+	}
+	fmt.Fprintf(w, "potential:   %s\n", p.PotentialText())
+	fmt.Fprintf(w, "  form:      %s\n", form)
+	fmt.Fprintf(w, "  range:     %s\n", formatEnclosure(p.PotentialRange()))
+	for _, name := range sortedKeys(p.Params) {
+		fmt.Fprintf(w, "parameter:   %s = %s\n", name, formatNumber(p.Params[name]))
+	}
+	fmt.Fprintf(w, "eigenvalues: %d\n", p.Eigenvalues)
+	fmt.Fprintf(w, "target:      relative width %s\n", p.RelWidth.Text)
+	for _, c := range p.Claims {
+		fmt.Fprintf(w, "claim:       %s\n", c)
+	}
+	fmt.Fprintf(w, "sha256:      %s\n", p.SHA256())
+}
+
+func sortedKeys(m map[string]problem.Number) []string {
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	return keys
+}

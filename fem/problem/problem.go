@@ -1,0 +1,692 @@
+package problem
+
+import (
+	"fmt"
+	"math/big"
+	"os"
+	"sort"
+	"strconv"
+	"strings"
+
+	"gapcert/interval"
+	"gapcert/interval/formula"
+)
+
+// BCKind is the kind of boundary condition on one side.
+type BCKind int
+
+const (
+	Dirichlet BCKind = iota // u = 0
+	Neumann                 // ∂u/∂n = 0
+	Robin                   // ∂u/∂n + α u = 0, α ≥ 0
+)
+
+// String returns the kind's name as written in problem files.
+func (k BCKind) String() string {
+	switch k {
+	case Dirichlet:
+		return "dirichlet"
+	case Neumann:
+		return "neumann"
+	case Robin:
+		return "robin"
+	}
+	return "BCKind(" + strconv.Itoa(int(k)) + ")"
+}
+
+// BC is the boundary condition on one side. Alpha is 0 unless Kind is
+// Robin; a Robin condition with α = 0 stays Robin in the text but is the
+// Neumann condition.
+type BC struct {
+	Kind  BCKind
+	Alpha Number
+}
+
+// Problem is a validated eigenvalue problem −Δu + V u = λu read from a
+// problem file. All numbers are exact (see Number); the polygon is simple
+// and counterclockwise.
+type Problem struct {
+	Name string
+	Dim  int // 1 or 2
+
+	// Interval is (a, b) with a < b (Dim 1).
+	Interval [2]Number
+	// Vertices are the polygon's corners in counterclockwise order
+	// (Dim 2). If the file lists them clockwise they are reversed as
+	// v0, v(n−1), …, v1, keeping v0 first; see Reversed.
+	Vertices [][2]Number
+
+	// Potential is V with the parameters bound: its only free variables
+	// are x (Dim 1) or x and y (Dim 2). It is "0" by default.
+	Potential *formula.Expr
+	// Params are the named parameters of the file.
+	Params map[string]Number
+
+	// Boundary holds one condition per side: Dim 1 [left, right]; Dim 2
+	// edge i runs from Vertices[i] to Vertices[(i+1) mod n].
+	Boundary []BC
+
+	Eigenvalues int    // how many eigenvalues to enclose, 2 … 20
+	RelWidth    Number // target relative width, in (0, 1)
+	Claims      []string
+
+	potentialText string // canonical text of the potential as written (parameters unbound)
+	reversed      bool
+	convex        string
+	triangles     [][3]int
+	vRange        interval.I
+}
+
+// Default values of optional keys.
+const (
+	DefaultPotential   = "0"
+	DefaultEigenvalues = 2
+	DefaultRelWidth    = "1e-6"
+)
+
+// maxFileSize bounds what ReadFile reads.
+const maxFileSize = 1 << 20
+
+// ReadFile reads and validates the problem file at path.
+func ReadFile(path string) (*Problem, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	st, err := f.Stat()
+	if err != nil {
+		return nil, err
+	}
+	if st.Size() > maxFileSize {
+		return nil, &Error{Issues: []Issue{{Msg: fmt.Sprintf("file too large (%d bytes, at most %d)", st.Size(), maxFileSize), Hint: "a problem file is a few hundred bytes"}}}
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	return Parse(data)
+}
+
+// Parse reads and validates a problem file. On failure the error is an
+// *Error listing every defect found, each with its JSON path and a hint;
+// no partial problem is returned.
+func Parse(data []byte) (*Problem, error) {
+	var iss issues
+	root, err := readTree(data, &iss)
+	if err != nil {
+		return nil, &Error{Issues: []Issue{{Msg: err.Error(), Hint: "the file must be one JSON object"}}}
+	}
+	if root.kind != kindObject {
+		return nil, &Error{Issues: []Issue{{Msg: "the file must hold a JSON object, not " + root.kind.String(), Hint: `start with {"domain": …}`}}}
+	}
+	r := reader{iss: &iss}
+	p := r.problem(root)
+	if iss.count() > 0 {
+		return nil, &Error{Issues: iss.list}
+	}
+	return p, nil
+}
+
+// reader holds the state of one Parse.
+type reader struct {
+	iss *issues
+}
+
+var topKeys = []string{"name", "domain", "potential", "parameters", "boundary", "eigenvalues", "target", "claims"}
+
+func (r *reader) problem(root *node) *Problem {
+	r.checkKeys(root, "", topKeys)
+	p := &Problem{Eigenvalues: DefaultEigenvalues}
+
+	if n := root.get("name"); n != nil {
+		if n.kind != kindString {
+			r.iss.add("name", "name must be a string, not "+n.kind.String(), `write "name": "unit square"`)
+		} else {
+			p.Name = n.str
+		}
+	}
+
+	p.Params = r.parameters(root.get("parameters"))
+	paramsOK := p.Params != nil
+	if !paramsOK {
+		p.Params = map[string]Number{}
+	}
+
+	geomOK := r.domain(root.get("domain"), p)
+	bcOK := r.boundary(root.get("boundary"), p, geomOK)
+	if geomOK && p.Dim == 2 {
+		geomOK = r.polygon(p, bcOK)
+	}
+	r.potential(root.get("potential"), p, geomOK && paramsOK)
+	r.eigenvalues(root.get("eigenvalues"), p)
+	r.target(root.get("target"), p)
+	r.claims(root.get("claims"), p)
+	return p
+}
+
+// checkKeys reports every key of obj outside allowed.
+func (r *reader) checkKeys(obj *node, path string, allowed []string) {
+	for _, k := range obj.keys {
+		found := false
+		for _, a := range allowed {
+			if k == a {
+				found = true
+				break
+			}
+		}
+		if found {
+			continue
+		}
+		hint := "allowed keys here: " + strings.Join(allowed, ", ")
+		if s := nearest(k, allowed); s != "" {
+			hint = fmt.Sprintf("did you mean %q?", s)
+		}
+		r.iss.addf(join(path, k), hint, "unknown key %q", k)
+	}
+}
+
+// nearest returns the allowed key within edit distance 2 of k, if any.
+func nearest(k string, allowed []string) string {
+	best, bestD := "", 3
+	for _, a := range allowed {
+		if d := editDistance(strings.ToLower(k), a); d < bestD {
+			best, bestD = a, d
+		}
+	}
+	return best
+}
+
+func editDistance(a, b string) int {
+	if len(a) > 64 || len(b) > 64 {
+		return 1 << 30
+	}
+	prev := make([]int, len(b)+1)
+	cur := make([]int, len(b)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(a); i++ {
+		cur[0] = i
+		for j := 1; j <= len(b); j++ {
+			c := prev[j-1]
+			if a[i-1] != b[j-1] {
+				c++
+			}
+			cur[j] = min(c, prev[j]+1, cur[j-1]+1)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(b)]
+}
+
+// number reads one exact number at path; ok is false after reporting.
+func (r *reader) number(n *node, path string, params map[string]Number) (Number, bool) {
+	var text string
+	switch n.kind {
+	case kindNumber:
+		text = string(n.num)
+	case kindString:
+		text = n.str
+	default:
+		r.iss.add(path, "want a number, not "+n.kind.String(), numberHint)
+		return Number{}, false
+	}
+	v, err := parseNumber(text, params)
+	if err != nil {
+		ne, ok := err.(*numberError)
+		if !ok {
+			ne = &numberError{err.Error(), numberHint}
+		}
+		r.iss.add(path, ne.msg, ne.hint)
+		return Number{}, false
+	}
+	return v, true
+}
+
+var reservedNames = map[string]bool{"x": true, "y": true, "pi": true, "e": true}
+
+// parameters reads the "parameters" object; nil after a defect.
+func (r *reader) parameters(n *node) map[string]Number {
+	params := map[string]Number{}
+	if n == nil {
+		return params
+	}
+	if n.kind != kindObject {
+		r.iss.add("parameters", "parameters must be an object, not "+n.kind.String(), `write "parameters": {"a": "1/2"}`)
+		return nil
+	}
+	ok := true
+	for i, name := range n.keys {
+		path := "parameters." + name
+		if !isIdentifier(name) {
+			r.iss.addf(path, "a name is a letter followed by letters, digits or '_'", "bad parameter name %q", name)
+			ok = false
+			continue
+		}
+		if reservedNames[name] || !isVariableName(name) {
+			r.iss.addf(path, "x and y are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
+			ok = false
+			continue
+		}
+		v, good := r.number(n.vals[i], path, nil)
+		if !good {
+			ok = false
+			continue
+		}
+		params[name] = v
+	}
+	if !ok {
+		return nil
+	}
+	return params
+}
+
+func isIdentifier(s string) bool {
+	if s == "" || len(s) > 64 {
+		return false
+	}
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		letter := 'a' <= c && c <= 'z' || 'A' <= c && c <= 'Z'
+		if !letter && (i == 0 || !('0' <= c && c <= '9' || c == '_')) {
+			return false
+		}
+	}
+	return true
+}
+
+const domainHint = `write "domain": {"interval": ["a", "b"]} or {"polygon": [["x0", "y0"], ["x1", "y1"], …]}`
+
+// domain reads "domain" into p.Dim and p.Interval or p.Vertices (as
+// written). ok reports that the coordinates are all valid numbers.
+func (r *reader) domain(n *node, p *Problem) bool {
+	if n == nil {
+		r.iss.add("domain", "missing domain", domainHint)
+		return false
+	}
+	if n.kind != kindObject {
+		r.iss.add("domain", "domain must be an object, not "+n.kind.String(), domainHint)
+		return false
+	}
+	r.checkKeys(n, "domain", []string{"interval", "polygon"})
+	iv, pg := n.get("interval"), n.get("polygon")
+	switch {
+	case iv != nil && pg != nil:
+		r.iss.add("domain", "domain has both an interval and a polygon", "give exactly one of them")
+		return false
+	case iv == nil && pg == nil:
+		if len(n.keys) == 0 {
+			r.iss.add("domain", "domain is empty", domainHint)
+		}
+		return false
+	case iv != nil:
+		return r.interval(iv, p)
+	default:
+		return r.vertices(pg, p)
+	}
+}
+
+func (r *reader) interval(n *node, p *Problem) bool {
+	const path = "domain.interval"
+	if n.kind != kindArray || len(n.vals) != 2 {
+		r.iss.add(path, "an interval is a list of two numbers", `write "interval": ["0", "1"]`)
+		return false
+	}
+	p.Dim = 1
+	a, okA := r.number(n.vals[0], path+"[0]", p.Params)
+	b, okB := r.number(n.vals[1], path+"[1]", p.Params)
+	if !okA || !okB {
+		return false
+	}
+	p.Interval = [2]Number{a, b}
+	c, ok := cmpKnown(a, b)
+	switch {
+	case !ok:
+		r.iss.add(path, "cannot decide whether the left end is below the right end", "give exact ends")
+		return false
+	case c == 0:
+		r.iss.add(path, "zero-length interval", "the ends must differ")
+		return false
+	case c > 0:
+		r.iss.add(path, "reversed interval: the left end is above the right end", "list the ends in increasing order")
+		return false
+	}
+	return true
+}
+
+func (r *reader) vertices(n *node, p *Problem) bool {
+	const path = "domain.polygon"
+	if n.kind != kindArray {
+		r.iss.add(path, "a polygon is a list of vertices, not "+n.kind.String(), `write "polygon": [["0", "0"], ["1", "0"], ["0", "1"]]`)
+		return false
+	}
+	p.Dim = 2
+	if len(n.vals) < 3 {
+		r.iss.addf(path, "a polygon needs at least three vertices", "polygon has %d vertices", len(n.vals))
+		return false
+	}
+	if len(n.vals) > maxVertices {
+		r.iss.addf(path, "split the domain or simplify it", "polygon has %d vertices, at most %d are supported", len(n.vals), maxVertices)
+		return false
+	}
+	ok := true
+	for i, v := range n.vals {
+		vp := fmt.Sprintf("%s[%d]", path, i)
+		if v.kind != kindArray || len(v.vals) != 2 {
+			r.iss.add(vp, "a vertex is a list of two numbers [x, y]", `write ["0.5", "sqrt(3)/2"]`)
+			ok = false
+			continue
+		}
+		x, okX := r.number(v.vals[0], vp+"[0]", p.Params)
+		y, okY := r.number(v.vals[1], vp+"[1]", p.Params)
+		if !okX || !okY {
+			ok = false
+			continue
+		}
+		p.Vertices = append(p.Vertices, [2]Number{x, y})
+	}
+	return ok
+}
+
+const bcHint = `use "dirichlet", "neumann" or {"robin": "α"} with α ≥ 0`
+
+// boundary reads "boundary" into p.Boundary (in the file's side order).
+// sidesKnown reports that the domain, and so the number of sides, is known.
+func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
+	if n == nil {
+		r.iss.add("boundary", "missing boundary conditions", `write "boundary": "dirichlet", or a list with one entry per side`)
+		return false
+	}
+	sides := 2
+	if p.Dim == 2 {
+		sides = len(p.Vertices)
+	}
+	if n.kind == kindArray {
+		ok := true
+		var list []BC
+		for i, e := range n.vals {
+			bc, good := r.bc(e, fmt.Sprintf("boundary[%d]", i), p.Params)
+			ok = ok && good
+			list = append(list, bc)
+		}
+		if sidesKnown && len(n.vals) != sides {
+			what := "edges"
+			if p.Dim == 1 {
+				what = "ends [left, right]"
+			}
+			r.iss.addf("boundary", fmt.Sprintf("give one entry per side: %d %s", sides, what), "boundary list has %d entries for %d sides", len(n.vals), sides)
+			return false
+		}
+		if ok && sidesKnown {
+			p.Boundary = list
+		}
+		return ok && sidesKnown
+	}
+	bc, ok := r.bc(n, "boundary", p.Params)
+	if !ok || !sidesKnown {
+		return false
+	}
+	p.Boundary = make([]BC, sides)
+	for i := range p.Boundary {
+		p.Boundary[i] = bc
+	}
+	return true
+}
+
+func (r *reader) bc(n *node, path string, params map[string]Number) (BC, bool) {
+	switch n.kind {
+	case kindString:
+		switch n.str {
+		case "dirichlet":
+			return BC{Kind: Dirichlet, Alpha: zeroNumber()}, true
+		case "neumann":
+			return BC{Kind: Neumann, Alpha: zeroNumber()}, true
+		case "robin":
+			r.iss.add(path, "a Robin condition needs its coefficient", `write {"robin": "1.5"}`)
+			return BC{}, false
+		}
+		hint := bcHint
+		if s := nearest(n.str, []string{"dirichlet", "neumann", "robin"}); s != "" {
+			hint = fmt.Sprintf("did you mean %q?", s)
+		}
+		r.iss.addf(path, hint, "unknown boundary kind %q", n.str)
+		return BC{}, false
+	case kindObject:
+		r.checkKeys(n, path, []string{"robin"})
+		a := n.get("robin")
+		if a == nil {
+			if len(n.keys) == 0 {
+				r.iss.add(path, "empty boundary condition", bcHint)
+			}
+			return BC{}, false
+		}
+		apath := path + ".robin"
+		alpha, ok := r.number(a, apath, params)
+		if !ok {
+			return BC{}, false
+		}
+		c, ok := cmpKnown(alpha, zeroNumber())
+		switch {
+		case !ok:
+			r.iss.add(apath, "cannot decide the sign of the Robin coefficient", "give it exactly")
+			return BC{}, false
+		case c < 0:
+			r.iss.add(apath, "negative Robin coefficient", "α must be ≥ 0 (α = 0 is the Neumann condition)")
+			return BC{}, false
+		}
+		return BC{Kind: Robin, Alpha: alpha}, true
+	}
+	r.iss.add(path, "a boundary condition must be a string or an object, not "+n.kind.String(), bcHint)
+	return BC{}, false
+}
+
+func zeroNumber() Number { return ratNumber(new(big.Rat)) }
+
+// potential reads "potential", binds the parameters and checks that V is
+// defined and bounded on the domain (when domainOK).
+func (r *reader) potential(n *node, p *Problem, domainOK bool) {
+	src := DefaultPotential
+	if n != nil {
+		if n.kind != kindString {
+			r.iss.add("potential", "the potential must be a formula in a string, not "+n.kind.String(), `write "potential": "x^2 + y^2"`)
+			return
+		}
+		src = n.str
+	}
+	if len(src) > maxFormulaLen {
+		r.iss.addf("potential", "simplify it or use parameters", "potential too long (%d bytes, at most %d)", len(src), maxFormulaLen)
+		return
+	}
+	if err := checkExponents(src); err != nil {
+		ne := err.(*numberError)
+		r.iss.add("potential", ne.msg, ne.hint)
+		return
+	}
+	e, err := formula.Parse(src)
+	if err != nil {
+		if se, ok := err.(*formula.SyntaxError); ok {
+			r.iss.addf("potential", firstNonEmpty(se.Hint, "see the formula syntax in the documentation"), "cannot parse the potential: column %d: %s", se.Col, se.Msg)
+		} else {
+			r.iss.addf("potential", "", "cannot parse the potential: %v", err)
+		}
+		return
+	}
+	p.potentialText = e.String()
+	if usesIntervalLiteral(p.potentialText) {
+		r.iss.add("potential", "the potential may not use interval(…)", "give the potential as a formula of exact numbers")
+		return
+	}
+	vals := map[string]interval.I{}
+	var unknown []string
+	for _, name := range e.Vars() {
+		if v, ok := p.Params[name]; ok {
+			vals[name] = v.Val
+			continue
+		}
+		if name == "x" || name == "y" && p.Dim != 1 {
+			continue
+		}
+		unknown = append(unknown, name)
+	}
+	if len(unknown) > 0 {
+		hint := `the potential may use x, y and names declared under "parameters"`
+		if p.Dim == 1 {
+			hint = `on an interval the potential may use x and names declared under "parameters"`
+		}
+		r.iss.addf("potential", hint, "unknown name %s in the potential", strings.Join(quoteAll(unknown), ", "))
+		return
+	}
+	p.Potential = e.Bind(vals)
+	if !domainOK {
+		return
+	}
+	rng, issue := potentialRange(p)
+	if issue != "" {
+		r.iss.add("potential", issue, "the potential must be defined and finite on the closed domain")
+		return
+	}
+	p.vRange = rng
+}
+
+func (r *reader) eigenvalues(n *node, p *Problem) {
+	if n == nil {
+		return
+	}
+	const hint = "an integer from 2 to 20"
+	if n.kind != kindNumber {
+		r.iss.add("eigenvalues", "want an integer, not "+n.kind.String(), hint)
+		return
+	}
+	k, err := strconv.Atoi(string(n.num))
+	if err != nil {
+		r.iss.addf("eigenvalues", hint, "%s is not an integer", n.num)
+		return
+	}
+	if k < 2 || k > maxEigenvalues {
+		r.iss.addf("eigenvalues", hint, "eigenvalues = %d is out of range", k)
+		return
+	}
+	p.Eigenvalues = k
+}
+
+func (r *reader) target(n *node, p *Problem) {
+	rw, _ := parseNumber(DefaultRelWidth, nil)
+	p.RelWidth = rw
+	if n == nil {
+		return
+	}
+	if n.kind != kindObject {
+		r.iss.add("target", "target must be an object, not "+n.kind.String(), `write "target": {"relative_width": "1e-8"}`)
+		return
+	}
+	r.checkKeys(n, "target", []string{"relative_width"})
+	w := n.get("relative_width")
+	if w == nil {
+		return
+	}
+	const path = "target.relative_width"
+	v, ok := r.number(w, path, p.Params)
+	if !ok {
+		return
+	}
+	lo, ok1 := cmpKnown(v, zeroNumber())
+	hi, ok2 := cmpKnown(v, ratNumber(big.NewRat(1, 1)))
+	switch {
+	case !ok1 || !ok2:
+		r.iss.add(path, "cannot decide whether the relative width lies in (0, 1)", "give it exactly")
+	case lo <= 0 || hi >= 0:
+		r.iss.addf(path, `a relative width such as "1e-6" lies strictly between 0 and 1`, "relative width %s is not in (0, 1)", v.Text)
+	default:
+		p.RelWidth = v
+	}
+}
+
+// claimRelations are the relations a claim may use, longest first.
+var claimRelations = []string{">=", "<=", ">", "<"}
+
+func (r *reader) claims(n *node, p *Problem) {
+	if n == nil {
+		return
+	}
+	if n.kind != kindArray {
+		r.iss.add("claims", "claims must be a list of strings, not "+n.kind.String(), `write "claims": ["gap >= 3*pi^2/D^2"]`)
+		return
+	}
+	for i, c := range n.vals {
+		path := fmt.Sprintf("claims[%d]", i)
+		if c.kind != kindString {
+			r.iss.add(path, "a claim must be a string, not "+c.kind.String(), `write "gap >= 3*pi^2/D^2"`)
+			continue
+		}
+		if msg, hint := claimSyntax(c.str); msg != "" {
+			r.iss.add(path, msg, hint)
+			continue
+		}
+		p.Claims = append(p.Claims, c.str)
+	}
+}
+
+// claimSyntax checks that text is "lhs REL rhs" with one relation and two
+// formulas; it returns a message and hint for the first defect, or "".
+func claimSyntax(text string) (msg, hint string) {
+	const hint0 = `a claim is "lhs REL rhs" with REL one of >=, <=, >, <`
+	if len(text) > maxFormulaLen {
+		return fmt.Sprintf("claim too long (%d bytes, at most %d)", len(text), maxFormulaLen), "split it"
+	}
+	at, rel := -1, ""
+	count := 0
+	for i := 0; i < len(text); i++ {
+		for _, op := range claimRelations {
+			if strings.HasPrefix(text[i:], op) {
+				if at < 0 {
+					at, rel = i, op
+				}
+				count++
+				i += len(op) - 1
+				break
+			}
+		}
+	}
+	if count != 1 {
+		return fmt.Sprintf("claim %q must contain exactly one relation, it has %d", text, count), hint0
+	}
+	if err := checkExponents(text); err != nil {
+		return err.Error(), err.(*numberError).hint
+	}
+	sides := [2]string{text[:at], text[at+len(rel):]}
+	offset := [2]int{0, at + len(rel)}
+	for k, s := range sides {
+		if strings.TrimSpace(s) == "" {
+			return fmt.Sprintf("claim %q has an empty side", text), hint0
+		}
+		if _, err := formula.Parse(s); err != nil {
+			if se, ok := err.(*formula.SyntaxError); ok {
+				return fmt.Sprintf("claim %q: column %d: %s", text, offset[k]+se.Col, se.Msg), firstNonEmpty(se.Hint, hint0)
+			}
+			return fmt.Sprintf("claim %q: %v", text, err), hint0
+		}
+	}
+	return "", ""
+}
+
+// sortedParamNames returns the parameter names in increasing order.
+func (p *Problem) sortedParamNames() []string {
+	names := make([]string, 0, len(p.Params))
+	for k := range p.Params {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	return names
+}
+
+// isVariableName reports whether the formula reader takes name as a
+// variable (not a constant or a function).
+func isVariableName(name string) bool {
+	e, err := formula.Parse(name)
+	if err != nil {
+		return false
+	}
+	v := e.Vars()
+	return len(v) == 1 && v[0] == name
+}
