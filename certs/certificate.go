@@ -168,7 +168,11 @@ func (c *Certificate) Marshal() ([]byte, error) {
 // present and equal to Format (checked first, so that a certificate of
 // another version is reported as such), every key must be known, every
 // section of the top level and of "results" must be present, nothing may
-// follow the document, and every bound must be readable by Bound.Interval.
+// follow the document, "problem" must be an object, "problem_sha256" 64
+// lowercase hex digits, eigenvalue indices increasing from ≥ 1, verdicts
+// one of Holds, Fails, Undecided, and every bound readable by
+// Bound.Interval. Whether the digest matches the problem is for the
+// re-check to decide.
 // Errors are *FormatError, except JSON syntax errors, which are wrapped.
 func Unmarshal(data []byte) (*Certificate, error) {
 	var head struct {
@@ -237,6 +241,9 @@ func (c *Certificate) validate() error {
 	if !isObject(c.Problem) {
 		return &FormatError{Path: "problem", Msg: "must be a JSON object"}
 	}
+	if !isSHA256Hex(c.ProblemSHA256) {
+		return &FormatError{Path: "problem_sha256", Msg: fmt.Sprintf("%q is not 64 lowercase hexadecimal digits", c.ProblemSHA256)}
+	}
 	bound := func(path string, b Bound) error {
 		if _, err := b.Interval(); err != nil {
 			return &FormatError{Path: path, Msg: err.Error()}
@@ -279,4 +286,17 @@ func (c *Certificate) validate() error {
 		}
 	}
 	return nil
+}
+
+// isSHA256Hex reports whether s is a SHA-256 digest in lowercase hex.
+func isSHA256Hex(s string) bool {
+	if len(s) != 64 {
+		return false
+	}
+	for i := 0; i < len(s); i++ {
+		if !('0' <= s[i] && s[i] <= '9' || 'a' <= s[i] && s[i] <= 'f') {
+			return false
+		}
+	}
+	return true
 }

@@ -18,7 +18,7 @@ func sample() *Certificate {
 	return &Certificate{
 		Format:        Format,
 		Problem:       json.RawMessage(`{"name":"unit interval","dim":1}`),
-		ProblemSHA256: "00ff",
+		ProblemSHA256: "9f86d081884c7d659a2feaa0c55ad015a3bf4f1b2b0b822cd15d6c15b0f00a08", // sha256("test"), common test vector
 		Results: Results{
 			Eigenvalues: []Eigen{
 				{Index: 1, Lower: "9.8696044010", Upper: "9.8696044011"},
@@ -149,6 +149,8 @@ func TestUnmarshalStrict(t *testing.T) {
     "name": "unit interval",
     "dim": 1
   },`, `"problem": null,`), `problem: must be a JSON object`},
+		{"short digest", edit(`"problem_sha256": "9f86`, `"problem_sha256": "9f8`), `problem_sha256`},
+		{"upper-case digest", edit(`"problem_sha256": "9f86`, `"problem_sha256": "9F86`), `problem_sha256`},
 		{"trailing data", append(append([]byte{}, good...), []byte(`{}`)...), `after the end`},
 		{"not json", []byte(`{"format": `), `not a JSON certificate`},
 	}
