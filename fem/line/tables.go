@@ -1,0 +1,208 @@
+package line
+
+import (
+	"math"
+	"math/big"
+	"sync"
+
+	"gapcert/interval"
+)
+
+// This file holds the exact rational tables of the Bernstein calculus on
+// the reference cell [0, 1]. Each table is computed once in math/big and
+// kept in two forms: the tightest float64 enclosure of every entry (for
+// the proving side) and the nearest float64 (for the choosing side).
+//
+// Bernstein polynomials of degree n are B^n_i(ξ) = C(n,i) ξ^i (1 − ξ)^(n−i),
+// i = 0..n. The identities used (all exact; see R. T. Farouki, The
+// Bernstein polynomial basis: a centennial retrospective, Comput. Aided
+// Geom. Design 29 (2012) 379–419):
+//
+//	B^m_i B^n_j = C(m,i) C(n,j) / C(m+n,i+j) · B^(m+n)_(i+j)        (product)
+//	∫_0^1 B^n_i dξ = 1/(n+1)                                        (integral)
+//	d/dξ Σ b_i B^n_i = n Σ (b_(i+1) − b_i) B^(n−1)_i                (derivative)
+//	Σ_i B^n_i = 1 and B^n_i ≥ 0 on [0, 1]                           (range)
+//	B^n_j = Σ_i C(n,j) C(m−n,i−j) / C(m,i) · B^m_i,  m ≥ n           (elevation)
+//	ξ^j = Σ_(i≥j) C(i,j)/C(n,j) · B^n_i                              (monomials)
+//
+// The range identity gives the enclosure property used throughout: on
+// [0, 1] the value of Σ b_i B^n_i is a convex combination of the b_i, so it
+// lies in the hull of the coefficients.
+
+// table is an exact rational array with its enclosures and nearest floats.
+type table struct {
+	iv []interval.I
+	fl []float64
+}
+
+type tableKey struct {
+	kind    byte
+	a, b, c int
+}
+
+var (
+	tableMu    sync.Mutex
+	tableCache = map[tableKey]*table{}
+)
+
+// cached returns the table for key, building it from exact rationals once.
+func cached(key tableKey, build func() []*big.Rat) *table {
+	tableMu.Lock()
+	defer tableMu.Unlock()
+	if t, ok := tableCache[key]; ok {
+		return t
+	}
+	rs := build()
+	t := &table{iv: make([]interval.I, len(rs)), fl: make([]float64, len(rs))}
+	for i, r := range rs {
+		t.iv[i] = encloseRat(r)
+		t.fl[i], _ = r.Float64()
+	}
+	tableCache[key] = t
+	return t
+}
+
+// encloseRat returns the tightest float64 interval containing r (a point
+// when r is a float64). r must be of moderate size (no overflow).
+func encloseRat(r *big.Rat) interval.I {
+	f, exact := r.Float64()
+	if exact {
+		return interval.Point(f)
+	}
+	// f is the nearest float64; the exact value lies on one side of it.
+	var fr big.Rat
+	fr.SetFloat64(f)
+	if r.Cmp(&fr) < 0 {
+		return interval.I{Lo: math.Nextafter(f, math.Inf(-1)), Hi: f}
+	}
+	return interval.I{Lo: f, Hi: math.Nextafter(f, math.Inf(1))}
+}
+
+func binom(n, k int) *big.Int {
+	if k < 0 || k > n {
+		return new(big.Int)
+	}
+	return new(big.Int).Binomial(int64(n), int64(k))
+}
+
+// tripleTable returns T[(k*(m+1)+i)*(n+1)+j] = ∫_0^1 B^r_k B^m_i B^n_j dξ
+// = C(r,k) C(m,i) C(n,j) / (C(r+m+n, k+i+j) (r+m+n+1)). With r = 0 it is
+// the Gram matrix ∫ B^m_i B^n_j.
+func tripleTable(r, m, n int) *table {
+	return cached(tableKey{'t', r, m, n}, func() []*big.Rat {
+		out := make([]*big.Rat, (r+1)*(m+1)*(n+1))
+		s := r + m + n
+		for k := 0; k <= r; k++ {
+			for i := 0; i <= m; i++ {
+				for j := 0; j <= n; j++ {
+					num := new(big.Int).Mul(binom(r, k), binom(m, i))
+					num.Mul(num, binom(n, j))
+					den := new(big.Int).Mul(binom(s, k+i+j), big.NewInt(int64(s+1)))
+					out[(k*(m+1)+i)*(n+1)+j] = new(big.Rat).SetFrac(num, den)
+				}
+			}
+		}
+		return out
+	})
+}
+
+// productTable returns P[i*(n+1)+j] = C(m,i) C(n,j) / C(m+n, i+j), the
+// weight of a_i b_j in coefficient i+j of the degree-(m+n) product.
+func productTable(m, n int) *table {
+	return cached(tableKey{'p', m, n, 0}, func() []*big.Rat {
+		out := make([]*big.Rat, (m+1)*(n+1))
+		for i := 0; i <= m; i++ {
+			for j := 0; j <= n; j++ {
+				num := new(big.Int).Mul(binom(m, i), binom(n, j))
+				out[i*(n+1)+j] = new(big.Rat).SetFrac(num, binom(m+n, i+j))
+			}
+		}
+		return out
+	})
+}
+
+// elevationTable returns E[i*(n+1)+j], the coefficient of B^m_i in B^n_j
+// (m ≥ n): C(n,j) C(m−n,i−j) / C(m,i).
+func elevationTable(n, m int) *table {
+	return cached(tableKey{'e', n, m, 0}, func() []*big.Rat {
+		out := make([]*big.Rat, (m+1)*(n+1))
+		for i := 0; i <= m; i++ {
+			for j := 0; j <= n; j++ {
+				num := new(big.Int).Mul(binom(n, j), binom(m-n, i-j))
+				out[i*(n+1)+j] = new(big.Rat).SetFrac(num, binom(m, i))
+			}
+		}
+		return out
+	})
+}
+
+// monomialTable returns W[i*(n+1)+j], the coefficient of B^n_i in ξ^j:
+// C(i,j)/C(n,j) for i ≥ j, else 0.
+func monomialTable(n int) *table {
+	return cached(tableKey{'m', n, 0, 0}, func() []*big.Rat {
+		out := make([]*big.Rat, (n+1)*(n+1))
+		for i := 0; i <= n; i++ {
+			for j := 0; j <= n; j++ {
+				out[i*(n+1)+j] = new(big.Rat).SetFrac(binom(i, j), binom(n, j))
+			}
+		}
+		return out
+	})
+}
+
+// hierarchicalRat returns the exact Bernstein coefficients of degree p of
+// the local hierarchical basis on [0, 1], as H[i*(p+1)+l] = coefficient of
+// B^p_i in basis function l:
+//
+//	l = 0:        1 − ξ                        (left vertex function)
+//	l = 1..p−1:   ψ_(l+1)(ξ) = ∫_0^ξ P̃_l(t) dt  (bubble of degree l+1)
+//	l = p:        ξ                            (right vertex function)
+//
+// where P̃_l(t) = P_l(2t − 1) is the shifted Legendre polynomial. Its
+// Bernstein coefficients are (−1)^(l−k) C(l,k) (Farouki 2012, §5), so ψ_j
+// has the degree-j coefficients d_k = (1/j) Σ_(i<k) (−1)^(j−1−i) C(j−1,i),
+// d_0 = d_j = 0 (∫_0^1 P̃_l = 0 for l ≥ 1): the bubbles vanish at both ends.
+func hierarchicalRat(p int) []*big.Rat {
+	out := make([]*big.Rat, (p+1)*(p+1))
+	for i := range out {
+		out[i] = new(big.Rat)
+	}
+	for i := 0; i <= p; i++ {
+		out[i*(p+1)+0].SetFrac64(int64(p-i), int64(p))
+		out[i*(p+1)+p].SetFrac64(int64(i), int64(p))
+	}
+	for l := 1; l < p; l++ {
+		j := l + 1
+		d := make([]*big.Rat, j+1)
+		sum := new(big.Int)
+		for k := 0; k <= j; k++ {
+			d[k] = new(big.Rat).SetFrac(sum, big.NewInt(int64(j)))
+			if k < j {
+				term := binom(j-1, k)
+				if (j-1-k)%2 == 1 {
+					term.Neg(term)
+				}
+				sum.Add(sum, term)
+			}
+		}
+		// elevate from degree j to degree p
+		for i := 0; i <= p; i++ {
+			acc := new(big.Rat)
+			for k := 0; k <= j && k <= i; k++ {
+				if i-k > p-j {
+					continue
+				}
+				num := new(big.Int).Mul(binom(j, k), binom(p-j, i-k))
+				w := new(big.Rat).SetFrac(num, binom(p, i))
+				acc.Add(acc, w.Mul(w, d[k]))
+			}
+			out[i*(p+1)+l] = acc
+		}
+	}
+	return out
+}
+
+// hierarchicalTable is hierarchicalRat(p) enclosed.
+func hierarchicalTable(p int) *table {
+	return cached(tableKey{'h', p, 0, 0}, func() []*big.Rat { return hierarchicalRat(p) })
+}
