@@ -1,0 +1,126 @@
+package band
+
+import (
+	"math"
+	"runtime"
+	"sync"
+
+	"gapcert/interval"
+)
+
+// parallelEntries is the number of band entries above which CountBelow
+// splits the residual enclosure over the available CPUs.
+const parallelEntries = 1 << 15
+
+// CountBelow returns a verified count for the interval pencil ([K], [M]):
+// for every K ∈ [K] and M ∈ [M] with λ_min(M) ≥ mMin,
+//
+//	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
+//
+// sigma is a trial shift (a choice), mMin > 0 a caller-verified lower bound
+// of λ_min(M) over all members of [M]; n is the number of negative pivots
+// of the floating-point factorization L D Lᵀ of mid(K) − σ·mid(M), and
+// sigmaPrime = σ − r/mMin (rounded down), where r is an upper bound, over
+// all members, of the largest absolute row sum of the residual
+// R = (K − σM) − LDLᵀ, enclosed entry by entry in outward rounded interval
+// arithmetic (L has the bandwidth of the pencil, so R is banded too).
+// ok = false if the factorization broke down (zero or non-finite pivot).
+//
+// The chain of inequalities, for every member (K, M):
+//
+//	K − σ'M = LDLᵀ + R + (σ − σ')M        (definition of R)
+//	        ⪰ LDLᵀ + R + rI               ((σ − σ') ≥ r/mMin ≥ 0, M ⪰ mMin·I)
+//	        ⪰ LDLᵀ                        (R symmetric, ‖R‖₂ = ρ(R) ≤ ‖R‖∞ ≤ r).
+//
+// By Weyl's monotonicity theorem (A ⪰ B implies λ_k(A) ≥ λ_k(B) for every
+// k) #neg(K − σ'M) ≤ #neg(LDLᵀ) = #neg(D), the last equality by Sylvester's
+// law of inertia (L is nonsingular). Since M is positive definite,
+// K − σ'M = M^{1/2}(M^{−1/2}KM^{−1/2} − σ'I)M^{1/2}, so Sylvester again gives
+// #{λ < σ'} = #neg(K − σ'M) ≤ n. Hence if n ≤ k − 1 then λ_k ≥ σ'.
+//
+// The residual is computed in parallel for large matrices; the result does
+// not depend on GOMAXPROCS (each entry is enclosed identically, and the
+// row sums and their maximum are taken sequentially).
+//
+// CountBelow panics if the sizes differ or mMin is not a positive number.
+//
+// References:
+//
+//	G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
+//	Hopkins University Press, 2013, §8.1 (Weyl's inequalities, Sylvester's
+//	law of inertia).
+func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
+	if k.N != m.N {
+		panic("band: dimension mismatch")
+	}
+	if !(mMin > 0) || math.IsInf(mMin, 1) {
+		panic("band: mMin must be a positive finite lower bound of λ_min(M)")
+	}
+	if math.IsNaN(sigma) || math.IsInf(sigma, 0) {
+		panic("band: shift must be finite")
+	}
+	nn, w := k.N, max(k.W, m.W)
+	c := NewSym(nn, w)
+	for i := 0; i < nn; i++ {
+		for j := max(0, i-w); j <= i; j++ {
+			c.Data[i*(w+1)+i-j] = k.At(i, j).Mid() - sigma*m.At(i, j).Mid()
+		}
+	}
+	f, ok := c.Factor()
+	if !ok {
+		return 0, sigma, false
+	}
+	mag := make([]float64, len(c.Data))
+	rows := func(from, to int) {
+		for i := from; i < to; i++ {
+			for j := max(0, i-w); j <= i; j++ {
+				mag[i*(w+1)+i-j] = residualEntry(k, m, f, sigma, i, j).Mag()
+			}
+		}
+	}
+	if workers := runtime.GOMAXPROCS(0); workers > 1 && len(mag) > parallelEntries {
+		var wg sync.WaitGroup
+		chunk := (nn + workers - 1) / workers
+		for from := 0; from < nn; from += chunk {
+			wg.Add(1)
+			go func(from, to int) {
+				defer wg.Done()
+				rows(from, to)
+			}(from, min(nn, from+chunk))
+		}
+		wg.Wait()
+	} else {
+		rows(0, nn)
+	}
+	r := 0.0
+	for i := 0; i < nn; i++ {
+		s := 0.0
+		for j := max(0, i-w); j <= i; j++ {
+			s = interval.AddUp(s, mag[i*(w+1)+i-j])
+		}
+		for j := i + 1; j <= min(nn-1, i+w); j++ {
+			s = interval.AddUp(s, mag[j*(w+1)+j-i])
+		}
+		r = math.Max(r, s)
+	}
+	if math.IsNaN(r) {
+		r = math.Inf(1)
+	}
+	return f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
+}
+
+// residualEntry encloses R_ij = (K − σM)_ij − (LDLᵀ)_ij, j ≤ i, for every
+// member, with (LDLᵀ)_ij = Σ_{k=max(0,i−w)}^{j} L_ik D_k L_jk (L_jj = 1).
+func residualEntry(k, m *ISym, f *LDL, sigma float64, i, j int) interval.I {
+	r := k.At(i, j).Sub(m.At(i, j).MulF(sigma))
+	w, d := f.W, f.Data
+	rowi, rowj := i*(w+1), j*(w+1)
+	for q := max(0, i-w); q < j; q++ {
+		r = r.Sub(interval.Point(d[rowi+i-q]).MulF(d[rowj+j-q]).MulF(d[q*(w+1)]))
+	}
+	// q = j: L_ij D_j (L_jj = 1); for i = j this is D_i.
+	if i == j {
+		return r.Sub(interval.Point(d[rowj]))
+	}
+	return r.Sub(interval.Point(d[rowi+i-j]).MulF(d[rowj]))
+}
