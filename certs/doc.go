@@ -9,7 +9,7 @@
 // gives a float64 interval that contains the printed one. Printing keeps
 // signs: a lower end ≥ 0 (> 0) prints as a decimal ≥ 0 (> 0), and likewise
 // for upper ends, so a verdict on a claim can be re-derived from its printed
-// margin alone.
+// margin alone (read as exact decimals).
 //
 // A claim is an inequality "lhs REL rhs" between formulas (package
 // interval/formula) over certified quantities. Claim.Evaluate encloses

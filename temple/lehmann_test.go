@@ -223,6 +223,50 @@ func TestClusters(t *testing.T) {
 	}
 }
 
+// inflate widens every entry of s by rel·|entry| on both sides (outward).
+func inflate(s *enclose.Sym, rel float64) {
+	for i := 0; i < s.N(); i++ {
+		for j := 0; j <= i; j++ {
+			x := s.At(i, j)
+			r := interval.MulUp(x.Mag(), rel)
+			s.Set(i, j, interval.I{Lo: interval.SubDown(x.Lo, r), Hi: interval.AddUp(x.Hi, r)})
+		}
+	}
+}
+
+// TestIntervalData: the bounds hold for every member of wide interval
+// data (the exact matrices are members), and widen in proportion to the
+// data's width.
+func TestIntervalData(t *testing.T) {
+	lam := rats("1", "4", "9", "16", "25", "36")
+	for _, n := range []int{1, 3, 5} {
+		rho, _ := lam[n].Float64()
+		for _, rel := range []float64{1e-12, 1e-9, 1e-6} {
+			t.Run(fmt.Sprintf("N=%d/rel=%g", n, rel), func(t *testing.T) {
+				a0, a1, a2 := pencil(lam, trial(n, len(lam), big.NewRat(1, 1000), 11))
+				inflate(a0, rel)
+				inflate(a1, rel)
+				inflate(a2, rel)
+				lower, err := LehmannGoerisch(a0, a1, a2, rho)
+				if err != nil {
+					t.Fatal(err)
+				}
+				for k, l := range lower {
+					if !below(l, lam[k]) {
+						t.Fatalf("lower[%d] = %v exceeds Λ = %v", k, l, lam[k].RatString())
+					}
+					// Trial error 1e-3 contributes ≤ 100·ε²·ρ (see
+					// TestPerturbedTrialVectors); the data width adds
+					// O(rel·ρ²) (measured: ≤ 0.25·rel·ρ² here).
+					if d := gapOf(lam[k], l); d > 100*1e-6*rho+2*rel*rho*rho {
+						t.Errorf("lower[%d] = %v is %.3g below Λ = %v", k, l, d, lam[k].RatString())
+					}
+				}
+			})
+		}
+	}
+}
+
 // TestShiftBelowLambdaN: ρ ≤ Λ_{N+1} is the only hypothesis on ρ the
 // theorem needs (see the doc comment of LehmannGoerisch); with ρ below Λ_N
 // the indices whose μ is ≥ 0 get no bound and the others stay sound.
