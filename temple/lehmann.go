@@ -112,9 +112,6 @@ func LehmannGoerisch(a0, a1, a2 *enclose.Sym, rho float64) (lower []float64, err
 	if err != nil {
 		return nil, fmt.Errorf("temple: enclosing the Lehmann pencil: %w", err)
 	}
-	if len(mu) != n {
-		panic("temple: enclose.Eigenvalues returned the wrong number of values")
-	}
 	lower = make([]float64, n)
 	for i := range n {
 		lower[n-1-i] = boundFromMu(r, mu[i].Hi)
