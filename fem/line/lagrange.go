@@ -9,7 +9,7 @@ import (
 // Lagrange is the conforming space of continuous piecewise polynomials of
 // degree p on a mesh, with u = 0 exactly at Dirichlet ends (see space for
 // the basis, the DOF ordering and why the space lies in H¹). It carries the
-// forms of −u” + Vu = λu:
+// forms of −u″ + Vu = λu:
 //
 //	a(u, v) = ∫u'v' + ∫Vuv + α_L u(a)v(a) + α_R u(b)v(b),   b(u, v) = ∫uv,
 //
