@@ -29,7 +29,9 @@ func (is Issue) String() string {
 }
 
 // Error is returned by Parse when a problem file is invalid. It lists every
-// defect found, in the order of the file's layout.
+// defect found, grouped by the part of the file it concerns (keys, name,
+// parameters, domain, boundary, polygon geometry, potential, eigenvalues,
+// target, claims).
 type Error struct {
 	Issues []Issue
 }

@@ -1,0 +1,39 @@
+package problem
+
+import (
+	"os"
+	"path/filepath"
+	"testing"
+)
+
+// FuzzParse checks that Parse never panics and that an accepted problem's
+// canonical text is accepted again with the same canonical text.
+func FuzzParse(f *testing.F) {
+	for _, pattern := range []string{"*.json", "bad/*.json"} {
+		files, _ := filepath.Glob(filepath.Join(testdata, pattern))
+		for _, file := range files {
+			data, err := os.ReadFile(file)
+			if err != nil {
+				f.Fatal(err)
+			}
+			f.Add(data)
+		}
+	}
+	f.Fuzz(func(t *testing.T, data []byte) {
+		p, err := Parse(data)
+		if err != nil {
+			if p != nil {
+				t.Fatal("problem returned with an error")
+			}
+			return
+		}
+		c := p.Canonical()
+		q, err := Parse(c)
+		if err != nil {
+			t.Fatalf("canonical text rejected: %v\n%s", err, c)
+		}
+		if string(q.Canonical()) != string(c) {
+			t.Fatalf("canonical text not stable:\n%s\n%s", c, q.Canonical())
+		}
+	})
+}
