@@ -1,6 +1,7 @@
 package decimalio
 
 import (
+	"fmt"
 	"math"
 	"testing"
 )
@@ -20,7 +21,7 @@ func BenchmarkParse(b *testing.B) {
 func BenchmarkFormatLower(b *testing.B) {
 	for _, x := range []float64{math.Pi * math.Pi, 1e-300} {
 		for _, d := range []int{6, 17} {
-			b.Run("", func(b *testing.B) {
+			b.Run(fmt.Sprintf("%g/%d", x, d), func(b *testing.B) {
 				for b.Loop() {
 					FormatLower(x, d)
 				}

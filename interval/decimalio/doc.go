@@ -27,7 +27,9 @@
 // Output style: plain positional notation when the decimal exponent E of
 // the leading digit satisfies −5 ≤ E ≤ 15 ("9.8696044010", "0.000125",
 // "1200"), scientific notation "d.ddde±N" otherwise ("-1.25e-7",
-// "6.02e+23"). Zero prints as "0". The infinities print as "Infinity" and
+// "6.02e+23"). In plain notation an integer part longer than the
+// requested digits is padded with zeros ("1200" is 1234.5 rounded down to
+// two digits). Zero prints as "0". The infinities print as "Infinity" and
 // "-Infinity"; they are not numbers and Parse rejects them, but
 // ParseLower and ParseUpper read them back.
 //

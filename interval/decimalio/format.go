@@ -29,7 +29,11 @@ func FormatInterval(x interval.I, digits int) (lo, hi string) {
 // FormatExact returns the complete decimal expansion of x (at most 767
 // significant digits, trailing zeros dropped), in the package's style. Its
 // exact value is x, so Parse(FormatExact(x)) == interval.Point(x) for every
-// finite x. ±Inf give "Infinity" and "-Infinity"; FormatExact panics on NaN.
+// finite x, and it is the shortest text with that property: a text read to
+// the point x must denote x exactly. (The shortest text that merely rounds
+// to x at round-to-nearest, such as "0.1", is not enough for Parse, which
+// encloses the exact value.) ±Inf give "Infinity" and "-Infinity";
+// FormatExact panics on NaN.
 func FormatExact(x float64) string {
 	if s, ok := special(x); ok {
 		return s

@@ -201,13 +201,12 @@ func TestFormatExactRandom(t *testing.T) {
 			t.Fatalf("FormatExact(%g) = %s but FormatLower = %s", x, s, lo)
 		}
 	}
-	for _, x := range []float64{math.Inf(1), math.Inf(-1), 0} {
-		want := map[bool]string{true: "Infinity", false: "0"}[x != 0]
-		if x < 0 {
-			want = "-Infinity"
-		}
-		if got := FormatExact(x); got != want {
-			t.Errorf("FormatExact(%g) = %s, want %s", x, got, want)
+	for _, tt := range []struct {
+		x    float64
+		want string
+	}{{math.Inf(1), "Infinity"}, {math.Inf(-1), "-Infinity"}, {0, "0"}, {math.Copysign(0, -1), "0"}} {
+		if got := FormatExact(tt.x); got != tt.want {
+			t.Errorf("FormatExact(%g) = %s, want %s", tt.x, got, tt.want)
 		}
 	}
 }
