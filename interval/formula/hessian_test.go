@@ -21,14 +21,18 @@ func TestGradientHessian(t *testing.T) {
 			func(x, y float64) [2]float64 { e := math.Exp(x + y); return [2]float64{e, e} },
 			func(x, y float64) [2][2]float64 { e := math.Exp(x + y); return [2][2]float64{{e, e}, {e, e}} }},
 		{"sin(x)*cos(y)",
-			func(x, y float64) [2]float64 { return [2]float64{math.Cos(x) * math.Cos(y), -math.Sin(x) * math.Sin(y)} },
+			func(x, y float64) [2]float64 {
+				return [2]float64{math.Cos(x) * math.Cos(y), -math.Sin(x) * math.Sin(y)}
+			},
 			func(x, y float64) [2][2]float64 {
 				return [2][2]float64{{-math.Sin(x) * math.Cos(y), -math.Cos(x) * math.Sin(y)},
 					{-math.Cos(x) * math.Sin(y), -math.Sin(x) * math.Cos(y)}}
 			}},
 		{"x^3*y-log(y)",
 			func(x, y float64) [2]float64 { return [2]float64{3 * x * x * y, x*x*x - 1/y} },
-			func(x, y float64) [2][2]float64 { return [2][2]float64{{6 * x * y, 3 * x * x}, {3 * x * x, 1 / (y * y)}} }},
+			func(x, y float64) [2][2]float64 {
+				return [2][2]float64{{6 * x * y, 3 * x * x}, {3 * x * x, 1 / (y * y)}}
+			}},
 	} {
 		e := MustParse(tc.src)
 		rng := rand.New(rand.NewPCG(11, 12))

@@ -29,7 +29,24 @@ type Model2 struct {
 	R interval.I
 }
 
+// binomTable holds C(n, k) for n < 64 (exact float64 up to n = 56, tight
+// enclosures above).
+var binomTable = func() [][]interval.I {
+	t := make([][]interval.I, 64)
+	for n := range t {
+		t[n] = make([]interval.I, n+1)
+		for k := range t[n] {
+			t[n][k] = decimalio.FromRat(new(big.Rat).SetInt(new(big.Int).Binomial(int64(n), int64(k))))
+		}
+	}
+	return t
+}()
+
+// binomial returns an enclosure of the binomial coefficient C(n, k).
 func binomial(n, k int) interval.I {
+	if n < len(binomTable) {
+		return binomTable[n][k]
+	}
 	return decimalio.FromRat(new(big.Rat).SetInt(new(big.Int).Binomial(int64(n), int64(k))))
 }
 

@@ -354,7 +354,8 @@ func (p *parser) call(t token) (*node, error) {
 	}
 	f, ok := lookupFn(t.text)
 	if !ok {
-		return nil, p.fail(t.pos, fmt.Sprintf("unknown function '%s'", t.text), funcHint)
+		return nil, p.fail(t.pos, fmt.Sprintf("unknown function '%s'", t.text),
+			fmt.Sprintf("%s; for a product write %s*(...)", funcHint, t.text))
 	}
 	if err := arity(fnArity[f]); err != nil {
 		return nil, err
