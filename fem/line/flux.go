@@ -1,0 +1,275 @@
+package line
+
+import (
+	"errors"
+
+	"gapcert/enclose"
+	"gapcert/enclose/band"
+	"gapcert/interval"
+)
+
+// Flux is the space of fluxes σ for the Lehmann–Goerisch bounds of
+// METHODS §6 in one dimension, where H(div) = H¹: continuous piecewise
+// polynomials of degree q (the hierarchical basis of space), unconstrained
+// at Dirichlet ends and at Robin ends with α verified > 0, and σ = 0 at the
+// other ends (Neumann, or α not verified positive).
+//
+// With c = V + γ > 0, n = −1 at a and +1 at b, and
+//
+//	w = (σ, (ũ + σ')/√c, −σn/√α at Robin ends),
+//
+// every φ ∈ H satisfies (Tφ, w)_X = ∫φ'σ + ∫φ(ũ + σ') − Σ_R φσn
+// = ∫φũ + [φσ]_a^b − Σ_R φσn = ∫φũ = b(φ, ũ): the end term vanishes at
+// Dirichlet ends (φ = 0), at constrained ends (σ = 0) and cancels at Robin
+// ends. That is the hypothesis of the Lehmann–Goerisch theorem, for any σ
+// in this space; the choice of σ only affects sharpness.
+//
+// References:
+//
+//	H. Behnke, F. Goerisch, Inclusions for eigenvalues of selfadjoint
+//	problems, in: J. Herzberger (ed.), Topics in Validated Computations,
+//	North-Holland, 1994, 277–322.
+//	T. Vejchodský, Flux reconstructions in the Lehmann–Goerisch method for
+//	lower bounds on eigenvalues, arXiv:1801.02561 (2018).
+//	T. Vejchodský, Three methods for two-sided bounds of eigenvalues – a
+//	comparison, arXiv:1602.08961 (2016).
+type Flux struct {
+	space
+	left, right End
+}
+
+// constrained reports whether the flux must vanish at this end.
+func constrained(e End) bool { return !e.Dirichlet && !e.robinPositive() }
+
+// NewFlux returns the degree-q flux space on m for the given end conditions.
+func NewFlux(m *Mesh, q int, left, right End) *Flux {
+	left.check()
+	right.check()
+	return &Flux{space: newSpace(m, q, constrained(left), constrained(right)), left: left, right: right}
+}
+
+// N returns the dimension.
+func (f *Flux) N() int { return f.n }
+
+// Degree returns q.
+func (f *Flux) Degree() int { return f.p }
+
+// Eval returns the value of the flux with coefficients vec at x
+// (floating point; approximate).
+func (f *Flux) Eval(vec []float64, x float64) float64 { return f.eval(vec, x) }
+
+// Interpolate returns the projection-based interpolant of g (derivative dg)
+// in the flux space (floating point; a choice; see Lagrange.Interpolate).
+func (f *Flux) Interpolate(g, dg func(x float64) float64) []float64 {
+	return f.space.interpolate(g, dg)
+}
+
+// ErrWeightMismatch is returned by LGMatrices when w was not made by
+// v.InverseShifted(gamma): only then is w known to enclose 1/(V + γ).
+var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(gamma) for the same v and gamma")
+
+// LGMatrices returns interval matrices, for the trial functions ũ_i (the
+// coefficient vectors trial[i] in s) and fluxes σ_i (flux[i] in f):
+//
+//	a0_ij ⊇ a(ũ_i, ũ_j) + γ b(ũ_i, ũ_j),   a1_ij ⊇ b(ũ_i, ũ_j),
+//	a2_ij ⊇ ∫σ_iσ_j + ∫(ũ_i + σ_i')(ũ_j + σ_j')/c + Σ_(Robin ends, α>0) σ_i σ_j/α,
+//
+// c = V + γ, valid for every exact input inside the enclosures. The weight
+// w must be v.InverseShifted(gamma, ·) (else ErrWeightMismatch): its cell
+// models Q + R_w enclose 1/c, and the R_w part is bounded by
+// r_mid ∫fg ± r_rad ‖f‖‖g‖ as in RitzMatrices. On a cell of length h,
+// (ũ + σ')(x_k + ξh) = ũ(ξ) + σ̃'(ξ)/h is formed in Bernstein form of degree
+// max(p, q−1) (exact elevation), and ∫ = h∫_0^1.
+func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w *Potential, gamma interval.I) (a0, a1, a2 *enclose.Sym, err error) {
+	if f.mesh != s.mesh {
+		panic("line: flux and trial spaces on different meshes")
+	}
+	if len(trial) != len(flux) {
+		panic("line: as many fluxes as trial functions are needed")
+	}
+	for _, x := range flux {
+		if len(x) != f.n {
+			panic("line: flux coefficient vector length mismatch")
+		}
+	}
+	if w == nil || v == nil || w.inverseOf != v || w.shift != gamma {
+		return nil, nil, nil, ErrWeightMismatch
+	}
+	a0, a1, err = s.RitzMatrices(trial, v, gamma)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	nv := len(trial)
+	p, q := s.p, f.p
+	d := max(p, q-1)
+	acc := newAccum(nv)
+	uw := newCellWork(p, nv)
+	sw := newCellWork(q, nv)
+	gd := tripleTable(0, d, d).iv
+	fi := make([][]interval.I, nv)
+	gfi := make([][]interval.I, nv)
+	wfi := make([][]interval.I, nv)
+	ffi := make([]interval.I, nv)
+	for i := range fi {
+		fi[i], gfi[i], wfi[i] = make([]interval.I, d+1), make([]interval.I, d+1), make([]interval.I, d+1)
+	}
+	tmp := make([]interval.I, d+1)
+	wg := make([]interval.I, (d+1)*(d+1))
+	for c := 0; c < s.mesh.Cells(); c++ {
+		h := s.mesh.H(c)
+		hinv := h.Recip()
+		for i := 0; i < nv; i++ {
+			s.cellBern(uw.u[i], uw.c, trial[i], c)
+			f.cellBern(sw.u[i], sw.c, flux[i], c)
+			applyI(sw.gu[i], sw.gramP, sw.u[i])
+			bernDeriv(sw.d[i], sw.u[i])
+			bernElevate(fi[i], uw.u[i])
+			bernElevate(tmp, sw.d[i])
+			for k := range fi[i] {
+				fi[i][k] = fi[i][k].Add(tmp[k].Mul(hinv))
+			}
+			applyI(gfi[i], gd, fi[i])
+			ffi[i] = dotI(fi[i], gfi[i])
+		}
+		bern, rem := w.Model(c)
+		weightedGram(wg, bern, interval.Point(rem.Mid()), d)
+		for i := 0; i < nv; i++ {
+			applyI(wfi[i], wg, fi[i])
+		}
+		rrad := rem.Rad()
+		for i := 0; i < nv; i++ {
+			for j := 0; j <= i; j++ {
+				t := dotI(sw.u[j], sw.gu[i]).Add(dotI(fi[j], wfi[i]))
+				t = h.Mul(t)
+				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
+					r = interval.MulUp(r, h.Hi)
+					t = t.Add(interval.I{Lo: -r, Hi: r})
+				}
+				acc.add(i, j, t)
+			}
+		}
+	}
+	for _, e := range []struct {
+		end  End
+		side Side
+	}{{f.left, Left}, {f.right, Right}} {
+		if !e.end.robinPositive() {
+			continue
+		}
+		inv := e.end.Alpha.Recip()
+		for i := 0; i < nv; i++ {
+			si := f.endValue(flux[i], e.side)
+			for j := 0; j <= i; j++ {
+				acc.add(i, j, inv.MulF(si).MulF(f.endValue(flux[j], e.side)))
+			}
+		}
+	}
+	return a0, a1, acc.sym(), nil
+}
+
+// MinimizeApprox returns the flux σ of this space that minimises
+// ‖w‖²_X = ‖σ‖² + ‖(ũ + σ')/√c‖² + Σ_Robin σ(e)²/α for the trial function
+// ũ (coefficients u in s), with 1/c taken from w (midpoints): the solution
+// of the normal equations, for all τ,
+//
+//	(σ, τ) + ((σ' + ũ)/c, τ') + Σ_Robin σ τ/α = 0,
+//
+// one banded SPD solve in floating point. A choice: any σ is admissible.
+// It returns nil if the float factorization fails.
+func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 {
+	if s.mesh != f.mesh || w.mesh != f.mesh {
+		panic("line: spaces and weight on different meshes")
+	}
+	if len(u) != s.n {
+		panic("line: coefficient vector length mismatch")
+	}
+	p, q := s.p, f.p
+	q1 := q + 1
+	g := band.NewSym(f.n, q)
+	rhs := make([]float64, f.n)
+	T := f.basis.fl
+	D := make([]float64, q*q1) // derivative of the flux basis, degree q−1
+	for i := 0; i < q; i++ {
+		for l := 0; l < q1; l++ {
+			D[i*q1+l] = float64(q) * (T[(i+1)*q1+l] - T[i*q1+l])
+		}
+	}
+	mref := congruenceF(T, tripleTable(0, q, q).fl, q1, q1)
+	gq1 := tripleTable(0, q-1, q-1).fl
+	gpq := tripleTable(0, p, q-1).fl
+	ub := make([]float64, p+1)
+	c := make([]float64, p+1)
+	wq := make([]float64, q*q)
+	wpq := make([]float64, (p+1)*q)
+	for cell := 0; cell < f.mesh.Cells(); cell++ {
+		h := f.mesh.H(cell).Mid()
+		bern, rem := w.Model(cell)
+		r := len(bern) - 1
+		t3 := tripleTable(r, q-1, q-1).fl
+		t3u := tripleTable(r, p, q-1).fl
+		rm := rem.Mid()
+		for ab := range wq {
+			wq[ab] = rm * gq1[ab]
+		}
+		for ab := range wpq {
+			wpq[ab] = rm * gpq[ab]
+		}
+		for k := 0; k <= r; k++ {
+			wk := bern[k].Mid()
+			for ab := range wq {
+				wq[ab] += wk * t3[k*q*q+ab]
+			}
+			for ab := range wpq {
+				wpq[ab] += wk * t3u[k*(p+1)*q+ab]
+			}
+		}
+		kloc := congruenceF(D, wq, q, q1)
+		s.localCoef(c, u, cell)
+		for i := 0; i <= p; i++ {
+			acc := 0.0
+			for l := 0; l <= p; l++ {
+				acc += s.basis.fl[i*(p+1)+l] * c[l]
+			}
+			ub[i] = acc
+		}
+		for a := 0; a < q1; a++ {
+			ga := f.dof(cell, a)
+			if ga < 0 {
+				continue
+			}
+			for b := 0; b <= a; b++ {
+				if gb := f.dof(cell, b); gb >= 0 {
+					g.Add(ga, gb, h*mref[a*q1+b]+kloc[a*q1+b]/h)
+				}
+			}
+			// rhs: −∫_0^1 ũ w̃ τ̃_a' dξ (the factors h and 1/h cancel).
+			acc := 0.0
+			for i := 0; i <= p; i++ {
+				for b := 0; b < q; b++ {
+					acc += ub[i] * wpq[i*q+b] * D[b*q1+a]
+				}
+			}
+			rhs[ga] -= acc
+		}
+	}
+	for _, e := range []struct {
+		end  End
+		side Side
+	}{{f.left, Left}, {f.right, Right}} {
+		if !e.end.robinPositive() {
+			continue
+		}
+		gi := f.dof(0, 0)
+		if e.side == Right {
+			gi = f.dof(f.mesh.Cells()-1, q)
+		}
+		g.Add(gi, gi, 1/e.end.Alpha.Mid())
+	}
+	fac, ok := g.Factor()
+	if !ok {
+		return nil
+	}
+	out := make([]float64, f.n)
+	fac.SolveTo(out, rhs)
+	return out
+}
