@@ -177,8 +177,12 @@ func sinhPoint(t float64) I {
 		return I{math.MaxFloat64, math.Inf(1)}
 	}
 	if t <= hypDirect {
-		if t == 0 {
-			return I{0, 0}
+		if t < 0x1p-600 {
+			// t < sinh t ≤ t + t³ < t + ulp(t) (0 < t ≤ 1, t³ < 2⁻¹⁸⁰⁰).
+			if t == 0 {
+				return I{0, 0}
+			}
+			return I{t, math.Nextafter(t, 1)}
 		}
 		x := Point(t)
 		x2 := x.Sqr()
@@ -231,6 +235,10 @@ func tanhPoint(t float64) I {
 	}
 	if t == 0 {
 		return I{0, 0}
+	}
+	if t < 0x1p-600 {
+		// t − t³ ≤ tanh t < t and t³ < ulp(t)/2 (0 < t ≤ 1).
+		return I{math.Nextafter(t, 0), t}
 	}
 	if t <= tanhDirect {
 		x := Point(t)

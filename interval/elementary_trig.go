@@ -15,7 +15,7 @@ import (
 
 const (
 	trigTerms = 9   // sin: degree 19, cos: degree 18 on |r| ≤ π/4
-	atanTerms = 11  // atan: degree 23 on |u| ≤ 1/8
+	atanTerms = 11  // atan: degree 23 on |u| ≤ 3/16
 	fastTrig  = 1e6 // |x| ≤ fastTrig: Cody–Waite reduction in float64
 )
 
@@ -47,27 +47,44 @@ func init() {
 	}
 }
 
-// reduceHalfPi returns k (exact modulo 2⁶⁴) and an enclosure r of the real
-// number x − k·π/2, for finite x; k is chosen near x/(π/2), so |r| ≤ π/4
-// up to a few ulps.
+// reduceHalfPi returns k (exact modulo 2⁶⁴), a float rh and an interval
+// rl such that x − k·π/2 = rh + ρ for some ρ ∈ rl, for finite x; k is
+// chosen near x/(π/2), so |rh + ρ| ≤ π/4 up to a few ulps and rl is small.
 //
 // For |x| ≤ 10⁶ (|k| < 2²⁰) the Cody–Waite splitting
-// r ∈ ((x − k·halfPi1) − k·halfPi2) − k·halfPi3I is used, with k·halfPi1,
-// k·halfPi2 exact floats. Beyond, x (exact) is reduced in math/big with a
-// 1400-bit enclosure [p⁻, p⁺] ∋ π/2: r ∈ [x − k p⁺, x − k p⁻] for k ≥ 0
-// (swapped for k < 0), each end rounded outward; |x| < 2¹⁰²⁴ makes the
-// width of that enclosure below 2⁻³⁷⁰, so every float64 argument, however
-// large, is reduced correctly and tightly.
-func reduceHalfPi(x float64) (int64, I) {
+// π/2 ∈ halfPi1 + halfPi2 + halfPi3I is used: k·halfPi1 and k·halfPi2 are
+// exact floats, and the two subtractions are made exact by TwoSum
+// (a − b = s + e exactly), so x − k·π/2 ∈ s₂ + (e₁ + e₂ − k·halfPi3I); a
+// last TwoSum moves the midpoint of the small part into rh.
+// Beyond, x (exact) is reduced in math/big with a 1400-bit enclosure
+// [p⁻, p⁺] ∋ π/2: x − k·π/2 ∈ [x − k p⁺, x − k p⁻] for k ≥ 0 (swapped for
+// k < 0); |x| < 2¹⁰²⁴ makes the width of that enclosure below 2⁻³⁷⁰, so
+// every float64 argument, however large, is reduced correctly and tightly.
+func reduceHalfPi(x float64) (k int64, rh float64, rl I) {
 	if math.Abs(x) <= fastTrig {
 		kf := math.Round(float64(x * twoOverPi))
-		r := Point(x).Sub(Point(float64(kf * halfPi1))).Sub(Point(float64(kf * halfPi2))).Sub(halfPi3I.MulF(kf))
-		return int64(kf), r
+		s1, e1 := twoSum(x, -float64(kf*halfPi1))
+		s2, e2 := twoSum(s1, -float64(kf*halfPi2))
+		rl = Point(e1).Add(Point(e2)).Sub(halfPi3I.MulF(kf))
+		// Fold the bulk of rl into rh (s₂ + m = rh + e₃ exactly) so that
+		// the second-order terms in ρ² of the callers stay negligible.
+		m := rl.Mid()
+		rh, e3 := twoSum(s2, m)
+		return int64(kf), rh, rl.Sub(Point(m)).Add(Point(e3))
 	}
 	return reduceHuge(x)
 }
 
-func reduceHuge(x float64) (int64, I) {
+// twoSum returns s = fl(a + b) and e with a + b = s + e exactly (Knuth's
+// TwoSum; a, b finite and the sum not overflowing).
+func twoSum(a, b float64) (s, e float64) {
+	s = a + b
+	bb := s - a
+	e = (a - (s - bb)) + (b - bb)
+	return s, e
+}
+
+func reduceHuge(x float64) (int64, float64, I) {
 	pLo, pHi := hugeHalfPi()
 	const w = 2*hugePrec + 200 // k·p± and x − k·p± are exact at w bits
 	X := new(big.Float).SetFloat64(x)
@@ -89,8 +106,9 @@ func reduceHuge(x float64) (int64, I) {
 	// Now kpLo ≤ k·π/2 ≤ kpHi.
 	rLo := new(big.Float).SetPrec(w).SetMode(big.ToNegativeInf).Sub(X, kpHi)
 	rHi := new(big.Float).SetPrec(w).SetMode(big.ToPositiveInf).Sub(X, kpLo)
+	rh, _ := rLo.Float64() // a choice
 	k := int64(new(big.Int).And(kInt, mask64).Uint64())
-	return k, bigToI(rLo, rHi)
+	return k, rh, bigToI(sub(rLo, rh, w, big.ToNegativeInf), sub(rHi, rh, w, big.ToPositiveInf))
 }
 
 // sinRel encloses sin(r)/r − 1 = Σ_{k≥1} (−1)^k r^{2k}/(2k+1)! by the
@@ -116,21 +134,35 @@ func tanRel(r2 I, m float64) I {
 	return r2.Mul(horner(tanCoef[:], r2)).Add(sym(rem))
 }
 
-// sinReduced encloses sin(k·π/2 + r) (r an enclosure, |r| ≤ 1).
-func sinReduced(k int64, r I) I {
-	var v I
-	r2, m := r.Sqr(), r.Mag()
+// sinCosAt encloses sin(r) and cos(r) for r = rh + ρ, ρ ∈ rl, by Taylor's
+// theorem about the float rh,
+//
+//	sin(rh + ρ) = sin rh + ρ cos rh − (ρ²/2) sin ξ,
+//	cos(rh + ρ) = cos rh − ρ sin rh − (ρ²/2) cos ξ,
+//
+// with sin rh = rh(1 + s'), cos rh = 1 + c' from sinRel and cosRel.
+func sinCosAt(rh float64, rl I) (s, c I) {
+	x := Point(rh)
+	x2, m := x.Sqr(), math.Abs(rh)
+	s = x.Add(x.Mul(sinRel(x2, m)))
+	c = cosRel(x2, m).AddF(1)
+	q := rl.Mag()
+	e := sym(MulUp(MulUp(q, q), 0.5))
+	return s.Add(rl.Mul(c).Add(e)), c.Sub(rl.Mul(s).Add(e))
+}
+
+// sinReduced encloses sin(k·π/2 + rh + ρ), ρ ∈ rl.
+func sinReduced(k int64, rh float64, rl I) I {
+	s, c := sinCosAt(rh, rl)
 	switch k & 3 {
 	case 0:
-		v = r.Add(r.Mul(sinRel(r2, m)))
+		return clipUnit(s)
 	case 1:
-		v = cosRel(r2, m).AddF(1)
+		return clipUnit(c)
 	case 2:
-		v = r.Add(r.Mul(sinRel(r2, m))).Neg()
-	default:
-		v = cosRel(r2, m).AddF(1).Neg()
+		return clipUnit(s.Neg())
 	}
-	return clipUnit(v)
+	return clipUnit(c.Neg())
 }
 
 func clipUnit(v I) I {
@@ -163,15 +195,15 @@ func trigRange(x I, shift int64) I {
 	if !x.IsBounded() || x.Hi-x.Lo > 7 {
 		return I{-1, 1}
 	}
-	ka, ra := reduceHalfPi(x.Lo)
+	ka, ha, la := reduceHalfPi(x.Lo)
 	ka += shift
 	if x.IsPoint() {
-		return sinReduced(ka, ra)
+		return sinReduced(ka, ha, la)
 	}
-	kb, rb := reduceHalfPi(x.Hi)
+	kb, hb, lb := reduceHalfPi(x.Hi)
 	kb += shift
-	v := sinReduced(ka, ra).Hull(sinReduced(kb, rb))
-	lo, hi, ok := multiplesIn(ka, ra, kb, rb)
+	v := sinReduced(ka, ha, la).Hull(sinReduced(kb, hb, lb))
+	lo, hi, ok := multiplesIn(ka, la.AddF(ha), kb, lb.AddF(hb))
 	if !ok {
 		return I{-1, 1}
 	}
@@ -207,25 +239,25 @@ func multiplesIn(ka int64, ra I, kb int64, rb I) (lo, hi int64, ok bool) {
 // At a point t = k·π/2 + r: tan t = tan r for even k and −cot r for odd k,
 // with
 //
-//	tan r = r + r·g/(1 + c'),   cot r = 1/r − (1/r)·g/(1 + s'),
+//	tan r = r + r·g/(1 + c'),   cot r = 1/tan r,
 //
-// where s' = sin(r)/r − 1, c' = cos r − 1 and g = s' − c' are enclosed by
-// their series (see Sin and tanRel). tan increases between its poles, so
+// where c' = cos r − 1 and g = sin(r)/r − cos r are enclosed by their
+// series (see Sin and tanRel). tan increases between its poles, so
 // on an interval without a pole the range is [tan x.Lo, tan x.Hi].
 func Tan(x I) (I, error) {
 	if !x.IsBounded() {
 		return Entire(), &DomainError{"tan", x}
 	}
-	ka, ra := reduceHalfPi(x.Lo)
+	ka, ha, la := reduceHalfPi(x.Lo)
 	if x.IsPoint() {
-		v, ok := tanReduced(ka, ra)
+		v, ok := tanReduced(ka, ha, la)
 		if !ok {
 			return Entire(), &DomainError{"tan", x}
 		}
 		return v, nil
 	}
-	kb, rb := reduceHalfPi(x.Hi)
-	lo, hi, ok := multiplesIn(ka, ra, kb, rb)
+	kb, hb, lb := reduceHalfPi(x.Hi)
+	lo, hi, ok := multiplesIn(ka, la.AddF(ha), kb, lb.AddF(hb))
 	if !ok {
 		return Entire(), &DomainError{"tan", x}
 	}
@@ -234,38 +266,48 @@ func Tan(x I) (I, error) {
 			return Entire(), &DomainError{"tan", x}
 		}
 	}
-	va, oka := tanReduced(ka, ra)
-	vb, okb := tanReduced(kb, rb)
+	va, oka := tanReduced(ka, ha, la)
+	vb, okb := tanReduced(kb, hb, lb)
 	if !oka || !okb {
 		return Entire(), &DomainError{"tan", x}
 	}
 	return I{va.Lo, vb.Hi}, nil
 }
 
-// tanReduced encloses tan(k·π/2 + r); ok is false if k is odd and 0 ∈ r.
-func tanReduced(k int64, r I) (I, bool) {
-	r2, m := r.Sqr(), r.Mag()
-	g := tanRel(r2, m)
-	if k&1 == 0 {
-		return r.Add(r.Mul(g.Div(cosRel(r2, m).AddF(1)))), true
+// tanReduced encloses tan(k·π/2 + rh + ρ), ρ ∈ rl; ok is false if k is
+// odd and tan(rh + ρ) may vanish. With T = tan rh, Taylor's theorem gives
+//
+//	tan(rh + ρ) = T + ρ(1 + T²) + ρ² tan ξ sec² ξ,
+//
+// and |tan ξ sec² ξ| ≤ 2.1 for |ξ| ≤ 0.79 (tan 0.79 < 1.01, sec² 0.79 < 2.02).
+func tanReduced(k int64, rh float64, rl I) (I, bool) {
+	q := rl.Mag()
+	if !(math.Abs(rh)+q <= 0.79) {
+		panic("interval: internal error: tan reduction out of range")
 	}
-	if r.ContainsZero() {
+	x := Point(rh)
+	x2, m := x.Sqr(), math.Abs(rh)
+	t := x.Add(x.Mul(tanRel(x2, m).Div(cosRel(x2, m).AddF(1))))
+	t = t.Add(rl.Mul(t.Sqr().AddF(1)).Add(sym(MulUp(MulUp(q, q), 2.1))))
+	if k&1 == 0 {
+		return t, true
+	}
+	if t.ContainsZero() {
 		return Entire(), false
 	}
-	inv := Point(1).Div(r)
-	return inv.Sub(inv.Mul(g.Div(sinRel(r2, m).AddF(1)))).Neg(), true
+	return t.Recip().Neg(), true
 }
 
 // Atan returns an enclosure of {atan t : t ∈ x} (atan increases;
 // atan(±∞) = ±π/2).
 //
 // At a point t ≥ 0 (atan is odd): for t > 1, atan t = π/2 − atan(1/t);
-// for 0 ≤ t ≤ 1, with c = j/4 the nearest quarter,
-// atan t = atan c + atan u, u = (t − c)/(1 + t c), |u| ≤ 1/8 (the
+// for 0 ≤ t ≤ 1, with c = j/4 the nearest quarter (c = 0 below 3/16),
+// atan t = atan c + atan u, u = (t − c)/(1 + t c), |u| ≤ 3/16 (the
 // addition formula, valid as t c > −1), and
 //
 //	atan u = Σ_{k=0}^{11} (−1)^k u^{2k+1}/(2k+1) + R,
-//	|R| ≤ Σ_{k>11} |u|^{2k+1}/(2k+1) ≤ |u|^{25}/(25(1 − u²)) ≤ (64/63)|u|^{25}/25.
+//	|R| ≤ Σ_{k>11} |u|^{2k+1}/(2k+1) ≤ |u|^{25}/(25(1 − u²)) ≤ 1.04|u|^{25}/25.
 //
 // atan(j/4) are enclosed in math/big (see the constants).
 func Atan(x I) I {
@@ -276,6 +318,9 @@ func atanPoint(t float64) I {
 	if t < 0 {
 		return atanPoint(-t).Neg()
 	}
+	if math.IsInf(t, 1) {
+		return halfPiI
+	}
 	if t > 1 {
 		return halfPiI.Sub(atanUnit(Point(1).Div(Point(t))))
 	}
@@ -285,13 +330,17 @@ func atanPoint(t float64) I {
 // atanUnit encloses atan over t ⊆ [0, 1].
 func atanUnit(t I) I {
 	j := math.Round(4 * t.Mid())
+	if t.Mid() < 0.1875 {
+		j = 0 // small results keep their relative accuracy
+	}
 	c := j / 4
 	u := t.Sub(Point(c)).Div(Point(1).Add(t.MulF(c)))
 	m := u.Mag()
-	if !(m <= 0.126) {
+	if !(m <= 0.19) {
 		panic("interval: internal error: atan reduction out of range")
 	}
-	rem := MulUp(powUp(m, 2*atanTerms+3), DivUp(64, float64(63*(2*atanTerms+3))))
+	// 1/(1 − u²) ≤ 1.04 for u² ≤ 0.0361.
+	rem := MulUp(powUp(m, 2*atanTerms+3), DivUp(1.04, 2*atanTerms+3))
 	u2 := u.Sqr()
 	s := u.Add(u.Mul(u2.Mul(horner(atnCoef[:], u2))).Add(sym(rem)))
 	return atanTab[int(j)].Add(s)
