@@ -32,3 +32,19 @@ func inverseIterate(k, m *band.Sym, n int) []float64 {
 	}
 	return x
 }
+
+func benchName(cells, p int) string {
+	return "cells=" + itoa(cells) + "/p=" + itoa(p)
+}
+
+func itoa(n int) string {
+	if n == 0 {
+		return "0"
+	}
+	s := ""
+	for n > 0 {
+		s = string(rune('0'+n%10)) + s
+		n /= 10
+	}
+	return s
+}

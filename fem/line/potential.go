@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/mat"
+
 	"gapcert/interval"
 )
 
@@ -144,8 +146,9 @@ func (e *SignError) Error() string {
 // returns a *SignError unless V + γ > 0 is verified on every cell.
 //
 // On a cell, with g = V + γ ∈ P + γ + R and G ⊇ range(g) (G.Lo > 0), a
-// polynomial Q is chosen in floating point (the truncated Taylor series of
-// 1/(mid P + mid γ) about ξ = ½; a choice). Then exactly
+// polynomial Q is chosen in floating point (the interpolant of
+// 1/(mid P + mid γ) at Chebyshev points, with float Bernstein coefficients
+// taken as exact; a choice). Then exactly
 //
 //	1/g − Q = (1 − gQ)/g = (E − (g − P − γ)Q)/g,   E = 1 − (P + γ)Q,
 //
@@ -166,12 +169,10 @@ func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, err
 			return nil, &SignError{What: "V + γ", Cell: k, Cell0: m.Nodes[k], Cell1: m.Nodes[k+1], Range: g, Need: "> 0"}
 		}
 		q := chooseReciprocal(p, gamma.Mid(), order)
-		qi := make([]interval.I, len(q))
-		for i, c := range q {
-			qi[i] = interval.Point(c)
-		}
 		qb := make([]interval.I, order+1)
-		bernFromMonomial(qb, qi)
+		for i, c := range q {
+			qb[i] = interval.Point(c)
+		}
 		ps := make([]interval.I, len(p))
 		for i := range p {
 			ps[i] = p[i].Add(gamma)
@@ -187,51 +188,43 @@ func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, err
 	return w, nil
 }
 
-// chooseReciprocal returns monomial coefficients (in ξ) of a polynomial of
-// degree ≤ order near 1/(P(ξ) + s) on [0, 1], where P has the Bernstein
-// coefficients p (midpoints used). Floating point: a choice.
+// chooseReciprocal returns the Bernstein coefficients (degree order) of
+// the polynomial interpolating 1/(P(ξ) + s) at the order+1 Chebyshev points
+// of [0, 1], where P has the Bernstein coefficients p (midpoints used).
+// Floating point (gonum LU): a choice. The coefficients are used as exact
+// floats, so no conversion error enters the verified remainder.
 func chooseReciprocal(p []interval.I, s float64, order int) []float64 {
-	n := len(p) - 1
-	// Monomial coefficients of P + s in ξ: c_j = C(n,j) Σ_(i≤j) (−1)^(j−i) C(j,i) b_i.
-	c := make([]float64, n+1)
-	for j := 0; j <= n; j++ {
-		acc := 0.0
-		for i := 0; i <= j; i++ {
-			t := float64(binom(j, i).Int64()) * p[i].Mid()
-			if (j-i)%2 == 1 {
-				t = -t
+	pm := make([]float64, len(p))
+	for i, c := range p {
+		pm[i] = c.Mid()
+	}
+	work := make([]float64, max(len(p), order+1))
+	n1 := order + 1
+	a := mat.NewDense(n1, n1, nil)
+	rhs := mat.NewVecDense(n1, nil)
+	unit := make([]float64, n1)
+	for i := 0; i < n1; i++ {
+		xi := 0.5 - 0.5*math.Cos(float64(2*i+1)*math.Pi/float64(2*n1))
+		rhs.SetVec(i, 1/(deCasteljau(pm, xi, work)+s))
+		for j := 0; j < n1; j++ {
+			for k := range unit {
+				unit[k] = 0
 			}
-			acc += t
-		}
-		c[j] = float64(binom(n, j).Int64()) * acc
-	}
-	c[0] += s
-	// Taylor shift to ξ = ½ + t (repeated synthetic division).
-	for i := 0; i < n; i++ {
-		for j := n - 1; j >= i; j-- {
-			c[j] += 0.5 * c[j+1]
+			unit[j] = 1
+			a.Set(i, j, deCasteljau(unit, xi, work))
 		}
 	}
-	// Reciprocal power series in t.
-	r := make([]float64, order+1)
-	r[0] = 1 / c[0]
-	for k := 1; k <= order; k++ {
-		acc := 0.0
-		for j := 1; j <= k && j <= n; j++ {
-			acc += c[j] * r[k-j]
+	var x mat.VecDense
+	out := make([]float64, n1)
+	if err := x.SolveVec(a, rhs); err != nil {
+		c := 1 / (deCasteljau(pm, 0.5, work) + s)
+		for i := range out {
+			out[i] = c
 		}
-		r[k] = -acc / c[0]
-	}
-	// Back to powers of ξ: Σ r_k (ξ − ½)^k.
-	out := make([]float64, order+1)
-	for k := order; k >= 0; k-- {
-		// Horner in (ξ − ½): out = out·(ξ − ½) + r_k.
-		for j := order; j > 0; j-- {
-			out[j] = out[j-1] - 0.5*out[j]
-		}
-		out[0] = -0.5*out[0] + r[k]
+		return out
 	}
 	for i := range out {
+		out[i] = x.AtVec(i)
 		if math.IsNaN(out[i]) || math.IsInf(out[i], 0) {
 			out[i] = 0
 		}

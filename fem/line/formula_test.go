@@ -1,0 +1,126 @@
+package line
+
+import (
+	"math"
+	"testing"
+
+	"gapcert/enclose/band"
+	"gapcert/interval"
+	"gapcert/interval/formula"
+	"gapcert/temple"
+)
+
+func TestMathieuFromExpr(t *testing.T) {
+	// V = 2q cos 2x on (0, π), Dirichlet, q = 1: the eigenvalues are the
+	// Mathieu characteristic values b_1(1) = −0.11024881699, b_2(1) =
+	// 3.91702477 (Abramowitz–Stegun Table 20.1; values recalled from
+	// memory). Ritz upper and flux-based Lehmann–Goerisch lower bounds from
+	// the formula's Taylor models must enclose b_1 tightly.
+	const b1, b2 = -0.11024881699, 3.91702477
+	m := Uniform(pt(0), interval.I{Lo: math.Pi, Hi: math.Pi}, 12)
+	v, err := FromExpr(m, formula.MustParse("2*cos(2*x)"), 12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k := 0; k < m.Cells(); k++ {
+		x := m.Nodes[k].Mid()
+		if r := v.Range(k); !r.Contains(2*math.Cos(2*x)) || r.Wid() > 1.2 {
+			t.Errorf("cell %d: range %v", k, r)
+		}
+	}
+	dir := End{Dirichlet: true}
+	s := NewLagrange(m, 8, dir, dir)
+	f := NewFlux(m, 8, dir, dir)
+	gamma := pt(3) // V + 3 ≥ 1
+	w, err := v.InverseShifted(gamma, 14)
+	if err != nil {
+		t.Fatal(err)
+	}
+	kk, mm := s.AssembleApprox(v, 3)
+	u := inverseIterate(kk, mm, s.N())
+	sigma := f.MinimizeApprox(s, u, w)
+	a0, a1, a2, err := LGMatrices(s, [][]float64{u}, f, [][]float64{sigma}, v, w, gamma)
+	if err != nil {
+		t.Fatal(err)
+	}
+	upper := a0.At(0, 0).Div(a1.At(0, 0)).Hi - 3
+	lower, err := temple.LehmannGoerisch(a0, a1, a2, 3.9+3)
+	if err != nil {
+		t.Fatal(err)
+	}
+	low := lower[0] - 3
+	if !(low <= b1+1e-11 && b1-1e-11 <= upper) || upper-low > 1e-9 {
+		t.Errorf("b_1(1) = %.11f, enclosure [%.13f, %.13f]", b1, low, upper)
+	}
+	_ = b2
+	t.Logf("b_1(1) ∈ [%.13f, %.13f], width %.2e", low, upper, upper-low)
+}
+
+func benchSetup(cells, p, nv int) (*Lagrange, *Flux, [][]float64, [][]float64, *Potential, *Potential) {
+	m := Uniform(pt(0), pt(math.Pi), cells)
+	dir := End{Dirichlet: true}
+	s := NewLagrange(m, p, dir, dir)
+	f := NewFlux(m, p, dir, dir)
+	v := PolynomialPotential(m, []interval.I{pt(1), pt(0.5), pt(-0.25)})
+	w, err := v.InverseShifted(pt(2), p)
+	if err != nil {
+		panic(err)
+	}
+	trial, flux := make([][]float64, nv), make([][]float64, nv)
+	for i := range trial {
+		k := float64(i + 1)
+		trial[i] = s.Interpolate(func(x float64) float64 { return math.Sin(k * x) }, func(x float64) float64 { return k * math.Cos(k*x) })
+		flux[i] = f.MinimizeApprox(s, trial[i], w)
+	}
+	return s, f, trial, flux, v, w
+}
+
+var benchCases = []struct{ cells, p int }{{10, 4}, {10, 8}, {100, 4}, {100, 8}}
+
+func BenchmarkRitzMatrices(b *testing.B) {
+	for _, c := range benchCases {
+		s, _, trial, _, v, _ := benchSetup(c.cells, c.p, 4)
+		b.Run(benchName(c.cells, c.p), func(b *testing.B) {
+			for b.Loop() {
+				s.RitzMatrices(trial, v, pt(2))
+			}
+		})
+	}
+}
+
+func BenchmarkLGMatrices(b *testing.B) {
+	for _, c := range benchCases {
+		s, f, trial, flux, v, w := benchSetup(c.cells, c.p, 4)
+		b.Run(benchName(c.cells, c.p), func(b *testing.B) {
+			for b.Loop() {
+				LGMatrices(s, trial, f, flux, v, w, pt(2))
+			}
+		})
+	}
+}
+
+func BenchmarkMeanP2Matrices(b *testing.B) {
+	for _, n := range []int{100, 10000} {
+		m := Uniform(pt(0), pt(1), n)
+		s := NewMeanP2(m, End{Dirichlet: true}, End{})
+		v := PolynomialPotential(m, []interval.I{pt(1), pt(2)})
+		b.Run(benchName(n, 2), func(b *testing.B) {
+			for b.Loop() {
+				s.Matrices(v, pt(0))
+			}
+		})
+	}
+}
+
+func BenchmarkAssembleApprox(b *testing.B) {
+	for _, c := range benchCases {
+		s, _, _, _, v, _ := benchSetup(c.cells, c.p, 1)
+		b.Run(benchName(c.cells, c.p), func(b *testing.B) {
+			for b.Loop() {
+				s.AssembleApprox(v, 0)
+			}
+		})
+	}
+}
+
+var _ = band.NewSym
