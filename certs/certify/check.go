@@ -59,7 +59,7 @@ func Check(data []byte) error {
 	if err != nil || !gamma.IsPoint() {
 		return fmt.Errorf("method.gamma %q is not an exact float64", m.Gamma)
 	}
-	r := recipe{cells: m.Cells, degree: m.Degree, fluxDegree: m.FluxDegree, taylor: m.TaylorOrder, stageACells: m.StageACells, gamma: gamma.Lo}
+	r := recipe{cells: m.Cells, degree: m.Degree, fluxDegree: m.FluxDegree, taylor: m.TaylorOrder, weightTaylor: m.WeightOrder, stageACells: m.StageACells, gamma: gamma.Lo}
 	if err := r.validate(); err != nil {
 		return err
 	}
@@ -119,6 +119,8 @@ func (r recipe) validate() error {
 		return fmt.Errorf("method.flux_degree %d out of range", r.fluxDegree)
 	case r.taylor < 1 || r.taylor > 32:
 		return fmt.Errorf("method.taylor_order %d out of range", r.taylor)
+	case r.weightTaylor < 1 || r.weightTaylor > 32:
+		return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
 	case r.stageACells < 1 || r.stageACells > 1<<20:
 		return fmt.Errorf("method.stage_a_cells %d out of range", r.stageACells)
 	case r.gamma < 0:

@@ -10,14 +10,16 @@ import (
 	"gapcert/fem/line"
 	"gapcert/fem/problem"
 	"gapcert/interval"
-	"gapcert/interval/formula"
 	"gapcert/temple"
 )
 
 // recipe is the input of one deterministic computation.
 type recipe struct {
-	cells, degree, fluxDegree, taylor, stageACells int
-	gamma                                          float64
+	cells, degree, fluxDegree int
+	taylor                    int // order of the Taylor models of V
+	weightTaylor              int // order of the Taylor models of 1/(V + γ)
+	stageACells               int
+	gamma                     float64
 }
 
 // outcome holds the verified one-sided bounds of Λ_k = λ_k + γ that one
@@ -36,6 +38,10 @@ type outcome struct {
 // so that N can be raised past a cluster that meets the last requested one.
 const extraIndices = 3
 
+// stageATaylor caps the Taylor order of the stage-A potential models, of
+// which only the cell ranges inf_T(V + γ) are used.
+const stageATaylor = 4
+
 // compute runs the three stages once. Every number it returns as a bound is
 // verified; the floating-point parts only choose vectors, shifts and fluxes.
 func compute(p *problem.Problem, r recipe) (*outcome, error) {
@@ -46,14 +52,14 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	gamma := interval.Point(r.gamma)
 	left, right := ends(p)
 
-	pot, err := line.NewPotential(p.Potential, r.taylor)
-	if err != nil {
-		return nil, err
-	}
 	out := &outcome{}
 
 	// Stage 1: Rayleigh–Ritz upper bounds.
 	mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.cells)
+	pot, err := line.FromExpr(mesh, p.Potential, r.taylor)
+	if err != nil {
+		return nil, err
+	}
 	space := line.NewLagrange(mesh, r.degree, left, right)
 	if space.N() < want+1 {
 		return nil, fmt.Errorf("certify: trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
@@ -77,7 +83,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 
 	// Stage A: projection lower bounds for Λ_1 … Λ_{want+1}.
-	out.stageA, out.ch, err = stageA(p, r, pot, gamma, left, right, want+1)
+	out.stageA, out.ch, err = stageA(p, r, gamma, left, right, want+1)
 	if err != nil {
 		return nil, err
 	}
@@ -94,7 +100,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 		out.notes = append(out.notes, "stage B skipped: no N with a stage-A lower bound of lambda_{N+1} above the Ritz upper bound of lambda_N; lower bounds are from stage A only")
 		return out, nil
 	}
-	weight, err := pot.Reciprocal(gamma)
+	weight, err := pot.InverseShifted(gamma, r.weightTaylor)
 	if err != nil {
 		return nil, err
 	}
@@ -119,8 +125,13 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 // bound of Liu (2015) on the mean-preserving P2 space (METHODS §5):
 // Λ_k ≥ λ_{h,k}/(1 + C_h² λ_{h,k}), where λ_{h,k} ≥ σ' is proved by the
 // verified inertia count #{λ_h < σ'} ≤ k − 1 (METHODS §7).
-func stageA(p *problem.Problem, r recipe, pot *line.Potential, gamma interval.I, left, right line.End, count int) ([]float64, interval.I, error) {
+func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, count int) ([]float64, interval.I, error) {
 	mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)
+	// Only the cell ranges of V matter here; a low-order model gives them.
+	pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
+	if err != nil {
+		return nil, interval.I{}, err
+	}
 	space := line.NewMeanP2(mesh, left, right)
 	k, m, mMin, err := space.Matrices(pot, gamma)
 	if err != nil {
@@ -176,5 +187,3 @@ func potentialRange(p *problem.Problem) (interval.I, error) {
 	dom := p.Interval[0].Val.Hull(p.Interval[1].Val)
 	return p.Potential.Eval(map[string]interval.I{"x": dom})
 }
-
-var _ = formula.Const

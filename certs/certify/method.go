@@ -5,11 +5,12 @@ package certify
 // repeats; the remaining fields are its outputs, recorded so that a reader
 // sees each stage's contribution and Check can compare them.
 type Method struct {
-	Kind        string `json:"kind"`         // "interval-1d"
-	Cells       int    `json:"cells"`        // uniform cells of the P_p mesh
-	Degree      int    `json:"degree"`       // p of the conforming trial space
-	FluxDegree  int    `json:"flux_degree"`  // q of the continuous flux space
-	TaylorOrder int    `json:"taylor_order"` // order of the Taylor models of V and 1/(V+γ)
+	Kind        string `json:"kind"`                // "interval-1d"
+	Cells       int    `json:"cells"`               // uniform cells of the P_p mesh
+	Degree      int    `json:"degree"`              // p of the conforming trial space
+	FluxDegree  int    `json:"flux_degree"`         // q of the continuous flux space
+	TaylorOrder int    `json:"taylor_order"`        // order of the Taylor models of V
+	WeightOrder int    `json:"weight_taylor_order"` // order of the Taylor models of 1/(V+γ)
 	StageACells int    `json:"stage_a_cells"`
 	Gamma       string `json:"gamma"` // the shift γ, an exact float64 in exact decimal
 
