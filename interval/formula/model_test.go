@@ -242,3 +242,51 @@ func TestModel2Subdivision(t *testing.T) {
 		t.Errorf("R = %v too wide", m.R)
 	}
 }
+
+func TestModelsNarrow(t *testing.T) {
+	// On an element of width 1/16 a model of order q is accurate to about
+	// h^{q+1}·|f^{(q+1)}|/(q+1)!/2^{q+1} plus rounding; the limits below
+	// leave a factor of about 100 over the values measured.
+	for _, tc := range []struct {
+		src  string
+		q    int
+		maxW float64
+	}{
+		{"exp(x)", 8, 1e-14},
+		{"sin(3*x)*log(2+x)", 8, 1e-10},
+		{"2*5*cos(2*x)", 12, 1e-12},
+		{"1/(1+x^2)", 16, 1e-13},
+	} {
+		m, err := MustParse(tc.src).Model1(pt(0.25), pt(0.3125), tc.q)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var w float64
+		for _, xi := range []float64{0, 0.3, 0.5, 1} {
+			w = math.Max(w, evalModel1(m, xi).Wid())
+		}
+		if w > tc.maxW {
+			t.Errorf("%s q=%d: model width %g > %g (R = %v)", tc.src, tc.q, w, tc.maxW, m.R)
+		}
+		t.Logf("%s q=%d: width %.3g", tc.src, tc.q, w)
+	}
+	tri := [3][2]I{{pt(0.25), pt(0.25)}, {pt(0.3125), pt(0.25)}, {pt(0.25), pt(0.3125)}}
+	for _, tc := range []struct {
+		src  string
+		q    int
+		maxW float64
+	}{
+		{"exp(-(x^2+y^2))", 6, 1e-9},
+		{"sin(x)*cos(y)", 8, 1e-13},
+	} {
+		m, err := MustParse(tc.src).Model2(tri, tc.q)
+		if err != nil {
+			t.Fatal(err)
+		}
+		w := math.Max(evalModel2(m, 1.0/3, 1.0/3).Wid(), evalModel2(m, 1, 0).Wid())
+		if w > tc.maxW {
+			t.Errorf("%s q=%d: model width %g > %g (R = %v)", tc.src, tc.q, w, tc.maxW, m.R)
+		}
+		t.Logf("%s q=%d: width %.3g", tc.src, tc.q, w)
+	}
+}

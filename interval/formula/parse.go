@@ -9,22 +9,6 @@ import (
 	"gapcert/interval/decimalio"
 )
 
-// Grammar (ASCII; spaces, tabs and newlines separate tokens):
-//
-//	expr   = term { ("+" | "-") term }
-//	term   = unary { ("*" | "/") unary }
-//	unary  = ("-" | "+") unary | power
-//	power  = atom [ "^" unary ]                 (right-associative)
-//	atom   = number | name | name "(" expr { "," expr } ")" | "(" expr ")"
-//	number = digits ["." [digits]] | "." digits, then [("e"|"E") [sign] digits]
-//	name   = [a-zA-Z_][a-zA-Z0-9_]*
-//
-// so -x^2 = −(x²) and 2^-1 = 1/2. Numbers are exact decimals (their exact
-// rational value is kept); pi and e are the constants. Functions: exp log
-// sin cos tan atan sinh cosh tanh sqrt abs (one argument), min max pow (two
-// arguments), and interval(lo, hi) with exact rational constant ends: the
-// constant standing for every value in [lo, hi].
-
 type tokKind uint8
 
 const (
@@ -141,8 +125,26 @@ func (p *parser) isOp(op string) bool {
 	return t.kind == tOp && t.text == op
 }
 
-// Parse parses src (see the grammar above). Errors are *SyntaxError with
-// the 1-based byte column of the problem.
+// Parse parses the formula src.
+//
+// The grammar (ASCII; spaces, tabs and newlines separate tokens) is
+//
+//	expr   = term { ("+" | "-") term }
+//	term   = unary { ("*" | "/") unary }
+//	unary  = ("-" | "+") unary | power
+//	power  = atom [ "^" unary ]                 (right-associative)
+//	atom   = number | name | name "(" expr { "," expr } ")" | "(" expr ")"
+//	number = digits ["." [digits]] | "." digits, then [("e"|"E") [sign] digits]
+//	name   = [a-zA-Z_][a-zA-Z0-9_]*
+//
+// so -x^2 = −(x²) and 2^-1 = 1/2. Numbers are exact decimals (their exact
+// rational value is kept); pi and e are the constants. Functions: exp log
+// sin cos tan atan sinh cosh tanh sqrt abs (one argument), min max pow (two
+// arguments), and interval(lo, hi) with exact rational constant ends: the
+// constant standing for every value in [lo, hi].
+//
+// Errors are *SyntaxError with the 1-based byte column of the problem and
+// a hint.
 func Parse(src string) (*Expr, error) {
 	p := &parser{src: src}
 	if err := p.lex(); err != nil {
@@ -175,8 +177,11 @@ func (p *parser) unexpected(t token) error {
 	switch {
 	case t.kind == tNum || t.kind == tName || t.kind == tOp && t.text == "(":
 		prev := p.toks[p.i-1]
-		return p.fail(t.pos, fmt.Sprintf("missing operator before %q", t.text),
-			fmt.Sprintf("write %s*%s for a product", prev.text, t.text))
+		hint := fmt.Sprintf("write %s*%s for a product", prev.text, t.text)
+		if prev.text == ")" || t.text == "(" {
+			hint = "write * between the factors"
+		}
+		return p.fail(t.pos, fmt.Sprintf("missing operator before %q", t.text), hint)
 	case t.kind == tOp && t.text == ")":
 		return p.fail(t.pos, "unmatched ')'", "remove it or add the matching '('")
 	}

@@ -121,8 +121,12 @@ func bpi() *big.Float {
 
 func bsincos(x *big.Float) (s, c *big.Float) {
 	twoPi := bmul(bf(2), bpi())
-	q, _ := bquo(x, twoPi).Float64()
-	r := bsub(x, bmul(twoPi, bf(math.Round(q))))
+	z := badd(bquo(x, twoPi), bf(0.5))
+	nInt, acc := z.Int(nil)
+	if z.Sign() < 0 && acc != big.Exact {
+		nInt.Sub(nInt, big.NewInt(1))
+	}
+	r := bsub(x, bmul(twoPi, bnew().SetInt(nInt))) // x − 2π·round(x/2π), |r| ≤ π
 	const k = 10
 	r.SetMantExp(r, -k)
 	s, c = bnew(), bnew()
@@ -149,6 +153,21 @@ func bsincos(x *big.Float) (s, c *big.Float) {
 		s, c = bmul(bf(2), bmul(s, c)), bsub(bmul(c, c), bmul(s, s))
 	}
 	return s, c
+}
+
+// refEvalOK is refEval that reports false where the reference arithmetic
+// itself breaks down (big.Float overflow to ∞ followed by ∞/∞ or ∞−∞).
+func refEvalOK(n *node, env map[string]*big.Float) (v *big.Float, ok bool) {
+	defer func() {
+		if r := recover(); r != nil {
+			if _, nan := r.(big.ErrNaN); !nan {
+				panic(r)
+			}
+			v, ok = nil, false
+		}
+	}()
+	v = refEval(n, env)
+	return v, !v.IsInf()
 }
 
 // refEval evaluates n at the point env (exact values) in big.Float.
@@ -217,17 +236,17 @@ func refEval(n *node, env map[string]*big.Float) *big.Float {
 		return bquo(s, c)
 	case fAtan:
 		return batan(a)
-	case fSinh, fCosh, fTanh:
+	case fTanh:
+		// tanh a = 1 − 2/(e^{2a} + 1), also for large |a|.
+		return bsub(bf(1), bquo(bf(2), badd(bexp(bmul(bf(2), a)), bf(1))))
+	case fSinh, fCosh:
 		ea := bexp(a)
 		ei := bquo(bf(1), ea)
 		sh, ch := bquo(bsub(ea, ei), bf(2)), bquo(badd(ea, ei), bf(2))
-		switch n.fn {
-		case fSinh:
+		if n.fn == fSinh {
 			return sh
-		case fCosh:
-			return ch
 		}
-		return bquo(sh, ch)
+		return ch
 	case fSqrt:
 		return bnew().Sqrt(a)
 	case fAbs:
