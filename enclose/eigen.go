@@ -60,12 +60,13 @@ func Eigenvalues(a, b *Sym) ([]interval.I, error) {
 	}
 	approx, x, ok := choosePencilEigen(a, b)
 	count := func(tau float64) (int, bool) { return CountBelow(a, b, tau) }
-	if ok {
+	if ok && allFinite(x) {
 		at, bt := congruence(a, x), congruence(b, x)
 		if PositiveDefinite(bt) {
 			count = func(tau float64) (int, bool) { return inertiaNeg(shifted(at, bt, tau)) }
 		}
-	} else {
+	}
+	if !ok || !allFinite(approx) {
 		approx = chooseDiagonalGuess(a, b)
 	}
 	scale := 0.0

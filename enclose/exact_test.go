@@ -14,6 +14,9 @@ import (
 // and one positive eigenvalue). Sylvester's law of inertia makes the count
 // that of every congruent form. ok is false if A − τB is singular.
 func exactNegCount(a, b []float64, n int, tau float64) (neg int, ok bool) {
+	if math.IsInf(tau, 0) {
+		return 0, false
+	}
 	c := make([][]*big.Rat, n)
 	t := new(big.Rat).SetFloat64(tau)
 	for i := range c {

@@ -1,6 +1,10 @@
 package enclose
 
-import "gapcert/interval"
+import (
+	"math"
+
+	"gapcert/interval"
+)
 
 // CountBelow returns the number of eigenvalues μ < tau of Ax = μBx, the
 // same n for every member (A, B) of the pencil ([A], [B]) with B symmetric
@@ -44,7 +48,7 @@ func CountBelow(a, b *Sym, tau float64) (n int, ok bool) {
 		return n, true
 	}
 	x, okx := chooseShiftedEigenvectors(a, b, tau)
-	if !okx {
+	if !okx || !allFinite(x) {
 		return 0, false
 	}
 	if !PositiveDefinite(congruence(identity(a.n), x)) {
@@ -146,11 +150,15 @@ func inertiaNeg(s *Sym) (neg int, ok bool) {
 		}
 		ord[p], ord[best] = ord[best], ord[p]
 		piv := *at(p, p)
-		if piv.ContainsZero() {
-			return 0, false
-		}
-		if piv.Negative() {
+		// Decide only strictly signed pivots (this also rejects NaN ends,
+		// which cannot arise from valid intervals but would otherwise be
+		// read as positive).
+		switch {
+		case piv.Lo > 0:
+		case piv.Hi < 0:
 			neg++
+		default:
+			return 0, false
 		}
 		for j := p + 1; j < n; j++ {
 			cjp := *at(j, p)
@@ -167,4 +175,14 @@ func inertiaNeg(s *Sym) (neg int, ok bool) {
 		}
 	}
 	return neg, true
+}
+
+// allFinite reports whether no entry of x is NaN or infinite.
+func allFinite(x []float64) bool {
+	for _, v := range x {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return false
+		}
+	}
+	return true
 }

@@ -72,10 +72,9 @@ func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok 
 	}
 	mag := make([]float64, len(c.Data))
 	rows := func(from, to int) {
+		ld := make([]interval.I, w)
 		for i := from; i < to; i++ {
-			for j := max(0, i-w); j <= i; j++ {
-				mag[i*(w+1)+i-j] = residualEntry(k, m, f, sigma, i, j).Mag()
-			}
+			residualRow(k, m, f, sigma, i, ld, mag[i*(w+1):(i+1)*(w+1)])
 		}
 	}
 	if workers := runtime.GOMAXPROCS(0); workers > 1 && len(mag) > parallelEntries {
@@ -109,18 +108,28 @@ func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok 
 	return f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
 }
 
-// residualEntry encloses R_ij = (K − σM)_ij − (LDLᵀ)_ij, j ≤ i, for every
-// member, with (LDLᵀ)_ij = Σ_{k=max(0,i−w)}^{j} L_ik D_k L_jk (L_jj = 1).
-func residualEntry(k, m *ISym, f *LDL, sigma float64, i, j int) interval.I {
-	r := k.At(i, j).Sub(m.At(i, j).MulF(sigma))
+// residualRow sets mag[i−j] ≥ |R_ij| for j = max(0, i−w) … i and every
+// member, where R_ij = (K − σM)_ij − (LDLᵀ)_ij and
+// (LDLᵀ)_ij = Σ_{q=max(0,i−w)}^{j} L_iq D_q L_jq (L_jj = 1). ld is a
+// workspace of length w; it receives enclosures of L_iq D_q.
+func residualRow(k, m *ISym, f *LDL, sigma float64, i int, ld []interval.I, mag []float64) {
 	w, d := f.W, f.Data
-	rowi, rowj := i*(w+1), j*(w+1)
-	for q := max(0, i-w); q < j; q++ {
-		r = r.Sub(interval.Point(d[rowi+i-q]).MulF(d[rowj+j-q]).MulF(d[q*(w+1)]))
+	lo := max(0, i-w)
+	rowi := i * (w + 1)
+	for q := lo; q < i; q++ {
+		ld[q-lo] = interval.Point(d[rowi+i-q]).MulF(d[q*(w+1)])
 	}
-	// q = j: L_ij D_j (L_jj = 1); for i = j this is D_i.
-	if i == j {
-		return r.Sub(interval.Point(d[rowj]))
+	for j := lo; j <= i; j++ {
+		r := k.At(i, j).Sub(m.At(i, j).MulF(sigma))
+		rowj := j * (w + 1)
+		for q := lo; q < j; q++ {
+			r = r.Sub(ld[q-lo].MulF(d[rowj+j-q]))
+		}
+		if i == j {
+			r = r.Sub(interval.Point(d[rowi])) // q = i: D_i
+		} else {
+			r = r.Sub(ld[j-lo]) // q = j: L_ij D_j L_jj
+		}
+		mag[i-j] = r.Mag()
 	}
-	return r.Sub(interval.Point(d[rowi+i-j]).MulF(d[rowj]))
 }
