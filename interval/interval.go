@@ -281,16 +281,31 @@ func (x I) Max(y I) I { return I{math.Max(x.Lo, y.Lo), math.Max(x.Hi, y.Hi)} }
 // PowInt returns an enclosure of {tⁿ : t ∈ x} for an integer n, with
 // x⁰ = [1, 1]. Even powers are enclosed by [Migⁿ, Magⁿ], odd powers
 // (increasing) by [Loⁿ, Hiⁿ], each end computed by repeated squaring with
-// directed products, so an end of |n| > 2 carries up to
-// bits.Len(|n|) + bits.OnesCount(|n|) − 2 directed roundings (n = 1, 2 are
-// tightest). For n < 0 the result is 1/x^|n| (one more rounding), Entire
-// when 0 ∈ x.
+// directed products; n = 1, 2 are tightest. As any product of n factors
+// with directed roundings, an end is within relative distance
+// (1 + 2⁻⁵²)^(n−1) − 1 of the exact extreme while the intermediates stay in
+// the normal range. For n < 0 the result is Entire when 0 ∈ x; otherwise
+// each end is 1/t^|n| with t the matching end of x (relative distance
+// (1 + 2⁻⁵²)^|n| − 1), and where t^|n| leaves [2⁻¹⁰⁰⁰, 2¹⁰⁰⁰] also
+// (1/t)^|n|, whose intermediates cannot overflow when the result is
+// representable; the tighter of the two is kept.
 func (x I) PowInt(n int) I {
 	if n == math.MinInt { // −n overflows; t^(2k) = (t^k)²
 		return x.PowInt(n / 2).Sqr()
 	}
 	if n < 0 {
-		return x.PowInt(-n).Recip()
+		if x.ContainsZero() {
+			return Entire()
+		}
+		m := -n
+		switch {
+		case m%2 == 0: // |t|^−m decreases in |t|
+			return I{invPowDown(x.Mag(), m), invPowUp(x.Mig(), m)}
+		case x.Lo > 0: // t^−m decreases on t > 0
+			return I{invPowDown(x.Hi, m), invPowUp(x.Lo, m)}
+		default: // t^−m = −|t|^−m decreases on t < 0
+			return I{-invPowUp(-x.Hi, m), -invPowDown(-x.Lo, m)}
+		}
 	}
 	if n == 0 {
 		return I{1, 1}
@@ -330,6 +345,31 @@ func powUp(t float64, n int) float64 {
 		if n > 0 {
 			b = MulUp(b, b)
 		}
+	}
+	return r
+}
+
+// invPowDown returns a float64 ≤ t⁻ⁿ for t > 0 (t = +∞ allowed), n ≥ 1:
+// the larger of 1/tⁿ and (1/t)ⁿ rounded down, the second only where tⁿ
+// leaves [2⁻¹⁰⁰⁰, 2¹⁰⁰⁰].
+func invPowDown(t float64, n int) float64 {
+	p := powUp(t, n) // > 0
+	r := DivDown(1, p)
+	if p >= 0x1p-1000 && p <= 0x1p1000 {
+		return r
+	}
+	return math.Max(r, powDown(DivDown(1, t), n))
+}
+
+// invPowUp returns a float64 ≥ t⁻ⁿ for t > 0 (t = +∞ allowed), n ≥ 1.
+func invPowUp(t float64, n int) float64 {
+	p := powDown(t, n) // ≥ 0; 0 if it underflowed
+	if p >= 0x1p-1000 && p <= 0x1p1000 {
+		return DivUp(1, p)
+	}
+	r := powUp(DivUp(1, t), n)
+	if p > 0 {
+		r = math.Min(r, DivUp(1, p))
 	}
 	return r
 }
