@@ -65,6 +65,13 @@ func evalNode(n *node, env map[string]interval.I) (interval.I, error) {
 			return interval.I{}, err
 		}
 	}
+	return apply(n, a, b)
+}
+
+// apply returns the enclosure of the operation of n (not a leaf) on the
+// operand enclosures a and b.
+func apply(n *node, a, b interval.I) (interval.I, error) {
+	var err error
 	switch n.kind {
 	case kNeg:
 		return a.Neg(), nil
@@ -139,16 +146,21 @@ const maxDepth = 8
 // RangeTriangle returns an enclosure of {f(x, y) : (x, y) ∈ T} for the
 // closed triangle T whose vertices are the exact points v[k] (each given
 // by an enclosure; the result holds for every choice of exact vertices in
-// them). It evaluates e over the bounding box of the vertex enclosures; if
-// that fails with a domain error it splits the triangle at its edge
-// midpoints into four and recurses (depth ≤ 8), returning the hull. The
-// four sub-triangles cover T, their vertices are enclosures of the exact
-// midpoints and each bounding box contains its exact sub-triangle, so the
-// hull encloses the range over T. Only sub-triangles are evaluated, so e
-// may be undefined outside T; it can still fail where e is undefined (or a
-// domain is not decided) right at T, e.g. log(x) on a triangle touching
-// x = 0: then the error is returned. Free variables other than x and y
-// must have been bound (else *UnboundError).
+// them). It evaluates e over T by affine forms in the triangle's own
+// coordinates, intersected node by node with the interval evaluation over
+// the bounding box (see affine.go), so domains are checked on enclosures
+// of the sub-expressions over T: sqrt(1-x-y) works on a triangle with an
+// edge on x + y = 1. If that fails with a domain error it splits the
+// triangle at its edge midpoints into four and recurses (depth ≤ 8),
+// returning the hull. The four sub-triangles cover T and their vertices
+// are enclosures of the exact midpoints, so the hull encloses the range
+// over T. Only T and its sub-triangles are evaluated, so e may be
+// undefined outside T; it still fails where e is undefined (or a domain is
+// not decided) right at T, e.g. log(x) on a triangle touching x = 0, or
+// where a nonlinear argument touches the domain's edge at T (sqrt(1-x^2-y^2)
+// on a triangle with a vertex on the unit circle): then the error is
+// returned. Free variables other than x and y must have been bound (else
+// *UnboundError).
 func (e *Expr) RangeTriangle(v [3][2]interval.I) (interval.I, error) {
 	return rangeTriangle(e.root, v, maxDepth)
 }
@@ -161,7 +173,7 @@ func bbox(v [3][2]interval.I) map[string]interval.I {
 }
 
 func rangeTriangle(n *node, v [3][2]interval.I, depth int) (interval.I, error) {
-	r, err := eval(n, bbox(v))
+	r, err := affineRange(n, v)
 	if err == nil || depth == 0 || !isDomain(err) {
 		return r, err
 	}

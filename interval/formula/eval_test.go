@@ -183,10 +183,25 @@ func TestRangeTriangle(t *testing.T) {
 	if err != nil {
 		t.Fatalf("RangeTriangle: %v", err)
 	}
-	if !(r.Lo <= -math.Ln2 && r.Hi >= math.Log(1.5)) || r.Lo < -1.39 || r.Hi > math.Log(1.5)+1e-9 {
+	if !(r.Lo <= -math.Ln2 && r.Hi >= math.Log(1.5)) || r.Lo < -math.Ln2-1e-12 || r.Hi > math.Log(1.5)+1e-9 {
 		t.Fatalf("RangeTriangle(log(x+y-1/2)) = %v, want ⊇ [log 0.5, log 1.5] and narrow", r)
 	}
 	v = [3][2]I{{pt(0), pt(0)}, {pt(1), pt(0)}, {pt(0), pt(1)}}
+	// sqrt(1 - x - y) is defined on this triangle but on no box around any
+	// part of its hypotenuse; its range is [0, 1] (it decreases in x + y).
+	e = MustParse("sqrt(1-x-y)")
+	if r, err = e.RangeTriangle(v); err != nil {
+		t.Fatalf("RangeTriangle(sqrt(1-x-y)): %v", err)
+	}
+	if !(r.Lo <= 0 && r.Hi >= 1) || r.Lo < 0 || r.Hi > 1+1e-15 {
+		t.Fatalf("RangeTriangle(sqrt(1-x-y)) = %v, want [0, 1]", r)
+	}
+	// Over the triangle itself, x - y on (0,0),(1,1),(1,1.01) has range
+	// [-0.01, 0], while its bounding box gives [-1.01, 1].
+	thin := [3][2]I{{pt(0), pt(0)}, {pt(1), pt(1)}, {pt(1), pt(1.01)}}
+	if r, err = MustParse("x-y").RangeTriangle(thin); err != nil || r.Lo < -0.0100001 || r.Hi > 1e-15 || !r.Contains(-0.01) {
+		t.Fatalf("RangeTriangle(x-y) on a thin triangle = %v, %v", r, err)
+	}
 	// log(x) on a triangle touching x = 0 cannot be enclosed.
 	if _, err := MustParse("log(x)").RangeTriangle(v); err == nil {
 		t.Fatal("log(x) on a triangle touching x = 0 should fail")

@@ -218,6 +218,9 @@ func refEval(n *node, env map[string]*big.Float) *big.Float {
 			}
 			return p
 		}
+		if a.Sign() == 0 && b.Sign() > 0 {
+			return bnew() // 0^b = 0 for b > 0
+		}
 		return bexp(bmul(b, blog(a)))
 	}
 	switch n.fn {

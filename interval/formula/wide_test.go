@@ -106,9 +106,12 @@ func TestRandomFormulas(t *testing.T) {
 		trees, boxes = 5000, 20
 	}
 	rng := rand.New(rand.NewPCG(15, 16))
-	var evals, models int
+	var evals, models, ranges int
 	for n := 0; n < trees; n++ {
 		e := randTree(rng, 4)
+		if os.Getenv("GAPCERT_DEBUG") != "" {
+			t.Log(e)
+		}
 		if again := MustParse(e.String()); again.String() != e.String() {
 			t.Fatalf("round trip %q → %q", e, again)
 		}
@@ -121,6 +124,17 @@ func TestRandomFormulas(t *testing.T) {
 					v, ok := refEvalOK(e.root, map[string]*big.Float{"x": bf(px), "y": bf(py)})
 					if ok && !refContains([2]float64{r.Lo, r.Hi}, v) {
 						t.Errorf("%s over %v×%v = %v misses f(%g,%g) = %s", e, x, y, r, px, py, v.Text('g', 20))
+					}
+				}
+			}
+			tri := randTriangle(rng, -3, 3, -3, 3)
+			if r, err := e.RangeTriangle(tri); err == nil {
+				ranges++
+				for s := 0; s < 3; s++ {
+					p := triPoint(rng, tri)
+					v, ok := refEvalOK(e.root, map[string]*big.Float{"x": p[0], "y": p[1]})
+					if ok && !refContains([2]float64{r.Lo, r.Hi}, v) {
+						t.Errorf("%s on %v = %v misses %s", e, tri, r, v.Text('g', 20))
 					}
 				}
 			}
@@ -138,8 +152,8 @@ func TestRandomFormulas(t *testing.T) {
 			}
 		}
 	}
-	t.Logf("%d trees: %d enclosures and %d Taylor models checked", trees, evals, models)
-	if evals < trees || models < trees/2 {
+	t.Logf("%d trees: %d box enclosures, %d triangle ranges and %d Taylor models checked", trees, evals, ranges, models)
+	if evals < trees || ranges < trees || models < trees/2 {
 		t.Errorf("too few successful evaluations (%d, %d)", evals, models)
 	}
 }
