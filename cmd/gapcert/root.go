@@ -13,9 +13,10 @@ const Version = "0.1.0-dev"
 
 // Exit codes of the gapcert command.
 const (
-	exitOK      = 0 // success
-	exitFailure = 1 // bad usage, unreadable file or any other failure
-	exitInvalid = 2 // the problem file is invalid
+	exitOK       = 0 // success
+	exitFailure  = 1 // bad usage, unreadable file or any other failure
+	exitInvalid  = 2 // the problem file is invalid
+	exitMismatch = 3 // a certificate does not verify
 )
 
 // exitError is an error that ends the process with a given code. Its
@@ -49,14 +50,15 @@ results are written as a JSON certificate that can be checked again.
 A problem is described by a JSON problem file; "gapcert validate FILE"
 reads one and shows how it was understood.
 
-Exit status: 0 on success, 1 on bad usage or an unreadable file, 2 if a
-problem file is invalid.`,
+Exit status: 0 on success, 1 on bad usage, an unreadable file or another
+failure, 2 if a problem file is invalid, 3 if a certificate does not
+verify.`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}
 	root.SetOut(stdout)
 	root.SetErr(stderr)
-	root.AddCommand(newValidateCmd(), newVersionCmd())
+	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd())
 	return root
 }
 

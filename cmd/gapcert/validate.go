@@ -33,28 +33,39 @@ and the exit status is 2.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			file := args[0]
-			p, err := problem.ReadFile(file)
+			p, err := loadProblem(file)
 			if err != nil {
-				var perr *problem.Error
-				if errors.As(err, &perr) {
-					var b strings.Builder
-					for i, is := range perr.Issues {
-						if i > 0 {
-							b.WriteByte('\n')
-						}
-						fmt.Fprintf(&b, "%s: %s", file, is)
-					}
-					return &exitError{code: exitInvalid, err: errors.New(b.String())}
-				}
-				if errors.Is(err, fs.ErrNotExist) {
-					return &exitError{code: exitFailure, err: fmt.Errorf("%s: no such file", file)}
-				}
-				return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
+				return err
 			}
 			describe(cmd.OutOrStdout(), file, p)
 			return nil
 		},
 	}
+}
+
+// loadProblem reads and validates the problem file. Its errors are
+// *exitError: exitInvalid with every defect as "FILE: path: message (hint:
+// …)", one per line, or exitFailure if the file cannot be read.
+func loadProblem(file string) (*problem.Problem, error) {
+	p, err := problem.ReadFile(file)
+	if err == nil {
+		return p, nil
+	}
+	var perr *problem.Error
+	if errors.As(err, &perr) {
+		var b strings.Builder
+		for i, is := range perr.Issues {
+			if i > 0 {
+				b.WriteByte('\n')
+			}
+			fmt.Fprintf(&b, "%s: %s", file, is)
+		}
+		return nil, &exitError{code: exitInvalid, err: errors.New(b.String())}
+	}
+	if errors.Is(err, fs.ErrNotExist) {
+		return nil, &exitError{code: exitFailure, err: fmt.Errorf("%s: no such file", file)}
+	}
+	return nil, &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
 }
 
 // enclosureDigits is the number of significant digits of printed ends.

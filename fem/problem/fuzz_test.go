@@ -37,3 +37,19 @@ func FuzzParse(f *testing.F) {
 		}
 	})
 }
+
+func BenchmarkParse(b *testing.B) {
+	for _, name := range []string{"square.json", "lshape.json", "equilateral.json"} {
+		data, err := os.ReadFile(filepath.Join(testdata, name))
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(name, func(b *testing.B) {
+			for b.Loop() {
+				if _, err := Parse(data); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

@@ -15,7 +15,6 @@ type node struct {
 	kind  nodeKind
 	str   string      // kindString
 	num   json.Number // kindNumber: the literal text, never converted to float
-	bool  bool        // kindBool
 	keys  []string    // kindObject, in file order
 	vals  []*node     // kindObject values (parallel to keys) or kindArray elements
 	index map[string]int
@@ -79,8 +78,8 @@ func readValue(dec *json.Decoder, path string, depth int, iss *issues) (*node, e
 	switch t := tok.(type) {
 	case nil:
 		return &node{kind: kindNull}, nil
-	case bool:
-		return &node{kind: kindBool, bool: t}, nil
+	case bool: // only its kind matters: no key takes a boolean
+		return &node{kind: kindBool}, nil
 	case json.Number:
 		return &node{kind: kindNumber, num: t}, nil
 	case string:
