@@ -59,6 +59,9 @@ func init() {
 // (Taylor's theorem with the Lagrange remainder), and the power of two
 // applied by directed multiplications.
 func Exp(x I) I {
+	if x.IsPoint() {
+		return expPoint(x.Lo)
+	}
 	return I{expPoint(x.Lo).Lo, expPoint(x.Hi).Hi}
 }
 
@@ -121,10 +124,15 @@ func scale2(p I, k int) I {
 //	|R| ≤ Σ_{k>12} |s|^{2k+1}/(2k+1) ≤ |s|^{27}/(27·(1 − s²))
 //
 // (the tail of the power series, bounded by a geometric series). e·ln 2 is
-// formed with the Cody–Waite splitting (e·ln2Hi exact).
+// formed with the Cody–Waite splitting (e·ln2Hi exact), and s is carried
+// as a float plus a small interval (see logParts) so that only the last
+// addition rounds at full size.
 func Log(x I) (I, error) {
 	if !(x.Lo > 0) {
 		return Entire(), &DomainError{"log", x}
+	}
+	if x.IsPoint() {
+		return logPoint(x.Lo), nil
 	}
 	return I{logPoint(x.Lo).Lo, logPoint(x.Hi).Hi}, nil
 }
@@ -134,26 +142,48 @@ func logPoint(t float64) I {
 	if math.IsInf(t, 1) {
 		return I{math.MaxFloat64, math.Inf(1)}
 	}
-	if t == 1 {
-		return I{0, 0}
-	}
+	h, l := logParts(t)
+	return l.AddF(h)
+}
+
+// logParts returns a float h and an interval l with ln t ∈ h + l for
+// finite t > 0; l is small (about 2⁻⁶⁰|ln t| wide), so h + l carries
+// about 110 bits.
+//
+// t = m·2^e, m ∈ [√½, √2), and s = (m − 1)/(m + 1) is formed as a pair
+// s = sh + σ: n = m − 1 is exact (Sterbenz's lemma, m/1 ∈ [½, 2]),
+// m + 1 = dh + dl exactly (TwoSum), sh = fl(n/dh), and n − sh·dh is
+// exact for a correctly rounded quotient (Muller et al., Handbook of
+// Floating-Point Arithmetic, 2018, §4.4), so σ = (n − sh·dh − sh·dl)/(dh + dl)
+// is enclosed in interval arithmetic. Then, by the mean value theorem,
+// atanh(sh + σ) = atanh(sh) + σ/(1 − ξ²) with 1 ≤ 1/(1 − ξ²) ≤ 1.031
+// (ξ² ≤ 0.0296), and atanh(sh) = sh + T with T enclosed by the series of
+// Log. Finally ln t = e·ln2Hi + 2sh + (e·ln2LoI + 2T + 2σ[1, 1.031]), the
+// first two terms joined by TwoSum.
+func logParts(t float64) (float64, I) {
 	m, e := math.Frexp(t)
 	if m < sqrtHlf {
 		m *= 2
 		e--
 	}
-	s := Point(m).Sub(Point(1)).Div(Point(m).Add(Point(1)))
-	sm := s.Mag()
+	n := m - 1
+	dh, dl := twoSum(m, 1)
+	sh := n / dh
+	r0 := math.FMA(-sh, dh, n)
+	sigma := Point(r0).Sub(Point(sh).Mul(Point(dl))).Div(Point(dh).Add(Point(dl)))
+	sm := math.Abs(sh) + sigma.Mag()
 	if !(sm < 0.172) {
 		panic("interval: internal error: log reduction out of range")
 	}
-	s2 := s.Sqr()
-	// 1/(27(1 − s²)) ≤ 1/(27·0.97) for s² ≤ 0.0296.
-	rem := MulUp(powUp(sm, 2*logTerms+3), DivUp(1, MulDown(float64(2*logTerms+3), 0.97)))
-	at := s.Add(s.Mul(s2.Mul(horner(logCoef[:], s2))).Add(sym(rem)))
-	lnm := at.MulF(2)
+	x := Point(sh)
+	s2 := x.Sqr()
+	// Tail of the atanh series: |s|^{27}/(27(1 − s²)) ≤ |s|^{27}/(27·0.97).
+	rem := MulUp(powUp(math.Abs(sh), 2*logTerms+3), DivUp(1, MulDown(float64(2*logTerms+3), 0.97)))
+	tail := x.Mul(s2.Mul(horner(logCoef[:], s2))).Add(sym(rem))
 	ef := float64(e)
-	return Point(float64(ef * ln2Hi)).Add(ln2LoI.MulF(ef).Add(lnm))
+	h, e1 := twoSum(float64(ef*ln2Hi), 2*sh)
+	l := Point(e1).Add(ln2LoI.MulF(ef)).Add(tail.MulF(2)).Add(sigma.Mul(I{1, 1.031}).MulF(2))
+	return h, l
 }
 
 // Sinh returns an enclosure of {sinh t : t ∈ x} (sinh increases).
@@ -166,6 +196,9 @@ func logPoint(t float64) I {
 // |t| > 2 as 2^{k−1}e^r − 2^{−k−1}e^{−r} with e^t = 2^k e^r from Exp's
 // reduction (the subtraction loses less than two bits there).
 func Sinh(x I) I {
+	if x.IsPoint() {
+		return sinhPoint(x.Lo)
+	}
 	return I{sinhPoint(x.Lo).Lo, sinhPoint(x.Hi).Hi}
 }
 
@@ -202,6 +235,9 @@ func sinhPoint(t float64) I {
 //
 // (Lagrange remainder), for |t| > 2 as 2^{k−1}e^r + 2^{−k−1}e^{−r}.
 func Cosh(x I) I {
+	if x.IsPoint() {
+		return coshPoint(math.Abs(x.Lo))
+	}
 	return I{coshPoint(x.Mig()).Lo, coshPoint(x.Mag()).Hi}
 }
 
@@ -226,6 +262,9 @@ func coshPoint(t float64) I {
 // consecutive terms is t²/(2k(2k+3)) ≤ 1/10, so the tail after k = 10 is at
 // most 2·22 t^{22}/23!. For |t| > 1: tanh |t| = 1 − 2/(e^{2|t|} + 1).
 func Tanh(x I) I {
+	if x.IsPoint() {
+		return tanhPoint(x.Lo)
+	}
 	return I{tanhPoint(x.Lo).Lo, tanhPoint(x.Hi).Hi}
 }
 
@@ -262,10 +301,15 @@ func tanhPoint(t float64) I {
 // Pow returns an enclosure of {s^t : s ∈ x, t ∈ y}.
 //
 // If y is a point integer n, the result is x.PowInt(n) for any x, and a
-// *DomainError if n < 0 and 0 ∈ x. Otherwise x^y = exp(y·ln x) is enclosed
-// by composing Log, Mul and Exp, which requires x.Lo > 0; x.Lo == 0 is
-// allowed when y.Lo > 0 (then 0^t = 0 is the infimum and the supremum is
-// attained at x.Hi). Every other x gives a *DomainError.
+// *DomainError if n < 0 and 0 ∈ x. Otherwise x^y = exp(y·ln x), which
+// requires x.Lo > 0; x.Lo == 0 is allowed when y.Lo > 0 (then 0^t = 0 is
+// the infimum). Every other x gives a *DomainError. On a box, y·ln x is a
+// product of two intervals and takes its extremes at corners, and exp
+// increases, so the range is the hull of the values at the four corners.
+// At a corner (s, t): ln s ∈ h + l (logParts), t·h = p + p' exactly
+// (FMA error-free product), and e^{p + p' + t·l} is enclosed by the
+// reduction of Exp applied to p with the small interval p' + t·l added to
+// the reduced argument.
 func Pow(x, y I) (I, error) {
 	if y.IsPoint() && y.Lo == math.Trunc(y.Lo) && !math.IsInf(y.Lo, 0) {
 		n := y.Lo
@@ -278,24 +322,50 @@ func Pow(x, y I) (I, error) {
 		// |n| ≥ 2⁶² is even: x^n = |x|^n.
 		x = x.Abs()
 		if x.Lo == 0 { // here n > 0
-			return powPositive(Point(x.Hi), y).HullPoint(0), nil
+			return powBox(I{x.Hi, x.Hi}, y).HullPoint(0), nil
 		}
-		return powPositive(x, y), nil
+		return powBox(x, y), nil
 	}
 	switch {
 	case x.Lo > 0:
-		return powPositive(x, y), nil
+		return powBox(x, y), nil
 	case x.Lo == 0 && y.Lo > 0:
 		if x.Hi == 0 {
 			return I{0, 0}, nil
 		}
-		return powPositive(Point(x.Hi), y).HullPoint(0), nil
+		return powBox(I{x.Hi, x.Hi}, y).HullPoint(0), nil
 	}
 	return Entire(), &DomainError{"pow", x}
 }
 
-// powPositive encloses exp(y·ln x) for x.Lo > 0.
-func powPositive(x, y I) I {
-	l := I{logPoint(x.Lo).Lo, logPoint(x.Hi).Hi}
-	return Exp(y.Mul(l))
+// powBox encloses {s^t : s ∈ x, t ∈ y} for x.Lo > 0.
+func powBox(x, y I) I {
+	if !x.IsBounded() || !y.IsBounded() {
+		l, _ := Log(x)
+		return Exp(y.Mul(l))
+	}
+	v := powPoint(x.Lo, y.Lo)
+	for _, c := range [3][2]float64{{x.Lo, y.Hi}, {x.Hi, y.Lo}, {x.Hi, y.Hi}} {
+		w := powPoint(c[0], c[1])
+		v = I{math.Min(v.Lo, w.Lo), math.Max(v.Hi, w.Hi)}
+	}
+	return v
+}
+
+// powPoint encloses s^t for finite s > 0 and finite t.
+func powPoint(s, t float64) I {
+	if t == 0 || s == 1 {
+		return I{1, 1}
+	}
+	h, l := logParts(s)
+	p := float64(t * h)
+	if !(math.Abs(p) <= 800 && math.Abs(p) >= 0x1p-900) {
+		// Overflow, underflow or a tiny exponent: the plain composition.
+		return Exp(Point(t).Mul(l.AddF(h)))
+	}
+	pe := math.FMA(t, h, -p) // t·h − p, exact as |p| ≥ 2⁻⁹⁰⁰
+	d := Point(pe).Add(l.MulF(t))
+	kf := math.Round(float64(p * invLn2))
+	r := Point(p).Sub(Point(float64(kf * ln2Hi))).Sub(ln2LoI.MulF(kf)).Add(d)
+	return scale2(expm1Series(r).AddF(1), int(kf))
 }

@@ -133,7 +133,7 @@ func elPointCases() []elPointCase {
 				c := []float64{math.Sqrt2, math.Sqrt2 / 2, 1, 2, 0.5}[r.IntN(5)]
 				return math.Ldexp(elStep(c, r.IntN(41)-20), r.IntN(41)-20)
 			}
-		}, 10000, 4},
+		}, 10000, 2},
 		{"sin", Sin, refSinF, elTrigGen, 10000, 5},
 		{"cos", Cos, refCosF, elTrigGen, 10000, 5},
 		{"tan", elMust(elTan), refTanF, elTrigGen, 10000, 7},

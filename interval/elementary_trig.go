@@ -311,6 +311,9 @@ func tanReduced(k int64, rh float64, rl I) (I, bool) {
 //
 // atan(j/4) are enclosed in math/big (see the constants).
 func Atan(x I) I {
+	if x.IsPoint() {
+		return atanPoint(x.Lo)
+	}
 	return I{atanPoint(x.Lo).Lo, atanPoint(x.Hi).Hi}
 }
 
