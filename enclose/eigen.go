@@ -16,7 +16,7 @@ const (
 	// per step, so 4⁶⁴ ≈ 3·10³⁸ times the starting distance).
 	widenSteps = 64
 	// bisectSteps bounds the tightening after the widening succeeded.
-	bisectSteps = 8
+	bisectSteps = 4
 )
 
 // Eigenvalues returns enclosures of the eigenvalues μ_1 ≤ … ≤ μ_n of
@@ -63,7 +63,8 @@ func Eigenvalues(a, b *Sym) ([]interval.I, error) {
 	if ok && allFinite(x) {
 		at, bt := congruence(a, x), congruence(b, x)
 		if PositiveDefinite(bt) {
-			count = func(tau float64) (int, bool) { return inertiaNeg(shifted(at, bt, tau)) }
+			var e elimination
+			count = func(tau float64) (int, bool) { return e.negShifted(at, bt, tau) }
 		}
 	}
 	if !ok || !allFinite(approx) {

@@ -117,39 +117,122 @@ func congruence(c *Sym, x []float64) *Sym {
 
 // inertiaNeg runs interval symmetric Gaussian elimination on a copy of s
 // and returns the number of negative pivots, or ok = false if some pivot
-// interval contains zero. At each step the pivot is the remaining diagonal
-// entry of largest mignitude (a choice; ties are broken by the lower index
-// so the result is deterministic).
-//
-// For every member S of s the exact elimination with the same symmetric
-// pivot order produces pivots inside the computed pivot intervals, so when
-// ok is true every member S has #neg(S) = neg (Sylvester's law of inertia,
-// see CountBelow).
+// interval is not strictly signed (see elimination.negCount).
 func inertiaNeg(s *Sym) (neg int, ok bool) {
-	n := s.n
-	w := make([]interval.I, len(s.data))
-	copy(w, s.data)
-	// ord[p] is the original index of the p-th row in elimination order.
-	ord := make([]int, n)
+	var e elimination
+	copy(e.reset(s.n), s.data)
+	return e.negCount()
+}
+
+// elimination is the workspace of interval symmetric Gaussian elimination:
+// the lower triangle of the working matrix (layout of Sym) and the pivot
+// order.
+type elimination struct {
+	n   int
+	w   []interval.I
+	ord []int
+}
+
+// reset sizes the workspace for n×n and returns the matrix storage to fill.
+func (e *elimination) reset(n int) []interval.I {
+	e.n = n
+	if cap(e.w) < n*(n+1)/2 {
+		e.w, e.ord = make([]interval.I, n*(n+1)/2), make([]int, n)
+	}
+	e.w, e.ord = e.w[:n*(n+1)/2], e.ord[:n]
+	return e.w
+}
+
+// negShifted encloses A − τB into the workspace and returns its verified
+// number of negative eigenvalues, the same for every member: by the
+// diagonal test negWeyl if that decides, else by elimination (see
+// CountBelow).
+func (e *elimination) negShifted(a, b *Sym, tau float64) (neg int, ok bool) {
+	w := e.reset(a.n)
+	for k := range w {
+		w[k] = a.data[k].Sub(b.data[k].MulF(tau))
+	}
+	if neg, ok = e.negWeyl(); ok {
+		return neg, true
+	}
+	return e.negCount()
+}
+
+// negWeyl tries to decide the inertia of every member of the workspace
+// matrix from its diagonal alone: with D = diag(d_i), d_i the midpoints of
+// the diagonal intervals (a choice), and r ≥ max_i Σ_j |C_ij − D_ij| for
+// every member C (outward rounded), ‖C − D‖₂ ≤ ‖C − D‖∞ ≤ r for symmetric
+// C − D, and Weyl's inequality |λ_k(C) − λ_k(D)| ≤ ‖C − D‖₂ puts λ_k(C)
+// within r of the k-th smallest d_i. So if every |d_i| > r, every member
+// has exactly #{d_i < 0} negative eigenvalues. O(n²); nearly diagonal
+// matrices (congruences by approximate eigenvectors) are decided here
+// unless the shift is close to an eigenvalue.
+//
+// References:
+//
+//	H. Weyl, Das asymptotische Verteilungsgesetz der Eigenwerte linearer
+//	partieller Differentialgleichungen, Math. Ann. 71 (1912) 441–479.
+func (e *elimination) negWeyl() (neg int, ok bool) {
+	n, w := e.n, e.w
+	r := 0.0
+	for i := 0; i < n; i++ {
+		s := 0.0
+		for j := 0; j < n; j++ {
+			if j == i {
+				v := w[i*(i+1)/2+i]
+				s = interval.AddUp(s, v.Sub(interval.Point(v.Mid())).Mag())
+				continue
+			}
+			ii, jj := max(i, j), min(i, j)
+			s = interval.AddUp(s, w[ii*(ii+1)/2+jj].Mag())
+		}
+		r = math.Max(r, s)
+	}
+	if math.IsNaN(r) || math.IsInf(r, 1) {
+		return 0, false
+	}
+	for i := 0; i < n; i++ {
+		d := w[i*(i+1)/2+i].Mid()
+		switch {
+		case d > r:
+		case d < -r:
+			neg++
+		default:
+			return 0, false
+		}
+	}
+	return neg, true
+}
+
+// negCount eliminates the workspace matrix in place. At each step the pivot
+// is the remaining diagonal entry of largest mignitude (a choice; ties go to
+// the lower position, so the result is deterministic).
+//
+// For every member S of the matrix the exact elimination with the same
+// symmetric pivot order produces pivots inside the computed pivot
+// intervals, so when ok is true every member S has #neg(S) = neg
+// (Sylvester's law of inertia, see CountBelow).
+func (e *elimination) negCount() (neg int, ok bool) {
+	n, w, ord := e.n, e.w, e.ord
 	for i := range ord {
 		ord[i] = i
 	}
-	at := func(p, q int) *interval.I {
+	idx := func(p, q int) int {
 		i, j := ord[p], ord[q]
 		if j > i {
 			i, j = j, i
 		}
-		return &w[i*(i+1)/2+j]
+		return i*(i+1)/2 + j
 	}
 	for p := 0; p < n; p++ {
 		best, bestMig := p, -1.0
 		for q := p; q < n; q++ {
-			if g := at(q, q).Mig(); g > bestMig {
+			if g := w[idx(q, q)].Mig(); g > bestMig {
 				best, bestMig = q, g
 			}
 		}
 		ord[p], ord[best] = ord[best], ord[p]
-		piv := *at(p, p)
+		piv := w[idx(p, p)]
 		// Decide only strictly signed pivots (this also rejects NaN ends,
 		// which cannot arise from valid intervals but would otherwise be
 		// read as positive).
@@ -161,17 +244,17 @@ func inertiaNeg(s *Sym) (neg int, ok bool) {
 			return 0, false
 		}
 		for j := p + 1; j < n; j++ {
-			cjp := *at(j, p)
+			cjp := w[idx(j, p)]
 			if cjp.Lo == 0 && cjp.Hi == 0 {
 				continue
 			}
 			l := cjp.Div(piv)
 			for k := p + 1; k < j; k++ {
-				e := at(j, k)
-				*e = e.Sub(l.Mul(*at(k, p)))
+				ik := idx(j, k)
+				w[ik] = w[ik].Sub(l.Mul(w[idx(k, p)]))
 			}
-			e := at(j, j)
-			*e = e.Sub(cjp.Sqr().Div(piv))
+			jj := idx(j, j)
+			w[jj] = w[jj].Sub(cjp.Sqr().Div(piv))
 		}
 	}
 	return neg, true
