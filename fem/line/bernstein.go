@@ -127,6 +127,17 @@ func applyI(dst []interval.I, g []interval.I, b []interval.I) {
 	}
 }
 
+// dotF returns an enclosure of Σ c_i b_i for exact floats c_i.
+func dotF(c []float64, b []interval.I) interval.I {
+	acc := interval.I{}
+	for i, ci := range c {
+		if ci != 0 {
+			acc = acc.Add(b[i].MulF(ci))
+		}
+	}
+	return acc
+}
+
 // dotI returns an enclosure of Σ a_i b_i.
 func dotI(a, b []interval.I) interval.I {
 	acc := interval.I{}
@@ -168,6 +179,9 @@ func weightedGram(dst []interval.I, p []interval.I, shift interval.I, n int) {
 func remainderBound(r, x, y float64) float64 {
 	if r == 0 {
 		return 0
+	}
+	if math.IsInf(r, 1) || math.IsNaN(r) {
+		return math.Inf(1)
 	}
 	return interval.MulUp(r, interval.MulUp(interval.SqrtUp(math.Max(x, 0)), interval.SqrtUp(math.Max(y, 0))))
 }

@@ -74,7 +74,8 @@ var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(ga
 //	a0_ij ⊇ a(ũ_i, ũ_j) + γ b(ũ_i, ũ_j),   a1_ij ⊇ b(ũ_i, ũ_j),
 //	a2_ij ⊇ ∫σ_iσ_j + ∫(ũ_i + σ_i')(ũ_j + σ_j')/c + Σ_(Robin ends, α>0) σ_i σ_j/α,
 //
-// c = V + γ, valid for every exact input inside the enclosures. The weight
+// c = V + γ, valid for every exact input inside the enclosures. ∫σ_iσ_j is
+// h·c_iᵀ M_loc c_j with the exact local mass matrix (as in RitzMatrices). The weight
 // w must be v.InverseShifted(gamma, ·) (else ErrWeightMismatch): its cell
 // models Q + R_w enclose 1/c, and the R_w part is bounded by
 // r_mid ∫fg ± r_rad ‖f‖‖g‖ as in RitzMatrices. On a cell of length h,
@@ -119,9 +120,11 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		h := s.mesh.H(c)
 		hinv := h.Recip()
 		for i := 0; i < nv; i++ {
-			s.cellBern(uw.u[i], uw.c, trial[i], c)
-			f.cellBern(sw.u[i], sw.c, flux[i], c)
-			applyI(sw.gu[i], sw.gramP, sw.u[i])
+			s.localCoef(uw.cf[i], trial[i], c)
+			applyF(uw.u[i], s.basis.iv, uw.cf[i])
+			f.localCoef(sw.cf[i], flux[i], c)
+			applyF(sw.u[i], f.basis.iv, sw.cf[i])
+			applyF(sw.gu[i], sw.mloc, sw.cf[i])
 			bernDeriv(sw.d[i], sw.u[i])
 			bernElevate(fi[i], uw.u[i])
 			bernElevate(tmp, sw.d[i])
@@ -139,7 +142,7 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				t := dotI(sw.u[j], sw.gu[i]).Add(dotI(fi[j], wfi[i]))
+				t := dotF(sw.cf[j], sw.gu[i]).Add(dotI(fi[j], wfi[i]))
 				t = h.Mul(t)
 				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
 					r = interval.MulUp(r, h.Hi)

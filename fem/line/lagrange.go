@@ -150,9 +150,13 @@ func (s *Lagrange) checkVecs(vecs [][]float64) {
 // for the functions u_i = Σ_l vecs[i][l] φ_l of the space (the vecs are
 // exact float coefficients), for every γ ∈ gamma. The integrals are exact
 // cell by cell: on cell k (exact length h ∈ H(k)), with ũ_i(ξ) = u_i(x_k + ξh)
-// in Bernstein form (coefficients enclosed from the exact rational basis),
+// and c_i its local hierarchical coefficients,
 //
-//	∫u_i'u_j' = (1/h)∫_0^1 ũ_i'ũ_j',   ∫u_i u_j = h∫_0^1 ũ_i ũ_j,
+//	∫u_i'u_j' = (1/h) c_iᵀ K_loc c_j,   ∫u_i u_j = h c_iᵀ M_loc c_j
+//
+// with the exact local matrices of hierarchicalGramTables (enclosed), and,
+// with ũ_i in Bernstein form (coefficients enclosed from the exact basis),
+//
 //	∫(V+γ)u_i u_j = h∫_0^1 (P + γ + r_mid) ũ_i ũ_j + h∫_0^1 (R − r_mid) ũ_i ũ_j,
 //
 // where V(x_k + ξh) − P(ξ) ∈ R = [r_mid ± r_rad]; the last integral lies in
@@ -174,8 +178,8 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				mass := dotI(w.u[j], w.gu[i])
-				st := dotI(w.d[j], w.gd[i])
+				mass := dotF(w.cf[j], w.gu[i])
+				st := dotF(w.cf[j], w.gd[i])
 				pot := dotI(w.u[j], w.wu[i])
 				b.add(i, j, h.Mul(mass))
 				t := hinv.Mul(st).Add(h.Mul(pot))
@@ -228,24 +232,24 @@ func (a *accum) sym() *enclose.Sym {
 	return s
 }
 
-// cellWork holds, for one cell, the Bernstein data of nv functions of a
-// degree-p space: coefficients u, derivative coefficients d, their images
-// under the Gram matrices (gu, gd) and the weighted Gram matrix (wu), and
-// ∫ũ_i² (mii).
+// cellWork holds, for one cell, the data of nv functions of a degree-p
+// space: local hierarchical coefficients cf (exact floats), Bernstein
+// coefficients u, derivative coefficients d (filled by callers that need
+// them), gu = M_loc·cf and gd = K_loc·cf with the exact local mass and
+// stiffness matrices, wu = (weighted Gram)·u, and mii ⊇ ∫ũ_i².
 type cellWork struct {
-	p           int
-	c           []float64
-	u, d        [][]interval.I
-	gu, gd, wu  [][]interval.I
-	mii         []interval.I
-	wg          []interval.I
-	gramP       []interval.I
-	gramPminus1 []interval.I
+	p          int
+	cf         [][]float64
+	u, d       [][]interval.I
+	gu, gd, wu [][]interval.I
+	mii        []interval.I
+	wg         []interval.I
+	kloc, mloc []interval.I
 }
 
 func newCellWork(p, nv int) *cellWork {
-	w := &cellWork{p: p, c: make([]float64, p+1), mii: make([]interval.I, nv), wg: make([]interval.I, (p+1)*(p+1)),
-		gramP: tripleTable(0, p, p).iv, gramPminus1: tripleTable(0, p-1, p-1).iv}
+	k, m := hierarchicalGramTables(p)
+	w := &cellWork{p: p, mii: make([]interval.I, nv), wg: make([]interval.I, (p+1)*(p+1)), kloc: k.iv, mloc: m.iv}
 	mk := func(n int) [][]interval.I {
 		out := make([][]interval.I, nv)
 		for i := range out {
@@ -253,19 +257,23 @@ func newCellWork(p, nv int) *cellWork {
 		}
 		return out
 	}
-	w.u, w.gu, w.wu = mk(p+1), mk(p+1), mk(p+1)
-	w.d, w.gd = mk(p), mk(p)
+	w.cf = make([][]float64, nv)
+	for i := range w.cf {
+		w.cf[i] = make([]float64, p+1)
+	}
+	w.u, w.gu, w.wu, w.gd = mk(p+1), mk(p+1), mk(p+1), mk(p+1)
+	w.d = mk(p)
 	return w
 }
 
-// load computes u, d, gu, gd and mii of the vecs on cell k of s.
+// load computes cf, u, gu, gd and mii of the vecs on cell k of s.
 func (w *cellWork) load(s *space, vecs [][]float64, k int) {
 	for i, x := range vecs {
-		s.cellBern(w.u[i], w.c, x, k)
-		bernDeriv(w.d[i], w.u[i])
-		applyI(w.gu[i], w.gramP, w.u[i])
-		applyI(w.gd[i], w.gramPminus1, w.d[i])
-		w.mii[i] = dotI(w.u[i], w.gu[i])
+		s.localCoef(w.cf[i], x, k)
+		applyF(w.u[i], s.basis.iv, w.cf[i])
+		applyF(w.gu[i], w.mloc, w.cf[i])
+		applyF(w.gd[i], w.kloc, w.cf[i])
+		w.mii[i] = dotF(w.cf[i], w.gu[i])
 	}
 }
 

@@ -238,8 +238,8 @@ func TestRitzMatricesExact(t *testing.T) {
 		for i := range vecs {
 			for j := range vecs {
 				name := fmt.Sprintf("p=%d (%d,%d)", tc.p, i, j)
-				checkEncloses(t, name+" a0", a0.At(i, j), ea[i][j], 1e-11, 1)
-				checkEncloses(t, name+" a1", a1.At(i, j), eb[i][j], 1e-11, 1)
+				checkEncloses(t, name+" a0", a0.At(i, j), ea[i][j], 1e-13, 1)
+				checkEncloses(t, name+" a1", a1.At(i, j), eb[i][j], 1e-13, 1)
 			}
 		}
 	}
@@ -329,5 +329,32 @@ func TestEvalInterpolate(t *testing.T) {
 	}
 	if s.Eval(u, 1) != 0 {
 		t.Errorf("Dirichlet end value %g", s.Eval(u, 1))
+	}
+}
+
+func TestHierarchicalStiffnessStructure(t *testing.T) {
+	// ψ_j' = P̃_(j−1) and Legendre orthogonality ∫_(−1)^1 P_m P_n = 2δ_mn/(2n+1)
+	// (Abramowitz–Stegun 22.2.10) give ∫_0^1 ψ_i'ψ_j' = δ_ij/(2j−1), and
+	// bubbles are decoupled from the vertex functions (whose derivatives are
+	// ∓1): K_loc = [1 0 … −1; 0 D 0; −1 0 … 1] with D = diag(1/(2j−1)).
+	for _, p := range []int{1, 2, 5, 12} {
+		k, _ := hierarchicalGramTables(p)
+		p1 := p + 1
+		for a := 0; a < p1; a++ {
+			for b := 0; b < p1; b++ {
+				want := new(big.Rat)
+				switch {
+				case (a == 0 || a == p) && (b == 0 || b == p):
+					if a == b {
+						want.SetInt64(1)
+					} else {
+						want.SetInt64(-1)
+					}
+				case a == b:
+					want.SetFrac64(1, int64(2*(a+1)-1))
+				}
+				checkEncloses(t, fmt.Sprintf("p=%d K_loc(%d,%d)", p, a, b), k.iv[a*p1+b], want, 1e-15, 1)
+			}
+		}
 	}
 }

@@ -30,6 +30,12 @@ func (e End) robinPositive() bool { return !e.Dirichlet && e.Alpha.Lo > 0 }
 // shift = 1 if the left vertex is removed), so the right vertex of cell k
 // is the left vertex of cell k+1 and the half-bandwidth is p.
 //
+// The bubbles are integrated Legendre polynomials: their derivatives are
+// the shifted Legendre polynomials, L²-orthogonal to each other and to
+// constants, so on a cell the stiffness matrix is diagonal in the bubbles
+// and decoupled from the vertex functions; this keeps the conditioning
+// mild at high p (unlike nodal or monomial bases).
+//
 // Conformity: on each cell a function of the space is a polynomial; its
 // value at a node is the coefficient of that node's vertex function, which
 // both adjacent cells share, because all bubbles vanish at both ends of
@@ -81,14 +87,6 @@ func (s *space) localCoef(c []float64, vec []float64, k int) {
 			c[l] = 0
 		}
 	}
-}
-
-// cellBern sets dst (length p+1) to enclosures of the Bernstein
-// coefficients on cell k of the function with global coefficients vec
-// (exact floats). c is workspace of length p+1.
-func (s *space) cellBern(dst []interval.I, c []float64, vec []float64, k int) {
-	s.localCoef(c, vec, k)
-	applyF(dst, s.basis.iv, c)
 }
 
 // endValue returns the value of vec at the left (k = 0) or right end: the

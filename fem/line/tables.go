@@ -206,3 +206,65 @@ func hierarchicalRat(p int) []*big.Rat {
 func hierarchicalTable(p int) *table {
 	return cached(tableKey{'h', p, 0, 0}, func() []*big.Rat { return hierarchicalRat(p) })
 }
+
+// hierarchicalGramTables returns the exact local stiffness and mass
+// matrices of the hierarchical basis on [0, 1]:
+//
+//	K[a*(p+1)+b] = ∫_0^1 φ_a' φ_b',   M[a*(p+1)+b] = ∫_0^1 φ_a φ_b,
+//
+// from the Bernstein coefficients (hierarchicalRat), the derivative rule
+// and the Gram identity ∫B^n_i B^n_j = C(n,i)C(n,j)/(C(2n,i+j)(2n+1)).
+// Working with these exact matrices keeps the enclosures of ∫u'v' and
+// ∫uv free of the cancellation of high-degree Bernstein sums (the bubble
+// block of K is diagonal: 1/(2j−1) for ψ_j).
+func hierarchicalGramTables(p int) (k, m *table) {
+	build := func(stiff bool) []*big.Rat {
+		t := hierarchicalRat(p)
+		p1 := p + 1
+		n := p
+		coef := t
+		if stiff {
+			n = p - 1
+			coef = make([]*big.Rat, p*p1)
+			for i := 0; i < p; i++ {
+				for l := 0; l < p1; l++ {
+					d := new(big.Rat).Sub(t[(i+1)*p1+l], t[i*p1+l])
+					coef[i*p1+l] = d.Mul(d, big.NewRat(int64(p), 1))
+				}
+			}
+		}
+		n1 := n + 1
+		gram := make([]*big.Rat, n1*n1)
+		for i := 0; i < n1; i++ {
+			for j := 0; j < n1; j++ {
+				num := new(big.Int).Mul(binom(n, i), binom(n, j))
+				den := new(big.Int).Mul(binom(2*n, i+j), big.NewInt(int64(2*n+1)))
+				gram[i*n1+j] = new(big.Rat).SetFrac(num, den)
+			}
+		}
+		out := make([]*big.Rat, p1*p1)
+		gc := make([]*big.Rat, n1*p1)
+		for i := 0; i < n1; i++ {
+			for l := 0; l < p1; l++ {
+				acc := new(big.Rat)
+				for j := 0; j < n1; j++ {
+					acc.Add(acc, new(big.Rat).Mul(gram[i*n1+j], coef[j*p1+l]))
+				}
+				gc[i*p1+l] = acc
+			}
+		}
+		for a := 0; a < p1; a++ {
+			for b := 0; b < p1; b++ {
+				acc := new(big.Rat)
+				for i := 0; i < n1; i++ {
+					acc.Add(acc, new(big.Rat).Mul(coef[i*p1+a], gc[i*p1+b]))
+				}
+				out[a*p1+b] = acc
+			}
+		}
+		return out
+	}
+	k = cached(tableKey{'K', p, 0, 0}, func() []*big.Rat { return build(true) })
+	m = cached(tableKey{'M', p, 0, 0}, func() []*big.Rat { return build(false) })
+	return k, m
+}
