@@ -56,6 +56,7 @@ verify.`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}
+	root.CompletionOptions.DisableDefaultCmd = true
 	root.SetOut(stdout)
 	root.SetErr(stderr)
 	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd())

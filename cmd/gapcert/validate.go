@@ -82,13 +82,18 @@ func formatEnclosure(x interval.I) string {
 	return "[" + decimalio.FormatLower(x.Lo, enclosureDigits) + ", " + decimalio.FormatUpper(x.Hi, enclosureDigits) + "]"
 }
 
-// formatNumber prints an exact number's text and, if it is not a float,
-// its enclosure.
+// formatNumber prints an exact number's text followed by its value: "= v"
+// when the enclosure is a point, "∈ [lo, hi]" otherwise, nothing when the
+// text is the value.
 func formatNumber(n problem.Number) string {
-	if n.Val.IsPoint() && n.Text == decimalio.FormatExact(n.Val.Lo) {
+	v := formatEnclosure(n.Val)
+	switch {
+	case v == n.Text:
 		return n.Text
+	case n.Val.IsPoint() && !strings.HasPrefix(v, "["):
+		return n.Text + " = " + v
 	}
-	return n.Text + " ∈ " + formatEnclosure(n.Val)
+	return n.Text + " ∈ " + v
 }
 
 func formatBC(bc problem.BC) string {

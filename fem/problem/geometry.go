@@ -132,7 +132,7 @@ func segmentsIntersect(p1, p2, p3, p4 [2]Number) (meet, ok bool) {
 	return false, !undecided
 }
 
-const exactHint = "give exact coordinates (decimals or rationals) so that it can be decided"
+const exactHint = "decimal or rational coordinates decide every such test exactly"
 
 // polygon checks the vertices of p as written (at least three, no repeated
 // or collinear consecutive vertices, simple), normalises the orientation to
