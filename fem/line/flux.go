@@ -65,8 +65,9 @@ func (f *Flux) Interpolate(g, dg func(x float64) float64) []float64 {
 }
 
 // ErrWeightMismatch is returned by LGMatrices when w was not made by
-// v.InverseShifted(gamma): only then is w known to enclose 1/(V + γ).
-var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(gamma) for the same v and gamma")
+// v.InverseShifted(gamma, ·) or v.InverseShiftedExpr(gamma, ·): only then
+// is w known to enclose 1/(V + γ).
+var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(gamma) or v.InverseShiftedExpr(gamma) for the same v and gamma")
 
 // LGMatrices returns interval matrices, for the trial functions ũ_i (the
 // coefficient vectors trial[i] in s) and fluxes σ_i (flux[i] in f):
@@ -76,7 +77,8 @@ var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(ga
 //
 // c = V + γ, valid for every exact input inside the enclosures. ∫σ_iσ_j is
 // h·c_iᵀ M_loc c_j with the exact local mass matrix (as in RitzMatrices). The weight
-// w must be v.InverseShifted(gamma, ·) (else ErrWeightMismatch): its cell
+// w must be v.InverseShifted(gamma, ·) or v.InverseShiftedExpr(gamma, ·)
+// (else ErrWeightMismatch): its cell
 // models Q + R_w enclose 1/c, and the R_w part is bounded by
 // r_mid ∫fg ± r_rad ‖f‖‖g‖ as in RitzMatrices. On a cell of length h,
 // (ũ + σ')(x_k + ξh) = ũ(ξ) + σ̃'(ξ)/h is formed in Bernstein form of degree

@@ -53,6 +53,26 @@ func TestMathieuFromExpr(t *testing.T) {
 		t.Errorf("b_1(1) = %.11f, enclosure [%.13f, %.13f]", b1, low, upper)
 	}
 	_ = b2
+	// The formula route to 1/(V + γ) gives a valid (here also tight) weight.
+	we, err := v.InverseShiftedExpr(gamma, 14)
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, a1e, a2e, err := LGMatrices(s, [][]float64{u}, f, [][]float64{sigma}, v, we, gamma)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := a2e.At(0, 0).Mid() - a2.At(0, 0).Mid(); math.Abs(d) > 1e-12 || a1e.At(0, 0) != a1.At(0, 0) {
+		t.Errorf("A2 by the two weight models: %v vs %v", a2e.At(0, 0), a2.At(0, 0))
+	}
+	for _, k := range []int{0, 5} {
+		_, r1 := w.Model(k)
+		_, r2 := we.Model(k)
+		t.Logf("cell %d: remainder width %.2e (Chebyshev choice), %.2e (formula Taylor model)", k, r1.Wid(), r2.Wid())
+	}
+	if _, err := PolynomialPotential(m, nil).InverseShiftedExpr(gamma, 3); err == nil {
+		t.Error("InverseShiftedExpr accepted a Potential without an expression")
+	}
 	t.Logf("b_1(1) ∈ [%.13f, %.13f], width %.2e", low, upper, upper-low)
 }
 

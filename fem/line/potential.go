@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"gapcert/interval"
+	"gapcert/interval/formula"
 )
 
 // ModelFunc returns a Taylor model of a function f on the cell [a, b]:
@@ -39,6 +40,10 @@ type Potential struct {
 	// inverts (LGMatrices checks them).
 	inverseOf *Potential
 	shift     interval.I
+
+	// For a Potential made by FromExpr: the expression and Taylor order.
+	expr  *formula.Expr
+	order int
 }
 
 // NewPotential builds the cell models of f of the given Taylor order on m.
