@@ -11,7 +11,7 @@ import (
 
 // The reference for every check in this file is exact rational arithmetic
 // with math/big.Rat (extended by ±∞ with the limit conventions of interval
-// arithmetic, IEEE 1788-2015 §10.5), independent of the code under test.
+// arithmetic, IEEE 1788-2015), independent of the code under test.
 
 // scaled returns n, or 20n when GAPCERT_LONG=1 asks for the long campaign.
 func scaled(n int) int {
@@ -552,7 +552,7 @@ func TestSqrtDirectedExact(t *testing.T) {
 // TestDirectedSpecialValues pins the conventions for zeros, infinities,
 // overflow and underflow. Expected values follow from the definitions
 // (largest float64 ≤ / smallest ≥ the exact value; 0·∞ = 0 and t/∞ = 0 as
-// in IEEE 1788-2015 §10.5) and the float64 format (IEEE 754-2019 binary64).
+// in IEEE 1788-2015) and the float64 format (IEEE 754-2019 binary64).
 func TestDirectedSpecialValues(t *testing.T) {
 	inf, max, den := math.Inf(1), math.MaxFloat64, math.SmallestNonzeroFloat64
 	negZero := math.Copysign(0, -1)
@@ -782,7 +782,7 @@ func cornerHull(x, y I, f func(a, b ext) ext) (lo, hi ext, ok bool) {
 // TestIntervalOpsExact checks Add, Sub, Mul and Div of random intervals of
 // every sign pattern (zero, signed-zero and infinite ends included): each end
 // is the tightest directed rounding of the exact extreme over the corners
-// (the exact range of these operations, IEEE 1788-2015 §10.5, with 0·∞ = 0
+// (the exact range of these operations, IEEE 1788-2015, with 0·∞ = 0
 // and ∞/∞ corners contributing nothing beyond the others), and exact
 // results for sampled members are contained.
 func TestIntervalOpsExact(t *testing.T) {
@@ -1048,7 +1048,7 @@ func TestPowIntIdentities(t *testing.T) {
 }
 
 // TestIntervalSpecialCases pins interval results with infinite and zero
-// ends (IEEE 1788-2015 §10.5 ranges) and the Mid/Rad conventions.
+// ends (IEEE 1788-2015 ranges) and the Mid/Rad conventions.
 func TestIntervalSpecialCases(t *testing.T) {
 	inf, max := math.Inf(1), math.MaxFloat64
 	tests := []struct {

@@ -180,7 +180,7 @@ func mustFinite(t float64) {
 
 // Mul returns the tightest enclosure of {s·t : s ∈ x, t ∈ y}. Infinite ends
 // stand for unbounded sets of reals, so a zero factor against an infinite
-// end contributes 0 (0·∞ = 0, IEEE 1788 §10.5.2). Each end is the directed
+// end contributes 0 (0·∞ = 0, IEEE 1788-2015). Each end is the directed
 // rounding of the extreme exact product, which is attained at a pair of ends
 // chosen by the signs of x and y.
 func (x I) Mul(y I) I {

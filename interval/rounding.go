@@ -101,7 +101,7 @@ func addSpecial(s, a, b float64, mode big.RoundingMode) float64 {
 
 // MulDown returns the largest float64 ≤ a·b. A zero factor gives 0 even
 // against an infinite one (the convention 0·∞ = 0 of interval
-// multiplication, IEEE 1788 §10.5.2, since the interval ends stand for
+// multiplication, IEEE 1788-2015, since the interval ends stand for
 // limits of finite reals); otherwise ±∞ factors give ±∞. An overflowed finite
 // product gives MaxFloat64 or −∞. It panics if a or b is NaN.
 //
