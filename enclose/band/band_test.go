@@ -3,6 +3,7 @@ package band
 import (
 	"fmt"
 	"math"
+	"math/big"
 	"math/rand/v2"
 	"runtime"
 	"sort"
@@ -397,5 +398,37 @@ func TestCountBelowIndependentOfProcs(t *testing.T) {
 	runtime.GOMAXPROCS(prev)
 	if n1 != n2 || s1 != s2 || ok1 != ok2 || !ok1 {
 		t.Errorf("GOMAXPROCS 1: (%d, %g, %v); several: (%d, %g, %v)", n1, s1, ok1, n2, s2, ok2)
+	}
+}
+
+func TestGershgorinLower(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		m    *ISym
+		want float64
+	}{
+		// tridiag(1, 4, 1): interior rows give 4 − 2 = 2 (closed form
+		// λ_min = 6 − t_n > 2, see above); n = 1 gives 4.
+		{"tridiag(1,4,1) n=1", toISym(massT(1)), 4},
+		{"tridiag(1,4,1) n=50", toISym(massT(50)), 2},
+		// T² rows (5, −4, 1), (−4, 6, −4, 1), (1, −4, 6, −4, 1): 6 − 10 = −4.
+		{"T² n=9", toISym(powT(9, 2)), -4},
+	} {
+		if got := GershgorinLower(tc.m); got != tc.want {
+			t.Errorf("%s: %g, want %g", tc.name, got, tc.want)
+		}
+	}
+	// Thick entries: 4 ± 1e-3 and 1 ± 1e-3 give at most 4 − 1e-3 − 2(1 + 1e-3).
+	m := toISym(massT(10))
+	for i := range m.Data {
+		m.Data[i] = interval.I{Lo: m.Data[i].Lo - 1e-3, Hi: m.Data[i].Hi + 1e-3}
+	}
+	// Exact value from the stored ends (math/big): inf M_ii − 2 sup M_i,i−1.
+	exact := new(big.Rat).SetFloat64(m.At(5, 5).Lo)
+	exact.Sub(exact, new(big.Rat).Mul(big.NewRat(2, 1), new(big.Rat).SetFloat64(m.At(5, 4).Hi)))
+	got := GershgorinLower(m)
+	diff := new(big.Rat).Sub(exact, new(big.Rat).SetFloat64(got))
+	if d, _ := diff.Float64(); !(d >= 0 && d < 1e-15) {
+		t.Errorf("thick tridiag: %g, exact %s (difference %g)", got, exact.FloatString(20), d)
 	}
 }
