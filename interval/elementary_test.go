@@ -134,9 +134,9 @@ func elPointCases() []elPointCase {
 				return math.Ldexp(elStep(c, r.IntN(41)-20), r.IntN(41)-20)
 			}
 		}, 10000, 2},
-		{"sin", Sin, refSinF, elTrigGen, 10000, 5},
-		{"cos", Cos, refCosF, elTrigGen, 10000, 5},
-		{"tan", elMust(elTan), refTanF, elTrigGen, 10000, 7},
+		{"sin", Sin, refSinF, elTrigGen, 10000, 2},
+		{"cos", Cos, refCosF, elTrigGen, 10000, 2},
+		{"tan", elMust(elTan), refTanF, elTrigGen, 10000, 5},
 		{"atan", Atan, func(x float64) *big.Float { return refAtan(x) }, func(r *rand.Rand, i int) float64 {
 			switch i % 4 {
 			case 0, 1:
@@ -276,9 +276,9 @@ func TestSpecialPoints(t *testing.T) {
 		}{{"sin", Sin, refSinF}, {"cos", Cos, refCosF}, {"tan", elMust(elTan), refTanF}} {
 			v := f.f(Point(x))
 			ref := f.ref(x)
-			limit := int64(4)
+			limit := int64(2)
 			if f.name == "tan" {
-				limit = 6
+				limit = 5
 			}
 			if !elContains(v, ref) || (elMeasurable(ref) && elUlps(v) > limit) {
 				t.Errorf("%s(%v) = %v (%d elUlps), reference %s", f.name, x, v, elUlps(v), ref.Text('g', 20))

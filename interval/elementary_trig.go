@@ -22,7 +22,6 @@ const (
 var (
 	sinCoef [trigTerms]I // (−1)^{k+1}/(2k+3)!
 	cosCoef [trigTerms]I // (−1)^{k+1}/(2k+2)!
-	tanCoef [trigTerms]I // (−1)^k 2(k+1)/(2k+3)!
 	atnCoef [atanTerms]I // (−1)^{k+1}/(2k+3)
 	mask64  = new(big.Int).SetUint64(math.MaxUint64)
 )
@@ -31,12 +30,9 @@ func init() {
 	for k := 0; k < trigTerms; k++ {
 		sinCoef[k] = invFact[2*k+3]
 		cosCoef[k] = invFact[2*k+2]
-		tanCoef[k] = invFact[2*k+3].MulF(float64(2 * (k + 1)))
 		if k%2 == 0 {
 			sinCoef[k] = sinCoef[k].Neg()
 			cosCoef[k] = cosCoef[k].Neg()
-		} else {
-			tanCoef[k] = tanCoef[k].Neg()
 		}
 	}
 	for k := range atnCoef {
@@ -126,29 +122,52 @@ func cosRel(r2 I, m float64) I {
 	return r2.Mul(horner(cosCoef[:], r2)).Add(sym(rem))
 }
 
-// tanRel encloses g(r) = sin(r)/r − cos(r) = Σ_{k≥1} (−1)^{k+1} 2k r^{2k}/(2k+1)!
-// for |r| ≤ 1: the ratio of consecutive terms is r²/(2k(2k+3)) ≤ 1/10, so
-// the tail after k = 9 is at most 2·20|r|^{20}/21!.
-func tanRel(r2 I, m float64) I {
-	rem := MulUp(MulUp(powUp(m, 2*trigTerms+2), invFact[2*trigTerms+3].Hi), float64(4*(trigTerms+1)))
-	return r2.Mul(horner(tanCoef[:], r2)).Add(sym(rem))
-}
-
-// sinCosAt encloses sin(r) and cos(r) for r = rh + ρ, ρ ∈ rl, by Taylor's
+// sinCosParts returns floats sh, ch and small intervals sl, cl with
+// sin(r) ∈ sh + sl and cos(r) ∈ ch + cl for r = rh + ρ, ρ ∈ rl, by Taylor's
 // theorem about the float rh,
 //
 //	sin(rh + ρ) = sin rh + ρ cos rh − (ρ²/2) sin ξ,
 //	cos(rh + ρ) = cos rh − ρ sin rh − (ρ²/2) cos ξ,
 //
-// with sin rh = rh(1 + s'), cos rh = 1 + c' from sinRel and cosRel.
-func sinCosAt(rh float64, rl I) (s, c I) {
+// with sin rh = rh + rh·s' and cos rh = 1 − rh²/2 + rh⁴·c₄(rh) from the series
+// of sinRel and cosRel. To round the large terms only once, rh² = q + q'
+// exactly (FMA error-free product) and 1 − q/2 = h + h' exactly (TwoSum),
+// and everything else is summed first as a small interval.
+func sinCosParts(rh float64, rl I) (sh float64, sl I, ch float64, cl I) {
 	x := Point(rh)
-	x2, m := x.Sqr(), math.Abs(rh)
-	s = x.Add(x.Mul(sinRel(x2, m)))
-	c = cosRel(x2, m).AddF(1)
-	q := rl.Mag()
-	e := sym(MulUp(MulUp(q, q), 0.5))
-	return s.Add(rl.Mul(c).Add(e)), c.Sub(rl.Mul(s).Add(e))
+	m := math.Abs(rh)
+	x2 := x.Sqr()
+	q := float64(rh * rh)
+	qe := math.FMA(rh, rh, -q) // exact for |rh| ≥ 2⁻⁴⁸⁰ (q ≥ 2⁻⁹⁶⁰); q/2 is exact too
+	if m < 0x1p-480 {
+		qe = 0
+		q = 0
+	}
+	ds := x.Mul(sinRel(x2, m))
+	s0 := ds.AddF(rh)
+	h, he := twoSum(1, -0.5*q)
+	dc := cosQuartic(x2, m).Add(Point(he)).Sub(Point(qe).MulF(0.5))
+	if m < 0x1p-480 {
+		// rh⁴ terms negligible but enclosed: cos rh − 1 ∈ cosRel.
+		dc = cosRel(x2, m)
+	}
+	c0 := dc.AddF(h)
+	rq := rl.Mag()
+	e := sym(MulUp(MulUp(rq, rq), 0.5))
+	return rh, ds.Add(rl.Mul(c0).Add(e)), h, dc.Sub(rl.Mul(s0).Add(e))
+}
+
+// sinCosAt encloses sin(rh + ρ) and cos(rh + ρ), ρ ∈ rl (see sinCosParts).
+func sinCosAt(rh float64, rl I) (s, c I) {
+	sh, sl, ch, cl := sinCosParts(rh, rl)
+	return sl.AddF(sh), cl.AddF(ch)
+}
+
+// cosQuartic encloses cos(r) − 1 + r²/2 = Σ_{k≥2} (−1)^k r^{2k}/(2k)! by the
+// terms through r^{18} and the Lagrange remainder |r|^{20}/20!.
+func cosQuartic(r2 I, m float64) I {
+	rem := MulUp(powUp(m, 2*trigTerms+2), invFact[2*trigTerms+2].Hi)
+	return r2.Sqr().Mul(horner(cosCoef[1:], r2)).Add(sym(rem))
 }
 
 // sinReduced encloses sin(k·π/2 + rh + ρ), ρ ∈ rl.
@@ -237,12 +256,8 @@ func multiplesIn(ka int64, ra I, kb int64, rb I) (lo, hi int64, ok bool) {
 // unbounded or may contain an odd multiple of π/2.
 //
 // At a point t = k·π/2 + r: tan t = tan r for even k and −cot r for odd k,
-// with
-//
-//	tan r = r + r·g/(1 + c'),   cot r = 1/tan r,
-//
-// where c' = cos r − 1 and g = sin(r)/r − cos r are enclosed by their
-// series (see Sin and tanRel). tan increases between its poles, so
+// tan r = sin r/cos r and cot r = cos r/sin r with the enclosures of Sin
+// and Cos. tan increases between its poles, so
 // on an interval without a pole the range is [tan x.Lo, tan x.Hi].
 func Tan(x I) (I, error) {
 	if !x.IsBounded() {
@@ -274,28 +289,34 @@ func Tan(x I) (I, error) {
 	return I{va.Lo, vb.Hi}, nil
 }
 
-// tanReduced encloses tan(k·π/2 + rh + ρ), ρ ∈ rl; ok is false if k is
-// odd and tan(rh + ρ) may vanish. With T = tan rh, Taylor's theorem gives
+// tanReduced encloses tan(k·π/2 + rh + ρ), ρ ∈ rl, as sin/cos (k even) or
+// −cos/sin (k odd); ok is false if the divisor may vanish. With
+// numerator a + α and divisor b + β (floats a, b; small intervals α, β
+// from sinCosParts), q = fl(a/b) and a − q·b is exact for a correctly
+// rounded quotient away from underflow (Muller et al., Handbook of
+// Floating-Point Arithmetic, 2018, §4.4), so
 //
-//	tan(rh + ρ) = T + ρ(1 + T²) + ρ² tan ξ sec² ξ,
+//	(a + α)/(b + β) = q + (a − q·b + α − q·β)/(b + β),
 //
-// and |tan ξ sec² ξ| ≤ 2.1 for |ξ| ≤ 0.79 (tan 0.79 < 1.01, sec² 0.79 < 2.02).
+// and only the final addition rounds at full size.
 func tanReduced(k int64, rh float64, rl I) (I, bool) {
-	q := rl.Mag()
-	if !(math.Abs(rh)+q <= 0.79) {
-		panic("interval: internal error: tan reduction out of range")
+	a, al, b, bl := sinCosParts(rh, rl)
+	if k&1 == 1 {
+		a, al, b, bl = b, bl, -a, al.Neg()
 	}
-	x := Point(rh)
-	x2, m := x.Sqr(), math.Abs(rh)
-	t := x.Add(x.Mul(tanRel(x2, m).Div(cosRel(x2, m).AddF(1))))
-	t = t.Add(rl.Mul(t.Sqr().AddF(1)).Add(sym(MulUp(MulUp(q, q), 2.1))))
-	if k&1 == 0 {
-		return t, true
-	}
-	if t.ContainsZero() {
+	den := bl.AddF(b)
+	if den.ContainsZero() {
 		return Entire(), false
 	}
-	return t.Recip().Neg(), true
+	if !(math.Abs(a) >= 0x1p-900 && math.Abs(b) >= 0x1p-900) {
+		return al.AddF(a).Div(den), true
+	}
+	q := a / b
+	if math.IsInf(q, 0) {
+		return al.AddF(a).Div(den), true
+	}
+	r0 := math.FMA(-q, b, a)
+	return Point(r0).Add(al).Sub(bl.MulF(q)).Div(den).AddF(q), true
 }
 
 // Atan returns an enclosure of {atan t : t ∈ x} (atan increases;
