@@ -23,6 +23,12 @@
 // > 0 on every cell, a positive mass bound) are checked and reported as
 // errors, never assumed.
 //
+// Potentials come from formula Taylor models (FromExpr), from exact
+// polynomials (PolynomialPotential) or any ModelFunc; the Lehmann–Goerisch
+// weight 1/(V + γ) is derived from them with a verified remainder
+// (InverseShifted, InverseShiftedExpr), and LGMatrices accepts only such a
+// weight for the same V and γ.
+//
 // Functions and files named Approx, approx or choose work at round-to-
 // nearest. Their results are choices (approximate eigenvectors, fluxes,
 // interpolants), never bounds.

@@ -28,7 +28,7 @@ import (
 //
 //	H. Behnke, F. Goerisch, Inclusions for eigenvalues of selfadjoint
 //	problems, in: J. Herzberger (ed.), Topics in Validated Computations,
-//	North-Holland, 1994, 277–322.
+//	1994.
 //	T. Vejchodský, Flux reconstructions in the Lehmann–Goerisch method for
 //	lower bounds on eigenvalues, arXiv:1801.02561 (2018).
 //	T. Vejchodský, Three methods for two-sided bounds of eigenvalues – a

@@ -95,7 +95,8 @@ func (a ratPoly) compose(x0, h *big.Rat) ratPoly {
 }
 
 // shiftedLegendreRat is P_n(2t − 1) = Σ_k (−1)^(n+k) C(n,k) C(n+k,k) t^k
-// (Abramowitz–Stegun 22.3.2 with x = 2t − 1; common practice), an
+// (Rodrigues-formula expansion, Abramowitz–Stegun ch. 22, recalled from
+// memory; with x = 2t − 1), an
 // expression independent of the Bernstein form used by the package.
 func shiftedLegendreRat(n int) ratPoly {
 	out := make(ratPoly, n+1)

@@ -334,7 +334,7 @@ func TestEvalInterpolate(t *testing.T) {
 
 func TestHierarchicalStiffnessStructure(t *testing.T) {
 	// ψ_j' = P̃_(j−1) and Legendre orthogonality ∫_(−1)^1 P_m P_n = 2δ_mn/(2n+1)
-	// (Abramowitz–Stegun 22.2.10) give ∫_0^1 ψ_i'ψ_j' = δ_ij/(2j−1), and
+	// (common practice) give ∫_0^1 ψ_i'ψ_j' = δ_ij/(2j−1), and
 	// bubbles are decoupled from the vertex functions (whose derivatives are
 	// ∓1): K_loc = [1 0 … −1; 0 D 0; −1 0 … 1] with D = diag(1/(2j−1)).
 	for _, p := range []int{1, 2, 5, 12} {

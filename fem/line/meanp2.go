@@ -30,7 +30,7 @@ import (
 // 0 ≤ c_T ≤ V + γ on T and |T| m_T(u)² ≤ ∫_T u² (Jensen / Cauchy–Schwarz),
 // a_lo(u, u) ≤ a(u, u) + γ‖u‖² on H, so λ_k(a_lo) ≤ λ_k + γ by min–max.
 //
-// Projection bound (Liu 2015, Theorem 2.1, with a_h = a_lo, b the L²
+// Projection bound (the abstract theorem of Liu 2015, METHODS §5, with a_h = a_lo, b the L²
 // product): let P_h u be the function of the space with the nodal values
 // and cell means of u ∈ H (nodal values exist in 1D; P_h u = 0 at Dirichlet
 // ends), e = u − P_h u. Then e vanishes at every node and has zero mean on
@@ -56,9 +56,9 @@ import (
 // References:
 //
 //	X. Liu, A framework of verified eigenvalue bounds for self-adjoint
-//	differential operators, Appl. Math. Comput. 267 (2015) 341–355.
+//	differential operators, Appl. Math. Comput. 267 (2015).
 //	C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
-//	Math. Comp. 83 (2014) 2605–2629.
+//	Math. Comp. 83 (2014).
 type MeanP2 struct {
 	mesh        *Mesh
 	left, right End

@@ -16,7 +16,7 @@ import (
 // Bernstein polynomials of degree n are B^n_i(ξ) = C(n,i) ξ^i (1 − ξ)^(n−i),
 // i = 0..n. The identities used (all exact; see R. T. Farouki, The
 // Bernstein polynomial basis: a centennial retrospective, Comput. Aided
-// Geom. Design 29 (2012) 379–419):
+// Geom. Design 29 (2012)):
 //
 //	B^m_i B^n_j = C(m,i) C(n,j) / C(m+n,i+j) · B^(m+n)_(i+j)        (product)
 //	∫_0^1 B^n_i dξ = 1/(n+1)                                        (integral)
@@ -159,7 +159,7 @@ func monomialTable(n int) *table {
 //	l = p:        ξ                            (right vertex function)
 //
 // where P̃_l(t) = P_l(2t − 1) is the shifted Legendre polynomial. Its
-// Bernstein coefficients are (−1)^(l−k) C(l,k) (Farouki 2012, §5), so ψ_j
+// Bernstein coefficients are (−1)^(l−k) C(l,k) (checked in the tests against the monomial form), so ψ_j
 // has the degree-j coefficients d_k = (1/j) Σ_(i<k) (−1)^(j−1−i) C(j−1,i),
 // d_0 = d_j = 0 (∫_0^1 P̃_l = 0 for l ≥ 1): the bubbles vanish at both ends.
 func hierarchicalRat(p int) []*big.Rat {
