@@ -107,9 +107,12 @@ func RatText(r *big.Rat) string {
 // numberError is a defect of one number, with a hint.
 type numberError struct {
 	msg, hint string
+	unknown   []string // names the text uses that are not parameters
 }
 
 func (e *numberError) Error() string { return e.msg }
+
+func numErr(msg, hint string) *numberError { return &numberError{msg: msg, hint: hint} }
 
 const numberHint = `write a decimal ("0.25", "-1e-3"), a rational ("1/3") or a constant formula ("sqrt(3)/2")`
 
@@ -149,11 +152,8 @@ func checkExponents(s string) error {
 			continue
 		}
 		digits := strings.TrimLeft(s[j:k], "0")
-		if len(digits) > 4 {
-			return &numberError{"number out of range: exponent " + s[i+1:k], "exponents must lie within ±" + strconv.Itoa(maxExponent)}
-		}
-		if n, _ := strconv.Atoi("0" + digits); n > maxExponent {
-			return &numberError{"number out of range: exponent " + s[i+1:k], "exponents must lie within ±" + strconv.Itoa(maxExponent)}
+		if n, _ := strconv.Atoi("0" + digits); len(digits) > 4 || n > maxExponent {
+			return numErr("number out of range: exponent "+s[i+1:k], "exponents must lie within ±"+strconv.Itoa(maxExponent))
 		}
 	}
 	return nil
@@ -167,10 +167,10 @@ func parseRatLiteral(s string) (*big.Rat, error) { return decimalio.ParseRat(s) 
 func parseNumber(s string, params map[string]Number) (Number, error) {
 	s = strings.TrimSpace(s)
 	if s == "" {
-		return Number{}, &numberError{"empty number", numberHint}
+		return Number{}, numErr("empty number", numberHint)
 	}
 	if len(s) > maxNumberLen {
-		return Number{}, &numberError{fmt.Sprintf("number text too long (%d bytes, at most %d)", len(s), maxNumberLen), "use a shorter exact form, or a parameter"}
+		return Number{}, numErr(fmt.Sprintf("number text too long (%d bytes, at most %d)", len(s), maxNumberLen), "use a shorter exact form, or a parameter")
 	}
 	if err := checkExponents(s); err != nil {
 		return Number{}, err
@@ -190,18 +190,18 @@ func parseNumber(s string, params map[string]Number) (Number, error) {
 		if literalErr != nil {
 			var le *decimalio.SyntaxError
 			if errors.As(literalErr, &le) {
-				return Number{}, &numberError{fmt.Sprintf("%q is not a number: %s", s, le.Msg), firstNonEmpty(le.Hint, numberHint)}
+				return Number{}, numErr(fmt.Sprintf("%q is not a number: %s", s, le.Msg), firstNonEmpty(le.Hint, numberHint))
 			}
-			return Number{}, &numberError{fmt.Sprintf("%q is not a number: %v", s, literalErr), numberHint}
+			return Number{}, numErr(fmt.Sprintf("%q is not a number: %v", s, literalErr), numberHint)
 		}
 		var se *formula.SyntaxError
 		if errors.As(err, &se) {
-			return Number{}, &numberError{fmt.Sprintf("%q is not a number: column %d: %s", s, se.Col, se.Msg), firstNonEmpty(se.Hint, numberHint)}
+			return Number{}, numErr(fmt.Sprintf("%q is not a number: column %d: %s", s, se.Col, se.Msg), firstNonEmpty(se.Hint, numberHint))
 		}
-		return Number{}, &numberError{fmt.Sprintf("%q is not a number: %v", s, err), numberHint}
+		return Number{}, numErr(fmt.Sprintf("%q is not a number: %v", s, err), numberHint)
 	}
 	if usesIntervalLiteral(e.String()) {
-		return Number{}, &numberError{fmt.Sprintf("%q is not a single number", s), "interval(…) denotes a set of values; give the exact value"}
+		return Number{}, numErr(fmt.Sprintf("%q is not a single number", s), "interval(…) denotes a set of values; give the exact value")
 	}
 	vals := map[string]interval.I{}
 	var unknown []string
@@ -218,11 +218,11 @@ func parseNumber(s string, params map[string]Number) (Number, error) {
 		if params == nil {
 			hint = "a parameter's value may not use other names"
 		}
-		return Number{}, &numberError{fmt.Sprintf("%q is not a constant: unknown name %s", s, strings.Join(quoteAll(unknown), ", ")), hint}
+		return Number{}, &numberError{msg: fmt.Sprintf("%q is not a constant: unknown name %s", s, strings.Join(quoteAll(unknown), ", ")), hint: hint, unknown: unknown}
 	}
 	v, err := e.Bind(vals).EvalConst()
 	if err != nil {
-		return Number{}, &numberError{fmt.Sprintf("%q cannot be evaluated: %v", s, err), "the formula must be defined at its value"}
+		return Number{}, numErr(fmt.Sprintf("%q cannot be evaluated: %v", s, err), "the formula must be defined at its value")
 	}
 	text := e.String()
 	if r, err := parseRatLiteral(text); err == nil {
@@ -240,7 +240,7 @@ func parseNumber(s string, params map[string]Number) (Number, error) {
 // float64 range, or a formula that overflows).
 func finite(n Number, s string) (Number, error) {
 	if !n.Val.IsBounded() {
-		return Number{}, &numberError{fmt.Sprintf("%q is out of range", s), "numbers must be finite and below about 1.7e308 in magnitude"}
+		return Number{}, numErr(fmt.Sprintf("%q is out of range", s), "numbers must be finite and below about 1.7e308 in magnitude")
 	}
 	return n, nil
 }

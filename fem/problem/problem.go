@@ -120,7 +120,7 @@ func Parse(data []byte) (*Problem, error) {
 	if root.kind != kindObject {
 		return nil, &Error{Issues: []Issue{{Msg: "the file must hold a JSON object, not " + root.kind.String(), Hint: `start with {"domain": …}`}}}
 	}
-	r := reader{iss: &iss}
+	r := reader{iss: &iss, badParams: map[string]bool{}}
 	p := r.problem(root)
 	if iss.count() > 0 {
 		return nil, &Error{Issues: iss.list}
@@ -131,6 +131,9 @@ func Parse(data []byte) (*Problem, error) {
 // reader holds the state of one Parse.
 type reader struct {
 	iss *issues
+	// badParams are parameters whose value is invalid (and reported);
+	// uses of them are not reported again.
+	badParams map[string]bool
 }
 
 var topKeys = []string{"name", "domain", "potential", "parameters", "boundary", "eigenvalues", "target", "claims"}
@@ -148,10 +151,7 @@ func (r *reader) problem(root *node) *Problem {
 	}
 
 	p.Params = r.parameters(root.get("parameters"))
-	paramsOK := p.Params != nil
-	if !paramsOK {
-		p.Params = map[string]Number{}
-	}
+	paramsOK := len(r.badParams) == 0
 
 	geomOK := r.domain(root.get("domain"), p)
 	bcOK := r.boundary(root.get("boundary"), p, geomOK)
@@ -236,9 +236,11 @@ func (r *reader) number(n *node, path string, params map[string]Number) (Number,
 	if err != nil {
 		ne, ok := err.(*numberError)
 		if !ok {
-			ne = &numberError{err.Error(), numberHint}
+			ne = &numberError{msg: err.Error(), hint: numberHint}
 		}
-		r.iss.add(path, ne.msg, ne.hint)
+		if !r.onlyBadParams(ne.unknown) {
+			r.iss.add(path, ne.msg, ne.hint)
+		}
 		return Number{}, false
 	}
 	return v, true
@@ -246,7 +248,19 @@ func (r *reader) number(n *node, path string, params map[string]Number) (Number,
 
 var reservedNames = map[string]bool{"x": true, "y": true, "pi": true, "e": true}
 
-// parameters reads the "parameters" object; nil after a defect.
+// onlyBadParams reports whether names is not empty and holds only
+// parameters whose own value was already reported as invalid.
+func (r *reader) onlyBadParams(names []string) bool {
+	for _, n := range names {
+		if !r.badParams[n] {
+			return false
+		}
+	}
+	return len(names) > 0
+}
+
+// parameters reads the "parameters" object. Invalid entries are reported
+// and recorded in r.badParams; the valid ones are returned.
 func (r *reader) parameters(n *node) map[string]Number {
 	params := map[string]Number{}
 	if n == nil {
@@ -254,30 +268,26 @@ func (r *reader) parameters(n *node) map[string]Number {
 	}
 	if n.kind != kindObject {
 		r.iss.add("parameters", "parameters must be an object, not "+n.kind.String(), `write "parameters": {"a": "1/2"}`)
-		return nil
+		r.badParams[""] = true
+		return params
 	}
-	ok := true
 	for i, name := range n.keys {
 		path := "parameters." + name
+		r.badParams[name] = true
 		if !isIdentifier(name) {
 			r.iss.addf(path, "a name is a letter followed by letters, digits or '_'", "bad parameter name %q", name)
-			ok = false
 			continue
 		}
 		if reservedNames[name] || !isVariableName(name) {
 			r.iss.addf(path, "x and y are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
-			ok = false
 			continue
 		}
 		v, good := r.number(n.vals[i], path, nil)
 		if !good {
-			ok = false
 			continue
 		}
+		delete(r.badParams, name)
 		params[name] = v
-	}
-	if !ok {
-		return nil
 	}
 	return params
 }
@@ -528,6 +538,9 @@ func (r *reader) potential(n *node, p *Problem, domainOK bool) {
 			continue
 		}
 		unknown = append(unknown, name)
+	}
+	if r.onlyBadParams(unknown) {
+		return
 	}
 	if len(unknown) > 0 {
 		hint := `the potential may use x, y and names declared under "parameters"`

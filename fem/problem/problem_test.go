@@ -373,3 +373,26 @@ func TestPotentialRange(t *testing.T) {
 		}
 	}
 }
+
+// TestIntervalDecisions checks polygon predicates decided by enclosures
+// of irrational coordinates: √2 − 1.4142135 ≈ 6.2e-8 > 0 (math/big can
+// confirm: 1.4142135² = 1.99999982358225 < 2), so a notch vertex at that
+// height stays above the base edge, and at the negative height it crosses
+// it.
+func TestIntervalDecisions(t *testing.T) {
+	const tmpl = `{"domain": {"polygon": [["0", "0"], ["4", "0"], ["4", "2"], ["2", "%s"], ["0", "2"]]}, "boundary": "dirichlet"}`
+	p, err := Parse([]byte(strings.Replace(tmpl, "%s", "sqrt(2)-1.4142135", 1)))
+	if err != nil {
+		t.Fatalf("above: %v", err)
+	}
+	if p.Convex() != "not convex" || p.Vertices[3][1].Rat != nil || len(p.Triangles()) != 3 {
+		t.Errorf("above: convex %q, Rat %v, %d triangles", p.Convex(), p.Vertices[3][1].Rat, len(p.Triangles()))
+	}
+	_, err = Parse([]byte(strings.Replace(tmpl, "%s", "1.4142135-sqrt(2)", 1)))
+	var perr *Error
+	if !errors.As(err, &perr) || len(perr.Issues) != 2 ||
+		!strings.HasPrefix(perr.Issues[0].String(), "domain.polygon: edges 0 and 2 intersect") ||
+		!strings.HasPrefix(perr.Issues[1].String(), "domain.polygon: edges 0 and 3 intersect") {
+		t.Errorf("below: %v", err)
+	}
+}
