@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/big"
 	"math/rand/v2"
+	"os"
 	"slices"
 	"testing"
 )
@@ -193,7 +194,8 @@ func elHypGen(r *rand.Rand, i int) float64 {
 	}
 }
 
-// TestPointEnclosures checks, for ≥ 10,000 arguments per function, that the
+// TestPointEnclosures checks, for ≥ 10,000 arguments per function (20 times
+// as many with GAPCERT_LONG=1), that the
 // enclosure contains the math/big reference value (≥ 400 bits, see
 // elementary_ref_test.go) and that it is at most maxUlps wide where the
 // result is a normal float64.
@@ -202,11 +204,15 @@ func TestPointEnclosures(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			t.Parallel()
 			r := rand.New(rand.NewPCG(uint64(ci+1), 2026))
+			n := c.n
+			if os.Getenv("GAPCERT_LONG") == "1" {
+				n *= 20
+			}
 			var widths []int64
 			var worstX float64
 			var worst I
 			over := 0
-			for i := range c.n {
+			for i := range n {
 				x := c.gen(r, i)
 				v := c.f(Point(x))
 				ref := c.ref(x)
@@ -228,7 +234,7 @@ func TestPointEnclosures(t *testing.T) {
 				t.Errorf("%s: %d enclosures wider than %d ulps; widest %s(%v) = %v (%d ulps)", c.name, over, c.maxUlps, c.name, worstX, worst, elUlps(worst))
 			}
 			slices.Sort(widths)
-			t.Logf("%s: %d arguments, width in ulps: median %d, max %d", c.name, c.n, widths[len(widths)/2], widths[len(widths)-1])
+			t.Logf("%s: %d arguments, width in ulps: median %d, max %d", c.name, n, widths[len(widths)/2], widths[len(widths)-1])
 		})
 	}
 }
