@@ -32,11 +32,8 @@ type aff struct {
 	c0, c1, c2, r interval.I
 }
 
-// rng returns c0 + hull(0, c1, c2) + r.
-func (a aff) rng() interval.I {
-	l := interval.Point(0).Hull(a.c1).Hull(a.c2)
-	return a.c0.Add(l).Add(a.r)
-}
+// rng returns c0 + hull(0, c1, c2) + r, an enclosure over K.
+func (a aff) rng() interval.I { return a.c0.Add(a.lin()).Add(a.r) }
 
 // lin returns the enclosure hull(0, c1, c2) of the linear part on K.
 func (a aff) lin() interval.I { return interval.Point(0).Hull(a.c1).Hull(a.c2) }

@@ -106,15 +106,6 @@ func getLayout(nv, q int) *layout {
 	return v.(*layout)
 }
 
-// degreeOf returns the total degree of monomial i.
-func (l *layout) degreeOf(i int) int {
-	for d := 0; ; d++ {
-		if i < l.off[d+1] {
-			return d
-		}
-	}
-}
-
 // jetEval evaluates expression trees in jets of one layout.
 type jetEval struct {
 	l    *layout
