@@ -248,7 +248,16 @@ func coshPoint(t float64) I {
 	if t <= hypDirect {
 		x2 := Point(t).Sqr()
 		rem := MulUp(MulUp(powUp(t, 2*hypTerms+2), invFact[2*hypTerms+2].Hi), 4)
-		return x2.Mul(horner(coshCoef[:], x2)).Add(sym(rem)).AddF(1)
+		if t < 0x1p-480 {
+			return x2.Mul(horner(coshCoef[:], x2)).Add(sym(rem)).AddF(1)
+		}
+		// 1 + t²/2 = h + h' + q'/2 exactly (t² = q + q' by FMA, q/2 exact,
+		// TwoSum), so only the final addition rounds at full size.
+		q := float64(t * t)
+		qe := math.FMA(t, t, -q)
+		h, he := twoSum(1, 0.5*q)
+		quart := x2.Sqr().Mul(horner(coshCoef[1:], x2)).Add(sym(rem))
+		return quart.Add(Point(he)).Add(Point(qe).MulF(0.5)).AddF(h)
 	}
 	k, p := expParts(t)
 	return scale2(p, k-1).Add(scale2(p.Recip(), -k-1))

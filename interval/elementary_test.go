@@ -149,8 +149,8 @@ func elPointCases() []elPointCase {
 				return elStep(c, r.IntN(41)-20)
 			}
 		}, 10000, 5},
-		{"sinh", Sinh, refSinhF, elHypGen, 10000, 6},
-		{"cosh", Cosh, refCoshF, elHypGen, 10000, 6},
+		{"sinh", Sinh, refSinhF, elHypGen, 10000, 5},
+		{"cosh", Cosh, refCoshF, elHypGen, 10000, 4},
 		{"tanh", Tanh, refTanhF, func(r *rand.Rand, i int) float64 {
 			switch i % 4 {
 			case 0:
