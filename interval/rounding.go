@@ -24,18 +24,20 @@ const twoSumLimit = 0x1p1023
 // choice for a lower end). It panics if a or b is NaN.
 //
 // With s = fl(a + b) (round to nearest), TwoSum gives the rounding error
-// e = (a + b) − s exactly (Møller 1965; Knuth, TAOCP 2, Theorem 4.2.2B),
+// e = (a + b) − s exactly (Møller 1965; Knuth, TAOCP 2, §4.2.2),
 // provided no intermediate operation overflows, and then the result is s if
 // e ≥ 0 and the predecessor of s if e < 0: s is the nearest float to a + b,
 // so a + b lies strictly between that predecessor and s.
 //
-// Overflow of the intermediates: with a′ = fl(s − b) one has
-// s − a′ = b + ε, |ε| ≤ ulp(a′)/2. If |s| < 2¹⁰²³ and |a′| ≥ 2¹⁰²³ then a
-// and b have opposite signs and comparable size, the sum is exact
-// (Sterbenz's lemma) and ε = 0; otherwise |ε| ≤ 2⁹⁶⁹ and |b + ε| stays
-// below the overflow threshold 2¹⁰²⁴ − 2⁹⁷⁰. Sums with |s| ≥ 2¹⁰²³ may
-// overflow an intermediate (a = −(2¹⁰²³ − 5·2⁹⁷⁰), b = MaxFloat64 does),
-// so they take the exact path.
+// Overflow of the intermediates: let |s| < 2¹⁰²³, so |s − (a + b)| ≤ 2⁹⁶⁹.
+// Then fl(s − b) cannot overflow (|s − b| ≤ |a| + 2⁹⁶⁹), and with
+// a′ = fl(s − b) one has s − a′ = b − ε, |ε| ≤ ulp(a′)/2 ≤ 2⁹⁷⁰. That
+// reaches the overflow threshold 2¹⁰²⁴ − 2⁹⁷⁰ only if |b| = MaxFloat64 and
+// |a′| ≥ 2¹⁰²³; but then |a| ≥ MaxFloat64/2 with the sign opposite to b, so
+// a + b is exact (Sterbenz's lemma), a′ = a and ε = 0. The remaining
+// operations act on rounding errors. Sums with |s| ≥ 2¹⁰²³ may overflow an
+// intermediate (a = −(2¹⁰²³ − 5·2⁹⁷⁰), b = MaxFloat64 does), so they take
+// the exact path.
 //
 // References:
 //
@@ -186,7 +188,7 @@ func mulSpecial(p, a, b float64, mode big.RoundingMode) float64 {
 //
 //	G. Bohlender, W. Walter, P. Kornerup, D. W. Matula, Semantics for
 //	exact floating point operations, Proc. 10th IEEE Symposium on Computer
-//	Arithmetic (1991) 22–26.
+//	Arithmetic (1991).
 func DivDown(a, b float64) float64 {
 	q := a / b
 	aq, aa := math.Abs(q), math.Abs(a)
