@@ -197,6 +197,10 @@ func clipUnit(v I) I {
 //	cos r = Σ_{j=0}^{9} (−1)^j r^{2j}/(2j)! + R,      |R| ≤ |r|^{20}/20!
 //
 // (Lagrange remainders; every derivative of sin and cos is bounded by 1).
+// The reduced argument is carried as a float rh plus a small interval and
+// expanded about rh to first order with a ρ²/2 remainder (sinCosParts).
+// Reduction is exact in math/big beyond 10⁶, so every finite float64
+// argument, up to MaxFloat64, gets a tight enclosure.
 // On an interval: sin is monotone between consecutive odd multiples of
 // π/2; an odd multiple m·π/2 that may lie in x (decided with enclosures of
 // the ends' positions k + r/(π/2)) contributes its value ±1, and otherwise
@@ -256,9 +260,10 @@ func multiplesIn(ka int64, ra I, kb int64, rb I) (lo, hi int64, ok bool) {
 // unbounded or may contain an odd multiple of π/2.
 //
 // At a point t = k·π/2 + r: tan t = tan r for even k and −cot r for odd k,
-// tan r = sin r/cos r and cot r = cos r/sin r with the enclosures of Sin
-// and Cos. tan increases between its poles, so
-// on an interval without a pole the range is [tan x.Lo, tan x.Hi].
+// tan r = sin r/cos r and cot r = cos r/sin r, formed from the parts of
+// sinCosParts by a compensated quotient (tanReduced). tan increases between
+// its poles, so on an interval without a pole the range is
+// [tan x.Lo, tan x.Hi]; poles are located as the extrema of Sin.
 func Tan(x I) (I, error) {
 	if !x.IsBounded() {
 		return Entire(), &DomainError{"tan", x}
