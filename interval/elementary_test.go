@@ -273,6 +273,9 @@ func TestSpecialPoints(t *testing.T) {
 		1e22, // sin(1e22) ≈ −0.8522008497671888 (recalled from memory; checked here against refSinCos)
 		math.MaxFloat64, -math.MaxFloat64, math.SmallestNonzeroFloat64, 0x1p-1022,
 		1e300, 6381956970095103 * 0x1p797, // classic worst case for reduction (recalled from memory)
+		// Near multiples of π/2 with results near 2⁻⁵²…2⁻⁴⁵, found by the
+		// GAPCERT_LONG campaign to be wide before the exact fallback.
+		-91553.86390724055, 437482.48497564666, -5830.795965062656,
 	}
 	for _, x := range hard {
 		for _, f := range []struct {

@@ -51,7 +51,9 @@ func init() {
 // π/2 ∈ halfPi1 + halfPi2 + halfPi3I is used: k·halfPi1 and k·halfPi2 are
 // exact floats, and the two subtractions are made exact by TwoSum
 // (a − b = s + e exactly), so x − k·π/2 ∈ s₂ + (e₁ + e₂ − k·halfPi3I); a
-// last TwoSum moves the midpoint of the small part into rh.
+// last TwoSum moves the midpoint of the small part into rh. When the
+// result is below 2⁻²⁰ for k ≠ 0 (x near a multiple of π/2), x is reduced
+// by the math/big path instead, whose absolute accuracy is far finer.
 // Beyond, x (exact) is reduced in math/big with a 1400-bit enclosure
 // [p⁻, p⁺] ∋ π/2: x − k·π/2 ∈ [x − k p⁺, x − k p⁻] for k ≥ 0 (swapped for
 // k < 0); |x| < 2¹⁰²⁴ makes the width of that enclosure below 2⁻³⁷⁰, so
@@ -66,13 +68,19 @@ func reduceHalfPi(x float64) (k int64, rh float64, rl I) {
 		// the second-order terms in ρ² of the callers stay negligible.
 		m := rl.Mid()
 		rh, e3 := twoSum(s2, m)
+		if kf != 0 && math.Abs(rh) < 0x1p-20 {
+			// x is close to a nonzero multiple of π/2: the absolute
+			// accuracy of the splitting (about 2⁻⁹⁰) would be a large
+			// relative error, so reduce exactly.
+			return reduceHuge(x)
+		}
 		return int64(kf), rh, rl.Sub(Point(m)).Add(Point(e3))
 	}
 	return reduceHuge(x)
 }
 
 // twoSum returns s = fl(a + b) and e with a + b = s + e exactly (Knuth's
-// TwoSum; a, b finite and the sum not overflowing).
+// TwoSum; used here only with |a|, |b| ≤ 2²⁰, far from overflow).
 func twoSum(a, b float64) (s, e float64) {
 	s = a + b
 	bb := s - a
