@@ -69,8 +69,12 @@ var (
 	invFact [32]I
 	// invOdd[k] ∋ 1/(2k+1).
 	invOdd [32]I
-	// atanTab[j] ∋ atan(j/4), j = 0..4.
-	atanTab [5]I
+	// atan(j/4) ∈ atanHi[j] + atanLo[j], j = 0..4 (float plus a tiny
+	// interval); likewise π/2 ∈ halfPiHi + halfPiLo.
+	atanHi   [5]float64
+	atanLo   [5]I
+	halfPiHi float64
+	halfPiLo I
 )
 
 func init() {
@@ -114,11 +118,17 @@ func init() {
 	a4Lo, a4Hi := atanInvBig(4, p)
 	a2Lo, a2Hi := atanInvBig(2, p)
 	a7Lo, a7Hi := atanInvBig(7, p)
-	atanTab[0] = Point(0)
-	atanTab[1] = bigToI(a4Lo, a4Hi)
-	atanTab[2] = bigToI(a2Lo, a2Hi)
-	atanTab[3] = bigToI(subBig(qLo, a7Hi, p, big.ToNegativeInf), subBig(qHi, a7Lo, p, big.ToPositiveInf))
-	atanTab[4] = bigToI(qLo, qHi)
+	tab := [5][2]*big.Float{
+		{new(big.Float), new(big.Float)},
+		{a4Lo, a4Hi},
+		{a2Lo, a2Hi},
+		{subBig(qLo, a7Hi, p, big.ToNegativeInf), subBig(qHi, a7Lo, p, big.ToPositiveInf)},
+		{qLo, qHi},
+	}
+	for j, b := range tab {
+		atanHi[j], atanLo[j] = splitBig(b[0], b[1], p)
+	}
+	halfPiHi, halfPiLo = splitBig(hpLo, hpHi, p)
 }
 
 // Pi returns the tightest float64 enclosure of π.
@@ -143,6 +153,13 @@ func SqrtE(x I) (I, error) {
 // bigToI rounds lo down and hi up to float64.
 func bigToI(lo, hi *big.Float) I {
 	return I{roundBig(lo, big.ToNegativeInf), roundBig(hi, big.ToPositiveInf)}
+}
+
+// splitBig returns a float h (a choice near lo) and the outward rounded
+// interval l = [lo − h, hi − h], so that [lo, hi] ⊆ h + l.
+func splitBig(lo, hi *big.Float, prec uint) (float64, I) {
+	h, _ := lo.Float64()
+	return h, bigToI(sub(lo, h, prec, big.ToNegativeInf), sub(hi, h, prec, big.ToPositiveInf))
 }
 
 // truncBits returns x truncated toward zero to b significant bits (exact

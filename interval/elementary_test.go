@@ -148,7 +148,7 @@ func elPointCases() []elPointCase {
 				c := float64(r.IntN(9)) / 8 // table points and their midpoints
 				return elStep(c, r.IntN(41)-20)
 			}
-		}, 10000, 5},
+		}, 10000, 3},
 		{"sinh", Sinh, refSinhF, elHypGen, 10000, 5},
 		{"cosh", Cosh, refCoshF, elHypGen, 10000, 4},
 		{"tanh", Tanh, refTanhF, func(r *rand.Rand, i int) float64 {

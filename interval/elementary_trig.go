@@ -343,7 +343,8 @@ func tanReduced(k int64, rh float64, rl I) (I, bool) {
 //	atan u = Σ_{k=0}^{11} (−1)^k u^{2k+1}/(2k+1) + R,
 //	|R| ≤ Σ_{k>11} |u|^{2k+1}/(2k+1) ≤ |u|^{25}/(25(1 − u²)) ≤ 1.04|u|^{25}/25.
 //
-// atan(j/4) are enclosed in math/big (see the constants).
+// atan(j/4) and π/2 are held as a float plus a tiny interval (math/big,
+// see the constants), so that only the last addition rounds at full size.
 func Atan(x I) I {
 	if x.IsPoint() {
 		return atanPoint(x.Lo)
@@ -359,13 +360,19 @@ func atanPoint(t float64) I {
 		return halfPiI
 	}
 	if t > 1 {
-		return halfPiI.Sub(atanUnit(Point(1).Div(Point(t))))
+		// π/2 − atan(1/t) = (π/2)hi − h + (π/2 lo − l), the first
+		// difference made exact by TwoSum.
+		h, l := atanUnit(Point(1).Div(Point(t)))
+		d, e := twoSum(halfPiHi, -h)
+		return halfPiLo.Sub(l).AddF(e).AddF(d)
 	}
-	return atanUnit(Point(t))
+	h, l := atanUnit(Point(t))
+	return l.AddF(h)
 }
 
-// atanUnit encloses atan over t ⊆ [0, 1].
-func atanUnit(t I) I {
+// atanUnit returns a float h and a small interval l with
+// atan τ ∈ h + l for every τ ∈ t ⊆ [0, 1].
+func atanUnit(t I) (float64, I) {
 	j := math.Round(4 * t.Mid())
 	if t.Mid() < 0.1875 {
 		j = 0 // small results keep their relative accuracy
@@ -380,5 +387,5 @@ func atanUnit(t I) I {
 	rem := MulUp(powUp(m, 2*atanTerms+3), DivUp(1.04, 2*atanTerms+3))
 	u2 := u.Sqr()
 	s := u.Add(u.Mul(u2.Mul(horner(atnCoef[:], u2))).Add(sym(rem)))
-	return atanTab[int(j)].Add(s)
+	return atanHi[int(j)], atanLo[int(j)].Add(s)
 }
