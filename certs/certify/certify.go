@@ -2,12 +2,14 @@ package certify
 
 import (
 	"encoding/json"
+	"errors"
 	"fmt"
 	"math"
 	"runtime"
 	"time"
 
 	"gapcert/certs"
+	"gapcert/fem/line"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -26,6 +28,10 @@ type Options struct {
 	Now       func() time.Time
 	Progress  func(format string, args ...any) // nil = quiet
 }
+
+// maxShiftRaises bounds how often Certify enlarges γ when the cell
+// enclosures of V + γ could not be shown nonnegative.
+const maxShiftRaises = 8
 
 // DefaultTimeLimit is the refinement budget when Options.TimeLimit is 0.
 const DefaultTimeLimit = 60 * time.Second
@@ -50,9 +56,17 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		return nil, err
 	}
 	var best *result
-	for {
+	for raised := 0; ; {
 		t0 := time.Now()
 		out, err := compute(p, r)
+		var signErr *line.SignError
+		if errors.As(err, &signErr) && raised < maxShiftRaises {
+			// The cell enclosures of V + γ were too wide to show V + γ ≥ 0:
+			// a larger shift is as sound and may be provable.
+			r.gamma = roundShift(2*r.gamma + r.scale)
+			raised++
+			continue
+		}
 		if err != nil {
 			return nil, err
 		}
@@ -103,7 +117,7 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	if poly, ok := p.Potential.Polynomial(); ok {
 		taylor = max(poly.Degree(), 1) // exact model
 	}
-	return recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, gamma: roundShift(g)}, nil
+	return recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, gamma: roundShift(g), scale: scale.Lo}, nil
 }
 
 // roundShift returns a float ≥ g with a short binary expansion (so that the

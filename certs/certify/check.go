@@ -8,6 +8,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
+	"gapcert/interval"
 	"gapcert/interval/decimalio"
 )
 
@@ -60,6 +61,7 @@ func Check(data []byte) error {
 		return fmt.Errorf("method.gamma %q is not an exact float64", m.Gamma)
 	}
 	r := recipe{cells: m.Cells, degree: m.Degree, fluxDegree: m.FluxDegree, taylor: m.TaylorOrder, weightTaylor: m.WeightOrder, stageACells: m.StageACells, gamma: gamma.Lo}
+	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
 	if err := r.validate(); err != nil {
 		return err
 	}

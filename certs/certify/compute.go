@@ -20,6 +20,7 @@ type recipe struct {
 	weightTaylor              int // order of the Taylor models of 1/(V + γ)
 	stageACells               int
 	gamma                     float64
+	scale                     float64 // π²/D² rounded down; only for choosing shifts
 }
 
 // outcome holds the verified one-sided bounds of Λ_k = λ_k + γ that one
@@ -83,7 +84,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 
 	// Stage A: projection lower bounds for Λ_1 … Λ_{want+1}.
-	out.stageA, out.ch, err = stageA(p, r, gamma, left, right, want+1)
+	out.stageA, out.ch, err = stageA(p, r, gamma, left, right, out.ritz, want+1)
 	if err != nil {
 		return nil, err
 	}
@@ -124,8 +125,9 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 // stageA returns verified lower bounds of Λ_1..Λ_count from the projection
 // bound of Liu (2015) on the mean-preserving P2 space (METHODS §5):
 // Λ_k ≥ λ_{h,k}/(1 + C_h² λ_{h,k}), where λ_{h,k} ≥ σ' is proved by the
-// verified inertia count #{λ_h < σ'} ≤ k − 1 (METHODS §7).
-func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, count int) ([]float64, interval.I, error) {
+// verified inertia count #{λ_h < σ'} ≤ k − 1 (METHODS §7). upper holds the
+// Ritz upper bounds of Λ_k, used only to choose the search brackets.
+func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, upper []float64, count int) ([]float64, interval.I, error) {
 	mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)
 	// Only the cell ranges of V matter here; a low-order model gives them.
 	pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
@@ -138,34 +140,62 @@ func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End
 		return nil, interval.I{}, err
 	}
 	ch := space.ProjectionConstant()
-	approx, _, err := band.LowestEigs(k.Mid(), m.Mid(), count)
-	if err != nil {
-		return nil, interval.I{}, fmt.Errorf("certify: stage A approximate eigenvalues: %w", err)
-	}
+	c2 := ch.Hi * ch.Hi
 	lower := make([]float64, count)
+	prev := 0.0
 	for i := range lower {
-		lh := verifiedDiscreteLower(k, m, mMin, approx[i], i+1)
+		// λ_h/(1 + C²λ_h) ≤ Λ_k gives λ_{h,k} ≤ Λ_k/(1 − C²Λ_k): a bracket
+		// end for the search (a choice; a wrong guess costs only width).
+		guess := 2 * upper[len(upper)-1]
+		if i < len(upper) && c2*upper[i] < 0.5 {
+			guess = upper[i] / (1 - c2*upper[i]) * (1 + 1e-9)
+		}
+		lh := verifiedDiscreteLower(k, m, mMin, max(prev, 0), guess, i+1)
+		prev = lh
 		lower[i] = enclose.ProjectionLower(lh, ch)
 	}
 	return lower, ch, nil
 }
 
-// verifiedDiscreteLower returns a float ℓ with λ_{h,k} ≥ ℓ for every member
-// of the interval pencil ([K], [M]): it tries shifts σ just below the
-// approximation and accepts σ' once the verified count of eigenvalues below
-// σ' is at most k − 1. It falls back to 0 (the pencil is positive
-// semidefinite: a_lo ≥ 0 as c_T ≥ 0 and α ≥ 0) if no shift succeeds.
-func verifiedDiscreteLower(k, m *band.ISym, mMin, approx float64, index int) float64 {
-	delta := 1e-12*math.Abs(approx) + 1e-300
-	for try := 0; try < 40; try++ {
-		sigma := approx - delta
-		n, sigmaPrime, ok := band.CountBelow(k, m, mMin, sigma)
-		if ok && n <= index-1 {
-			return math.Max(sigmaPrime, 0)
+// verifiedDiscreteLower returns a float ℓ with λ_{h,index} ≥ ℓ for every
+// member of the interval pencil ([K], [M]). A floating-point Sturm
+// bisection on the midpoint pencil in [lo, hi] locates λ_{h,index} (a
+// choice); then a shift σ just below it is verified: when band.CountBelow
+// shows at most index − 1 eigenvalues below the corrected shift σ', then
+// λ_{h,index} ≥ σ'. On failure σ backs off; lo is returned if nothing
+// verifies (lo must be a known lower bound: 0 always is, since the stage-A
+// pencil is positive semidefinite as c_T ≥ 0 and α ≥ 0).
+func verifiedDiscreteLower(k, m *band.ISym, mMin, lo, hi float64, index int) float64 {
+	km, mm := k.Mid(), m.Mid()
+	shifted := band.NewSym(km.N, km.W)
+	var f band.LDL
+	below := func(sigma float64) int { // approximate count, a choice
+		for i := range shifted.Data {
+			shifted.Data[i] = km.Data[i] - sigma*mm.Data[i]
 		}
-		delta *= 4
+		if !f.Factorize(shifted) {
+			return index // treat a breakdown as "too high"
+		}
+		return f.NegCount()
 	}
-	return 0
+	a, b := lo, hi
+	for it := 0; it < 100 && b-a > 1e-15*b; it++ {
+		mid := a + (b-a)/2
+		if below(mid) <= index-1 {
+			a = mid
+		} else {
+			b = mid
+		}
+	}
+	delta := 1e-13 * a
+	for try := 0; try < 30 && a-delta > lo; try++ {
+		n, sigmaPrime, ok := band.CountBelow(k, m, mMin, a-delta)
+		if ok && n <= index-1 {
+			return math.Max(sigmaPrime, lo)
+		}
+		delta *= 8
+	}
+	return lo
 }
 
 // ends converts the problem's boundary conditions to the 1D element ends.

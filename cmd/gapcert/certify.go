@@ -1,0 +1,133 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/certs"
+	"gapcert/certs/certify"
+	"gapcert/fem/problem"
+	"gapcert/interval/decimalio"
+)
+
+// certifyFlags are the options shared by certify and demo.
+type certifyFlags struct {
+	out       string
+	relWidth  string
+	timeLimit time.Duration
+	quiet     bool
+}
+
+func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
+	cmd.Flags().StringVarP(&f.out, "output", "o", defaultOut, "where to write the certificate (JSON)")
+	cmd.Flags().StringVar(&f.relWidth, "rel-width", "", "target relative width of λ1, λ2 and the gap (default: the problem's target)")
+	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", certify.DefaultTimeLimit, "budget for refinement")
+	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
+}
+
+func newCertifyCmd() *cobra.Command {
+	var f certifyFlags
+	cmd := &cobra.Command{
+		Use:   "certify FILE",
+		Short: "Enclose the lowest eigenvalues and the gap of a problem and write a certificate",
+		Long: `certify reads the problem file FILE, computes verified enclosures of
+λ1 … λm (m = the problem's "eigenvalues") and of the gap λ2 − λ1, prints
+them as a table and writes the certificate (by default next to FILE, with
+the extension .cert.json).
+
+Upper bounds come from the Rayleigh–Ritz method, lower bounds from the
+projection bound of Liu and the Lehmann–Goerisch method; every bound is
+computed in outward rounded interval arithmetic. The mesh and the degree are
+refined until the target relative width is reached or --time-limit is
+spent; if the target is not reached the certificate says so and records
+the widths reached (its bounds are verified either way).
+
+Exit status: 0 on success, 1 on a failure, 2 if the problem file is invalid.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			p, err := loadProblem(args[0])
+			if err != nil {
+				return err
+			}
+			out := f.out
+			if out == "" {
+				out = strings.TrimSuffix(args[0], filepath.Ext(args[0])) + ".cert.json"
+			}
+			return runCertify(cmd, p, f, out)
+		},
+	}
+	f.register(cmd, "")
+	return cmd
+}
+
+// runCertify certifies p, prints the table and writes the certificate.
+func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out string) error {
+	opt := certify.Options{TimeLimit: f.timeLimit, Tool: "gapcert " + Version}
+	if f.relWidth != "" {
+		w, err := decimalio.Parse(f.relWidth)
+		if err != nil || !(w.Lo > 0 && w.Hi < 1) {
+			return &exitError{code: exitFailure, err: fmt.Errorf("--rel-width %q: want a number in (0, 1)", f.relWidth)}
+		}
+		opt.RelWidth = w.Hi
+	}
+	if !f.quiet && isTerminal(cmd.ErrOrStderr()) {
+		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
+	}
+	c, err := certify.Certify(p, opt)
+	if err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	if err := os.WriteFile(out, data, 0o644); err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	printCertificate(cmd.OutOrStdout(), p, c)
+	fmt.Fprintf(cmd.OutOrStdout(), "\ncertificate written to %s\n", out)
+	return nil
+}
+
+// printCertificate writes the human-readable table of a certificate.
+func printCertificate(w io.Writer, p *problem.Problem, c *certs.Certificate) {
+	name := p.Name
+	if name == "" {
+		name = "(unnamed)"
+	}
+	fmt.Fprintf(w, "problem %s  sha256 %s\n\n", name, c.ProblemSHA256)
+	fmt.Fprintf(w, "%-10s %-26s %-26s %s\n", "", "lower", "upper", "rel. width")
+	for _, e := range c.Results.Eigenvalues {
+		label := fmt.Sprintf("lambda%d", e.Index)
+		fmt.Fprintf(w, "%-10s %-26s %-26s %s\n", label, e.Lower, e.Upper, c.Results.RelativeWidths[label])
+	}
+	fmt.Fprintf(w, "%-10s %-26s %-26s %s\n", "gap", c.Results.Gap.Lower, c.Results.Gap.Upper, c.Results.RelativeWidths["gap"])
+	fmt.Fprintf(w, "%-10s %-26s %-26s\n", "D", c.Results.Diameter.Lower, c.Results.Diameter.Upper)
+	fmt.Fprintf(w, "%-10s %-26s %-26s\n", "D²·gap/π²", c.Results.GapD2OverPi2.Lower, c.Results.GapD2OverPi2.Upper)
+	if len(c.Claims) > 0 {
+		fmt.Fprintln(w, "\nclaims:")
+		for _, cl := range c.Claims {
+			fmt.Fprintf(w, "  %-10s %s   (lhs − rhs ∈ [%s, %s])\n", cl.Verdict, cl.Text, cl.Margin.Lower, cl.Margin.Upper)
+		}
+	}
+	for _, warn := range c.Warnings {
+		fmt.Fprintf(w, "\nwarning: %s\n", warn)
+	}
+}
+
+// isTerminal reports whether w is a character device (progress lines are
+// shown only on a terminal).
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}

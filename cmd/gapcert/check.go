@@ -1,0 +1,43 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"os"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/certs/certify"
+)
+
+func newCheckCmd() *cobra.Command {
+	return &cobra.Command{
+		Use:   "check CERT.json",
+		Short: "Re-verify a certificate by recomputing it",
+		Long: `check reads a certificate, verifies that its format version is known and
+that the recorded problem hashes to problem_sha256, recomputes every bound
+from the recorded problem and method with the same deterministic code, and
+demands that the recomputation reproduce every recorded bound, stage bound
+and claim verdict digit for digit.
+
+Exit status: 0 if the certificate verifies, 1 if it cannot be read, 3 if it
+does not verify (each difference is listed).`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			data, err := os.ReadFile(args[0])
+			if err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
+			err = certify.Check(data)
+			var mm *certify.MismatchError
+			switch {
+			case errors.As(err, &mm):
+				return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", args[0], err)}
+			case err != nil:
+				return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", args[0], err)}
+			}
+			fmt.Fprintf(cmd.OutOrStdout(), "%s: certificate verifies (recomputed bounds, hash and claims agree)\n", args[0])
+			return nil
+		},
+	}
+}
