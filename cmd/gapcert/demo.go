@@ -9,9 +9,10 @@ import (
 )
 
 // demoProblem is the built-in problem of "gapcert demo": a symmetric double
-// well, whose two lowest states are split by tunnelling, so the gap is
-// small compared with 3π²/D² and the convex-potential gap bound (which does
-// not apply: V is not convex) fails.
+// well V = 6(x² − 1)² on (−5/2, 5/2), whose two lowest states are split by
+// tunnelling. Its gap is certified below 3π²/D², so the claim of the
+// convex-potential gap bound comes out "fails": the theorem needs a convex
+// V, and this V is not convex.
 //
 //go:embed demo_problem.json
 var demoProblem []byte

@@ -1,0 +1,106 @@
+package main
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"gapcert/certs"
+	"gapcert/interval/decimalio"
+)
+
+// TestCertifyAndCheck runs the two commands of a referee's workflow on a
+// problem file: certify writes a certificate that check accepts, and an
+// edited certificate is rejected with exit status 3.
+func TestCertifyAndCheck(t *testing.T) {
+	dir := t.TempDir()
+	cert := filepath.Join(dir, "harmonic.cert.json")
+	code, out, errs := execute("certify", filepath.Join(testdata, "interval_harmonic.json"), "-o", cert, "--rel-width", "1e-8")
+	if code != exitOK {
+		t.Fatalf("certify: exit %d, stderr %q", code, errs)
+	}
+	for _, want := range []string{"lambda1", "lambda2", "gap", "D²·gap/π²", "certificate written to " + cert} {
+		if !strings.Contains(out, want) {
+			t.Errorf("certify output lacks %q:\n%s", want, out)
+		}
+	}
+	if code, out, errs := execute("check", cert); code != exitOK || !strings.Contains(out, "verifies") {
+		t.Fatalf("check: exit %d, out %q, stderr %q", code, out, errs)
+	}
+	data, err := os.ReadFile(cert)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Weaken the first eigenvalue's lower bound by 1e-6: still a valid
+	// interval and a true statement, but not the recorded computation.
+	c, err := certs.Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lo, err := decimalio.Parse(c.Results.Eigenvalues[0].Lower)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c.Results.Eigenvalues[0].Lower = decimalio.FormatLower(lo.Lo-1e-6, 17)
+	editedBytes, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	edited := string(editedBytes)
+	if edited == string(data) {
+		t.Fatal("edit changed nothing")
+	}
+	bad := filepath.Join(dir, "edited.cert.json")
+	if err := os.WriteFile(bad, []byte(edited), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if code, _, errs := execute("check", bad); code != exitMismatch || !strings.Contains(errs, "does not verify") {
+		t.Errorf("check of an edited certificate: exit %d, stderr %q", code, errs)
+	}
+}
+
+// TestCertifyBadInput: an invalid problem exits 2 and names the defect; a
+// bad flag value exits 1.
+func TestCertifyBadInput(t *testing.T) {
+	dir := t.TempDir()
+	write := func(name, body string) string {
+		path := filepath.Join(dir, name)
+		if err := os.WriteFile(path, []byte(body), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return path
+	}
+	for _, tc := range []struct{ name, body, want string }{
+		{"log.json", `{"domain":{"interval":["-1","1"]},"potential":"log(x)","boundary":"dirichlet"}`, "potential"},
+		{"pole.json", `{"domain":{"interval":["0","1"]},"potential":"1/x","boundary":"dirichlet"}`, "potential"},
+		{"nan.json", `{"domain":{"interval":["0","NaN"]},"boundary":"dirichlet"}`, "domain.interval[1]"},
+	} {
+		code, _, errs := execute("certify", write(tc.name, tc.body), "-o", filepath.Join(dir, "out.json"))
+		if code != exitInvalid || !strings.Contains(errs, tc.want) {
+			t.Errorf("%s: exit %d, stderr %q (want 2 and %q)", tc.name, code, errs, tc.want)
+		}
+	}
+	good := filepath.Join(testdata, "interval_harmonic.json")
+	if code, _, _ := execute("certify", good, "--rel-width", "2"); code != exitFailure {
+		t.Errorf("--rel-width 2: exit %d, want %d", code, exitFailure)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "out.json")); err == nil {
+		t.Error("a certificate was written for an invalid problem")
+	}
+}
+
+// TestDemo: the built-in problem certifies without a file.
+func TestDemo(t *testing.T) {
+	cert := filepath.Join(t.TempDir(), "demo.cert.json")
+	code, out, errs := execute("demo", "-o", cert)
+	if code != exitOK {
+		t.Fatalf("demo: exit %d, stderr %q", code, errs)
+	}
+	if !strings.Contains(out, "double well") || !strings.Contains(out, "holds      gap > 0") {
+		t.Errorf("demo output:\n%s", out)
+	}
+	if code, _, errs := execute("check", cert); code != exitOK {
+		t.Errorf("check of the demo certificate: exit %d, stderr %q", code, errs)
+	}
+}
