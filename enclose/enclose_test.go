@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/big"
 	"math/rand/v2"
+	"os"
 	"testing"
 
 	"gapcert/interval"
@@ -356,6 +357,80 @@ func TestEigenvaluesUnboundedData(t *testing.T) {
 					t.Errorf("%v: CountBelow = %d, member a31 = %g has %d", bad, n, off, c)
 				}
 			}
+		}
+	}
+}
+
+// congruencePencil returns the integer pencil A = Pᵀ diag(mu) P, B = PᵀP:
+// Ax = μBx ⇔ Pᵀ(diag(mu) − μI)Px = 0, so for nonsingular P the
+// eigenvalues are exactly mu (common practice). Integer entries are exact
+// float64s, so the pencil is a point pencil.
+func congruencePencil(mu []int64, p [][]int64) (*Sym, *Sym) {
+	n := len(mu)
+	a, b := NewSym(n), NewSym(n)
+	for i := 0; i < n; i++ {
+		for j := 0; j <= i; j++ {
+			var sa, sb int64
+			for k := 0; k < n; k++ {
+				sa += p[k][i] * mu[k] * p[k][j]
+				sb += p[k][i] * p[k][j]
+			}
+			a.Set(i, j, interval.Point(float64(sa)))
+			b.Set(i, j, interval.Point(float64(sb)))
+		}
+	}
+	return a, b
+}
+
+func TestEigenvaluesGeneralizedKnown(t *testing.T) {
+	// Unit upper triangular P (det 1), and a fuller P.
+	p1 := [][]int64{{1, 2, -1, 3}, {0, 1, 4, -2}, {0, 0, 1, 5}, {0, 0, 0, 1}}
+	p2 := [][]int64{{2, 1, 0}, {1, 1, 1}, {0, 1, 3}} // det = 2(3 − 1) − 1(3 − 0) = 1
+	for _, tc := range []struct {
+		name string
+		mu   []int64
+		p    [][]int64
+		want []float64 // sorted mu
+	}{
+		{"simple", []int64{3, -1, 7, 2}, p1, []float64{-1, 2, 3, 7}},
+		{"double", []int64{5, 5, -2, 9}, p1, []float64{-2, 5, 5, 9}},
+		{"quadruple", []int64{4, 4, 4, 4}, p1, []float64{4, 4, 4, 4}},
+		{"3×3", []int64{1, 0, -6}, p2, []float64{-6, 0, 1}},
+	} {
+		a, b := congruencePencil(tc.mu, tc.p)
+		got, err := Eigenvalues(a, b)
+		if err != nil {
+			t.Fatalf("%s: %v", tc.name, err)
+		}
+		for i, e := range got {
+			if !e.Contains(tc.want[i]) {
+				t.Errorf("%s: μ_%d = %v does not contain %g", tc.name, i+1, e, tc.want[i])
+			}
+			if w := e.Wid() / 9; !(w <= 1e-12) {
+				t.Errorf("%s: μ_%d = %v: width %.2g relative to the scale 9", tc.name, i+1, e, w)
+			}
+		}
+	}
+}
+
+// TestEigenvaluesLongCampaign sweeps many random point and thick pencils up
+// to n = 40 (GAPCERT_LONG=1 only).
+func TestEigenvaluesLongCampaign(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("set GAPCERT_LONG=1")
+	}
+	r := rand.New(rand.NewPCG(2026, 12))
+	for trial := 0; trial < 200; trial++ {
+		n := 1 + r.IntN(40)
+		a0, b0 := randomPencil(n, uint64(trial)+1000)
+		rad := []float64{0, 1e-14, 1e-9, 1e-4}[trial%4]
+		a, b := thicken(pointSym(a0, n), rad), thicken(pointSym(b0, n), rad/float64(4*n))
+		got, err := Eigenvalues(a, b)
+		if err != nil {
+			t.Fatalf("trial %d (n=%d, rad=%g): %v", trial, n, rad, err)
+		}
+		for sample := 0; sample < 3; sample++ {
+			checkEnclosures(t, "campaign", member(a, r, sample), member(b, r, sample), n, got)
 		}
 	}
 }
