@@ -18,6 +18,15 @@
 // not smooth) on all of its argument box, the functions return an error
 // naming the sub-expression instead of clipping the box.
 //
+// Errors: *SyntaxError (text, with a 1-based column and a hint),
+// *EvalError naming the failing sub-expression and wrapping an
+// *interval.DomainError (not defined on the box) or a *SmoothnessError
+// (not differentiable on the box), and *UnboundError (a variable without
+// a value).
+//
+// Ranges over triangles are computed over the triangle itself, by affine
+// forms in the triangle's coordinates intersected with box enclosures, and
+// by midpoint subdivision where a domain is not decided (RangeTriangle).
 // Taylor coefficients come from truncated Taylor-series arithmetic (jets)
 // with interval coefficients in one, two or more variables; see the
 // comment in jet.go for the recurrences and Model1, Model2 for the

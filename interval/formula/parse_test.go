@@ -163,5 +163,22 @@ func FuzzParse(f *testing.F) {
 		if again.String() != text {
 			t.Fatalf("String round trip of %q: %q then %q", s, text, again.String())
 		}
+		// Evaluation never panics; errors are fine.
+		env := map[string]I{}
+		for _, v := range e.Vars() {
+			env[v] = I{Lo: -0.5, Hi: 2}
+		}
+		_, _ = e.Eval(env)
+		_, _ = e.Polynomial()
+		params := map[string]I{}
+		for v, val := range env {
+			if v != "x" && v != "y" {
+				params[v] = val
+			}
+		}
+		b := e.Bind(params)
+		_, _ = b.Model2([3][2]I{{pt(0), pt(0)}, {pt(1), pt(0)}, {pt(0), pt(1)}}, 2)
+		_, _ = b.Bind(map[string]I{"y": pt(0.5)}).Model1(pt(0.25), pt(0.5), 3)
+		_, _ = b.RangeTriangle([3][2]I{{pt(0), pt(0)}, {pt(1), pt(0)}, {pt(0), pt(1)}})
 	})
 }
