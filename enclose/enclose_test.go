@@ -414,14 +414,15 @@ func TestEigenvaluesGeneralizedKnown(t *testing.T) {
 }
 
 // TestEigenvaluesLongCampaign sweeps many random point and thick pencils up
-// to n = 40 (GAPCERT_LONG=1 only).
+// to n = 16, each checked by exact rational inertia counts (GAPCERT_LONG=1
+// only; a few minutes).
 func TestEigenvaluesLongCampaign(t *testing.T) {
 	if os.Getenv("GAPCERT_LONG") != "1" {
 		t.Skip("set GAPCERT_LONG=1")
 	}
 	r := rand.New(rand.NewPCG(2026, 12))
-	for trial := 0; trial < 200; trial++ {
-		n := 1 + r.IntN(40)
+	for trial := 0; trial < 100; trial++ {
+		n := 1 + r.IntN(16)
 		a0, b0 := randomPencil(n, uint64(trial)+1000)
 		rad := []float64{0, 1e-14, 1e-9, 1e-4}[trial%4]
 		a, b := thicken(pointSym(a0, n), rad), thicken(pointSym(b0, n), rad/float64(4*n))
@@ -429,7 +430,7 @@ func TestEigenvaluesLongCampaign(t *testing.T) {
 		if err != nil {
 			t.Fatalf("trial %d (n=%d, rad=%g): %v", trial, n, rad, err)
 		}
-		for sample := 0; sample < 3; sample++ {
+		for sample := 0; sample < 2; sample++ {
 			checkEnclosures(t, "campaign", member(a, r, sample), member(b, r, sample), n, got)
 		}
 	}
