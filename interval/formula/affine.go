@@ -27,6 +27,13 @@ import (
 // F ⊇ f′(X) (the coefficients may depend on the point, which the
 // definition allows). Where f or f′ is not defined on X the form is the
 // constant f(range of A).
+//
+// References:
+//
+//	L. H. de Figueiredo and J. Stolfi, Affine arithmetic: concepts and
+//	applications, Numer. Algorithms 37 (2004) 147–158 (affine forms; here
+//	with the two triangle coordinates as noise symbols and an interval
+//	remainder).
 
 type aff struct {
 	c0, c1, c2, r interval.I

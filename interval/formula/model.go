@@ -69,6 +69,11 @@ func binomial(n, k int) interval.I {
 // polynomial in ξ − 1/2 is rewritten in powers of ξ by the binomial
 // theorem in interval arithmetic. If f is a polynomial of degree ≤ q the
 // degree-(q+1) jet is exactly [0, 0] and so is R.
+//
+// References:
+//
+//	K. Makino and M. Berz, Taylor models and other validated functional
+//	inclusion methods, Int. J. Pure Appl. Math. 4 (2003) 379–456.
 func (e *Expr) Model1(a, b interval.I, order int) (Model1, error) {
 	if order < 1 {
 		panic("formula: Model1 order must be ≥ 1")
