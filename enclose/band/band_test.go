@@ -432,3 +432,17 @@ func TestGershgorinLower(t *testing.T) {
 		t.Errorf("thick tridiag: %g, exact %s (difference %g)", got, exact.FloatString(20), d)
 	}
 }
+
+func BenchmarkLowestEigs(b *testing.B) {
+	for _, n := range []int{10000, 100000} {
+		k, m := powT(n, 1), massT(n)
+		b.Run(fmt.Sprintf("n=%d/count=2", n), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, _, err := LowestEigs(k, m, 2); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
