@@ -7,7 +7,7 @@ import (
 	"gapcert/interval"
 )
 
-// The P1 finite-element pencil of −u” on (0, 1) with Dirichlet conditions
+// The P1 finite-element pencil of −u″ on (0, 1) with Dirichlet conditions
 // and 64 uniform elements (h = 1/64): K = (1/h) tridiag(−1, 2, −1),
 // M = (h/6) tridiag(1, 4, 1) on the 63 interior nodes, with h/6 enclosed.
 // Its eigenvalues (6/h²)(1 − cos kπh)/(2 + cos kπh) are about 9.87 and
