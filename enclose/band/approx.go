@@ -163,9 +163,16 @@ func (s *subspace) factorShift(sigma float64) bool {
 	return s.f.Factorize(s.shifted) && s.f.NegCount() == 0
 }
 
-// chooseInitialShift returns a σ below the spectrum: a Gershgorin-type
-// estimate, lowered until K − σM factors with no negative pivot.
+// chooseInitialShift returns a σ below the spectrum: 0 when K itself
+// factors with no negative pivot (K positive definite, the common case of
+// shifted problems), else a Gershgorin-type estimate, lowered until
+// K − σM factors with no negative pivot. (A Gershgorin shift of a
+// high-order finite-element K lies far below λ_1 and makes the iteration
+// crawl, so it is only the fallback.)
 func (s *subspace) chooseInitialShift() (float64, bool) {
+	if s.factorShift(0) {
+		return 0, true
+	}
 	n := s.n
 	gk, mdiag := math.Inf(1), math.Inf(1)
 	normK := 0.0
@@ -290,6 +297,7 @@ func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 			try := theta[0] - math.Max(0.05*spread, 0.5*gap)
 			if s.factorShift(try) {
 				sigma = try
+				stall = 0 // a moved shift is progress of its own
 			} else if !s.factorShift(sigma) {
 				return nil, nil, ErrNotConverged
 			}
