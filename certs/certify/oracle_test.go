@@ -2,6 +2,7 @@ package certify
 
 import (
 	"math/big"
+	"sync"
 
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -27,8 +28,8 @@ func bigDec(s string) *big.Float {
 }
 
 // bigPi is π to 200 bits by Machin's formula π = 16 atan(1/5) − 4 atan(1/239)
-// (common practice).
-func bigPi() *big.Float {
+// (common practice), computed once.
+var bigPi = sync.OnceValue(func() *big.Float {
 	atanInv := func(n int64) *big.Float {
 		x := new(big.Float).SetPrec(oraclePrec).SetInt64(n)
 		x2 := new(big.Float).SetPrec(oraclePrec).Mul(x, x)
@@ -47,18 +48,20 @@ func bigPi() *big.Float {
 	}
 	p := new(big.Float).SetPrec(oraclePrec).Mul(big.NewFloat(16), atanInv(5))
 	return p.Sub(p, new(big.Float).SetPrec(oraclePrec).Mul(big.NewFloat(4), atanInv(239)))
-}
+})
 
 // bigSinCos returns sin x and cos x by their Taylor series after reduction
-// modulo 2π (|x| ≤ 100 here; 300 terms are far more than enough).
+// to |x| ≤ π, summed until the terms fall below 2⁻²³⁰.
 func bigSinCos(x *big.Float) (s, c *big.Float) {
 	twoPi := new(big.Float).SetPrec(oraclePrec).Mul(big.NewFloat(2), bigPi())
 	q := new(big.Float).SetPrec(oraclePrec).Quo(x, twoPi)
-	n, _ := q.Int(nil)
+	q.Add(q, big.NewFloat(0.5))
+	n, _ := q.Int(nil) // nearest multiple of 2π (x > 0 here)
 	x = new(big.Float).SetPrec(oraclePrec).Sub(x, new(big.Float).SetPrec(oraclePrec).Mul(new(big.Float).SetInt(n), twoPi))
 	s, c = new(big.Float).SetPrec(oraclePrec), new(big.Float).SetPrec(oraclePrec)
 	term := new(big.Float).SetPrec(oraclePrec).SetInt64(1)
-	for k := int64(0); k < 300; k++ {
+	eps := new(big.Float).SetMantExp(big.NewFloat(1), -230)
+	for k := int64(0); k < 400 && new(big.Float).Abs(term).Cmp(eps) > 0; k++ {
 		switch k % 4 {
 		case 0:
 			c.Add(c, term)
