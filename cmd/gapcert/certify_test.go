@@ -75,6 +75,7 @@ func TestCertifyBadInput(t *testing.T) {
 		{"log.json", `{"domain":{"interval":["-1","1"]},"potential":"log(x)","boundary":"dirichlet"}`, "potential"},
 		{"pole.json", `{"domain":{"interval":["0","1"]},"potential":"1/x","boundary":"dirichlet"}`, "potential"},
 		{"nan.json", `{"domain":{"interval":["0","NaN"]},"boundary":"dirichlet"}`, "domain.interval[1]"},
+		{"overflow.json", `{"domain":{"interval":["0","10"]},"potential":"exp(exp(exp(x)))","boundary":"dirichlet"}`, "unbounded above"},
 	} {
 		code, _, errs := execute("certify", write(tc.name, tc.body), "-o", filepath.Join(dir, "out.json"))
 		if code != exitInvalid || !strings.Contains(errs, tc.want) {
