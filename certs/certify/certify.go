@@ -103,10 +103,7 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 // stage B, whose weight is 1/c). inf V is taken from a verified enclosure
 // of V over the whole interval.
 func initialRecipe(p *problem.Problem) (recipe, error) {
-	vr, err := potentialRange(p)
-	if err != nil {
-		return recipe{}, fmt.Errorf("certify: potential: %w", err)
-	}
+	vr := p.PotentialRange()
 	if !vr.IsBounded() {
 		return recipe{}, fmt.Errorf("certify: the potential is not bounded on the interval (enclosure %v)", vr)
 	}

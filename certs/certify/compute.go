@@ -211,9 +211,3 @@ func ends(p *problem.Problem) (left, right line.End) {
 	}
 	return conv(p.Boundary[0]), conv(p.Boundary[1])
 }
-
-// potentialRange encloses V over the whole interval.
-func potentialRange(p *problem.Problem) (interval.I, error) {
-	dom := p.Interval[0].Val.Hull(p.Interval[1].Val)
-	return p.Potential.Eval(map[string]interval.I{"x": dom})
-}
