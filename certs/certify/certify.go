@@ -75,8 +75,8 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 			return nil, err
 		}
 		if opt.Progress != nil {
-			opt.Progress("cells %d, degree %d, stage-A cells %d: widths lambda1 %.2g, lambda2 %.2g, gap %.2g (%.2fs)\n",
-				r.cells, r.degree, r.stageACells, res.widths[0], res.widths[1], res.gapWidth, time.Since(t0).Seconds())
+			opt.Progress("%s: widths lambda1 %.2g, lambda2 %.2g, gap %.2g (%.2fs)\n",
+				r.describe(), res.widths[0], res.widths[1], res.gapWidth, time.Since(t0).Seconds())
 		}
 		if best == nil || res.worst() <= best.worst() {
 			best = res
@@ -114,6 +114,10 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	if poly, ok := p.Potential.Polynomial(); ok {
 		taylor = max(poly.Degree(), 1) // exact model
 	}
+	if p.Dim == 2 {
+		return recipe{degree: 4, taylor: min(taylor, polygonModelOrder), gamma: roundShift(g), scale: scale.Lo,
+			refine: 2, stageARefine: 3}, nil
+	}
 	return recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, gamma: roundShift(g), scale: scale.Lo}, nil
 }
 
@@ -128,6 +132,10 @@ func roundShift(g float64) float64 {
 	return math.Ceil(g/unit) * unit
 }
 
+// maxPolygonRefine bounds the uniform refinement levels of a polygon's
+// stage-A mesh (each level has four times the triangles).
+const maxPolygonRefine = 9
+
 // modelOrder is the Taylor order of the models of a non-polynomial V and of
 // the weight 1/(V + γ). Measured on the Mathieu case (V = 2cos 2x on (0, π),
 // 16 cells, degree 8): the Lehmann–Goerisch width falls from 1e-6 at order 6
@@ -136,9 +144,28 @@ func roundShift(g float64) float64 {
 // the remainder instead.
 const modelOrder = 14
 
-// refine chooses the next recipe: raise the degree up to 10, then halve the
-// cells; refine the stage-A mesh when stage B could not separate.
+// polygonModelOrder is the Taylor order of the models of a non-polynomial
+// V on triangles (stage A needs only ranges; the Ritz matrices converge
+// at the rate of the P_p space, which the remainder must not spoil).
+const polygonModelOrder = 8
+
+// refine chooses the next recipe. Intervals: raise the degree up to 10,
+// then halve the cells; refine the stage-A mesh when stage B could not
+// separate. Polygons: stage A converges like h² and limits the widths, so
+// its mesh is refined every step and the trial mesh every other step;
+// re-entrant corners get one more grading level per step.
 func refine(r recipe, out *outcome) (recipe, bool) {
+	if r.refine > 0 || r.stageARefine > 0 {
+		if r.stageARefine >= maxPolygonRefine {
+			return r, false
+		}
+		r.stageARefine++
+		if r.stageARefine-r.refine > 1 {
+			r.refine++
+		}
+		r.graded++
+		return r, true
+	}
 	if out.n == 0 {
 		if r.stageACells >= 1<<16 {
 			return r, false
@@ -270,6 +297,9 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 	for k, l := range res.lambda {
 		env[fmt.Sprintf("lambda%d", k+1)] = l
 	}
+	if p.Dim == 2 {
+		env["area"], env["perimeter"] = p.Area(), p.Perimeter()
+	}
 	for name, v := range p.Params {
 		env[name] = v.Val
 	}
@@ -296,17 +326,21 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 func (res *result) method() Method {
 	r, out := res.r, res.out
 	m := Method{
-		Kind:               "interval-1d",
-		Cells:              r.cells,
+		Kind:               kindInterval,
 		Degree:             r.degree,
-		FluxDegree:         r.fluxDegree,
 		TaylorOrder:        r.taylor,
-		WeightOrder:        r.weightTaylor,
-		StageACells:        r.stageACells,
 		Gamma:              decimalio.FormatExact(r.gamma),
 		N:                  out.n,
 		ProjectionConstant: decimalio.FormatUpper(out.ch.Hi, Digits),
 		Theorems:           theorems1D,
+	}
+	if out.polygon != nil {
+		m.Kind, m.Theorems = kindPolygon, theoremsPolygon
+		m.Refinements, m.StageARefinements, m.GradedLevels = r.refine, r.stageARefine, r.graded
+		m.StageASpace = out.polygon.stageASpace
+		m.Triangles, m.StageATriangles = out.polygon.triangles, out.polygon.stageATriangles
+	} else {
+		m.Cells, m.FluxDegree, m.WeightOrder, m.StageACells = r.cells, r.fluxDegree, r.weightTaylor, r.stageACells
 	}
 	if out.n > 0 {
 		m.Rho = decimalio.FormatExact(out.rho)

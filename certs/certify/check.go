@@ -53,16 +53,18 @@ func Check(data []byte) error {
 	if err := dec.Decode(&m); err != nil {
 		return fmt.Errorf("the method block does not parse: %w", err)
 	}
-	if m.Kind != "interval-1d" {
-		return fmt.Errorf("unknown method kind %q", m.Kind)
+	if (m.Kind != kindInterval || p.Dim != 1) && (m.Kind != kindPolygon || p.Dim != 2) {
+		return fmt.Errorf("method kind %q does not fit a %d-dimensional problem", m.Kind, p.Dim)
 	}
 	gamma, err := decimalio.Parse(m.Gamma)
 	if err != nil || !gamma.IsPoint() {
 		return fmt.Errorf("method.gamma %q is not an exact float64", m.Gamma)
 	}
-	r := recipe{cells: m.Cells, degree: m.Degree, fluxDegree: m.FluxDegree, taylor: m.TaylorOrder, weightTaylor: m.WeightOrder, stageACells: m.StageACells, gamma: gamma.Lo}
+	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo,
+		cells: m.Cells, fluxDegree: m.FluxDegree, weightTaylor: m.WeightOrder, stageACells: m.StageACells,
+		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels}
 	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
-	if err := r.validate(); err != nil {
+	if err := r.validate(p.Dim); err != nil {
 		return err
 	}
 	out, err := compute(p, r)
@@ -111,22 +113,35 @@ func Check(data []byte) error {
 
 // validate rejects recipes that the computation cannot run (a certificate
 // with absurd numbers must fail cleanly, not exhaust memory).
-func (r recipe) validate() error {
+func (r recipe) validate(dim int) error {
+	switch {
+	case r.degree < 1 || r.degree > 16:
+		return fmt.Errorf("method.degree %d out of range", r.degree)
+	case r.taylor < 1 || r.taylor > 32:
+		return fmt.Errorf("method.taylor_order %d out of range", r.taylor)
+	case r.gamma < 0:
+		return fmt.Errorf("method.gamma is negative")
+	}
+	if dim == 2 {
+		switch {
+		case r.refine < 0 || r.refine > maxPolygonRefine:
+			return fmt.Errorf("method.refinements %d out of range", r.refine)
+		case r.stageARefine < 0 || r.stageARefine > maxPolygonRefine:
+			return fmt.Errorf("method.stage_a_refinements %d out of range", r.stageARefine)
+		case r.graded < 0 || r.graded > 2*maxPolygonRefine:
+			return fmt.Errorf("method.graded_levels %d out of range", r.graded)
+		}
+		return nil
+	}
 	switch {
 	case r.cells < 1 || r.cells > 1<<16:
 		return fmt.Errorf("method.cells %d out of range", r.cells)
-	case r.degree < 1 || r.degree > 16:
-		return fmt.Errorf("method.degree %d out of range", r.degree)
 	case r.fluxDegree < 1 || r.fluxDegree > 17:
 		return fmt.Errorf("method.flux_degree %d out of range", r.fluxDegree)
-	case r.taylor < 1 || r.taylor > 32:
-		return fmt.Errorf("method.taylor_order %d out of range", r.taylor)
 	case r.weightTaylor < 1 || r.weightTaylor > 32:
 		return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
 	case r.stageACells < 1 || r.stageACells > 1<<20:
 		return fmt.Errorf("method.stage_a_cells %d out of range", r.stageACells)
-	case r.gamma < 0:
-		return fmt.Errorf("method.gamma is negative")
 	}
 	return nil
 }

@@ -15,12 +15,28 @@ import (
 
 // recipe is the input of one deterministic computation.
 type recipe struct {
-	cells, degree, fluxDegree int
-	taylor                    int // order of the Taylor models of V
-	weightTaylor              int // order of the Taylor models of 1/(V + γ)
-	stageACells               int
-	gamma                     float64
-	scale                     float64 // π²/D² rounded down; only for choosing shifts
+	degree int // p of the conforming trial space
+	taylor int // order of the Taylor models of V
+	gamma  float64
+	scale  float64 // π²/D² rounded down; only for choosing shifts
+
+	// Intervals.
+	cells, fluxDegree int
+	weightTaylor      int // order of the Taylor models of 1/(V + γ)
+	stageACells       int
+
+	// Polygons: uniform refinements of the initial triangulation for the
+	// trial space and for stage A, and extra levels toward re-entrant
+	// corners (both meshes).
+	refine, stageARefine, graded int
+}
+
+// describe is a one-line summary of the recipe for progress lines.
+func (r recipe) describe() string {
+	if r.refine > 0 || r.stageARefine > 0 {
+		return fmt.Sprintf("refinements %d, degree %d, stage-A refinements %d, graded %d", r.refine, r.degree, r.stageARefine, r.graded)
+	}
+	return fmt.Sprintf("cells %d, degree %d, stage-A cells %d", r.cells, r.degree, r.stageACells)
 }
 
 // outcome holds the verified one-sided bounds of Λ_k = λ_k + γ that one
@@ -33,6 +49,14 @@ type outcome struct {
 	rho    float64
 	ch     interval.I
 	notes  []string
+
+	polygon *polygonRecord // nil for intervals
+}
+
+// polygonRecord is what a polygon computation records besides its bounds.
+type polygonRecord struct {
+	stageASpace                string
+	triangles, stageATriangles int
 }
 
 // extraIndices is how many eigenvalues past the requested ones are bounded,
@@ -46,8 +70,8 @@ const stageATaylor = 4
 // compute runs the three stages once. Every number it returns as a bound is
 // verified; the floating-point parts only choose vectors, shifts and fluxes.
 func compute(p *problem.Problem, r recipe) (*outcome, error) {
-	if p.Dim != 1 {
-		return nil, errors.New("certify: only interval problems are supported by this driver")
+	if p.Dim == 2 {
+		return nil, errors.New("certify: polygons are not supported yet")
 	}
 	want := p.Eigenvalues + extraIndices
 	gamma := interval.Point(r.gamma)

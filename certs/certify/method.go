@@ -1,18 +1,29 @@
 package certify
 
-// Method is the "method" object of a 1D certificate. Its recipe fields
-// (Cells … Gamma) are the inputs of the deterministic computation that Check
-// repeats; the remaining fields are its outputs, recorded so that a reader
-// sees each stage's contribution and Check can compare them.
+// Method is the "method" object of a certificate. Its recipe fields (from
+// Kind to StageARefinements/GradedLevels) are the inputs of the
+// deterministic computation that Check repeats; the remaining fields are
+// its outputs, recorded so that a reader sees each stage's contribution and
+// Check can compare them.
 type Method struct {
-	Kind        string `json:"kind"`                // "interval-1d"
-	Cells       int    `json:"cells"`               // uniform cells of the P_p mesh
-	Degree      int    `json:"degree"`              // p of the conforming trial space
-	FluxDegree  int    `json:"flux_degree"`         // q of the continuous flux space
-	TaylorOrder int    `json:"taylor_order"`        // order of the Taylor models of V
-	WeightOrder int    `json:"weight_taylor_order"` // order of the Taylor models of 1/(V+γ)
-	StageACells int    `json:"stage_a_cells"`
-	Gamma       string `json:"gamma"` // the shift γ, an exact float64 in exact decimal
+	Kind        string `json:"kind"`         // kindInterval or kindPolygon
+	Degree      int    `json:"degree"`       // p of the conforming trial space
+	TaylorOrder int    `json:"taylor_order"` // order of the Taylor models of V
+	Gamma       string `json:"gamma"`        // the shift γ, an exact float64 in exact decimal
+
+	// Intervals.
+	Cells       int `json:"cells,omitempty"`               // uniform cells of the P_p mesh
+	FluxDegree  int `json:"flux_degree,omitempty"`         // q of the continuous flux space
+	WeightOrder int `json:"weight_taylor_order,omitempty"` // order of the Taylor models of 1/(V+γ)
+	StageACells int `json:"stage_a_cells,omitempty"`
+
+	// Polygons.
+	Refinements       int    `json:"refinements,omitempty"`         // uniform refinements of the trial mesh
+	StageARefinements int    `json:"stage_a_refinements,omitempty"` // uniform refinements of the stage-A mesh
+	GradedLevels      int    `json:"graded_levels,omitempty"`       // extra levels toward each re-entrant corner
+	StageASpace       string `json:"stage_a_space,omitempty"`       // "crouzeix-raviart" or "enriched-crouzeix-raviart"
+	Triangles         int    `json:"triangles,omitempty"`           // triangles of the trial mesh (a record, not an input)
+	StageATriangles   int    `json:"stage_a_triangles,omitempty"`
 
 	N                  int      `json:"n"`                   // trial functions in stage B
 	Rho                string   `json:"rho"`                 // ρ̂ ≤ Λ_{N+1}, exact float64 in exact decimal; "" if stage B did not run
@@ -35,10 +46,23 @@ type StageBound struct {
 	Bound string `json:"bound"`
 }
 
+// Method kinds.
+const (
+	kindInterval = "interval-1d"
+	kindPolygon  = "polygon-2d"
+)
+
 // theorems1D are the results a 1D certificate relies on.
 var theorems1D = []string{
 	"min-max principle (Courant-Fischer): Rayleigh-Ritz upper bounds",
 	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds, C_h = h_max/(2 pi) for the mean-preserving P2 space",
 	"Lehmann-Goerisch: H. Behnke, F. Goerisch, Topics in Validated Computations (1994) 277-322; T. Vejchodsky, arXiv:1602.08961",
+	"Sylvester's law of inertia: verified eigenvalue counts",
+}
+
+// theoremsPolygon are the results a polygon certificate relies on.
+var theoremsPolygon = []string{
+	"min-max principle (Courant-Fischer): Rayleigh-Ritz upper bounds",
+	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds with (enriched) Crouzeix-Raviart elements",
 	"Sylvester's law of inertia: verified eigenvalue counts",
 }
