@@ -1,0 +1,91 @@
+package mesh
+
+import "sort"
+
+// Edges returns the unique edges of m as node pairs (a, b) with a < b,
+// sorted by a and then b, and for each triangle the indices of its local
+// edges: triEdges[t][i] is the edge opposite local vertex i, joining local
+// vertices i+1 and i+2 (mod 3). The numbering depends only on Tris.
+func (m *Mesh) Edges() (edges [][2]int, triEdges [][3]int) {
+	n := len(m.Nodes)
+	// Bucket the 3·len(Tris) half-edges by their smaller node.
+	start := make([]int, n+1)
+	for _, tri := range m.Tris {
+		for i := 0; i < 3; i++ {
+			a, _ := edgeKey(tri, i)
+			start[a+1]++
+		}
+	}
+	for a := 0; a < n; a++ {
+		start[a+1] += start[a]
+	}
+	type half struct{ b, slot int } // other node, 3t+i
+	halves := make([]half, start[n])
+	fill := append([]int(nil), start[:n]...)
+	for t, tri := range m.Tris {
+		for i := 0; i < 3; i++ {
+			a, b := edgeKey(tri, i)
+			halves[fill[a]] = half{b, 3*t + i}
+			fill[a]++
+		}
+	}
+	triEdges = make([][3]int, len(m.Tris))
+	for a := 0; a < n; a++ {
+		bucket := halves[start[a]:start[a+1]]
+		sort.Slice(bucket, func(i, j int) bool {
+			if bucket[i].b != bucket[j].b {
+				return bucket[i].b < bucket[j].b
+			}
+			return bucket[i].slot < bucket[j].slot
+		})
+		for j, h := range bucket {
+			if j == 0 || h.b != bucket[j-1].b {
+				edges = append(edges, [2]int{a, h.b})
+			}
+			triEdges[h.slot/3][h.slot%3] = len(edges) - 1
+		}
+	}
+	return edges, triEdges
+}
+
+// edgeKey returns the nodes (a < b) of local edge i of tri.
+func edgeKey(tri [3]int, i int) (a, b int) {
+	a, b = tri[(i+1)%3], tri[(i+2)%3]
+	if a > b {
+		a, b = b, a
+	}
+	return a, b
+}
+
+// edgeIndex finds the number of an edge from its nodes.
+type edgeIndex struct {
+	start []int // edges with smaller node a are other[start[a]:start[a+1]]
+	other []int // their larger nodes, increasing
+}
+
+// newEdgeIndex indexes edges as returned by Edges (sorted by (a, b)), so
+// that edge k sits at position k.
+func newEdgeIndex(n int, edges [][2]int) edgeIndex {
+	x := edgeIndex{start: make([]int, n+1), other: make([]int, len(edges))}
+	for k, e := range edges {
+		x.start[e[0]+1]++
+		x.other[k] = e[1]
+	}
+	for a := 0; a < n; a++ {
+		x.start[a+1] += x.start[a]
+	}
+	return x
+}
+
+// find returns the number of the edge joining a and b, or −1.
+func (x edgeIndex) find(a, b int) int {
+	if a > b {
+		a, b = b, a
+	}
+	lo, hi := x.start[a], x.start[a+1]
+	k := lo + sort.SearchInts(x.other[lo:hi], b)
+	if k < hi && x.other[k] == b {
+		return k
+	}
+	return -1
+}
