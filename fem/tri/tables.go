@@ -1,0 +1,203 @@
+package tri
+
+import (
+	"math/big"
+	"sync"
+
+	"gapcert/interval"
+	"gapcert/interval/decimalio"
+)
+
+// This file holds the exact rational tables of the Bernstein calculus on a
+// triangle T with barycentric coordinates λ = (λ_0, λ_1, λ_2). Each table is
+// computed once in math/big and kept as the tightest float64 enclosure of
+// every entry (proving side) and as the nearest float64 (choosing side).
+//
+// For a multi-index α = (α_0, α_1, α_2) with |α| = n the Bernstein
+// polynomial is B^n_α = C(n, α) λ^α, C(n, α) = n!/(α_0! α_1! α_2!). The
+// identities used, all exact (R. T. Farouki, The Bernstein polynomial basis:
+// a centennial retrospective, Comput. Aided Geom. Design 29 (2012); the
+// integral is the classical formula for barycentric monomials, e.g.
+// Eisenberg–Malvern 1973):
+//
+//	∫_T λ_0^a λ_1^b λ_2^c = 2|T| a! b! c! / (a + b + c + 2)!         (integral)
+//	∫_T B^n_α = |T| / C(n + 2, 2)                                     (from it)
+//	B^m_α B^n_β = C(m, α) C(n, β) / C(m + n, α + β) · B^(m+n)_(α+β)    (product)
+//	λ^γ = Σ_(δ≥γ) C(n − |γ|, δ − γ)/C(n, δ) · B^n_δ,  |γ| ≤ n         (monomials)
+//	Σ_α B^n_α = 1, B^n_α ≥ 0 on T                                     (range)
+//
+// The last identity makes the value of Σ b_α B^n_α at any point of T a
+// convex combination of the b_α, so it lies in their hull.
+
+// index enumerates the multi-indices of degree n in the fixed order
+// α = (n − i − j, i, j) for i = 0..n, j = 0..n − i.
+type index struct {
+	n     int
+	alpha [][3]int
+	pos   map[[3]int]int
+}
+
+var (
+	indexMu    sync.Mutex
+	indexCache = map[int]*index{}
+)
+
+// multiIndex returns the enumeration of degree n (cached; read-only).
+func multiIndex(n int) *index {
+	indexMu.Lock()
+	defer indexMu.Unlock()
+	if ix, ok := indexCache[n]; ok {
+		return ix
+	}
+	ix := &index{n: n, pos: map[[3]int]int{}}
+	for i := 0; i <= n; i++ {
+		for j := 0; j <= n-i; j++ {
+			a := [3]int{n - i - j, i, j}
+			ix.pos[a] = len(ix.alpha)
+			ix.alpha = append(ix.alpha, a)
+		}
+	}
+	indexCache[n] = ix
+	return ix
+}
+
+// dim returns (n+1)(n+2)/2, the dimension of P_n on a triangle.
+func dim(n int) int { return (n + 1) * (n + 2) / 2 }
+
+// table is an exact rational array with its enclosures and nearest floats.
+type table struct {
+	iv []interval.I
+	fl []float64
+}
+
+type tableKey struct {
+	kind    byte
+	a, b, c int
+}
+
+var (
+	tableMu    sync.Mutex
+	tableCache = map[tableKey]*table{}
+)
+
+// cached returns the table for key, building it from exact rationals once.
+func cached(key tableKey, build func() []*big.Rat) *table {
+	tableMu.Lock()
+	defer tableMu.Unlock()
+	if t, ok := tableCache[key]; ok {
+		return t
+	}
+	rs := build()
+	t := &table{iv: make([]interval.I, len(rs)), fl: make([]float64, len(rs))}
+	for i, r := range rs {
+		t.iv[i] = decimalio.FromRat(r)
+		t.fl[i], _ = r.Float64()
+	}
+	tableCache[key] = t
+	return t
+}
+
+func factorial(n int) *big.Int { return new(big.Int).MulRange(1, int64(max(n, 1))) }
+
+func binom(n, k int) *big.Int {
+	if k < 0 || k > n {
+		return new(big.Int)
+	}
+	return new(big.Int).Binomial(int64(n), int64(k))
+}
+
+// multinom returns C(|α|, α) = |α|!/(α_0! α_1! α_2!).
+func multinom(a [3]int) *big.Int {
+	r := factorial(a[0] + a[1] + a[2])
+	for _, k := range a {
+		r.Quo(r, factorial(k))
+	}
+	return r
+}
+
+func add3(a, b [3]int) [3]int { return [3]int{a[0] + b[0], a[1] + b[1], a[2] + b[2]} }
+
+// baryIntegralRat returns ∫_T λ_0^a λ_1^b λ_2^c / |T| = 2 a! b! c!/(a+b+c+2)!.
+func baryIntegralRat(a [3]int) *big.Rat {
+	num := new(big.Int).Mul(factorial(a[0]), factorial(a[1]))
+	num.Mul(num, factorial(a[2]))
+	num.Lsh(num, 1)
+	return new(big.Rat).SetFrac(num, factorial(a[0]+a[1]+a[2]+2))
+}
+
+// tripleTable returns T[(k·N_m + i)·N_n + j] = ∫_T B^r_κ B^m_α B^n_β / |T|
+// (κ, α, β the k-th, i-th, j-th multi-indices of degrees r, m, n)
+// = C(r,κ) C(m,α) C(n,β) / (C(r+m+n, κ+α+β) C(r+m+n+2, 2)). With r = 0 it
+// is the Gram matrix of the Bernstein bases of degrees m and n.
+func tripleTable(r, m, n int) *table {
+	return cached(tableKey{'t', r, m, n}, func() []*big.Rat {
+		ir, im, in := multiIndex(r), multiIndex(m), multiIndex(n)
+		s := r + m + n
+		tail := binom(s+2, 2)
+		out := make([]*big.Rat, 0, len(ir.alpha)*len(im.alpha)*len(in.alpha))
+		for _, k := range ir.alpha {
+			for _, a := range im.alpha {
+				for _, b := range in.alpha {
+					num := new(big.Int).Mul(multinom(k), multinom(a))
+					num.Mul(num, multinom(b))
+					den := new(big.Int).Mul(multinom(add3(add3(k, a), b)), tail)
+					out = append(out, new(big.Rat).SetFrac(num, den))
+				}
+			}
+		}
+		return out
+	})
+}
+
+// monomialTable returns W[k·N_q + t], the coefficient of B^q_δ (δ the
+// t-th multi-index of degree q) in λ_1^i λ_2^j, where (i, j) is the k-th
+// pair of monomialPairs(q): C(q − i − j, δ − γ)/C(q, δ) for δ ≥ γ =
+// (0, i, j), else 0.
+func monomialTable(q int) *table {
+	return cached(tableKey{'m', q, 0, 0}, func() []*big.Rat {
+		iq := multiIndex(q)
+		pairs := monomialPairs(q)
+		out := make([]*big.Rat, 0, len(pairs)*len(iq.alpha))
+		for _, ij := range pairs {
+			g := [3]int{0, ij[0], ij[1]}
+			for _, d := range iq.alpha {
+				w := new(big.Rat)
+				if d[1] >= g[1] && d[2] >= g[2] {
+					rest := [3]int{d[0], d[1] - g[1], d[2] - g[2]}
+					w.SetFrac(multinom(rest), multinom(d))
+				}
+				out = append(out, w)
+			}
+		}
+		return out
+	})
+}
+
+// monomialPairs returns the exponent pairs (i, j), i + j ≤ q, in the order
+// of monomialTable: i = 0..q, j = 0..q − i.
+func monomialPairs(q int) [][2]int {
+	var out [][2]int
+	for i := 0; i <= q; i++ {
+		for j := 0; j <= q-i; j++ {
+			out = append(out, [2]int{i, j})
+		}
+	}
+	return out
+}
+
+// edgeGramTable returns G[i·(p+1) + j] = ∫_0^1 B^p_i B^p_j dt =
+// C(p,i) C(p,j) / (C(2p, i+j)(2p+1)), the Gram matrix of the univariate
+// Bernstein basis on an edge parametrised by t ∈ [0, 1].
+func edgeGramTable(p int) *table {
+	return cached(tableKey{'e', p, 0, 0}, func() []*big.Rat {
+		out := make([]*big.Rat, 0, (p+1)*(p+1))
+		for i := 0; i <= p; i++ {
+			for j := 0; j <= p; j++ {
+				num := new(big.Int).Mul(binom(p, i), binom(p, j))
+				den := new(big.Int).Mul(binom(2*p, i+j), big.NewInt(int64(2*p+1)))
+				out = append(out, new(big.Rat).SetFrac(num, den))
+			}
+		}
+		return out
+	})
+}
