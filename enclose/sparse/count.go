@@ -1,0 +1,277 @@
+package sparse
+
+import (
+	"math"
+	"runtime"
+	"sync"
+	"sync/atomic"
+
+	"gapcert/interval"
+)
+
+// parallelWork is the number of residual multiply-adds above which
+// CountBelow spreads the residual enclosure over the available CPUs.
+const parallelWork = 1 << 16
+
+// CountBelow returns a verified count for the interval pencil ([K], [M]):
+// for every K ∈ [K] and M ∈ [M] with λ_min(M) ≥ mMin,
+//
+//	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
+//
+// sigma is a trial shift (a choice), mMin > 0 a caller-verified lower bound
+// of λ_min(M) over all members of [M]. CountBelow forms the floating-point
+// matrix S = mid(K) − σ·mid(M) on the union of the patterns of [K] and [M],
+// orders it (Order), factors PᵀSP = L D Lᵀ (Symbolic.Factor) and returns
+// n = #neg(D) and sigmaPrime = σ − r/mMin (rounded down), where r is an
+// upper bound, over all members, of the largest absolute row sum of the
+// residual
+//
+//	R = Pᵀ(K − σM)P − L D Lᵀ.
+//
+// The pattern of L (with the unit diagonal) contains the permuted pattern
+// of K − σM (the symbolic analysis is done on the union pattern), so R
+// vanishes outside the pattern of L + Lᵀ. Each entry of R on it,
+// R_ij = (K − σM)_{perm[i], perm[j]} − Σ_{q ≤ j} L_iq D_q L_jq (i ≥ j,
+// L_jj = 1), is enclosed in outward rounded interval arithmetic from the
+// interval entries of [K], [M] and the floating-point numbers L_iq, D_q,
+// column by column of L. ok = false if the factorization broke down (zero
+// or non-finite pivot, non-finite L).
+//
+// The chain of inequalities, for every member (K, M), with P the
+// permutation matrix (P e_k = e_{perm[k]}) and R' = P R Pᵀ:
+//
+//	K − σ'M = P L D Lᵀ Pᵀ + R' + (σ − σ')M   (definition of R)
+//	        ⪰ P L D Lᵀ Pᵀ + R' + rI          ((σ − σ') ≥ r/mMin ≥ 0, M ⪰ mMin·I)
+//	        ⪰ P L D Lᵀ Pᵀ                    (R' symmetric, ‖R'‖₂ = ρ(R') ≤ ‖R'‖∞ = ‖R‖∞ ≤ r).
+//
+// By Weyl's monotonicity theorem (A ⪰ B implies λ_k(A) ≥ λ_k(B) for every
+// k) #neg(K − σ'M) ≤ #neg(P L D Lᵀ Pᵀ) = #neg(D), the last equality by
+// Sylvester's law of inertia (PL is nonsingular). Since M is positive
+// definite, K − σ'M = M^{1/2}(M^{−1/2}KM^{−1/2} − σ'I)M^{1/2}, so Sylvester
+// again gives #{λ < σ'} = #neg(K − σ'M) ≤ n. Hence if n ≤ k − 1 then
+// λ_k ≥ σ'.
+//
+// The residual is enclosed in parallel over blocks of columns; every entry
+// is enclosed by the same operations in the same order whatever the number
+// of CPUs, and the row sums and their maximum are taken sequentially, so
+// the result does not depend on GOMAXPROCS.
+//
+// CountBelow panics if the sizes differ, mMin is not a positive finite
+// number or sigma is not finite.
+//
+// References:
+//
+//	G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
+//	Hopkins University Press, 2013, §8.1 (Weyl's inequalities, Sylvester's
+//	law of inertia).
+//	J. J. Sylvester, A demonstration of the theorem that every homogeneous
+//	quadratic polynomial is reducible by real orthogonal substitutions to
+//	the form of a sum of positive and negative squares, Philosophical
+//	Magazine 4 (1852) 138–142.
+func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
+	if k.N() != m.N() {
+		panic("sparse: dimension mismatch")
+	}
+	if !(mMin > 0) || math.IsInf(mMin, 1) {
+		panic("sparse: mMin must be a positive finite lower bound of λ_min(M)")
+	}
+	if math.IsNaN(sigma) || math.IsInf(sigma, 0) {
+		panic("sparse: shift must be finite")
+	}
+	u, fromK, fromM := union(k.Pat, m.Pat)
+	// The matrix to factor is a choice; its rounding errors are part of R.
+	c := &Sym{Pat: u, Val: make([]float64, u.NNZ())}
+	for q, v := range k.Val {
+		c.Val[at(fromK, q)] += v.Mid()
+	}
+	for q, v := range m.Val {
+		c.Val[at(fromM, q)] -= sigma * v.Mid()
+	}
+	sym := analyzePattern(u, orderPattern(u))
+	f, ok := sym.Factor(c)
+	if !ok {
+		return 0, sigma, false
+	}
+	for _, v := range f.Val {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return 0, sigma, false
+		}
+	}
+	// Interval entries of Pᵀ(K − σM)P, lower triangle by columns (the
+	// contributions of K and M to one position are kept apart and summed
+	// in the residual).
+	nn := u.n
+	inv := make([]int, nn)
+	for q, v := range sym.perm {
+		inv[v] = q
+	}
+	a := permutedLower(k, inv, interval.Point(1))
+	b := permutedLower(m, inv, interval.Point(-sigma))
+	r := residualBound(f, a, b)
+	if math.IsNaN(r) {
+		r = math.Inf(1)
+	}
+	return f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
+}
+
+// lowerColumns is a permuted lower triangle by columns with interval
+// values; rows within a column are in no particular order.
+type lowerColumns struct {
+	ptr []int
+	row []int32
+	val []interval.I
+}
+
+// permutedLower returns the lower triangle of Pᵀ(c·S)P by columns, each
+// entry an enclosure of c times the interval entry of s.
+func permutedLower(s *ISym, inv []int, c interval.I) *lowerColumns {
+	n, p := s.Pat.n, s.Pat
+	lc := &lowerColumns{ptr: make([]int, n+1), row: make([]int32, p.NNZ()), val: make([]interval.I, p.NNZ())}
+	for j := 0; j < n; j++ {
+		for q := p.colPtr[j]; q < p.colPtr[j+1]; q++ {
+			lc.ptr[min(inv[p.rowIdx[q]], inv[j])+1]++
+		}
+	}
+	for j := 0; j < n; j++ {
+		lc.ptr[j+1] += lc.ptr[j]
+	}
+	next := append([]int(nil), lc.ptr[:n]...)
+	for j := 0; j < n; j++ {
+		for q := p.colPtr[j]; q < p.colPtr[j+1]; q++ {
+			x, y := inv[p.rowIdx[q]], inv[j]
+			col := min(x, y)
+			lc.row[next[col]] = int32(max(x, y))
+			lc.val[next[col]] = s.Val[q].Mul(c)
+			next[col]++
+		}
+	}
+	return lc
+}
+
+// residualBound returns r ≥ max_i Σ_j |R_ij| for R = A + B − L D Lᵀ and
+// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards.
+func residualBound(f *LDL, a, b *lowerColumns) float64 {
+	n := len(f.D)
+	lp := f.Sym.colPtr
+	// Rows of L with the positions of their entries: row j holds the
+	// entries L_jk, k < j, at positions tPos[tPtr[j]:tPtr[j+1]], ascending k.
+	tPtr := make([]int, n+1)
+	for _, i := range f.Row {
+		tPtr[i+1]++
+	}
+	for j := 0; j < n; j++ {
+		tPtr[j+1] += tPtr[j]
+	}
+	tPos, tCol := make([]int, len(f.Row)), make([]int32, len(f.Row))
+	next := append([]int(nil), tPtr[:n]...)
+	for k := 0; k < n; k++ {
+		for q := lp[k]; q < lp[k+1]; q++ {
+			i := f.Row[q]
+			tPos[next[i]], tCol[next[i]] = q, int32(k)
+			next[i]++
+		}
+	}
+	// Work of each column, for balanced blocks.
+	work := make([]int, n+1)
+	for j := 0; j < n; j++ {
+		w := 1 + lp[j+1] - lp[j]
+		for t := tPtr[j]; t < tPtr[j+1]; t++ {
+			w += lp[tCol[t]+1] - tPos[t]
+		}
+		work[j+1] = work[j] + w
+	}
+	magD := make([]float64, n)
+	magL := make([]float64, len(f.Row))
+	columns := func(from, to int, acc []interval.I, mark []int32) {
+		for j := from; j < to; j++ {
+			residualColumn(f, a, b, tPtr, tPos, tCol, j, acc, mark, magD, magL)
+		}
+	}
+	workers := runtime.GOMAXPROCS(0)
+	if workers > 1 && work[n] > parallelWork {
+		blocks := 16 * workers
+		bounds := make([]int, 0, blocks+1)
+		bounds = append(bounds, 0)
+		for j := 1; j < n; j++ {
+			if len(bounds) < blocks && work[j] >= work[n]/blocks*len(bounds) {
+				bounds = append(bounds, j)
+			}
+		}
+		bounds = append(bounds, n)
+		var nextBlock atomic.Int64
+		var wg sync.WaitGroup
+		for w := 0; w < workers; w++ {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				acc, mark := make([]interval.I, n), make([]int32, n)
+				for {
+					bl := int(nextBlock.Add(1)) - 1
+					if bl >= len(bounds)-1 {
+						return
+					}
+					columns(bounds[bl], bounds[bl+1], acc, mark)
+				}
+			}()
+		}
+		wg.Wait()
+	} else {
+		columns(0, n, make([]interval.I, n), make([]int32, n))
+	}
+	sum := make([]float64, n)
+	for j := 0; j < n; j++ {
+		sum[j] = interval.AddUp(sum[j], magD[j])
+		for q := lp[j]; q < lp[j+1]; q++ {
+			i := f.Row[q]
+			sum[i] = interval.AddUp(sum[i], magL[q])
+			sum[j] = interval.AddUp(sum[j], magL[q])
+		}
+	}
+	r := 0.0
+	for _, s := range sum {
+		if math.IsNaN(s) {
+			return math.Inf(1)
+		}
+		r = math.Max(r, s)
+	}
+	return r
+}
+
+// residualColumn sets magD[j] ≥ |R_jj| and magL[q] ≥ |R_ij| for the
+// entries q of column j of L (row i), where
+// R_ij = A_ij + B_ij − Σ_{k<j} L_jk D_k L_ik − L_ij D_j (L_jj = 1). acc and
+// mark are workspaces of length n; mark[i] must not equal j+1 on entry.
+func residualColumn(f *LDL, a, b *lowerColumns, tPtr, tPos []int, tCol []int32, j int,
+	acc []interval.I, mark []int32, magD, magL []float64) {
+	lp, li, lx, d := f.Sym.colPtr, f.Row, f.Val, f.D
+	tag := int32(j + 1)
+	acc[j], mark[j] = interval.I{}, tag
+	for q := lp[j]; q < lp[j+1]; q++ {
+		acc[li[q]], mark[li[q]] = interval.I{}, tag
+	}
+	for _, s := range [2]*lowerColumns{a, b} {
+		for q := s.ptr[j]; q < s.ptr[j+1]; q++ {
+			i := s.row[q]
+			if mark[i] != tag {
+				panic("sparse: entry outside the pattern of L (symbolic analysis is wrong)")
+			}
+			acc[i] = acc[i].Add(s.val[q])
+		}
+	}
+	for t := tPtr[j]; t < tPtr[j+1]; t++ {
+		p, k := tPos[t], tCol[t]
+		c := interval.Point(lx[p]).MulF(d[k]) // L_jk D_k
+		acc[j] = acc[j].Sub(c.MulF(lx[p]))
+		for q := p + 1; q < lp[k+1]; q++ {
+			i := li[q]
+			if mark[i] != tag {
+				panic("sparse: fill outside the pattern of L (symbolic analysis is wrong)")
+			}
+			acc[i] = acc[i].Sub(c.MulF(lx[q]))
+		}
+	}
+	magD[j] = acc[j].Sub(interval.Point(d[j])).Mag()
+	for q := lp[j]; q < lp[j+1]; q++ {
+		magL[q] = acc[li[q]].Sub(interval.Point(lx[q]).MulF(d[j])).Mag()
+	}
+}

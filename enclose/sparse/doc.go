@@ -1,0 +1,33 @@
+// Package sparse implements sparse symmetric matrices for finite-element
+// pencils on two-dimensional meshes: storage, a fill-reducing ordering, a
+// symbolic analysis and a floating-point LDLᵀ factorization without
+// pivoting, approximate lowest eigenpairs of Kx = λMx, and a verified upper
+// bound on the number of eigenvalues below a shift.
+//
+// Sym holds float64 data and ISym interval data on a shared Pattern (the
+// lower triangle by columns); an ISym stands for every real symmetric
+// matrix with entries in its intervals. Builder and IBuilder assemble them
+// from element contributions.
+//
+// Choosing and proving are kept apart. Order, Analyze, Factor,
+// LDL.SolveTo and LowestEigs compute in floating point at round-to-nearest
+// and only choose (orders, shifts, approximate eigenvectors); nothing they
+// return is a bound. CountBelow is verified: its count and shift are true
+// for every member of the interval pencil, by an interval enclosure of the
+// factorization residual, Weyl's monotonicity and Sylvester's law of
+// inertia (METHODS §7).
+//
+// References:
+//
+//	J. J. Sylvester, A demonstration of the theorem that every homogeneous
+//	quadratic polynomial is reducible by real orthogonal substitutions to
+//	the form of a sum of positive and negative squares, Philosophical
+//	Magazine 4 (1852) 138–142.
+//	A. George, J. W. H. Liu, Computer Solution of Large Sparse Positive
+//	Definite Systems, Prentice-Hall, 1981 (nested dissection).
+//	J. W. H. Liu, The role of elimination trees in sparse factorization,
+//	SIAM J. Matrix Anal. Appl. 11 (1990) 134–172.
+//	T. A. Davis, Direct Methods for Sparse Linear Systems, SIAM, 2006.
+//	B. N. Parlett, The Symmetric Eigenvalue Problem, SIAM, 1998 (subspace
+//	iteration, Rayleigh–Ritz, the generalized problem and shift-invert).
+package sparse

@@ -1,0 +1,703 @@
+package sparse
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"runtime"
+	"slices"
+	"sort"
+	"testing"
+	"time"
+
+	"gonum.org/v1/gonum/mat"
+
+	"gapcert/interval"
+)
+
+// grid5 returns the 5-point Laplacian (1/h²)·(4, −1, −1, −1, −1) on the
+// m×m interior nodes of the unit square, h = 1/(m+1), natural order.
+func grid5(m int) *Sym {
+	h := 1 / float64(m+1)
+	c := 1 / (h * h)
+	b := NewBuilder(m * m)
+	for y := 0; y < m; y++ {
+		for x := 0; x < m; x++ {
+			i := y*m + x
+			b.Add(i, i, 4*c)
+			if x+1 < m {
+				b.Add(i, i+1, -c)
+			}
+			if y+1 < m {
+				b.Add(i, i+m, -c)
+			}
+		}
+	}
+	return b.Build()
+}
+
+// grid5Eigs returns the eigenvalues of grid5(m), ascending:
+// (4/h²)(sin²(iπh/2) + sin²(jπh/2)), i, j = 1 … m (common practice: the
+// 5-point Laplacian is the Kronecker sum of two 1D second differences).
+func grid5Eigs(m int) []float64 {
+	h := 1 / float64(m+1)
+	var e []float64
+	for i := 1; i <= m; i++ {
+		for j := 1; j <= m; j++ {
+			si, sj := math.Sin(float64(i)*math.Pi*h/2), math.Sin(float64(j)*math.Pi*h/2)
+			e = append(e, 4/(h*h)*(si*si+sj*sj))
+		}
+	}
+	sort.Float64s(e)
+	return e
+}
+
+// p1Square returns the P1 stiffness and mass matrices on the unit square
+// with m×m interior nodes (Dirichlet), each mesh square split by its
+// diagonal from lower left to upper right. Element matrices of P1 on a
+// triangle: K_T = |T|·∇λ_a·∇λ_b, M_T = |T|/12·(1 + δ_ab) (common practice).
+func p1Square(m int) (k, mm *Sym) {
+	h := 1 / float64(m+1)
+	kb, mb := NewBuilder(m*m), NewBuilder(m*m)
+	node := func(x, y int) int {
+		if x < 1 || y < 1 || x > m || y > m {
+			return -1
+		}
+		return (y-1)*m + x - 1
+	}
+	add := func(v [3][2]int) {
+		var g [3][2]float64
+		p := func(a int) [2]float64 { return [2]float64{float64(v[a][0]) * h, float64(v[a][1]) * h} }
+		p0, p1, p2 := p(0), p(1), p(2)
+		det := (p1[0]-p0[0])*(p2[1]-p0[1]) - (p2[0]-p0[0])*(p1[1]-p0[1])
+		area := det / 2
+		for a := 0; a < 3; a++ {
+			b, c := p((a+1)%3), p((a+2)%3)
+			g[a] = [2]float64{(b[1] - c[1]) / det, (c[0] - b[0]) / det}
+		}
+		for a := 0; a < 3; a++ {
+			ia := node(v[a][0], v[a][1])
+			if ia < 0 {
+				continue
+			}
+			for b := 0; b <= a; b++ {
+				ib := node(v[b][0], v[b][1])
+				if ib < 0 {
+					continue
+				}
+				kv := area * (g[a][0]*g[b][0] + g[a][1]*g[b][1])
+				mv := area / 12
+				if a == b {
+					mv *= 2
+				}
+				if a != b && ia == ib {
+					panic("mesh")
+				}
+				kb.Add(ia, ib, kv)
+				mb.Add(ia, ib, mv)
+			}
+		}
+	}
+	for y := 0; y <= m; y++ {
+		for x := 0; x <= m; x++ {
+			add([3][2]int{{x, y}, {x + 1, y}, {x + 1, y + 1}})
+			add([3][2]int{{x, y}, {x + 1, y + 1}, {x, y + 1}})
+		}
+	}
+	return kb.Build(), mb.Build()
+}
+
+func dense(s *Sym) *mat.SymDense {
+	n := s.N()
+	d := mat.NewSymDense(n, nil)
+	for j := 0; j < n; j++ {
+		for q := s.Pat.colPtr[j]; q < s.Pat.colPtr[j+1]; q++ {
+			d.SetSym(int(s.Pat.rowIdx[q]), j, s.Val[q])
+		}
+	}
+	return d
+}
+
+// full returns the row-major dense n×n array of s.
+func full(s *Sym) []float64 {
+	n := s.N()
+	d := make([]float64, n*n)
+	for j := 0; j < n; j++ {
+		for q := s.Pat.colPtr[j]; q < s.Pat.colPtr[j+1]; q++ {
+			i := int(s.Pat.rowIdx[q])
+			d[i*n+j], d[j*n+i] = s.Val[q], s.Val[q]
+		}
+	}
+	return d
+}
+
+// denseGeneralizedEigs returns the eigenvalues of (K, M) from gonum.
+func denseGeneralizedEigs(t *testing.T, k, m *Sym) []float64 {
+	t.Helper()
+	vals, _, err := denseGeneralized(full(k), full(m), k.N())
+	if err != nil {
+		t.Fatal(err)
+	}
+	return vals
+}
+
+func identity(n int) *Sym {
+	b := NewBuilder(n)
+	for i := 0; i < n; i++ {
+		b.Add(i, i, 1)
+	}
+	return b.Build()
+}
+
+func toISym(s *Sym) *ISym {
+	v := make([]interval.I, len(s.Val))
+	for q, x := range s.Val {
+		v[q] = interval.Point(x)
+	}
+	return &ISym{Pat: s.Pat, Val: v}
+}
+
+// randomSPD returns a random symmetric matrix with about deg off-diagonal
+// entries per row, made positive definite by a dominant diagonal.
+func randomSPD(n, deg int, seed uint64) *Sym {
+	r := rand.New(rand.NewPCG(seed, 7))
+	b := NewBuilder(n)
+	row := make([]float64, n)
+	for e := 0; e < n*deg/2; e++ {
+		i, j := r.IntN(n), r.IntN(n)
+		if i == j {
+			continue
+		}
+		v := r.Float64()*2 - 1
+		b.Add(i, j, v)
+		row[i] += math.Abs(v)
+		row[j] += math.Abs(v)
+	}
+	for i := 0; i < n; i++ {
+		b.Add(i, i, row[i]+0.1+r.Float64())
+	}
+	return b.Build()
+}
+
+func TestBuilder(t *testing.T) {
+	b := NewBuilder(4)
+	b.Add(2, 0, 1.5)
+	b.Add(0, 2, 0.25) // the same entry as (2, 0)
+	b.Add(3, 3, 2)
+	b.Add(1, 1, -1)
+	b.Add(1, 1, 4)
+	b.Add(3, 1, 0.5)
+	s := b.Build()
+	want := [4][4]float64{{0, 0, 1.75, 0}, {0, 3, 0, 0.5}, {1.75, 0, 0, 0}, {0, 0.5, 0, 2}}
+	for i := 0; i < 4; i++ {
+		for j := 0; j < 4; j++ {
+			if got := s.At(i, j); got != want[i][j] {
+				t.Errorf("At(%d, %d) = %g, want %g", i, j, got, want[i][j])
+			}
+		}
+	}
+	if s.Pat.NNZ() != 6 { // 4 diagonals (one zero) + (2,0) + (3,1)
+		t.Errorf("NNZ = %d, want 6", s.Pat.NNZ())
+	}
+	x := []float64{1, -2, 3, 0.5}
+	dst := []float64{9, 9, 9, 9}
+	s.MulVecTo(dst, x)
+	for i := 0; i < 4; i++ {
+		w := 0.0
+		for j := 0; j < 4; j++ {
+			w += want[i][j] * x[j]
+		}
+		if dst[i] != w {
+			t.Errorf("(Sx)_%d = %g, want %g", i, dst[i], w)
+		}
+	}
+	ib := NewIBuilder(2)
+	ib.Add(0, 1, interval.New(1, 2))
+	ib.Add(1, 0, interval.New(0.5, 0.75))
+	is := ib.Build()
+	if got := is.At(1, 0); got != interval.New(1.5, 2.75) {
+		t.Errorf("interval At = %v", got)
+	}
+	if got := is.Mid().At(0, 1); got != 2.125 {
+		t.Errorf("Mid = %g", got)
+	}
+}
+
+func isPerm(p []int, n int) bool {
+	q := slices.Clone(p)
+	slices.Sort(q)
+	for i, v := range q {
+		if v != i {
+			return false
+		}
+	}
+	return len(q) == n
+}
+
+func naturalOrder(n int) []int {
+	p := make([]int, n)
+	for i := range p {
+		p[i] = i
+	}
+	return p
+}
+
+// TestOrderFill compares nnz(L) of the nested-dissection order with the
+// natural order on the 5-point grid graph. The natural (banded) order fills
+// the whole band, about m³ entries; nested dissection gives O(m² log m)
+// (George 1973).
+func TestOrderFill(t *testing.T) {
+	for _, tc := range []struct {
+		m        int
+		maxRatio float64 // nnz(L, ND) / nnz(L, natural)
+	}{{10, 1.0}, {30, 0.6}, {60, 0.4}, {120, 0.25}} {
+		s := grid5(tc.m)
+		n := s.N()
+		perm := Order(s)
+		if !isPerm(perm, n) {
+			t.Fatalf("m=%d: Order is not a permutation", tc.m)
+		}
+		if !slices.Equal(perm, Order(s)) {
+			t.Errorf("m=%d: Order is not deterministic", tc.m)
+		}
+		nd, nat := Analyze(s, perm).NNZ(), Analyze(s, naturalOrder(n)).NNZ()
+		// Natural order: fill stays in the envelope and fills it (George
+		// and Liu 1981, ch. 4): row i has i − f_i entries left of the
+		// diagonal, f_i its first nonzero column (i − 1 in the first grid
+		// row, i − m after it).
+		wantNat := n + (tc.m - 1) + (n-tc.m)*tc.m
+		if nat != wantNat {
+			t.Errorf("m=%d: natural nnz(L) = %d, want %d", tc.m, nat, wantNat)
+		}
+		t.Logf("m=%d n=%d: nnz(L) natural %d, nested dissection %d (ratio %.3f)", tc.m, n, nat, nd, float64(nd)/float64(nat))
+		if float64(nd) > tc.maxRatio*float64(nat) {
+			t.Errorf("m=%d: fill ratio %.3f above %.3f", tc.m, float64(nd)/float64(nat), tc.maxRatio)
+		}
+	}
+}
+
+// TestOrderComponents checks a graph with many components (a diagonal
+// matrix and disjoint paths).
+func TestOrderComponents(t *testing.T) {
+	n := 5000
+	b := NewBuilder(n)
+	for i := 0; i < n; i++ {
+		b.Add(i, i, 2)
+		if i%100 != 99 && i%3 != 0 && i+1 < n {
+			b.Add(i, i+1, -1)
+		}
+	}
+	s := b.Build()
+	perm := Order(s)
+	if !isPerm(perm, n) {
+		t.Fatal("not a permutation")
+	}
+	// Paths of at most 3 vertices: no fill at all.
+	if got, want := Analyze(s, perm).NNZ(), s.Pat.NNZ(); got != want {
+		t.Errorf("nnz(L) = %d, want %d (no fill)", got, want)
+	}
+}
+
+// maxResidual returns max |(PᵀSP − LDLᵀ)_ij| / max |S_ij| computed densely
+// in float64 (a check, not a bound).
+func maxResidual(s *Sym, f *LDL) float64 {
+	n := s.N()
+	l := mat.NewDense(n, n, nil)
+	for k := 0; k < n; k++ {
+		l.Set(k, k, 1)
+		for q := f.Sym.colPtr[k]; q < f.Sym.colPtr[k+1]; q++ {
+			l.Set(int(f.Row[q]), k, f.Val[q])
+		}
+	}
+	var ld, ldl mat.Dense
+	ld.Mul(l, mat.NewDiagDense(n, f.D))
+	ldl.Mul(&ld, l.T())
+	res, scale := 0.0, 0.0
+	for i := 0; i < n; i++ {
+		for j := 0; j < n; j++ {
+			a := s.At(f.Sym.perm[i], f.Sym.perm[j])
+			res = math.Max(res, math.Abs(a-ldl.At(i, j)))
+			scale = math.Max(scale, math.Abs(a))
+		}
+	}
+	return res / scale
+}
+
+func shifted(k, m *Sym, sigma float64) *Sym {
+	u, fk, fm := union(k.Pat, m.Pat)
+	s := &Sym{Pat: u, Val: make([]float64, u.NNZ())}
+	for q, v := range k.Val {
+		s.Val[at(fk, q)] += v
+	}
+	for q, v := range m.Val {
+		s.Val[at(fm, q)] -= sigma * v
+	}
+	return s
+}
+
+func TestFactorResidual(t *testing.T) {
+	k12, m12 := p1Square(12)
+	for _, tc := range []struct {
+		name string
+		s    *Sym
+		neg  int
+	}{
+		{"grid5 m=15", grid5(15), 0},
+		{"grid5 m=15 shifted to 200", shifted(grid5(15), identity(225), 200), countBelow(grid5Eigs(15), 200)},
+		{"P1 m=12 shifted to 150", shifted(k12, m12, 150), -1},
+		{"random SPD n=300", randomSPD(300, 6, 1), 0},
+		{"random n=300 shifted", shifted(randomSPD(300, 6, 2), identity(300), 3), -1},
+	} {
+		for _, order := range []string{"natural", "nested dissection"} {
+			perm := naturalOrder(tc.s.N())
+			if order != "natural" {
+				perm = Order(tc.s)
+			}
+			f, ok := Factor(tc.s, perm)
+			if !ok {
+				t.Errorf("%s, %s: factorization failed", tc.name, order)
+				continue
+			}
+			if r := maxResidual(tc.s, f); r > 1e-13 {
+				t.Errorf("%s, %s: relative residual %g", tc.name, order, r)
+			}
+			if tc.neg >= 0 && f.NegCount() != tc.neg {
+				t.Errorf("%s, %s: %d negative pivots, want %d", tc.name, order, f.NegCount(), tc.neg)
+			}
+			// Solve: ‖Sx − b‖ small.
+			n := tc.s.N()
+			b, x, sx := make([]float64, n), make([]float64, n), make([]float64, n)
+			for i := range b {
+				b[i] = math.Sin(float64(i))
+			}
+			f.SolveTo(x, b)
+			tc.s.MulVecTo(sx, x)
+			num, den := 0.0, 0.0
+			for i := range b {
+				num = math.Max(num, math.Abs(sx[i]-b[i]))
+				den = math.Max(den, math.Abs(b[i]))
+			}
+			if num/den > 1e-9 {
+				t.Errorf("%s, %s: solve residual %g", tc.name, order, num/den)
+			}
+		}
+	}
+}
+
+func TestFactorBreakdown(t *testing.T) {
+	b := NewBuilder(2)
+	b.Add(0, 0, 0)
+	b.Add(1, 0, 1)
+	b.Add(1, 1, 1)
+	if _, ok := Factor(b.Build(), []int{0, 1}); ok {
+		t.Error("zero pivot not reported")
+	}
+}
+
+// countBelow returns #{e < sigma} of an ascending list.
+func countBelow(e []float64, sigma float64) int {
+	return sort.SearchFloat64s(e, sigma)
+}
+
+// midGaps returns shifts halfway between consecutive distinct eigenvalues.
+func midGaps(e []float64, count int) []float64 {
+	var s []float64
+	for i := 0; i+1 < len(e) && len(s) < count; i++ {
+		if e[i+1]-e[i] > 1e-6*e[i+1] {
+			s = append(s, (e[i]+e[i+1])/2)
+		}
+	}
+	return s
+}
+
+// TestCountBelowClosedForm: the count equals the true count between
+// eigenvalues and σ' stays close to σ (5-point Laplacian, closed-form
+// spectrum; P1 pencil against gonum's dense generalized eigenvalues).
+func TestCountBelowClosedForm(t *testing.T) {
+	k12, m12 := p1Square(12)
+	for _, tc := range []struct {
+		name   string
+		k, m   *Sym
+		mMin   float64
+		eigs   []float64
+		relTol float64 // (σ − σ')/σ
+	}{
+		{"grid5 m=20", grid5(20), identity(400), 1, grid5Eigs(20), 1e-11},
+		// λ_min of the P1 mass matrix on this mesh ≥ h²/12·(6 − 6) is
+		// useless; the elementwise bound Σ_T λ_min(M_T) = 6·|T|/12·(1/... )
+		// is replaced here by 0.9 of gonum's dense λ_min (a test value).
+		{"P1 m=12", k12, m12, 0, denseGeneralizedEigs(t, k12, m12), 1e-10},
+	} {
+		mMin := tc.mMin
+		if mMin == 0 {
+			var es mat.EigenSym
+			es.Factorize(dense(tc.m), false)
+			mMin = 0.9 * es.Values(nil)[0]
+		}
+		for _, sigma := range midGaps(tc.eigs, 12) {
+			n, sp, ok := CountBelow(toISym(tc.k), toISym(tc.m), mMin, sigma)
+			if !ok {
+				t.Errorf("%s σ=%g: factorization failed", tc.name, sigma)
+				continue
+			}
+			if want := countBelow(tc.eigs, sigma); n != want {
+				t.Errorf("%s σ=%g: n = %d, want %d", tc.name, sigma, n, want)
+			}
+			if countBelow(tc.eigs, sp) > n {
+				t.Errorf("%s σ=%g: unsound, %d eigenvalues below σ'=%g, n = %d", tc.name, sigma, countBelow(tc.eigs, sp), sp, n)
+			}
+			if !(sp <= sigma) || (sigma-sp)/sigma > tc.relTol {
+				t.Errorf("%s σ=%g: σ' = %g, relative loss %g above %g", tc.name, sigma, sp, (sigma-sp)/sigma, tc.relTol)
+			}
+		}
+	}
+}
+
+// TestCountBelowThick: an interval-thickened [K] ∋ K ± ρ|K| entrywise; the
+// count must hold for extreme members (eigenvalues from gonum), and the
+// loss σ − σ' must reflect ρ.
+func TestCountBelowThick(t *testing.T) {
+	r := rand.New(rand.NewPCG(3, 4))
+	for _, rho := range []float64{1e-8, 1e-5, 1e-3} {
+		k, m := randomSPD(120, 5, 5), identity(120)
+		ik := &ISym{Pat: k.Pat, Val: make([]interval.I, len(k.Val))}
+		for q, v := range k.Val {
+			d := rho * math.Abs(v)
+			ik.Val[q] = interval.New(v-d, v+d)
+		}
+		mid := denseGeneralizedEigs(t, k, m)
+		for _, sigma := range midGaps(mid, 6) {
+			n, sp, ok := CountBelow(ik, toISym(m), 1, sigma)
+			if !ok {
+				t.Fatalf("ρ=%g σ=%g: factorization failed", rho, sigma)
+			}
+			for trial := 0; trial < 5; trial++ {
+				member := &Sym{Pat: k.Pat, Val: make([]float64, len(k.Val))}
+				for q, v := range ik.Val {
+					member.Val[q] = v.Lo
+					if r.IntN(2) == 1 {
+						member.Val[q] = v.Hi
+					}
+				}
+				if c := countBelow(denseGeneralizedEigs(t, member, m), sp); c > n {
+					t.Errorf("ρ=%g σ=%g: member has %d eigenvalues below σ'=%g > n=%d", rho, sigma, c, sp, n)
+				}
+			}
+			// Loss at least the thickening (a member moves eigenvalues by
+			// up to ρ‖K‖) and not far beyond it.
+			loss := sigma - sp
+			if rho >= 1e-5 && loss < rho*mid[0]/10 {
+				t.Errorf("ρ=%g: loss %g suspiciously small", rho, loss)
+			}
+			if loss > 100*rho*infNorm(k) {
+				t.Errorf("ρ=%g: loss %g too large (‖K‖∞ = %g)", rho, loss, infNorm(k))
+			}
+		}
+	}
+}
+
+// TestCountBelowAtEigenvalue: σ exactly at an eigenvalue of a matrix with
+// exactly representable spectrum (diagonal) must never over-report.
+func TestCountBelowAtEigenvalue(t *testing.T) {
+	b := NewBuilder(50)
+	for i := 0; i < 50; i++ {
+		b.Add(i, i, float64(i+1))
+	}
+	k := b.Build()
+	for _, sigma := range []float64{1, 7, 7.5, 50} {
+		n, sp, ok := CountBelow(toISym(k), toISym(identity(50)), 1, sigma)
+		if !ok {
+			continue // a zero pivot is an honest failure
+		}
+		// Eigenvalues 1 … 50: #{λ < σ'} ≤ n.
+		if c := int(math.Ceil(sp)) - 1; c > n {
+			t.Errorf("σ=%g: %d eigenvalues below σ'=%g, n=%d", sigma, c, sp, n)
+		}
+	}
+}
+
+// TestCountBelowRandom: random sparse SPD pencils (M random SPD too)
+// against gonum's dense generalized eigenvalues.
+func TestCountBelowRandom(t *testing.T) {
+	for seed := uint64(1); seed <= 6; seed++ {
+		k, m := randomSPD(60, 4, seed), randomSPD(60, 3, seed+100)
+		var es mat.EigenSym
+		es.Factorize(dense(m), false)
+		mMin := 0.99 * es.Values(nil)[0]
+		eigs := denseGeneralizedEigs(t, k, m)
+		for _, sigma := range midGaps(eigs, 8) {
+			n, sp, ok := CountBelow(toISym(k), toISym(m), mMin, sigma)
+			if !ok {
+				t.Fatalf("seed %d σ=%g: factorization failed", seed, sigma)
+			}
+			if want := countBelow(eigs, sigma); n != want {
+				t.Errorf("seed %d σ=%g: n = %d, want %d", seed, sigma, n, want)
+			}
+			scale := (infNorm(k) + sigma*infNorm(m)) / mMin
+			if c := countBelow(eigs, sp); c > n || sigma-sp > 1e-12*scale {
+				t.Errorf("seed %d σ=%g: σ'=%g (%d below, n=%d)", seed, sigma, sp, c, n)
+			}
+		}
+	}
+}
+
+func TestCountBelowIndependentOfProcs(t *testing.T) {
+	k, m := p1Square(70)
+	ik, im := toISym(k), toISym(m)
+	for q := range ik.Val {
+		ik.Val[q] = interval.New(math.Nextafter(k.Val[q], math.Inf(-1)), k.Val[q])
+	}
+	sigma := 123.456
+	old := runtime.GOMAXPROCS(1)
+	n1, s1, ok1 := CountBelow(ik, im, 1e-5, sigma)
+	runtime.GOMAXPROCS(2)
+	n2, s2, ok2 := CountBelow(ik, im, 1e-5, sigma)
+	runtime.GOMAXPROCS(old)
+	if !ok1 || !ok2 || n1 != n2 || math.Float64bits(s1) != math.Float64bits(s2) {
+		t.Errorf("GOMAXPROCS 1: (%d, %v, %v), 2: (%d, %v, %v)", n1, s1, ok1, n2, s2, ok2)
+	}
+}
+
+func checkEigs(t *testing.T, name string, k, m *Sym, vals []float64, vecs [][]float64, want []float64, tol float64) {
+	t.Helper()
+	n := k.N()
+	for c, v := range vals {
+		if math.Abs(v-want[c]) > tol*math.Abs(want[c]) {
+			t.Errorf("%s: λ_%d = %.15g, want %.15g", name, c+1, v, want[c])
+		}
+	}
+	kx, mx := make([]float64, n), make([]float64, n)
+	for c := range vecs {
+		k.MulVecTo(kx, vecs[c])
+		m.MulVecTo(mx, vecs[c])
+		res := 0.0
+		for i := range kx {
+			res = math.Max(res, math.Abs(kx[i]-vals[c]*mx[i]))
+		}
+		if rel := res / (infNorm(k) * maxAbs(vecs[c])); rel > 1e-11 {
+			t.Errorf("%s: pair %d relative residual %g", name, c, rel)
+		}
+		for d := 0; d <= c; d++ {
+			want := 0.0
+			if d == c {
+				want = 1
+			}
+			if g := dot(vecs[d], mx); math.Abs(g-want) > 1e-10 {
+				t.Errorf("%s: (x_%d, M x_%d) = %g", name, d, c, g)
+			}
+		}
+	}
+}
+
+func maxAbs(x []float64) float64 {
+	r := 0.0
+	for _, v := range x {
+		r = math.Max(r, math.Abs(v))
+	}
+	return r
+}
+
+func TestLowestEigs(t *testing.T) {
+	k20, m20 := p1Square(20)
+	for _, tc := range []struct {
+		name  string
+		k, m  *Sym
+		count int
+		want  func() []float64
+	}{
+		// λ(1,2) = λ(2,1) etc.: double eigenvalues.
+		{"grid5 m=40", grid5(40), identity(1600), 8, func() []float64 { return grid5Eigs(40) }},
+		{"grid5 m=10 dense", grid5(10), identity(100), 5, func() []float64 { return grid5Eigs(10) }},
+		{"P1 m=20", k20, m20, 6, func() []float64 { return denseGeneralizedEigs(t, k20, m20) }},
+		{"P1 m=20 shifted −30", shifted(k20, m20, 30), m20, 4, func() []float64 {
+			e := denseGeneralizedEigs(t, k20, m20)
+			for i := range e {
+				e[i] -= 30
+			}
+			return e
+		}},
+	} {
+		vals, vecs, err := LowestEigs(tc.k, tc.m, tc.count)
+		if err != nil {
+			t.Errorf("%s: %v", tc.name, err)
+			continue
+		}
+		checkEigs(t, tc.name, tc.k, tc.m, vals, vecs, tc.want(), 1e-10)
+		v2, _, _ := LowestEigs(tc.k, tc.m, tc.count)
+		if !slices.Equal(vals, v2) {
+			t.Errorf("%s: not deterministic", tc.name)
+		}
+	}
+}
+
+func benchGrid(side int) (*ISym, *ISym) {
+	k, m := p1Square(side)
+	return toISym(k), toISym(m)
+}
+
+var benchSides = []int{100, 316, 1000}
+
+// BenchmarkFactor: nested-dissection order, symbolic analysis and numeric
+// LDLᵀ of the P1 stiffness matrix on side² unknowns.
+func BenchmarkFactor(b *testing.B) {
+	for _, side := range benchSides {
+		k, _ := p1Square(side)
+		b.Run(fmt.Sprintf("n=%d", side*side), func(b *testing.B) {
+			var nnz int
+			peak := heapPeak(func() {
+				for b.Loop() {
+					f, ok := Factor(k, Order(k))
+					if !ok {
+						b.Fatal("factorization failed")
+					}
+					nnz = f.NNZ()
+				}
+			})
+			b.ReportMetric(float64(nnz), "nnzL")
+			b.ReportMetric(float64(peak)/(1<<20), "peakMiB")
+		})
+	}
+}
+
+// BenchmarkCountBelow: the verified count on the P1 pencil, σ = 100.
+func BenchmarkCountBelow(b *testing.B) {
+	for _, side := range benchSides {
+		k, m := benchGrid(side)
+		b.Run(fmt.Sprintf("n=%d", side*side), func(b *testing.B) {
+			peak := heapPeak(func() {
+				for b.Loop() {
+					if _, _, ok := CountBelow(k, m, 1e-9, 100); !ok {
+						b.Fatal("factorization failed")
+					}
+				}
+			})
+			b.ReportMetric(float64(peak)/(1<<20), "peakMiB")
+		})
+	}
+}
+
+// heapPeak runs f while sampling the heap in use and returns its maximum.
+func heapPeak(f func()) uint64 {
+	done := make(chan struct{})
+	peak := make(chan uint64)
+	go func() {
+		var ms runtime.MemStats
+		var p uint64
+		for {
+			runtime.ReadMemStats(&ms)
+			p = max(p, ms.HeapInuse)
+			select {
+			case <-done:
+				peak <- p
+				return
+			default:
+			}
+			timeSleep()
+		}
+	}()
+	f()
+	close(done)
+	return <-peak
+}
+
+func timeSleep() { time.Sleep(20 * time.Millisecond) }
