@@ -32,12 +32,15 @@ func (m *Mesh) Edges() (edges [][2]int, triEdges [][3]int) {
 	triEdges = make([][3]int, len(m.Tris))
 	for a := 0; a < n; a++ {
 		bucket := halves[start[a]:start[a+1]]
-		sort.Slice(bucket, func(i, j int) bool {
-			if bucket[i].b != bucket[j].b {
-				return bucket[i].b < bucket[j].b
+		// Insertion sort by (b, slot): buckets hold a node's few edges.
+		for j := 1; j < len(bucket); j++ {
+			h := bucket[j]
+			k := j
+			for ; k > 0 && (bucket[k-1].b > h.b || bucket[k-1].b == h.b && bucket[k-1].slot > h.slot); k-- {
+				bucket[k] = bucket[k-1]
 			}
-			return bucket[i].slot < bucket[j].slot
-		})
+			bucket[k] = h
+		}
 		for j, h := range bucket {
 			if j == 0 || h.b != bucket[j-1].b {
 				edges = append(edges, [2]int{a, h.b})
