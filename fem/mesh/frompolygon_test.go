@@ -81,3 +81,24 @@ func TestEdges(t *testing.T) {
 		}
 	}
 }
+
+// TestCheckEdgesDetects checks that the conformity check used by the tests
+// finds a reversed triangle, a hanging node and a missing boundary edge.
+func TestCheckEdgesDetects(t *testing.T) {
+	_, m := parsePolygon(t, testPolygons[0].file)
+	m = m.Refine()
+	reversed := m.Refine()
+	reversed.Tris[5][1], reversed.Tris[5][2] = reversed.Tris[5][2], reversed.Tris[5][1]
+	hanging := m.Refine()
+	hanging.Tris = append(hanging.Tris[:4:4], m.Tris[1:]...) // children of triangle 0 next to unrefined triangles
+	missing := m.Refine()
+	missing.Bnd = missing.Bnd[1:]
+	for _, c := range []struct {
+		name string
+		m    *Mesh
+	}{{"reversed", reversed}, {"hanging node", hanging}, {"missing boundary edge", missing}} {
+		if err := c.m.checkEdges(); err == nil {
+			t.Errorf("%s: not detected", c.name)
+		}
+	}
+}

@@ -60,6 +60,9 @@ func checkMesh(t *testing.T, p *problem.Problem, m *Mesh) {
 	if _, ok := sum.Intersection(p.Area()); !ok {
 		t.Errorf("areas add up to %v, polygon area %v", sum, p.Area())
 	}
+	if rel := sum.Wid() / sum.Mid(); rel > 1e-12 {
+		t.Errorf("areas add up to %v, relative width %v", sum, rel)
+	}
 	n := m.NumCorners()
 	next := make(map[int]int) // along each side
 	for _, b := range m.Bnd {
@@ -117,4 +120,30 @@ func TestRefine(t *testing.T) {
 			}
 		})
 	}
+}
+
+// TestNodeWidths reports how wide the node enclosures of a polygon with
+// irrational vertices grow under refinement: a midpoint's width is the
+// mean of its ends' widths plus rounding, so it may grow by about an ulp
+// per level, never more.
+func TestNodeWidths(t *testing.T) {
+	_, m := parsePolygon(t, testPolygons[3].file)
+	w0 := maxNodeWidth(m)
+	for k := 1; k <= 6; k++ {
+		m = m.Refine()
+	}
+	g := m.RefineGraded(0, 12)
+	w := maxNodeWidth(g)
+	t.Logf("pentagon: node width %.3g coarse, %.3g after 6 red levels and 12 graded levels (%d triangles)", w0, w, len(g.Tris))
+	if w > w0+18*0x1p-52 {
+		t.Errorf("node widths grew from %v to %v", w0, w)
+	}
+}
+
+func maxNodeWidth(m *Mesh) float64 {
+	w := 0.0
+	for _, p := range m.Nodes {
+		w = math.Max(w, math.Max(p[0].Wid(), p[1].Wid()))
+	}
+	return w
 }
