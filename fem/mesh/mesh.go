@@ -190,6 +190,7 @@ func (m *Mesh) Vertices(t int) [3][2]interval.I {
 // are those propagated by the constructors (each an enclosure of the exact
 // value, intersected with the enclosure from the nodes).
 func (m *Mesh) Geom(t int) Geom {
+	m.mustBeBuilt()
 	e, a := m.edge[t], m.area[t]
 	var g Geom
 	g.Area = a
@@ -215,6 +216,7 @@ func edgeLength(v [2]interval.I) interval.I {
 
 // HMax returns an upper bound of max_T h_T, h_T the longest edge of T.
 func (m *Mesh) HMax() float64 {
+	m.mustBeBuilt()
 	h := 0.0
 	for t := range m.Tris {
 		for i := 0; i < 3; i++ {
@@ -224,4 +226,12 @@ func (m *Mesh) HMax() float64 {
 		}
 	}
 	return h
+}
+
+// mustBeBuilt panics unless m carries the geometry of its triangles, as
+// every mesh made by FromPolygon, Refine or RefineGraded does.
+func (m *Mesh) mustBeBuilt() {
+	if len(m.edge) != len(m.Tris) || len(m.area) != len(m.Tris) {
+		panic("mesh: Mesh not made by FromPolygon, Refine or RefineGraded")
+	}
 }

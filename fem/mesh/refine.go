@@ -25,6 +25,7 @@ import (
 // those of its parent and its area exactly ¼ of the parent's, which is how
 // Geom's enclosures are propagated (intersected with those from the nodes).
 func (m *Mesh) Refine() *Mesh {
+	m.mustBeBuilt()
 	edges, triEdges := m.Edges()
 	n0 := len(m.Nodes)
 	r := &Mesh{
