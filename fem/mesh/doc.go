@@ -41,6 +41,8 @@
 //	R. E. Bank, A. H. Sherman, A. Weiser, Refinement algorithms and data
 //	structures for regular local mesh refinement, in: R. Stepleman (ed.),
 //	Scientific Computing, IMACS/North-Holland, 1983, 3–17 (red refinement).
+//	E. G. Sewell, Automatic generation of triangulations for piecewise
+//	polynomial approximation, Ph.D. thesis, Purdue University, 1972.
 //	W. F. Mitchell, A comparison of adaptive refinement techniques for
 //	elliptic problems, ACM Trans. Math. Softw. 15 (1989) 326–347
 //	(newest-vertex bisection).

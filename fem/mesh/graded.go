@@ -35,8 +35,9 @@ import (
 // on their sides. A triangle with the corner has its three edges split in
 // a round, so the triangles at the corner shrink geometrically with the
 // rounds, and newest-vertex bisection makes at most finitely many
-// similarity classes of triangles (Mitchell 1989, Stevenson 2008), so the
-// mesh stays shape regular. Old nodes keep their numbers; new nodes and
+// similarity classes of triangles from each initial one (Sewell 1972;
+// Mitchell 1989), so the mesh stays shape regular; shape regularity
+// affects how narrow later bounds are, never whether they hold. Old nodes keep their numbers; new nodes and
 // triangles are numbered in the order of the rounds, then of the edges and
 // triangles, which depends only on m. Child edge vectors are exact half
 // sums of the parent's ((m, v0, v1) has e = (e_2, ½e_0, ½(e_1 − e_2))), its
