@@ -319,13 +319,13 @@ func (a *accum) sym() *enclose.Sym {
 // ∫_T u_i²/|T|, the differences d[i][k] = D_k cf, and
 // h[i][k] = Σ_l g_kl G^(p−1) D_l cf.
 type ritzWork struct {
-	cf        [][]float64
-	gu, wu    [][]interval.I
-	d, h      [][2][]interval.I
-	mii       []interval.I
-	wg, tmp   []interval.I
-	gramP     []interval.I
-	gramQ     []interval.I
+	cf      [][]float64
+	gu, wu  [][]interval.I
+	d, h    [][2][]interval.I
+	mii     []interval.I
+	wg, tmp []interval.I
+	gramP   []interval.I
+	gramQ   []interval.I
 }
 
 func newRitzWork(p, q, nv int) *ritzWork {
