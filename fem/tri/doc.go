@@ -1,0 +1,38 @@
+// Package tri implements the finite elements of gapcert on triangle meshes
+// of a polygon (package fem/mesh), for
+//
+//	−Δu + V u = λ u in Ω,  u = 0 on Dirichlet sides,
+//	∂u/∂n + αu = 0 on Robin sides (α ≥ 0; Neumann for α = 0),
+//
+// with a(u, v) = ∫∇u·∇v + ∫Vuv + Σ_e α_e ∫_e uv and b(u, v) = ∫uv:
+//
+//   - Potential: V held per triangle as a Bernstein polynomial with interval
+//     coefficients plus a remainder interval (from formula Taylor models;
+//     exact for polynomials), with a range enclosure per triangle;
+//   - Lagrange: conforming P_p (any p ≥ 1) in the Bernstein basis, for
+//     Rayleigh–Ritz upper bounds (RitzMatrices) and float assembly
+//     (AssembleApprox) to choose approximate eigenvectors;
+//   - Projection: the stage-A spaces CR and ECR (enriched Crouzeix–Raviart)
+//     with the interval matrices of the relaxed form a_h and the constant
+//     of the projection lower bound (METHODS §5).
+//
+// Guarantees. Every interval matrix this package returns (RitzMatrices,
+// Projection.Matrices) encloses, entry by entry, the exact forms for the
+// exact mesh (every exact node inside its enclosure), the exact functions
+// defined by the given float64 coefficients, and every exact value of the
+// inputs inside their enclosures (α, γ, potential models). The integrals
+// are exact on each triangle: functions are in Bernstein form in the
+// barycentric coordinates, whose products, gradients and integrals are
+// exact rational identities (tables.go, kernel.go), evaluated in outward
+// rounded interval arithmetic (package interval) from tables enclosed from
+// math/big. The non-polynomial part of V is carried as a remainder and
+// bounded by Cauchy–Schwarz. Hypotheses a theorem needs (V + γ ≥ 0 on
+// every triangle, an invertible local DOF matrix, a positive mass bound)
+// are checked and reported as errors (*SignError and others), never
+// assumed. ProjectionConstant returns an upper bound of the constant of
+// (H3), with the inequality and its source in its doc comment.
+//
+// Functions and files named Approx or approx, and Interpolate and Eval,
+// work at round-to-nearest: their results are choices (approximate
+// eigenvectors, interpolants, plot values), never bounds.
+package tri
