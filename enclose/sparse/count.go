@@ -241,6 +241,16 @@ func residualBound(f *LDL, a, b *lowerColumns) float64 {
 // entries q of column j of L (row i), where
 // R_ij = A_ij + B_ij − Σ_{k<j} L_jk D_k L_ik − L_ij D_j (L_jj = 1). acc and
 // mark are workspaces of length n; mark[i] must not equal j+1 on entry.
+//
+// The sums are accumulated in interval arithmetic that steps one ulp
+// outward after each operation rounded to nearest (METHODS §2, the cheaper
+// variant): for floats a, b and ◦ ∈ {+, −, ·}, the exact a ◦ b lies in
+// [down(fl(a ◦ b)), up(fl(a ◦ b))], because round to nearest errs by at
+// most half the spacing of the floats around the result (IEEE 754-2019
+// §4.3.1; a result rounded to +∞ comes from an exact value beyond
+// MaxFloat64, and a result rounded to −∞ yields a NaN end). Every product
+// is written float64(a*b) so that no fused multiply-add changes the
+// rounding.
 func residualColumn(f *LDL, a, b *lowerColumns, tPtr, tPos []int, tCol []int32, j int,
 	acc []interval.I, mark []int32, magD, magL []float64) {
 	lp, li, lx, d := f.Sym.colPtr, f.Row, f.Val, f.D
@@ -260,18 +270,64 @@ func residualColumn(f *LDL, a, b *lowerColumns, tPtr, tPos []int, tCol []int32, 
 	}
 	for t := tPtr[j]; t < tPtr[j+1]; t++ {
 		p, k := tPos[t], tCol[t]
-		c := interval.Point(lx[p]).MulF(d[k]) // L_jk D_k
-		acc[j] = acc[j].Sub(c.MulF(lx[p]))
+		ljk := lx[p]
+		w := float64(ljk * d[k])
+		cl, ch := down(w), up(w) // ∋ L_jk D_k
+		acc[j] = subProduct(acc[j], cl, ch, ljk)
 		for q := p + 1; q < lp[k+1]; q++ {
 			i := li[q]
 			if mark[i] != tag {
 				panic("sparse: fill outside the pattern of L (symbolic analysis is wrong)")
 			}
-			acc[i] = acc[i].Sub(c.MulF(lx[q]))
+			acc[i] = subProduct(acc[i], cl, ch, lx[q])
 		}
 	}
-	magD[j] = acc[j].Sub(interval.Point(d[j])).Mag()
+	magD[j] = magnitude(subProduct(acc[j], 1, 1, d[j]))
 	for q := lp[j]; q < lp[j+1]; q++ {
-		magL[q] = acc[li[q]].Sub(interval.Point(lx[q]).MulF(d[j])).Mag()
+		w := float64(lx[q] * d[j])
+		magL[q] = magnitude(subProduct(acc[li[q]], down(w), up(w), 1))
 	}
+}
+
+// subProduct returns an enclosure of acc − c·x for c ∈ [cl, ch], stepping
+// one ulp outward after each rounded operation (see residualColumn).
+func subProduct(acc interval.I, cl, ch, x float64) interval.I {
+	p1, p2 := float64(cl*x), float64(ch*x)
+	pl, ph := down(min(p1, p2)), up(max(p1, p2))
+	return interval.I{Lo: down(acc.Lo - ph), Hi: up(acc.Hi - pl)}
+}
+
+// up returns a float ≥ succ(x), the successor of x, so an upper bound of
+// every real number that rounds to nearest to x; up(+∞) = +∞, and
+// up(−∞) and up(NaN) are NaN (a NaN end makes the residual bound +∞).
+//
+// With δ = fl(fl(|x|·2⁻⁵²) + 2⁻¹⁰⁷⁴): if x is subnormal or zero, δ ≥ 2⁻¹⁰⁷⁴,
+// the spacing there; if x is normal, |x|·2⁻⁵² is at least the spacing of
+// the floats next to x, and the product is exact unless subnormal, when
+// its rounding error (≤ 2⁻¹⁰⁷⁵) is covered by the exact subnormal addition
+// of 2⁻¹⁰⁷⁴. So x + δ ≥ succ(x) and, rounding being monotonic,
+// fl(x + δ) ≥ succ(x). This is the successor formula of Rump, Zimmermann,
+// Boldo and Melquiond with the slightly larger factor 2⁻⁵².
+//
+// References:
+//
+//	S. M. Rump, P. Zimmermann, S. Boldo, G. Melquiond, Computing
+//	predecessor and successor in rounding to nearest, BIT 49 (2009)
+//	419–431.
+func up(x float64) float64 {
+	return x + (float64(math.Abs(x)*0x1p-52) + 0x1p-1074)
+}
+
+// down returns a float ≤ pred(x), symmetric to up.
+func down(x float64) float64 {
+	return x - (float64(math.Abs(x)*0x1p-52) + 0x1p-1074)
+}
+
+// magnitude returns max(|lo|, |hi|), or +∞ if an end is NaN.
+func magnitude(x interval.I) float64 {
+	m := max(math.Abs(x.Lo), math.Abs(x.Hi))
+	if math.IsNaN(m) {
+		return math.Inf(1)
+	}
+	return m
 }
