@@ -116,6 +116,8 @@ func TestVerifiedBoundsClosedForms(t *testing.T) {
 			[]interval.I{pi2, pi2.MulF(2), pi2.MulF(4)}, true, []float64{0.053, 0.088, 0.19}},
 		{"L-shape Dirichlet", lshape, allBC(6, dirichlet),
 			[]interval.I{{Lo: 9.6397238 - 1e-6, Hi: 9.6397238 + 1e-6}}, true, []float64{0.16}},
+		{"L-shape Dirichlet, graded", func(t *testing.T) *mesh.Mesh { return lshape(t).RefineGraded(3, 6) }, allBC(6, dirichlet),
+			[]interval.I{{Lo: 9.6397238 - 1e-6, Hi: 9.6397238 + 1e-6}}, true, []float64{0.14}},
 	}
 	for _, tc := range cases {
 		lo, up := verifiedBounds(t, tc.mesh(t), tc.bc, 3, len(tc.want), tc.enriched)
