@@ -56,8 +56,10 @@ const parallelWork = 1 << 16
 // of CPUs, and the row sums and their maximum are taken sequentially, so
 // the result does not depend on GOMAXPROCS.
 //
-// CountBelow panics if the sizes differ, mMin is not a positive finite
-// number or sigma is not finite.
+// CountBelow is NewCounter(k, m).CountBelow(mMin, sigma); a Counter saves
+// the ordering and the symbolic analysis when many shifts are tried. It
+// panics if the sizes differ, mMin is not a positive finite number or
+// sigma is not finite.
 //
 // References:
 //
@@ -69,49 +71,82 @@ const parallelWork = 1 << 16
 //	the form of a sum of positive and negative squares, Philosophical
 //	Magazine 4 (1852) 138–142.
 func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
+	return NewCounter(k, m).CountBelow(mMin, sigma)
+}
+
+// Counter evaluates CountBelow for one interval pencil at many shifts,
+// doing the ordering, the symbolic analysis and the permutation of [K] and
+// [M] once. A Counter is not safe for concurrent use; its results are those
+// of CountBelow bit for bit.
+type Counter struct {
+	k, m         *ISym
+	fromK, fromM []int
+	sym          *Symbolic
+	kLow, mLow   *lowerColumns // Pᵀ[K]P and Pᵀ[M]P, lower triangles
+	shiftedM     *lowerColumns // −σ·Pᵀ[M]P for the current σ
+	c            *Sym          // mid(K) − σ·mid(M), a choice
+	f            LDL
+	rows         *lRows // row structure of L, the same for every shift
+}
+
+// NewCounter prepares CountBelow for the pencil ([K], [M]). It panics if
+// the sizes differ.
+func NewCounter(k, m *ISym) *Counter {
 	if k.N() != m.N() {
 		panic("sparse: dimension mismatch")
 	}
+	u, fromK, fromM := union(k.Pat, m.Pat)
+	sym := analyzePattern(u, orderPattern(u))
+	inv := make([]int, u.n)
+	for q, v := range sym.perm {
+		inv[v] = q
+	}
+	c := &Counter{k: k, m: m, fromK: fromK, fromM: fromM, sym: sym,
+		kLow: permutedLower(k, inv), mLow: permutedLower(m, inv),
+		c: &Sym{Pat: u, Val: make([]float64, u.NNZ())}}
+	c.shiftedM = &lowerColumns{ptr: c.mLow.ptr, row: c.mLow.row, val: make([]interval.I, len(c.mLow.val))}
+	return c
+}
+
+// CountBelow returns CountBelow(k, m, mMin, sigma) for the pencil of c
+// (see the function CountBelow for the guarantee and its proof).
+func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
 	if !(mMin > 0) || math.IsInf(mMin, 1) {
 		panic("sparse: mMin must be a positive finite lower bound of λ_min(M)")
 	}
 	if math.IsNaN(sigma) || math.IsInf(sigma, 0) {
 		panic("sparse: shift must be finite")
 	}
-	u, fromK, fromM := union(k.Pat, m.Pat)
 	// The matrix to factor is a choice; its rounding errors are part of R.
-	c := &Sym{Pat: u, Val: make([]float64, u.NNZ())}
-	for q, v := range k.Val {
-		c.Val[at(fromK, q)] += v.Mid()
+	clear(c.c.Val)
+	for q, v := range c.k.Val {
+		c.c.Val[at(c.fromK, q)] += v.Mid()
 	}
-	for q, v := range m.Val {
-		c.Val[at(fromM, q)] -= sigma * v.Mid()
+	for q, v := range c.m.Val {
+		c.c.Val[at(c.fromM, q)] -= sigma * v.Mid()
 	}
-	sym := analyzePattern(u, orderPattern(u))
-	f, ok := sym.Factor(c)
-	if !ok {
+	if !c.f.Factorize(c.sym, c.c) {
 		return 0, sigma, false
 	}
-	for _, v := range f.Val {
+	for _, v := range c.f.Val {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
 			return 0, sigma, false
 		}
 	}
-	// Interval entries of Pᵀ(K − σM)P, lower triangle by columns (the
-	// contributions of K and M to one position are kept apart and summed
-	// in the residual).
-	nn := u.n
-	inv := make([]int, nn)
-	for q, v := range sym.perm {
-		inv[v] = q
+	if c.rows == nil {
+		c.rows = newLRows(&c.f)
 	}
-	a := permutedLower(k, inv, interval.Point(1))
-	b := permutedLower(m, inv, interval.Point(-sigma))
-	r := residualBound(f, a, b)
+	// Interval entries of −σ·Pᵀ[M]P; those of Pᵀ[K]P are kept apart and
+	// both are summed into the residual.
+	ms := interval.Point(-sigma)
+	for q, v := range c.mLow.val {
+		c.shiftedM.val[q] = v.Mul(ms)
+	}
+	r := residualBound(&c.f, c.rows, c.kLow, c.shiftedM)
 	if math.IsNaN(r) {
 		r = math.Inf(1)
 	}
-	return f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
+	return c.f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
 }
 
 // lowerColumns is a permuted lower triangle by columns with interval
@@ -122,9 +157,9 @@ type lowerColumns struct {
 	val []interval.I
 }
 
-// permutedLower returns the lower triangle of Pᵀ(c·S)P by columns, each
-// entry an enclosure of c times the interval entry of s.
-func permutedLower(s *ISym, inv []int, c interval.I) *lowerColumns {
+// permutedLower returns the lower triangle of PᵀSP by columns (inv is the
+// inverse permutation).
+func permutedLower(s *ISym, inv []int) *lowerColumns {
 	n, p := s.Pat.n, s.Pat
 	lc := &lowerColumns{ptr: make([]int, n+1), row: make([]int32, p.NNZ()), val: make([]interval.I, p.NNZ())}
 	for j := 0; j < n; j++ {
@@ -141,50 +176,63 @@ func permutedLower(s *ISym, inv []int, c interval.I) *lowerColumns {
 			x, y := inv[p.rowIdx[q]], inv[j]
 			col := min(x, y)
 			lc.row[next[col]] = int32(max(x, y))
-			lc.val[next[col]] = s.Val[q].Mul(c)
+			lc.val[next[col]] = s.Val[q]
 			next[col]++
 		}
 	}
 	return lc
 }
 
-// residualBound returns r ≥ max_i Σ_j |R_ij| for R = A + B − L D Lᵀ and
-// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards.
-func residualBound(f *LDL, a, b *lowerColumns) float64 {
+// lRows is the row structure of L with the positions of its entries and a
+// work estimate per column.
+type lRows struct {
+	// Row j holds the entries L_jk, k < j, ascending k, at positions
+	// pos[ptr[j]:ptr[j+1]] of L, in the columns col[·].
+	ptr  []int
+	pos  []int
+	col  []int32
+	work []int // work[j+1] − work[j]: multiply-adds of residual column j
+}
+
+func newLRows(f *LDL) *lRows {
 	n := len(f.D)
 	lp := f.Sym.colPtr
-	// Rows of L with the positions of their entries: row j holds the
-	// entries L_jk, k < j, at positions tPos[tPtr[j]:tPtr[j+1]], ascending k.
-	tPtr := make([]int, n+1)
+	t := &lRows{ptr: make([]int, n+1), pos: make([]int, len(f.Row)), col: make([]int32, len(f.Row)), work: make([]int, n+1)}
 	for _, i := range f.Row {
-		tPtr[i+1]++
+		t.ptr[i+1]++
 	}
 	for j := 0; j < n; j++ {
-		tPtr[j+1] += tPtr[j]
+		t.ptr[j+1] += t.ptr[j]
 	}
-	tPos, tCol := make([]int, len(f.Row)), make([]int32, len(f.Row))
-	next := append([]int(nil), tPtr[:n]...)
+	next := append([]int(nil), t.ptr[:n]...)
 	for k := 0; k < n; k++ {
 		for q := lp[k]; q < lp[k+1]; q++ {
 			i := f.Row[q]
-			tPos[next[i]], tCol[next[i]] = q, int32(k)
+			t.pos[next[i]], t.col[next[i]] = q, int32(k)
 			next[i]++
 		}
 	}
-	// Work of each column, for balanced blocks.
-	work := make([]int, n+1)
 	for j := 0; j < n; j++ {
 		w := 1 + lp[j+1] - lp[j]
-		for t := tPtr[j]; t < tPtr[j+1]; t++ {
-			w += lp[tCol[t]+1] - tPos[t]
+		for e := t.ptr[j]; e < t.ptr[j+1]; e++ {
+			w += lp[t.col[e]+1] - t.pos[e]
 		}
-		work[j+1] = work[j] + w
+		t.work[j+1] = t.work[j] + w
 	}
+	return t
+}
+
+// residualBound returns r ≥ max_i Σ_j |R_ij| for R = A + B − L D Lᵀ and
+// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards.
+func residualBound(f *LDL, t *lRows, a, b *lowerColumns) float64 {
+	n := len(f.D)
+	lp := f.Sym.colPtr
+	work := t.work
 	magD := make([]float64, n)
 	magL := make([]float64, len(f.Row))
 	columns := func(from, to int, acc []interval.I, mark []int32) {
 		for j := from; j < to; j++ {
-			residualColumn(f, a, b, tPtr, tPos, tCol, j, acc, mark, magD, magL)
+			residualColumn(f, t, a, b, j, acc, mark, magD, magL)
 		}
 	}
 	workers := runtime.GOMAXPROCS(0)
@@ -251,7 +299,7 @@ func residualBound(f *LDL, a, b *lowerColumns) float64 {
 // MaxFloat64, and a result rounded to −∞ yields a NaN end). Every product
 // is written float64(a*b) so that no fused multiply-add changes the
 // rounding.
-func residualColumn(f *LDL, a, b *lowerColumns, tPtr, tPos []int, tCol []int32, j int,
+func residualColumn(f *LDL, rows *lRows, a, b *lowerColumns, j int,
 	acc []interval.I, mark []int32, magD, magL []float64) {
 	lp, li, lx, d := f.Sym.colPtr, f.Row, f.Val, f.D
 	tag := int32(j + 1)
@@ -268,8 +316,8 @@ func residualColumn(f *LDL, a, b *lowerColumns, tPtr, tPos []int, tCol []int32, 
 			acc[i] = acc[i].Add(s.val[q])
 		}
 	}
-	for t := tPtr[j]; t < tPtr[j+1]; t++ {
-		p, k := tPos[t], tCol[t]
+	for e := rows.ptr[j]; e < rows.ptr[j+1]; e++ {
+		p, k := rows.pos[e], rows.col[e]
 		ljk := lx[p]
 		w := float64(ljk * d[k])
 		cl, ch := down(w), up(w) // ∋ L_jk D_k

@@ -559,6 +559,30 @@ func TestCountBelowIndependentOfProcs(t *testing.T) {
 	}
 }
 
+// TestCounterReuse: a Counter gives CountBelow's results bit for bit, in
+// any order of shifts, also after a failed factorization.
+func TestCounterReuse(t *testing.T) {
+	k, m := p1Square(25)
+	ik, im := toISym(k), toISym(m)
+	c := NewCounter(ik, im)
+	for _, sigma := range []float64{500, 20, 1e4, 0, 20, 733.5} {
+		n1, s1, ok1 := CountBelow(ik, im, 1e-4, sigma)
+		n2, s2, ok2 := c.CountBelow(1e-4, sigma)
+		if n1 != n2 || math.Float64bits(s1) != math.Float64bits(s2) || ok1 != ok2 {
+			t.Errorf("σ=%g: CountBelow (%d, %v, %v), Counter (%d, %v, %v)", sigma, n1, s1, ok1, n2, s2, ok2)
+		}
+	}
+	// grid5(1) is the 1×1 matrix 4/h² = 16 (h = 1/2): σ = 16 gives a zero
+	// pivot.
+	one := NewCounter(toISym(grid5(1)), toISym(identity(1)))
+	if _, _, ok := one.CountBelow(1, 16); ok {
+		t.Error("zero pivot at σ = λ not reported")
+	}
+	if n, sp, ok := one.CountBelow(1, 17); !ok || n != 1 || sp > 17 || sp < 17-1e-12 {
+		t.Errorf("after a failure: (%d, %v, %v), want (1, ≈17, true)", n, sp, ok)
+	}
+}
+
 func checkEigs(t *testing.T, name string, k, m *Sym, vals []float64, vecs [][]float64, want []float64, tol float64) {
 	t.Helper()
 	n := k.N()
