@@ -52,10 +52,9 @@ import (
 //	J. Hu, Y. Huang, Q. Lin, Lower bounds for eigenvalues of elliptic
 //	operators: by nonconforming finite element methods, J. Sci. Comput. 61
 //	(2014) 196–221.
-//	L. E. Payne, H. F. Weinberger, An optimal Poincaré inequality for
-//	convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292; corrected
-//	proof: M. Bebendorf, A note on the Poincaré inequality for convex
-//	domains, Z. Anal. Anwendungen 22 (2003) 751–756.
+//	R. S. Laugesen, B. A. Siudeja, Minimizing Neumann fundamental tones of
+//	triangles: an optimal Poincaré inequality, J. Differential Equations
+//	249 (2010) 118–135.
 type Projection struct {
 	mesh     *mesh.Mesh
 	bc       []BC
@@ -439,13 +438,22 @@ func choleskyPositive(mt [4][4]interval.I, keep []int, t float64) bool {
 	return true
 }
 
+// besselJ11Lower is a lower bound of j_(1,1) = 3.83170597020751…
+// (Abramowitz–Stegun Table 9.5; the tests check the sign change of J_1
+// from its power series in math/big).
+const besselJ11Lower = 3.8317
+
 // ProjectionConstant returns an interval whose upper end is ≥ C_h =
 // max_T C_T, C_T the constant of (H3) on T, for the exact mesh (the lower
-// end is the same formula from the lower ends of the edge lengths):
+// end is the same formula from the lower ends of the edge lengths).
 //
-// ECR: the error e has zero mean on T, so ‖e‖_T ≤ (h_T/π) ‖∇e‖_T with h_T
-// the diameter of T (its longest edge) by the Payne–Weinberger inequality
-// for convex domains. C_T = h_T/π.
+// Mean-zero Poincaré inequality on a triangle (Laugesen–Siudeja 2010):
+// ∫_T v² < (D²/j_(1,1)²) ∫_T |∇v|² for v ∈ H¹(T) with zero mean over T,
+// D the diameter of T (its longest edge h_T) and j_(1,1) = 3.8317059702…
+// the first positive zero of J_1 (Abramowitz–Stegun Table 9.5); the code
+// uses the smaller 3.8317, which only enlarges the constant.
+//
+// ECR: the error e has zero mean on T, so C_T = h_T/j_(1,1) ≈ 0.2610 h_T.
 //
 // CR: the error has zero mean on each edge only. With x_c the centroid,
 // div((x − x_c)e) = 2e + (x − x_c)·∇e, and (x − x_c)·n is constant on each
@@ -454,22 +462,32 @@ func choleskyPositive(mt [4][4]interval.I, keep []int, t float64) bool {
 // centroid), Cauchy–Schwarz gives |T| m_T(e)² ≤ (Σ ℓ_i²/144) ‖∇e‖²_T, and
 // ‖e‖² = ‖e − m_T(e)‖² + |T| m_T(e)², so
 //
-//	C_T² = (ℓ_0² + ℓ_1² + ℓ_2²)/144 + h_T²/π²   (C_T ≤ 0.3495 h_T).
+//	C_T² = (ℓ_0² + ℓ_1² + ℓ_2²)/144 + h_T²/j_(1,1)².
 //
-// (Liu and Oishi state the smaller CR constant 0.1893 h_T, SIAM J. Numer.
-// Anal. 51 (2013) 1634–1654; it is not used here because its exact
-// statement was not checked against the paper. Laugesen and Siudeja's
-// bound h_T/j_(1,1) for the mean-zero Poincaré constant of triangles
-// would likewise tighten both constants.) π is enclosed by
-// [math.Pi, next(math.Pi)] (math.Pi is the float64 just below π).
+// Since Σ ℓ_i² ≤ 3h_T², C_T ≤ √(1/48 + 1/j_(1,1)²) h_T ≈ 0.2984 h_T, which
+// agrees with the constant of Carstensen–Gedicke 2014 (recalled from
+// memory; not relied on). Liu and Oishi state the smaller
+// CR constant 0.1893 h_T (SIAM J. Numer. Anal. 51 (2013) 1634–1654); it is
+// not used here because its exact statement was not checked against the
+// paper.
+//
+// References:
+//
+//	R. S. Laugesen, B. A. Siudeja, Minimizing Neumann fundamental tones of
+//	triangles: an optimal Poincaré inequality, J. Differential Equations
+//	249 (2010) 118–135.
+//	M. Abramowitz, I. A. Stegun, Handbook of Mathematical Functions, NBS
+//	1964, Table 9.5.
+//	C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
+//	Math. Comp. 83 (2014) 2605–2629.
 func (s *Projection) ProjectionConstant() interval.I {
-	pi := interval.I{Lo: math.Pi, Hi: math.Nextafter(math.Pi, 4)}
+	j11 := interval.I{Lo: besselJ11Lower, Hi: besselJ11Lower}
 	best := interval.I{}
 	for t := range s.mesh.Tris {
 		g := s.mesh.Geom(t)
 		h := g.EdgeLen[0].Hull(g.EdgeLen[1]).Hull(g.EdgeLen[2])
 		h = interval.I{Lo: math.Max(g.EdgeLen[0].Lo, math.Max(g.EdgeLen[1].Lo, g.EdgeLen[2].Lo)), Hi: h.Hi}
-		c := h.Div(pi)
+		c := h.Div(j11)
 		if !s.enriched {
 			sq := g.EdgeLen[0].Sqr().Add(g.EdgeLen[1].Sqr()).Add(g.EdgeLen[2].Sqr()).DivF(144)
 			c, _ = sq.Add(c.Sqr()).Sqrt()
