@@ -65,13 +65,6 @@ func diffF(dst []interval.I, pairs [][2]int, c []float64) {
 	}
 }
 
-// diffI is diffF for interval coefficients.
-func diffI(dst []interval.I, pairs [][2]int, c []interval.I) {
-	for b, pr := range pairs {
-		dst[b] = c[pr[0]].Sub(c[pr[1]])
-	}
-}
-
 // applyI sets dst[i] ⊇ Σ_j g[i·len(b) + j] b[j].
 func applyI(dst []interval.I, g []interval.I, b []interval.I) {
 	nb := len(b)
@@ -148,30 +141,6 @@ func weightedGram(dst []interval.I, w []interval.I, q int, s interval.I, p int) 
 			dst[a*np+b] = dst[b*np+a]
 		}
 	}
-}
-
-// stiffnessI returns an enclosure of ∫_T ∇u·∇v / |T| for u, v of degree p
-// with interval Bernstein coefficients (the gradient identity above), and
-// g = gradGram of the triangle.
-func stiffnessI(u, v []interval.I, p int, g [2][2]interval.I) interval.I {
-	pairs := diffPairs(p)
-	nq := dim(p - 1)
-	gram := tripleTable(0, p-1, p-1).iv
-	du := [2][]interval.I{make([]interval.I, nq), make([]interval.I, nq)}
-	dv := [2][]interval.I{make([]interval.I, nq), make([]interval.I, nq)}
-	gv := make([]interval.I, nq)
-	for k := 0; k < 2; k++ {
-		diffI(du[k], pairs[k], u)
-		diffI(dv[k], pairs[k], v)
-	}
-	acc := interval.I{}
-	for l := 0; l < 2; l++ {
-		applyI(gv, gram, dv[l])
-		for k := 0; k < 2; k++ {
-			acc = acc.Add(g[k][l].Mul(dotI(du[k], gv)))
-		}
-	}
-	return acc.MulF(float64(p * p))
 }
 
 // remainderBound returns t ≥ r·√x·√y for r, x, y ≥ 0 (upper rounded): the

@@ -234,8 +234,9 @@ func ecrBasis(v [3][2]interval.I) (phi [4][6]interval.I, ok bool) {
 // Σ_(e ⊂ Γ_R) α_e |e| m_e(u) m_e(v). Since 0 ≤ c_T ≤ V + γ on T and
 // |T| m_T(u)² ≤ ‖u‖²_T, |e| m_e(u)² ≤ ‖u‖²_e (Jensen), a_h ≤ a + γb on H.
 // In the local basis (ecrBasis) the mean terms are c_T|T| on the element
-// mean and α_e|e| on the edge mean; stiffness and mass are exact integrals
-// of the degree-2 Bernstein coefficients (kernel.go), enclosed.
+// mean and α_e|e| on the edge mean; the mass is the exact integral of the
+// degree-2 Bernstein coefficients (tables.go), enclosed, and the stiffness
+// has the closed form of ecrStiffnessWeight.
 //
 // CR: a_h = Σ_T (∇u, ∇v)_T + c (u, v) + Σ_(e ⊂ Γ_R) α_e |e| m_e(u) m_e(v)
 // with the single constant c = min_T c_T ≥ 0 (CR does not preserve
@@ -291,8 +292,9 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 			if !ok {
 				return nil, nil, 0, fmt.Errorf("tri: ECR element mean on triangle %d not verified invertible (degenerate enclosure)", t)
 			}
-			gg := gradGram(g.Grad)
 			gram := tripleTable(0, 2, 2).iv
+			rank := ecrStiffnessWeight(m.Vertices(t), g.Area)
+			w := [4]float64{1, 1, 1, -3}
 			var tmp [6]interval.I
 			for i := 0; i < 4; i++ {
 				applyI(tmp[:], gram, phi[i][:])
@@ -302,7 +304,11 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 					if d[i] < 0 || d[j] < 0 {
 						continue
 					}
-					kij := g.Area.Mul(stiffnessI(phi[i][:], phi[j][:], 2, gg))
+					kij := rank.MulF(w[i] * w[j])
+					if i < 3 {
+						gi, gj := g.Grad[i], g.Grad[j]
+						kij = kij.Add(g.Area.Mul(gi[0].Mul(gj[0]).Add(gi[1].Mul(gj[1]))).MulF(4))
+					}
 					if i == 3 && j == 3 {
 						kij = kij.Add(g.Area.MulF(ct[t]))
 					}
@@ -371,6 +377,29 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 		return nil, nil, 0, fmt.Errorf("tri: mass matrix lower bound %g not positive (triangles too small for float64)", mMin)
 	}
 	return k, mass, mMin, nil
+}
+
+// ecrStiffnessWeight returns an enclosure of 16|T|/L, L = ℓ_0² + ℓ_1² + ℓ_2²
+// the sum of the squared edge lengths, with which the local ECR stiffness
+// matrix (ecrBasis order) is
+//
+//	K_T = [4|T| ∇λ_i·∇λ_j]_(i,j<3) ⊕ 0  +  (16|T|/L) w wᵀ,   w = (1, 1, 1, −3).
+//
+// Proof: ψ (ecrBasis) has zero edge means, so ∫_T ∇ψ = ∫_∂T ψ n = 0; as
+// ∇ψ = 2(x − v_0) − ∇ℓ with ∇ℓ constant, ∇ψ = 2(x − x_c), x_c the
+// centroid. Hence ∇Φ_3 = −(72/L)(x − x_c) (since m_T(ψ) = −L/36) and, with
+// ∫_T (x − x_c) = 0 and ∫_T |x − x_c|² = |T| L/36, ∫∇Φ_3·∇Φ_3 = 144|T|/L and
+// ∫∇φ_i·∇Φ_3 = 0 for the CR functions φ_i = 1 − 2λ_i (constant gradient
+// −2∇λ_i). With Φ_i = φ_i − Φ_3/3 the entries follow by bilinearity. L
+// is enclosed from the vertex differences d_1, d_2 as |d_1|² + |d_2|² +
+// |d_1 − d_2|².
+func ecrStiffnessWeight(v [3][2]interval.I, area interval.I) interval.I {
+	var l interval.I
+	for i := 0; i < 3; i++ {
+		a, b := v[(i+1)%3], v[(i+2)%3]
+		l = l.Add(b[0].Sub(a[0]).Sqr()).Add(b[1].Sub(a[1]).Sqr())
+	}
+	return area.MulF(16).Div(l)
 }
 
 // massFloor chooses t just below the smallest eigenvalue of the midpoint

@@ -22,7 +22,6 @@ import (
 //
 //	∫_T λ_0^a λ_1^b λ_2^c = 2|T| a! b! c! / (a + b + c + 2)!         (integral)
 //	∫_T B^n_α = |T| / C(n + 2, 2)                                     (from it)
-//	B^m_α B^n_β = C(m, α) C(n, β) / C(m + n, α + β) · B^(m+n)_(α+β)    (product)
 //	λ^γ = Σ_(δ≥γ) C(n − |γ|, δ − γ)/C(n, δ) · B^n_δ,  |γ| ≤ n         (monomials)
 //	Σ_α B^n_α = 1, B^n_α ≥ 0 on T                                     (range)
 //
@@ -127,21 +126,19 @@ func baryIntegralRat(a [3]int) *big.Rat {
 
 // tripleTable returns T[(k·N_m + i)·N_n + j] = ∫_T B^r_κ B^m_α B^n_β / |T|
 // (κ, α, β the k-th, i-th, j-th multi-indices of degrees r, m, n)
-// = C(r,κ) C(m,α) C(n,β) / (C(r+m+n, κ+α+β) C(r+m+n+2, 2)). With r = 0 it
-// is the Gram matrix of the Bernstein bases of degrees m and n.
+// = C(r,κ) C(m,α) C(n,β) ∫_T λ^(κ+α+β) / |T| (the integral formula). With
+// r = 0 it is the Gram matrix of the Bernstein bases of degrees m and n.
 func tripleTable(r, m, n int) *table {
 	return cached(tableKey{'t', r, m, n}, func() []*big.Rat {
 		ir, im, in := multiIndex(r), multiIndex(m), multiIndex(n)
-		s := r + m + n
-		tail := binom(s+2, 2)
 		out := make([]*big.Rat, 0, len(ir.alpha)*len(im.alpha)*len(in.alpha))
 		for _, k := range ir.alpha {
 			for _, a := range im.alpha {
 				for _, b := range in.alpha {
 					num := new(big.Int).Mul(multinom(k), multinom(a))
 					num.Mul(num, multinom(b))
-					den := new(big.Int).Mul(multinom(add3(add3(k, a), b)), tail)
-					out = append(out, new(big.Rat).SetFrac(num, den))
+					w := baryIntegralRat(add3(add3(k, a), b))
+					out = append(out, w.Mul(w, new(big.Rat).SetInt(num)))
 				}
 			}
 		}
