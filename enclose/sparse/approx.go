@@ -27,9 +27,12 @@ const (
 	// residualTol is the relative residual ‖Kx − λMx‖₂/((‖K‖∞ + |λ|‖M‖∞)‖x‖₂)
 	// at which an eigenpair counts as converged; acceptTol is the level
 	// accepted when the iteration stagnates.
-	residualTol = 1e-14
+	residualTol = 1e-13
 	acceptTol   = 1e-11
 	maxIter     = 500
+	// krylovSteps is the number of blocks of the Krylov basis built from
+	// the Ritz block at each iteration.
+	krylovSteps = 3
 )
 
 // LowestEigs returns approximations of the lowest count eigenvalues of
@@ -46,7 +49,7 @@ const (
 // The shift σ is kept below λ_1 (the float factorization of K − σM has no
 // negative pivot) and moved towards the lowest Ritz value as it
 // converges. Iteration stops when every wanted pair has relative residual
-// ‖Kx − λMx‖₂ ≤ 1e-14·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂; if it stagnates above that,
+// ‖Kx − λMx‖₂ ≤ 1e-13·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂; if it stagnates above that,
 // pairs down to 1e-11 are accepted, otherwise ErrNotConverged is returned.
 //
 // LowestEigs panics if the sizes differ or count is not in 1 … N.
@@ -137,8 +140,10 @@ func denseGeneralized(a, b []float64, n int) ([]float64, []float64, error) {
 // subspace holds the work vectors of the shift-invert subspace iteration.
 type subspace struct {
 	k, m         *Sym
-	n, p         int
-	x, y, kx, mx [][]float64
+	n, p, q      int         // sizes of the Ritz block and of the Krylov basis
+	x, kx, mx    [][]float64 // Ritz vectors, K x, M x
+	y, ky, my    [][]float64 // Krylov basis, K y, M y
+	block        []float64   // workspace of the block solves
 	f            LDL
 	sym          *Symbolic
 	shifted      *Sym
@@ -206,11 +211,12 @@ func (s *subspace) chooseInitialShift() (float64, bool) {
 	return 0, false
 }
 
-// mOrthonormalize M-orthonormalizes the vectors v in place (modified
-// Gram–Schmidt, two passes) and sets mv[c] = M v[c]; a vector that
-// collapses is replaced by a fresh pseudo-random one.
-func (s *subspace) mOrthonormalize(v, mv [][]float64) {
-	for c := range v {
+// mOrthonormalize M-orthonormalizes the vectors v[from:] in place against
+// v[:from] (already M-orthonormal) and each other (modified Gram–Schmidt,
+// two passes) and sets mv[c] = M v[c]; a vector that collapses is replaced
+// by a fresh pseudo-random one.
+func (s *subspace) mOrthonormalize(v, mv [][]float64, from int) {
+	for c := from; c < len(v); c++ {
 		for attempt := 0; attempt < 4; attempt++ {
 			s.m.MulVecTo(mv[c], v[c])
 			norm0 := math.Sqrt(math.Abs(dot(mv[c], v[c])))
@@ -235,9 +241,11 @@ func (s *subspace) mOrthonormalize(v, mv [][]float64) {
 
 func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 	n := k.N()
+	q := min(n, krylovSteps*p)
 	u, fromK, fromM := union(k.Pat, m.Pat)
-	s := &subspace{k: k, m: m, n: n, p: p,
-		x: newVectors(p, n), y: newVectors(p, n), kx: newVectors(p, n), mx: newVectors(p, n),
+	s := &subspace{k: k, m: m, n: n, p: p, q: q,
+		x: newVectors(p, n), kx: newVectors(p, n), mx: newVectors(p, n),
+		y: newVectors(q, n), ky: newVectors(q, n), my: newVectors(q, n),
 		sym: analyzePattern(u, orderPattern(u)), shifted: &Sym{Pat: u, Val: make([]float64, u.NNZ())},
 		fromK: fromK, fromM: fromM, rng: rand.New(rand.NewPCG(1, 2))}
 	sigma, ok := s.chooseInitialShift()
@@ -250,18 +258,22 @@ func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 			s.x[c][i] = s.rng.Float64() - 0.5
 		}
 	}
-	tmp := make([]float64, n)
-	s.mOrthonormalize(s.x, s.mx)
+	s.mOrthonormalize(s.x, s.mx, 0)
 	theta := make([]float64, p)
 	best := math.Inf(1)
 	stall := 0
 	for it := 0; it < maxIter; it++ {
-		// y = (K − σM)⁻¹ M x.
-		for c := 0; c < p; c++ {
-			m.MulVecTo(tmp, s.x[c])
-			s.f.SolveTo(s.y[c], tmp)
+		// Block Krylov basis y = [Op x, Op² x, …], Op = (K − σM)⁻¹ M,
+		// each block computed from the M-orthonormalized previous one.
+		for from := 0; from < q; from += p {
+			to := min(q, from+p)
+			src := s.mx[:to-from]
+			if from > 0 {
+				src = s.my[from-p : to-p]
+			}
+			s.f.solveBlockTo(s.y[from:to], src, s.block)
+			s.mOrthonormalize(s.y[:to], s.my[:to], from)
 		}
-		s.mOrthonormalize(s.y, s.mx)
 		if err := s.rayleighRitz(theta); err != nil {
 			return nil, nil, err
 		}
@@ -313,45 +325,40 @@ func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 	return vals, vecs, nil
 }
 
-// rayleighRitz replaces s.x by the Ritz vectors of (K, M) on span(s.y),
-// ascending Ritz values in theta, and fills s.kx = K x, s.mx = M x. On
-// entry s.mx holds M y.
+// rayleighRitz replaces s.x by the p lowest Ritz vectors of (K, M) on
+// span(s.y), ascending Ritz values in theta, and fills s.kx = K x,
+// s.mx = M x. On entry s.my holds M y.
 func (s *subspace) rayleighRitz(theta []float64) error {
-	p, n := s.p, s.n
-	for c := 0; c < p; c++ {
-		s.k.MulVecTo(s.kx[c], s.y[c])
+	p, q := s.p, s.q
+	for c := 0; c < q; c++ {
+		s.k.MulVecTo(s.ky[c], s.y[c])
 	}
-	a, b := make([]float64, p*p), make([]float64, p*p)
-	for i := 0; i < p; i++ {
+	a, b := make([]float64, q*q), make([]float64, q*q)
+	for i := 0; i < q; i++ {
 		for j := 0; j <= i; j++ {
-			ka := (dot(s.y[i], s.kx[j]) + dot(s.y[j], s.kx[i])) / 2
-			mb := (dot(s.y[i], s.mx[j]) + dot(s.y[j], s.mx[i])) / 2
-			a[i*p+j], a[j*p+i] = ka, ka
-			b[i*p+j], b[j*p+i] = mb, mb
+			ka, mb := dot(s.y[i], s.ky[j]), dot(s.y[i], s.my[j])
+			a[i*q+j], a[j*q+i] = ka, ka
+			b[i*q+j], b[j*q+i] = mb, mb
 		}
 	}
-	vals, z, err := denseGeneralized(a, b, p)
+	vals, z, err := denseGeneralized(a, b, q)
 	if err != nil {
 		return err
 	}
-	order := make([]int, p)
+	order := make([]int, q)
 	for i := range order {
 		order[i] = i
 	}
 	sort.SliceStable(order, func(i, j int) bool { return vals[order[i]] < vals[order[j]] })
-	for c, o := range order {
+	for c, o := range order[:p] {
 		theta[c] = vals[o]
 		x := s.x[c]
-		for i := 0; i < n; i++ {
-			x[i] = 0
+		clear(x)
+		for d := 0; d < q; d++ {
+			axpy(x, z[d*q+o], s.y[d])
 		}
-		for d := 0; d < p; d++ {
-			axpy(x, z[d*p+o], s.y[d])
-		}
-	}
-	for c := 0; c < p; c++ {
-		s.k.MulVecTo(s.kx[c], s.x[c])
-		s.m.MulVecTo(s.mx[c], s.x[c])
+		s.k.MulVecTo(s.kx[c], x)
+		s.m.MulVecTo(s.mx[c], x)
 	}
 	return nil
 }

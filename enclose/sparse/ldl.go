@@ -280,3 +280,71 @@ func (f *LDL) SolveTo(dst, b []float64) {
 		dst[v] = y[k]
 	}
 }
+
+// solveBlockTo solves S x_c = b_c for every c, writing x_c to dst[c] (dst
+// may be b), sweeping L once per group of four right-hand sides. work is
+// resized as needed.
+func (f *LDL) solveBlockTo(dst, b [][]float64, work []float64) {
+	const w = 4
+	n := len(f.D)
+	if len(dst) != len(b) {
+		panic("sparse: dimension mismatch")
+	}
+	if len(work) < w*n {
+		work = make([]float64, w*n)
+	}
+	perm, lp, li, lx := f.Sym.perm, f.Sym.colPtr, f.Row, f.Val
+	for from := 0; from < len(b); from += w {
+		r := min(w, len(b)-from)
+		if r < w {
+			for c := from; c < len(b); c++ {
+				f.SolveTo(dst[c], b[c])
+			}
+			return
+		}
+		y := work[:w*n]
+		for c := 0; c < w; c++ {
+			if len(dst[from+c]) != n || len(b[from+c]) != n {
+				panic("sparse: dimension mismatch")
+			}
+			bc := b[from+c]
+			for k, v := range perm {
+				y[k*w+c] = bc[v]
+			}
+		}
+		for k := 0; k < n; k++ {
+			y0, y1, y2, y3 := y[k*w], y[k*w+1], y[k*w+2], y[k*w+3]
+			for q := lp[k]; q < lp[k+1]; q++ {
+				i, l := int(li[q])*w, lx[q]
+				y[i] -= l * y0
+				y[i+1] -= l * y1
+				y[i+2] -= l * y2
+				y[i+3] -= l * y3
+			}
+		}
+		for k := 0; k < n; k++ {
+			d := f.D[k]
+			y[k*w] /= d
+			y[k*w+1] /= d
+			y[k*w+2] /= d
+			y[k*w+3] /= d
+		}
+		for k := n - 1; k >= 0; k-- {
+			y0, y1, y2, y3 := y[k*w], y[k*w+1], y[k*w+2], y[k*w+3]
+			for q := lp[k]; q < lp[k+1]; q++ {
+				i, l := int(li[q])*w, lx[q]
+				y0 -= l * y[i]
+				y1 -= l * y[i+1]
+				y2 -= l * y[i+2]
+				y3 -= l * y[i+3]
+			}
+			y[k*w], y[k*w+1], y[k*w+2], y[k*w+3] = y0, y1, y2, y3
+		}
+		for c := 0; c < w; c++ {
+			dc := dst[from+c]
+			for k, v := range perm {
+				dc[v] = y[k*w+c]
+			}
+		}
+	}
+}

@@ -7,7 +7,7 @@ import "slices"
 // cost.
 
 // leafSize is the size of subgraphs that Order no longer dissects.
-const leafSize = 48
+const leafSize = 8
 
 // Order returns a fill-reducing elimination order of the graph of s
 // (vertices 0 … N−1, an edge for each stored off-diagonal entry): perm[k] is
@@ -16,7 +16,7 @@ const leafSize = 48
 //
 // The method is nested dissection with level-structure separators (George
 // 1973, George and Liu 1981, ch. 8): each connected subgraph larger than
-// 48 vertices is split by a level of a breadth-first search from a
+// 8 vertices is split by a level of a breadth-first search from a
 // pseudo-peripheral vertex, the smallest level that leaves at least 30 % of
 // the vertices on each side (the middle level if none does); separator
 // vertices without a neighbour beyond the level are moved to the near side.
