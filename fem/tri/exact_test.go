@@ -1,10 +1,12 @@
 package tri
 
 import (
+	"math"
 	"math/big"
 	"math/rand/v2"
 	"testing"
 
+	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
 
@@ -186,12 +188,19 @@ func ratIn(r *big.Rat, x interval.I) bool {
 // Dirichlet/Robin/Neumann sides; and they are narrow.
 func TestRitzMatricesContainExactForms(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 4))
-	m := unitSquare(t, 1)
 	bc := []BC{dirichlet, {Alpha: interval.Point(1.5)}, {}, {Alpha: interval.Point(0.25)}}
 	alpha := []*big.Rat{nil, big.NewRat(3, 2), nil, big.NewRat(1, 4)}
+	checkRitzExact(t, unitSquare(t, 1), bc, alpha, []int{1, 2, 3, 4}, rng)
+}
+
+// checkRitzExact compares RitzMatrices of three random integer vectors
+// (V = xy + 2 − x²/4, γ = 1/2) with the exact forms; the mesh nodes must be
+// exact floats and the Robin sides (alpha[side] ≠ nil) axis-parallel.
+func checkRitzExact(t *testing.T, m *mesh.Mesh, bc []BC, alpha []*big.Rat, degrees []int, rng *rand.Rand) {
+	t.Helper()
 	vPoly := rpoly{{1, 1}: big.NewRat(1, 1), {0, 0}: big.NewRat(2, 1), {2, 0}: big.NewRat(-1, 4)} // xy + 2 − x²/4
 	gamma := big.NewRat(1, 2)
-	for _, p := range []int{1, 2, 3, 4} {
+	for _, p := range degrees {
 		s := NewLagrange(m, p, bc)
 		v := mustPotential(t, m, "x*y + 2 - x^2/4", 1)
 		vecs := make([][]float64, 3)
@@ -278,11 +287,14 @@ func TestRitzMatricesContainExactForms(t *testing.T) {
 						}
 					}
 				}
-				if g := a0.At(i, j); !ratIn(ea, g) || g.Wid() > 1e-13*(1+g.Mag()) {
+				// width relative to √(a_ii a_jj), the scale of the entry's terms
+				scale0 := 1 + math.Sqrt(a0.At(i, i).Mag()*a0.At(j, j).Mag())
+				scale1 := 1 + math.Sqrt(a1.At(i, i).Mag()*a1.At(j, j).Mag())
+				if g := a0.At(i, j); !ratIn(ea, g) || g.Wid() > 1e-13*scale0 {
 					f, _ := ea.Float64()
 					t.Errorf("p=%d a0(%d,%d) = %v, exact %.17g", p, i, j, g, f)
 				}
-				if g := a1.At(i, j); !ratIn(eb, g) || g.Wid() > 1e-13*(1+g.Mag()) {
+				if g := a1.At(i, j); !ratIn(eb, g) || g.Wid() > 1e-13*scale1 {
 					f, _ := eb.Float64()
 					t.Errorf("p=%d a1(%d,%d) = %v, exact %.17g", p, i, j, g, f)
 				}
