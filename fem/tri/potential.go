@@ -28,10 +28,16 @@ type Potential struct {
 	exact bool
 }
 
+// maxExactDegree is the largest polynomial degree of V for which
+// NewPotential raises the order to make the model exact (higher degrees
+// keep the requested order and a remainder; the tables grow like q²).
+const maxExactDegree = 12
+
 // NewPotential builds the models of v (variables x, y; parameters bound) of
 // Taylor order ≥ order on every triangle of m, from formula.Expr.Model2 in
-// the reference coordinates (ξ, η) = (λ_1, λ_2). If v is a polynomial its
-// degree is used when larger, so that the model is exact. The monomials
+// the reference coordinates (ξ, η) = (λ_1, λ_2). If v is a polynomial of
+// degree ≤ maxExactDegree its degree is used when larger, so that the
+// model is exact. The monomials
 // ξ^i η^j are rewritten in the degree-q Bernstein basis by the exact
 // monomial identity of tables.go. The range of V over T is the hull of the
 // Bernstein coefficients plus R_T (range identity), intersected with
@@ -43,7 +49,7 @@ func NewPotential(m *mesh.Mesh, v *formula.Expr, order int) (*Potential, error) 
 		panic("tri: nil potential expression")
 	}
 	q := max(order, 1)
-	if p, ok := v.Polynomial(); ok {
+	if p, ok := v.Polynomial(); ok && p.Degree() <= maxExactDegree {
 		q = max(q, p.Degree())
 	}
 	pairs := monomialPairs(q)
