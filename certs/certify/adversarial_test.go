@@ -10,6 +10,7 @@ import (
 	"time"
 
 	"gapcert/certs"
+	"gapcert/enclose/band"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 )
@@ -499,6 +500,55 @@ func TestAdversarialLongWells(t *testing.T) {
 		for k, at0 := range []string{`"neumann"`, `"dirichlet"`} {
 			half, _ := enclosures(t, fmt.Sprintf(`{"domain":{"interval":["0",%q]},"potential":%q,"boundary":[%s,%s],"eigenvalues":2}`, l, v, at0, bc), 1e-9)
 			requireOverlap(t, fmt.Sprintf("well %d (c %d, s %d, L %s, %s): lambda%d and the half interval with %s at 0", i, c, s, l, bc, k+1, at0), full[k], half[0])
+		}
+	}
+}
+
+// TestAdversarialDiscreteLower tests the verified stage-A count on its own,
+// on the P1 pencil of −u″ on (0, 1) with Dirichlet ends and n uniform
+// cells, whose eigenvalues are known exactly: the discrete sine vectors
+// diagonalise K = (1/h) tridiag(−1, 2, −1) and M = (h/6) tridiag(1, 4, 1),
+// so λ_j = (6/h²)(1 − cos jπh)/(2 + cos jπh) (common practice). For
+// n = 2¹⁴ the floating-point LDLᵀ count alone is off by up to 5·10⁻⁹
+// relative, so a bound without the residual correction would be false.
+// The bound must lie below λ_j; for odd j it must be within 10⁻⁶ of it.
+// Even j are loose (up to 6·10⁻² measured): by symmetry a leading block of
+// K − σM is nearly singular at σ just below λ_j, the pivot there is tiny,
+// L grows, and so does the residual.
+func TestAdversarialDiscreteLower(t *testing.T) {
+	for _, n := range []int{1 << 10, 1 << 12, 1 << 14} {
+		h := 1 / float64(n) // exact
+		dim := n - 1
+		k, m := band.NewISym(dim, 1), band.NewISym(dim, 1)
+		hi := interval.Point(h)
+		for i := 0; i < dim; i++ {
+			k.Add(i, i, interval.Point(2).Div(hi))
+			m.Add(i, i, hi.MulF(4).DivF(6))
+			if i > 0 {
+				k.Add(i, i-1, interval.Point(-1).Div(hi))
+				m.Add(i, i-1, hi.DivF(6))
+			}
+		}
+		mMin := band.GershgorinLower(m) // h/3 up to rounding
+		for _, j := range []int{1, 2, 3, 5} {
+			theta := new(big.Float).SetPrec(oraclePrec).Mul(bigPi(), new(big.Float).SetFloat64(float64(j)*h))
+			_, cos := bigSinCos(theta)
+			exact := new(big.Float).SetPrec(oraclePrec).Sub(big.NewFloat(1), cos)
+			exact.Quo(exact, new(big.Float).SetPrec(oraclePrec).Add(big.NewFloat(2), cos))
+			exact.Mul(exact, new(big.Float).SetFloat64(6/(h*h))) // 6/h² is exact
+			e := bigPoint(exact)
+			got := verifiedDiscreteLower(k, m, mMin, 0, 2*e, j)
+			if new(big.Float).SetFloat64(got).Cmp(exact) > 0 {
+				t.Errorf("n %d: verified lower bound %v of lambda_%d exceeds the exact %s", n, got, j, exact.Text('g', 20))
+				continue
+			}
+			limit := 1e-6
+			if j%2 == 0 {
+				limit = 0.1
+			}
+			if rel := (e - got) / e; rel > limit {
+				t.Errorf("n %d: lower bound %v of lambda_%d = %.17g is %.3g too low (relative; limit %g)", n, got, j, e, rel, limit)
+			}
 		}
 	}
 }
