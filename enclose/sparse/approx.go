@@ -41,18 +41,32 @@ const (
 // vecs[i] of length N. The result is deterministic.
 //
 // Small problems (N ≤ 200) are solved densely (gonum: Cholesky of M, then
-// the symmetric eigensolver). Larger ones use shift-invert subspace
-// iteration with p = count + 8 vectors (K − σM is ordered and analyzed once,
-// on the union of the patterns of K and M, and refactored for each shift), full M-orthonormalisation by
-// modified Gram–Schmidt (twice) and Rayleigh–Ritz on the p-dimensional
-// subspace at every step, which handles multiple and clustered eigenvalues.
-// The shift σ is kept below λ_1 (the float factorization of K − σM has no
-// negative pivot) and moved towards the lowest Ritz value as it
-// converges. Iteration stops when every wanted pair has relative residual
-// ‖Kx − λMx‖₂ ≤ 1e-13·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂; if it stagnates above that,
-// pairs down to 1e-11 are accepted, otherwise ErrNotConverged is returned.
+// the symmetric eigensolver). Larger ones use shift-invert block subspace
+// iteration with a block of p = count + 8 vectors, accelerated by a block
+// Krylov basis [Op X, Op² X, Op³ X], Op = (K − σM)⁻¹M, at every step:
+// full M-orthonormalisation by modified Gram–Schmidt (twice) and
+// Rayleigh–Ritz on the 3p-dimensional basis, keeping the p lowest Ritz
+// vectors. A block larger than the multiplicity handles multiple and
+// clustered eigenvalues. K − σM is ordered (Order) and analyzed once, on the
+// union of the patterns of K and M, and refactored for each shift. The
+// shift σ starts at 0 when K factors with no negative pivot (K positive
+// definite, the common case of shifted problems), else at a
+// Gershgorin-type estimate below the spectrum; it is kept below λ_1 (the
+// float factorization of K − σM has no negative pivot) and moved towards
+// the lowest Ritz value as it converges. Iteration stops when every wanted
+// pair has relative residual ‖Kx − λMx‖₂ ≤ 1e-13·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂;
+// if it stagnates above that, pairs down to 1e-11 are accepted, otherwise
+// ErrNotConverged is returned.
 //
 // LowestEigs panics if the sizes differ or count is not in 1 … N.
+//
+// References:
+//
+//	B. N. Parlett, The Symmetric Eigenvalue Problem, SIAM, 1998 (subspace
+//	iteration, Krylov subspaces, Rayleigh–Ritz, the generalized problem).
+//	R. G. Grimes, J. G. Lewis, H. D. Simon, A shifted block Lanczos
+//	algorithm for solving sparse symmetric generalized eigenproblems,
+//	SIAM J. Matrix Anal. Appl. 15 (1994) 228–272.
 func LowestEigs(k, m *Sym, count int) (vals []float64, vecs [][]float64, err error) {
 	if k.N() != m.N() {
 		panic("sparse: dimension mismatch")

@@ -432,9 +432,14 @@ func TestCountBelowClosedForm(t *testing.T) {
 		relTol float64 // (σ − σ')/σ
 	}{
 		{"grid5 m=20", grid5(20), identity(400), 1, grid5Eigs(20), 1e-11},
+		// M ⪰ Σ_T λ_min(M_T) restricted to T's nodes, λ_min(M_T) = |T|/12
+		// (M_T = |T|/12·(1 + δ_ab) has eigenvalues |T|/12·{4, 1, 1}), and
+		// every interior node lies in 6 triangles: λ_min(M) ≥ 6·(h²/2)/12
+		// = h²/4 (METHODS §7, elementwise bound; h = 1/13).
+		{"P1 m=12", k12, m12, 1.0 / (4 * 13 * 13) * (1 - 1e-15), denseGeneralizedEigs(t, k12, m12), 1e-10},
 		// mMin = 0.9·λ_min(M) from gonum's dense eigensolver (a test
 		// choice; callers supply a verified bound).
-		{"P1 m=12", k12, m12, 0, denseGeneralizedEigs(t, k12, m12), 1e-10},
+		{"P1 m=12 dense mMin", k12, m12, 0, denseGeneralizedEigs(t, k12, m12), 1e-10},
 	} {
 		mMin := tc.mMin
 		if mMin == 0 {
@@ -499,6 +504,87 @@ func TestCountBelowThick(t *testing.T) {
 			}
 			if loss > 100*rho*infNorm(k) {
 				t.Errorf("ρ=%g: loss %g too large (‖K‖∞ = %g)", rho, loss, infNorm(k))
+			}
+		}
+	}
+}
+
+// TestCountBelowThickMass: [M] = M·[1 − ρ, 1 + ρ] entrywise on the P1
+// pencil; members scaled by 1 ± ρ have eigenvalues λ/(1 ± ρ), so the count
+// below σ' must not exceed n for the member M(1 − ρ) (eigenvalues
+// λ/(1 − ρ) ≥ λ: fewer below) nor for M(1 + ρ) (eigenvalues λ/(1 + ρ)).
+func TestCountBelowThickMass(t *testing.T) {
+	k, m := p1Square(10)
+	eigs := denseGeneralizedEigs(t, k, m)
+	for _, rho := range []float64{1e-9, 1e-4} {
+		im := &ISym{Pat: m.Pat, Val: make([]interval.I, len(m.Val))}
+		for q, v := range m.Val {
+			im.Val[q] = interval.New(v*(1-rho), v*(1+rho))
+		}
+		mMin := (1 - rho) / (4 * 11 * 11) * (1 - 1e-15) // h²/4 as above, h = 1/11
+		for _, sigma := range midGaps(eigs, 6) {
+			n, sp, ok := CountBelow(toISym(k), im, mMin, sigma)
+			if !ok {
+				t.Fatalf("ρ=%g σ=%g: factorization failed", rho, sigma)
+			}
+			for _, f := range []float64{1 - rho, 1 + rho} {
+				c := 0
+				for _, e := range eigs {
+					if e/f < sp {
+						c++
+					}
+				}
+				if c > n {
+					t.Errorf("ρ=%g σ=%g: member M·%g has %d eigenvalues below σ'=%g > n=%d", rho, sigma, f, c, sp, n)
+				}
+			}
+			// The loss is at least ρσ·λ_max(M)/mMin-ish and at most a
+			// few times ρσ‖M‖∞/mMin.
+			if loss := sigma - sp; loss > 4*rho*sigma*infNorm(m)/mMin+1e-9*sigma {
+				t.Errorf("ρ=%g σ=%g: loss %g too large", rho, sigma, loss)
+			}
+		}
+	}
+}
+
+// TestCountBelowCampaign (GAPCERT_LONG=1): random thick pencils of order
+// 100 … 400 against gonum's dense eigenvalues of random members, with
+// shifts between and exactly at eigenvalues of the midpoint pencil.
+func TestCountBelowCampaign(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("set GAPCERT_LONG=1")
+	}
+	r := rand.New(rand.NewPCG(11, 12))
+	for seed := uint64(1); seed <= 30; seed++ {
+		n := 100 + r.IntN(300)
+		k, m := randomSPD(n, 2+r.IntN(8), seed), randomSPD(n, 1+r.IntN(4), seed+1000)
+		rho := math.Pow(10, -2-10*r.Float64())
+		ik, im := &ISym{Pat: k.Pat, Val: make([]interval.I, len(k.Val))}, toISym(m)
+		for q, v := range k.Val {
+			ik.Val[q] = interval.New(v-rho*math.Abs(v), v+rho*math.Abs(v))
+		}
+		var es mat.EigenSym
+		es.Factorize(dense(m), false)
+		mMin := 0.99 * es.Values(nil)[0]
+		eigs := denseGeneralizedEigs(t, k, m)
+		shifts := append(midGaps(eigs, 10), eigs[0], eigs[3], eigs[n/2])
+		c := NewCounter(ik, im)
+		for _, sigma := range shifts {
+			cnt, sp, ok := c.CountBelow(mMin, sigma)
+			if !ok {
+				continue
+			}
+			for trial := 0; trial < 3; trial++ {
+				member := &Sym{Pat: k.Pat, Val: make([]float64, len(k.Val))}
+				for q, v := range ik.Val {
+					member.Val[q] = min(v.Hi, v.Lo+r.Float64()*(v.Hi-v.Lo))
+					if trial == 0 {
+						member.Val[q] = v.Lo
+					}
+				}
+				if got := countBelow(denseGeneralizedEigs(t, member, m), sp); got > cnt {
+					t.Errorf("seed %d n=%d ρ=%g σ=%g: member has %d eigenvalues below σ'=%g > %d", seed, n, rho, sigma, got, sp, cnt)
+				}
 			}
 		}
 	}
@@ -590,6 +676,36 @@ func TestCounterReuse(t *testing.T) {
 	}
 }
 
+// TestSolveBlock: the four-vector block solve agrees with SolveTo for
+// block counts around the block size.
+func TestSolveBlock(t *testing.T) {
+	s := shifted(grid5(20), identity(400), 300)
+	f, ok := Factor(s, Order(s))
+	if !ok {
+		t.Fatal("factorization failed")
+	}
+	r := rand.New(rand.NewPCG(9, 9))
+	for count := 1; count <= 9; count++ {
+		b := newVectors(count, 400)
+		for _, v := range b {
+			for i := range v {
+				v[i] = r.Float64()
+			}
+		}
+		want := newVectors(count, 400)
+		for c := range b {
+			f.SolveTo(want[c], b[c])
+		}
+		got := newVectors(count, 400)
+		f.solveBlockTo(got, b, nil)
+		for c := range got {
+			if !slices.Equal(got[c], want[c]) {
+				t.Errorf("count %d: vector %d differs", count, c)
+			}
+		}
+	}
+}
+
 func checkEigs(t *testing.T, name string, k, m *Sym, vals []float64, vecs [][]float64, want []float64, tol float64) {
 	t.Helper()
 	n := k.N()
@@ -640,6 +756,14 @@ func TestLowestEigs(t *testing.T) {
 		// λ(1,2) = λ(2,1) etc.: double eigenvalues.
 		{"grid5 m=40", grid5(40), identity(1600), 8, func() []float64 { return grid5Eigs(40) }},
 		{"grid5 m=10 dense", grid5(10), identity(100), 5, func() []float64 { return grid5Eigs(10) }},
+		// Three disconnected copies: λ_1 three times, λ_2 = λ_3 six times.
+		{"3 × grid5 m=25", threeCopies(grid5(25)), identity(3 * 625), 9, func() []float64 {
+			var e []float64
+			for _, v := range grid5Eigs(25) {
+				e = append(e, v, v, v)
+			}
+			return e
+		}},
 		{"P1 m=20", k20, m20, 6, func() []float64 { return denseGeneralizedEigs(t, k20, m20) }},
 		{"P1 m=20 shifted −30", shifted(k20, m20, 30), m20, 4, func() []float64 {
 			e := denseGeneralizedEigs(t, k20, m20)
@@ -660,6 +784,20 @@ func TestLowestEigs(t *testing.T) {
 			t.Errorf("%s: not deterministic", tc.name)
 		}
 	}
+}
+
+// threeCopies returns the block-diagonal matrix diag(s, s, s).
+func threeCopies(s *Sym) *Sym {
+	n := s.N()
+	b := NewBuilder(3 * n)
+	for c := 0; c < 3; c++ {
+		for j := 0; j < n; j++ {
+			for q := s.Pat.colPtr[j]; q < s.Pat.colPtr[j+1]; q++ {
+				b.Add(c*n+int(s.Pat.rowIdx[q]), c*n+j, s.Val[q])
+			}
+		}
+	}
+	return b.Build()
 }
 
 func benchGrid(side int) (*ISym, *ISym) {
