@@ -18,7 +18,8 @@ import (
 const (
 	pictureWidth   = 12 * vg.Centimeter
 	lineHeight     = 8 * vg.Centimeter   // title and axes of the 1D picture
-	surfaceHeight  = 10 * vg.Centimeter  // 2D pictures, caption included
+	minHeight      = 7 * vg.Centimeter   // bounds on the height of 2D pictures,
+	maxHeight      = 13 * vg.Centimeter  // which follows the domain's aspect ratio
 	colourBarWidth = 2.4 * vg.Centimeter // the strip right of a colour map
 	captionHeight  = 0.6 * vg.Centimeter
 	margin         = 0.25 * vg.Centimeter
@@ -94,7 +95,7 @@ func meshPicture(m *Modes) picture {
 	return picture{
 		name:   "mesh",
 		width:  pictureWidth,
-		height: surfaceHeight,
+		height: surfaceHeight(p, m.Polygon),
 		draw: func(c draw.Canvas) {
 			// The same drawing area as a mode picture's, centred.
 			c = drawFrame(c)
@@ -115,7 +116,7 @@ func modePicture(m *Modes, k int, g *grid) picture {
 	heat := plotter.NewHeatMap(g, colours.Palette(colourLevels))
 	heat.Min, heat.Max = -1, 1
 	heat.Rasterized = true
-	p.Add(heat)
+	p.Add(rasterOnly{heat})
 	p.Add(&closedPaths{paths: [][][2]float64{m.Polygon}, style: outlineStyle})
 
 	bar := gplot.New()
@@ -126,7 +127,7 @@ func modePicture(m *Modes, k int, g *grid) picture {
 	return picture{
 		name:   fmt.Sprintf("mode%d", k+1),
 		width:  pictureWidth,
-		height: surfaceHeight,
+		height: surfaceHeight(p, m.Polygon),
 		draw: func(c draw.Canvas) {
 			c = drawFrame(c)
 			main := draw.Crop(c, 0, -colourBarWidth, 0, 0)
@@ -162,6 +163,20 @@ func drawFrame(c draw.Canvas) draw.Canvas {
 	return draw.Crop(c, margin, -margin, captionHeight, -margin)
 }
 
+// surfaceHeight returns the height of a 2D picture of plot p whose data
+// area just holds the polygon at its aspect ratio, within [minHeight,
+// maxHeight]. The drawing area is as wide as a mode picture's.
+func surfaceHeight(p *gplot.Plot, poly [][2]float64) vg.Length {
+	const trial = 10 * vg.Centimeter
+	area := draw.Canvas{Rectangle: vg.Rectangle{Max: vg.Point{X: pictureWidth - 2*margin - colourBarWidth, Y: trial}}}
+	x0, x1, y0, y1 := boundingBox(poly)
+	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
+	data := p.DataCanvas(area)
+	dataWidth, dataHeight := data.Max.X-data.Min.X, data.Max.Y-data.Min.Y
+	plotHeight := trial - dataHeight + dataWidth*vg.Length((y1-y0)/(x1-x0))
+	return min(maxHeight, max(minHeight, plotHeight+captionHeight+margin))
+}
+
 // equalAspect sets the axis ranges of p to the bounding box of the given
 // points, padded by 3%, and widens one of them so that a unit of x and a
 // unit of y have the same length on c. The tick labels change with the
@@ -184,6 +199,14 @@ func equalAspect(p *gplot.Plot, c draw.Canvas, outline [][2]float64, tris [][3][
 		p.Y.Min, p.Y.Max = ym-perPoint*h/2, ym+perPoint*h/2
 	}
 }
+
+// rasterOnly draws a heat map but hides its glyph boxes: plotter.HeatMap
+// reports one empty box per cell, which only costs time (the axis ranges
+// are set by equalAspect).
+type rasterOnly struct{ heat *plotter.HeatMap }
+
+// Plot implements plot.Plotter.
+func (r rasterOnly) Plot(c draw.Canvas, p *gplot.Plot) { r.heat.Plot(c, p) }
 
 // closedPaths is a plot.Plotter that strokes closed polylines, all in one
 // path, with one line style.
