@@ -85,7 +85,11 @@ func linePicture(m *Modes, s lineSamples) picture {
 
 // meshPicture draws the triangles of m and the polygon outline.
 func meshPicture(m *Modes) picture {
-	p := newPlot(fmt.Sprintf("%s\nmesh: %d triangles", titleOf(m), len(m.Triangles)))
+	count := fmt.Sprintf("%d triangles", len(m.Triangles))
+	if len(m.Triangles) == 1 {
+		count = "1 triangle"
+	}
+	p := newPlot(titleOf(m) + "\nmesh: " + count)
 	tris := make([][][2]float64, len(m.Triangles))
 	for i, t := range m.Triangles {
 		tris[i] = t[:]
@@ -113,9 +117,7 @@ func modePicture(m *Modes, k int, g *grid) picture {
 	colours := moreland.SmoothBlueRed()
 	colours.SetMin(-1)
 	colours.SetMax(1)
-	heat := plotter.NewHeatMap(g, colours.Palette(colourLevels))
-	heat.Min, heat.Max = -1, 1
-	heat.Rasterized = true
+	heat := &plotter.HeatMap{GridXYZ: g, Palette: colours.Palette(colourLevels), Min: -1, Max: 1, Rasterized: true}
 	p.Add(rasterOnly{heat})
 	p.Add(&closedPaths{paths: [][][2]float64{m.Polygon}, style: outlineStyle})
 

@@ -27,8 +27,11 @@ const (
 // pngDPI is the resolution of PNG output (a 12 cm wide picture is 709 pixels wide).
 const pngDPI = 150
 
-// Formats lists the file formats Write accepts.
-var Formats = []string{"png", "svg"}
+// knownFormats lists the file formats Write accepts.
+var knownFormats = []string{"png", "svg"}
+
+// Formats returns the file formats Write accepts.
+func Formats() []string { return slices.Clone(knownFormats) }
 
 // Modes is the input of a picture: the domain and approximate
 // eigenfunctions (floating-point choices, not bounds).
@@ -154,16 +157,16 @@ func (m *Modes) check() {
 }
 
 // checkFormats reports an unknown, repeated or missing format.
-func checkFormats(formats []string) error {
-	hint := fmt.Sprintf("(hint: use one or more of %q)", Formats)
-	if len(formats) == 0 {
+func checkFormats(given []string) error {
+	hint := fmt.Sprintf("(hint: use one or more of %q)", knownFormats)
+	if len(given) == 0 {
 		return errors.New("plot: no formats given " + hint)
 	}
-	for i, f := range formats {
-		if !slices.Contains(Formats, f) {
+	for i, f := range given {
+		if !slices.Contains(knownFormats, f) {
 			return fmt.Errorf("plot: formats[%d]: unknown format %q %s", i, f, hint)
 		}
-		if j := slices.Index(formats, f); j < i {
+		if j := slices.Index(given, f); j < i {
 			return fmt.Errorf("plot: formats[%d]: format %q repeats formats[%d]", i, f, j)
 		}
 	}

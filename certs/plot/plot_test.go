@@ -373,8 +373,8 @@ func TestGolden(t *testing.T) {
 func TestDeterministic(t *testing.T) {
 	for _, m := range []*Modes{sineModes(), unitSquare(), lShape()} {
 		d1, d2 := t.TempDir(), t.TempDir()
-		p1, err1 := Write(d1, m, Formats)
-		p2, err2 := Write(d2, m, Formats)
+		p1, err1 := Write(d1, m, Formats())
+		p2, err2 := Write(d2, m, Formats())
 		if err1 != nil || err2 != nil {
 			t.Fatal(err1, err2)
 		}
