@@ -70,6 +70,19 @@ func lShape() *Modes {
 	}
 }
 
+// lShapeTwoModes is lShape without a mesh and with a second exact
+// eigenfunction, sin(2πx)sin(πy) for 5π², which also vanishes on x = 1
+// and y = 1.
+func lShapeTwoModes() *Modes {
+	m := lShape()
+	m.Triangles = nil
+	m.Labels = append(m.Labels, "5π² (sin 2πx sin πy)")
+	m.Eval = func(k int, x, y float64) float64 {
+		return math.Sin(float64(k+1)*math.Pi*x) * math.Sin(math.Pi*y)
+	}
+	return m
+}
+
 func TestWriteFiles(t *testing.T) {
 	for _, tc := range []struct {
 		name  string
@@ -81,6 +94,7 @@ func TestWriteFiles(t *testing.T) {
 		{"interval", sineModes(), []string{"modes.png", "modes.svg"}, 709},
 		{"square", unitSquare(), []string{"mesh.png", "mesh.svg", "mode1.png", "mode1.svg"}, 709},
 		{"L-shape", lShape(), []string{"mesh.png", "mesh.svg", "mode1.png", "mode1.svg"}, 709},
+		{"L-shape, no mesh, two modes", lShapeTwoModes(), []string{"mode1.png", "mode1.svg", "mode2.png", "mode2.svg"}, 709},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			dir := t.TempDir()
