@@ -51,9 +51,9 @@ func unitSquare() *Modes {
 
 // lShape is the L of three unit squares, (0, 2)² minus [1, 2]². Its
 // Dirichlet Laplacian has the eigenvalue 2π² with eigenfunction
-// sin(πx)sin(πy), which vanishes on x = 1 and y = 1 and so on the whole
-// boundary (common practice: eigenfunctions of a square tile the L); it
-// changes sign from square to square.
+// sin(πx)sin(πy): directly, −Δ of it is 2π² times it, and it vanishes on
+// x ∈ {0, 1, 2} and y ∈ {0, 1, 2}, so on every edge of the L. It changes
+// sign from square to square.
 func lShape() *Modes {
 	return &Modes{
 		Title:   "L-shape",
