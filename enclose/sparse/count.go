@@ -32,10 +32,12 @@ const parallelWork = 1 << 16
 // of K − σM (the symbolic analysis is done on the union pattern), so R
 // vanishes outside the pattern of L + Lᵀ. Each entry of R on it,
 // R_ij = (K − σM)_{perm[i], perm[j]} − Σ_{q ≤ j} L_iq D_q L_jq (i ≥ j,
-// L_jj = 1), is enclosed in outward rounded interval arithmetic from the
-// interval entries of [K], [M] and the floating-point numbers L_iq, D_q,
-// column by column of L. ok = false if the factorization broke down (zero
-// or non-finite pivot, non-finite L).
+// L_jj = 1), is enclosed in interval arithmetic from the interval entries
+// of [K], [M] and the floating-point numbers L_iq, D_q, column by column of
+// L (the sums of products step one ulp outward after each rounded
+// operation, see residualColumn; the row sums are rounded upwards). ok =
+// false if the factorization broke down (zero or non-finite pivot,
+// non-finite L).
 //
 // The chain of inequalities, for every member (K, M), with P the
 // permutation matrix (P e_k = e_{perm[k]}) and R' = P R Pᵀ:

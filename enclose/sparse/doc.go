@@ -9,13 +9,16 @@
 // matrix with entries in its intervals. Builder and IBuilder assemble them
 // from element contributions.
 //
-// Choosing and proving are kept apart. Order, Analyze, Factor,
-// LDL.SolveTo and LowestEigs compute in floating point at round-to-nearest
-// and only choose (orders, shifts, approximate eigenvectors); nothing they
-// return is a bound. CountBelow is verified: its count and shift are true
-// for every member of the interval pencil, by an interval enclosure of the
-// factorization residual, Weyl's monotonicity and Sylvester's law of
-// inertia (METHODS §7).
+// Choosing and proving are kept apart. Order (nested dissection), Analyze
+// (elimination tree and column counts, reusable across shifts through
+// Symbolic), Factor, LDL.SolveTo and LowestEigs compute in floating point
+// at round-to-nearest and only choose (orders, shifts, approximate
+// eigenvectors); nothing they return is a bound. CountBelow (and Counter,
+// which repeats it at many shifts) is verified: its count and shift are
+// true for every member of the interval pencil, by an interval enclosure
+// of the factorization residual, Weyl's monotonicity and Sylvester's law
+// of inertia (METHODS §7). Its soundness does not depend on the accuracy
+// of the float factorization, only on the residual enclosure.
 //
 // References:
 //

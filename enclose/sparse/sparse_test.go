@@ -285,6 +285,47 @@ func TestOrderFill(t *testing.T) {
 	}
 }
 
+// TestOrderRenumbered: the fill of the nested-dissection order does not
+// depend much on the numbering of the vertices (a randomly renumbered grid
+// and a 9-point stencil).
+func TestOrderRenumbered(t *testing.T) {
+	const m = 80
+	g := grid5(m)
+	base := Analyze(g, Order(g)).NNZ()
+	r := rand.New(rand.NewPCG(5, 6))
+	relabel := r.Perm(m * m)
+	b := NewBuilder(m * m)
+	for j := 0; j < m*m; j++ {
+		for q := g.Pat.colPtr[j]; q < g.Pat.colPtr[j+1]; q++ {
+			b.Add(relabel[g.Pat.rowIdx[q]], relabel[j], g.Val[q])
+		}
+	}
+	h := b.Build()
+	got := Analyze(h, Order(h)).NNZ()
+	t.Logf("m=%d: renumbered 5-point grid nnz(L) %d", m, got)
+	if float64(got) > 1.3*float64(base) {
+		t.Errorf("renumbered grid: nnz(L) = %d, grid order %d", got, base)
+	}
+	b9 := NewBuilder(m * m)
+	for y := 0; y < m; y++ {
+		for x := 0; x < m; x++ {
+			i := y*m + x
+			b9.Add(i, i, 8)
+			for _, d := range [][2]int{{1, 0}, {0, 1}, {1, 1}, {-1, 1}} {
+				if xx, yy := x+d[0], y+d[1]; xx >= 0 && xx < m && yy < m {
+					b9.Add(i, yy*m+xx, -1)
+				}
+			}
+		}
+	}
+	s9 := b9.Build()
+	nd, nat := Analyze(s9, Order(s9)).NNZ(), Analyze(s9, naturalOrder(m*m)).NNZ()
+	t.Logf("m=%d: 5-point nnz(L) %d; 9-point nnz(L) natural %d, nested dissection %d", m, base, nat, nd)
+	if float64(nd) > 0.4*float64(nat) {
+		t.Errorf("9-point: nnz(L) %d, natural %d", nd, nat)
+	}
+}
+
 // TestOrderComponents checks a graph with many components (a diagonal
 // matrix and disjoint paths).
 func TestOrderComponents(t *testing.T) {
