@@ -97,6 +97,9 @@ func NewCounter(k, m *ISym) *Counter {
 	if k.N() != m.N() {
 		panic("sparse: dimension mismatch")
 	}
+	if len(k.Val) != k.Pat.NNZ() || len(m.Val) != m.Pat.NNZ() {
+		panic("sparse: values do not match the pattern")
+	}
 	u, fromK, fromM := union(k.Pat, m.Pat)
 	sym := analyzePattern(u, orderPattern(u))
 	inv := make([]int, u.n)
@@ -340,7 +343,11 @@ func residualColumn(f *LDL, rows *lRows, a, b *lowerColumns, j int,
 }
 
 // subProduct returns an enclosure of acc − c·x for c ∈ [cl, ch], stepping
-// one ulp outward after each rounded operation (see residualColumn).
+// one ulp outward after each rounded operation (see residualColumn). The
+// exact products cl·x and ch·x are ordered like their rounded values
+// (rounding is monotonic), so min(p1, p2) is the rounding of the smaller
+// exact product, which down then bounds from below; likewise for max and
+// up.
 func subProduct(acc interval.I, cl, ch, x float64) interval.I {
 	p1, p2 := float64(cl*x), float64(ch*x)
 	pl, ph := down(min(p1, p2)), up(max(p1, p2))
