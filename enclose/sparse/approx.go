@@ -6,6 +6,7 @@ import (
 	"math/rand/v2"
 	"sort"
 
+	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -399,22 +400,9 @@ func absOffRowSums(s *Sym) []float64 {
 	return off
 }
 
-func dot(x, y []float64) float64 {
-	s := 0.0
-	for i, v := range x {
-		s += v * y[i]
-	}
-	return s
-}
+// dot, axpy and scale use gonum's assembly kernels where available.
+func dot(x, y []float64) float64 { return floats.Dot(x, y) }
 
-func axpy(y []float64, a float64, x []float64) {
-	for i, v := range x {
-		y[i] += a * v
-	}
-}
+func axpy(y []float64, a float64, x []float64) { floats.AddScaled(y, a, x) }
 
-func scale(x []float64, a float64) {
-	for i := range x {
-		x[i] *= a
-	}
-}
+func scale(x []float64, a float64) { floats.Scale(a, x) }
