@@ -152,7 +152,8 @@ func denseGeneralized(a, b []float64, n int) ([]float64, []float64, error) {
 	return vals, x, nil
 }
 
-// subspace holds the work vectors of the shift-invert subspace iteration.
+// subspace holds the work vectors of the shift-invert block subspace
+// iteration.
 type subspace struct {
 	k, m         *Sym
 	n, p, q      int         // sizes of the Ritz block and of the Krylov basis
@@ -260,7 +261,7 @@ func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 	u, fromK, fromM := union(k.Pat, m.Pat)
 	s := &subspace{k: k, m: m, n: n, p: p, q: q,
 		x: newVectors(p, n), kx: newVectors(p, n), mx: newVectors(p, n),
-		y: newVectors(q, n), ky: newVectors(q, n), my: newVectors(q, n),
+		y: newVectors(q, n), ky: newVectors(q, n), my: newVectors(q, n), block: make([]float64, 4*n),
 		sym: analyzePattern(u, orderPattern(u)), shifted: &Sym{Pat: u, Val: make([]float64, u.NNZ())},
 		fromK: fromK, fromM: fromM, rng: rand.New(rand.NewPCG(1, 2))}
 	sigma, ok := s.chooseInitialShift()

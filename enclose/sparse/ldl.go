@@ -124,8 +124,9 @@ type LDL struct {
 	D   []float64
 	Row []int32
 	Val []float64
-	// Workspace of SolveTo.
-	work []float64
+	// Workspaces of SolveTo and Factorize.
+	work  []float64
+	iwork []int
 }
 
 // Factor returns the LDLᵀ factorization of PᵀSP for the order perm, or
@@ -168,9 +169,12 @@ func (f *LDL) Factorize(sym *Symbolic, s *Sym) bool {
 	f.work = resize(f.work, n)
 	y := f.work
 	clear(y)
-	flag := make([]int, n)
-	fill := make([]int, n) // entries of column i written so far
-	stack := make([]int, n)
+	if cap(f.iwork) < 3*n {
+		f.iwork = make([]int, 3*n)
+	}
+	f.iwork = f.iwork[:3*n]
+	clear(f.iwork)
+	flag, fill, stack := f.iwork[:n], f.iwork[n:2*n], f.iwork[2*n:] // fill: entries of column i written so far
 	parent, lp, li, lx, d := sym.parent, sym.colPtr, f.Row, f.Val, f.D
 	ok := true
 	for k := 0; k < n; k++ {
@@ -282,8 +286,8 @@ func (f *LDL) SolveTo(dst, b []float64) {
 }
 
 // solveBlockTo solves S x_c = b_c for every c, writing x_c to dst[c] (dst
-// may be b), sweeping L once per group of four right-hand sides. work is
-// resized as needed.
+// may be b), sweeping L once per group of four right-hand sides. work is a
+// workspace of length ≥ 4·N (allocated if shorter).
 func (f *LDL) solveBlockTo(dst, b [][]float64, work []float64) {
 	const w = 4
 	n := len(f.D)
