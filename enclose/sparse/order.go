@@ -118,7 +118,7 @@ func (d *dissection) components(nodes []int32, lab int32) {
 		comps = append(comps, component{append([]int32(nil), c...), d.next})
 	}
 	for _, c := range comps {
-		sortInt32(c.nodes)
+		slices.Sort(c.nodes)
 		d.dissect(c.nodes, c.lab)
 	}
 }
@@ -159,7 +159,7 @@ func (d *dissection) relevel(start, lab int32) []int32 {
 // dissect orders a connected subgraph (vertices nodes, labelled lab).
 func (d *dissection) dissect(nodes []int32, lab int32) {
 	if len(nodes) <= leafSize {
-		sortInt32(nodes)
+		slices.Sort(nodes)
 		d.leaf(nodes)
 		return
 	}
@@ -194,7 +194,7 @@ func (d *dissection) dissect(nodes []int32, lab int32) {
 	if height < 2 {
 		// A clique-like subgraph: no level separates it.
 		sorted := append([]int32(nil), q...)
-		sortInt32(sorted)
+		slices.Sort(sorted)
 		d.leaf(sorted)
 		return
 	}
@@ -261,9 +261,9 @@ func (d *dissection) dissect(nodes []int32, lab int32) {
 	for _, v := range partS {
 		d.label[v] = labS
 	}
-	sortInt32(partA)
-	sortInt32(partB)
-	sortInt32(partS)
+	slices.Sort(partA)
+	slices.Sort(partB)
+	slices.Sort(partS)
 	d.components(partA, labA)
 	d.components(partB, labB)
 	d.leaf(partS)
@@ -286,8 +286,4 @@ func (d *dissection) leaf(nodes []int32) {
 		d.label[v] = -1
 		d.order = append(d.order, int(v))
 	}
-}
-
-func sortInt32(a []int32) {
-	slices.Sort(a)
 }
