@@ -550,6 +550,47 @@ func TestCountBelowThick(t *testing.T) {
 	}
 }
 
+// TestCountBelowScaledGrid: [K] = K·[1 − ρ, 1 + ρ] entrywise for the
+// 5-point Laplacian; its members (1 ± ρ)K have the closed-form eigenvalues
+// (1 ± ρ)λ, so neither may have more than n eigenvalues below σ', and σ'
+// must lie within about (ρ + u)‖K‖∞ of σ. GAPCERT_LONG=1 adds a 300×300
+// grid.
+func TestCountBelowScaledGrid(t *testing.T) {
+	sides := []int{60}
+	if os.Getenv("GAPCERT_LONG") == "1" {
+		sides = append(sides, 300)
+	}
+	for _, m := range sides {
+		k := grid5(m)
+		eigs := grid5Eigs(m)
+		for _, rho := range []float64{0, 1e-10, 1e-6} {
+			ik := &ISym{Pat: k.Pat, Val: make([]interval.I, len(k.Val))}
+			for q, v := range k.Val {
+				ik.Val[q] = interval.Point(v).Mul(interval.New(1-rho, 1+rho))
+			}
+			c := NewCounter(ik, toISym(identity(m*m)))
+			for _, sigma := range midGaps(eigs, 5) {
+				n, sp, ok := c.CountBelow(1, sigma)
+				if !ok {
+					t.Fatalf("m=%d ρ=%g σ=%g: factorization failed", m, rho, sigma)
+				}
+				for _, f := range []float64{1 - rho, 1 + rho} {
+					if got := countBelow(eigs, sp/f); got > n {
+						t.Errorf("m=%d ρ=%g σ=%g: member (%g)K has %d eigenvalues below σ'=%g > n=%d", m, rho, sigma, f, got, sp, n)
+					}
+				}
+				if want := countBelow(eigs, sigma); rho < 1e-8 && n != want {
+					t.Errorf("m=%d ρ=%g σ=%g: n = %d, want %d", m, rho, sigma, n, want)
+				}
+				// r ≈ ρ‖K‖∞ (‖K‖∞ = 8/h²) plus rounding of order u‖K‖∞.
+				if loss := sigma - sp; loss > (10*rho+1e-12)*infNorm(k) {
+					t.Errorf("m=%d ρ=%g σ=%g: loss %g", m, rho, sigma, loss)
+				}
+			}
+		}
+	}
+}
+
 // TestCountBelowThickMass: [M] = M·[1 − ρ, 1 + ρ] entrywise on the P1
 // pencil; members scaled by 1 ± ρ have eigenvalues λ/(1 ± ρ), so the count
 // below σ' must not exceed n for the member M(1 − ρ) (eigenvalues
