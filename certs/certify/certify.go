@@ -84,7 +84,7 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		if res.worst() <= target {
 			break
 		}
-		next, ok := refine(r, out)
+		next, ok := refine(p, r, out)
 		elapsed := time.Since(start)
 		// The next step costs a few times the last one; stop if it would not fit.
 		if !ok || elapsed+4*time.Since(t0) > limit {
@@ -110,13 +110,16 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	d := p.Diameter()
 	scale := interval.Pi().Sqr().Div(d.Sqr()) // π²/D²
 	g := interval.Point(0).Max(vr.Neg()).Add(scale).Hi
+	if math.IsInf(g, 0) || math.IsNaN(g) || !(scale.Lo > 0) {
+		return recipe{}, fmt.Errorf("certify: the domain's size (diameter %v) or the potential's range %v is outside what float64 can handle", d, vr)
+	}
 	taylor := modelOrder
 	if poly, ok := p.Potential.Polynomial(); ok {
 		taylor = max(poly.Degree(), 1) // exact model
 	}
 	if p.Dim == 2 {
 		return recipe{degree: 4, taylor: min(taylor, polygonModelOrder), gamma: roundShift(g), scale: scale.Lo,
-			refine: 2, stageARefine: 3}, nil
+			refine: 1, stageARefine: 3}, nil
 	}
 	return recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, gamma: roundShift(g), scale: scale.Lo}, nil
 }
@@ -131,6 +134,11 @@ func roundShift(g float64) float64 {
 	unit := math.Ldexp(1, e-10)
 	return math.Ceil(g/unit) * unit
 }
+
+// polygonRitzLag is how many levels the trial mesh may lag behind the
+// stage-A mesh (measured on the unit square: P4 on the lagging mesh keeps
+// the Ritz slack far below the stage-A slack).
+const polygonRitzLag = 3
 
 // maxPolygonRefine bounds the uniform refinement levels of a polygon's
 // stage-A mesh (each level has four times the triangles).
@@ -152,18 +160,21 @@ const polygonModelOrder = 8
 // refine chooses the next recipe. Intervals: raise the degree up to 10,
 // then halve the cells; refine the stage-A mesh when stage B could not
 // separate. Polygons: stage A converges like h² and limits the widths, so
-// its mesh is refined every step and the trial mesh every other step;
-// re-entrant corners get one more grading level per step.
-func refine(r recipe, out *outcome) (recipe, bool) {
+// its mesh is refined every step and the P_p trial mesh (whose error falls
+// like h^{2p} away from corners) only when it lags polygonRitzLag levels
+// behind; re-entrant corners get one more grading level per step.
+func refine(p *problem.Problem, r recipe, out *outcome) (recipe, bool) {
 	if r.refine > 0 || r.stageARefine > 0 {
 		if r.stageARefine >= maxPolygonRefine {
 			return r, false
 		}
 		r.stageARefine++
-		if r.stageARefine-r.refine > 1 {
+		if r.stageARefine-r.refine > polygonRitzLag {
 			r.refine++
 		}
-		r.graded++
+		if len(reentrantCorners(p)) > 0 {
+			r.graded++
+		}
 		return r, true
 	}
 	if out.n == 0 {

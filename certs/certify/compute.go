@@ -1,7 +1,6 @@
 package certify
 
 import (
-	"errors"
 	"fmt"
 	"math"
 
@@ -71,7 +70,7 @@ const stageATaylor = 4
 // verified; the floating-point parts only choose vectors, shifts and fluxes.
 func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	if p.Dim == 2 {
-		return nil, errors.New("certify: polygons are not supported yet")
+		return computePolygon(p, r)
 	}
 	want := p.Eigenvalues + extraIndices
 	gamma := interval.Point(r.gamma)
@@ -133,6 +132,10 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	fluxes := make([][]float64, out.n)
 	for i := range fluxes {
 		fluxes[i] = flux.MinimizeApprox(space, vecs[i], weight)
+		if fluxes[i] == nil {
+			out.notes = append(out.notes, "stage B skipped: the flux least-squares system could not be factored")
+			return out, nil
+		}
 	}
 	l0, l1, l2, err := line.LGMatrices(space, vecs[:out.n], flux, fluxes, pot, weight, gamma)
 	if err != nil {

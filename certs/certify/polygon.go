@@ -1,0 +1,179 @@
+package certify
+
+import (
+	"fmt"
+
+	"gapcert/enclose"
+	"gapcert/enclose/sparse"
+	"gapcert/fem/mesh"
+	"gapcert/fem/problem"
+	"gapcert/fem/tri"
+	"gapcert/interval"
+)
+
+// computePolygon runs the polygon pipeline once: Rayleigh–Ritz upper bounds
+// from conforming P_p on one mesh and projection lower bounds (stage A,
+// METHODS §5) from Crouzeix–Raviart or enriched Crouzeix–Raviart elements
+// on another. As in 1D, every number returned as a bound is verified and
+// the floating-point parts only choose vectors and shifts.
+func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
+	want := p.Eigenvalues + extraIndices
+	gamma := interval.Point(r.gamma)
+	bcs := sideConditions(p)
+	out := &outcome{polygon: &polygonRecord{}}
+
+	// Upper bounds.
+	m, err := polygonMesh(p, r.refine, r.graded)
+	if err != nil {
+		return nil, err
+	}
+	pot, err := tri.NewPotential(m, p.Potential, r.taylor)
+	if err != nil {
+		return nil, err
+	}
+	space := tri.NewLagrange(m, r.degree, bcs)
+	if space.N() < want+1 {
+		return nil, fmt.Errorf("certify: trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
+	}
+	kApprox, mApprox := space.AssembleApprox(pot, r.gamma)
+	_, vecs, err := sparse.LowestEigs(kApprox, mApprox, want)
+	if err != nil {
+		return nil, fmt.Errorf("certify: approximate eigenvectors: %w", err)
+	}
+	a0, a1, err := space.RitzMatrices(vecs, pot, gamma)
+	if err != nil {
+		return nil, err
+	}
+	mu, err := enclose.Eigenvalues(a0, a1)
+	if err != nil {
+		return nil, fmt.Errorf("certify: Ritz pencil: %w", err)
+	}
+	out.ritz = make([]float64, want)
+	for k := range out.ritz {
+		out.ritz[k] = mu[k].Hi // min–max: Λ_k ≤ μ_k for every member
+	}
+
+	// Lower bounds, stage A.
+	ma, err := polygonMesh(p, r.stageARefine, r.graded)
+	if err != nil {
+		return nil, err
+	}
+	potA, err := tri.NewPotential(ma, p.Potential, min(r.taylor, stageATaylor))
+	if err != nil {
+		return nil, err
+	}
+	var proj *tri.Projection
+	if usesCR(p) {
+		proj, out.polygon.stageASpace = tri.NewCR(ma, bcs), "crouzeix-raviart"
+	} else {
+		proj, out.polygon.stageASpace = tri.NewECR(ma, bcs), "enriched-crouzeix-raviart"
+	}
+	out.polygon.triangles, out.polygon.stageATriangles = len(m.Tris), len(ma.Tris)
+	k, mass, mMin, err := proj.Matrices(potA, gamma)
+	if err != nil {
+		return nil, err
+	}
+	out.ch = proj.ProjectionConstant()
+	approx, _, err := sparse.LowestEigs(k.Mid(), mass.Mid(), want+1)
+	if err != nil {
+		return nil, fmt.Errorf("certify: stage A approximate eigenvalues: %w", err)
+	}
+	out.stageA = make([]float64, want+1)
+	counter := sparse.NewCounter(k, mass)
+	prev := 0.0
+	for i := range out.stageA {
+		lh := verifiedSparseLower(counter, mMin, approx[i], prev, i+1)
+		prev = lh
+		out.stageA[i] = enclose.ProjectionLower(lh, out.ch)
+	}
+	out.notes = append(out.notes, "lower bounds on polygons come from the projection bound (stage A) only")
+	return out, nil
+}
+
+// verifiedSparseLower returns a float ℓ ≥ lo with λ_{h,index} ≥ ℓ for every
+// member of ([K], [M]): shifts σ just below the approximation are tried
+// until the verified count (sparse.CountBelow, METHODS §7) shows at most
+// index − 1 eigenvalues below the corrected shift σ', and then
+// λ_{h,index} ≥ σ'. lo must be a known lower bound (0, or the bound of the
+// previous index; the stage-A pencil is positive semidefinite since
+// c_T ≥ 0 and α ≥ 0).
+func verifiedSparseLower(c *sparse.Counter, mMin, approx, lo float64, index int) float64 {
+	delta := 1e-10 * approx
+	for try := 0; try < 12 && approx-delta > lo; try++ {
+		n, sigmaPrime, ok := c.CountBelow(mMin, approx-delta)
+		if ok && n <= index-1 {
+			return max(sigmaPrime, lo)
+		}
+		delta *= 10
+	}
+	return lo
+}
+
+// usesCR reports whether the plain Crouzeix–Raviart space serves stage A:
+// METHODS §5 allows it for constant V and no Neumann side; otherwise the
+// enriched space (which also preserves element means) is used.
+func usesCR(p *problem.Problem) bool {
+	poly, ok := p.Potential.Polynomial()
+	if !ok || poly.Degree() > 0 {
+		return false
+	}
+	for _, bc := range p.Boundary {
+		if bc.Kind == problem.Neumann || (bc.Kind == problem.Robin && bc.Alpha.Val.Hi == 0) {
+			return false
+		}
+	}
+	return true
+}
+
+// sideConditions converts the problem's per-side conditions.
+func sideConditions(p *problem.Problem) []tri.BC {
+	bcs := make([]tri.BC, len(p.Boundary))
+	for i, bc := range p.Boundary {
+		switch bc.Kind {
+		case problem.Dirichlet:
+			bcs[i] = tri.BC{Dirichlet: true}
+		case problem.Robin:
+			bcs[i] = tri.BC{Alpha: bc.Alpha.Val}
+		}
+	}
+	return bcs
+}
+
+// polygonMesh triangulates the polygon, refines it uniformly `levels`
+// times and grades it `graded` more levels toward every re-entrant corner.
+func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
+	verts := make([][2]interval.I, len(p.Vertices))
+	for i, v := range p.Vertices {
+		verts[i] = [2]interval.I{v[0].Val, v[1].Val}
+	}
+	m, err := mesh.FromPolygon(verts, p.Triangles())
+	if err != nil {
+		return nil, err
+	}
+	for i := 0; i < levels; i++ {
+		m = m.Refine()
+	}
+	if graded > 0 {
+		for _, c := range reentrantCorners(p) {
+			m = m.RefineGraded(c, graded)
+		}
+	}
+	return m, nil
+}
+
+// reentrantCorners lists the vertices with interior angle > π: for a
+// counterclockwise polygon, those where the turn (v_i − v_{i−1}) × (v_{i+1} − v_i)
+// is negative. The sign is only used to choose where to grade the mesh.
+func reentrantCorners(p *problem.Problem) []int {
+	n := len(p.Vertices)
+	var out []int
+	for i := range p.Vertices {
+		a, b, c := p.Vertices[(i+n-1)%n], p.Vertices[i], p.Vertices[(i+1)%n]
+		cross := (b[0].Val.Mid()-a[0].Val.Mid())*(c[1].Val.Mid()-b[1].Val.Mid()) -
+			(b[1].Val.Mid()-a[1].Val.Mid())*(c[0].Val.Mid()-b[0].Val.Mid())
+		if cross < 0 {
+			out = append(out, i)
+		}
+	}
+	return out
+}
