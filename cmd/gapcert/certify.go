@@ -12,6 +12,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/certify"
+	"gapcert/certs/plot"
 	"gapcert/fem/problem"
 	"gapcert/interval/decimalio"
 )
@@ -22,6 +23,7 @@ type certifyFlags struct {
 	relWidth  string
 	timeLimit time.Duration
 	quiet     bool
+	plotDir   string
 }
 
 func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
@@ -29,6 +31,7 @@ func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
 	cmd.Flags().StringVar(&f.relWidth, "rel-width", "", "target relative width of λ1, λ2 and the gap (default: the problem's target)")
 	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", certify.DefaultTimeLimit, "budget for refinement")
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
+	cmd.Flags().StringVar(&f.plotDir, "plot", "", "also draw the mesh and the first two approximate eigenfunctions (PNG and SVG) into this directory; the pictures are approximations, not part of the proof")
 }
 
 func newCertifyCmd() *cobra.Command {
@@ -92,7 +95,55 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	}
 	printCertificate(cmd.OutOrStdout(), p, c)
 	fmt.Fprintf(cmd.OutOrStdout(), "\ncertificate written to %s\n", out)
+	if f.plotDir != "" {
+		files, err := drawModes(f.plotDir, p, c)
+		if err != nil {
+			return &exitError{code: exitFailure, err: fmt.Errorf("plot: %v", err)}
+		}
+		fmt.Fprintf(cmd.OutOrStdout(), "pictures (approximate eigenfunctions, not part of the proof): %s\n", strings.Join(files, ", "))
+	}
 	return nil
+}
+
+// drawModes draws the first two approximate eigenfunctions of a certified
+// problem, labelled with their certified enclosures.
+func drawModes(dir string, p *problem.Problem, c *certs.Certificate) ([]string, error) {
+	const count = 2
+	modes, err := certify.ApproximateModes(p, c, count)
+	if err != nil {
+		return nil, err
+	}
+	m := &plot.Modes{Title: p.Name, Eval: modes.Eval, Triangles: modes.Triangles}
+	if p.Dim == 1 {
+		m.Interval = [2]float64{p.Interval[0].Val.Mid(), p.Interval[1].Val.Mid()}
+	} else {
+		for _, v := range p.Vertices {
+			m.Polygon = append(m.Polygon, [2]float64{v[0].Val.Mid(), v[1].Val.Mid()})
+		}
+	}
+	for _, e := range c.Results.Eigenvalues[:count] {
+		m.Labels = append(m.Labels, fmt.Sprintf("λ%d ∈ [%s, %s]", e.Index, shortLower(e.Lower), shortUpper(e.Upper)))
+	}
+	return plot.Write(dir, m, plot.Formats())
+}
+
+// shortLower and shortUpper shorten printed bounds to 8 digits for labels,
+// keeping their direction (a label must not claim more than the
+// certificate).
+func shortLower(s string) string {
+	x, err := decimalio.ParseLower(s)
+	if err != nil {
+		return s
+	}
+	return decimalio.FormatLower(x, 8)
+}
+
+func shortUpper(s string) string {
+	x, err := decimalio.ParseUpper(s)
+	if err != nil {
+		return s
+	}
+	return decimalio.FormatUpper(x, 8)
 }
 
 // printCertificate writes the human-readable table of a certificate.

@@ -91,6 +91,23 @@ func TestCertifyBadInput(t *testing.T) {
 	}
 }
 
+// TestPlotFlag: --plot draws the mesh and two modes of a polygon problem.
+func TestPlotFlag(t *testing.T) {
+	dir := t.TempDir()
+	code, out, errs := execute("certify", filepath.Join(testdata, "square.json"), "-o", filepath.Join(dir, "c.json"), "--rel-width", "0.3", "--plot", dir)
+	if code != exitOK {
+		t.Fatalf("certify --plot: exit %d, stderr %q", code, errs)
+	}
+	for _, name := range []string{"mesh.png", "mesh.svg", "mode1.png", "mode1.svg", "mode2.png", "mode2.svg"} {
+		if _, err := os.Stat(filepath.Join(dir, name)); err != nil {
+			t.Errorf("%s not written: %v", name, err)
+		}
+	}
+	if !strings.Contains(out, "not part of the proof") {
+		t.Errorf("output does not say the pictures are approximations:\n%s", out)
+	}
+}
+
 // TestDemo: the built-in problem certifies without a file.
 func TestDemo(t *testing.T) {
 	cert := filepath.Join(t.TempDir(), "demo.cert.json")
