@@ -10,8 +10,13 @@ import (
 	"testing"
 	"time"
 
+	"gonum.org/v1/gonum/integrate/quad"
+	"gonum.org/v1/gonum/mat"
+
 	"gapcert/certs"
+	"gapcert/fem/mesh"
 	"gapcert/fem/problem"
+	"gapcert/fem/tri"
 	"gapcert/interval"
 )
 
@@ -392,4 +397,210 @@ func TestPolygonAdversarialDeterminism(t *testing.T) {
 	if err := Check(data); err != nil {
 		t.Errorf("certificate of %s does not verify: %v", src, err)
 	}
+}
+
+// TestPolygonAdversarialProjectionConstants tries to break the constants
+// C_T of (H3) that the stage-A bounds rest on. For a triangle T and the
+// errors e of the projection (zero mean on each edge for Crouzeix–Raviart;
+// zero edge means and zero mean over T for the enriched space), C_T² must
+// be at least sup ‖e‖²/‖∇e‖². Every trial function gives a lower estimate
+// of that supremum: here the largest Rayleigh quotient over the
+// polynomials of degree ≤ 8 with the same mean conditions (a generalized
+// symmetric eigenproblem solved with gonum; integrals by Gauss–Legendre
+// rules of gonum's quad package on the collapsed square, exact for these
+// degrees). A quotient above C_T² would disprove the constant (measured:
+// the quotients reach 0.33–0.45 of C_T² for CR and 0.13–0.33 for ECR; on
+// the equilateral triangle the CR quotient is (0.1892 h_T)², next to the
+// 0.1893 h_T that fem/tri cites from Liu–Oishi 2013). As a check
+// that the trial space can come close, the quotient with the element mean
+// condition alone must reach 99% of the Laugesen–Siudeja bound D²/j₁,₁² on
+// a thin acute isosceles triangle (for which it is sharp: R. S. Laugesen,
+// B. A. Siudeja, Minimizing Neumann fundamental tones of triangles: an
+// optimal Poincaré inequality, J. Differential Equations 249 (2010)
+// 118–135).
+func TestPolygonAdversarialProjectionConstants(t *testing.T) {
+	type tc struct {
+		what  string
+		verts [3][2]float64 // exact floats, counterclockwise
+	}
+	cases := []tc{
+		{"equilateral", [3][2]float64{{0, 0}, {1, 0}, {0.5, 0.8660254037844386}}},
+		{"right isosceles", [3][2]float64{{0, 0}, {1, 0}, {0, 1}}},
+		{"thin acute isosceles", [3][2]float64{{0, 0}, {1, -0.05}, {1, 0.05}}},
+		{"thin obtuse", [3][2]float64{{0, 0}, {1, 0}, {0.5, 0.02}}},
+		{"scalene, tiny", [3][2]float64{{1e-3, 2e-3}, {4e-3, 2.5e-3}, {1.7e-3, 5e-3}}},
+		{"scalene, huge", [3][2]float64{{1e3, -2e3}, {7e3, 1e3}, {-2e3, 3e3}}},
+	}
+	for _, c := range cases {
+		var verts [][2]interval.I
+		for _, v := range c.verts {
+			verts = append(verts, [2]interval.I{interval.Point(v[0]), interval.Point(v[1])})
+		}
+		m, err := mesh.FromPolygon(verts, [][3]int{{0, 1, 2}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		bc := make([]tri.BC, 3)
+		for _, enriched := range []bool{false, true} {
+			proj := tri.NewCR(m, bc)
+			if enriched {
+				proj = tri.NewECR(m, bc)
+			}
+			ch := proj.ProjectionConstant().Hi
+			q := maxPoincareQuotient(c.verts, true, enriched)
+			if !(q < ch*ch) {
+				t.Errorf("%s (enriched %v): trial quotient %.6g exceeds C_T² = %.6g", c.what, enriched, q, ch*ch)
+			}
+			if testing.Verbose() {
+				t.Logf("%s (enriched %v): sup quotient ≥ %.6g, C_T² = %.6g, ratio %.3f", c.what, enriched, q, ch*ch, q/(ch*ch))
+			}
+		}
+		if c.what == "thin acute isosceles" {
+			d2 := 0.0
+			for i := 0; i < 3; i++ {
+				a, b := c.verts[i], c.verts[(i+1)%3]
+				d2 = max(d2, (a[0]-b[0])*(a[0]-b[0])+(a[1]-b[1])*(a[1]-b[1]))
+			}
+			const j11 = 3.8317059702075123 // Abramowitz–Stegun Table 9.5
+			bound := d2 / (j11 * j11)
+			q := maxPoincareQuotient(c.verts, false, true)
+			if !(q > 0.99*bound && q < bound) {
+				t.Errorf("%s: mean-zero quotient %.6g not within 1%% below the Laugesen–Siudeja bound %.6g", c.what, q, bound)
+			}
+			if testing.Verbose() {
+				t.Logf("%s: mean-zero quotient %.6g, Laugesen–Siudeja bound %.6g, ratio %.3f", c.what, q, bound, q/bound)
+			}
+		}
+	}
+}
+
+// maxPoincareQuotient returns the largest ‖u‖²/‖∇u‖² over the polynomials
+// u of degree ≤ 8 on the triangle v with zero mean on each edge (if edges)
+// and zero mean over the triangle (if mean), in floating point (a lower
+// estimate of the supremum over H¹, up to rounding).
+func maxPoincareQuotient(v [3][2]float64, edges, mean bool) float64 {
+	const deg, nq = 8, 12
+	type mono struct{ a, b int } // ξ^a η^b in the reference coordinates
+	var basis []mono
+	for a := 0; a <= deg; a++ {
+		for b := 0; a+b <= deg; b++ {
+			basis = append(basis, mono{a, b})
+		}
+	}
+	nb := len(basis)
+	d1 := [2]float64{v[1][0] - v[0][0], v[1][1] - v[0][1]}
+	d2 := [2]float64{v[2][0] - v[0][0], v[2][1] - v[0][1]}
+	det := d1[0]*d2[1] - d1[1]*d2[0]
+	// ∇_x u = J⁻ᵀ ∇_ξ u with J = [d1 d2] (x = v0 + ξ d1 + η d2).
+	inv := [2][2]float64{{d2[1] / det, -d1[1] / det}, {-d2[0] / det, d1[0] / det}}
+	pow := func(x float64, k int) float64 {
+		r := 1.0
+		for ; k > 0; k-- {
+			r *= x
+		}
+		return r
+	}
+	xs, ws := make([]float64, nq), make([]float64, nq)
+	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
+	mm, kk := mat.NewSymDense(nb, nil), mat.NewSymDense(nb, nil)
+	val, gx, gy := make([]float64, nb), make([]float64, nb), make([]float64, nb)
+	for i, s := range xs {
+		for j, u := range xs {
+			xi, eta := s, (1-s)*u // collapsed square onto the triangle
+			w := ws[i] * ws[j] * (1 - s) * det
+			for k, f := range basis {
+				val[k] = pow(xi, f.a) * pow(eta, f.b)
+				var dxi, deta float64
+				if f.a > 0 {
+					dxi = float64(f.a) * pow(xi, f.a-1) * pow(eta, f.b)
+				}
+				if f.b > 0 {
+					deta = float64(f.b) * pow(xi, f.a) * pow(eta, f.b-1)
+				}
+				gx[k] = inv[0][0]*dxi + inv[0][1]*deta
+				gy[k] = inv[1][0]*dxi + inv[1][1]*deta
+			}
+			for a := 0; a < nb; a++ {
+				for b := 0; b <= a; b++ {
+					mm.SetSym(a, b, mm.At(a, b)+w*val[a]*val[b])
+					kk.SetSym(a, b, kk.At(a, b)+w*(gx[a]*gx[b]+gy[a]*gy[b]))
+				}
+			}
+		}
+	}
+	// Mean conditions as rows of a constraint matrix.
+	var rows [][]float64
+	if edges {
+		ends := [3][2][2]float64{{{1, 0}, {0, 1}}, {{0, 1}, {0, 0}}, {{0, 0}, {1, 0}}} // edges opposite v0, v1, v2 in (ξ, η)
+		for _, e := range ends {
+			row := make([]float64, nb)
+			for i, s := range xs {
+				xi, eta := e[0][0]+s*(e[1][0]-e[0][0]), e[0][1]+s*(e[1][1]-e[0][1])
+				for k, f := range basis {
+					row[k] += ws[i] * pow(xi, f.a) * pow(eta, f.b)
+				}
+			}
+			rows = append(rows, row)
+		}
+	}
+	if mean {
+		row := make([]float64, nb)
+		for k, f := range basis {
+			for i, s := range xs {
+				for j, u := range xs {
+					row[k] += ws[i] * ws[j] * (1 - s) * pow(s, f.a) * pow((1-s)*u, f.b)
+				}
+			}
+		}
+		rows = append(rows, row)
+	}
+	// Null space of the constraints (right singular vectors), without the
+	// constants when no condition removes them.
+	cons := mat.NewDense(len(rows), nb, nil)
+	for i, r := range rows {
+		cons.SetRow(i, r)
+	}
+	var svd mat.SVD
+	if !svd.Factorize(cons, mat.SVDFull) {
+		panic("SVD failed")
+	}
+	var vt mat.Dense
+	svd.VTo(&vt)
+	z := vt.Slice(0, nb, len(rows), nb)
+	var tm, tk, mz, kz mat.Dense
+	tm.Mul(z.T(), mm)
+	mz.Mul(&tm, z)
+	tk.Mul(z.T(), kk)
+	kz.Mul(&tk, z)
+	n := nb - len(rows)
+	ms, ks := mat.NewSymDense(n, nil), mat.NewSymDense(n, nil)
+	for a := 0; a < n; a++ {
+		for b := 0; b <= a; b++ {
+			ms.SetSym(a, b, (mz.At(a, b)+mz.At(b, a))/2)
+			ks.SetSym(a, b, (kz.At(a, b)+kz.At(b, a))/2)
+		}
+	}
+	// Largest ρ of M x = ρ K x: with K = LLᵀ, the eigenvalues of L⁻¹ M L⁻ᵀ.
+	var chol mat.Cholesky
+	if !chol.Factorize(ks) {
+		panic("stiffness not positive definite on the constrained space")
+	}
+	var l mat.TriDense
+	chol.LTo(&l)
+	var a mat.Dense
+	a.Solve(&l, ms)
+	var at mat.Dense
+	at.Solve(&l, a.T())
+	sym := mat.NewSymDense(n, nil)
+	for i := 0; i < n; i++ {
+		for j := 0; j <= i; j++ {
+			sym.SetSym(i, j, (at.At(i, j)+at.At(j, i))/2)
+		}
+	}
+	var eig mat.EigenSym
+	if !eig.Factorize(sym, false) {
+		panic("eigen decomposition failed")
+	}
+	vals := eig.Values(nil)
+	return vals[len(vals)-1]
 }
