@@ -11,6 +11,7 @@ import (
 	"gapcert/certs"
 	"gapcert/fem/line"
 	"gapcert/fem/problem"
+	"gapcert/fem/tri"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
 )
@@ -27,6 +28,31 @@ type Options struct {
 	Tool      string        // tool name and version for the provenance block
 	Now       func() time.Time
 	Progress  func(format string, args ...any) // nil = quiet
+	Memory    int64                            // memory budget in bytes; 0 = DefaultMemory
+}
+
+// DefaultMemory is the memory budget when Options.Memory is 0.
+const DefaultMemory = 16 << 30
+
+// bytesPerUnknown is the measured peak memory per stage-A unknown of a
+// polygon computation (sparse LDLᵀ plus its interval residual: 2.4 GiB at
+// 10⁶ unknowns), with a margin.
+const bytesPerUnknown = 3000
+
+// memoryEstimate estimates the peak memory of a recipe before anything is
+// allocated (polygons only; interval problems are small).
+func memoryEstimate(p *problem.Problem, r recipe) int64 {
+	if p.Dim != 2 {
+		return 0
+	}
+	tris := int64(len(p.Vertices) - 2)
+	for i := 0; i < r.stageARefine; i++ {
+		tris *= 4
+	}
+	// Edges ≈ 1.5 per triangle plus one mean per triangle (ECR), and each
+	// grading level adds a few dozen triangles per corner.
+	unknowns := tris*5/2 + int64(r.graded)*100
+	return unknowns * bytesPerUnknown
 }
 
 // maxShiftRaises bounds how often Certify enlarges γ when the cell
@@ -50,17 +76,25 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 	if limit == 0 {
 		limit = DefaultTimeLimit
 	}
+	budget := opt.Memory
+	if budget == 0 {
+		budget = DefaultMemory
+	}
 	start := time.Now()
 	r, err := initialRecipe(p)
 	if err != nil {
 		return nil, err
 	}
+	if est := memoryEstimate(p, r); est > budget {
+		return nil, fmt.Errorf("certify: the first mesh would need about %.1f GiB, more than the budget of %.1f GiB", float64(est)/(1<<30), float64(budget)/(1<<30))
+	}
 	var best *result
 	for raised := 0; ; {
 		t0 := time.Now()
 		out, err := compute(p, r)
-		var signErr *line.SignError
-		if errors.As(err, &signErr) && raised < maxShiftRaises {
+		var lineSign *line.SignError
+		var triSign *tri.SignError
+		if (errors.As(err, &lineSign) || errors.As(err, &triSign)) && raised < maxShiftRaises {
 			// The cell enclosures of V + γ were too wide to show V + γ ≥ 0:
 			// a larger shift is as sound and may be provable.
 			r.gamma = roundShift(2*r.gamma + r.scale)
@@ -87,6 +121,10 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		next, ok := refine(p, r, out)
 		elapsed := time.Since(start)
 		// The next step costs a few times the last one; stop if it would not fit.
+		if ok && memoryEstimate(p, next) > budget {
+			best.warnings = append(best.warnings, fmt.Sprintf("the next refinement would need about %.1f GiB, more than the memory budget", float64(memoryEstimate(p, next))/(1<<30)))
+			ok = false
+		}
 		if !ok || elapsed+4*time.Since(t0) > limit {
 			best.warnings = append(best.warnings, fmt.Sprintf("target relative width %.3g not reached within the budget; widths reached are recorded in results.relative_widths", target))
 			break

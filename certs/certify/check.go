@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
-	"reflect"
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
@@ -67,6 +66,9 @@ func Check(data []byte) error {
 	if err := r.validate(p.Dim); err != nil {
 		return err
 	}
+	if est := memoryEstimate(p, r); est > DefaultMemory {
+		return fmt.Errorf("recomputing this certificate would need about %.1f GiB, more than the budget of %.1f GiB", float64(est)/(1<<30), float64(DefaultMemory)/(1<<30))
+	}
 	out, err := compute(p, r)
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
@@ -79,7 +81,7 @@ func Check(data []byte) error {
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
 	}
-	if !reflect.DeepEqual(fresh.Results.Eigenvalues, cert.Results.Eigenvalues) {
+	if !sameJSON(fresh.Results.Eigenvalues, cert.Results.Eigenvalues) {
 		bad = append(bad, "results.eigenvalues differ from the recomputation")
 	}
 	for _, f := range []struct {
@@ -94,21 +96,38 @@ func Check(data []byte) error {
 			bad = append(bad, fmt.Sprintf("%s is [%s, %s], recomputed [%s, %s]", f.name, f.want.Lower, f.want.Upper, f.got.Lower, f.got.Upper))
 		}
 	}
-	if !reflect.DeepEqual(fresh.Results.RelativeWidths, cert.Results.RelativeWidths) {
+	if !sameJSON(fresh.Results.RelativeWidths, cert.Results.RelativeWidths) {
 		bad = append(bad, "results.relative_widths differ from the recomputation")
 	}
-	if !reflect.DeepEqual(fresh.Claims, cert.Claims) {
+	if !sameJSON(fresh.Claims, cert.Claims) {
 		bad = append(bad, "claims (texts, verdicts or margins) differ from the recomputation")
 	}
 	var recorded Method
 	_ = json.Unmarshal(cert.Method, &recorded) // decoded strictly above
-	if !reflect.DeepEqual(res.method(), recorded) {
+	if !sameJSON(res.method(), recorded) {
 		bad = append(bad, "method (stage bounds, N, rho or constants) differs from the recomputation")
 	}
 	if len(bad) > 0 {
 		return &MismatchError{Problems: bad}
 	}
 	return nil
+}
+
+// sameJSON reports whether a and b encode to the same JSON, so that an
+// empty list read back from a file equals a nil one recomputed.
+func sameJSON(a, b any) bool {
+	ja, errA := json.Marshal(a)
+	jb, errB := json.Marshal(b)
+	if errA != nil || errB != nil {
+		return false
+	}
+	if string(ja) == "null" {
+		ja = []byte("[]")
+	}
+	if string(jb) == "null" {
+		jb = []byte("[]")
+	}
+	return bytes.Equal(ja, jb)
 }
 
 // validate rejects recipes that the computation cannot run (a certificate

@@ -2,7 +2,9 @@ package certify
 
 import (
 	"bytes"
+	"encoding/json"
 	"errors"
+	"fmt"
 	"runtime"
 	"strings"
 	"testing"
@@ -37,6 +39,10 @@ func certifyBytes(t *testing.T, src string) []byte {
 func TestCheckAcceptsFreshCertificate(t *testing.T) {
 	if err := Check(certifyBytes(t, checkProblem)); err != nil {
 		t.Fatalf("fresh certificate does not verify: %v", err)
+	}
+	// Without claims (an empty list read back must equal none computed).
+	if err := Check(certifyBytes(t, `{"domain":{"interval":["0","1"]},"potential":"x","boundary":"dirichlet","eigenvalues":2}`)); err != nil {
+		t.Fatalf("fresh claim-less certificate does not verify: %v", err)
 	}
 }
 
@@ -133,5 +139,31 @@ func TestBudgetExhausted(t *testing.T) {
 		if got.Hi < base+0.36 || got.Lo > base+2.72 {
 			t.Errorf("lambda%d enclosure %v outside [k²π² + 1/e, k²π² + e]", k, got)
 		}
+	}
+}
+
+// TestCheckRefusesHugeRecipe: a certificate whose method asks for a mesh
+// beyond the memory budget is refused with the estimate, before anything
+// is allocated.
+func TestCheckRefusesHugeRecipe(t *testing.T) {
+	// A cross of five unit squares: ten initial triangles, so nine
+	// refinement levels mean about 2.6·10⁶ triangles and some 20 GiB.
+	p, err := problem.Parse([]byte(`{"domain":{"polygon":[["1","0"],["2","0"],["2","1"],["3","1"],["3","2"],["2","2"],["2","3"],["1","3"],["1","2"],["0","2"],["0","1"],["1","1"]]},"boundary":"dirichlet","eigenvalues":2}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := Certify(p, Options{RelWidth: 0.5, Now: fixedTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	data, _ := c.Marshal()
+	var m Method
+	if err := json.Unmarshal(c.Method, &m); err != nil {
+		t.Fatal(err)
+	}
+	edited := strings.Replace(string(data), fmt.Sprintf(`"stage_a_refinements": %d`, m.StageARefinements), `"stage_a_refinements": 9`, 1)
+	err = Check([]byte(edited))
+	if err == nil || !strings.Contains(err.Error(), "GiB") {
+		t.Errorf("want a refusal with a memory estimate, got %v", err)
 	}
 }
