@@ -1,6 +1,7 @@
 package enclose
 
 import (
+	"gapcert/enclose/internal/geneig"
 	"sort"
 
 	"gonum.org/v1/gonum/mat"
@@ -31,38 +32,8 @@ func chooseShiftedEigenvectors(a, b *Sym, tau float64) (x []float64, ok bool) {
 // eigenvectors (columns of a row-major n×n matrix): Cholesky mid(B) = LLᵀ,
 // then the symmetric eigenproblem of L⁻¹ mid(A) L⁻ᵀ.
 func choosePencilEigen(a, b *Sym) (vals, x []float64, ok bool) {
-	n := a.n
-	var ch mat.Cholesky
-	if !ch.Factorize(mat.NewSymDense(n, b.Mid())) {
-		return nil, nil, false
-	}
-	var l mat.TriDense
-	ch.LTo(&l)
-	am := mat.NewDense(n, n, a.Mid())
-	var w, c mat.Dense
-	if err := w.Solve(&l, am); err != nil { // w = L⁻¹A
-		return nil, nil, false
-	}
-	if err := c.Solve(&l, w.T()); err != nil { // c = L⁻¹AL⁻ᵀ
-		return nil, nil, false
-	}
-	cs := mat.NewSymDense(n, nil)
-	for i := 0; i < n; i++ {
-		for j := 0; j <= i; j++ {
-			cs.SetSym(i, j, (c.At(i, j)+c.At(j, i))/2)
-		}
-	}
-	var es mat.EigenSym
-	if !es.Factorize(cs, true) {
-		return nil, nil, false
-	}
-	vals = es.Values(nil)
-	var z, v mat.Dense
-	es.VectorsTo(&z)
-	if err := v.Solve(l.T(), &z); err != nil { // v = L⁻ᵀZ
-		return nil, nil, false
-	}
-	return vals, denseData(&v, n), true
+	vals, x, err := geneig.Solve(a.Mid(), b.Mid(), a.n)
+	return vals, x, err == nil
 }
 
 // denseData copies an n×n gonum matrix into a row-major slice.

@@ -2,12 +2,12 @@ package sparse
 
 import (
 	"errors"
+	"gapcert/enclose/internal/geneig"
 	"math"
 	"math/rand/v2"
 	"sort"
 
 	"gonum.org/v1/gonum/floats"
-	"gonum.org/v1/gonum/mat"
 )
 
 // This file only chooses: approximate eigenpairs in floating point. Nothing
@@ -107,49 +107,17 @@ func denseLowest(k, m *Sym, count int) ([]float64, [][]float64, error) {
 }
 
 // denseGeneralized returns the eigenvalues (ascending) and B-orthonormal
-// eigenvectors (columns, row-major) of the dense symmetric pencil (a, b).
+// eigenvectors (columns, row-major) of the dense symmetric pencil (a, b),
+// with this package's errors.
 func denseGeneralized(a, b []float64, n int) ([]float64, []float64, error) {
-	for _, v := range a {
-		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil, nil, ErrNotConverged
-		}
-	}
-	var ch mat.Cholesky
-	if !ch.Factorize(mat.NewSymDense(n, b)) {
+	vals, x, err := geneig.Solve(a, b, n)
+	switch err {
+	case nil:
+		return vals, x, nil
+	case geneig.ErrNotPositiveDefinite:
 		return nil, nil, ErrNotPositiveDefinite
 	}
-	var l mat.TriDense
-	ch.LTo(&l)
-	var w, c mat.Dense
-	if err := w.Solve(&l, mat.NewDense(n, n, a)); err != nil {
-		return nil, nil, ErrNotPositiveDefinite
-	}
-	if err := c.Solve(&l, w.T()); err != nil {
-		return nil, nil, ErrNotPositiveDefinite
-	}
-	cs := mat.NewSymDense(n, nil)
-	for i := 0; i < n; i++ {
-		for j := 0; j <= i; j++ {
-			cs.SetSym(i, j, (c.At(i, j)+c.At(j, i))/2)
-		}
-	}
-	var es mat.EigenSym
-	if !es.Factorize(cs, true) {
-		return nil, nil, ErrNotConverged
-	}
-	vals := es.Values(nil)
-	var z, v mat.Dense
-	es.VectorsTo(&z)
-	if err := v.Solve(l.T(), &z); err != nil {
-		return nil, nil, ErrNotPositiveDefinite
-	}
-	x := make([]float64, n*n)
-	for i := 0; i < n; i++ {
-		for j := 0; j < n; j++ {
-			x[i*n+j] = v.At(i, j)
-		}
-	}
-	return vals, x, nil
+	return nil, nil, ErrNotConverged
 }
 
 // subspace holds the work vectors of the shift-invert block subspace
