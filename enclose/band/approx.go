@@ -6,7 +6,6 @@ import (
 	"math"
 	"math/rand/v2"
 	"sort"
-
 )
 
 // This file only chooses: approximate eigenpairs in floating point. Nothing
