@@ -97,13 +97,8 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	if err != nil {
 		return nil, err
 	}
-	mu, err := enclose.Eigenvalues(a0, a1)
-	if err != nil {
-		return nil, fmt.Errorf("certify: Ritz pencil: %w", err)
-	}
-	out.ritz = make([]float64, want)
-	for k := range out.ritz {
-		out.ritz[k] = mu[k].Hi // min–max: Λ_k ≤ μ_k for every member
+	if out.ritz, err = ritzUpper(a0, a1); err != nil {
+		return nil, err
 	}
 
 	// Stage A: projection lower bounds for Λ_1 … Λ_{want+1}.
@@ -147,6 +142,22 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 		out.lg = nil
 	}
 	return out, nil
+}
+
+// ritzUpper returns upper bounds of Λ_1..Λ_n from the enclosed Ritz pencil
+// (a0, a1) of n trial functions: by the min–max principle Λ_k ≤ μ_k for the
+// exact pencil, which is a member of the interval one, and μ_k is at most
+// the upper end of its enclosure.
+func ritzUpper(a0, a1 *enclose.Sym) ([]float64, error) {
+	mu, err := enclose.Eigenvalues(a0, a1)
+	if err != nil {
+		return nil, fmt.Errorf("certify: Ritz pencil: %w", err)
+	}
+	upper := make([]float64, len(mu))
+	for k := range upper {
+		upper[k] = mu[k].Hi
+	}
+	return upper, nil
 }
 
 // stageA returns verified lower bounds of Λ_1..Λ_count from the projection

@@ -44,13 +44,8 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	if err != nil {
 		return nil, err
 	}
-	mu, err := enclose.Eigenvalues(a0, a1)
-	if err != nil {
-		return nil, fmt.Errorf("certify: Ritz pencil: %w", err)
-	}
-	out.ritz = make([]float64, want)
-	for k := range out.ritz {
-		out.ritz[k] = mu[k].Hi // min–max: Λ_k ≤ μ_k for every member
+	if out.ritz, err = ritzUpper(a0, a1); err != nil {
+		return nil, err
 	}
 
 	// Lower bounds, stage A.
