@@ -42,7 +42,7 @@ func bernElevate(dst, b []interval.I) {
 		copy(dst, b)
 		return
 	}
-	e := elevationTable(n, m).iv
+	e := elevationTable(n, m).IV
 	for i := 0; i <= m; i++ {
 		acc := interval.I{}
 		for j := 0; j <= n; j++ {
@@ -61,7 +61,7 @@ func bernProduct(dst, a, b []interval.I) {
 	if len(dst) != m+n+1 {
 		panic("line: product length mismatch")
 	}
-	w := productTable(m, n).iv
+	w := productTable(m, n).IV
 	for k := range dst {
 		dst[k] = interval.I{}
 	}
@@ -79,7 +79,7 @@ func bernFromMonomial(dst, c []interval.I) {
 	if len(c) > n+1 {
 		panic("line: monomial degree above the Bernstein degree")
 	}
-	w := monomialTable(n).iv
+	w := monomialTable(n).IV
 	for i := 0; i <= n; i++ {
 		acc := interval.I{}
 		for j := 0; j < len(c) && j <= i; j++ {
@@ -153,7 +153,7 @@ func dotI(a, b []interval.I) interval.I {
 // coefficient of P (partition of unity).
 func weightedGram(dst []interval.I, p []interval.I, shift interval.I, n int) {
 	r := len(p) - 1
-	t := tripleTable(r, n, n).iv
+	t := tripleTable(r, n, n).IV
 	n1 := n + 1
 	for ab := range dst[:n1*n1] {
 		dst[ab] = interval.I{}

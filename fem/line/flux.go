@@ -108,7 +108,7 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 	acc := newAccum(nv)
 	uw := newCellWork(p, nv)
 	sw := newCellWork(q, nv)
-	gd := tripleTable(0, d, d).iv
+	gd := tripleTable(0, d, d).IV
 	fi := make([][]interval.I, nv)
 	gfi := make([][]interval.I, nv)
 	wfi := make([][]interval.I, nv)
@@ -123,9 +123,9 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		hinv := h.Recip()
 		for i := 0; i < nv; i++ {
 			s.localCoef(uw.cf[i], trial[i], c)
-			applyF(uw.u[i], s.basis.iv, uw.cf[i])
+			applyF(uw.u[i], s.basis.IV, uw.cf[i])
 			f.localCoef(sw.cf[i], flux[i], c)
-			applyF(sw.u[i], f.basis.iv, sw.cf[i])
+			applyF(sw.u[i], f.basis.IV, sw.cf[i])
 			applyF(sw.gu[i], sw.mloc, sw.cf[i])
 			bernDeriv(sw.d[i], sw.u[i])
 			bernElevate(fi[i], uw.u[i])
@@ -192,16 +192,16 @@ func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 
 	q1 := q + 1
 	g := band.NewSym(f.n, q)
 	rhs := make([]float64, f.n)
-	T := f.basis.fl
+	T := f.basis.FL
 	D := make([]float64, q*q1) // derivative of the flux basis, degree q−1
 	for i := 0; i < q; i++ {
 		for l := 0; l < q1; l++ {
 			D[i*q1+l] = float64(q) * (T[(i+1)*q1+l] - T[i*q1+l])
 		}
 	}
-	mref := congruenceF(T, tripleTable(0, q, q).fl, q1, q1)
-	gq1 := tripleTable(0, q-1, q-1).fl
-	gpq := tripleTable(0, p, q-1).fl
+	mref := congruenceF(T, tripleTable(0, q, q).FL, q1, q1)
+	gq1 := tripleTable(0, q-1, q-1).FL
+	gpq := tripleTable(0, p, q-1).FL
 	ub := make([]float64, p+1)
 	c := make([]float64, p+1)
 	wq := make([]float64, q*q)
@@ -210,8 +210,8 @@ func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 
 		h := f.mesh.H(cell).Mid()
 		bern, rem := w.Model(cell)
 		r := len(bern) - 1
-		t3 := tripleTable(r, q-1, q-1).fl
-		t3u := tripleTable(r, p, q-1).fl
+		t3 := tripleTable(r, q-1, q-1).FL
+		t3u := tripleTable(r, p, q-1).FL
 		rm := rem.Mid()
 		for ab := range wq {
 			wq[ab] = rm * gq1[ab]
@@ -233,7 +233,7 @@ func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 
 		for i := 0; i <= p; i++ {
 			acc := 0.0
 			for l := 0; l <= p; l++ {
-				acc += s.basis.fl[i*(p+1)+l] * c[l]
+				acc += s.basis.FL[i*(p+1)+l] * c[l]
 			}
 			ub[i] = acc
 		}

@@ -3,6 +3,7 @@ package line
 import (
 	"errors"
 	"fmt"
+	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -17,13 +18,13 @@ func TestInverseShiftedEncloses(t *testing.T) {
 	// models contain the exact rational value at sample points, and the
 	// remainder shrinks like h^(order+1).
 	vc := []*big.Rat{ratFrac(0, 1), ratFrac(-1, 3), ratFrac(1, 1)}
-	viv := []interval.I{pt(0), encloseRat(vc[1]), pt(1)}
+	viv := []interval.I{pt(0), decimalio.FromRat(vc[1]), pt(1)}
 	gamma := ratFrac(1, 2)
 	var prev float64
 	for _, n := range []int{4, 8, 16} {
 		m := Uniform(pt(0), pt(1), n)
 		v := PolynomialPotential(m, viv)
-		w, err := v.InverseShifted(encloseRat(gamma), 4)
+		w, err := v.InverseShifted(decimalio.FromRat(gamma), 4)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -141,7 +142,7 @@ func TestLGMatricesExact(t *testing.T) {
 		left, right End
 		robinL      bool
 	}{
-		{3, 4, 3, End{Alpha: encloseRat(alpha)}, End{}, true},
+		{3, 4, 3, End{Alpha: decimalio.FromRat(alpha)}, End{}, true},
 		{2, 2, 2, End{Dirichlet: true}, End{Dirichlet: true}, false},
 		{5, 6, 2, End{}, End{Dirichlet: true}, false},
 	} {
@@ -149,7 +150,7 @@ func TestLGMatricesExact(t *testing.T) {
 		s := NewLagrange(m, tc.p, tc.left, tc.right)
 		f := NewFlux(m, tc.q, tc.left, tc.right)
 		v := PolynomialPotential(m, []interval.I{pt(2)})
-		gamma := encloseRat(ratFrac(1, 2))
+		gamma := decimalio.FromRat(ratFrac(1, 2))
 		w, err := v.InverseShifted(gamma, 2)
 		if err != nil {
 			t.Fatal(err)

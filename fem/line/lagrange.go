@@ -48,7 +48,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 	s.checkPotential(v)
 	p, p1 := s.p, s.p+1
 	k, m = band.NewSym(s.n, p), band.NewSym(s.n, p)
-	T := s.basis.fl
+	T := s.basis.FL
 	// Derivative of each basis function in Bernstein form of degree p−1.
 	D := make([]float64, p*p1)
 	for i := 0; i < p; i++ {
@@ -56,15 +56,15 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 			D[i*p1+l] = float64(p) * (T[(i+1)*p1+l] - T[i*p1+l])
 		}
 	}
-	kref := congruenceF(D, tripleTable(0, p-1, p-1).fl, p, p1)
-	g := tripleTable(0, p, p).fl
+	kref := congruenceF(D, tripleTable(0, p-1, p-1).FL, p, p1)
+	g := tripleTable(0, p, p).FL
 	mref := congruenceF(T, g, p1, p1)
 	w := make([]float64, p1*p1)
 	for c := 0; c < s.mesh.Cells(); c++ {
 		h := s.mesh.H(c).Mid()
 		bern, rem := v.Model(c)
 		q := len(bern) - 1
-		tr := tripleTable(q, p, p).fl
+		tr := tripleTable(q, p, p).FL
 		for ab := range w {
 			w[ab] = (shift + rem.Mid()) * g[ab]
 		}
@@ -249,7 +249,7 @@ type cellWork struct {
 
 func newCellWork(p, nv int) *cellWork {
 	k, m := hierarchicalGramTables(p)
-	w := &cellWork{p: p, mii: make([]interval.I, nv), wg: make([]interval.I, (p+1)*(p+1)), kloc: k.iv, mloc: m.iv}
+	w := &cellWork{p: p, mii: make([]interval.I, nv), wg: make([]interval.I, (p+1)*(p+1)), kloc: k.IV, mloc: m.IV}
 	mk := func(n int) [][]interval.I {
 		out := make([][]interval.I, nv)
 		for i := range out {
@@ -270,7 +270,7 @@ func newCellWork(p, nv int) *cellWork {
 func (w *cellWork) load(s *space, vecs [][]float64, k int) {
 	for i, x := range vecs {
 		s.localCoef(w.cf[i], x, k)
-		applyF(w.u[i], s.basis.iv, w.cf[i])
+		applyF(w.u[i], s.basis.IV, w.cf[i])
 		applyF(w.gu[i], w.mloc, w.cf[i])
 		applyF(w.gd[i], w.kloc, w.cf[i])
 		w.mii[i] = dotF(w.cf[i], w.gu[i])

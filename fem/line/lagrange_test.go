@@ -2,6 +2,7 @@ package line
 
 import (
 	"fmt"
+	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -191,7 +192,7 @@ func exactRitz(s *Lagrange, vecs [][]float64, vc []*big.Rat, gamma *big.Rat, alp
 	return a, b
 }
 
-func ratInterval(r *big.Rat) interval.I { return encloseRat(r) }
+func ratInterval(r *big.Rat) interval.I { return decimalio.FromRat(r) }
 
 func TestRitzMatricesExact(t *testing.T) {
 	// Containment and width against an exact math/big evaluation. V(x) =
@@ -353,7 +354,7 @@ func TestHierarchicalStiffnessStructure(t *testing.T) {
 				case a == b:
 					want.SetFrac64(1, int64(2*(a+1)-1))
 				}
-				checkEncloses(t, fmt.Sprintf("p=%d K_loc(%d,%d)", p, a, b), k.iv[a*p1+b], want, 1e-15, 1)
+				checkEncloses(t, fmt.Sprintf("p=%d K_loc(%d,%d)", p, a, b), k.IV[a*p1+b], want, 1e-15, 1)
 			}
 		}
 	}

@@ -2,6 +2,7 @@ package line
 
 import (
 	"fmt"
+	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -31,9 +32,9 @@ func TestLongRitzSweep(t *testing.T) {
 		}
 		p := 1 + rng.IntN(12)
 		vc := []*big.Rat{big.NewRat(int64(rng.IntN(9)-4), 3), big.NewRat(int64(rng.IntN(9)-4), 7), big.NewRat(int64(rng.IntN(5)), 5)}
-		viv := []interval.I{encloseRat(vc[0]), encloseRat(vc[1]), encloseRat(vc[2])}
+		viv := []interval.I{decimalio.FromRat(vc[0]), decimalio.FromRat(vc[1]), decimalio.FromRat(vc[2])}
 		alpha := big.NewRat(int64(rng.IntN(7)), 3)
-		ends := []End{{Dirichlet: true}, {Alpha: encloseRat(alpha)}}
+		ends := []End{{Dirichlet: true}, {Alpha: decimalio.FromRat(alpha)}}
 		left, right := ends[rng.IntN(2)], ends[rng.IntN(2)]
 		s := NewLagrange(m, p, left, right)
 		if s.N() == 0 {
@@ -47,7 +48,7 @@ func TestLongRitzSweep(t *testing.T) {
 			}
 		}
 		gamma := big.NewRat(int64(rng.IntN(5)), 2)
-		a0, a1, err := s.RitzMatrices(vecs, PolynomialPotential(m, viv), encloseRat(gamma))
+		a0, a1, err := s.RitzMatrices(vecs, PolynomialPotential(m, viv), decimalio.FromRat(gamma))
 		if err != nil {
 			t.Fatal(err)
 		}

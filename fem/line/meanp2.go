@@ -2,6 +2,7 @@ package line
 
 import (
 	"fmt"
+	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 
@@ -181,8 +182,8 @@ func (s *MeanP2) Matrices(v *Potential, gamma interval.I) (k, mass *band.ISym, m
 	var kref, mref [3][3]interval.I
 	for i := 0; i < 3; i++ {
 		for j := 0; j < 3; j++ {
-			kref[i][j] = encloseRat(kr[i][j])
-			mref[i][j] = encloseRat(mr[i][j])
+			kref[i][j] = decimalio.FromRat(kr[i][j])
+			mref[i][j] = decimalio.FromRat(mr[i][j])
 		}
 	}
 	k, mass = band.NewISym(s.n, 2), band.NewISym(s.n, 2)
@@ -219,7 +220,7 @@ func (s *MeanP2) Matrices(v *Potential, gamma interval.I) (k, mass *band.ISym, m
 	}
 	var split [3]float64
 	for i, r := range meanP2MassSplit {
-		split[i] = encloseRat(r).Lo
+		split[i] = decimalio.FromRat(r).Lo
 	}
 	diag := make([]float64, s.n)
 	for c := 0; c < nc; c++ {

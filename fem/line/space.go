@@ -117,7 +117,7 @@ func (s *space) eval(vec []float64, x float64) float64 {
 	for i := 0; i < p1; i++ {
 		acc := 0.0
 		for l := 0; l < p1; l++ {
-			acc += s.basis.fl[i*p1+l] * c[l]
+			acc += s.basis.FL[i*p1+l] * c[l]
 		}
 		b[i] = acc
 	}

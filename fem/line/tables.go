@@ -1,11 +1,8 @@
 package line
 
 import (
-	"math"
+	"gapcert/fem/internal/rattable"
 	"math/big"
-	"sync"
-
-	"gapcert/interval"
 )
 
 // This file holds the exact rational tables of the Bernstein calculus on
@@ -30,53 +27,17 @@ import (
 // lies in the hull of the coefficients.
 
 // table is an exact rational array with its enclosures and nearest floats.
-type table struct {
-	iv []interval.I
-	fl []float64
-}
+type table = rattable.Table
 
-type tableKey struct {
-	kind    byte
-	a, b, c int
-}
+type tableKey = rattable.Key
 
-var (
-	tableMu    sync.Mutex
-	tableCache = map[tableKey]*table{}
-)
+// tableKeyOf names a table of this package by its kind and sizes.
+func tableKeyOf(kind byte, a, b, c int) tableKey { return tableKey{Kind: kind, A: a, B: b, C: c} }
+
+var tableCache rattable.Cache
 
 // cached returns the table for key, building it from exact rationals once.
-func cached(key tableKey, build func() []*big.Rat) *table {
-	tableMu.Lock()
-	defer tableMu.Unlock()
-	if t, ok := tableCache[key]; ok {
-		return t
-	}
-	rs := build()
-	t := &table{iv: make([]interval.I, len(rs)), fl: make([]float64, len(rs))}
-	for i, r := range rs {
-		t.iv[i] = encloseRat(r)
-		t.fl[i], _ = r.Float64()
-	}
-	tableCache[key] = t
-	return t
-}
-
-// encloseRat returns the tightest float64 interval containing r (a point
-// when r is a float64). r must be of moderate size (no overflow).
-func encloseRat(r *big.Rat) interval.I {
-	f, exact := r.Float64()
-	if exact {
-		return interval.Point(f)
-	}
-	// f is the nearest float64; the exact value lies on one side of it.
-	var fr big.Rat
-	fr.SetFloat64(f)
-	if r.Cmp(&fr) < 0 {
-		return interval.I{Lo: math.Nextafter(f, math.Inf(-1)), Hi: f}
-	}
-	return interval.I{Lo: f, Hi: math.Nextafter(f, math.Inf(1))}
-}
+func cached(key tableKey, build func() []*big.Rat) *table { return tableCache.Get(key, build) }
 
 func binom(n, k int) *big.Int {
 	if k < 0 || k > n {
@@ -89,7 +50,7 @@ func binom(n, k int) *big.Int {
 // = C(r,k) C(m,i) C(n,j) / (C(r+m+n, k+i+j) (r+m+n+1)). With r = 0 it is
 // the Gram matrix ∫ B^m_i B^n_j.
 func tripleTable(r, m, n int) *table {
-	return cached(tableKey{'t', r, m, n}, func() []*big.Rat {
+	return cached(tableKeyOf('t', r, m, n), func() []*big.Rat {
 		out := make([]*big.Rat, (r+1)*(m+1)*(n+1))
 		s := r + m + n
 		for k := 0; k <= r; k++ {
@@ -109,7 +70,7 @@ func tripleTable(r, m, n int) *table {
 // productTable returns P[i*(n+1)+j] = C(m,i) C(n,j) / C(m+n, i+j), the
 // weight of a_i b_j in coefficient i+j of the degree-(m+n) product.
 func productTable(m, n int) *table {
-	return cached(tableKey{'p', m, n, 0}, func() []*big.Rat {
+	return cached(tableKeyOf('p', m, n, 0), func() []*big.Rat {
 		out := make([]*big.Rat, (m+1)*(n+1))
 		for i := 0; i <= m; i++ {
 			for j := 0; j <= n; j++ {
@@ -124,7 +85,7 @@ func productTable(m, n int) *table {
 // elevationTable returns E[i*(n+1)+j], the coefficient of B^m_i in B^n_j
 // (m ≥ n): C(n,j) C(m−n,i−j) / C(m,i).
 func elevationTable(n, m int) *table {
-	return cached(tableKey{'e', n, m, 0}, func() []*big.Rat {
+	return cached(tableKeyOf('e', n, m, 0), func() []*big.Rat {
 		out := make([]*big.Rat, (m+1)*(n+1))
 		for i := 0; i <= m; i++ {
 			for j := 0; j <= n; j++ {
@@ -139,7 +100,7 @@ func elevationTable(n, m int) *table {
 // monomialTable returns W[i*(n+1)+j], the coefficient of B^n_i in ξ^j:
 // C(i,j)/C(n,j) for i ≥ j, else 0.
 func monomialTable(n int) *table {
-	return cached(tableKey{'m', n, 0, 0}, func() []*big.Rat {
+	return cached(tableKeyOf('m', n, 0, 0), func() []*big.Rat {
 		out := make([]*big.Rat, (n+1)*(n+1))
 		for i := 0; i <= n; i++ {
 			for j := 0; j <= n; j++ {
@@ -204,7 +165,7 @@ func hierarchicalRat(p int) []*big.Rat {
 
 // hierarchicalTable is hierarchicalRat(p) enclosed.
 func hierarchicalTable(p int) *table {
-	return cached(tableKey{'h', p, 0, 0}, func() []*big.Rat { return hierarchicalRat(p) })
+	return cached(tableKeyOf('h', p, 0, 0), func() []*big.Rat { return hierarchicalRat(p) })
 }
 
 // hierarchicalGramTables returns the exact local stiffness and mass
@@ -264,7 +225,7 @@ func hierarchicalGramTables(p int) (k, m *table) {
 		}
 		return out
 	}
-	k = cached(tableKey{'K', p, 0, 0}, func() []*big.Rat { return build(true) })
-	m = cached(tableKey{'M', p, 0, 0}, func() []*big.Rat { return build(false) })
+	k = cached(tableKeyOf('K', p, 0, 0), func() []*big.Rat { return build(true) })
+	m = cached(tableKeyOf('M', p, 0, 0), func() []*big.Rat { return build(false) })
 	return k, m
 }

@@ -121,7 +121,7 @@ func dotF(c []float64, b []interval.I) interval.I {
 // s: the exact weighted Gram matrix of the degree-p basis. The shift enters
 // every coefficient of P (partition of unity).
 func weightedGram(dst []interval.I, w []interval.I, q int, s interval.I, p int) {
-	t := tripleTable(q, p, p).iv
+	t := tripleTable(q, p, p).IV
 	np := dim(p)
 	nn := np * np
 	for ab := range dst[:nn] {

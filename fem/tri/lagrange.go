@@ -264,7 +264,7 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 			}
 		}
 	}
-	ge := s.ref.edgeGram.iv
+	ge := s.ref.edgeGram.IV
 	p1 := s.p + 1
 	di := make([][]float64, nv)
 	for i := range di {
@@ -331,7 +331,7 @@ type ritzWork struct {
 func newRitzWork(p, q, nv int) *ritzWork {
 	np, nq := dim(p), dim(p-1)
 	w := &ritzWork{mii: make([]interval.I, nv), wg: make([]interval.I, np*np), tmp: make([]interval.I, nq),
-		gramP: tripleTable(0, p, p).iv, gramQ: tripleTable(0, p-1, p-1).iv}
+		gramP: tripleTable(0, p, p).IV, gramQ: tripleTable(0, p-1, p-1).IV}
 	w.cf = make([][]float64, nv)
 	w.gu, w.wu = make([][]interval.I, nv), make([][]interval.I, nv)
 	w.d, w.h = make([][2][]interval.I, nv), make([][2][]interval.I, nv)
@@ -401,8 +401,8 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *sparse.Sym
 	np := dim(s.p)
 	kb, mb := sparse.NewBuilder(s.n), sparse.NewBuilder(s.n)
 	refK := s.refStiffness()
-	gp := s.ref.gramP.fl
-	tr := tripleTable(v.q, s.p, s.p).fl
+	gp := s.ref.gramP.FL
+	tr := tripleTable(v.q, s.p, s.p).FL
 	nn := np * np
 	wloc := make([]float64, nn)
 	for t := range s.mesh.Tris {
@@ -441,7 +441,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *sparse.Sym
 			}
 		}
 	}
-	ge := s.ref.edgeGram.fl
+	ge := s.ref.edgeGram.FL
 	p1 := s.p + 1
 	for _, re := range s.robin {
 		sc := re.alpha.Mid() * re.length.Mid()
@@ -464,7 +464,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *sparse.Sym
 // floating point (a choice: used by AssembleApprox only).
 func (s *Lagrange) refStiffness() [2][2][]float64 {
 	np, nq := dim(s.p), dim(s.p-1)
-	gq := s.ref.gramQ.fl
+	gq := s.ref.gramQ.FL
 	// D_k as dense nq×np matrices.
 	var dk [2][]float64
 	for k := 0; k < 2; k++ {

@@ -53,7 +53,7 @@ func NewPotential(m *mesh.Mesh, v *formula.Expr, order int) (*Potential, error) 
 		q = max(q, p.Degree())
 	}
 	pairs := monomialPairs(q)
-	w := monomialTable(q).iv
+	w := monomialTable(q).IV
 	nq := dim(q)
 	pot := &Potential{mesh: m, q: q, exact: true,
 		bern: make([][]interval.I, len(m.Tris)), rem: make([]interval.I, len(m.Tris)), rng: make([]interval.I, len(m.Tris))}

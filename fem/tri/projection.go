@@ -292,7 +292,7 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 			if !ok {
 				return nil, nil, 0, fmt.Errorf("tri: ECR element mean on triangle %d not verified invertible (degenerate enclosure)", t)
 			}
-			gram := tripleTable(0, 2, 2).iv
+			gram := tripleTable(0, 2, 2).IV
 			rank := ecrStiffnessWeight(m.Vertices(t), g.Area)
 			w := [4]float64{1, 1, 1, -3}
 			var tmp [6]interval.I

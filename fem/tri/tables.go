@@ -1,11 +1,9 @@
 package tri
 
 import (
+	"gapcert/fem/internal/rattable"
 	"math/big"
 	"sync"
-
-	"gapcert/interval"
-	"gapcert/interval/decimalio"
 )
 
 // This file holds the exact rational tables of the Bernstein calculus on a
@@ -64,37 +62,17 @@ func multiIndex(n int) *index {
 func dim(n int) int { return (n + 1) * (n + 2) / 2 }
 
 // table is an exact rational array with its enclosures and nearest floats.
-type table struct {
-	iv []interval.I
-	fl []float64
-}
+type table = rattable.Table
 
-type tableKey struct {
-	kind    byte
-	a, b, c int
-}
+type tableKey = rattable.Key
 
-var (
-	tableMu    sync.Mutex
-	tableCache = map[tableKey]*table{}
-)
+// tableKeyOf names a table of this package by its kind and sizes.
+func tableKeyOf(kind byte, a, b, c int) tableKey { return tableKey{Kind: kind, A: a, B: b, C: c} }
+
+var tableCache rattable.Cache
 
 // cached returns the table for key, building it from exact rationals once.
-func cached(key tableKey, build func() []*big.Rat) *table {
-	tableMu.Lock()
-	defer tableMu.Unlock()
-	if t, ok := tableCache[key]; ok {
-		return t
-	}
-	rs := build()
-	t := &table{iv: make([]interval.I, len(rs)), fl: make([]float64, len(rs))}
-	for i, r := range rs {
-		t.iv[i] = decimalio.FromRat(r)
-		t.fl[i], _ = r.Float64()
-	}
-	tableCache[key] = t
-	return t
-}
+func cached(key tableKey, build func() []*big.Rat) *table { return tableCache.Get(key, build) }
 
 func factorial(n int) *big.Int { return new(big.Int).MulRange(1, int64(max(n, 1))) }
 
@@ -129,7 +107,7 @@ func baryIntegralRat(a [3]int) *big.Rat {
 // = C(r,κ) C(m,α) C(n,β) ∫_T λ^(κ+α+β) / |T| (the integral formula). With
 // r = 0 it is the Gram matrix of the Bernstein bases of degrees m and n.
 func tripleTable(r, m, n int) *table {
-	return cached(tableKey{'t', r, m, n}, func() []*big.Rat {
+	return cached(tableKeyOf('t', r, m, n), func() []*big.Rat {
 		ir, im, in := multiIndex(r), multiIndex(m), multiIndex(n)
 		out := make([]*big.Rat, 0, len(ir.alpha)*len(im.alpha)*len(in.alpha))
 		for _, k := range ir.alpha {
@@ -151,7 +129,7 @@ func tripleTable(r, m, n int) *table {
 // pair of monomialPairs(q): C(q − i − j, δ − γ)/C(q, δ) for δ ≥ γ =
 // (0, i, j), else 0.
 func monomialTable(q int) *table {
-	return cached(tableKey{'m', q, 0, 0}, func() []*big.Rat {
+	return cached(tableKeyOf('m', q, 0, 0), func() []*big.Rat {
 		iq := multiIndex(q)
 		pairs := monomialPairs(q)
 		out := make([]*big.Rat, 0, len(pairs)*len(iq.alpha))
@@ -186,7 +164,7 @@ func monomialPairs(q int) [][2]int {
 // C(p,i) C(p,j) / (C(2p, i+j)(2p+1)), the Gram matrix of the univariate
 // Bernstein basis on an edge parametrised by t ∈ [0, 1].
 func edgeGramTable(p int) *table {
-	return cached(tableKey{'e', p, 0, 0}, func() []*big.Rat {
+	return cached(tableKeyOf('e', p, 0, 0), func() []*big.Rat {
 		out := make([]*big.Rat, 0, (p+1)*(p+1))
 		for i := 0; i <= p; i++ {
 			for j := 0; j <= p; j++ {

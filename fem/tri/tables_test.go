@@ -60,7 +60,7 @@ func TestGramTableP1(t *testing.T) {
 			if i == j {
 				want = 2.0 / 12
 			}
-			iv := g.iv[i*3+j]
+			iv := g.IV[i*3+j]
 			if !iv.Contains(want) || iv.Wid() > 3e-17 {
 				t.Errorf("G[%d][%d] = %v, want %g", i, j, iv, want)
 			}
@@ -76,8 +76,8 @@ func TestGramTableP1(t *testing.T) {
 		for a := 0; a < np; a++ {
 			lo, hi := 0.0, 0.0
 			for b := 0; b < np; b++ {
-				lo += g.iv[a*np+b].Lo
-				hi += g.iv[a*np+b].Hi
+				lo += g.IV[a*np+b].Lo
+				hi += g.IV[a*np+b].Hi
 			}
 			if !(lo <= want*(1+1e-14) && hi >= want*(1-1e-14)) {
 				t.Errorf("degree %d row %d sums to [%g, %g], want %g", n, a, lo, hi, want)
