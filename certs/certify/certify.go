@@ -375,7 +375,7 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 func (res *result) method() Method {
 	r, out := res.r, res.out
 	m := Method{
-		Kind:               kindInterval,
+		Kind:               KindInterval,
 		Degree:             r.degree,
 		TaylorOrder:        r.taylor,
 		Gamma:              decimalio.FormatExact(r.gamma),
@@ -384,7 +384,7 @@ func (res *result) method() Method {
 		Theorems:           theorems1D,
 	}
 	if out.polygon != nil {
-		m.Kind, m.Theorems = kindPolygon, theoremsPolygon
+		m.Kind, m.Theorems = KindPolygon, theoremsPolygon
 		m.Refinements, m.StageARefinements, m.GradedLevels = r.refine, r.stageARefine, r.graded
 		m.StageASpace = out.polygon.stageASpace
 		m.Triangles, m.StageATriangles = out.polygon.triangles, out.polygon.stageATriangles
@@ -406,4 +406,44 @@ func (res *result) method() Method {
 		}
 	}
 	return m
+}
+
+// Plan describes the first computation Certify would run on a problem:
+// the sizes of its meshes and spaces and an estimate of its peak memory
+// (larger meshes follow if the target width is not met).
+type Plan struct {
+	Kind             string
+	Degree           int
+	Cells            int // intervals: P_p cells
+	StageACells      int
+	Triangles        int // polygons: trial-mesh triangles
+	StageATriangles  int
+	StageASpace      string
+	MemoryEstimate   int64 // bytes, polygons only
+	ReentrantCorners []int
+}
+
+// FirstPlan returns the plan of the first computation of Certify.
+func FirstPlan(p *problem.Problem) (Plan, error) {
+	r, err := initialRecipe(p)
+	if err != nil {
+		return Plan{}, err
+	}
+	if p.Dim == 1 {
+		return Plan{Kind: KindInterval, Degree: r.degree, Cells: r.cells, StageACells: r.stageACells}, nil
+	}
+	m, err := polygonMesh(p, r.refine, r.graded)
+	if err != nil {
+		return Plan{}, err
+	}
+	ma, err := polygonMesh(p, r.stageARefine, r.graded)
+	if err != nil {
+		return Plan{}, err
+	}
+	space := "enriched-crouzeix-raviart"
+	if usesCR(p) {
+		space = "crouzeix-raviart"
+	}
+	return Plan{Kind: KindPolygon, Degree: r.degree, Triangles: len(m.Tris), StageATriangles: len(ma.Tris),
+		StageASpace: space, MemoryEstimate: memoryEstimate(p, r), ReentrantCorners: reentrantCorners(p)}, nil
 }

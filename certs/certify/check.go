@@ -52,7 +52,7 @@ func Check(data []byte) error {
 	if err := dec.Decode(&m); err != nil {
 		return fmt.Errorf("the method block does not parse: %w", err)
 	}
-	if (m.Kind != kindInterval || p.Dim != 1) && (m.Kind != kindPolygon || p.Dim != 2) {
+	if (m.Kind != KindInterval || p.Dim != 1) && (m.Kind != KindPolygon || p.Dim != 2) {
 		return fmt.Errorf("method kind %q does not fit a %d-dimensional problem", m.Kind, p.Dim)
 	}
 	gamma, err := decimalio.Parse(m.Gamma)

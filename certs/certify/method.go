@@ -6,7 +6,7 @@ package certify
 // its outputs, recorded so that a reader sees each stage's contribution and
 // Check can compare them.
 type Method struct {
-	Kind        string `json:"kind"`         // kindInterval or kindPolygon
+	Kind        string `json:"kind"`         // KindInterval or KindPolygon
 	Degree      int    `json:"degree"`       // p of the conforming trial space
 	TaylorOrder int    `json:"taylor_order"` // order of the Taylor models of V
 	Gamma       string `json:"gamma"`        // the shift γ, an exact float64 in exact decimal
@@ -46,10 +46,10 @@ type StageBound struct {
 	Bound string `json:"bound"`
 }
 
-// Method kinds.
+// Method kinds (the "kind" of a certificate's method).
 const (
-	kindInterval = "interval-1d"
-	kindPolygon  = "polygon-2d"
+	KindInterval = "interval-1d"
+	KindPolygon  = "polygon-2d"
 )
 
 // theorems1D are the results a 1D certificate relies on.

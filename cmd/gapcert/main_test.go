@@ -25,7 +25,7 @@ func TestValidateGood(t *testing.T) {
 	}{
 		{"square.json", []string{"polygon with 4 vertices, counterclockwise as given", "convexity:   convex", "diameter:    [1.41421356237309", "area:        1\n", "edge 3 (v3 → v0): dirichlet", "form:      polynomial"}},
 		{"clockwise_rectangle.json", []string{"the file lists it clockwise", "edge 0 (v0 → v1): robin, α = 2", "edge 3 (v3 → v0): dirichlet"}},
-		{"lshape.json", []string{"convexity:   not convex", "area:        3\n", "form:      general"}},
+		{"lshape.json", []string{"convexity:   not convex", "area:        3\n", "form:      general", "first step:  16 triangles of degree 4", "re-entrant corners at vertices [3]"}},
 		{"equilateral.json", []string{"v2 = (0.5, sqrt(3)/2 ∈ [0.86602540378443", "claim:       D^2*gap >= 64*pi^2/9"}},
 		{"interval_harmonic.json", []string{"domain:      interval (a, b)", "length:      4\n", "boundary:    left dirichlet, right dirichlet", "eigenvalues: 3", "relative width 1e-8"}},
 	} {

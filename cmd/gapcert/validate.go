@@ -10,6 +10,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"gapcert/certs/certify"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -150,6 +151,27 @@ func describe(w io.Writer, file string, p *problem.Problem) {
 		fmt.Fprintf(w, "claim:       %s\n", c)
 	}
 	fmt.Fprintf(w, "sha256:      %s\n", p.SHA256())
+	describePlan(w, p)
+}
+
+// describePlan prints the sizes of the first computation certify would run.
+func describePlan(w io.Writer, p *problem.Problem) {
+	plan, err := certify.FirstPlan(p)
+	if err != nil {
+		fmt.Fprintf(w, "first step:  cannot be planned: %v\n", err)
+		return
+	}
+	if plan.Kind == certify.KindInterval {
+		fmt.Fprintf(w, "first step:  %d cells of degree %d (Ritz, Lehmann–Goerisch); %d cells of mean-preserving P2 (projection bound)\n",
+			plan.Cells, plan.Degree, plan.StageACells)
+		return
+	}
+	fmt.Fprintf(w, "first step:  %d triangles of degree %d (Ritz); %d triangles of %s (projection bound), about %.1f MiB\n",
+		plan.Triangles, plan.Degree, plan.StageATriangles, plan.StageASpace, float64(plan.MemoryEstimate)/(1<<20))
+	if len(plan.ReentrantCorners) > 0 {
+		fmt.Fprintf(w, "             re-entrant corners at vertices %v: meshes are graded toward them as they are refined\n", plan.ReentrantCorners)
+	}
+	fmt.Fprintln(w, "             (finer meshes follow until the target width is met)")
 }
 
 func sortedKeys(m map[string]problem.Number) []string {
