@@ -56,6 +56,7 @@ type outcome struct {
 type polygonRecord struct {
 	stageASpace                string
 	triangles, stageATriangles int
+	stageAUnknowns             int
 }
 
 // extraIndices is how many eigenvalues past the requested ones are bounded,

@@ -64,6 +64,7 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 		proj, out.polygon.stageASpace = tri.NewECR(ma, bcs), "enriched-crouzeix-raviart"
 	}
 	out.polygon.triangles, out.polygon.stageATriangles = len(m.Tris), len(ma.Tris)
+	out.polygon.stageAUnknowns = proj.N()
 	k, mass, mMin, err := proj.Matrices(potA, gamma)
 	if err != nil {
 		return nil, err
