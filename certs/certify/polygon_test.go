@@ -66,6 +66,9 @@ func TestRectangles(t *testing.T) {
 		for k := 1; k <= 3; k++ {
 			requireBig(t, fmt.Sprintf("%s lambda%d", src, k), eigenEnclosure(t, c, k), truth[k-1], 1, 2e-2)
 		}
+		// The gap, also where λ2 = λ3 (the square).
+		gap, _ := c.Results.Gap.Interval()
+		requireBig(t, src+" gap", gap, new(big.Float).SetPrec(oraclePrec).Sub(truth[1], truth[0]), 1, 5e-2)
 	}
 }
 
