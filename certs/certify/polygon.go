@@ -2,6 +2,7 @@ package certify
 
 import (
 	"fmt"
+	"math"
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
@@ -76,14 +77,29 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 	out.stageA = make([]float64, want+1)
 	counter := sparse.NewCounter(k, mass)
+	c := proj.CRShift(potA, gamma) // 0 for ECR
 	prev := 0.0
 	for i := range out.stageA {
 		lh := verifiedSparseLower(counter, mMin, approx[i], prev, i+1)
 		prev = lh
-		out.stageA[i] = enclose.ProjectionLower(lh, out.ch)
+		out.stageA[i] = shiftedProjectionLower(lh, c, out.ch)
 	}
 	out.notes = append(out.notes, "lower bounds on polygons come from the projection bound (stage A) only")
 	return out, nil
+}
+
+// shiftedProjectionLower returns a float ≤ c + f(Λ_h − c) for every
+// Λ_h ≥ lh, f(x) = x/(1 + C²x) with C ∈ ch: the CR pencil's eigenvalues
+// are μ_h + c with μ_h ≥ 0 those of the Laplacian part, and Λ ≥ c + f(μ_h)
+// (fem/tri, Projection.Matrices). As g(c) = c + f(lh − c) increases in c
+// (f′ ≤ 1), any 0 ≤ c ≤ the form's constant is sound, and c = 0 is the
+// plain bound f(Λ_h) used for ECR.
+func shiftedProjectionLower(lh, c float64, ch interval.I) float64 {
+	if c == 0 {
+		return enclose.ProjectionLower(lh, ch)
+	}
+	mu := math.Max(interval.SubDown(lh, c), 0)
+	return interval.AddDown(enclose.ProjectionLower(mu, ch), c)
 }
 
 // verifiedSparseLower returns a float ℓ ≥ lo with λ_{h,index} ≥ ℓ for every

@@ -212,3 +212,14 @@ func TestPolygonSoundnessSweep(t *testing.T) {
 	}
 	t.Logf("%d polygon problems, %d misses", count, misses)
 }
+
+// TestLargeConstantPotential: V ≡ 1000 on the unit square, Dirichlet:
+// λ_k = 1000 + (Laplacian eigenvalues 2π², 5π², 5π²) (common practice). The
+// shifted CR bound keeps the enclosure as narrow as for V = 0.
+func TestLargeConstantPotential(t *testing.T) {
+	_, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"1000","boundary":"dirichlet","eigenvalues":2}`, 1e-3)
+	for k, m := range []float64{2, 5} {
+		truth := interval.Pi().Sqr().MulF(m).AddF(1000)
+		requireEnclosure(t, fmt.Sprintf("lambda%d", k+1), eigenEnclosure(t, c, k+1), truth, 1, 1e-3)
+	}
+}

@@ -472,6 +472,22 @@ func choleskyPositive(mt [4][4]interval.I, keep []int, t float64) bool {
 // from its power series in math/big).
 const besselJ11Lower = 3.8317
 
+// CRShift returns the constant c = min_T c_T of the CR form a_h of
+// Matrices (c_T the lower end of Range_T(V) + γ), computed exactly as
+// Matrices computes it, so that a caller may use the sharper bound
+// c + f(μ_(h,k)) with μ_(h,k) ≥ (lower bound of the k-th eigenvalue of
+// (k, mass)) − c. It returns 0 for ECR, whose form has no such term.
+func (s *Projection) CRShift(v *Potential, gamma interval.I) float64 {
+	if s.enriched {
+		return 0
+	}
+	c := math.Inf(1)
+	for t := range s.mesh.Tris {
+		c = math.Min(c, v.Range(t).Add(gamma).Lo)
+	}
+	return math.Max(c, 0)
+}
+
 // ProjectionConstant returns an interval whose upper end is ≥ C_h =
 // max_T C_T, C_T the constant of (H3) on T, for the exact mesh (the lower
 // end is the same formula from the lower ends of the edge lengths).
