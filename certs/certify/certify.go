@@ -147,29 +147,70 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	}
 	d := p.Diameter()
 	scale := interval.Pi().Sqr().Div(d.Sqr()) // π²/D²
-	g := interval.Point(0).Max(vr.Neg()).Add(scale).Hi
-	if math.IsInf(g, 0) || math.IsNaN(g) || !(scale.Lo > 0) {
-		return recipe{}, fmt.Errorf("certify: the domain's size (diameter %v) or the potential's range %v is outside what float64 can handle", d, vr)
+	if !(scale.Lo > 0) || !scale.IsBounded() {
+		return recipe{}, fmt.Errorf("certify: the domain's size (diameter %v) is outside what float64 can handle", d)
 	}
 	taylor := modelOrder
 	if poly, ok := p.Potential.Polynomial(); ok {
 		taylor = max(poly.Degree(), 1) // exact model
 	}
+	r := recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, scale: scale.Lo}
 	if p.Dim == 2 {
-		return recipe{degree: 4, taylor: min(taylor, polygonModelOrder), gamma: roundShift(g), scale: scale.Lo,
-			refine: 1, stageARefine: 3}, nil
+		r = recipe{degree: 4, taylor: min(taylor, polygonModelOrder), scale: scale.Lo, refine: 1, stageARefine: 3}
 	}
-	return recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, gamma: roundShift(g), scale: scale.Lo}, nil
+	// inf V ≥ both the enclosure over the domain and the least cell
+	// enclosure over the first stage-A mesh (the cells tile the domain);
+	// the larger one is the tighter bound.
+	inf := vr.Lo
+	if cells, err := cellLowerBound(p, r); err == nil {
+		inf = math.Max(inf, cells)
+	}
+	g := interval.Point(0).Max(interval.Point(inf).Neg()).Add(scale).Hi
+	if math.IsInf(g, 0) || math.IsNaN(g) {
+		return recipe{}, fmt.Errorf("certify: the potential's range %v is outside what float64 can handle", vr)
+	}
+	r.gamma = roundShift(g)
+	return r, nil
 }
 
-// roundShift returns a float ≥ g with a short binary expansion (so that the
-// certificate's γ is readable); any float ≥ g is sound.
+// cellLowerBound returns min over the cells (triangles) of the first
+// stage-A mesh of the lower end of the enclosure of V there.
+func cellLowerBound(p *problem.Problem, r recipe) (float64, error) {
+	lo := math.Inf(1)
+	if p.Dim == 1 {
+		mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)
+		pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
+		if err != nil {
+			return 0, err
+		}
+		for k := 0; k < mesh.Cells(); k++ {
+			lo = math.Min(lo, pot.Range(k).Lo)
+		}
+		return lo, nil
+	}
+	m, err := polygonMesh(p, r.stageARefine, r.graded)
+	if err != nil {
+		return 0, err
+	}
+	pot, err := tri.NewPotential(m, p.Potential, min(r.taylor, stageATaylor))
+	if err != nil {
+		return 0, err
+	}
+	for t := range m.Tris {
+		lo = math.Min(lo, pot.Range(t).Lo)
+	}
+	return lo, nil
+}
+
+// roundShift returns a float ≥ g with a 24-bit significand (so that the
+// certificate's γ is short, and γ exceeds g by less than 1e-7 relative);
+// any float ≥ g is sound.
 func roundShift(g float64) float64 {
 	if g <= 0 {
 		return 0
 	}
 	e := math.Ilogb(g)
-	unit := math.Ldexp(1, e-10)
+	unit := math.Ldexp(1, e-23)
 	return math.Ceil(g/unit) * unit
 }
 
