@@ -31,6 +31,18 @@ type Options struct {
 	Memory    int64                            // memory budget in bytes; 0 = DefaultMemory
 }
 
+// BudgetError reports a computation refused before allocation because its
+// estimated memory exceeds the budget.
+type BudgetError struct {
+	What         string
+	Need, Budget int64 // bytes
+}
+
+func (e *BudgetError) Error() string {
+	return fmt.Sprintf("%s would need about %.1f GiB, more than the memory budget of %.1f GiB (hint: ask for a coarser target or a smaller problem)",
+		e.What, float64(e.Need)/(1<<30), float64(e.Budget)/(1<<30))
+}
+
 // DefaultMemory is the memory budget when Options.Memory is 0.
 const DefaultMemory = 16 << 30
 
@@ -86,7 +98,7 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		return nil, err
 	}
 	if est := memoryEstimate(p, r); est > budget {
-		return nil, fmt.Errorf("certify: the first mesh would need about %.1f GiB, more than the budget of %.1f GiB", float64(est)/(1<<30), float64(budget)/(1<<30))
+		return nil, &BudgetError{What: "the first mesh", Need: est, Budget: budget}
 	}
 	var best *result
 	for raised := 0; ; {

@@ -67,7 +67,7 @@ func Check(data []byte) error {
 		return err
 	}
 	if est := memoryEstimate(p, r); est > DefaultMemory {
-		return fmt.Errorf("recomputing this certificate would need about %.1f GiB, more than the budget of %.1f GiB", float64(est)/(1<<30), float64(DefaultMemory)/(1<<30))
+		return &BudgetError{What: "recomputing this certificate", Need: est, Budget: DefaultMemory}
 	}
 	out, err := compute(p, r)
 	if err != nil {

@@ -163,7 +163,8 @@ func TestCheckRefusesHugeRecipe(t *testing.T) {
 	}
 	edited := strings.Replace(string(data), fmt.Sprintf(`"stage_a_refinements": %d`, m.StageARefinements), `"stage_a_refinements": 9`, 1)
 	err = Check([]byte(edited))
-	if err == nil || !strings.Contains(err.Error(), "GiB") {
+	var budget *BudgetError
+	if !errors.As(err, &budget) || !strings.Contains(err.Error(), "GiB") {
 		t.Errorf("want a refusal with a memory estimate, got %v", err)
 	}
 }

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -51,7 +52,8 @@ refined until the target relative width is reached or --time-limit is
 spent; if the target is not reached the certificate says so and records
 the widths reached (its bounds are verified either way).
 
-Exit status: 0 on success, 1 on a failure, 2 if the problem file is invalid.`,
+Exit status: 0 on success, 1 on a failure, 2 if the problem file is invalid
+or its first mesh would exceed the memory budget.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			p, err := loadProblem(args[0])
@@ -83,7 +85,11 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
 	}
 	c, err := certify.Certify(p, opt)
-	if err != nil {
+	var budget *certify.BudgetError
+	switch {
+	case errors.As(err, &budget):
+		return &exitError{code: exitInvalid, err: err}
+	case err != nil:
 		return &exitError{code: exitFailure, err: err}
 	}
 	data, err := c.Marshal()

@@ -20,8 +20,9 @@ from the recorded problem and method with the same deterministic code, and
 demands that the recomputation reproduce every recorded bound, stage bound
 and claim verdict digit for digit.
 
-Exit status: 0 if the certificate verifies, 1 if it cannot be read, 3 if it
-does not verify (each difference is listed).`,
+Exit status: 0 if the certificate verifies, 1 if it cannot be read, 2 if
+recomputing it would exceed the memory budget (refused before allocating),
+3 if it does not verify (each difference is listed).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			data, err := os.ReadFile(args[0])
@@ -30,7 +31,10 @@ does not verify (each difference is listed).`,
 			}
 			err = certify.Check(data)
 			var mm *certify.MismatchError
+			var budget *certify.BudgetError
 			switch {
+			case errors.As(err, &budget):
+				return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", args[0], err)}
 			case errors.As(err, &mm):
 				return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", args[0], err)}
 			case err != nil:
