@@ -46,10 +46,11 @@ func (e *BudgetError) Error() string {
 // DefaultMemory is the memory budget when Options.Memory is 0.
 const DefaultMemory = 16 << 30
 
-// bytesPerUnknown is the measured peak memory per stage-A unknown of a
-// polygon computation (sparse LDLᵀ plus its interval residual: 2.4 GiB at
-// 10⁶ unknowns), with a margin.
-const bytesPerUnknown = 3000
+// bytesPerUnknown is the peak memory per stage-A unknown of a polygon
+// computation: measured 3.3 GiB of heap at 1.3·10⁶ unknowns (about 2,700
+// bytes each; BenchmarkPolygonStageA), with a margin for the garbage
+// collector's headroom.
+const bytesPerUnknown = 5000
 
 // memoryEstimate estimates the peak memory of a recipe before anything is
 // allocated (polygons only; interval problems are small).
