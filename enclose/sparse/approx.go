@@ -2,6 +2,7 @@ package sparse
 
 import (
 	"errors"
+	"gapcert/enclose/internal/converge"
 	"gapcert/enclose/internal/geneig"
 	"math"
 	"math/rand/v2"
@@ -244,8 +245,8 @@ func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 	}
 	s.mOrthonormalize(s.x, s.mx, 0)
 	theta := make([]float64, p)
-	best := math.Inf(1)
-	stall := 0
+	mon := converge.Monitor{Tol: residualTol, Accept: acceptTol}
+iterate:
 	for it := 0; it < maxIter; it++ {
 		// Block Krylov basis y = [Op x, Op² x, …], Op = (K − σM)⁻¹ M,
 		// each block computed from the M-orthonormalized previous one.
@@ -261,41 +262,17 @@ func subspaceLowest(k, m *Sym, count, p int) ([]float64, [][]float64, error) {
 		if err := s.rayleighRitz(theta); err != nil {
 			return nil, nil, err
 		}
-		worst := 0.0
-		for c := 0; c < count; c++ {
-			res := 0.0
-			for i := 0; i < n; i++ {
-				r := s.kx[c][i] - theta[c]*s.mx[c][i]
-				res += r * r
-			}
-			rel := math.Sqrt(res) / ((normK + math.Abs(theta[c])*normM) * math.Sqrt(dot(s.x[c], s.x[c])))
-			worst = math.Max(worst, rel)
-		}
-		if worst <= residualTol {
-			break
-		}
-		if worst < 0.5*best {
-			best, stall = worst, 0
-		} else if stall++; stall >= 8 {
-			if worst <= acceptTol || best <= acceptTol {
-				break
-			}
+		worst := converge.WorstResidual(s.x[:count], s.kx[:count], s.mx[:count], theta, normK, normM)
+		switch mon.Observe(worst, it == maxIter-1) {
+		case converge.Converged:
+			break iterate
+		case converge.Failed:
 			return nil, nil, ErrNotConverged
 		}
-		if it == maxIter-1 {
-			if worst <= acceptTol {
-				break
-			}
-			return nil, nil, ErrNotConverged
-		}
-		// Move the shift towards the lowest Ritz value while it is far
-		// compared with the spread of the wanted Ritz values.
-		spread := theta[p-1] - theta[0]
-		if gap := theta[0] - sigma; gap > 0.1*spread {
-			try := theta[0] - math.Max(0.05*spread, 0.5*gap)
+		if try, ok := converge.NextShift(theta[:p], sigma); ok {
 			if s.factorShift(try) {
 				sigma = try
-				stall = 0 // a moved shift is progress of its own
+				mon.ShiftMoved()
 			} else if !s.factorShift(sigma) {
 				return nil, nil, ErrNotConverged
 			}
