@@ -69,7 +69,11 @@
 // eigenvalues is the number of eigenvalues to enclose, an integer from 2 to
 // 20. target.relative_width is the relative width to aim for, in (0, 1).
 // claims are inequalities "lhs REL rhs" with REL one of >=, <=, >, < and
-// formulas on both sides; only their syntax is checked here.
+// formulas on both sides; only their syntax is checked here. A claim may
+// instead name a built-in claim, "@name" (package gapcert/certs/named, e.g.
+// "@fundamental_gap"): the name must be in the catalogue (read
+// case-insensitively, '-' as '_', surrounding spaces ignored) and apply to
+// the domain's dimension, and the canonical form records it as "@name".
 //
 // # Canonical form
 //

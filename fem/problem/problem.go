@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 
+	"gapcert/certs/named"
 	"gapcert/interval"
 	"gapcert/interval/formula"
 )
@@ -632,12 +633,40 @@ func (r *reader) claims(n *node, p *Problem) {
 			r.iss.add(path, "a claim must be a string, not "+c.kind.String(), `write "gap >= 3*pi^2/D^2"`)
 			continue
 		}
+		if named.IsNamed(c.str) {
+			if text, ok := r.namedClaim(c.str, path, p.Dim); ok {
+				p.Claims = append(p.Claims, text)
+			}
+			continue
+		}
 		if msg, hint := claimSyntax(c.str); msg != "" {
 			r.iss.add(path, msg, hint)
 			continue
 		}
 		p.Claims = append(p.Claims, c.str)
 	}
+}
+
+// namedClaim checks a built-in claim "@name" (package certs/named) and
+// returns its canonical text. dim is the domain's dimension (0 if the
+// domain is invalid, and then not checked).
+func (r *reader) namedClaim(text, path string, dim int) (string, bool) {
+	c, err := named.Lookup(text)
+	if err != nil {
+		ne := err.(*named.NameError)
+		r.iss.add(path, ne.Error(), ne.Hint())
+		return "", false
+	}
+	if dim != 0 && !c.Applies(dim) {
+		where := map[int]string{1: "an interval", 2: "a polygon"}
+		var ok []string
+		for _, d := range c.Dims {
+			ok = append(ok, where[d])
+		}
+		r.iss.addf(path, "it applies to "+strings.Join(ok, " or "), "built-in claim %q does not apply to %s", c.Text(), where[dim])
+		return "", false
+	}
+	return c.Text(), true
 }
 
 // claimSyntax checks that text is "lhs REL rhs" with one relation and two

@@ -396,3 +396,21 @@ func TestIntervalDecisions(t *testing.T) {
 		t.Errorf("below: %v", err)
 	}
 }
+
+// TestBuiltinClaimCanonical: a built-in claim may be spelt with upper case,
+// '-' for '_' and surrounding spaces; the canonical form records
+// "@name", and the canonical text parses back to itself.
+func TestBuiltinClaimCanonical(t *testing.T) {
+	p, err := Parse([]byte(`{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":"dirichlet","claims":[" @Triangle-Gap ","gap >= 1","@fundamental_gap"]}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []string{"@triangle_gap", "gap >= 1", "@fundamental_gap"}
+	if strings.Join(p.Claims, "|") != strings.Join(want, "|") {
+		t.Errorf("claims %q, want %q", p.Claims, want)
+	}
+	q, err := Parse(p.Canonical())
+	if err != nil || string(q.Canonical()) != string(p.Canonical()) {
+		t.Errorf("canonical round trip: %v", err)
+	}
+}

@@ -1,0 +1,184 @@
+package named
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+)
+
+// Prefix marks a built-in claim in a problem's claims list.
+const Prefix = "@"
+
+// Hypothesis names (the names certs/hypothesis decides).
+const (
+	DirichletBoundary = "dirichlet_boundary" // u = 0 on every side
+	NeumannBoundary   = "neumann_boundary"   // ∂u/∂n = 0 on every side
+	RobinBoundary     = "robin_boundary"     // ∂u/∂n + αu = 0 on every side, one α
+	ConvexDomain      = "convex_domain"
+	ConvexPotential   = "convex_potential"
+	ZeroPotential     = "zero_potential" // V ≡ 0
+	Triangle          = "triangle"
+	Rectangle         = "rectangle"
+)
+
+// RobinIntervalGap is the reference quantity of RobinComparison: the gap of
+// −u″ on the interval (0, D), D the diameter of the domain, with the
+// domain's Robin coefficient α at both ends.
+const RobinIntervalGap = "robin_interval_gap"
+
+// Claim is one built-in claim.
+type Claim struct {
+	Name       string // without Prefix
+	Inequality string // "lhs REL rhs" over certified quantities
+	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon)
+	Hypotheses []string
+	// Reference is the name of a quantity used in Inequality that is
+	// certified by a separate computation ("" if none).
+	Reference string
+	Source    string // the theorem, or the conjecture and where it is proved
+}
+
+// Text returns the claim as written in a problem file ("@name").
+func (c Claim) Text() string { return Prefix + c.Name }
+
+// Applies reports whether the claim applies to domains of dimension dim.
+func (c Claim) Applies(dim int) bool { return slices.Contains(c.Dims, dim) }
+
+// catalogue lists the built-in claims.
+var catalogue = []Claim{
+	// B. Andrews and J. Clutterbuck, Proof of the fundamental gap
+	// conjecture, J. Amer. Math. Soc. 24 (2011) 899–916: for a bounded
+	// convex domain of diameter D with Dirichlet conditions and a convex
+	// potential V, λ2 − λ1 ≥ 3π²/D². In one dimension: R. Lavine, The
+	// eigenvalue gap for one-dimensional convex potentials, Proc. Amer.
+	// Math. Soc. 121 (1994) 815–821.
+	{
+		Name:       "fundamental_gap",
+		Inequality: "gap >= 3*pi^2/D^2",
+		Dims:       []int{1, 2},
+		Hypotheses: []string{DirichletBoundary, ConvexDomain, ConvexPotential},
+		Source:     "B. Andrews and J. Clutterbuck, Proof of the fundamental gap conjecture, J. Amer. Math. Soc. 24 (2011) 899–916; in one dimension R. Lavine, Proc. Amer. Math. Soc. 121 (1994) 815–821",
+	},
+	// Z. Lu and J. Rowlett, The fundamental gap of simplices, Comm. Math.
+	// Phys. 319 (2013) 111–145: for a triangle of diameter D with
+	// Dirichlet conditions and V = 0, D²(λ2 − λ1) ≥ 64π²/9, with equality
+	// exactly for the equilateral triangle.
+	{
+		Name:       "triangle_gap",
+		Inequality: "D^2*gap >= 64*pi^2/9",
+		Dims:       []int{2},
+		Hypotheses: []string{DirichletBoundary, Triangle, ZeroPotential},
+		Source:     "Z. Lu and J. Rowlett, The fundamental gap of simplices, Comm. Math. Phys. 319 (2013) 111–145",
+	},
+	// L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for
+	// convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292: for a
+	// bounded convex domain of diameter D, the first nonzero Neumann
+	// eigenvalue of −Δ (λ2, since λ1 = 0) is at least π²/D².
+	{
+		Name:       "payne_weinberger",
+		Inequality: "lambda2 >= pi^2/D^2",
+		Dims:       []int{1, 2},
+		Hypotheses: []string{NeumannBoundary, ConvexDomain, ZeroPotential},
+		Source:     "L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292",
+	},
+	// The Robin gap conjecture: for a bounded convex domain of diameter D
+	// and Robin coefficient α, the gap of −Δ is at least the gap of the
+	// interval (0, D) with the same α at both ends ("the line segment
+	// minimizes the Robin spectral gap under diameter normalization").
+	// Open for convex polygons; proved for rectangular boxes by R. S.
+	// Laugesen, The Robin Laplacian — spectral conjectures, rectangular
+	// theorems, arXiv:1905.07658 (2019).
+	{
+		Name:       "robin_comparison",
+		Inequality: "gap >= " + RobinIntervalGap,
+		Dims:       []int{2},
+		Hypotheses: []string{RobinBoundary, ZeroPotential, ConvexDomain, Rectangle},
+		Reference:  RobinIntervalGap,
+		Source:     "the Robin gap conjecture for convex domains (open); proved for rectangles by R. S. Laugesen, The Robin Laplacian — spectral conjectures, rectangular theorems, arXiv:1905.07658",
+	},
+}
+
+// All returns the catalogue in a fixed order. The caller must not modify
+// the entries' slices.
+func All() []Claim { return slices.Clone(catalogue) }
+
+// Names returns the texts ("@name") of every built-in claim.
+func Names() []string {
+	out := make([]string, len(catalogue))
+	for i, c := range catalogue {
+		out[i] = c.Text()
+	}
+	return out
+}
+
+// IsNamed reports whether a claim text names a built-in claim (starts with
+// Prefix after leading spaces).
+func IsNamed(text string) bool { return strings.HasPrefix(strings.TrimSpace(text), Prefix) }
+
+// NameError reports a built-in claim name that is not in the catalogue.
+type NameError struct {
+	Text    string
+	Nearest string // a catalogue text within a small edit distance, or ""
+}
+
+func (e *NameError) Error() string {
+	return fmt.Sprintf("unknown built-in claim %q", e.Text)
+}
+
+// Hint suggests a correction.
+func (e *NameError) Hint() string {
+	if e.Nearest != "" {
+		return fmt.Sprintf("did you mean %q?", e.Nearest)
+	}
+	return "built-in claims: " + strings.Join(Names(), ", ")
+}
+
+// Lookup returns the built-in claim a text names: the text after Prefix,
+// with surrounding spaces removed, upper case read as lower case and '-' as
+// '_'. It returns a *NameError if there is none.
+func Lookup(text string) (Claim, error) {
+	key := normalise(text)
+	for _, c := range catalogue {
+		if c.Name == key {
+			return c, nil
+		}
+	}
+	e := &NameError{Text: text}
+	best := 3
+	for _, c := range catalogue {
+		if d := editDistance(key, c.Name); d < best {
+			e.Nearest, best = c.Text(), d
+		}
+	}
+	return Claim{}, e
+}
+
+func normalise(text string) string {
+	s := strings.TrimSpace(text)
+	s = strings.TrimPrefix(s, Prefix)
+	s = strings.TrimSpace(s)
+	return strings.ReplaceAll(strings.ToLower(s), "-", "_")
+}
+
+func editDistance(a, b string) int {
+	if len(a) > 64 || len(b) > 64 {
+		return 1 << 30
+	}
+	prev := make([]int, len(b)+1)
+	cur := make([]int, len(b)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(a); i++ {
+		cur[0] = i
+		for j := 1; j <= len(b); j++ {
+			c := prev[j-1]
+			if a[i-1] != b[j-1] {
+				c++
+			}
+			cur[j] = min(c, prev[j]+1, cur[j-1]+1)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(b)]
+}

@@ -1,0 +1,63 @@
+package named
+
+import (
+	"errors"
+	"slices"
+	"testing"
+
+	"gapcert/certs"
+)
+
+// TestCatalogueInequalities: every inequality parses as a claim and names
+// only standard quantities or the claim's own reference; names are unique.
+func TestCatalogueInequalities(t *testing.T) {
+	seen := map[string]bool{}
+	for _, c := range All() {
+		if seen[c.Name] {
+			t.Errorf("duplicate name %q", c.Name)
+		}
+		seen[c.Name] = true
+		cl, err := certs.ParseClaim(c.Inequality)
+		if err != nil {
+			t.Errorf("%s: %v", c.Name, err)
+			continue
+		}
+		var extra []string
+		if c.Reference != "" {
+			extra = []string{c.Reference}
+		}
+		if err := cl.Check(extra); err != nil {
+			t.Errorf("%s: %v", c.Name, err)
+		}
+		if c.Reference != "" && !slices.Contains(cl.Vars(), c.Reference) {
+			t.Errorf("%s: reference %q unused", c.Name, c.Reference)
+		}
+		if len(c.Hypotheses) == 0 || len(c.Dims) == 0 || c.Source == "" {
+			t.Errorf("%s: incomplete entry", c.Name)
+		}
+	}
+}
+
+func TestLookup(t *testing.T) {
+	for _, text := range []string{"@fundamental_gap", " @Fundamental-Gap ", "@ fundamental_gap"} {
+		c, err := Lookup(text)
+		if err != nil || c.Text() != "@fundamental_gap" {
+			t.Errorf("Lookup(%q) = %q, %v", text, c.Text(), err)
+		}
+	}
+	_, err := Lookup("@fundamental_gapp")
+	var ne *NameError
+	if !errors.As(err, &ne) || ne.Nearest != "@fundamental_gap" {
+		t.Errorf("near miss: %v", err)
+	}
+	_, err = Lookup("@spectral_magic")
+	if !errors.As(err, &ne) || ne.Nearest != "" || ne.Hint() == "" {
+		t.Errorf("unknown: %v", err)
+	}
+	if c, _ := Lookup("@triangle_gap"); c.Applies(1) || !c.Applies(2) {
+		t.Errorf("triangle_gap dimensions %v", c.Dims)
+	}
+	if !IsNamed("  @x") || IsNamed("gap >= 1") {
+		t.Errorf("IsNamed")
+	}
+}
