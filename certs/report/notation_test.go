@@ -81,7 +81,7 @@ func TestShortenRejects(t *testing.T) {
 // randomDecimal returns a decimal string with 1–19 significant digits and
 // a decimal exponent in [−40, 40], in plain or scientific notation.
 func randomDecimal(rng *rand.Rand) string {
-	n := rng.Uint64N(10_000_000_000_000_000_000 - 1) >> rng.UintN(64)
+	n := rng.Uint64N(10_000_000_000_000_000_000-1) >> rng.UintN(64)
 	s := strconv.FormatUint(n, 10)
 	if rng.IntN(2) == 0 {
 		s = "-" + s
