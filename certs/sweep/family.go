@@ -1,0 +1,566 @@
+package sweep
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math/big"
+	"strings"
+	"time"
+
+	"gapcert/fem/problem"
+	"gapcert/interval/decimalio"
+)
+
+// Limits of a family file.
+const (
+	// MaxPoints bounds the number of points of a family.
+	MaxPoints = 100000
+	// maxNumberText bounds the text of one parameter value.
+	maxNumberText = 400
+	// maxFamilyFile bounds the size of a family file.
+	maxFamilyFile = 1 << 20
+)
+
+// Family is a validated family file: a problem template and the parameter
+// grid it is expanded over.
+type Family struct {
+	Name string
+	// SHA256 is the hex SHA-256 of the family file's bytes.
+	SHA256 string
+	// Params are the swept parameters in expansion order.
+	Params []Param
+	// RelWidth is the relative width target of every point ("" = each
+	// problem's own target), TimeLimit the refinement budget of every
+	// point (0 = the certification default).
+	RelWidth  string
+	TimeLimit time.Duration
+	// Points are all points of the family in expansion order.
+	Points []*FamilyPoint
+
+	data []byte // the family file as read
+}
+
+// Param is one swept parameter and its exact values.
+type Param struct {
+	Name   string
+	Values []*big.Rat
+}
+
+// FamilyPoint is one expanded point: the parameter values and the parsed
+// problem they give.
+type FamilyPoint struct {
+	Index int
+	// Values are the exact values, one per parameter of the family.
+	Values []*big.Rat
+	// Problem is the template with the values substituted, parsed by
+	// problem.Parse.
+	Problem *problem.Problem
+}
+
+// ParamText returns the point's parameter values as exact text (see
+// problem.RatText), keyed by name.
+func (f *Family) ParamText(pt *FamilyPoint) map[string]string {
+	m := make(map[string]string, len(f.Params))
+	for i, p := range f.Params {
+		m[p.Name] = problem.RatText(pt.Values[i])
+	}
+	return m
+}
+
+// ParamNames returns the parameter names in expansion order.
+func (f *Family) ParamNames() []string {
+	names := make([]string, len(f.Params))
+	for i, p := range f.Params {
+		names[i] = p.Name
+	}
+	return names
+}
+
+// InvalidError reports an invalid family file (or another invalid input of
+// a sweep, such as a shard text): every defect found, each with its JSON
+// path and a hint. Nothing has been computed or written when it is
+// returned.
+type InvalidError struct {
+	Issues []problem.Issue
+}
+
+func (e *InvalidError) Error() string {
+	lines := make([]string, len(e.Issues))
+	for i, is := range e.Issues {
+		lines[i] = is.String()
+	}
+	return strings.Join(lines, "\n")
+}
+
+func invalid(path, msg, hint string) *InvalidError {
+	return &InvalidError{Issues: []problem.Issue{{Path: path, Msg: msg, Hint: hint}}}
+}
+
+// familyFile is the layout of a family file.
+type familyFile struct {
+	Name          string            `json:"name"`
+	Template      json.RawMessage   `json:"template"`
+	Parameters    []json.RawMessage `json:"parameters"`
+	Claims        []string          `json:"claims"`
+	RelativeWidth json.RawMessage   `json:"relative_width"`
+	TimeLimit     *string           `json:"time_limit"`
+}
+
+type paramFile struct {
+	Name   string            `json:"name"`
+	Range  *rangeFile        `json:"range"`
+	Values []json.RawMessage `json:"values"`
+}
+
+type rangeFile struct {
+	Lo    json.RawMessage `json:"lo"`
+	Hi    json.RawMessage `json:"hi"`
+	Count *int            `json:"count"`
+}
+
+// ParseFamily reads and validates a family file and expands it (see the
+// package documentation for the format and the expansion order). Every
+// point's problem is parsed strictly; the first defect of each kind is
+// reported. Errors are *InvalidError.
+func ParseFamily(data []byte) (*Family, error) {
+	if len(data) > maxFamilyFile {
+		return nil, invalid("", fmt.Sprintf("file too large (%d bytes, at most %d)", len(data), maxFamilyFile), "a family file is a few kilobytes")
+	}
+	if err := checkStrictJSON(data); err != nil {
+		return nil, invalid("", err.Error(), "the file must be one JSON object without duplicate keys")
+	}
+	var ff familyFile
+	if err := decodeStrict(data, &ff); err != nil {
+		return nil, invalid("", err.Error(), "allowed keys: name, template, parameters, claims, relative_width, time_limit")
+	}
+	sum := sha256.Sum256(data)
+	f := &Family{Name: ff.Name, SHA256: hex.EncodeToString(sum[:]), data: append([]byte(nil), data...)}
+	var iss []problem.Issue
+	add := func(path, msg, hint string) { iss = append(iss, problem.Issue{Path: path, Msg: msg, Hint: hint}) }
+
+	template, fixed := readTemplate(ff.Template, add)
+	if len(ff.Parameters) == 0 {
+		add("parameters", "no parameters to sweep", `write "parameters": [{"name": "a", "range": {"lo": "0", "hi": "1", "count": 5}}]`)
+	}
+	seen := map[string]bool{}
+	total := 1
+	for i, raw := range ff.Parameters {
+		p, ok := readParam(raw, fmt.Sprintf("parameters[%d]", i), add)
+		if !ok {
+			continue
+		}
+		path := fmt.Sprintf("parameters[%d].name", i)
+		switch {
+		case seen[p.Name]:
+			add(path, fmt.Sprintf("parameter %q is swept twice", p.Name), "list each parameter once")
+			continue
+		case fixed[p.Name]:
+			add(path, fmt.Sprintf("parameter %q is also fixed in template.parameters", p.Name), "remove it from one of the two")
+			continue
+		}
+		seen[p.Name] = true
+		f.Params = append(f.Params, p)
+		if total *= len(p.Values); total > MaxPoints {
+			add("parameters", fmt.Sprintf("the grid has more than %d points", MaxPoints), "use fewer values or split the family")
+			return nil, &InvalidError{Issues: iss}
+		}
+	}
+	for i, c := range ff.Claims {
+		if strings.TrimSpace(c) == "" {
+			add(fmt.Sprintf("claims[%d]", i), "empty claim", `write a claim such as "gap >= 3*pi^2/D^2"`)
+		}
+	}
+	if len(ff.RelativeWidth) > 0 {
+		w, err := numberText(ff.RelativeWidth)
+		if err == nil {
+			var r *big.Rat
+			r, err = decimalio.ParseRat(w)
+			if err == nil && (r.Sign() <= 0 || r.Cmp(big.NewRat(1, 1)) >= 0) {
+				err = errors.New("must lie in (0, 1)")
+			}
+		}
+		if err != nil {
+			add("relative_width", err.Error(), `write "relative_width": "0.05"`)
+		} else {
+			f.RelWidth = w
+		}
+	}
+	if ff.TimeLimit != nil {
+		d, err := time.ParseDuration(*ff.TimeLimit)
+		if err != nil || d <= 0 {
+			add("time_limit", fmt.Sprintf("%q is not a positive duration", *ff.TimeLimit), `write "time_limit": "30s"`)
+		} else {
+			f.TimeLimit = d
+		}
+	}
+	if len(iss) > 0 || template == nil {
+		return nil, &InvalidError{Issues: iss}
+	}
+	if iss = f.expand(template, ff.Claims); len(iss) > 0 {
+		return nil, &InvalidError{Issues: iss}
+	}
+	return f, nil
+}
+
+// readTemplate checks that the template is a JSON object and returns its
+// keys with the names of its fixed parameters.
+func readTemplate(raw json.RawMessage, add func(path, msg, hint string)) (map[string]json.RawMessage, map[string]bool) {
+	if len(raw) == 0 {
+		add("template", "missing template", `write "template": {"domain": …, "boundary": …} with the swept parameters used by name`)
+		return nil, nil
+	}
+	var t map[string]json.RawMessage
+	if err := json.Unmarshal(raw, &t); err != nil || t == nil {
+		add("template", "the template must be a problem object", `write "template": {"domain": …, "boundary": …}`)
+		return nil, nil
+	}
+	fixed := map[string]bool{}
+	if pr, ok := t["parameters"]; ok {
+		var m map[string]json.RawMessage
+		if err := json.Unmarshal(pr, &m); err != nil || m == nil {
+			add("template.parameters", "parameters must be an object", `write "parameters": {"k": "2"}`)
+			return nil, nil
+		}
+		for k := range m {
+			fixed[k] = true
+		}
+	}
+	return t, fixed
+}
+
+// readParam reads one entry of "parameters": a name and either a range
+// (lo, hi, count: count evenly spaced exact values lo + k(hi − lo)/(count − 1),
+// or lo alone when count = 1 and lo = hi) or an explicit list of distinct
+// exact values.
+func readParam(raw json.RawMessage, path string, add func(path, msg, hint string)) (Param, bool) {
+	var pf paramFile
+	if err := decodeStrict(raw, &pf); err != nil {
+		add(path, err.Error(), `write {"name": "a", "range": {"lo": "0", "hi": "1", "count": 5}} or {"name": "a", "values": ["0", "1/2"]}`)
+		return Param{}, false
+	}
+	if pf.Name == "" {
+		add(path+".name", "missing parameter name", `write "name": "a"`)
+		return Param{}, false
+	}
+	p := Param{Name: pf.Name}
+	switch {
+	case pf.Range != nil && pf.Values != nil:
+		add(path, "both a range and a list of values", "give exactly one of them")
+		return Param{}, false
+	case pf.Range != nil:
+		vals, ok := readRange(pf.Range, path+".range", add)
+		if !ok {
+			return Param{}, false
+		}
+		p.Values = vals
+	case pf.Values != nil:
+		if len(pf.Values) == 0 {
+			add(path+".values", "empty list of values", "give at least one value")
+			return Param{}, false
+		}
+		seen := map[string]bool{}
+		for i, v := range pf.Values {
+			vp := fmt.Sprintf("%s.values[%d]", path, i)
+			r, ok := readRat(v, vp, add)
+			if !ok {
+				return Param{}, false
+			}
+			if key := r.RatString(); seen[key] {
+				add(vp, fmt.Sprintf("value %s is listed twice", problem.RatText(r)), "list each value once")
+				return Param{}, false
+			} else {
+				seen[key] = true
+			}
+			p.Values = append(p.Values, r)
+		}
+	default:
+		add(path, "neither a range nor a list of values", `add "range": {"lo": "0", "hi": "1", "count": 5} or "values": ["0", "1/2"]`)
+		return Param{}, false
+	}
+	return p, true
+}
+
+func readRange(r *rangeFile, path string, add func(path, msg, hint string)) ([]*big.Rat, bool) {
+	if len(r.Lo) == 0 || len(r.Hi) == 0 || r.Count == nil {
+		add(path, "a range needs lo, hi and count", `write {"lo": "0", "hi": "1", "count": 5}`)
+		return nil, false
+	}
+	lo, okLo := readRat(r.Lo, path+".lo", add)
+	hi, okHi := readRat(r.Hi, path+".hi", add)
+	if !okLo || !okHi {
+		return nil, false
+	}
+	n := *r.Count
+	c := lo.Cmp(hi)
+	switch {
+	case n < 1:
+		add(path+".count", fmt.Sprintf("empty range: count is %d", n), "count is the number of values, at least 1")
+		return nil, false
+	case n > MaxPoints:
+		add(path+".count", fmt.Sprintf("count %d exceeds %d", n, MaxPoints), "use fewer values")
+		return nil, false
+	case c > 0:
+		add(path, fmt.Sprintf("empty range: lo %s is above hi %s", problem.RatText(lo), problem.RatText(hi)), "give lo ≤ hi")
+		return nil, false
+	case n == 1 && c != 0:
+		add(path+".count", "count 1 needs lo = hi", "give count ≥ 2 to span [lo, hi], or lo = hi for a single value")
+		return nil, false
+	case n > 1 && c == 0:
+		add(path+".count", fmt.Sprintf("count %d values of the one-point range [%s, %s]", n, problem.RatText(lo), problem.RatText(hi)), "give lo < hi, or count 1")
+		return nil, false
+	}
+	if n == 1 {
+		return []*big.Rat{lo}, true
+	}
+	step := new(big.Rat).Sub(hi, lo)
+	step.Quo(step, big.NewRat(int64(n-1), 1))
+	vals := make([]*big.Rat, n)
+	for k := range vals {
+		v := new(big.Rat).Mul(step, big.NewRat(int64(k), 1))
+		vals[k] = v.Add(v, lo)
+	}
+	vals[n-1] = new(big.Rat).Set(hi)
+	return vals, true
+}
+
+// readRat reads an exact rational written as a JSON number or string.
+func readRat(raw json.RawMessage, path string, add func(path, msg, hint string)) (*big.Rat, bool) {
+	s, err := numberText(raw)
+	if err == nil {
+		var r *big.Rat
+		if r, err = decimalio.ParseRat(s); err == nil {
+			return r, true
+		}
+	}
+	add(path, err.Error(), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")
+	return nil, false
+}
+
+// numberText returns the text of a JSON number or string.
+func numberText(raw json.RawMessage) (string, error) {
+	raw = bytes.TrimSpace(raw)
+	var s string
+	switch {
+	case len(raw) > 0 && raw[0] == '"':
+		if err := json.Unmarshal(raw, &s); err != nil {
+			return "", err
+		}
+	case len(raw) > 0 && (raw[0] == '-' || '0' <= raw[0] && raw[0] <= '9'):
+		s = string(raw)
+	default:
+		return "", fmt.Errorf("want a number, not %s", raw)
+	}
+	if len(s) > maxNumberText {
+		return "", fmt.Errorf("number too long (%d bytes, at most %d)", len(s), maxNumberText)
+	}
+	return s, nil
+}
+
+// expand builds and parses every point: the Cartesian product of the
+// parameter values with the first parameter varying slowest (point index
+// k = Σ_j i_j·Π_{l>j} n_l for value indices i_j). Point k is the template
+// with the values added to its "parameters", the family's claims appended
+// to its "claims", and its name followed by the values
+// ("name [a=1/2, b=0.3]"). It returns the distinct defects found, each
+// with the first point that showed it.
+func (f *Family) expand(template map[string]json.RawMessage, claims []string) []problem.Issue {
+	total := 1
+	for _, p := range f.Params {
+		total *= len(p.Values)
+	}
+	var iss []problem.Issue
+	seen := map[string]bool{}
+	idx := make([]int, len(f.Params))
+	for k := 0; k < total; k++ {
+		rem := k
+		for j := len(f.Params) - 1; j >= 0; j-- {
+			n := len(f.Params[j].Values)
+			idx[j] = rem % n
+			rem /= n
+		}
+		pt := &FamilyPoint{Index: k}
+		for j, p := range f.Params {
+			pt.Values = append(pt.Values, p.Values[idx[j]])
+		}
+		data, err := f.pointJSON(template, claims, pt)
+		if err != nil {
+			return []problem.Issue{{Path: "template", Msg: err.Error()}}
+		}
+		prob, err := problem.Parse(data)
+		if err != nil {
+			var perr *problem.Error
+			if !errors.As(err, &perr) {
+				return []problem.Issue{{Path: "template", Msg: err.Error()}}
+			}
+			for _, is := range perr.Issues {
+				key := is.Path + "\x00" + is.Msg
+				if seen[key] {
+					continue
+				}
+				seen[key] = true
+				is.Path = strings.TrimSuffix("template."+is.Path, ".")
+				is.Msg = fmt.Sprintf("point %d (%s): %s", k, f.describe(pt), is.Msg)
+				iss = append(iss, is)
+			}
+			if len(iss) >= 20 {
+				return iss
+			}
+			continue
+		}
+		pt.Problem = prob
+		f.Points = append(f.Points, pt)
+	}
+	return iss
+}
+
+// describe returns "a=1/2, b=0.3" for a point.
+func (f *Family) describe(pt *FamilyPoint) string {
+	parts := make([]string, len(f.Params))
+	for j, p := range f.Params {
+		parts[j] = p.Name + "=" + problem.RatText(pt.Values[j])
+	}
+	return strings.Join(parts, ", ")
+}
+
+// pointJSON returns the problem file of one point.
+func (f *Family) pointJSON(template map[string]json.RawMessage, claims []string, pt *FamilyPoint) ([]byte, error) {
+	obj := make(map[string]any, len(template)+2)
+	for k, v := range template {
+		obj[k] = v
+	}
+	params := map[string]json.RawMessage{}
+	if raw, ok := template["parameters"]; ok {
+		if err := json.Unmarshal(raw, &params); err != nil {
+			return nil, err
+		}
+	}
+	for j, p := range f.Params {
+		text, _ := json.Marshal(problem.RatText(pt.Values[j]))
+		params[p.Name] = text
+	}
+	obj["parameters"] = params
+	if len(claims) > 0 {
+		var all []json.RawMessage
+		if raw, ok := template["claims"]; ok {
+			if err := json.Unmarshal(raw, &all); err != nil {
+				return nil, fmt.Errorf("claims must be a list of strings")
+			}
+		}
+		for _, c := range claims {
+			text, _ := json.Marshal(c)
+			all = append(all, text)
+		}
+		obj["claims"] = all
+	}
+	name := ""
+	if raw, ok := template["name"]; ok {
+		if err := json.Unmarshal(raw, &name); err != nil {
+			return nil, fmt.Errorf("name must be a string")
+		}
+	}
+	label := "[" + f.describe(pt) + "]"
+	if name != "" {
+		label = name + " " + label
+	}
+	obj["name"] = label
+	return json.Marshal(obj)
+}
+
+// decodeStrict decodes one JSON value into v, rejecting unknown keys and
+// trailing data.
+func decodeStrict(data []byte, v any) error {
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.DisallowUnknownFields()
+	if err := dec.Decode(v); err != nil {
+		return err
+	}
+	if _, err := dec.Token(); !errors.Is(err, io.EOF) {
+		return errors.New("data after the end of the JSON value")
+	}
+	return nil
+}
+
+// checkStrictJSON checks that data is one JSON object with no duplicate
+// key in any object.
+func checkStrictJSON(data []byte) error {
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.UseNumber()
+	tok, err := dec.Token()
+	if err != nil {
+		return fmt.Errorf("not JSON: %v", err)
+	}
+	if d, ok := tok.(json.Delim); !ok || d != '{' {
+		return errors.New("the file must hold a JSON object")
+	}
+	if err := walkObject(dec, ""); err != nil {
+		return err
+	}
+	if _, err := dec.Token(); !errors.Is(err, io.EOF) {
+		return errors.New("data after the end of the JSON object")
+	}
+	return nil
+}
+
+// walkObject reads the rest of an object whose '{' was read.
+func walkObject(dec *json.Decoder, path string) error {
+	keys := map[string]bool{}
+	for dec.More() {
+		tok, err := dec.Token()
+		if err != nil {
+			return fmt.Errorf("not JSON: %v", err)
+		}
+		key := tok.(string)
+		if keys[key] {
+			return fmt.Errorf("duplicate key %q in %s", key, objectName(path))
+		}
+		keys[key] = true
+		if err := walkValue(dec, join(path, key)); err != nil {
+			return err
+		}
+	}
+	_, err := dec.Token() // '}'
+	return err
+}
+
+func walkValue(dec *json.Decoder, path string) error {
+	tok, err := dec.Token()
+	if err != nil {
+		return fmt.Errorf("not JSON: %v", err)
+	}
+	d, ok := tok.(json.Delim)
+	if !ok {
+		return nil
+	}
+	switch d {
+	case '{':
+		return walkObject(dec, path)
+	case '[':
+		for i := 0; dec.More(); i++ {
+			if err := walkValue(dec, fmt.Sprintf("%s[%d]", path, i)); err != nil {
+				return err
+			}
+		}
+		_, err := dec.Token() // ']'
+		return err
+	}
+	return nil
+}
+
+func join(path, key string) string {
+	if path == "" {
+		return key
+	}
+	return path + "." + key
+}
+
+func objectName(path string) string {
+	if path == "" {
+		return "the top-level object"
+	}
+	return path
+}

@@ -1,0 +1,243 @@
+package sweep
+
+import (
+	"errors"
+	"fmt"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"sort"
+	"strings"
+
+	"gapcert/certs"
+	"gapcert/certs/certify"
+)
+
+// StatusVerified: the point's certificate was found by Merge and verified
+// (certify.Check) there.
+const StatusVerified = "verified"
+
+// Kinds of merge issues.
+const (
+	IssueFamily    = "family"    // the directories hold different or no family files
+	IssueForeign   = "foreign"   // a certificate file that is not of a point of the family
+	IssueTampered  = "tampered"  // a certificate of a point that does not verify
+	IssueMissing   = "missing"   // a point without a certificate
+	IssueDuplicate = "duplicate" // a point with more than one certificate
+)
+
+// MergeIssue is one defect found by Merge. Index is the point (−1 when
+// the issue is not about one point), File the file concerned ("" when
+// none).
+type MergeIssue struct {
+	Kind  string
+	Index int
+	File  string
+	Msg   string
+}
+
+func (is MergeIssue) String() string {
+	var b strings.Builder
+	b.WriteString(is.Kind)
+	if is.Index >= 0 {
+		fmt.Fprintf(&b, " point %d", is.Index)
+	}
+	if is.File != "" {
+		fmt.Fprintf(&b, " %s", is.File)
+	}
+	b.WriteString(": ")
+	b.WriteString(is.Msg)
+	return b.String()
+}
+
+// MergeError lists every defect of the shard outputs; nothing was written.
+type MergeError struct {
+	Issues []MergeIssue
+}
+
+func (e *MergeError) Error() string {
+	lines := []string{fmt.Sprintf("the sweep outputs do not form the family (%d issues):", len(e.Issues))}
+	for _, is := range e.Issues {
+		lines = append(lines, "  - "+is.String())
+	}
+	return strings.Join(lines, "\n")
+}
+
+// Merge gathers the certificates of the sweep directories dirs (outputs of
+// Run, in any split into shards), checks that they form the whole family
+// and writes the merged summary to outDir (summary.json and summary.csv,
+// which must not exist).
+//
+// Every directory must hold the same family file (FamilyFileName). Every
+// file named *.cert.json in them must be the certificate of a point of
+// the family: its name gives a point index and the point's problem hash
+// prefix, it records exactly the expansion of that point (problem_sha256
+// equal to the point's problem hash) and it verifies (certify.Check).
+// Every point must have exactly one such certificate. Otherwise Merge
+// returns a *MergeError listing each foreign, tampered, duplicate and
+// missing file or point, and writes nothing. File paths in the merged
+// summary are relative to outDir.
+func Merge(dirs []string, outDir string, progress func(format string, args ...any)) (*Summary, error) {
+	if len(dirs) == 0 {
+		return nil, errors.New("no sweep directories to merge")
+	}
+	f, famName, err := commonFamily(dirs)
+	if err != nil {
+		return nil, err
+	}
+	var issues []MergeIssue
+	found := map[int][]string{}
+	points := map[int]*Point{}
+	widths := map[string]string{}
+	for _, dir := range dirs {
+		for k, v := range knownWidths(dir) {
+			widths[k] = v
+		}
+		entries, err := os.ReadDir(dir)
+		if err != nil {
+			return nil, err
+		}
+		for _, e := range entries {
+			if e.IsDir() || !strings.HasSuffix(e.Name(), certSuffix) {
+				continue
+			}
+			path := filepath.Join(dir, e.Name())
+			p, is := mergeFile(f, path)
+			if progress != nil {
+				progress("%s: %s\n", path, mergeNote(is))
+			}
+			if is != nil {
+				issues = append(issues, *is)
+				continue
+			}
+			found[p.Index] = append(found[p.Index], path)
+			if len(found[p.Index]) == 1 {
+				p.RelWidth = widths[p.CertificateSHA256]
+				points[p.Index] = p
+			}
+		}
+	}
+	for _, pt := range f.Points {
+		files := found[pt.Index]
+		switch {
+		case len(files) == 0:
+			issues = append(issues, MergeIssue{Kind: IssueMissing, Index: pt.Index, Msg: fmt.Sprintf("no certificate of point %d (%s)", pt.Index, f.describe(pt))})
+		case len(files) > 1:
+			issues = append(issues, MergeIssue{Kind: IssueDuplicate, Index: pt.Index, File: strings.Join(files, ", "), Msg: fmt.Sprintf("%d certificates of the same point", len(files))})
+		}
+	}
+	if len(issues) > 0 {
+		sort.SliceStable(issues, func(i, j int) bool { return issues[i].Index < issues[j].Index })
+		return nil, &MergeError{Issues: issues}
+	}
+	s := &Summary{
+		Format:       SummaryFormat,
+		Family:       famName,
+		FamilySHA256: f.SHA256,
+		Shard:        whole,
+		Parameters:   f.ParamNames(),
+		TotalPoints:  len(f.Points),
+	}
+	for _, pt := range f.Points {
+		p := points[pt.Index]
+		abs, err := filepath.Abs(found[pt.Index][0])
+		if err != nil {
+			return nil, err
+		}
+		absOut, err := filepath.Abs(outDir)
+		if err != nil {
+			return nil, err
+		}
+		if p.File, err = filepath.Rel(absOut, abs); err != nil {
+			p.File = abs
+		}
+		p.File = filepath.ToSlash(p.File)
+		s.Points = append(s.Points, *p)
+	}
+	if err := os.MkdirAll(outDir, 0o755); err != nil {
+		return nil, err
+	}
+	base := SummaryFileName(whole)
+	for _, ext := range []string{".json", ".csv"} {
+		if _, err := os.Lstat(filepath.Join(outDir, base+ext)); !errors.Is(err, fs.ErrNotExist) {
+			return nil, fmt.Errorf("%s exists; not overwritten (choose another output directory)", filepath.Join(outDir, base+ext))
+		}
+	}
+	if err := writeSummary(outDir, base, s); err != nil {
+		return nil, err
+	}
+	return s, nil
+}
+
+func mergeNote(is *MergeIssue) string {
+	if is == nil {
+		return "verifies"
+	}
+	return is.Kind
+}
+
+// commonFamily reads the family copy of every directory, demands that they
+// are identical and parses it.
+func commonFamily(dirs []string) (*Family, string, error) {
+	var data []byte
+	var issues []MergeIssue
+	for _, dir := range dirs {
+		path := filepath.Join(dir, FamilyFileName)
+		d, err := os.ReadFile(path)
+		switch {
+		case errors.Is(err, fs.ErrNotExist):
+			issues = append(issues, MergeIssue{Kind: IssueFamily, Index: -1, File: path, Msg: "missing; is " + dir + " a sweep directory?"})
+			continue
+		case err != nil:
+			return nil, "", err
+		}
+		if data == nil {
+			data = d
+		} else if string(d) != string(data) {
+			issues = append(issues, MergeIssue{Kind: IssueFamily, Index: -1, File: path, Msg: "differs from " + filepath.Join(dirs[0], FamilyFileName) + ": the directories hold different families"})
+		}
+	}
+	if len(issues) > 0 {
+		return nil, "", &MergeError{Issues: issues}
+	}
+	f, err := ParseFamily(data)
+	if err != nil {
+		return nil, "", err
+	}
+	return f, FamilyFileName, nil
+}
+
+// mergeFile checks one certificate file against the family and returns its
+// point, or the issue that disqualifies it.
+func mergeFile(f *Family, path string) (*Point, *MergeIssue) {
+	name := filepath.Base(path)
+	index, prefix, ok := parseCertFileName(name)
+	if !ok {
+		return nil, &MergeIssue{Kind: IssueForeign, Index: -1, File: path, Msg: "not a certificate name of a sweep (pNNNN-HASH.cert.json)"}
+	}
+	if index >= len(f.Points) {
+		return nil, &MergeIssue{Kind: IssueForeign, Index: -1, File: path, Msg: fmt.Sprintf("point %d is beyond the family's %d points", index, len(f.Points))}
+	}
+	pt := f.Points[index]
+	hash := pt.Problem.SHA256()
+	if prefix != hash[:hashPrefixLen] {
+		return nil, &MergeIssue{Kind: IssueForeign, Index: -1, File: path, Msg: fmt.Sprintf("its name's problem hash %s is not that of point %d (%s)", prefix, index, hash[:hashPrefixLen])}
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return nil, &MergeIssue{Kind: IssueTampered, Index: index, File: path, Msg: err.Error()}
+	}
+	cert, err := certs.Unmarshal(data)
+	if err != nil {
+		return nil, &MergeIssue{Kind: IssueTampered, Index: index, File: path, Msg: oneLine(err)}
+	}
+	if cert.ProblemSHA256 != hash {
+		return nil, &MergeIssue{Kind: IssueForeign, Index: -1, File: path, Msg: fmt.Sprintf("records problem %s, not point %d of the family (%s)", cert.ProblemSHA256, index, hash)}
+	}
+	if err := certify.Check(data); err != nil {
+		return nil, &MergeIssue{Kind: IssueTampered, Index: index, File: path, Msg: oneLine(err)}
+	}
+	p := &Point{Index: index, Params: f.ParamText(pt), Status: StatusVerified, CertificateSHA256: sha256Hex(data)}
+	fillFromCertificate(p, cert)
+	return p, nil
+}

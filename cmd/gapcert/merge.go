@@ -1,0 +1,62 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"path/filepath"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/certs/sweep"
+)
+
+func newMergeCmd() *cobra.Command {
+	var out string
+	var quiet bool
+	cmd := &cobra.Command{
+		Use:   "merge DIR... --out DIR",
+		Short: "Gather the shard directories of a sweep, verify them and write the merged summary",
+		Long: `merge reads the sweep directories DIR... (the outputs of "gapcert sweep",
+in any split into shards), checks that they hold the same family file,
+that every certificate in them is the certificate of a point of that
+family (its name, its recorded problem and its hash agree with the
+expansion of the point) and verifies (it is recomputed as by "gapcert
+check"), and that every point has exactly one certificate. It then writes
+summary.json and summary.csv to the --out directory (never overwriting
+them) and lists the points where a claim fails or is undecided.
+
+Foreign, tampered, duplicate and missing files or points are listed one per
+line; nothing is written then.
+
+Exit status: 0 if the directories form the family and every certificate
+verifies, 1 on a failure, 2 if the family file is invalid, 3 if a
+certificate does not verify or the directories do not form the family.`,
+		Args: cobra.MinimumNArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			var progress func(string, ...any)
+			if !quiet && isTerminal(cmd.ErrOrStderr()) {
+				progress = func(format string, a ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, a...) }
+			}
+			s, err := sweep.Merge(args, out, progress)
+			var me *sweep.MergeError
+			var inv *sweep.InvalidError
+			switch {
+			case errors.As(err, &me):
+				return &exitError{code: exitMismatch, err: err}
+			case errors.As(err, &inv):
+				return &exitError{code: exitInvalid, err: err}
+			case err != nil:
+				return &exitError{code: exitFailure, err: err}
+			}
+			w := cmd.OutOrStdout()
+			fmt.Fprintf(w, "merged %d directories: %d points, every certificate verifies\n", len(args), s.TotalPoints)
+			printSweepCounts(w, s)
+			fmt.Fprintf(w, "summary written to %s\n", filepath.Join(out, sweep.SummaryFileName(s.Shard)+".json"))
+			return nil
+		},
+	}
+	cmd.Flags().StringVar(&out, "out", "", "directory for the merged summary (required)")
+	cmd.Flags().BoolVarP(&quiet, "quiet", "q", false, "no progress lines on stderr")
+	_ = cmd.MarkFlagRequired("out")
+	return cmd
+}

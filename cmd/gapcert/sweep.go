@@ -1,0 +1,179 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/certs"
+	"gapcert/certs/sweep"
+)
+
+type sweepFlags struct {
+	out       string
+	shard     string
+	relWidth  string
+	timeLimit time.Duration
+	refine    bool
+	setAside  bool
+	quiet     bool
+}
+
+func newSweepCmd() *cobra.Command {
+	var f sweepFlags
+	cmd := &cobra.Command{
+		Use:   "sweep FAMILY --out DIR",
+		Short: "Certify every point of a parameter family into a directory (resumable, in shards)",
+		Long: `sweep reads the family file FAMILY (a problem template with named
+parameters and their ranges), expands it into its grid of points and
+certifies each point of the shard into DIR: one certificate per point
+(pNNNN-HASH.cert.json: the point's index and the first 12 hex digits of
+its problem hash), a copy of the family file (family.json), and a summary
+(summary.json and summary.csv, or summary-shard-i-of-n.* with --shard).
+
+Points are numbered from 0 with the first parameter varying slowest;
+--shard i/n (0 ≤ i < n) takes the points k with k mod n = i, so the
+shards 0/n … (n−1)/n are disjoint and cover the family. Run it again to
+resume: a certificate already in DIR that verifies and holds the point's
+problem is kept; one that does not verify is reported and never
+overwritten (--set-aside-invalid renames it to NAME.rejected and
+recomputes the point). --refine-undecided recomputes points whose claims
+are undecided with a width target 10 times below the widest width reached,
+at most 3 times, keeping a new certificate only if it verifies.
+"gapcert merge" gathers the shards.
+
+Exit status: 0 if every point has a valid certificate, 1 on a failure
+(including a point that could not be certified), 2 if the family file or
+--shard is invalid (nothing is written), 3 if a certificate in DIR does
+not verify.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error { return runSweep(cmd, args[0], f) },
+	}
+	cmd.Flags().StringVar(&f.out, "out", "", "directory for the certificates and summaries (required)")
+	cmd.Flags().StringVar(&f.shard, "shard", "", "run only shard i/n (0 ≤ i < n): the points k with k mod n = i")
+	cmd.Flags().StringVar(&f.relWidth, "rel-width", "", "target relative width of every point (default: the family's, else each problem's)")
+	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", 0, "refinement budget per point (default: the family's, else 60s)")
+	cmd.Flags().BoolVar(&f.refine, "refine-undecided", false, "recompute points with an undecided claim with tighter width targets")
+	cmd.Flags().BoolVar(&f.setAside, "set-aside-invalid", false, "rename a certificate in DIR that does not verify to NAME.rejected and recompute its point")
+	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
+	_ = cmd.MarkFlagRequired("out")
+	return cmd
+}
+
+func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
+	fam, err := loadFamily(file)
+	if err != nil {
+		return err
+	}
+	opt := sweep.RunOptions{
+		FamilyName: filepath.Base(file), RelWidth: f.relWidth, TimeLimit: f.timeLimit,
+		RefineUndecided: f.refine, SetAsideInvalid: f.setAside, Tool: "gapcert " + Version,
+	}
+	if f.shard != "" {
+		if opt.Shard, err = sweep.ParseShard(f.shard); err != nil {
+			return &exitError{code: exitInvalid, err: err}
+		}
+	}
+	if f.timeLimit < 0 {
+		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration", f.timeLimit)}
+	}
+	if !f.quiet && isTerminal(cmd.ErrOrStderr()) {
+		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
+	}
+	s, err := sweep.Run(fam, f.out, opt)
+	var inv *sweep.InvalidError
+	switch {
+	case errors.As(err, &inv):
+		return &exitError{code: exitInvalid, err: err}
+	case err != nil:
+		return &exitError{code: exitFailure, err: err}
+	}
+	w := cmd.OutOrStdout()
+	fmt.Fprintf(w, "family %s: %d points, shard %s: %d points\n", file, s.TotalPoints, s.Shard, len(s.Points))
+	printSweepCounts(w, s)
+	fmt.Fprintf(w, "summary written to %s\n", filepath.Join(f.out, sweep.SummaryFileName(s.Shard)+".json"))
+	rejected, failed := 0, 0
+	for _, p := range s.Points {
+		switch p.Status {
+		case sweep.StatusRejected:
+			rejected++
+		case sweep.StatusError:
+			failed++
+		}
+		if p.Error != "" {
+			fmt.Fprintf(cmd.ErrOrStderr(), "point %d: %s: %s\n", p.Index, p.Status, p.Error)
+		}
+	}
+	switch {
+	case rejected > 0:
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%d certificates in %s do not verify and were left in place", rejected, f.out)}
+	case failed > 0:
+		return &exitError{code: exitFailure, err: fmt.Errorf("%d points could not be certified", failed)}
+	}
+	return nil
+}
+
+// loadFamily reads and validates a family file; defects are listed as
+// "FILE: path: message (hint: …)" with exit status 2.
+func loadFamily(file string) (*sweep.Family, error) {
+	data, err := os.ReadFile(file)
+	if err != nil {
+		return nil, &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
+	}
+	fam, err := sweep.ParseFamily(data)
+	var inv *sweep.InvalidError
+	if errors.As(err, &inv) {
+		lines := make([]string, len(inv.Issues))
+		for i, is := range inv.Issues {
+			lines[i] = file + ": " + is.String()
+		}
+		return nil, &exitError{code: exitInvalid, err: errors.New(strings.Join(lines, "\n"))}
+	}
+	if err != nil {
+		return nil, &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
+	}
+	return fam, nil
+}
+
+// printSweepCounts prints the number of points by status and verdict and
+// lists the points where a claim fails or is undecided.
+func printSweepCounts(w io.Writer, s *sweep.Summary) {
+	status, verdict := map[string]int{}, map[string]int{}
+	for _, p := range s.Points {
+		status[p.Status]++
+		if p.Verdict != "" {
+			verdict[p.Verdict]++
+		}
+	}
+	var parts []string
+	for _, st := range []string{sweep.StatusComputed, sweep.StatusReused, sweep.StatusRefined, sweep.StatusVerified, sweep.StatusRejected, sweep.StatusError} {
+		if status[st] > 0 {
+			parts = append(parts, fmt.Sprintf("%d %s", status[st], st))
+		}
+	}
+	fmt.Fprintf(w, "points: %s\n", strings.Join(parts, ", "))
+	if len(verdict) > 0 {
+		fmt.Fprintf(w, "claims: %d all hold, %d undecided, %d fail\n", verdict[certs.Holds], verdict[certs.Undecided], verdict[certs.Fails])
+	}
+	for _, p := range s.Points {
+		for _, c := range p.Claims {
+			if c.Verdict == certs.Fails || c.Verdict == certs.Undecided {
+				fmt.Fprintf(w, "  point %d (%s): %s %s (lhs − rhs ∈ [%s, %s])\n", p.Index, paramList(s.Parameters, p.Params), c.Verdict, c.Text, c.Margin.Lower, c.Margin.Upper)
+			}
+		}
+	}
+}
+
+func paramList(names []string, vals map[string]string) string {
+	parts := make([]string, len(names))
+	for i, n := range names {
+		parts[i] = n + "=" + vals[n]
+	}
+	return strings.Join(parts, ", ")
+}
