@@ -59,7 +59,7 @@ verify.`,
 	root.CompletionOptions.DisableDefaultCmd = true
 	root.SetOut(stdout)
 	root.SetErr(stderr)
-	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd())
+	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd(), newSweepCmd(), newMergeCmd())
 	return root
 }
 
