@@ -41,6 +41,7 @@ type Geom struct {
 	Area    interval.I       // area |T|, with Area.Lo > 0
 	Grad    [3][2]interval.I // ∇λ_i of the barycentric coordinates λ_0, λ_1, λ_2
 	EdgeLen [3]interval.I    // length of the edge opposite local vertex i
+	Edge    [3][2]interval.I // edge vector e_i = P_{i+2} − P_{i+1} (local indices mod 3)
 	H       float64          // upper bound of the longest edge length
 }
 
@@ -194,6 +195,7 @@ func (m *Mesh) Geom(t int) Geom {
 	e, a := m.edge[t], m.area[t]
 	var g Geom
 	g.Area = a
+	g.Edge = e
 	twice := a.MulF(2)
 	for i := 0; i < 3; i++ {
 		g.Grad[i] = [2]interval.I{e[i][1].Neg().Div(twice), e[i][0].Div(twice)}

@@ -26,6 +26,10 @@ type Potential struct {
 	rem   []interval.I
 	rng   []interval.I
 	exact bool
+
+	expr      *formula.Expr // the expression modelled
+	inverseOf *Potential    // set by InverseShifted: this models 1/(inverseOf + shift)
+	shift     interval.I
 }
 
 // maxExactDegree is the largest polynomial degree of V for which
@@ -55,7 +59,7 @@ func NewPotential(m *mesh.Mesh, v *formula.Expr, order int) (*Potential, error) 
 	pairs := monomialPairs(q)
 	w := monomialTable(q).IV
 	nq := dim(q)
-	pot := &Potential{mesh: m, q: q, exact: true,
+	pot := &Potential{mesh: m, q: q, exact: true, expr: v,
 		bern: make([][]interval.I, len(m.Tris)), rem: make([]interval.I, len(m.Tris)), rng: make([]interval.I, len(m.Tris))}
 	for t := range m.Tris {
 		vert := m.Vertices(t)
@@ -116,6 +120,26 @@ func (v *Potential) Range(t int) interval.I { return v.rng[t] }
 
 // Exact reports whether every remainder is [0, 0].
 func (v *Potential) Exact() bool { return v.exact }
+
+// InverseShifted returns the models of w = 1/(V + γ) on the same mesh, of
+// Taylor order ≥ order, from the expression formula.Div(1, V + γ) (the
+// weight of the Lehmann–Goerisch flux terms, METHODS §6). It returns a
+// *SignError unless V + γ > 0 is verified on every triangle (by the range
+// enclosures of v), so that w is defined and smooth wherever V is.
+func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, error) {
+	for t := range v.mesh.Tris {
+		if g := v.rng[t].Add(gamma); !(g.Lo > 0) || !g.IsBounded() {
+			return nil, &SignError{What: "V + γ", Triangle: t, Vertices: v.mesh.Vertices(t), Range: g, Need: "> 0"}
+		}
+	}
+	we := formula.Div(formula.Const(interval.I{Lo: 1, Hi: 1}), formula.Add(v.expr, formula.Const(gamma)))
+	w, err := NewPotential(v.mesh, we, order)
+	if err != nil {
+		return nil, err
+	}
+	w.inverseOf, w.shift = v, gamma
+	return w, nil
+}
 
 // SignError reports that a quantity a theorem requires nonnegative (or
 // positive) is not verified so on a triangle.

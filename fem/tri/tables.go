@@ -129,17 +129,41 @@ func tripleTable(r, m, n int) *table {
 // pair of monomialPairs(q): C(q − i − j, δ − γ)/C(q, δ) for δ ≥ γ =
 // (0, i, j), else 0.
 func monomialTable(q int) *table {
-	return cached(tableKeyOf('m', q, 0, 0), func() []*big.Rat {
-		iq := multiIndex(q)
-		pairs := monomialPairs(q)
-		out := make([]*big.Rat, 0, len(pairs)*len(iq.alpha))
-		for _, ij := range pairs {
-			g := [3]int{0, ij[0], ij[1]}
-			for _, d := range iq.alpha {
+	return cached(tableKeyOf('m', q, 0, 0), func() []*big.Rat { return monomialRats(q) })
+}
+
+// monomialRats returns the exact entries of monomialTable(q).
+func monomialRats(q int) []*big.Rat {
+	iq := multiIndex(q)
+	pairs := monomialPairs(q)
+	out := make([]*big.Rat, 0, len(pairs)*len(iq.alpha))
+	for _, ij := range pairs {
+		g := [3]int{0, ij[0], ij[1]}
+		for _, d := range iq.alpha {
+			w := new(big.Rat)
+			if d[1] >= g[1] && d[2] >= g[2] {
+				rest := [3]int{d[0], d[1] - g[1], d[2] - g[2]}
+				w.SetFrac(multinom(rest), multinom(d))
+			}
+			out = append(out, w)
+		}
+	}
+	return out
+}
+
+// elevationTable returns E[α·N_m + β], the coefficient of B^d_α in
+// B^m_β (m ≤ d): from B^m_β = B^m_β Σ_(|γ|=d−m) B^(d−m)_γ,
+// E = C(m, β) C(d − m, α − β)/C(d, α) for α ≥ β, else 0 (Farouki 2012).
+func elevationTable(m, d int) *table {
+	return cached(tableKeyOf('E', m, d, 0), func() []*big.Rat {
+		im, id := multiIndex(m), multiIndex(d)
+		out := make([]*big.Rat, 0, len(im.alpha)*len(id.alpha))
+		for _, a := range id.alpha {
+			for _, b := range im.alpha {
 				w := new(big.Rat)
-				if d[1] >= g[1] && d[2] >= g[2] {
-					rest := [3]int{d[0], d[1] - g[1], d[2] - g[2]}
-					w.SetFrac(multinom(rest), multinom(d))
+				if a[0] >= b[0] && a[1] >= b[1] && a[2] >= b[2] {
+					num := new(big.Int).Mul(multinom(b), multinom([3]int{a[0] - b[0], a[1] - b[1], a[2] - b[2]}))
+					w.SetFrac(num, multinom(a))
 				}
 				out = append(out, w)
 			}

@@ -1,0 +1,528 @@
+package tri
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"gapcert/enclose"
+	"gapcert/enclose/sparse"
+	"gapcert/fem/mesh"
+	"gapcert/interval"
+)
+
+// Flux is the Raviart–Thomas space RT_k ⊂ H(div; Ω) on a triangle mesh,
+// the space of fluxes σ of the Lehmann–Goerisch bounds (METHODS §6).
+//
+// Piola transform. On a counterclockwise triangle T with vertices v_0, v_1,
+// v_2, x = v_0 + Jξ, J = [v_1 − v_0, v_2 − v_0], det J = 2|T| > 0, a
+// member is σ(x) = J σ̂(ξ)/det J with σ̂ ∈ RT_k(T̂) (raviart.go). Then
+// (Brezzi–Fortin 1991, §III.1; elementary): div σ = (div̂ σ̂)/det J, and
+// for an edge traversed from A to B with outward normal times length
+// ν = R(B − A), R(a, b) = (b, −a), the flux density satisfies
+// σ(x(t))·ν = σ̂(ξ(t))·ν̂ exactly, because R J = det J · J^(−T) R for 2×2
+// matrices. So the flux density of σ along a mesh edge is the reference
+// one, fixed by the edge DOFs of raviart.go.
+//
+// Conformity. The global DOFs of an edge (a, b), a < b, are the k + 1
+// Bernstein coefficients of the flux density σ·R(P_b − P_a) in the
+// parameter t from P_a to P_b. A triangle that traverses the edge from a to
+// b uses them as they are; one that traverses it from b to a has the
+// opposite normal and the reversed parameter, so its local DOF m is minus
+// the global DOF k − m. Both triangles then see the same normal flux
+// σ·n on the edge, the normal component is continuous, and the piecewise
+// field lies in H(div; Ω) (Brezzi–Fortin, Prop. III.1.2). This holds for
+// the exact mesh inside the node enclosures and any float coefficients.
+//
+// Boundary. On sides where the flux must vanish (Neumann, or Robin with α
+// not verified > 0) the edge DOFs are removed (set to exactly 0), which
+// makes σ·n = 0 there. On Dirichlet sides they are free, and on Robin sides
+// with α > 0 they are free and enter the norm with the weight 1/α.
+type Flux struct {
+	mesh  *mesh.Mesh
+	k     int
+	ref   *rtRef
+	n     int
+	dofs  [][]int     // per triangle, global index of each local DOF (−1: removed)
+	sign  [][]float64 // per triangle, ±1 for each local DOF
+	robin []fluxRobin
+}
+
+// fluxRobin is a boundary edge with α > 0: local edge i of triangle t.
+type fluxRobin struct {
+	t, i   int
+	alpha  interval.I
+	length interval.I
+}
+
+// fluxFree reports whether the normal flux may be nonzero on a side.
+func fluxFree(bc BC) bool { return bc.Dirichlet || bc.Alpha.Lo > 0 }
+
+// NewFlux returns RT_k on m with the side conditions bc (as for
+// NewLagrange). It panics if k < 0 or bc does not fit the mesh.
+func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
+	checkBC(m, bc)
+	ref := rtReference(k)
+	edges, triEdges := m.Edges()
+	ne, ni := k+1, k*(k+1)
+	raw := len(edges)*ne + len(m.Tris)*ni
+	removed := make([]bool, raw)
+	edgeOf := make(map[[2]int]int, len(edges))
+	for e, ab := range edges {
+		edgeOf[ab] = e
+	}
+	for _, be := range m.Bnd {
+		if fluxFree(bc[be.Side]) {
+			continue
+		}
+		e := edgeOf[[2]int{min(be.A, be.B), max(be.A, be.B)}]
+		for j := 0; j < ne; j++ {
+			removed[e*ne+j] = true
+		}
+	}
+	renum := make([]int, raw)
+	n := 0
+	for r := range renum {
+		renum[r] = -1
+		if !removed[r] {
+			renum[r] = n
+			n++
+		}
+	}
+	f := &Flux{mesh: m, k: k, ref: ref, n: n, dofs: make([][]int, len(m.Tris)), sign: make([][]float64, len(m.Tris))}
+	for t, tri := range m.Tris {
+		d, s := make([]int, ref.ndof), make([]float64, ref.ndof)
+		for i := 0; i < 3; i++ {
+			a, b := tri[(i+1)%3], tri[(i+2)%3]
+			e := triEdges[t][i]
+			if edges[e] != [2]int{min(a, b), max(a, b)} {
+				panic("tri: mesh edge table does not match its triangles")
+			}
+			for j := 0; j < ne; j++ {
+				l := i*ne + j
+				if a < b {
+					d[l], s[l] = renum[e*ne+j], 1
+				} else {
+					d[l], s[l] = renum[e*ne+k-j], -1
+				}
+			}
+		}
+		for j := 0; j < ni; j++ {
+			d[3*ne+j], s[3*ne+j] = renum[len(edges)*ne+t*ni+j], 1
+		}
+		f.dofs[t], f.sign[t] = d, s
+	}
+	type dirEdge struct{ a, b int }
+	owner := map[dirEdge][2]int{}
+	for t, tri := range m.Tris {
+		for i := 0; i < 3; i++ {
+			owner[dirEdge{tri[(i+1)%3], tri[(i+2)%3]}] = [2]int{t, i}
+		}
+	}
+	for _, be := range m.Bnd {
+		c := bc[be.Side]
+		if c.Dirichlet || !(c.Alpha.Lo > 0) {
+			continue
+		}
+		ti, ok := owner[dirEdge{be.A, be.B}]
+		if !ok {
+			panic("tri: boundary edge not found in the mesh triangles")
+		}
+		f.robin = append(f.robin, fluxRobin{t: ti[0], i: ti[1], alpha: c.Alpha, length: m.Geom(ti[0]).EdgeLen[ti[1]]})
+	}
+	return f
+}
+
+// N returns the dimension.
+func (f *Flux) N() int { return f.n }
+
+// Degree returns k.
+func (f *Flux) Degree() int { return f.k }
+
+// Mesh returns the mesh.
+func (f *Flux) Mesh() *mesh.Mesh { return f.mesh }
+
+// local sets x[l] = sign_l · vec[dof_l] (0 where removed), the coefficients
+// of the local reference basis on triangle t, and reports whether any is
+// nonzero. The values are exact (a sign change).
+func (f *Flux) local(x []float64, vec []float64, t int) bool {
+	nz := false
+	for l, g := range f.dofs[t] {
+		x[l] = 0
+		if g >= 0 {
+			x[l] = f.sign[t][l] * vec[g]
+			nz = nz || x[l] != 0
+		}
+	}
+	return nz
+}
+
+// piolaMetric returns K ⊇ JᵀJ for J = [v_1 − v_0, v_2 − v_0] = [e_2, −e_1]
+// (mesh.Geom edge vectors): K_00 = e_2·e_2, K_01 = −e_2·e_1, K_11 = e_1·e_1.
+func piolaMetric(g mesh.Geom) [2][2]interval.I {
+	e1, e2 := g.Edge[1], g.Edge[2]
+	k00 := e2[0].Sqr().Add(e2[1].Sqr())
+	k11 := e1[0].Sqr().Add(e1[1].Sqr())
+	k01 := e2[0].Mul(e1[0]).Add(e2[1].Mul(e1[1])).Neg()
+	return [2][2]interval.I{{k00, k01}, {k01, k11}}
+}
+
+// ErrWeightMismatch is returned by LGMatrix when the weight was not made
+// by v.InverseShifted(gamma, ·): only then is it known to enclose 1/(V + γ).
+var ErrWeightMismatch = errors.New("tri: the weight must be v.InverseShifted(gamma) for the same v and gamma")
+
+// LGMatrix returns the interval matrix A2 of the Lehmann–Goerisch method
+// (METHODS §6) for the trial functions ũ_i (coefficients trial[i] in s)
+// and the fluxes σ_i (coefficients flux[i] in f):
+//
+//	a2_ij ⊇ (σ_i, σ_j) + ((ũ_i + div σ_i)/c, ũ_j + div σ_j) + Σ_(Robin, α>0) ∫_e (σ_i·n)(σ_j·n)/α,
+//
+// c = V + γ, for every exact input inside the enclosures. w must be
+// v.InverseShifted(gamma, ·) (else ErrWeightMismatch). On a triangle T,
+// with ĉ_i the Bernstein coefficients (degree k + 1) of σ̂_i and K ⊇ JᵀJ,
+//
+//	(σ_i, σ_j)_T = (1/(4|T|)) Σ_(r,s) K_rs ĉ_(i,r)ᵀ G ĉ_(j,s)          (∫_T̂ = ½ G, dx = 2|T| dξ),
+//	ũ_i + div σ_i = ũ_i + (div̂ σ̂_i)/(2|T|) = f_i, in degree d = max(p, k) by exact elevation,
+//	∫_T f_i f_j/c = |T| f_iᵀ W f_j + ∫_T (R − r_mid) f_i f_j,
+//
+// W the weighted Gram of the Bernstein part Q + r_mid of the model
+// 1/c ∈ Q + R; the last term lies in ±r_rad ‖f_i‖_T ‖f_j‖_T
+// (Cauchy–Schwarz, METHODS §3). On a Robin edge e the flux density g_i(t)
+// = σ_i·ν has the local edge DOFs as Bernstein coefficients, σ·n = g/|e|
+// and ds = |e| dt, so the edge term is (1/(α|e|)) g_iᵀ G_e g_j.
+func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *Potential, gamma interval.I) (*enclose.Sym, error) {
+	if f.mesh != s.mesh {
+		panic("tri: flux and trial spaces on different meshes")
+	}
+	if len(trial) != len(flux) || len(trial) == 0 {
+		panic("tri: one flux per trial function is needed")
+	}
+	for i := range flux {
+		if len(flux[i]) != f.n || len(trial[i]) != s.n {
+			panic("tri: coefficient vector length mismatch")
+		}
+	}
+	if w == nil || v == nil || w.inverseOf != v || w.shift != gamma || w.mesh != f.mesh {
+		return nil, ErrWeightMismatch
+	}
+	ref := f.ref
+	nv := len(trial)
+	p, k, nb := s.p, f.k, ref.n
+	d := max(p, k)
+	np, nn, nk, nd := dim(p), dim(nb), dim(k), dim(d)
+	gn := tripleTable(0, nb, nb).IV
+	gd := tripleTable(0, d, d).IV
+	elevP, elevK := elevationTable(p, d).IV, elevationTable(k, d).IV
+	acc := newAccum(nv)
+	x := make([][]float64, nv)
+	uc := make([][]float64, nv)
+	type vecs struct{ c, gc [2][]interval.I }
+	sv := make([]vecs, nv)
+	dv := make([][]interval.I, nv)
+	fi, wfi := make([][]interval.I, nv), make([][]interval.I, nv)
+	ffi := make([]interval.I, nv)
+	for i := 0; i < nv; i++ {
+		x[i], uc[i] = make([]float64, ref.ndof), make([]float64, np)
+		for c := 0; c < 2; c++ {
+			sv[i].c[c], sv[i].gc[c] = make([]interval.I, nn), make([]interval.I, nn)
+		}
+		dv[i] = make([]interval.I, nk)
+		fi[i], wfi[i] = make([]interval.I, nd), make([]interval.I, nd)
+	}
+	tmp, gtmp := make([]interval.I, nd), make([]interval.I, nd)
+	wg := make([]interval.I, nd*nd)
+	for t := range f.mesh.Tris {
+		g := f.mesh.Geom(t)
+		kk := piolaMetric(g)
+		quarter := g.Area.MulF(4).Recip() // 1/(4|T|)
+		half := g.Area.MulF(2).Recip()    // 1/(2|T|) = 1/det J
+		for i := 0; i < nv; i++ {
+			f.local(x[i], flux[i], t)
+			for l, gl := range s.dofs[t] {
+				uc[i][l] = 0
+				if gl >= 0 {
+					uc[i][l] = trial[i][gl]
+				}
+			}
+			for c := 0; c < 2; c++ {
+				exactCombination(sv[i].c[c], ref.compT[c], x[i])
+				applyI(sv[i].gc[c], gn, sv[i].c[c])
+			}
+			exactCombination(dv[i], ref.divT, x[i])
+			for b := range dv[i] {
+				dv[i][b] = dv[i][b].Mul(half)
+			}
+			if d == p {
+				for b, u := range uc[i] {
+					fi[i][b] = interval.Point(u)
+				}
+			} else {
+				applyF(fi[i], elevP, uc[i])
+			}
+			if d == k {
+				copy(tmp, dv[i])
+			} else {
+				applyI(tmp, elevK, dv[i])
+			}
+			for b := range fi[i] {
+				fi[i][b] = fi[i][b].Add(tmp[b])
+			}
+			applyI(gtmp, gd, fi[i])
+			ffi[i] = dotI(fi[i], gtmp)
+		}
+		bern, rem := w.Model(t)
+		if !rem.IsBounded() || !hull(bern).IsBounded() {
+			return nil, errUnbounded
+		}
+		weightedGram(wg, bern, w.q, interval.Point(rem.Mid()), d)
+		for i := 0; i < nv; i++ {
+			applyI(wfi[i], wg, fi[i])
+		}
+		rrad := rem.Rad()
+		for i := 0; i < nv; i++ {
+			for j := 0; j <= i; j++ {
+				m := kk[0][0].Mul(dotI(sv[j].c[0], sv[i].gc[0])).
+					Add(kk[0][1].Mul(dotI(sv[j].c[0], sv[i].gc[1]).Add(dotI(sv[j].c[1], sv[i].gc[0])))).
+					Add(kk[1][1].Mul(dotI(sv[j].c[1], sv[i].gc[1])))
+				e := dotI(fi[j], wfi[i])
+				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
+					e = e.Add(interval.I{Lo: -r, Hi: r})
+				}
+				acc.add(i, j, quarter.Mul(m).Add(g.Area.Mul(e)))
+			}
+		}
+	}
+	ge := edgeGramTable(k).IV
+	gi := make([][]interval.I, nv)
+	for i := range gi {
+		gi[i] = make([]interval.I, k+1)
+	}
+	for _, re := range f.robin {
+		// g = edgeScale · (local edge DOFs): the stored basis is scaled.
+		scale := re.alpha.Mul(re.length).Recip().MulF(ref.edgeScale * ref.edgeScale)
+		for i := 0; i < nv; i++ {
+			f.local(x[i], flux[i], re.t)
+			applyF(gi[i], ge, x[i][re.i*(k+1):(re.i+1)*(k+1)])
+		}
+		for i := 0; i < nv; i++ {
+			for j := 0; j <= i; j++ {
+				acc.add(i, j, scale.Mul(dotF(x[j][re.i*(k+1):(re.i+1)*(k+1)], gi[i])))
+			}
+		}
+	}
+	return acc.sym(), nil
+}
+
+// MinimizeApprox returns, for each trial function ũ (coefficients in s),
+// the flux σ of this space that minimises
+//
+//	‖w‖²_X = ‖σ‖² + ‖(ũ + div σ)/√c‖² + Σ_Robin ∫ (σ·n)²/α,
+//
+// with 1/c taken from the midpoints of the models of w: the solution of
+// the normal equations, for every τ,
+//
+//	(σ, τ) + (div σ/c, div τ) + Σ_Robin ∫ (σ·n)(τ·n)/α = −(ũ/c, div τ),
+//
+// one sparse SPD factorization in floating point shared by all right-hand
+// sides. A choice: any σ is admissible in LGMatrix.
+func (f *Flux) MinimizeApprox(s *Lagrange, trial [][]float64, w *Potential) ([][]float64, error) {
+	if s.mesh != f.mesh || w.mesh != f.mesh {
+		panic("tri: spaces and weight on different meshes")
+	}
+	ref := f.ref
+	p, k, nb := s.p, f.k, ref.n
+	nd, np, nk, nn := ref.ndof, dim(p), dim(k), dim(nb)
+	// Reference mass blocks M_rs[l·nd + l'] = φ̂_(l,r)ᵀ G φ̂_(l',s).
+	gn := tripleTable(0, nb, nb).FL
+	var mref [2][2][]float64
+	for r := 0; r < 2; r++ {
+		for c := 0; c < 2; c++ {
+			mref[r][c] = congruence(ref.compT[r], ref.compT[c], gn, nd, nn)
+		}
+	}
+	divT := ref.divT
+	b := sparse.NewBuilder(f.n)
+	rhs := make([][]float64, len(trial))
+	for i := range rhs {
+		rhs[i] = make([]float64, f.n)
+	}
+	loc := make([]float64, nd*nd)
+	wkk := make([]float64, nk*nk)
+	wpk := make([]float64, np*nk)
+	uc := make([]float64, np)
+	for t := range f.mesh.Tris {
+		g := f.mesh.Geom(t)
+		kk := piolaMetric(g)
+		quarter := 1 / (4 * g.Area.Mid())
+		bern, rem := w.Model(t)
+		weightedGramF(wkk, bern, w.q, rem.Mid(), k, k)
+		weightedGramF(wpk, bern, w.q, rem.Mid(), p, k)
+		dloc := congruence(divT, divT, wkk, nd, nk)
+		for ab := range loc {
+			loc[ab] = quarter * (kk[0][0].Mid()*mref[0][0][ab] + kk[0][1].Mid()*(mref[0][1][ab]+mref[1][0][ab]) +
+				kk[1][1].Mid()*mref[1][1][ab] + dloc[ab])
+		}
+		d, sg := f.dofs[t], f.sign[t]
+		for l := 0; l < nd; l++ {
+			if d[l] < 0 {
+				continue
+			}
+			for m := 0; m <= l; m++ {
+				if d[m] >= 0 {
+					b.Add(d[l], d[m], sg[l]*sg[m]*loc[l*nd+m])
+				}
+			}
+		}
+		// rhs_l = −(ũ/c, div φ_l) = −½ ũᵀ W_pk div̂ φ̂_l.
+		for i, u := range trial {
+			for a, gl := range s.dofs[t] {
+				uc[a] = 0
+				if gl >= 0 {
+					uc[a] = u[gl]
+				}
+			}
+			for l := 0; l < nd; l++ {
+				if d[l] < 0 {
+					continue
+				}
+				acc := 0.0
+				for a := 0; a < np; a++ {
+					if uc[a] == 0 {
+						continue
+					}
+					for c := 0; c < nk; c++ {
+						acc += uc[a] * wpk[a*nk+c] * divT[c*nd+l]
+					}
+				}
+				rhs[i][d[l]] -= 0.5 * sg[l] * acc
+			}
+		}
+	}
+	ge := edgeGramTable(k).FL
+	for _, re := range f.robin {
+		sc := ref.edgeScale * ref.edgeScale / (re.alpha.Mid() * re.length.Mid())
+		d, sg := f.dofs[re.t], f.sign[re.t]
+		for a := 0; a <= k; a++ {
+			la := re.i*(k+1) + a
+			for c := 0; c <= a; c++ {
+				lc := re.i*(k+1) + c
+				if d[la] >= 0 && d[lc] >= 0 {
+					b.Add(d[la], d[lc], sg[la]*sg[lc]*sc*ge[a*(k+1)+c])
+				}
+			}
+		}
+	}
+	sys := b.Build()
+	fac, ok := sparse.Factor(sys, sparse.Order(sys))
+	if !ok {
+		return nil, fmt.Errorf("tri: the flux least-squares system of dimension %d could not be factored", f.n)
+	}
+	out := make([][]float64, len(trial))
+	for i := range out {
+		out[i] = make([]float64, f.n)
+		fac.SolveTo(out[i], rhs[i])
+	}
+	return out, nil
+}
+
+// exactCombination sets dst[β] ⊇ Σ_l a[β·len(x) + l] x_l for exact floats
+// a and x, enclosing each sum to within a few ulps of its value however
+// much its terms cancel (the reference RT coefficients are integers of up
+// to 23 bits with alternating signs, so plain interval sums would lose
+// several digits). Each product is split error-free, a·x = p + e with
+// e = fma(a, x, −p) (exact unless p is subnormal-range or not finite;
+// Ogita–Rump–Oishi, Accurate sum and dot product, SIAM J. Sci. Comput. 26
+// (2005), TwoProduct), and the p are summed by TwoSum (Knuth, TAOCP vol. 2,
+// §4.2.2: s + p = t + q exactly for finite floats without overflow). The
+// exact sum is then t plus the exact sum of all e and q, which an interval
+// sum encloses; the e and q are tiny, so its width is far below an ulp of
+// the result. Terms whose product is tiny or not finite go into the
+// interval sum directly (outward rounded), and a non-finite t falls back
+// to the plain interval sum; both are sound.
+func exactCombination(dst []interval.I, a, x []float64) {
+	nx := len(x)
+	for b := range dst {
+		row := a[b*nx : (b+1)*nx]
+		s := 0.0
+		var rest interval.I
+		for l, xl := range x {
+			al := row[l]
+			if al == 0 || xl == 0 {
+				continue
+			}
+			p := al * xl
+			if !(math.Abs(p) >= 0x1p-900) || math.IsInf(p, 0) {
+				rest = rest.Add(interval.Point(al).MulF(xl))
+				continue
+			}
+			e := math.FMA(al, xl, -p)
+			t := s + p
+			bb := t - s
+			q := (s - (t - bb)) + (p - bb)
+			s = t
+			rest = rest.Add(interval.I{Lo: e, Hi: e}).Add(interval.I{Lo: q, Hi: q})
+		}
+		if math.IsInf(s, 0) || math.IsNaN(s) {
+			applyF(dst[b:b+1], intervalRow(row), x)
+			continue
+		}
+		dst[b] = rest.AddF(s)
+	}
+}
+
+// intervalRow returns the floats of row as point intervals.
+func intervalRow(row []float64) []interval.I {
+	out := make([]interval.I, len(row))
+	for i, v := range row {
+		out[i] = interval.Point(v)
+	}
+	return out
+}
+
+// congruence returns C[l·nd + m] = Σ_(β,γ) A[β·nd + l] G[β·nb + γ] B[γ·nd + m]
+// for nd functions with nb coefficients each (floating point; a choice).
+func congruence(a, b, g []float64, nd, nb int) []float64 {
+	gb := make([]float64, nb*nd)
+	for be := 0; be < nb; be++ {
+		for ga := 0; ga < nb; ga++ {
+			gv := g[be*nb+ga]
+			if gv == 0 {
+				continue
+			}
+			for m := 0; m < nd; m++ {
+				gb[be*nd+m] += gv * b[ga*nd+m]
+			}
+		}
+	}
+	out := make([]float64, nd*nd)
+	for be := 0; be < nb; be++ {
+		for l := 0; l < nd; l++ {
+			al := a[be*nd+l]
+			if al == 0 {
+				continue
+			}
+			for m := 0; m < nd; m++ {
+				out[l*nd+m] += al * gb[be*nd+m]
+			}
+		}
+	}
+	return out
+}
+
+// weightedGramF sets dst[a·dim(n) + b] ≈ ∫_T (Q + s) B^m_a B^n_b / |T|
+// with the midpoints of the Bernstein coefficients of Q (degree q):
+// floating point, a choice.
+func weightedGramF(dst []float64, w []interval.I, q int, s float64, m, n int) {
+	t := tripleTable(q, m, n).FL
+	sz := dim(m) * dim(n)
+	for ab := range dst[:sz] {
+		dst[ab] = 0
+	}
+	for kk := range w {
+		wk := w[kk].Mid() + s
+		blk := t[kk*sz : (kk+1)*sz]
+		for ab := range dst[:sz] {
+			dst[ab] += wk * blk[ab]
+		}
+	}
+}
