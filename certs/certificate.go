@@ -82,11 +82,56 @@ const (
 // ClaimResult is the verdict on one claim. Margin encloses lhs − rhs over
 // the certified enclosures; Reason says why a claim could not be evaluated
 // (empty when it was).
+//
+// A built-in claim (Text "@name", see package certs/named) also records the
+// Inequality its name stands for, the verdict on each hypothesis of the
+// theorem it comes from, and the Reference quantity it compares with, if
+// any. Verdict is the certified comparison of the enclosures either way;
+// the hypotheses say whether the theorem applies, not whether the
+// inequality is true.
 type ClaimResult struct {
-	Text    string `json:"text"`
-	Verdict string `json:"verdict"`
-	Margin  Bound  `json:"margin"`
-	Reason  string `json:"reason,omitempty"`
+	Text       string       `json:"text"`
+	Inequality string       `json:"inequality,omitempty"`
+	Verdict    string       `json:"verdict"`
+	Margin     Bound        `json:"margin"`
+	Reason     string       `json:"reason,omitempty"`
+	Hypotheses []Hypothesis `json:"hypotheses,omitempty"`
+	Reference  *Reference   `json:"reference,omitempty"`
+}
+
+// Verdicts of a hypothesis (besides Undecided).
+const (
+	Proven    = "proven"
+	Disproven = "disproven"
+)
+
+// Hypothesis is the verdict on one hypothesis of a theorem for the
+// recorded problem: Proven, Disproven (then Witness is set) or Undecided.
+// Detail says in words what was shown, or where the decision stopped.
+type Hypothesis struct {
+	Name    string   `json:"name"`
+	Verdict string   `json:"verdict"`
+	Detail  string   `json:"detail"`
+	Witness *Witness `json:"witness,omitempty"`
+}
+
+// Witness is the evidence that a hypothesis fails: a side of the domain
+// (0-based, as in the recorded problem's boundary list), a vertex (0-based
+// index into the recorded polygon), and/or a point of the closed domain
+// given by its exact coordinates (one for an interval, two for a polygon).
+type Witness struct {
+	Side   *int     `json:"side,omitempty"`
+	Vertex *int     `json:"vertex,omitempty"`
+	Point  []string `json:"point,omitempty"`
+}
+
+// Reference is a certified quantity a built-in claim compares with, named
+// Name in the claim's inequality and certified by its own Certificate
+// (a complete certificate of another problem, which the re-check verifies
+// in turn).
+type Reference struct {
+	Name        string          `json:"name"`
+	Certificate json.RawMessage `json:"certificate"`
 }
 
 // Provenance records what produced a certificate. It is informative only;
@@ -283,6 +328,72 @@ func (c *Certificate) validate() error {
 		}
 		if err := bound(path+".margin", r.Margin); err != nil {
 			return err
+		}
+		for j, h := range r.Hypotheses {
+			if err := h.validate(fmt.Sprintf("%s.hypotheses[%d]", path, j)); err != nil {
+				return err
+			}
+		}
+		if r.Reference != nil {
+			if err := r.Reference.validate(path + ".reference"); err != nil {
+				return err
+			}
+		}
+	}
+	return nil
+}
+
+// validate checks a hypothesis verdict: a name, a known verdict, a detail,
+// and a witness exactly when the verdict is Disproven.
+func (h Hypothesis) validate(path string) error {
+	switch {
+	case h.Name == "":
+		return &FormatError{Path: path + ".name", Msg: "empty hypothesis name"}
+	case h.Detail == "":
+		return &FormatError{Path: path + ".detail", Msg: "empty detail"}
+	}
+	switch h.Verdict {
+	case Proven, Undecided:
+		if h.Witness != nil {
+			return &FormatError{Path: path + ".witness", Msg: fmt.Sprintf("a witness belongs to a %q hypothesis only", Disproven)}
+		}
+		return nil
+	case Disproven:
+	default:
+		return &FormatError{Path: path + ".verdict", Msg: fmt.Sprintf("%q is not one of %q, %q, %q", h.Verdict, Proven, Disproven, Undecided)}
+	}
+	w := h.Witness
+	if w == nil || w.Side == nil && w.Vertex == nil && len(w.Point) == 0 {
+		return &FormatError{Path: path + ".witness", Msg: "a disproven hypothesis needs a witness (side, vertex or point)"}
+	}
+	if w.Side != nil && *w.Side < 0 || w.Vertex != nil && *w.Vertex < 0 {
+		return &FormatError{Path: path + ".witness", Msg: "negative side or vertex index"}
+	}
+	if n := len(w.Point); n > 2 {
+		return &FormatError{Path: path + ".witness.point", Msg: fmt.Sprintf("a point has one or two coordinates, not %d", n)}
+	}
+	for k, c := range w.Point {
+		if c == "" {
+			return &FormatError{Path: fmt.Sprintf("%s.witness.point[%d]", path, k), Msg: "empty coordinate"}
+		}
+	}
+	return nil
+}
+
+// validate reads the referenced certificate strictly (Unmarshal) and
+// demands that it has no references of its own, so that nesting stops at
+// one level.
+func (r *Reference) validate(path string) error {
+	if r.Name == "" {
+		return &FormatError{Path: path + ".name", Msg: "empty reference name"}
+	}
+	inner, err := Unmarshal(r.Certificate)
+	if err != nil {
+		return &FormatError{Path: path + ".certificate", Msg: err.Error()}
+	}
+	for _, c := range inner.Claims {
+		if c.Reference != nil {
+			return &FormatError{Path: path + ".certificate", Msg: "a referenced certificate may not have references of its own"}
 		}
 	}
 	return nil

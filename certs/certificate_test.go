@@ -245,3 +245,125 @@ func sameValue(a, b string) bool {
 	}
 	return ra.Cmp(rb) == 0
 }
+
+// withBuiltinClaim returns the sample with a built-in claim carrying
+// hypotheses (one disproven, with a witness) and a reference certificate.
+func withBuiltinClaim(t *testing.T) *Certificate {
+	t.Helper()
+	inner, err := sample().Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	side, vertex := 1, 3
+	c := sample()
+	c.Claims = append(c.Claims, ClaimResult{
+		Text: "@robin_comparison", Inequality: "gap >= robin_interval_gap", Verdict: Holds, Margin: Bound{"0.5", "0.6"},
+		Hypotheses: []Hypothesis{
+			{Name: "robin_boundary", Verdict: Disproven, Detail: "side 1 differs", Witness: &Witness{Side: &side}},
+			{Name: "convex_domain", Verdict: Disproven, Detail: "re-entrant", Witness: &Witness{Vertex: &vertex, Point: []string{"1", "sqrt(3)/2"}}},
+			{Name: "convex_potential", Verdict: Proven, Detail: "V'' ≥ 0"},
+			{Name: "zero_potential", Verdict: Undecided, Detail: "no point found"},
+		},
+		Reference: &Reference{Name: "robin_interval_gap", Certificate: json.RawMessage(inner)},
+	})
+	return c
+}
+
+// TestRoundTripBuiltinClaim: the fields of built-in claims survive
+// Marshal and Unmarshal unchanged.
+func TestRoundTripBuiltinClaim(t *testing.T) {
+	data, err := withBuiltinClaim(t).Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	back, err := Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	again, err := back.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(data, again) {
+		t.Errorf("Marshal∘Unmarshal changed the document")
+	}
+	got := back.Claims[2]
+	if got.Inequality != "gap >= robin_interval_gap" || len(got.Hypotheses) != 4 || *got.Hypotheses[0].Witness.Side != 1 ||
+		*got.Hypotheses[1].Witness.Vertex != 3 || got.Hypotheses[1].Witness.Point[1] != "sqrt(3)/2" || got.Reference.Name != "robin_interval_gap" {
+		t.Errorf("round trip changed the claim: %+v", got)
+	}
+	inner, err := Unmarshal(got.Reference.Certificate)
+	if err != nil || inner.Results.Gap != sample().Results.Gap {
+		t.Errorf("reference certificate: %v", err)
+	}
+	for _, key := range []string{"inequality", "hypotheses", "name", "detail", "witness", "side", "vertex", "point", "reference", "certificate"} {
+		if !bytes.Contains(data, []byte(`"`+key+`":`)) {
+			t.Errorf("key %q missing", key)
+		}
+	}
+	// Claims without the new fields do not write them.
+	plain, _ := sample().Marshal()
+	for _, key := range []string{"inequality", "hypotheses", "reference"} {
+		if bytes.Contains(plain, []byte(`"`+key+`":`)) {
+			t.Errorf("plain claim writes %q", key)
+		}
+	}
+}
+
+// TestUnmarshalStrictBuiltinClaim: malformed hypotheses and references are
+// format errors with their path.
+func TestUnmarshalStrictBuiltinClaim(t *testing.T) {
+	good, err := withBuiltinClaim(t).Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	edit := func(old, new string) []byte {
+		if !bytes.Contains(good, []byte(old)) {
+			t.Fatalf("fixture lacks %q", old)
+		}
+		return bytes.Replace(good, []byte(old), []byte(new), 1)
+	}
+	editLast := func(old, new string) []byte {
+		i := bytes.LastIndex(good, []byte(old))
+		if i < 0 {
+			t.Fatalf("fixture lacks %q", old)
+		}
+		return append(append(append([]byte{}, good[:i]...), new...), good[i+len(old):]...)
+	}
+	for _, tc := range []struct {
+		name string
+		data []byte
+		want string
+	}{
+		{"bad hypothesis verdict", edit(`"verdict": "proven"`, `"verdict": "true"`), `claims[2].hypotheses[2].verdict`},
+		{"disproven without witness", edit(`"verdict": "undecided",
+          "detail": "no point found"`, `"verdict": "disproven",
+          "detail": "no point found"`), `claims[2].hypotheses[3].witness`},
+		{"witness on proven", edit(`"detail": "V'' ≥ 0"`, `"detail": "V'' ≥ 0", "witness": {"side": 0}`), `claims[2].hypotheses[2].witness`},
+		{"empty hypothesis name", edit(`"name": "zero_potential"`, `"name": ""`), `claims[2].hypotheses[3].name`},
+		{"negative side", edit(`"side": 1`, `"side": -1`), `negative`},
+		{"three coordinates", edit(`"sqrt(3)/2"`, `"sqrt(3)/2", "0", "0"`), `witness.point`},
+		{"unknown hypothesis key", edit(`"detail": "no point found"`, `"detail": "no point found", "why": 1`), `unknown field "why"`},
+		{"bad reference bound", editLast(`"upper": "29.608813204"`, `"upper": "29.6.1"`), `claims[2].reference.certificate`},
+		{"reference not a certificate", edit(`"certificate": {`, `"certificate": {"x": 1,`), `claims[2].reference.certificate`},
+		{"empty reference name", edit(`"name": "robin_interval_gap"`, `"name": ""`), `claims[2].reference.name`},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			_, err := Unmarshal(tc.data)
+			if err == nil {
+				t.Fatal("accepted")
+			}
+			if !strings.Contains(err.Error(), tc.want) {
+				t.Errorf("error %q does not mention %q", err, tc.want)
+			}
+		})
+	}
+	// A reference may not nest references.
+	c := withBuiltinClaim(t)
+	inner, _ := c.Marshal()
+	c.Claims[2].Reference.Certificate = inner
+	data, _ := c.Marshal()
+	if _, err := Unmarshal(data); err == nil || !strings.Contains(err.Error(), "references of its own") {
+		t.Errorf("nested reference: %v", err)
+	}
+}

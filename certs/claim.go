@@ -145,13 +145,14 @@ func (c *Claim) Vars() []string {
 }
 
 // StandardNames returns the names every claim may use besides pi, e and the
-// problem's parameters: lambda1..lambda20, gap, D, area, perimeter, alpha.
+// problem's parameters: lambda1..lambda20, gap, D, area, perimeter,
+// inradius (triangles: 2·area/perimeter), alpha.
 func StandardNames() []string {
-	names := make([]string, 0, MaxEigenvalueName+5)
+	names := make([]string, 0, MaxEigenvalueName+6)
 	for k := 1; k <= MaxEigenvalueName; k++ {
 		names = append(names, "lambda"+strconv.Itoa(k))
 	}
-	return append(names, "gap", "D", "area", "perimeter", "alpha")
+	return append(names, "gap", "D", "area", "perimeter", "inradius", "alpha")
 }
 
 // Check returns a *ClaimError for the first name of the claim that is
@@ -164,7 +165,7 @@ func (c *Claim) Check(params []string) error {
 		if slices.Contains(known, v) || slices.Contains(params, v) {
 			continue
 		}
-		hint := "known names: lambda1..lambda20, gap, D, area, perimeter, alpha, pi, e"
+		hint := "known names: lambda1..lambda20, gap, D, area, perimeter, inradius, alpha, pi, e"
 		if len(params) > 0 {
 			hint += " and the parameters " + strings.Join(params, ", ")
 		}

@@ -1,0 +1,127 @@
+package hypothesis
+
+import (
+	"fmt"
+
+	"gapcert/certs"
+	"gapcert/certs/named"
+	"gapcert/fem/problem"
+)
+
+// DirichletBoundary decides whether every side has the Dirichlet
+// condition; the witness of a failure is the first other side.
+func DirichletBoundary(p *problem.Problem) certs.Hypothesis {
+	h := certs.Hypothesis{Name: named.DirichletBoundary}
+	for i, bc := range p.Boundary {
+		if bc.Kind != problem.Dirichlet {
+			return disproven(h, fmt.Sprintf("side %d has a %s condition", i, bc.Kind), &certs.Witness{Side: intPtr(i)})
+		}
+	}
+	return proven(h, "every side has the Dirichlet condition")
+}
+
+// NeumannBoundary decides whether every side has the Neumann condition (a
+// Robin side counts when its α is exactly 0).
+func NeumannBoundary(p *problem.Problem) certs.Hypothesis {
+	h := certs.Hypothesis{Name: named.NeumannBoundary}
+	undecided := -1
+	for i, bc := range p.Boundary {
+		switch bc.Kind {
+		case problem.Neumann:
+			continue
+		case problem.Dirichlet:
+			return disproven(h, fmt.Sprintf("side %d has the Dirichlet condition", i), &certs.Witness{Side: intPtr(i)})
+		}
+		switch zero, ok := isZero(bc.Alpha); {
+		case ok && zero:
+			continue
+		case ok:
+			return disproven(h, fmt.Sprintf("side %d has a Robin condition with α = %s ≠ 0", i, bc.Alpha.Text), &certs.Witness{Side: intPtr(i)})
+		}
+		if undecided < 0 {
+			undecided = i
+		}
+	}
+	if undecided >= 0 {
+		return undecidedAt(h, fmt.Sprintf("cannot decide whether the Robin coefficient %s of side %d is 0", p.Boundary[undecided].Alpha.Text, undecided))
+	}
+	return proven(h, "every side has the Neumann condition")
+}
+
+// RobinBoundary decides whether every side has a Robin condition with one
+// and the same α (a Neumann side counts as α = 0); see CommonAlpha.
+func RobinBoundary(p *problem.Problem) certs.Hypothesis {
+	h := certs.Hypothesis{Name: named.RobinBoundary}
+	for i, bc := range p.Boundary {
+		if bc.Kind == problem.Dirichlet {
+			return disproven(h, fmt.Sprintf("side %d has the Dirichlet condition", i), &certs.Witness{Side: intPtr(i)})
+		}
+	}
+	a0 := p.Boundary[0].Alpha
+	for i, bc := range p.Boundary[1:] {
+		switch same, ok := sameNumber(a0, bc.Alpha); {
+		case ok && !same:
+			return disproven(h, fmt.Sprintf("side %d has α = %s, side 0 has α = %s", i+1, bc.Alpha.Text, a0.Text), &certs.Witness{Side: intPtr(i + 1)})
+		case !ok:
+			return undecidedAt(h, fmt.Sprintf("cannot decide whether α = %s of side %d equals α = %s of side 0", bc.Alpha.Text, i+1, a0.Text))
+		}
+	}
+	return proven(h, fmt.Sprintf("every side has the Robin condition with α = %s", a0.Text))
+}
+
+// CommonAlpha returns the Robin coefficient shared by every side (0 for
+// Neumann sides) when RobinBoundary is proven.
+func CommonAlpha(p *problem.Problem) (problem.Number, bool) {
+	if RobinBoundary(p).Verdict != certs.Proven {
+		return problem.Number{}, false
+	}
+	return p.Boundary[0].Alpha, true
+}
+
+// isZero decides whether the exact number n is 0.
+func isZero(n problem.Number) (zero, ok bool) {
+	if n.Rat != nil {
+		return n.Rat.Sign() == 0, true
+	}
+	switch {
+	case n.Val.Lo == 0 && n.Val.Hi == 0:
+		return true, true
+	case n.Val.Lo > 0 || n.Val.Hi < 0:
+		return false, true
+	}
+	return false, false
+}
+
+// sameNumber decides whether two exact numbers are equal: by their
+// rationals, by identical canonical texts (which denote one number), or by
+// enclosures that are equal points or disjoint.
+func sameNumber(a, b problem.Number) (same, ok bool) {
+	switch {
+	case a.Rat != nil && b.Rat != nil:
+		return a.Rat.Cmp(b.Rat) == 0, true
+	case a.Text == b.Text:
+		return true, true
+	case a.Val.IsPoint() && a.Val == b.Val:
+		return true, true
+	case a.Val.Hi < b.Val.Lo || b.Val.Hi < a.Val.Lo:
+		return false, true
+	}
+	return false, false
+}
+
+func intPtr(i int) *int { return &i }
+
+func proven(h certs.Hypothesis, detail string) certs.Hypothesis {
+	h.Verdict, h.Detail = certs.Proven, detail
+	return h
+}
+
+func disproven(h certs.Hypothesis, detail string, w *certs.Witness) certs.Hypothesis {
+	h.Verdict, h.Detail, h.Witness = certs.Disproven, detail, w
+	return h
+}
+
+func undecidedAt(h certs.Hypothesis, detail string) certs.Hypothesis {
+	h.Verdict, h.Detail = certs.Undecided, detail
+	return h
+}

@@ -1,0 +1,30 @@
+// Package hypothesis decides the hypotheses of the theorems behind the
+// built-in claims (package certs/named) for a problem: each decision is a
+// certs.Hypothesis with the verdict "proven", "disproven" (with a
+// witness: a side, a vertex or a point of the domain) or "undecided", and a
+// detail in words.
+//
+// Guarantees. "proven" and "disproven" are decided exactly (boundary
+// kinds, vertex counts, big.Rat arithmetic on rational coordinates) or by
+// outward-rounded interval arithmetic (package interval) whose enclosure
+// settles the sign in question; a sign that the enclosures do not settle
+// gives "undecided", never a guess. Floating point at round-to-nearest only
+// chooses where to subdivide and which points to try as witnesses; a
+// witness point is an exact float64 point verified inside the closed domain.
+// The decisions are deterministic, so that a re-check reproduces them.
+//
+// Convexity of the domain: a counterclockwise polygon is convex if and only
+// if every turn (v_i − v_{i−1}) × (v_{i+1} − v_i) is ≥ 0 (common practice);
+// a turn verified < 0 is a re-entrant vertex, the witness.
+//
+// Convexity of V: a C² function on a convex set is convex if and only if
+// its Hessian is positive semidefinite at every point (common practice),
+// and a symmetric 2×2 matrix is positive semidefinite if and only if
+// H11 ≥ 0, H22 ≥ 0 and H11·H22 − H12² ≥ 0 (Sylvester's criterion for
+// semidefiniteness in two dimensions, common practice). The Hessian is
+// enclosed by automatic differentiation (formula.Hessian) over the cells of
+// a subdivision of the domain (intervals: cells; polygons: the triangles of
+// problem.Triangles, refined by midpoint subdivision where undecided, each
+// evaluated over its bounding box). See ConvexPotential for why success of
+// the enclosure on every cell also proves V to be C².
+package hypothesis
