@@ -102,6 +102,7 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		return nil, &BudgetError{What: "the first mesh", Need: est, Budget: budget}
 	}
 	var best *result
+	prevWorst := 0.0
 	for raised := 0; ; {
 		t0 := time.Now()
 		out, err := compute(p, r)
@@ -131,7 +132,11 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		if res.worst() <= target {
 			break
 		}
-		next, ok := refine(p, r, out)
+		// A step that did not gain a factor 10 stalled: for polygons the
+		// driver then refines the mesh instead of raising the degree.
+		stalled := prevWorst > 0 && res.worst() > 0.1*prevWorst
+		prevWorst = res.worst()
+		next, ok := refine(p, r, out, stalled)
 		elapsed := time.Since(start)
 		// The next step costs a few times the last one; stop if it would not fit.
 		if ok && memoryEstimate(p, next) > budget {
@@ -169,7 +174,8 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	}
 	r := recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, scale: scale.Lo}
 	if p.Dim == 2 {
-		r = recipe{degree: 4, taylor: min(taylor, polygonModelOrder), scale: scale.Lo, refine: 1, stageARefine: 3}
+		r = recipe{degree: 4, fluxDegree: 3, taylor: min(taylor, polygonModelOrder), weightTaylor: polygonModelOrder,
+			scale: scale.Lo, refine: 1, stageARefine: 3}
 	}
 	// inf V ≥ both the enclosure over the domain and the least cell
 	// enclosure over the first stage-A mesh (the cells tile the domain);
@@ -251,23 +257,17 @@ const polygonModelOrder = 8
 
 // refine chooses the next recipe. Intervals: raise the degree up to 10,
 // then halve the cells; refine the stage-A mesh when stage B could not
-// separate. Polygons: stage A converges like h² and limits the widths, so
-// its mesh is refined every step and the P_p trial mesh (whose error falls
-// like h^{2p} away from corners) only when it lags polygonRitzLag levels
-// behind; re-entrant corners get one more grading level per step.
-func refine(p *problem.Problem, r recipe, out *outcome) (recipe, bool) {
-	if r.refine > 0 || r.stageARefine > 0 {
-		if r.stageARefine >= maxPolygonRefine {
-			return r, false
-		}
-		r.stageARefine++
-		if r.stageARefine-r.refine > polygonRitzLag {
-			r.refine++
-		}
-		if len(reentrantCorners(p)) > 0 {
-			r.graded++
-		}
-		return r, true
+// separate. Polygons: while stage B does not run, stage A (which converges
+// like h²) is refined; once it runs, the trial space limits the widths and
+// its degree is raised to maxPolygonDegree (unless a step stalled), then
+// its mesh refined, with
+// stage A refined too while ρ̂ is within 10% of the Ritz bound of Λ_N
+// (Lehmann–Goerisch bounds sharpen as ρ̂ moves away from Λ_N); re-entrant
+// corners get more grading levels every step, where the eigenfunctions
+// are singular.
+func refine(p *problem.Problem, r recipe, out *outcome, stalled bool) (recipe, bool) {
+	if p.Dim == 2 {
+		return refinePolygon(p, r, out, stalled)
 	}
 	if out.n == 0 {
 		if r.stageACells >= 1<<16 {
@@ -285,6 +285,48 @@ func refine(p *problem.Problem, r recipe, out *outcome) (recipe, bool) {
 		return r, false
 	}
 	r.fluxDegree = r.degree + 1
+	return r, true
+}
+
+// maxPolygonDegree is the largest degree of the polygon trial space the
+// driver chooses (the flux degree is one less).
+const maxPolygonDegree = 8
+
+// refinePolygon is refine for polygons; stalled reports that the last step
+// gained less than a factor 10 (then the mesh is refined rather than the
+// degree raised: a model remainder or a singularity limits the widths).
+func refinePolygon(p *problem.Problem, r recipe, out *outcome, stalled bool) (recipe, bool) {
+	corners := len(reentrantCorners(p)) > 0
+	if out.n == 0 || out.lg == nil {
+		if r.stageARefine >= maxPolygonRefine {
+			return r, false
+		}
+		r.stageARefine++
+		if r.stageARefine-r.refine > polygonRitzLag {
+			r.refine++
+		}
+		if corners {
+			r.graded++
+		}
+		return r, true
+	}
+	switch {
+	case corners && r.graded < 3*maxPolygonRefine:
+		r.graded += 2
+		if r.degree < maxPolygonDegree && r.graded%4 == 0 {
+			r.degree++
+		}
+	case r.degree < maxPolygonDegree && !stalled:
+		r.degree += 2
+	case r.refine < maxPolygonRefine:
+		r.refine++
+	default:
+		return r, false
+	}
+	r.fluxDegree = r.degree - 1
+	if out.rho-out.ritz[out.n-1] < 0.1*out.ritz[out.n-1] && r.stageARefine < maxPolygonRefine {
+		r.stageARefine++
+	}
 	return r, true
 }
 
@@ -442,6 +484,7 @@ func (res *result) method() Method {
 		m.Refinements, m.StageARefinements, m.GradedLevels = r.refine, r.stageARefine, r.graded
 		m.StageASpace = out.polygon.stageASpace
 		m.Triangles, m.StageATriangles = out.polygon.triangles, out.polygon.stageATriangles
+		m.FluxDegree, m.WeightOrder, m.FluxUnknowns = r.fluxDegree, r.weightTaylor, out.polygon.fluxUnknowns
 	} else {
 		m.Cells, m.FluxDegree, m.WeightOrder, m.StageACells = r.cells, r.fluxDegree, r.weightTaylor, r.stageACells
 	}

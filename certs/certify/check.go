@@ -147,8 +147,12 @@ func (r recipe) validate(dim int) error {
 			return fmt.Errorf("method.refinements %d out of range", r.refine)
 		case r.stageARefine < 0 || r.stageARefine > maxPolygonRefine:
 			return fmt.Errorf("method.stage_a_refinements %d out of range", r.stageARefine)
-		case r.graded < 0 || r.graded > 2*maxPolygonRefine:
+		case r.graded < 0 || r.graded > 3*maxPolygonRefine:
 			return fmt.Errorf("method.graded_levels %d out of range", r.graded)
+		case r.fluxDegree < 0 || r.fluxDegree > 16:
+			return fmt.Errorf("method.flux_degree %d out of range", r.fluxDegree)
+		case r.weightTaylor < 1 || r.weightTaylor > 32:
+			return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
 		}
 		return nil
 	}

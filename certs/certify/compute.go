@@ -56,6 +56,7 @@ type polygonRecord struct {
 	stageASpace                string
 	triangles, stageATriangles int
 	stageAUnknowns             int
+	fluxUnknowns               int
 }
 
 // extraIndices is how many eigenvalues past the requested ones are bounded,
@@ -107,16 +108,8 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 		return nil, err
 	}
 
-	// Stage B: Lehmann–Goerisch with the smallest N ≥ requested whose
-	// ρ̂ = (stage-A lower bound of Λ_{N+1}) exceeds the Ritz upper bound of Λ_N.
-	for n := p.Eigenvalues; n <= want; n++ {
-		if out.stageA[n] > out.ritz[n-1] {
-			out.n, out.rho = n, out.stageA[n]
-			break
-		}
-	}
-	if out.n == 0 {
-		out.notes = append(out.notes, "stage B skipped: no N with a stage-A lower bound of lambda_{N+1} above the Ritz upper bound of lambda_N; lower bounds are from stage A only")
+	// Stage B: Lehmann–Goerisch.
+	if !chooseN(p, out) {
 		return out, nil
 	}
 	weight, err := pot.InverseShifted(gamma, r.weightTaylor)
@@ -142,6 +135,22 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 		out.lg = nil
 	}
 	return out, nil
+}
+
+// chooseN sets out.n to the smallest N ≥ the requested count whose
+// ρ̂ = (stage-A lower bound of Λ_{N+1}) exceeds the Ritz upper bound of Λ_N,
+// and out.rho to that ρ̂ (certified ≤ Λ_{N+1}, as Lehmann–Goerisch needs).
+// It reports false, with a note, when no such N is within the bounds
+// computed; then no bound may rely on stage B.
+func chooseN(p *problem.Problem, out *outcome) bool {
+	for n := p.Eigenvalues; n < len(out.stageA) && n <= len(out.ritz); n++ {
+		if out.stageA[n] > out.ritz[n-1] {
+			out.n, out.rho = n, out.stageA[n]
+			return true
+		}
+	}
+	out.notes = append(out.notes, "stage B skipped: no N with a stage-A lower bound of lambda_{N+1} above the Ritz upper bound of lambda_N; lower bounds are from stage A only")
+	return false
 }
 
 // ritzUpper returns upper bounds of Λ_1..Λ_n from the enclosed Ritz pencil

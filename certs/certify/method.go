@@ -13,7 +13,7 @@ type Method struct {
 
 	// Intervals.
 	Cells       int `json:"cells,omitempty"`               // uniform cells of the P_p mesh
-	FluxDegree  int `json:"flux_degree,omitempty"`         // q of the continuous flux space
+	FluxDegree  int `json:"flux_degree,omitempty"`         // q of the continuous flux space (polygons: k of RT_k)
 	WeightOrder int `json:"weight_taylor_order,omitempty"` // order of the Taylor models of 1/(V+γ)
 	StageACells int `json:"stage_a_cells,omitempty"`
 
@@ -24,6 +24,7 @@ type Method struct {
 	StageASpace       string `json:"stage_a_space,omitempty"`       // "crouzeix-raviart" or "enriched-crouzeix-raviart"
 	Triangles         int    `json:"triangles,omitempty"`           // triangles of the trial mesh (a record, not an input)
 	StageATriangles   int    `json:"stage_a_triangles,omitempty"`
+	FluxUnknowns      int    `json:"flux_unknowns,omitempty"` // dimension of RT_k on the trial mesh (a record)
 
 	N                  int      `json:"n"`                   // trial functions in stage B
 	Rho                string   `json:"rho"`                 // ρ̂ ≤ Λ_{N+1}, exact float64 in exact decimal; "" if stage B did not run
@@ -64,5 +65,6 @@ var theorems1D = []string{
 var theoremsPolygon = []string{
 	"min-max principle (Courant-Fischer): Rayleigh-Ritz upper bounds",
 	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds with (enriched) Crouzeix-Raviart elements",
+	"Lehmann-Goerisch with Raviart-Thomas fluxes: H. Behnke, F. Goerisch, Topics in Validated Computations (1994) 277-322; T. Vejchodsky, arXiv:1801.02561",
 	"Sylvester's law of inertia: verified eigenvalue counts",
 }

@@ -10,12 +10,14 @@ import (
 	"gapcert/fem/problem"
 	"gapcert/fem/tri"
 	"gapcert/interval"
+	"gapcert/temple"
 )
 
 // computePolygon runs the polygon pipeline once: Rayleigh–Ritz upper bounds
 // from conforming P_p on one mesh and projection lower bounds (stage A,
 // METHODS §5) from Crouzeix–Raviart or enriched Crouzeix–Raviart elements
-// on another. As in 1D, every number returned as a bound is verified and
+// on another, and Lehmann–Goerisch lower bounds (stage B, METHODS §6) with
+// Raviart–Thomas fluxes on the trial mesh. As in 1D, every number returned as a bound is verified and
 // the floating-point parts only choose vectors and shifts.
 func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	want := p.Eigenvalues + extraIndices
@@ -84,8 +86,44 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 		prev = lh
 		out.stageA[i] = shiftedProjectionLower(lh, c, out.ch)
 	}
-	out.notes = append(out.notes, "lower bounds on polygons come from the projection bound (stage A) only")
+
+	// Stage B: Lehmann–Goerisch with Raviart–Thomas fluxes on the trial mesh.
+	if !chooseN(p, out) {
+		return out, nil
+	}
+	weight, err := pot.InverseShifted(gamma, r.weightTaylor)
+	if err != nil {
+		return nil, err
+	}
+	flux := tri.NewFlux(m, r.fluxDegree, bcs)
+	out.polygon.fluxUnknowns = flux.N()
+	trial := vecs[:out.n]
+	fluxes, err := flux.MinimizeApprox(space, trial, weight)
+	if err != nil {
+		out.notes = append(out.notes, "stage B skipped: "+err.Error())
+		return out, nil
+	}
+	a2, err := flux.LGMatrix(space, trial, fluxes, pot, weight, gamma)
+	if err != nil {
+		return nil, err
+	}
+	out.lg, err = temple.LehmannGoerisch(leading(a0, out.n), leading(a1, out.n), a2, out.rho)
+	if err != nil {
+		out.notes = append(out.notes, "stage B gave no bound: "+err.Error())
+		out.lg = nil
+	}
 	return out, nil
+}
+
+// leading returns the leading n×n block of a.
+func leading(a *enclose.Sym, n int) *enclose.Sym {
+	b := enclose.NewSym(n)
+	for i := 0; i < n; i++ {
+		for j := 0; j <= i; j++ {
+			b.Set(i, j, a.At(i, j))
+		}
+	}
+	return b
 }
 
 // shiftedProjectionLower returns a float ≤ c + f(Λ_h − c) for every

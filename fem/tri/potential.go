@@ -132,6 +132,9 @@ func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, err
 			return nil, &SignError{What: "V + γ", Triangle: t, Vertices: v.mesh.Vertices(t), Range: g, Need: "> 0"}
 		}
 	}
+	if poly, ok := v.expr.Polynomial(); ok && poly.Degree() == 0 {
+		order = 1 // 1/(V + γ) is constant: its order-1 model is exact
+	}
 	we := formula.Div(formula.Const(interval.I{Lo: 1, Hi: 1}), formula.Add(v.expr, formula.Const(gamma)))
 	w, err := NewPotential(v.mesh, we, order)
 	if err != nil {
