@@ -2,8 +2,11 @@ package tri
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 
+	"gapcert/enclose/sparse"
+	"gapcert/fem/mesh"
 	"gapcert/interval"
 	"gapcert/temple"
 )
@@ -59,4 +62,144 @@ func TestLGExactEigenpairSquare(t *testing.T) {
 		t.Fatalf("lower bound %.17g is %.2g below Λ_1 = %.17g", lower[0], rel, exact.Hi)
 	}
 	t.Logf("Λ_1 ≥ %.17g, exact %.17g, relative gap %.2g", lower[0], exact.Mid(), (exact.Hi-lower[0])/exact.Hi)
+}
+
+// rectangle returns (0, a)×(0, b) split along a diagonal, refined `levels`
+// times; sides 0..3 are bottom, right, top, left.
+func rectangle(t *testing.T, a, b float64, levels int) *mesh.Mesh {
+	t.Helper()
+	m, err := mesh.FromPolygon([][2]interval.I{pt(0, 0), pt(a, 0), pt(a, b), pt(0, b)}, [][3]int{{0, 1, 2}, {0, 2, 3}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := 0; i < levels; i++ {
+		m = m.Refine()
+	}
+	return m
+}
+
+// robinRoot returns the k-th positive root of tan x = 2αx/(x² − α²), the
+// 1D Robin problem −u″ = x²u on (0, 1) with u′ = αu at 0 and −αu at 1
+// (separation of variables; common practice), by float bisection on
+// (x² − α²) sin x − 2αx cos x between kπ − π and kπ (accurate to a few
+// ulps; an oracle, used with a 1e-12 relative slack).
+func robinRoot(alpha float64, k int) float64 {
+	f := func(x float64) float64 { return (x*x-alpha*alpha)*math.Sin(x) - 2*alpha*x*math.Cos(x) }
+	lo, hi := float64(k-1)*math.Pi+1e-12, float64(k)*math.Pi
+	for i := 0; i < 200; i++ {
+		mid := (lo + hi) / 2
+		if (f(lo) < 0) == (f(mid) < 0) {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	return (lo + hi) / 2
+}
+
+// Mixed and Robin rectangles with the optimal fluxes: the bounds must lie
+// below the exact eigenvalues and within 1e-8 of them. Exact values by
+// separation of variables (common practice):
+//   - (0, 2)×(0, 1), Dirichlet at y = 0, 1 and Neumann at x = 0, 2:
+//     λ = π² + m²π²/4, so Λ_1 = π² + γ, Λ_2 = 5π²/4 + γ, Λ_3 = 2π² + γ;
+//   - the unit square with Robin α = 1 on every side: λ = x_i² + x_j²
+//     with x_k the roots of robinRoot, so Λ_1 = 2x_1² + γ, Λ_2 = Λ_3 = x_1² + x_2² + γ.
+func TestLGMixedAndRobinRectangles(t *testing.T) {
+	const gamma = 1
+	neu := BC{}
+	robin := BC{Alpha: interval.Point(1)}
+	pi2 := math.Pi * math.Pi
+	x1, x2 := robinRoot(1, 1), robinRoot(1, 2)
+	cases := []struct {
+		name  string
+		m     *mesh.Mesh
+		bc    []BC
+		exact []float64 // Λ_1..Λ_N
+		rho   float64   // ≤ Λ_{N+1}
+	}{
+		{"mixed", rectangle(t, 2, 1, 2), []BC{dirichlet, neu, dirichlet, neu}, []float64{pi2 + gamma, 1.25*pi2 + gamma}, 0.999*2*pi2 + gamma},
+		{"robin", rectangle(t, 1, 1, 2), allBC(4, robin), []float64{2*x1*x1 + gamma, x1*x1 + x2*x2 + gamma, x1*x1 + x2*x2 + gamma}, 0.999*2*x2*x2 + gamma},
+	}
+	for _, c := range cases {
+		s := NewLagrange(c.m, 6, c.bc)
+		v := mustPotential(t, c.m, "0", 1)
+		k, mm := s.AssembleApprox(v, gamma)
+		_, vecs, err := sparse.LowestEigs(k, mm, len(c.exact))
+		if err != nil {
+			t.Fatal(err)
+		}
+		lower := lgLowest(t, s, vecs, 5, c.bc, v, gamma, c.rho)
+		for i, e := range c.exact {
+			if lower[i] > e*(1+1e-12) {
+				t.Errorf("%s: Λ_%d ≥ %.17g claimed, exact %.17g", c.name, i+1, lower[i], e)
+			}
+			if rel := (e - lower[i]) / e; rel > 1e-8 {
+				t.Errorf("%s: Λ_%d ≥ %.17g is %.2g below the exact %.17g", c.name, i+1, lower[i], rel, e)
+			}
+		}
+	}
+}
+
+// Any flux is admissible (METHODS §6): perturbing the optimal fluxes by
+// large random amounts must keep every bound below the exact value (or
+// make the Lehmann matrix fail its positivity test), on the mixed
+// rectangle above.
+func TestLGPerturbedFluxesStaySound(t *testing.T) {
+	const gamma = 1
+	pi2 := math.Pi * math.Pi
+	bc := []BC{dirichlet, {}, dirichlet, {}}
+	m := rectangle(t, 2, 1, 1)
+	s := NewLagrange(m, 5, bc)
+	v := mustPotential(t, m, "0", 1)
+	k, mm := s.AssembleApprox(v, gamma)
+	_, vecs, err := sparse.LowestEigs(k, mm, 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := interval.Point(gamma)
+	w, err := v.InverseShifted(g, 4)
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := NewFlux(m, 4, bc)
+	best, err := f.MinimizeApprox(s, vecs, w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a0, a1, err := s.RitzMatrices(vecs, v, g)
+	if err != nil {
+		t.Fatal(err)
+	}
+	exact := []float64{pi2 + gamma, 1.25*pi2 + gamma}
+	rng := rand.New(rand.NewPCG(5, 7))
+	bounded := 0
+	for trial := 0; trial < 40; trial++ {
+		scale := math.Pow(10, -6+float64(trial%7))
+		fl := make([][]float64, len(best))
+		for i := range best {
+			fl[i] = append([]float64(nil), best[i]...)
+			for j := range fl[i] {
+				fl[i][j] += scale * rng.NormFloat64()
+			}
+		}
+		a2, err := f.LGMatrix(s, vecs, fl, v, w, g)
+		if err != nil {
+			t.Fatal(err)
+		}
+		lower, err := temple.LehmannGoerisch(a0, a1, a2, 0.999*2*pi2+gamma)
+		if err != nil {
+			continue
+		}
+		for i, e := range exact {
+			if lower[i] > e {
+				t.Fatalf("perturbation %g: Λ_%d ≥ %.17g claimed, exact %.17g", scale, i+1, lower[i], e)
+			}
+			if !math.IsInf(lower[i], -1) {
+				bounded++
+			}
+		}
+	}
+	if bounded < 20 {
+		t.Fatalf("only %d bounds from 40 perturbed flux sets: the test exercises too little", bounded)
+	}
 }
