@@ -1,0 +1,272 @@
+package certify
+
+import (
+	"encoding/json"
+	"fmt"
+	"math/big"
+	"time"
+
+	"gapcert/certs"
+	"gapcert/certs/hypothesis"
+	"gapcert/certs/named"
+	"gapcert/fem/problem"
+	"gapcert/interval"
+)
+
+// evaluateClaims returns the verdicts on p's claims over the certified
+// enclosures of res (Claim.Evaluate: holds, fails or undecided, from the
+// interval enclosure of lhs − rhs).
+//
+// A built-in claim "@name" (package certs/named) is its catalogue
+// inequality, evaluated the same way, together with the verdicts on the
+// hypotheses of its theorem (package certs/hypothesis) and, for a claim
+// with a reference quantity, the certificate of that quantity. The
+// reference certificate is computed by Certify, or, when opt.recorded is
+// set (the re-check), taken from the recorded claim and verified by Check;
+// a recorded reference that is missing, of another problem or does not
+// verify is a *MismatchError.
+func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.ClaimResult, error) {
+	env := claimEnv(p, res)
+	if p.Dim == 2 && len(p.Vertices) == 3 {
+		// The inradius of a triangle is 2·area/perimeter (common practice:
+		// the area is the sum of the three triangles on the sides with
+		// apex at the incentre, each of height r).
+		env["inradius"] = p.Area().MulF(2).Div(p.Perimeter())
+	}
+	var out []certs.ClaimResult
+	for i, text := range p.Claims {
+		if named.IsNamed(text) {
+			r, err := evaluateNamed(p, env, i, text, opt)
+			if err != nil {
+				return nil, err
+			}
+			out = append(out, r)
+			continue
+		}
+		cl, err := certs.ParseClaim(text)
+		if err != nil {
+			return nil, fmt.Errorf("certify: claim %q: %w", text, err)
+		}
+		out = append(out, cl.Evaluate(env))
+	}
+	return out, nil
+}
+
+// evaluateNamed evaluates the built-in claim text, the i-th claim of p.
+func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text string, opt Options) (certs.ClaimResult, error) {
+	c, err := named.Lookup(text)
+	if err != nil {
+		return certs.ClaimResult{}, fmt.Errorf("certify: claim %q: %w", text, err)
+	}
+	cl, err := certs.ParseClaim(c.Inequality)
+	if err != nil {
+		return certs.ClaimResult{}, fmt.Errorf("certify: built-in claim %s: %w", c.Text(), err)
+	}
+	var hyps []certs.Hypothesis
+	for _, name := range c.Hypotheses {
+		h, ok := hypothesis.Decide(name, p)
+		if !ok {
+			return certs.ClaimResult{}, fmt.Errorf("certify: built-in claim %s: no decision procedure for the hypothesis %q", c.Text(), name)
+		}
+		hyps = append(hyps, h)
+	}
+	local := env
+	var ref *certs.Reference
+	reason := ""
+	if c.Reference != "" {
+		var gap interval.I
+		ref, gap, reason, err = reference(p, c, i, opt)
+		if err != nil {
+			return certs.ClaimResult{}, err
+		}
+		if ref != nil {
+			local = make(map[string]interval.I, len(env)+1)
+			for k, v := range env {
+				local[k] = v
+			}
+			local[c.Reference] = gap
+		}
+	}
+	r := cl.Evaluate(local)
+	if reason != "" {
+		r.Reason = reason
+	}
+	r.Text, r.Inequality, r.Hypotheses, r.Reference = c.Text(), c.Inequality, hyps, ref
+	return r, nil
+}
+
+// Reference computations: the relative width asked of the reference gap
+// (far below the widths of polygon enclosures, so that the comparison is
+// limited by the polygon) and the budget for reaching it.
+const (
+	referenceRelWidth  = "1e-10"
+	referenceTimeLimit = 20 * time.Second
+)
+
+// reference returns the certificate of the reference quantity of the
+// built-in claim c (the i-th claim of p) and its certified enclosure. When
+// the reference cannot be stated for p (no common Robin coefficient, a
+// diameter that cannot be written exactly), ref is nil and reason says
+// why; the claim is then undecided.
+func reference(p *problem.Problem, c named.Claim, i int, opt Options) (ref *certs.Reference, gap interval.I, reason string, err error) {
+	if c.Reference != named.RobinIntervalGap {
+		return nil, gap, "", fmt.Errorf("certify: built-in claim %s: unknown reference %q", c.Text(), c.Reference)
+	}
+	sub, why := robinIntervalProblem(p)
+	if sub == nil {
+		return nil, gap, "the reference gap is not defined for this problem: " + why, nil
+	}
+	if opt.recorded != nil {
+		ref, gap, err = recordedReference(opt.recorded, i, c, sub)
+		return ref, gap, "", err
+	}
+	cert, err := Certify(sub, Options{TimeLimit: referenceTimeLimit, Tool: opt.Tool, Now: opt.Now, Memory: opt.Memory})
+	if err != nil {
+		return nil, gap, "", fmt.Errorf("certify: reference %s of %s: %w", c.Reference, c.Text(), err)
+	}
+	data, err := cert.Marshal()
+	if err != nil {
+		return nil, gap, "", err
+	}
+	gap, err = cert.Results.Gap.Interval()
+	if err != nil {
+		return nil, gap, "", err
+	}
+	return &certs.Reference{Name: c.Reference, Certificate: data}, gap, "", nil
+}
+
+// recordedReference takes the reference of the i-th recorded claim,
+// demands that it certifies the problem sub and verifies it by Check; the
+// enclosure is its recorded gap (which Check has just reproduced).
+func recordedReference(rec *certs.Certificate, i int, c named.Claim, sub *problem.Problem) (*certs.Reference, interval.I, error) {
+	path := fmt.Sprintf("claims[%d].reference", i)
+	mismatch := func(format string, args ...any) error {
+		return &MismatchError{Problems: []string{path + ": " + fmt.Sprintf(format, args...)}}
+	}
+	if i >= len(rec.Claims) || rec.Claims[i].Text != c.Text() || rec.Claims[i].Reference == nil || rec.Claims[i].Reference.Name != c.Reference {
+		return nil, interval.I{}, mismatch("the certificate of %s for %s is missing", c.Reference, c.Text())
+	}
+	ref := rec.Claims[i].Reference
+	inner, err := certs.Unmarshal(ref.Certificate)
+	if err != nil {
+		return nil, interval.I{}, mismatch("%v", err)
+	}
+	if inner.ProblemSHA256 != sub.SHA256() {
+		return nil, interval.I{}, mismatch("certifies another problem than %s", sub.Canonical())
+	}
+	if err := Check(ref.Certificate); err != nil {
+		return nil, interval.I{}, mismatch("%v", err)
+	}
+	gap, err := inner.Results.Gap.Interval()
+	if err != nil {
+		return nil, interval.I{}, mismatch("%v", err)
+	}
+	return ref, gap, nil
+}
+
+// robinIntervalProblem returns the problem −u″ = λu on (0, D), D the exact
+// diameter of the polygon p, with p's common Robin coefficient α at both
+// ends (parameters carried over, since α and the coordinates may name
+// them), or nil and the reason it cannot be stated.
+func robinIntervalProblem(p *problem.Problem) (*problem.Problem, string) {
+	alpha, ok := hypothesis.CommonAlpha(p)
+	if !ok {
+		return nil, "the sides do not have one common Robin coefficient"
+	}
+	d, why := diameterText(p)
+	if why != "" {
+		return nil, why
+	}
+	params := map[string]string{}
+	for name, v := range p.Params {
+		params[name] = v.Text
+	}
+	src, err := json.Marshal(map[string]any{
+		"name":        "interval (0, D) with the Robin coefficient of the polygon",
+		"domain":      map[string]any{"interval": []string{"0", d}},
+		"parameters":  params,
+		"boundary":    map[string]string{"robin": alpha.Text},
+		"eigenvalues": 2,
+		"target":      map[string]string{"relative_width": referenceRelWidth},
+	})
+	if err != nil {
+		return nil, err.Error()
+	}
+	sub, err := problem.Parse(src)
+	if err != nil {
+		return nil, "the interval problem is not valid: " + err.Error()
+	}
+	return sub, ""
+}
+
+// diameterText returns an exact text of the diameter of the polygon, the
+// largest distance between two vertices: for rational vertices the square
+// root of the largest squared distance (computed exactly), else the square
+// root of the max of the squared distances of the pairs whose enclosure
+// reaches the largest lower bound (the other pairs are verified shorter, so
+// the max over the candidates is the diameter).
+func diameterText(p *problem.Problem) (string, string) {
+	v := p.Vertices
+	rational := true
+	for _, q := range v {
+		rational = rational && q[0].Rat != nil && q[1].Rat != nil
+	}
+	if rational {
+		best := new(big.Rat)
+		for i := range v {
+			for j := i + 1; j < len(v); j++ {
+				var dx, dy big.Rat
+				dx.Sub(v[i][0].Rat, v[j][0].Rat)
+				dy.Sub(v[i][1].Rat, v[j][1].Rat)
+				dx.Mul(&dx, &dx)
+				dy.Mul(&dy, &dy)
+				if d2 := dx.Add(&dx, &dy); d2.Cmp(best) > 0 {
+					best = new(big.Rat).Set(d2)
+				}
+			}
+		}
+		if root, ok := ratSqrt(best); ok {
+			return problem.RatText(root), ""
+		}
+		return "sqrt(" + problem.RatText(best) + ")", ""
+	}
+	type pair struct {
+		d2   interval.I
+		text string
+	}
+	var pairs []pair
+	lower := 0.0
+	for i := range v {
+		for j := i + 1; j < len(v); j++ {
+			dx, dy := v[i][0].Val.Sub(v[j][0].Val), v[i][1].Val.Sub(v[j][1].Val)
+			d2 := dx.Sqr().Add(dy.Sqr())
+			text := fmt.Sprintf("((%s)-(%s))^2+((%s)-(%s))^2", v[i][0].Text, v[j][0].Text, v[i][1].Text, v[j][1].Text)
+			pairs = append(pairs, pair{d2, text})
+			lower = max(lower, d2.Lo)
+		}
+	}
+	var cand []string
+	for _, q := range pairs {
+		if q.d2.Hi >= lower {
+			cand = append(cand, q.text)
+		}
+	}
+	expr := cand[len(cand)-1]
+	for k := len(cand) - 2; k >= 0; k-- {
+		expr = "max(" + cand[k] + "," + expr + ")"
+	}
+	text := "sqrt(" + expr + ")"
+	if len(text) > 400 {
+		return "", fmt.Sprintf("the diameter's exact text would be %d bytes long (%d candidate pairs of vertices), more than a number may have", len(text), len(cand))
+	}
+	return text, ""
+}
+
+// ratSqrt returns √r when it is rational.
+func ratSqrt(r *big.Rat) (*big.Rat, bool) {
+	n, d := new(big.Int).Sqrt(r.Num()), new(big.Int).Sqrt(r.Denom())
+	if new(big.Int).Mul(n, n).Cmp(r.Num()) != 0 || new(big.Int).Mul(d, d).Cmp(r.Denom()) != 0 {
+		return nil, false
+	}
+	return new(big.Rat).SetFrac(n, d), true
+}
