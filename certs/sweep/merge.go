@@ -6,8 +6,10 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"runtime"
 	"sort"
 	"strings"
+	"sync"
 
 	"gapcert/certs"
 	"gapcert/certs/certify"
@@ -76,7 +78,8 @@ func (e *MergeError) Error() string {
 // Every point must have exactly one such certificate. Otherwise Merge
 // returns a *MergeError listing each foreign, tampered, duplicate and
 // missing file or point, and writes nothing. File paths in the merged
-// summary are relative to outDir.
+// summary are relative to outDir. Certificates are checked on GOMAXPROCS
+// goroutines.
 func Merge(dirs []string, outDir string, progress func(format string, args ...any)) (*Summary, error) {
 	if len(dirs) == 0 {
 		return nil, errors.New("no sweep directories to merge")
@@ -85,9 +88,7 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 	if err != nil {
 		return nil, err
 	}
-	var issues []MergeIssue
-	found := map[int][]string{}
-	points := map[int]*Point{}
+	var paths []string
 	widths := map[string]string{}
 	for _, dir := range dirs {
 		for k, v := range knownWidths(dir) {
@@ -98,23 +99,31 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 			return nil, err
 		}
 		for _, e := range entries {
-			if e.IsDir() || !strings.HasSuffix(e.Name(), certSuffix) {
-				continue
+			if !e.IsDir() && strings.HasSuffix(e.Name(), certSuffix) {
+				paths = append(paths, filepath.Join(dir, e.Name()))
 			}
-			path := filepath.Join(dir, e.Name())
-			p, is := mergeFile(f, path)
-			if progress != nil {
-				progress("%s: %s\n", path, mergeNote(is))
-			}
-			if is != nil {
-				issues = append(issues, *is)
-				continue
-			}
-			found[p.Index] = append(found[p.Index], path)
-			if len(found[p.Index]) == 1 {
-				p.RelWidth = widths[p.CertificateSHA256]
-				points[p.Index] = p
-			}
+		}
+	}
+	checked := make([]checkedFile, len(paths))
+	parallel(len(paths), runtime.GOMAXPROCS(0), func(i int) {
+		checked[i].point, checked[i].issue = mergeFile(f, paths[i])
+	})
+	var issues []MergeIssue
+	found := map[int][]string{}
+	points := map[int]*Point{}
+	for i, c := range checked {
+		if progress != nil {
+			progress("%s: %s\n", paths[i], mergeNote(c.issue))
+		}
+		if c.issue != nil {
+			issues = append(issues, *c.issue)
+			continue
+		}
+		p := c.point
+		found[p.Index] = append(found[p.Index], paths[i])
+		if len(found[p.Index]) == 1 {
+			p.RelWidth = widths[p.CertificateSHA256]
+			points[p.Index] = p
 		}
 	}
 	for _, pt := range f.Points {
@@ -167,6 +176,33 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 		return nil, err
 	}
 	return s, nil
+}
+
+// checkedFile is the outcome of mergeFile.
+type checkedFile struct {
+	point *Point
+	issue *MergeIssue
+}
+
+// parallel calls do(0) … do(n−1) on at most jobs goroutines.
+func parallel(n, jobs int, do func(i int)) {
+	jobs = max(1, min(jobs, n))
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for w := 0; w < jobs; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				do(i)
+			}
+		}()
+	}
+	for i := 0; i < n; i++ {
+		next <- i
+	}
+	close(next)
+	wg.Wait()
 }
 
 func mergeNote(is *MergeIssue) string {

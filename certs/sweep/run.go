@@ -9,6 +9,7 @@ import (
 	"os"
 	"path/filepath"
 	"strconv"
+	"sync"
 	"time"
 
 	"gapcert/certs"
@@ -42,6 +43,9 @@ type RunOptions struct {
 	Tool   string
 	Now    func() time.Time
 	Memory int64
+	// Jobs is the number of points certified at a time (0 or 1: one).
+	// Certificates do not depend on it, except through the time limit.
+	Jobs int
 	// Progress receives one line per point; nil = quiet.
 	Progress func(format string, args ...any)
 }
@@ -116,25 +120,34 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		Shard:        shard,
 		Parameters:   f.ParamNames(),
 		TotalPoints:  len(f.Points),
-		Points:       []Point{},
 	}
+	var mine []*FamilyPoint
 	for _, pt := range f.Points {
-		if !shard.Contains(pt.Index) {
-			continue
+		if shard.Contains(pt.Index) {
+			mine = append(mine, pt)
 		}
-		p := r.point(pt)
-		if opt.Progress != nil {
-			msg := p.Status
-			if p.Verdict != "" {
-				msg += ", " + p.Verdict
-			}
-			if p.Error != "" {
-				msg += ": " + p.Error
-			}
-			opt.Progress("point %d/%d (%s): %s\n", pt.Index+1, len(f.Points), f.describe(pt), msg)
-		}
-		s.Points = append(s.Points, p)
 	}
+	s.Points = make([]Point, len(mine))
+	var mu sync.Mutex // serializes progress lines
+	parallel(len(mine), opt.Jobs, func(i int) {
+		pt := mine[i]
+		t0 := time.Now()
+		p := r.point(pt)
+		s.Points[i] = p
+		if opt.Progress == nil {
+			return
+		}
+		msg := p.Status
+		if p.Verdict != "" {
+			msg += ", " + p.Verdict
+		}
+		if p.Error != "" {
+			msg += ": " + p.Error
+		}
+		mu.Lock()
+		defer mu.Unlock()
+		opt.Progress("point %d/%d (%s): %s (%.2fs)\n", pt.Index+1, len(f.Points), f.describe(pt), msg, time.Since(t0).Seconds())
+	})
 	if err := writeSummary(dir, base, s); err != nil {
 		return s, err
 	}

@@ -22,6 +22,7 @@ type sweepFlags struct {
 	timeLimit time.Duration
 	refine    bool
 	setAside  bool
+	jobs      int
 	quiet     bool
 }
 
@@ -46,7 +47,7 @@ overwritten (--set-aside-invalid renames it to NAME.rejected and
 recomputes the point). --refine-undecided recomputes points whose claims
 are undecided with a width target 10 times below the widest width reached,
 at most 3 times, keeping a new certificate only if it verifies.
-"gapcert merge" gathers the shards.
+--jobs N certifies N points at a time. "gapcert merge" gathers the shards.
 
 Exit status: 0 if every point has a valid certificate, 1 on a failure
 (including a point that could not be certified), 2 if the family file or
@@ -61,6 +62,7 @@ not verify.`,
 	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", 0, "refinement budget per point (default: the family's, else 60s)")
 	cmd.Flags().BoolVar(&f.refine, "refine-undecided", false, "recompute points with an undecided claim with tighter width targets")
 	cmd.Flags().BoolVar(&f.setAside, "set-aside-invalid", false, "rename a certificate in DIR that does not verify to NAME.rejected and recompute its point")
+	cmd.Flags().IntVarP(&f.jobs, "jobs", "j", 1, "points certified at a time")
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
 	_ = cmd.MarkFlagRequired("out")
 	return cmd
@@ -73,15 +75,18 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 	}
 	opt := sweep.RunOptions{
 		FamilyName: filepath.Base(file), RelWidth: f.relWidth, TimeLimit: f.timeLimit,
-		RefineUndecided: f.refine, SetAsideInvalid: f.setAside, Tool: "gapcert " + Version,
+		RefineUndecided: f.refine, SetAsideInvalid: f.setAside, Jobs: f.jobs, Tool: "gapcert " + Version,
+	}
+	if f.jobs < 1 {
+		return &exitError{code: exitFailure, err: fmt.Errorf("--jobs %d: want at least 1", f.jobs)}
+	}
+	if f.timeLimit < 0 {
+		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration", f.timeLimit)}
 	}
 	if f.shard != "" {
 		if opt.Shard, err = sweep.ParseShard(f.shard); err != nil {
 			return &exitError{code: exitInvalid, err: err}
 		}
-	}
-	if f.timeLimit < 0 {
-		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration", f.timeLimit)}
 	}
 	if !f.quiet && isTerminal(cmd.ErrOrStderr()) {
 		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
