@@ -1,0 +1,408 @@
+package sweepplot
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+	"path/filepath"
+	"slices"
+	"strings"
+
+	gplot "gonum.org/v1/plot"
+	"gonum.org/v1/plot/font"
+	"gonum.org/v1/plot/palette/moreland"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"gapcert/certs"
+	"gapcert/certs/plot"
+)
+
+// Layout of the pictures.
+const (
+	pictureWidth   = 12 * vg.Centimeter
+	bandHeight     = 8 * vg.Centimeter // title and axes of a band
+	mapHeight      = 9 * vg.Centimeter // title and axes of a map
+	colourBarWidth = 2.6 * vg.Centimeter
+	captionLine    = 0.42 * vg.Centimeter
+	margin         = 0.25 * vg.Centimeter
+	colourLevels   = 255
+)
+
+var (
+	captionStyle = text.Style{
+		Color:   color.Gray{Y: 0x40},
+		Font:    font.From(gplot.DefaultFont, 8),
+		XAlign:  draw.XLeft,
+		YAlign:  draw.YBottom,
+		Handler: gplot.DefaultTextHandler,
+	}
+	barColour      = color.RGBA{R: 0x1f, G: 0x4e, B: 0x8c, A: 0xff}
+	shadeColour    = color.RGBA{R: 0xc6, G: 0xdb, B: 0xef, A: 0xff}
+	thresholdStyle = draw.LineStyle{Color: color.Black, Width: vg.Points(1), Dashes: []vg.Length{vg.Points(4), vg.Points(2)}}
+	noCertColour   = color.Gray{Y: 0xd0}
+	verdictOrder   = []string{certs.Holds, certs.Undecided, certs.Fails, ""}
+	verdictGlyphs  = map[string]draw.GlyphStyle{
+		certs.Holds:     {Shape: draw.CircleGlyph{}, Color: barColour, Radius: vg.Points(2.5)},
+		certs.Undecided: {Shape: draw.RingGlyph{}, Color: color.RGBA{R: 0xe0, G: 0x80, A: 0xff}, Radius: vg.Points(4)},
+		certs.Fails:     {Shape: draw.CrossGlyph{}, Color: color.RGBA{R: 0xc0, A: 0xff}, Radius: vg.Points(4)},
+		"":              {Shape: draw.SquareGlyph{}, Color: color.Gray{Y: 0x60}, Radius: vg.Points(2)},
+	}
+	mapGlyphs = map[string]draw.GlyphStyle{
+		certs.Undecided: {Shape: draw.RingGlyph{}, Color: color.Black, Radius: vg.Points(4)},
+		certs.Fails:     {Shape: draw.CrossGlyph{}, Color: color.Black, Radius: vg.Points(4)},
+	}
+)
+
+// relWords are the relations as drawn, and negated are their negations.
+var (
+	relWords = map[string]string{">=": "≥", ">": ">", "<=": "≤", "<": "<"}
+	negated  = map[string]string{">=": "<", ">": "≤", "<=": ">", "<": "≥"}
+)
+
+// picture is one image, drawn the same way in every format.
+type picture struct {
+	width, height vg.Length
+	draw          func(c draw.Canvas)
+}
+
+// write renders pic into path, in the format named by its extension.
+func (pic picture) write(path string) error {
+	ext := strings.TrimPrefix(strings.ToLower(filepath.Ext(path)), ".")
+	if !slices.Contains(plot.Formats(), ext) {
+		return fmt.Errorf("%s: unknown picture format %q (hint: end the file name with .%s)", path, ext, strings.Join(plot.Formats(), " or ."))
+	}
+	return plot.Render(path, ext, pic.width, pic.height, pic.draw)
+}
+
+// Write draws the band into path (.png or .svg).
+func (b *Band) Write(path string) error { return b.picture().write(path) }
+
+// Write draws the map into path (.png or .svg).
+func (m *Map) Write(path string) error { return m.picture().write(path) }
+
+func (b *Band) picture() picture {
+	q := plot.Drawable(b.Quantity)
+	p := newPlot(plot.Drawable(b.Title) + "\ncertified enclosures of " + q)
+	p.X.Label.Text = plot.Drawable(b.X)
+	p.Y.Label.Text = q
+	p.Add(plotter.NewGrid())
+	legend := newLegend()
+
+	if len(b.Points) > 1 {
+		ring := make(plotter.XYs, 0, 2*len(b.Points))
+		for _, pt := range b.Points {
+			ring = append(ring, plotter.XY{X: pt.X, Y: pt.Quantity.Hi})
+		}
+		for i := len(b.Points) - 1; i >= 0; i-- {
+			ring = append(ring, plotter.XY{X: b.Points[i].X, Y: b.Points[i].Quantity.Lo})
+		}
+		shade, err := plotter.NewPolygon(ring)
+		if err != nil {
+			panic("sweepplot: " + err.Error()) // the ends were checked finite
+		}
+		shade.Color, shade.LineStyle.Width = shadeColour, 0
+		p.Add(shade)
+		legend.Add("shading between points: for reading only, not certified", shade)
+	}
+	bars := &intervalBars{points: b.Points}
+	p.Add(bars)
+	legend.Add("certified enclosure of "+q+" at each point", bars)
+
+	if b.Threshold != "" {
+		line := thresholdLine(b.Points)
+		p.Add(line)
+		legend.Add("threshold "+plot.Drawable(b.Threshold), line)
+	}
+	rel, t := relWords[b.Rel], plot.Drawable(b.Threshold)
+	for _, v := range verdictOrder {
+		var xys plotter.XYs
+		for _, pt := range b.Points {
+			if pt.Verdict == v {
+				xys = append(xys, plotter.XY{X: pt.X, Y: pt.Quantity.Mid()})
+			}
+		}
+		if len(xys) == 0 {
+			continue
+		}
+		sc, err := plotter.NewScatter(xys)
+		if err != nil {
+			panic("sweepplot: " + err.Error())
+		}
+		sc.GlyphStyle = verdictGlyphs[v]
+		p.Add(sc)
+		var what string
+		switch {
+		case b.Threshold == "" && v == "":
+			what = "no claims"
+		case b.Threshold == "":
+			what = map[string]string{certs.Holds: "every claim holds", certs.Undecided: "a claim is undecided, none fails", certs.Fails: "a claim fails"}[v] + " (the point's certificate)"
+		case v == certs.Holds:
+			what = "holds: " + q + " " + rel + " " + t + " for all values in the enclosures"
+		case v == certs.Undecided:
+			what = "undecided: neither holds nor fails on the whole enclosures"
+		case v == certs.Fails:
+			what = "fails: " + q + " " + negated[b.Rel] + " " + t + " for all values in the enclosures"
+		}
+		legend.Add(fmt.Sprintf("%s (%d)", what, len(xys)), sc)
+	}
+	lo, hi := b.yRange()
+	pad := 0.06 * (hi - lo)
+	if pad == 0 {
+		pad = math.Max(1e-12, 0.01*math.Abs(hi))
+	}
+	p.Y.Min, p.Y.Max = lo-pad, hi+pad
+	x0, x1 := b.Points[0].X, b.Points[len(b.Points)-1].X
+	if xpad := 0.04 * (x1 - x0); xpad > 0 {
+		p.X.Min, p.X.Max = x0-xpad, x1+xpad
+	}
+
+	caption := []string{
+		"certified: each bar encloses the quantity over the enclosures of one certificate;",
+		"nothing is certified between the sampled parameter values.",
+	}
+	if n := b.notes(); n != "" {
+		caption = append(caption, n)
+	}
+	return framed(p, legend, caption, pictureWidth, bandHeight, 0, nil)
+}
+
+// notes says which points are not drawn and where the enclosures came from.
+func (b *Band) notes() string { return notes(b.Uncertified, b.Missing) }
+
+func notes(uncertified []int, missing int) string {
+	var s []string
+	if n := len(uncertified); n > 0 {
+		s = append(s, fmt.Sprintf("%d point(s) without a certificate not drawn.", n))
+	}
+	if missing > 0 {
+		s = append(s, fmt.Sprintf("%d certificate file(s) not found (enclosures from the summary).", missing))
+	}
+	return strings.Join(s, " ")
+}
+
+// yRange is the extent of the enclosures and thresholds.
+func (b *Band) yRange() (lo, hi float64) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, pt := range b.Points {
+		lo, hi = math.Min(lo, pt.Quantity.Lo), math.Max(hi, pt.Quantity.Hi)
+		if b.Threshold != "" {
+			lo, hi = math.Min(lo, pt.Threshold.Lo), math.Max(hi, pt.Threshold.Hi)
+		}
+	}
+	return lo, hi
+}
+
+// thresholdLine joins the thresholds of the points (a horizontal line
+// when they are all the same enclosure).
+func thresholdLine(points []BandPoint) *plotter.Line {
+	xys := make(plotter.XYs, len(points))
+	for i, pt := range points {
+		xys[i] = plotter.XY{X: pt.X, Y: pt.Threshold.Mid()}
+	}
+	line, err := plotter.NewLine(xys)
+	if err != nil {
+		panic("sweepplot: " + err.Error())
+	}
+	line.LineStyle = thresholdStyle
+	return line
+}
+
+func (m *Map) picture() picture {
+	side := "lhs − rhs"
+	if m.Rel == "<=" || m.Rel == "<" {
+		side = "rhs − lhs"
+	}
+	p := newPlot(plot.Drawable(m.Title) + "\nclaim " + plot.Drawable(m.Claim) + "\ncolour: certified lower bound of " + side)
+	p.X.Label.Text = plot.Drawable(m.X)
+	p.Y.Label.Text = plot.Drawable(m.Y)
+	xs, ys := m.axes()
+	g := &marginGrid{xs: xs, ys: ys, z: make([]float64, len(xs)*len(ys))}
+	for i := range g.z {
+		g.z[i] = math.NaN()
+	}
+	top := 0.0
+	for _, c := range m.Cells {
+		if !math.IsInf(c.Margin, 0) {
+			top = math.Max(top, math.Abs(c.Margin))
+		}
+	}
+	if top == 0 {
+		top = 1
+	}
+	for _, c := range m.Cells {
+		// An infinite bound (a claim that could not be enclosed) is drawn
+		// at the end of the colour scale.
+		g.z[slices.Index(ys, c.Y)*len(xs)+slices.Index(xs, c.X)] = math.Max(-top, math.Min(top, c.Margin))
+	}
+	colours := moreland.SmoothBlueRed()
+	colours.SetMin(-top)
+	colours.SetMax(top)
+	heat := plotter.NewHeatMap(g, colours.Palette(colourLevels))
+	heat.Min, heat.Max, heat.NaN = -top, top, noCertColour
+	p.Add(heat)
+
+	legend := newLegend()
+	for _, v := range []string{certs.Undecided, certs.Fails} {
+		var xys plotter.XYs
+		for _, c := range m.Cells {
+			if c.Verdict == v {
+				xys = append(xys, plotter.XY{X: c.X, Y: c.Y})
+			}
+		}
+		if len(xys) == 0 {
+			continue
+		}
+		sc, err := plotter.NewScatter(xys)
+		if err != nil {
+			panic("sweepplot: " + err.Error())
+		}
+		sc.GlyphStyle = mapGlyphs[v]
+		p.Add(sc)
+		what := "undecided: the enclosure of " + side + " does not settle the claim"
+		if v == certs.Fails {
+			what = "fails: certified for the whole enclosure"
+		}
+		legend.Add(fmt.Sprintf("%s (%d)", what, len(xys)), sc)
+	}
+	if slices.ContainsFunc(g.z, math.IsNaN) {
+		legend.Add("no certificate at this grid point", swatch{noCertColour})
+	}
+
+	bar := gplot.New()
+	bar.HideX()
+	bar.Y.Label.Text = "lower bound of " + side
+	bar.Add(&plotter.ColorBar{ColorMap: colours, Vertical: true, Colors: colourLevels})
+	bar.Y.Min, bar.Y.Max = -top, top
+
+	caption := []string{
+		"certified: each cell is one certificate, coloured by the lower end of its",
+		"enclosure of " + side + "; unmarked cells hold; nothing is certified between grid points.",
+	}
+	if n := notes(m.Uncertified, m.Missing); n != "" {
+		caption = append(caption, n)
+	}
+	return framed(p, legend, caption, pictureWidth, mapHeight, colourBarWidth, bar)
+}
+
+// axes returns the distinct parameter values of the cells, increasing.
+func (m *Map) axes() (xs, ys []float64) {
+	for _, c := range m.Cells {
+		xs, ys = append(xs, c.X), append(ys, c.Y)
+	}
+	slices.Sort(xs)
+	slices.Sort(ys)
+	return slices.Compact(xs), slices.Compact(ys)
+}
+
+// marginGrid is the plotter.GridXYZ of a map (NaN where no certificate).
+type marginGrid struct {
+	xs, ys []float64
+	z      []float64 // row-major, rows along ys
+}
+
+func (g *marginGrid) Dims() (c, r int)   { return len(g.xs), len(g.ys) }
+func (g *marginGrid) Z(c, r int) float64 { return g.z[r*len(g.xs)+c] }
+func (g *marginGrid) X(c int) float64    { return g.xs[c] }
+func (g *marginGrid) Y(r int) float64    { return g.ys[r] }
+
+// newPlot returns a plot with a (possibly multi-line) title.
+func newPlot(title string) *gplot.Plot {
+	p := gplot.New()
+	p.Title.Text = title
+	p.Title.TextStyle.Font = font.From(gplot.DefaultFont, 11)
+	p.Title.Padding = 0.2 * vg.Centimeter
+	return p
+}
+
+func newLegend() gplot.Legend {
+	l := gplot.NewLegend()
+	l.TextStyle.Font = font.From(gplot.DefaultFont, 9)
+	l.Left, l.Top = true, true
+	l.Padding = vg.Points(1.5)
+	return l
+}
+
+// framed lays out a picture: the plot (with a colour bar of the given
+// width on its right when bar is not nil), the legend below it and the
+// caption lines at the foot, on a white background.
+func framed(p *gplot.Plot, legend gplot.Legend, caption []string, width, plotHeight, barWidth vg.Length, bar *gplot.Plot) picture {
+	r := legend.Rectangle(draw.Canvas{})
+	legendHeight := r.Max.Y - r.Min.Y + 2*margin
+	captionHeight := vg.Length(len(caption))*captionLine + margin
+	return picture{
+		width:  width,
+		height: plotHeight + legendHeight + captionHeight,
+		draw: func(c draw.Canvas) {
+			c.SetColor(color.White)
+			c.Fill(c.Rectangle.Path())
+			for i, line := range caption {
+				y := c.Min.Y + margin/2 + vg.Length(len(caption)-1-i)*captionLine
+				c.FillText(captionStyle, vg.Point{X: c.Min.X + margin, Y: y}, plot.Drawable(line))
+			}
+			c = draw.Crop(c, margin, -margin, captionHeight, -margin)
+			area := draw.Crop(c, 0, 0, legendHeight, 0)
+			main := draw.Crop(area, 0, -barWidth, 0, 0)
+			p.Draw(main)
+			if bar != nil {
+				data := p.DataCanvas(main)
+				strip := draw.Crop(area, area.Max.X-area.Min.X-barWidth+margin, -margin, 0, 0)
+				strip.Min.Y, strip.Max.Y = data.Min.Y, data.Max.Y
+				barData := bar.DataCanvas(strip)
+				strip.Min.Y -= barData.Min.Y - data.Min.Y
+				strip.Max.Y += data.Max.Y - barData.Max.Y
+				bar.Draw(strip)
+			}
+			legendArea := draw.Crop(c, 0, 0, 0, -(c.Max.Y - c.Min.Y - legendHeight))
+			legend.Draw(draw.Crop(legendArea, margin, 0, 0, -margin))
+		},
+	}
+}
+
+// intervalBars draws the enclosure [lo, hi] of each point as a vertical
+// bar with caps.
+type intervalBars struct{ points []BandPoint }
+
+var barStyle = draw.LineStyle{Color: barColour, Width: vg.Points(1.2)}
+
+const capWidth = 3 * vg.Millimeter
+
+// Plot implements plot.Plotter.
+func (b *intervalBars) Plot(c draw.Canvas, p *gplot.Plot) {
+	trX, trY := p.Transforms(&c)
+	for _, pt := range b.points {
+		x, lo, hi := trX(pt.X), trY(pt.Quantity.Lo), trY(pt.Quantity.Hi)
+		c.StrokeLine2(barStyle, x, lo, x, hi)
+		c.StrokeLine2(barStyle, x-capWidth/2, lo, x+capWidth/2, lo)
+		c.StrokeLine2(barStyle, x-capWidth/2, hi, x+capWidth/2, hi)
+	}
+}
+
+// DataRange implements plot.DataRanger.
+func (b *intervalBars) DataRange() (xmin, xmax, ymin, ymax float64) {
+	xmin, xmax, ymin, ymax = math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
+	for _, pt := range b.points {
+		xmin, xmax = math.Min(xmin, pt.X), math.Max(xmax, pt.X)
+		ymin, ymax = math.Min(ymin, pt.Quantity.Lo), math.Max(ymax, pt.Quantity.Hi)
+	}
+	return xmin, xmax, ymin, ymax
+}
+
+// Thumbnail implements plot.Thumbnailer.
+func (b *intervalBars) Thumbnail(c *draw.Canvas) {
+	x := (c.Min.X + c.Max.X) / 2
+	c.StrokeLine2(barStyle, x, c.Min.Y, x, c.Max.Y)
+	c.StrokeLine2(barStyle, x-capWidth/2, c.Min.Y, x+capWidth/2, c.Min.Y)
+	c.StrokeLine2(barStyle, x-capWidth/2, c.Max.Y, x+capWidth/2, c.Max.Y)
+}
+
+// swatch is a legend thumbnail filled with one colour.
+type swatch struct{ colour color.Color }
+
+// Thumbnail implements plot.Thumbnailer.
+func (s swatch) Thumbnail(c *draw.Canvas) {
+	c.SetColor(s.colour)
+	c.Fill(c.Rectangle.Path())
+}

@@ -1,0 +1,208 @@
+package sweepplot
+
+import (
+	"encoding/json"
+	"image/png"
+	"math"
+	"math/big"
+	"os"
+	"path/filepath"
+	"reflect"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/plot/vg"
+
+	"gapcert/certs"
+	"gapcert/certs/plot"
+	"gapcert/interval/decimalio"
+)
+
+func load(t *testing.T, name string) *Sweep {
+	t.Helper()
+	s, err := Load(sweepDir(name))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}
+
+// The pictures of the golden tests: the band of D²·gap/π² over c with a
+// threshold that makes c = 0 undecided (the quantity is exactly 3 there),
+// c = 4 hold and the larger c fail, and the map of the second triangle
+// claim.
+func goldenBand(t *testing.T) *Band {
+	b, err := load(t, "convex").Band("c", "D^2*gap/pi^2", "3 + c^2/100", ">=")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return b
+}
+
+func goldenMap(t *testing.T) *Map {
+	m, err := load(t, "triangle").Map("a", "b", "2")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return m
+}
+
+// TestGoldenSVG compares the structure of the SVG pictures with
+// testdata/*.golden.json (run with -update to rewrite them).
+func TestGoldenSVG(t *testing.T) {
+	dir := t.TempDir()
+	for _, c := range []struct {
+		golden string
+		write  func(string) error
+	}{
+		{"band", goldenBand(t).Write},
+		{"map", goldenMap(t).Write},
+	} {
+		path := filepath.Join(dir, c.golden+".svg")
+		if err := c.write(path); err != nil {
+			t.Fatal(err)
+		}
+		got := summarise(t, path)
+		golden := filepath.Join("testdata", c.golden+".golden.json")
+		if *update {
+			data, err := json.MarshalIndent(got, "", "  ")
+			if err != nil {
+				t.Fatal(err)
+			}
+			if err := os.WriteFile(golden, append(data, '\n'), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			continue
+		}
+		data, err := os.ReadFile(golden)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var want svgSummary
+		if err := json.Unmarshal(data, &want); err != nil {
+			t.Fatal(err)
+		}
+		if !reflect.DeepEqual(got, want) {
+			gotJSON, _ := json.MarshalIndent(got, "", "  ")
+			t.Errorf("%s: SVG structure differs from %s:\n%s", c.golden, golden, gotJSON)
+		}
+	}
+}
+
+// TestSVGLabels checks that the pictures say what is certified and mark
+// each verdict.
+func TestSVGLabels(t *testing.T) {
+	dir := t.TempDir()
+	band, cells := filepath.Join(dir, "band.svg"), filepath.Join(dir, "map.svg")
+	if err := goldenBand(t).Write(band); err != nil {
+		t.Fatal(err)
+	}
+	if err := goldenMap(t).Write(cells); err != nil {
+		t.Fatal(err)
+	}
+	for path, want := range map[string][]string{
+		band: {"certified enclosures of D^2*gap/pi^2", "threshold 3 + c^2/100", "holds: D^2*gap/pi^2 ≥ 3 + c^2/100 for all values in the enclosures (1)",
+			"undecided: neither holds nor fails on the whole enclosures (1)", "fails: D^2*gap/pi^2 < 3 + c^2/100 for all values in the enclosures (4)",
+			"nothing is certified between the sampled parameter values.", "shading between points: for reading only, not certified"},
+		cells: {"claim D^2*gap >= 75", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
+			"fails: certified for the whole enclosure (1)", "unmarked cells hold"},
+	} {
+		text := strings.Join(summarise(t, path).Texts, "\n")
+		for _, w := range want {
+			if !strings.Contains(text, w) {
+				t.Errorf("%s lacks %q; texts:\n%s", filepath.Base(path), w, text)
+			}
+		}
+	}
+}
+
+// TestPNG decodes the PNG pictures and checks their size: width and height
+// in inches times plot.PNGDPI, rounded (vgimg's rule).
+func TestPNG(t *testing.T) {
+	dir := t.TempDir()
+	for name, pic := range map[string]picture{"band": goldenBand(t).picture(), "map": goldenMap(t).picture()} {
+		path := filepath.Join(dir, name+".png")
+		if err := pic.write(path); err != nil {
+			t.Fatal(err)
+		}
+		f, err := os.Open(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		img, err := png.Decode(f)
+		f.Close()
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		px := func(l vg.Length) int { return int(float64(l/vg.Inch)*plot.PNGDPI + 0.5) }
+		if b := img.Bounds(); b.Dx() != px(pic.width) || b.Dy() != px(pic.height) {
+			t.Errorf("%s: %d×%d pixels, want %d×%d", name, b.Dx(), b.Dy(), px(pic.width), px(pic.height))
+		}
+		if b := img.Bounds(); b.Dx() != 709 {
+			t.Errorf("%s: %d pixels wide, want 709 (12 cm at 150 dpi)", name, b.Dx())
+		}
+	}
+}
+
+// piDigits is π to 50 decimals (OEIS A000796).
+const piDigits = "3.14159265358979323846264338327950288419716939937510"
+
+// TestBandContainsTruth: for c = 0 the problem is −u″ = λu on (−1, 1) with
+// Dirichlet ends, λk = k²π²/4, so D²·gap/π² = 4·(3π²/4)/π² = 3 exactly
+// (common practice); the band must contain 3 and be narrow there, and
+// the verdict against the threshold 3 must be undecided (neither side can
+// be certified at equality).
+func TestBandContainsTruth(t *testing.T) {
+	b, err := load(t, "convex").Band("c", "D^2*gap/pi^2", "3", ">=")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := b.Points[0]
+	if p.XText != "0" || !(p.Quantity.Lo <= 3 && 3 <= p.Quantity.Hi) || p.Quantity.Hi-p.Quantity.Lo > 1e-5 {
+		t.Errorf("c = %s: D²·gap/π² ∈ %v, want a narrow enclosure of 3", p.XText, p.Quantity)
+	}
+	if p.Verdict != certs.Undecided {
+		t.Errorf("c = 0: verdict %s, want undecided", p.Verdict)
+	}
+	// λ1 at c = 0 is π²/4.
+	b1, err := load(t, "convex").Band("c", "lambda1", "", "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	pi, _ := new(big.Rat).SetString(piDigits)
+	want, _ := new(big.Rat).Quo(new(big.Rat).Mul(pi, pi), big.NewRat(4, 1)).Float64()
+	if q := b1.Points[0].Quantity; !(q.Lo <= want && want <= q.Hi) || q.Hi-q.Lo > 1e-5*want {
+		t.Errorf("c = 0: λ1 ∈ %v, want a narrow enclosure of π²/4 = %.17g", q, want)
+	}
+}
+
+// TestMapContainsTruth: the apex (0, 1) and (1, 1) give the isosceles right
+// triangle with legs 1, whose Dirichlet eigenvalues are π²(m² + n²),
+// m > n ≥ 1 (the antisymmetric modes of the unit square; common
+// practice): λ1 = 5π², λ2 = 10π², D = √2, so D²·gap = 10π² and the first
+// claim's margin is 10π² − 64π²/9 = 26π²/9. The certified lower bound must
+// be below it, within the 5% width the sweep asked for.
+func TestMapContainsTruth(t *testing.T) {
+	m, err := load(t, "triangle").Map("a", "b", "D^2*gap >= 64*pi^2/9")
+	if err != nil {
+		t.Fatal(err)
+	}
+	pi, _ := decimalio.ParseRat(piDigits)
+	truth, _ := new(big.Rat).Mul(new(big.Rat).Mul(pi, pi), big.NewRat(26, 9)).Float64()
+	found := 0
+	for _, c := range m.Cells {
+		if c.Y != 1 || (c.X != 0 && c.X != 1) {
+			continue
+		}
+		found++
+		if !(c.Margin <= truth && c.Margin >= truth-0.1*10*math.Pi*math.Pi) {
+			t.Errorf("apex (%g, 1): margin lower bound %g, want in [%g − 10%% of D²·gap, %g]", c.X, c.Margin, truth, truth)
+		}
+		if c.Verdict != certs.Holds {
+			t.Errorf("apex (%g, 1): verdict %s, want holds", c.X, c.Verdict)
+		}
+	}
+	if found != 2 {
+		t.Fatalf("found %d of the two right-angled apexes", found)
+	}
+}
