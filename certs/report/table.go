@@ -43,23 +43,35 @@ type Options struct {
 	Checked     bool
 }
 
+// Validate reports an unknown format or notation, or a negative
+// WidthDigits.
+func (opt Options) Validate() error {
+	if !slices.Contains(Formats(), opt.Format) {
+		return fmt.Errorf("report: unknown format %q (hint: use one of %s)", opt.Format, strings.Join(Formats(), ", "))
+	}
+	if opt.Notation != "" && !slices.Contains(Notations(), opt.Notation) {
+		return fmt.Errorf("report: unknown notation %q (hint: use one of %s)", opt.Notation, strings.Join(Notations(), ", "))
+	}
+	if opt.WidthDigits < 0 {
+		return fmt.Errorf("report: WidthDigits %d is negative", opt.WidthDigits)
+	}
+	return nil
+}
+
 // Write writes a table of the certified enclosures of entries, one row per
 // certificate in the given order: the problem name, λ1, λ2, the gap
 // λ2 − λ1, D²·(λ2 − λ1)/π² and the verdict of each claim, followed by a
 // caption naming the notation, the tools that computed the certificates,
 // whether they were re-verified, and the SHA-256 of each certificate file.
 // Every printed enclosure contains the certified one (Shorten). It returns
-// an error for an unknown format or notation, for no entries, and for a
+// the error of Options.Validate, an error for no entries, and for a
 // certificate without λ1 or λ2.
 func Write(w io.Writer, entries []Entry, opt Options) error {
+	if err := opt.Validate(); err != nil {
+		return err
+	}
 	if opt.Notation == "" {
 		opt.Notation = Compact
-	}
-	if !slices.Contains(Formats(), opt.Format) {
-		return fmt.Errorf("report: unknown format %q (hint: use one of %s)", opt.Format, strings.Join(Formats(), ", "))
-	}
-	if !slices.Contains(Notations(), opt.Notation) {
-		return fmt.Errorf("report: unknown notation %q (hint: use one of %s)", opt.Notation, strings.Join(Notations(), ", "))
 	}
 	if len(entries) == 0 {
 		return errors.New("report: no certificates")
