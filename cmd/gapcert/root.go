@@ -59,7 +59,7 @@ verify.`,
 	root.CompletionOptions.DisableDefaultCmd = true
 	root.SetOut(stdout)
 	root.SetErr(stderr)
-	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd(), newSweepCmd(), newMergeCmd())
+	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd(), newSweepCmd(), newMergeCmd(), newReportCmd(), newPlotCmd())
 	return root
 }
 

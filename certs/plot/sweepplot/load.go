@@ -40,7 +40,7 @@ type Sweep struct {
 // eigenvalue, gap, diameter and D²·gap/π² enclosures and claim results
 // must be those of the point, string for string. A point whose file is
 // absent is counted in Sweep.Missing (its enclosures are taken from the
-// summary alone); a disagreement is an error naming the point and the file.
+// summary alone); a disagreement is a *CrossCheckError.
 func Load(path string) (*Sweep, error) {
 	st, err := os.Stat(path)
 	if err != nil {
@@ -85,12 +85,27 @@ func Load(path string) (*Sweep, error) {
 		}
 		p, err := crossCheck(pt, raw)
 		if err != nil {
-			return nil, fmt.Errorf("%s: point %d and its certificate %s disagree: %v", path, pt.Index, certPath, err)
+			return nil, &CrossCheckError{Summary: path, Point: pt.Index, Certificate: certPath, Err: err}
 		}
 		out.Problems[i] = p
 	}
 	return out, nil
 }
+
+// CrossCheckError reports a summary point that disagrees with its
+// certificate file.
+type CrossCheckError struct {
+	Summary     string
+	Point       int // the point's index
+	Certificate string
+	Err         error
+}
+
+func (e *CrossCheckError) Error() string {
+	return fmt.Sprintf("%s: point %d and its certificate %s disagree: %v", e.Summary, e.Point, e.Certificate, e.Err)
+}
+
+func (e *CrossCheckError) Unwrap() error { return e.Err }
 
 // crossCheck compares a summary point with its certificate file and
 // returns the certificate's problem.

@@ -1,0 +1,106 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/certs/plot/sweepplot"
+)
+
+func newPlotCmd() *cobra.Command {
+	var x, y, quantity, threshold, relation, claim, out string
+	cmd := &cobra.Command{
+		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR | --y PARAM --claim N) --out FILE.png|.svg",
+		Short: "Draw the certified results of a sweep against its parameters",
+		Long: `plot draws the certified results of a sweep ("gapcert sweep"), read from
+its summary (SUMMARY.json, or DIR/summary.json) and cross-checked against
+the certificate files beside it (file SHA-256, problem hash, every
+enclosure and claim result).
+
+One-parameter sweeps, --x PARAM --quantity EXPR [--threshold EXPR]: the
+certified enclosure of the quantity at each point against the parameter.
+EXPR is a formula over lambda1 … lambdaN, gap, D, area and perimeter
+(polygons), the parameters, pi and e, enclosed in interval arithmetic over
+each point's certified enclosures (e.g. "D^2*gap/pi^2"). With a threshold
+each point is marked by the certified verdict of "quantity --relation
+threshold" (holds, undecided, fails), and the threshold is drawn as a line;
+without one, by the verdict of the point's own claims.
+
+Two-parameter sweeps, --x PARAM --y PARAM --claim N|TEXT: a map of cells,
+each coloured by the certified lower bound of the margin of the claim
+(lhs − rhs for >=, >; rhs − lhs for <=, <), undecided and failing cells
+marked.
+
+The format follows the extension of --out (.png or .svg). Only the
+sampled points are certified; the pictures say so. This command draws
+sweeps; "certify --plot DIR" draws the approximate eigenfunctions of one
+problem.
+
+Exit status: 0 on success, 1 on bad usage, an unreadable summary, an
+unknown parameter or name or an empty sweep, 3 if the summary disagrees
+with a certificate file.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			fail := func(err error) error { return &exitError{code: exitFailure, err: err} }
+			switch {
+			case out == "":
+				return fail(errors.New("--out FILE.png or FILE.svg is required"))
+			case x == "":
+				return fail(errors.New("--x PARAM is required"))
+			case y == "" && quantity == "":
+				return fail(errors.New("give --quantity EXPR (a band over one parameter) or --y PARAM and --claim N (a map over two)"))
+			case y != "" && (quantity != "" || threshold != ""):
+				return fail(errors.New("--y draws a map of a claim's margin; --quantity and --threshold belong to a band over one parameter"))
+			case y != "" && claim == "":
+				return fail(errors.New("a map needs --claim N (1-based) or --claim TEXT"))
+			case y == "" && claim != "":
+				return fail(errors.New("--claim belongs to a map over two parameters (give --y)"))
+			}
+			s, err := sweepplot.Load(args[0])
+			var cc *sweepplot.CrossCheckError
+			switch {
+			case errors.As(err, &cc):
+				return &exitError{code: exitMismatch, err: err}
+			case err != nil:
+				return fail(err)
+			}
+			var write func(string) error
+			var missing, uncertified int
+			if y == "" {
+				b, err := s.Band(x, quantity, threshold, relation)
+				if err != nil {
+					return fail(err)
+				}
+				write, missing, uncertified = b.Write, b.Missing, len(b.Uncertified)
+			} else {
+				m, err := s.Map(x, y, claim)
+				if err != nil {
+					return fail(err)
+				}
+				write, missing, uncertified = m.Write, m.Missing, len(m.Uncertified)
+			}
+			if err := write(out); err != nil {
+				return fail(err)
+			}
+			if uncertified > 0 {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: %d point(s) without a certificate are not drawn\n", s.Path, uncertified)
+			}
+			if missing > 0 {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: %d certificate file(s) not found; their enclosures are the summary's\n", s.Path, missing)
+			}
+			fmt.Fprintf(cmd.OutOrStdout(), "picture written to %s\n", out)
+			return nil
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&x, "x", "", "the parameter on the horizontal axis")
+	f.StringVar(&quantity, "quantity", "", "formula to draw against the parameter (band)")
+	f.StringVar(&threshold, "threshold", "", "formula the quantity is compared with (band)")
+	f.StringVar(&relation, "relation", ">=", "comparison of quantity and threshold: >=, >, <= or <")
+	f.StringVar(&y, "y", "", "the second parameter, on the vertical axis (map)")
+	f.StringVar(&claim, "claim", "", "the claim of a map: its number (1-based) or its text")
+	f.StringVarP(&out, "out", "o", "", "the picture file, .png or .svg")
+	return cmd
+}

@@ -1,0 +1,106 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"os"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"gapcert/certs/certify"
+	"gapcert/certs/report"
+)
+
+func newReportCmd() *cobra.Command {
+	var (
+		format, notation, out string
+		widthDigits           int
+		noCheck               bool
+	)
+	cmd := &cobra.Command{
+		Use:   "report CERT.json|DIR",
+		Short: "Write a LaTeX or Markdown table of certified enclosures",
+		Long: `report writes a table with one row per certificate: the problem name, λ1,
+λ2, the gap λ2 − λ1, D²·gap/π² and the verdict of each claim. Given a
+directory it reads every *.json certificate in it, sorted by file name;
+other JSON files there (problem files, sweep summaries) are left out, each
+named on stderr.
+
+Enclosures are written in the compact notation of papers, the common
+leading digits with the differing trailing digits of the lower end as a
+subscript and of the upper end as a superscript (9.86960440_{1}^{3} is
+[9.869604401, 9.869604403]), or as [lower, upper] with --notation bracket.
+The printed lower end is at most and the printed upper end at least the
+certified bound (rounded outward in exact decimal arithmetic). The caption
+names the tool versions and the SHA-256 of each certificate file.
+
+Every certificate is re-verified by recomputation first (as "gapcert
+check" does) unless --no-check is given; the caption says which.
+
+Exit status: 0 on success, 1 on bad usage or a file that cannot be read or
+is not a certificate, 2 if re-verifying a certificate would exceed the
+memory budget, 3 if a certificate does not verify.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opt := report.Options{Format: format, Notation: notation, WidthDigits: widthDigits, Tool: "gapcert " + Version, Checked: !noCheck}
+			if widthDigits < 1 {
+				return &exitError{code: exitFailure, err: fmt.Errorf("--width-digits %d: want at least 1", widthDigits)}
+			}
+			if err := opt.Validate(); err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
+			entries, skipped, err := report.Read(args[0])
+			for _, s := range skipped {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: left out: %s\n", s.Path, s.Reason)
+			}
+			if err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
+			if !noCheck {
+				for _, e := range entries {
+					if err := checkEntry(e); err != nil {
+						return err
+					}
+				}
+			}
+			var buf bytes.Buffer
+			if err := report.Write(&buf, entries, opt); err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
+			if out == "" {
+				_, err = cmd.OutOrStdout().Write(buf.Bytes())
+			} else {
+				err = os.WriteFile(out, buf.Bytes(), 0o644)
+			}
+			if err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
+			return nil
+		},
+	}
+	cmd.Flags().StringVar(&format, "format", report.LaTeX, "output format: "+strings.Join(report.Formats(), " or "))
+	cmd.Flags().StringVar(&notation, "notation", report.Compact, "enclosure notation: "+strings.Join(report.Notations(), " or "))
+	cmd.Flags().IntVar(&widthDigits, "width-digits", report.DefaultWidthDigits, "significant digits of each enclosure's width kept when shortening")
+	cmd.Flags().BoolVar(&noCheck, "no-check", false, "do not re-verify the certificates (the caption says so)")
+	cmd.Flags().StringVarP(&out, "output", "o", "", "write the table to this file instead of stdout")
+	return cmd
+}
+
+// checkEntry re-verifies one certificate of a report, with the exit codes
+// of the check command.
+func checkEntry(e report.Entry) error {
+	err := certify.Check(e.Data)
+	var mm *certify.MismatchError
+	var budget *certify.BudgetError
+	switch {
+	case err == nil:
+		return nil
+	case errors.As(err, &budget):
+		return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", e.Path, err)}
+	case errors.As(err, &mm):
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", e.Path, err)}
+	}
+	return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", e.Path, err)}
+}
