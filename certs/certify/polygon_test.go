@@ -61,14 +61,14 @@ func TestRectangles(t *testing.T) {
 	} {
 		src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],[%q,"0"],[%q,%q],["0",%q]]},"boundary":[%s,%s,%s,%s],"eigenvalues":3}`,
 			tc.a, tc.a, tc.b, tc.b, sideJSON(tc.sides[0]), sideJSON(tc.sides[1]), sideJSON(tc.sides[2]), sideJSON(tc.sides[3]))
-		_, c := certifyText(t, src, 1e-2)
+		_, c := certifyText(t, src, 1e-8)
 		truth := rectangleEigenvalues(tc.a, tc.b, tc.sides, 3)
 		for k := 1; k <= 3; k++ {
-			requireBig(t, fmt.Sprintf("%s lambda%d", src, k), eigenEnclosure(t, c, k), truth[k-1], 1, 2e-2)
+			requireBig(t, fmt.Sprintf("%s lambda%d", src, k), eigenEnclosure(t, c, k), truth[k-1], 1, 1e-8)
 		}
 		// The gap, also where λ2 = λ3 (the square).
 		gap, _ := c.Results.Gap.Interval()
-		requireBig(t, src+" gap", gap, new(big.Float).SetPrec(oraclePrec).Sub(truth[1], truth[0]), 1, 5e-2)
+		requireBig(t, src+" gap", gap, new(big.Float).SetPrec(oraclePrec).Sub(truth[1], truth[0]), 1, 2e-8)
 	}
 }
 
@@ -93,9 +93,9 @@ func TestEquilateralTriangle(t *testing.T) {
 			name  string
 			m     [3]float64
 			width float64
-		}{{"dirichlet", [3]float64{3, 7, 7}, 2e-2}, {"neumann", [3]float64{0, 1, 1}, 2e-2}} {
+		}{{"dirichlet", [3]float64{3, 7, 7}, 1e-9}, {"neumann", [3]float64{0, 1, 1}, 1e-8}} {
 			src := fmt.Sprintf(`{"domain":{"polygon":%s},"boundary":%q,"eigenvalues":3}`, tc.verts, bc.name)
-			_, c := certifyText(t, src, 1e-2)
+			_, c := certifyText(t, src, bc.width)
 			unit := interval.Pi().Sqr().MulF(16).DivF(9 * tc.side * tc.side)
 			for k := 1; k <= 3; k++ {
 				requireEnclosure(t, fmt.Sprintf("%s %s lambda%d", tc.verts, bc.name, k), eigenEnclosure(t, c, k), unit.MulF(bc.m[k-1]), unit.Lo, bc.width)
@@ -109,9 +109,9 @@ func TestEquilateralTriangle(t *testing.T) {
 // TestRightIsosceles: legs 1, Dirichlet: λ = π²(m² + n²), m > n ≥ 1, so
 // 5π², 10π², 13π² (common practice, from the square's antisymmetric modes).
 func TestRightIsosceles(t *testing.T) {
-	_, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":"dirichlet","eigenvalues":3}`, 1e-2)
+	_, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":"dirichlet","eigenvalues":3}`, 1e-9)
 	for k, m := range []float64{5, 10, 13} {
-		requireEnclosure(t, fmt.Sprintf("lambda%d", k+1), eigenEnclosure(t, c, k+1), interval.Pi().Sqr().MulF(m), 1, 2e-2)
+		requireEnclosure(t, fmt.Sprintf("lambda%d", k+1), eigenEnclosure(t, c, k+1), interval.Pi().Sqr().MulF(m), 1, 1e-9)
 	}
 }
 
@@ -121,13 +121,13 @@ func TestRightIsosceles(t *testing.T) {
 func TestSeparablePotential(t *testing.T) {
 	_, c1 := certifyText(t, `{"domain":{"interval":["-1","1"]},"potential":"x^2","boundary":"dirichlet","eigenvalues":2}`, 1e-12)
 	mu1, mu2 := eigenEnclosure(t, c1, 1), eigenEnclosure(t, c1, 2)
-	_, c2 := certifyText(t, `{"domain":{"polygon":[["-1","-1"],["1","-1"],["1","1"],["-1","1"]]},"potential":"x^2 + y^2","boundary":"dirichlet","eigenvalues":3}`, 1e-2)
+	_, c2 := certifyText(t, `{"domain":{"polygon":[["-1","-1"],["1","-1"],["1","1"],["-1","1"]]},"potential":"x^2 + y^2","boundary":"dirichlet","eigenvalues":3}`, 1e-8)
 	for k, truth := range []interval.I{mu1.Add(mu1), mu1.Add(mu2), mu1.Add(mu2)} {
 		got := eigenEnclosure(t, c2, k+1)
 		if !truth.Subset(got.Hull(truth)) || got.Lo > truth.Hi || got.Hi < truth.Lo {
 			t.Errorf("lambda%d: enclosure %v misses %v", k+1, got, truth)
 		}
-		if relWidth(got, 1) > 2e-2 {
+		if relWidth(got, 1) > 1e-8 {
 			t.Errorf("lambda%d: enclosure %v too wide", k+1, got)
 		}
 	}
@@ -139,12 +139,12 @@ func TestSeparablePotential(t *testing.T) {
 // 89–102; value recalled from memory to 13 digits). The domain is not
 // convex, and its convexity is reported so.
 func TestLShape(t *testing.T) {
-	p, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]},"boundary":"dirichlet","eigenvalues":2}`, 1e-2)
+	p, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]},"boundary":"dirichlet","eigenvalues":2}`, 1e-6)
 	if v := p.Convex(); v != "not convex" {
 		t.Errorf("convexity verdict %q", v)
 	}
 	truth := interval.New(9.6397238440218, 9.6397238440220)
-	requireEnclosure(t, "L-shape lambda1", eigenEnclosure(t, c, 1), truth, 1, 2e-2)
+	requireEnclosure(t, "L-shape lambda1", eigenEnclosure(t, c, 1), truth, 1, 2e-6)
 }
 
 // sweepTarget is the relative width the polygon sweep asks for: the sweep
