@@ -34,7 +34,7 @@ func TestSchedulerExamples(t *testing.T) {
 		if c.lastIndex {
 			tasks++
 		}
-		shard := regexp.MustCompile(`--shard "\$` + c.indexVar + `/([0-9]+)"`).FindAllStringSubmatch(text, -1)
+		shard := regexp.MustCompile(`--shard "\$`+c.indexVar+`/([0-9]+)"`).FindAllStringSubmatch(text, -1)
 		if len(shard) != 1 {
 			t.Errorf("%s: %d --shard \"$%s/n\" arguments, want 1", c.file, len(shard), c.indexVar)
 			continue
