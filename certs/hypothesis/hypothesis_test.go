@@ -11,12 +11,14 @@ import (
 
 func parse(t *testing.T, src string) *problem.Problem {
 	t.Helper()
-	p, err := problem.Parse([]byte(src))
+	p, err := parseProblem(src)
 	if err != nil {
 		t.Fatalf("%s: %v", src, err)
 	}
 	return p
 }
+
+func parseProblem(src string) (*problem.Problem, error) { return problem.Parse([]byte(src)) }
 
 const (
 	square = `{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]}`

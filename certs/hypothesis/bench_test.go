@@ -1,0 +1,34 @@
+package hypothesis
+
+import (
+	"testing"
+
+	"gapcert/certs"
+)
+
+// BenchmarkConvexPotentialBudget measures the slowest decision: exp(x + y)
+// has a singular Hessian, so no triangle is decided and the subdivision
+// runs until its budget (maxTriangles) is spent.
+func BenchmarkConvexPotentialBudget(b *testing.B) {
+	p, err := parseProblem(problemText(lshape, "exp(x + y)", `"dirichlet"`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		if h := ConvexPotential(p); h.Verdict == certs.Disproven {
+			b.Fatal("disproven")
+		}
+	}
+}
+
+// BenchmarkConvexPotentialInterval measures an interval decision that
+// bisects toward a kink (−|x| is undecided at 0).
+func BenchmarkConvexPotentialInterval(b *testing.B) {
+	p, err := parseProblem(problemText(`{"interval":["-1","1"]}`, "-abs(x)", `"dirichlet"`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		ConvexPotential(p)
+	}
+}
