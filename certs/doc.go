@@ -17,6 +17,16 @@
 // "holds" only if the inequality is true for every value in them, "fails"
 // only if it is false for every value, and "undecided" otherwise.
 //
+// A built-in claim ("@name", catalogue in package certs/named) is recorded
+// with the inequality it stands for, the verdict on each hypothesis of its
+// theorem (Hypothesis: "proven", "disproven" with a Witness, or
+// "undecided", decided by package certs/hypothesis) and, where it compares
+// with a separately certified quantity, that quantity's own certificate
+// (Reference), which Unmarshal reads strictly as well. The claim's verdict
+// is the certified comparison either way: hypotheses that are not proven
+// mean that the theorem does not (or is not known to) apply, not that the
+// comparison is in doubt.
+//
 // Marshal writes stable JSON (struct field order, sorted map keys, two-space
 // indentation, a trailing newline); Unmarshal is strict: unknown keys,
 // missing sections, unparsable bounds and any format other than Format are
