@@ -229,21 +229,29 @@ func worstVerdict(claims []certs.ClaimResult) string {
 	return v
 }
 
-// knownWidths returns, from the summaries in dir, the relative width
-// target recorded for each certificate (by the certificate's SHA-256).
-// Unreadable summaries are skipped: widths are informative only.
-func knownWidths(dir string) map[string]string {
-	widths := map[string]string{}
+// earlierSummaries reads the summaries in dir that belong to the family
+// with hash familySHA256. Unreadable summaries are skipped: what is taken
+// from them (width targets, the family's file name) is informative only.
+func earlierSummaries(dir, familySHA256 string) []*Summary {
+	var out []*Summary
 	files, _ := filepath.Glob(filepath.Join(dir, "summary*.json"))
 	for _, f := range files {
 		data, err := os.ReadFile(f)
 		if err != nil {
 			continue
 		}
-		s, err := UnmarshalSummary(data)
-		if err != nil {
-			continue
+		if s, err := UnmarshalSummary(data); err == nil && s.FamilySHA256 == familySHA256 {
+			out = append(out, s)
 		}
+	}
+	return out
+}
+
+// knownWidths returns the relative width target recorded in the summaries
+// for each certificate (by the certificate's SHA-256).
+func knownWidths(sums []*Summary) map[string]string {
+	widths := map[string]string{}
+	for _, s := range sums {
 		for _, p := range s.Points {
 			if p.CertificateSHA256 != "" && p.RelWidth != "" {
 				widths[p.CertificateSHA256] = p.RelWidth

@@ -89,11 +89,9 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 		return nil, err
 	}
 	var paths []string
-	widths := map[string]string{}
+	var sums []*Summary
 	for _, dir := range dirs {
-		for k, v := range knownWidths(dir) {
-			widths[k] = v
-		}
+		sums = append(sums, earlierSummaries(dir, f.SHA256)...)
 		entries, err := os.ReadDir(dir)
 		if err != nil {
 			return nil, err
@@ -102,6 +100,13 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 			if !e.IsDir() && strings.HasSuffix(e.Name(), certSuffix) {
 				paths = append(paths, filepath.Join(dir, e.Name()))
 			}
+		}
+	}
+	widths := knownWidths(sums)
+	for _, s := range sums {
+		if s.Family != "" {
+			famName = s.Family // the name the shards were run with
+			break
 		}
 	}
 	checked := make([]checkedFile, len(paths))
@@ -240,7 +245,7 @@ func commonFamily(dirs []string) (*Family, string, error) {
 	if err != nil {
 		return nil, "", err
 	}
-	return f, FamilyFileName, nil
+	return f, FamilyFileName, nil // the copy's name, unless a shard summary knows the original
 }
 
 // mergeFile checks one certificate file against the family and returns its

@@ -112,7 +112,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 	if err := prepareDir(dir, f, base); err != nil {
 		return nil, err
 	}
-	r := &runner{f: f, dir: dir, opt: opt, width: width, widthText: widthText, limit: limit, widths: knownWidths(dir)}
+	r := &runner{f: f, dir: dir, opt: opt, width: width, widthText: widthText, limit: limit, widths: knownWidths(earlierSummaries(dir, f.SHA256))}
 	s := &Summary{
 		Format:       SummaryFormat,
 		Family:       opt.FamilyName,
