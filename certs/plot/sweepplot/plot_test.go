@@ -206,3 +206,25 @@ func TestMapContainsTruth(t *testing.T) {
 		t.Fatalf("found %d of the two right-angled apexes", found)
 	}
 }
+
+// TestBandWithoutThreshold: without a threshold each point carries the
+// least favourable verdict of its own claims from the summary; at c = 0
+// the second claim, D²·gap/π² ≥ 3.3, fails (the quantity is 3) and at
+// c = 20 both hold.
+func TestBandWithoutThreshold(t *testing.T) {
+	b, err := load(t, "convex").Band("c", "gap", "", "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	first, last := b.Points[0], b.Points[len(b.Points)-1]
+	if first.XText != "0" || first.Verdict != certs.Fails || last.XText != "20" || last.Verdict != certs.Holds {
+		t.Errorf("verdicts c=%s %s, c=%s %s; want c=0 fails, c=20 holds", first.XText, first.Verdict, last.XText, last.Verdict)
+	}
+	svg := filepath.Join(t.TempDir(), "band.svg")
+	if err := b.Write(svg); err != nil {
+		t.Fatal(err)
+	}
+	if text := strings.Join(summarise(t, svg).Texts, "\n"); !strings.Contains(text, "a claim fails (the point's certificate) (2)") {
+		t.Errorf("legend lacks the summary verdicts:\n%s", text)
+	}
+}
