@@ -124,13 +124,16 @@ func TestEquilateralTriangleGapEquality(t *testing.T) {
 // 3π²/D² = 3π²/2: the built-in claim holds with margin 3π²/2 and proven
 // hypotheses (convex square, V = 0 convex).
 func TestUnitSquareFundamentalGap(t *testing.T) {
-	data, c := certifyClaims(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet","claims":["@fundamental_gap"]}`, 1e-6)
+	data, c := certifyClaims(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet","claims":["@fundamental_gap","inradius > 0"]}`, 1e-5)
+	if r := c.Claims[1]; r.Verdict != certs.Undecided || r.Reason == "" {
+		t.Errorf("inradius of a square: %s (%q), want undecided: it is defined for triangles", r.Verdict, r.Reason)
+	}
 	r := claimByText(t, c, "@fundamental_gap")
 	if r.Verdict != certs.Holds {
 		t.Fatalf("verdict %s, margin %v", r.Verdict, r.Margin)
 	}
 	requireAllProven(t, r)
-	requireEnclosure(t, "margin", marginOf(t, r), interval.Pi().Sqr().MulF(1.5), 1, 1e-5)
+	requireEnclosure(t, "margin", marginOf(t, r), interval.Pi().Sqr().MulF(1.5), 1, 1e-4)
 	requireVerifies(t, "square", data)
 }
 
@@ -200,7 +203,9 @@ func TestUnitSquarePayneWeinberger(t *testing.T) {
 
 // robinRectangle is a rectangle of our own, (0, 3/2) × (0, 1), α = 1 on
 // every side; its diameter is √13/2.
-const robinRectangle = `{"domain":{"polygon":[["0","0"],["3/2","0"],["3/2","1"],["0","1"]]},"boundary":{"robin":"1"},"claims":["@robin_comparison"]}`
+// Its second claim has a disproven hypothesis (Neumann sides), with a
+// witness side.
+const robinRectangle = `{"domain":{"polygon":[["0","0"],["3/2","0"],["3/2","1"],["0","1"]]},"boundary":{"robin":"1"},"claims":["@robin_comparison","@payne_weinberger"]}`
 
 // TestRobinComparisonRectangle: on a rectangle the Robin gap is at least
 // the gap of the interval (0, D) with the same α (Laugesen,
@@ -245,7 +250,8 @@ func TestRobinComparisonRectangle(t *testing.T) {
 
 // TestRobinComparisonTampering: check re-verifies the reference
 // certificate, so editing its gap, replacing it by a certificate of
-// another interval, or dropping it are all detected.
+// another interval, or dropping it are all detected, and so are edits of
+// the hypotheses, witnesses and inequalities of built-in claims.
 func TestRobinComparisonTampering(t *testing.T) {
 	data, _ := certifyClaims(t, robinRectangle, 1e-4)
 	_, other := certifyClaims(t, `{"domain":{"interval":["0","2"]},"boundary":{"robin":"1"},"target":{"relative_width":"1e-10"}}`, 0)
@@ -262,6 +268,9 @@ func TestRobinComparisonTampering(t *testing.T) {
 		{"reference of another interval", func(c *certs.Certificate) { c.Claims[0].Reference.Certificate = otherData }},
 		{"dropped reference", func(c *certs.Certificate) { c.Claims[0].Reference = nil }},
 		{"edited hypothesis", func(c *certs.Certificate) { c.Claims[0].Hypotheses[3].Verdict = certs.Undecided }},
+		{"edited hypothesis detail", func(c *certs.Certificate) { c.Claims[0].Hypotheses[0].Detail = "every side is fine" }},
+		{"edited witness", func(c *certs.Certificate) { *c.Claims[1].Hypotheses[0].Witness.Side = 1 }},
+		{"edited inequality", func(c *certs.Certificate) { c.Claims[1].Inequality = "lambda2 >= 0" }},
 	} {
 		c, err := certs.Unmarshal(data)
 		if err != nil {
