@@ -22,6 +22,9 @@ const (
 	MaxPoints = 100000
 	// maxNumberText bounds the text of one parameter value.
 	maxNumberText = 400
+	// maxRatBits bounds the numerator and denominator of a value (about
+	// 600 decimal digits; problem files allow exponents up to ±400).
+	maxRatBits = 2000
 	// maxFamilyFile bounds the size of a family file.
 	maxFamilyFile = 1 << 20
 )
@@ -334,7 +337,10 @@ func readRat(raw json.RawMessage, path string, add func(path, msg, hint string))
 	if err == nil {
 		var r *big.Rat
 		if r, err = decimalio.ParseRat(s); err == nil {
-			return r, true
+			if r.Num().BitLen() <= maxRatBits && r.Denom().BitLen() <= maxRatBits {
+				return r, true
+			}
+			err = fmt.Errorf("%s is too large or too finely divided for a parameter value", s)
 		}
 	}
 	add(path, err.Error(), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")

@@ -119,6 +119,7 @@ func TestFamilyErrors(t *testing.T) {
 		{"duplicate key", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"], "name": "M"}]}`, `duplicate key "name" in parameters[0]`},
 		{"trailing data", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}]} {}`, "data after the end"},
 		{"missing template", `{"parameters": [{"name": "L", "values": ["1"]}]}`, "template: missing template"},
+		{"huge value", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1e-5000"]}]}`, "too large or too finely divided"},
 		{"bad width", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "relative_width": "1"}`, "relative_width: must lie in (0, 1)"},
 		{"bad time limit", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "time_limit": "soon"}`, "time_limit:"},
 	} {

@@ -84,6 +84,17 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 	if len(dirs) == 0 {
 		return nil, errors.New("no sweep directories to merge")
 	}
+	seen := map[string]bool{}
+	for _, dir := range dirs {
+		abs, err := filepath.Abs(dir)
+		if err != nil {
+			return nil, err
+		}
+		if seen[abs] {
+			return nil, fmt.Errorf("%s is listed twice", dir)
+		}
+		seen[abs] = true
+	}
 	f, famName, err := commonFamily(dirs)
 	if err != nil {
 		return nil, err

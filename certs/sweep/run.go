@@ -279,6 +279,9 @@ func (r *runner) compute(p *Point, pt *FamilyPoint, path string) bool {
 	}
 	p.Status = StatusComputed
 	p.RelWidth = r.widthText
+	if p.RelWidth == "" {
+		p.RelWidth = pt.Problem.RelWidth.Text
+	}
 	r.fill(p, data, cert)
 	return true
 }

@@ -344,6 +344,9 @@ func TestMergeFlags(t *testing.T) {
 	if err := os.RemoveAll(out); err != nil {
 		t.Fatal(err)
 	}
+	if _, err := Merge(append(dirs, dirs[0]), out, nil); err == nil || !strings.Contains(err.Error(), "listed twice") {
+		t.Errorf("merge with a directory listed twice: %v", err)
+	}
 
 	// A certificate of another problem under a sweep name.
 	p, err := problem.Parse([]byte(`{"domain": {"interval": ["-1", "1"]}, "potential": "x^2", "boundary": "dirichlet"}`))
