@@ -85,3 +85,103 @@ func BenchmarkPolygonStageA(b *testing.B) {
 		})
 	}
 }
+
+// polygonCases are the polygon width targets: the unit square (Dirichlet,
+// 1e-10), the equilateral triangle of side 1 (Dirichlet, 1e-9), a
+// trapezoid of our own with Robin α = 1 on every side and V = x² + y²
+// (1e-7) and the L-shape of three unit squares (Dirichlet, 1e-6).
+var polygonCases = []struct {
+	name, src string
+	target    float64
+}{
+	{"square", `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet","eigenvalues":2}`, 1e-10},
+	{"equilateral", `{"domain":{"polygon":[["0","0"],["1","0"],["1/2","sqrt(3)/2"]]},"boundary":"dirichlet","eigenvalues":2}`, 1e-9},
+	{"trapezoid", `{"domain":{"polygon":[["-1","-1/2"],["3/2","-1/2"],["1","1"],["-1/2","1"]]},"potential":"x^2+y^2","boundary":{"robin":"1"},"eigenvalues":2}`, 1e-7},
+	{"lshape", `{"domain":{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]},"boundary":"dirichlet","eigenvalues":2}`, 1e-6},
+}
+
+// BenchmarkPolygonTargets: the whole certification of each polygon case
+// at its target width (fresh table caches are not forced: the first
+// iteration includes building the exact reference tables).
+func BenchmarkPolygonTargets(b *testing.B) {
+	for _, c := range polygonCases {
+		b.Run(c.name, func(b *testing.B) {
+			p, err := problem.Parse([]byte(c.src))
+			if err != nil {
+				b.Fatal(err)
+			}
+			for i := 0; i < b.N; i++ {
+				cert, err := Certify(p, Options{RelWidth: c.target, TimeLimit: 10 * time.Minute})
+				if err != nil {
+					b.Fatal(err)
+				}
+				if len(cert.Warnings) > 0 {
+					b.Fatalf("%s: %v", c.name, cert.Warnings)
+				}
+			}
+		})
+	}
+}
+
+// BenchmarkPolygonConvergence: width against unknowns for each polygon
+// case, stage A alone (refining its mesh) and with stage B (raising the
+// degree, then refining the trial mesh; for the L-shape, grading). Each
+// sub-benchmark is one computation; the metrics are the relative widths
+// of λ1 and of the gap and the unknowns of the limiting space.
+func BenchmarkPolygonConvergence(b *testing.B) {
+	for _, c := range polygonCases {
+		p, err := problem.Parse([]byte(c.src))
+		if err != nil {
+			b.Fatal(err)
+		}
+		base, err := initialRecipe(p)
+		if err != nil {
+			b.Fatal(err)
+		}
+		type step struct {
+			name string
+			r    recipe
+		}
+		var steps []step
+		corner := len(reentrantCorners(p)) > 0
+		for lv := 3; lv <= 7; lv++ {
+			r := base
+			r.stageARefine, r.refine = lv, max(1, lv-polygonRitzLag)
+			if corner {
+				r.graded = lv
+			}
+			r.fluxDegree = -1 // stage A alone
+			steps = append(steps, step{fmt.Sprintf("stageA-refine%d", lv), r})
+		}
+		for _, s := range [][3]int{{1, 4, 0}, {1, 6, 0}, {1, 8, 0}, {2, 8, 0}, {3, 8, 0}} {
+			r := base
+			r.refine, r.degree, r.graded = s[0], s[1], s[2]
+			if corner {
+				r.refine, r.graded = 1, 2*s[1]-4+2*s[0]
+			}
+			r.fluxDegree = r.degree - 1
+			steps = append(steps, step{fmt.Sprintf("stageB-refine%d-p%d-graded%d", r.refine, r.degree, r.graded), r})
+		}
+		for _, s := range steps {
+			b.Run(c.name+"/"+s.name, func(b *testing.B) {
+				for i := 0; i < b.N; i++ {
+					out, err := compute(p, s.r)
+					if err != nil {
+						b.Fatal(err)
+					}
+					res, err := assemble(p, s.r, out)
+					if err != nil {
+						b.Fatal(err)
+					}
+					b.ReportMetric(res.widths[0], "w-lambda1")
+					b.ReportMetric(res.gapWidth, "w-gap")
+					if s.r.fluxDegree < 0 {
+						b.ReportMetric(float64(out.polygon.stageAUnknowns), "unknowns")
+					} else {
+						b.ReportMetric(float64(out.polygon.fluxUnknowns), "unknowns")
+					}
+				}
+			})
+		}
+	}
+}

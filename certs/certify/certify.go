@@ -305,7 +305,7 @@ const maxPolygonDegree = 8
 // gained less than a factor 10 (then the mesh is refined rather than the
 // degree raised: a model remainder or a singularity limits the widths).
 func refinePolygon(p *problem.Problem, r recipe, out *outcome, stalled bool) (recipe, bool) {
-	corners := len(reentrantCorners(p)) > 0
+	corners := len(singularCorners(p)) > 0
 	if out.n == 0 || out.lg == nil {
 		if r.stageARefine >= maxPolygonRefine {
 			return r, false

@@ -77,7 +77,7 @@ func Check(data []byte) error {
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
 	}
-	fresh, err := res.certificate(p, Options{})
+	fresh, err := res.certificate(p, Options{recorded: cert})
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
 	}

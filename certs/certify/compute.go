@@ -19,7 +19,7 @@ type recipe struct {
 	scale  float64 // π²/D² rounded down; only for choosing shifts
 
 	// Intervals.
-	cells, fluxDegree int
+	cells, fluxDegree int // polygons: fluxDegree −1 runs stage A alone (convergence studies)
 	weightTaylor      int // order of the Taylor models of 1/(V + γ)
 	stageACells       int
 

@@ -68,6 +68,9 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 	out.polygon.triangles, out.polygon.stageATriangles = len(m.Tris), len(ma.Tris)
 	out.polygon.stageAUnknowns = proj.N()
+	if proj.N() < want+1 {
+		return nil, fmt.Errorf("certify: stage-A space of dimension %d is too small for %d eigenvalues (refine its mesh)", proj.N(), want+1)
+	}
 	k, mass, mMin, err := proj.Matrices(potA, gamma)
 	if err != nil {
 		return nil, err
@@ -88,7 +91,7 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 
 	// Stage B: Lehmann–Goerisch with Raviart–Thomas fluxes on the trial mesh.
-	if !chooseN(p, out) {
+	if r.fluxDegree < 0 || !chooseN(p, out) {
 		return out, nil
 	}
 	weight, err := pot.InverseShifted(gamma, r.weightTaylor)
@@ -190,7 +193,7 @@ func sideConditions(p *problem.Problem) []tri.BC {
 }
 
 // polygonMesh triangulates the polygon, refines it uniformly `levels`
-// times and grades it `graded` more levels toward every re-entrant corner.
+// times and grades it `graded` more levels toward every singular corner.
 func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
 	verts := make([][2]interval.I, len(p.Vertices))
 	for i, v := range p.Vertices {
@@ -204,7 +207,7 @@ func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
 		m = m.Refine()
 	}
 	if graded > 0 {
-		for _, c := range reentrantCorners(p) {
+		for _, c := range singularCorners(p) {
 			m = m.RefineGraded(c, graded)
 		}
 	}
@@ -215,15 +218,46 @@ func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
 // counterclockwise polygon, those where the turn (v_i − v_{i−1}) × (v_{i+1} − v_i)
 // is negative. The sign is only used to choose where to grade the mesh.
 func reentrantCorners(p *problem.Problem) []int {
-	n := len(p.Vertices)
 	var out []int
 	for i := range p.Vertices {
-		a, b, c := p.Vertices[(i+n-1)%n], p.Vertices[i], p.Vertices[(i+1)%n]
-		cross := (b[0].Val.Mid()-a[0].Val.Mid())*(c[1].Val.Mid()-b[1].Val.Mid()) -
-			(b[1].Val.Mid()-a[1].Val.Mid())*(c[0].Val.Mid()-b[0].Val.Mid())
-		if cross < 0 {
+		if cross, _ := cornerTurn(p, i); cross < 0 {
 			out = append(out, i)
 		}
 	}
 	return out
+}
+
+// singularCorners lists the vertices near which eigenfunctions are
+// singular, where the driver grades the mesh: near a corner of interior
+// angle θ they behave like r^(π/θ) when both sides are Dirichlet or both
+// not (Neumann, Robin), and like r^(π/(2θ)) when exactly one side is
+// Dirichlet (Grisvard, Elliptic Problems in Nonsmooth Domains, Pitman
+// 1985, §§4–5; Robin sides have the Neumann exponents), so gradients are
+// unbounded for θ > π and for mixed corners with θ > π/2. The angle test
+// is in floating point: it only chooses meshes.
+func singularCorners(p *problem.Problem) []int {
+	n := len(p.Vertices)
+	var out []int
+	for i := range p.Vertices {
+		cross, dot := cornerTurn(p, i)
+		mixed := (p.Boundary[(i+n-1)%n].Kind == problem.Dirichlet) != (p.Boundary[i].Kind == problem.Dirichlet)
+		// θ > π/2 ⇔ the edges' outgoing directions from v_i have a negative dot product or the corner is re-entrant.
+		if cross < 0 || (mixed && dot < 0) {
+			out = append(out, i)
+		}
+	}
+	return out
+}
+
+// cornerTurn returns the turn (v_i − v_{i−1}) × (v_{i+1} − v_i) and the dot
+// product (v_{i−1} − v_i)·(v_{i+1} − v_i) at vertex i (midpoints).
+func cornerTurn(p *problem.Problem, i int) (cross, dot float64) {
+	n := len(p.Vertices)
+	a, b, c := p.Vertices[(i+n-1)%n], p.Vertices[i], p.Vertices[(i+1)%n]
+	ax, ay := a[0].Val.Mid(), a[1].Val.Mid()
+	bx, by := b[0].Val.Mid(), b[1].Val.Mid()
+	cx, cy := c[0].Val.Mid(), c[1].Val.Mid()
+	cross = (bx-ax)*(cy-by) - (by-ay)*(cx-bx)
+	dot = (ax-bx)*(cx-bx) + (ay-by)*(cy-by)
+	return cross, dot
 }

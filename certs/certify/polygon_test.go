@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"encoding/json"
 	"fmt"
 	"math/big"
 	"math/rand"
@@ -8,6 +9,7 @@ import (
 	"sort"
 	"testing"
 
+	"gapcert/certs"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
 )
@@ -148,9 +150,20 @@ func TestLShape(t *testing.T) {
 }
 
 // sweepTarget is the relative width the polygon sweep asks for: the sweep
-// tests containment (widths are tested above), so a coarse target keeps
-// 300 problems within a minute.
-const sweepTarget = 0.3
+// tests containment (widths are tested above); a target below what stage
+// A gives on the first mesh makes most problems use stage B.
+const sweepTarget = 1e-3
+
+// usedStageB reports whether a certificate's method records
+// Lehmann–Goerisch bounds.
+func usedStageB(t *testing.T, c *certs.Certificate) bool {
+	t.Helper()
+	var m Method
+	if err := json.Unmarshal(c.Method, &m); err != nil {
+		t.Fatal(err)
+	}
+	return len(m.Stages.LehmannGoerisch) > 0
+}
 
 // TestPolygonSoundnessSweep: random rectangles with random conditions and
 // random equilateral triangles (Dirichlet or Neumann), against the closed
@@ -165,7 +178,7 @@ func TestPolygonSoundnessSweep(t *testing.T) {
 	decimal := func(lo, hi float64, digits int) string {
 		return fmt.Sprintf("%.*f", digits, lo+(hi-lo)*rng.Float64())
 	}
-	misses := 0
+	misses, stageB := 0, 0
 	for i := 0; i < count; i++ {
 		if i%3 == 2 {
 			side := decimal(0.5, 3, 2)
@@ -174,6 +187,9 @@ func TestPolygonSoundnessSweep(t *testing.T) {
 			src := fmt.Sprintf(`{"domain":{"polygon":[[%q,%q],["%s+%s",%q],["%s+%s/2","%s+sqrt(3)*%s/2"]]},"boundary":%q,"eigenvalues":2}`,
 				x0, y0, x0, side, y0, x0, side, y0, side, bc)
 			_, c := certifyText(t, src, sweepTarget)
+			if usedStageB(t, c) {
+				stageB++
+			}
 			sideI, _ := decimalio.Parse(side) // the exact side, enclosed
 			unit := interval.Pi().Sqr().MulF(16).Div(sideI.Sqr().MulF(9))
 			m := []float64{3, 7}
@@ -202,6 +218,9 @@ func TestPolygonSoundnessSweep(t *testing.T) {
 		src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],[%q,"0"],[%q,%q],["0",%q]]},"boundary":[%s,%s,%s,%s],"eigenvalues":2}`,
 			a, a, b, b, sideJSON(sides[0]), sideJSON(sides[1]), sideJSON(sides[2]), sideJSON(sides[3]))
 		_, c := certifyText(t, src, sweepTarget)
+		if usedStageB(t, c) {
+			stageB++
+		}
 		truth := rectangleEigenvalues(a, b, sides, 2)
 		for k := 1; k <= 2; k++ {
 			if !bigInside(truth[k-1], eigenEnclosure(t, c, k)) {
@@ -210,7 +229,10 @@ func TestPolygonSoundnessSweep(t *testing.T) {
 			}
 		}
 	}
-	t.Logf("%d polygon problems, %d misses", count, misses)
+	t.Logf("%d polygon problems, %d with stage-B bounds, %d misses", count, stageB, misses)
+	if stageB < count/2 {
+		t.Errorf("only %d of %d problems used stage B: the sweep does not exercise it", stageB, count)
+	}
 }
 
 // TestLargeConstantPotential: V ≡ 1000 on the unit square, Dirichlet:

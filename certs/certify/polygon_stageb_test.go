@@ -1,0 +1,107 @@
+package certify
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+	"testing"
+
+	"gapcert/certs"
+	"gapcert/fem/problem"
+	"gapcert/interval"
+)
+
+// TestCheckPolygonStageB: a polygon certificate whose lower bounds come
+// from stage B verifies, and edits of the stage-B recipe (flux degree,
+// weight order, ρ̂, a Lehmann–Goerisch bound) are detected.
+func TestCheckPolygonStageB(t *testing.T) {
+	src := `{"domain":{"polygon":[["0","0"],["3/2","0"],["1","1"],["0","1"]]},"potential":"x*y","boundary":[{"robin":"1"},"dirichlet","neumann","dirichlet"],"eigenvalues":2}`
+	p, err := problem.Parse([]byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := Certify(p, Options{RelWidth: 1e-4, Now: fixedTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !usedStageB(t, c) {
+		t.Fatal("the certificate has no stage-B bounds")
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("fresh polygon certificate does not verify: %v", err)
+	}
+	m := methodOf(t, c)
+	lg := m.Stages.LehmannGoerisch[0].Bound
+	for _, tc := range []struct{ name, old, new string }{
+		{"flux degree", fmt.Sprintf(`"flux_degree": %d`, m.FluxDegree), fmt.Sprintf(`"flux_degree": %d`, m.FluxDegree-1)},
+		{"weight order", fmt.Sprintf(`"weight_taylor_order": %d`, m.WeightOrder), fmt.Sprintf(`"weight_taylor_order": %d`, m.WeightOrder-2)},
+		{"rho", `"rho": "` + m.Rho + `"`, `"rho": "` + m.Rho + `1"`},
+		{"stage-B bound", `"bound": "` + lg + `"`, `"bound": "` + lg[:len(lg)-2] + `99"`},
+	} {
+		edited := strings.Replace(string(data), tc.old, tc.new, 1)
+		if edited == string(data) {
+			t.Fatalf("%s: the edit changed nothing", tc.name)
+		}
+		err := Check([]byte(edited))
+		var mm *MismatchError
+		if !errors.As(err, &mm) {
+			t.Errorf("%s: want a mismatch report, got %v", tc.name, err)
+		}
+	}
+}
+
+func methodOf(t *testing.T, c *certs.Certificate) Method {
+	t.Helper()
+	var m Method
+	if err := json.Unmarshal(c.Method, &m); err != nil {
+		t.Fatal(err)
+	}
+	return m
+}
+
+// TestNoSeparationFallsBackToStageA: with a stage-A mesh too coarse for any
+// ρ̂ to separate (the square's two triangles refined once),
+// stage B must not run, the outcome says so, and the bounds are the
+// stage-A ones, still containing the truth (2π², 5π²; common practice). A
+// stage-A space smaller than the eigenvalues asked for is an error.
+func TestNoSeparationFallsBackToStageA(t *testing.T) {
+	p, err := problem.Parse([]byte(`{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet","eigenvalues":2}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := initialRecipe(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r.stageARefine = 0
+	if _, err := compute(p, r); err == nil || !strings.Contains(err.Error(), "too small") {
+		t.Errorf("a stage-A space of one unknown: want an error, got %v", err)
+	}
+	r.stageARefine = 1
+	out, err := compute(p, r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if out.n != 0 || out.lg != nil {
+		t.Fatalf("stage B ran with N = %d, ρ̂ = %g from a two-triangle stage A (stage A %v, Ritz %v)", out.n, out.rho, out.stageA, out.ritz)
+	}
+	if len(out.notes) == 0 || !strings.Contains(out.notes[0], "stage B skipped") {
+		t.Errorf("notes %q do not say that stage B was skipped", out.notes)
+	}
+	res, err := assemble(p, r, out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, m := range []float64{2, 5} {
+		truth := m * math.Pi * math.Pi
+		if l := res.lambda[k]; l.Lo > truth || l.Hi < truth || l.Lo != interval.SubDown(out.stageA[k], r.gamma) {
+			t.Errorf("lambda%d = %v: not the stage-A enclosure of %g", k+1, l, truth)
+		}
+	}
+}
