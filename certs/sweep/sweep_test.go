@@ -2,11 +2,13 @@ package sweep
 
 import (
 	"bytes"
+	"encoding/csv"
 	"encoding/json"
 	"errors"
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"sync"
 	"testing"
@@ -226,6 +228,7 @@ func TestResume(t *testing.T) {
 	if len(files) != len(f.Points) {
 		t.Fatalf("%d certificates for %d points", len(files), len(f.Points))
 	}
+	checkCSV(t, filepath.Join(dir, "summary.csv"), first)
 	kept := map[string][]byte{}
 	for i, file := range files {
 		if i%2 == 1 {
@@ -298,6 +301,40 @@ func TestResume(t *testing.T) {
 	}
 	if got, _ := os.ReadFile(stray); !bytes.HasPrefix(got, []byte(`{"format"`)) {
 		t.Error("the stray temporary file was touched")
+	}
+}
+
+// checkCSV compares summary.csv with the summary: one row per point with
+// the parameter values, the verdict and the bounds of the JSON summary.
+func checkCSV(t *testing.T, path string, s *Summary) {
+	t.Helper()
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rows, err := csv.NewReader(bytes.NewReader(data)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != len(s.Points)+1 {
+		t.Fatalf("%d CSV rows for %d points", len(rows), len(s.Points))
+	}
+	col := map[string]int{}
+	for i, h := range rows[0] {
+		col[h] = i
+	}
+	for _, h := range []string{"index", "c", "status", "verdict", "lambda1_lower", "lambda2_upper", "gap_lower", "gap_upper", "claim1", "file", "certificate_sha256"} {
+		if _, ok := col[h]; !ok {
+			t.Fatalf("CSV header %v lacks %q", rows[0], h)
+		}
+	}
+	for i, p := range s.Points {
+		r := rows[i+1]
+		if r[col["index"]] != strconv.Itoa(p.Index) || r[col["c"]] != p.Params["c"] || r[col["verdict"]] != p.Verdict ||
+			r[col["gap_lower"]] != p.Gap.Lower || r[col["lambda2_upper"]] != p.Eigenvalues[1].Upper ||
+			r[col["claim1"]] != p.Claims[0].Verdict || r[col["certificate_sha256"]] != p.CertificateSHA256 {
+			t.Errorf("CSV row %d %v does not match point %+v", i+1, r, p)
+		}
 	}
 }
 
