@@ -229,6 +229,18 @@ func TestResume(t *testing.T) {
 		t.Fatalf("%d certificates for %d points", len(files), len(f.Points))
 	}
 	checkCSV(t, filepath.Join(dir, "summary.csv"), first)
+	// c = 0: −u″ on (−1, 1) with Dirichlet ends has λ_k = k²π²/4, so the
+	// gap is 3π²/4, where Lavine's bound gap ≥ 3π²/D² for convex V
+	// (R. Lavine, The eigenvalue gap for one-dimensional convex potentials,
+	// Proc. Amer. Math. Soc. 121 (1994) 815–821) is an equality: undecided.
+	if p := first.Points[0]; !contains(t, p.Gap, 0.75, 1e-6) || p.Verdict != certs.Undecided {
+		t.Errorf("c = 0: gap [%s, %s], verdict %s; want 3π²/4 within 1e-6 and undecided", p.Gap.Lower, p.Gap.Upper, p.Verdict)
+	}
+	for _, p := range first.Points[1:] {
+		if p.Verdict != certs.Holds {
+			t.Errorf("c = %s: Lavine's bound is %s, want holds", p.Params["c"], p.Verdict)
+		}
+	}
 	kept := map[string][]byte{}
 	for i, file := range files {
 		if i%2 == 1 {

@@ -50,8 +50,9 @@ func TestSweepBadInput(t *testing.T) {
 }
 
 // TestSweepMergeCommands: two shards and a merge from the command line;
-// the undecided point (c = 0, where Lavine's bound gap ≥ 3π²/D² is an
-// equality: V = 0 on (−1, 1) has gap exactly 3π²/4, common practice) is
+// the undecided point (c = 0, where Lavine's bound gap ≥ 3π²/D² for
+// convex V, Proc. Amer. Math. Soc. 121 (1994) 815–821, is an equality:
+// V = 0 on (−1, 1) has gap exactly 3π²/4, common practice) is
 // listed; a second merge into the same directory is refused; a tampered
 // certificate makes sweep and merge exit with status 3.
 func TestSweepMergeCommands(t *testing.T) {
