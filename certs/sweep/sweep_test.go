@@ -492,3 +492,40 @@ func TestRefineUndecided(t *testing.T) {
 		t.Errorf("refined certificate: %v", err)
 	}
 }
+
+// TestRobinExample runs three points (α = 0, 5, 10; shard 0/5) of the
+// Robin example. At α = 0 the condition is Neumann and λ1 = 0 (constants).
+// λ1 increases with α (the form a(u, u) + α∫u² grows with α; min–max) and
+// stays below the Dirichlet λ1 of the rectangle [1, 3] × [0, 1] inside the
+// trapezoid, π²(1/4 + 1) = 5π²/4 (Robin ≤ Dirichlet on the same domain by
+// min–max, and Dirichlet domain monotonicity; common practice), the
+// claim of the example.
+func TestRobinExample(t *testing.T) {
+	f := mustFamily(t, readExample(t, "robin_trapezoid_family.json"))
+	opt := testOptions()
+	opt.Shard = Shard{Index: 0, Count: 5}
+	s, err := Run(f, t.TempDir(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(s.Points) != 3 || s.Points[1].Params["alpha"] != "5" {
+		t.Fatalf("shard 0/5 of 11 points: %d points", len(s.Points))
+	}
+	var prev float64
+	for i, p := range s.Points {
+		l1, err := p.Eigenvalues[0].Bound().Interval()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if p.Verdict != certs.Holds {
+			t.Errorf("alpha = %s: claim %s", p.Params["alpha"], p.Verdict)
+		}
+		if i == 0 && !(l1.Lo <= 0 && 0 <= l1.Hi && l1.Hi < 1e-3) {
+			t.Errorf("alpha = 0: lambda1 ∈ [%s, %s], want 0", p.Eigenvalues[0].Lower, p.Eigenvalues[0].Upper)
+		}
+		if i > 0 && !(l1.Lo > prev) {
+			t.Errorf("alpha = %s: lambda1 ∈ [%s, %s] not above the previous point's", p.Params["alpha"], p.Eigenvalues[0].Lower, p.Eigenvalues[0].Upper)
+		}
+		prev = l1.Hi
+	}
+}
