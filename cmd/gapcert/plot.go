@@ -10,23 +10,30 @@ import (
 )
 
 func newPlotCmd() *cobra.Command {
-	var x, y, quantity, threshold, relation, claim, out string
+	var x, y, quantity, reference, threshold, relation, claim, out string
 	cmd := &cobra.Command{
-		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR | --y PARAM --claim N) --out FILE.png|.svg",
+		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N) --out FILE.png|.svg",
 		Short: "Draw the certified results of a sweep against its parameters",
 		Long: `plot draws the certified results of a sweep ("gapcert sweep"), read from
 its summary (SUMMARY.json, or DIR/summary.json) and cross-checked against
 the certificate files beside it (file SHA-256, problem hash, every
 enclosure and claim result).
 
-One-parameter sweeps, --x PARAM --quantity EXPR [--threshold EXPR]: the
-certified enclosure of the quantity at each point against the parameter.
-EXPR is a formula over lambda1 … lambdaN, gap, D, area and perimeter
-(polygons), the parameters, pi and e, enclosed in interval arithmetic over
-each point's certified enclosures (e.g. "D^2*gap/pi^2"). With a threshold
-each point is marked by the certified verdict of "quantity --relation
-threshold" (holds, undecided, fails), and the threshold is drawn as a line;
-without one, by the verdict of the point's own claims.
+One-parameter sweeps, --x PARAM --quantity EXPR [--reference EXPR]
+[--threshold EXPR]: the certified enclosure of the quantity at each point
+against the parameter. EXPR is a formula over lambda1 … lambdaN, gap, D,
+area and perimeter (polygons), the parameters, pi, e and the reference
+quantities of built-in claims, enclosed in interval arithmetic over each
+point's certified enclosures (e.g. "D^2*gap/pi^2"). The reference
+quantity robin_interval_gap is the gap of the interval (0, D) with the
+polygon's Robin coefficient at both ends, enclosed by the reference
+certificate that the claim "@robin_comparison" stores in the point's
+certificate file; a point without it is an error. --reference draws a
+second certified band in another colour (e.g. --quantity gap --reference
+robin_interval_gap). With a threshold each point is marked by the
+certified verdict of "quantity --relation threshold" (holds, undecided,
+fails), and the threshold is drawn as a line; without one, by the verdict
+of the point's own claims.
 
 Two-parameter sweeps, --x PARAM --y PARAM --claim N|TEXT: a map of cells,
 each coloured by the certified lower bound of the margin of the claim
@@ -51,8 +58,8 @@ with a certificate file.`,
 				return fail(errors.New("--x PARAM is required"))
 			case y == "" && quantity == "":
 				return fail(errors.New("give --quantity EXPR (a band over one parameter) or --y PARAM and --claim N (a map over two)"))
-			case y != "" && (quantity != "" || threshold != ""):
-				return fail(errors.New("--y draws a map of a claim's margin; --quantity and --threshold belong to a band over one parameter"))
+			case y != "" && (quantity != "" || reference != "" || threshold != ""):
+				return fail(errors.New("--y draws a map of a claim's margin; --quantity, --reference and --threshold belong to a band over one parameter"))
 			case y != "" && claim == "":
 				return fail(errors.New("a map needs --claim N (1-based) or --claim TEXT"))
 			case y == "" && claim != "":
@@ -69,7 +76,7 @@ with a certificate file.`,
 			var write func(string) error
 			var missing, uncertified int
 			if y == "" {
-				b, err := s.Band(x, quantity, threshold, relation)
+				b, err := s.Band(x, sweepplot.BandSpec{Quantity: quantity, Reference: reference, Threshold: threshold, Rel: relation})
 				if err != nil {
 					return fail(err)
 				}
@@ -97,6 +104,7 @@ with a certificate file.`,
 	f := cmd.Flags()
 	f.StringVar(&x, "x", "", "the parameter on the horizontal axis")
 	f.StringVar(&quantity, "quantity", "", "formula to draw against the parameter (band)")
+	f.StringVar(&reference, "reference", "", "formula drawn as a second certified band, e.g. robin_interval_gap (band)")
 	f.StringVar(&threshold, "threshold", "", "formula the quantity is compared with (band)")
 	f.StringVar(&relation, "relation", ">=", "comparison of quantity and threshold: >=, >, <= or <")
 	f.StringVar(&y, "y", "", "the second parameter, on the vertical axis (map)")

@@ -64,7 +64,7 @@ func TestPlotFailures(t *testing.T) {
 		{[]string{"plot", convex, "--quantity", "gap", "--out", out}, exitFailure, "--x PARAM is required"},
 		{[]string{"plot", convex, "--x", "c", "--out", out}, exitFailure, "give --quantity EXPR"},
 		{[]string{"plot", triangle, "--x", "a", "--y", "b", "--out", out}, exitFailure, "a map needs --claim"},
-		{[]string{"plot", triangle, "--x", "a", "--y", "b", "--claim", "1", "--quantity", "gap", "--out", out}, exitFailure, "--quantity and --threshold belong to a band"},
+		{[]string{"plot", triangle, "--x", "a", "--y", "b", "--claim", "1", "--quantity", "gap", "--out", out}, exitFailure, "--quantity, --reference and --threshold belong to a band"},
 		{[]string{"plot", convex, "--x", "k", "--quantity", "gap", "--out", out}, exitFailure, `unknown parameter "k"`},
 		{[]string{"plot", convex, "--x", "c", "--quantity", "gap +", "--out", out}, exitFailure, `quantity "gap +"`},
 		{[]string{"plot", convex, "--x", "c", "--quantity", "gap", "--out", filepath.Join(t.TempDir(), "p.jpg")}, exitFailure, `unknown picture format "jpg"`},

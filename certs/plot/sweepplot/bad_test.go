@@ -61,21 +61,21 @@ func wantError(t *testing.T, what string, err error, substr string) {
 
 func TestBadInput(t *testing.T) {
 	convex, triangle := load(t, "convex"), load(t, "triangle")
-	_, err := convex.Band("k", "gap", "", "")
+	_, err := convex.Band("k", BandSpec{Quantity: "gap"})
 	wantError(t, "unknown parameter", err, `unknown parameter "k" (hint: the sweep's parameters are c)`)
-	_, err = convex.Band("c", "gap*(", "", "")
+	_, err = convex.Band("c", BandSpec{Quantity: "gap*("})
 	wantError(t, "syntax error", err, `quantity "gap*("`)
-	_, err = convex.Band("c", "gap/lambda", "", "")
+	_, err = convex.Band("c", BandSpec{Quantity: "gap/lambda"})
 	wantError(t, "unknown name", err, `unknown name "lambda"`)
-	_, err = convex.Band("c", "gap", "3*pi^2/DD", "")
+	_, err = convex.Band("c", BandSpec{Quantity: "gap", Threshold: "3*pi^2/DD"})
 	wantError(t, "unknown name in the threshold", err, `threshold "3*pi^2/DD": unknown name "DD"`)
-	_, err = convex.Band("c", "gap", "3", "=")
+	_, err = convex.Band("c", BandSpec{Quantity: "gap", Threshold: "3", Rel: "="})
 	wantError(t, "relation", err, `unknown relation "="`)
-	_, err = convex.Band("c", "gap/(D-2)", "", "")
+	_, err = convex.Band("c", BandSpec{Quantity: "gap/(D-2)"})
 	wantError(t, "no finite enclosure", err, "point 0")
-	_, err = convex.Band("c", "area", "", "")
+	_, err = convex.Band("c", BandSpec{Quantity: "area"})
 	wantError(t, "area of an interval", err, `"area"`)
-	_, err = triangle.Band("a", "gap", "", "")
+	_, err = triangle.Band("a", BandSpec{Quantity: "gap"})
 	wantError(t, "band of two parameters", err, "a band needs a one-parameter sweep")
 	_, err = convex.Map("c", "c", "1")
 	wantError(t, "map of one parameter", err, `x and y are both "c"`)
@@ -86,7 +86,7 @@ func TestBadInput(t *testing.T) {
 	_, err = triangle.Map("a", "b", "gap >= 0")
 	wantError(t, "claim text", err, `no claim "gap >= 0"`)
 
-	b, err := convex.Band("c", "gap", "", "")
+	b, err := convex.Band("c", BandSpec{Quantity: "gap"})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -99,7 +99,7 @@ func TestBadInput(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	_, err = s.Band("c", "gap", "", "")
+	_, err = s.Band("c", BandSpec{Quantity: "gap"})
 	wantError(t, "empty sweep", err, "empty sweep")
 	dir = copySweep(t, "convex")
 	editSummary(t, dir, func(s *sweep.Summary) {
@@ -110,7 +110,7 @@ func TestBadInput(t *testing.T) {
 	if s, err = Load(dir); err != nil {
 		t.Fatal(err)
 	}
-	_, err = s.Band("c", "gap", "", "")
+	_, err = s.Band("c", BandSpec{Quantity: "gap"})
 	wantError(t, "sweep of errors", err, "empty sweep")
 
 	// Not a summary.
@@ -153,7 +153,7 @@ func TestCrossCheck(t *testing.T) {
 	if s, err = Load(dir); err != nil {
 		t.Fatal(err)
 	}
-	b, err := s.Band("c", "gap", "", "")
+	b, err := s.Band("c", BandSpec{Quantity: "gap"})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -18,6 +18,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/plot"
+	"gapcert/interval"
 )
 
 // Layout of the pictures.
@@ -41,6 +42,8 @@ var (
 	}
 	barColour      = color.RGBA{R: 0x1f, G: 0x4e, B: 0x8c, A: 0xff}
 	shadeColour    = color.RGBA{R: 0xc6, G: 0xdb, B: 0xef, A: 0xff}
+	refBarColour   = color.RGBA{R: 0xb3, G: 0x58, B: 0x06, A: 0xff}
+	refShadeColour = color.RGBA{R: 0xfd, G: 0xd9, B: 0xb5, A: 0xff}
 	thresholdStyle = draw.LineStyle{Color: color.Black, Width: vg.Points(1), Dashes: []vg.Length{vg.Points(4), vg.Points(2)}}
 	noCertColour   = color.Gray{Y: 0xd0}
 	verdictOrder   = []string{certs.Holds, certs.Undecided, certs.Fails, ""}
@@ -84,30 +87,37 @@ func (b *Band) Write(path string) error { return b.picture().write(path) }
 func (m *Map) Write(path string) error { return m.picture().write(path) }
 
 func (b *Band) picture() picture {
-	q := plot.Drawable(b.Quantity)
-	p := newPlot(plot.Drawable(b.Title) + "\ncertified enclosures of " + q)
+	q, r := plot.Drawable(b.Quantity), plot.Drawable(b.Reference)
+	what := q
+	if b.Reference != "" {
+		what += " and of " + r
+	}
+	p := newPlot(plot.Drawable(b.Title) + "\ncertified enclosures of " + what)
 	p.X.Label.Text = plot.Drawable(b.X)
 	p.Y.Label.Text = q
+	if b.Reference != "" {
+		p.Y.Label.Text = q + ", " + r
+	}
 	p.Add(plotter.NewGrid())
 	legend := newLegend()
 
+	quantity := func(pt BandPoint) interval.I { return pt.Quantity }
+	reference := func(pt BandPoint) interval.I { return pt.Reference }
 	if len(b.Points) > 1 {
-		ring := make(plotter.XYs, 0, 2*len(b.Points))
-		for _, pt := range b.Points {
-			ring = append(ring, plotter.XY{X: pt.X, Y: pt.Quantity.Hi})
+		shades := swatch{shadeColour}
+		if b.Reference != "" {
+			p.Add(shading(b.Points, reference, refShadeColour))
+			shades = append(shades, refShadeColour)
 		}
-		for i := len(b.Points) - 1; i >= 0; i-- {
-			ring = append(ring, plotter.XY{X: b.Points[i].X, Y: b.Points[i].Quantity.Lo})
-		}
-		shade, err := plotter.NewPolygon(ring)
-		if err != nil {
-			panic("sweepplot: " + err.Error()) // the ends were checked finite
-		}
-		shade.Color, shade.LineStyle.Width = shadeColour, 0
-		p.Add(shade)
-		legend.Add("shading between points: for reading only, not certified", shade)
+		p.Add(shading(b.Points, quantity, shadeColour))
+		legend.Add("shading between points: for reading only, not certified", shades)
 	}
-	bars := &intervalBars{points: b.Points}
+	if b.Reference != "" {
+		refBars := &intervalBars{points: b.Points, of: reference, style: refBarStyle, capWidth: refCapWidth}
+		p.Add(refBars)
+		legend.Add("reference: certified enclosure of "+r+" at each point", refBars)
+	}
+	bars := &intervalBars{points: b.Points, of: quantity, style: barStyle, capWidth: capWidth}
 	p.Add(bars)
 	legend.Add("certified enclosure of "+q+" at each point", bars)
 
@@ -163,6 +173,9 @@ func (b *Band) picture() picture {
 		"certified: each bar encloses the quantity over the enclosures of one certificate;",
 		"nothing is certified between the sampled parameter values.",
 	}
+	if b.Reference != "" {
+		caption = append(caption[:1], "the wider reference bars likewise enclose "+r+" at each point;", caption[1])
+	}
 	if n := b.notes(); n != "" {
 		caption = append(caption, n)
 	}
@@ -183,16 +196,37 @@ func notes(uncertified []int, missing int) string {
 	return strings.Join(s, " ")
 }
 
-// yRange is the extent of the enclosures and thresholds.
+// yRange is the extent of the enclosures, references and thresholds.
 func (b *Band) yRange() (lo, hi float64) {
 	lo, hi = math.Inf(1), math.Inf(-1)
 	for _, pt := range b.Points {
 		lo, hi = math.Min(lo, pt.Quantity.Lo), math.Max(hi, pt.Quantity.Hi)
+		if b.Reference != "" {
+			lo, hi = math.Min(lo, pt.Reference.Lo), math.Max(hi, pt.Reference.Hi)
+		}
 		if b.Threshold != "" {
 			lo, hi = math.Min(lo, pt.Threshold.Lo), math.Max(hi, pt.Threshold.Hi)
 		}
 	}
 	return lo, hi
+}
+
+// shading is the polygon between the upper and the lower ends of the
+// enclosures of(pt) of the points, for reading only.
+func shading(points []BandPoint, of func(BandPoint) interval.I, colour color.Color) *plotter.Polygon {
+	ring := make(plotter.XYs, 0, 2*len(points))
+	for _, pt := range points {
+		ring = append(ring, plotter.XY{X: pt.X, Y: of(pt).Hi})
+	}
+	for i := len(points) - 1; i >= 0; i-- {
+		ring = append(ring, plotter.XY{X: points[i].X, Y: of(points[i]).Lo})
+	}
+	shade, err := plotter.NewPolygon(ring)
+	if err != nil {
+		panic("sweepplot: " + err.Error()) // the ends were checked finite
+	}
+	shade.Color, shade.LineStyle.Width = colour, 0
+	return shade
 }
 
 // thresholdLine joins the thresholds of the points (a horizontal line
@@ -361,22 +395,36 @@ func framed(p *gplot.Plot, legend gplot.Legend, caption []string, width, plotHei
 	}
 }
 
-// intervalBars draws the enclosure [lo, hi] of each point as a vertical
-// bar with caps.
-type intervalBars struct{ points []BandPoint }
+// intervalBars draws the enclosure of(pt) = [lo, hi] of each point as a
+// vertical bar with caps.
+type intervalBars struct {
+	points   []BandPoint
+	of       func(BandPoint) interval.I
+	style    draw.LineStyle
+	capWidth vg.Length
+}
 
-var barStyle = draw.LineStyle{Color: barColour, Width: vg.Points(1.2)}
+// The bars of the quantity, and the wider caps of the reference (so that
+// a reference under a quantity's bar stays visible).
+var (
+	barStyle    = draw.LineStyle{Color: barColour, Width: vg.Points(1.2)}
+	refBarStyle = draw.LineStyle{Color: refBarColour, Width: vg.Points(1.2)}
+)
 
-const capWidth = 3 * vg.Millimeter
+const (
+	capWidth    = 3 * vg.Millimeter
+	refCapWidth = 5 * vg.Millimeter
+)
 
 // Plot implements plot.Plotter.
 func (b *intervalBars) Plot(c draw.Canvas, p *gplot.Plot) {
 	trX, trY := p.Transforms(&c)
 	for _, pt := range b.points {
-		x, lo, hi := trX(pt.X), trY(pt.Quantity.Lo), trY(pt.Quantity.Hi)
-		c.StrokeLine2(barStyle, x, lo, x, hi)
-		c.StrokeLine2(barStyle, x-capWidth/2, lo, x+capWidth/2, lo)
-		c.StrokeLine2(barStyle, x-capWidth/2, hi, x+capWidth/2, hi)
+		e := b.of(pt)
+		x, lo, hi := trX(pt.X), trY(e.Lo), trY(e.Hi)
+		c.StrokeLine2(b.style, x, lo, x, hi)
+		c.StrokeLine2(b.style, x-b.capWidth/2, lo, x+b.capWidth/2, lo)
+		c.StrokeLine2(b.style, x-b.capWidth/2, hi, x+b.capWidth/2, hi)
 	}
 }
 
@@ -384,8 +432,9 @@ func (b *intervalBars) Plot(c draw.Canvas, p *gplot.Plot) {
 func (b *intervalBars) DataRange() (xmin, xmax, ymin, ymax float64) {
 	xmin, xmax, ymin, ymax = math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
 	for _, pt := range b.points {
+		e := b.of(pt)
 		xmin, xmax = math.Min(xmin, pt.X), math.Max(xmax, pt.X)
-		ymin, ymax = math.Min(ymin, pt.Quantity.Lo), math.Max(ymax, pt.Quantity.Hi)
+		ymin, ymax = math.Min(ymin, e.Lo), math.Max(ymax, e.Hi)
 	}
 	return xmin, xmax, ymin, ymax
 }
@@ -393,16 +442,23 @@ func (b *intervalBars) DataRange() (xmin, xmax, ymin, ymax float64) {
 // Thumbnail implements plot.Thumbnailer.
 func (b *intervalBars) Thumbnail(c *draw.Canvas) {
 	x := (c.Min.X + c.Max.X) / 2
-	c.StrokeLine2(barStyle, x, c.Min.Y, x, c.Max.Y)
-	c.StrokeLine2(barStyle, x-capWidth/2, c.Min.Y, x+capWidth/2, c.Min.Y)
-	c.StrokeLine2(barStyle, x-capWidth/2, c.Max.Y, x+capWidth/2, c.Max.Y)
+	c.StrokeLine2(b.style, x, c.Min.Y, x, c.Max.Y)
+	c.StrokeLine2(b.style, x-b.capWidth/2, c.Min.Y, x+b.capWidth/2, c.Min.Y)
+	c.StrokeLine2(b.style, x-b.capWidth/2, c.Max.Y, x+b.capWidth/2, c.Max.Y)
 }
 
-// swatch is a legend thumbnail filled with one colour.
-type swatch struct{ colour color.Color }
+// swatch is a legend thumbnail filled with colours, in vertical stripes
+// of equal width.
+type swatch []color.Color
 
 // Thumbnail implements plot.Thumbnailer.
 func (s swatch) Thumbnail(c *draw.Canvas) {
-	c.SetColor(s.colour)
-	c.Fill(c.Rectangle.Path())
+	w := (c.Max.X - c.Min.X) / vg.Length(len(s))
+	for i, colour := range s {
+		stripe := c.Rectangle
+		stripe.Min.X = c.Min.X + vg.Length(i)*w
+		stripe.Max.X = stripe.Min.X + w
+		c.SetColor(colour)
+		c.Fill(stripe.Path())
+	}
 }

@@ -29,6 +29,12 @@ type Sweep struct {
 	// Problems holds, by position in Summary.Points, the problem of the
 	// point's certificate file, or nil when no file was found.
 	Problems []*problem.Problem
+	// References holds, by position in Summary.Points, the certified
+	// reference quantities of the point's built-in claims (name →
+	// enclosure, see referenceQuantities), read from the reference
+	// certificates stored in its certificate file; nil when no file was
+	// found.
+	References []map[string]certs.Bound
 	// Missing counts the points whose certificate file was not found.
 	Missing int
 }
@@ -38,9 +44,12 @@ type Sweep struct {
 // certificate file when the file is in the summary's directory: the file's
 // SHA-256 must be the point's certificate_sha256, and its problem hash,
 // eigenvalue, gap, diameter and D²·gap/π² enclosures and claim results
-// must be those of the point, string for string. A point whose file is
-// absent is counted in Sweep.Missing (its enclosures are taken from the
-// summary alone); a disagreement is a *CrossCheckError.
+// must be those of the point, string for string (a claim's reference
+// certificate only when the summary carries one). The reference quantities
+// of built-in claims (Sweep.References) are read from the certificate
+// file, never from the summary. A point whose file is absent is counted in
+// Sweep.Missing (its enclosures are taken from the summary alone, and it
+// has no reference quantities); a disagreement is a *CrossCheckError.
 func Load(path string) (*Sweep, error) {
 	st, err := os.Stat(path)
 	if err != nil {
@@ -57,7 +66,7 @@ func Load(path string) (*Sweep, error) {
 	if err != nil {
 		return nil, fmt.Errorf("%s: %w", path, err)
 	}
-	out := &Sweep{Path: path, Name: s.Family, Summary: s, Problems: make([]*problem.Problem, len(s.Points))}
+	out := &Sweep{Path: path, Name: s.Family, Summary: s, Problems: make([]*problem.Problem, len(s.Points)), References: make([]map[string]certs.Bound, len(s.Points))}
 	dir := filepath.Dir(path)
 	if fam, err := readLimited(filepath.Join(dir, sweep.FamilyFileName), maxSummarySize); err == nil {
 		var head struct {
@@ -83,11 +92,11 @@ func Load(path string) (*Sweep, error) {
 		if err != nil {
 			return nil, err
 		}
-		p, err := crossCheck(pt, raw)
+		p, refs, err := crossCheck(pt, raw)
 		if err != nil {
 			return nil, &CrossCheckError{Summary: path, Point: pt.Index, Certificate: certPath, Err: err}
 		}
-		out.Problems[i] = p
+		out.Problems[i], out.References[i] = p, refs
 	}
 	return out, nil
 }
@@ -108,18 +117,19 @@ func (e *CrossCheckError) Error() string {
 func (e *CrossCheckError) Unwrap() error { return e.Err }
 
 // crossCheck compares a summary point with its certificate file and
-// returns the certificate's problem.
-func crossCheck(pt sweep.Point, raw []byte) (*problem.Problem, error) {
+// returns the certificate's problem and the reference quantities of its
+// claims.
+func crossCheck(pt sweep.Point, raw []byte) (*problem.Problem, map[string]certs.Bound, error) {
 	sum := sha256.Sum256(raw)
 	if got := hex.EncodeToString(sum[:]); got != pt.CertificateSHA256 {
-		return nil, fmt.Errorf("the file's SHA-256 is %s, the summary records %s", got, pt.CertificateSHA256)
+		return nil, nil, fmt.Errorf("the file's SHA-256 is %s, the summary records %s", got, pt.CertificateSHA256)
 	}
 	c, err := certs.Unmarshal(raw)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if c.ProblemSHA256 != pt.ProblemSHA256 {
-		return nil, fmt.Errorf("problem_sha256 %s, the summary records %s", c.ProblemSHA256, pt.ProblemSHA256)
+		return nil, nil, fmt.Errorf("problem_sha256 %s, the summary records %s", c.ProblemSHA256, pt.ProblemSHA256)
 	}
 	same := func(what string, a, b any) error {
 		ja, _ := json.Marshal(a)
@@ -135,17 +145,21 @@ func crossCheck(pt sweep.Point, raw []byte) (*problem.Problem, error) {
 		same("gap", r.Gap, pt.Gap),
 		same("diameter", r.Diameter, pt.Diameter),
 		same("gap_d2_over_pi2", r.GapD2OverPi2, pt.GapD2OverPi2),
-		same("claims", nonNil(c.Claims), nonNil(pt.Claims)),
+		same("claims", asSummarised(c.Claims, pt.Claims), nonNil(pt.Claims)),
 	} {
 		if chk != nil {
-			return nil, chk
+			return nil, nil, chk
 		}
 	}
 	p, err := problem.Parse(c.Problem)
 	if err != nil {
-		return nil, fmt.Errorf("the recorded problem does not parse: %w", err)
+		return nil, nil, fmt.Errorf("the recorded problem does not parse: %w", err)
 	}
-	return p, nil
+	refs, err := referenceBounds(c.Claims)
+	if err != nil {
+		return nil, nil, err
+	}
+	return p, refs, nil
 }
 
 func nonNil(c []certs.ClaimResult) []certs.ClaimResult {
@@ -153,6 +167,20 @@ func nonNil(c []certs.ClaimResult) []certs.ClaimResult {
 		return []certs.ClaimResult{}
 	}
 	return c
+}
+
+// asSummarised returns the certificate's claim results as the summary is
+// allowed to record them: a claim's reference certificate is compared only
+// when the summary's claim at the same position carries one (reference
+// quantities are read from the certificate file, not from the summary).
+func asSummarised(cert, summary []certs.ClaimResult) []certs.ClaimResult {
+	out := slices.Clone(nonNil(cert))
+	for k := range out {
+		if k < len(summary) && summary[k].Reference == nil {
+			out[k].Reference = nil
+		}
+	}
+	return out
 }
 
 func readLimited(path string, limit int64) ([]byte, error) {

@@ -32,7 +32,7 @@ func load(t *testing.T, name string) *Sweep {
 // c = 4 hold and the larger c fail, and the map of the second triangle
 // claim.
 func goldenBand(t *testing.T) *Band {
-	b, err := load(t, "convex").Band("c", "D^2*gap/pi^2", "3 + c^2/100", ">=")
+	b, err := load(t, "convex").Band("c", BandSpec{Quantity: "D^2*gap/pi^2", Threshold: "3 + c^2/100", Rel: ">="})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -153,7 +153,7 @@ const piDigits = "3.14159265358979323846264338327950288419716939937510"
 // the verdict against the threshold 3 must be undecided (neither side can
 // be certified at equality).
 func TestBandContainsTruth(t *testing.T) {
-	b, err := load(t, "convex").Band("c", "D^2*gap/pi^2", "3", ">=")
+	b, err := load(t, "convex").Band("c", BandSpec{Quantity: "D^2*gap/pi^2", Threshold: "3", Rel: ">="})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -165,7 +165,7 @@ func TestBandContainsTruth(t *testing.T) {
 		t.Errorf("c = 0: verdict %s, want undecided", p.Verdict)
 	}
 	// λ1 at c = 0 is π²/4.
-	b1, err := load(t, "convex").Band("c", "lambda1", "", "")
+	b1, err := load(t, "convex").Band("c", BandSpec{Quantity: "lambda1"})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -212,7 +212,7 @@ func TestMapContainsTruth(t *testing.T) {
 // the second claim, D²·gap/π² ≥ 3.3, fails (the quantity is 3) and at
 // c = 20 both hold.
 func TestBandWithoutThreshold(t *testing.T) {
-	b, err := load(t, "convex").Band("c", "gap", "", "")
+	b, err := load(t, "convex").Band("c", BandSpec{Quantity: "gap"})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -17,14 +17,15 @@ import (
 // Relations a band's threshold comparison may use.
 var relations = []string{">=", ">", "<=", "<"}
 
-// BandPoint is one certified point of a band: the enclosure of the
-// quantity (and of the threshold) over the point's certified enclosures,
-// and the verdict on the comparison.
+// BandPoint is one certified point of a band: the enclosures of the
+// quantity, of the reference and of the threshold over the point's
+// certified enclosures, and the verdict on the comparison.
 type BandPoint struct {
 	Index     int     // the point's index in the family
 	X         float64 // the parameter value, rounded to nearest (drawing only)
 	XText     string  // the parameter value, exact
 	Quantity  interval.I
+	Reference interval.I // zero unless the band has a reference
 	Threshold interval.I // zero unless the band has a threshold
 	// Verdict is certs.Holds, Fails or Undecided: of "quantity REL
 	// threshold" when the band has a threshold, else the point's verdict
@@ -32,11 +33,25 @@ type BandPoint struct {
 	Verdict string
 }
 
+// BandSpec says what a band draws: formulas over a point's certified
+// enclosures (see Sweep.Band for the names they may use).
+type BandSpec struct {
+	Quantity string // the main band
+	// Reference, when not "", is drawn as a second certified band, e.g.
+	// "robin_interval_gap".
+	Reference string
+	// Threshold, when not "", is drawn as a line, and each point is marked
+	// by the verdict of "Quantity Rel Threshold".
+	Threshold string
+	Rel       string // >=, >, <= or <; "" means >=
+}
+
 // Band is the certified data of a band picture of a one-parameter sweep.
 type Band struct {
 	Title     string
 	X         string // the parameter
 	Quantity  string // the formula
+	Reference string // the formula, or ""
 	Threshold string // the formula, or ""
 	Rel       string // the relation of the threshold comparison
 	Points    []BandPoint
@@ -48,20 +63,30 @@ type Band struct {
 	Missing int
 }
 
-// Band encloses the formula quantity at every certified point of a
-// one-parameter sweep, with x the swept parameter, and, when threshold is
-// not "", the formula threshold and the verdict of "quantity rel
-// threshold" (rel one of >=, >, <=, <; "" means >=). The formulas may name
-// lambda1…lambdaN, gap, D, area and perimeter (polygons, from the
-// certificate files), the sweep's parameters, pi and e; they are enclosed
-// in interval arithmetic over the certified enclosures of each point
-// (formula.Expr.Eval), and the verdict is certs.Claim.Evaluate's, so a
-// "holds" or "fails" is true for every value in the enclosures.
+// Band encloses the formula spec.Quantity at every certified point of a
+// one-parameter sweep, with x the swept parameter; when spec.Reference is
+// not "", the formula spec.Reference, drawn as a second band; and when
+// spec.Threshold is not "", the formula spec.Threshold and the verdict of
+// "quantity rel threshold".
+//
+// The formulas may name lambda1…lambdaN, gap, D, area and perimeter
+// (polygons, from the certificate files), the sweep's parameters, pi, e,
+// and the reference quantities of built-in claims (package certs/named):
+// robin_interval_gap, the gap enclosed by the reference certificate that
+// the claim @robin_comparison stores in the point's certificate file (of
+// −u″ = λu on (0, D) with the polygon's Robin coefficient at both ends).
+// They are enclosed in interval arithmetic over the certified enclosures
+// of each point (formula.Expr.Eval), and the verdict is
+// certs.Claim.Evaluate's, so a "holds" or "fails" is true for every value
+// in the enclosures.
 //
 // Errors: an unknown parameter or name, a formula that does not parse or
-// cannot be enclosed at a point, a sweep with more than one parameter,
-// and a sweep without certified points.
-func (s *Sweep) Band(x, quantity, threshold, rel string) (*Band, error) {
+// cannot be enclosed at a point, a formula naming a reference quantity at
+// a point without it (no such claim, a claim without a reference
+// certificate, or no certificate file), a sweep with more than one
+// parameter, and a sweep without certified points.
+func (s *Sweep) Band(x string, spec BandSpec) (*Band, error) {
+	rel := spec.Rel
 	if rel == "" {
 		rel = ">="
 	}
@@ -74,22 +99,27 @@ func (s *Sweep) Band(x, quantity, threshold, rel string) (*Band, error) {
 	if n := len(s.Summary.Parameters); n != 1 {
 		return nil, fmt.Errorf("the sweep has %d parameters (%s); a band needs a one-parameter sweep (hint: draw a map of a claim's margin over two parameters)", n, strings.Join(s.Summary.Parameters, ", "))
 	}
-	q, err := s.parseFormula("quantity", quantity)
+	q, err := s.parseFormula("quantity", spec.Quantity)
 	if err != nil {
 		return nil, err
 	}
-	var t *formula.Expr
-	var claim *certs.Claim
-	if threshold != "" {
-		if t, err = s.parseFormula("threshold", threshold); err != nil {
+	var r, t *formula.Expr
+	if spec.Reference != "" {
+		if r, err = s.parseFormula("reference", spec.Reference); err != nil {
 			return nil, err
 		}
-		claim, err = certs.ParseClaim("(" + quantity + ") " + rel + " (" + threshold + ")")
+	}
+	var claim *certs.Claim
+	if spec.Threshold != "" {
+		if t, err = s.parseFormula("threshold", spec.Threshold); err != nil {
+			return nil, err
+		}
+		claim, err = certs.ParseClaim("(" + spec.Quantity + ") " + rel + " (" + spec.Threshold + ")")
 		if err != nil {
 			return nil, fmt.Errorf("quantity %s threshold: %v", rel, err)
 		}
 	}
-	b := &Band{Title: s.Name, X: x, Quantity: quantity, Threshold: threshold, Rel: rel, Missing: s.Missing}
+	b := &Band{Title: s.Name, X: x, Quantity: spec.Quantity, Reference: spec.Reference, Threshold: spec.Threshold, Rel: rel, Missing: s.Missing}
 	for i, pt := range s.Summary.Points {
 		if !s.certified(i) {
 			b.Uncertified = append(b.Uncertified, pt.Index)
@@ -104,18 +134,17 @@ func (s *Sweep) Band(x, quantity, threshold, rel string) (*Band, error) {
 			return nil, fmt.Errorf("point %d: parameter %s = %q: %v", pt.Index, x, pt.Params[x], err)
 		}
 		bp := BandPoint{Index: pt.Index, X: xv.Mid(), XText: pt.Params[x], Verdict: pt.Verdict}
-		if bp.Quantity, err = q.Eval(env); err != nil {
-			return nil, fmt.Errorf("point %d: quantity %q: %v", pt.Index, quantity, err)
+		if bp.Quantity, err = s.enclose(i, env, "quantity", spec.Quantity, q); err != nil {
+			return nil, err
 		}
-		if !finite(bp.Quantity) {
-			return nil, fmt.Errorf("point %d: quantity %q is enclosed only by %v, which cannot be drawn", pt.Index, quantity, bp.Quantity)
+		if r != nil {
+			if bp.Reference, err = s.enclose(i, env, "reference", spec.Reference, r); err != nil {
+				return nil, err
+			}
 		}
 		if t != nil {
-			if bp.Threshold, err = t.Eval(env); err != nil {
-				return nil, fmt.Errorf("point %d: threshold %q: %v", pt.Index, threshold, err)
-			}
-			if !finite(bp.Threshold) {
-				return nil, fmt.Errorf("point %d: threshold %q is enclosed only by %v, which cannot be drawn", pt.Index, threshold, bp.Threshold)
+			if bp.Threshold, err = s.enclose(i, env, "threshold", spec.Threshold, t); err != nil {
+				return nil, err
 			}
 			bp.Verdict = claim.Evaluate(env).Verdict
 		}
@@ -134,6 +163,26 @@ func (s *Sweep) Band(x, quantity, threshold, rel string) (*Band, error) {
 		return 0
 	})
 	return b, nil
+}
+
+// enclose encloses the formula e (what, with text src) over the
+// enclosures env of point i; a reference quantity the point lacks, and an
+// enclosure that is not finite, are errors.
+func (s *Sweep) enclose(i int, env map[string]interval.I, what, src string, e *formula.Expr) (interval.I, error) {
+	index := s.Summary.Points[i].Index
+	for _, v := range e.Vars() {
+		if _, ok := env[v]; !ok && isReference(v) {
+			return interval.I{}, fmt.Errorf("point %d: %s %q names %s, which the point does not have: %s", index, what, src, v, s.missingReference(i, v))
+		}
+	}
+	y, err := e.Eval(env)
+	if err != nil {
+		return interval.I{}, fmt.Errorf("point %d: %s %q: %v", index, what, src, err)
+	}
+	if !finite(y) {
+		return interval.I{}, fmt.Errorf("point %d: %s %q is enclosed only by %v, which cannot be drawn", index, what, src, y)
+	}
+	return y, nil
 }
 
 // MapCell is one certified point of a map.
@@ -269,13 +318,13 @@ func (s *Sweep) parseFormula(what, src string) (*formula.Expr, error) {
 	if err != nil {
 		return nil, fmt.Errorf("%s %q: %v", what, src, err)
 	}
-	known := append(certs.StandardNames(), s.Summary.Parameters...)
+	known := append(append(certs.StandardNames(), s.Summary.Parameters...), referenceNames()...)
 	for _, v := range e.Vars() {
 		if v == "pi" || v == "e" {
 			continue
 		}
 		if !slices.Contains(known, v) || v == "alpha" && !s.hasParam(v) {
-			return nil, fmt.Errorf("%s %q: unknown name %q (hint: use lambda1…lambdaN, gap, D, area, perimeter, pi, e and the parameters %s)", what, src, v, strings.Join(s.Summary.Parameters, ", "))
+			return nil, fmt.Errorf("%s %q: unknown name %q (hint: use lambda1…lambdaN, gap, D, area, perimeter, pi, e, %s and the parameters %s)", what, src, v, strings.Join(referenceNames(), ", "), strings.Join(s.Summary.Parameters, ", "))
 		}
 	}
 	return e, nil
@@ -283,8 +332,10 @@ func (s *Sweep) parseFormula(what, src string) (*formula.Expr, error) {
 
 // env returns the enclosures of point i that a formula may name: the
 // certified eigenvalues, gap and diameter (each decimal string read back
-// outward, certs.Bound.Interval), the exact parameter values, and for
-// polygons with a certificate file the area and perimeter of its problem.
+// outward, certs.Bound.Interval), the exact parameter values, for
+// polygons with a certificate file the area and perimeter of its problem,
+// and the reference quantities read from its certificate file (read back
+// outward too).
 func (s *Sweep) env(i int) (map[string]interval.I, error) {
 	pt := s.Summary.Points[i]
 	env := map[string]interval.I{"pi": interval.Pi(), "e": interval.E()}
@@ -303,6 +354,11 @@ func (s *Sweep) env(i int) (map[string]interval.I, error) {
 	}
 	if err := errors.Join(read("gap", pt.Gap), read("D", pt.Diameter)); err != nil {
 		return nil, err
+	}
+	for name, b := range s.References[i] {
+		if err := read(name, b); err != nil {
+			return nil, err
+		}
 	}
 	for name, text := range pt.Params {
 		v, err := decimalio.Parse(text)
