@@ -12,9 +12,10 @@ const testSweeps = "../../certs/plot/sweepplot/testdata/sweeps"
 
 func TestPlot(t *testing.T) {
 	dir := t.TempDir()
-	band, cells := filepath.Join(dir, "band.svg"), filepath.Join(dir, "map.png")
+	band, cells, robin := filepath.Join(dir, "band.svg"), filepath.Join(dir, "map.png"), filepath.Join(dir, "robin.svg")
 	for _, args := range [][]string{
 		{"plot", filepath.Join(testSweeps, "convex"), "--x", "c", "--quantity", "D^2*gap/pi^2", "--threshold", "3 + c^2/100", "--out", band},
+		{"plot", filepath.Join(testSweeps, "robin"), "--x", "alpha", "--quantity", "gap", "--reference", "robin_interval_gap", "--out", robin},
 		{"plot", filepath.Join(testSweeps, "triangle", "summary.json"), "--x", "a", "--y", "b", "--claim", "D^2*gap >= 75", "-o", cells},
 	} {
 		code, out, errs := execute(args...)
@@ -25,6 +26,10 @@ func TestPlot(t *testing.T) {
 	svg, err := os.ReadFile(band)
 	if err != nil || !strings.Contains(string(svg), "certified enclosures of D^2*gap/pi^2") {
 		t.Errorf("band picture: %v", err)
+	}
+	svg, err = os.ReadFile(robin)
+	if err != nil || !strings.Contains(string(svg), "reference: certified enclosure of robin_interval_gap at each point") {
+		t.Errorf("band with a reference: %v", err)
 	}
 	f, err := os.Open(cells)
 	if err != nil {
@@ -65,6 +70,8 @@ func TestPlotFailures(t *testing.T) {
 		{[]string{"plot", convex, "--x", "c", "--out", out}, exitFailure, "give --quantity EXPR"},
 		{[]string{"plot", triangle, "--x", "a", "--y", "b", "--out", out}, exitFailure, "a map needs --claim"},
 		{[]string{"plot", triangle, "--x", "a", "--y", "b", "--claim", "1", "--quantity", "gap", "--out", out}, exitFailure, "--quantity, --reference and --threshold belong to a band"},
+		{[]string{"plot", triangle, "--x", "a", "--y", "b", "--claim", "1", "--reference", "robin_interval_gap", "--out", out}, exitFailure, "--reference and --threshold belong to a band"},
+		{[]string{"plot", convex, "--x", "c", "--quantity", "gap", "--reference", "robin_interval_gap", "--out", out}, exitFailure, "point 0: reference \"robin_interval_gap\" names robin_interval_gap, which the point does not have: the point has no claim @robin_comparison"},
 		{[]string{"plot", convex, "--x", "k", "--quantity", "gap", "--out", out}, exitFailure, `unknown parameter "k"`},
 		{[]string{"plot", convex, "--x", "c", "--quantity", "gap +", "--out", out}, exitFailure, `quantity "gap +"`},
 		{[]string{"plot", convex, "--x", "c", "--quantity", "gap", "--out", filepath.Join(t.TempDir(), "p.jpg")}, exitFailure, `unknown picture format "jpg"`},

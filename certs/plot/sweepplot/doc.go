@@ -1,17 +1,36 @@
 // Package sweepplot implements pictures of the certified results of a
 // parameter sweep (package certs/sweep), as PNG or SVG files: for a
 // one-parameter sweep, the certified enclosure of a quantity (a formula
-// over λ1…λN, the gap, D, area, perimeter and the parameters) against the
-// parameter, with a threshold and each point marked by its verdict; for a
-// two-parameter sweep, a map of cells coloured by a certified lower bound
-// of one claim's margin, undecided and failing cells marked.
+// over λ1…λN, the gap, D, area, perimeter, the parameters and the
+// reference quantities of built-in claims) against the parameter, with an
+// optional second certified band (a reference), a threshold, and each
+// point marked by its verdict; for a two-parameter sweep, a map of cells
+// coloured by a certified lower bound of one claim's margin, undecided and
+// failing cells marked.
+//
+// Reference quantities. A built-in claim with a reference (package
+// certs/named) stores in its claim result the certificate of that
+// reference (certs.ClaimResult.Reference), and formulas may name the
+// quantity it certifies:
+//
+//	robin_interval_gap   the gap of −u″ = λu on (0, D), D the polygon's
+//	                     diameter, with the polygon's Robin coefficient at
+//	                     both ends: the gap enclosure of the reference
+//	                     certificate of @robin_comparison
+//
+// It is read from the point's certificate file (never from the summary);
+// a formula naming it at a point without it (no such claim, a claim whose
+// reference could not be stated, no certificate file) is an error saying
+// which.
 //
 // Guarantees. The numbers behind a picture are certified: the enclosures
 // come from the summary's points, each read back outward from its decimal
 // strings (certs.Bound.Interval), and are cross-checked against the
 // certificate files beside the summary (file SHA-256, problem hash and
-// every enclosure and claim result, string for string); a quantity or a
-// threshold is enclosed in interval arithmetic over them
+// every enclosure and claim result, string for string); reference
+// quantities are the decimal strings of the reference certificates,
+// read back outward likewise; a quantity, reference or threshold is
+// enclosed in interval arithmetic over them
 // (formula.Expr.Eval), and its verdict is that of certs.Claim.Evaluate, so
 // "holds" and "fails" are true for every value in the enclosures. Map
 // margins are the certificate's margin ends read back in the safe

@@ -57,6 +57,7 @@ func TestGoldenSVG(t *testing.T) {
 	}{
 		{"band", goldenBand(t).Write},
 		{"map", goldenMap(t).Write},
+		{"robin_band", robinBand(t).Write},
 	} {
 		path := filepath.Join(dir, c.golden+".svg")
 		if err := c.write(path); err != nil {
@@ -93,11 +94,14 @@ func TestGoldenSVG(t *testing.T) {
 // each verdict.
 func TestSVGLabels(t *testing.T) {
 	dir := t.TempDir()
-	band, cells := filepath.Join(dir, "band.svg"), filepath.Join(dir, "map.svg")
+	band, cells, robin := filepath.Join(dir, "band.svg"), filepath.Join(dir, "map.svg"), filepath.Join(dir, "robin.svg")
 	if err := goldenBand(t).Write(band); err != nil {
 		t.Fatal(err)
 	}
 	if err := goldenMap(t).Write(cells); err != nil {
+		t.Fatal(err)
+	}
+	if err := robinBand(t).Write(robin); err != nil {
 		t.Fatal(err)
 	}
 	for path, want := range map[string][]string{
@@ -106,6 +110,9 @@ func TestSVGLabels(t *testing.T) {
 			"nothing is certified between the sampled parameter values.", "shading between points: for reading only, not certified"},
 		cells: {"claim D^2*gap >= 75", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
 			"fails: certified for the whole enclosure (1)", "unmarked cells hold"},
+		robin: {"certified enclosures of gap and of robin_interval_gap", "gap, robin_interval_gap", "reference: certified enclosure of robin_interval_gap at each point",
+			"certified enclosure of gap at each point", "every claim holds (the point's certificate) (3)", "the wider reference bars likewise enclose robin_interval_gap at each point;",
+			"shading between points: for reading only, not certified"},
 	} {
 		text := strings.Join(summarise(t, path).Texts, "\n")
 		for _, w := range want {
@@ -120,7 +127,7 @@ func TestSVGLabels(t *testing.T) {
 // in inches times plot.PNGDPI, rounded (vgimg's rule).
 func TestPNG(t *testing.T) {
 	dir := t.TempDir()
-	for name, pic := range map[string]picture{"band": goldenBand(t).picture(), "map": goldenMap(t).picture()} {
+	for name, pic := range map[string]picture{"band": goldenBand(t).picture(), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture()} {
 		path := filepath.Join(dir, name+".png")
 		if err := pic.write(path); err != nil {
 			t.Fatal(err)
