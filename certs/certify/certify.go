@@ -136,8 +136,8 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 			return nil, err
 		}
 		if opt.Progress != nil {
-			opt.Progress("%s: widths lambda1 %.2g, lambda2 %.2g, gap %.2g (%.2fs)\n",
-				r.describe(), res.widths[0], res.widths[1], res.gapWidth, time.Since(t0).Seconds())
+			opt.Progress("%s%s: widths lambda1 %.2g, lambda2 %.2g, gap %.2g (%.2fs)\n",
+				r.describe(), out.describe(), res.widths[0], res.widths[1], res.gapWidth, time.Since(t0).Seconds())
 		}
 		if best == nil || res.worst() <= best.worst() {
 			best = res

@@ -59,6 +59,20 @@ type polygonRecord struct {
 	fluxUnknowns               int
 }
 
+// describe is a summary of the sizes and of the stage that gave the lower
+// bounds, for progress lines.
+func (out *outcome) describe() string {
+	stage := "stage A only"
+	if out.lg != nil {
+		stage = fmt.Sprintf("stage B with N = %d", out.n)
+	}
+	if out.polygon == nil {
+		return " (" + stage + ")"
+	}
+	return fmt.Sprintf(" (%d triangles, %d stage-A and %d flux unknowns, %s)",
+		out.polygon.triangles, out.polygon.stageAUnknowns, out.polygon.fluxUnknowns, stage)
+}
+
 // extraIndices is how many eigenvalues past the requested ones are bounded,
 // so that N can be raised past a cluster that meets the last requested one.
 const extraIndices = 3
