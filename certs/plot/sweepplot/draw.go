@@ -174,7 +174,7 @@ func (b *Band) picture() picture {
 		"nothing is certified between the sampled parameter values.",
 	}
 	if b.Reference != "" {
-		caption = append(caption[:1], "the wider reference bars likewise enclose "+r+" at each point;", caption[1])
+		caption = append(caption[:1], "the orange reference bars likewise enclose "+r+" at each point;", caption[1])
 	}
 	if n := b.notes(); n != "" {
 		caption = append(caption, n)
@@ -416,15 +416,22 @@ const (
 	refCapWidth = 5 * vg.Millimeter
 )
 
-// Plot implements plot.Plotter.
+// Plot implements plot.Plotter. Caps are at most 3/4 of the distance
+// between neighbouring points, so that they do not join.
 func (b *intervalBars) Plot(c draw.Canvas, p *gplot.Plot) {
 	trX, trY := p.Transforms(&c)
+	half := b.capWidth / 2
+	for i := 1; i < len(b.points); i++ {
+		if d := trX(b.points[i].X) - trX(b.points[i-1].X); d > 0 {
+			half = min(half, 3*d/8)
+		}
+	}
 	for _, pt := range b.points {
 		e := b.of(pt)
 		x, lo, hi := trX(pt.X), trY(e.Lo), trY(e.Hi)
 		c.StrokeLine2(b.style, x, lo, x, hi)
-		c.StrokeLine2(b.style, x-b.capWidth/2, lo, x+b.capWidth/2, lo)
-		c.StrokeLine2(b.style, x-b.capWidth/2, hi, x+b.capWidth/2, hi)
+		c.StrokeLine2(b.style, x-half, lo, x+half, lo)
+		c.StrokeLine2(b.style, x-half, hi, x+half, hi)
 	}
 }
 

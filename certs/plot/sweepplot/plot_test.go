@@ -111,7 +111,7 @@ func TestSVGLabels(t *testing.T) {
 		cells: {"claim D^2*gap >= 75", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
 			"fails: certified for the whole enclosure (1)", "unmarked cells hold"},
 		robin: {"certified enclosures of gap and of robin_interval_gap", "gap, robin_interval_gap", "reference: certified enclosure of robin_interval_gap at each point",
-			"certified enclosure of gap at each point", "every claim holds (the point's certificate) (3)", "the wider reference bars likewise enclose robin_interval_gap at each point;",
+			"certified enclosure of gap at each point", "every claim holds (the point's certificate) (3)", "the orange reference bars likewise enclose robin_interval_gap at each point;",
 			"shading between points: for reading only, not certified"},
 	} {
 		text := strings.Join(summarise(t, path).Texts, "\n")
