@@ -92,3 +92,27 @@ func (x edgeIndex) find(a, b int) int {
 	}
 	return -1
 }
+
+// BoundaryOwners returns, for each boundary edge Bnd[k], the triangle t
+// and local edge i (opposite local vertex i) that contain it: the
+// counterclockwise triangle traverses a boundary edge in the same direction
+// A → B as ∂Ω. It panics if a boundary edge is in no triangle (impossible
+// for meshes made by this package).
+func (m *Mesh) BoundaryOwners() [][2]int {
+	type dirEdge struct{ a, b int }
+	owner := make(map[dirEdge][2]int, 3*len(m.Tris))
+	for t, tri := range m.Tris {
+		for i := 0; i < 3; i++ {
+			owner[dirEdge{tri[(i+1)%3], tri[(i+2)%3]}] = [2]int{t, i}
+		}
+	}
+	out := make([][2]int, len(m.Bnd))
+	for k, be := range m.Bnd {
+		ti, ok := owner[dirEdge{be.A, be.B}]
+		if !ok {
+			panic("mesh: boundary edge not found in the mesh triangles")
+		}
+		out[k] = ti
+	}
+	return out
+}

@@ -112,22 +112,13 @@ func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
 		}
 		f.dofs[t], f.sign[t] = d, s
 	}
-	type dirEdge struct{ a, b int }
-	owner := map[dirEdge][2]int{}
-	for t, tri := range m.Tris {
-		for i := 0; i < 3; i++ {
-			owner[dirEdge{tri[(i+1)%3], tri[(i+2)%3]}] = [2]int{t, i}
-		}
-	}
-	for _, be := range m.Bnd {
+	owners := m.BoundaryOwners()
+	for k, be := range m.Bnd {
 		c := bc[be.Side]
 		if c.Dirichlet || !(c.Alpha.Lo > 0) {
 			continue
 		}
-		ti, ok := owner[dirEdge{be.A, be.B}]
-		if !ok {
-			panic("tri: boundary edge not found in the mesh triangles")
-		}
+		ti := owners[k]
 		f.robin = append(f.robin, fluxRobin{t: ti[0], i: ti[1], alpha: c.Alpha, length: m.Geom(ti[0]).EdgeLen[ti[1]]})
 	}
 	return f

@@ -156,22 +156,13 @@ func NewLagrange(m *mesh.Mesh, p int, bc []BC) *Lagrange {
 		s.dofs[t] = d
 	}
 	// Robin edges: find each boundary edge A→B in its (counterclockwise) triangle.
-	type dirEdge struct{ a, b int }
-	owner := map[dirEdge][2]int{}
-	for t, tri := range m.Tris {
-		for i := 0; i < 3; i++ {
-			owner[dirEdge{tri[(i+1)%3], tri[(i+2)%3]}] = [2]int{t, i}
-		}
-	}
-	for _, be := range m.Bnd {
+	owners := m.BoundaryOwners()
+	for k, be := range m.Bnd {
 		c := bc[be.Side]
 		if c.Dirichlet || c.Alpha.Hi == 0 {
 			continue
 		}
-		ti, ok := owner[dirEdge{be.A, be.B}]
-		if !ok {
-			panic("tri: boundary edge not found in the mesh triangles")
-		}
+		ti := owners[k]
 		t, i := ti[0], ti[1]
 		ja, jb := (i+1)%3, (i+2)%3
 		along := make([]int, p+1)
