@@ -1,10 +1,12 @@
 package sweepplot
 
 import (
+	"encoding/json"
 	"math"
 	"math/big"
 	"os"
 	"path/filepath"
+	"reflect"
 	"slices"
 	"testing"
 
@@ -224,5 +226,99 @@ func TestReferenceNamesCoverCatalogue(t *testing.T) {
 	}
 	if referenceOwner(named.RobinIntervalGap) != "@robin_comparison" {
 		t.Errorf("robin_interval_gap belongs to %q", referenceOwner(named.RobinIntervalGap))
+	}
+}
+
+// robinExample is the Robin example family of the repository.
+const robinExample = "../../../testdata/examples/robin_pentagon_family.json"
+
+// TestRobinExampleIsTheTestSweep: the committed Robin sweep samples the
+// example family (each of its points is, name and width target aside, the
+// example's point with the same α), so the tests of its pictures are tests
+// of the example's.
+func TestRobinExampleIsTheTestSweep(t *testing.T) {
+	read := func(path string) *sweep.Family {
+		data, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		f, err := sweep.ParseFamily(data)
+		if err != nil {
+			t.Fatalf("%s: %v", path, err)
+		}
+		return f
+	}
+	// withoutName is the canonical problem without its name and target.
+	withoutName := func(pt *sweep.FamilyPoint) map[string]any {
+		var m map[string]any
+		if err := json.Unmarshal(pt.Problem.Canonical(), &m); err != nil {
+			t.Fatal(err)
+		}
+		delete(m, "name")
+		delete(m, "target")
+		return m
+	}
+	example, test := read(robinExample), read(filepath.Join("testdata", "families", "robin.json"))
+	if len(example.Points) != 21 {
+		t.Errorf("the example has %d points, want 21", len(example.Points))
+	}
+	for _, pt := range test.Points {
+		alpha := test.ParamText(pt)["alpha"]
+		k := slices.IndexFunc(example.Points, func(q *sweep.FamilyPoint) bool { return example.ParamText(q)["alpha"] == alpha })
+		if k < 0 {
+			t.Errorf("alpha = %s is not a point of the example", alpha)
+			continue
+		}
+		if got, want := withoutName(pt), withoutName(example.Points[k]); !reflect.DeepEqual(got, want) {
+			t.Errorf("alpha = %s: test problem %v, example %v", alpha, got, want)
+		}
+	}
+}
+
+// TestRobinExampleLong (GAPCERT_LONG=1) runs the whole example (21 points;
+// 12 s on the 2-core machine, 24 s under load) and checks every point as the
+// committed sweep is checked: the claim holds, the reference encloses
+// π²/64 at α = 0 and the root of the secular equation elsewhere, narrowly.
+func TestRobinExampleLong(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") == "" {
+		t.Skip("set GAPCERT_LONG=1 to run the Robin example")
+	}
+	data, err := os.ReadFile(robinExample)
+	if err != nil {
+		t.Fatal(err)
+	}
+	f, err := sweep.ParseFamily(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	if _, err := sweep.Run(f, dir, sweep.RunOptions{FamilyName: filepath.Base(robinExample), Tool: "gapcert 0.1.0-dev"}); err != nil {
+		t.Fatal(err)
+	}
+	s, err := Load(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := s.Band("alpha", BandSpec{Quantity: "gap", Reference: "robin_interval_gap"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(b.Points) != 21 {
+		t.Fatalf("%d points drawn, want 21", len(b.Points))
+	}
+	for _, p := range b.Points {
+		var want interval.I
+		if p.XText == "0" {
+			want = pi2(t).DivF(64)
+		} else {
+			w := robinIntervalGap(p.X, 8) // α is a multiple of 1/2, exact in float64
+			want = interval.I{Lo: w, Hi: w}
+		}
+		if !(p.Reference.Lo <= want.Lo && want.Hi <= p.Reference.Hi) || p.Reference.Hi-p.Reference.Lo > 1e-9*want.Hi {
+			t.Errorf("alpha = %s: robin_interval_gap ∈ %v, want a narrow enclosure of %v", p.XText, p.Reference, want)
+		}
+		if p.Verdict != certs.Holds || !(p.Quantity.Lo > p.Reference.Hi) {
+			t.Errorf("alpha = %s: verdict %s, gap ∈ %v, reference ∈ %v", p.XText, p.Verdict, p.Quantity, p.Reference)
+		}
 	}
 }
