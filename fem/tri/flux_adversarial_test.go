@@ -542,3 +542,87 @@ func TestLGRelabelledMeshes(t *testing.T) {
 		}
 	}
 }
+
+// TestLGModelledWeight: with V = 20x + 10y² on the unit Dirichlet square
+// the weight 1/(V + γ) is not a polynomial, so its model has a remainder
+// that A2 must carry. With γ = 1 the pole of the weight lies 0.05 from the
+// square and the remainders are huge (radius 35 at order 1, 300 at order
+// 2 on this mesh, where 1/c ≤ 1); with γ = 20 they are small. No closed
+// form is known; the check is against the Rayleigh–Ritz upper bound of
+// degree 8 on a finer mesh (min–max, an independent computation): every
+// Lehmann–Goerisch bound of Λ_1 must lie below it (or none be given), and
+// with γ = 20 at order 6 within 10⁻³ (measured 3.6·10⁻⁴: the remainder
+// radius 5.7·10⁻⁵ against 1/c ≈ 0.03 limits it). ρ = 5π² + γ ≤ Λ_2 because V ≥ 0 and
+// λ_2 of the Dirichlet Laplacian is 5π² (min–max is monotone in V; common
+// practice).
+func TestLGModelledWeight(t *testing.T) {
+	bc := allBC(4, dirichlet)
+	const vsrc = "20*x+10*y^2"
+	fine, m := unitSquare(t, 3), unitSquare(t, 2)
+	sf, s := NewLagrange(fine, 8, bc), NewLagrange(m, 6, bc)
+	vf, v := mustPotential(t, fine, vsrc, 2), mustPotential(t, m, vsrc, 2)
+	f := NewFlux(m, 5, bc)
+	lowest := func(s *Lagrange, v *Potential, gamma float64) (vecs [][]float64, quo interval.I, a0, a1 any) {
+		k, mm := s.AssembleApprox(v, gamma)
+		_, vecs, err := sparse.LowestEigs(k, mm, 1)
+		if err != nil {
+			t.Fatal(err)
+		}
+		b0, b1, err := s.RitzMatrices(vecs, v, interval.Point(gamma))
+		if err != nil {
+			t.Fatal(err)
+		}
+		return vecs, quotient(b0, b1), b0, b1
+	}
+	bounded := 0
+	for _, c := range []struct {
+		gamma  float64
+		order  int
+		narrow bool
+	}{{1, 1, false}, {1, 2, false}, {20, 2, false}, {20, 6, true}} {
+		g := interval.Point(c.gamma)
+		_, ritz, _, _ := lowest(sf, vf, c.gamma)
+		upper := ritz.Hi
+		vecs, _, _, _ := lowest(s, v, c.gamma)
+		a0, a1, err := s.RitzMatrices(vecs, v, g)
+		if err != nil {
+			t.Fatal(err)
+		}
+		w, err := v.InverseShifted(g, c.order)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if w.Exact() {
+			t.Fatalf("order %d: the model of 1/(V + γ) claims to be exact", c.order)
+		}
+		fl, err := f.MinimizeApprox(s, vecs, w)
+		if err != nil {
+			t.Fatal(err)
+		}
+		a2, err := f.LGMatrix(s, vecs, fl, v, w, g)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rho := interval.Pi().Sqr().MulF(5).AddF(c.gamma).Lo
+		lower, err := temple.LehmannGoerisch(a0, a1, a2, rho)
+		if errors.Is(err, temple.ErrNotPositiveDefinite) && !c.narrow {
+			continue
+		}
+		if err != nil {
+			t.Fatalf("γ = %g, order %d: %v", c.gamma, c.order, err)
+		}
+		bounded++
+		if lower[0] > upper {
+			t.Errorf("γ = %g, order %d: Λ_1 ≥ %.17g above the Ritz upper bound %.17g", c.gamma, c.order, lower[0], upper)
+		}
+		if rel := (upper - lower[0]) / upper; c.narrow && rel > 1e-3 {
+			t.Errorf("γ = %g, order %d: Λ_1 ≥ %.17g is %.2g below the Ritz upper bound %.17g", c.gamma, c.order, lower[0], rel, upper)
+		}
+		if testing.Verbose() {
+			t.Logf("γ = %g, order %d: Λ_1 ∈ [%.17g, %.17g]", c.gamma, c.order, lower[0], upper)
+		}
+	}
+	if bounded < 3 {
+		t.Errorf("only %d of 4 weight models gave a bound", bounded)
+	}
+}
