@@ -201,23 +201,28 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 		inf = math.Max(inf, cells)
 	}
 	g := interval.Point(0).Max(interval.Point(inf).Neg()).Add(scale).Hi
-	if p.Dim == 2 {
-		// On polygons the Lehmann–Goerisch weight 1/(V + γ) is modelled by
-		// Taylor models on triangles, whose remainders shrink like
-		// (h·|∇V|/(V + γ))^(order+1): a γ that keeps V + γ ≥ 2 osc V makes
-		// them converge on coarse meshes. Measured on a trapezoid with
-		// V = x² + y² (osc 2.5) at degree 6: γ = 1.6 gives no stage-B bound
-		// below 128 triangles, γ = 6.3 relative width 9e-6 at 32 and 9e-10
-		// at 128. Any γ with V + γ > 0 is sound; this is a choice (and
-		// inf V, sup V here are only enclosure ends).
-		if osc := vr.Hi - inf; osc > 0 && !math.IsInf(osc, 0) {
-			g = math.Max(g, interval.SubUp(2*osc, inf))
-		}
-	}
 	if math.IsInf(g, 0) || math.IsNaN(g) {
 		return recipe{}, fmt.Errorf("certify: the potential's range %v is outside what float64 can handle", vr)
 	}
 	r.gamma = roundShift(g)
+	if p.Dim == 2 {
+		// Stage B on polygons has its own shift γ_B ≥ γ. Its weight
+		// 1/(V + γ_B) is modelled by Taylor models on triangles, whose
+		// remainders shrink like (h·|∇V|/(V + γ_B))^(order+1): keeping
+		// V + γ_B ≥ 2 osc V makes them converge on coarse meshes, while
+		// stage A keeps the small γ (its projection bound loses accuracy
+		// like C_h²(λ + γ)). Measured on a trapezoid with V = x² + y²
+		// (osc 2.5) at degree 6: γ = 1.6 gives no stage-B bound below 128
+		// triangles, 6.3 relative width 9e-6 at 32 and 9e-10 at 128. Any
+		// γ_B ≥ γ is sound (a choice; inf V and sup V here are only
+		// enclosure ends).
+		r.fluxGamma = r.gamma
+		if osc := vr.Hi - inf; osc > 0 && !math.IsInf(osc, 0) {
+			if gb := roundShift(interval.SubUp(2*osc, inf)); gb > r.gamma && !math.IsInf(gb, 0) {
+				r.fluxGamma = gb
+			}
+		}
+	}
 	return r, nil
 }
 
@@ -532,11 +537,12 @@ func (res *result) method() Method {
 		m.StageASpace = out.polygon.stageASpace
 		m.Triangles, m.StageATriangles = out.polygon.triangles, out.polygon.stageATriangles
 		m.FluxDegree, m.WeightOrder, m.FluxUnknowns = r.fluxDegree, r.weightTaylor, out.polygon.fluxUnknowns
+		m.FluxGamma = decimalio.FormatExact(r.fluxGamma)
 	} else {
 		m.Cells, m.FluxDegree, m.WeightOrder, m.StageACells = r.cells, r.fluxDegree, r.weightTaylor, r.stageACells
 	}
 	if out.n > 0 {
-		m.Rho = decimalio.FormatExact(out.rho)
+		m.Rho = decimalio.FormatExact(out.lgRho)
 	}
 	for k, u := range out.ritz {
 		m.Stages.RitzUpper = append(m.Stages.RitzUpper, StageBound{k + 1, decimalio.FormatUpper(u, Digits)})

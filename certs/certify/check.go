@@ -63,6 +63,13 @@ func Check(data []byte) error {
 		cells: m.Cells, fluxDegree: m.FluxDegree, weightTaylor: m.WeightOrder, stageACells: m.StageACells,
 		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels}
 	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
+	if p.Dim == 2 {
+		fg, err := decimalio.Parse(m.FluxGamma)
+		if err != nil || !fg.IsPoint() || fg.Lo < r.gamma {
+			return fmt.Errorf("method.flux_gamma %q is not an exact float64 ≥ gamma", m.FluxGamma)
+		}
+		r.fluxGamma = fg.Lo
+	}
 	if err := r.validate(p.Dim); err != nil {
 		return err
 	}

@@ -18,6 +18,10 @@ type recipe struct {
 	gamma  float64
 	scale  float64 // π²/D² rounded down; only for choosing shifts
 
+	// fluxGamma is the shift γ_B ≥ γ of stage B on polygons (0 on
+	// intervals, where stage B uses γ).
+	fluxGamma float64
+
 	// Intervals.
 	cells, fluxDegree int // polygons: fluxDegree −1 runs stage A alone (convergence studies)
 	weightTaylor      int // order of the Taylor models of 1/(V + γ)
@@ -44,7 +48,8 @@ type outcome struct {
 	stageA []float64 // lower bounds, k = 1..len
 	lg     []float64 // lower bounds, k = 1..n (−Inf where none)
 	n      int       // trial functions used by stage B (0 if it did not run)
-	rho    float64
+	rho    float64   // the stage-A lower bound of Λ_{N+1} that separates
+	lgRho  float64   // ρ̂ given to Lehmann–Goerisch: ≤ λ_{N+1} + (its shift)
 	ch     interval.I
 	notes  []string
 
@@ -159,7 +164,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 func chooseN(p *problem.Problem, out *outcome) bool {
 	for n := p.Eigenvalues; n < len(out.stageA) && n <= len(out.ritz); n++ {
 		if out.stageA[n] > out.ritz[n-1] {
-			out.n, out.rho = n, out.stageA[n]
+			out.n, out.rho, out.lgRho = n, out.stageA[n], out.stageA[n]
 			return true
 		}
 	}

@@ -6,10 +6,11 @@ package certify
 // its outputs, recorded so that a reader sees each stage's contribution and
 // Check can compare them.
 type Method struct {
-	Kind        string `json:"kind"`         // KindInterval or KindPolygon
-	Degree      int    `json:"degree"`       // p of the conforming trial space
-	TaylorOrder int    `json:"taylor_order"` // order of the Taylor models of V
-	Gamma       string `json:"gamma"`        // the shift γ, an exact float64 in exact decimal
+	Kind        string `json:"kind"`                 // KindInterval or KindPolygon
+	Degree      int    `json:"degree"`               // p of the conforming trial space
+	TaylorOrder int    `json:"taylor_order"`         // order of the Taylor models of V
+	Gamma       string `json:"gamma"`                // the shift γ, an exact float64 in exact decimal
+	FluxGamma   string `json:"flux_gamma,omitempty"` // polygons: the shift γ_B ≥ γ of stage B (its Λ_k = λ_k + γ_B)
 
 	// Intervals.
 	Cells       int `json:"cells,omitempty"`               // uniform cells of the P_p mesh
@@ -27,7 +28,7 @@ type Method struct {
 	FluxUnknowns      int    `json:"flux_unknowns,omitempty"` // dimension of RT_k on the trial mesh (a record)
 
 	N                  int      `json:"n"`                   // trial functions in stage B
-	Rho                string   `json:"rho"`                 // ρ̂ ≤ Λ_{N+1}, exact float64 in exact decimal; "" if stage B did not run
+	Rho                string   `json:"rho"`                 // ρ̂ ≤ λ_{N+1} + (γ_B on polygons, else γ), exact float64 in exact decimal; "" if stage B did not run
 	ProjectionConstant string   `json:"projection_constant"` // upper bound of C_h of stage A
 	Stages             Stages   `json:"stages"`
 	Theorems           []string `json:"theorems"`

@@ -94,26 +94,49 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	if r.fluxDegree < 0 || !chooseN(p, out) {
 		return out, nil
 	}
-	weight, err := pot.InverseShifted(gamma, r.weightTaylor)
+	// Stage B works with Λ^B_k = λ_k + γ_B. From stageA[N] ≤ λ_{N+1} + γ
+	// (γ, γ_B exact floats), ρ̂_B = (stageA[N] − γ) + γ_B rounded down is
+	// ≤ Λ^B_{N+1}; its bounds ℓ ≤ Λ^B_k are stored as (ℓ − γ_B) + γ
+	// rounded down ≤ Λ_k.
+	gB := r.fluxGamma
+	if gB == 0 {
+		gB = r.gamma
+	}
+	gammaB := interval.Point(gB)
+	out.lgRho = interval.AddDown(interval.SubDown(out.rho, r.gamma), gB)
+	trial := vecs[:out.n]
+	b0, b1 := leading(a0, out.n), leading(a1, out.n)
+	if gB != r.gamma {
+		if b0, b1, err = space.RitzMatrices(trial, pot, gammaB); err != nil {
+			return nil, err
+		}
+	}
+	weight, err := pot.InverseShifted(gammaB, r.weightTaylor)
 	if err != nil {
 		return nil, err
 	}
 	flux := tri.NewFlux(m, r.fluxDegree, bcs)
 	out.polygon.fluxUnknowns = flux.N()
-	trial := vecs[:out.n]
 	fluxes, err := flux.MinimizeApprox(space, trial, weight)
 	if err != nil {
 		out.notes = append(out.notes, "stage B skipped: "+err.Error())
 		return out, nil
 	}
-	a2, err := flux.LGMatrix(space, trial, fluxes, pot, weight, gamma)
+	a2, err := flux.LGMatrix(space, trial, fluxes, pot, weight, gammaB)
 	if err != nil {
 		return nil, err
 	}
-	out.lg, err = temple.LehmannGoerisch(leading(a0, out.n), leading(a1, out.n), a2, out.rho)
+	lg, err := temple.LehmannGoerisch(b0, b1, a2, out.lgRho)
 	if err != nil {
 		out.notes = append(out.notes, "stage B gave no bound: "+err.Error())
-		out.lg = nil
+		return out, nil
+	}
+	out.lg = make([]float64, len(lg))
+	for k, l := range lg {
+		out.lg[k] = l // −Inf stays −Inf
+		if !math.IsInf(l, -1) {
+			out.lg[k] = interval.AddDown(interval.SubDown(l, gB), r.gamma)
+		}
 	}
 	return out, nil
 }

@@ -105,3 +105,44 @@ func TestNoSeparationFallsBackToStageA(t *testing.T) {
 		}
 	}
 }
+
+// TestCheckSeparateStageBShift: with V = x² + y² on (−1, 1)² stage B uses
+// its own shift γ_B > γ (V + γ_B ≥ 2 osc V); the certificate records it,
+// verifies, and edits of it are caught (a γ_B below γ is refused). The
+// bounds contain the separable values μ_i + μ_j of the 1D certifier
+// (common practice), as in TestSeparablePotential.
+func TestCheckSeparateStageBShift(t *testing.T) {
+	_, c1 := certifyText(t, `{"domain":{"interval":["-1","1"]},"potential":"x^2","boundary":"dirichlet","eigenvalues":2}`, 1e-12)
+	mu1, mu2 := eigenEnclosure(t, c1, 1), eigenEnclosure(t, c1, 2)
+	p, err := problem.Parse([]byte(`{"domain":{"polygon":[["-1","-1"],["1","-1"],["1","1"],["-1","1"]]},"potential":"x^2 + y^2","boundary":"dirichlet","eigenvalues":2}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := Certify(p, Options{RelWidth: 1e-5, Now: fixedTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := methodOf(t, c)
+	if m.FluxGamma == m.Gamma || !usedStageB(t, c) {
+		t.Fatalf("want stage B with its own shift: gamma %s, flux_gamma %s, stage B %v", m.Gamma, m.FluxGamma, usedStageB(t, c))
+	}
+	for k, truth := range []interval.I{mu1.Add(mu1), mu1.Add(mu2)} {
+		requireEnclosure(t, fmt.Sprintf("lambda%d", k+1), eigenEnclosure(t, c, k+1), truth, 1, 1e-5)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("fresh certificate does not verify: %v", err)
+	}
+	edited := strings.Replace(string(data), `"flux_gamma": "`+m.FluxGamma+`"`, `"flux_gamma": "`+m.FluxGamma+`5"`, 1)
+	var mm *MismatchError
+	if err := Check([]byte(edited)); !errors.As(err, &mm) {
+		t.Errorf("edited flux_gamma: want a mismatch report, got %v", err)
+	}
+	below := strings.Replace(string(data), `"flux_gamma": "`+m.FluxGamma+`"`, `"flux_gamma": "0.5"`, 1)
+	if err := Check([]byte(below)); err == nil || !strings.Contains(err.Error(), "flux_gamma") {
+		t.Errorf("flux_gamma below gamma: want a refusal, got %v", err)
+	}
+}
