@@ -171,6 +171,15 @@ func printCertificate(w io.Writer, p *problem.Problem, c *certs.Certificate) {
 		fmt.Fprintln(w, "\nclaims:")
 		for _, cl := range c.Claims {
 			fmt.Fprintf(w, "  %-10s %s   (lhs − rhs ∈ [%s, %s])\n", cl.Verdict, cl.Text, cl.Margin.Lower, cl.Margin.Upper)
+			if cl.Inequality != "" && cl.Inequality != cl.Text {
+				fmt.Fprintf(w, "             %s\n", cl.Inequality)
+			}
+			for _, h := range cl.Hypotheses {
+				fmt.Fprintf(w, "             hypothesis %s: %s (%s)\n", h.Name, h.Verdict, h.Detail)
+			}
+			if cl.Reason != "" {
+				fmt.Fprintf(w, "             %s\n", cl.Reason)
+			}
 		}
 	}
 	for _, warn := range c.Warnings {
