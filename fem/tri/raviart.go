@@ -14,7 +14,8 @@ import (
 //
 // P̃_k the homogeneous polynomials of degree k (P.-A. Raviart and
 // J.-M. Thomas, A mixed finite element method for 2nd order elliptic
-// problems, Lecture Notes in Math. 606, Springer, 1977; F. Brezzi and
+// problems, in: Mathematical Aspects of Finite Element Methods, Springer
+// LNM 606, 1977; F. Brezzi and
 // M. Fortin, Mixed and Hybrid Finite Element Methods, Springer, 1991,
 // §III.3). Its members have components of degree ≤ k + 1, divergence in
 // P_k and, on each edge, a normal component in P_k (the (ξ, η)P̃_k part is
