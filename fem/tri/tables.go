@@ -74,7 +74,26 @@ var tableCache rattable.Cache
 // cached returns the table for key, building it from exact rationals once.
 func cached(key tableKey, build func() []*big.Rat) *table { return tableCache.Get(key, build) }
 
-func factorial(n int) *big.Int { return new(big.Int).MulRange(1, int64(max(n, 1))) }
+// factorial returns a new big.Int n! (from a cache of the factorials
+// computed so far; the tables need them up to a few dozen, many times).
+func factorial(n int) *big.Int {
+	factMu.Lock()
+	defer factMu.Unlock()
+	for len(factCache) <= n {
+		k := len(factCache)
+		f := big.NewInt(1)
+		if k > 0 {
+			f.Mul(factCache[k-1], big.NewInt(int64(k)))
+		}
+		factCache = append(factCache, f)
+	}
+	return new(big.Int).Set(factCache[max(n, 0)])
+}
+
+var (
+	factMu    sync.Mutex
+	factCache []*big.Int
+)
 
 func binom(n, k int) *big.Int {
 	if k < 0 || k > n {
