@@ -51,6 +51,32 @@ func (m *Mesh) RefineGraded(corner int, levels int) *Mesh {
 	if levels < 0 {
 		panic("mesh: negative number of levels")
 	}
+	r := m.longestEdgeFirst()
+	for l := 0; l < levels; l++ {
+		r = r.bisectRound(func(tri [3]int) bool { return tri[0] == corner || tri[1] == corner || tri[2] == corner })
+	}
+	return r
+}
+
+// RefineMarked returns m refined by one round of newest-vertex bisection
+// with conforming closure (the scheme of RefineGraded) in which the three
+// edges of every triangle t with marked[t] are split: marked triangles are
+// split into four or more, and their neighbours as the closure requires.
+// It panics unless len(marked) == len(m.Tris).
+func (m *Mesh) RefineMarked(marked []bool) *Mesh {
+	if len(marked) != len(m.Tris) {
+		panic("mesh: one mark per triangle required")
+	}
+	r := m.longestEdgeFirst()
+	// longestEdgeFirst keeps the triangle order, so marks carry over.
+	t := -1
+	return r.bisectRound(func([3]int) bool { t++; return marked[t] })
+}
+
+// longestEdgeFirst returns a copy of m whose triangles are rotated so that
+// local edge 0 (the refinement edge) is the longest (by the midpoints of
+// the length enclosures, a choice; ties to the lowest local index).
+func (m *Mesh) longestEdgeFirst() *Mesh {
 	r := &Mesh{
 		Nodes:   append([][2]interval.I(nil), m.Nodes...),
 		Tris:    make([][3]int, len(m.Tris)),
@@ -72,14 +98,13 @@ func (m *Mesh) RefineGraded(corner int, levels int) *Mesh {
 			r.edge[t][i] = m.edge[t][(i+s)%3]
 		}
 	}
-	for l := 0; l < levels; l++ {
-		r = r.bisectRound(corner)
-	}
 	return r
 }
 
-// bisectRound performs one round of RefineGraded.
-func (m *Mesh) bisectRound(corner int) *Mesh {
+// bisectRound performs one round of RefineGraded: the edges of the
+// triangles for which mark (called once per triangle, in order) is true
+// are marked first.
+func (m *Mesh) bisectRound(mark func(tri [3]int) bool) *Mesh {
 	edges, triEdges := m.Edges()
 	// Triangles of each edge (at most two; −1 for none).
 	edgeTris := make([][2]int, len(edges))
@@ -99,7 +124,7 @@ func (m *Mesh) bisectRound(corner int) *Mesh {
 	marked := make([]bool, len(edges))
 	var queue []int
 	for t, tri := range m.Tris {
-		if tri[0] == corner || tri[1] == corner || tri[2] == corner {
+		if mark(tri) {
 			for i := 0; i < 3; i++ {
 				k := triEdges[t][i]
 				marked[k] = true

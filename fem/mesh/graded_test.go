@@ -2,6 +2,7 @@ package mesh
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 )
 
@@ -91,5 +92,42 @@ func TestGradingLShape(t *testing.T) {
 		if c > 2*first+1 {
 			t.Errorf("levels %d: h_T/d_T up to %v, at 2 levels %v", levels, c, first)
 		}
+	}
+}
+
+// TestRefineMarked: rounds of marked bisection on random marks keep the
+// mesh a conforming exact tiling (checkMesh: areas, edge matching,
+// boundary, V − E + F = 1), a round with marks adds triangles, and a round
+// with no marks changes nothing.
+func TestRefineMarked(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	for _, pol := range testPolygons {
+		t.Run(pol.name, func(t *testing.T) {
+			p, m := parsePolygon(t, pol.file)
+			m = m.Refine()
+			for round := 0; round < 4; round++ {
+				marked := make([]bool, len(m.Tris))
+				var maxMarked float64
+				for i := range marked {
+					marked[i] = rng.IntN(4) == 0
+					if marked[i] {
+						maxMarked = math.Max(maxMarked, m.Geom(i).Area.Hi)
+					}
+				}
+				r := m.RefineMarked(marked)
+				checkMesh(t, p, r)
+				edges, _ := r.Edges()
+				if len(r.Nodes)-len(edges)+len(r.Tris) != 1 {
+					t.Errorf("V − E + F = %d", len(r.Nodes)-len(edges)+len(r.Tris))
+				}
+				if len(r.Tris) <= len(m.Tris) && maxMarked > 0 {
+					t.Errorf("round %d: %d triangles after marking, %d before", round, len(r.Tris), len(m.Tris))
+				}
+				m = r
+			}
+			if n := len(m.RefineMarked(make([]bool, len(m.Tris))).Tris); n != len(m.Tris) {
+				t.Errorf("a round without marks changed %d triangles into %d", len(m.Tris), n)
+			}
+		})
 	}
 }
