@@ -69,6 +69,7 @@ func Check(data []byte) error {
 			return fmt.Errorf("method.flux_gamma %q is not an exact float64 ≥ gamma", m.FluxGamma)
 		}
 		r.fluxGamma = fg.Lo
+		r.marks = m.AdaptiveMarks
 	}
 	if err := r.validate(p.Dim); err != nil {
 		return err
@@ -156,6 +157,8 @@ func (r recipe) validate(dim int) error {
 			return fmt.Errorf("method.stage_a_refinements %d out of range", r.stageARefine)
 		case r.graded < 0 || r.graded > 3*maxPolygonRefine:
 			return fmt.Errorf("method.graded_levels %d out of range", r.graded)
+		case len(r.marks) > maxAdaptiveRounds:
+			return fmt.Errorf("method.adaptive_marks has %d rounds, more than %d", len(r.marks), maxAdaptiveRounds)
 		case r.fluxDegree < 0 || r.fluxDegree > 16:
 			return fmt.Errorf("method.flux_degree %d out of range", r.fluxDegree)
 		case r.weightTaylor < 1 || r.weightTaylor > 32:

@@ -22,6 +22,10 @@ type recipe struct {
 	// intervals, where stage B uses γ).
 	fluxGamma float64
 
+	// marks lists, per adaptive round on the polygon trial mesh (after the
+	// uniform and graded levels), the triangles marked for bisection.
+	marks [][]int
+
 	// Intervals.
 	cells, fluxDegree int // polygons: fluxDegree −1 runs stage A alone (convergence studies)
 	weightTaylor      int // order of the Taylor models of 1/(V + γ)
@@ -62,6 +66,7 @@ type polygonRecord struct {
 	triangles, stageATriangles int
 	stageAUnknowns             int
 	fluxUnknowns               int
+	indicators                 []float64 // per trial triangle, for marking (nil if stage B did not run)
 }
 
 // describe is a summary of the sizes and of the stage that gave the lower

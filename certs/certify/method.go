@@ -19,13 +19,14 @@ type Method struct {
 	StageACells int `json:"stage_a_cells,omitempty"`
 
 	// Polygons.
-	Refinements       int    `json:"refinements,omitempty"`         // uniform refinements of the trial mesh
-	StageARefinements int    `json:"stage_a_refinements,omitempty"` // uniform refinements of the stage-A mesh
-	GradedLevels      int    `json:"graded_levels,omitempty"`       // extra levels toward each re-entrant corner
-	StageASpace       string `json:"stage_a_space,omitempty"`       // "crouzeix-raviart" or "enriched-crouzeix-raviart"
-	Triangles         int    `json:"triangles,omitempty"`           // triangles of the trial mesh (a record, not an input)
-	StageATriangles   int    `json:"stage_a_triangles,omitempty"`
-	FluxUnknowns      int    `json:"flux_unknowns,omitempty"` // dimension of RT_k on the trial mesh (a record)
+	Refinements       int     `json:"refinements,omitempty"`         // uniform refinements of the trial mesh
+	StageARefinements int     `json:"stage_a_refinements,omitempty"` // uniform refinements of the stage-A mesh
+	GradedLevels      int     `json:"graded_levels,omitempty"`       // extra levels toward each singular corner
+	AdaptiveMarks     [][]int `json:"adaptive_marks,omitempty"`      // per adaptive round of the trial mesh, the triangles bisected
+	StageASpace       string  `json:"stage_a_space,omitempty"`       // "crouzeix-raviart" or "enriched-crouzeix-raviart"
+	Triangles         int     `json:"triangles,omitempty"`           // triangles of the trial mesh (a record, not an input)
+	StageATriangles   int     `json:"stage_a_triangles,omitempty"`
+	FluxUnknowns      int     `json:"flux_unknowns,omitempty"` // dimension of RT_k on the trial mesh (a record)
 
 	N                  int      `json:"n"`                   // trial functions in stage B
 	Rho                string   `json:"rho"`                 // ρ̂ ≤ λ_{N+1} + (γ_B on polygons, else γ), exact float64 in exact decimal; "" if stage B did not run

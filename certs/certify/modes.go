@@ -54,7 +54,8 @@ func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Mod
 		}
 		return &Modes{Count: count, Eval: func(i int, x, _ float64) float64 { return space.Eval(vecs[i], x) }}, nil
 	}
-	mesh, err := polygonMesh(p, r.refine, r.graded)
+	r.marks = m.AdaptiveMarks
+	mesh, err := trialMesh(p, r)
 	if err != nil {
 		return nil, err
 	}

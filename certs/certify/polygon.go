@@ -3,6 +3,7 @@ package certify
 import (
 	"fmt"
 	"math"
+	"sort"
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
@@ -26,7 +27,7 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	out := &outcome{polygon: &polygonRecord{}}
 
 	// Upper bounds.
-	m, err := polygonMesh(p, r.refine, r.graded)
+	m, err := trialMesh(p, r)
 	if err != nil {
 		return nil, err
 	}
@@ -131,6 +132,11 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 		out.notes = append(out.notes, "stage B gave no bound: "+err.Error())
 		return out, nil
 	}
+	lamB := make([]float64, out.n) // approximate Λ^B_i, for the indicators only
+	for i := range lamB {
+		lamB[i] = out.ritz[i] - r.gamma + gB
+	}
+	out.polygon.indicators = flux.Indicators(space, trial, fluxes, lamB)
 	out.lg = make([]float64, len(lg))
 	for k, l := range lg {
 		out.lg[k] = l // −Inf stays −Inf
@@ -235,6 +241,51 @@ func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
 		}
 	}
 	return m, nil
+}
+
+// trialMesh is the mesh of the trial space and the fluxes: polygonMesh
+// followed by the recipe's adaptive rounds (mesh.RefineMarked).
+func trialMesh(p *problem.Problem, r recipe) (*mesh.Mesh, error) {
+	m, err := polygonMesh(p, r.refine, r.graded)
+	if err != nil {
+		return nil, err
+	}
+	for round, marks := range r.marks {
+		marked := make([]bool, len(m.Tris))
+		for _, t := range marks {
+			if t < 0 || t >= len(m.Tris) {
+				return nil, fmt.Errorf("certify: adaptive round %d marks triangle %d of %d", round+1, t, len(m.Tris))
+			}
+			marked[t] = true
+		}
+		m = m.RefineMarked(marked)
+	}
+	return m, nil
+}
+
+// dorflerMarks returns the fewest triangles (largest indicators first, ties
+// by index) whose indicators sum to at least θ of the total (Dörfler
+// marking, W. Dörfler, SIAM J. Numer. Anal. 33 (1996)), in increasing
+// order; a choice of where to refine.
+func dorflerMarks(eta []float64, theta float64) []int {
+	idx := make([]int, len(eta))
+	total := 0.0
+	for i, e := range eta {
+		idx[i] = i
+		total += e
+	}
+	sort.SliceStable(idx, func(a, b int) bool { return eta[idx[a]] > eta[idx[b]] })
+	var out []int
+	acc := 0.0
+	for _, i := range idx {
+		if acc >= theta*total && len(out) > 0 {
+			break
+		}
+		out = append(out, i)
+		acc += eta[i]
+	}
+	sort.Ints(out)
+	return out
 }
 
 // reentrantCorners lists the vertices with interior angle > π: for a

@@ -146,3 +146,94 @@ func TestCheckSeparateStageBShift(t *testing.T) {
 		t.Errorf("flux_gamma below gamma: want a refusal, got %v", err)
 	}
 }
+
+// TestDorflerMarks: the fewest largest indicators holding half the total,
+// in index order (common practice: Dörfler marking).
+func TestDorflerMarks(t *testing.T) {
+	got := dorflerMarks([]float64{1, 5, 0, 3, 1}, 0.5)
+	if fmt.Sprint(got) != "[1]" { // 5 ≥ 0.5·10
+		t.Errorf("marks %v", got)
+	}
+	got = dorflerMarks([]float64{1, 4, 0, 3, 2}, 0.5)
+	if fmt.Sprint(got) != "[1 3]" { // 4 < 5 ≤ 4 + 3
+		t.Errorf("marks %v", got)
+	}
+}
+
+// TestCheckAdaptiveMarks: a certificate whose trial mesh has an adaptive
+// round (Dörfler marks from the indicators of a first computation, on a
+// trapezoid with a Dirichlet–Neumann corner of about 117°) verifies; an
+// edited mark is caught and a mark outside the mesh is an error. Its
+// bounds contain those of a finer uniform computation's enclosure (both
+// are verified, so they must intersect).
+func TestCheckAdaptiveMarks(t *testing.T) {
+	p, err := problem.Parse([]byte(`{"domain":{"polygon":[["0","0"],["3/2","0"],["1","1"],["0","1"]]},"potential":"x*y","boundary":[{"robin":"1"},"dirichlet","neumann","dirichlet"],"eigenvalues":2}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := initialRecipe(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r.graded, r.degree, r.fluxDegree = 4, 5, 4
+	first, err := compute(p, r)
+	if err != nil || first.polygon.indicators == nil {
+		t.Fatalf("first computation: %v (indicators %v)", err, first.polygon.indicators != nil)
+	}
+	r.marks = [][]int{dorflerMarks(first.polygon.indicators, adaptiveTheta)}
+	out, err := compute(p, r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if out.polygon.triangles <= first.polygon.triangles {
+		t.Fatalf("the adaptive round did not refine: %d → %d triangles", first.polygon.triangles, out.polygon.triangles)
+	}
+	res, err := assemble(p, r, out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := res.certificate(p, Options{Now: fixedTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("certificate with adaptive marks does not verify: %v", err)
+	}
+	m := methodOf(t, c)
+	if len(m.AdaptiveMarks) != 1 || len(m.AdaptiveMarks[0]) == 0 {
+		t.Fatalf("recorded marks %v", m.AdaptiveMarks)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal(data, &doc); err != nil {
+		t.Fatal(err)
+	}
+	method := doc["method"].(map[string]any)
+	marks := method["adaptive_marks"].([]any)[0].([]any)
+	first0 := marks[0].(float64)
+	marks[0] = first0 + 1
+	if first0+1 == marks[len(marks)-1].(float64) || len(marks) == 1 {
+		marks[0] = first0 + 2
+	}
+	edited, _ := json.Marshal(doc)
+	var mm *MismatchError
+	if err := Check(edited); err == nil || (!errors.As(err, &mm) && !strings.Contains(err.Error(), "adaptive")) {
+		t.Errorf("edited mark: want a mismatch, got %v", err)
+	}
+	marks[0] = 1e6
+	edited, _ = json.Marshal(doc)
+	if err := Check(edited); err == nil || !strings.Contains(err.Error(), "adaptive round") {
+		t.Errorf("mark outside the mesh: want an error naming the adaptive round, got %v", err)
+	}
+	// A uniform computation's enclosures must meet these.
+	_, cu := certifyText(t, `{"domain":{"polygon":[["0","0"],["3/2","0"],["1","1"],["0","1"]]},"potential":"x*y","boundary":[{"robin":"1"},"dirichlet","neumann","dirichlet"],"eigenvalues":2}`, 1e-4)
+	for k := 1; k <= 2; k++ {
+		a, b := eigenEnclosure(t, c, k), eigenEnclosure(t, cu, k)
+		if a.Lo > b.Hi || b.Lo > a.Hi {
+			t.Errorf("lambda%d: adaptive %v and uniform %v are disjoint", k, a, b)
+		}
+	}
+}

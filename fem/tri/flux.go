@@ -684,3 +684,94 @@ func weightedGramF(dst []float64, w []interval.I, q int, s float64, m, n int) {
 		}
 	}
 }
+
+// Indicators returns, for each triangle T, η_T² = Σ_i ‖σ_i − ∇ũ_i/Λ_i‖²_T
+// for the trial functions ũ_i (coefficients trial[i] in s), their fluxes
+// σ_i and approximations Λ_i of the shifted eigenvalues: where the flux
+// differs from the gradient of the exact eigenfunction over Λ (the optimal
+// flux of an exact eigenpair, METHODS §6), the Lehmann–Goerisch bound
+// loses. Floating point, a choice (for marking triangles to refine). With
+// J the Piola matrix, K = JᵀJ and ∇_ξ the reference gradient,
+//
+//	‖σ‖²_T = (1/(4|T|)) Σ K_rs ĉ_rᵀ G ĉ_s,  (σ, ∇ũ)_T = ½ Σ_c ĉ_cᵀ G' ∂_c ũ,
+//	‖∇ũ‖²_T = |T| Σ (K⁻¹)_rs ∂_r ũᵀ G'' ∂_s ũ
+//
+// (∫_T̂ = ½ × the tables normalised by |T|, dx = 2|T| dξ).
+func (f *Flux) Indicators(s *Lagrange, trial, flux [][]float64, lambda []float64) []float64 {
+	if f.mesh != s.mesh || len(trial) != len(flux) || len(lambda) != len(trial) {
+		panic("tri: indicator inputs do not match")
+	}
+	ref := f.ref
+	p, nb := s.p, ref.n
+	nd, np, nn, nq := ref.ndof, dim(p), dim(nb), dim(p-1)
+	gn := tripleTable(0, nb, nb).FL
+	gnq := tripleTable(0, nb, p-1).FL
+	gq := tripleTable(0, p-1, p-1).FL
+	x := make([]float64, nd)
+	uc := make([]float64, np)
+	var c [2][]float64
+	var du [2][]float64
+	for r := 0; r < 2; r++ {
+		c[r], du[r] = make([]float64, nn), make([]float64, nq)
+	}
+	quad := func(a []float64, g []float64, b []float64) float64 {
+		acc := 0.0
+		for i, ai := range a {
+			if ai == 0 {
+				continue
+			}
+			row := g[i*len(b) : (i+1)*len(b)]
+			for j, bj := range b {
+				acc += ai * row[j] * bj
+			}
+		}
+		return acc
+	}
+	out := make([]float64, len(f.mesh.Tris))
+	for t := range f.mesh.Tris {
+		g := f.mesh.Geom(t)
+		kk := piolaMetric(g)
+		k00, k01, k11 := kk[0][0].Mid(), kk[0][1].Mid(), kk[1][1].Mid()
+		det := k00*k11 - k01*k01
+		kinv := [2][2]float64{{k11 / det, -k01 / det}, {-k01 / det, k00 / det}}
+		area := g.Area.Mid()
+		for i := range trial {
+			f.local(x, flux[i], t)
+			for r := 0; r < 2; r++ {
+				for b := range c[r] {
+					acc := 0.0
+					row := ref.compT[r][b*nd : (b+1)*nd]
+					for l, xl := range x {
+						acc += row[l] * xl
+					}
+					c[r][b] = acc
+				}
+			}
+			for a, gl := range s.dofs[t] {
+				uc[a] = 0
+				if gl >= 0 {
+					uc[a] = trial[i][gl]
+				}
+			}
+			for r := 0; r < 2; r++ {
+				for b, pr := range s.pairs[r] {
+					du[r][b] = float64(p) * (uc[pr[0]] - uc[pr[1]])
+				}
+			}
+			ss, sg, gg := 0.0, 0.0, 0.0
+			for r := 0; r < 2; r++ {
+				sg += quad(c[r], gnq, du[r])
+				for q := 0; q < 2; q++ {
+					ss += kk[r][q].Mid() * quad(c[r], gn, c[q])
+					gg += kinv[r][q] * quad(du[r], gq, du[q])
+				}
+			}
+			ss /= 4 * area
+			sg /= 2
+			gg *= area
+			li := lambda[i]
+			out[t] += math.Max(ss-2*sg/li+gg/(li*li), 0)
+		}
+	}
+	return out
+}

@@ -203,3 +203,40 @@ func TestLGPerturbedFluxesStaySound(t *testing.T) {
 		t.Fatalf("only %d bounds from 40 perturbed flux sets: the test exercises too little", bounded)
 	}
 }
+
+// Indicators: with σ = 0 the indicators sum to ‖∇ũ‖²/Λ², which for
+// ũ ≈ sin πx sin πy on the unit square is (π²/2)/Λ² (∫|∇u|² = π²/2,
+// common practice); with the optimal flux they are far smaller.
+func TestIndicators(t *testing.T) {
+	m := unitSquare(t, 2)
+	bc := allBC(4, dirichlet)
+	s := NewLagrange(m, 6, bc)
+	u := s.Interpolate(func(x, y float64) float64 { return math.Sin(math.Pi*x) * math.Sin(math.Pi*y) })
+	const gamma = 1
+	lambda := 2*math.Pi*math.Pi + gamma
+	f := NewFlux(m, 5, bc)
+	sum := func(eta []float64) float64 {
+		acc := 0.0
+		for _, e := range eta {
+			acc += e
+		}
+		return acc
+	}
+	zero := sum(f.Indicators(s, [][]float64{u}, [][]float64{make([]float64, f.N())}, []float64{lambda}))
+	want := math.Pi * math.Pi / 2 / (lambda * lambda)
+	if math.Abs(zero-want) > 1e-6*want {
+		t.Errorf("zero flux: Σ η² = %.12g, want ‖∇u‖²/Λ² = %.12g", zero, want)
+	}
+	v := mustPotential(t, m, "0", 1)
+	w, err := v.InverseShifted(interval.Point(gamma), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	best, err := f.MinimizeApprox(s, [][]float64{u}, w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if opt := sum(f.Indicators(s, [][]float64{u}, best, []float64{lambda})); !(opt < 1e-8*zero) {
+		t.Errorf("optimal flux: Σ η² = %.3g, not small against %.3g", opt, zero)
+	}
+}
