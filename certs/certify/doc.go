@@ -20,6 +20,13 @@
 //     Ritz upper bound of Λ_N, trial functions from step 1 and fluxes σ_i in
 //     continuous P_q chosen by a least-squares solve.
 //
+// On a polygon the same three stages use conforming Bernstein P_p on a
+// triangle mesh of the exact polygon, (enriched) Crouzeix–Raviart elements
+// for stage A and Raviart–Thomas fluxes for stage B, which has its own
+// shift γ_B ≥ γ (ρ̂ and its bounds are converted between the shifts with
+// directed rounding). The trial mesh is refined uniformly, graded toward
+// singular corners and refined adaptively there (the marks are recorded).
+//
 // The enclosure of λ_k is [max(stage A, stage B) − γ, Ritz − γ]; the gap
 // λ₂ − λ₁ is enclosed by [ℓ₂ − u₁, u₂ − ℓ₁]. The driver refines the mesh and
 // the degree until the requested relative width is met or the budget is

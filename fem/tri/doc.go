@@ -14,10 +14,14 @@
 //     (AssembleApprox) to choose approximate eigenvectors;
 //   - Projection: the stage-A spaces CR and ECR (enriched Crouzeix–Raviart)
 //     with the interval matrices of the relaxed form a_h and the constant
-//     of the projection lower bound (METHODS §5).
+//     of the projection lower bound (METHODS §5);
+//   - Flux: the Raviart–Thomas spaces RT_k ⊂ H(div) (exact rational
+//     reference basis, Piola transform) with the Lehmann–Goerisch matrix A2
+//     (LGMatrix, METHODS §6), the minimal-norm flux (MinimizeApprox) and
+//     refinement indicators (Indicators), both choices.
 //
 // Guarantees. Every interval matrix this package returns (RitzMatrices,
-// Projection.Matrices) encloses, entry by entry, the exact forms for the
+// Projection.Matrices, Flux.LGMatrix) encloses, entry by entry, the exact forms for the
 // exact mesh (every exact node inside its enclosure), the exact functions
 // defined by the given float64 coefficients, and every exact value of the
 // inputs inside their enclosures (α, γ, potential models). The integrals
