@@ -335,13 +335,13 @@ func refine(p *problem.Problem, r recipe, out *outcome, gain float64) (recipe, b
 
 // Adaptive refinement of the trial mesh: Dörfler's bulk parameter θ and
 // the most rounds a recipe may have; maxGraded caps the grading levels
-// the driver chooses (beyond about 14 at degree 8 the float64 solves that
+// the driver chooses (beyond about 12 at degree 8 the float64 solves that
 // choose eigenvectors and fluxes break down: measured on the L-shape and a
 // mixed-condition trapezoid).
 const (
 	adaptiveTheta     = 0.5
 	maxAdaptiveRounds = 40
-	maxGraded         = 14
+	maxGraded         = 12
 )
 
 // maxPolygonDegree is the largest degree of the polygon trial space the
