@@ -600,6 +600,7 @@ type Plan struct {
 	StageASpace      string
 	MemoryEstimate   int64 // bytes, polygons only
 	ReentrantCorners []int
+	SingularCorners  []int // vertices the trial mesh is graded (and adaptively refined) toward
 }
 
 // FirstPlan returns the plan of the first computation of Certify.
@@ -624,5 +625,6 @@ func FirstPlan(p *problem.Problem) (Plan, error) {
 		space = "crouzeix-raviart"
 	}
 	return Plan{Kind: KindPolygon, Degree: r.degree, Triangles: len(m.Tris), StageATriangles: len(ma.Tris),
-		StageASpace: space, MemoryEstimate: memoryEstimate(p, r), ReentrantCorners: reentrantCorners(p)}, nil
+		StageASpace: space, MemoryEstimate: memoryEstimate(p, r), ReentrantCorners: reentrantCorners(p),
+		SingularCorners: singularCorners(p)}, nil
 }

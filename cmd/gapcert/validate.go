@@ -166,10 +166,13 @@ func describePlan(w io.Writer, p *problem.Problem) {
 			plan.Cells, plan.Degree, plan.StageACells)
 		return
 	}
-	fmt.Fprintf(w, "first step:  %d triangles of degree %d (Ritz); %d triangles of %s (projection bound), about %.1f MiB\n",
+	fmt.Fprintf(w, "first step:  %d triangles of degree %d (Ritz, Lehmann–Goerisch with Raviart–Thomas fluxes); %d triangles of %s (projection bound), about %.1f MiB\n",
 		plan.Triangles, plan.Degree, plan.StageATriangles, plan.StageASpace, float64(plan.MemoryEstimate)/(1<<20))
 	if len(plan.ReentrantCorners) > 0 {
-		fmt.Fprintf(w, "             re-entrant corners at vertices %v: meshes are graded toward them as they are refined\n", plan.ReentrantCorners)
+		fmt.Fprintf(w, "             re-entrant corners at vertices %v\n", plan.ReentrantCorners)
+	}
+	if len(plan.SingularCorners) > 0 {
+		fmt.Fprintf(w, "             singular corners at vertices %v (re-entrant, or > 90° between a Dirichlet side and another kind): meshes are graded toward them and refined adaptively there\n", plan.SingularCorners)
 	}
 	fmt.Fprintln(w, "             (finer meshes follow until the target width is met)")
 }
