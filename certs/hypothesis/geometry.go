@@ -2,12 +2,10 @@ package hypothesis
 
 import (
 	"fmt"
-	"math/big"
 
 	"gapcert/certs"
 	"gapcert/certs/named"
 	"gapcert/fem/problem"
-	"gapcert/interval"
 )
 
 // ConvexDomain decides whether the domain is convex. An interval is. A
@@ -26,7 +24,7 @@ func ConvexDomain(p *problem.Problem) certs.Hypothesis {
 	n := len(v)
 	undecided := -1
 	for i := range n {
-		s, ok := turnSign(v[(i+n-1)%n], v[i], v[(i+1)%n])
+		s, ok := problem.Orient(v[(i+n-1)%n], v[i], v[(i+1)%n]) // the turn at v_i
 		switch {
 		case ok && s < 0:
 			return disproven(h, fmt.Sprintf("vertex %d (%s, %s) is re-entrant: the boundary turns clockwise there", i, v[i][0].Text, v[i][1].Text),
@@ -39,63 +37,6 @@ func ConvexDomain(p *problem.Problem) certs.Hypothesis {
 		return undecidedAt(h, fmt.Sprintf("cannot decide the sign of the turn at vertex %d", undecided))
 	}
 	return proven(h, fmt.Sprintf("every turn of the %d vertices is counterclockwise", n))
-}
-
-// turnSign returns the sign of (b − a) × (c − b), exactly for rational
-// points, else when its interval enclosure decides it.
-func turnSign(a, b, c [2]problem.Number) (int, bool) {
-	if rational(a, b, c) {
-		var u, w, s, t big.Rat
-		u.Sub(b[0].Rat, a[0].Rat)
-		w.Sub(c[1].Rat, b[1].Rat)
-		s.Mul(&u, &w)
-		u.Sub(b[1].Rat, a[1].Rat)
-		w.Sub(c[0].Rat, b[0].Rat)
-		t.Mul(&u, &w)
-		return s.Sub(&s, &t).Sign(), true
-	}
-	d := b[0].Val.Sub(a[0].Val).Mul(c[1].Val.Sub(b[1].Val)).Sub(b[1].Val.Sub(a[1].Val).Mul(c[0].Val.Sub(b[0].Val)))
-	return decidedSign(d)
-}
-
-// cornerDot returns the sign of (b − a)·(c − b), exactly for rational
-// points, else when its interval enclosure decides it.
-func cornerDot(a, b, c [2]problem.Number) (int, bool) {
-	if rational(a, b, c) {
-		var u, w, s, t big.Rat
-		u.Sub(b[0].Rat, a[0].Rat)
-		w.Sub(c[0].Rat, b[0].Rat)
-		s.Mul(&u, &w)
-		u.Sub(b[1].Rat, a[1].Rat)
-		w.Sub(c[1].Rat, b[1].Rat)
-		t.Mul(&u, &w)
-		return s.Add(&s, &t).Sign(), true
-	}
-	d := b[0].Val.Sub(a[0].Val).Mul(c[0].Val.Sub(b[0].Val)).Add(b[1].Val.Sub(a[1].Val).Mul(c[1].Val.Sub(b[1].Val)))
-	return decidedSign(d)
-}
-
-// decidedSign returns the sign of every real in d when d decides it (d > 0,
-// d < 0, or d the point 0).
-func decidedSign(d interval.I) (int, bool) {
-	switch {
-	case d.Lo > 0:
-		return 1, true
-	case d.Hi < 0:
-		return -1, true
-	case d.Lo == 0 && d.Hi == 0:
-		return 0, true
-	}
-	return 0, false
-}
-
-func rational(ps ...[2]problem.Number) bool {
-	for _, q := range ps {
-		if q[0].Rat == nil || q[1].Rat == nil {
-			return false
-		}
-	}
-	return true
 }
 
 // Triangle decides whether the domain is a triangle: a polygon with three
@@ -131,7 +72,7 @@ func Rectangle(p *problem.Problem) certs.Hypothesis {
 	}
 	undecided := -1
 	for i := range n {
-		s, ok := cornerDot(v[(i+n-1)%n], v[i], v[(i+1)%n])
+		s, ok := problem.Dot(v[i], v[(i+n-1)%n], v[(i+1)%n]) // zero iff the corner at v_i is right
 		switch {
 		case ok && s != 0:
 			return disproven(h, fmt.Sprintf("the corner at vertex %d is not a right angle", i),

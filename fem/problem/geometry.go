@@ -31,9 +31,12 @@ func allRat(ps ...[2]Number) bool {
 	return true
 }
 
-// orient returns the sign of the cross product (b − a) × (c − a):
-// +1 if a, b, c turn counterclockwise, −1 clockwise, 0 collinear.
-func orient(a, b, c [2]Number) (sign int, ok bool) {
+// Orient returns the sign of the cross product (b − a) × (c − a) (equal
+// to (b − a) × (c − b), the turn at b): +1 if a, b, c turn
+// counterclockwise, −1 clockwise, 0 collinear. It is exact when all
+// coordinates are rational; otherwise ok reports whether the interval
+// enclosure of the product decides the sign for every exact point.
+func Orient(a, b, c [2]Number) (sign int, ok bool) {
 	if allRat(a, b, c) {
 		var u, v, w, z, s big.Rat
 		u.Sub(b[0].Rat, a[0].Rat)
@@ -50,8 +53,8 @@ func orient(a, b, c [2]Number) (sign int, ok bool) {
 	return signOf(d)
 }
 
-// dot returns the sign of (b − a)·(c − a).
-func dot(a, b, c [2]Number) (sign int, ok bool) {
+// Dot returns the sign of (b − a)·(c − a), decided as in Orient.
+func Dot(a, b, c [2]Number) (sign int, ok bool) {
 	if allRat(a, b, c) {
 		var u, v, w, z, s big.Rat
 		u.Sub(b[0].Rat, a[0].Rat)
@@ -84,8 +87,8 @@ func samePoint(a, b [2]Number) (same, ok bool) {
 // onSegment decides, for p collinear with a and b, whether p lies on the
 // closed segment [a, b]: (p − a)·(b − a) ≥ 0 and (p − b)·(a − b) ≥ 0.
 func onSegment(a, b, p [2]Number) (on, ok bool) {
-	s1, ok1 := dot(a, b, p)
-	s2, ok2 := dot(b, a, p)
+	s1, ok1 := Dot(a, b, p)
+	s2, ok2 := Dot(b, a, p)
 	if ok1 && s1 < 0 || ok2 && s2 < 0 {
 		return false, true
 	}
@@ -100,10 +103,10 @@ func onSegment(a, b, p [2]Number) (on, ok bool) {
 // Cormen, Leiserson, Rivest, Stein, Introduction to Algorithms, 3rd ed.,
 // MIT Press 2009, §33.1).
 func segmentsIntersect(p1, p2, p3, p4 [2]Number) (meet, ok bool) {
-	d1, ok1 := orient(p3, p4, p1)
-	d2, ok2 := orient(p3, p4, p2)
-	d3, ok3 := orient(p1, p2, p3)
-	d4, ok4 := orient(p1, p2, p4)
+	d1, ok1 := Orient(p3, p4, p1)
+	d2, ok2 := Orient(p3, p4, p2)
+	d3, ok3 := Orient(p1, p2, p3)
+	d4, ok4 := Orient(p1, p2, p4)
 	// Both ends strictly on one side of the other segment's line: apart.
 	if ok1 && ok2 && d1*d2 > 0 || ok3 && ok4 && d3*d4 > 0 {
 		return false, true
@@ -160,7 +163,7 @@ func (r *reader) polygon(p *Problem, bcOK bool) bool {
 		if repeated[i] || repeated[(i+n-1)%n] || repeated[(i+1)%n] {
 			continue
 		}
-		s, ok := orient(vertexAt(v, i-1), v[i], vertexAt(v, i+1))
+		s, ok := Orient(vertexAt(v, i-1), v[i], vertexAt(v, i+1))
 		switch {
 		case !ok:
 			r.iss.addf(fmt.Sprintf("%s[%d]", path, i), exactHint, "cannot decide whether vertex %d is collinear with its neighbours", i)
@@ -270,7 +273,7 @@ func triangulate(v [][2]Number) (tri [][3]int, ok bool) {
 		found := false
 		for k := 0; k < m && !found; k++ {
 			a, b, c := idx[(k+m-1)%m], idx[k], idx[(k+1)%m]
-			if s, ok := orient(v[a], v[b], v[c]); !ok || s <= 0 {
+			if s, ok := Orient(v[a], v[b], v[c]); !ok || s <= 0 {
 				continue
 			}
 			ear := true
@@ -293,7 +296,7 @@ func triangulate(v [][2]Number) (tri [][3]int, ok bool) {
 			return nil, false
 		}
 	}
-	if s, ok := orient(v[idx[0]], v[idx[1]], v[idx[2]]); !ok || s <= 0 {
+	if s, ok := Orient(v[idx[0]], v[idx[1]], v[idx[2]]); !ok || s <= 0 {
 		return nil, false
 	}
 	return append(tri, [3]int{idx[0], idx[1], idx[2]}), true
@@ -303,7 +306,7 @@ func triangulate(v [][2]Number) (tri [][3]int, ok bool) {
 // counterclockwise triangle abc (strictly right of one of its edges).
 func strictlyOutside(a, b, c, q [2]Number) bool {
 	for _, e := range [][2][2]Number{{a, b}, {b, c}, {c, a}} {
-		if s, ok := orient(e[0], e[1], q); ok && s < 0 {
+		if s, ok := Orient(e[0], e[1], q); ok && s < 0 {
 			return true
 		}
 	}
