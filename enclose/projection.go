@@ -15,8 +15,8 @@ import (
 //
 // valid when the discrete form a_h is positive semidefinite and the
 // projection P_h satisfies (H2) a_h(u − P_h u, v_h) = 0 and
-// (H3) ‖u − P_h u‖_b ≤ C_h ‖u − P_h u‖_{a_h} (METHODS §5). Those hypotheses
-// are the caller's.
+// (H3) ‖u − P_h u‖_b ≤ C_h ‖u − P_h u‖_{a_h} (theorem and proof in the
+// package doc, Projection lower bounds). Those hypotheses are the caller's.
 //
 // Soundness: for x ≥ 0 the map f(x) = x/(1 + c x) increases in x and
 // decreases in c ≥ 0, so f evaluated at the lower bound lamHLower of λ_{h,k}

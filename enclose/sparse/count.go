@@ -296,8 +296,9 @@ func residualBound(f *LDL, t *lRows, a, b *lowerColumns) float64 {
 // mark are workspaces of length n; mark[i] must not equal j+1 on entry.
 //
 // The sums are accumulated in interval arithmetic that steps one ulp
-// outward after each operation rounded to nearest (METHODS §2, the cheaper
-// variant): for floats a, b and ◦ ∈ {+, −, ·}, the exact a ◦ b lies in
+// outward after each operation rounded to nearest (cheaper than the
+// correctly rounded operations of package interval): for floats a, b and
+// ◦ ∈ {+, −, ·}, the exact a ◦ b lies in
 // [down(fl(a ◦ b)), up(fl(a ◦ b))], because round to nearest errs by at
 // most half the spacing of the floats around the result (IEEE 754-2019
 // §4.3.1; a result rounded to +∞ comes from an exact value beyond

@@ -476,7 +476,7 @@ func TestCountBelowClosedForm(t *testing.T) {
 		// M ⪰ Σ_T λ_min(M_T) restricted to T's nodes, λ_min(M_T) = |T|/12
 		// (M_T = |T|/12·(1 + δ_ab) has eigenvalues |T|/12·{4, 1, 1}), and
 		// every interior node lies in 6 triangles: λ_min(M) ≥ 6·(h²/2)/12
-		// = h²/4 (METHODS §7, elementwise bound; h = 1/13).
+		// = h²/4 (elementwise bound, package doc Mass bounds; h = 1/13).
 		{"P1 m=12", k12, m12, 1.0 / (4 * 13 * 13) * (1 - 1e-15), denseGeneralizedEigs(t, k12, m12), 1e-10},
 		// mMin = 0.9·λ_min(M) from gonum's dense eigensolver (a test
 		// choice; callers supply a verified bound).
