@@ -44,13 +44,15 @@
 //
 // The callers (packages fem/line and fem/tri) obtain mMin elementwise. If
 // the exact mass matrix is M = Σ_T E_Tᵀ M_T E_T, M_T the element matrix on
-// the degrees of freedom of element T (E_T the restriction) and M_T ⪰
-// t_T·I with t_T ≥ 0, then
+// the degrees of freedom of element T (E_T the restriction, x_T = E_T x)
+// and M_T ⪰ diag(t_(T,i))_(i ∈ T) with every t_(T,i) ≥ 0 (for example
+// t_(T,i) = t_T ≤ λ_min(M_T)), then
 //
-//	xᵀMx = Σ_T x_Tᵀ M_T x_T ≥ Σ_T t_T |x_T|² = Σ_i (Σ_(T ∋ i) t_T) x_i² ≥ min_i (Σ_(T ∋ i) t_T) |x|².
+//	xᵀMx = Σ_T x_Tᵀ M_T x_T ≥ Σ_T Σ_(i ∈ T) t_(T,i) x_i² = Σ_i (Σ_(T ∋ i) t_(T,i)) x_i² ≥ min_i (Σ_(T ∋ i) t_(T,i)) |x|².
 //
-// Removing degrees of freedom (Dirichlet values) keeps M_T ⪰ t_T·I on the
-// rest (a principal submatrix). A member M' of the interval matrix differs
+// Removing degrees of freedom (Dirichlet values) keeps the inequality on
+// the rest (a principal submatrix of M_T − diag(t_(T,i)) is still
+// positive semidefinite). A member M' of the interval matrix differs
 // from M by a symmetric E with |E_ij| ≤ wid([M]_ij), so λ_min(M') ≥
 // λ_min(M) − ‖E‖₂ ≥ λ_min(M) − ‖E‖∞ (Weyl; ‖E‖₂ = ρ(E) ≤ ‖E‖∞).
 //

@@ -175,7 +175,7 @@ func weightedGram(dst []interval.I, p []interval.I, shift interval.I, n int) {
 }
 
 // remainderBound returns t ≥ r·√(x)·√(y) for r, x, y ≥ 0 (upper rounded),
-// the bound r_rad ‖u‖‖v‖ of a remainder term (METHODS §3).
+// the bound r_rad ‖u‖‖v‖ of a remainder term (package doc, Remainders).
 func remainderBound(r, x, y float64) float64 {
 	if r == 0 {
 		return 0

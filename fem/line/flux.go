@@ -8,8 +8,9 @@ import (
 	"gapcert/interval"
 )
 
-// Flux is the space of fluxes σ for the Lehmann–Goerisch bounds of
-// METHODS §6 in one dimension, where H(div) = H¹: continuous piecewise
+// Flux is the space of fluxes σ for the Lehmann–Goerisch bounds (package
+// temple; package doc, Lehmann–Goerisch fluxes) in one dimension, where
+// H(div) = H¹: continuous piecewise
 // polynomials of degree q (the hierarchical basis of space), unconstrained
 // at Dirichlet ends and at Robin ends with α verified > 0, and σ = 0 at the
 // other ends (Neumann, or α not verified positive).

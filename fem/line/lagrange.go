@@ -160,7 +160,7 @@ func (s *Lagrange) checkVecs(vecs [][]float64) {
 //	∫(V+γ)u_i u_j = h∫_0^1 (P + γ + r_mid) ũ_i ũ_j + h∫_0^1 (R − r_mid) ũ_i ũ_j,
 //
 // where V(x_k + ξh) − P(ξ) ∈ R = [r_mid ± r_rad]; the last integral lies in
-// ±r_rad ‖ũ_i‖‖ũ_j‖ (Cauchy–Schwarz; METHODS §3). The Robin terms
+// ±r_rad ‖ũ_i‖‖ũ_j‖ (Cauchy–Schwarz; package doc, Remainders). The Robin terms
 // α u_i(e)u_j(e) use the exact end values (the end vertex coefficients).
 func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I) (a0, a1 *enclose.Sym, err error) {
 	s.checkPotential(v)

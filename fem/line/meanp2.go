@@ -10,7 +10,8 @@ import (
 	"gapcert/interval"
 )
 
-// MeanP2 is the stage-A space of METHODS §5 in one dimension: continuous
+// MeanP2 is the stage-A space of the projection lower bound (package doc)
+// in one dimension: continuous
 // piecewise quadratics (the same space as conforming P2) with the degrees
 // of freedom nodal values and cell means. On a cell with reference
 // coordinate ξ the local basis is
@@ -31,7 +32,8 @@ import (
 // 0 ≤ c_T ≤ V + γ on T and |T| m_T(u)² ≤ ∫_T u² (Jensen / Cauchy–Schwarz),
 // a_lo(u, u) ≤ a(u, u) + γ‖u‖² on H, so λ_k(a_lo) ≤ λ_k + γ by min–max.
 //
-// Projection bound (the abstract theorem of Liu 2015, METHODS §5, with a_h = a_lo, b the L²
+// Projection bound (the abstract theorem of Liu 2015, proved in the doc of
+// package enclose, with a_h = a_lo, b the L²
 // product): let P_h u be the function of the space with the nodal values
 // and cell means of u ∈ H (nodal values exist in 1D; P_h u = 0 at Dirichlet
 // ends), e = u − P_h u. Then e vanishes at every node and has zero mean on
@@ -170,7 +172,8 @@ func ratPositiveDefiniteShifted(a [3][3]*big.Rat, d [3]*big.Rat) bool {
 // of T, restricted where an end value is removed, which keeps
 // M_T ⪰ diag(d) on the remaining DOFs), so with meanP2MassSplit d,
 // xᵀMx ≥ Σ_T h_T Σ_(i∈T) d_i x_i² ≥ min_i(Σ_(T∋i) h_T d_i) |x|², the
-// diagonal-dominance form M ⪰ diag(Σ_(T∋i) ·) of METHODS §7. Any member
+// elementwise bound M ⪰ diag(Σ_(T∋i) ·) (package enclose/band, Mass
+// bounds). Any member
 // M' of the interval matrix differs from M by a symmetric E with
 // |E_ij| ≤ wid(mass_ij), so λ_min(M') ≥ that minimum − ‖E‖∞ (Weyl;
 // ‖E‖₂ ≤ ‖E‖∞ for symmetric E). mMin is this bound rounded down.
