@@ -187,11 +187,13 @@ func TestLGMatricesExact(t *testing.T) {
 }
 
 func TestFluxOfExactEigenfunction(t *testing.T) {
-	// Exact-eigenpair check (package doc, Lehmann–Goerisch fluxes): V = 0 on (0, π), Dirichlet, ũ = sin x
+	// Exact-eigenpair check (package doc, Lehmann–Goerisch fluxes): V = 0 on
+	// (0, π), Dirichlet, ũ = sin x
 	// (λ_1 = 1), γ = 1, Λ = 2; with σ = ũ'/Λ = cos x/2 one has
 	// ũ + σ' = ũ(1 − 1/Λ), so A2 = A1/Λ and A0 = ΛA1 (to the FE
 	// interpolation error, ~1e-15 at p = q = 10). The minimising flux is σ.
-	// Lehmann–Goerisch with ρ = 5 ≤ Λ_2 = 4 + 1 (exact: λ_2 = 4, sin 2x; common practice) must then
+	// Lehmann–Goerisch with ρ = 5 ≤ Λ_2 = 4 + 1 (exact: λ_2 = 4, sin 2x;
+	// common practice) must then
 	// return a lower bound of Λ_1 = 2 that is sharp.
 	m := Uniform(pt(0), pt(math.Pi), 8)
 	dir := End{Dirichlet: true}
@@ -241,7 +243,8 @@ func TestFluxOfExactEigenfunction(t *testing.T) {
 
 func TestFluxRobinEnds(t *testing.T) {
 	// Robin at both ends with α = 1: the first eigenvalue on (0, 1) is
-	// λ = 4x² with x tan x = α/2 (even mode cos(2x(t − ½)): u′(1) + αu(1) = 0 gives 2x tan x = α), i.e.
+	// λ = 4x² with x tan x = α/2 (even mode cos(2x(t − ½)): u′(1) + αu(1) = 0
+	// gives 2x tan x = α), i.e.
 	// x = 0.6532711870…, λ ≈ 1.7071 (x from solving the equation here in
 	// float64 by bisection; common practice). Ritz gives an upper bound and
 	// the flux-based Lehmann–Goerisch (ρ ≤ Λ_2 from the odd mode x cot x =

@@ -287,7 +287,8 @@ func TestRitzMatricesVsFloatAssembly(t *testing.T) {
 }
 
 func TestRayleighQuotientConvergence(t *testing.T) {
-	// V = 0 on (0, π), Dirichlet: λ_k = k², u_k = sin kx (common practice). The Rayleigh
+	// V = 0 on (0, π), Dirichlet: λ_k = k², u_k = sin kx (common practice).
+	// The Rayleigh
 	// quotient of the interpolant of sin(kx) has error O(h^(2p)), so halving
 	// h divides it by about 2^(2p).
 	for _, k := range []float64{1, 2} {

@@ -163,7 +163,8 @@ func TestMeanP2MassBound(t *testing.T) {
 }
 
 func TestMeanP2ProjectionLowerBound(t *testing.T) {
-	// Liu 2015 (package enclose doc): λ_h/(1 + C_h²λ_h) ≤ λ_k + γ. When V + γ = 0 the
+	// Liu 2015 (package enclose doc): λ_h/(1 + C_h²λ_h) ≤ λ_k + γ.
+	// When V + γ = 0 the
 	// form a_lo is the exact one on a conforming space, so min–max also gives
 	// λ_k + γ ≤ λ_h; otherwise the mean term makes a_lo ≤ a + γb and λ_h may
 	// fall below λ_k + γ. Exact eigenvalues on (0, π), Dirichlet: k² + V

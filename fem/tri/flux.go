@@ -14,7 +14,8 @@ import (
 )
 
 // Flux is the Raviart–Thomas space RT_k ⊂ H(div; Ω) on a triangle mesh,
-// the space of fluxes σ of the Lehmann–Goerisch bounds (METHODS §6).
+// the space of fluxes σ of the Lehmann–Goerisch bounds (package temple;
+// package doc, Lehmann–Goerisch fluxes).
 //
 // Piola transform. On a counterclockwise triangle T with vertices v_0, v_1,
 // v_2, x = v_0 + Jξ, J = [v_1 − v_0, v_2 − v_0], det J = 2|T| > 0, a
@@ -170,7 +171,8 @@ func piolaMetric(g mesh.Geom) [2][2]interval.I {
 var ErrWeightMismatch = errors.New("tri: the weight must be v.InverseShifted(gamma) for the same v and gamma")
 
 // LGMatrix returns the interval matrix A2 of the Lehmann–Goerisch method
-// (METHODS §6) for the trial functions ũ_i (coefficients trial[i] in s)
+// (package doc, Lehmann–Goerisch fluxes) for the trial functions ũ_i
+// (coefficients trial[i] in s)
 // and the fluxes σ_i (coefficients flux[i] in f):
 //
 //	a2_ij ⊇ (σ_i, σ_j) + ((ũ_i + div σ_i)/c, ũ_j + div σ_j) + Σ_(Robin, α>0) ∫_e (σ_i·n)(σ_j·n)/α,
@@ -185,7 +187,8 @@ var ErrWeightMismatch = errors.New("tri: the weight must be v.InverseShifted(gam
 //
 // W the weighted Gram of the Bernstein part Q + r_mid of the model
 // 1/c ∈ Q + R; the last term lies in ±r_rad ‖f_i‖_T ‖f_j‖_T
-// (Cauchy–Schwarz, METHODS §3). On a Robin edge e the flux density g_i(t)
+// (Cauchy–Schwarz, package doc, Remainders). On a Robin edge e the flux
+// density g_i(t)
 // = σ_i·ν has the local edge DOFs as Bernstein coefficients, σ·n = g/|e|
 // and ds = |e| dt, so the edge term is (1/(α|e|)) g_iᵀ G_e g_j.
 func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *Potential, gamma interval.I) (*enclose.Sym, error) {
@@ -689,7 +692,8 @@ func weightedGramF(dst []float64, w []interval.I, q int, s float64, m, n int) {
 // for the trial functions ũ_i (coefficients trial[i] in s), their fluxes
 // σ_i and approximations Λ_i of the shifted eigenvalues: where the flux
 // differs from the gradient of the exact eigenfunction over Λ (the optimal
-// flux of an exact eigenpair, METHODS §6), the Lehmann–Goerisch bound
+// flux of an exact eigenpair, package doc, Lehmann–Goerisch fluxes), the
+// Lehmann–Goerisch bound
 // loses. Floating point, a choice (for marking triangles to refine). With
 // J the Piola matrix, K = JᵀJ and ∇_ξ the reference gradient,
 //

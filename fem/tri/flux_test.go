@@ -40,7 +40,8 @@ func lgLowest(t *testing.T, s *Lagrange, vecs [][]float64, k int, bc []BC, v *Po
 	return lower
 }
 
-// Exact-eigenpair sanity check (METHODS §6): on the unit square with
+// Exact-eigenpair sanity check (package doc, Lehmann–Goerisch fluxes): on the
+// unit square with
 // Dirichlet sides, u = sin πx sin πy is an eigenfunction with
 // Λ = 2π² + γ (separation of variables, common practice). Its degree-8
 // interpolant with the optimal RT_7 flux and ρ = 5π²·0.999 + γ ≤ Λ_2 must
@@ -140,7 +141,8 @@ func TestLGMixedAndRobinRectangles(t *testing.T) {
 	}
 }
 
-// Any flux is admissible (METHODS §6): perturbing the optimal fluxes by
+// Any flux is admissible (package doc, Lehmann–Goerisch fluxes): perturbing
+// the optimal fluxes by
 // large random amounts must keep every bound below the exact value (or
 // make the Lehmann matrix fail its positivity test), on the mixed
 // rectangle above.

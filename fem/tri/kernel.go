@@ -144,7 +144,8 @@ func weightedGram(dst []interval.I, w []interval.I, q int, s interval.I, p int) 
 }
 
 // remainderBound returns t ≥ r·√x·√y for r, x, y ≥ 0 (upper rounded): the
-// bound r_rad ‖u‖‖v‖ of a remainder term (Cauchy–Schwarz; METHODS §3).
+// bound r_rad ‖u‖‖v‖ of a remainder term (Cauchy–Schwarz; package doc,
+// Remainders).
 func remainderBound(r, x, y float64) float64 {
 	if r == 0 {
 		return 0

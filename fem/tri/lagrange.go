@@ -210,8 +210,9 @@ func (s *Lagrange) checkPotential(v *Potential) {
 //	∫_T (V + γ) u_i u_j = |T| c_iᵀ W c_j + ∫_T (R − r_mid) u_i u_j,
 //
 // W the weighted Gram of P + γ + r_mid (V ∈ P + R on T, R ⊆ [r_mid ± r_rad]);
-// the last integral lies in ±r_rad ‖u_i‖_T ‖u_j‖_T (Cauchy–Schwarz, METHODS
-// §3). On a Robin edge e, α ∫_e u_i u_j = α |e| d_iᵀ G_e d_j with d_i the
+// the last integral lies in ±r_rad ‖u_i‖_T ‖u_j‖_T (Cauchy–Schwarz, package
+// doc, Remainders). On a Robin edge e, α ∫_e u_i u_j = α |e| d_iᵀ G_e d_j
+// with d_i the
 // univariate Bernstein coefficients along e and G_e the exact edge Gram.
 // It returns an error if a model of V is not bounded.
 func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I) (a0, a1 *enclose.Sym, err error) {

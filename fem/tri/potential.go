@@ -123,7 +123,8 @@ func (v *Potential) Exact() bool { return v.exact }
 
 // InverseShifted returns the models of w = 1/(V + γ) on the same mesh, of
 // Taylor order ≥ order, from the expression formula.Div(1, V + γ) (the
-// weight of the Lehmann–Goerisch flux terms, METHODS §6). It returns a
+// weight of the Lehmann–Goerisch flux terms, package doc, Lehmann–Goerisch
+// fluxes). It returns a
 // *SignError unless V + γ > 0 is verified on every triangle (by the range
 // enclosures of v), so that w is defined and smooth wherever V is.
 func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, error) {

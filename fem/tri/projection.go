@@ -12,7 +12,8 @@ import (
 	"gapcert/interval"
 )
 
-// Projection is a stage-A space of METHODS §5 on a triangle mesh: the
+// Projection is a stage-A space (package doc, Projection lower bound) on a
+// triangle mesh: the
 // Crouzeix–Raviart space CR (NewCR) or the enriched Crouzeix–Raviart space
 // ECR (NewECR), with the degrees of freedom edge means (and, for ECR,
 // element means), Dirichlet edge means removed (exactly 0).
@@ -21,7 +22,8 @@ import (
 // triangle, and neighbouring triangles agree only in the mean over their
 // common edge. The forms are broken sums over the triangles.
 //
-// The projection theorem (Liu 2015, Theorem 2.1; METHODS §5): let a_h be a
+// The projection theorem (Liu 2015; proved in the doc of package enclose):
+// let a_h be a
 // symmetric form on H + V_h with a_h ≤ a + γb on H, b the L² product, and
 // P_h: H → V_h with
 //
@@ -221,7 +223,8 @@ func ecrBasis(v [3][2]interval.I) (phi [4][6]interval.I, ok bool) {
 // It returns a *SignError if c_T = lower end of Range_T(V) + γ is not
 // verified ≥ 0 on a triangle.
 //
-// ECR (METHODS §5): a_h = Σ_T (∇u, ∇v)_T + Σ_T c_T |T| m_T(u) m_T(v) +
+// ECR (package doc, Projection lower bound): a_h = Σ_T (∇u, ∇v)_T + Σ_T c_T
+// |T| m_T(u) m_T(v) +
 // Σ_(e ⊂ Γ_R) α_e |e| m_e(u) m_e(v). Since 0 ≤ c_T ≤ V + γ on T and
 // |T| m_T(u)² ≤ ‖u‖²_T, |e| m_e(u)² ≤ ‖u‖²_e (Jensen), a_h ≤ a + γb on H.
 // In the local basis (ecrBasis) the mean terms are c_T|T| on the element
@@ -249,7 +252,8 @@ func ecrBasis(v [3][2]interval.I) (phi [4][6]interval.I, ok bool) {
 // λ_min(M_T)) and M_T − t_T I is verified positive definite by interval
 // Cholesky of the enclosure of M_T (all pivots > 0 for every member; a
 // principal submatrix stays positive definite when Dirichlet DOFs are
-// removed), so M ⪰ diag(Σ_(T ∋ i) t_T) (METHODS §7). A member M' of mass
+// removed), so M ⪰ diag(Σ_(T ∋ i) t_T) (package enclose/sparse, Mass bounds).
+// A member M' of mass
 // differs from M by E with |E_ij| ≤ wid(mass_ij), so λ_min(M') ≥
 // min_i Σ_(T ∋ i) t_T − ‖E‖∞ (Weyl, ‖E‖₂ ≤ ‖E‖∞ for symmetric E), rounded
 // down. For CR, t_T = lower end of |T|/3.
