@@ -111,7 +111,7 @@ func ulpsBelow(r *big.Rat, x float64) float64 {
 	return gapOf(r, x) / (math.Nextafter(t, math.Inf(1)) - t)
 }
 
-// TestExactEigenvectors is the sanity check of METHODS §6: exact
+// TestExactEigenvectors is the exact-eigenpair check of the package doc: exact
 // eigenvectors as trial vectors return Λ_1..Λ_N up to rounding, for
 // ρ = Λ_{N+1} and for ρ strictly between Λ_N and Λ_{N+1}. For exact
 // eigenvectors μ = Λ/(Λ − ρ) and ρ − ρ/(1 − μ) = Λ exactly (algebra).
