@@ -21,7 +21,7 @@ func sqrt2() interval.I {
 
 func TestEvaluateVerdicts(t *testing.T) {
 	// Unit square, Dirichlet: λ_{m,n} = π²(m² + n²) (separation of
-	// variables, METHODS §9), so λ1 = 2π² = 19.7392088…, λ2 = 5π² =
+	// variables; common practice), so λ1 = 2π² = 19.7392088…, λ2 = 5π² =
 	// 49.3480220…, gap = 3π² = 29.6088132…, D = √2 and 3π²/D² = 1.5π² =
 	// 14.8044066… (digits of π: 3.14159265358979…, common practice).
 	square := map[string]interval.I{

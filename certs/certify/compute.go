@@ -194,9 +194,11 @@ func ritzUpper(a0, a1 *enclose.Sym) ([]float64, error) {
 }
 
 // stageA returns verified lower bounds of Λ_1..Λ_count from the projection
-// bound of Liu (2015) on the mean-preserving P2 space (METHODS §5):
+// bound of Liu (2015) on the mean-preserving P2 space (packages enclose and
+// fem/line, package docs):
 // Λ_k ≥ λ_{h,k}/(1 + C_h² λ_{h,k}), where λ_{h,k} ≥ σ' is proved by the
-// verified inertia count #{λ_h < σ'} ≤ k − 1 (METHODS §7). upper holds the
+// verified inertia count #{λ_h < σ'} ≤ k − 1 (package enclose/band, Verified
+// counts). upper holds the
 // Ritz upper bounds of Λ_k, used only to choose the search brackets.
 func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, upper []float64, count int) ([]float64, interval.I, error) {
 	mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)

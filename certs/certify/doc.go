@@ -10,12 +10,14 @@
 //     a(u_i,u_j) + γ b(u_i,u_j) and b(u_i,u_j) are enclosed in interval
 //     arithmetic, and the eigenvalues of that interval pencil bound Λ_1..Λ_N
 //     from above (Courant–Fischer; see package enclose).
-//  2. Lower bounds, stage A (projection bound of Liu 2015, METHODS §5): the
+//  2. Lower bounds, stage A (projection bound of Liu 2015, proved in the doc
+//     of package enclose; the space in the doc of package fem/line): the
 //     mean-preserving P2 space with the relaxed potential c_T ≤ inf_T(V+γ),
 //     verified inertia counts of the discrete pencil (package enclose/band),
 //     and Λ_k ≥ λ_{h,k}/(1 + C_h²λ_{h,k}) with C_h = h_max/(2π). Valid for
 //     every index, clusters included.
-//  3. Lower bounds, stage B (Lehmann–Goerisch, METHODS §6, package temple):
+//  3. Lower bounds, stage B (Lehmann–Goerisch, proved in the doc of package
+//     temple; fluxes in the doc of package fem/line):
 //     with N chosen so that the stage-A lower bound ρ̂ of Λ_{N+1} exceeds the
 //     Ritz upper bound of Λ_N, trial functions from step 1 and fluxes σ_i in
 //     continuous P_q chosen by a least-squares solve.
@@ -36,6 +38,45 @@
 // the same deterministic code and demands that every recorded bound be
 // reproduced digit for digit, that the problem hash match, and that the
 // claims be re-evaluated to the same verdicts.
+//
+// # Stage B and its shift
+//
+// Stage B needs ρ̂ ≤ Λ_(N+1). N is the least index ≥ the requested count
+// whose stage-A lower bound ρ̂ of Λ_(N+1) exceeds the Ritz upper bound of
+// Λ_N (chooseN); ρ̂ ≤ Λ_(N+1) holds by stage A, and the separation
+// ρ̂ > Λ_N, which the theorem does not need, makes the Lehmann matrix
+// positive definite and the bounds sharp. It also gives Λ_N < Λ_(N+1), so
+// no multiple eigenvalue is split between the indices N and N + 1.
+//
+// On polygons stage B uses its own shift γ_B (the certificate's
+// flux_gamma), so it bounds Λ^B_k = λ_k + γ_B. The stage-A bound ρ̂ of
+// λ_(N+1) + γ and the stage-B bounds ℓ_k of Λ^B_k are converted with
+// directed rounding, γ and γ_B being exact floats (↓ rounds down):
+//
+//	ρ̂_B = ((ρ̂ − γ)↓ + γ_B)↓ ≤ (λ_(N+1) + γ − γ) + γ_B = Λ^B_(N+1),
+//	((ℓ_k − γ_B)↓ + γ)↓ ≤ (λ_k + γ_B − γ_B) + γ = λ_k + γ,
+//
+// since each rounded-down result is ≤ the exact result of its rounded
+// inputs and + and − are monotone. The matrices A0, A1 are enclosed afresh
+// with γ_B, and the weight 1/(V + γ_B) requires V + γ_B > 0 verified on
+// every triangle (fem/tri InverseShifted; an error otherwise). These are
+// the only hypotheses: any γ_B with V + γ_B > 0 is sound.
+//
+// The value of γ_B is a choice, not a consequence of a theorem. It is
+// γ_B = max(γ, 2·osc V − inf V) rounded up (roundShift), osc V = sup V −
+// inf V taken from enclosures over the domain, so that V + γ_B ≥ 2·osc V
+// on Ω (when osc V is finite and positive; else γ_B = γ). Heuristic
+// reason, not a proof: on each triangle the weight is a Taylor model of 1/(V +
+// γ_B) (package interval/formula); around the value c_0 = V(x_0) + γ_B at
+// the expansion point, 1/(c_0 + δ) = Σ_n (−δ)^n/c_0^(n+1) with δ = V −
+// V(x_0), |δ| ≤ osc V, so the ratio |δ|/c_0 ≤ 1/2 and the Taylor
+// coefficients and the remainder shrink geometrically even on the coarsest
+// mesh, where a triangle may see all of osc V. With the small γ of stage A
+// (c_0 down to π²/D², possibly far below osc V) the ratio can exceed 1 and
+// the remainders grow with the order until the mesh is fine. Stage A keeps
+// the small γ because the projection bound loses accuracy with C_h²(λ + γ).
+// The rule was chosen from measurements (recorded beside initialRecipe),
+// not derived.
 //
 // References:
 //

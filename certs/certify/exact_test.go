@@ -11,7 +11,8 @@ import (
 	"gapcert/temple"
 )
 
-// TestLehmannGoerischExactEigenpairs is the sanity check of METHODS §6:
+// TestLehmannGoerischExactEigenpairs is the exact-eigenpair check of the
+// Lehmann–Goerisch theorem (package temple doc):
 // with trial functions that are (up to interpolation at high degree) the
 // exact eigenfunctions u_k = sin kx of −u″ = λu on (0, π), Dirichlet, and
 // fluxes σ_k = u_k′/Λ_k, the Lehmann–Goerisch bounds return Λ_k = k² + γ to

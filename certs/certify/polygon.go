@@ -16,8 +16,9 @@ import (
 
 // computePolygon runs the polygon pipeline once: Rayleigh–Ritz upper bounds
 // from conforming P_p on one mesh and projection lower bounds (stage A,
-// METHODS §5) from Crouzeix–Raviart or enriched Crouzeix–Raviart elements
-// on another, and Lehmann–Goerisch lower bounds (stage B, METHODS §6) with
+// package fem/tri doc) from Crouzeix–Raviart or enriched Crouzeix–Raviart
+// elements on another, and Lehmann–Goerisch lower bounds (stage B, packages
+// temple and fem/tri docs) with
 // Raviart–Thomas fluxes on the trial mesh. As in 1D, every number returned as a bound is verified and
 // the floating-point parts only choose vectors and shifts.
 func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
@@ -174,7 +175,8 @@ func shiftedProjectionLower(lh, c float64, ch interval.I) float64 {
 
 // verifiedSparseLower returns a float ℓ ≥ lo with λ_{h,index} ≥ ℓ for every
 // member of ([K], [M]): shifts σ just below the approximation are tried
-// until the verified count (sparse.CountBelow, METHODS §7) shows at most
+// until the verified count (sparse.CountBelow; package enclose/sparse,
+// Verified counts) shows at most
 // index − 1 eigenvalues below the corrected shift σ', and then
 // λ_{h,index} ≥ σ'. lo must be a known lower bound (0, or the bound of the
 // previous index; the stage-A pencil is positive semidefinite since
@@ -192,7 +194,8 @@ func verifiedSparseLower(c *sparse.Counter, mMin, approx, lo float64, index int)
 }
 
 // usesCR reports whether the plain Crouzeix–Raviart space serves stage A:
-// METHODS §5 allows it for constant V and no Neumann side; otherwise the
+// it is chosen for constant V and no Neumann side (a choice: both spaces
+// are sound for every V and side condition, package fem/tri doc); otherwise the
 // enriched space (which also preserves element means) is used.
 func usesCR(p *problem.Problem) bool {
 	poly, ok := p.Potential.Polynomial()
