@@ -37,7 +37,7 @@ var ErrNotPositiveDefinite = errors.New("temple: A0 − 2ρA1 + ρ²A2 is not ve
 //	Λ_{N+1−i} ≥ ρ − ρ/(1 − μ_i).
 //
 // Why (a sketch of the cited proofs, kept here because the code relies on
-// every step): with K the solution operator, M(φ, Ku) = b(φ, u), the element
+// every step; the package doc has a complete proof): with K the solution operator, M(φ, Ku) = b(φ, u), the element
 // TKu has the least norm among all w with (Tφ, w) = b(φ, u), so B dominates
 // the matrix B* obtained with w_i = TKũ_i, and raising the denominator of
 // the Rayleigh quotient xᵀ(A0 − ρA1)x / xᵀBx can only raise its negative
