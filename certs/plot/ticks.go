@@ -69,7 +69,7 @@ func roundStep(raw float64) (step float64, mantissa, exp int) {
 func tickLabel(v float64, exp int, sci bool) string {
 	var s string
 	switch {
-	case v == 0:
+	case v == 0 && sci:
 		s = "0"
 	case sci:
 		digits := max(0, int(math.Floor(math.Log10(math.Abs(v))))-exp)
