@@ -8,8 +8,9 @@ import (
 	gplot "gonum.org/v1/plot"
 )
 
-// RoundTicks is a gonum plot.Ticker that puts about five labelled ticks at
-// round values, the multiples of a step 1, 2 or 5 × 10^k, with unlabelled
+// RoundTicks is a gonum plot.Ticker that puts three to seven labelled
+// ticks at round values, the multiples of the smallest step 1, 2 or 5 ×
+// 10^k that gives at most seven, with unlabelled
 // ticks between them, and writes every label with the same number of
 // decimals (negative values with the minus sign "−"; exponent form on an
 // axis whose values reach 10⁶ or stay below 10⁻³ in magnitude).
@@ -20,7 +21,11 @@ func (RoundTicks) Ticks(lo, hi float64) []gplot.Tick {
 	if !(lo < hi) || math.IsInf(lo, 0) || math.IsInf(hi, 0) {
 		return nil
 	}
-	step, mantissa, exp := roundStep((hi - lo) / 5)
+	// The smallest round step that gives at most seven labels.
+	step, mantissa, exp := roundStep((hi - lo) / 10)
+	for math.Floor(hi/step)-math.Ceil(lo/step)+1 > 7 {
+		step, mantissa, exp = roundStep(step * 1.01)
+	}
 	minor := step / 5
 	if mantissa == 2 {
 		minor = step / 4

@@ -33,6 +33,7 @@ func TestRoundTicks(t *testing.T) {
 		{0, 4e-5, []string{"0", "1e−5", "2e−5", "3e−5", "4e−5"}},
 		{1e7, 3e7, []string{"1.0e7", "1.5e7", "2.0e7", "2.5e7", "3.0e7"}},
 		{0.25, 1.25, []string{"0.4", "0.6", "0.8", "1.0", "1.2"}},
+		{-0.1, 1.1, []string{"0.0", "0.2", "0.4", "0.6", "0.8", "1.0"}},
 	} {
 		ticks := RoundTicks{}.Ticks(tc.lo, tc.hi)
 		labels, values := labelled(ticks)
