@@ -131,3 +131,16 @@ func luma(c color.Color) float64 {
 	r, g, b, _ := c.RGBA()
 	return 0.2126*float64(r) + 0.7152*float64(g) + 0.0722*float64(b)
 }
+
+func TestLighten(t *testing.T) {
+	if c := Lighten(Blue, 0); !sameColour(c, Blue) {
+		t.Errorf("Lighten(Blue, 0) = %v", c)
+	}
+	if c := Lighten(Vermillion, 1); !sameColour(c, color.White) {
+		t.Errorf("Lighten(Vermillion, 1) = %v, want white", c)
+	}
+	// Halfway: each channel halfway to 255, rounded (0x72 → 0xb9).
+	if c := Lighten(Blue, 0.5); !sameColour(c, color.RGBA{R: 0x80, G: 0xb9, B: 0xd9, A: 0xff}) {
+		t.Errorf("Lighten(Blue, 0.5) = %v", c)
+	}
+}

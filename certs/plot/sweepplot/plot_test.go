@@ -132,7 +132,10 @@ func TestSVGLabels(t *testing.T) {
 // in inches times plot.PNGDPI, rounded (vgimg's rule).
 func TestPNG(t *testing.T) {
 	dir := t.TempDir()
-	for name, pic := range map[string]picture{"band": goldenBand(t).picture(NoPanel), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture(NoPanel)} {
+	for name, pic := range map[string]picture{
+		"band": goldenBand(t).picture(NoPanel), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture(NoPanel),
+		"band and widths": goldenBand(t).picture(WidthPanel), "band and margins": goldenBand(t).picture(MarginPanel),
+	} {
 		path := filepath.Join(dir, name+".png")
 		if err := pic.write(path); err != nil {
 			t.Fatal(err)
