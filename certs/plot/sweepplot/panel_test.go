@@ -1,6 +1,7 @@
 package sweepplot
 
 import (
+	"fmt"
 	"image/color"
 	"math"
 	"os"
@@ -12,6 +13,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/plot"
+	"gapcert/interval"
 )
 
 // sequentialMap is the map of the triangle sweep's first claim, which
@@ -222,5 +224,40 @@ func TestPanelErrors(t *testing.T) {
 	}
 	if _, err := ParsePanel("Width"); err == nil {
 		t.Error(`ParsePanel("Width") accepted`)
+	}
+}
+
+// TestPanelEdgeCases: a band of one point whose quantity is known exactly
+// (width 0) and one of two points, one exact: the width panel draws the
+// exact values at the foot of its axis and says so, and nothing panics.
+func TestPanelEdgeCases(t *testing.T) {
+	exact := interval.I{Lo: 2, Hi: 2}
+	narrow := interval.I{Lo: 3, Hi: math.Nextafter(3, 4)}
+	for _, tc := range []struct {
+		name   string
+		points []BandPoint
+		zero   int
+	}{
+		{"one exact point", []BandPoint{{X: 1, XText: "1", Quantity: exact, Threshold: exact, Verdict: certs.Holds}}, 1},
+		{"exact and narrow", []BandPoint{
+			{X: 1, XText: "1", Quantity: exact, Threshold: exact, Verdict: certs.Holds},
+			{X: 2, XText: "2", Quantity: narrow, Threshold: exact, Verdict: certs.Holds},
+		}, 1},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			b := &Band{Title: "hand-made band", X: "s", Quantity: "lambda1", Threshold: "2", Rel: ">=", Points: tc.points}
+			for _, extra := range []Panel{WidthPanel, MarginPanel} {
+				text, _ := svgTexts(t, func(p string) error { return b.WritePanel(p, extra) })
+				if !strings.Contains(text, "λ₁") {
+					t.Errorf("%s: λ₁ not in the labels:\n%s", extra, text)
+				}
+				if extra == WidthPanel && !strings.Contains(text, fmt.Sprintf("lower panel: width 0, a value known exactly, drawn at the foot (%d)", tc.zero)) {
+					t.Errorf("width panel does not name the exact values:\n%s", text)
+				}
+			}
+			if err := b.WritePanel(filepath.Join(t.TempDir(), "b.png"), WidthPanel); err != nil {
+				t.Error(err)
+			}
+		})
 	}
 }
