@@ -35,10 +35,11 @@ func Lighten(c color.Color, f float64) color.Color {
 
 // viridisControls are nine colours of the viridis map (S. van der Walt and
 // N. Smith, the default colour map of matplotlib since version 2.0, 2015),
-// at 0, 1/8, …, 1; values recalled from memory and cross-checked at 0,
-// 1/4, 1/2, 3/4 and 1 against the five-colour viridis of the R package
-// viridisLite (#440154, #3B528B, #21918C, #5EC962, #FDE725). Their
-// luminance increases, as Sequential needs.
+// at 0, 1/8, …, 1, rounded to 8 bits, as listed in public tables of the
+// map; at 0, 1/4, 1/2, 3/4 and 1 they agree within 2/255 with the
+// five-colour viridis of the R package viridisLite (#440154, #3B528B,
+// #21918C, #5EC962, #FDE725); the others are not cross-checked. Their
+// luminance increases, as Sequential needs (TestScaleFor).
 var viridisControls = []color.Color{
 	color.RGBA{R: 68, G: 1, B: 84, A: 0xff},
 	color.RGBA{R: 71, G: 44, B: 122, A: 0xff},
