@@ -14,12 +14,21 @@
 //     name, not embedded);
 //   - each mode is normalised on its sample points so that its value of
 //     largest magnitude is +1 (which fixes the arbitrary sign of an
-//     eigenvector), and 2D pictures use the same diverging colour scale
-//     [−1, 1] for every mode (blue negative, red positive, light grey at
-//     zero, so nodal lines show as grey curves);
+//     eigenvector); a 2D picture colours a mode that changes sign on the
+//     diverging scale [−1, 1] (blue negative, red positive, light grey at
+//     zero, so nodal lines show as grey curves) and a mode of one sign on
+//     the sequential viridis scale over its own range (ScaleFor);
 //   - 2D pictures keep the aspect ratio of the domain (one unit of x has the
 //     length of one unit of y), and grid points outside the polygon are left
 //     blank (an even–odd point-in-polygon test in floating point).
+//
+// Pictures a paper can use: axes are labelled (x, y, u / max |u|) and
+// ticked at round values (RoundTicks, LogTicks); categories are drawn in
+// the Okabe–Ito colours and also told apart by dashes or glyphs; formula
+// text is written as mathematics by MathText (D^2*gap/pi^2 as D²·gap/π²);
+// the boundary conditions (Modes.Boundary) are drawn on the mesh, each
+// side in the style of its kind, with a legend. Package sweepplot uses the
+// same ticks, colours and labels.
 //
 // Misuse (a nil Eval, no labels, a degenerate interval or polygon) panics
 // with a "plot: " prefix; an unknown format, a mode that is not finite or

@@ -4,11 +4,11 @@ import (
 	"fmt"
 	"image/color"
 
+	"math"
+
 	gplot "gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
-	"gonum.org/v1/plot/palette/moreland"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/plotutil"
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -36,20 +36,38 @@ var (
 		YAlign:  draw.YBottom,
 		Handler: gplot.DefaultTextHandler,
 	}
-	meshStyle    = draw.LineStyle{Color: color.Gray{Y: 0x80}, Width: vg.Points(0.4)}
+	meshStyle    = draw.LineStyle{Color: color.Gray{Y: 0x99}, Width: vg.Points(0.4)}
 	outlineStyle = draw.LineStyle{Color: color.Black, Width: vg.Points(1.2)}
 )
 
+// The curves of the modes of a 1D picture: Okabe–Ito colours and, so that
+// grey print keeps them apart, a dash pattern each.
+var (
+	modeColours = []color.Color{Blue, Vermillion, BluishGreen, ReddishPurple, Orange, SkyBlue, Black}
+	modeDashes  = [][]vg.Length{
+		nil,
+		{vg.Points(6), vg.Points(3)},
+		{vg.Points(1.5), vg.Points(2)},
+		{vg.Points(6), vg.Points(2), vg.Points(1.5), vg.Points(2)},
+	}
+)
+
 // linePicture draws the normalised modes of a 1D problem as curves, with a
-// legend of the labels below the axes and the caption at the foot.
+// legend of the labels (and of the boundary conditions, drawn at the ends)
+// below the axes and the caption at the foot.
 func linePicture(m *Modes, s lineSamples) picture {
 	p := newPlot(titleOf(m) + "\napproximate eigenfunctions")
 	p.X.Label.Text = "x"
 	p.Y.Label.Text = "u / max |u|"
 	p.Add(plotter.NewGrid())
-	legend := gplot.NewLegend()
-	legend.Left, legend.Top = true, true
-	legend.TextStyle.Font = font.From(gplot.DefaultFont, 10)
+	legend := newLegend()
+	if m.Boundary != nil {
+		styles, entries := sideStyles(m.Boundary)
+		p.Add(&sideLines{interval: m.Interval, styles: styles})
+		for _, e := range entries {
+			legend.Add(e.text, e)
+		}
+	}
 	for k, u := range s.u {
 		xys := make(plotter.XYs, len(u))
 		for i := range u {
@@ -59,17 +77,16 @@ func linePicture(m *Modes, s lineSamples) picture {
 		if err != nil {
 			panic("plot: " + err.Error()) // the samples were checked finite
 		}
-		line.Color = plotutil.Color(k)
-		line.Dashes = plotutil.Dashes(k / len(plotutil.DefaultColors))
-		line.Width = vg.Points(1.3)
+		line.Color = modeColours[k%len(modeColours)]
+		line.Dashes = modeDashes[k%len(modeDashes)]
+		line.Width = vg.Points(1.5)
 		p.Add(line)
-		legend.Add(drawable(fmt.Sprintf("mode %d: %s", k+1, m.Labels[k])), line)
+		legend.Add(fmt.Sprintf("mode %d: %s", k+1, drawable(LambdaSubscripts(m.Labels[k]))), line)
 	}
 	p.X.Min, p.X.Max = m.Interval[0], m.Interval[1]
 	p.Y.Min, p.Y.Max = -1.05, 1.05
 
-	r := legend.Rectangle(draw.Canvas{})
-	legendHeight := r.Max.Y - r.Min.Y + 2*margin
+	legendHeight := heightOf(legend, len(s.u)+len(m.Boundary))
 	return picture{
 		name:   "modes",
 		width:  pictureWidth,
@@ -77,33 +94,74 @@ func linePicture(m *Modes, s lineSamples) picture {
 		draw: func(c draw.Canvas) {
 			c = drawFrame(c)
 			p.Draw(draw.Crop(c, 0, 0, legendHeight, 0))
-			legendArea := draw.Crop(c, 0, 0, 0, -(c.Max.Y - c.Min.Y - legendHeight))
-			legend.Draw(draw.Crop(legendArea, margin, 0, 0, -margin))
+			drawLegend(c, legend, legendHeight)
 		},
 	}
 }
 
-// meshPicture draws the triangles of m and the polygon outline.
+// newLegend returns an empty legend, drawn below a plot.
+func newLegend() gplot.Legend {
+	l := gplot.NewLegend()
+	l.Left, l.Top = true, true
+	l.TextStyle.Font = font.From(gplot.DefaultFont, 10)
+	return l
+}
+
+// heightOf is the height a legend of n entries takes below a plot.
+func heightOf(l gplot.Legend, n int) vg.Length {
+	if n == 0 {
+		return 0
+	}
+	r := l.Rectangle(draw.Canvas{})
+	return r.Max.Y - r.Min.Y + 2*margin
+}
+
+// drawLegend draws l in the strip of the given height at the foot of c.
+func drawLegend(c draw.Canvas, l gplot.Legend, height vg.Length) {
+	if height == 0 {
+		return
+	}
+	area := draw.Crop(c, 0, 0, 0, -(c.Max.Y - c.Min.Y - height))
+	l.Draw(draw.Crop(area, margin, 0, 0, -margin))
+}
+
+// meshPicture draws the triangles of m and the polygon outline, or, when
+// m.Boundary is given, each side in the style of its condition with a
+// legend below.
 func meshPicture(m *Modes) picture {
 	count := fmt.Sprintf("%d triangles", len(m.Triangles))
 	if len(m.Triangles) == 1 {
 		count = "1 triangle"
 	}
 	p := newPlot(titleOf(m) + "\nmesh: " + count)
+	p.X.Label.Text, p.Y.Label.Text = "x", "y"
 	tris := make([][][2]float64, len(m.Triangles))
 	for i, t := range m.Triangles {
 		tris[i] = t[:]
 	}
 	p.Add(&closedPaths{paths: tris, style: meshStyle})
-	p.Add(&closedPaths{paths: [][][2]float64{m.Polygon}, style: outlineStyle})
+	legend := newLegend()
+	var entries []sideEntry
+	if m.Boundary == nil {
+		p.Add(&closedPaths{paths: [][][2]float64{m.Polygon}, style: outlineStyle})
+	} else {
+		var styles []draw.LineStyle
+		styles, entries = sideStyles(m.Boundary)
+		p.Add(&sideLines{polygon: m.Polygon, styles: styles})
+		for _, e := range entries {
+			legend.Add(e.text, e)
+		}
+	}
+	legendHeight := heightOf(legend, len(entries))
 	return picture{
 		name:   "mesh",
 		width:  pictureWidth,
-		height: surfaceHeight(p, m.Polygon),
+		height: surfaceHeight(p, m.Polygon) + legendHeight,
 		draw: func(c draw.Canvas) {
 			// The same drawing area as a mode picture's, centred.
 			c = drawFrame(c)
-			c = draw.Crop(c, colourBarWidth/2, -colourBarWidth/2, 0, 0)
+			drawLegend(c, legend, legendHeight)
+			c = draw.Crop(c, colourBarWidth/2, -colourBarWidth/2, legendHeight, 0)
 			equalAspect(p, c, m.Polygon, m.Triangles)
 			p.Draw(c)
 		},
@@ -111,21 +169,30 @@ func meshPicture(m *Modes) picture {
 }
 
 // modePicture draws mode k of m as a colour map on the grid g, with the
-// polygon outline and a colour bar on the right.
+// polygon outline and a colour bar on the right. The colour scale is
+// ScaleFor the mode's sampled values: diverging about 0 when the mode
+// changes sign (nodal lines show as light grey curves), sequential over
+// its own range otherwise.
 func modePicture(m *Modes, k int, g *grid) picture {
-	p := newPlot(fmt.Sprintf("%s\nmode %d: %s", titleOf(m), k+1, drawable(m.Labels[k])))
-	colours := moreland.SmoothBlueRed()
-	colours.SetMin(-1)
-	colours.SetMax(1)
-	heat := &plotter.HeatMap{GridXYZ: g, Palette: colours.Palette(colourLevels), Min: -1, Max: 1, Rasterized: true}
+	p := newPlot(fmt.Sprintf("%s\nmode %d: %s", titleOf(m), k+1, drawable(LambdaSubscripts(m.Labels[k]))))
+	p.X.Label.Text, p.Y.Label.Text = "x", "y"
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, v := range g.z {
+		if !math.IsNaN(v) {
+			lo, hi = math.Min(lo, v), math.Max(hi, v)
+		}
+	}
+	colours, lo, hi := ScaleFor(lo, hi)
+	heat := &plotter.HeatMap{GridXYZ: g, Palette: colours.Palette(colourLevels), Min: lo, Max: hi, Rasterized: true}
 	p.Add(rasterOnly{heat})
 	p.Add(&closedPaths{paths: [][][2]float64{m.Polygon}, style: outlineStyle})
 
 	bar := gplot.New()
 	bar.HideX()
 	bar.Y.Label.Text = "u / max |u|"
+	bar.Y.Tick.Marker = RoundTicks{}
 	bar.Add(&plotter.ColorBar{ColorMap: colours, Vertical: true, Colors: colourLevels})
-	bar.Y.Min, bar.Y.Max = -1, 1
+	bar.Y.Min, bar.Y.Max = lo, hi
 	return picture{
 		name:   fmt.Sprintf("mode%d", k+1),
 		width:  pictureWidth,
@@ -147,12 +214,14 @@ func modePicture(m *Modes, k int, g *grid) picture {
 	}
 }
 
-// newPlot returns a plot with the given (possibly multi-line) title.
+// newPlot returns a plot with the given (possibly multi-line) title and
+// ticks at round values.
 func newPlot(title string) *gplot.Plot {
 	p := gplot.New()
 	p.Title.Text = title
 	p.Title.TextStyle.Font = font.From(gplot.DefaultFont, 11)
 	p.Title.Padding = 0.2 * vg.Centimeter
+	p.X.Tick.Marker, p.Y.Tick.Marker = RoundTicks{}, RoundTicks{}
 	return p
 }
 

@@ -43,6 +43,13 @@ type Modes struct {
 	Labels    []string                          // one label per mode, e.g. "λ1 ∈ [9.8696, 9.8697]" (certified enclosure text given by the caller)
 	Eval      func(k int, x, y float64) float64 // k-th approximate eigenfunction (0-based); y is ignored in 1D
 
+	// Boundary, when not nil, holds the boundary condition of each side:
+	// [left end, right end] in 1D, and in 2D side i running from
+	// Polygon[i] to Polygon[(i+1) mod n]. The conditions are drawn on the
+	// mesh picture (2D) or at the ends of the curves (1D), each kind in its
+	// own line style, with a legend.
+	Boundary []Side
+
 	// Samples is the number of sample points on the interval (1D, at
 	// least 2) or of grid cells along the longer side of the polygon's
 	// bounding box (2D, at least 2); zero means DefaultSamples1D or
@@ -79,7 +86,8 @@ func (e *ModeError) Error() string {
 //     len(m.Labels) modes on m.Interval, each normalised so that its value
 //     of largest magnitude is +1, with a legend of the labels;
 //   - 2D: mesh.<fmt> (when m.Triangles is not empty), the triangulation and
-//     the polygon outline; and mode<k>.<fmt> for k = 1 … len(m.Labels) (mode1
+//     the polygon outline, or each side in the style of its boundary
+//     condition with a legend (when m.Boundary is given); and mode<k>.<fmt> for k = 1 … len(m.Labels) (mode1
 //     is Eval index 0, the mode of λ1), a colour map of the normalised mode on
 //     a grid, blank outside the polygon, with the outline and a colour bar.
 //
@@ -133,6 +141,7 @@ func (m *Modes) check() {
 		if len(m.Triangles) != 0 {
 			panic("plot: Triangles given for a 1D problem")
 		}
+		m.checkBoundary(2)
 		return
 	}
 	if len(m.Polygon) < 3 {
@@ -152,6 +161,25 @@ func (m *Modes) check() {
 			if !finite(v[0]) || !finite(v[1]) {
 				panic("plot: Triangles vertex is not finite")
 			}
+		}
+	}
+	m.checkBoundary(len(m.Polygon))
+}
+
+// checkBoundary panics unless m.Boundary is nil or holds n known sides.
+func (m *Modes) checkBoundary(n int) {
+	if m.Boundary == nil {
+		return
+	}
+	if len(m.Boundary) != n {
+		panic(fmt.Sprintf("plot: Boundary has %d sides, want %d", len(m.Boundary), n))
+	}
+	for i, s := range m.Boundary {
+		switch {
+		case s.Kind != DirichletSide && s.Kind != NeumannSide && s.Kind != RobinSide:
+			panic(fmt.Sprintf("plot: Boundary[%d]: unknown kind %q", i, s.Kind))
+		case (s.Kind == RobinSide) != (s.Alpha != ""):
+			panic(fmt.Sprintf("plot: Boundary[%d]: Alpha %q with kind %q (a Robin side needs it, others have none)", i, s.Alpha, s.Kind))
 		}
 	}
 }

@@ -15,8 +15,6 @@ import (
 	"slices"
 	"strings"
 	"testing"
-
-	"gonum.org/v1/plot/palette/moreland"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/")
@@ -80,6 +78,26 @@ func lShapeTwoModes() *Modes {
 	m.Eval = func(k int, x, y float64) float64 {
 		return math.Sin(float64(k+1)*math.Pi*x) * math.Sin(math.Pi*y)
 	}
+	return m
+}
+
+// lShapeMixed is lShape with a boundary condition of every kind, two
+// Robin coefficients and kinds that repeat.
+func lShapeMixed() *Modes {
+	m := lShape()
+	m.Title = "L-shape, mixed conditions"
+	m.Boundary = []Side{
+		{Kind: DirichletSide}, {Kind: NeumannSide}, {Kind: RobinSide, Alpha: "5"},
+		{Kind: RobinSide, Alpha: "1/2"}, {Kind: DirichletSide}, {Kind: NeumannSide},
+	}
+	return m
+}
+
+// sineMixed is sineModes with a Dirichlet left end and a Robin right end
+// (the curves are not its modes; only the drawing of the ends matters).
+func sineMixed() *Modes {
+	m := sineModes()
+	m.Boundary = []Side{{Kind: DirichletSide}, {Kind: RobinSide, Alpha: "2"}}
 	return m
 }
 
@@ -246,26 +264,26 @@ func TestOutlineAspect(t *testing.T) {
 // TestColourMap decodes the raster colour map embedded in the SVG and
 // checks the colour of grid cells against the closed form
 // sin(πx)sin(πy) at the cell centre, divided by its largest value on the
-// grid: the palette colour of that value (within one palette step, for
-// rounding at a step's edge), and transparent outside the polygon. The
-// sign of the picture follows the first largest sample, so both signs are
-// tried, but one sign must fit every cell.
+// grid: the colour of that value on the scale ScaleFor the range of these
+// values (within one palette step, for rounding at a step's edge), and
+// transparent outside the polygon. The sign of the picture follows the
+// first largest sample, so both signs are tried, but one sign must fit
+// every cell. The square's mode has one sign, so its scale is sequential
+// (the viridis colours, yellow at the peak); the L-shape's changes sign,
+// so its scale is diverging and symmetric about 0.
 func TestColourMap(t *testing.T) {
-	cm := moreland.SmoothBlueRed()
-	cm.SetMin(-1)
-	cm.SetMax(1)
-	pal := cm.Palette(colourLevels).Colors()
 	closedForm := func(x, y float64) float64 { return math.Sin(math.Pi*x) * math.Sin(math.Pi*y) }
 	for _, tc := range []struct {
-		m      *Modes
-		points [][2]float64
+		m         *Modes
+		points    [][2]float64
+		diverging bool
 	}{
-		{unitSquare(), [][2]float64{{0.5, 0.5}, {0.001, 0.5}, {0.5, 0.999}, {0.25, 0.75}, {0.9, 0.1}}},
+		{unitSquare(), [][2]float64{{0.5, 0.5}, {0.001, 0.5}, {0.5, 0.999}, {0.25, 0.75}, {0.9, 0.1}}, false},
 		{lShape(), [][2]float64{
 			{0.5, 0.5}, {1.5, 0.5}, {0.5, 1.5}, // the three squares
 			{1.5, 1.5}, {1.9, 1.9}, {1.001, 1.5}, {1.5, 1.001}, // outside
 			{0.999, 1.5}, {1.2, 0.3}, {0.3, 1.7},
-		}},
+		}, true},
 	} {
 		t.Run(tc.m.Title, func(t *testing.T) {
 			dir := t.TempDir()
@@ -286,15 +304,31 @@ func TestColourMap(t *testing.T) {
 			centre := func(c, r int) (x, y float64) { // r counts rows from the top
 				return x0 + (float64(c)+0.5)*dx, y1 - (float64(r)+0.5)*dy
 			}
-			peak := 0.0
+			peak, low := 0.0, math.Inf(1)
 			for r := range b.Dy() {
 				for c := range b.Dx() {
 					if x, y := centre(c, r); inside(tc.m.Polygon, x, y) {
 						peak = max(peak, abs(closedForm(x, y)))
+						low = min(low, closedForm(x, y))
 					}
 				}
 			}
+			if (low < 0) != tc.diverging {
+				t.Fatalf("closed form's least value %g: test case misdescribed", low)
+			}
 			fits := func(sign float64) bool {
+				lo, hi := low/peak, 1.0
+				if sign < 0 {
+					lo, hi = -1, -low/peak
+				}
+				if lo < 0 && hi < 1 {
+					return false // the largest magnitude is drawn +1
+				}
+				cm, lo, hi := ScaleFor(lo, hi)
+				if (lo == -hi) != tc.diverging {
+					return false
+				}
+				pal := cm.Palette(colourLevels).Colors()
 				for _, p := range tc.points {
 					c, r := int((p[0]-x0)/dx), int((y1-p[1])/dy)
 					got := img.At(b.Min.X+c, b.Min.Y+r)
@@ -305,7 +339,7 @@ func TestColourMap(t *testing.T) {
 						}
 						continue
 					}
-					i := int(math.Round((sign*closedForm(x, y)/peak + 1) / 2 * (colourLevels - 1)))
+					i := int(math.Round((sign*closedForm(x, y)/peak - lo) / (hi - lo) * (colourLevels - 1)))
 					ok := false
 					for j := max(0, i-1); j <= min(colourLevels-1, i+1); j++ {
 						ok = ok || sameColour(got, pal[j])
@@ -322,8 +356,14 @@ func TestColourMap(t *testing.T) {
 				}
 				t.Error("the colour map matches sin(πx)sin(πy) with neither sign")
 			}
-			if tc.m.Title == "unit square" && !fits(1) {
-				t.Error("a positive mode is not drawn positive")
+			if tc.m.Title == "unit square" {
+				if !fits(1) {
+					t.Error("a positive mode is not drawn positive")
+				}
+				// The peak is the top of the sequential scale: viridis yellow.
+				if got := img.At(b.Min.X+b.Dx()/2, b.Min.Y+b.Dy()/2); !sameColour(got, viridisControls[len(viridisControls)-1]) {
+					t.Errorf("colour at the peak %v, want viridis yellow %v", got, viridisControls[len(viridisControls)-1])
+				}
 			}
 		})
 	}
@@ -349,6 +389,8 @@ func TestGolden(t *testing.T) {
 		{"square_mode1", unitSquare(), "mode1.svg"},
 		{"lshape_mesh", lShape(), "mesh.svg"},
 		{"lshape_mode1", lShape(), "mode1.svg"},
+		{"lshape_mixed_mesh", lShapeMixed(), "mesh.svg"},
+		{"interval_mixed_modes", sineMixed(), "modes.svg"},
 	} {
 		t.Run(tc.golden, func(t *testing.T) {
 			dir := t.TempDir()
@@ -383,9 +425,86 @@ func TestGolden(t *testing.T) {
 	}
 }
 
+// TestBoundarySides finds each side of the mixed L-shape in the SVG of its
+// mesh, as one segment in the style of its condition (the Okabe–Ito colour
+// and dash pattern of its kind, a colour per Robin coefficient), and the
+// legend with one entry per kind and coefficient.
+func TestBoundarySides(t *testing.T) {
+	m := lShapeMixed()
+	dir := t.TempDir()
+	if _, err := Write(dir, m, []string{"svg"}); err != nil {
+		t.Fatal(err)
+	}
+	elems := parseSVG(t, filepath.Join(dir, "mesh.svg"))
+	type segment struct {
+		a, b  [2]float64
+		style string
+	}
+	var segs []segment
+	for _, e := range elems {
+		subs, ok := parsePath(e.attrs["d"])
+		if e.name == "path" && ok && len(subs) == 1 && len(subs[0].pts) == 2 && strings.Contains(e.attrs["style"], "stroke-width:2.6") {
+			segs = append(segs, segment{subs[0].pts[0], subs[0].pts[1], e.attrs["style"]})
+		}
+	}
+	want := []string{
+		"stroke:#000000;stroke-width:2.6\"",
+		"stroke:#0072B2;stroke-width:2.6;stroke-dasharray:7,3.5",
+		"stroke:#D55E00;stroke-width:2.6;stroke-dasharray:7,2.5,1.5,2.5",
+		"stroke:#009E73;stroke-width:2.6;stroke-dasharray:7,2.5,1.5,2.5",
+		"stroke:#000000;stroke-width:2.6\"",
+		"stroke:#0072B2;stroke-width:2.6;stroke-dasharray:7,3.5",
+	}
+	n := len(m.Polygon)
+	// Try each segment as side 0 to fix the map (x, y) ↦ o + s·(x, y).
+	matched := false
+	for _, first := range segs {
+		v0, v1 := m.Polygon[0], m.Polygon[1]
+		scale := math.Hypot(first.b[0]-first.a[0], first.b[1]-first.a[1]) / math.Hypot(v1[0]-v0[0], v1[1]-v0[1])
+		ox, oy := first.a[0]-scale*v0[0], first.a[1]-scale*v0[1]
+		at := func(v [2]float64) [2]float64 { return [2]float64{ox + scale*v[0], oy + scale*v[1]} }
+		near := func(p, q [2]float64) bool { return abs(p[0]-q[0]) < 0.02 && abs(p[1]-q[1]) < 0.02 }
+		all := true
+		for i := range n {
+			a, b := at(m.Polygon[i]), at(m.Polygon[(i+1)%n])
+			found := slices.ContainsFunc(segs, func(s segment) bool {
+				return near(s.a, a) && near(s.b, b) && strings.Contains(s.style+"\"", want[i])
+			})
+			all = all && found
+		}
+		if all {
+			matched = true
+			break
+		}
+	}
+	if !matched {
+		for _, s := range segs {
+			t.Logf("segment %v–%v %s", s.a, s.b, s.style)
+		}
+		t.Error("the sides are not drawn one segment each in the style of their condition")
+	}
+	text := texts(elems)
+	legend := []string{"Dirichlet: u = 0", "Neumann: ∂u/∂n = 0", "Robin: ∂u/∂n + αu = 0, α = 5", "Robin: ∂u/∂n + αu = 0, α = 1/2"}
+	for _, w := range legend {
+		if c := strings.Count(strings.Join(text, "\n")+"\n", w+"\n"); c != 1 {
+			t.Errorf("legend entry %q appears %d times, want once", w, c)
+		}
+	}
+	// Without conditions the mesh has no legend.
+	plain := t.TempDir()
+	if _, err := Write(plain, lShape(), []string{"svg"}); err != nil {
+		t.Fatal(err)
+	}
+	for _, s := range texts(parseSVG(t, filepath.Join(plain, "mesh.svg"))) {
+		if strings.Contains(s, "Dirichlet") {
+			t.Errorf("legend %q without boundary conditions", s)
+		}
+	}
+}
+
 // TestDeterministic writes every picture twice and compares the bytes.
 func TestDeterministic(t *testing.T) {
-	for _, m := range []*Modes{sineModes(), unitSquare(), lShape()} {
+	for _, m := range []*Modes{sineModes(), unitSquare(), lShape(), lShapeMixed(), sineMixed()} {
 		d1, d2 := t.TempDir(), t.TempDir()
 		p1, err1 := Write(d1, m, Formats())
 		p2, err2 := Write(d2, m, Formats())
@@ -490,6 +609,18 @@ func TestMisusePanics(t *testing.T) {
 		{"two vertices", func(m *Modes) *Modes { m.Polygon = [][2]float64{{0, 0}, {1, 1}}; return m }, "plot: Polygon has fewer"},
 		{"flat polygon", func(m *Modes) *Modes { m.Polygon = [][2]float64{{0, 0}, {1, 0}, {2, 0}}; return m }, "plot: Polygon has an empty"},
 		{"NaN vertex", func(m *Modes) *Modes { m.Polygon = [][2]float64{{0, 0}, {1, math.NaN()}, {0, 1}}; return m }, "plot: Polygon vertex"},
+		{"1D boundary of 3", func(m *Modes) *Modes { m.Boundary = make([]Side, 3); return m }, "plot: Boundary has 3 sides, want 2"},
+		{"unknown side kind", func(m *Modes) *Modes { m.Boundary = []Side{{Kind: "Dirichlet"}, {Kind: NeumannSide}}; return m }, `plot: Boundary[0]: unknown kind "Dirichlet"`},
+		{"Robin without alpha", func(m *Modes) *Modes { m.Boundary = []Side{{Kind: RobinSide}, {Kind: NeumannSide}}; return m }, "plot: Boundary[0]: Alpha"},
+		{"alpha without Robin", func(m *Modes) *Modes {
+			m.Boundary = []Side{{Kind: DirichletSide}, {Kind: NeumannSide, Alpha: "1"}}
+			return m
+		}, "plot: Boundary[1]: Alpha"},
+		{"2D boundary short", func(m *Modes) *Modes {
+			m.Polygon = unitSquare().Polygon
+			m.Boundary = make([]Side, 3)
+			return m
+		}, "plot: Boundary has 3 sides, want 4"},
 		{"NaN triangle", func(m *Modes) *Modes {
 			m.Polygon = unitSquare().Polygon
 			m.Triangles = [][3][2]float64{{{0, 0}, {1, 0}, {math.NaN(), 1}}}

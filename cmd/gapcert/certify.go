@@ -127,6 +127,16 @@ func drawModes(dir string, p *problem.Problem, c *certs.Certificate) ([]string, 
 			m.Polygon = append(m.Polygon, [2]float64{v[0].Val.Mid(), v[1].Val.Mid()})
 		}
 	}
+	for _, bc := range p.Boundary {
+		side := plot.Side{Kind: bc.Kind.String()}
+		if bc.Kind == problem.Robin {
+			side.Alpha = bc.Alpha.Text
+			if r := bc.Alpha.Rat; r != nil && r.RatString() != side.Alpha {
+				side.Alpha += " = " + r.RatString() // a parameter's value
+			}
+		}
+		m.Boundary = append(m.Boundary, side)
+	}
 	for _, e := range c.Results.Eigenvalues[:count] {
 		m.Labels = append(m.Labels, fmt.Sprintf("λ%d ∈ [%s, %s]", e.Index, shortLower(e.Lower), shortUpper(e.Upper)))
 	}

@@ -10,7 +10,7 @@ import (
 )
 
 func newPlotCmd() *cobra.Command {
-	var x, y, quantity, reference, threshold, relation, claim, out string
+	var x, y, quantity, reference, threshold, relation, claim, out, band string
 	cmd := &cobra.Command{
 		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N) --out FILE.png|.svg",
 		Short: "Draw the certified results of a sweep against its parameters",
@@ -40,6 +40,11 @@ each coloured by the certified lower bound of the margin of the claim
 (lhs − rhs for >=, >; rhs − lhs for <=, <), undecided and failing cells
 marked.
 
+Enclosures narrower than a line do not show on a band; --band width adds a
+panel of each enclosure's width hi − lo on a logarithmic axis, and --band
+margin (with --threshold) a panel of the certified enclosure of quantity −
+threshold with the line 0, on its own axis.
+
 The format follows the extension of --out (.png or .svg). Only the
 sampled points are certified; the pictures say so. This command draws
 sweeps; "certify --plot DIR" draws the approximate eigenfunctions of one
@@ -64,6 +69,14 @@ with a certificate file.`,
 				return fail(errors.New("a map needs --claim N (1-based) or --claim TEXT"))
 			case y == "" && claim != "":
 				return fail(errors.New("--claim belongs to a map over two parameters (give --y)"))
+			case y != "" && band != "":
+				return fail(errors.New("--band adds a panel to a band over one parameter; a map has none"))
+			case band == string(sweepplot.MarginPanel) && threshold == "":
+				return fail(errors.New("--band margin draws quantity − threshold (hint: give --threshold EXPR, or use --band width)"))
+			}
+			panel, err := sweepplot.ParsePanel(band)
+			if err != nil {
+				return fail(fmt.Errorf("--band: %v", err))
 			}
 			s, err := sweepplot.Load(args[0])
 			var cc *sweepplot.CrossCheckError
@@ -80,7 +93,8 @@ with a certificate file.`,
 				if err != nil {
 					return fail(err)
 				}
-				write, missing, uncertified = b.Write, b.Missing, len(b.Uncertified)
+				write = func(path string) error { return b.WritePanel(path, panel) }
+				missing, uncertified = b.Missing, len(b.Uncertified)
 			} else {
 				m, err := s.Map(x, y, claim)
 				if err != nil {
@@ -106,6 +120,7 @@ with a certificate file.`,
 	f.StringVar(&quantity, "quantity", "", "formula to draw against the parameter (band)")
 	f.StringVar(&reference, "reference", "", "formula drawn as a second certified band, e.g. robin_interval_gap (band)")
 	f.StringVar(&threshold, "threshold", "", "formula the quantity is compared with (band)")
+	f.StringVar(&band, "band", "", "a second panel under a band: width (each enclosure's width, log axis) or margin (quantity − threshold)")
 	f.StringVar(&relation, "relation", ">=", "comparison of quantity and threshold: >=, >, <= or <")
 	f.StringVar(&y, "y", "", "the second parameter, on the vertical axis (map)")
 	f.StringVar(&claim, "claim", "", "the claim of a map: its number (1-based) or its text")

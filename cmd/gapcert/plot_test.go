@@ -24,7 +24,7 @@ func TestPlot(t *testing.T) {
 		}
 	}
 	svg, err := os.ReadFile(band)
-	if err != nil || !strings.Contains(string(svg), "certified enclosures of D^2*gap/pi^2") {
+	if err != nil || !strings.Contains(string(svg), "certified enclosures of D²·gap/π²") {
 		t.Errorf("band picture: %v", err)
 	}
 	svg, err = os.ReadFile(robin)

@@ -6,7 +6,12 @@
 // optional second certified band (a reference), a threshold, and each
 // point marked by its verdict; for a two-parameter sweep, a map of cells
 // coloured by a certified lower bound of one claim's margin, undecided and
-// failing cells marked.
+// failing cells marked. Under a band, a second panel (Panel) may show the
+// width of each enclosure on a logarithmic axis, or the enclosure of
+// quantity − threshold on its own axis, for enclosures too narrow to see
+// against the range of the quantity. A map's colour scale is diverging
+// about 0 only when its bounds have both signs, else sequential over their
+// range (plot.ScaleFor).
 //
 // Reference quantities. A built-in claim with a reference (package
 // certs/named) stores in its claim result the certificate of that

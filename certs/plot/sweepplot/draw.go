@@ -10,7 +10,6 @@ import (
 
 	gplot "gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
-	"gonum.org/v1/plot/palette/moreland"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
@@ -40,22 +39,24 @@ var (
 		YAlign:  draw.YBottom,
 		Handler: gplot.DefaultTextHandler,
 	}
-	barColour      = color.RGBA{R: 0x1f, G: 0x4e, B: 0x8c, A: 0xff}
-	shadeColour    = color.RGBA{R: 0xc6, G: 0xdb, B: 0xef, A: 0xff}
-	refBarColour   = color.RGBA{R: 0xb3, G: 0x58, B: 0x06, A: 0xff}
-	refShadeColour = color.RGBA{R: 0xfd, G: 0xd9, B: 0xb5, A: 0xff}
+	barColour      = plot.Blue
+	shadeColour    = plot.Lighten(plot.Blue, 0.75)
+	refBarColour   = plot.Orange
+	refShadeColour = plot.Lighten(plot.Orange, 0.7)
 	thresholdStyle = draw.LineStyle{Color: color.Black, Width: vg.Points(1), Dashes: []vg.Length{vg.Points(4), vg.Points(2)}}
 	noCertColour   = color.Gray{Y: 0xd0}
 	verdictOrder   = []string{certs.Holds, certs.Undecided, certs.Fails, ""}
-	verdictGlyphs  = map[string]draw.GlyphStyle{
-		certs.Holds:     {Shape: draw.CircleGlyph{}, Color: barColour, Radius: vg.Points(2.5)},
-		certs.Undecided: {Shape: draw.RingGlyph{}, Color: color.RGBA{R: 0xe0, G: 0x80, A: 0xff}, Radius: vg.Points(4)},
-		certs.Fails:     {Shape: draw.CrossGlyph{}, Color: color.RGBA{R: 0xc0, A: 0xff}, Radius: vg.Points(4)},
+	// The verdicts differ in shape as well as in (Okabe–Ito) colour.
+	verdictGlyphs = map[string]draw.GlyphStyle{
+		certs.Holds:     {Shape: draw.CircleGlyph{}, Color: plot.BluishGreen, Radius: vg.Points(3)},
+		certs.Undecided: {Shape: mark{width: vg.Points(1.2)}, Color: plot.Black, Radius: vg.Points(4.5)},
+		certs.Fails:     {Shape: mark{cross: true, width: vg.Points(1.5)}, Color: plot.Vermillion, Radius: vg.Points(4.5)},
 		"":              {Shape: draw.SquareGlyph{}, Color: color.Gray{Y: 0x60}, Radius: vg.Points(2)},
 	}
+	// Map marks are black with a white halo, visible on every colour.
 	mapGlyphs = map[string]draw.GlyphStyle{
-		certs.Undecided: {Shape: draw.RingGlyph{}, Color: color.Black, Radius: vg.Points(4)},
-		certs.Fails:     {Shape: draw.CrossGlyph{}, Color: color.Black, Radius: vg.Points(4)},
+		certs.Undecided: {Shape: mark{width: vg.Points(1.2), halo: true}, Color: color.Black, Radius: vg.Points(4.5)},
+		certs.Fails:     {Shape: mark{cross: true, width: vg.Points(1.5), halo: true}, Color: color.Black, Radius: vg.Points(4.5)},
 	}
 )
 
@@ -80,20 +81,30 @@ func (pic picture) write(path string) error {
 	return plot.Render(path, ext, pic.width, pic.height, pic.draw)
 }
 
-// Write draws the band into path (.png or .svg).
-func (b *Band) Write(path string) error { return b.picture().write(path) }
+// Write draws the band into path (.png or .svg), in one panel.
+func (b *Band) Write(path string) error { return b.picture(NoPanel).write(path) }
+
+// WritePanel draws the band into path (.png or .svg) with a second panel
+// under it (see Panel); NoPanel draws the band alone, as Write. A
+// MarginPanel needs a band with a threshold.
+func (b *Band) WritePanel(path string, extra Panel) error {
+	if err := b.checkPanel(extra); err != nil {
+		return err
+	}
+	return b.picture(extra).write(path)
+}
 
 // Write draws the map into path (.png or .svg).
 func (m *Map) Write(path string) error { return m.picture().write(path) }
 
-func (b *Band) picture() picture {
-	q, r := plot.Drawable(b.Quantity), plot.Drawable(b.Reference)
+func (b *Band) picture(extra Panel) picture {
+	q, r, t := plot.MathText(b.Quantity), plot.MathText(b.Reference), plot.MathText(b.Threshold)
 	what := q
 	if b.Reference != "" {
 		what += " and of " + r
 	}
 	p := newPlot(plot.Drawable(b.Title) + "\ncertified enclosures of " + what)
-	p.X.Label.Text = plot.Drawable(b.X)
+	p.X.Label.Text = plot.MathText(b.X)
 	p.Y.Label.Text = q
 	if b.Reference != "" {
 		p.Y.Label.Text = q + ", " + r
@@ -101,16 +112,37 @@ func (b *Band) picture() picture {
 	p.Add(plotter.NewGrid())
 	legend := newLegend()
 
+	lo, hi := b.yRange()
+	pad := 0.06 * (hi - lo)
+	if pad == 0 {
+		pad = math.Max(1e-12, 0.01*math.Abs(hi))
+	}
+	p.Y.Min, p.Y.Max = lo-pad, hi+pad
+	x0, x1 := b.Points[0].X, b.Points[len(b.Points)-1].X
+	if xpad := 0.04 * (x1 - x0); xpad > 0 {
+		p.X.Min, p.X.Max = x0-xpad, x1+xpad
+	}
+
 	quantity := func(pt BandPoint) interval.I { return pt.Quantity }
 	reference := func(pt BandPoint) interval.I { return pt.Reference }
+	// The shading joins the bars for the eye; it is drawn (and named in
+	// the legend) only where it can be seen.
+	visible := func(of func(BandPoint) interval.I) bool {
+		return widest(b.Points, of) >= minVisible*(p.Y.Max-p.Y.Min)
+	}
+	var shades swatch
 	if len(b.Points) > 1 {
-		shades := swatch{shadeColour}
-		if b.Reference != "" {
+		if b.Reference != "" && visible(reference) {
 			p.Add(shading(b.Points, reference, refShadeColour))
 			shades = append(shades, refShadeColour)
 		}
-		p.Add(shading(b.Points, quantity, shadeColour))
-		legend.Add("shading between points: for reading only, not certified", shades)
+		if visible(quantity) {
+			p.Add(shading(b.Points, quantity, shadeColour))
+			shades = append(swatch{shadeColour}, shades...)
+		}
+		if len(shades) > 0 {
+			legend.Add("shading between points: for reading only, not certified", shades)
+		}
 	}
 	if b.Reference != "" {
 		refBars := &intervalBars{points: b.Points, of: reference, style: refBarStyle, capWidth: refCapWidth}
@@ -124,14 +156,63 @@ func (b *Band) picture() picture {
 	if b.Threshold != "" {
 		line := thresholdLine(b.Points)
 		p.Add(line)
-		legend.Add("threshold "+plot.Drawable(b.Threshold), line)
+		legend.Add("threshold "+t, line)
 	}
-	rel, t := relWords[b.Rel], plot.Drawable(b.Threshold)
+	b.addVerdicts(p, &legend, func(pt BandPoint) float64 { return pt.Quantity.Mid() })
+
+	caption := []string{
+		"certified: each bar encloses the quantity over the enclosures of one certificate;",
+		"nothing is certified between the sampled parameter values.",
+	}
+	if b.Reference != "" {
+		caption = append(caption[:1], "the orange reference bars likewise enclose "+r+" at each point;", caption[1])
+	}
+	narrow := !visible(quantity) || b.Reference != "" && !visible(reference)
+	switch {
+	case narrow && extra == WidthPanel:
+		caption = append(caption, "The enclosures are narrower than a line at this scale; the lower panel shows their widths.")
+	case narrow:
+		caption = append(caption, "The enclosures are narrower than a line at this scale (a width panel shows their widths).")
+	}
+	if n := b.notes(); n != "" {
+		caption = append(caption, n)
+	}
+	panels := []panel{{plot: p, height: bandHeight}}
+	switch extra {
+	case WidthPanel:
+		panels = append(panels, b.widthPanel(p, &legend, &caption))
+	case MarginPanel:
+		panels = append(panels, b.marginPanel(p, &legend, &caption))
+	}
+	if len(panels) > 1 {
+		p.X.Label.Text = ""
+	}
+	return framed(panels, legend, caption, pictureWidth, 0, nil)
+}
+
+// minVisible is the least height, as a fraction of a panel's y range,
+// that a shading needs to be seen (about half a point on a band panel).
+const minVisible = 0.003
+
+// widest is the largest width of the enclosures of(pt).
+func widest(points []BandPoint, of func(BandPoint) interval.I) float64 {
+	w := 0.0
+	for _, pt := range points {
+		w = math.Max(w, of(pt).Wid())
+	}
+	return w
+}
+
+// addVerdicts marks each point at height y(pt) by its verdict, with a
+// legend entry for each verdict that occurs.
+func (b *Band) addVerdicts(p *gplot.Plot, legend *gplot.Legend, y func(BandPoint) float64) {
+	q, t := plot.MathText(b.Quantity), plot.MathText(b.Threshold)
+	rel := relWords[b.Rel]
 	for _, v := range verdictOrder {
 		var xys plotter.XYs
 		for _, pt := range b.Points {
 			if pt.Verdict == v {
-				xys = append(xys, plotter.XY{X: pt.X, Y: pt.Quantity.Mid()})
+				xys = append(xys, plotter.XY{X: pt.X, Y: y(pt)})
 			}
 		}
 		if len(xys) == 0 {
@@ -143,6 +224,9 @@ func (b *Band) picture() picture {
 		}
 		sc.GlyphStyle = verdictGlyphs[v]
 		p.Add(sc)
+		if legend == nil {
+			continue
+		}
 		var what string
 		switch {
 		case b.Threshold == "" && v == "":
@@ -158,28 +242,6 @@ func (b *Band) picture() picture {
 		}
 		legend.Add(fmt.Sprintf("%s (%d)", what, len(xys)), sc)
 	}
-	lo, hi := b.yRange()
-	pad := 0.06 * (hi - lo)
-	if pad == 0 {
-		pad = math.Max(1e-12, 0.01*math.Abs(hi))
-	}
-	p.Y.Min, p.Y.Max = lo-pad, hi+pad
-	x0, x1 := b.Points[0].X, b.Points[len(b.Points)-1].X
-	if xpad := 0.04 * (x1 - x0); xpad > 0 {
-		p.X.Min, p.X.Max = x0-xpad, x1+xpad
-	}
-
-	caption := []string{
-		"certified: each bar encloses the quantity over the enclosures of one certificate;",
-		"nothing is certified between the sampled parameter values.",
-	}
-	if b.Reference != "" {
-		caption = append(caption[:1], "the orange reference bars likewise enclose "+r+" at each point;", caption[1])
-	}
-	if n := b.notes(); n != "" {
-		caption = append(caption, n)
-	}
-	return framed(p, legend, caption, pictureWidth, bandHeight, 0, nil)
 }
 
 // notes says which points are not drawn and where the enclosures came from.
@@ -249,33 +311,33 @@ func (m *Map) picture() picture {
 	if m.Rel == "<=" || m.Rel == "<" {
 		side = "rhs − lhs"
 	}
-	p := newPlot(plot.Drawable(m.Title) + "\nclaim " + plot.Drawable(m.Claim) + "\ncolour: certified lower bound of " + side)
-	p.X.Label.Text = plot.Drawable(m.X)
-	p.Y.Label.Text = plot.Drawable(m.Y)
+	p := newPlot(plot.Drawable(m.Title) + "\nclaim " + plot.MathText(m.Claim) + "\ncolour: certified lower bound of " + side)
+	p.X.Label.Text = plot.MathText(m.X)
+	p.Y.Label.Text = plot.MathText(m.Y)
 	xs, ys := m.axes()
 	g := &marginGrid{xs: xs, ys: ys, z: make([]float64, len(xs)*len(ys))}
 	for i := range g.z {
 		g.z[i] = math.NaN()
 	}
-	top := 0.0
+	// The colour scale spans the finite lower bounds: diverging about 0
+	// when they have both signs, else sequential over their range.
+	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, c := range m.Cells {
 		if !math.IsInf(c.Margin, 0) {
-			top = math.Max(top, math.Abs(c.Margin))
+			lo, hi = math.Min(lo, c.Margin), math.Max(hi, c.Margin)
 		}
 	}
-	if top == 0 {
-		top = 1
+	if lo > hi { // no finite bound
+		lo, hi = -1, 1
 	}
+	colours, lo, hi := plot.ScaleFor(lo, hi)
 	for _, c := range m.Cells {
 		// An infinite bound (a claim that could not be enclosed) is drawn
 		// at the end of the colour scale.
-		g.z[slices.Index(ys, c.Y)*len(xs)+slices.Index(xs, c.X)] = math.Max(-top, math.Min(top, c.Margin))
+		g.z[slices.Index(ys, c.Y)*len(xs)+slices.Index(xs, c.X)] = math.Max(lo, math.Min(hi, c.Margin))
 	}
-	colours := moreland.SmoothBlueRed()
-	colours.SetMin(-top)
-	colours.SetMax(top)
 	heat := plotter.NewHeatMap(g, colours.Palette(colourLevels))
-	heat.Min, heat.Max, heat.NaN = -top, top, noCertColour
+	heat.Min, heat.Max, heat.NaN = lo, hi, noCertColour
 	p.Add(heat)
 
 	legend := newLegend()
@@ -308,17 +370,23 @@ func (m *Map) picture() picture {
 	bar := gplot.New()
 	bar.HideX()
 	bar.Y.Label.Text = "lower bound of " + side
+	bar.Y.Tick.Marker = plot.RoundTicks{}
 	bar.Add(&plotter.ColorBar{ColorMap: colours, Vertical: true, Colors: colourLevels})
-	bar.Y.Min, bar.Y.Max = -top, top
+	bar.Y.Min, bar.Y.Max = lo, hi
 
 	caption := []string{
 		"certified: each cell is one certificate, coloured by the lower end of its",
 		"enclosure of " + side + "; unmarked cells hold; nothing is certified between grid points.",
 	}
+	if lo == -hi {
+		caption = append(caption, "Colour scale diverging about 0 (blue below, red above), symmetric.")
+	} else {
+		caption = append(caption, "Colour scale sequential over the bounds drawn (every bound has one sign).")
+	}
 	if n := notes(m.Uncertified, m.Missing); n != "" {
 		caption = append(caption, n)
 	}
-	return framed(p, legend, caption, pictureWidth, mapHeight, colourBarWidth, bar)
+	return framed([]panel{{plot: p, height: mapHeight}}, legend, caption, pictureWidth, colourBarWidth, bar)
 }
 
 // axes returns the distinct parameter values of the cells, increasing.
@@ -348,6 +416,7 @@ func newPlot(title string) *gplot.Plot {
 	p.Title.Text = title
 	p.Title.TextStyle.Font = font.From(gplot.DefaultFont, 11)
 	p.Title.Padding = 0.2 * vg.Centimeter
+	p.X.Tick.Marker, p.Y.Tick.Marker = plot.RoundTicks{}, plot.RoundTicks{}
 	return p
 }
 
@@ -359,16 +428,27 @@ func newLegend() gplot.Legend {
 	return l
 }
 
-// framed lays out a picture: the plot (with a colour bar of the given
-// width on its right when bar is not nil), the legend below it and the
-// caption lines at the foot, on a white background.
-func framed(p *gplot.Plot, legend gplot.Legend, caption []string, width, plotHeight, barWidth vg.Length, bar *gplot.Plot) picture {
+// panel is one plot of a picture and the height it takes.
+type panel struct {
+	plot   *gplot.Plot
+	height vg.Length
+}
+
+// framed lays out a picture: the panels one above the other, their data
+// areas aligned (with a colour bar of the given width right of the first
+// when bar is not nil), the legend below them and the caption lines at the
+// foot, on a white background.
+func framed(panels []panel, legend gplot.Legend, caption []string, width, barWidth vg.Length, bar *gplot.Plot) picture {
 	r := legend.Rectangle(draw.Canvas{})
 	legendHeight := r.Max.Y - r.Min.Y + 2*margin
 	captionHeight := vg.Length(len(caption))*captionLine + margin
+	var plotsHeight vg.Length
+	for _, pn := range panels {
+		plotsHeight += pn.height
+	}
 	return picture{
 		width:  width,
-		height: plotHeight + legendHeight + captionHeight,
+		height: plotsHeight + legendHeight + captionHeight,
 		draw: func(c draw.Canvas) {
 			c.SetColor(color.White)
 			c.Fill(c.Rectangle.Path())
@@ -378,10 +458,34 @@ func framed(p *gplot.Plot, legend gplot.Legend, caption []string, width, plotHei
 			}
 			c = draw.Crop(c, margin, -margin, captionHeight, -margin)
 			area := draw.Crop(c, 0, 0, legendHeight, 0)
-			main := draw.Crop(area, 0, -barWidth, 0, 0)
-			p.Draw(main)
+			// Cut the area into the panels, top down, and align the left
+			// and right edges of their data areas.
+			canvases := make([]draw.Canvas, len(panels))
+			top := area.Max.Y
+			for i, pn := range panels {
+				canvases[i] = draw.Crop(area, 0, -barWidth, 0, 0)
+				canvases[i].Max.Y, canvases[i].Min.Y = top, top-pn.height
+				top -= pn.height
+			}
+			if len(panels) > 1 {
+				var left, right vg.Length
+				for i, pn := range panels {
+					d := pn.plot.DataCanvas(canvases[i])
+					left = max(left, d.Min.X-canvases[i].Min.X)
+					right = max(right, canvases[i].Max.X-d.Max.X)
+				}
+				for i, pn := range panels {
+					d := pn.plot.DataCanvas(canvases[i])
+					canvases[i].Min.X += left - (d.Min.X - canvases[i].Min.X)
+					canvases[i].Max.X -= right - (canvases[i].Max.X - d.Max.X)
+				}
+			}
+			for i, pn := range panels {
+				pn.plot.Draw(canvases[i])
+			}
 			if bar != nil {
-				data := p.DataCanvas(main)
+				main := canvases[0]
+				data := panels[0].plot.DataCanvas(main)
 				strip := draw.Crop(area, area.Max.X-area.Min.X-barWidth+margin, -margin, 0, 0)
 				strip.Min.Y, strip.Max.Y = data.Min.Y, data.Max.Y
 				barData := bar.DataCanvas(strip)
@@ -452,6 +556,39 @@ func (b *intervalBars) Thumbnail(c *draw.Canvas) {
 	c.StrokeLine2(b.style, x, c.Min.Y, x, c.Max.Y)
 	c.StrokeLine2(b.style, x-b.capWidth/2, c.Min.Y, x+b.capWidth/2, c.Min.Y)
 	c.StrokeLine2(b.style, x-b.capWidth/2, c.Max.Y, x+b.capWidth/2, c.Max.Y)
+}
+
+// mark is a glyph drawn with a line of its own width (gonum's ring and
+// cross use a hairline): a ring, or a cross "×" when cross is set, with a
+// white halo under it when halo is set, so that it stays visible on dark
+// and light colours alike.
+type mark struct {
+	cross bool
+	width vg.Length
+	halo  bool
+}
+
+// DrawGlyph implements draw.GlyphDrawer.
+func (m mark) DrawGlyph(c *draw.Canvas, sty draw.GlyphStyle, pt vg.Point) {
+	var path vg.Path
+	r := sty.Radius
+	if m.cross {
+		d := r * 0.7071 // the arms end on the circle of radius r
+		path.Move(vg.Point{X: pt.X - d, Y: pt.Y - d})
+		path.Line(vg.Point{X: pt.X + d, Y: pt.Y + d})
+		path.Move(vg.Point{X: pt.X - d, Y: pt.Y + d})
+		path.Line(vg.Point{X: pt.X + d, Y: pt.Y - d})
+	} else {
+		path.Move(vg.Point{X: pt.X + r, Y: pt.Y})
+		path.Arc(pt, r, 0, 2*math.Pi)
+		path.Close()
+	}
+	if m.halo {
+		c.SetLineStyle(draw.LineStyle{Color: color.White, Width: m.width + vg.Points(2)})
+		c.Stroke(path)
+	}
+	c.SetLineStyle(draw.LineStyle{Color: sty.Color, Width: m.width})
+	c.Stroke(path)
 }
 
 // swatch is a legend thumbnail filled with colours, in vertical stripes

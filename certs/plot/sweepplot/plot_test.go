@@ -58,6 +58,10 @@ func TestGoldenSVG(t *testing.T) {
 		{"band", goldenBand(t).Write},
 		{"map", goldenMap(t).Write},
 		{"robin_band", robinBand(t).Write},
+		{"band_width", func(path string) error { return goldenBand(t).WritePanel(path, WidthPanel) }},
+		{"band_margin", func(path string) error { return goldenBand(t).WritePanel(path, MarginPanel) }},
+		{"robin_band_width", func(path string) error { return robinBand(t).WritePanel(path, WidthPanel) }},
+		{"map_sequential", sequentialMap(t).Write},
 	} {
 		path := filepath.Join(dir, c.golden+".svg")
 		if err := c.write(path); err != nil {
@@ -105,16 +109,17 @@ func TestSVGLabels(t *testing.T) {
 		t.Fatal(err)
 	}
 	for path, want := range map[string][]string{
-		band: {"certified enclosures of D^2*gap/pi^2", "threshold 3 + c^2/100", "holds: D^2*gap/pi^2 ≥ 3 + c^2/100 for all values in the enclosures (1)",
-			"undecided: neither holds nor fails on the whole enclosures (1)", "fails: D^2*gap/pi^2 < 3 + c^2/100 for all values in the enclosures (4)",
-			"nothing is certified between the sampled parameter values.", "shading between points: for reading only, not certified"},
-		cells: {"claim D^2*gap >= 75", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
-			"fails: certified for the whole enclosure (1)", "unmarked cells hold"},
+		band: {"certified enclosures of D²·gap/π²", "threshold 3 + c²/100", "holds: D²·gap/π² ≥ 3 + c²/100 for all values in the enclosures (1)",
+			"undecided: neither holds nor fails on the whole enclosures (1)", "fails: D²·gap/π² < 3 + c²/100 for all values in the enclosures (4)",
+			"nothing is certified between the sampled parameter values.", "The enclosures are narrower than a line at this scale (a width panel shows their widths).",
+			"\nD²·gap/π²\n", "\nc\n"},
+		cells: {"claim D²·gap ≥ 75", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
+			"fails: certified for the whole enclosure (1)", "unmarked cells hold", "Colour scale diverging about 0", "\na\n", "\nb\n"},
 		robin: {"certified enclosures of gap and of robin_interval_gap", "gap, robin_interval_gap", "reference: certified enclosure of robin_interval_gap at each point",
 			"certified enclosure of gap at each point", "every claim holds (the point's certificate) (3)", "the orange reference bars likewise enclose robin_interval_gap at each point;",
-			"shading between points: for reading only, not certified"},
+			"shading between points: for reading only, not certified", "\nα\n"},
 	} {
-		text := strings.Join(summarise(t, path).Texts, "\n")
+		text := "\n" + strings.Join(summarise(t, path).Texts, "\n") + "\n"
 		for _, w := range want {
 			if !strings.Contains(text, w) {
 				t.Errorf("%s lacks %q; texts:\n%s", filepath.Base(path), w, text)
@@ -127,7 +132,10 @@ func TestSVGLabels(t *testing.T) {
 // in inches times plot.PNGDPI, rounded (vgimg's rule).
 func TestPNG(t *testing.T) {
 	dir := t.TempDir()
-	for name, pic := range map[string]picture{"band": goldenBand(t).picture(), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture()} {
+	for name, pic := range map[string]picture{
+		"band": goldenBand(t).picture(NoPanel), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture(NoPanel),
+		"band and widths": goldenBand(t).picture(WidthPanel), "band and margins": goldenBand(t).picture(MarginPanel),
+	} {
 		path := filepath.Join(dir, name+".png")
 		if err := pic.write(path); err != nil {
 			t.Fatal(err)
