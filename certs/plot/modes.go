@@ -3,6 +3,7 @@ package plot
 import (
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -13,6 +14,8 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
+
+	"gapcert/internal/outfile"
 )
 
 // Caption is printed at the foot of every picture.
@@ -203,7 +206,8 @@ func (m *Modes) pictures() ([]picture, error) {
 	return pics, nil
 }
 
-// writeFile renders pic in format f into the file path.
+// writeFile renders pic in format f into the file path, atomically
+// (outfile.WriteWith: an earlier file at path stays intact if writing fails).
 func writeFile(path string, pic picture, f string) (err error) {
 	var cw vg.CanvasWriterTo
 	switch f {
@@ -215,17 +219,10 @@ func writeFile(path string, pic picture, f string) (err error) {
 		panic("plot: unknown format " + f)
 	}
 	pic.draw(draw.New(cw))
-	file, err := os.Create(path)
-	if err != nil {
+	return outfile.WriteWith(path, func(w io.Writer) error {
+		_, err := cw.WriteTo(w)
 		return err
-	}
-	defer func() {
-		if cerr := file.Close(); err == nil {
-			err = cerr
-		}
-	}()
-	_, err = cw.WriteTo(file)
-	return err
+	})
 }
 
 // titleOf is the problem name as drawn, or a neutral one when the caller
