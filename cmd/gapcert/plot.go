@@ -65,6 +65,9 @@ with a certificate file.`,
 			case y == "" && claim != "":
 				return fail(errors.New("--claim belongs to a map over two parameters (give --y)"))
 			}
+			if err := checkPictureFile(out, args[0]); err != nil {
+				return err
+			}
 			s, err := sweepplot.Load(args[0])
 			var cc *sweepplot.CrossCheckError
 			switch {

@@ -148,7 +148,7 @@ func CheckFile(path string, inputs ...string) error {
 	if path == "" {
 		return &Error{Path: `""`, Msg: "empty output path", Hint: "name a file"}
 	}
-	if err := notAnInput(path, inputs, "choose another output file; gapcert does not overwrite its inputs"); err != nil {
+	if err := notAnInput(path, inputs, "choose another output path"); err != nil {
 		return err
 	}
 	if st, err := os.Stat(path); err == nil {
@@ -186,7 +186,7 @@ func CheckDir(dir string, inputs ...string) error {
 	if dir == "" {
 		return &Error{Path: `""`, Msg: "empty output directory", Hint: "name a directory"}
 	}
-	if err := notAnInput(dir, inputs, "choose another output directory; gapcert does not write into its inputs"); err != nil {
+	if err := notAnInput(dir, inputs, "choose another output directory"); err != nil {
 		return err
 	}
 	at := dir
@@ -247,9 +247,9 @@ func statError(path string, err error) error {
 func notAnInput(path string, inputs []string, hint string) error {
 	for _, in := range inputs {
 		if Same(path, in) {
-			what := "is also an input"
-			if absA, absB := absPath(in), absPath(path); absA != absB {
-				what = "is the same file as the input " + in
+			what := "is an input as well; gapcert never overwrites its inputs"
+			if absPath(in) != absPath(path) {
+				what = "is the same file as the input " + in + "; gapcert never overwrites its inputs"
 			}
 			return &Error{Path: path, Msg: what, Hint: hint}
 		}
