@@ -43,8 +43,9 @@ func newCertifyCmd() *cobra.Command {
 		Short: "Enclose the lowest eigenvalues and the gap of a problem and write a certificate",
 		Long: `certify reads the problem file FILE, computes verified enclosures of
 λ1 … λm (m = the problem's "eigenvalues") and of the gap λ2 − λ1, prints
-them as a table and writes the certificate (by default next to FILE, with
-the extension .cert.json).
+them as a table and writes the certificate (to -o, --out, by default next
+to FILE with the extension .cert.json; refused before computing if it is
+FILE itself or cannot be written).
 
 Upper bounds come from the Rayleigh–Ritz method, lower bounds from the
 projection bound of Liu and the Lehmann–Goerisch method; every bound is
