@@ -66,12 +66,12 @@ type ModeError struct {
 
 func (e *ModeError) Error() string {
 	if e.Value == 0 {
-		return fmt.Sprintf("plot: mode %d (Eval index %d) is zero at every sample point", e.Mode+1, e.Mode)
+		return fmt.Sprintf("mode %d (Eval index %d) is zero at every sample point, so it cannot be drawn", e.Mode+1, e.Mode)
 	}
 	if e.oneD {
-		return fmt.Sprintf("plot: mode %d (Eval index %d) is %v at x = %g", e.Mode+1, e.Mode, e.Value, e.At[0])
+		return fmt.Sprintf("mode %d (Eval index %d) is %v at x = %g", e.Mode+1, e.Mode, e.Value, e.At[0])
 	}
-	return fmt.Sprintf("plot: mode %d (Eval index %d) is %v at (x, y) = (%g, %g)", e.Mode+1, e.Mode, e.Value, e.At[0], e.At[1])
+	return fmt.Sprintf("mode %d (Eval index %d) is %v at (x, y) = (%g, %g)", e.Mode+1, e.Mode, e.Value, e.At[0], e.At[1])
 }
 
 // Write writes the pictures of m into dir (created if missing) in each of
@@ -163,14 +163,14 @@ func (m *Modes) check() {
 func checkFormats(given []string) error {
 	hint := fmt.Sprintf("(hint: use one or more of %q)", knownFormats)
 	if len(given) == 0 {
-		return errors.New("plot: no formats given " + hint)
+		return errors.New("no formats given " + hint)
 	}
 	for i, f := range given {
 		if !slices.Contains(knownFormats, f) {
-			return fmt.Errorf("plot: formats[%d]: unknown format %q %s", i, f, hint)
+			return fmt.Errorf("formats[%d]: unknown format %q %s", i, f, hint)
 		}
 		if j := slices.Index(given, f); j < i {
-			return fmt.Errorf("plot: formats[%d]: format %q repeats formats[%d]", i, f, j)
+			return fmt.Errorf("formats[%d]: format %q repeats formats[%d]", i, f, j)
 		}
 	}
 	return nil

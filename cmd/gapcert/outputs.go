@@ -68,3 +68,21 @@ func checkNewFiles(paths ...string) error {
 	}
 	return nil
 }
+
+// readFailure is the exit error of an input file or directory that
+// cannot be read: the path, the system's reason without the name of the
+// system call, and a hint. Other errors are returned as they are.
+func readFailure(err error) error {
+	var pe *fs.PathError
+	if !errors.As(err, &pe) || pe.Error() != err.Error() {
+		return &exitError{code: exitFailure, err: err}
+	}
+	hint := ""
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		hint = " (hint: check the path)"
+	case errors.Is(err, fs.ErrPermission):
+		hint = " (hint: check the file's permissions)"
+	}
+	return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v%s", pe.Path, pe.Err, hint)}
+}

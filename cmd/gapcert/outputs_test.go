@@ -6,6 +6,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
 	"time"
@@ -174,5 +175,44 @@ func TestUnwritableOutputRefusedFirst(t *testing.T) {
 	}
 	if elapsed > time.Second {
 		t.Errorf("refused after %v; the refusal must come before the computation", elapsed)
+	}
+}
+
+// packagePrefix matches a message part that starts with the name of an
+// internal package or of a system call ("certs: …", "stat x: …").
+var packagePrefix = regexp.MustCompile(`(^|: |\n)(certs|certify|report|plot|sweepplot|sweep|formula|decimalio|problem|named|hypothesis|line|tri|mesh|band|sparse|enclose|temple|open|stat|read) [^ ]*:|(^|: |\n)(certs|certify|report|plot|sweepplot|sweep|formula|decimalio|problem|named|hypothesis|line|tri|mesh|band|sparse|enclose|temple): `)
+
+// TestMessagesSayWhatIsWrong: messages that reach the terminal name the
+// file and the defect, not the package or system call that found it.
+func TestMessagesSayWhatIsWrong(t *testing.T) {
+	dir := t.TempDir()
+	notJSON := filepath.Join(dir, "notes.json")
+	otherFormat := filepath.Join(dir, "old.cert.json")
+	if err := os.WriteFile(notJSON, []byte("nope\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(otherFormat, []byte(`{"format": "gapcert.certificate/v0"}`), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	missing := filepath.Join(dir, "missing.json")
+	convex := filepath.Join(testSweeps, "convex")
+	for _, c := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"check", notJSON}, notJSON + ": not a JSON certificate"},
+		{[]string{"check", otherFormat}, otherFormat + `: format: certificate format "gapcert.certificate/v0" is not supported`},
+		{[]string{"check", missing}, missing + ": no such file or directory (hint: check the path)"},
+		{[]string{"report", notJSON}, notJSON + ": not a JSON certificate"},
+		{[]string{"report", missing}, missing + ": no such file or directory (hint: check the path)"},
+		{[]string{"report", "--format", "html", notJSON}, `unknown format "html" (hint: use one of`},
+		{[]string{"sweep", missing, "-o", filepath.Join(dir, "s")}, missing + ": no such file or directory (hint: check the path)"},
+		{[]string{"plot", missing, "--x", "c", "--quantity", "gap", "-o", filepath.Join(dir, "p.png")}, missing + ": no such file or directory (hint: check the path)"},
+		{[]string{"plot", convex, "--x", "c", "--quantity", "lambda1/0", "-o", filepath.Join(dir, "p.png")}, `point 0: quantity "lambda1/0": lambda1/0 is not defined on all of [0, 0] (hint: `},
+	} {
+		code, _, stderr := execute(c.args...)
+		if code != exitFailure || !strings.Contains(stderr, c.want) || packagePrefix.MatchString(stderr) {
+			t.Errorf("%q: exit %d, stderr %q; want exit %d and %q, no package or system call names", c.args, code, stderr, exitFailure, c.want)
+		}
 	}
 }

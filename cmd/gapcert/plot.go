@@ -74,7 +74,7 @@ with a certificate file.`,
 			case errors.As(err, &cc):
 				return &exitError{code: exitMismatch, err: err}
 			case err != nil:
-				return fail(err)
+				return readFailure(err)
 			}
 			var write func(string) error
 			var missing, uncertified int

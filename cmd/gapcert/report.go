@@ -61,7 +61,7 @@ memory budget, 3 if a certificate does not verify.`,
 				fmt.Fprintf(cmd.ErrOrStderr(), "%s: left out: %s\n", s.Path, s.Reason)
 			}
 			if err != nil {
-				return &exitError{code: exitFailure, err: err}
+				return readFailure(err)
 			}
 			if out != "" {
 				if err := checkOutputFile(out, readPaths(entries, skipped)...); err != nil {

@@ -133,7 +133,7 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 func loadFamily(file string) (*sweep.Family, error) {
 	data, err := os.ReadFile(file)
 	if err != nil {
-		return nil, &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
+		return nil, readFailure(err)
 	}
 	fam, err := sweep.ParseFamily(data)
 	var inv *sweep.InvalidError
