@@ -276,3 +276,26 @@ func TestCheckDir(t *testing.T) {
 		t.Errorf("CheckDir created a directory")
 	}
 }
+
+// TestCheckPermissions: a directory without write permission is refused.
+// Permission bits do not stop root, so the test needs another user; the
+// refusal for every user is TestCheckFile's path below a regular file.
+func TestCheckPermissions(t *testing.T) {
+	if runtime.GOOS == "windows" || os.Geteuid() == 0 {
+		t.Skip("permission bits do not stop this user")
+	}
+	dir := filepath.Join(t.TempDir(), "ro")
+	if err := os.Mkdir(dir, 0o500); err != nil {
+		t.Fatal(err)
+	}
+	defer os.Chmod(dir, 0o700)
+	if err := CheckFile(filepath.Join(dir, "c.json")); err == nil || !strings.Contains(err.Error(), "permission denied") || !strings.Contains(err.Error(), "choose a directory you can write to") {
+		t.Errorf("CheckFile in a read-only directory = %v", err)
+	}
+	if err := CheckDir(filepath.Join(dir, "sub")); err == nil {
+		t.Errorf("CheckDir below a read-only directory: no error")
+	}
+	if err := Write(filepath.Join(dir, "c.json"), []byte("x")); err == nil {
+		t.Errorf("Write in a read-only directory: no error")
+	}
+}
