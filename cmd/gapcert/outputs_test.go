@@ -3,6 +3,7 @@ package main
 import (
 	"crypto/sha256"
 	"fmt"
+	"io"
 	"io/fs"
 	"os"
 	"path/filepath"
@@ -214,5 +215,30 @@ func TestMessagesSayWhatIsWrong(t *testing.T) {
 		if code != exitFailure || !strings.Contains(stderr, c.want) || packagePrefix.MatchString(stderr) {
 			t.Errorf("%q: exit %d, stderr %q; want exit %d and %q, no package or system call names", c.args, code, stderr, exitFailure, c.want)
 		}
+	}
+}
+
+// TestOneOutputFlag: every command that writes files names its output
+// with -o, --out, and no command has another spelling of it.
+func TestOneOutputFlag(t *testing.T) {
+	root := newRootCmd(io.Discard, io.Discard)
+	writers := map[string]bool{"certify": true, "demo": true, "report": true, "plot": true, "sweep": true, "merge": true}
+	for _, c := range root.Commands() {
+		f := c.Flags().Lookup("out")
+		if writers[c.Name()] != (f != nil) {
+			t.Errorf("%s: has --out = %v, want %v", c.Name(), f != nil, writers[c.Name()])
+		}
+		if f != nil && f.Shorthand != "o" {
+			t.Errorf("%s: --out has shorthand %q, want o", c.Name(), f.Shorthand)
+		}
+		for _, other := range []string{"output", "output-dir", "outdir", "dest"} {
+			if c.Flags().Lookup(other) != nil {
+				t.Errorf("%s: has --%s besides --out", c.Name(), other)
+			}
+		}
+		delete(writers, c.Name())
+	}
+	if len(writers) > 0 {
+		t.Errorf("commands not found: %v", writers)
 	}
 }
