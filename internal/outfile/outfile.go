@@ -151,6 +151,7 @@ func CheckFile(path string, inputs ...string) error {
 	if err := notAnInput(path, inputs, "choose another output path"); err != nil {
 		return err
 	}
+	dir := filepath.Dir(path)
 	if st, err := os.Stat(path); err == nil {
 		switch {
 		case st.IsDir():
@@ -158,10 +159,12 @@ func CheckFile(path string, inputs ...string) error {
 		case !st.Mode().IsRegular():
 			return &Error{Path: path, Msg: "is not a regular file", Hint: "name a regular file"}
 		}
+		if target, err := filepath.EvalSymlinks(path); err == nil {
+			dir = filepath.Dir(target) // where Write puts its temporary file
+		}
 	} else if !missing(err) {
 		return statError(path, err)
 	}
-	dir := filepath.Dir(path)
 	st, err := os.Stat(dir)
 	switch {
 	case missing(err) && errors.Is(err, syscall.ENOTDIR):
