@@ -167,9 +167,9 @@ type FormatError struct {
 
 func (e *FormatError) Error() string {
 	if e.Path == "" {
-		return "certs: " + e.Msg
+		return e.Msg
 	}
-	return "certs: " + e.Path + ": " + e.Msg
+	return e.Path + ": " + e.Msg
 }
 
 // Marshal returns the certificate as indented JSON (two spaces, field order
@@ -204,7 +204,7 @@ func (c *Certificate) Marshal() ([]byte, error) {
 	enc.SetEscapeHTML(false)
 	enc.SetIndent("", "  ")
 	if err := enc.Encode(&out); err != nil {
-		return nil, fmt.Errorf("certs: %w", err)
+		return nil, fmt.Errorf("encoding the certificate: %w", err)
 	}
 	return buf.Bytes(), nil // Encode ends with a newline
 }
@@ -224,7 +224,7 @@ func Unmarshal(data []byte) (*Certificate, error) {
 		Format *string `json:"format"`
 	}
 	if err := json.NewDecoder(bytes.NewReader(data)).Decode(&head); err != nil {
-		return nil, fmt.Errorf("certs: not a JSON certificate: %w", err)
+		return nil, fmt.Errorf("not a JSON certificate: %w (hint: give a .cert.json file written by gapcert)", err)
 	}
 	if head.Format == nil {
 		return nil, &FormatError{Msg: fmt.Sprintf("no \"format\" field; a gapcert certificate starts with \"format\": %q", Format)}

@@ -181,12 +181,12 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 func initialRecipe(p *problem.Problem) (recipe, error) {
 	vr := p.PotentialRange()
 	if !vr.IsBounded() {
-		return recipe{}, fmt.Errorf("certify: the potential is not bounded on the interval (enclosure %v)", vr)
+		return recipe{}, fmt.Errorf("the potential is not bounded on the domain: its enclosure is %v (hint: give a potential that is finite on the closed domain)", vr)
 	}
 	d := p.Diameter()
 	scale := interval.Pi().Sqr().Div(d.Sqr()) // π²/D²
 	if !(scale.Lo > 0) || !scale.IsBounded() {
-		return recipe{}, fmt.Errorf("certify: the domain's size (diameter %v) is outside what float64 can handle", d)
+		return recipe{}, fmt.Errorf("the domain's size (diameter %v) is outside what float64 can handle (hint: rescale the problem to a diameter near 1)", d)
 	}
 	taylor := modelOrder
 	if poly, ok := p.Potential.Polynomial(); ok {
@@ -206,7 +206,7 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	}
 	g := interval.Point(0).Max(interval.Point(inf).Neg()).Add(scale).Hi
 	if math.IsInf(g, 0) || math.IsNaN(g) {
-		return recipe{}, fmt.Errorf("certify: the potential's range %v is outside what float64 can handle", vr)
+		return recipe{}, fmt.Errorf("the potential's range %v is outside what float64 can handle (hint: rescale the potential or the domain)", vr)
 	}
 	r.gamma = roundShift(g)
 	if p.Dim == 2 {
@@ -446,7 +446,7 @@ func assemble(p *problem.Problem, r recipe, out *outcome) (*result, error) {
 		}
 		l := interval.I{Lo: interval.SubDown(lo, r.gamma), Hi: interval.SubUp(out.ritz[k], r.gamma)}
 		if l.Lo > l.Hi {
-			return nil, fmt.Errorf("certify: internal inconsistency: lower bound %g above upper bound %g for lambda%d", l.Lo, l.Hi, k+1)
+			return nil, fmt.Errorf("internal inconsistency (please report it): lower bound %g above upper bound %g for lambda%d", l.Lo, l.Hi, k+1)
 		}
 		res.lambda = append(res.lambda, l)
 		res.widths = append(res.widths, relWidth(l, scale))

@@ -45,7 +45,7 @@ func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.Claim
 		}
 		cl, err := certs.ParseClaim(text)
 		if err != nil {
-			return nil, fmt.Errorf("certify: claim %q: %w", text, err)
+			return nil, fmt.Errorf("claim %q: %w", text, err)
 		}
 		out = append(out, cl.Evaluate(env))
 	}
@@ -56,17 +56,17 @@ func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.Claim
 func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text string, opt Options) (certs.ClaimResult, error) {
 	c, err := named.Lookup(text)
 	if err != nil {
-		return certs.ClaimResult{}, fmt.Errorf("certify: claim %q: %w", text, err)
+		return certs.ClaimResult{}, fmt.Errorf("claim %q: %w", text, err)
 	}
 	cl, err := certs.ParseClaim(c.Inequality)
 	if err != nil {
-		return certs.ClaimResult{}, fmt.Errorf("certify: built-in claim %s: %w", c.Text(), err)
+		return certs.ClaimResult{}, fmt.Errorf("built-in claim %s: %w", c.Text(), err)
 	}
 	var hyps []certs.Hypothesis
 	for _, name := range c.Hypotheses {
 		h, ok := hypothesis.Decide(name, p)
 		if !ok {
-			return certs.ClaimResult{}, fmt.Errorf("certify: built-in claim %s: no decision procedure for the hypothesis %q", c.Text(), name)
+			return certs.ClaimResult{}, fmt.Errorf("built-in claim %s: no decision procedure for the hypothesis %q", c.Text(), name)
 		}
 		hyps = append(hyps, h)
 	}
@@ -110,7 +110,7 @@ const (
 // why; the claim is then undecided.
 func reference(p *problem.Problem, c named.Claim, i int, opt Options) (ref *certs.Reference, gap interval.I, reason string, err error) {
 	if c.Reference != named.RobinIntervalGap {
-		return nil, gap, "", fmt.Errorf("certify: built-in claim %s: unknown reference %q", c.Text(), c.Reference)
+		return nil, gap, "", fmt.Errorf("built-in claim %s: unknown reference %q", c.Text(), c.Reference)
 	}
 	sub, why := robinIntervalProblem(p)
 	if sub == nil {
@@ -122,7 +122,7 @@ func reference(p *problem.Problem, c named.Claim, i int, opt Options) (ref *cert
 	}
 	cert, err := Certify(sub, Options{TimeLimit: referenceTimeLimit, Tool: opt.Tool, Now: opt.Now, Memory: opt.Memory})
 	if err != nil {
-		return nil, gap, "", fmt.Errorf("certify: reference %s of %s: %w", c.Reference, c.Text(), err)
+		return nil, gap, "", fmt.Errorf("reference %s of %s: %w", c.Reference, c.Text(), err)
 	}
 	data, err := cert.Marshal()
 	if err != nil {

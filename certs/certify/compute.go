@@ -111,12 +111,12 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 	space := line.NewLagrange(mesh, r.degree, left, right)
 	if space.N() < want+1 {
-		return nil, fmt.Errorf("certify: trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
+		return nil, fmt.Errorf("the trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
 	}
 	kApprox, mApprox := space.AssembleApprox(pot, r.gamma)
 	_, vecs, err := band.LowestEigs(kApprox, mApprox, want)
 	if err != nil {
-		return nil, fmt.Errorf("certify: approximate eigenvectors: %w", err)
+		return nil, fmt.Errorf("the approximate eigenvectors could not be computed: %w", err)
 	}
 	a0, a1, err := space.RitzMatrices(vecs, pot, gamma)
 	if err != nil {
@@ -184,7 +184,7 @@ func chooseN(p *problem.Problem, out *outcome) bool {
 func ritzUpper(a0, a1 *enclose.Sym) ([]float64, error) {
 	mu, err := enclose.Eigenvalues(a0, a1)
 	if err != nil {
-		return nil, fmt.Errorf("certify: Ritz pencil: %w", err)
+		return nil, fmt.Errorf("the Ritz pencil could not be enclosed: %w", err)
 	}
 	upper := make([]float64, len(mu))
 	for k := range upper {

@@ -38,12 +38,12 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 	space := tri.NewLagrange(m, r.degree, bcs)
 	if space.N() < want+1 {
-		return nil, fmt.Errorf("certify: trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
+		return nil, fmt.Errorf("the trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
 	}
 	kApprox, mApprox := space.AssembleApprox(pot, r.gamma)
 	_, vecs, err := sparse.LowestEigs(kApprox, mApprox, want)
 	if err != nil {
-		return nil, fmt.Errorf("certify: approximate eigenvectors: %w", err)
+		return nil, fmt.Errorf("the approximate eigenvectors could not be computed: %w", err)
 	}
 	a0, a1, err := space.RitzMatrices(vecs, pot, gamma)
 	if err != nil {
@@ -71,7 +71,7 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	out.polygon.triangles, out.polygon.stageATriangles = len(m.Tris), len(ma.Tris)
 	out.polygon.stageAUnknowns = proj.N()
 	if proj.N() < want+1 {
-		return nil, fmt.Errorf("certify: stage-A space of dimension %d is too small for %d eigenvalues (refine its mesh)", proj.N(), want+1)
+		return nil, fmt.Errorf("the stage-A space of dimension %d is too small for %d eigenvalues (refine its mesh)", proj.N(), want+1)
 	}
 	k, mass, mMin, err := proj.Matrices(potA, gamma)
 	if err != nil {
@@ -80,7 +80,7 @@ func computePolygon(p *problem.Problem, r recipe) (*outcome, error) {
 	out.ch = proj.ProjectionConstant()
 	approx, _, err := sparse.LowestEigs(k.Mid(), mass.Mid(), want+1)
 	if err != nil {
-		return nil, fmt.Errorf("certify: stage A approximate eigenvalues: %w", err)
+		return nil, fmt.Errorf("the approximate stage-A eigenvalues could not be computed: %w", err)
 	}
 	out.stageA = make([]float64, want+1)
 	counter := sparse.NewCounter(k, mass)
@@ -257,7 +257,7 @@ func trialMesh(p *problem.Problem, r recipe) (*mesh.Mesh, error) {
 		marked := make([]bool, len(m.Tris))
 		for _, t := range marks {
 			if t < 0 || t >= len(m.Tris) {
-				return nil, fmt.Errorf("certify: adaptive round %d marks triangle %d of %d", round+1, t, len(m.Tris))
+				return nil, fmt.Errorf("adaptive round %d marks triangle %d of %d", round+1, t, len(m.Tris))
 			}
 			marked[t] = true
 		}

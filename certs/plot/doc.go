@@ -32,5 +32,6 @@
 //
 // Misuse (a nil Eval, no labels, a degenerate interval or polygon) panics
 // with a "plot: " prefix; an unknown format, a mode that is not finite or
-// vanishes at every sample point, and I/O failures are returned as errors.
+// vanishes at every sample point, and I/O failures are returned as errors,
+// whose messages are written for the user (no package prefix).
 package plot

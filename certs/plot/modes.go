@@ -3,6 +3,7 @@ package plot
 import (
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -13,6 +14,8 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
+
+	"gapcert/internal/outfile"
 )
 
 // Caption is printed at the foot of every picture.
@@ -70,12 +73,12 @@ type ModeError struct {
 
 func (e *ModeError) Error() string {
 	if e.Value == 0 {
-		return fmt.Sprintf("plot: mode %d (Eval index %d) is zero at every sample point", e.Mode+1, e.Mode)
+		return fmt.Sprintf("mode %d (Eval index %d) is zero at every sample point, so it cannot be drawn", e.Mode+1, e.Mode)
 	}
 	if e.oneD {
-		return fmt.Sprintf("plot: mode %d (Eval index %d) is %v at x = %g", e.Mode+1, e.Mode, e.Value, e.At[0])
+		return fmt.Sprintf("mode %d (Eval index %d) is %v at x = %g", e.Mode+1, e.Mode, e.Value, e.At[0])
 	}
-	return fmt.Sprintf("plot: mode %d (Eval index %d) is %v at (x, y) = (%g, %g)", e.Mode+1, e.Mode, e.Value, e.At[0], e.At[1])
+	return fmt.Sprintf("mode %d (Eval index %d) is %v at (x, y) = (%g, %g)", e.Mode+1, e.Mode, e.Value, e.At[0], e.At[1])
 }
 
 // Write writes the pictures of m into dir (created if missing) in each of
@@ -188,14 +191,14 @@ func (m *Modes) checkBoundary(n int) {
 func checkFormats(given []string) error {
 	hint := fmt.Sprintf("(hint: use one or more of %q)", knownFormats)
 	if len(given) == 0 {
-		return errors.New("plot: no formats given " + hint)
+		return errors.New("no formats given " + hint)
 	}
 	for i, f := range given {
 		if !slices.Contains(knownFormats, f) {
-			return fmt.Errorf("plot: formats[%d]: unknown format %q %s", i, f, hint)
+			return fmt.Errorf("formats[%d]: unknown format %q %s", i, f, hint)
 		}
 		if j := slices.Index(given, f); j < i {
-			return fmt.Errorf("plot: formats[%d]: format %q repeats formats[%d]", i, f, j)
+			return fmt.Errorf("formats[%d]: format %q repeats formats[%d]", i, f, j)
 		}
 	}
 	return nil
@@ -231,7 +234,8 @@ func (m *Modes) pictures() ([]picture, error) {
 	return pics, nil
 }
 
-// writeFile renders pic in format f into the file path.
+// writeFile renders pic in format f into the file path, atomically
+// (outfile.WriteWith: an earlier file at path stays intact if writing fails).
 func writeFile(path string, pic picture, f string) (err error) {
 	var cw vg.CanvasWriterTo
 	switch f {
@@ -243,17 +247,10 @@ func writeFile(path string, pic picture, f string) (err error) {
 		panic("plot: unknown format " + f)
 	}
 	pic.draw(draw.New(cw))
-	file, err := os.Create(path)
-	if err != nil {
+	return outfile.WriteWith(path, func(w io.Writer) error {
+		_, err := cw.WriteTo(w)
 		return err
-	}
-	defer func() {
-		if cerr := file.Close(); err == nil {
-			err = cerr
-		}
-	}()
-	_, err = cw.WriteTo(file)
-	return err
+	})
 }
 
 // titleOf is the problem name as drawn, or a neutral one when the caller

@@ -563,7 +563,7 @@ func TestWriteErrors(t *testing.T) {
 			}
 			dir := filepath.Join(t.TempDir(), "out")
 			paths, err := Write(dir, tc.modes, tc.formats)
-			if err == nil || !strings.Contains(err.Error(), tc.want) || !strings.HasPrefix(err.Error(), "plot: ") {
+			if err == nil || !strings.Contains(err.Error(), tc.want) || strings.HasPrefix(err.Error(), "plot: ") {
 				t.Fatalf("error %v, want one containing %q", err, tc.want)
 			}
 			if paths != nil {

@@ -47,13 +47,13 @@ type Options struct {
 // WidthDigits.
 func (opt Options) Validate() error {
 	if !slices.Contains(Formats(), opt.Format) {
-		return fmt.Errorf("report: unknown format %q (hint: use one of %s)", opt.Format, strings.Join(Formats(), ", "))
+		return fmt.Errorf("unknown format %q (hint: use one of %s)", opt.Format, strings.Join(Formats(), ", "))
 	}
 	if opt.Notation != "" && !slices.Contains(Notations(), opt.Notation) {
-		return fmt.Errorf("report: unknown notation %q (hint: use one of %s)", opt.Notation, strings.Join(Notations(), ", "))
+		return fmt.Errorf("unknown notation %q (hint: use one of %s)", opt.Notation, strings.Join(Notations(), ", "))
 	}
 	if opt.WidthDigits < 0 {
-		return fmt.Errorf("report: WidthDigits %d is negative", opt.WidthDigits)
+		return fmt.Errorf("WidthDigits %d is negative", opt.WidthDigits)
 	}
 	return nil
 }
@@ -74,7 +74,7 @@ func Write(w io.Writer, entries []Entry, opt Options) error {
 		opt.Notation = Compact
 	}
 	if len(entries) == 0 {
-		return errors.New("report: no certificates")
+		return errors.New("no certificates to tabulate")
 	}
 	var st style = markdownStyle{}
 	if opt.Format == LaTeX {

@@ -188,7 +188,7 @@ func ParseFamily(data []byte) (*Family, error) {
 			}
 		}
 		if err != nil {
-			add("relative_width", err.Error(), `write "relative_width": "0.05"`)
+			add("relative_width", numberMessage(w, err), `write "relative_width": "0.05"`)
 		} else {
 			f.RelWidth = w
 		}
@@ -343,8 +343,22 @@ func readRat(raw json.RawMessage, path string, add func(path, msg, hint string))
 			err = fmt.Errorf("%s is too large or too finely divided for a parameter value", s)
 		}
 	}
-	add(path, err.Error(), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")
+	add(path, numberMessage(s, err), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")
 	return nil, false
+}
+
+// numberMessage says why the text s of a number was not read, with the
+// column of a syntax error.
+func numberMessage(s string, err error) string {
+	var se *decimalio.SyntaxError
+	if errors.As(err, &se) {
+		msg := fmt.Sprintf("%q is not a number: column %d: %s", s, se.Col, se.Msg)
+		if se.Hint != "" {
+			msg += " (" + se.Hint + ")"
+		}
+		return msg
+	}
+	return err.Error()
 }
 
 // numberText returns the text of a JSON number or string.

@@ -6,15 +6,14 @@ import (
 	"encoding/csv"
 	"encoding/hex"
 	"encoding/json"
-	"errors"
 	"fmt"
-	"io/fs"
 	"os"
 	"path/filepath"
 	"regexp"
 	"strconv"
 
 	"gapcert/certs"
+	"gapcert/internal/outfile"
 )
 
 // Names of the files a sweep writes into its directory.
@@ -68,35 +67,15 @@ func sha256Hex(data []byte) string {
 	return hex.EncodeToString(sum[:])
 }
 
-// writeNew writes data to path through a temporary file in the same
-// directory and a rename, so that an interrupted run never leaves a
-// partial file under path. It refuses to replace an existing path unless
-// replace is set.
+// writeNew writes data to path atomically (outfile.Write: a temporary
+// file in the same directory, fsync, rename), so that an interrupted run
+// never leaves a partial file under path. It refuses to replace an
+// existing path unless replace is set.
 func writeNew(path string, data []byte, replace bool) error {
-	if !replace {
-		if _, err := os.Lstat(path); err == nil {
-			return fmt.Errorf("%s exists; not overwritten", path)
-		} else if !errors.Is(err, fs.ErrNotExist) {
-			return err
-		}
+	if replace {
+		return outfile.Write(path, data)
 	}
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*.tmp")
-	if err != nil {
-		return err
-	}
-	defer os.Remove(tmp.Name()) // after a successful rename there is nothing to remove
-	if _, err := tmp.Write(data); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Chmod(0o644); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Close(); err != nil {
-		return err
-	}
-	return os.Rename(tmp.Name(), path)
+	return outfile.WriteNew(path, data)
 }
 
 // MarshalSummary returns the summary as indented JSON with a trailing

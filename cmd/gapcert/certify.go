@@ -15,6 +15,7 @@ import (
 	"gapcert/certs/certify"
 	"gapcert/certs/plot"
 	"gapcert/fem/problem"
+	"gapcert/internal/outfile"
 	"gapcert/interval/decimalio"
 )
 
@@ -28,7 +29,7 @@ type certifyFlags struct {
 }
 
 func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
-	cmd.Flags().StringVarP(&f.out, "output", "o", defaultOut, "where to write the certificate (JSON)")
+	cmd.Flags().StringVarP(&f.out, "out", "o", defaultOut, "where to write the certificate (JSON)")
 	cmd.Flags().StringVar(&f.relWidth, "rel-width", "", "target relative width of λ1, λ2 and the gap (default: the problem's target)")
 	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", certify.DefaultTimeLimit, "budget for refinement")
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
@@ -42,8 +43,9 @@ func newCertifyCmd() *cobra.Command {
 		Short: "Enclose the lowest eigenvalues and the gap of a problem and write a certificate",
 		Long: `certify reads the problem file FILE, computes verified enclosures of
 λ1 … λm (m = the problem's "eigenvalues") and of the gap λ2 − λ1, prints
-them as a table and writes the certificate (by default next to FILE, with
-the extension .cert.json).
+them as a table and writes the certificate (to -o, --out, by default next
+to FILE with the extension .cert.json; refused before computing if it is
+FILE itself or cannot be written).
 
 Upper bounds come from the Rayleigh–Ritz method, lower bounds from the
 projection bound of Liu and the Lehmann–Goerisch method; every bound is
@@ -56,13 +58,16 @@ Exit status: 0 on success, 1 on a failure, 2 if the problem file is invalid
 or its first mesh would exceed the memory budget.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			p, err := loadProblem(args[0])
-			if err != nil {
-				return err
-			}
 			out := f.out
 			if out == "" {
 				out = strings.TrimSuffix(args[0], filepath.Ext(args[0])) + ".cert.json"
+			}
+			if err := checkCertifyOutputs(f, out, args[0]); err != nil {
+				return err
+			}
+			p, err := loadProblem(args[0])
+			if err != nil {
+				return err
 			}
 			return runCertify(cmd, p, f, out)
 		},
@@ -96,7 +101,7 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if err != nil {
 		return &exitError{code: exitFailure, err: err}
 	}
-	if err := os.WriteFile(out, data, 0o644); err != nil {
+	if err := outfile.Write(out, data); err != nil {
 		return &exitError{code: exitFailure, err: err}
 	}
 	printCertificate(cmd.OutOrStdout(), p, c)
@@ -104,7 +109,7 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if f.plotDir != "" {
 		files, err := drawModes(f.plotDir, p, c)
 		if err != nil {
-			return &exitError{code: exitFailure, err: fmt.Errorf("plot: %v", err)}
+			return &exitError{code: exitFailure, err: fmt.Errorf("the certificate is written, but the pictures could not be drawn into %s: %v", f.plotDir, err)}
 		}
 		fmt.Fprintf(cmd.OutOrStdout(), "pictures (approximate eigenfunctions, not part of the proof): %s\n", strings.Join(files, ", "))
 	}

@@ -27,7 +27,7 @@ recomputing it would exceed the memory budget (refused before allocating),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			data, err := os.ReadFile(args[0])
 			if err != nil {
-				return &exitError{code: exitFailure, err: err}
+				return readFailure(err)
 			}
 			err = certify.Check(data)
 			var mm *certify.MismatchError

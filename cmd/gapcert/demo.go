@@ -27,6 +27,9 @@ prints the table and writes the certificate (default demo.cert.json).
 Run "gapcert check demo.cert.json" afterwards to re-verify it.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := checkCertifyOutputs(f, f.out); err != nil {
+				return err
+			}
 			p, err := problem.Parse(demoProblem)
 			if err != nil {
 				return &exitError{code: exitFailure, err: err}

@@ -33,6 +33,9 @@ verifies, 1 on a failure, 2 if the family file is invalid, 3 if a
 certificate does not verify or the directories do not form the family.`,
 		Args: cobra.MinimumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := checkMergeOutputs(out, args); err != nil {
+				return err
+			}
 			var progress func(string, ...any)
 			if !quiet && isTerminal(cmd.ErrOrStderr()) {
 				progress = func(format string, a ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, a...) }
@@ -55,8 +58,19 @@ certificate does not verify or the directories do not form the family.`,
 			return nil
 		},
 	}
-	cmd.Flags().StringVar(&out, "out", "", "directory for the merged summary (required)")
+	cmd.Flags().StringVarP(&out, "out", "o", "", "directory for the merged summary (required; must not hold a summary)")
 	cmd.Flags().BoolVarP(&quiet, "quiet", "q", false, "no progress lines on stderr")
 	_ = cmd.MarkFlagRequired("out")
 	return cmd
+}
+
+// checkMergeOutputs refuses, before any certificate is verified, an
+// output directory that is one of the inputs, cannot be written, or
+// already holds a merged summary.
+func checkMergeOutputs(out string, dirs []string) error {
+	if err := checkOutputDir(out, dirs...); err != nil {
+		return err
+	}
+	base := filepath.Join(out, sweep.SummaryFileName(sweep.Shard{Index: 0, Count: 1}))
+	return checkNewFiles(base+".json", base+".csv")
 }

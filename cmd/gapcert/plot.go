@@ -78,13 +78,16 @@ with a certificate file.`,
 			if err != nil {
 				return fail(fmt.Errorf("--band: %v", err))
 			}
+			if err := checkPictureFile(out, args[0]); err != nil {
+				return err
+			}
 			s, err := sweepplot.Load(args[0])
 			var cc *sweepplot.CrossCheckError
 			switch {
 			case errors.As(err, &cc):
 				return &exitError{code: exitMismatch, err: err}
 			case err != nil:
-				return fail(err)
+				return readFailure(err)
 			}
 			var write func(string) error
 			var missing, uncertified int

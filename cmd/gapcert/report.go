@@ -4,13 +4,13 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"os"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"gapcert/certs/certify"
 	"gapcert/certs/report"
+	"gapcert/internal/outfile"
 )
 
 func newReportCmd() *cobra.Command {
@@ -51,12 +51,22 @@ memory budget, 3 if a certificate does not verify.`,
 			if err := opt.Validate(); err != nil {
 				return &exitError{code: exitFailure, err: err}
 			}
+			if out != "" {
+				if err := checkOutputFile(out, args[0]); err != nil {
+					return err
+				}
+			}
 			entries, skipped, err := report.Read(args[0])
 			for _, s := range skipped {
 				fmt.Fprintf(cmd.ErrOrStderr(), "%s: left out: %s\n", s.Path, s.Reason)
 			}
 			if err != nil {
-				return &exitError{code: exitFailure, err: err}
+				return readFailure(err)
+			}
+			if out != "" {
+				if err := checkOutputFile(out, readPaths(entries, skipped)...); err != nil {
+					return err
+				}
 			}
 			if !noCheck {
 				for _, e := range entries {
@@ -72,7 +82,7 @@ memory budget, 3 if a certificate does not verify.`,
 			if out == "" {
 				_, err = cmd.OutOrStdout().Write(buf.Bytes())
 			} else {
-				err = os.WriteFile(out, buf.Bytes(), 0o644)
+				err = outfile.Write(out, buf.Bytes())
 			}
 			if err != nil {
 				return &exitError{code: exitFailure, err: err}
@@ -84,7 +94,7 @@ memory budget, 3 if a certificate does not verify.`,
 	cmd.Flags().StringVar(&notation, "notation", report.Compact, "enclosure notation: "+strings.Join(report.Notations(), " or "))
 	cmd.Flags().IntVar(&widthDigits, "width-digits", report.DefaultWidthDigits, "significant digits of each enclosure's width kept when shortening")
 	cmd.Flags().BoolVar(&noCheck, "no-check", false, "do not re-verify the certificates (the caption says so)")
-	cmd.Flags().StringVarP(&out, "output", "o", "", "write the table to this file instead of stdout")
+	cmd.Flags().StringVarP(&out, "out", "o", "", "write the table to this file instead of stdout")
 	return cmd
 }
 
@@ -103,4 +113,17 @@ func checkEntry(e report.Entry) error {
 		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", e.Path, err)}
 	}
 	return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", e.Path, err)}
+}
+
+// readPaths lists every file report.Read opened: the certificates and the
+// JSON files it left out.
+func readPaths(entries []report.Entry, skipped []report.Skipped) []string {
+	var paths []string
+	for _, e := range entries {
+		paths = append(paths, e.Path)
+	}
+	for _, s := range skipped {
+		paths = append(paths, s.Path)
+	}
+	return paths
 }

@@ -50,9 +50,15 @@ results are written as a JSON certificate that can be checked again.
 A problem is described by a JSON problem file; "gapcert validate FILE"
 reads one and shows how it was understood.
 
-Exit status: 0 on success, 1 on bad usage, an unreadable file or another
-failure, 2 if a problem file is invalid, 3 if a certificate does not
-verify.`,
+Output paths are given with -o, --out in every command. They are checked
+before anything is computed: an output that is one of the inputs or
+cannot be written is refused (exit status 1) and no file is touched.
+Files are written atomically (temporary file, flush, rename): a failed
+write leaves the earlier file intact.
+
+Exit status: 0 on success, 1 on bad usage, an unreadable file, an output
+that cannot be written or is an input, or another failure, 2 if a problem
+file is invalid, 3 if a certificate does not verify.`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}

@@ -13,6 +13,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/sweep"
+	"gapcert/internal/outfile"
 )
 
 type sweepFlags struct {
@@ -56,7 +57,7 @@ not verify.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error { return runSweep(cmd, args[0], f) },
 	}
-	cmd.Flags().StringVar(&f.out, "out", "", "directory for the certificates and summaries (required)")
+	cmd.Flags().StringVarP(&f.out, "out", "o", "", "directory for the certificates and summaries (required)")
 	cmd.Flags().StringVar(&f.shard, "shard", "", "run only shard i/n (0 ≤ i < n): the points k with k mod n = i")
 	cmd.Flags().StringVar(&f.relWidth, "rel-width", "", "target relative width of every point (default: the family's, else each problem's)")
 	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", 0, "refinement budget per point (default: the family's, else 60s)")
@@ -87,6 +88,9 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 		if opt.Shard, err = sweep.ParseShard(f.shard); err != nil {
 			return &exitError{code: exitInvalid, err: err}
 		}
+	}
+	if err := checkSweepOutputs(f.out, file, opt.Shard); err != nil {
+		return err
 	}
 	if !f.quiet && isTerminal(cmd.ErrOrStderr()) {
 		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
@@ -129,7 +133,7 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 func loadFamily(file string) (*sweep.Family, error) {
 	data, err := os.ReadFile(file)
 	if err != nil {
-		return nil, &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", file, err)}
+		return nil, readFailure(err)
 	}
 	fam, err := sweep.ParseFamily(data)
 	var inv *sweep.InvalidError
@@ -181,4 +185,23 @@ func paramList(names []string, vals map[string]string) string {
 		parts[i] = n + "=" + vals[n]
 	}
 	return strings.Join(parts, ", ")
+}
+
+// checkSweepOutputs refuses, before any point is computed, an output
+// directory that cannot be written or created, and a family file that
+// the run would replace by the shard's summary.
+func checkSweepOutputs(dir, family string, shard sweep.Shard) error {
+	if err := checkOutputDir(dir, family); err != nil {
+		return err
+	}
+	if shard.Count == 0 {
+		shard = sweep.Shard{Index: 0, Count: 1}
+	}
+	base := filepath.Join(dir, sweep.SummaryFileName(shard))
+	for _, p := range []string{base + ".json", base + ".csv"} {
+		if outfile.Same(p, family) {
+			return &exitError{code: exitFailure, err: &outfile.Error{Path: family, Msg: "is where the sweep writes its summary", Hint: "keep the family file outside the output directory, or under another name"}}
+		}
+	}
+	return nil
 }

@@ -176,7 +176,14 @@ func (s *Sweep) enclose(i int, env map[string]interval.I, what, src string, e *f
 		}
 	}
 	y, err := e.Eval(env)
-	if err != nil {
+	var ee *formula.EvalError
+	var de *interval.DomainError
+	switch {
+	case errors.As(err, &ee) && errors.As(ee.Err, &de):
+		return interval.I{}, fmt.Errorf("point %d: %s %q: %s is not defined on all of %v (hint: the formula must be defined on every point's certified enclosures)", index, what, src, ee.Sub, de.Arg)
+	case errors.As(err, &ee):
+		return interval.I{}, fmt.Errorf("point %d: %s %q: in %s: %v", index, what, src, ee.Sub, ee.Err)
+	case err != nil:
 		return interval.I{}, fmt.Errorf("point %d: %s %q: %v", index, what, src, err)
 	}
 	if !finite(y) {
