@@ -15,7 +15,7 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
 
-	"gapcert/internal/outfile"
+	"gapcert/certs/outfile"
 )
 
 // Caption is printed at the foot of every picture.

@@ -13,7 +13,7 @@ import (
 	"strconv"
 
 	"gapcert/certs"
-	"gapcert/internal/outfile"
+	"gapcert/certs/outfile"
 )
 
 // Names of the files a sweep writes into its directory.

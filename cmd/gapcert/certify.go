@@ -13,9 +13,9 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/certify"
+	"gapcert/certs/outfile"
 	"gapcert/certs/plot"
 	"gapcert/fem/problem"
-	"gapcert/internal/outfile"
 	"gapcert/interval/decimalio"
 )
 

@@ -9,8 +9,8 @@ import (
 	"slices"
 	"strings"
 
+	"gapcert/certs/outfile"
 	"gapcert/certs/plot"
-	"gapcert/internal/outfile"
 )
 
 // Output paths are checked before anything is computed: an output that

@@ -9,8 +9,8 @@ import (
 	"github.com/spf13/cobra"
 
 	"gapcert/certs/certify"
+	"gapcert/certs/outfile"
 	"gapcert/certs/report"
-	"gapcert/internal/outfile"
 )
 
 func newReportCmd() *cobra.Command {

@@ -12,8 +12,8 @@ import (
 	"github.com/spf13/cobra"
 
 	"gapcert/certs"
+	"gapcert/certs/outfile"
 	"gapcert/certs/sweep"
-	"gapcert/internal/outfile"
 )
 
 type sweepFlags struct {
