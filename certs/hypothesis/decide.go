@@ -2,7 +2,7 @@ package hypothesis
 
 import (
 	"gapcert/certs"
-	"gapcert/certs/named"
+	"gapcert/claim/named"
 	"gapcert/fem/problem"
 )
 

@@ -8,10 +8,12 @@
 // '_' and surrounding spaces ignored (Lookup); Claim.Text is the canonical text
 // ("@fundamental_gap") that the problem's canonical form records.
 //
-// Each Claim has an inequality over certified quantities (the names of
-// certs.StandardNames, and for some claims a Reference quantity that is
-// certified separately), the dimensions it applies to, and the names of
-// the hypotheses of its theorem (decided per problem by package
+// Each Claim has an inequality in the grammar of package claim over
+// certified quantities (claim.Quantities, and for some claims a Reference
+// quantity that is certified separately, with ReferenceResult naming the
+// result of the separate certificate it denotes: this catalogue is the one
+// place that says so), the dimensions it applies to, and the names of the
+// hypotheses of its theorem (decided per problem by package
 // certs/hypothesis). The catalogue:
 //
 //	@fundamental_gap    gap >= 3*pi^2/D^2         intervals and polygons
@@ -19,5 +21,6 @@
 //	@payne_weinberger   lambda2 >= pi^2/D^2       intervals and polygons
 //	@robin_comparison   gap >= robin_interval_gap polygons
 //
-// Sources are given with each entry in catalogue.go.
+// Sources are given with each entry in catalogue.go. The package sits
+// below fem/problem, which looks names up when it reads a problem file.
 package named
