@@ -16,9 +16,10 @@
 // The Unicode signs ≥ and ≤ are the same relations as >= and <= (a problem
 // file is UTF-8, and a claim copied from a paper keeps its signs); Rel
 // records the ASCII form. Equalities and inequations ("=", "==", "!=",
-// "≠") and the reversed spellings "=>" and "=<" are refused: an equality
-// cannot be decided by enclosures, and a reversed spelling is more likely
-// a typo than a relation. A claim is at most MaxLen bytes long. Parse
+// "≠"), the reversed spellings "=>" and "=<", and signs that only look
+// like ≥ and ≤ ("⩾", "⩽", "≧", "≦") are refused with a hint: an equality
+// cannot be decided by enclosures, and the others are more likely typos
+// than relations. A claim is at most MaxLen bytes long. Parse
 // reports every defect as an *Error with the 1-based byte column in the
 // claim's text and a hint.
 //
