@@ -6,7 +6,7 @@ import (
 	"gapcert/fem/problem"
 )
 
-// deciders maps each hypothesis name of package certs/named to its
+// deciders maps each hypothesis name of package claim/named to its
 // decision procedure.
 var deciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.DirichletBoundary: DirichletBoundary,

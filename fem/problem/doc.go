@@ -17,7 +17,9 @@
 //     or by interval enclosures that decide the sign, never assumed;
 //   - V has no free variable but x (and y), and PotentialRange encloses its
 //     range over the closed domain, which is bounded;
-//   - Robin coefficients are ≥ 0, 2 ≤ Eigenvalues ≤ 20, RelWidth ∈ (0, 1).
+//   - Robin coefficients are ≥ 0, 2 ≤ Eigenvalues ≤ 20, RelWidth ∈ (0, 1);
+//   - every claim reads in the grammar of package claim and names only
+//     quantities the problem provides (ClaimScope).
 //
 // # File format
 //
