@@ -21,6 +21,13 @@
 //	@payne_weinberger   lambda2 >= pi^2/D^2       intervals and polygons
 //	@robin_comparison   gap >= robin_interval_gap polygons
 //
+// A problem file may name a built-in claim when the claim applies to its
+// dimension (Claim.CheckScope). Whether the theorem's hypotheses hold is
+// decided and recorded, not required; likewise a reference quantity that
+// cannot be stated for the problem (@robin_comparison on sides without one
+// Robin coefficient) leaves the claim undecided with that reason, decided
+// by package certs/certify.
+//
 // Sources are given with each entry in catalogue.go. The package sits
 // below fem/problem, which looks names up when it reads a problem file.
 package named

@@ -681,6 +681,9 @@ func (r *reader) namedClaim(text, path string, dim int, scope claim.Scope) (stri
 		r.iss.add(path, ne.Error(), ne.Hint())
 		return "", false
 	}
+	if dim == 0 {
+		return c.Text(), true
+	}
 	scope.Dim = dim
 	if err := c.CheckScope(scope); err != nil {
 		ce := err.(*claim.Error)
