@@ -83,7 +83,7 @@ const (
 // the certified enclosures; Reason says why a claim could not be evaluated
 // (empty when it was).
 //
-// A built-in claim (Text "@name", see package certs/named) also records the
+// A built-in claim (Text "@name", see package fem/claim/named) also records the
 // Inequality its name stands for, the verdict on each hypothesis of the
 // theorem it comes from, and the Reference quantity it compares with, if
 // any. Verdict is the certified comparison of the enclosures either way;

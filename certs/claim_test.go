@@ -1,10 +1,10 @@
 package certs
 
 import (
-	"errors"
 	"strings"
 	"testing"
 
+	"gapcert/fem/claim"
 	"gapcert/interval"
 )
 
@@ -19,7 +19,7 @@ func sqrt2() interval.I {
 	return r
 }
 
-func TestEvaluateVerdicts(t *testing.T) {
+func TestEvaluateClaimVerdicts(t *testing.T) {
 	// Unit square, Dirichlet: λ_{m,n} = π²(m² + n²) (separation of
 	// variables; common practice), so λ1 = 2π² = 19.7392088…, λ2 = 5π² =
 	// 49.3480220…, gap = 3π² = 29.6088132…, D = √2 and 3π²/D² = 1.5π² =
@@ -73,11 +73,11 @@ func TestEvaluateVerdicts(t *testing.T) {
 		{"x < 1", wide, Fails},
 	}
 	for _, tc := range tests {
-		c, err := ParseClaim(tc.claim)
+		c, err := claim.Parse(tc.claim)
 		if err != nil {
 			t.Fatalf("%q: %v", tc.claim, err)
 		}
-		r := c.Evaluate(tc.env)
+		r := EvaluateClaim(c, tc.env)
 		if r.Verdict != tc.want {
 			t.Errorf("%q: verdict %q, margin [%s, %s], reason %q; want %q", tc.claim, r.Verdict, r.Margin.Lower, r.Margin.Upper, r.Reason, tc.want)
 		}
@@ -89,7 +89,9 @@ func TestEvaluateVerdicts(t *testing.T) {
 			t.Fatalf("%q: margin %v", tc.claim, err)
 		}
 		// The printed margin must carry the verdict on its own.
-		if got := decide(c.Rel, m); r.Verdict != Undecided && got != r.Verdict {
+		holds, fails := c.Decide(m)
+		got := map[[2]bool]string{{true, false}: Holds, {false, true}: Fails, {false, false}: Undecided}[[2]bool{holds, fails}]
+		if r.Verdict != Undecided && got != r.Verdict {
 			t.Errorf("%q: verdict from the printed margin is %q, want %q", tc.claim, got, r.Verdict)
 		}
 	}
@@ -104,11 +106,11 @@ func TestMarginEnclosesDifference(t *testing.T) {
 		"lambda2": enclosure(49.348022005446790, 49.348022005446796),
 		"D":       sqrt2(),
 	}
-	c, err := ParseClaim("lambda2 - lambda1 >= 3*pi^2/D^2")
+	c, err := claim.Parse("lambda2 - lambda1 >= 3*pi^2/D^2")
 	if err != nil {
 		t.Fatal(err)
 	}
-	r := c.Evaluate(env)
+	r := EvaluateClaim(c, env)
 	m, err := r.Margin.Interval()
 	if err != nil {
 		t.Fatal(err)
@@ -132,11 +134,11 @@ func TestEvaluateUndecidedWithReason(t *testing.T) {
 		{"log(x) > 0", map[string]interval.I{"x": interval.New(-1, 2)}, "log"},
 	}
 	for _, tc := range tests {
-		c, err := ParseClaim(tc.claim)
+		c, err := claim.Parse(tc.claim)
 		if err != nil {
 			t.Fatal(err)
 		}
-		r := c.Evaluate(tc.env)
+		r := EvaluateClaim(c, tc.env)
 		if r.Verdict != Undecided || !strings.Contains(r.Reason, tc.reason) {
 			t.Errorf("%q: verdict %q reason %q; want undecided naming %q", tc.claim, r.Verdict, r.Reason, tc.reason)
 		}
@@ -146,93 +148,22 @@ func TestEvaluateUndecidedWithReason(t *testing.T) {
 	}
 }
 
-func TestParseClaimErrors(t *testing.T) {
-	tests := []struct {
-		text string
-		col  int
-		msg  string
-	}{
-		{"pi", 1, "no relation"},
-		{"a > b > c", 7, "more than one relation"},
-		{"a >= b <= c", 8, "more than one relation"},
-		{"(a > b)", 4, "inside parentheses"},
-		{"a = b", 3, "not a relation"},
-		{"a == b", 3, "not a relation"},
-		{"a != b", 3, "not a relation"},
-		{"a => b", 3, "not a relation"},
-		{"a >== b", 3, "not a relation"},
-		{" >= 1", 2, "missing expression"},
-		{"a >= ", 5, "missing expression"},
-		{"a ≥ ", 6, "missing expression"},
+// TestResultsQuantity: the quantities a certificate's results record, by
+// their claim names.
+func TestResultsQuantity(t *testing.T) {
+	r := Results{
+		Eigenvalues: []Eigen{{Index: 1, Lower: "1", Upper: "2"}, {Index: 2, Lower: "3", Upper: "4"}},
+		Gap:         Bound{Lower: "1", Upper: "3"},
+		Diameter:    Bound{Lower: "5", Upper: "5"},
 	}
-	for _, tc := range tests {
-		_, err := ParseClaim(tc.text)
-		var ce *ClaimError
-		if !errors.As(err, &ce) {
-			t.Errorf("%q: err = %v, want *ClaimError", tc.text, err)
-			continue
-		}
-		if ce.Col != tc.col || !strings.Contains(ce.Msg, tc.msg) {
-			t.Errorf("%q: col %d msg %q; want col %d msg containing %q", tc.text, ce.Col, ce.Msg, tc.col, tc.msg)
+	for name, want := range map[string]Bound{"lambda1": {"1", "2"}, "lambda2": {"3", "4"}, "gap": {"1", "3"}, "D": {"5", "5"}} {
+		if got, ok := r.Quantity(name); !ok || got != want {
+			t.Errorf("%s = %v, %v; want %v", name, got, ok, want)
 		}
 	}
-}
-
-// TestParseClaimSideErrorColumns: a formula error in a side is reported at
-// its column in the whole claim.
-func TestParseClaimSideErrorColumns(t *testing.T) {
-	for _, tc := range []struct {
-		text   string
-		minCol int
-	}{
-		{"lambda1 >= 3*", 12},
-		{"lambda1 >= (2", 12},
-		{"lambda1 + * 2 > 0", 9},
-	} {
-		_, err := ParseClaim(tc.text)
-		var ce *ClaimError
-		if !errors.As(err, &ce) {
-			t.Errorf("%q: err = %v, want *ClaimError", tc.text, err)
-			continue
-		}
-		if ce.Col < tc.minCol || ce.Col > len(tc.text)+1 {
-			t.Errorf("%q: col %d, want in [%d, %d]", tc.text, ce.Col, tc.minCol, len(tc.text)+1)
-		}
-	}
-}
-
-func TestCheckNames(t *testing.T) {
-	c, err := ParseClaim("lambda2 - lambda1 >= k*pi^2/D^2 + gap*0")
-	if err != nil {
-		t.Fatal(err)
-	}
-	if got := strings.Join(c.Vars(), ","); got != "D,gap,k,lambda1,lambda2" {
-		t.Errorf("Vars = %s", got)
-	}
-	if err := c.Check([]string{"k"}); err != nil {
-		t.Errorf("with parameter k: %v", err)
-	}
-	err = c.Check(nil)
-	var ce *ClaimError
-	if !errors.As(err, &ce) || ce.Col != 22 || !strings.Contains(ce.Msg, `"k"`) {
-		t.Errorf("without parameter k: %v, want unknown name \"k\" at col 22", err)
-	}
-	for _, text := range []string{"lambda0 > 0", "lambda21 > 0", "Lambda1 > 0", "diameter > 0"} {
-		c, err := ParseClaim(text)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if err := c.Check(nil); err == nil {
-			t.Errorf("%q: no error for an unknown name", text)
-		}
-	}
-	for _, text := range []string{"lambda20 > 0", "area + perimeter + alpha > pi + e"} {
-		c, err := ParseClaim(text)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if err := c.Check(nil); err != nil {
-			t.Errorf("%q: %v", text, err)
+	for _, name := range []string{"lambda3", "area", "alpha", "x"} {
+		if _, ok := r.Quantity(name); ok {
+			t.Errorf("%s recorded", name)
 		}
 	}
 }

@@ -11,13 +11,14 @@
 // for upper ends, so a verdict on a claim can be re-derived from its printed
 // margin alone (read as exact decimals).
 //
-// A claim is an inequality "lhs REL rhs" between formulas (package
-// interval/formula) over certified quantities. Claim.Evaluate encloses
-// lhs − rhs in interval arithmetic over the enclosures it is given and says
-// "holds" only if the inequality is true for every value in them, "fails"
-// only if it is false for every value, and "undecided" otherwise.
+// A claim is an inequality "lhs REL rhs" between formulas over certified
+// quantities, read by package claim (the one claim grammar of gapcert).
+// EvaluateClaim encloses lhs − rhs in interval arithmetic over the
+// enclosures it is given and says "holds" only if the inequality is true
+// for every value in them, "fails" only if it is false for every value,
+// and "undecided" otherwise.
 //
-// A built-in claim ("@name", catalogue in package certs/named) is recorded
+// A built-in claim ("@name", catalogue in package fem/claim/named) is recorded
 // with the inequality it stands for, the verdict on each hypothesis of its
 // theorem (Hypothesis: "proven", "disproven" with a Witness, or
 // "undecided", decided by package certs/hypothesis) and, where it compares

@@ -511,42 +511,6 @@ func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certific
 	return c, nil
 }
 
-// claimEnv is the set of certified quantities a claim may name.
-func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
-	env := map[string]interval.I{
-		"gap": res.gap,
-		"D":   p.Diameter(),
-		"pi":  interval.Pi(),
-		"e":   interval.E(),
-	}
-	for k, l := range res.lambda {
-		env[fmt.Sprintf("lambda%d", k+1)] = l
-	}
-	if p.Dim == 2 {
-		env["area"], env["perimeter"] = p.Area(), p.Perimeter()
-	}
-	for name, v := range p.Params {
-		env[name] = v.Val
-	}
-	// alpha names the Robin parameter when every Robin end has the same one.
-	var alpha *interval.I
-	same := true
-	for _, bc := range p.Boundary {
-		if bc.Kind != problem.Robin {
-			continue
-		}
-		a := bc.Alpha.Val
-		if alpha != nil && *alpha != a {
-			same = false
-		}
-		alpha = &a
-	}
-	if alpha != nil && same {
-		env["alpha"] = *alpha
-	}
-	return env
-}
-
 // method records the recipe and each stage's bounds.
 func (res *result) method() Method {
 	r, out := res.r, res.out

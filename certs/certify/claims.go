@@ -8,16 +8,19 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/hypothesis"
-	"gapcert/certs/named"
+	"gapcert/fem/claim"
+	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 )
 
 // evaluateClaims returns the verdicts on p's claims over the certified
-// enclosures of res (Claim.Evaluate: holds, fails or undecided, from the
-// interval enclosure of lhs − rhs).
+// enclosures of res (certs.EvaluateClaim: holds, fails or undecided, from
+// the interval enclosure of lhs − rhs). problem.Parse has checked that p
+// provides every quantity its claims name (claim.Claim.CheckScope), and
+// claimEnv gives each of them a value.
 //
-// A built-in claim "@name" (package certs/named) is its catalogue
+// A built-in claim "@name" (package fem/claim/named) is its catalogue
 // inequality, evaluated the same way, together with the verdicts on the
 // hypotheses of its theorem (package certs/hypothesis) and, for a claim
 // with a reference quantity, the certificate of that quantity. The
@@ -27,12 +30,6 @@ import (
 // verify is a *MismatchError.
 func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.ClaimResult, error) {
 	env := claimEnv(p, res)
-	if p.Dim == 2 && len(p.Vertices) == 3 {
-		// The inradius of a triangle is 2·area/perimeter (common practice:
-		// the area is the sum of the three triangles on the sides with
-		// apex at the incentre, each of height r).
-		env["inradius"] = p.Area().MulF(2).Div(p.Perimeter())
-	}
 	var out []certs.ClaimResult
 	for i, text := range p.Claims {
 		if named.IsNamed(text) {
@@ -43,13 +40,46 @@ func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.Claim
 			out = append(out, r)
 			continue
 		}
-		cl, err := certs.ParseClaim(text)
+		cl, err := claim.Parse(text)
 		if err != nil {
 			return nil, fmt.Errorf("claim %q: %w", text, err)
 		}
-		out = append(out, cl.Evaluate(env))
+		out = append(out, certs.EvaluateClaim(cl, env))
 	}
 	return out, nil
+}
+
+// claimEnv returns a value for every quantity p provides to its claims
+// (p.ClaimScope, package claim): the certified eigenvalues and gap of res,
+// the diameter, area and perimeter of the domain, the inradius of a
+// triangle, the common Robin coefficient (p.RobinAlpha), pi, e and the
+// parameters. A parameter named alpha is the value of alpha.
+func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
+	env := map[string]interval.I{
+		claim.Gap:      res.gap,
+		claim.Diameter: p.Diameter(),
+		"pi":           interval.Pi(),
+		"e":            interval.E(),
+	}
+	for k, l := range res.lambda {
+		env[claim.Eigenvalue(k+1)] = l
+	}
+	if p.Dim == 2 {
+		env[claim.Area], env[claim.Perimeter] = p.Area(), p.Perimeter()
+	}
+	if p.Dim == 2 && len(p.Vertices) == 3 {
+		// The inradius of a triangle is 2·area/perimeter (common practice:
+		// the area is the sum of the three triangles on the sides with
+		// apex at the incentre, each of height r).
+		env[claim.Inradius] = p.Area().MulF(2).Div(p.Perimeter())
+	}
+	if alpha, why := p.RobinAlpha(); why == "" {
+		env[claim.Alpha] = alpha.Val
+	}
+	for name, v := range p.Params {
+		env[name] = v.Val
+	}
+	return env
 }
 
 // evaluateNamed evaluates the built-in claim text, the i-th claim of p.
@@ -58,10 +88,7 @@ func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text st
 	if err != nil {
 		return certs.ClaimResult{}, fmt.Errorf("claim %q: %w", text, err)
 	}
-	cl, err := certs.ParseClaim(c.Inequality)
-	if err != nil {
-		return certs.ClaimResult{}, fmt.Errorf("built-in claim %s: %w", c.Text(), err)
-	}
+	cl := c.Parse()
 	var hyps []certs.Hypothesis
 	for _, name := range c.Hypotheses {
 		h, ok := hypothesis.Decide(name, p)
@@ -87,7 +114,7 @@ func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text st
 			local[c.Reference] = gap
 		}
 	}
-	r := cl.Evaluate(local)
+	r := certs.EvaluateClaim(cl, local)
 	if reason != "" {
 		r.Reason = reason
 	}
@@ -128,7 +155,7 @@ func reference(p *problem.Problem, c named.Claim, i int, opt Options) (ref *cert
 	if err != nil {
 		return nil, gap, "", err
 	}
-	gap, err = cert.Results.Gap.Interval()
+	gap, err = referenceValue(cert.Results, c)
 	if err != nil {
 		return nil, gap, "", err
 	}
@@ -157,11 +184,22 @@ func recordedReference(rec *certs.Certificate, i int, c named.Claim, sub *proble
 	if err := Check(ref.Certificate); err != nil {
 		return nil, interval.I{}, mismatch("%v", err)
 	}
-	gap, err := inner.Results.Gap.Interval()
+	gap, err := referenceValue(inner.Results, c)
 	if err != nil {
 		return nil, interval.I{}, mismatch("%v", err)
 	}
 	return ref, gap, nil
+}
+
+// referenceValue reads the reference quantity of the built-in claim c from
+// the results of its reference certificate: the result the catalogue names
+// (named.Claim.ReferenceResult), read back outward.
+func referenceValue(r certs.Results, c named.Claim) (interval.I, error) {
+	b, ok := r.Quantity(c.ReferenceResult)
+	if !ok {
+		return interval.I{}, fmt.Errorf("the reference certificate of %s records no %s", c.Text(), c.ReferenceResult)
+	}
+	return b.Interval()
 }
 
 // robinIntervalProblem returns the problem −u″ = λu on (0, D), D the exact

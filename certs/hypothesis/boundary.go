@@ -4,7 +4,7 @@ import (
 	"fmt"
 
 	"gapcert/certs"
-	"gapcert/certs/named"
+	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 )
 
@@ -59,7 +59,7 @@ func RobinBoundary(p *problem.Problem) certs.Hypothesis {
 	}
 	a0 := p.Boundary[0].Alpha
 	for i, bc := range p.Boundary[1:] {
-		switch same, ok := sameNumber(a0, bc.Alpha); {
+		switch same, ok := problem.Equal(a0, bc.Alpha); {
 		case ok && !same:
 			return disproven(h, fmt.Sprintf("side %d has α = %s, side 0 has α = %s", i+1, bc.Alpha.Text, a0.Text), &certs.Witness{Side: intPtr(i + 1)})
 		case !ok:
@@ -87,23 +87,6 @@ func isZero(n problem.Number) (zero, ok bool) {
 	case n.Val.Lo == 0 && n.Val.Hi == 0:
 		return true, true
 	case n.Val.Lo > 0 || n.Val.Hi < 0:
-		return false, true
-	}
-	return false, false
-}
-
-// sameNumber decides whether two exact numbers are equal: by their
-// rationals, by identical canonical texts (which denote one number), or by
-// enclosures that are equal points or disjoint.
-func sameNumber(a, b problem.Number) (same, ok bool) {
-	switch {
-	case a.Rat != nil && b.Rat != nil:
-		return a.Rat.Cmp(b.Rat) == 0, true
-	case a.Text == b.Text:
-		return true, true
-	case a.Val.IsPoint() && a.Val == b.Val:
-		return true, true
-	case a.Val.Hi < b.Val.Lo || b.Val.Hi < a.Val.Lo:
 		return false, true
 	}
 	return false, false

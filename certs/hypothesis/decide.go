@@ -2,11 +2,11 @@ package hypothesis
 
 import (
 	"gapcert/certs"
-	"gapcert/certs/named"
+	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 )
 
-// deciders maps each hypothesis name of package certs/named to its
+// deciders maps each hypothesis name of package fem/claim/named to its
 // decision procedure.
 var deciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.DirichletBoundary: DirichletBoundary,

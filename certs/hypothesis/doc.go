@@ -1,5 +1,5 @@
 // Package hypothesis decides the hypotheses of the theorems behind the
-// built-in claims (package certs/named) for a problem: each decision is a
+// built-in claims (package fem/claim/named) for a problem: each decision is a
 // certs.Hypothesis with the verdict "proven", "disproven" (with a
 // witness: a side, a vertex or a point of the domain) or "undecided", and a
 // detail in words.

@@ -4,7 +4,7 @@ import (
 	"fmt"
 
 	"gapcert/certs"
-	"gapcert/certs/named"
+	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 )
 

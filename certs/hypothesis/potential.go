@@ -5,7 +5,7 @@ import (
 	"math"
 
 	"gapcert/certs"
-	"gapcert/certs/named"
+	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"

@@ -395,6 +395,9 @@ func (f *Family) expand(template map[string]json.RawMessage, claims []string) []
 	}
 	var iss []problem.Issue
 	seen := map[string]bool{}
+	var templateList []json.RawMessage
+	_ = json.Unmarshal(template["claims"], &templateList) // a bad list is reported by problem.Parse
+	templateClaims := len(templateList)
 	idx := make([]int, len(f.Params))
 	for k := 0; k < total; k++ {
 		rem := k
@@ -423,7 +426,7 @@ func (f *Family) expand(template map[string]json.RawMessage, claims []string) []
 					continue
 				}
 				seen[key] = true
-				is.Path = strings.TrimSuffix("template."+is.Path, ".")
+				is.Path = familyPath(is.Path, templateClaims)
 				is.Msg = fmt.Sprintf("point %d (%s): %s", k, f.describe(pt), is.Msg)
 				iss = append(iss, is)
 			}
@@ -436,6 +439,18 @@ func (f *Family) expand(template map[string]json.RawMessage, claims []string) []
 		f.Points = append(f.Points, pt)
 	}
 	return iss
+}
+
+// familyPath returns the path in the family file of a point's problem
+// path: "claims[k]" with k ≥ templateClaims is the family's claim
+// k − templateClaims (appended to the template's), any other path lies
+// under "template".
+func familyPath(path string, templateClaims int) string {
+	var k int
+	if n, err := fmt.Sscanf(path, "claims[%d]", &k); err == nil && n == 1 && path == fmt.Sprintf("claims[%d]", k) && k >= templateClaims {
+		return fmt.Sprintf("claims[%d]", k-templateClaims)
+	}
+	return strings.TrimSuffix("template."+path, ".")
 }
 
 // describe returns "a=1/2, b=0.3" for a point.

@@ -17,7 +17,9 @@
 //     or by interval enclosures that decide the sign, never assumed;
 //   - V has no free variable but x (and y), and PotentialRange encloses its
 //     range over the closed domain, which is bounded;
-//   - Robin coefficients are ≥ 0, 2 ≤ Eigenvalues ≤ 20, RelWidth ∈ (0, 1).
+//   - Robin coefficients are ≥ 0, 2 ≤ Eigenvalues ≤ 20, RelWidth ∈ (0, 1);
+//   - every claim reads in the grammar of package claim and names only
+//     quantities the problem provides (ClaimScope).
 //
 // # File format
 //
@@ -68,12 +70,18 @@
 //
 // eigenvalues is the number of eigenvalues to enclose, an integer from 2 to
 // 20. target.relative_width is the relative width to aim for, in (0, 1).
-// claims are inequalities "lhs REL rhs" with REL one of >=, <=, >, < and
-// formulas on both sides; only their syntax is checked here. A claim may
-// instead name a built-in claim, "@name" (package gapcert/certs/named, e.g.
+// claims are inequalities "lhs REL rhs" in the grammar of package
+// gapcert/fem/claim (REL one of >=, <=, >, <, or ≥, ≤), and every name a claim
+// uses must be a quantity this problem provides (ClaimScope): lambdak up to
+// "eigenvalues", gap, D, area and perimeter on polygons, inradius on
+// triangles, alpha when the Robin sides share one coefficient
+// (RobinAlpha), pi, e and the parameters. A claim may instead name a
+// built-in claim, "@name" (package gapcert/fem/claim/named, e.g.
 // "@fundamental_gap"): the name must be in the catalogue (read
 // case-insensitively, '-' as '_', surrounding spaces ignored) and apply to
 // the domain's dimension, and the canonical form records it as "@name".
+// A parameter may not take the name of a quantity other than alpha (a
+// parameter named alpha is what alpha means in claims).
 //
 // # Canonical form
 //

@@ -8,7 +8,8 @@ import (
 	"strconv"
 	"strings"
 
-	"gapcert/certs/named"
+	"gapcert/fem/claim"
+	"gapcert/fem/claim/named"
 	"gapcert/interval"
 	"gapcert/interval/formula"
 )
@@ -160,9 +161,9 @@ func (r *reader) problem(root *node) *Problem {
 		geomOK = r.polygon(p, bcOK)
 	}
 	r.potential(root.get("potential"), p, geomOK && paramsOK)
-	r.eigenvalues(root.get("eigenvalues"), p)
+	eigOK := r.eigenvalues(root.get("eigenvalues"), p)
 	r.target(root.get("target"), p)
-	r.claims(root.get("claims"), p)
+	r.claims(root.get("claims"), p, geomOK && bcOK && eigOK)
 	return p
 }
 
@@ -281,6 +282,10 @@ func (r *reader) parameters(n *node) map[string]Number {
 		}
 		if reservedNames[name] || !isVariableName(name) {
 			r.iss.addf(path, "x and y are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
+			continue
+		}
+		if claim.IsQuantity(name) && name != claim.Alpha {
+			r.iss.addf(path, "claims use this name for a certified quantity; choose another name", "parameter name %q is reserved", name)
 			continue
 		}
 		v, good := r.number(n.vals[i], path, nil)
@@ -563,25 +568,27 @@ func (r *reader) potential(n *node, p *Problem, domainOK bool) {
 	p.vRange = rng
 }
 
-func (r *reader) eigenvalues(n *node, p *Problem) {
+// eigenvalues reads "eigenvalues"; ok is false after reporting a defect.
+func (r *reader) eigenvalues(n *node, p *Problem) (ok bool) {
 	if n == nil {
-		return
+		return true
 	}
 	const hint = "an integer from 2 to 20"
 	if n.kind != kindNumber {
 		r.iss.add("eigenvalues", "want an integer, not "+n.kind.String(), hint)
-		return
+		return false
 	}
 	k, err := strconv.Atoi(string(n.num))
 	if err != nil {
 		r.iss.addf("eigenvalues", hint, "%s is not an integer", n.num)
-		return
+		return false
 	}
 	if k < 2 || k > maxEigenvalues {
 		r.iss.addf("eigenvalues", hint, "eigenvalues = %d is out of range", k)
-		return
+		return false
 	}
 	p.Eigenvalues = k
+	return true
 }
 
 func (r *reader) target(n *node, p *Problem) {
@@ -616,16 +623,28 @@ func (r *reader) target(n *node, p *Problem) {
 	}
 }
 
-// claimRelations are the relations a claim may use, longest first.
-var claimRelations = []string{">=", "<=", ">", "<"}
-
-func (r *reader) claims(n *node, p *Problem) {
+// claims reads "claims": each is parsed by claim.Parse, or looked up in
+// the catalogue of built-in claims (package fem/claim/named), and must name
+// only quantities the problem provides (claim.Scope, from ClaimScope).
+// When the domain, boundary or number of eigenvalues is invalid (and
+// reported), only names that no problem provides are reported.
+func (r *reader) claims(n *node, p *Problem, scopeKnown bool) {
 	if n == nil {
 		return
 	}
 	if n.kind != kindArray {
 		r.iss.add("claims", "claims must be a list of strings, not "+n.kind.String(), `write "claims": ["gap >= 3*pi^2/D^2"]`)
 		return
+	}
+	scope := claim.Scope{Dim: 2, Vertices: 3, Eigenvalues: claim.MaxEigenvalue}
+	if scopeKnown {
+		scope = p.ClaimScope()
+	}
+	for name := range r.badParams {
+		scope.Params = append(scope.Params, name) // reported already
+	}
+	for name := range p.Params {
+		scope.Params = append(scope.Params, name)
 	}
 	for i, c := range n.vals {
 		path := fmt.Sprintf("claims[%d]", i)
@@ -634,82 +653,100 @@ func (r *reader) claims(n *node, p *Problem) {
 			continue
 		}
 		if named.IsNamed(c.str) {
-			if text, ok := r.namedClaim(c.str, path, p.Dim); ok {
+			if text, ok := r.namedClaim(c.str, path, p.Dim, scope); ok {
 				p.Claims = append(p.Claims, text)
 			}
 			continue
 		}
-		if msg, hint := claimSyntax(c.str); msg != "" {
-			r.iss.add(path, msg, hint)
+		cl, err := claim.Parse(c.str)
+		if err == nil {
+			err = cl.CheckScope(scope)
+		}
+		if err != nil {
+			ce := err.(*claim.Error)
+			r.iss.addf(path, ce.Hint, "claim %q, column %d: %s", ce.Text, ce.Col, ce.Msg)
 			continue
 		}
 		p.Claims = append(p.Claims, c.str)
 	}
 }
 
-// namedClaim checks a built-in claim "@name" (package certs/named) and
+// namedClaim checks a built-in claim "@name" (package fem/claim/named) and
 // returns its canonical text. dim is the domain's dimension (0 if the
 // domain is invalid, and then not checked).
-func (r *reader) namedClaim(text, path string, dim int) (string, bool) {
+func (r *reader) namedClaim(text, path string, dim int, scope claim.Scope) (string, bool) {
 	c, err := named.Lookup(text)
 	if err != nil {
 		ne := err.(*named.NameError)
 		r.iss.add(path, ne.Error(), ne.Hint())
 		return "", false
 	}
-	if dim != 0 && !c.Applies(dim) {
-		where := map[int]string{1: "an interval", 2: "a polygon"}
-		var ok []string
-		for _, d := range c.Dims {
-			ok = append(ok, where[d])
-		}
-		r.iss.addf(path, "it applies to "+strings.Join(ok, " or "), "built-in claim %q does not apply to %s", c.Text(), where[dim])
+	if dim == 0 {
+		return c.Text(), true
+	}
+	scope.Dim = dim
+	if err := c.CheckScope(scope); err != nil {
+		ce := err.(*claim.Error)
+		r.iss.add(path, ce.Msg, ce.Hint)
 		return "", false
 	}
 	return c.Text(), true
 }
 
-// claimSyntax checks that text is "lhs REL rhs" with one relation and two
-// formulas; it returns a message and hint for the first defect, or "".
-func claimSyntax(text string) (msg, hint string) {
-	const hint0 = `a claim is "lhs REL rhs" with REL one of >=, <=, >, <`
-	if len(text) > maxFormulaLen {
-		return fmt.Sprintf("claim too long (%d bytes, at most %d)", len(text), maxFormulaLen), "split it"
-	}
-	at, rel := -1, ""
-	count := 0
-	for i := 0; i < len(text); i++ {
-		for _, op := range claimRelations {
-			if strings.HasPrefix(text[i:], op) {
-				if at < 0 {
-					at, rel = i, op
-				}
-				count++
-				i += len(op) - 1
-				break
-			}
+// ClaimScope returns what the problem provides to its claims (package
+// claim): its dimension and vertices, the number of eigenvalues, its
+// parameters, and whether alpha has a value (RobinAlpha).
+func (p *Problem) ClaimScope() claim.Scope {
+	s := claim.Scope{Dim: p.Dim, Vertices: len(p.Vertices), Eigenvalues: p.Eigenvalues, Params: p.sortedParamNames()}
+	_, s.NoAlpha = p.RobinAlpha()
+	return s
+}
+
+// RobinAlpha returns the Robin coefficient shared by every side with a
+// Robin condition (sides of other kinds do not count), the value of the
+// quantity alpha of claims. When there is none, why says so: no Robin
+// side, two Robin sides whose coefficients are decided to differ, or two
+// whose equality cannot be decided (Equal).
+func (p *Problem) RobinAlpha() (alpha Number, why string) {
+	first := -1
+	for i, bc := range p.Boundary {
+		if bc.Kind != Robin {
+			continue
+		}
+		if first < 0 {
+			first = i
+			continue
+		}
+		a := p.Boundary[first].Alpha
+		switch same, decided := Equal(a, bc.Alpha); {
+		case !decided:
+			return Number{}, fmt.Sprintf("cannot decide whether the Robin coefficients %s (side %d) and %s (side %d) are equal", a.Text, first, bc.Alpha.Text, i)
+		case !same:
+			return Number{}, fmt.Sprintf("the Robin sides have different coefficients, %s (side %d) and %s (side %d)", a.Text, first, bc.Alpha.Text, i)
 		}
 	}
-	if count != 1 {
-		return fmt.Sprintf("claim %q must contain exactly one relation, it has %d", text, count), hint0
+	if first < 0 {
+		return Number{}, "no side has a Robin condition"
 	}
-	if err := checkExponents(text); err != nil {
-		return err.Error(), err.(*numberError).hint
+	return p.Boundary[first].Alpha, ""
+}
+
+// Equal decides whether two exact numbers are equal: by their rationals,
+// by identical canonical texts (which denote one number), or by enclosures
+// that are equal points or disjoint. decided is false when none of these
+// settles it.
+func Equal(a, b Number) (equal, decided bool) {
+	switch {
+	case a.Rat != nil && b.Rat != nil:
+		return a.Rat.Cmp(b.Rat) == 0, true
+	case a.Text == b.Text:
+		return true, true
+	case a.Val.IsPoint() && a.Val == b.Val:
+		return true, true
+	case a.Val.Hi < b.Val.Lo || b.Val.Hi < a.Val.Lo:
+		return false, true
 	}
-	sides := [2]string{text[:at], text[at+len(rel):]}
-	offset := [2]int{0, at + len(rel)}
-	for k, s := range sides {
-		if strings.TrimSpace(s) == "" {
-			return fmt.Sprintf("claim %q has an empty side", text), hint0
-		}
-		if _, err := formula.Parse(s); err != nil {
-			if se, ok := err.(*formula.SyntaxError); ok {
-				return fmt.Sprintf("claim %q: column %d: %s", text, offset[k]+se.Col, se.Msg), firstNonEmpty(se.Hint, hint0)
-			}
-			return fmt.Sprintf("claim %q: %v", text, err), hint0
-		}
-	}
-	return "", ""
+	return false, false
 }
 
 // sortedParamNames returns the parameter names in increasing order.

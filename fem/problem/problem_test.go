@@ -414,3 +414,36 @@ func TestBuiltinClaimCanonical(t *testing.T) {
 		t.Errorf("canonical round trip: %v", err)
 	}
 }
+
+// TestRobinAlpha: alpha of claims is the coefficient shared by the Robin
+// sides (other sides do not count), decided exactly; when it is not
+// defined the claim "alpha > 0" is refused at claims[0] with the reason.
+func TestRobinAlpha(t *testing.T) {
+	const square = `"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]}`
+	for _, tc := range []struct {
+		boundary string
+		alpha    string // the coefficient's text, or "" when undefined
+		why      string
+	}{
+		{`{"robin":"3/2"}`, "1.5", ""},
+		{`[{"robin":"1/2"},"dirichlet",{"robin":"0.5"},"neumann"]`, "0.5", ""},
+		{`[{"robin":"sqrt(2)"},"dirichlet",{"robin":"sqrt(2)"},"neumann"]`, "sqrt(2)", ""},
+		{`[{"robin":"0"},"neumann","neumann","neumann"]`, "0", ""},
+		{`"neumann"`, "", "no side has a Robin condition"},
+		{`[{"robin":"1"},{"robin":"1"},{"robin":"2"},{"robin":"1"}]`, "", "different coefficients, 1 (side 0) and 2 (side 2)"},
+		{`[{"robin":"sqrt(2)"},{"robin":"2^(1/2)"},"dirichlet","dirichlet"]`, "", "cannot decide whether the Robin coefficients sqrt(2) (side 0) and 2^(1/2) (side 1) are equal"},
+	} {
+		p, err := Parse([]byte(`{` + square + `,"boundary":` + tc.boundary + `}`))
+		if err != nil {
+			t.Fatalf("%s: %v", tc.boundary, err)
+		}
+		a, why := p.RobinAlpha()
+		if a.Text != tc.alpha || !strings.Contains(why, tc.why) || (why == "") != (tc.why == "") {
+			t.Errorf("%s: alpha %q, why %q; want %q, %q", tc.boundary, a.Text, why, tc.alpha, tc.why)
+		}
+		_, err = Parse([]byte(`{` + square + `,"boundary":` + tc.boundary + `,"claims":["alpha > 0"]}`))
+		if (err == nil) != (tc.why == "") || err != nil && (!strings.Contains(err.Error(), `claims[0]: claim "alpha > 0", column 1: alpha has no value: `) || !strings.Contains(err.Error(), tc.why)) {
+			t.Errorf("%s: claim alpha > 0: %v", tc.boundary, err)
+		}
+	}
+}

@@ -14,7 +14,7 @@
 // range (plot.ScaleFor).
 //
 // Reference quantities. A built-in claim with a reference (package
-// certs/named) stores in its claim result the certificate of that
+// claim/named) stores in its claim result the certificate of that
 // reference (certs.ClaimResult.Reference), and formulas may name the
 // quantity it certifies:
 //
@@ -36,7 +36,7 @@
 // quantities are the decimal strings of the reference certificates,
 // read back outward likewise; a quantity, reference or threshold is
 // enclosed in interval arithmetic over them
-// (formula.Expr.Eval), and its verdict is that of certs.Claim.Evaluate, so
+// (formula.Expr.Eval), and its verdict is that of certs.EvaluateClaim, so
 // "holds" and "fails" are true for every value in the enclosures. Map
 // margins are the certificate's margin ends read back in the safe
 // direction (decimalio.ParseLower, or minus decimalio.ParseUpper).

@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"gapcert/certs"
+	grammar "gapcert/fem/claim"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
 	"gapcert/interval/formula"
@@ -71,13 +72,13 @@ type Band struct {
 //
 // The formulas may name lambda1…lambdaN, gap, D, area and perimeter
 // (polygons, from the certificate files), the sweep's parameters, pi, e,
-// and the reference quantities of built-in claims (package certs/named):
+// and the reference quantities of built-in claims (package fem/claim/named):
 // robin_interval_gap, the gap enclosed by the reference certificate that
 // the claim @robin_comparison stores in the point's certificate file (of
 // −u″ = λu on (0, D) with the polygon's Robin coefficient at both ends).
 // They are enclosed in interval arithmetic over the certified enclosures
 // of each point (formula.Expr.Eval), and the verdict is
-// certs.Claim.Evaluate's, so a "holds" or "fails" is true for every value
+// certs.EvaluateClaim's, so a "holds" or "fails" is true for every value
 // in the enclosures.
 //
 // Errors: an unknown parameter or name, a formula that does not parse or
@@ -109,12 +110,12 @@ func (s *Sweep) Band(x string, spec BandSpec) (*Band, error) {
 			return nil, err
 		}
 	}
-	var claim *certs.Claim
+	var claim *grammar.Claim
 	if spec.Threshold != "" {
 		if t, err = s.parseFormula("threshold", spec.Threshold); err != nil {
 			return nil, err
 		}
-		claim, err = certs.ParseClaim("(" + spec.Quantity + ") " + rel + " (" + spec.Threshold + ")")
+		claim, err = grammar.Parse("(" + spec.Quantity + ") " + rel + " (" + spec.Threshold + ")")
 		if err != nil {
 			return nil, fmt.Errorf("quantity %s threshold: %v", rel, err)
 		}
@@ -146,7 +147,7 @@ func (s *Sweep) Band(x string, spec BandSpec) (*Band, error) {
 			if bp.Threshold, err = s.enclose(i, env, "threshold", spec.Threshold, t); err != nil {
 				return nil, err
 			}
-			bp.Verdict = claim.Evaluate(env).Verdict
+			bp.Verdict = certs.EvaluateClaim(claim, env).Verdict
 		}
 		b.Points = append(b.Points, bp)
 	}
@@ -248,7 +249,7 @@ func (s *Sweep) Map(x, y, claim string) (*Map, error) {
 		}
 		cr := pt.Claims[k]
 		if m.Claim == "" {
-			parsed, err := certs.ParseClaim(cr.Text)
+			parsed, err := grammar.Parse(cr.Text)
 			if err != nil {
 				return nil, fmt.Errorf("point %d: %v", pt.Index, err)
 			}
@@ -325,7 +326,7 @@ func (s *Sweep) parseFormula(what, src string) (*formula.Expr, error) {
 	if err != nil {
 		return nil, fmt.Errorf("%s %q: %v", what, src, err)
 	}
-	known := append(append(certs.StandardNames(), s.Summary.Parameters...), referenceNames()...)
+	known := append(append(grammar.Quantities(), s.Summary.Parameters...), referenceNames()...)
 	for _, v := range e.Vars() {
 		if v == "pi" || v == "e" {
 			continue

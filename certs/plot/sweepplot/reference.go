@@ -5,35 +5,29 @@ import (
 	"slices"
 
 	"gapcert/certs"
-	"gapcert/certs/named"
+	"gapcert/fem/claim/named"
 )
 
-// referenceQuantities maps the name of the reference quantity of a
-// built-in claim (named.Claim.Reference) to the result of the claim's
-// reference certificate that the name denotes. For @robin_comparison,
-// package certs/certify stores the certificate of −u″ = λu on (0, D), D
-// the polygon's diameter, with the polygon's Robin coefficient at both
-// ends; robin_interval_gap is the gap enclosed by that certificate.
-var referenceQuantities = map[string]func(certs.Results) certs.Bound{
-	named.RobinIntervalGap: func(r certs.Results) certs.Bound { return r.Gap },
-}
-
 // referenceNames returns the names of the reference quantities of built-in
-// claims that a formula may use, sorted.
+// claims (named.Claim.Reference) that a formula may use, sorted. For
+// @robin_comparison, package certs/certify stores the certificate of
+// −u″ = λu on (0, D), D the polygon's diameter, with the polygon's Robin
+// coefficient at both ends; robin_interval_gap is the result of that
+// certificate that the catalogue names (named.Claim.ReferenceResult, its
+// gap).
 func referenceNames() []string {
 	var names []string
-	for name := range referenceQuantities {
-		names = append(names, name)
+	for _, c := range named.All() {
+		if c.Reference != "" {
+			names = append(names, c.Reference)
+		}
 	}
 	slices.Sort(names)
-	return names
+	return slices.Compact(names)
 }
 
 // isReference reports whether name is a reference quantity.
-func isReference(name string) bool {
-	_, ok := referenceQuantities[name]
-	return ok
-}
+func isReference(name string) bool { return slices.Contains(referenceNames(), name) }
 
 // referenceOwner returns the text ("@name") of the built-in claim whose
 // reference quantity is name.
@@ -59,18 +53,21 @@ func referenceBounds(claims []certs.ClaimResult) (map[string]certs.Bound, error)
 			continue
 		}
 		name := cr.Reference.Name
-		quantity, ok := referenceQuantities[name]
-		if !ok {
+		if !isReference(name) {
 			continue // a reference this package does not offer by name
 		}
-		if c, err := named.Lookup(cr.Text); err != nil || c.Reference != name {
+		c, err := named.Lookup(cr.Text)
+		if err != nil || c.Reference != name {
 			return nil, fmt.Errorf("claims[%d]: claim %q carries a reference certificate of %s, which is not its reference", k, cr.Text, name)
 		}
 		inner, err := certs.Unmarshal(cr.Reference.Certificate)
 		if err != nil {
 			return nil, fmt.Errorf("claims[%d].reference: %v", k, err)
 		}
-		b := quantity(inner.Results)
+		b, ok := inner.Results.Quantity(c.ReferenceResult)
+		if !ok {
+			return nil, fmt.Errorf("claims[%d].reference: the certificate records no %s", k, c.ReferenceResult)
+		}
 		if prev, dup := refs[name]; dup && prev != b {
 			return nil, fmt.Errorf("claims[%d].reference: %s is [%s, %s] here and [%s, %s] in an earlier claim", k, name, b.Lower, b.Upper, prev.Lower, prev.Upper)
 		}

@@ -11,8 +11,8 @@ import (
 	"testing"
 
 	"gapcert/certs"
-	"gapcert/certs/named"
 	"gapcert/certs/sweep"
+	"gapcert/fem/claim/named"
 	"gapcert/interval"
 )
 

@@ -5,7 +5,7 @@ import (
 	"slices"
 	"testing"
 
-	"gapcert/certs"
+	"gapcert/fem/claim"
 )
 
 // TestCatalogueInequalities: every inequality parses as a claim and names
@@ -17,20 +17,23 @@ func TestCatalogueInequalities(t *testing.T) {
 			t.Errorf("duplicate name %q", c.Name)
 		}
 		seen[c.Name] = true
-		cl, err := certs.ParseClaim(c.Inequality)
+		cl, err := claim.Parse(c.Inequality)
 		if err != nil {
 			t.Errorf("%s: %v", c.Name, err)
 			continue
 		}
-		var extra []string
-		if c.Reference != "" {
-			extra = []string{c.Reference}
-		}
-		if err := cl.Check(extra); err != nil {
-			t.Errorf("%s: %v", c.Name, err)
+		// The smallest problem every catalogue entry applies to: two
+		// eigenvalues, no Robin coefficient, no parameters.
+		for _, dim := range c.Dims {
+			if err := c.CheckScope(claim.Scope{Dim: dim, Vertices: 3 * (dim - 1), Eigenvalues: 2, NoAlpha: "no Robin side"}); err != nil {
+				t.Errorf("%s on dimension %d: %v", c.Name, dim, err)
+			}
 		}
 		if c.Reference != "" && !slices.Contains(cl.Vars(), c.Reference) {
 			t.Errorf("%s: reference %q unused", c.Name, c.Reference)
+		}
+		if (c.Reference == "") != (c.ReferenceResult == "") || c.ReferenceResult != "" && !claim.IsQuantity(c.ReferenceResult) {
+			t.Errorf("%s: reference %q denotes %q", c.Name, c.Reference, c.ReferenceResult)
 		}
 		if len(c.Hypotheses) == 0 || len(c.Dims) == 0 || c.Source == "" {
 			t.Errorf("%s: incomplete entry", c.Name)
@@ -59,5 +62,10 @@ func TestLookup(t *testing.T) {
 	}
 	if !IsNamed("  @x") || IsNamed("gap >= 1") {
 		t.Errorf("IsNamed")
+	}
+	c, _ := Lookup("@triangle_gap")
+	var ce *claim.Error
+	if err := c.CheckScope(claim.Scope{Dim: 1, Eigenvalues: 2}); !errors.As(err, &ce) || ce.Hint != "it applies to a polygon" {
+		t.Errorf("@triangle_gap on an interval: %v", err)
 	}
 }

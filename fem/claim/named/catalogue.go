@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"slices"
 	"strings"
+
+	"gapcert/fem/claim"
 )
 
 // Prefix marks a built-in claim in a problem's claims list.
@@ -21,8 +23,8 @@ const (
 	Rectangle         = "rectangle"
 )
 
-// RobinIntervalGap is the reference quantity of RobinComparison: the gap of
-// −u″ on the interval (0, D), D the diameter of the domain, with the
+// RobinIntervalGap is the reference quantity of @robin_comparison: the gap
+// of −u″ on the interval (0, D), D the diameter of the domain, with the
 // domain's Robin coefficient α at both ends.
 const RobinIntervalGap = "robin_interval_gap"
 
@@ -33,9 +35,12 @@ type Claim struct {
 	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon)
 	Hypotheses []string
 	// Reference is the name of a quantity used in Inequality that is
-	// certified by a separate computation ("" if none).
-	Reference string
-	Source    string // the theorem, or the conjecture and where it is proved
+	// certified by a separate computation ("" if none), and
+	// ReferenceResult the quantity of that computation's certificate it
+	// denotes (a name of claim.Quantities, e.g. "gap").
+	Reference       string
+	ReferenceResult string
+	Source          string // the theorem, or the conjecture and where it is proved
 }
 
 // Text returns the claim as written in a problem file ("@name").
@@ -43,6 +48,41 @@ func (c Claim) Text() string { return Prefix + c.Name }
 
 // Applies reports whether the claim applies to domains of dimension dim.
 func (c Claim) Applies(dim int) bool { return slices.Contains(c.Dims, dim) }
+
+// Parse returns the claim's inequality parsed by claim.Parse. The
+// catalogue's inequalities are tested to parse; a failure is a defect of
+// this package and panics.
+func (c Claim) Parse() *claim.Claim {
+	cl, err := claim.Parse(c.Inequality)
+	if err != nil {
+		panic("named: " + c.Text() + ": " + err.Error())
+	}
+	return cl
+}
+
+// CheckScope checks that the problem described by s provides every
+// quantity of the claim's inequality (its reference quantity counts as
+// provided: whether the reference can be computed is decided with it) and
+// that the claim applies to the domain's dimension. The error is a
+// *claim.Error on the claim text ("@name").
+func (c Claim) CheckScope(s claim.Scope) error {
+	if s.Dim != 0 && !c.Applies(s.Dim) {
+		where := map[int]string{1: "an interval", 2: "a polygon"}
+		var ok []string
+		for _, d := range c.Dims {
+			ok = append(ok, where[d])
+		}
+		return &claim.Error{Text: c.Text(), Col: 1, Msg: fmt.Sprintf("built-in claim %q does not apply to %s", c.Text(), where[s.Dim]), Hint: "it applies to " + strings.Join(ok, " or ")}
+	}
+	if c.Reference != "" {
+		s.Extra = append(slices.Clone(s.Extra), c.Reference)
+	}
+	if err := c.Parse().CheckScope(s); err != nil {
+		e := err.(*claim.Error)
+		return &claim.Error{Text: c.Text(), Col: 1, Msg: fmt.Sprintf("built-in claim %s (%s): %s", c.Text(), c.Inequality, e.Msg), Hint: e.Hint}
+	}
+	return nil
+}
 
 // catalogue lists the built-in claims.
 var catalogue = []Claim{
@@ -89,12 +129,13 @@ var catalogue = []Claim{
 	// Laugesen, The Robin Laplacian — spectral conjectures, rectangular
 	// theorems, arXiv:1905.07658 (2019).
 	{
-		Name:       "robin_comparison",
-		Inequality: "gap >= " + RobinIntervalGap,
-		Dims:       []int{2},
-		Hypotheses: []string{RobinBoundary, ZeroPotential, ConvexDomain, Rectangle},
-		Reference:  RobinIntervalGap,
-		Source:     "the Robin gap conjecture for convex domains (open); proved for rectangles by R. S. Laugesen, The Robin Laplacian — spectral conjectures, rectangular theorems, arXiv:1905.07658",
+		Name:            "robin_comparison",
+		Inequality:      "gap >= " + RobinIntervalGap,
+		Dims:            []int{2},
+		Hypotheses:      []string{RobinBoundary, ZeroPotential, ConvexDomain, Rectangle},
+		Reference:       RobinIntervalGap,
+		ReferenceResult: claim.Gap,
+		Source:          "the Robin gap conjecture for convex domains (open); proved for rectangles by R. S. Laugesen, The Robin Laplacian — spectral conjectures, rectangular theorems, arXiv:1905.07658",
 	},
 }
 
