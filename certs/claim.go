@@ -37,7 +37,7 @@ func EvaluateClaim(c *claim.Claim, env map[string]interval.I) ClaimResult {
 }
 
 // Quantity returns the recorded enclosure of the claim quantity name
-// (package claim): lambdak for a recorded eigenvalue, gap or D; false for
+// (package fem/claim): lambdak for a recorded eigenvalue, gap or D; false for
 // any other name (the other quantities are the problem's, not results).
 func (r Results) Quantity(name string) (Bound, bool) {
 	switch name {

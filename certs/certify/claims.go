@@ -50,7 +50,7 @@ func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.Claim
 }
 
 // claimEnv returns a value for every quantity p provides to its claims
-// (p.ClaimScope, package claim): the certified eigenvalues and gap of res,
+// (p.ClaimScope, package fem/claim): the certified eigenvalues and gap of res,
 // the diameter, area and perimeter of the domain, the inradius of a
 // triangle, the common Robin coefficient (p.RobinAlpha), pi, e and the
 // parameters. A parameter named alpha is the value of alpha.

@@ -14,7 +14,7 @@
 // range (plot.ScaleFor).
 //
 // Reference quantities. A built-in claim with a reference (package
-// claim/named) stores in its claim result the certificate of that
+// fem/claim/named) stores in its claim result the certificate of that
 // reference (certs.ClaimResult.Reference), and formulas may name the
 // quantity it certifies:
 //
