@@ -5,6 +5,7 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"errors"
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -591,5 +592,29 @@ func TestRobinExample(t *testing.T) {
 			t.Errorf("alpha = %s: lambda1 ∈ [%s, %s] not above the previous point's", p.Params["alpha"], p.Eigenvalues[0].Lower, p.Eigenvalues[0].Upper)
 		}
 		prev = l1.Hi
+	}
+}
+
+// TestProgressNumbering: progress lines name points by the index of their
+// file names and summaries, from 0.
+func TestProgressNumbering(t *testing.T) {
+	f := mustFamily(t, []byte(`{"template": {"domain": {"interval": ["0", "1"]}, "potential": "c", "boundary": "dirichlet",
+		"target": {"relative_width": "1e-3"}}, "parameters": [{"name": "c", "values": ["0", "1", "2"]}]}`))
+	var lines []string
+	opt := testOptions()
+	opt.Shard = Shard{Index: 0, Count: 2}
+	opt.Progress = func(format string, args ...any) { lines = append(lines, fmt.Sprintf(format, args...)) }
+	s, err := Run(f, t.TempDir(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(lines) != 2 || len(s.Points) != 2 {
+		t.Fatalf("%d progress lines, %d points", len(lines), len(s.Points))
+	}
+	for i, p := range s.Points {
+		want := fmt.Sprintf("point %d of 0…2 (c=%s): computed", p.Index, p.Params["c"])
+		if !strings.HasPrefix(lines[i], want) || !strings.HasPrefix(p.File, fmt.Sprintf("p%04d-", p.Index)) {
+			t.Errorf("progress line %q, file %s; want %q", lines[i], p.File, want)
+		}
 	}
 }

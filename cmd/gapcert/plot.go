@@ -93,6 +93,9 @@ with a certificate file.`,
 			if err := write(out); err != nil {
 				return fail(err)
 			}
+			if sh := s.Summary.Shard; sh.Count > 1 {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: shard %s: only its %d of the family's %d points are drawn (merge the shards for all)\n", s.Path, sh, len(s.Summary.Points), s.Summary.TotalPoints)
+			}
 			if uncertified > 0 {
 				fmt.Fprintf(cmd.ErrOrStderr(), "%s: %d point(s) without a certificate are not drawn\n", s.Path, uncertified)
 			}

@@ -273,7 +273,11 @@ func (s *Sweep) Map(x, y, claim string) (*Map, error) {
 	}
 	xs, ys := m.axes()
 	if len(xs) < 2 || len(ys) < 2 {
-		return nil, fmt.Errorf("a map needs at least two values of each parameter (%s has %d, %s has %d)", x, len(xs), y, len(ys))
+		err := fmt.Errorf("a map needs at least two values of each parameter (%s has %d, %s has %d)", x, len(xs), y, len(ys))
+		if sh := s.Summary.Shard; sh.Count > 1 {
+			err = fmt.Errorf("%v among the points of shard %s (hint: merge the shards and draw the merged directory)", err, sh)
+		}
+		return nil, err
 	}
 	return m, nil
 }
