@@ -58,6 +58,9 @@ type Source struct {
 	// parameter names in expansion order (nil when not a sweep directory).
 	Family     string
 	Parameters []string
+	// FamilyPoints is the number of points of the sweep family (0 when
+	// not a sweep directory); a shard's directory holds fewer entries.
+	FamilyPoints int
 }
 
 // Skipped is a JSON file of a directory that Read left out, and why.
@@ -186,7 +189,7 @@ func asPoints(src *Source, f *sweep.Family, familyFile string) error {
 		e.Point, e.Params = pt.Index, f.ParamText(pt)
 	}
 	slices.SortFunc(src.Entries, func(a, b Entry) int { return a.Point - b.Point })
-	src.Family, src.Parameters = f.Name, f.ParamNames()
+	src.Family, src.Parameters, src.FamilyPoints = f.Name, f.ParamNames(), len(f.Points)
 	return nil
 }
 

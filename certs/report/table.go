@@ -45,8 +45,10 @@ type Options struct {
 	Tool        string
 	Checked     bool
 	// Family is the name of the sweep family the certificates are points
-	// of (Source.Family), for the caption; "" when none.
-	Family string
+	// of (Source.Family), and FamilyPoints its number of points
+	// (Source.FamilyPoints), for the caption; "" and 0 when none.
+	Family       string
+	FamilyPoints int
 	// Parameters are parameter names (Source.Parameters). When not empty
 	// the table has a column of point indices (Entry.Point) and one column
 	// per parameter (the exact values of Entry.Params) in place of the
@@ -293,6 +295,9 @@ func caption(entries []Entry, st style, opt Options, lay layout, digest string) 
 	b.WriteString(st.text("Certified enclosures of ") + st.quantities(lay.eigen))
 	if opt.Family != "" {
 		b.WriteString(st.text(", one row per point of the sweep family " + opt.Family))
+	}
+	if opt.FamilyPoints > len(entries) {
+		b.WriteString(st.text(fmt.Sprintf(" (%d of its %d points)", len(entries), opt.FamilyPoints)))
 	}
 	b.WriteString(". ")
 	b.WriteString(st.notationNote(opt.Notation == Compact))

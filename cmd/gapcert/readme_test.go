@@ -87,7 +87,7 @@ func TestReadmeSweepWorkflow(t *testing.T) {
 	if err := os.WriteFile("triangles.json", []byte(family), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	outputs := make([]string, len(cmds))
+	outputs, errOutputs := make([]string, len(cmds)), make([]string, len(cmds))
 	for i, args := range cmds {
 		t0 := time.Now()
 		code, stdout, stderr := execute(args...)
@@ -95,7 +95,7 @@ func TestReadmeSweepWorkflow(t *testing.T) {
 		if code != exitOK {
 			t.Fatalf("gapcert %s: exit %d\nstdout:\n%s\nstderr:\n%s", strings.Join(args, " "), code, stdout, stderr)
 		}
-		outputs[i] = stdout
+		outputs[i], errOutputs[i] = stdout, stderr
 	}
 
 	// The merged directory stands alone: the family file, a certificate
@@ -152,6 +152,12 @@ func TestReadmeSweepWorkflow(t *testing.T) {
 		if !strings.Contains(c.text, "every certificate re-verified") || !strings.Contains(c.text, "one row per point of the sweep family triangles with base [0, 1] and apex (a, b)") {
 			t.Errorf("%s: caption:\n%s", c.name, c.text)
 		}
+	}
+	if !strings.Contains(shardTable, "(5 of its 9 points)") || !strings.Contains(errOutputs[len(cmds)-1], "5 of the family's 9 points have a certificate here") {
+		t.Errorf("the shard table does not say that it holds 5 of the 9 points (stderr %q)", errOutputs[len(cmds)-1])
+	}
+	if !strings.Contains(errOutputs[len(cmds)-2], "shard 0/2: only its 5 of the family's 9 points are drawn") {
+		t.Errorf("plot of a shard: stderr %q", errOutputs[len(cmds)-2])
 	}
 	if strings.Count(shardTable, " & holds \\\\\n") != 5 || !strings.Contains(shardTable, "listed after the table") || !strings.Contains(shardTable, "\n% ") || !strings.Contains(shardTable, "  p0008-") {
 		t.Errorf("shard-0 table: want 5 points and the hash list after the table:\n%s", shardTable)

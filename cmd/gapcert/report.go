@@ -72,7 +72,10 @@ memory budget, 3 if a certificate does not verify.`,
 				return &exitError{code: exitFailure, err: err}
 			}
 			entries := src.Entries
-			opt.Family, opt.Parameters = src.Family, src.Parameters
+			opt.Family, opt.Parameters, opt.FamilyPoints = src.Family, src.Parameters, src.FamilyPoints
+			if n := src.FamilyPoints; n > len(entries) {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: %d of the family's %d points have a certificate here; the table has those (merge the shards for all)\n", args[0], len(entries), n)
+			}
 			if out != "" {
 				opt.HashListFile = hashListFile(out)
 			}

@@ -84,7 +84,7 @@ func Load(path string) (*Sweep, error) {
 			continue
 		}
 		if filepath.Base(pt.File) != pt.File {
-			return nil, fmt.Errorf("%s: point %d: certificate file %q is not a plain file name", path, pt.Index, pt.File)
+			return nil, fmt.Errorf("%s: point %d: certificate file %q is not a plain file name (hint: merge writes the certificates beside its summary; merge the shards again into a new directory)", path, pt.Index, pt.File)
 		}
 		certPath := filepath.Join(dir, pt.File)
 		raw, err := readLimited(certPath, maxSummarySize)
