@@ -115,7 +115,7 @@ func Write(w io.Writer, entries []Entry, opt Options) error {
 		rows[i] = row
 	}
 	list := HashList(entries)
-	text := st.table(lay.heads(st), lay.align(), rows, caption(entries, st, opt, lay, ListDigest(list)))
+	text := st.table(lay.heads(st), lay.align(), rows, caption(entries, st, opt, ListDigest(list)))
 	if opt.HashListFile == "" {
 		text += st.list(list)
 	}
@@ -290,9 +290,12 @@ func problemName(c *certs.Certificate) string {
 	return p.Name
 }
 
-func caption(entries []Entry, st style, opt Options, lay layout, digest string) string {
+// caption is short whatever the number of rows: what the table is, how
+// to read an entry, who computed and who re-verified the certificates,
+// and one digest of all certificate files.
+func caption(entries []Entry, st style, opt Options, digest string) string {
 	var b strings.Builder
-	b.WriteString(st.text("Certified enclosures of ") + st.quantities(lay.eigen))
+	b.WriteString(st.text("Certified enclosures"))
 	if opt.Family != "" {
 		b.WriteString(st.text(", one row per point of the sweep family " + opt.Family))
 	}
@@ -301,7 +304,7 @@ func caption(entries []Entry, st style, opt Options, lay layout, digest string) 
 	}
 	b.WriteString(". ")
 	b.WriteString(st.notationNote(opt.Notation == Compact))
-	b.WriteString(" The printed lower end is at most, and the printed upper end at least, the certified bound (rounded outward in exact decimal arithmetic). ")
+	b.WriteString(st.text(" The printed ends are rounded outward from the certified bounds. "))
 	var tools []string
 	for _, e := range entries {
 		t := e.Cert.Provenance.Tool
@@ -326,7 +329,7 @@ func caption(entries []Entry, st style, opt Options, lay layout, digest string) 
 	if opt.HashListFile != "" {
 		where = "listed in " + opt.HashListFile
 	}
-	b.WriteString(" " + st.text(fmt.Sprintf("SHA-256 of the list of the %d certificate files (one line per file: its SHA-256, two spaces, its name; lines sorted; %s): ", len(entries), where)))
+	b.WriteString(" " + st.text(fmt.Sprintf("SHA-256 of the sorted sha256sum list of the %d certificate files (%s): ", len(entries), where)))
 	b.WriteString(st.code(digest))
 	b.WriteString(".")
 	return b.String()
@@ -342,7 +345,6 @@ type style interface {
 	notationNote(compact bool) string
 	paramHead(name string) string // the head of a parameter column
 	param(value string) string    // a parameter's exact value
-	quantities(eigen int) string  // what the table encloses, for the caption
 	lambdaHead(k int) string
 	gapHead() string
 	scaledGapHead() string
@@ -397,7 +399,7 @@ func (latexStyle) number(s Shown, compact bool) string {
 
 func (latexStyle) notationNote(compact bool) string {
 	if compact {
-		return `An entry $x_{a}^{b}$ is the interval from the number with the digits $x$ followed by $a$ to the number with the digits $x$ followed by $b$ (e.g.\ $9.8696_{04}^{12}$ is $[9.869604, 9.869612]$).`
+		return `An entry $x_{a}^{b}$ is the interval from the digits $x$ followed by $a$ to $x$ followed by $b$: $9.8696_{04}^{12} = [9.869604, 9.869612]$.`
 	}
 	return `An entry $[l, u]$ is the closed interval from $l$ to $u$.`
 }
@@ -416,10 +418,6 @@ func (st latexStyle) param(v string) string {
 	return st.text(v)
 }
 
-func (latexStyle) quantities(eigen int) string {
-	return fmt.Sprintf(`the %d lowest eigenvalues, the gap $\lambda_2-\lambda_1$ and $D^2(\lambda_2-\lambda_1)/\pi^2$`, eigen)
-}
-
 func (latexStyle) lambdaHead(k int) string { return fmt.Sprintf(`$\lambda_{%d}$`, k) }
 func (latexStyle) gapHead() string         { return `$\lambda_2-\lambda_1$` }
 func (latexStyle) scaledGapHead() string   { return `$D^2(\lambda_2-\lambda_1)/\pi^2$` }
@@ -429,7 +427,7 @@ func (latexStyle) scaledGapHead() string   { return `$D^2(\lambda_2-\lambda_1)/\
 func (st latexStyle) table(heads []string, align string, rows [][]string, caption string) string {
 	var b strings.Builder
 	head := strings.Join(heads, " & ") + " \\\\\n"
-	b.WriteString("% needs \\usepackage{longtable}\n")
+	b.WriteString("% needs \\usepackage{longtable}; a wide table fits with \\small or on a landscape page\n")
 	b.WriteString("\\begin{longtable}{" + align + "}\n")
 	b.WriteString("\\caption{" + caption + "}\\\\\n")
 	b.WriteString("\\hline\n" + head + "\\hline\n\\endfirsthead\n")
@@ -500,20 +498,16 @@ func (markdownStyle) number(s Shown, compact bool) string {
 
 func (markdownStyle) notationNote(compact bool) string {
 	if compact {
-		return "An entry x<sub>a</sub><sup>b</sup> is the interval from the number with the digits x followed by a to the number with the digits x followed by b (e.g. 9.8696<sub>04</sub><sup>12</sup> is [9.869604, 9.869612])."
+		return "An entry x<sub>a</sub><sup>b</sup> is the interval from the digits x followed by a to x followed by b: 9.8696<sub>04</sub><sup>12</sup> = [9.869604, 9.869612]."
 	}
 	return "An entry [l, u] is the closed interval from l to u."
 }
 
 func (st markdownStyle) paramHead(name string) string { return st.text(name) }
 func (st markdownStyle) param(v string) string        { return st.text(v) }
-func (markdownStyle) quantities(eigen int) string {
-	return fmt.Sprintf("the %d lowest eigenvalues, the gap λ2 − λ1 and D²·gap/π²", eigen)
-}
-
-func (markdownStyle) lambdaHead(k int) string { return fmt.Sprintf("λ%d", k) }
-func (markdownStyle) gapHead() string         { return "gap λ2 − λ1" }
-func (markdownStyle) scaledGapHead() string   { return "D²·gap/π²" }
+func (markdownStyle) lambdaHead(k int) string         { return fmt.Sprintf("λ%d", k) }
+func (markdownStyle) gapHead() string                 { return "gap λ2 − λ1" }
+func (markdownStyle) scaledGapHead() string           { return "D²·gap/π²" }
 
 func (markdownStyle) table(heads []string, align string, rows [][]string, caption string) string {
 	var b strings.Builder
