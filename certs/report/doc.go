@@ -1,6 +1,8 @@
 // Package report implements tables of certified enclosures for papers:
-// one row per gapcert certificate (problem name, λ1, λ2, the gap λ2 − λ1,
-// D²·(λ2 − λ1)/π² and the claim verdicts), written as LaTeX or Markdown.
+// one row per gapcert certificate (problem name, or for the points of a
+// sweep the point index and parameter values; every certified eigenvalue
+// λ1 … λN, the gap λ2 − λ1, D²·(λ2 − λ1)/π² and the claim verdicts),
+// written as LaTeX (a longtable, which breaks across pages) or Markdown.
 //
 // Enclosures are printed in the interval notation of the numerical
 // literature: the digits the two ends share, followed by the differing
@@ -21,11 +23,15 @@
 //     is below w·(1 + 2/10^(k−1)) (1.2·w for the default k = 2);
 //   - the caption names the tools that computed the certificates, says
 //     whether they were re-verified before the table was written (the
-//     caller's statement, Options.Checked), and gives the SHA-256 of each
-//     certificate file.
+//     caller's statement, Options.Checked), and gives one digest of all
+//     certificate files: the SHA-256 of their HashList, the lines
+//     "SHA-256  NAME" sorted bytewise (what "sha256sum FILES | sort"
+//     prints), which goes to a side file or after the table.
 //
 // Read collects certificates from a file or a directory (leaving out, and
-// reporting, JSON files that are not certificates); re-verifying them is
-// the caller's step (certify.Check), so that this package only reads and
-// prints.
+// reporting, JSON files that are not certificates); a sweep directory
+// (one holding the family file of package certs/sweep) is read as the
+// points of its family, each certificate matched to its point by problem
+// hash. Re-verifying the certificates is the caller's step
+// (certify.Check), so that this package only reads and prints.
 package report

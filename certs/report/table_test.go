@@ -2,13 +2,18 @@ package report
 
 import (
 	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
 	"math/big"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
+	"time"
 
 	"gapcert/certs"
+	"gapcert/certs/sweep"
 )
 
 func testdataEntries(t *testing.T) []Entry {
@@ -40,7 +45,13 @@ func TestGolden(t *testing.T) {
 		{"table.golden.md", Options{Format: Markdown, Tool: "gapcert test", Checked: true}},
 		{"table_bracket.golden.tex", Options{Format: LaTeX, Notation: Bracket, Tool: "gapcert test"}},
 		{"table_bracket.golden.md", Options{Format: Markdown, Notation: Bracket, Tool: "gapcert test"}},
+		{"table_points.golden.tex", Options{Format: LaTeX, Tool: "gapcert test", Checked: true, Family: "demo family", Parameters: []string{"q", "side"}, HashListFile: "table_points.sha256"}},
+		{"table_points.golden.md", Options{Format: Markdown, Tool: "gapcert test", Checked: true, Family: "demo family", Parameters: []string{"q", "side"}, HashListFile: "table_points.sha256"}},
 	} {
+		entries := entries
+		if c.opt.Parameters != nil {
+			entries = pointEntries(entries)
+		}
 		var buf bytes.Buffer
 		if err := Write(&buf, entries, c.opt); err != nil {
 			t.Fatal(err)
@@ -60,6 +71,17 @@ func TestGolden(t *testing.T) {
 			t.Errorf("%s differs from the output:\n%s", c.golden, buf.String())
 		}
 	}
+}
+
+// pointEntries returns the testdata certificates with the same claims
+// (the second and third) as if they were the points 4 and 7 of a sweep
+// over q and side: the values are attached for the layout only (demo
+// data; the tables of real sweeps are tested in TestReadSweep).
+func pointEntries(entries []Entry) []Entry {
+	pts := slices.Clone(entries[1:])
+	pts[0].Point, pts[0].Params = 4, map[string]string{"q": "1", "side": "1/3"}
+	pts[1].Point, pts[1].Params = 7, map[string]string{"q": "0", "side": "2.5"}
+	return pts
 }
 
 // piDigits is π to 50 decimals (OEIS A000796).
@@ -85,8 +107,12 @@ func TestTableContainsTruth(t *testing.T) {
 		"square":         {times(2, pi2), times(5, pi2), times(3, pi2), big.NewRat(6, 1)},
 	}
 	entries := testdataEntries(t)
+	lay := newLayout(entries, Options{})
+	if lay.eigen != 2 {
+		t.Fatalf("%d eigenvalue columns, want 2", lay.eigen)
+	}
 	for i, e := range entries {
-		row, err := tableRow(e, latexStyle{}, Options{})
+		row, err := tableRow(e, latexStyle{}, Options{}, lay)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -158,9 +184,13 @@ func TestRead(t *testing.T) {
 	write("problem.json", `{"domain": {"interval": ["0", "1"]}}`)
 	write("list.json", `[1, 2]`)
 	write("notes.txt", `not json`)
-	entries, skipped, err := Read(dir)
+	src, err := Read(dir)
 	if err != nil {
 		t.Fatal(err)
+	}
+	entries, skipped := src.Entries, src.Skipped
+	if src.Parameters != nil || entries[0].Point != -1 {
+		t.Errorf("a directory without a family file read as a sweep: %+v", src.Parameters)
 	}
 	if len(entries) != 2 || filepath.Base(entries[0].Path) != "a.json" || filepath.Base(entries[1].Path) != "b.json" {
 		t.Fatalf("entries %v, want a.json and b.json in this order", entries)
@@ -176,15 +206,15 @@ func TestRead(t *testing.T) {
 
 	// A broken certificate in a directory is an error, not skipped.
 	write("c.json", `{"format": "gapcert.certificate/v1", "problem": {}}`)
-	if _, _, err := Read(dir); err == nil || !strings.Contains(err.Error(), "c.json") {
+	if _, err := Read(dir); err == nil || !strings.Contains(err.Error(), "c.json") {
 		t.Errorf("Read with a broken certificate: %v, want an error naming c.json", err)
 	}
 	write("c.json", `{"format": "gapcert.certificate/v9"}`)
-	if _, _, err := Read(dir); err == nil || !strings.Contains(err.Error(), "not supported") {
+	if _, err := Read(dir); err == nil || !strings.Contains(err.Error(), "not supported") {
 		t.Errorf("Read with a certificate of another version: %v, want an error", err)
 	}
 	// A file given by name must be a certificate.
-	if _, _, err := Read(filepath.Join(dir, "summary.json")); err == nil {
+	if _, err := Read(filepath.Join(dir, "summary.json")); err == nil {
 		t.Error("Read(summary.json) succeeded, want an error")
 	}
 	// A directory without certificates.
@@ -193,7 +223,123 @@ func TestRead(t *testing.T) {
 	if err := os.WriteFile(write2, []byte(`{}`), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	if _, _, err := Read(empty); err == nil || !strings.Contains(err.Error(), "no gapcert certificates") {
+	if _, err := Read(empty); err == nil || !strings.Contains(err.Error(), "no gapcert certificates") {
 		t.Errorf("Read(empty dir) = %v, want an error", err)
+	}
+}
+
+// TestHashList: the list is what sha256sum prints for the files, sorted,
+// and the digest is the SHA-256 of that text.
+func TestHashList(t *testing.T) {
+	entries := testdataEntries(t)
+	list := HashList(entries)
+	var want []string
+	for _, name := range certificateFiles {
+		data, err := os.ReadFile(certPath(name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		sum := sha256.Sum256(data)
+		want = append(want, hex.EncodeToString(sum[:])+"  "+name+".cert.json\n")
+	}
+	slices.Sort(want)
+	if string(list) != strings.Join(want, "") {
+		t.Errorf("list:\n%s\nwant:\n%s", list, strings.Join(want, ""))
+	}
+	sum := sha256.Sum256([]byte(strings.Join(want, "")))
+	if got := ListDigest(list); got != hex.EncodeToString(sum[:]) {
+		t.Errorf("digest %s", got)
+	}
+	var buf bytes.Buffer
+	if err := Write(&buf, entries, Options{Format: Markdown, HashListFile: "t.sha256"}); err != nil {
+		t.Fatal(err)
+	}
+	if out := buf.String(); !strings.Contains(out, ListDigest(list)) || !strings.Contains(out, "listed in t.sha256") || strings.Contains(out, entries[0].FileSHA256) {
+		t.Errorf("a table with a list file should give the digest and the file, not the list:\n%s", out)
+	}
+}
+
+// TestReadSweep: a merged sweep directory and a shard directory are read
+// as sweeps: rows in point order with the parameter values, every
+// certified eigenvalue in a column (three here: on (0, π) with Dirichlet
+// ends and V = c constant, λk = k² + c, common practice), a column per
+// claim headed by its text. A certificate of another problem in the
+// directory is an error.
+func TestReadSweep(t *testing.T) {
+	f, err := sweep.ParseFamily([]byte(`{"name": "shifted string",
+		"template": {"domain": {"interval": ["0", "pi"]}, "potential": "c", "boundary": "dirichlet",
+		             "eigenvalues": 3, "claims": ["gap >= 2.9"], "target": {"relative_width": "1e-6"}},
+		"parameters": [{"name": "c", "values": ["0", "1/2", "3"]}]}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	root := t.TempDir()
+	shards := []string{filepath.Join(root, "shard-0"), filepath.Join(root, "shard-1")}
+	for i, dir := range shards {
+		if _, err := sweep.Run(f, dir, sweep.RunOptions{Shard: sweep.Shard{Index: i, Count: 2}, Now: func() time.Time { return fixedTime }}); err != nil {
+			t.Fatal(err)
+		}
+	}
+	merged := filepath.Join(root, "merged")
+	if _, err := sweep.Merge(shards, merged, nil); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		dir    string
+		points []int
+	}{{merged, []int{0, 1, 2}}, {shards[0], []int{0, 2}}} {
+		src, err := Read(c.dir)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(src.Skipped) != 0 || src.Family != "shifted string" || !slices.Equal(src.Parameters, []string{"c"}) {
+			t.Errorf("%s: skipped %v, family %q, parameters %v", c.dir, src.Skipped, src.Family, src.Parameters)
+		}
+		var got []int
+		for _, e := range src.Entries {
+			got = append(got, e.Point)
+		}
+		if !slices.Equal(got, c.points) {
+			t.Fatalf("%s: points %v, want %v", c.dir, got, c.points)
+		}
+		var buf bytes.Buffer
+		opt := Options{Format: Markdown, Family: src.Family, Parameters: src.Parameters}
+		if err := Write(&buf, src.Entries, opt); err != nil {
+			t.Fatal(err)
+		}
+		lines := strings.Split(buf.String(), "\n")
+		if lines[0] != "| point | c | λ1 | λ2 | λ3 | gap λ2 − λ1 | D²·gap/π² | `gap >= 2.9` |" {
+			t.Errorf("%s: header %q", c.dir, lines[0])
+		}
+		last := lines[1+len(c.points)]
+		if !strings.HasPrefix(last, "| 2 | 3 | ") || !strings.HasSuffix(last, " | holds |") {
+			t.Errorf("%s: last row %q", c.dir, last)
+		}
+		lay := newLayout(src.Entries, opt)
+		for _, e := range src.Entries {
+			row, err := tableRow(e, latexStyle{}, opt, lay)
+			if err != nil {
+				t.Fatal(err)
+			}
+			shift := rat(t, e.Params["c"])
+			for k := 1; k <= 3; k++ {
+				lo, hi := readLaTeX(t, row[1+k])
+				want := new(big.Rat).Add(big.NewRat(int64(k*k), 1), shift)
+				if lo.Cmp(want) > 0 || hi.Cmp(want) < 0 {
+					t.Errorf("point %d: lambda%d cell %s does not contain %s", e.Point, k, row[1+k], want.RatString())
+				}
+			}
+		}
+	}
+	// A certificate of another problem in a sweep directory.
+	foreign, err := os.ReadFile(certPath("mathieu_q1"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(shards[1], "extra.cert.json"), foreign, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Read(shards[1]); err == nil || !strings.Contains(err.Error(), "not a point of the sweep family") {
+		t.Errorf("Read with a foreign certificate: %v", err)
 	}
 }

@@ -72,8 +72,11 @@
 //
 // Merge gathers the directories of all shards (one shared directory or
 // one per shard), demands that every point has exactly one certificate,
-// that each belongs to its point and verifies, and writes the merged
-// summary.
+// that each belongs to its point and verifies, and makes its output a
+// sweep directory of the whole family that stands alone: the verified
+// certificates and the family file copied into it, and the merged summary,
+// whose file names are plain names in it. SummaryIn finds the summary of
+// a sweep directory (summary.json, else a shard's own summary).
 //
 // Nothing here decides a bound: every number in a summary is copied from
 // a certificate, and every certificate kept, merged or replaced has been

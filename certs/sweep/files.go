@@ -6,7 +6,9 @@ import (
 	"encoding/csv"
 	"encoding/hex"
 	"encoding/json"
+	"errors"
 	"fmt"
+	"io/fs"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -108,14 +110,19 @@ func UnmarshalSummary(data []byte) (*Summary, error) {
 // per point with the columns index, one per parameter (exact text),
 // status, verdict, lambda<k>_lower/upper for each eigenvalue of the first
 // point, gap_lower/upper, gap_d2_over_pi2_lower/upper, one verdict column
-// per claim (claim1, …; the claim texts are in summary.json), file,
+// per claim named by the claim's text ("gap >= 3*pi^2/D^2",
+// "@triangle_gap"; every point of a family has the same claims), file,
 // certificate_sha256, error. Bounds are the certificate's decimal strings.
 func SummaryCSV(s *Summary) ([]byte, error) {
-	eigen, claims := 0, 0
+	eigen := 0
+	var claimTexts []string
 	for _, p := range s.Points {
 		eigen = max(eigen, len(p.Eigenvalues))
-		claims = max(claims, len(p.Claims))
+		for c := len(claimTexts); c < len(p.Claims); c++ {
+			claimTexts = append(claimTexts, p.Claims[c].Text)
+		}
 	}
+	claims := len(claimTexts)
 	header := []string{"index"}
 	header = append(header, s.Parameters...)
 	header = append(header, "status", "verdict")
@@ -123,9 +130,7 @@ func SummaryCSV(s *Summary) ([]byte, error) {
 		header = append(header, fmt.Sprintf("lambda%d_lower", k), fmt.Sprintf("lambda%d_upper", k))
 	}
 	header = append(header, "gap_lower", "gap_upper", "gap_d2_over_pi2_lower", "gap_d2_over_pi2_upper")
-	for c := 1; c <= claims; c++ {
-		header = append(header, fmt.Sprintf("claim%d", c))
-	}
+	header = append(header, claimTexts...)
 	header = append(header, "file", "certificate_sha256", "error")
 	var buf bytes.Buffer
 	w := csv.NewWriter(&buf)
@@ -238,4 +243,30 @@ func knownWidths(sums []*Summary) map[string]string {
 		}
 	}
 	return widths
+}
+
+// SummaryIn returns the path of the summary of the sweep directory dir:
+// dir/summary.json (an unsharded run, or a merge) if it exists, else the
+// one shard summary (summary-shard-i-of-n.json) in dir. A directory
+// without a summary, or with several shard summaries and no summary.json
+// (shards that shared one directory), is an error saying what to do.
+func SummaryIn(dir string) (string, error) {
+	path := filepath.Join(dir, SummaryFileName(whole)+".json")
+	if _, err := os.Stat(path); !errors.Is(err, fs.ErrNotExist) {
+		return path, err
+	}
+	shards, err := filepath.Glob(filepath.Join(dir, "summary-shard-*-of-*.json"))
+	if err != nil {
+		return "", err
+	}
+	switch len(shards) {
+	case 0:
+		if _, err := os.Stat(filepath.Join(dir, FamilyFileName)); err != nil {
+			return "", fmt.Errorf("%s: not a sweep directory (no %s, no summary.json or summary-shard-i-of-n.json); give a directory written by sweep or merge, or a summary file", dir, FamilyFileName)
+		}
+		return "", fmt.Errorf("%s: no sweep summary (summary.json or summary-shard-i-of-n.json); the sweep has not finished a run here (run it again to resume)", dir)
+	case 1:
+		return shards[0], nil
+	}
+	return "", fmt.Errorf("%s holds %d shard summaries (%s …); give one of them, or merge the directory (merge %s --out %s) and use summary.json", dir, len(shards), filepath.Base(shards[0]), dir, dir)
 }

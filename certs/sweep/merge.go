@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 	"io/fs"
@@ -67,8 +68,12 @@ func (e *MergeError) Error() string {
 
 // Merge gathers the certificates of the sweep directories dirs (outputs of
 // Run, in any split into shards), checks that they form the whole family
-// and writes the merged summary to outDir (summary.json and summary.csv,
-// which must not exist).
+// and makes outDir a sweep directory of the whole family that stands
+// alone: it copies every certificate into outDir (under its own name),
+// copies the family file (FamilyFileName) and writes the merged summary
+// (summary.json and summary.csv, which must not exist), whose file names
+// are plain names in outDir. outDir may be one of dirs (a directory that
+// all shards shared merges into itself).
 //
 // Every directory must hold the same family file (FamilyFileName). Every
 // file named *.cert.json in them must be the certificate of a point of
@@ -77,9 +82,13 @@ func (e *MergeError) Error() string {
 // equal to the point's problem hash) and it verifies (certify.Check).
 // Every point must have exactly one such certificate. Otherwise Merge
 // returns a *MergeError listing each foreign, tampered, duplicate and
-// missing file or point, and writes nothing. File paths in the merged
-// summary are relative to outDir. Certificates are checked on GOMAXPROCS
-// goroutines.
+// missing file or point, and writes nothing. Nothing is written either
+// when outDir already holds a different file under the name of a
+// certificate or of the family file, or a certificate file that is not
+// one of the merged ones. The certificates are written first (each
+// through a temporary file and a rename), the summary last, so a summary
+// in outDir means that every file it names is there. Certificates are
+// checked on GOMAXPROCS goroutines.
 func Merge(dirs []string, outDir string, progress func(format string, args ...any)) (*Summary, error) {
 	if len(dirs) == 0 {
 		return nil, errors.New("no sweep directories to merge")
@@ -163,23 +172,15 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 		Parameters:   f.ParamNames(),
 		TotalPoints:  len(f.Points),
 	}
+	var sources []verifiedFile
 	for _, pt := range f.Points {
 		p := points[pt.Index]
-		abs, err := filepath.Abs(found[pt.Index][0])
-		if err != nil {
-			return nil, err
-		}
-		absOut, err := filepath.Abs(outDir)
-		if err != nil {
-			return nil, err
-		}
-		if p.File, err = filepath.Rel(absOut, abs); err != nil {
-			p.File = abs
-		}
-		p.File = filepath.ToSlash(p.File)
+		sources = append(sources, verifiedFile{path: found[pt.Index][0], sha256: p.CertificateSHA256})
+		p.File = filepath.Base(found[pt.Index][0])
 		s.Points = append(s.Points, *p)
 	}
-	if err := os.MkdirAll(outDir, 0o755); err != nil {
+	copies, err := planCopies(outDir, sources, f.data)
+	if err != nil {
 		return nil, err
 	}
 	base := SummaryFileName(whole)
@@ -188,10 +189,83 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 			return nil, fmt.Errorf("%s exists; not overwritten (choose another output directory)", filepath.Join(outDir, base+ext))
 		}
 	}
+	if err := os.MkdirAll(outDir, 0o755); err != nil {
+		return nil, err
+	}
+	for _, c := range copies {
+		if err := writeNew(c.to, c.data, false); err != nil {
+			return nil, err
+		}
+	}
 	if err := writeSummary(outDir, base, s); err != nil {
 		return nil, err
 	}
 	return s, nil
+}
+
+// fileCopy is a file Merge writes into its output directory.
+type fileCopy struct {
+	to   string
+	data []byte
+}
+
+// verifiedFile is a certificate file that Merge verified, and the SHA-256
+// of the bytes it verified.
+type verifiedFile struct {
+	path, sha256 string
+}
+
+// planCopies returns the files that make outDir a sweep directory of the
+// merged family: each certificate in sources, read again and demanded to
+// be the bytes that were verified, that is not
+// already in outDir under its name with the same bytes, and the family
+// file. It refuses an outDir that holds, under one of these names, a file
+// with other bytes, or a certificate file that is not one of sources, so
+// that the merged directory holds the merged certificates and nothing
+// else of their kind.
+func planCopies(outDir string, sources []verifiedFile, family []byte) ([]fileCopy, error) {
+	names := map[string]bool{}
+	var copies []fileCopy
+	add := func(name string, data []byte) error {
+		to := filepath.Join(outDir, name)
+		old, err := os.ReadFile(to)
+		switch {
+		case errors.Is(err, fs.ErrNotExist):
+			copies = append(copies, fileCopy{to: to, data: data})
+		case err != nil:
+			return err
+		case !bytes.Equal(old, data):
+			return fmt.Errorf("%s exists and differs from the merged file of that name; not overwritten (choose another output directory)", to)
+		}
+		return nil
+	}
+	for _, src := range sources {
+		data, err := os.ReadFile(src.path)
+		if err != nil {
+			return nil, err
+		}
+		if sha256Hex(data) != src.sha256 {
+			return nil, fmt.Errorf("%s changed after it was verified; nothing merged (run the merge again)", src.path)
+		}
+		name := filepath.Base(src.path)
+		names[name] = true
+		if err := add(name, data); err != nil {
+			return nil, err
+		}
+	}
+	if err := add(FamilyFileName, family); err != nil {
+		return nil, err
+	}
+	entries, err := os.ReadDir(outDir)
+	if err != nil && !errors.Is(err, fs.ErrNotExist) {
+		return nil, err
+	}
+	for _, e := range entries {
+		if strings.HasSuffix(e.Name(), certSuffix) && !names[e.Name()] {
+			return nil, fmt.Errorf("%s holds %s, which is not one of the merged certificates; choose another output directory", outDir, e.Name())
+		}
+	}
+	return copies, nil
 }
 
 // checkedFile is the outcome of mergeFile.

@@ -46,7 +46,8 @@ type RunOptions struct {
 	// Jobs is the number of points certified at a time (0 or 1: one).
 	// Certificates do not depend on it, except through the time limit.
 	Jobs int
-	// Progress receives one line per point; nil = quiet.
+	// Progress receives one line per point, naming it by its index (from
+	// 0, as in file names and summaries); nil = quiet.
 	Progress func(format string, args ...any)
 }
 
@@ -146,7 +147,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		}
 		mu.Lock()
 		defer mu.Unlock()
-		opt.Progress("point %d/%d (%s): %s (%.2fs)\n", pt.Index+1, len(f.Points), f.describe(pt), msg, time.Since(t0).Seconds())
+		opt.Progress("point %d of 0…%d (%s): %s (%.2fs)\n", pt.Index, len(f.Points)-1, f.describe(pt), msg, time.Since(t0).Seconds())
 	})
 	if err := writeSummary(dir, base, s); err != nil {
 		return s, err

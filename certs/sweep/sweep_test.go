@@ -5,6 +5,7 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"errors"
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -167,11 +168,25 @@ func TestShardsMergeEqualsWhole(t *testing.T) {
 	if back.FamilySHA256 != f.SHA256 || back.TotalPoints != len(f.Points) || back.Shard != (Shard{0, 1}) {
 		t.Errorf("merged summary header %+v", back)
 	}
-	for _, p := range back.Points[:3] {
-		cert := filepath.Join(root, "merged", filepath.FromSlash(p.File))
-		if b, err := os.ReadFile(cert); err != nil || sha256Hex(b) != p.CertificateSHA256 {
+	// The merged directory stands alone: every file the summary names is a
+	// plain name of a copy in it, with the family file beside them.
+	for _, p := range back.Points {
+		if filepath.Base(p.File) != p.File {
+			t.Errorf("merged summary names %q, not a plain file name", p.File)
+		}
+		if b, err := os.ReadFile(filepath.Join(root, "merged", p.File)); err != nil || sha256Hex(b) != p.CertificateSHA256 {
 			t.Errorf("merged summary file %s does not lead to its certificate (%v)", p.File, err)
 		}
+	}
+	if fam, err := os.ReadFile(filepath.Join(root, "merged", FamilyFileName)); err != nil || !bytes.Equal(fam, f.data) {
+		t.Errorf("merged directory lacks the family file (%v)", err)
+	}
+	if got := certFiles(t, filepath.Join(root, "merged")); len(got) != len(f.Points) {
+		t.Errorf("merged directory holds %d certificates, want %d", len(got), len(f.Points))
+	}
+	// The merged directory is itself a sweep directory of the family.
+	if _, err := Merge([]string{filepath.Join(root, "merged")}, filepath.Join(root, "again"), nil); err != nil {
+		t.Errorf("merging the merged directory: %v", err)
 	}
 }
 
@@ -335,7 +350,7 @@ func checkCSV(t *testing.T, path string, s *Summary) {
 	for i, h := range rows[0] {
 		col[h] = i
 	}
-	for _, h := range []string{"index", "c", "status", "verdict", "lambda1_lower", "lambda2_upper", "gap_lower", "gap_upper", "claim1", "file", "certificate_sha256"} {
+	for _, h := range []string{"index", "c", "status", "verdict", "lambda1_lower", "lambda2_upper", "gap_lower", "gap_upper", "gap >= 3*pi^2/D^2", "file", "certificate_sha256"} {
 		if _, ok := col[h]; !ok {
 			t.Fatalf("CSV header %v lacks %q", rows[0], h)
 		}
@@ -344,7 +359,7 @@ func checkCSV(t *testing.T, path string, s *Summary) {
 		r := rows[i+1]
 		if r[col["index"]] != strconv.Itoa(p.Index) || r[col["c"]] != p.Params["c"] || r[col["verdict"]] != p.Verdict ||
 			r[col["gap_lower"]] != p.Gap.Lower || r[col["lambda2_upper"]] != p.Eigenvalues[1].Upper ||
-			r[col["claim1"]] != p.Claims[0].Verdict || r[col["certificate_sha256"]] != p.CertificateSHA256 {
+			r[col["gap >= 3*pi^2/D^2"]] != p.Claims[0].Verdict || r[col["certificate_sha256"]] != p.CertificateSHA256 {
 			t.Errorf("CSV row %d %v does not match point %+v", i+1, r, p)
 		}
 	}
@@ -390,8 +405,58 @@ func TestMergeFlags(t *testing.T) {
 	if _, err := Merge(dirs, out, nil); err != nil {
 		t.Fatalf("clean merge: %v", err)
 	}
+	if got, err := SummaryIn(out); err != nil || got != filepath.Join(out, "summary.json") {
+		t.Errorf("SummaryIn(merged) = %q, %v", got, err)
+	}
+	if got, err := SummaryIn(dirs[1]); err != nil || got != filepath.Join(dirs[1], "summary-shard-1-of-3.json") {
+		t.Errorf("SummaryIn(shard 1) = %q, %v", got, err)
+	}
+	if _, err := SummaryIn(root); err == nil || !strings.Contains(err.Error(), "not a sweep directory") {
+		t.Errorf("SummaryIn(not a sweep directory) = %v", err)
+	}
 	if err := os.RemoveAll(out); err != nil {
 		t.Fatal(err)
+	}
+	// An output directory that holds another certificate, or another file
+	// under a merged name, is refused and left as it was.
+	for _, c := range []struct{ name, want string }{
+		{"other.cert.json", "not one of the merged certificates"},
+		{FamilyFileName, "differs from the merged file"},
+		{sums[1].Points[0].File, "differs from the merged file"},
+	} {
+		if err := os.MkdirAll(out, 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(out, c.name), []byte("{}"), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := Merge(dirs, out, nil); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("merge into a directory holding %s: %v, want %q", c.name, err, c.want)
+		}
+		if files, _ := os.ReadDir(out); len(files) != 1 {
+			t.Errorf("merge into a directory holding %s wrote %d files", c.name, len(files)-1)
+		}
+		if err := os.RemoveAll(out); err != nil {
+			t.Fatal(err)
+		}
+	}
+	// Shards that shared one directory merge into it.
+	shared := filepath.Join(root, "shared")
+	for i := 0; i < 2; i++ {
+		opt := testOptions()
+		opt.Shard = Shard{Index: i, Count: 2}
+		if _, err := Run(f, shared, opt); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if _, err := SummaryIn(shared); err == nil || !strings.Contains(err.Error(), "2 shard summaries") {
+		t.Errorf("SummaryIn(shared) = %v", err)
+	}
+	if _, err := Merge([]string{shared}, shared, nil); err != nil {
+		t.Errorf("merging a shared directory into itself: %v", err)
+	}
+	if got, err := SummaryIn(shared); err != nil || got != filepath.Join(shared, "summary.json") {
+		t.Errorf("SummaryIn(shared, merged) = %q, %v", got, err)
 	}
 	if _, err := Merge(append(dirs, dirs[0]), out, nil); err == nil || !strings.Contains(err.Error(), "listed twice") {
 		t.Errorf("merge with a directory listed twice: %v", err)
@@ -527,5 +592,29 @@ func TestRobinExample(t *testing.T) {
 			t.Errorf("alpha = %s: lambda1 ∈ [%s, %s] not above the previous point's", p.Params["alpha"], p.Eigenvalues[0].Lower, p.Eigenvalues[0].Upper)
 		}
 		prev = l1.Hi
+	}
+}
+
+// TestProgressNumbering: progress lines name points by the index of their
+// file names and summaries, from 0.
+func TestProgressNumbering(t *testing.T) {
+	f := mustFamily(t, []byte(`{"template": {"domain": {"interval": ["0", "1"]}, "potential": "c", "boundary": "dirichlet",
+		"target": {"relative_width": "1e-3"}}, "parameters": [{"name": "c", "values": ["0", "1", "2"]}]}`))
+	var lines []string
+	opt := testOptions()
+	opt.Shard = Shard{Index: 0, Count: 2}
+	opt.Progress = func(format string, args ...any) { lines = append(lines, fmt.Sprintf(format, args...)) }
+	s, err := Run(f, t.TempDir(), opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(lines) != 2 || len(s.Points) != 2 {
+		t.Fatalf("%d progress lines, %d points", len(lines), len(s.Points))
+	}
+	for i, p := range s.Points {
+		want := fmt.Sprintf("point %d of 0…2 (c=%s): computed", p.Index, p.Params["c"])
+		if !strings.HasPrefix(lines[i], want) || !strings.HasPrefix(p.File, fmt.Sprintf("p%04d-", p.Index)) {
+			t.Errorf("progress line %q, file %s; want %q", lines[i], p.File, want)
+		}
 	}
 }

@@ -21,9 +21,14 @@ in any split into shards), checks that they hold the same family file,
 that every certificate in them is the certificate of a point of that
 family (its name, its recorded problem and its hash agree with the
 expansion of the point) and verifies (it is recomputed as by "gapcert
-check"), and that every point has exactly one certificate. It then writes
-summary.json and summary.csv to the --out directory (never overwriting
-them) and lists the points where a claim fails or is undecided.
+check"), and that every point has exactly one certificate. It then makes
+the --out directory a sweep directory that stands alone: it copies every
+certificate and family.json into it and writes summary.json and
+summary.csv there (never overwriting them; a directory holding other
+certificates, or other files under those names, is refused), so that
+"gapcert plot" and "gapcert report" work on it. It lists the points where
+a claim fails or is undecided. Shards that shared one directory merge
+into it (merge DIR --out DIR).
 
 Foreign, tampered, duplicate and missing files or points are listed one per
 line; nothing is written then.

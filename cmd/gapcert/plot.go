@@ -15,8 +15,9 @@ func newPlotCmd() *cobra.Command {
 		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N) --out FILE.png|.svg",
 		Short: "Draw the certified results of a sweep against its parameters",
 		Long: `plot draws the certified results of a sweep ("gapcert sweep"), read from
-its summary (SUMMARY.json, or DIR/summary.json) and cross-checked against
-the certificate files beside it (file SHA-256, problem hash, every
+its summary (SUMMARY.json; for a directory DIR/summary.json, written by
+an unsharded sweep or by merge, else the one summary-shard-i-of-n.json of
+a shard directory) and cross-checked against the certificate files beside it (file SHA-256, problem hash, every
 enclosure and claim result).
 
 One-parameter sweeps, --x PARAM --quantity EXPR [--reference EXPR]
@@ -38,7 +39,8 @@ of the point's own claims.
 Two-parameter sweeps, --x PARAM --y PARAM --claim N|TEXT: a map of cells,
 each coloured by the certified lower bound of the margin of the claim
 (lhs − rhs for >=, >; rhs − lhs for <=, <), undecided and failing cells
-marked.
+marked. The claim may be built in ("@triangle_gap"): the margin is the
+enclosure of lhs − rhs stored in each certificate.
 
 Enclosures narrower than a line do not show on a band; --band width adds a
 panel of each enclosure's width hi − lo on a logarithmic axis, and --band
@@ -107,6 +109,9 @@ with a certificate file.`,
 			}
 			if err := write(out); err != nil {
 				return fail(err)
+			}
+			if sh := s.Summary.Shard; sh.Count > 1 {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: shard %s: only its %d of the family's %d points are drawn (merge the shards for all)\n", s.Path, sh, len(s.Summary.Points), s.Summary.TotalPoints)
 			}
 			if uncertified > 0 {
 				fmt.Fprintf(cmd.ErrOrStderr(), "%s: %d point(s) without a certificate are not drawn\n", s.Path, uncertified)

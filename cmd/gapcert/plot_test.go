@@ -95,7 +95,7 @@ func TestPlotAndCertifyPlot(t *testing.T) {
 	if !strings.Contains(out, filepath.Join(dir, "modes.png")) {
 		t.Errorf("certify --plot did not draw the modes:\n%s", out)
 	}
-	if code, _, errs := execute("plot", dir, "--x", "c", "--quantity", "gap", "--out", filepath.Join(dir, "p.png")); code != exitFailure || !strings.Contains(errs, "summary.json") {
+	if code, _, errs := execute("plot", dir, "--x", "c", "--quantity", "gap", "--out", filepath.Join(dir, "p.png")); code != exitFailure || !strings.Contains(errs, dir+": not a sweep directory (no family.json, no summary.json") {
 		t.Errorf("plot of a directory without a summary: exit %d, stderr %q", code, errs)
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -33,8 +34,20 @@ leading digits with the differing trailing digits of the lower end as a
 subscript and of the upper end as a superscript (9.86960440_{1}^{3} is
 [9.869604401, 9.869604403]), or as [lower, upper] with --notation bracket.
 The printed lower end is at most and the printed upper end at least the
-certified bound (rounded outward in exact decimal arithmetic). The caption
-names the tool versions and the SHA-256 of each certificate file.
+certified bound (rounded outward in exact decimal arithmetic). Every
+certified eigenvalue has a column; claims have a column each, headed by
+their text, when every certificate has the same claims. LaTeX output is a
+longtable (\usepackage{longtable}), which breaks across pages.
+
+A sweep directory (one with the family.json of "gapcert sweep", such as a
+shard directory or the output of "gapcert merge") gives one row per point,
+in point order, with the point's index and parameter values as columns;
+every certificate there must be of a point of the family.
+
+The caption names the tool versions and one digest of all certificate
+files: the SHA-256 of their list, the lines "SHA-256  file name" sorted
+(what "sha256sum FILES | sort" prints). The list is written beside the
+table (-o table.tex writes table.sha256), or after the table on stdout.
 
 Every certificate is re-verified by recomputation first (as "gapcert
 check" does) unless --no-check is given; the caption says which.
@@ -56,17 +69,26 @@ memory budget, 3 if a certificate does not verify.`,
 					return err
 				}
 			}
-			entries, skipped, err := report.Read(args[0])
-			for _, s := range skipped {
+			src, err := report.Read(args[0])
+			for _, s := range src.Skipped {
 				fmt.Fprintf(cmd.ErrOrStderr(), "%s: left out: %s\n", s.Path, s.Reason)
 			}
 			if err != nil {
 				return readFailure(err)
 			}
+			entries := src.Entries
 			if out != "" {
-				if err := checkOutputFile(out, readPaths(entries, skipped)...); err != nil {
-					return err
+				opt.HashListFile = hashListFile(out)
+				inputs := readPaths(entries, src.Skipped)
+				for _, o := range []string{out, opt.HashListFile} {
+					if err := checkOutputFile(o, inputs...); err != nil {
+						return err
+					}
 				}
+			}
+			opt.Family, opt.Parameters, opt.FamilyPoints = src.Family, src.Parameters, src.FamilyPoints
+			if n := src.FamilyPoints; n > len(entries) {
+				fmt.Fprintf(cmd.ErrOrStderr(), "%s: %d of the family's %d points have a certificate here; the table has those (merge the shards for all)\n", args[0], len(entries), n)
 			}
 			if !noCheck {
 				for _, e := range entries {
@@ -83,6 +105,9 @@ memory budget, 3 if a certificate does not verify.`,
 				_, err = cmd.OutOrStdout().Write(buf.Bytes())
 			} else {
 				err = outfile.Write(out, buf.Bytes())
+				if err == nil {
+					err = outfile.Write(opt.HashListFile, report.HashList(entries))
+				}
 			}
 			if err != nil {
 				return &exitError{code: exitFailure, err: err}
@@ -96,6 +121,18 @@ memory budget, 3 if a certificate does not verify.`,
 	cmd.Flags().BoolVar(&noCheck, "no-check", false, "do not re-verify the certificates (the caption says so)")
 	cmd.Flags().StringVarP(&out, "out", "o", "", "write the table to this file instead of stdout")
 	return cmd
+}
+
+// hashListFile is the file beside the table out that lists the SHA-256 of
+// the certificate files: out with its extension replaced by ".sha256"
+// (table.tex → table.sha256), or with ".sha256" appended when it has none
+// or already ends so.
+func hashListFile(out string) string {
+	ext := filepath.Ext(out)
+	if ext == "" || ext == ".sha256" {
+		return out + ".sha256"
+	}
+	return strings.TrimSuffix(out, ext) + ".sha256"
 }
 
 // checkEntry re-verifies one certificate of a report, with the exit codes

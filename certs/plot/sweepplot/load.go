@@ -39,8 +39,9 @@ type Sweep struct {
 	Missing int
 }
 
-// Load reads the sweep summary at path (a summary JSON file, or a
-// directory holding summary.json) and cross-checks every point against its
+// Load reads the sweep summary at path (a summary JSON file, or a sweep
+// directory: its summary.json, else its one shard summary, see
+// sweep.SummaryIn) and cross-checks every point against its
 // certificate file when the file is in the summary's directory: the file's
 // SHA-256 must be the point's certificate_sha256, and its problem hash,
 // eigenvalue, gap, diameter and D²·gap/π² enclosures and claim results
@@ -56,7 +57,9 @@ func Load(path string) (*Sweep, error) {
 		return nil, err
 	}
 	if st.IsDir() {
-		path = filepath.Join(path, sweep.SummaryFileName(sweep.Shard{Index: 0, Count: 1})+".json")
+		if path, err = sweep.SummaryIn(path); err != nil {
+			return nil, err
+		}
 	}
 	data, err := readLimited(path, maxSummarySize)
 	if err != nil {
@@ -81,7 +84,7 @@ func Load(path string) (*Sweep, error) {
 			continue
 		}
 		if filepath.Base(pt.File) != pt.File {
-			return nil, fmt.Errorf("%s: point %d: certificate file %q is not a plain file name", path, pt.Index, pt.File)
+			return nil, fmt.Errorf("%s: point %d: certificate file %q is not a plain file name (hint: merge writes the certificates beside its summary; merge the shards again into a new directory)", path, pt.Index, pt.File)
 		}
 		certPath := filepath.Join(dir, pt.File)
 		raw, err := readLimited(certPath, maxSummarySize)

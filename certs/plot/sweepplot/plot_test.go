@@ -15,6 +15,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/plot"
+	"gapcert/certs/sweep"
 	"gapcert/interval/decimalio"
 )
 
@@ -241,5 +242,81 @@ func TestBandWithoutThreshold(t *testing.T) {
 	}
 	if text := strings.Join(summarise(t, svg).Texts, "\n"); !strings.Contains(text, "a claim fails (the point's certificate) (2)") {
 		t.Errorf("legend lacks the summary verdicts:\n%s", text)
+	}
+}
+
+// TestMapOfBuiltInClaim: a map of the built-in claim @triangle_gap (which
+// stands for D²·gap ≥ 64π²/9, Z. Lu and J. Rowlett, Comm. Math. Phys. 319
+// (2013)) over a 2 × 2 triangle sweep in two shards, drawn from one shard
+// directory and from the merged one. The margin of each cell is the lower
+// end of the certificate's stored enclosure of lhs − rhs, read back
+// downward; at apex (1, 1), the isosceles right triangle with legs 1
+// (λ1 = 5π², λ2 = 10π², D = √2; common practice), the margin
+// 10π² − 64π²/9 = 26π²/9 lies in the cell's certified margin.
+func TestMapOfBuiltInClaim(t *testing.T) {
+	f, err := sweep.ParseFamily([]byte(`{"template": {"domain": {"polygon": [["0","0"],["1","0"],["a","b"]]},
+		"boundary": "dirichlet", "claims": ["@triangle_gap"]},
+		"parameters": [{"name": "a", "values": ["1/2", "1"]}, {"name": "b", "values": ["1/2", "1"]}],
+		"relative_width": "0.05", "time_limit": "60s"}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	root := t.TempDir()
+	shards := []string{filepath.Join(root, "shard-0"), filepath.Join(root, "shard-1")}
+	for i, dir := range shards {
+		if _, err := sweep.Run(f, dir, sweep.RunOptions{Shard: sweep.Shard{Index: i, Count: 2}}); err != nil {
+			t.Fatal(err)
+		}
+	}
+	merged := filepath.Join(root, "merged")
+	if _, err := sweep.Merge(shards, merged, nil); err != nil {
+		t.Fatal(err)
+	}
+	pi, _ := decimalio.ParseRat(piDigits)
+	truth := new(big.Rat).Mul(new(big.Rat).Mul(pi, pi), big.NewRat(26, 9))
+	for _, c := range []struct {
+		dir   string
+		cells int
+	}{{merged, 4}, {shards[1], 2}} {
+		s, err := Load(c.dir)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if s.Missing != 0 {
+			t.Errorf("%s: %d certificate files not found", c.dir, s.Missing)
+		}
+		for _, claim := range []string{"1", "@triangle_gap"} {
+			m, err := s.Map("a", "b", claim)
+			if c.cells == 2 {
+				// Shard 1/2 holds the points 1 and 3, both at b = 1.
+				if err == nil || !strings.Contains(err.Error(), "at least two values") {
+					t.Errorf("%s: map of one shard: %v, want too few values", c.dir, err)
+				}
+				continue
+			}
+			if err != nil {
+				t.Fatalf("%s: Map(%q): %v", c.dir, claim, err)
+			}
+			if m.Rel != ">=" || m.Claim != "@triangle_gap" || len(m.Cells) != c.cells {
+				t.Fatalf("%s: map of %q: rel %q, claim %q, %d cells", c.dir, claim, m.Rel, m.Claim, len(m.Cells))
+			}
+			for i, cell := range m.Cells {
+				cr := s.Summary.Points[i].Claims[0]
+				lo, _ := decimalio.ParseLower(cr.Margin.Lower)
+				if cell.Margin != lo || cell.Verdict != cr.Verdict {
+					t.Errorf("cell %d: margin %g %s, certificate %s %s", i, cell.Margin, cell.Verdict, cr.Margin.Lower, cr.Verdict)
+				}
+				if cell.X == 1 && cell.Y == 1 {
+					lo, err1 := decimalio.ParseRat(cr.Margin.Lower)
+					hi, err2 := decimalio.ParseRat(cr.Margin.Upper)
+					if err1 != nil || err2 != nil {
+						t.Fatal(err1, err2)
+					}
+					if lo.Cmp(truth) > 0 || hi.Cmp(truth) < 0 {
+						t.Errorf("apex (1, 1): margin [%s, %s] does not contain 26π²/9", cr.Margin.Lower, cr.Margin.Upper)
+					}
+				}
+			}
+		}
 	}
 }

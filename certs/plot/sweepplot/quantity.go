@@ -220,8 +220,9 @@ type Map struct {
 // enclosure of lhs − rhs for >= and >, and minus its upper end, the lower
 // end of rhs − lhs, for <= and <; each read back from the decimal string
 // rounded in the safe direction), with x and y the two parameters. claim is
-// a 1-based claim number or a claim's text; every certified point must
-// hold that claim. Errors: an unknown parameter or claim, x = y, a sweep
+// a 1-based claim number or a claim's text, a built-in claim ("@name",
+// whose relation is that of the inequality its certificate records)
+// included; every certified point must hold that claim. Errors: an unknown parameter or claim, x = y, a sweep
 // without exactly two parameters, fewer than two values of a parameter
 // and no certified point.
 func (s *Sweep) Map(x, y, claim string) (*Map, error) {
@@ -249,11 +250,11 @@ func (s *Sweep) Map(x, y, claim string) (*Map, error) {
 		}
 		cr := pt.Claims[k]
 		if m.Claim == "" {
-			parsed, err := grammar.Parse(cr.Text)
+			rel, err := relation(cr)
 			if err != nil {
 				return nil, fmt.Errorf("point %d: %v", pt.Index, err)
 			}
-			m.Claim, m.Rel = cr.Text, parsed.Rel
+			m.Claim, m.Rel = cr.Text, rel
 		} else if cr.Text != m.Claim {
 			return nil, fmt.Errorf("point %d: claim %s is %q, not %q as at the first point", pt.Index, claim, cr.Text, m.Claim)
 		}
@@ -280,9 +281,29 @@ func (s *Sweep) Map(x, y, claim string) (*Map, error) {
 	}
 	xs, ys := m.axes()
 	if len(xs) < 2 || len(ys) < 2 {
-		return nil, fmt.Errorf("a map needs at least two values of each parameter (%s has %d, %s has %d)", x, len(xs), y, len(ys))
+		err := fmt.Errorf("a map needs at least two values of each parameter (%s has %d, %s has %d)", x, len(xs), y, len(ys))
+		if sh := s.Summary.Shard; sh.Count > 1 {
+			err = fmt.Errorf("%v among the points of shard %s (hint: merge the shards and draw the merged directory)", err, sh)
+		}
+		return nil, err
 	}
 	return m, nil
+}
+
+// relation returns the relation of a claim result: of its recorded
+// inequality for a built-in claim ("@triangle_gap" stands for "D^2*gap >=
+// 64*pi^2/9"), else of its text. Only the relation is read; the margin
+// is the certificate's enclosure of lhs − rhs.
+func relation(cr certs.ClaimResult) (string, error) {
+	text := cr.Text
+	if cr.Inequality != "" {
+		text = cr.Inequality
+	}
+	c, err := grammar.Parse(text)
+	if err != nil {
+		return "", err
+	}
+	return c.Rel, nil
 }
 
 func finite(x interval.I) bool { return !math.IsInf(x.Lo, 0) && !math.IsInf(x.Hi, 0) }
