@@ -29,8 +29,11 @@
 //
 // Setting. H is a real Hilbert space continuously and compactly embedded in
 // L² with dense range, b(u, v) = (u, v) the L² product, a and a_lo
-// symmetric bounded forms on H such that a + γb and a_lo + b are coercive
-// and a_lo(u, u) ≥ 0. The eigenvalues of (a, b) and (a_lo, b) on H are the
+// symmetric bounded forms on H such that a + sb is coercive for some real
+// s, a_lo + b is coercive and a_lo(u, u) ≥ 0. (The shift γ of Step 1 need
+// not make a + γb coercive: the Crouzeix–Raviart bound of package fem/tri
+// applies the theorem with γ = 0 to −Δ, which may have Neumann sides.)
+// The eigenvalues of (a, b) and (a_lo, b) on H are the
 // min–max values (Courant–Fischer)
 //
 //	λ_k = min_(E ⊂ H, dim E = k) max_(u ∈ E, u ≠ 0) a(u, u)/b(u, u),

@@ -22,9 +22,11 @@ import (
 // decreases in c ≥ 0, so f evaluated at the lower bound lamHLower of λ_{h,k}
 // and at the upper bound c = ch.Mag()² (rounded up) of C_h² is ≤ the true
 // f(λ_{h,k}); it is computed as 1/(1/x + c) with every operation rounded
-// toward the lower bound. For lamHLower ≤ 0 the formula gives no more than
-// lamHLower itself, and under the theorem's hypotheses λ_k ≥ 0 ≥ lamHLower
-// anyway, so lamHLower is returned unchanged (−∞ stays −∞).
+// toward the lower bound. For lamHLower ≤ 0 the formula is not used (for
+// −1/C_h² < x ≤ 0 it gives f(x) ≤ x, and for x ≤ −1/C_h² it is
+// meaningless); under the theorem's hypotheses the bounded eigenvalue
+// (λ_k(a_lo) ≤ λ_k + γ in the package doc) is ≥ 0 ≥ lamHLower anyway, so
+// lamHLower is returned unchanged (−∞ stays −∞).
 //
 // ProjectionLower panics if lamHLower is NaN or +∞ or ch is unbounded.
 //

@@ -11,13 +11,15 @@
 // enclosed by package enclose.
 //
 // Temple's inequality is the case N = 1 of the same theorem: with one trial
-// function ũ, LehmannGoerisch returns a float below
+// function ũ and ρ̂·b(ũ,ũ) > M(ũ,ũ) (that is μ_1 < 0; otherwise no bound,
+// −∞), LehmannGoerisch returns a float below
 //
 //	(ρ̂·b(ũ,ũ) − M(ũ,ũ)) / (ρ̂·‖w‖²_X − b(ũ,ũ)),
 //
-// which is Temple's lower bound of Λ_1 (an algebraic rearrangement of
-// ρ̂ − ρ̂/(1 − μ_1) for the 1×1 pencil). There is therefore no separate entry
-// point for it.
+// an algebraic rearrangement of ρ̂ − ρ̂/(1 − μ_1) for the 1×1 pencil. It is
+// Temple's inequality for the largest eigenvalue 1/Λ_1 of the solution
+// operator K below (with 1/ρ̂ ≥ 1/Λ_2), with ‖Kũ‖²_M replaced by its upper
+// bound ‖w‖²_X. There is therefore no separate entry point for it.
 //
 // # The theorem
 //
@@ -67,8 +69,13 @@
 // Λ_1..Λ_N, say Λ_1..Λ_m with m ≤ N, and at least i of them are ≥ t_i:
 // Λ_(N+1−i) ≥ Λ_(m+1−i) ≥ t_i. ∎
 //
-// No separation hypothesis beyond ρ ≤ Λ_(N+1) is used: ρ > Λ_N only makes
-// B positive definite and the bounds sharp. For exact eigenpairs ũ_i = φ_i
+// No separation hypothesis beyond ρ ≤ Λ_(N+1) is used. The proof also
+// shows what separation buys: at most m of the μ_i are negative (i ≤ m
+// above), so all N bounds can appear only if ρ > Λ_N; and xᵀBx ≥
+// Σ (Λ_k − ρ)² c_k²/Λ_k shows B positive definite whenever the ũ_i are
+// linearly independent and no nonzero u ∈ span{ũ_i} is an eigenfunction
+// for the eigenvalue ρ, while ρ near one of Λ_1..Λ_N, whose eigenfunctions
+// the ũ_i approximate, makes B nearly singular. For exact eigenpairs ũ_i = φ_i
 // (Λ_i ≠ ρ), w_i = Tφ_i/Λ_i gives diagonal matrices, the pencil
 // eigenvalues Λ_i/(Λ_i − ρ) and bounds equal to Λ_i (the tests' sanity
 // check).

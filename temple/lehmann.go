@@ -47,9 +47,11 @@ var ErrNotPositiveDefinite = errors.New("temple: A0 − 2ρA1 + ρ²A2 is not ve
 // the m ≤ N eigenvalues Λ_k < ρ (m ≤ N because ρ ≤ Λ_{N+1}). Min–max gives
 // g(Λ_{m+1−i}) ≤ μ*_i ≤ μ_i < 0, and g is decreasing on (0, ρ) with inverse
 // μ ↦ ρ − ρ/(1 − μ), so Λ_{N+1−i} ≥ Λ_{m+1−i} ≥ ρ − ρ/(1 − μ_i). The
-// hypothesis ρ > (an upper bound of) Λ_N that callers usually also meet is
-// what makes B positive definite and the bounds sharp; soundness does not
-// depend on it.
+// separation ρ > (an upper bound of) Λ_N that callers usually also meet
+// gives m = N, so that all N bounds can appear (at most m of the μ_i are
+// negative), and keeps ρ away from the eigenvalues that the trial functions
+// approximate, near which B is nearly singular; soundness does not depend
+// on it (B positive definite is verified below).
 //
 // Computation. B and A0 − ρA1 are formed in interval arithmetic with rho an
 // exact float; B is verified positive definite with enclose.PositiveDefinite

@@ -43,10 +43,13 @@
 //
 // Stage B needs ρ̂ ≤ Λ_(N+1). N is the least index ≥ the requested count
 // whose stage-A lower bound ρ̂ of Λ_(N+1) exceeds the Ritz upper bound of
-// Λ_N (chooseN); ρ̂ ≤ Λ_(N+1) holds by stage A, and the separation
-// ρ̂ > Λ_N, which the theorem does not need, makes the Lehmann matrix
-// positive definite and the bounds sharp. It also gives Λ_N < Λ_(N+1), so
-// no multiple eigenvalue is split between the indices N and N + 1.
+// Λ_N (chooseN); ρ̂ ≤ Λ_(N+1) holds by stage A. The separation ρ̂ > Λ_N,
+// which the theorem does not need, lets all N bounds appear (at most as
+// many pencil eigenvalues μ_i are negative as there are Λ_k below ρ̂) and
+// keeps ρ̂ away from Λ_1..Λ_N, near which the Lehmann matrix is nearly
+// singular (its positive definiteness is verified, package temple). It
+// also gives Λ_N < Λ_(N+1), so no multiple eigenvalue is split between the
+// indices N and N + 1.
 //
 // On polygons stage B uses its own shift γ_B (the certificate's
 // flux_gamma), so it bounds Λ^B_k = λ_k + γ_B. The stage-A bound ρ̂ of
