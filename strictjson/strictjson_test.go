@@ -105,7 +105,7 @@ func TestDecodeRefused(t *testing.T) {
 
 func TestSyntaxErrors(t *testing.T) {
 	for _, c := range []struct {
-		doc, msg string
+		doc, msg  string
 		line, col int
 	}{
 		{`{"format": "f/1"} {}`, "data after the top-level value", 1, 19},
