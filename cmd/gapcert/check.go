@@ -7,6 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"gapcert/certs"
 	"gapcert/certs/certify"
 )
 
@@ -22,7 +23,10 @@ and claim verdict digit for digit.
 
 Exit status: 0 if the certificate verifies, 1 if it cannot be read, 2 if
 recomputing it would exceed the memory budget (refused before allocating),
-3 if it does not verify (each difference is listed).`,
+3 if it does not verify (each difference is listed) or is not read
+strictly as a certificate: a key given twice, a key not spelled exactly as
+the format defines it (case variants included) or an unknown key, at any
+depth, with the JSON path of the defect.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			data, err := os.ReadFile(args[0])
@@ -31,11 +35,12 @@ recomputing it would exceed the memory budget (refused before allocating),
 			}
 			err = certify.Check(data)
 			var mm *certify.MismatchError
+			var bad *certs.FormatError
 			var budget *certify.BudgetError
 			switch {
 			case errors.As(err, &budget):
 				return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", args[0], err)}
-			case errors.As(err, &mm):
+			case errors.As(err, &mm), errors.As(err, &bad):
 				return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", args[0], err)}
 			case err != nil:
 				return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", args[0], err)}
