@@ -33,20 +33,30 @@ depth, with the JSON path of the defect.`,
 			if err != nil {
 				return &exitError{code: exitFailure, err: err}
 			}
-			err = certify.Check(data)
-			var mm *certify.MismatchError
-			var bad *certs.FormatError
-			var budget *certify.BudgetError
-			switch {
-			case errors.As(err, &budget):
-				return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", args[0], err)}
-			case errors.As(err, &mm), errors.As(err, &bad):
-				return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", args[0], err)}
-			case err != nil:
-				return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", args[0], err)}
+			if err := checkExit(args[0], certify.Check(data)); err != nil {
+				return err
 			}
 			fmt.Fprintf(cmd.OutOrStdout(), "%s: certificate verifies (recomputed bounds, hash and claims agree)\n", args[0])
 			return nil
 		},
 	}
+}
+
+// checkExit returns the outcome of certify.Check on the certificate file
+// name with the exit status of the check command: 2 for a recomputation
+// beyond the memory budget, 3 for a certificate that does not verify or is
+// not strictly a certificate (a *certs.FormatError), 1 otherwise.
+func checkExit(name string, err error) error {
+	var mm *certify.MismatchError
+	var bad *certs.FormatError
+	var budget *certify.BudgetError
+	switch {
+	case err == nil:
+		return nil
+	case errors.As(err, &budget):
+		return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", name, err)}
+	case errors.As(err, &mm), errors.As(err, &bad):
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", name, err)}
+	}
+	return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", name, err)}
 }
