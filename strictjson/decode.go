@@ -25,8 +25,8 @@ import (
 //     none), case variants of a field name included;
 //   - a value does not have the kind its Go type needs: an object for a
 //     struct or map, a list for a slice (a list of the right length for an
-//     array), a string for a string or an encoding.TextUnmarshaler, true
-//     or false for a bool, an integer literal in range for an integer
+//     array), a string for a string or an encoding.TextUnmarshaler, a
+//     number for a json.Number (kept as written), true or false for a bool, an integer literal in range for an integer
 //     type, a number in range for a float type; null is accepted for
 //     pointers, slices, maps and interfaces only.
 //
@@ -71,6 +71,7 @@ func Check(v *Value, t reflect.Type) error {
 var (
 	unmarshalerType     = reflect.TypeFor[json.Unmarshaler]()
 	textUnmarshalerType = reflect.TypeFor[encoding.TextUnmarshaler]()
+	numberType          = reflect.TypeFor[json.Number]()
 )
 
 func check(v *Value, t reflect.Type, path string) error {
@@ -147,6 +148,12 @@ func check(v *Value, t reflect.Type, path string) error {
 		}
 		return checkElems(v, t.Elem(), path)
 	case reflect.String:
+		if t == numberType {
+			if v.Kind != Number {
+				return want("a number")
+			}
+			return nil
+		}
 		if v.Kind != String {
 			return want("a string")
 		}

@@ -28,6 +28,7 @@ type outer struct {
 	Any     any               `json:"any"`
 	Pair    [2]string         `json:"pair"`
 	Small   int8              `json:"small"`
+	Exact   json.Number       `json:"exact"`
 	Flag    bool              `json:"flag"`
 	Skipped string            `json:"-"`
 	NoTag   string
@@ -36,7 +37,7 @@ type outer struct {
 
 const good = `{"format": "f/1", "inner": {"kind": "k", "leaves": [{"n": 1}, {"n": 2, "label": "b"}], "raw": {"x": [1, {"y": 2}]}, "opt": null},
  "widths": {"gap": "1e-3", "GAP": "2e-3"}, "grid": [[1, 2], []], "any": {"v": 0.1000000000000000000000000001}, "pair": ["a", "b"],
- "small": -128, "flag": true, "NoTag": "t"}`
+ "small": -128, "exact": 1e-400, "flag": true, "NoTag": "t"}`
 
 func TestDecodeGood(t *testing.T) {
 	var o outer
@@ -47,6 +48,9 @@ func TestDecodeGood(t *testing.T) {
 		t.Errorf("decoded %+v", o)
 	}
 	// Numbers in interface values keep their literal text.
+	if o.Exact != "1e-400" {
+		t.Errorf("exact = %q, want the literal 1e-400", o.Exact)
+	}
 	if got := o.Any.(map[string]any)["v"]; got != json.Number("0.1000000000000000000000000001") {
 		t.Errorf("any.v = %#v, want the literal as a json.Number", got)
 	}
@@ -88,6 +92,7 @@ func TestDecodeRefused(t *testing.T) {
 		{"null for struct", edit(`"inner": {`, `"inner": null, "x": {`), "inner", "want an object, not null"},
 		{"object for list", edit(`"grid": [[1, 2], []]`, `"grid": [{}, []]`), "grid[0]", "want a list, not an object"},
 		{"short array", edit(`["a", "b"]`, `["a"]`), "pair", "want a list of 2 elements, not 1"},
+		{"string for json.Number", edit(`"exact": 1e-400`, `"exact": "1e-400"`), "exact", "want a number, not a string"},
 		{"number for bool", edit(`"flag": true`, `"flag": 1`), "flag", "want true or false"},
 	} {
 		var o outer
