@@ -26,9 +26,10 @@ import (
 //   - a value does not have the kind its Go type needs: an object for a
 //     struct or map, a list for a slice (a list of the right length for an
 //     array), a string for a string or an encoding.TextUnmarshaler, a
-//     number for a json.Number (kept as written), true or false for a bool, an integer literal in range for an integer
-//     type, a number in range for a float type; null is accepted for
-//     pointers, slices, maps and interfaces only.
+//     number for a json.Number (kept as written), true or false for a
+//     bool, an integer literal in range for an integer type, a number in
+//     range for a float type; null is accepted for pointers, slices, maps
+//     and interfaces only.
 //
 // Values of a type with its own UnmarshalJSON (json.RawMessage above all)
 // are checked for repeated keys only; whoever decodes them later reads
