@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -11,6 +10,7 @@ import (
 	"strings"
 
 	"gapcert/certs"
+	"gapcert/strictjson"
 )
 
 // Output formats of Write.
@@ -133,14 +133,12 @@ func tableRow(e Entry, st style, opt Options) ([]string, error) {
 // problemName is the name recorded in the certificate's problem, or
 // "(unnamed)".
 func problemName(c *certs.Certificate) string {
-	var p struct {
-		Name string `json:"name"`
-	}
-	_ = json.Unmarshal(c.Problem, &p) // Unmarshal checked that it is an object
-	if strings.TrimSpace(p.Name) == "" {
+	p, _, _ := strictjson.Parse(c.Problem) // certs.Unmarshal checked that it is an object
+	name := p.Get("name")                  // exactly "name", as problem.Parse reads it
+	if name == nil || name.Kind != strictjson.String || strings.TrimSpace(name.Str) == "" {
 		return "(unnamed)"
 	}
-	return p.Name
+	return name.Str
 }
 
 func caption(entries []Entry, st style, opt Options) string {
