@@ -38,17 +38,18 @@ func (e *MismatchError) Error() string {
 // recipe within range), and the problem and method of every embedded
 // reference certificate; a defect there is a *certs.FormatError with its
 // JSON path. It then checks that the recorded problem is written in its
-// canonical form and hashes to problem_sha256, recomputes the certificate
-// from the recorded problem and method with the same deterministic code,
-// and demands that the recorded results, claims (hypotheses and
-// references included) and method equal the recomputed ones field for
-// field, and that every warning of the recomputation is recorded (the
-// certificate may hold more: refinement warnings depend on the budget of
-// the run, which is not recorded). Provenance is not compared. It returns
-// nil if the certificate verifies, a *MismatchError listing every
-// differing field by its path, a *BudgetError if the recomputation would
-// exceed the memory budget, or another error if the certificate cannot be
-// read or recomputed.
+// canonical form (compared as JSON values: white space, key order and
+// string escapes may differ) and hashes to problem_sha256, recomputes the
+// certificate from the recorded problem and method with the same
+// deterministic code, and demands that the recorded results, claims
+// (hypotheses and references included) and method equal the recomputed
+// ones field for field, and that every warning of the recomputation is
+// recorded (the certificate may hold more: refinement warnings depend on
+// the budget of the run, which is not recorded). Provenance is not
+// compared. It returns nil if the certificate verifies, a *MismatchError
+// listing every differing field by its path, a *BudgetError if the
+// recomputation would exceed the memory budget, or another error if the
+// certificate cannot be read or recomputed.
 func Check(data []byte) error {
 	cert, p, m, err := readRecorded(data)
 	if err != nil {
@@ -66,9 +67,8 @@ func Check(data []byte) error {
 	if got := p.SHA256(); got != cert.ProblemSHA256 {
 		bad = append(bad, fmt.Sprintf("problem_sha256 is %s but the recorded problem hashes to %s (the problem or the hash was edited)", cert.ProblemSHA256, got))
 	}
-	var written bytes.Buffer
-	if err := json.Compact(&written, cert.Problem); err != nil || !bytes.Equal(written.Bytes(), p.Canonical()) {
-		bad = append(bad, "problem is not written in its canonical form (the certificate's problem was edited)")
+	for _, d := range differences("problem", cert.Problem, json.RawMessage(p.Canonical())) {
+		bad = append(bad, "the problem is not written in its canonical form: "+strings.Replace(d, ", recomputed ", ", canonical ", 1))
 	}
 	r, err := recordedRecipe(p, m)
 	if err != nil {

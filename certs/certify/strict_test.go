@@ -152,3 +152,44 @@ func TestCheckDemandsRecomputedWarnings(t *testing.T) {
 		}
 	}
 }
+
+// TestCheckProblemCanonical: the recorded problem must be the canonical
+// form of what it parses to, compared as JSON values: re-indented, with
+// keys reordered or non-ASCII text escaped (as some JSON tools write it)
+// it verifies; with a number rewritten in another exact form ("1/2" for
+// "0.5": the same problem, the same hash) it is a mismatch naming the
+// field.
+func TestCheckProblemCanonical(t *testing.T) {
+	data := certifyBytes(t, `{"name":"Übung","domain":{"interval":["0","3/2"]},"potential":"x^2 - x","boundary":["dirichlet",{"robin":"0.5"}],"eigenvalues":2}`)
+	c, err := certs.Unmarshal(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(c.Problem), `"0.5"`) || !strings.Contains(string(c.Problem), `"Übung"`) {
+		t.Fatalf("the fixture's problem is %s", c.Problem)
+	}
+	for _, tc := range []struct {
+		name, old, new string
+		ok             bool
+	}{
+		{"escaped name", `"Übung"`, `"\u00dcbung"`, true},
+		{"keys reordered", `"name": "Übung",`, ``, true}, // moved below
+		{"other exact form", `"0.5"`, `"1/2"`, false},
+	} {
+		edited := strings.Replace(string(data), tc.old, tc.new, 1)
+		if tc.name == "keys reordered" {
+			edited = strings.Replace(edited, `"problem": {`, `"problem": {"name": "Übung",`, 1)
+		}
+		if edited == string(data) {
+			t.Fatalf("%s: the edit changed nothing", tc.name)
+		}
+		err := Check([]byte(edited))
+		var mm *MismatchError
+		switch {
+		case tc.ok && err != nil:
+			t.Errorf("%s: %v", tc.name, err)
+		case !tc.ok && (!errors.As(err, &mm) || !strings.Contains(err.Error(), "canonical form: problem.boundary[1].robin is \"1/2\", canonical \"0.5\"")):
+			t.Errorf("%s: error %v, want a mismatch naming problem.boundary[1].robin", tc.name, err)
+		}
+	}
+}
