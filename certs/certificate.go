@@ -6,7 +6,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strings"
 
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -231,7 +230,7 @@ func Unmarshal(data []byte) (*Certificate, error) {
 		return nil, fmt.Errorf("certs: not a JSON certificate: %w", err)
 	}
 	if len(dups) > 0 {
-		return nil, formatError("", dups[0])
+		return nil, AsFormatError("", dups[0])
 	}
 	if root.Kind != strictjson.Object {
 		return nil, &FormatError{Msg: "a certificate is a JSON object, not " + root.Kind.String()}
@@ -249,7 +248,7 @@ func Unmarshal(data []byte) (*Certificate, error) {
 	}
 	var c Certificate
 	if err := strictjson.Decode(data, &c); err != nil {
-		return nil, formatError("", err)
+		return nil, AsFormatError("", err)
 	}
 	if err := requireKeys(root, "", "format", "problem", "problem_sha256", "results", "claims", "method", "warnings", "provenance"); err != nil {
 		return nil, err
@@ -263,26 +262,20 @@ func Unmarshal(data []byte) (*Certificate, error) {
 	return &c, nil
 }
 
-// formatError returns err as a *FormatError whose path is prefixed by
-// prefix: the path of a strictjson.Error or a FormatError, else the prefix
-// alone with err's message.
-func formatError(prefix string, err error) *FormatError {
+// AsFormatError returns err, an error of a value read at the JSON path
+// prefix, as a *FormatError: a FormatError or a strictjson.Error (other
+// than a syntax error) keeps its path, under prefix; any other error gets
+// the path prefix and its own message.
+func AsFormatError(prefix string, err error) *FormatError {
 	var se *strictjson.Error
 	var fe *FormatError
 	switch {
 	case errors.As(err, &fe):
-		return &FormatError{Path: joinPath(prefix, fe.Path), Msg: fe.Msg}
+		return &FormatError{Path: strictjson.Under(prefix, fe.Path), Msg: fe.Msg}
 	case errors.As(err, &se) && se.Line == 0:
-		return &FormatError{Path: joinPath(prefix, se.Path), Msg: se.Msg}
+		return &FormatError{Path: strictjson.Under(prefix, se.Path), Msg: se.Msg}
 	}
 	return &FormatError{Path: prefix, Msg: err.Error()}
-}
-
-func joinPath(prefix, path string) string {
-	if path == "" || strings.HasPrefix(path, "[") {
-		return prefix + path
-	}
-	return strictjson.Join(prefix, path)
 }
 
 // requireKeys checks that obj is an object with every key (read strictly
@@ -412,7 +405,7 @@ func (r *Reference) validate(path string) error {
 	}
 	inner, err := Unmarshal(r.Certificate)
 	if err != nil {
-		return formatError(path+".certificate", err)
+		return AsFormatError(path+".certificate", err)
 	}
 	for _, c := range inner.Claims {
 		if c.Reference != nil {

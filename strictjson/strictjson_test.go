@@ -175,3 +175,20 @@ func TestDecodePanicsOnMisuse(t *testing.T) {
 		}()
 	}
 }
+
+func TestPaths(t *testing.T) {
+	for _, c := range []struct{ got, want string }{
+		{Join("", "a"), "a"},
+		{Join("a", "b"), "a.b"},
+		{Index("a", 2), "a[2]"},
+		{Index(Join("claims", "x"), 0), "claims.x[0]"},
+		{Under("claims[0].reference.certificate", "method.n"), "claims[0].reference.certificate.method.n"},
+		{Under("claims", "[1].text"), "claims[1].text"},
+		{Under("method", ""), "method"},
+		{Under("", "method.n"), "method.n"},
+	} {
+		if c.got != c.want {
+			t.Errorf("%q, want %q", c.got, c.want)
+		}
+	}
+}

@@ -81,6 +81,15 @@ func Join(path, key string) string {
 	return path + "." + key
 }
 
+// Under returns the path of a value at path (relative, as in an Error)
+// inside the value at prefix.
+func Under(prefix, path string) string {
+	if path == "" || prefix == "" || strings.HasPrefix(path, "[") {
+		return prefix + path
+	}
+	return prefix + "." + path
+}
+
 // Index returns the path of element i of the array at path.
 func Index(path string, i int) string {
 	return path + "[" + strconv.Itoa(i) + "]"

@@ -60,7 +60,7 @@ func Check(data []byte) error {
 			continue
 		}
 		if _, _, _, err := readRecorded(c.Reference.Certificate); err != nil {
-			return formatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
+			return certs.AsFormatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
 		}
 	}
 	var bad []string
@@ -139,31 +139,9 @@ func readRecorded(data []byte) (*certs.Certificate, *problem.Problem, Method, er
 func decodeMethod(raw json.RawMessage) (Method, error) {
 	var m Method
 	if err := strictjson.Decode(raw, &m); err != nil {
-		return Method{}, formatError("method", err)
+		return Method{}, certs.AsFormatError("method", err)
 	}
 	return m, nil
-}
-
-// formatError returns err as a *certs.FormatError whose path is prefixed
-// by prefix (the path of a strictjson.Error or a FormatError, else the
-// prefix alone with err's message).
-func formatError(prefix string, err error) *certs.FormatError {
-	var fe *certs.FormatError
-	var se *strictjson.Error
-	switch {
-	case errors.As(err, &fe):
-		return &certs.FormatError{Path: joinPath(prefix, fe.Path), Msg: fe.Msg}
-	case errors.As(err, &se) && se.Line == 0:
-		return &certs.FormatError{Path: joinPath(prefix, se.Path), Msg: se.Msg}
-	}
-	return &certs.FormatError{Path: prefix, Msg: err.Error()}
-}
-
-func joinPath(prefix, path string) string {
-	if path == "" || strings.HasPrefix(path, "[") {
-		return prefix + path
-	}
-	return strictjson.Join(prefix, path)
 }
 
 // recordedRecipe returns the recipe a certificate's method records for p,

@@ -481,10 +481,7 @@ func (f *Family) pointJSON(template map[string]json.RawMessage, claims []string,
 func strictIssue(prefix string, err error) (path, msg string) {
 	var se *strictjson.Error
 	if errors.As(err, &se) && se.Line == 0 {
-		if se.Path == "" || strings.HasPrefix(se.Path, "[") {
-			return prefix + se.Path, se.Msg
-		}
-		return strictjson.Join(prefix, se.Path), se.Msg
+		return strictjson.Under(prefix, se.Path), se.Msg
 	}
 	return prefix, err.Error()
 }
