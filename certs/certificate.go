@@ -5,9 +5,9 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
-	"io"
 	"math"
 
+	"gapcert/fem/problem/strictjson"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
 )
@@ -209,44 +209,51 @@ func (c *Certificate) Marshal() ([]byte, error) {
 	return buf.Bytes(), nil // Encode ends with a newline
 }
 
-// Unmarshal reads a certificate strictly: the "format" field must be
-// present and equal to Format (checked first, so that a certificate of
-// another version is reported as such), every key must be known, every
-// section of the top level and of "results" must be present, nothing may
-// follow the document, "problem" must be an object, "problem_sha256" 64
-// lowercase hex digits, eigenvalue indices increasing from ≥ 1, verdicts
-// one of Holds, Fails, Undecided, and every bound readable by
-// Bound.Interval. Whether the digest matches the problem is for the
-// re-check to decide.
-// Errors are *FormatError, except JSON syntax errors, which are wrapped.
+// Unmarshal reads a certificate strictly (package strictjson): no key may
+// be given twice in any object, every key must be spelled exactly as this
+// format defines it (a case variant is an unknown key), at every depth;
+// the "format" field must be present and equal to Format (checked before
+// the layout, so that a certificate of another version is reported as
+// such); every section of the top level and of "results" must be present;
+// nothing may follow the document; "problem" must be an object,
+// "problem_sha256" 64 lowercase hex digits, eigenvalue indices increasing
+// from ≥ 1, verdicts one of Holds, Fails, Undecided, and every bound
+// readable by Bound.Interval. Reference certificates of claims are read
+// the same way. The keys of "problem" and "method" are for their own
+// readers (problem.Parse, the certification driver) to check; whether the
+// digest matches the problem is for the re-check to decide.
+// Errors are *FormatError with the JSON path of the defect, except JSON
+// syntax errors, which are wrapped.
 func Unmarshal(data []byte) (*Certificate, error) {
-	var head struct {
-		Format *string `json:"format"`
-	}
-	if err := json.NewDecoder(bytes.NewReader(data)).Decode(&head); err != nil {
+	root, dups, err := strictjson.Parse(data)
+	if err != nil {
 		return nil, fmt.Errorf("not a JSON certificate: %w (hint: give a .cert.json file written by gapcert)", err)
 	}
-	if head.Format == nil {
+	if len(dups) > 0 {
+		return nil, AsFormatError("", dups[0])
+	}
+	if root.Kind != strictjson.Object {
+		return nil, &FormatError{Msg: "a certificate is a JSON object, not " + root.Kind.String()}
+	}
+	format := root.Get("format")
+	if format == nil {
 		return nil, &FormatError{Msg: fmt.Sprintf("no \"format\" field; a gapcert certificate starts with \"format\": %q", Format)}
 	}
-	if *head.Format != Format {
-		return nil, &FormatError{Path: "format", Msg: fmt.Sprintf("certificate format %q is not supported; this version reads %q", *head.Format, Format)}
+	if format.Kind != strictjson.String || format.Str != Format {
+		got := format.Str
+		if format.Kind != strictjson.String {
+			got = format.Kind.String()
+		}
+		return nil, &FormatError{Path: "format", Msg: fmt.Sprintf("certificate format %q is not supported; this version reads %q", got, Format)}
 	}
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.DisallowUnknownFields()
 	var c Certificate
-	if err := dec.Decode(&c); err != nil {
-		return nil, &FormatError{Msg: err.Error()}
+	if err := strictjson.Decode(data, &c); err != nil {
+		return nil, AsFormatError("", err)
 	}
-	if _, err := dec.Token(); !errors.Is(err, io.EOF) {
-		return nil, &FormatError{Msg: "data after the end of the certificate"}
-	}
-	if err := requireKeys(data, "", "format", "problem", "problem_sha256", "results", "claims", "method", "warnings", "provenance"); err != nil {
+	if err := requireKeys(root, "", "format", "problem", "problem_sha256", "results", "claims", "method", "warnings", "provenance"); err != nil {
 		return nil, err
 	}
-	var top map[string]json.RawMessage
-	_ = json.Unmarshal(data, &top) // decoded above, so this cannot fail
-	if err := requireKeys(top["results"], "results.", "eigenvalues", "gap", "diameter", "gap_d2_over_pi2", "relative_widths"); err != nil {
+	if err := requireKeys(root.Get("results"), "results", "eigenvalues", "gap", "diameter", "gap_d2_over_pi2", "relative_widths"); err != nil {
 		return nil, err
 	}
 	if err := c.validate(); err != nil {
@@ -255,30 +262,39 @@ func Unmarshal(data []byte) (*Certificate, error) {
 	return &c, nil
 }
 
-// requireKeys checks that the JSON object obj has every key.
-func requireKeys(obj []byte, prefix string, keys ...string) error {
-	var m map[string]json.RawMessage
-	if err := json.Unmarshal(obj, &m); err != nil || m == nil {
-		return &FormatError{Path: trimDot(prefix), Msg: "must be a JSON object"}
+// AsFormatError returns err, an error of a value read at the JSON path
+// prefix, as a *FormatError: a FormatError or a strictjson.Error (other
+// than a syntax error) keeps its path, under prefix; any other error gets
+// the path prefix and its own message.
+func AsFormatError(prefix string, err error) *FormatError {
+	var se *strictjson.Error
+	var fe *FormatError
+	switch {
+	case errors.As(err, &fe):
+		return &FormatError{Path: strictjson.Under(prefix, fe.Path), Msg: fe.Msg}
+	case errors.As(err, &se) && se.Line == 0:
+		return &FormatError{Path: strictjson.Under(prefix, se.Path), Msg: se.Msg}
+	}
+	return &FormatError{Path: prefix, Msg: err.Error()}
+}
+
+// requireKeys checks that obj is an object with every key (read strictly
+// already, so its keys are exact).
+func requireKeys(obj *strictjson.Value, path string, keys ...string) error {
+	if obj == nil || obj.Kind != strictjson.Object {
+		return &FormatError{Path: path, Msg: "must be a JSON object"}
 	}
 	for _, k := range keys {
-		if _, ok := m[k]; !ok {
-			return &FormatError{Path: prefix + k, Msg: "missing"}
+		if obj.Get(k) == nil {
+			return &FormatError{Path: strictjson.Join(path, k), Msg: "missing"}
 		}
 	}
 	return nil
 }
 
-func trimDot(p string) string {
-	if n := len(p); n > 0 && p[n-1] == '.' {
-		return p[:n-1]
-	}
-	return p
-}
-
 func isObject(raw json.RawMessage) bool {
-	var m map[string]json.RawMessage
-	return json.Unmarshal(raw, &m) == nil && m != nil
+	v, _, err := strictjson.Parse(raw)
+	return err == nil && v.Kind == strictjson.Object
 }
 
 // validate checks the values that the JSON layout alone does not.
@@ -389,7 +405,7 @@ func (r *Reference) validate(path string) error {
 	}
 	inner, err := Unmarshal(r.Certificate)
 	if err != nil {
-		return &FormatError{Path: path + ".certificate", Msg: err.Error()}
+		return AsFormatError(path+".certificate", err)
 	}
 	for _, c := range inner.Claims {
 		if c.Reference != nil {

@@ -126,8 +126,8 @@ func TestUnmarshalStrict(t *testing.T) {
 	}{
 		{"other version", edit(`"format": "gapcert.certificate/v1"`, `"format": "gapcert.certificate/v2"`), `"gapcert.certificate/v2" is not supported`},
 		{"no format", edit(`"format": "gapcert.certificate/v1",`, ``), `no "format" field`},
-		{"unknown top key", edit(`"warnings":`, `"extra": 1, "warnings":`), `unknown field "extra"`},
-		{"unknown nested key", edit(`"index": 1,`, `"index": 1, "mid": "9.87",`), `unknown field "mid"`},
+		{"unknown top key", edit(`"warnings":`, `"extra": 1, "warnings":`), `extra: unknown key "extra"`},
+		{"unknown nested key", edit(`"index": 1,`, `"index": 1, "mid": "9.87",`), `results.eigenvalues[0].mid: unknown key "mid"`},
 		{"missing section", edit(`"warnings": [
     "demo data"
   ],`, ``), `warnings: missing`},
@@ -135,7 +135,7 @@ func TestUnmarshalStrict(t *testing.T) {
       "lower": "1",
       "upper": "1"
     },`, ``), `results.diameter: missing`},
-		{"float bound", edit(`"lower": "1",`, `"lower": 1,`), `cannot unmarshal number`},
+		{"float bound", edit(`"lower": "1",`, `"lower": 1,`), `results.diameter.lower: want a string, not a number`},
 		{"bad decimal", edit(`"lower": "1",`, `"lower": "1.0.0",`), `results.diameter`},
 		{"empty bound", edit(`"lower": "1",`, `"lower": "",`), `results.diameter`},
 		{"reversed bound", edit(`"upper": "1"`, `"upper": "0.5"`), `not an interval`},
@@ -151,7 +151,7 @@ func TestUnmarshalStrict(t *testing.T) {
   },`, `"problem": null,`), `problem: must be a JSON object`},
 		{"short digest", edit(`"problem_sha256": "9f86`, `"problem_sha256": "9f8`), `problem_sha256`},
 		{"upper-case digest", edit(`"problem_sha256": "9f86`, `"problem_sha256": "9F86`), `problem_sha256`},
-		{"trailing data", append(append([]byte{}, good...), []byte(`{}`)...), `after the end`},
+		{"trailing data", append(append([]byte{}, good...), []byte(`{}`)...), `data after the top-level value`},
 		{"not json", []byte(`{"format": `), `not a JSON certificate`},
 	}
 	for _, tc := range tests {
@@ -343,7 +343,7 @@ func TestUnmarshalStrictBuiltinClaim(t *testing.T) {
 		{"empty hypothesis name", edit(`"name": "zero_potential"`, `"name": ""`), `claims[2].hypotheses[3].name`},
 		{"negative side", edit(`"side": 1`, `"side": -1`), `negative`},
 		{"three coordinates", edit(`"sqrt(3)/2"`, `"sqrt(3)/2", "0", "0"`), `witness.point`},
-		{"unknown hypothesis key", edit(`"detail": "no point found"`, `"detail": "no point found", "why": 1`), `unknown field "why"`},
+		{"unknown hypothesis key", edit(`"detail": "no point found"`, `"detail": "no point found", "why": 1`), `claims[2].hypotheses[3].why: unknown key "why"`},
 		{"bad reference bound", editLast(`"upper": "29.608813204"`, `"upper": "29.6.1"`), `claims[2].reference.certificate`},
 		{"reference not a certificate", edit(`"certificate": {`, `"certificate": {"x": 1,`), `claims[2].reference.certificate`},
 		{"empty reference name", edit(`"name": "robin_interval_gap"`, `"name": ""`), `claims[2].reference.name`},
@@ -365,5 +365,90 @@ func TestUnmarshalStrictBuiltinClaim(t *testing.T) {
 	data, _ := c.Marshal()
 	if _, err := Unmarshal(data); err == nil || !strings.Contains(err.Error(), "references of its own") {
 		t.Errorf("nested reference: %v", err)
+	}
+}
+
+// TestUnmarshalTampered: certificates that two JSON readers would read
+// differently are refused with the path of the defect. For each variant
+// the comment says what a Python reader (json.load: keys matched exactly,
+// the last of two equal keys wins) would see, and what encoding/json
+// alone (keys matched without regard to case, the last match wins) made
+// of it before the strict reader: the two disagree, or one of them sees a
+// value that is not the certified one.
+func TestUnmarshalTampered(t *testing.T) {
+	good, err := withBuiltinClaim(t).Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Unmarshal(good); err != nil {
+		t.Fatalf("the untampered certificate: %v", err)
+	}
+	edit := func(old, new string) []byte {
+		if bytes.Count(good, []byte(old)) < 1 {
+			t.Fatalf("fixture lacks %q", old)
+		}
+		return bytes.Replace(good, []byte(old), []byte(new), 1)
+	}
+	editLast := func(old, new string) []byte {
+		i := bytes.LastIndex(good, []byte(old))
+		return append(append(append([]byte{}, good[:i]...), new...), good[i+len(old):]...)
+	}
+	const fakeEigen = `"eigenvalues": [{"index": 1, "lower": "0", "upper": "0.1"}, {"index": 2, "lower": "100", "upper": "101"}],`
+	for _, tc := range []struct {
+		name string
+		data []byte
+		path string // of the FormatError
+	}{
+		// Python: the false "eigenvalues"; encoding/json: the real
+		// "EigenValues" (the later case-insensitive match).
+		{"case variant after the fake", edit(`"eigenvalues": [`, fakeEigen+`"EigenValues": [`), "results.EigenValues"},
+		// Python: "lower" is the certified end, "LOWER" an unknown key it
+		// ignores; encoding/json: the false "LOWER" (the later match).
+		{"LOWER next to lower", edit(`"gap": {
+      "lower": "29.608813203",`, `"gap": {
+      "lower": "29.608813203", "LOWER": "40",`), "results.gap.LOWER"},
+		// Python and encoding/json: the fake, given last.
+		{"duplicate key, fake last", edit(`"gap_d2_over_pi2": {`, `"gap_d2_over_pi2": {"lower": "7", "upper": "8"}, "gap_d2_over_pi2": {`), "results.gap_d2_over_pi2"},
+		// Python and encoding/json: the real values given last; a reader
+		// that keeps the first key (some streaming readers do) sees the fake.
+		{"duplicate key, fake first", edit(`"results": {`, `"results": {`+fakeEigen), "results.eigenvalues"},
+		// Python and encoding/json: the second problem, which the hash
+		// need not cover if a reader hashes the first.
+		{"two problem objects", edit(`"problem_sha256":`, `"problem": {"name": "unit interval", "dim": 2}, "problem_sha256":`), "problem"},
+		// Python: the first "Problem" kept apart; encoding/json: the later one.
+		{"problem in another case", edit(`"problem_sha256":`, `"Problem": {"name": "fake"}, "problem_sha256":`), "Problem"},
+		// Python: the claim verdict "holds" of the later key.
+		{"duplicate verdict in a claim", edit(`"verdict": "undecided",
+      "margin"`, `"verdict": "undecided", "verdict": "holds",
+      "margin"`), "claims[0].verdict"},
+		// Python and encoding/json: the later "cells"; the method block is
+		// opaque to this package, but its repeated keys are found here.
+		{"duplicate key in method", editLast(`"method": {`, `"method": {"cells": 1, "cells": 2,`), "method.cells"},
+		// An extra key beside an embedded reference: a statement no reader
+		// of the format knows about.
+		{"extra key in a reference", edit(`"name": "robin_interval_gap",`, `"name": "robin_interval_gap", "note": "x",`), "claims[2].reference.note"},
+		// Inside the embedded reference certificate: encoding/json reads
+		// the later "format" of the two, Python sees both keys.
+		{"case variant in a reference certificate", edit(`"certificate": {`, `"certificate": {"Format": "gapcert.certificate/v1",`), "claims[2].reference.certificate.Format"},
+		{"duplicate in a reference certificate", edit(`"certificate": {`, `"certificate": {"format": "gapcert.certificate/v1",`), "claims[2].reference.certificate.format"},
+		// Python: both keys of the map; encoding/json: both, in a map.
+		{"duplicate map key", edit(`"lambda1": "1.1e-11",`, `"lambda1": "1.1e-11", "lambda1": "1e-20",`), "results.relative_widths.lambda1"},
+		{"case variant in provenance", editLast(`"tool": "gapcert test",`, `"Tool": "gapcert test",`), "provenance.Tool"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			_, err := Unmarshal(tc.data)
+			var fe *FormatError
+			if !errors.As(err, &fe) {
+				t.Fatalf("error %v, want a *FormatError", err)
+			}
+			if fe.Path != tc.path {
+				t.Errorf("error %q has path %q, want %q", err, fe.Path, tc.path)
+			}
+			// Without the strict reader, encoding/json accepted the file.
+			var lenient Certificate
+			if err := json.Unmarshal(tc.data, &lenient); err != nil {
+				t.Errorf("encoding/json refuses it too (%v): not a tamper the strict reader is needed for", err)
+			}
+		})
 	}
 }

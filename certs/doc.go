@@ -29,7 +29,10 @@
 // comparison is in doubt.
 //
 // Marshal writes stable JSON (struct field order, sorted map keys, two-space
-// indentation, a trailing newline); Unmarshal is strict: unknown keys,
-// missing sections, unparsable bounds and any format other than Format are
-// errors.
+// indentation, a trailing newline); Unmarshal is strict (package
+// strictjson): keys given twice, keys not spelled exactly as the format
+// spells them (case variants included), unknown keys, missing sections,
+// unparsable bounds and any format other than Format are errors, at every
+// depth and in embedded reference certificates, so that every JSON reader
+// that accepts a certificate sees the same values.
 package certs

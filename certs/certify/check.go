@@ -3,10 +3,14 @@ package certify
 import (
 	"bytes"
 	"encoding/json"
+	"errors"
 	"fmt"
+	"slices"
+	"strings"
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
+	"gapcert/fem/problem/strictjson"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
 )
@@ -27,51 +31,47 @@ func (e *MismatchError) Error() string {
 	return b.String()
 }
 
-// Check re-verifies a certificate: the format version is known, the
-// recorded problem parses and hashes to problem_sha256, and the recorded
-// method, recomputed by the same deterministic code, reproduces every
-// recorded bound, stage bound and claim verdict exactly. It returns nil if
-// the certificate verifies, a *MismatchError listing the differences, or
-// another error if the certificate cannot be read.
+// Check re-verifies a certificate. It first reads the whole file strictly,
+// before computing anything: the certificate (certs.Unmarshal: no repeated
+// or case-variant keys at any depth, known format), its problem
+// (problem.Parse), its method (every key spelled as Method defines it, the
+// recipe within range), and the problem and method of every embedded
+// reference certificate; a defect there is a *certs.FormatError with its
+// JSON path. It then checks that the recorded problem is written in its
+// canonical form (compared as JSON values: white space, key order and
+// string escapes may differ) and hashes to problem_sha256, recomputes the
+// certificate from the recorded problem and method with the same
+// deterministic code, and demands that the recorded results, claims
+// (hypotheses and references included) and method equal the recomputed
+// ones field for field, and that every warning of the recomputation is
+// recorded (the certificate may hold more: refinement warnings depend on
+// the budget of the run, which is not recorded). Provenance is not
+// compared. It returns nil if the certificate verifies, a *MismatchError
+// listing every differing field by its path, a *BudgetError if the
+// recomputation would exceed the memory budget, or another error if the
+// certificate cannot be read or recomputed.
 func Check(data []byte) error {
-	cert, err := certs.Unmarshal(data)
+	cert, p, m, err := readRecorded(data)
 	if err != nil {
 		return err
 	}
-	p, err := problem.Parse(cert.Problem)
-	if err != nil {
-		return fmt.Errorf("the recorded problem does not parse: %w", err)
+	for i, c := range cert.Claims {
+		if c.Reference == nil {
+			continue
+		}
+		if _, _, _, err := readRecorded(c.Reference.Certificate); err != nil {
+			return certs.AsFormatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
+		}
 	}
 	var bad []string
 	if got := p.SHA256(); got != cert.ProblemSHA256 {
 		bad = append(bad, fmt.Sprintf("problem_sha256 is %s but the recorded problem hashes to %s (the problem or the hash was edited)", cert.ProblemSHA256, got))
 	}
-	var m Method
-	dec := json.NewDecoder(bytes.NewReader(cert.Method))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(&m); err != nil {
-		return fmt.Errorf("the method block does not parse: %w", err)
+	for _, d := range differences("problem", cert.Problem, json.RawMessage(p.Canonical())) {
+		bad = append(bad, "the problem is not written in its canonical form: "+strings.Replace(d, ", recomputed ", ", canonical ", 1))
 	}
-	if (m.Kind != KindInterval || p.Dim != 1) && (m.Kind != KindPolygon || p.Dim != 2) {
-		return fmt.Errorf("method kind %q does not fit a %d-dimensional problem", m.Kind, p.Dim)
-	}
-	gamma, err := decimalio.Parse(m.Gamma)
-	if err != nil || !gamma.IsPoint() {
-		return fmt.Errorf("method.gamma %q is not an exact float64", m.Gamma)
-	}
-	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo,
-		cells: m.Cells, fluxDegree: m.FluxDegree, weightTaylor: m.WeightOrder, stageACells: m.StageACells,
-		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels}
-	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
-	if p.Dim == 2 {
-		fg, err := decimalio.Parse(m.FluxGamma)
-		if err != nil || !fg.IsPoint() || fg.Lo < r.gamma {
-			return fmt.Errorf("method.flux_gamma %q is not an exact float64 ≥ gamma", m.FluxGamma)
-		}
-		r.fluxGamma = fg.Lo
-		r.marks = m.AdaptiveMarks
-	}
-	if err := r.validate(p.Dim); err != nil {
+	r, err := recordedRecipe(p, m)
+	if err != nil {
 		return err
 	}
 	if est := memoryEstimate(p, r); est > DefaultMemory {
@@ -89,31 +89,13 @@ func Check(data []byte) error {
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
 	}
-	if !sameJSON(fresh.Results.Eigenvalues, cert.Results.Eigenvalues) {
-		bad = append(bad, "results.eigenvalues differ from the recomputation")
-	}
-	for _, f := range []struct {
-		name      string
-		got, want certs.Bound
-	}{
-		{"results.gap", fresh.Results.Gap, cert.Results.Gap},
-		{"results.diameter", fresh.Results.Diameter, cert.Results.Diameter},
-		{"results.gap_d2_over_pi2", fresh.Results.GapD2OverPi2, cert.Results.GapD2OverPi2},
-	} {
-		if f.got != f.want {
-			bad = append(bad, fmt.Sprintf("%s is [%s, %s], recomputed [%s, %s]", f.name, f.want.Lower, f.want.Upper, f.got.Lower, f.got.Upper))
+	bad = append(bad, differences("results", cert.Results, fresh.Results)...)
+	bad = append(bad, differences("claims", cert.Claims, fresh.Claims)...)
+	bad = append(bad, differences("method", m, res.method())...)
+	for _, w := range fresh.Warnings {
+		if !slices.Contains(cert.Warnings, w) {
+			bad = append(bad, fmt.Sprintf("warnings lack %q, which the recomputation gives", w))
 		}
-	}
-	if !sameJSON(fresh.Results.RelativeWidths, cert.Results.RelativeWidths) {
-		bad = append(bad, "results.relative_widths differ from the recomputation")
-	}
-	if !sameJSON(fresh.Claims, cert.Claims) {
-		bad = append(bad, "claims (texts, verdicts or margins) differ from the recomputation")
-	}
-	var recorded Method
-	_ = json.Unmarshal(cert.Method, &recorded) // decoded strictly above
-	if !sameJSON(res.method(), recorded) {
-		bad = append(bad, "method (stage bounds, N, rho or constants) differs from the recomputation")
 	}
 	if len(bad) > 0 {
 		return &MismatchError{Problems: bad}
@@ -121,21 +103,182 @@ func Check(data []byte) error {
 	return nil
 }
 
-// sameJSON reports whether a and b encode to the same JSON, so that an
-// empty list read back from a file equals a nil one recomputed.
-func sameJSON(a, b any) bool {
-	ja, errA := json.Marshal(a)
-	jb, errB := json.Marshal(b)
-	if errA != nil || errB != nil {
-		return false
+// readRecorded reads a certificate, its problem and its method strictly.
+// Errors are *certs.FormatError with the JSON path of the defect, except
+// JSON syntax errors.
+func readRecorded(data []byte) (*certs.Certificate, *problem.Problem, Method, error) {
+	cert, err := certs.Unmarshal(data)
+	if err != nil {
+		return nil, nil, Method{}, err
 	}
-	if string(ja) == "null" {
-		ja = []byte("[]")
+	p, err := problem.Parse(cert.Problem)
+	if err != nil {
+		var perr *problem.Error
+		if !errors.As(err, &perr) || len(perr.Issues) == 0 {
+			return nil, nil, Method{}, &certs.FormatError{Path: "problem", Msg: "the recorded problem does not parse: " + err.Error()}
+		}
+		is := perr.Issues[0]
+		msg := "the recorded problem is invalid: " + is.Msg
+		if n := len(perr.Issues); n > 1 {
+			msg += fmt.Sprintf(" (and %d more defects)", n-1)
+		}
+		return nil, nil, Method{}, &certs.FormatError{Path: strictjson.Join("problem", is.Path), Msg: msg}
 	}
-	if string(jb) == "null" {
-		jb = []byte("[]")
+	m, err := decodeMethod(cert.Method)
+	if err != nil {
+		return nil, nil, Method{}, err
 	}
-	return bytes.Equal(ja, jb)
+	if _, err := recordedRecipe(p, m); err != nil {
+		return nil, nil, Method{}, err
+	}
+	return cert, p, m, nil
+}
+
+// decodeMethod reads a certificate's method block strictly: every key
+// spelled as Method defines it, none repeated, at every depth.
+func decodeMethod(raw json.RawMessage) (Method, error) {
+	var m Method
+	if err := strictjson.Decode(raw, &m); err != nil {
+		return Method{}, certs.AsFormatError("method", err)
+	}
+	return m, nil
+}
+
+// recordedRecipe returns the recipe a certificate's method records for p,
+// or a *certs.FormatError naming the field that does not fit p or is out
+// of range.
+func recordedRecipe(p *problem.Problem, m Method) (recipe, error) {
+	if (m.Kind != KindInterval || p.Dim != 1) && (m.Kind != KindPolygon || p.Dim != 2) {
+		return recipe{}, &certs.FormatError{Path: "method.kind", Msg: fmt.Sprintf("%q does not fit a %d-dimensional problem", m.Kind, p.Dim)}
+	}
+	gamma, err := decimalio.Parse(m.Gamma)
+	if err != nil || !gamma.IsPoint() {
+		return recipe{}, &certs.FormatError{Path: "method.gamma", Msg: fmt.Sprintf("%q is not an exact float64", m.Gamma)}
+	}
+	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo,
+		cells: m.Cells, fluxDegree: m.FluxDegree, weightTaylor: m.WeightOrder, stageACells: m.StageACells,
+		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels}
+	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
+	if p.Dim == 2 {
+		fg, err := decimalio.Parse(m.FluxGamma)
+		if err != nil || !fg.IsPoint() || fg.Lo < r.gamma {
+			return recipe{}, &certs.FormatError{Path: "method.flux_gamma", Msg: fmt.Sprintf("%q is not an exact float64 ≥ gamma", m.FluxGamma)}
+		}
+		r.fluxGamma = fg.Lo
+		r.marks = m.AdaptiveMarks
+	}
+	if err := r.validate(p.Dim); err != nil {
+		return recipe{}, &certs.FormatError{Msg: err.Error()} // the message names the field
+	}
+	return r, nil
+}
+
+// differences compares a recorded part of a certificate with its
+// recomputation, field for field through their JSON forms, and lists
+// every differing field by its path (at most maxDifferences per part). An
+// absent list or map equals an empty one.
+func differences(path string, recorded, recomputed any) []string {
+	var out []string
+	diffJSON(path, generic(recorded), generic(recomputed), &out)
+	if n := len(out); n > maxDifferences {
+		out = append(out[:maxDifferences], fmt.Sprintf("%s: %d more differences", path, n-maxDifferences))
+	}
+	return out
+}
+
+const maxDifferences = 12
+
+// generic returns the JSON form of v as maps, lists, strings, json.Number,
+// bools and nil (embedded raw JSON, such as a reference certificate,
+// included).
+func generic(v any) any {
+	data, err := json.Marshal(v)
+	if err != nil {
+		panic("certify: " + err.Error()) // certificate types always marshal
+	}
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.UseNumber()
+	var g any
+	if err := dec.Decode(&g); err != nil {
+		panic("certify: " + err.Error())
+	}
+	return g
+}
+
+func diffJSON(path string, a, b any, out *[]string) {
+	if isEmpty(a) && isEmpty(b) {
+		return
+	}
+	switch av := a.(type) {
+	case map[string]any:
+		bv, ok := b.(map[string]any)
+		if !ok {
+			break
+		}
+		keys := make([]string, 0, len(av)+len(bv))
+		for k := range av {
+			keys = append(keys, k)
+		}
+		for k := range bv {
+			if _, dup := av[k]; !dup {
+				keys = append(keys, k)
+			}
+		}
+		slices.Sort(keys)
+		for _, k := range keys {
+			x, inA := av[k]
+			y, inB := bv[k]
+			switch {
+			case !inB:
+				*out = append(*out, fmt.Sprintf("%s is recorded but not recomputed", strictjson.Join(path, k)))
+			case !inA:
+				*out = append(*out, fmt.Sprintf("%s is missing (recomputed %s)", strictjson.Join(path, k), short(y)))
+			default:
+				diffJSON(strictjson.Join(path, k), x, y, out)
+			}
+		}
+		return
+	case []any:
+		bv, ok := b.([]any)
+		if !ok {
+			break
+		}
+		if len(av) != len(bv) {
+			*out = append(*out, fmt.Sprintf("%s has %d entries, recomputed %d", path, len(av), len(bv)))
+		}
+		for i := range min(len(av), len(bv)) {
+			diffJSON(strictjson.Index(path, i), av[i], bv[i], out)
+		}
+		return
+	default:
+		if a == b {
+			return
+		}
+	}
+	*out = append(*out, fmt.Sprintf("%s is %s, recomputed %s", path, short(a), short(b)))
+}
+
+// isEmpty reports whether a JSON value is null, an empty list or an empty
+// object.
+func isEmpty(v any) bool {
+	switch v := v.(type) {
+	case nil:
+		return true
+	case []any:
+		return len(v) == 0
+	case map[string]any:
+		return len(v) == 0
+	}
+	return false
+}
+
+// short returns the JSON text of v, cut to 80 bytes.
+func short(v any) string {
+	data, _ := json.Marshal(v)
+	if len(data) > 80 {
+		return string(data[:77]) + "..."
+	}
+	return string(data)
 }
 
 // validate rejects recipes that the computation cannot run (a certificate

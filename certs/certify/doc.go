@@ -34,10 +34,13 @@
 // the degree until the requested relative width is met or the budget is
 // spent, and reports honestly what it reached.
 //
-// Check recomputes a certificate from its recorded problem and method with
-// the same deterministic code and demands that every recorded bound be
-// reproduced digit for digit, that the problem hash match, and that the
-// claims be re-evaluated to the same verdicts.
+// Check reads a certificate strictly (package strictjson: no repeated or
+// case-variant keys, no unknown keys, at every depth, the method and the
+// embedded reference certificates included), recomputes it from its
+// recorded problem and method with the same deterministic code and
+// demands that the recorded results, claims and method equal the
+// recomputed ones field for field, that the problem be written in its
+// canonical form and its hash match.
 //
 // # Stage B and its shift
 //

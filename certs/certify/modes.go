@@ -1,8 +1,6 @@
 package certify
 
 import (
-	"bytes"
-	"encoding/json"
 	"fmt"
 
 	"gapcert/certs"
@@ -27,11 +25,9 @@ type Modes struct {
 // ApproximateModes returns the first count approximate eigenfunctions of
 // the problem on the trial space recorded in the certificate's method.
 func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Modes, error) {
-	var m Method
-	dec := json.NewDecoder(bytes.NewReader(c.Method))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(&m); err != nil {
-		return nil, fmt.Errorf("the method block does not parse: %w", err)
+	m, err := decodeMethod(c.Method)
+	if err != nil {
+		return nil, err
 	}
 	gamma, err := decimalio.Parse(m.Gamma)
 	if err != nil || !gamma.IsPoint() {

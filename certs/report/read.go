@@ -1,10 +1,8 @@
 package report
 
 import (
-	"bytes"
 	"crypto/sha256"
 	"encoding/hex"
-	"encoding/json"
 	"errors"
 	"fmt"
 	"io/fs"
@@ -15,6 +13,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/sweep"
+	"gapcert/fem/problem/strictjson"
 )
 
 // maxFileSize bounds what Read reads from one file (a certificate is a few
@@ -198,18 +197,28 @@ func asPoints(src *Source, f *sweep.Family, familyFile string) error {
 // claim (so that a certificate of another version is an error, not left
 // out silently).
 func notCertificate(data []byte) (reason string, ok bool) {
-	var head map[string]json.RawMessage
-	if err := json.NewDecoder(bytes.NewReader(data)).Decode(&head); err != nil || head == nil {
+	head, dups, err := strictjson.Parse(data)
+	if err != nil || head.Kind != strictjson.Object {
 		return "not a JSON object", true
 	}
-	raw, found := head["format"]
-	if !found {
+	for _, d := range dups {
+		if d.Path == "format" {
+			return "", false // two formats: certs.Unmarshal refuses the file
+		}
+	}
+	for _, k := range head.Keys {
+		if k != "format" && strings.EqualFold(k, "format") {
+			return "", false // a case variant: certs.Unmarshal refuses the file
+		}
+	}
+	raw := head.Get("format")
+	if raw == nil {
 		return "no \"format\" field", true
 	}
-	var format string
-	if json.Unmarshal(raw, &format) != nil {
+	if raw.Kind != strictjson.String {
 		return "\"format\" is not a string", true
 	}
+	format := raw.Str
 	family, _, _ := strings.Cut(certs.Format, "/")
 	if !strings.HasPrefix(format, family+"/") {
 		return fmt.Sprintf("format %q is not a certificate", format), true

@@ -3,7 +3,6 @@ package report
 import (
 	"crypto/sha256"
 	"encoding/hex"
-	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -14,6 +13,7 @@ import (
 	"strings"
 
 	"gapcert/certs"
+	"gapcert/fem/problem/strictjson"
 )
 
 // Output formats of Write.
@@ -280,14 +280,12 @@ func tableRow(e Entry, st style, opt Options, lay layout) ([]string, error) {
 // problemName is the name recorded in the certificate's problem, or
 // "(unnamed)".
 func problemName(c *certs.Certificate) string {
-	var p struct {
-		Name string `json:"name"`
-	}
-	_ = json.Unmarshal(c.Problem, &p) // Unmarshal checked that it is an object
-	if strings.TrimSpace(p.Name) == "" {
+	p, _, _ := strictjson.Parse(c.Problem) // certs.Unmarshal checked that it is an object
+	name := p.Get("name")                  // exactly "name", as problem.Parse reads it
+	if name == nil || name.Kind != strictjson.String || strings.TrimSpace(name.Str) == "" {
 		return "(unnamed)"
 	}
-	return p.Name
+	return name.Str
 }
 
 // caption is short whatever the number of rows: what the table is, how

@@ -5,7 +5,8 @@
 //
 // # Family files
 //
-// A family file is one JSON object (UTF-8). Unknown keys, duplicate keys
+// A family file is one JSON object (UTF-8), read strictly (package
+// strictjson): unknown keys, keys spelled in another case, duplicate keys
 // at any level and trailing data are errors.
 //
 //	{

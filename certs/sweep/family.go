@@ -7,12 +7,12 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
-	"io"
 	"math/big"
 	"strings"
 	"time"
 
 	"gapcert/fem/problem"
+	"gapcert/fem/problem/strictjson"
 	"gapcert/interval/decimalio"
 )
 
@@ -134,12 +134,10 @@ func ParseFamily(data []byte) (*Family, error) {
 	if len(data) > maxFamilyFile {
 		return nil, invalid("", fmt.Sprintf("file too large (%d bytes, at most %d)", len(data), maxFamilyFile), "a family file is a few kilobytes")
 	}
-	if err := checkStrictJSON(data); err != nil {
-		return nil, invalid("", err.Error(), "the file must be one JSON object without duplicate keys")
-	}
 	var ff familyFile
-	if err := decodeStrict(data, &ff); err != nil {
-		return nil, invalid("", err.Error(), "allowed keys: name, template, parameters, claims, relative_width, time_limit")
+	if err := strictjson.Decode(data, &ff); err != nil {
+		path, msg := strictIssue("", err)
+		return nil, invalid(path, msg, "a family file is one JSON object with the keys name, template, parameters, claims, relative_width, time_limit, each once and spelled so")
 	}
 	sum := sha256.Sum256(data)
 	f := &Family{Name: ff.Name, SHA256: hex.EncodeToString(sum[:]), data: append([]byte(nil), data...)}
@@ -218,14 +216,14 @@ func readTemplate(raw json.RawMessage, add func(path, msg, hint string)) (map[st
 		return nil, nil
 	}
 	var t map[string]json.RawMessage
-	if err := json.Unmarshal(raw, &t); err != nil || t == nil {
+	if err := strictjson.Decode(raw, &t); err != nil || t == nil {
 		add("template", "the template must be a problem object", `write "template": {"domain": …, "boundary": …}`)
 		return nil, nil
 	}
 	fixed := map[string]bool{}
 	if pr, ok := t["parameters"]; ok {
 		var m map[string]json.RawMessage
-		if err := json.Unmarshal(pr, &m); err != nil || m == nil {
+		if err := strictjson.Decode(pr, &m); err != nil || m == nil {
 			add("template.parameters", "parameters must be an object", `write "parameters": {"k": "2"}`)
 			return nil, nil
 		}
@@ -242,8 +240,9 @@ func readTemplate(raw json.RawMessage, add func(path, msg, hint string)) (map[st
 // exact values.
 func readParam(raw json.RawMessage, path string, add func(path, msg, hint string)) (Param, bool) {
 	var pf paramFile
-	if err := decodeStrict(raw, &pf); err != nil {
-		add(path, err.Error(), `write {"name": "a", "range": {"lo": "0", "hi": "1", "count": 5}} or {"name": "a", "values": ["0", "1/2"]}`)
+	if err := strictjson.Decode(raw, &pf); err != nil {
+		p, msg := strictIssue(path, err)
+		add(p, msg, `write {"name": "a", "range": {"lo": "0", "hi": "1", "count": 5}} or {"name": "a", "values": ["0", "1/2"]}`)
 		return Param{}, false
 	}
 	if pf.Name == "" {
@@ -367,7 +366,7 @@ func numberText(raw json.RawMessage) (string, error) {
 	var s string
 	switch {
 	case len(raw) > 0 && raw[0] == '"':
-		if err := json.Unmarshal(raw, &s); err != nil {
+		if err := strictjson.Decode(raw, &s); err != nil {
 			return "", err
 		}
 	case len(raw) > 0 && (raw[0] == '-' || '0' <= raw[0] && raw[0] <= '9'):
@@ -470,7 +469,7 @@ func (f *Family) pointJSON(template map[string]json.RawMessage, claims []string,
 	}
 	params := map[string]json.RawMessage{}
 	if raw, ok := template["parameters"]; ok {
-		if err := json.Unmarshal(raw, &params); err != nil {
+		if err := strictjson.Decode(raw, &params); err != nil {
 			return nil, err
 		}
 	}
@@ -482,7 +481,7 @@ func (f *Family) pointJSON(template map[string]json.RawMessage, claims []string,
 	if len(claims) > 0 {
 		var all []json.RawMessage
 		if raw, ok := template["claims"]; ok {
-			if err := json.Unmarshal(raw, &all); err != nil {
+			if err := strictjson.Decode(raw, &all); err != nil {
 				return nil, fmt.Errorf("claims must be a list of strings")
 			}
 		}
@@ -494,7 +493,7 @@ func (f *Family) pointJSON(template map[string]json.RawMessage, claims []string,
 	}
 	name := ""
 	if raw, ok := template["name"]; ok {
-		if err := json.Unmarshal(raw, &name); err != nil {
+		if err := strictjson.Decode(raw, &name); err != nil {
 			return nil, fmt.Errorf("name must be a string")
 		}
 	}
@@ -506,96 +505,12 @@ func (f *Family) pointJSON(template map[string]json.RawMessage, claims []string,
 	return json.Marshal(obj)
 }
 
-// decodeStrict decodes one JSON value into v, rejecting unknown keys and
-// trailing data.
-func decodeStrict(data []byte, v any) error {
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(v); err != nil {
-		return err
+// strictIssue returns the path (under prefix) and message of an error of
+// strictjson.Decode.
+func strictIssue(prefix string, err error) (path, msg string) {
+	var se *strictjson.Error
+	if errors.As(err, &se) && se.Line == 0 {
+		return strictjson.Under(prefix, se.Path), se.Msg
 	}
-	if _, err := dec.Token(); !errors.Is(err, io.EOF) {
-		return errors.New("data after the end of the JSON value")
-	}
-	return nil
-}
-
-// checkStrictJSON checks that data is one JSON object with no duplicate
-// key in any object.
-func checkStrictJSON(data []byte) error {
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.UseNumber()
-	tok, err := dec.Token()
-	if err != nil {
-		return fmt.Errorf("not JSON: %v", err)
-	}
-	if d, ok := tok.(json.Delim); !ok || d != '{' {
-		return errors.New("the file must hold a JSON object")
-	}
-	if err := walkObject(dec, ""); err != nil {
-		return err
-	}
-	if _, err := dec.Token(); !errors.Is(err, io.EOF) {
-		return errors.New("data after the end of the JSON object")
-	}
-	return nil
-}
-
-// walkObject reads the rest of an object whose '{' was read.
-func walkObject(dec *json.Decoder, path string) error {
-	keys := map[string]bool{}
-	for dec.More() {
-		tok, err := dec.Token()
-		if err != nil {
-			return fmt.Errorf("not JSON: %v", err)
-		}
-		key := tok.(string)
-		if keys[key] {
-			return fmt.Errorf("duplicate key %q in %s", key, objectName(path))
-		}
-		keys[key] = true
-		if err := walkValue(dec, join(path, key)); err != nil {
-			return err
-		}
-	}
-	_, err := dec.Token() // '}'
-	return err
-}
-
-func walkValue(dec *json.Decoder, path string) error {
-	tok, err := dec.Token()
-	if err != nil {
-		return fmt.Errorf("not JSON: %v", err)
-	}
-	d, ok := tok.(json.Delim)
-	if !ok {
-		return nil
-	}
-	switch d {
-	case '{':
-		return walkObject(dec, path)
-	case '[':
-		for i := 0; dec.More(); i++ {
-			if err := walkValue(dec, fmt.Sprintf("%s[%d]", path, i)); err != nil {
-				return err
-			}
-		}
-		_, err := dec.Token() // ']'
-		return err
-	}
-	return nil
-}
-
-func join(path, key string) string {
-	if path == "" {
-		return key
-	}
-	return path + "." + key
-}
-
-func objectName(path string) string {
-	if path == "" {
-		return "the top-level object"
-	}
-	return path
+	return prefix, err.Error()
 }

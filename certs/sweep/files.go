@@ -16,6 +16,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/outfile"
+	"gapcert/fem/problem/strictjson"
 )
 
 // Names of the files a sweep writes into its directory.
@@ -93,11 +94,12 @@ func MarshalSummary(s *Summary) ([]byte, error) {
 	return buf.Bytes(), nil
 }
 
-// UnmarshalSummary reads a summary strictly (known keys only, format
-// SummaryFormat).
+// UnmarshalSummary reads a summary strictly (package strictjson: no key
+// given twice, every key spelled as Summary defines it, at every depth;
+// format SummaryFormat).
 func UnmarshalSummary(data []byte) (*Summary, error) {
 	var s Summary
-	if err := decodeStrict(data, &s); err != nil {
+	if err := strictjson.Decode(data, &s); err != nil {
 		return nil, fmt.Errorf("not a sweep summary: %v", err)
 	}
 	if s.Format != SummaryFormat {

@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"gapcert/certs"
+	"gapcert/certs/tampertest"
 	"gapcert/interval/decimalio"
 )
 
@@ -123,5 +124,59 @@ func TestDemo(t *testing.T) {
 	}
 	if code, _, errs := execute("check", cert); code != exitOK {
 		t.Errorf("check of the demo certificate: exit %d, stderr %q", code, errs)
+	}
+}
+
+// TestTamperedCertificateExitCodes: check and merge exit with status 3 on
+// every tamper variant of package tampertest (keys given twice with the
+// false value first or last, keys in another case, two problem objects,
+// keys the format does not define in method and in an embedded reference
+// certificate), name the path of the defect, and merge writes nothing;
+// the untampered certificate verifies. Each variant's Seen field states
+// what a reader that matches keys exactly and keeps the last of two equal
+// keys (Python's json module) would take from the file.
+func TestTamperedCertificateExitCodes(t *testing.T) {
+	root := t.TempDir()
+	family := filepath.Join(root, "robin.json")
+	if err := os.WriteFile(family, []byte(`{"template": {"domain": {"polygon": [["0", "0"], ["3/2", "0"], ["3/2", "1"], ["0", "1"]]},
+	  "boundary": {"robin": "a"}, "claims": ["@robin_comparison"]},
+	  "parameters": [{"name": "a", "values": ["1"]}], "relative_width": "0.05"}`), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	dir := filepath.Join(root, "sweep")
+	if code, _, errs := execute("sweep", family, "--out", dir); code != exitOK {
+		t.Fatalf("sweep: exit %d, stderr %q", code, errs)
+	}
+	files, _ := filepath.Glob(filepath.Join(dir, "*.cert.json"))
+	if len(files) != 1 {
+		t.Fatalf("certificates %v", files)
+	}
+	cert := files[0]
+	good, err := os.ReadFile(cert)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if code, _, errs := execute("check", cert); code != exitOK {
+		t.Fatalf("check of the untampered certificate: exit %d, stderr %q", code, errs)
+	}
+	out := filepath.Join(root, "merged")
+	for _, v := range tampertest.Variants(0) {
+		edited := v.Edit(good)
+		if edited == nil {
+			t.Errorf("%s: the variant does not apply", v.Name)
+			continue
+		}
+		if err := os.WriteFile(cert, edited, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		if code, _, errs := execute("check", cert); code != exitMismatch || !strings.Contains(errs, v.Path+": ") {
+			t.Errorf("check, %s: exit %d, stderr %q; want 3 and the path %s (a Python reader sees %s)", v.Name, code, errs, v.Path, v.Seen)
+		}
+		if code, _, errs := execute("merge", "--out", out, dir); code != exitMismatch || !strings.Contains(errs, v.Path+": ") {
+			t.Errorf("merge, %s: exit %d, stderr %q; want 3 and the path %s", v.Name, code, errs, v.Path)
+		}
+		if _, err := os.Stat(out); err == nil {
+			t.Fatalf("merge, %s: a refused merge wrote %s", v.Name, out)
+		}
 	}
 }

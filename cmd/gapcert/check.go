@@ -7,6 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"gapcert/certs"
 	"gapcert/certs/certify"
 )
 
@@ -22,26 +23,40 @@ and claim verdict digit for digit.
 
 Exit status: 0 if the certificate verifies, 1 if it cannot be read, 2 if
 recomputing it would exceed the memory budget (refused before allocating),
-3 if it does not verify (each difference is listed).`,
+3 if it does not verify (each difference is listed) or is not read
+strictly as a certificate: a key given twice, a key not spelled exactly as
+the format defines it (case variants included) or an unknown key, at any
+depth, with the JSON path of the defect.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			data, err := os.ReadFile(args[0])
 			if err != nil {
 				return readFailure(err)
 			}
-			err = certify.Check(data)
-			var mm *certify.MismatchError
-			var budget *certify.BudgetError
-			switch {
-			case errors.As(err, &budget):
-				return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", args[0], err)}
-			case errors.As(err, &mm):
-				return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", args[0], err)}
-			case err != nil:
-				return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", args[0], err)}
+			if err := checkExit(args[0], certify.Check(data)); err != nil {
+				return err
 			}
 			fmt.Fprintf(cmd.OutOrStdout(), "%s: certificate verifies (recomputed bounds, hash and claims agree)\n", args[0])
 			return nil
 		},
 	}
+}
+
+// checkExit returns the outcome of certify.Check on the certificate file
+// name with the exit status of the check command: 2 for a recomputation
+// beyond the memory budget, 3 for a certificate that does not verify or is
+// not strictly a certificate (a *certs.FormatError), 1 otherwise.
+func checkExit(name string, err error) error {
+	var mm *certify.MismatchError
+	var bad *certs.FormatError
+	var budget *certify.BudgetError
+	switch {
+	case err == nil:
+		return nil
+	case errors.As(err, &budget):
+		return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", name, err)}
+	case errors.As(err, &mm), errors.As(err, &bad):
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", name, err)}
+	}
+	return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", name, err)}
 }

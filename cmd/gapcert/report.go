@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"errors"
 	"fmt"
 	"path/filepath"
 	"strings"
@@ -137,20 +136,7 @@ func hashListFile(out string) string {
 
 // checkEntry re-verifies one certificate of a report, with the exit codes
 // of the check command.
-func checkEntry(e report.Entry) error {
-	err := certify.Check(e.Data)
-	var mm *certify.MismatchError
-	var budget *certify.BudgetError
-	switch {
-	case err == nil:
-		return nil
-	case errors.As(err, &budget):
-		return &exitError{code: exitInvalid, err: fmt.Errorf("%s: %v", e.Path, err)}
-	case errors.As(err, &mm):
-		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", e.Path, err)}
-	}
-	return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", e.Path, err)}
-}
+func checkEntry(e report.Entry) error { return checkExit(e.Path, certify.Check(e.Data)) }
 
 // readPaths lists every file report.Read opened: the certificates and the
 // JSON files it left out.

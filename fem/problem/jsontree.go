@@ -1,16 +1,13 @@
 package problem
 
 import (
-	"bytes"
 	"encoding/json"
-	"errors"
-	"fmt"
-	"io"
-	"strconv"
+
+	"gapcert/fem/problem/strictjson"
 )
 
 // node is a JSON value as read from a problem file, with object keys kept
-// in file order so that duplicates and unknown keys can be reported.
+// in file order so that unknown keys can be reported where they stand.
 type node struct {
 	kind  nodeKind
 	str   string      // kindString
@@ -20,23 +17,16 @@ type node struct {
 	index map[string]int
 }
 
-type nodeKind int
+type nodeKind = strictjson.Kind
 
 const (
-	kindNull nodeKind = iota
-	kindBool
-	kindNumber
-	kindString
-	kindArray
-	kindObject
+	kindNull   = strictjson.Null
+	kindBool   = strictjson.Bool
+	kindNumber = strictjson.Number
+	kindString = strictjson.String
+	kindArray  = strictjson.Array
+	kindObject = strictjson.Object
 )
-
-func (k nodeKind) String() string {
-	return [...]string{"null", "a boolean", "a number", "a string", "a list", "an object"}[k]
-}
-
-// maxDepth bounds the nesting of a problem file; the layout needs 4.
-const maxDepth = 32
 
 // get returns the value under key of an object node, or nil.
 func (n *node) get(key string) *node {
@@ -46,128 +36,36 @@ func (n *node) get(key string) *node {
 	return nil
 }
 
-// readTree decodes one JSON value from data. Numbers keep their literal
-// text (json.Decoder.UseNumber). Duplicate keys are reported as issues with
-// their path; syntax errors are returned as an error with line and column.
+// readTree reads one JSON value from data with the strict reader of
+// package strictjson (numbers keep their literal text, nesting is bounded,
+// nothing may follow the value). Every repeated key is reported as an issue
+// with its path; syntax errors are returned as an error with line and
+// column.
 func readTree(data []byte, iss *issues) (*node, error) {
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.UseNumber()
-	root, err := readValue(dec, "", 0, iss)
+	root, dups, err := strictjson.Parse(data)
 	if err != nil {
-		return nil, positioned(data, dec, err)
-	}
-	if _, err := dec.Token(); err != io.EOF {
-		off := dec.InputOffset()
-		line, col := lineCol(data, off)
-		return nil, fmt.Errorf("invalid JSON at line %d, column %d: data after the top-level object", line, col)
-	}
-	return root, nil
-}
-
-func readValue(dec *json.Decoder, path string, depth int, iss *issues) (*node, error) {
-	if depth > maxDepth {
-		return nil, errors.New("nesting too deep")
-	}
-	tok, err := dec.Token()
-	if err != nil {
-		if err == io.EOF {
-			return nil, io.ErrUnexpectedEOF
-		}
 		return nil, err
 	}
-	switch t := tok.(type) {
-	case nil:
-		return &node{kind: kindNull}, nil
-	case bool: // only its kind matters: no key takes a boolean
-		return &node{kind: kindBool}, nil
-	case json.Number:
-		return &node{kind: kindNumber, num: t}, nil
-	case string:
-		return &node{kind: kindString, str: t}, nil
-	case json.Delim:
-		switch t {
-		case '[':
-			n := &node{kind: kindArray}
-			for dec.More() {
-				v, err := readValue(dec, path+"["+strconv.Itoa(len(n.vals))+"]", depth+1, iss)
-				if err != nil {
-					return nil, err
-				}
-				n.vals = append(n.vals, v)
-			}
-			if _, err := dec.Token(); err != nil {
-				return nil, err
-			}
-			return n, nil
-		case '{':
-			n := &node{kind: kindObject, index: map[string]int{}}
-			for dec.More() {
-				kt, err := dec.Token()
-				if err != nil {
-					return nil, err
-				}
-				key := kt.(string) // the decoder only yields string keys inside objects
-				v, err := readValue(dec, join(path, key), depth+1, iss)
-				if err != nil {
-					return nil, err
-				}
-				if _, dup := n.index[key]; dup {
-					iss.add(join(path, key), "duplicate key", "give each key once")
-					continue
-				}
-				n.index[key] = len(n.keys)
-				n.keys = append(n.keys, key)
-				n.vals = append(n.vals, v)
-			}
-			if _, err := dec.Token(); err != nil {
-				return nil, err
-			}
-			return n, nil
+	for _, d := range dups {
+		iss.add(d.Path, "duplicate key", "give each key once")
+	}
+	return fromValue(root), nil
+}
+
+// fromValue converts the strict reader's tree into the problem reader's.
+func fromValue(v *strictjson.Value) *node {
+	n := &node{kind: v.Kind, str: v.Str, num: v.Num, keys: v.Keys}
+	if v.Kind == kindObject {
+		n.index = make(map[string]int, len(v.Keys))
+		for i, k := range v.Keys {
+			n.index[k] = i
 		}
 	}
-	return nil, fmt.Errorf("unexpected token %v", tok)
+	for _, e := range v.Elems {
+		n.vals = append(n.vals, fromValue(e))
+	}
+	return n
 }
 
 // join appends an object key to a JSON path.
-func join(path, key string) string {
-	if path == "" {
-		return key
-	}
-	return path + "." + key
-}
-
-// positioned turns a decoding error into one that names line and column.
-func positioned(data []byte, dec *json.Decoder, err error) error {
-	off := dec.InputOffset()
-	msg := err.Error()
-	var se *json.SyntaxError
-	if errors.As(err, &se) {
-		off = se.Offset
-		if off > 0 {
-			off-- // Offset counts the offending byte
-		}
-	}
-	if errors.Is(err, io.ErrUnexpectedEOF) {
-		msg = "unexpected end of file"
-		off = int64(len(data))
-	}
-	line, col := lineCol(data, off)
-	return fmt.Errorf("invalid JSON at line %d, column %d: %s", line, col, msg)
-}
-
-// lineCol converts a byte offset into a 1-based line and byte column.
-func lineCol(data []byte, off int64) (line, col int) {
-	if off > int64(len(data)) {
-		off = int64(len(data))
-	}
-	line, col = 1, 1
-	for _, c := range data[:off] {
-		if c == '\n' {
-			line++
-			col = 1
-		} else {
-			col++
-		}
-	}
-	return line, col
-}
+func join(path, key string) string { return strictjson.Join(path, key) }

@@ -72,11 +72,12 @@ func Load(path string) (*Sweep, error) {
 	out := &Sweep{Path: path, Name: s.Family, Summary: s, Problems: make([]*problem.Problem, len(s.Points)), References: make([]map[string]certs.Bound, len(s.Points))}
 	dir := filepath.Dir(path)
 	if fam, err := readLimited(filepath.Join(dir, sweep.FamilyFileName), maxSummarySize); err == nil {
-		var head struct {
-			Name string `json:"name"`
+		f, err := sweep.ParseFamily(fam) // strictly, as every file
+		if err != nil {
+			return nil, fmt.Errorf("%s: %w", filepath.Join(dir, sweep.FamilyFileName), err)
 		}
-		if json.Unmarshal(fam, &head) == nil && head.Name != "" {
-			out.Name = head.Name
+		if f.Name != "" {
+			out.Name = f.Name
 		}
 	}
 	for i, pt := range s.Points {
