@@ -14,7 +14,7 @@
 //     (AssembleApprox) to choose approximate eigenvectors;
 //   - Projection: the stage-A spaces CR and ECR (enriched Crouzeix–Raviart)
 //     with the interval matrices of the relaxed form a_h and the constant
-//     of the projection lower bound (METHODS §5);
+//     of the projection lower bound of Liu (2015);
 //   - Flux: the Raviart–Thomas spaces RT_k ⊂ H(div) (exact rational
 //     reference basis, Piola transform) with the Lehmann–Goerisch matrix A2
 //     (LGMatrix, METHODS §6), the minimal-norm flux (MinimizeApprox) and
@@ -35,6 +35,28 @@
 // are checked and reported as errors (*SignError and others), never
 // assumed. ProjectionConstant returns an upper bound of the constant of
 // (H3), with the inequality and its source in its doc comment.
+//
+// The constant of (H3). Both stage-A spaces use Liu's Crouzeix–Raviart
+// interpolation constant, confirmed in the restatement by C. You, H. Xie
+// and X. Liu (Guaranteed eigenvalue bounds for the Steklov eigenvalue
+// problem, arXiv:1808.08148v1, p. 8), Lemma 3.2, equation (3.12):
+//
+//	"For any triangle element K, whose longest edge length is denoted by
+//	h_K, we have ‖u − Π_h u‖_(0,K) ≤ 0.1893 h_K |u − Π_h u|_(1,K)
+//	∀u ∈ H¹(K)."
+//
+// with Π_h the Crouzeix–Raviart interpolation operator (edge means, their
+// equation (3.10)), credited there to X. Liu, A framework of verified
+// eigenvalue bounds for self-adjoint differential operators, Appl. Math.
+// Comput. 267 (2015) 341–355. The bound is stated with the number 0.1893
+// itself (an upper bound of the optimal constant), h_K the longest edge,
+// and the only hypothesis on the error is zero edge means. So it holds for
+// the CR error and also for the ECR error (zero edge means and zero element
+// mean: its CR interpolant is 0). The code encloses the decimal 0.1893 and
+// the longest edge and rounds C_T = 0.1893 h_T up. It replaces the
+// constants used before, h_T/j_(1,1) ≈ 0.2610 h_T for ECR (mean-zero
+// Poincaré inequality, Laugesen–Siudeja 2010) and ≈ 0.2984 h_T for CR (a
+// derivation from the edge-mean condition), both larger.
 //
 // Functions and files named Approx or approx, and Interpolate and Eval,
 // work at round-to-nearest: their results are choices (approximate
