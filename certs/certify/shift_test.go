@@ -89,3 +89,37 @@ func TestRaiseShift(t *testing.T) {
 		t.Errorf("raiseShift with an unbounded deficit = %g, want %g", got, roundShift(scale))
 	}
 }
+
+// TestLargeConstantPotentialSquare: V = 1e8 + x + y on the unit square,
+// Dirichlet, separates (common practice): λ_1 = 1e8 + 2μ_1, λ_2 = λ_3 =
+// 1e8 + μ_1 + μ_2 with μ_k those of −u″ + xu on (0, 1) (series shooting).
+// Both shifts are negative and the gap is certified to 1e-6 of itself.
+func TestLargeConstantPotentialSquare(t *testing.T) {
+	one := new(big.Float).SetPrec(seriesPrec).SetInt64(1)
+	mu1 := linearRoot(t, math.Pi*math.Pi-1e-9, math.Pi*math.Pi+1, one, 0, 1, false)
+	mu2 := linearRoot(t, 4*math.Pi*math.Pi-1e-9, 4*math.Pi*math.Pi+1, one, 0, 1, false)
+	p, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"1e8 + x + y","boundary":"dirichlet","eigenvalues":2}`, 1e-6)
+	if r, err := initialRecipe(p); err != nil || !(r.gamma < -9e7 && r.fluxGamma < -9e7) {
+		t.Errorf("shifts γ = %g, γ_B = %g (%v), want both near −1e8", r.gamma, r.fluxGamma, err)
+	}
+	offset := new(big.Float).SetPrec(seriesPrec).SetInt64(100000000)
+	l1 := new(big.Float).SetPrec(seriesPrec).Add(offset, mu1)
+	l1.Add(l1, mu1)
+	l2 := new(big.Float).SetPrec(seriesPrec).Add(offset, mu1)
+	l2.Add(l2, mu2)
+	for k, truth := range []*big.Float{l1, l2} {
+		if got := eigenEnclosure(t, c, k+1); !bigInside(truth, got) {
+			t.Errorf("lambda%d: enclosure %v misses %s", k+1, got, truth.Text('g', 25))
+		}
+	}
+	gap, err := c.Results.Gap.Interval()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bigInside(new(big.Float).SetPrec(seriesPrec).Sub(mu2, mu1), gap) {
+		t.Errorf("gap: enclosure %v misses μ_2 − μ_1", gap)
+	}
+	if w := gap.Wid() / gap.Mid(); !(w <= 1e-6) {
+		t.Errorf("gap: enclosure %v has width %.3g relative to itself, want ≤ 1e-6", gap, w)
+	}
+}
