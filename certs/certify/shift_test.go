@@ -3,6 +3,7 @@ package certify
 import (
 	"math"
 	"math/big"
+	"strings"
 	"testing"
 
 	"gapcert/interval"
@@ -121,5 +122,26 @@ func TestLargeConstantPotentialSquare(t *testing.T) {
 	}
 	if w := gap.Wid() / gap.Mid(); !(w <= 1e-6) {
 		t.Errorf("gap: enclosure %v has width %.3g relative to itself, want ≤ 1e-6", gap, w)
+	}
+}
+
+// TestCheckNegativeShift: a certificate with a negative γ verifies by
+// recomputation, and the same certificate with γ raised by 2⁻⁴ (still
+// sound, but not what was computed) does not.
+func TestCheckNegativeShift(t *testing.T) {
+	_, c := certifyText(t, `{"domain":{"interval":["0","1"]},"potential":"1e8 + x","boundary":"dirichlet","eigenvalues":2}`, 1e-8)
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("certificate with γ < 0 does not verify: %v", err)
+	}
+	edited := strings.Replace(string(data), `"gamma": "-99999984"`, `"gamma": "-99999983.9375"`, 1)
+	if edited == string(data) {
+		t.Fatalf("γ = -99999984 not found in the certificate")
+	}
+	if err := Check([]byte(edited)); err == nil {
+		t.Errorf("a certificate with an edited γ verifies")
 	}
 }
