@@ -247,7 +247,7 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 func cellLowerBound(p *problem.Problem, r recipe) (float64, error) {
 	lo := math.Inf(1)
 	if p.Dim == 1 {
-		mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)
+		mesh := intervalMesh(p, r.stageACells)
 		pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
 		if err != nil {
 			return 0, err

@@ -75,53 +75,73 @@ func TestKinkMin(t *testing.T) {
 	}
 }
 
-// TestKinkInsideCell: V = |x − 1/3| on (0, 1), Dirichlet. 1/3 is never a
-// node of the uniform meshes, so the cell containing it gets the range
-// model. Reference: with t the distance to 1/3, both pieces solve
-// −w″ + tw = λw; with φ₁, φ₂ the series solutions with (w, w′)(0) = (1, 0)
-// and (0, 1), u = Aφ₁(1/3 − x) − Bφ₂(1/3 − x) left and Aφ₁(x − 1/3) +
-// Bφ₂(x − 1/3) right (u(1/3) = A, u′(1/3) = B), and the Dirichlet ends
-// give det = φ₁(1/3)φ₂(2/3) + φ₂(1/3)φ₁(2/3) = 0 (common practice). 1/3 and
-// 2/3 enter as 320-bit floats (relative error 1e-96, far below the test's
-// widths). V ∈ [0, 2/3] brackets λ_k in [k²π², k²π² + 2/3].
-func TestKinkInsideCell(t *testing.T) {
-	third := new(big.Float).SetPrec(seriesPrec).Quo(bigF(1), bigF(3))
-	twoThirds := new(big.Float).SetPrec(seriesPrec).Quo(bigF(2), bigF(3))
+// kinkReference returns the Dirichlet eigenvalue in [lo, hi] (one sign
+// change) of −u″ + |x − k|u = λu on (k − l1, k + l2). With t the distance
+// to the kink both pieces solve −w″ + tw = λw; with φ₁, φ₂ the series
+// solutions with (w, w′)(0) = (1, 0) and (0, 1) (series_test.go),
+// u = Aφ₁(k − x) − Bφ₂(k − x) left and Aφ₁(x − k) + Bφ₂(x − k) right
+// (u(k) = A, u′(k) = B), and the Dirichlet ends give
+// det = φ₁(l1)φ₂(l2) + φ₂(l1)φ₁(l2) = 0 (common practice).
+func kinkReference(t *testing.T, l1, l2 *big.Float, lo, hi float64) *big.Float {
 	det := func(mu *big.Float) int {
-		a1, _, t1 := seriesShoot(mu, third, 1, 0)
-		a2, _, t2 := seriesShoot(mu, third, 0, 1)
-		b1, _, t3 := seriesShoot(mu, twoThirds, 1, 0)
-		b2, _, t4 := seriesShoot(mu, twoThirds, 0, 1)
+		a1, _, t1 := seriesShoot(mu, l1, 1, 0)
+		a2, _, t2 := seriesShoot(mu, l1, 0, 1)
+		b1, _, t3 := seriesShoot(mu, l2, 1, 0)
+		b2, _, t4 := seriesShoot(mu, l2, 0, 1)
 		if math.Max(math.Max(t1, t2), math.Max(t3, t4)) > 1e-60 {
 			t.Fatal("series tail too large")
 		}
 		d := new(big.Float).SetPrec(seriesPrec).Mul(a1, b2)
 		return d.Add(d, new(big.Float).SetPrec(seriesPrec).Mul(a2, b1)).Sign()
 	}
-	root := func(lo, hi float64) *big.Float {
-		a, b := bigF(lo), bigF(hi)
-		sa := det(a)
-		if sa == 0 || sa == det(b) {
-			t.Fatalf("no sign change on [%g, %g]", lo, hi)
-		}
-		for i := 0; i < 200; i++ {
-			m := new(big.Float).SetPrec(seriesPrec).Add(a, b)
-			m.Quo(m, bigF(2))
-			if det(m) == sa {
-				a = m
-			} else {
-				b = m
-			}
-		}
-		return a
+	a, b := bigF(lo), bigF(hi)
+	sa := det(a)
+	if sa == 0 || sa == det(b) {
+		t.Fatalf("no sign change on [%g, %g]", lo, hi)
 	}
+	for i := 0; i < 200; i++ {
+		m := new(big.Float).SetPrec(seriesPrec).Add(a, b)
+		m.Quo(m, bigF(2))
+		if det(m) == sa {
+			a = m
+		} else {
+			b = m
+		}
+	}
+	return a
+}
+
+// TestKinkInsideCell: V = |x − 1/3| on (0, 1), Dirichlet. 1/3 is not a
+// float, so no node can carry the kink and its cell gets the range model.
+// 1/3 and 2/3 enter the reference as 320-bit floats (relative error
+// 1e-96, far below the test's widths). V ∈ [0, 2/3] brackets λ_k in
+// [k²π², k²π² + 2/3].
+func TestKinkInsideCell(t *testing.T) {
+	third := new(big.Float).SetPrec(seriesPrec).Quo(bigF(1), bigF(3))
+	twoThirds := new(big.Float).SetPrec(seriesPrec).Quo(bigF(2), bigF(3))
 	q := math.Pi * math.Pi
-	ref := [2]*big.Float{root(q-1e-9, q+2.0/3), root(4*q-1e-9, 4*q+2.0/3)}
+	ref := [2]*big.Float{kinkReference(t, third, twoThirds, q-1e-9, q+2.0/3), kinkReference(t, third, twoThirds, 4*q-1e-9, 4*q+2.0/3)}
 	_, c := certifyText(t, `{"domain":{"interval":["0","1"]},"potential":"abs(x - 1/3)","boundary":"dirichlet","eigenvalues":2}`, 1e-6)
 	for k := 1; k <= 2; k++ {
 		requireContains(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, c, k), ref[k-1], q, 1e-6)
 	}
 	t.Logf("reference λ1 = %s, λ2 = %s; widths %v; warnings %v", ref[0].Text('g', 17), ref[1].Text('g', 17), c.Results.RelativeWidths, c.Warnings)
+}
+
+// TestKinkAtFloatPoint: V = |x − 1| on (0, 3), Dirichlet. The kink 1 is
+// a float but not a node of the uniform meshes of (0, 3), so the meshes
+// get a node there (formula.Expr.Kinks) and the enclosures are as narrow
+// as for a smooth V. V ∈ [0, 2] brackets λ_k in [k²π²/9, k²π²/9 + 2].
+func TestKinkAtFloatPoint(t *testing.T) {
+	q := math.Pi * math.Pi / 9
+	ref := [2]*big.Float{kinkReference(t, bigF(1), bigF(2), q-1e-9, q+2), kinkReference(t, bigF(1), bigF(2), 4*q-1e-9, 4*q+2)}
+	_, c := certifyText(t, `{"domain":{"interval":["0","3"]},"potential":"abs(x - 1)","boundary":"dirichlet","eigenvalues":2}`, 1e-9)
+	for k := 1; k <= 2; k++ {
+		requireContains(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, c, k), ref[k-1], q, 1e-9)
+	}
+	if len(c.Warnings) > 0 {
+		t.Errorf("warnings: %v", c.Warnings)
+	}
 }
 
 // TestKinkSquareSeparable: V = |x| + |y| on (−1, 1)², Dirichlet, separates

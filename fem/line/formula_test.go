@@ -191,3 +191,38 @@ func midpoints(b []interval.I) []float64 {
 	}
 	return out
 }
+
+// TestUniformWith: points inside the interval become nodes (moving a
+// uniform node within a quarter cell, else inserted); points at or beyond
+// the ends and existing nodes change nothing.
+func TestUniformWith(t *testing.T) {
+	nodes := func(m *Mesh) []float64 {
+		out := make([]float64, len(m.Nodes))
+		for i, x := range m.Nodes {
+			out[i] = x.Mid()
+		}
+		return out
+	}
+	for _, tc := range []struct {
+		points []float64
+		want   []float64
+	}{
+		{nil, []float64{0, 0.75, 1.5, 2.25, 3}},
+		{[]float64{1.5, 0, 3, -1}, []float64{0, 0.75, 1.5, 2.25, 3}},
+		{[]float64{1}, []float64{0, 0.75, 1, 1.5, 2.25, 3}},
+		{[]float64{0.8}, []float64{0, 0.8, 1.5, 2.25, 3}},
+		{[]float64{1.4, 2.5}, []float64{0, 0.75, 1.4, 2.25, 2.5, 3}},
+	} {
+		got := nodes(UniformWith(pt(0), pt(3), 4, tc.points))
+		if len(got) != len(tc.want) {
+			t.Errorf("points %v: nodes %v, want %v", tc.points, got, tc.want)
+			continue
+		}
+		for i := range got {
+			if got[i] != tc.want[i] {
+				t.Errorf("points %v: nodes %v, want %v", tc.points, got, tc.want)
+				break
+			}
+		}
+	}
+}

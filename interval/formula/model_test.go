@@ -359,3 +359,36 @@ func TestModelsKinkOnTheBoundary(t *testing.T) {
 		t.Errorf("gradient of abs(x) on [-1, 0]: want an error")
 	}
 }
+
+// TestKinks: the exact float zeros of affine arguments of abs and of the
+// argument differences of min and max, sorted and without repeats; other
+// kinks are not listed.
+func TestKinks(t *testing.T) {
+	for _, tc := range []struct {
+		src  string
+		want []float64
+	}{
+		{"abs(x)", []float64{0}},
+		{"abs(x - 1) + min(x, 3 - x)", []float64{1, 1.5}},
+		{"abs(2*x + 1/2) + abs((x - 3/8)/5) + abs(-x + 3/8)", []float64{-0.25, 0.375}},
+		{"max(x/3, 1/4)", []float64{0.75}},
+		{"abs(x - 1/3)", []float64{}},     // not a float
+		{"abs(x - 0.1)", []float64{}},     // 1/10 is not a float
+		{"abs(x^2 - 1)", []float64{}},     // not affine
+		{"abs(x - pi)", []float64{}},      // not rational
+		{"sin(abs(x - 2))", []float64{2}}, // nested
+		{"x^2 + 1", []float64{}},
+	} {
+		got := MustParse(tc.src).Kinks()
+		if len(got) != len(tc.want) {
+			t.Errorf("%s: kinks %v, want %v", tc.src, got, tc.want)
+			continue
+		}
+		for i := range got {
+			if got[i] != tc.want[i] {
+				t.Errorf("%s: kinks %v, want %v", tc.src, got, tc.want)
+				break
+			}
+		}
+	}
+}
