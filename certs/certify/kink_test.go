@@ -161,13 +161,13 @@ func TestKinkSquareSeparable(t *testing.T) {
 }
 
 // TestKinkDiagonal: V = |x − y| on the unit square, Dirichlet. The kink
-// runs along the diagonal of the initial triangulation, where bounding
-// boxes straddle it and the triangles get range models. No closed form:
+// y = x crosses the triangles of the meshes (their diagonals run along
+// y = 1 − x), so those triangles get range models. No closed form:
 // containment is checked against 0 ≤ V ≤ 1, which puts λ_1 in
 // [2π², 2π² + 1] and λ_2 in [5π², 5π² + 1] (monotonicity in V, common
-// practice), and the enclosures must be narrow (the range models along
-// the diagonal make the widths shrink like h², measured: 0.021, 0.0069,
-// 0.002, 0.0005 for λ_1 at 8 to 512 trial triangles).
+// practice), and the enclosures must be narrow (the widths shrink like h²,
+// measured: 0.021, 0.0069, 0.002, 0.0005 for λ_1 at 8 to 512 trial
+// triangles).
 func TestKinkDiagonal(t *testing.T) {
 	_, c := certifyText(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"abs(x - y)","boundary":"dirichlet","eigenvalues":2}`, 3e-3)
 	pi2 := interval.Pi().Sqr()

@@ -43,8 +43,11 @@ func TestPotentialModelsAndRanges(t *testing.T) {
 		// lies on one side, where the function is linear (exact models).
 		{"abs(x - 1/2) + min(y, 1 - y)", func(x, y float64) float64 { return math.Abs(x-0.5) + math.Min(y, 1-y) }, 1, true},
 		// A kink along the diagonals, which the bounding boxes of the
-		// diagonal triangles straddle: range models there.
-		{"abs(x - y)", func(x, y float64) float64 { return math.Abs(x - y) }, 3, false},
+		// diagonal triangles straddle but each triangle lies on one side
+		// of (decided on the triangle itself): exact.
+		{"abs(x - y)", func(x, y float64) float64 { return math.Abs(x - y) }, 3, true},
+		// A kink across triangles: range models there.
+		{"abs(x - y - 1/8)", func(x, y float64) float64 { return math.Abs(x - y - 0.125) }, 3, false},
 	}
 	m := unitSquare(t, 2)
 	for _, c := range cases {

@@ -123,6 +123,13 @@ type jetEval struct {
 	// the box's (a strict sign at a point of the box excludes the other
 	// closed sign).
 	closed bool
+
+	// forced holds branches of abs, min and max nodes decided on the
+	// whole triangle of a Model2 (kinkBranches): on the triangle f equals
+	// the function with these branches, which is smooth wherever its
+	// arguments are, so every jet of that function (at the centre, over the
+	// bounding box or sub-boxes) serves the model of f on the triangle.
+	forced map[*node]int
 }
 
 func newJetEval(l *layout, vars map[string][]interval.I) *jetEval {
@@ -392,7 +399,11 @@ func (c *jetEval) eval(n *node) ([]interval.I, error) {
 			}
 		}
 	case fAbs:
-		switch c.branch(u0) {
+		b, ok := c.forced[n]
+		if !ok {
+			b = c.branch(u0)
+		}
+		switch b {
 		case 1:
 			return u, nil
 		case -1:
@@ -404,7 +415,10 @@ func (c *jetEval) eval(n *node) ([]interval.I, error) {
 		return nil, subErr(n, &SmoothnessError{Func: "abs", Arg: u0})
 	case fMin, fMax:
 		d := u0.Sub(v[0])
-		b := c.branch(d)
+		b, ok := c.forced[n]
+		if !ok {
+			b = c.branch(d)
+		}
 		if b == 0 {
 			return nil, subErr(n, &SmoothnessError{Func: fnNames[n.fn], Arg: d})
 		}

@@ -354,6 +354,22 @@ func TestModelsKinkOnTheBoundary(t *testing.T) {
 	if err != nil || m.R != (I{}) || !evalModel2(m, 0.25, 0.5).Contains(0.75) {
 		t.Errorf("|x| + |y| on the unit triangle: %v %v", m, err)
 	}
+	// A kink along a diagonal edge: decided on the triangle itself, though
+	// the bounding box straddles it.
+	lower := [3][2]I{{pt(0), pt(0)}, {pt(1), pt(0)}, {pt(1), pt(1)}}
+	for _, tc := range []struct {
+		src  string
+		want float64 // at (ξ, η) = (0.5, 0.25): the point (0.75, 0.25)
+	}{
+		{"abs(x - y)", 0.5},
+		{"min(x, y) + max(x, y)^2", 0.25 + 0.75*0.75},
+		{"abs(abs(x - y) - x)", 0.25},
+	} {
+		m, err := MustParse(tc.src).Model2(lower, 2)
+		if err != nil || m.R != (I{}) || !evalModel2(m, 0.5, 0.25).Contains(tc.want) {
+			t.Errorf("%s on the lower unit triangle: %v %v", tc.src, m, err)
+		}
+	}
 	// Derivatives stay strict.
 	if _, err := MustParse("abs(x)").Gradient(map[string]I{"x": {Lo: -1, Hi: 0}}, []string{"x"}); err == nil {
 		t.Errorf("gradient of abs(x) on [-1, 0]: want an error")
