@@ -128,7 +128,13 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		if (errors.As(err, &lineSign) || errors.As(err, &triSign)) && raised < maxShiftRaises {
 			// The cell enclosures of V + γ were too wide to show V + γ ≥ 0:
 			// a larger shift is as sound and may be provable.
-			r.gamma = roundShift(2*r.gamma + r.scale)
+			failed := interval.I{}
+			if lineSign != nil {
+				failed = lineSign.Range
+			} else {
+				failed = triSign.Range
+			}
+			r.gamma = raiseShift(r.gamma, r.scale, failed)
 			raised++
 			continue
 		}
@@ -174,10 +180,16 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 
 // initialRecipe chooses the first mesh, degrees, Taylor order and shift.
 //
-// The shift γ is an exact float64 with γ ≥ max(0, −inf V) + π²/D², so that
+// The shift γ is an exact float64 with γ ≥ π²/D² − inf V, so that
 // c = V + γ ≥ π²/D² > 0 on the domain (required by stage A, c_T ≥ 0, and by
-// stage B, whose weight is 1/c). inf V is taken from a verified enclosure
-// of V over the whole interval.
+// stage B, whose weight is 1/c). inf V is a verified lower bound of V over
+// the whole domain. γ is negative when inf V > π²/D²: a potential bounded
+// below by a large constant is shifted down to c ≥ π²/D², so that the
+// shifted eigenvalues Λ_k = λ_k + γ stay of the size of the spectral gaps
+// rather than of V (stage A loses accuracy like C_h²Λ_k, and Λ_k ≈ 1e8
+// would leave no stage-A bound above the Ritz bounds). Every theorem used
+// needs only c = V + γ ≥ 0 (stage A) or > 0 (stage B), never γ ≥ 0, and
+// the bounds of λ_k = Λ_k − γ are rounded outward (assemble).
 func initialRecipe(p *problem.Problem) (recipe, error) {
 	vr := p.PotentialRange()
 	if !vr.IsBounded() {
@@ -204,7 +216,7 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	if cells, err := cellLowerBound(p, r); err == nil {
 		inf = math.Max(inf, cells)
 	}
-	g := interval.Point(0).Max(interval.Point(inf).Neg()).Add(scale).Hi
+	g := interval.Point(inf).Neg().Add(scale).Hi
 	if math.IsInf(g, 0) || math.IsNaN(g) {
 		return recipe{}, fmt.Errorf("the potential's range %v is outside what float64 can handle (hint: rescale the potential or the domain)", vr)
 	}
@@ -235,7 +247,7 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 func cellLowerBound(p *problem.Problem, r recipe) (float64, error) {
 	lo := math.Inf(1)
 	if p.Dim == 1 {
-		mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)
+		mesh := intervalMesh(p, r.stageACells)
 		pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
 		if err != nil {
 			return 0, err
@@ -259,16 +271,38 @@ func cellLowerBound(p *problem.Problem, r recipe) (float64, error) {
 	return lo, nil
 }
 
-// roundShift returns a float ≥ g with a 24-bit significand (so that the
-// certificate's γ is short, and γ exceeds g by less than 1e-7 relative);
-// any float ≥ g is sound.
+// roundShift returns a float ≥ g (of either sign) with a 24-bit
+// significand (so that the certificate's γ is short, and γ exceeds g by
+// less than 2⁻²³|g|); any float ≥ g is sound. Zero stays zero.
 func roundShift(g float64) float64 {
-	if g <= 0 {
-		return 0
+	if g == 0 || math.IsInf(g, 0) || math.IsNaN(g) {
+		return g
 	}
 	e := math.Ilogb(g)
 	unit := math.Ldexp(1, e-23)
 	return math.Ceil(g/unit) * unit
+}
+
+// raiseShift returns the next shift after the computation could not verify
+// V + γ ≥ 0 (or > 0) on a cell whose enclosure of V + γ was failed. A
+// nonnegative γ is doubled plus π²/D² (scale). A negative γ (V bounded
+// below by a large constant) is raised by the deficit −failed.Lo of that
+// cell plus scale, so that the shift keeps V's large constant removed; if
+// the deficit is not finite, or the raised shift would exceed the
+// nonnegative rule, the nonnegative rule applies from max(γ, 0). Any
+// shift is sound (a choice); the next computation checks its hypotheses
+// again.
+func raiseShift(gamma, scale float64, failed interval.I) float64 {
+	plain := roundShift(2*math.Max(gamma, 0) + scale)
+	if gamma >= 0 {
+		return plain
+	}
+	deficit := math.Max(-failed.Lo, 0)
+	g := roundShift(interval.AddUp(gamma, interval.AddUp(deficit, scale)))
+	if math.IsInf(g, 0) || math.IsNaN(g) || g > plain {
+		return plain
+	}
+	return g
 }
 
 // polygonRitzLag is how many levels the trial mesh may lag behind the

@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"math"
 	"slices"
 	"strings"
 
@@ -289,8 +290,10 @@ func (r recipe) validate(dim int) error {
 		return fmt.Errorf("method.degree %d out of range", r.degree)
 	case r.taylor < 1 || r.taylor > 32:
 		return fmt.Errorf("method.taylor_order %d out of range", r.taylor)
-	case r.gamma < 0:
-		return fmt.Errorf("method.gamma is negative")
+	case math.IsInf(r.gamma, 0) || math.IsNaN(r.gamma):
+		// A negative γ is allowed: the computation verifies V + γ ≥ 0
+		// (stage A) and > 0 (stage B) cell by cell.
+		return fmt.Errorf("method.gamma is not finite")
 	}
 	if dim == 2 {
 		switch {

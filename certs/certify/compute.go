@@ -104,7 +104,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	out := &outcome{}
 
 	// Stage 1: Rayleigh–Ritz upper bounds.
-	mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.cells)
+	mesh := intervalMesh(p, r.cells)
 	pot, err := line.FromExpr(mesh, p.Potential, r.taylor)
 	if err != nil {
 		return nil, err
@@ -201,7 +201,7 @@ func ritzUpper(a0, a1 *enclose.Sym) ([]float64, error) {
 // counts). upper holds the
 // Ritz upper bounds of Λ_k, used only to choose the search brackets.
 func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, upper []float64, count int) ([]float64, interval.I, error) {
-	mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.stageACells)
+	mesh := intervalMesh(p, r.stageACells)
 	// Only the cell ranges of V matter here; a low-order model gives them.
 	pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
 	if err != nil {
@@ -281,6 +281,16 @@ func verifiedDiscreteLower(k, m *band.ISym, mMin, lo, hi float64, index int) flo
 		delta *= 4
 	}
 	return best
+}
+
+// intervalMesh returns the n-cell uniform mesh of the problem's interval
+// with a node at every kink of the potential that formula.Expr.Kinks
+// finds (abs, min, max of affine arguments vanishing at an exact float), so
+// that the Taylor models of V are formed on both sides of the kink; a cell
+// with any other kink inside gets a range model (line.FromExpr). The mesh
+// depends only on the problem and n, so Check rebuilds it.
+func intervalMesh(p *problem.Problem, n int) *line.Mesh {
+	return line.UniformWith(p.Interval[0].Val, p.Interval[1].Val, n, p.Potential.Kinks())
 }
 
 // ends converts the problem's boundary conditions to the 1D element ends.

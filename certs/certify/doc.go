@@ -3,7 +3,8 @@
 //
 // For a problem −u″ + Vu = λu on an interval (Dirichlet or Robin at each
 // end; Robin with α = 0 is Neumann) the pipeline is, with a shift γ chosen
-// so that c = V + γ ≥ π²/D² > 0 on the domain and Λ_k = λ_k + γ:
+// so that c = V + γ ≥ π²/D² > 0 on the domain (γ < 0 when V is bounded
+// below by more than π²/D²) and Λ_k = λ_k + γ:
 //
 //  1. Upper bounds (Rayleigh–Ritz, min–max): approximate eigenvectors of the
 //     conforming P_p pencil are chosen in floating point; the N×N matrices

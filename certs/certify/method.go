@@ -66,7 +66,7 @@ var theorems1D = []string{
 // theoremsPolygon are the results a polygon certificate relies on.
 var theoremsPolygon = []string{
 	"min-max principle (Courant-Fischer): Rayleigh-Ritz upper bounds",
-	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds with (enriched) Crouzeix-Raviart elements",
+	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds with (enriched) Crouzeix-Raviart elements, C_T = 0.1893 h_T (longest edge; Lemma 3.2 of C. You, H. Xie, X. Liu, arXiv:1808.08148)",
 	"Lehmann-Goerisch with Raviart-Thomas fluxes: H. Behnke, F. Goerisch, Topics in Validated Computations (1994) 277-322; T. Vejchodsky, arXiv:1801.02561",
 	"Sylvester's law of inertia: verified eigenvalue counts",
 }

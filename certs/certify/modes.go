@@ -36,7 +36,7 @@ func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Mod
 	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo, cells: m.Cells,
 		refine: m.Refinements, graded: m.GradedLevels}
 	if p.Dim == 1 {
-		mesh := line.Uniform(p.Interval[0].Val, p.Interval[1].Val, r.cells)
+		mesh := intervalMesh(p, r.cells)
 		pot, err := line.FromExpr(mesh, p.Potential, r.taylor)
 		if err != nil {
 			return nil, err

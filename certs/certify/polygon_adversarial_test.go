@@ -409,9 +409,9 @@ func TestPolygonAdversarialDeterminism(t *testing.T) {
 // symmetric eigenproblem solved with gonum; integrals by Gauss–Legendre
 // rules of gonum's quad package on the collapsed square, exact for these
 // degrees). A quotient above C_T² would disprove the constant (measured:
-// the quotients reach 0.33–0.45 of C_T² for CR and 0.13–0.33 for ECR; on
-// the equilateral triangle the CR quotient is (0.1892 h_T)², next to the
-// 0.1893 h_T that fem/tri cites from Liu–Oishi 2013). As a check
+// with C_T = 0.1893 h_T, Liu's bound that fem/tri uses, the quotients
+// reach 0.74–0.999 of C_T² for CR and 0.25–0.62 for ECR; on the
+// equilateral triangle the CR quotient is (0.1892 h_T)²). As a check
 // that the trial space can come close, the quotient with the element mean
 // condition alone must reach 99% of the Laugesen–Siudeja bound D²/j₁,₁² on
 // a thin acute isosceles triangle (for which it is sharp: R. S. Laugesen,

@@ -144,3 +144,85 @@ func BenchmarkAssembleApprox(b *testing.B) {
 }
 
 var _ = band.NewSym
+
+// TestFromExprKinks: a kink of abs at a node needs no special model (the
+// closed cells take their branch; exact for |x|), and a kink inside a cell
+// gives that cell the range model (constant part, remainder of half the
+// range's width) while the other cells stay exact. Every model contains
+// the function at sample points (evaluated with package math).
+func TestFromExprKinks(t *testing.T) {
+	m := Uniform(pt(0), pt(1), 8)
+	for _, tc := range []struct {
+		src    string
+		f      func(float64) float64
+		kinked int // cell with the range model, −1 if none
+	}{
+		{"abs(x - 1/2)", func(x float64) float64 { return math.Abs(x - 0.5) }, -1},
+		{"abs(x - 1/3)", func(x float64) float64 { return math.Abs(x - 1.0/3) }, 2},
+		{"max(x, 0.3)", func(x float64) float64 { return math.Max(x, 0.3) }, 2},
+	} {
+		v, err := FromExpr(m, formula.MustParse(tc.src), 4)
+		if err != nil {
+			t.Fatalf("%s: %v", tc.src, err)
+		}
+		for k := 0; k < m.Cells(); k++ {
+			bern, rem := v.Model(k)
+			if (rem != interval.I{}) != (k == tc.kinked) {
+				t.Errorf("%s cell %d: remainder %v", tc.src, k, rem)
+			}
+			if k == tc.kinked && rem.Wid() > 0.125 {
+				t.Errorf("%s cell %d: range remainder %v wider than the cell's range", tc.src, k, rem)
+			}
+			a, h := m.Nodes[k].Mid(), m.H(k).Mid()
+			for _, xi := range []float64{0, 0.1, 0.37, 0.5, 0.81, 1} {
+				p := deCasteljau(midpoints(bern), xi, make([]float64, len(bern)))
+				if d := tc.f(a+xi*h) - p; !(rem.Lo-1e-14 <= d && d <= rem.Hi+1e-14) {
+					t.Errorf("%s cell %d ξ=%g: f − P = %g outside %v", tc.src, k, xi, d, rem)
+				}
+			}
+		}
+	}
+}
+
+func midpoints(b []interval.I) []float64 {
+	out := make([]float64, len(b))
+	for i, c := range b {
+		out[i] = c.Mid()
+	}
+	return out
+}
+
+// TestUniformWith: points inside the interval become nodes (moving a
+// uniform node within a quarter cell, else inserted); points at or beyond
+// the ends and existing nodes change nothing.
+func TestUniformWith(t *testing.T) {
+	nodes := func(m *Mesh) []float64 {
+		out := make([]float64, len(m.Nodes))
+		for i, x := range m.Nodes {
+			out[i] = x.Mid()
+		}
+		return out
+	}
+	for _, tc := range []struct {
+		points []float64
+		want   []float64
+	}{
+		{nil, []float64{0, 0.75, 1.5, 2.25, 3}},
+		{[]float64{1.5, 0, 3, -1}, []float64{0, 0.75, 1.5, 2.25, 3}},
+		{[]float64{1}, []float64{0, 0.75, 1, 1.5, 2.25, 3}},
+		{[]float64{0.8}, []float64{0, 0.8, 1.5, 2.25, 3}},
+		{[]float64{1.4, 2.5}, []float64{0, 0.75, 1.4, 2.25, 2.5, 3}},
+	} {
+		got := nodes(UniformWith(pt(0), pt(3), 4, tc.points))
+		if len(got) != len(tc.want) {
+			t.Errorf("points %v: nodes %v, want %v", tc.points, got, tc.want)
+			continue
+		}
+		for i := range got {
+			if got[i] != tc.want[i] {
+				t.Errorf("points %v: nodes %v, want %v", tc.points, got, tc.want)
+				break
+			}
+		}
+	}
+}

@@ -199,9 +199,13 @@ func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, err
 // Floating point (gonum LU): a choice. The coefficients are used as exact
 // floats, so no conversion error enters the verified remainder.
 func chooseReciprocal(p []interval.I, s float64, order int) []float64 {
+	// The shift is added to the coefficients (in interval arithmetic, then
+	// the midpoint) before evaluation: for V bounded below by a large
+	// constant and s near −inf V, evaluating P and adding s afterwards
+	// would cancel the constant and lose the digits of P + s.
 	pm := make([]float64, len(p))
 	for i, c := range p {
-		pm[i] = c.Mid()
+		pm[i] = c.AddF(s).Mid()
 	}
 	work := make([]float64, max(len(p), order+1))
 	n1 := order + 1
@@ -210,7 +214,7 @@ func chooseReciprocal(p []interval.I, s float64, order int) []float64 {
 	unit := make([]float64, n1)
 	for i := 0; i < n1; i++ {
 		xi := 0.5 - 0.5*math.Cos(float64(2*i+1)*math.Pi/float64(2*n1))
-		rhs.SetVec(i, 1/(deCasteljau(pm, xi, work)+s))
+		rhs.SetVec(i, 1/deCasteljau(pm, xi, work))
 		for j := 0; j < n1; j++ {
 			for k := range unit {
 				unit[k] = 0
@@ -222,7 +226,7 @@ func chooseReciprocal(p []interval.I, s float64, order int) []float64 {
 	var x mat.VecDense
 	out := make([]float64, n1)
 	if err := x.SolveVec(a, rhs); err != nil {
-		c := 1 / (deCasteljau(pm, 0.5, work) + s)
+		c := 1 / deCasteljau(pm, 0.5, work)
 		for i := range out {
 			out[i] = c
 		}

@@ -14,7 +14,7 @@
 //     (AssembleApprox) to choose approximate eigenvectors;
 //   - Projection: the stage-A spaces CR and ECR (enriched Crouzeix–Raviart)
 //     with the interval matrices of the relaxed form a_h and the constant
-//     of the projection lower bound (see Projection lower bound);
+//     of the projection lower bound of Liu (2015) (see Projection lower bound);
 //   - Flux: the Raviart–Thomas spaces RT_k ⊂ H(div) (exact rational
 //     reference basis, Piola transform) with the Lehmann–Goerisch matrix A2
 //     (LGMatrix, see Lehmann–Goerisch fluxes), the minimal-norm flux
@@ -36,6 +36,28 @@
 // are checked and reported as errors (*SignError and others), never
 // assumed. ProjectionConstant returns an upper bound of the constant of
 // (H3), with the inequality and its source in its doc comment.
+//
+// The constant of (H3). Both stage-A spaces use Liu's Crouzeix–Raviart
+// interpolation constant, confirmed in the restatement by C. You, H. Xie
+// and X. Liu (Guaranteed eigenvalue bounds for the Steklov eigenvalue
+// problem, arXiv:1808.08148v1, p. 8), Lemma 3.2, equation (3.12):
+//
+//	"For any triangle element K, whose longest edge length is denoted by
+//	h_K, we have ‖u − Π_h u‖_(0,K) ≤ 0.1893 h_K |u − Π_h u|_(1,K)
+//	∀u ∈ H¹(K)."
+//
+// with Π_h the Crouzeix–Raviart interpolation operator (edge means, their
+// equation (3.10)), credited there to X. Liu, A framework of verified
+// eigenvalue bounds for self-adjoint differential operators, Appl. Math.
+// Comput. 267 (2015) 341–355. The bound is stated with the number 0.1893
+// itself (an upper bound of the optimal constant), h_K the longest edge,
+// and the only hypothesis on the error is zero edge means. So it holds for
+// the CR error and also for the ECR error (zero edge means and zero element
+// mean: its CR interpolant is 0). The code encloses the decimal 0.1893 and
+// the longest edge and rounds C_T = 0.1893 h_T up. It replaces the
+// constants used before, h_T/j_(1,1) ≈ 0.2610 h_T for ECR (mean-zero
+// Poincaré inequality, Laugesen–Siudeja 2010) and ≈ 0.2984 h_T for CR (a
+// derivation from the edge-mean condition), both larger.
 //
 // Functions and files named Approx or approx, and Interpolate and Eval,
 // work at round-to-nearest: their results are choices (approximate
@@ -83,10 +105,12 @@
 //
 // (H3). a_h(e, e) ≥ Σ_T ‖∇e‖²_T (the mean terms are ≥ 0, and vanish on e).
 // If ‖e‖_T ≤ C_T ‖∇e‖_T on every triangle, summing gives ‖e‖² ≤
-// max_T C_T² Σ_T ‖∇e‖²_T ≤ C_h² a_h(e, e) with C_h = max_T C_T. The local
-// constants used by ProjectionConstant today (its doc comment states which
-// one it returns and is authoritative), with h_T the longest edge and
-// ℓ_0, ℓ_1, ℓ_2 the edge lengths of T:
+// max_T C_T² Σ_T ‖∇e‖²_T ≤ C_h² a_h(e, e) with C_h = max_T C_T.
+// ProjectionConstant returns Liu's C_T = 0.1893 h_T (above; its doc comment
+// is authoritative). Two elementary local constants, larger but derived
+// here from first principles, bound the same quantity and are the
+// fallback should that published constant ever be in doubt (h_T the
+// longest edge, ℓ_0, ℓ_1, ℓ_2 the edge lengths of T):
 //
 //   - ECR: e has zero mean on T, and the optimal Poincaré inequality for
 //     triangles (Laugesen–Siudeja 2010), ∫_T v² ≤ (h_T/j_(1,1))² ∫_T |∇v|²
@@ -101,9 +125,7 @@
 //     ((ℓ_0² + ℓ_1² + ℓ_2²)/144) ‖∇e‖²_T. As ‖e‖²_T = ‖e − m_T(e)‖²_T +
 //     |T| m_T(e)² and e − m_T(e) has zero mean,
 //     C_T² = (ℓ_0² + ℓ_1² + ℓ_2²)/144 + h_T²/j_(1,1)² ≤ (1/48 + 1/j_(1,1)²) h_T²,
-//     so C_T ≤ 0.2984 h_T. This derived constant is the fallback for any
-//     sharper published CR constant (ProjectionConstant says which is in
-//     use).
+//     so C_T ≤ 0.2984 h_T.
 //
 // CR shift. CR does not preserve element means, so its form carries one
 // constant c = min_T c_T ≥ 0 (CRShift) instead of per-triangle mean terms:

@@ -64,5 +64,5 @@ func Example() {
 	lower := enclose.ProjectionLower(sigma, e.ProjectionConstant())
 	fmt.Printf("%.3f ≤ λ_1 ≤ %.3f (2π² = %.4f)\n", math.Floor(lower*1000)/1000, math.Ceil(ev[0].Hi*1000)/1000, 2*math.Pi*math.Pi)
 	// Output:
-	// 19.472 ≤ λ_1 ≤ 19.740 (2π² = 19.7392)
+	// 19.568 ≤ λ_1 ≤ 19.740 (2π² = 19.7392)
 }

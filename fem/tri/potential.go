@@ -45,8 +45,10 @@ const maxExactDegree = 12
 // ξ^i η^j are rewritten in the degree-q Bernstein basis by the exact
 // monomial identity of tables.go. The range of V over T is the hull of the
 // Bernstein coefficients plus R_T (range identity), intersected with
-// formula.RangeTriangle when that succeeds (both contain the range). An
-// error of a model (a domain or smoothness error) is returned with the
+// formula.RangeTriangle when that succeeds (both contain the range). On a
+// triangle where abs, min or max has a kink inside (no Taylor model, a
+// *formula.SmoothnessError), the model is the range model of rangeModel.
+// Any other error of a model (a domain error) is returned with the
 // triangle where it arose.
 func NewPotential(m *mesh.Mesh, v *formula.Expr, order int) (*Potential, error) {
 	if v == nil {
@@ -65,7 +67,19 @@ func NewPotential(m *mesh.Mesh, v *formula.Expr, order int) (*Potential, error) 
 		vert := m.Vertices(t)
 		mod, err := v.Model2(vert, q)
 		if err != nil {
-			return nil, fmt.Errorf("tri: potential on triangle %d %v: %w", t, vert, err)
+			var kink *formula.SmoothnessError
+			if !errors.As(err, &kink) {
+				return nil, fmt.Errorf("tri: potential on triangle %d %v: %w", t, vert, err)
+			}
+			// A kink of abs, min or max inside T: no Taylor model
+			// exists, so the range model V ∈ mid + (range − mid) is used.
+			b, rem, rng, ok := rangeModel(v, vert, nq)
+			if !ok {
+				return nil, fmt.Errorf("tri: potential on triangle %d %v: %w", t, vert, err)
+			}
+			pot.bern[t], pot.rem[t], pot.rng[t] = b, rem, rng
+			pot.exact = false
+			continue
 		}
 		b := make([]interval.I, nq)
 		for k, ij := range pairs {
@@ -94,6 +108,27 @@ func NewPotential(m *mesh.Mesh, v *formula.Expr, order int) (*Potential, error) 
 		pot.rng[t] = r
 	}
 	return pot, nil
+}
+
+// rangeModel returns the model of v on the triangle vert made of its range
+// alone: every Bernstein coefficient (nq of them) the float m nearest the
+// midpoint of an enclosure r of the range of v over the triangle
+// (formula.RangeTriangle), and the remainder r − m. Since the Bernstein
+// basis sums to 1 the polynomial part is the constant m, and V ∈ m +
+// (r − m) on T for every point: a valid model of any V with a bounded
+// range, whatever its smoothness, with remainder O(h·Lipschitz constant).
+// ok is false if the range is not enclosed.
+func rangeModel(v *formula.Expr, vert [3][2]interval.I, nq int) (bern []interval.I, rem, rng interval.I, ok bool) {
+	r, err := v.RangeTriangle(vert)
+	if err != nil || !r.IsBounded() {
+		return nil, interval.I{}, interval.I{}, false
+	}
+	mid := interval.Point(r.Mid())
+	bern = make([]interval.I, nq)
+	for i := range bern {
+		bern[i] = mid
+	}
+	return bern, r.Sub(mid), r, true
 }
 
 func hull(b []interval.I) interval.I {

@@ -39,6 +39,15 @@ func TestPotentialModelsAndRanges(t *testing.T) {
 		{"x*y^3 - 2*x + 1/3", func(x, y float64) float64 { return x*y*y*y - 2*x + 1.0/3 }, 2, true},
 		{"sin(3*x)*y", func(x, y float64) float64 { return math.Sin(3*x) * y }, 5, false},
 		{"exp(-x*y)", func(x, y float64) float64 { return math.Exp(-x * y) }, 4, false},
+		// Kinks on the grid lines x = 1/2, y = 1/2: each closed triangle
+		// lies on one side, where the function is linear (exact models).
+		{"abs(x - 1/2) + min(y, 1 - y)", func(x, y float64) float64 { return math.Abs(x-0.5) + math.Min(y, 1-y) }, 1, true},
+		// A kink along the diagonals, which the bounding boxes of the
+		// diagonal triangles straddle but each triangle lies on one side
+		// of (decided on the triangle itself): exact.
+		{"abs(x - y)", func(x, y float64) float64 { return math.Abs(x - y) }, 3, true},
+		// A kink across triangles: range models there.
+		{"abs(x - y - 1/8)", func(x, y float64) float64 { return math.Abs(x - y - 0.125) }, 3, false},
 	}
 	m := unitSquare(t, 2)
 	for _, c := range cases {

@@ -4,12 +4,14 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/big"
 
 	"gonum.org/v1/gonum/mat"
 
 	"gapcert/enclose/sparse"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 )
 
 // Projection is a stage-A space (package doc, Projection lower bound) on a
@@ -462,11 +464,6 @@ func choleskyPositive(mt [4][4]interval.I, keep []int, t float64) bool {
 	return true
 }
 
-// besselJ11Lower is a lower bound of j_(1,1) = 3.83170597020751…
-// (Abramowitz–Stegun Table 9.5; the tests check the sign change of J_1
-// from its power series in math/big).
-const besselJ11Lower = 3.8317
-
 // CRShift returns the constant c = min_T c_T of the CR form a_h of
 // Matrices (c_T the lower end of Range_T(V) + γ), computed exactly as
 // Matrices computes it, so that a caller may use the sharper bound
@@ -487,52 +484,48 @@ func (s *Projection) CRShift(v *Potential, gamma interval.I) float64 {
 // max_T C_T, C_T the constant of (H3) on T, for the exact mesh (the lower
 // end is the same formula from the lower ends of the edge lengths).
 //
-// Mean-zero Poincaré inequality on a triangle (Laugesen–Siudeja 2010):
-// ∫_T v² < (D²/j_(1,1)²) ∫_T |∇v|² for v ∈ H¹(T) with zero mean over T,
-// D the diameter of T (its longest edge h_T) and j_(1,1) = 3.8317059702…
-// the first positive zero of J_1 (Abramowitz–Stegun Table 9.5); the code
-// uses the smaller 3.8317, which only enlarges the constant.
+// Liu's Crouzeix–Raviart constant (X. Liu 2015; restated by You, Xie and
+// Liu, arXiv:1808.08148v1, p. 8, Lemma 3.2, equation (3.12)): "For any
+// triangle element K, whose longest edge length is denoted by h_K, we have
+// ‖u − Π_h u‖_(0,K) ≤ 0.1893 h_K |u − Π_h u|_(1,K) for all u ∈ H¹(K)", Π_h
+// the Crouzeix–Raviart interpolation (the P1 function with the edge means
+// of u). The constant is stated as the bound 0.1893 itself, so C_T =
+// 0.1893 h_T with h_T the longest edge; the code encloses the decimal
+// 0.1893 and h_T and rounds the product up.
 //
-// ECR: the error e has zero mean on T, so C_T = h_T/j_(1,1) ≈ 0.2610 h_T.
+// CR: the error e = u − P_h u is exactly u − Π_h u.
 //
-// CR: the error has zero mean on each edge only. With x_c the centroid,
-// div((x − x_c)e) = 2e + (x − x_c)·∇e, and (x − x_c)·n is constant on each
-// edge, so the boundary term vanishes and 2∫_T e = −∫_T (x − x_c)·∇e;
-// with ∫_T |x − x_c|² = |T| (ℓ_0² + ℓ_1² + ℓ_2²)/36 (polar moment about the
-// centroid), Cauchy–Schwarz gives |T| m_T(e)² ≤ (Σ ℓ_i²/144) ‖∇e‖²_T, and
-// ‖e‖² = ‖e − m_T(e)‖² + |T| m_T(e)², so
+// ECR: the error e has zero mean on every edge (and on T), so the CR
+// interpolant of e is 0 and the lemma applied to e itself gives
+// ‖e‖_T ≤ 0.1893 h_T |e|_(1,T). This is smaller than the mean-zero
+// Poincaré constant h_T/j_(1,1) ≈ 0.2610 h_T (Laugesen–Siudeja 2010), which
+// needs only the element mean.
 //
-//	C_T² = (ℓ_0² + ℓ_1² + ℓ_2²)/144 + h_T²/j_(1,1)².
-//
-// Since Σ ℓ_i² ≤ 3h_T², C_T ≤ √(1/48 + 1/j_(1,1)²) h_T ≈ 0.2984 h_T, which
-// agrees with the constant of Carstensen–Gedicke 2014 (recalled from
-// memory; not relied on). Liu and Oishi state the smaller
-// CR constant 0.1893 h_T (SIAM J. Numer. Anal. 51 (2013) 1634–1654); it is
-// not used here because its exact statement was not checked against the
-// paper.
+// Consistency check in the tests (certs/certify, adversarial projection
+// constants): on the equilateral triangle the largest quotient ‖e‖/|e|_1
+// over polynomials of degree ≤ 8 with zero edge means is 0.1892 h_T, just
+// below the cited bound.
 //
 // References:
 //
+//	X. Liu, A framework of verified eigenvalue bounds for self-adjoint
+//	differential operators, Appl. Math. Comput. 267 (2015) 341–355.
+//	C. You, H. Xie, X. Liu, Guaranteed eigenvalue bounds for the Steklov
+//	eigenvalue problem, arXiv:1808.08148 (2018), Lemma 3.2.
 //	R. S. Laugesen, B. A. Siudeja, Minimizing Neumann fundamental tones of
 //	triangles: an optimal Poincaré inequality, J. Differential Equations
 //	249 (2010) 118–135.
-//	M. Abramowitz, I. A. Stegun, Handbook of Mathematical Functions, NBS
-//	1964, Table 9.5.
-//	C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
-//	Math. Comp. 83 (2014) 2605–2629.
 func (s *Projection) ProjectionConstant() interval.I {
-	j11 := interval.I{Lo: besselJ11Lower, Hi: besselJ11Lower}
 	best := interval.I{}
 	for t := range s.mesh.Tris {
 		g := s.mesh.Geom(t)
 		h := g.EdgeLen[0].Hull(g.EdgeLen[1]).Hull(g.EdgeLen[2])
 		h = interval.I{Lo: math.Max(g.EdgeLen[0].Lo, math.Max(g.EdgeLen[1].Lo, g.EdgeLen[2].Lo)), Hi: h.Hi}
-		c := h.Div(j11)
-		if !s.enriched {
-			sq := g.EdgeLen[0].Sqr().Add(g.EdgeLen[1].Sqr()).Add(g.EdgeLen[2].Sqr()).DivF(144)
-			c, _ = sq.Add(c.Sqr()).Sqrt()
-		}
-		best = best.Max(c)
+		best = best.Max(h.Mul(liuCRConstant))
 	}
 	return best
 }
+
+// liuCRConstant encloses the decimal 0.1893 of Liu's Crouzeix–Raviart
+// interpolation bound (see ProjectionConstant).
+var liuCRConstant = decimalio.FromRat(big.NewRat(1893, 10000))

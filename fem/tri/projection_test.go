@@ -2,7 +2,6 @@ package tri
 
 import (
 	"math"
-	"math/big"
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
@@ -54,10 +53,10 @@ func TestCRUnitSquareDirichlet(t *testing.T) {
 			}
 		}
 		prevErr = e
-		// The constant: h = √2·2^-lev (the diagonal); right isosceles
-		// triangles have Σℓ² = 2h², so C = h·√(2/144 + 1/3.8317²) ≈ 0.28636 h.
+		// The constant: Liu's 0.1893 h with h = √2·2^-lev (the diagonal,
+		// the longest edge of every triangle).
 		h := math.Sqrt2 * math.Ldexp(1, -lev)
-		if want := h * math.Sqrt(2.0/144+1/(3.8317*3.8317)); math.Abs(c.Hi-want) > 1e-12*want {
+		if want := 0.1893 * h; math.Abs(c.Hi-want) > 1e-12*want {
 			t.Errorf("level %d: C = %v, want %g", lev, c, want)
 		}
 	}
@@ -232,35 +231,4 @@ func ritzUpperHarmonic(t *testing.T, _ int) float64 {
 		t.Fatal(err)
 	}
 	return quotient(a0, a1).Hi
-}
-
-// besselJ1 returns J_1(x) = Σ_k (−1)^k (x/2)^(2k+1)/(k!(k+1)!) in math/big
-// at 200 bits (the series, A&S 9.1.10, converges fast for x < 4; 60 terms
-// leave a tail below 10⁻⁴⁰).
-func besselJ1(x float64) *big.Float {
-	const prec = 200
-	h := new(big.Float).SetPrec(prec).SetFloat64(x / 2)
-	h2 := new(big.Float).SetPrec(prec).Mul(h, h)
-	term := new(big.Float).SetPrec(prec).Set(h) // k = 0
-	sum := new(big.Float).SetPrec(prec).Set(term)
-	for k := 1; k < 60; k++ {
-		term.Mul(term, h2)
-		term.Quo(term, new(big.Float).SetPrec(prec).SetInt64(int64(-k*(k+1))))
-		sum.Add(sum, term)
-	}
-	return sum
-}
-
-// The constant besselJ11Lower = 3.8317 is below j_(1,1) = 3.8317059702…
-// (A&S Table 9.5): J_1 is positive at 3.8317 and negative at 3.83171, and
-// positive on a grid of (0, 3.8317] (the tabulated zero is the first).
-func TestBesselJ11Lower(t *testing.T) {
-	if besselJ1(besselJ11Lower).Sign() <= 0 || besselJ1(3.83171).Sign() >= 0 {
-		t.Fatalf("J_1 does not change sign between %g and 3.83171", besselJ11Lower)
-	}
-	for x := 0.01; x < besselJ11Lower; x += 0.01 {
-		if besselJ1(x).Sign() <= 0 {
-			t.Fatalf("J_1(%g) ≤ 0", x)
-		}
-	}
 }

@@ -235,19 +235,27 @@ func (c *affEval) linearCall(n *node, a, b aff, boxA, boxB, box interval.I) aff 
 		s, _ := x.Sqrt()
 		fp = s.MulF(2).Recip()
 	case fAbs:
-		switch boxA.Sign() {
-		case 1:
+		// boxA encloses the argument at every point of T, so a sign on
+		// boxA, zero included, makes |u| = ±u on all of T.
+		switch {
+		case boxA.Lo >= 0:
 			return a
-		case -1:
+		case boxA.Hi <= 0:
 			return aff{a.c0.Neg(), a.c1.Neg(), a.c2.Neg(), a.r.Neg()}
 		}
 		return constAff(box)
 	case fMin, fMax:
+		// The difference of the arguments over T: its affine form
+		// (correlations kept) intersected with the difference of the boxes.
+		diff := aff{a.c0.Sub(b.c0), a.c1.Sub(b.c1), a.c2.Sub(b.c2), a.r.Sub(b.r)}
 		d := boxA.Sub(boxB)
+		if s, ok := d.Intersection(diff.rng()); ok {
+			d = s
+		}
 		switch {
-		case d.Sign() < 0 && n.fn == fMin, d.Sign() > 0 && n.fn == fMax:
+		case d.Hi <= 0 && n.fn == fMin, d.Lo >= 0 && n.fn == fMax:
 			return a
-		case d.Sign() != 0:
+		case d.Hi <= 0 || d.Lo >= 0:
 			return b
 		}
 		return constAff(box)

@@ -111,10 +111,46 @@ type jetEval struct {
 	l    *layout
 	vars map[string][]interval.I
 	w    []interval.I // weights, length q+1
+
+	// closed lets abs, min and max take a branch whose argument (or
+	// argument difference) is ≥ 0 or ≤ 0 on the box, zero included: on
+	// such a box the function equals the smooth branch (|u| = −u where
+	// u ≤ 0), so the jets are those of a smooth function that agrees with
+	// f at every point of the box. That is what a Taylor model of values on
+	// one box needs, but not a derivative (|u| has none where u = 0), so
+	// only the one-box remainder jets of Model1 and Model2 set it; the
+	// centre jets keep the strict rule, which makes their branch agree with
+	// the box's (a strict sign at a point of the box excludes the other
+	// closed sign).
+	closed bool
+
+	// forced holds branches of abs, min and max nodes decided on the
+	// whole triangle of a Model2 (kinkBranches): on the triangle f equals
+	// the function with these branches, which is smooth wherever its
+	// arguments are, so every jet of that function (at the centre, over the
+	// bounding box or sub-boxes) serves the model of f on the triangle.
+	forced map[*node]int
 }
 
 func newJetEval(l *layout, vars map[string][]interval.I) *jetEval {
 	return &jetEval{l: l, vars: vars, w: make([]interval.I, l.q+1)}
+}
+
+// branch decides the sign of the argument d of abs (or of the difference
+// of the arguments of min, max) on the box: 1 or −1 when it is decided,
+// 0 when not. The strict rule needs d > 0 or d < 0 on the box; the closed
+// rule (c.closed) also takes d ≥ 0 and d ≤ 0.
+func (c *jetEval) branch(d interval.I) int {
+	if s := d.Sign(); s != 0 || !c.closed {
+		return s
+	}
+	switch {
+	case d.Lo >= 0:
+		return 1
+	case d.Hi <= 0:
+		return -1
+	}
+	return 0
 }
 
 func (c *jetEval) zero() []interval.I { return make([]interval.I, c.l.m) }
@@ -363,7 +399,11 @@ func (c *jetEval) eval(n *node) ([]interval.I, error) {
 			}
 		}
 	case fAbs:
-		switch u0.Sign() {
+		b, ok := c.forced[n]
+		if !ok {
+			b = c.branch(u0)
+		}
+		switch b {
 		case 1:
 			return u, nil
 		case -1:
@@ -375,10 +415,14 @@ func (c *jetEval) eval(n *node) ([]interval.I, error) {
 		return nil, subErr(n, &SmoothnessError{Func: "abs", Arg: u0})
 	case fMin, fMax:
 		d := u0.Sub(v[0])
-		if d.Sign() == 0 {
+		b, ok := c.forced[n]
+		if !ok {
+			b = c.branch(d)
+		}
+		if b == 0 {
 			return nil, subErr(n, &SmoothnessError{Func: fnNames[n.fn], Arg: d})
 		}
-		if (d.Sign() < 0) == (n.fn == fMin) {
+		if (b < 0) == (n.fn == fMin) {
 			return u, nil
 		}
 		return v, nil

@@ -1,6 +1,7 @@
 package formula
 
 import (
+	"errors"
 	"math"
 	"math/big"
 
@@ -59,7 +60,11 @@ func binomial(n, k int) interval.I {
 //
 //	g(ξ) = Σ_{k ≤ q} g_k(ξc) (ξ − ξc)^k + g_{q+1}(ξ*) (ξ − ξc)^{q+1},
 //
-// g_k = g^{(k)}/k!, valid when f is C^{q+1} on the segment. The g_k(ξc) are
+// g_k = g^{(k)}/k!, valid when f is C^{q+1} on the segment. abs, min and
+// max count as smooth on a box where their argument (difference) is ≥ 0
+// or ≤ 0, touching 0 included (|x| on [−1, 0]): there f equals the smooth
+// branch at every point, and the model is one of that branch; the centre
+// jet still needs a strict sign, so both jets take the same branch. The g_k(ξc) are
 // enclosed by an interval jet of x = (A + B)/2 + (B − A)t, which contains
 // the jet of a + (ξc + t)(b − a) for every a ∈ A, b ∈ B; g_{q+1}(ξ*) by the
 // jet of x = hull(A, B) + (B − A)t, whose constant term contains every
@@ -79,11 +84,11 @@ func (e *Expr) Model1(a, b interval.I, order int) (Model1, error) {
 		panic("formula: Model1 order must be ≥ 1")
 	}
 	h := b.Sub(a)
-	center, err := jet1(e, getLayout(1, order), a.Add(b).MulF(0.5), h)
+	center, err := jet1(e, getLayout(1, order), a.Add(b).MulF(0.5), h, false)
 	if err != nil {
 		return Model1{}, err
 	}
-	whole, err := jet1(e, getLayout(1, order+1), a.Hull(b), h)
+	whole, err := jet1(e, getLayout(1, order+1), a.Hull(b), h, true)
 	if err != nil {
 		return Model1{}, err
 	}
@@ -101,10 +106,12 @@ func (e *Expr) Model1(a, b interval.I, order int) (Model1, error) {
 	return m, nil
 }
 
-func jet1(e *Expr, l *layout, x0, h interval.I) ([]interval.I, error) {
+func jet1(e *Expr, l *layout, x0, h interval.I, closed bool) ([]interval.I, error) {
 	x := make([]interval.I, l.m)
 	x[0], x[1] = x0, h
-	return newJetEval(l, map[string][]interval.I{"x": x}).eval(e.root)
+	c := newJetEval(l, map[string][]interval.I{"x": x})
+	c.closed = closed
+	return c.eval(e.root)
 }
 
 // Model2 returns a Taylor model of order q ≥ 1 of e (variables x, y; every
@@ -123,11 +130,18 @@ func jet1(e *Expr, l *layout, x0, h interval.I) ([]interval.I, error) {
 // centre, whose linear terms v1 − v0, v2 − v0 contain those of every exact
 // choice of vertices. The g_α(p*) for |α| = q+1 are enclosed by jets whose
 // constant terms are the bounding box of the triangle, or, if that fails
-// with a domain error, the hull over its midpoint subdivision (depth ≤ 8)
+// with a domain error, the hull over its midpoint subdivision (depth ≤ 8;
+// ≤ maxKinkDepth for a kink of abs, min or max)
 // as in RangeTriangle; the exact triangle lies in the union of the boxes.
 // (z − c)^α is bounded by the interval powers of [−ξc, 1 − ξc]. The
 // polynomial in z − c is rewritten in powers of ξ, η by the binomial
 // theorem in interval arithmetic. A polynomial f of degree ≤ q gives R = 0.
+// abs, min and max whose argument (difference) has one sign on T itself,
+// zero included, by the affine forms of RangeTriangle, take that branch in
+// every jet (kinkBranches: a kink along any edge of T, such as |x − y| on
+// a triangle with an edge on y = x); the others are treated as in Model1
+// on the first bounding box (a kink along an axis-parallel edge) and need
+// a strict sign on sub-boxes.
 func (e *Expr) Model2(v [3][2]interval.I, order int) (Model2, error) {
 	if order < 1 {
 		panic("formula: Model2 order must be ≥ 1")
@@ -140,12 +154,13 @@ func (e *Expr) Model2(v [3][2]interval.I, order int) (Model2, error) {
 		pc[i] = v[0][i].Add(d1[i].MulF(xc)).Add(d2[i].MulF(xc))
 	}
 	lc := getLayout(2, order)
-	center, err := jet2(e, lc, pc, d1, d2)
+	forced := kinkBranches(e, v)
+	center, err := jet2(e, lc, pc, d1, d2, false, forced)
 	if err != nil {
 		return Model2{}, err
 	}
 	lr := getLayout(2, order+1)
-	top, err := remainderJets(e, lr, v, d1, d2, maxDepth)
+	top, err := remainderJets(e, lr, v, d1, d2, maxDepth, forced)
 	if err != nil {
 		return Model2{}, err
 	}
@@ -177,27 +192,91 @@ func (e *Expr) Model2(v [3][2]interval.I, order int) (Model2, error) {
 	return m, nil
 }
 
-func jet2(e *Expr, l *layout, p [2]interval.I, d1, d2 [2]interval.I) ([]interval.I, error) {
+func jet2(e *Expr, l *layout, p [2]interval.I, d1, d2 [2]interval.I, closed bool, forced map[*node]int) ([]interval.I, error) {
 	x, y := make([]interval.I, l.m), make([]interval.I, l.m)
 	x[0], x[1], x[2] = p[0], d1[0], d2[0]
 	y[0], y[1], y[2] = p[1], d1[1], d2[1]
-	return newJetEval(l, map[string][]interval.I{"x": x, "y": y}).eval(e.root)
+	c := newJetEval(l, map[string][]interval.I{"x": x, "y": y})
+	c.closed, c.forced = closed, forced
+	return c.eval(e.root)
+}
+
+// kinkBranches decides, for each abs, min and max node of e, the sign of
+// its argument (or argument difference) on the triangle v itself, from
+// the affine forms of RangeTriangle (valid for every exact choice of the
+// vertices): 1 where it is ≥ 0 on T, −1 where ≤ 0. A kink along an edge
+// of T that is not axis-parallel (|x − y| on a triangle with an edge on
+// y = x) is decided here although the bounding box straddles it. Nodes
+// whose sign is not decided, or whose forms fail, are left out.
+func kinkBranches(e *Expr, v [3][2]interval.I) map[*node]int {
+	var out map[*node]int
+	var walk func(n *node)
+	walk = func(n *node) {
+		if n == nil || n.isC {
+			return
+		}
+		walk(n.a)
+		walk(n.b)
+		if n.kind != kCall || (n.fn != fAbs && n.fn != fMin && n.fn != fMax) {
+			return
+		}
+		c := &affEval{
+			x: aff{c0: v[0][0], c1: v[1][0].Sub(v[0][0]), c2: v[2][0].Sub(v[0][0])},
+			y: aff{c0: v[0][1], c1: v[1][1].Sub(v[0][1]), c2: v[2][1].Sub(v[0][1])},
+		}
+		a, boxA, err := c.eval(n.a)
+		if err != nil {
+			return
+		}
+		d, box := a, boxA
+		if n.fn != fAbs {
+			b, boxB, err := c.eval(n.b)
+			if err != nil {
+				return
+			}
+			d = aff{a.c0.Sub(b.c0), a.c1.Sub(b.c1), a.c2.Sub(b.c2), a.r.Sub(b.r)}
+			box = boxA.Sub(boxB)
+		}
+		r, ok := box.Intersection(d.rng())
+		if !ok {
+			return
+		}
+		s := 0
+		switch {
+		case r.Lo >= 0:
+			s = 1
+		case r.Hi <= 0:
+			s = -1
+		default:
+			return
+		}
+		if out == nil {
+			out = map[*node]int{}
+		}
+		out[n] = s
+	}
+	walk(e.root)
+	return out
 }
 
 // remainderJets returns enclosures of the top-degree jet coefficients over
 // the triangle v (bounding box, else hull over midpoint subdivisions).
-func remainderJets(e *Expr, l *layout, v [3][2]interval.I, d1, d2 [2]interval.I, depth int) ([]interval.I, error) {
+// Only the first box (depth maxDepth) uses the closed branch rule of abs,
+// min and max: one box that decides a branch fixes it for all of T, while
+// sub-boxes deciding closed branches separately could take different
+// branches on the two sides of a kink inside T.
+func remainderJets(e *Expr, l *layout, v [3][2]interval.I, d1, d2 [2]interval.I, depth int, forced map[*node]int) ([]interval.I, error) {
 	box := bbox(v)
-	h, err := jet2(e, l, [2]interval.I{box["x"], box["y"]}, d1, d2)
+	h, err := jet2(e, l, [2]interval.I{box["x"], box["y"]}, d1, d2, depth == maxDepth, forced)
 	if err == nil {
 		return append([]interval.I(nil), h[l.off[l.q]:]...), nil
 	}
-	if depth == 0 || !isDomain(err) {
+	if depth == 0 || !isDomain(err) || (isKink(err) && depth <= maxDepth-maxKinkDepth) {
 		return nil, err
 	}
 	var out []interval.I
 	for _, t := range splitTriangle(v) {
-		s, err := remainderJets(e, l, t, d1, d2, depth-1)
+		s, err := remainderJets(e, l, t, d1, d2, depth-1, forced)
 		if err != nil {
 			return nil, err
 		}
@@ -210,6 +289,19 @@ func remainderJets(e *Expr, l *layout, v [3][2]interval.I, d1, d2 [2]interval.I,
 		}
 	}
 	return out, nil
+}
+
+// maxKinkDepth is the number of subdivisions remainderJets tries for a
+// kink of abs, min or max (a box straddling the kink while T may not):
+// a triangle with an edge on a kink that is not axis-parallel never
+// succeeds, and deeper levels would only multiply the cost (2^depth boxes
+// along the edge) before the caller falls back to another model.
+const maxKinkDepth = 3
+
+// isKink reports whether err is a *SmoothnessError of abs, min or max.
+func isKink(err error) bool {
+	var s *SmoothnessError
+	return errors.As(err, &s) && (s.Func == "abs" || s.Func == "min" || s.Func == "max")
 }
 
 // Gradient returns enclosures of ∂f/∂v for v in vars over the box env

@@ -290,3 +290,121 @@ func TestModelsNarrow(t *testing.T) {
 		t.Logf("%s q=%d: width %.3g", tc.src, tc.q, w)
 	}
 }
+
+// TestModelsKinkOnTheBoundary: abs, min and max whose argument is ≥ 0 or
+// ≤ 0 on the box, touching 0, are modelled by the smooth branch (it equals
+// the function at every point of the box), exactly for these piecewise
+// linear functions. The centre still needs a strict sign, a kink inside
+// the box is still an error, and derivatives at the kink are still refused
+// (|x| has none at 0).
+func TestModelsKinkOnTheBoundary(t *testing.T) {
+	for _, tc := range []struct {
+		src        string
+		a, b       float64
+		at, want   float64 // ξ and f(a + ξ(b − a))
+		wantRemain bool
+	}{
+		{"abs(x)", -1, 0, 0.25, 0.75, false},
+		{"abs(x)", 0, 2, 0.25, 0.5, false},
+		{"min(x, 1-x)", 0, 0.5, 0.5, 0.25, false},
+		{"min(x, 1-x)", 0.5, 1, 0.5, 0.25, false},
+		{"max(x, 1-x)", 0.5, 1, 1, 1, false},
+		{"abs(abs(x) - 1/2)", 0, 0.5, 0, 0.5, false},
+		{"exp(abs(x))", -1, 0, 1, 1, true},
+	} {
+		m, err := MustParse(tc.src).Model1(pt(tc.a), pt(tc.b), 3)
+		if err != nil {
+			t.Errorf("%s on [%g, %g]: %v", tc.src, tc.a, tc.b, err)
+			continue
+		}
+		if !tc.wantRemain && m.R != (I{}) {
+			t.Errorf("%s on [%g, %g]: remainder %v, want 0 (piecewise linear)", tc.src, tc.a, tc.b, m.R)
+		}
+		if got := evalModel1(m, tc.at); !got.Contains(tc.want) {
+			t.Errorf("%s on [%g, %g] at ξ = %g: %v misses %g", tc.src, tc.a, tc.b, tc.at, got, tc.want)
+		}
+	}
+	for _, tc := range []struct {
+		src  string
+		a, b float64
+	}{
+		{"abs(x)", -1, 1},       // kink inside
+		{"abs(x)", -1, 1e-300},  // just across 0
+		{"abs(x^2 - 1)", -1, 1}, // centre 0 is not a kink, but x^2 − 1 ≤ 0 touches 0 at both ends: allowed
+	} {
+		_, err := MustParse(tc.src).Model1(pt(tc.a), pt(tc.b), 3)
+		if tc.src == "abs(x^2 - 1)" {
+			if err != nil {
+				t.Errorf("%s on [%g, %g]: %v", tc.src, tc.a, tc.b, err)
+			}
+			continue
+		}
+		if err == nil {
+			t.Errorf("%s on [%g, %g]: want an error", tc.src, tc.a, tc.b)
+		}
+	}
+	// −x² ≤ 0 on [−1, 1] but is 0 at the centre: the centre has no strict
+	// sign, so no model is claimed (a centre branch +(−x²) would be wrong).
+	if _, err := MustParse("abs(-x^2)").Model1(pt(-1), pt(1), 3); err == nil {
+		t.Errorf("abs(-x^2) on [-1, 1]: want an error (no strict sign at the centre)")
+	}
+	// A triangle with an edge on x = 0 (x ≥ 0 on its bounding box).
+	tri := [3][2]I{{pt(0), pt(0)}, {pt(1), pt(0)}, {pt(0), pt(1)}}
+	m, err := MustParse("abs(x) + abs(y)").Model2(tri, 2)
+	if err != nil || m.R != (I{}) || !evalModel2(m, 0.25, 0.5).Contains(0.75) {
+		t.Errorf("|x| + |y| on the unit triangle: %v %v", m, err)
+	}
+	// A kink along a diagonal edge: decided on the triangle itself, though
+	// the bounding box straddles it.
+	lower := [3][2]I{{pt(0), pt(0)}, {pt(1), pt(0)}, {pt(1), pt(1)}}
+	for _, tc := range []struct {
+		src  string
+		want float64 // at (ξ, η) = (0.5, 0.25): the point (0.75, 0.25)
+	}{
+		{"abs(x - y)", 0.5},
+		{"min(x, y) + max(x, y)^2", 0.25 + 0.75*0.75},
+		{"abs(abs(x - y) - x)", 0.25},
+	} {
+		m, err := MustParse(tc.src).Model2(lower, 2)
+		if err != nil || m.R != (I{}) || !evalModel2(m, 0.5, 0.25).Contains(tc.want) {
+			t.Errorf("%s on the lower unit triangle: %v %v", tc.src, m, err)
+		}
+	}
+	// Derivatives stay strict.
+	if _, err := MustParse("abs(x)").Gradient(map[string]I{"x": {Lo: -1, Hi: 0}}, []string{"x"}); err == nil {
+		t.Errorf("gradient of abs(x) on [-1, 0]: want an error")
+	}
+}
+
+// TestKinks: the exact float zeros of affine arguments of abs and of the
+// argument differences of min and max, sorted and without repeats; other
+// kinks are not listed.
+func TestKinks(t *testing.T) {
+	for _, tc := range []struct {
+		src  string
+		want []float64
+	}{
+		{"abs(x)", []float64{0}},
+		{"abs(x - 1) + min(x, 3 - x)", []float64{1, 1.5}},
+		{"abs(2*x + 1/2) + abs((x - 3/8)/5) + abs(-x + 3/8)", []float64{-0.25, 0.375}},
+		{"max(x/3, 1/4)", []float64{0.75}},
+		{"abs(x - 1/3)", []float64{}},     // not a float
+		{"abs(x - 0.1)", []float64{}},     // 1/10 is not a float
+		{"abs(x^2 - 1)", []float64{}},     // not affine
+		{"abs(x - pi)", []float64{}},      // not rational
+		{"sin(abs(x - 2))", []float64{2}}, // nested
+		{"x^2 + 1", []float64{}},
+	} {
+		got := MustParse(tc.src).Kinks()
+		if len(got) != len(tc.want) {
+			t.Errorf("%s: kinks %v, want %v", tc.src, got, tc.want)
+			continue
+		}
+		for i := range got {
+			if got[i] != tc.want[i] {
+				t.Errorf("%s: kinks %v, want %v", tc.src, got, tc.want)
+				break
+			}
+		}
+	}
+}
