@@ -33,7 +33,7 @@ func TestReport(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("exit %d, stderr %s", code, errs)
 	}
-	for _, w := range []string{"| problem | λ1 | λ2 |", "| Mathieu potential 2cos(2x), Dirichlet | -0.110248816992<sub>34</sub><sup>07</sup> |", "not re-verified", "listed after the table", "  square.cert.json\n```"} {
+	for _, w := range []string{"| problem | λ1 | λ2 |", "| Mathieu potential 2cos(2x), Dirichlet | -0.110248816992<sub>34</sub><sup>07</sup> |", "not re-verified", "listed after the table", "  square.cert.json\n"} {
 		if !strings.Contains(out, w) {
 			t.Errorf("output lacks %q:\n%s", w, out)
 		}
