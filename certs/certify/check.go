@@ -71,7 +71,7 @@ func Check(data []byte) error {
 		r.fluxGamma = fg.Lo
 		r.marks = m.AdaptiveMarks
 	}
-	if err := r.validate(p.Dim); err != nil {
+	if err := r.validate(p); err != nil {
 		return err
 	}
 	if est := memoryEstimate(p, r); est > DefaultMemory {
@@ -110,9 +110,17 @@ func Check(data []byte) error {
 	if !sameJSON(fresh.Claims, cert.Claims) {
 		bad = append(bad, "claims (texts, verdicts or margins) differ from the recomputation")
 	}
-	var recorded Method
-	_ = json.Unmarshal(cert.Method, &recorded) // decoded strictly above
-	if !sameJSON(res.method(), recorded) {
+	recorded := m // decoded strictly above
+	if recorded.Refinement != nil {
+		capped := func() bool { _, why := refine(p, r, out, 1); return why != "" }
+		bad = append(bad, checkRefinement(recorded.Refinement, res, capped)...)
+		res.refinement = recorded.Refinement
+	}
+	fm := res.method()
+	if recorded.Refinement == nil && recorded.Widths == nil {
+		fm.Widths = nil // a certificate written before widths were recorded
+	}
+	if !sameJSON(fm, recorded) {
 		bad = append(bad, "method (stage bounds, N, rho or constants) differs from the recomputation")
 	}
 	if len(bad) > 0 {
@@ -140,7 +148,8 @@ func sameJSON(a, b any) bool {
 
 // validate rejects recipes that the computation cannot run (a certificate
 // with absurd numbers must fail cleanly, not exhaust memory).
-func (r recipe) validate(dim int) error {
+func (r recipe) validate(p *problem.Problem) error {
+	dim := p.Dim
 	switch {
 	case r.degree < 1 || r.degree > 16:
 		return fmt.Errorf("method.degree %d out of range", r.degree)
@@ -175,6 +184,8 @@ func (r recipe) validate(dim int) error {
 		return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
 	case r.stageACells < 1 || r.stageACells > 1<<20:
 		return fmt.Errorf("method.stage_a_cells %d out of range", r.stageACells)
+	case !meshable1D(p, max(r.cells, r.stageACells)):
+		return fmt.Errorf("method.cells %d or stage_a_cells %d: cells too short for float64 at this interval", r.cells, r.stageACells)
 	}
 	return nil
 }
