@@ -81,7 +81,7 @@ func memoryEstimate(p *problem.Problem, r recipe) int64 {
 		return 0
 	}
 	triangles := func(levels int) int64 {
-		t := int64(len(p.Vertices) - 2)
+		t := int64(len(startMesh(p).tris))
 		for i := 0; i < levels; i++ {
 			t *= 4
 		}
@@ -305,7 +305,7 @@ func wideWarnings(p *problem.Problem, res *result, reason string) []string {
 	if p.Dim == 2 {
 		d := p.Diameter()
 		if thin := d.Sqr().Div(p.Area()).Lo; thin > 50 {
-			help += fmt.Sprintf("; the polygon is very thin (diameter²/area ≥ %.2g), so its triangles are slivers whose longest edges, which the lower bounds depend on, stay far above its width: rescale the problem or split it into better-shaped pieces", thin)
+			help += fmt.Sprintf("; the polygon is very thin (diameter²/area ≥ %.2g): the stage-A lower bounds need triangles whose longest edges are below its width, about (diameter/width)² of them, which is beyond the meshes; a less extreme shape is within reach", thin)
 		}
 	}
 	return []string{fmt.Sprintf("%s: the enclosure is wider than the quantity itself (relative width above 1, stopped: %s); %s", strings.Join(names, ", "), reason, help)}
