@@ -226,3 +226,27 @@ func TestCertifySIGINT(t *testing.T) {
 	}
 	requireInterruptedCertificate(t, out)
 }
+
+// TestSweepStrictAndProgress: sweep --strict exits 4 when a point misses
+// its target and lists the points with their stop reasons; --progress
+// writes per-point lines to a non-terminal stderr; without --strict the
+// same sweep exits 0.
+func TestSweepStrictAndProgress(t *testing.T) {
+	dir := t.TempDir()
+	fam := filepath.Join(dir, "family.json")
+	src := `{"template":{"domain":{"interval":["0","1"]},"potential":"c*exp(sin(7*x))","boundary":"dirichlet"},
+		"parameters":[{"name":"c","values":["1","2"]}],"relative_width":"1e-15","time_limit":"1ms"}`
+	if err := os.WriteFile(fam, []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, errs := execute("sweep", fam, "--out", filepath.Join(dir, "strict"), "--strict", "--progress")
+	if code != exitTargetMissed || !strings.Contains(errs, "point 0: time limit") || !strings.Contains(errs, "point 1: time limit") {
+		t.Errorf("--strict: exit %d, stderr %q", code, errs)
+	}
+	if strings.Count(errs, "computed (") != 2 {
+		t.Errorf("no progress lines: %q", errs)
+	}
+	if code, _, errs := execute("sweep", fam, "--out", filepath.Join(dir, "plain"), "--quiet"); code != exitOK || errs != "" {
+		t.Errorf("without --strict: exit %d, stderr %q", code, errs)
+	}
+}
