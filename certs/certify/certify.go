@@ -157,8 +157,8 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		return nil, &BudgetError{What: "the first mesh", Need: est, Budget: budget}
 	}
 	var best *result
-	reason := ""
-	prevWorst, steps := 0.0, 0
+	reason, bestStep := "", 0
+	prevWorst, steps, stalls := 0.0, 0, 0
 	for raised := 0; ; {
 		t0 := time.Now()
 		stepCtx := deadline
@@ -201,7 +201,7 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		}
 		last := res
 		if best == nil || res.worst() <= best.worst() {
-			best = res
+			best, bestStep = res, steps
 		}
 		if res.reached(target) {
 			best, reason = res, StopTarget
@@ -214,6 +214,15 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			gain = prevWorst / res.worst()
 		}
 		prevWorst = res.worst()
+		if p.Dim == 1 && gain < stallGain && out.lg != nil && best.worst() < stallWidth {
+			stalls++
+		} else {
+			stalls = 0
+		}
+		if stalls >= 2 {
+			reason = StopStalled
+			break
+		}
 		next, why := refine(p, r, out, gain)
 		if why != "" {
 			// A cap or a stall ends the run. A cap is recorded as such only
@@ -245,6 +254,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		}
 		r = next
 	}
+	if reason == StopStalled {
+		best.warnings = append(best.warnings, fmt.Sprintf("the widths stalled: the best step is step %d of %d; the steps after it did not narrow them (near relative width 1e-12 the float64 rounding of finer meshes outweighs their gain)", bestStep, steps))
+	}
 	best.warnings = append(best.warnings, wideWarnings(p, best, reason)...)
 	if reason != StopTarget {
 		best.warnings = append(best.warnings, fmt.Sprintf("target relative width %s not reached (stopped: %s); the widths reached are in results.relative_widths and method.widths", targetText, reason))
@@ -252,6 +264,16 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	best.refinement = &Refinement{Target: targetText, TargetRule: TargetRule, StopReason: reason}
 	return best.certificate(p, opt)
 }
+
+// Widths stall on intervals when two steps in a row with stage B gain
+// less than stallGain while the best width is below stallWidth (where
+// float64 rounding, growing with the mesh, outweighs the discretization
+// error: measured on the harmonic oscillator, the best relative width
+// 4e-13 at 128 cells grows to 2e-11 at 4096).
+const (
+	stallGain  = 1.05
+	stallWidth = 1e-10
+)
 
 // errAbandoned reports a step abandoned because its context ended.
 var errAbandoned = errors.New("certify: step abandoned")
