@@ -19,7 +19,7 @@ const (
 	// is at most the target.
 	StopTarget = "target reached"
 	// StopTime: the next step would not have finished within the time
-	// limit, or the step in progress was abandoned at the limit.
+	// limit (it is expected to take a few times the last one).
 	StopTime = "time limit"
 	// StopMemory: the next step's estimated peak memory exceeds the budget.
 	StopMemory = "memory budget"

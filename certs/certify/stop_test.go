@@ -337,7 +337,7 @@ func TestStopAtFloatResolution(t *testing.T) {
 		t.Errorf("took %v", d)
 	}
 	joined := strings.Join(c.Warnings, "\n")
-	if !strings.Contains(joined, "the widths stalled: the best step is step") || !strings.Contains(joined, "stopped: widths stalled") {
+	if !strings.Contains(joined, "the widths stalled: steps ") || !strings.Contains(joined, "stopped: widths stalled") {
 		t.Errorf("warnings %q", c.Warnings)
 	}
 	for k, want := range []float64{1.0749224185630, 3.5296328775607} {
@@ -349,5 +349,26 @@ func TestStopAtFloatResolution(t *testing.T) {
 	data, _ := c.Marshal()
 	if err := Check(data); err != nil {
 		t.Errorf("check: %v", err)
+	}
+}
+
+// TestWideWarning: a sliver triangle (height 1e-9) gives an enclosure of
+// λ1 wider than λ1 itself; the certificate warns and says what would help.
+func TestWideWarning(t *testing.T) {
+	p := parseProblem(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1/2","1e-9"]]},"boundary":"dirichlet","eigenvalues":2}`)
+	c, err := Certify(context.Background(), p, Options{TimeLimit: time.Millisecond})
+	if err != nil {
+		t.Fatal(err)
+	}
+	joined := strings.Join(c.Warnings, "\n")
+	for _, want := range []string{"lambda1, lambda2, gap: the enclosure is wider than the quantity itself", "the polygon is very thin", "a less extreme shape"} {
+		if !strings.Contains(joined, want) {
+			t.Errorf("warnings lack %q: %q", want, c.Warnings)
+		}
+	}
+	// λ1 ≥ π²/h² for a domain inside a strip of width h = 1e-9 (common
+	// practice: domain monotonicity), so λ1 > 9.8e18; the enclosure holds it.
+	if got := eigenEnclosure(t, c, 1); got.Hi < 9.8e18 {
+		t.Errorf("lambda1 enclosure %v below pi²/h²", got)
 	}
 }
