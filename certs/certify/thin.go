@@ -25,25 +25,47 @@ const (
 	maxThinVertices = 512
 )
 
-var firstMeshes sync.Map // *problem.Problem → *firstMesh of a thin polygon
+// thinCache keeps the first meshes of the last few thin problems (a
+// computation builds several meshes from the same problem; a sweep goes
+// through many problems, so the cache is bounded).
+var thinCache struct {
+	sync.Mutex
+	keys []*problem.Problem
+	vals []*firstMesh
+}
 
-// startMesh returns the first mesh of a polygon (cached per problem; the
-// choice depends only on the problem).
+const thinCacheSize = 8
+
+// startMesh returns the first mesh of a polygon (the choice depends only
+// on the problem).
 func startMesh(p *problem.Problem) *firstMesh {
-	if f, ok := firstMeshes.Load(p); ok {
-		return f.(*firstMesh)
+	thinCache.Lock()
+	for i, k := range thinCache.keys {
+		if k == p {
+			f := thinCache.vals[i]
+			thinCache.Unlock()
+			return f
+		}
 	}
+	thinCache.Unlock()
 	n := len(p.Vertices)
 	f := &firstMesh{tris: p.Triangles(), side: make([]int, n), vertex: make([]int, n)}
 	for i, v := range p.Vertices {
 		f.verts = append(f.verts, [2]interval.I{v[0].Val, v[1].Val})
 		f.side[i], f.vertex[i] = i, i
 	}
-	if g := splitThin(p, f); g != nil {
-		firstMeshes.Store(p, g) // only thin polygons are worth keeping
-		return g
+	g := splitThin(p, f)
+	if g == nil {
+		return f
 	}
-	return f
+	thinCache.Lock()
+	thinCache.keys = append(thinCache.keys, p)
+	thinCache.vals = append(thinCache.vals, g)
+	if len(thinCache.keys) > thinCacheSize {
+		thinCache.keys, thinCache.vals = thinCache.keys[1:], thinCache.vals[1:]
+	}
+	thinCache.Unlock()
+	return g
 }
 
 // splitThin returns, for a thin polygon with four or more sides, the
