@@ -334,7 +334,7 @@ func wideWarnings(p *problem.Problem, res *result, reason string) []string {
 	case StopTime:
 		help = "a longer time limit (--time-limit) lets refinement continue"
 	case StopMemory:
-		help = "a larger memory budget, or a coarser target, lets refinement continue"
+		help = "a larger memory budget (Options.Memory) lets refinement continue"
 	case StopInterrupted:
 		help = "let the run finish"
 	default:

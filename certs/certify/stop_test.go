@@ -108,6 +108,18 @@ func TestStopTimeLimitRecorded(t *testing.T) {
 	if err := Check(data); err != nil {
 		t.Errorf("check: %v", err)
 	}
+	// The recorded first step leaves steps and ran stage B: a cap or a
+	// missing separation would be false.
+	for _, reason := range []string{StopCap, StopNoSeparation, StopTarget} {
+		if err := Check(editMethod(t, data, func(m *Method) { m.Refinement.StopReason = reason })); err == nil {
+			t.Errorf("stop reason %q verifies", reason)
+		}
+	}
+	for _, reason := range []string{StopMemory, StopStalled, StopInterrupted} {
+		if err := Check(editMethod(t, data, func(m *Method) { m.Refinement.StopReason = reason })); err != nil {
+			t.Errorf("stop reason %q (a record of the run) is refused: %v", reason, err)
+		}
+	}
 }
 
 // TestRefusedUpFront: targets and time limits out of range are refused
