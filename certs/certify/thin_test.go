@@ -1,8 +1,11 @@
 package certify
 
 import (
+	"context"
+	"fmt"
 	"math"
 	"testing"
+	"time"
 
 	"gapcert/interval"
 )
@@ -56,5 +59,28 @@ func TestThinFirstMesh(t *testing.T) {
 		if f := startMesh(q); len(f.verts) != len(q.Vertices) {
 			t.Errorf("%s: split into %d vertices", src, len(f.verts))
 		}
+	}
+}
+
+// TestThinRectangle: the 1:200 Dirichlet rectangle, one step within a
+// short budget. Its eigenvalues π²(k²/200² + 1) (common practice:
+// separation of variables; rectangleEigenvalues at about 60 digits) are
+// enclosed, λ1 and λ2 to relative width 0.05 (measured 0.033: the first
+// mesh's right triangles; the triangulation by the corners alone gave
+// 1.98). The eigenvalues are clustered (λ2 − λ1 = 3π²/200²), so stage B
+// does not start and the stop reason is the budget's.
+func TestThinRectangle(t *testing.T) {
+	p := parseProblem(t, `{"domain":{"polygon":[["0","0"],["200","0"],["200","1"],["0","1"]]},"boundary":"dirichlet","eigenvalues":2}`)
+	c, err := Certify(context.Background(), p, Options{TimeLimit: 3 * time.Second})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := end{dirichlet: true}
+	truth := rectangleEigenvalues("200", "1", [4]end{d, d, d, d}, 2)
+	for k := 1; k <= 2; k++ {
+		requireBig(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, c, k), truth[k-1], 1, 0.05)
+	}
+	if ref, _ := RefinementOf(c); ref.StopReason != StopTime && ref.StopReason != StopMemory {
+		t.Errorf("stopped: %q", ref.StopReason)
 	}
 }
