@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"math/big"
@@ -33,7 +34,7 @@ func certifyLimited(t *testing.T, src string, relWidth float64) (*problem.Proble
 		t.Fatalf("problem %s: %v", src, err)
 	}
 	start := time.Now()
-	c, err := Certify(p, Options{RelWidth: relWidth, TimeLimit: adversarialLimit})
+	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: adversarialLimit})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}

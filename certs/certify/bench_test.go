@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"runtime"
@@ -17,7 +18,7 @@ func benchmarkCertify(b *testing.B, src string, relWidth float64) {
 	}
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
-		if _, err := Certify(p, Options{RelWidth: relWidth}); err != nil {
+		if _, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth)}); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -119,7 +120,7 @@ func BenchmarkPolygonTargets(b *testing.B) {
 				b.Fatal(err)
 			}
 			for i := 0; i < b.N; i++ {
-				cert, err := Certify(p, Options{RelWidth: c.target, TimeLimit: 10 * time.Minute})
+				cert, err := Certify(context.Background(), p, Options{RelWidth: widthText(c.target), TimeLimit: 10 * time.Minute})
 				if err != nil {
 					b.Fatal(err)
 				}
@@ -219,7 +220,7 @@ func BenchmarkTriangleThroughput(b *testing.B) {
 	done := 0
 	for i := 0; i < b.N; i++ {
 		for _, p := range probs {
-			c, err := Certify(p, Options{RelWidth: 1e-3})
+			c, err := Certify(context.Background(), p, Options{RelWidth: "1e-3"})
 			if err != nil {
 				b.Fatal(err)
 			}

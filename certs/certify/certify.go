@@ -1,11 +1,13 @@
 package certify
 
 import (
+	"context"
 	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
 	"runtime"
+	"strings"
 	"time"
 
 	"gapcert/certs"
@@ -23,14 +25,26 @@ const Digits = 17
 // Options controls the refinement loop. The zero value asks for the
 // problem's own target with the default budget.
 type Options struct {
-	RelWidth  float64       // target relative width (a choice); 0 = the problem's target
-	TimeLimit time.Duration // budget for refinement; 0 = DefaultTimeLimit
+	// RelWidth is the target relative width (see TargetRule) as exact
+	// decimal or rational text, such as "1e-8" or "1/1000"; "" means the
+	// problem's target. It must lie in [MinRelWidth, 1).
+	RelWidth  string
+	TimeLimit time.Duration // budget for refinement; 0 = DefaultTimeLimit; negative is refused
 	Tool      string        // tool name and version for the provenance block
 	Now       func() time.Time
 	Progress  func(format string, args ...any) // nil = quiet
 	Memory    int64                            // memory budget in bytes; 0 = DefaultMemory
 
 	recorded *certs.Certificate // set by Check: reference certificates of claims are taken from it, not computed
+	ctx      context.Context    // set by Certify: reference certifications of claims run under it
+}
+
+// context returns the context of the run (Background outside Certify).
+func (opt Options) context() context.Context {
+	if opt.ctx == nil {
+		return context.Background()
+	}
+	return opt.ctx
 }
 
 // BudgetError reports a computation refused before allocation because its
@@ -67,7 +81,7 @@ func memoryEstimate(p *problem.Problem, r recipe) int64 {
 		return 0
 	}
 	triangles := func(levels int) int64 {
-		t := int64(len(p.Vertices) - 2)
+		t := int64(len(startMesh(p).tris))
 		for i := 0; i < levels; i++ {
 			t *= 4
 		}
@@ -93,23 +107,46 @@ const maxShiftRaises = 8
 const DefaultTimeLimit = 60 * time.Second
 
 // Certify encloses λ_1..λ_m (m = p.Eigenvalues) and the gap λ₂ − λ₁ of the
-// problem, refining until every relative width (see relWidth) is at most the
-// target or the budget is spent, and returns the certificate. When the
-// target is not met the certificate carries the widths reached and a
-// warning; its bounds are verified either way.
-func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
-	target := opt.RelWidth
-	if target == 0 {
-		target = p.RelWidth.Val.Hi // the looser end of the enclosed target
+// problem, refining until every relative width (TargetRule) is at most the
+// target or no step can help within the budget, and returns the
+// certificate of the best step. Its method records the target and why
+// refinement stopped (method.refinement, see the Stop constants) and each
+// enclosure's widths (method.widths); when the target is not met the
+// certificate also says so in a warning. Its bounds are verified either
+// way.
+//
+// A target or time limit out of range is refused with a *TargetError
+// before anything is computed. When ctx is cancelled, Certify returns at
+// once the certificate of the best step finished so far, with stop reason
+// StopInterrupted (its bounds are verified and Check reproduces them), or
+// ctx's error if no step has finished; the step in progress is abandoned
+// and runs to its end in the background (its memory is freed then). The
+// time limit is not a hard one: a step starts only if it is expected to
+// end within the limit (a few times the last step), and then finishes.
+func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certificate, error) {
+	targetText := p.RelWidth.Text
+	if opt.RelWidth != "" {
+		targetText = opt.RelWidth
+	}
+	target, err := ParseTarget(targetText)
+	if err != nil {
+		return nil, err
 	}
 	limit := opt.TimeLimit
-	if limit == 0 {
+	switch {
+	case limit == 0:
 		limit = DefaultTimeLimit
+	case limit < 0:
+		return nil, &TargetError{Option: "time limit", Value: limit.String(), Msg: "is negative", Hint: "give a positive duration such as 60s"}
 	}
 	budget := opt.Memory
 	if budget == 0 {
 		budget = DefaultMemory
 	}
+	if err := checkMeshable(p); err != nil {
+		return nil, err
+	}
+	opt.ctx = ctx
 	start := time.Now()
 	r, err := initialRecipe(p)
 	if err != nil {
@@ -119,10 +156,18 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		return nil, &BudgetError{What: "the first mesh", Need: est, Budget: budget}
 	}
 	var best *result
-	prevWorst := 0.0
+	reason, bestStep := "", 0
+	prevWorst, steps, stalls := 0.0, 0, 0
 	for raised := 0; ; {
 		t0 := time.Now()
-		out, err := compute(p, r)
+		out, err := computeCtx(ctx, p, r)
+		if errors.Is(err, errAbandoned) {
+			if best == nil {
+				return nil, ctx.Err()
+			}
+			reason = StopInterrupted
+			break
+		}
 		var lineSign *line.SignError
 		var triSign *tri.SignError
 		if (errors.As(err, &lineSign) || errors.As(err, &triSign)) && raised < maxShiftRaises {
@@ -145,14 +190,18 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 		if err != nil {
 			return nil, err
 		}
+		steps++
 		if opt.Progress != nil {
-			opt.Progress("%s%s: widths lambda1 %.2g, lambda2 %.2g, gap %.2g (%.2fs)\n",
-				r.describe(), out.describe(), res.widths[0], res.widths[1], res.gapWidth, time.Since(t0).Seconds())
+			opt.Progress("[%6.1fs] step %d (%s%s, %.2fs): widths lambda1 %.2g, lambda2 %.2g, gap %.2g; target %s\n",
+				time.Since(start).Seconds(), steps, r.describe(), out.describe(), time.Since(t0).Seconds(),
+				res.widths[0], res.widths[1], res.gapWidth, targetText)
 		}
+		last := res
 		if best == nil || res.worst() <= best.worst() {
-			best = res
+			best, bestStep = res, steps
 		}
-		if res.worst() <= target {
+		if res.reached(target) {
+			best, reason = res, StopTarget
 			break
 		}
 		// The factor by which the last step narrowed the worst width
@@ -162,20 +211,148 @@ func Certify(p *problem.Problem, opt Options) (*certs.Certificate, error) {
 			gain = prevWorst / res.worst()
 		}
 		prevWorst = res.worst()
-		next, ok := refine(p, r, out, gain)
-		elapsed := time.Since(start)
-		// The next step costs a few times the last one; stop if it would not fit.
-		if ok && memoryEstimate(p, next) > budget {
-			best.warnings = append(best.warnings, fmt.Sprintf("the next refinement would need about %.1f GiB, more than the memory budget", float64(memoryEstimate(p, next))/(1<<30)))
-			ok = false
+		switch {
+		case p.Dim == 1 && gain < stallGain && out.lg != nil && best.worst() < stallWidth:
+			stalls++
+		case p.Dim == 2 && gain < stallGain && out.lg != nil:
+			stalls++
+		default:
+			stalls = 0
 		}
-		if !ok || elapsed+4*time.Since(t0) > limit {
-			best.warnings = append(best.warnings, fmt.Sprintf("target relative width %.3g not reached within the budget; widths reached are recorded in results.relative_widths", target))
+		if p.Dim == 1 && stalls >= 2 || stalls >= polygonStalls {
+			reason = StopStalled
+			break
+		}
+		next, why := refine(p, r, out, gain)
+		if why != "" {
+			// A cap or a stall ends the run. A cap is recorded as such only
+			// when the best step is the last one (Check verifies it on the
+			// recorded step); after steps that only widened the widths it is
+			// a stall.
+			reason = why
+			if best != last && why != StopStalled {
+				reason = StopStalled
+			}
+			if reason == StopNoSeparation && best.out.n > 0 {
+				reason = StopCap
+			}
+			break
+		}
+		if memoryEstimate(p, next) > budget {
+			best.warnings = append(best.warnings, fmt.Sprintf("the next refinement would need about %.1f GiB, more than the memory budget", float64(memoryEstimate(p, next))/(1<<30)))
+			reason = StopMemory
+			break
+		}
+		// The next step costs a few times the last one; stop if it would not fit.
+		if time.Since(start)+4*time.Since(t0) > limit {
+			reason = StopTime
+			break
+		}
+		if ctx.Err() != nil {
+			reason = StopInterrupted
 			break
 		}
 		r = next
 	}
+	if reason == StopStalled {
+		msg := fmt.Sprintf("the widths stalled: the best step is step %d of %d, and the steps after it widened the widths", bestStep, steps)
+		if p.Dim == 1 && stalls >= 2 || stalls >= polygonStalls {
+			msg = fmt.Sprintf("the widths stalled: steps %d to %d narrowed them by less than 5%% each (best: step %d)", steps-stalls+1, steps, bestStep)
+			if p.Dim == 1 {
+				msg += "; near relative width 1e-12 the float64 rounding of finer meshes outweighs their gain"
+			}
+		}
+		best.warnings = append(best.warnings, msg)
+	}
+	best.warnings = append(best.warnings, wideWarnings(p, best, reason)...)
+	if reason != StopTarget {
+		best.warnings = append(best.warnings, fmt.Sprintf("target relative width %s not reached (stopped: %s); the widths reached are in results.relative_widths and method.widths", targetText, reason))
+	}
+	best.refinement = &Refinement{Target: targetText, TargetRule: TargetRule, StopReason: reason}
 	return best.certificate(p, opt)
+}
+
+// Widths stall on intervals when two steps in a row with stage B gain
+// less than stallGain while the best width is below stallWidth (where
+// float64 rounding, growing with the mesh, outweighs the discretization
+// error: measured on the harmonic oscillator, the best relative width
+// 4e-13 at 128 cells grows to 2e-11 at 4096).
+//
+// On polygons the widths stall when polygonStalls steps in a row with
+// stage B gain less than stallGain, whatever the width: each kind of step
+// (degree, grading, adaptive rounds, uniform levels) has then been tried.
+// Measured on the L-shape at 1e-12: λ1 stays at relative width 3.6e-4
+// from step 3 to step 17 (degree 4 to 8, grading 2 to 6, 10 adaptive
+// rounds, 108 s).
+const (
+	stallGain     = 1.05
+	stallWidth    = 1e-10
+	polygonStalls = 5
+)
+
+// errAbandoned reports a step abandoned because its context ended.
+var errAbandoned = errors.New("certify: step abandoned")
+
+// computeCtx runs compute, returning errAbandoned as soon as ctx ends (the
+// computation then finishes in the background and its outcome is dropped).
+func computeCtx(ctx context.Context, p *problem.Problem, r recipe) (*outcome, error) {
+	if ctx.Err() != nil {
+		return nil, errAbandoned
+	}
+	type done struct {
+		out *outcome
+		err error
+	}
+	ch := make(chan done, 1)
+	go func() {
+		out, err := compute(p, r)
+		ch <- done{out, err}
+	}()
+	select {
+	case d := <-ch:
+		return d.out, d.err
+	case <-ctx.Done():
+		return nil, errAbandoned
+	}
+}
+
+// veryThin is the diameter²/area beyond which a polygon's lower bounds
+// cannot be made useful by refinement (its width is below diameter/10⁴).
+const veryThin = 1e8
+
+// wideWarnings warns about the enclosures wider than the quantity's own
+// size (target-rule relative width above 1) and says what would help.
+func wideWarnings(p *problem.Problem, res *result, reason string) []string {
+	var names []string
+	for k, l := range res.lambda {
+		if relWidthUpper(l, res.scale) > 1 {
+			names = append(names, fmt.Sprintf("lambda%d", k+1))
+		}
+	}
+	if relWidthUpper(res.gap, res.scale) > 1 {
+		names = append(names, "gap")
+	}
+	if len(names) == 0 {
+		return nil
+	}
+	var help string
+	switch reason {
+	case StopTime:
+		help = "a longer time limit (--time-limit) lets refinement continue"
+	case StopMemory:
+		help = "a larger memory budget (Options.Memory) lets refinement continue"
+	case StopInterrupted:
+		help = "let the run finish"
+	default:
+		help = "the meshes reached their caps before the stage-A lower bounds became useful"
+	}
+	if p.Dim == 2 {
+		d := p.Diameter()
+		if thin := d.Sqr().Div(p.Area()).Lo; thin > veryThin {
+			help = fmt.Sprintf("the polygon is very thin (diameter²/area ≥ %.2g): the stage-A lower bounds need triangles whose longest edges are below its width, about (diameter/width)² of them, which is beyond what a longer budget can give; a less extreme shape is within reach", thin)
+		}
+	}
+	return []string{fmt.Sprintf("%s: the enclosure is wider than the quantity itself (relative width above 1, stopped: %s); %s", strings.Join(names, ", "), reason, help)}
 }
 
 // initialRecipe chooses the first mesh, degrees, Taylor order and shift.
@@ -334,37 +511,83 @@ const polygonModelOrder = 8
 // order 8, 6e-6 at 12 and 4e-7 at 16 (the cost grows like the order²).
 const polygonWeightOrder = 12
 
-// refine chooses the next recipe. Intervals: raise the degree up to 10,
-// then halve the cells; refine the stage-A mesh when stage B could not
-// separate. Polygons: while stage B does not run, stage A (which converges
-// like h²) is refined; once it runs, the trial space limits the widths and
-// its degree is raised to maxPolygonDegree (unless a step stalled), then
-// its mesh refined, with
-// stage A refined too while ρ̂ is within 10% of the Ritz bound of Λ_N
-// (Lehmann–Goerisch bounds sharpen as ρ̂ moves away from Λ_N); re-entrant
-// corners get more grading levels every step, where the eigenfunctions
-// are singular.
-func refine(p *problem.Problem, r recipe, out *outcome, gain float64) (recipe, bool) {
+// refine chooses the next recipe, or says why there is none (a Stop
+// reason). Intervals: raise the degree up to 10, then halve the cells;
+// while stage B cannot start, refine both the stage-A mesh and the trial
+// mesh (either may keep the stage-A bound of λ_{N+1} below the Ritz bound
+// of λ_N: stage A converges like h², and the Ritz matrices are widened by
+// the Taylor remainders of V, which shrink with the cells). Polygons:
+// while stage B does not run, stage A (which converges like h²) is
+// refined; once it runs, the trial space limits the widths and its degree
+// is raised to maxPolygonDegree (unless a step stalled), then its mesh
+// refined, with stage A refined too while ρ̂ is within 10% of the Ritz
+// bound of Λ_N (Lehmann–Goerisch bounds sharpen as ρ̂ moves away from
+// Λ_N); re-entrant corners get more grading levels every step, where the
+// eigenfunctions are singular.
+func refine(p *problem.Problem, r recipe, out *outcome, gain float64) (recipe, string) {
 	if p.Dim == 2 {
 		return refinePolygon(p, r, out, gain)
 	}
 	if out.n == 0 {
-		if r.stageACells >= 1<<16 {
-			return r, false
+		grew := false
+		if r.stageACells < maxStageACells && meshable1D(p, 4*r.stageACells) {
+			r.stageACells *= 4
+			grew = true
 		}
-		r.stageACells *= 4
-		return r, true
+		if r.cells < maxCells && meshable1D(p, 2*r.cells) {
+			r.cells *= 2
+			grew = true
+		}
+		if !grew {
+			return r, StopNoSeparation
+		}
+		return r, ""
 	}
 	switch {
 	case r.degree < 10:
 		r.degree += 2
-	case r.cells < 1<<12:
+	case r.cells < maxCells && meshable1D(p, 2*r.cells):
 		r.cells *= 2
 	default:
-		return r, false
+		return r, StopCap
 	}
 	r.fluxDegree = r.degree + 1
-	return r, true
+	return r, ""
+}
+
+// Caps of the 1D meshes: trial cells and stage-A cells.
+const (
+	maxCells       = 1 << 12
+	maxStageACells = 1 << 16
+)
+
+// minRelativeCell is the smallest cell length, relative to the largest
+// |endpoint|, of a 1D mesh: cells must span many float64 spacings so that
+// the node enclosures stay disjoint and narrow (an interval such as
+// (1e15, 1e15 + 1) cannot be meshed in float64 near 1e15).
+const minRelativeCell = 1e-9
+
+// checkMeshable refuses an interval too short for its distance from 0 to
+// be meshed in float64 (its first stage-A mesh would not be meshable1D).
+func checkMeshable(p *problem.Problem) error {
+	if p.Dim != 1 || meshable1D(p, firstStageACells) {
+		return nil
+	}
+	return fmt.Errorf("certify: the interval (%s, %s) is too short for its distance from 0: float64 cannot mesh it (hint: translate the variable: take the interval (0, L), L its length, and replace x by x + %s in the potential)",
+		p.Interval[0].Text, p.Interval[1].Text, p.Interval[0].Text)
+}
+
+// firstStageACells is the number of stage-A cells of the first 1D recipe
+// (the finest first mesh; see initialRecipe).
+const firstStageACells = 256
+
+// meshable1D reports whether the interval can be divided into n uniform
+// cells of length at least minRelativeCell times the largest |endpoint|
+// (a choice; float midpoints).
+func meshable1D(p *problem.Problem, n int) bool {
+	a, b := p.Interval[0].Val.Mid(), p.Interval[1].Val.Mid()
+	scale := math.Max(math.Abs(a), math.Abs(b))
+	return (b-a)/float64(n) >= minRelativeCell*scale
 }
 
 // Adaptive refinement of the trial mesh: Dörfler's bulk parameter θ and
@@ -387,12 +610,14 @@ const maxPolygonDegree = 8
 // 10 stalled (a model remainder or a singularity limits the widths, so the
 // mesh is refined instead), and grading continues while it gains more
 // than 1.5.
-func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (recipe, bool) {
-	if gain < 0.5 {
-		// The widths doubled: on strongly graded meshes at high degree the
-		// float64 solves that choose eigenvectors and fluxes degrade, and
-		// finer meshes only make it worse. The best step is kept.
-		return r, false
+func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (recipe, string) {
+	if gain < 0.5 && out.lg != nil && (r.graded > 0 || len(r.marks) > 0) {
+		// The widths doubled with stage B running on a graded mesh: on
+		// strongly graded meshes at high degree the float64 solves that
+		// choose eigenvectors and fluxes degrade, and finer meshes only
+		// make it worse. The best step is kept. (Without stage B, stage
+		// A's widths do not grow with refinement, and other steps help.)
+		return r, StopStalled
 	}
 	corners := len(singularCorners(p)) > 0
 	// Adaptive marks refer to the triangles of the mesh they were computed
@@ -400,7 +625,10 @@ func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (re
 	fixed := len(r.marks) > 0
 	if out.n == 0 || out.lg == nil {
 		if r.stageARefine >= maxPolygonRefine {
-			return r, false
+			if out.n == 0 {
+				return r, StopNoSeparation
+			}
+			return r, StopCap
 		}
 		r.stageARefine++
 		if r.stageARefine-r.refine > polygonRitzLag && !fixed {
@@ -409,7 +637,7 @@ func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (re
 		if corners && !fixed && r.graded < maxGraded {
 			r.graded++
 		}
-		return r, true
+		return r, ""
 	}
 	switch {
 	case corners && !fixed && r.graded < maxGraded && gain > 1.5:
@@ -438,24 +666,26 @@ func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (re
 	case r.refine < maxPolygonRefine && !fixed:
 		r.refine++
 	default:
-		return r, false
+		return r, StopCap
 	}
 	r.fluxDegree = r.degree - 1
 	if out.rho-out.ritz[out.n-1] < 0.1*out.ritz[out.n-1] && r.stageARefine < maxPolygonRefine {
 		r.stageARefine++
 	}
-	return r, true
+	return r, ""
 }
 
 // result is one computation turned into certified enclosures of λ_k.
 type result struct {
-	r        recipe
-	out      *outcome
-	lambda   []interval.I // λ_1..λ_m
-	gap      interval.I
-	widths   []float64
-	gapWidth float64
-	warnings []string
+	r          recipe
+	scale      float64     // π²/D² rounded down, the floor of the target rule
+	refinement *Refinement // set by Certify on the certified step
+	out        *outcome
+	lambda     []interval.I // λ_1..λ_m
+	gap        interval.I
+	widths     []float64
+	gapWidth   float64
+	warnings   []string
 }
 
 func (res *result) worst() float64 {
@@ -471,8 +701,8 @@ func (res *result) worst() float64 {
 // reported as an error and never certified.
 func assemble(p *problem.Problem, r recipe, out *outcome) (*result, error) {
 	m := p.Eigenvalues
-	res := &result{r: r, out: out, warnings: append([]string(nil), out.notes...)}
 	scale := interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
+	res := &result{r: r, out: out, scale: scale, warnings: append([]string(nil), out.notes...)}
 	for k := 0; k < m; k++ {
 		lo := out.stageA[k]
 		if k < len(out.lg) {
@@ -556,6 +786,8 @@ func (res *result) method() Method {
 		N:                  out.n,
 		ProjectionConstant: decimalio.FormatUpper(out.ch.Hi, Digits),
 		Theorems:           theorems1D,
+		Widths:             res.widthRecords(),
+		Refinement:         res.refinement,
 	}
 	if out.polygon != nil {
 		m.Kind, m.Theorems = KindPolygon, theoremsPolygon
@@ -603,6 +835,9 @@ type Plan struct {
 
 // FirstPlan returns the plan of the first computation of Certify.
 func FirstPlan(p *problem.Problem) (Plan, error) {
+	if err := checkMeshable(p); err != nil {
+		return Plan{}, err
+	}
 	r, err := initialRecipe(p)
 	if err != nil {
 		return Plan{}, err

@@ -92,6 +92,13 @@ func Check(data []byte) error {
 	}
 	bad = append(bad, differences("results", cert.Results, fresh.Results)...)
 	bad = append(bad, differences("claims", cert.Claims, fresh.Claims)...)
+	if m.Refinement == nil {
+		bad = append(bad, "method.refinement is missing (a certificate records its target and why refinement stopped)")
+	} else {
+		capped := func() bool { _, why := refine(p, r, out, 1); return why != "" }
+		bad = append(bad, checkRefinement(m.Refinement, res, capped)...)
+		res.refinement = m.Refinement // a record of the run, checked above as far as the step determines it
+	}
 	bad = append(bad, differences("method", m, res.method())...)
 	for _, w := range fresh.Warnings {
 		if !slices.Contains(cert.Warnings, w) {
@@ -168,7 +175,7 @@ func recordedRecipe(p *problem.Problem, m Method) (recipe, error) {
 		r.fluxGamma = fg.Lo
 		r.marks = m.AdaptiveMarks
 	}
-	if err := r.validate(p.Dim); err != nil {
+	if err := r.validate(p); err != nil {
 		return recipe{}, &certs.FormatError{Msg: err.Error()} // the message names the field
 	}
 	return r, nil
@@ -284,7 +291,8 @@ func short(v any) string {
 
 // validate rejects recipes that the computation cannot run (a certificate
 // with absurd numbers must fail cleanly, not exhaust memory).
-func (r recipe) validate(dim int) error {
+func (r recipe) validate(p *problem.Problem) error {
+	dim := p.Dim
 	switch {
 	case r.degree < 1 || r.degree > 16:
 		return fmt.Errorf("method.degree %d out of range", r.degree)
@@ -321,6 +329,8 @@ func (r recipe) validate(dim int) error {
 		return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
 	case r.stageACells < 1 || r.stageACells > 1<<20:
 		return fmt.Errorf("method.stage_a_cells %d out of range", r.stageACells)
+	case !meshable1D(p, max(r.cells, r.stageACells)):
+		return fmt.Errorf("method.cells %d or stage_a_cells %d: cells too short for float64 at this interval", r.cells, r.stageACells)
 	}
 	return nil
 }

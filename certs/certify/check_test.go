@@ -2,10 +2,12 @@ package certify
 
 import (
 	"bytes"
+	"context"
 	"encoding/json"
 	"errors"
 	"fmt"
 	"runtime"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -25,7 +27,7 @@ func certifyBytes(t *testing.T, src string) []byte {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := Certify(p, Options{RelWidth: 1e-9, Now: fixedTime, Tool: "gapcert test"})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-9", Now: fixedTime, Tool: "gapcert test"})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -122,7 +124,7 @@ func TestBudgetExhausted(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := Certify(p, Options{RelWidth: 1e-15, TimeLimit: time.Millisecond})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-15", TimeLimit: time.Millisecond})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -152,7 +154,7 @@ func TestCheckRefusesHugeRecipe(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := Certify(p, Options{RelWidth: 0.5, Now: fixedTime})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "0.5", Now: fixedTime})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -167,4 +169,13 @@ func TestCheckRefusesHugeRecipe(t *testing.T) {
 	if !errors.As(err, &budget) || !strings.Contains(err.Error(), "GiB") {
 		t.Errorf("want a refusal with a memory estimate, got %v", err)
 	}
+}
+
+// widthText writes a float64 target as the exact text of its shortest
+// decimal (what Options.RelWidth takes); 0 is "" (the problem's target).
+func widthText(w float64) string {
+	if w == 0 {
+		return ""
+	}
+	return strconv.FormatFloat(w, 'g', -1, 64)
 }

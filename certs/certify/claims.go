@@ -147,7 +147,7 @@ func reference(p *problem.Problem, c named.Claim, i int, opt Options) (ref *cert
 		ref, gap, err = recordedReference(opt.recorded, i, c, sub)
 		return ref, gap, "", err
 	}
-	cert, err := Certify(sub, Options{TimeLimit: referenceTimeLimit, Tool: opt.Tool, Now: opt.Now, Memory: opt.Memory})
+	cert, err := Certify(opt.context(), sub, Options{TimeLimit: referenceTimeLimit, Tool: opt.Tool, Now: opt.Now, Memory: opt.Memory})
 	if err != nil {
 		return nil, gap, "", fmt.Errorf("reference %s of %s: %w", c.Reference, c.Text(), err)
 	}

@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"context"
 	"encoding/json"
 	"errors"
 	"math/big"
@@ -22,7 +23,7 @@ func certifyClaims(t *testing.T, src string, relWidth float64) ([]byte, *certs.C
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(p, Options{RelWidth: relWidth, Now: fixedTime, Tool: "gapcert test"})
+	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), Now: fixedTime, Tool: "gapcert test"})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}

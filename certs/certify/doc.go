@@ -32,8 +32,16 @@
 //
 // The enclosure of λ_k is [max(stage A, stage B) − γ, Ritz − γ]; the gap
 // λ₂ − λ₁ is enclosed by [ℓ₂ − u₁, u₂ − ℓ₁]. The driver refines the mesh and
-// the degree until the requested relative width is met or the budget is
-// spent, and reports honestly what it reached.
+// the degree until the requested relative width is met or no step can help
+// within the budget, and records in the certificate's method the target,
+// why refinement stopped (Refinement, the Stop constants) and each
+// enclosure's widths (Width). A run can be cancelled through its context;
+// it then returns the best verified step.
+//
+// A thin polygon starts from a mesh with extra vertices on its long sides
+// (exact points A + (j/k)(B − A) of its sides, enclosed), triangulated by
+// clipping the best-shaped ears; mesh.FromPolygon proves that the
+// triangles tile the polygon, so this, like every mesh, is only a choice.
 //
 // Check reads a certificate strictly (package strictjson: no repeated or
 // case-variant keys, no unknown keys, at every depth, the method and the
@@ -41,7 +49,12 @@
 // recorded problem and method with the same deterministic code and
 // demands that the recorded results, claims and method equal the
 // recomputed ones field for field, that the problem be written in its
-// canonical form and its hash match.
+// canonical form and its hash match. Of the refinement record
+// (method.refinement) it verifies what the recorded step determines:
+// "target reached" exactly when the recomputed widths meet the target,
+// and a refinement cap or a missing separation on the recorded step; the
+// other stop reasons (time, memory, stalled widths, an interrupt) are
+// records of the run, accepted when the recomputed widths miss the target.
 //
 // # Stage B and its shift
 //

@@ -33,6 +33,11 @@ type Method struct {
 	ProjectionConstant string   `json:"projection_constant"` // upper bound of C_h of stage A
 	Stages             Stages   `json:"stages"`
 	Theorems           []string `json:"theorems"`
+
+	// Widths and Refinement are written by Certify; certificates written
+	// before them have neither, and Check compares them when present.
+	Widths     []Width     `json:"widths,omitempty"`     // each enclosure's width: absolute, relative to itself, by the target rule
+	Refinement *Refinement `json:"refinement,omitempty"` // the run's target and why refinement stopped
 }
 
 // Stages lists each stage's bounds of the shifted eigenvalues Λ_k = λ_k + γ

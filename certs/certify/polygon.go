@@ -210,28 +210,28 @@ func usesCR(p *problem.Problem) bool {
 	return true
 }
 
-// sideConditions converts the problem's per-side conditions.
+// sideConditions converts the problem's per-side conditions to those of
+// the sides of the first mesh's polygon (startMesh).
 func sideConditions(p *problem.Problem) []tri.BC {
-	bcs := make([]tri.BC, len(p.Boundary))
-	for i, bc := range p.Boundary {
-		switch bc.Kind {
+	f := startMesh(p)
+	bcs := make([]tri.BC, len(f.side))
+	for j, i := range f.side {
+		switch bc := p.Boundary[i]; bc.Kind {
 		case problem.Dirichlet:
-			bcs[i] = tri.BC{Dirichlet: true}
+			bcs[j] = tri.BC{Dirichlet: true}
 		case problem.Robin:
-			bcs[i] = tri.BC{Alpha: bc.Alpha.Val}
+			bcs[j] = tri.BC{Alpha: bc.Alpha.Val}
 		}
 	}
 	return bcs
 }
 
-// polygonMesh triangulates the polygon, refines it uniformly `levels`
-// times and grades it `graded` more levels toward every singular corner.
+// polygonMesh triangulates the polygon (startMesh), refines it uniformly
+// `levels` times and grades it `graded` more levels toward every singular
+// corner.
 func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
-	verts := make([][2]interval.I, len(p.Vertices))
-	for i, v := range p.Vertices {
-		verts[i] = [2]interval.I{v[0].Val, v[1].Val}
-	}
-	m, err := mesh.FromPolygon(verts, p.Triangles())
+	f := startMesh(p)
+	m, err := mesh.FromPolygon(f.verts, f.tris)
 	if err != nil {
 		return nil, err
 	}
@@ -240,7 +240,7 @@ func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
 	}
 	if graded > 0 {
 		for _, c := range singularCorners(p) {
-			m = m.RefineGraded(c, graded)
+			m = m.RefineGraded(f.vertex[c], graded)
 		}
 	}
 	return m, nil

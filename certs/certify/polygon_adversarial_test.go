@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"context"
 	"fmt"
 	"math/big"
 	"os"
@@ -45,7 +46,7 @@ func certifyPolygon(t *testing.T, src string, relWidth float64, limit time.Durat
 		t.Fatalf("problem %s: %v", src, err)
 	}
 	start := time.Now()
-	c, err := Certify(p, Options{RelWidth: relWidth, TimeLimit: limit})
+	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: limit})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}
@@ -386,7 +387,7 @@ func TestPolygonAdversarialDeterminism(t *testing.T) {
 	if !reflect.DeepEqual(outs[0].ritz, outs[1].ritz) || !reflect.DeepEqual(outs[0].stageA, outs[1].stageA) {
 		t.Errorf("GOMAXPROCS changes the bounds:\n1: %v %v\n2: %v %v", outs[0].ritz, outs[0].stageA, outs[1].ritz, outs[1].stageA)
 	}
-	c, err := Certify(p, Options{RelWidth: 1e-2, TimeLimit: polygonLimit, Now: fixedTime, Tool: "gapcert test"})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-2", TimeLimit: polygonLimit, Now: fixedTime, Tool: "gapcert test"})
 	if err != nil {
 		t.Fatal(err)
 	}

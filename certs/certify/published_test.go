@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"context"
 	"fmt"
 	"math/big"
 	"testing"
@@ -18,7 +19,7 @@ func certifyText(t *testing.T, src string, relWidth float64) (*problem.Problem, 
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(p, Options{RelWidth: relWidth})
+	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth)})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}

@@ -1,6 +1,7 @@
 package report
 
 import (
+	"context"
 	"flag"
 	"os"
 	"path/filepath"
@@ -36,7 +37,7 @@ func TestTestdataCertificates(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			c, err := certify.Certify(p, certify.Options{Tool: "gapcert 0.1.0-dev", Now: func() time.Time { return fixedTime }})
+			c, err := certify.Certify(context.Background(), p, certify.Options{Tool: "gapcert 0.1.0-dev", Now: func() time.Time { return fixedTime }})
 			if err != nil {
 				t.Fatal(err)
 			}

@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"bytes"
+	"context"
 	"errors"
 	"fmt"
 	"io/fs"
@@ -290,8 +291,15 @@ func (r *runner) compute(p *Point, pt *FamilyPoint, path string) bool {
 // certify runs the certification of one point with the width target w
 // (0 = the problem's own).
 func (r *runner) certify(pt *FamilyPoint, w float64) ([]byte, *certs.Certificate, error) {
-	cert, err := certify.Certify(pt.Problem, certify.Options{
-		RelWidth: w, TimeLimit: r.limit, Tool: r.opt.Tool, Now: r.opt.Now, Memory: r.opt.Memory,
+	text := ""
+	switch {
+	case w == r.width:
+		text = r.widthText
+	case w != 0:
+		text = strconv.FormatFloat(w, 'g', -1, 64)
+	}
+	cert, err := certify.Certify(context.Background(), pt.Problem, certify.Options{
+		RelWidth: text, TimeLimit: r.limit, Tool: r.opt.Tool, Now: r.opt.Now, Memory: r.opt.Memory,
 	})
 	if err != nil {
 		return nil, nil, err

@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"bytes"
+	"context"
 	"encoding/csv"
 	"encoding/json"
 	"errors"
@@ -467,7 +468,7 @@ func TestMergeFlags(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := certify.Certify(p, certify.Options{Now: fixedNow})
+	c, err := certify.Certify(context.Background(), p, certify.Options{Now: fixedNow})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"os/signal"
 	"path/filepath"
 	"strings"
 	"time"
@@ -25,6 +26,8 @@ type certifyFlags struct {
 	relWidth  string
 	timeLimit time.Duration
 	quiet     bool
+	progress  bool
+	strict    bool
 	plotDir   string
 }
 
@@ -33,6 +36,8 @@ func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
 	cmd.Flags().StringVar(&f.relWidth, "rel-width", "", "target relative width of λ1, λ2 and the gap (default: the problem's target)")
 	cmd.Flags().DurationVar(&f.timeLimit, "time-limit", certify.DefaultTimeLimit, "budget for refinement")
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
+	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
+	cmd.Flags().BoolVar(&f.strict, "strict", false, "exit with status 4 when the target width is not reached (the certificate is written either way)")
 	cmd.Flags().StringVar(&f.plotDir, "plot", "", "also draw the mesh and the first two approximate eigenfunctions (PNG and SVG) into this directory; the pictures are approximations, not part of the proof")
 }
 
@@ -51,11 +56,24 @@ Upper bounds come from the Rayleigh–Ritz method, lower bounds from the
 projection bound of Liu and the Lehmann–Goerisch method; every bound is
 computed in outward rounded interval arithmetic. The mesh and the degree are
 refined until the target relative width is reached or --time-limit is
-spent; if the target is not reached the certificate says so and records
-the widths reached (its bounds are verified either way).
+spent, or until no step can help; the table and the certificate say why
+refinement stopped (target reached, time limit, memory budget, widths
+stalled, refinement cap, no eigenvalue separation, interrupted) and give
+each enclosure's width: absolute, relative to its own size, and by the
+target rule width / max(|midpoint|, π²/D²). The bounds are verified
+either way.
 
-Exit status: 0 on success, 1 on a failure, 2 if the problem file is invalid
-or its first mesh would exceed the memory budget.`,
+On an interrupt (Ctrl-C) certify prints "interrupted" and the best
+verified bounds reached so far, writes them as a certificate whose stop
+reason is "interrupted" (check reproduces it), and exits with status 130.
+A certificate is written to a temporary file and renamed, so an earlier
+file at the same path stays intact until the new one is complete.
+
+Exit status: 0 on success, 1 on a failure or a bad option (--rel-width
+below 1e-15 or not below 1, --time-limit not positive), 2 if the problem
+file is invalid (its own target below 1e-15 included) or its first mesh
+would exceed the memory budget, 4 with --strict when the target was not
+reached, 130 when interrupted.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			out := f.out
@@ -80,22 +98,37 @@ or its first mesh would exceed the memory budget.`,
 func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out string) error {
 	opt := certify.Options{TimeLimit: f.timeLimit, Tool: "gapcert " + Version}
 	if f.relWidth != "" {
-		w, err := decimalio.Parse(f.relWidth)
-		if err != nil || !(w.Lo > 0 && w.Hi < 1) {
-			return &exitError{code: exitFailure, err: fmt.Errorf("--rel-width %q: want a number in (0, 1)", f.relWidth)}
+		if _, err := certify.ParseTarget(f.relWidth); err != nil {
+			return &exitError{code: exitFailure, err: fmt.Errorf("--rel-width: %v", err)}
 		}
-		opt.RelWidth = w.Hi
+		opt.RelWidth = f.relWidth
 	}
-	if !f.quiet && isTerminal(cmd.ErrOrStderr()) {
+	if f.timeLimit <= 0 {
+		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration (hint: --time-limit 60s)", f.timeLimit)}
+	}
+	if progressWanted(cmd, f.quiet, f.progress) {
 		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
 	}
-	c, err := certify.Certify(p, opt)
+	ctx, stop := signal.NotifyContext(cmd.Context(), os.Interrupt)
+	defer stop()
+	c, err := certify.Certify(ctx, p, opt)
 	var budget *certify.BudgetError
+	var target *certify.TargetError
 	switch {
-	case errors.As(err, &budget):
+	case err != nil && ctx.Err() != nil:
+		fmt.Fprintln(cmd.ErrOrStderr(), "interrupted")
+		return &exitError{code: exitInterrupted, err: errors.New("interrupted before the first step finished: no bounds to report, nothing written")}
+	case errors.As(err, &budget), errors.As(err, &target):
 		return &exitError{code: exitInvalid, err: err}
 	case err != nil:
 		return &exitError{code: exitFailure, err: err}
+	}
+	stopped := ""
+	if ref, err := certify.RefinementOf(c); err == nil && ref != nil {
+		stopped = ref.StopReason
+	}
+	if stopped == certify.StopInterrupted {
+		fmt.Fprintln(cmd.ErrOrStderr(), "interrupted; the best verified bounds reached so far:")
 	}
 	data, err := c.Marshal()
 	if err != nil {
@@ -106,6 +139,9 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	}
 	printCertificate(cmd.OutOrStdout(), p, c)
 	fmt.Fprintf(cmd.OutOrStdout(), "\ncertificate written to %s\n", out)
+	if stopped == certify.StopInterrupted {
+		return &exitError{code: exitInterrupted, err: errors.New("interrupted")}
+	}
 	if f.plotDir != "" {
 		files, err := drawModes(f.plotDir, p, c)
 		if err != nil {
@@ -113,7 +149,16 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 		}
 		fmt.Fprintf(cmd.OutOrStdout(), "pictures (approximate eigenfunctions, not part of the proof): %s\n", strings.Join(files, ", "))
 	}
+	if f.strict && stopped != certify.StopTarget {
+		return &exitError{code: exitTargetMissed, err: fmt.Errorf("target not reached (stopped: %s); --strict", stopped)}
+	}
 	return nil
+}
+
+// progressWanted reports whether progress lines go to stderr: never with
+// --quiet, always with --progress, else when stderr is a terminal.
+func progressWanted(cmd *cobra.Command, quiet, progress bool) bool {
+	return !quiet && (progress || isTerminal(cmd.ErrOrStderr()))
 }
 
 // drawModes draws the first two approximate eigenfunctions of a certified
@@ -174,12 +219,28 @@ func printCertificate(w io.Writer, p *problem.Problem, c *certs.Certificate) {
 		name = "(unnamed)"
 	}
 	fmt.Fprintf(w, "problem %s  sha256 %s\n\n", name, c.ProblemSHA256)
-	fmt.Fprintf(w, "%-10s %-26s %-26s %s\n", "", "lower", "upper", "rel. width")
-	for _, e := range c.Results.Eigenvalues {
-		label := fmt.Sprintf("lambda%d", e.Index)
-		fmt.Fprintf(w, "%-10s %-26s %-26s %s\n", label, e.Lower, e.Upper, c.Results.RelativeWidths[label])
+	widths := map[string]certify.Width{}
+	ws, _ := certify.WidthsOf(c)
+	for _, x := range ws {
+		widths[x.Quantity] = x
 	}
-	fmt.Fprintf(w, "%-10s %-26s %-26s %s\n", "gap", c.Results.Gap.Lower, c.Results.Gap.Upper, c.Results.RelativeWidths["gap"])
+	row := func(label string, b certs.Bound) {
+		x, ok := widths[label]
+		if !ok { // a certificate without width records
+			fmt.Fprintf(w, "%-10s %-26s %-26s %-9s %-9s %s\n", label, b.Lower, b.Upper, "", "", c.Results.RelativeWidths[label])
+			return
+		}
+		rel := x.Relative
+		if rel == "" {
+			rel = "(has 0)"
+		}
+		fmt.Fprintf(w, "%-10s %-26s %-26s %-9s %-9s %s\n", label, b.Lower, b.Upper, x.Absolute, rel, x.TargetRule)
+	}
+	fmt.Fprintf(w, "%-10s %-26s %-26s %-9s %-9s %s\n", "", "lower", "upper", "width", "relative", "target rule")
+	for _, e := range c.Results.Eigenvalues {
+		row(fmt.Sprintf("lambda%d", e.Index), e.Bound())
+	}
+	row("gap", c.Results.Gap)
 	fmt.Fprintf(w, "%-10s %-26s %-26s\n", "D", c.Results.Diameter.Lower, c.Results.Diameter.Upper)
 	fmt.Fprintf(w, "%-10s %-26s %-26s\n", "D²·gap/π²", c.Results.GapD2OverPi2.Lower, c.Results.GapD2OverPi2.Upper)
 	if len(c.Claims) > 0 {
@@ -196,6 +257,14 @@ func printCertificate(w io.Writer, p *problem.Problem, c *certs.Certificate) {
 				fmt.Fprintf(w, "             %s\n", cl.Reason)
 			}
 		}
+	}
+	if ref, err := certify.RefinementOf(c); err == nil && ref != nil {
+		fmt.Fprintf(w, "\nwidth: upper bound of upper − lower; relative: width / least |value| in the enclosure;\ntarget rule: %s\n", ref.TargetRule)
+		verdict := "not reached"
+		if ref.StopReason == certify.StopTarget {
+			verdict = "reached"
+		}
+		fmt.Fprintf(w, "target %s: %s; refinement stopped: %s\n", ref.Target, verdict, ref.StopReason)
 	}
 	for _, warn := range c.Warnings {
 		fmt.Fprintf(w, "\nwarning: %s\n", warn)

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"io"
@@ -17,6 +18,10 @@ const (
 	exitFailure  = 1 // bad usage, unreadable file or any other failure
 	exitInvalid  = 2 // the problem file is invalid
 	exitMismatch = 3 // a certificate does not verify
+	// exitTargetMissed: with --strict, a target width was not reached.
+	exitTargetMissed = 4
+	// exitInterrupted: interrupted (SIGINT), as shells report 128 + 2.
+	exitInterrupted = 130
 )
 
 // exitError is an error that ends the process with a given code. Its
@@ -58,7 +63,8 @@ write leaves the earlier file intact.
 
 Exit status: 0 on success, 1 on bad usage, an unreadable file, an output
 that cannot be written or is an input, or another failure, 2 if a problem
-file is invalid, 3 if a certificate does not verify.`,
+file is invalid, 3 if a certificate does not verify, 4 with --strict when
+a target width was not reached, 130 when interrupted.`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}
@@ -71,9 +77,14 @@ file is invalid, 3 if a certificate does not verify.`,
 
 // run executes the gapcert command line args and returns the exit code.
 func run(args []string, stdout, stderr io.Writer) int {
+	return runContext(context.Background(), args, stdout, stderr)
+}
+
+// runContext is run under ctx: cancelling it acts as an interrupt.
+func runContext(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	root := newRootCmd(stdout, stderr)
 	root.SetArgs(args)
-	err := root.Execute()
+	err := root.ExecuteContext(ctx)
 	if err == nil {
 		return exitOK
 	}

@@ -12,6 +12,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"gapcert/certs"
+	"gapcert/certs/certify"
 	"gapcert/certs/outfile"
 	"gapcert/certs/sweep"
 )
@@ -25,6 +26,8 @@ type sweepFlags struct {
 	setAside  bool
 	jobs      int
 	quiet     bool
+	progress  bool
+	strict    bool
 }
 
 func newSweepCmd() *cobra.Command {
@@ -53,7 +56,8 @@ at most 3 times, keeping a new certificate only if it verifies.
 Exit status: 0 if every point has a valid certificate, 1 on a failure
 (including a point that could not be certified), 2 if the family file or
 --shard is invalid (nothing is written), 3 if a certificate in DIR does
-not verify.`,
+not verify, 4 with --strict when a point's certificate did not reach its
+target width (the points are listed).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error { return runSweep(cmd, args[0], f) },
 	}
@@ -65,6 +69,8 @@ not verify.`,
 	cmd.Flags().BoolVar(&f.setAside, "set-aside-invalid", false, "rename a certificate in DIR that does not verify to NAME.rejected and recompute its point")
 	cmd.Flags().IntVarP(&f.jobs, "jobs", "j", 1, "points certified at a time")
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
+	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
+	cmd.Flags().BoolVar(&f.strict, "strict", false, "exit with status 4 when a point's certificate misses its target width")
 	_ = cmd.MarkFlagRequired("out")
 	return cmd
 }
@@ -84,6 +90,15 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 	if f.timeLimit < 0 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration", f.timeLimit)}
 	}
+	if f.relWidth != "" {
+		if _, err := certify.ParseTarget(f.relWidth); err != nil {
+			return &exitError{code: exitFailure, err: fmt.Errorf("--rel-width: %v", err)}
+		}
+	} else if fam.RelWidth != "" {
+		if _, err := certify.ParseTarget(fam.RelWidth); err != nil {
+			return &exitError{code: exitInvalid, err: fmt.Errorf("%s: relative width: %v", file, err)}
+		}
+	}
 	if f.shard != "" {
 		if opt.Shard, err = sweep.ParseShard(f.shard); err != nil {
 			return &exitError{code: exitInvalid, err: err}
@@ -92,7 +107,7 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 	if err := checkSweepOutputs(f.out, file, opt.Shard); err != nil {
 		return err
 	}
-	if !f.quiet && isTerminal(cmd.ErrOrStderr()) {
+	if progressWanted(cmd, f.quiet, f.progress) {
 		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
 	}
 	s, err := sweep.Run(fam, f.out, opt)
@@ -125,7 +140,34 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 	case failed > 0:
 		return &exitError{code: exitFailure, err: fmt.Errorf("%d points could not be certified", failed)}
 	}
+	if f.strict {
+		if missed := missedTargets(f.out, s); len(missed) > 0 {
+			return &exitError{code: exitTargetMissed, err: fmt.Errorf("--strict: %d points did not reach their target width: %s", len(missed), strings.Join(missed, "; "))}
+		}
+	}
 	return nil
+}
+
+// missedTargets lists the points of s whose certificate in dir does not
+// record "target reached" (as "point K: REASON").
+func missedTargets(dir string, s *sweep.Summary) []string {
+	var out []string
+	for _, p := range s.Points {
+		reason := "no certificate"
+		if data, err := os.ReadFile(filepath.Join(dir, p.File)); p.File != "" && err == nil {
+			if c, err := certs.Unmarshal(data); err == nil {
+				if ref, err := certify.RefinementOf(c); err == nil && ref != nil {
+					reason = ref.StopReason
+				} else {
+					reason = "no stop reason recorded"
+				}
+			}
+		}
+		if reason != certify.StopTarget {
+			out = append(out, fmt.Sprintf("point %d: %s", p.Index, reason))
+		}
+	}
+	return out
 }
 
 // loadFamily reads and validates a family file; defects are listed as

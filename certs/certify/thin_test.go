@@ -1,0 +1,86 @@
+package certify
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"testing"
+	"time"
+
+	"gapcert/interval"
+)
+
+// TestThinFirstMesh: the 1:200 rectangle starts from about 200 squares'
+// worth of right triangles whose sides map to the rectangle's sides; a
+// square and a triangle keep their own triangulation.
+func TestThinFirstMesh(t *testing.T) {
+	p := parseProblem(t, `{"domain":{"polygon":[["0","0"],["200","0"],["200","1"],["0","1"]]},"boundary":["dirichlet","neumann",{"robin":"2"},"dirichlet"],"eigenvalues":2}`)
+	f := startMesh(p)
+	if len(f.verts) != 402 || len(f.tris) != 400 {
+		t.Fatalf("%d vertices, %d triangles; want 402 and 400", len(f.verts), len(f.tris))
+	}
+	if a := minAngle(f.verts, f.tris); a < math.Pi/4-1e-9 {
+		t.Errorf("smallest angle %.3g°", a*180/math.Pi)
+	}
+	m, err := polygonMesh(p, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(m.Tris) != 400 {
+		t.Errorf("mesh has %d triangles", len(m.Tris))
+	}
+	bcs := sideConditions(p)
+	counts := map[int]int{}
+	for j, s := range f.side {
+		counts[s]++
+		if want := sideConditions(p)[j]; bcs[j] != want {
+			t.Fatal("side conditions not deterministic")
+		}
+		if (s == 0 || s == 3) != bcs[j].Dirichlet {
+			t.Errorf("side %d (on side %d): Dirichlet %v", j, s, bcs[j].Dirichlet)
+		}
+		if s == 2 && bcs[j].Alpha.Lo != 2 {
+			t.Errorf("side %d (on side 2): alpha %v", j, bcs[j].Alpha)
+		}
+	}
+	if counts[0] != 200 || counts[1] != 1 || counts[2] != 200 || counts[3] != 1 {
+		t.Errorf("sides per original side: %v", counts)
+	}
+	for i, v := range f.vertex {
+		if f.verts[v] != [2]interval.I{p.Vertices[i][0].Val, p.Vertices[i][1].Val} {
+			t.Errorf("vertex %d maps to %d", i, v)
+		}
+	}
+	for _, src := range []string{
+		`{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet","eigenvalues":2}`,
+		`{"domain":{"polygon":[["0","0"],["1","0"],["1/2","1e-9"]]},"boundary":"dirichlet","eigenvalues":2}`,
+	} {
+		q := parseProblem(t, src)
+		if f := startMesh(q); len(f.verts) != len(q.Vertices) {
+			t.Errorf("%s: split into %d vertices", src, len(f.verts))
+		}
+	}
+}
+
+// TestThinRectangle: the 1:200 Dirichlet rectangle, one step within a
+// short budget. Its eigenvalues π²(k²/200² + 1) (common practice:
+// separation of variables; rectangleEigenvalues at about 60 digits) are
+// enclosed, λ1 and λ2 to relative width 0.05 (measured 0.033: the first
+// mesh's right triangles; the triangulation by the corners alone gave
+// 1.98). The eigenvalues are clustered (λ2 − λ1 = 3π²/200²), so stage B
+// does not start and the stop reason is the budget's.
+func TestThinRectangle(t *testing.T) {
+	p := parseProblem(t, `{"domain":{"polygon":[["0","0"],["200","0"],["200","1"],["0","1"]]},"boundary":"dirichlet","eigenvalues":2}`)
+	c, err := Certify(context.Background(), p, Options{TimeLimit: 3 * time.Second})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := end{dirichlet: true}
+	truth := rectangleEigenvalues("200", "1", [4]end{d, d, d, d}, 2)
+	for k := 1; k <= 2; k++ {
+		requireBig(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, c, k), truth[k-1], 1, 0.05)
+	}
+	if ref, _ := RefinementOf(c); ref.StopReason != StopTime && ref.StopReason != StopMemory {
+		t.Errorf("stopped: %q", ref.StopReason)
+	}
+}
