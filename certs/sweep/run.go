@@ -48,7 +48,9 @@ type RunOptions struct {
 	// Certificates do not depend on it, except through the time limit.
 	Jobs int
 	// Progress receives one line per point, naming it by its index (from
-	// 0, as in file names and summaries); nil = quiet.
+	// 0, as in file names and summaries), with its status and verdict, the
+	// widest relative width its certificate reached, the width target, the
+	// point's time and the time since the run started; nil = quiet.
 	Progress func(format string, args ...any)
 }
 
@@ -131,6 +133,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 	}
 	s.Points = make([]Point, len(mine))
 	var mu sync.Mutex // serializes progress lines
+	start := time.Now()
 	parallel(len(mine), opt.Jobs, func(i int) {
 		pt := mine[i]
 		t0 := time.Now()
@@ -146,9 +149,16 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		if p.Error != "" {
 			msg += ": " + p.Error
 		}
+		if w, ok := r.reached.Load(pt.Index); ok {
+			target := p.RelWidth
+			if target == "" {
+				target = "the problem's"
+			}
+			msg += fmt.Sprintf("; widest relative width %.2g, target %s", w, target)
+		}
 		mu.Lock()
 		defer mu.Unlock()
-		opt.Progress("point %d of 0…%d (%s): %s (%.2fs)\n", pt.Index, len(f.Points)-1, f.describe(pt), msg, time.Since(t0).Seconds())
+		opt.Progress("point %d of 0…%d (%s): %s (%.2fs; %.1fs elapsed)\n", pt.Index, len(f.Points)-1, f.describe(pt), msg, time.Since(t0).Seconds(), time.Since(start).Seconds())
 	})
 	if err := writeSummary(dir, base, s); err != nil {
 		return s, err
@@ -202,6 +212,7 @@ type runner struct {
 	widthText string
 	limit     time.Duration
 	widths    map[string]string // known width targets by certificate SHA-256
+	reached   sync.Map          // point index → widest relative width of its certificate (progress lines)
 }
 
 // point brings one point to a verified certificate (or an error).
@@ -314,6 +325,7 @@ func (r *runner) certify(pt *FamilyPoint, w float64) ([]byte, *certs.Certificate
 func (r *runner) fill(p *Point, data []byte, cert *certs.Certificate) {
 	p.CertificateSHA256 = sha256Hex(data)
 	fillFromCertificate(p, cert)
+	r.reached.Store(p.Index, reachedWidth(cert))
 }
 
 // refine recomputes a point while a claim is undecided, each round with a

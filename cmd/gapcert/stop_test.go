@@ -243,8 +243,8 @@ func TestSweepStrictAndProgress(t *testing.T) {
 	if code != exitTargetMissed || !strings.Contains(errs, "point 0: time limit") || !strings.Contains(errs, "point 1: time limit") {
 		t.Errorf("--strict: exit %d, stderr %q", code, errs)
 	}
-	if strings.Count(errs, "computed (") != 2 {
-		t.Errorf("no progress lines: %q", errs)
+	if strings.Count(errs, ": computed; widest relative width ") != 2 || strings.Count(errs, "target 1e-15 (") != 2 || strings.Count(errs, "s elapsed)") != 2 {
+		t.Errorf("want two progress lines with the width reached, the target and the elapsed time: %q", errs)
 	}
 	if code, _, errs := execute("sweep", fam, "--out", filepath.Join(dir, "plain"), "--quiet"); code != exitOK || errs != "" {
 		t.Errorf("without --strict: exit %d, stderr %q", code, errs)
