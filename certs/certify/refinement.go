@@ -1,8 +1,6 @@
 package certify
 
 import (
-	"bytes"
-	"encoding/json"
 	"fmt"
 	"math"
 	"math/big"
@@ -166,27 +164,24 @@ func (res *result) widthRecords() []Width {
 	return out
 }
 
-// RefinementOf returns the refinement record of a certificate written by
-// Certify, or nil if the certificate has none (certificates written before
-// it was recorded).
+// RefinementOf returns the refinement record of a certificate's method
+// block (read strictly), or nil if it has none (Check rejects such a
+// certificate).
 func RefinementOf(c *certs.Certificate) (*Refinement, error) {
-	var m Method
-	dec := json.NewDecoder(bytes.NewReader(c.Method))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(&m); err != nil {
-		return nil, fmt.Errorf("the method block does not parse: %w", err)
+	m, err := decodeMethod(c.Method)
+	if err != nil {
+		return nil, err
 	}
 	return m.Refinement, nil
 }
 
-// WidthsOf returns the width records of a certificate written by Certify
-// (nil for certificates written before they were recorded).
+// WidthsOf returns the width records of a certificate's method block
+// (read strictly), or nil if it has none (Check rejects such a
+// certificate).
 func WidthsOf(c *certs.Certificate) ([]Width, error) {
-	var m Method
-	dec := json.NewDecoder(bytes.NewReader(c.Method))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(&m); err != nil {
-		return nil, fmt.Errorf("the method block does not parse: %w", err)
+	m, err := decodeMethod(c.Method)
+	if err != nil {
+		return nil, err
 	}
 	return m.Widths, nil
 }

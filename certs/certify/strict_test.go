@@ -119,6 +119,7 @@ func TestCheckDemandsRecomputedWarnings(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	recordStep(t, res, "1e-6")
 	c, err := res.certificate(p, Options{Now: fixedTime})
 	if err != nil {
 		t.Fatal(err)

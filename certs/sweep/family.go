@@ -395,7 +395,7 @@ func (f *Family) expand(template map[string]json.RawMessage, claims []string) []
 	var iss []problem.Issue
 	seen := map[string]bool{}
 	var templateList []json.RawMessage
-	_ = json.Unmarshal(template["claims"], &templateList) // a bad list is reported by problem.Parse
+	_ = strictjson.Decode(template["claims"], &templateList) // a bad list is reported by problem.Parse
 	templateClaims := len(templateList)
 	idx := make([]int, len(f.Params))
 	for k := 0; k < total; k++ {
