@@ -242,3 +242,33 @@ func TestReviewDiamondKinks(t *testing.T) {
 			eigenEnclosure(t, cert, 1), eigenEnclosure(t, cert, 2), cert.Warnings)
 	}
 }
+
+// TestReviewConstantPotentialEquilateral: V = c on the equilateral
+// triangle of side 1 (vertices 0, 1, (1 + i√3)/2), Dirichlet, so that every
+// triangle of the meshes is equilateral, where the quotient of Liu's
+// constant is tightest (0.18918 h_T against 0.1893 h_T). The Dirichlet
+// eigenvalues of that triangle are (16π²/9)(m² + mn + n²), m, n ≥ 1
+// (Lamé; M. A. Pinsky, The eigenvalues of an equilateral triangle, SIAM
+// J. Math. Anal. 11 (1980) 819–827, recalled from memory): λ_1 = c +
+// 16π²/3, λ_2 = λ_3 = c + 112π²/9.
+func TestReviewConstantPotentialEquilateral(t *testing.T) {
+	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
+	for _, c := range []string{"0", "1e8"} {
+		src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],["1","0"],["1/2","sqrt(3)/2"]]},"potential":"%s","boundary":"dirichlet","eigenvalues":2}`, c)
+		_, cert := certifyWithBudget(t, src, 1e-6, 3*time.Second)
+		for k, m := range []int64{3, 7} {
+			truth := new(big.Float).SetPrec(seriesPrec).Mul(pi2, big.NewFloat(float64(16*m)))
+			truth.Quo(truth, bigF(9))
+			truth.Add(truth, bigDecimal(t, c))
+			// Widths relative to λ − c (measured 1e-8 and below).
+			got := eigenEnclosure(t, cert, k+1)
+			if !bigInside(truth, got) {
+				t.Errorf("V = %s lambda%d: enclosure %v misses %s", c, k+1, got, truth.Text('g', 20))
+			}
+			if w := got.Wid() / (16 * float64(m) * math.Pi * math.Pi / 9); w > 1e-6 {
+				t.Errorf("V = %s lambda%d: enclosure %v has width %.3g relative to λ − c", c, k+1, got, w)
+			}
+		}
+		t.Logf("V = %s: λ1 %v, λ2 %v; warnings %v", c, eigenEnclosure(t, cert, 1), eigenEnclosure(t, cert, 2), cert.Warnings)
+	}
+}
