@@ -179,7 +179,7 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			} else {
 				failed = triSign.Range
 			}
-			r.gamma = raiseShift(r.gamma, r.scale, failed)
+			r = raiseShifts(r, p.Dim, failed)
 			raised++
 			continue
 		}
@@ -480,6 +480,22 @@ func raiseShift(gamma, scale float64, failed interval.I) float64 {
 		return plain
 	}
 	return g
+}
+
+// raiseShifts returns r with its shifts raised after a computation could
+// not verify V + γ ≥ 0 (stage A) or V + γ_B > 0 (stage B on polygons) on a
+// cell whose enclosure was failed (raiseShift). On polygons the error does
+// not say which of the two checks failed, so both shifts are raised, and
+// γ_B is kept ≥ γ: a raised γ above the old γ_B would otherwise be
+// recorded with flux_gamma < gamma, which Check refuses, and a failure of
+// stage B's check would recur however often γ alone is raised. Any shifts
+// are sound (a choice); the next computation checks its hypotheses again.
+func raiseShifts(r recipe, dim int, failed interval.I) recipe {
+	r.gamma = raiseShift(r.gamma, r.scale, failed)
+	if dim == 2 {
+		r.fluxGamma = math.Max(raiseShift(r.fluxGamma, r.scale, failed), r.gamma)
+	}
+	return r
 }
 
 // polygonRitzLag is how many levels the trial mesh may lag behind the

@@ -145,3 +145,25 @@ func TestCheckNegativeShift(t *testing.T) {
 		t.Errorf("a certificate with an edited γ verifies")
 	}
 }
+
+// TestRaiseShiftsKeepsFluxShiftAbove: after a failed sign check on a
+// polygon both shifts rise and γ_B stays ≥ γ (Check refuses flux_gamma <
+// gamma); before raiseShifts, γ alone was raised, so γ = 1, γ_B = 5 became
+// γ = 11.8 > γ_B = 5. On intervals γ_B is unused and stays 0.
+func TestRaiseShiftsKeepsFluxShiftAbove(t *testing.T) {
+	const scale = 9.8
+	failed := interval.I{Lo: -0.5, Hi: 3}
+	for _, r := range []recipe{
+		{gamma: 1, fluxGamma: 5, scale: scale},
+		{gamma: roundShift(-1e8), fluxGamma: roundShift(-1e8), scale: scale},
+		{gamma: roundShift(-1e8), fluxGamma: roundShift(-1e8 + 40), scale: scale},
+	} {
+		got := raiseShifts(r, 2, failed)
+		if !(got.gamma > r.gamma && got.fluxGamma > r.fluxGamma && got.fluxGamma >= got.gamma) {
+			t.Errorf("raiseShifts(γ = %g, γ_B = %g) = (%g, %g), want both raised and γ_B ≥ γ", r.gamma, r.fluxGamma, got.gamma, got.fluxGamma)
+		}
+	}
+	if got := raiseShifts(recipe{gamma: 1, scale: scale}, 1, failed); got.fluxGamma != 0 || got.gamma != roundShift(2+scale) {
+		t.Errorf("interval: raiseShifts = (%g, %g), want (%g, 0)", got.gamma, got.fluxGamma, roundShift(2+scale))
+	}
+}

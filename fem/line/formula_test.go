@@ -193,8 +193,9 @@ func midpoints(b []interval.I) []float64 {
 }
 
 // TestUniformWith: points inside the interval become nodes (moving a
-// uniform node within a quarter cell, else inserted); points at or beyond
-// the ends and existing nodes change nothing.
+// uniform node within a quarter cell, else inserted, never moving a node
+// placed at an earlier point); points at or beyond the ends and existing
+// nodes change nothing.
 func TestUniformWith(t *testing.T) {
 	nodes := func(m *Mesh) []float64 {
 		out := make([]float64, len(m.Nodes))
@@ -212,6 +213,10 @@ func TestUniformWith(t *testing.T) {
 		{[]float64{1}, []float64{0, 0.75, 1, 1.5, 2.25, 3}},
 		{[]float64{0.8}, []float64{0, 0.8, 1.5, 2.25, 3}},
 		{[]float64{1.4, 2.5}, []float64{0, 0.75, 1.4, 2.25, 2.5, 3}},
+		// Two points within a quarter cell of each other: the second must
+		// not move the node placed at the first.
+		{[]float64{1.5, 1.625}, []float64{0, 0.75, 1.5, 1.625, 2.25, 3}},
+		{[]float64{0.8, 0.9}, []float64{0, 0.8, 0.9, 1.5, 2.25, 3}},
 	} {
 		got := nodes(UniformWith(pt(0), pt(3), 4, tc.points))
 		if len(got) != len(tc.want) {

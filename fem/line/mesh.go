@@ -70,7 +70,8 @@ func Uniform(a, b interval.I, n int) *Mesh {
 // UniformWith returns Uniform(a, b, n) with a node at each of the points
 // (exact float64s, for instance kinks of the potential) that lie strictly
 // inside (a, b): a point within a quarter cell of an interior uniform node
-// replaces that node, any other point is inserted. The cells keep lengths
+// replaces that node (unless the node is itself one of the points), any
+// other point is inserted. The cells keep lengths
 // between about a quarter and the full uniform length. It panics as
 // Uniform does.
 func UniformWith(a, b interval.I, n int, points []float64) *Mesh {
@@ -80,18 +81,20 @@ func UniformWith(a, b interval.I, n int, points []float64) *Mesh {
 	}
 	nodes := m.Nodes
 	h := (b.Mid() - a.Mid()) / float64(n)
+	placed := map[float64]bool{} // nodes that are points of the list: never moved
 	for _, x := range points {
 		if !(a.Hi < x && x < b.Lo) {
 			continue
 		}
 		k := sort.Search(len(nodes), func(i int) bool { return nodes[i].Lo >= x })
 		// nodes[k−1] < x ≤ nodes[k] (k ≥ 1 since x > a.Hi, k < len since x < b.Lo).
+		placed[x] = true
 		switch {
 		case nodes[k].Lo == x && nodes[k].Hi == x:
 			continue // already a node
-		case k < len(nodes)-1 && nodes[k].IsPoint() && nodes[k].Lo-x < h/4 && !(nodes[k-1].Hi >= x):
+		case k < len(nodes)-1 && nodes[k].IsPoint() && !placed[nodes[k].Lo] && nodes[k].Lo-x < h/4 && !(nodes[k-1].Hi >= x):
 			nodes[k] = interval.Point(x)
-		case k > 1 && nodes[k-1].IsPoint() && x-nodes[k-1].Hi < h/4:
+		case k > 1 && nodes[k-1].IsPoint() && !placed[nodes[k-1].Lo] && x-nodes[k-1].Hi < h/4:
 			nodes[k-1] = interval.Point(x)
 		default:
 			nodes = append(nodes[:k], append([]interval.I{interval.Point(x)}, nodes[k:]...)...)
