@@ -1,9 +1,11 @@
 package certify
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"math/big"
+	"strconv"
 	"testing"
 	"time"
 
@@ -24,7 +26,7 @@ func certifyWithBudget(t *testing.T, src string, relWidth float64, limit time.Du
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(p, Options{RelWidth: relWidth, TimeLimit: limit})
+	c, err := Certify(context.Background(), p, Options{RelWidth: strconv.FormatFloat(relWidth, 'g', -1, 64), TimeLimit: limit})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}
@@ -40,7 +42,7 @@ func bigDecimal(t *testing.T, s string) *big.Float {
 	return x
 }
 
-// TestReviewConstantPotentialShifts: V = c constant on (0, 1). Adding a
+// TestConstantPotentialShifts: V = c constant on (0, 1). Adding a
 // constant to the operator adds it to every eigenvalue (common practice),
 // so with Dirichlet ends λ_k = c + k²π², and with Neumann ends λ_1 = c,
 // λ_2 = c + π² (the Laplacian eigenvalues of an interval: common
@@ -51,7 +53,7 @@ func bigDecimal(t *testing.T, s string) *big.Float {
 // c = 1e15 the rounded shift leaves V + γ ≈ 1.3e7, and only the stage-A
 // bounds remain: measured λ widths ≈ 1.6e4, relative 1.6e-11, and gap
 // [−15920, 15979]).
-func TestReviewConstantPotentialShifts(t *testing.T) {
+func TestConstantPotentialShifts(t *testing.T) {
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for _, tc := range []struct {
 		c, bc    string
@@ -101,11 +103,11 @@ func decodeMethodInto(c *certs.Certificate, m *Method) error {
 	return err
 }
 
-// TestReviewConstantPotentialSquare: V = 1e12 on the unit square,
+// TestConstantPotentialSquare: V = 1e12 on the unit square,
 // Dirichlet (stage A on the plain Crouzeix–Raviart space, with its
 // constant shift c = min_T (V + γ)): λ = 1e12 + π²(m² + n²) (separation
 // of variables, common practice), so λ_1 = 1e12 + 2π², λ_2 = 1e12 + 5π².
-func TestReviewConstantPotentialSquare(t *testing.T) {
+func TestConstantPotentialSquare(t *testing.T) {
 	_, cert := certifyWithBudget(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"1e12","boundary":"dirichlet","eigenvalues":2}`, 1e-14, 3*time.Second)
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for k, m := range []float64{2, 5} {
@@ -116,13 +118,13 @@ func TestReviewConstantPotentialSquare(t *testing.T) {
 	t.Logf("widths %v; warnings %v", cert.Results.RelativeWidths, cert.Warnings)
 }
 
-// TestReviewShiftedKinkInsideCell: V = 1e8 + |x − 1/3| on (0, 1),
+// TestShiftedKinkInsideCell: V = 1e8 + |x − 1/3| on (0, 1),
 // Dirichlet. inf V = 1e8 is attained at the kink, which is not a float and
 // lies inside a cell (range model there), and the shift is negative.
 // Reference: λ_k = 1e8 + μ_k with μ_k those of |x − 1/3| by series
 // shooting (kinkReference); V − 1e8 ∈ [0, 2/3] brackets μ_k in
 // [k²π², k²π² + 2/3].
-func TestReviewShiftedKinkInsideCell(t *testing.T) {
+func TestShiftedKinkInsideCell(t *testing.T) {
 	third := new(big.Float).SetPrec(seriesPrec).Quo(bigF(1), bigF(3))
 	twoThirds := new(big.Float).SetPrec(seriesPrec).Quo(bigF(2), bigF(3))
 	q := math.Pi * math.Pi
@@ -201,7 +203,7 @@ func diamondReference(t *testing.T, c float64) [2]*big.Float {
 	return [2]*big.Float{all[0], all[1]}
 }
 
-// TestReviewDiamondKinks: V = |x − y − c| on the diamond |x| + |y| < 1,
+// TestDiamondKinks: V = |x − y − c| on the diamond |x| + |y| < 1,
 // Dirichlet, against the separable reference diamondReference. c = 0
 // puts the kink on mesh edges that are not axis-parallel (the branch is
 // decided on each triangle itself); c = 1/10 makes it cross triangles on
@@ -211,7 +213,7 @@ func diamondReference(t *testing.T, c float64) [2]*big.Float {
 // 1/(V + γ) with V + γ ≥ 2.47 on 8 trial triangles limits stage B within
 // this budget; with 1e8 added the rounded shift leaves V + γ ≥ 8 and the
 // widths fall to 1e-8), 6e-3 for c = 1/10.
-func TestReviewDiamondKinks(t *testing.T) {
+func TestDiamondKinks(t *testing.T) {
 	scale := math.Pi * math.Pi / 4 // π²/D², D = 2
 	for _, tc := range []struct {
 		pot      string
@@ -243,7 +245,7 @@ func TestReviewDiamondKinks(t *testing.T) {
 	}
 }
 
-// TestReviewConstantPotentialEquilateral: V = c on the equilateral
+// TestConstantPotentialEquilateral: V = c on the equilateral
 // triangle of side 1 (vertices 0, 1, (1 + i√3)/2), Dirichlet, so that every
 // triangle of the meshes is equilateral, where the quotient of Liu's
 // constant is tightest (0.18918 h_T against 0.1893 h_T). The Dirichlet
@@ -251,7 +253,7 @@ func TestReviewDiamondKinks(t *testing.T) {
 // (Lamé; M. A. Pinsky, The eigenvalues of an equilateral triangle, SIAM
 // J. Math. Anal. 11 (1980) 819–827, recalled from memory): λ_1 = c +
 // 16π²/3, λ_2 = λ_3 = c + 112π²/9.
-func TestReviewConstantPotentialEquilateral(t *testing.T) {
+func TestConstantPotentialEquilateral(t *testing.T) {
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for _, c := range []string{"0", "1e8"} {
 		src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],["1","0"],["1/2","sqrt(3)/2"]]},"potential":"%s","boundary":"dirichlet","eigenvalues":2}`, c)

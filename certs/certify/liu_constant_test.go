@@ -193,7 +193,7 @@ func longestEdge(v [3][2]float64) float64 {
 	return h
 }
 
-// TestReviewLiuConstantQuotients: Liu's bound C_T = 0.1893 h_T (h_T the
+// TestLiuConstantQuotients: Liu's bound C_T = 0.1893 h_T (h_T the
 // longest edge) must exceed sqrt(sup ‖e‖²/‖∇e‖²) over e ∈ H¹(T) with zero
 // edge means. Polynomial trial spaces give lower estimates of that
 // supremum (a refutation test; it cannot prove the bound). With the
@@ -204,7 +204,7 @@ func longestEdge(v [3][2]float64) float64 {
 // GAPCERT_LONG=1 scans; thin triangles tend to 0.18864 h_T). The
 // equilateral value must exceed 0.1891 h_T, so the test would notice a
 // trial space that no longer comes close to the supremum.
-func TestReviewLiuConstantQuotients(t *testing.T) {
+func TestLiuConstantQuotients(t *testing.T) {
 	const liu = 0.1893
 	check := func(what string, v [3][2]float64, deg int) float64 {
 		r := math.Sqrt(crQuotient(v, deg, false)) / longestEdge(v)

@@ -9,13 +9,13 @@ import (
 	"gapcert/interval/decimalio"
 )
 
-// TestReviewProjectionConstantRoundsUp: on triangles whose vertices are
+// TestProjectionConstantRoundsUp: on triangles whose vertices are
 // decimals that are not floats, the upper end of ProjectionConstant must
 // be at least 0.1893 times the exact longest edge (computed here in
 // math/big from the exact rationals: h² exactly, then 0.1893² h² compared
 // with the square of the returned bound), for both spaces, and within a
 // few ulps of it.
-func TestReviewProjectionConstantRoundsUp(t *testing.T) {
+func TestProjectionConstantRoundsUp(t *testing.T) {
 	for _, tc := range [][3][2]string{
 		{{"0", "0"}, {"0.1", "0"}, {"0", "0.3"}},
 		{{"0.7", "0.1"}, {"1.3", "0.2"}, {"0.9", "2.9"}},

@@ -6,7 +6,7 @@ import (
 	"testing"
 )
 
-// TestReviewKinkModelsContainValues tries to break the Taylor models of
+// TestKinkModelsContainValues tries to break the Taylor models of
 // abs, min and max on cells and triangles that touch a kink: on its
 // boundary (vertices or whole edges on the kink, axis-parallel or not),
 // and nested kinks. For every model that is returned (an error is always
@@ -15,7 +15,7 @@ import (
 // contain the exact value there, so disjoint enclosures would be a false
 // model. Inputs are random with a fixed seed; GAPCERT_LONG=1 runs 10 times
 // as many (the default count catches, for instance, the closed branch rule applied on sub-boxes of a triangle, which the long count catches within 0.5 s too).
-func TestReviewKinkModelsContainValues(t *testing.T) {
+func TestKinkModelsContainValues(t *testing.T) {
 	srcs := []string{
 		"abs(x - y)",
 		"abs(x + 2*y - 1/2)",
