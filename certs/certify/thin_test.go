@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"os"
 	"strings"
 	"testing"
 	"time"
@@ -165,5 +166,57 @@ func TestThinClusterRaisesExtraIndices(t *testing.T) {
 	var mismatch *MismatchError
 	if !errors.As(err, &mismatch) {
 		t.Errorf("extra_indices edited to the default: %v, want a mismatch", err)
+	}
+}
+
+// TestThinRectangleLong (GAPCERT_LONG=1 only; tens of minutes): the
+// 1:200 Dirichlet rectangle to relative width 1e-8. Its eigenvalues
+// π²(1 + k²/200²) (common practice: separation of variables;
+// rectangleEigenvalues at about 60 digits) form a cluster with spacings
+// (2k + 1)π²/200², below the stage-A deficit up to k ≈ 25 even at
+// 6·10⁵ stage-A unknowns, so the driver raises the extra indices and
+// stage B runs with N past the cluster's first members. λ1 and λ2 are
+// enclosed, contain the closed form and meet the target; Check replays
+// the certificate.
+func TestThinRectangleLong(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("tens of minutes; set GAPCERT_LONG=1")
+	}
+	p := parseProblem(t, thinRectangleProblem(t, "200"))
+	// The target rule includes the gap (3π²/200², which would need
+	// absolute widths near 10⁻¹¹), so the run is ended once λ1 and λ2
+	// meet the target; Certify then returns its best step.
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	progress := func(format string, args ...any) {
+		t.Logf(format, args...)
+		if len(args) >= 7 {
+			w1, ok1 := args[5].(float64)
+			w2, ok2 := args[6].(float64)
+			if ok1 && ok2 && w1 <= 1e-8 && w2 <= 1e-8 {
+				cancel()
+			}
+		}
+	}
+	c, err := Certify(ctx, p, Options{RelWidth: "1e-8", TimeLimit: 60 * time.Minute, Now: fixedTime, Progress: progress})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := methodOf(t, c)
+	t.Logf("extra_indices %d, N %d, widths %v, stop %q", m.ExtraIndices, m.N, c.Results.RelativeWidths, m.Refinement.StopReason)
+	if m.ExtraIndices <= defaultExtraIndices || m.N <= p.Eigenvalues+defaultExtraIndices {
+		t.Errorf("extra_indices %d, N %d: want the count raised and N past the default indices", m.ExtraIndices, m.N)
+	}
+	d := end{dirichlet: true}
+	truth := rectangleEigenvalues("200", "1", [4]end{d, d, d, d}, 2)
+	for k := 1; k <= 2; k++ {
+		requireBig(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, c, k), truth[k-1], 1, 1e-8)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Errorf("the certificate does not verify: %v", err)
 	}
 }
