@@ -170,7 +170,11 @@ func TestThinClusterRaisesExtraIndices(t *testing.T) {
 }
 
 // TestThinRectangleLong (GAPCERT_LONG=1 only; tens of minutes): the
-// 1:200 Dirichlet rectangle to relative width 1e-8. Its eigenvalues
+// 1:200 Dirichlet rectangle to relative width 1e-8 (measured on two shared
+// cores: separation at step 3 with 6·10⁵ stage-A unknowns and N = 34;
+// λ1 and λ2 at 2.5·10⁻¹⁰ at step 6, 25600 triangles of degree 6, after
+// 23.5 minutes, peak memory 2.9 GB; the gap at 6.8·10⁻⁶ by the target
+// rule). Its eigenvalues
 // π²(1 + k²/200²) (common practice: separation of variables;
 // rectangleEigenvalues at about 60 digits) form a cluster with spacings
 // (2k + 1)π²/200², below the stage-A deficit up to k ≈ 25 even at
