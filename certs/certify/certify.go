@@ -95,8 +95,17 @@ func memoryEstimate(p *problem.Problem, r recipe) int64 {
 	for _, marks := range r.marks {
 		trial += 6 * int64(len(marks)) // a bisected triangle and its closure
 	}
-	flux := trial * (3*(k+1)/2 + k*(k+1)) * bytesPerFluxUnknown
-	return max(stageA, flux)
+	fluxUnknowns := trial * (3*(k+1)/2 + k*(k+1))
+	flux := fluxUnknowns * bytesPerFluxUnknown
+	// The vectors of the Ritz space and of stage B, m + extra of each
+	// (negligible at the default count): the approximate eigensolver
+	// keeps 3(want + 8) Krylov vectors in three copies and want + 8 Ritz
+	// vectors in three more (package enclose/sparse, LowestEigs); P_p has
+	// about p²/2 unknowns per triangle; each trial function has a flux.
+	want := int64(p.Eigenvalues + r.extra)
+	trialUnknowns := trial * int64(r.degree*r.degree) / 2
+	vectors := (12*(want+8)*trialUnknowns + want*fluxUnknowns) * 8
+	return max(stageA, flux+vectors)
 }
 
 // maxShiftRaises bounds how often Certify enlarges γ when the cell
@@ -381,10 +390,11 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	if poly, ok := p.Potential.Polynomial(); ok {
 		taylor = max(poly.Degree(), 1) // exact model
 	}
-	r := recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, scale: scale.Lo}
+	r := recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, scale: scale.Lo,
+		extra: defaultExtraIndices}
 	if p.Dim == 2 {
 		r = recipe{degree: 4, fluxDegree: 3, taylor: min(taylor, polygonModelOrder), weightTaylor: polygonWeightOrder,
-			scale: scale.Lo, refine: 1, stageARefine: 3}
+			scale: scale.Lo, refine: 1, stageARefine: 3, extra: defaultExtraIndices}
 	}
 	// inf V ≥ both the enclosure over the domain and the least cell
 	// enclosure over the first stage-A mesh (the cells tile the domain);
@@ -635,10 +645,32 @@ func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (re
 		// A's widths do not grow with refinement, and other steps help.)
 		return r, StopStalled
 	}
+	if out.n > 0 && r.extra > defaultExtraIndices {
+		// Once N separates, the indices past N + 1 only cost time.
+		r.extra = max(defaultExtraIndices, min(r.extra, out.n-p.Eigenvalues+1))
+	}
 	corners := len(singularCorners(p)) > 0
 	// Adaptive marks refer to the triangles of the mesh they were computed
 	// on, so once there are marks the uniform and graded levels stay fixed.
 	fixed := len(r.marks) > 0
+	if out.n == 0 {
+		// No N separates: a cluster meets the last requested eigenvalue
+		// and the stage-A bounds are too wide to pass it with the indices
+		// bounded. If the indices needed at the present stage-A accuracy
+		// are within maxExtraIndices, raise their count alone (one
+		// verified count per index, sliceStageA, far cheaper than a
+		// stage-A level, which has four times the unknowns); otherwise
+		// refine stage A and raise the count to what its expected
+		// accuracy (a quarter of the deficit, stage A converging like h²)
+		// needs.
+		if extra := neededExtra(p, out, 1); extra > r.extra && extra <= maxExtraIndices {
+			r.extra = extra
+			return r, ""
+		}
+		if extra := neededExtra(p, out, 0.25); extra > r.extra && extra <= maxExtraIndices && r.stageARefine < maxPolygonRefine {
+			r.extra = extra
+		}
+	}
 	if out.n == 0 || out.lg == nil {
 		if r.stageARefine >= maxPolygonRefine {
 			if out.n == 0 {
@@ -647,7 +679,11 @@ func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (re
 			return r, StopCap
 		}
 		r.stageARefine++
-		if r.stageARefine-r.refine > polygonRitzLag && !fixed {
+		// With raised extra indices the trial mesh waits for the
+		// separation: the Ritz space's cost grows with the count, and its
+		// slack is far below the stage-A deficit (measured on the 1:200
+		// rectangle: 62 eigenpairs took 111 s with 6400 triangles).
+		if r.stageARefine-r.refine > polygonRitzLag && !fixed && r.extra == defaultExtraIndices {
 			r.refine++
 		}
 		if corners && !fixed && r.graded < maxGraded {
@@ -685,10 +721,55 @@ func refinePolygon(p *problem.Problem, r recipe, out *outcome, gain float64) (re
 		return r, StopCap
 	}
 	r.fluxDegree = r.degree - 1
-	if out.rho-out.ritz[out.n-1] < 0.1*out.ritz[out.n-1] && r.stageARefine < maxPolygonRefine {
+	// With raised extra indices N lies past a cluster whose spacing keeps
+	// ρ̂ within 10% of Λ_N at every stage-A level, so the rule is kept to
+	// the default count.
+	if r.extra == defaultExtraIndices && out.rho-out.ritz[out.n-1] < 0.1*out.ritz[out.n-1] && r.stageARefine < maxPolygonRefine {
 		r.stageARefine++
 	}
 	return r, ""
+}
+
+// neededExtra predicts the extra indices with which an N would separate
+// when the stage-A deficits shrink by the factor shrink, or 0 when none
+// up to maxExtraIndices would (a choice, from floating-point estimates).
+// The relative deficit δ = (Ritz − stage A)/Ritz is the largest over the
+// indices with approximate stage-A eigenvalues (the first
+// m + defaultExtraIndices + 1); the Ritz bounds are extended past the
+// last one by its first and (nonnegative) second differences, which
+// continue a spectrum growing like k² (a thin rectangle's, whose cluster
+// π²(1/w² + k²/L²) is the case of need) or like k (Weyl's law). The
+// least n ≥ m whose estimated spacing Λ_(n+1) − Λ_n exceeds 2δΛ_(n+1)
+// (twice: the slicing shifts lose up to half a spacing, and δ grows with
+// the index) is taken, with a quarter more indices as a margin.
+func neededExtra(p *problem.Problem, out *outcome, shrink float64) int {
+	m, L := p.Eigenvalues, len(out.ritz)
+	if L < 3 {
+		return 0
+	}
+	delta := 0.0
+	for i := 0; i < min(L, len(out.stageA), m+defaultExtraIndices+1); i++ {
+		delta = math.Max(delta, (out.ritz[i]-out.stageA[i])/out.ritz[i])
+	}
+	delta *= shrink
+	d1 := out.ritz[L-1] - out.ritz[L-2]
+	d2 := math.Max(0, d1-(out.ritz[L-2]-out.ritz[L-3]))
+	lambda := func(k int) float64 { // estimate of Λ_k, k ≥ 1
+		if k <= L {
+			return out.ritz[k-1]
+		}
+		j := float64(k - L)
+		return out.ritz[L-1] + j*d1 + d2*j*(j+1)/2
+	}
+	for n := m; n-m <= maxExtraIndices; n++ {
+		if lambda(n+1)-lambda(n) > 2*delta*lambda(n+1) {
+			if extra := max(defaultExtraIndices, (5*(n-m)+3)/4+1); extra <= maxExtraIndices {
+				return extra
+			}
+			return 0
+		}
+	}
+	return 0
 }
 
 // result is one computation turned into certified enclosures of λ_k.
@@ -799,6 +880,7 @@ func (res *result) method() Method {
 		Degree:             r.degree,
 		TaylorOrder:        r.taylor,
 		Gamma:              decimalio.FormatExact(r.gamma),
+		ExtraIndices:       r.extra,
 		N:                  out.n,
 		ProjectionConstant: decimalio.FormatUpper(out.ch.Hi, Digits),
 		Theorems:           theorems1D,

@@ -165,7 +165,7 @@ func recordedRecipe(p *problem.Problem, m Method) (recipe, error) {
 	}
 	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo,
 		cells: m.Cells, fluxDegree: m.FluxDegree, weightTaylor: m.WeightOrder, stageACells: m.StageACells,
-		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels}
+		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels, extra: m.ExtraIndices}
 	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
 	if p.Dim == 2 {
 		fg, err := decimalio.Parse(m.FluxGamma)
@@ -302,6 +302,8 @@ func (r recipe) validate(p *problem.Problem) error {
 		// A negative γ is allowed: the computation verifies V + γ ≥ 0
 		// (stage A) and > 0 (stage B) cell by cell.
 		return fmt.Errorf("method.gamma is not finite")
+	case r.extra < 0 || r.extra > maxExtraIndices:
+		return fmt.Errorf("method.extra_indices %d out of range (0 to %d)", r.extra, maxExtraIndices)
 	}
 	if dim == 2 {
 		switch {

@@ -35,12 +35,18 @@ type recipe struct {
 	// trial space and for stage A, and extra levels toward re-entrant
 	// corners (both meshes).
 	refine, stageARefine, graded int
+
+	// extra is how many eigenvalues past the requested ones are bounded
+	// (Ritz upper bounds of Λ_1..Λ_(m+extra), stage-A lower bounds of
+	// Λ_1..Λ_(m+extra+1)), so that N can be raised past a cluster that
+	// meets the last requested eigenvalue.
+	extra int
 }
 
 // describe is a one-line summary of the recipe for progress lines.
 func (r recipe) describe() string {
 	if r.refine > 0 || r.stageARefine > 0 {
-		return fmt.Sprintf("refinements %d, degree %d, stage-A refinements %d, graded %d", r.refine, r.degree, r.stageARefine, r.graded)
+		return fmt.Sprintf("refinements %d, degree %d, stage-A refinements %d, graded %d, extra indices %d", r.refine, r.degree, r.stageARefine, r.graded, r.extra)
 	}
 	return fmt.Sprintf("cells %d, degree %d, stage-A cells %d", r.cells, r.degree, r.stageACells)
 }
@@ -83,9 +89,14 @@ func (out *outcome) describe() string {
 		out.polygon.triangles, out.polygon.stageAUnknowns, out.polygon.fluxUnknowns, stage)
 }
 
-// extraIndices is how many eigenvalues past the requested ones are bounded,
-// so that N can be raised past a cluster that meets the last requested one.
-const extraIndices = 3
+// Extra indices (recipe.extra): the first recipe bounds
+// defaultExtraIndices eigenvalues past the requested ones; the polygon
+// driver raises the count up to maxExtraIndices when no N separates
+// (refinePolygon).
+const (
+	defaultExtraIndices = 3
+	maxExtraIndices     = 64
+)
 
 // stageATaylor caps the Taylor order of the stage-A potential models, of
 // which only the cell ranges inf_T(V + γ) are used.
@@ -97,7 +108,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	if p.Dim == 2 {
 		return computePolygon(p, r)
 	}
-	want := p.Eigenvalues + extraIndices
+	want := p.Eigenvalues + r.extra
 	gamma := interval.Point(r.gamma)
 	left, right := ends(p)
 

@@ -68,6 +68,22 @@
 // also gives Λ_N < Λ_(N+1), so no multiple eigenvalue is split between the
 // indices N and N + 1.
 //
+// N is sought among the indices bounded: the requested m and the method's
+// extra_indices more (Ritz upper bounds of Λ_1..Λ_(m+extra), stage-A
+// lower bounds of Λ_1..Λ_(m+extra+1)); 3 by default. A thin polygon has a
+// cluster whose spacings are below the stage-A deficit for many indices
+// (the 1:200 rectangle: λ_k = π²(1 + k²/200²), spacing (2k + 1)π²/200²,
+// relative 10⁻⁴ at k = 1 against a stage-A deficit of 5·10⁻³ at 1.5·10⁵
+// unknowns), so the polygon driver raises extra_indices, up to 64, to
+// the count its floating-point extrapolation of the bounds predicts
+// (neededExtra), and records it; Check replays it. Past the first m + 4
+// indices the stage-A bounds come from spectrum slicing (sliceStageA):
+// the verified count of the stage-A pencil at a shift σ, at most n
+// eigenvalues below σ′, gives λ_(h,j) ≥ σ′ for every j ≥ n + 1, and
+// λ_(h,j) ≥ λ_(h,i) for j ≥ i; each index keeps the largest bound so
+// found. These are the same verified counts as for the first indices,
+// only at other shifts, so ρ̂ ≤ Λ_(N+1) holds as before.
+//
 // On polygons stage B uses its own shift γ_B (the certificate's
 // flux_gamma), so it bounds Λ^B_k = λ_k + γ_B. The stage-A bound ρ̂ of
 // λ_(N+1) + γ and the stage-B bounds ℓ_k of Λ^B_k are converted with

@@ -11,6 +11,10 @@ type Method struct {
 	TaylorOrder int    `json:"taylor_order"`         // order of the Taylor models of V
 	Gamma       string `json:"gamma"`                // the shift γ, an exact float64 in exact decimal
 	FluxGamma   string `json:"flux_gamma,omitempty"` // polygons: the shift γ_B ≥ γ of stage B (its Λ_k = λ_k + γ_B)
+	// ExtraIndices is how many eigenvalues past the requested ones are
+	// bounded (Ritz upper bounds up to index m + ExtraIndices, stage-A
+	// lower bounds one further), so that stage B's N can pass a cluster.
+	ExtraIndices int `json:"extra_indices"`
 
 	// Intervals.
 	Cells       int `json:"cells,omitempty"`               // uniform cells of the P_p mesh

@@ -2,11 +2,15 @@ package certify
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
+	"os"
+	"strings"
 	"testing"
 	"time"
 
+	"gapcert/certs"
 	"gapcert/interval"
 )
 
@@ -82,5 +86,141 @@ func TestThinRectangle(t *testing.T) {
 	}
 	if ref, _ := RefinementOf(c); ref.StopReason != StopTime && ref.StopReason != StopMemory {
 		t.Errorf("stopped: %q", ref.StopReason)
+	}
+}
+
+// thinRectangle returns the Dirichlet rectangle (0, L) × (0, 1) asking for
+// two eigenvalues.
+func thinRectangleProblem(t *testing.T, length string) string {
+	t.Helper()
+	return `{"domain":{"polygon":[["0","0"],["` + length + `","0"],["` + length + `","1"],["0","1"]]},"boundary":"dirichlet","eigenvalues":2}`
+}
+
+// TestThinClusterRaisesExtraIndices: the 1:50 Dirichlet rectangle has the
+// cluster π²(1 + k²/50²), k = 1, 2, … (common practice: separation of
+// variables; rectangleEigenvalues at about 60 digits), whose spacings
+// (2k + 1)π²/2500 lie below the first stage-A deficit (about 2·10⁻²
+// relative) for k up to about 25, so the default three extra indices leave
+// no N that separates. The driver's next recipe raises the extra indices
+// (with a stage-A level), stage B then runs with N past the default
+// indices, λ1 and λ2 are enclosed, contain the closed form and are
+// narrow (measured 4.9·10⁻³, stage A's width; the trial mesh refines in
+// later steps), and Check replays the recorded count and refuses it out
+// of range or edited. The steps are driven directly, without a time
+// limit.
+func TestThinClusterRaisesExtraIndices(t *testing.T) {
+	p := parseProblem(t, thinRectangleProblem(t, "50"))
+	r, err := initialRecipe(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := compute(p, r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if out.n != 0 {
+		t.Fatalf("the first step separates with N = %d; the test needs a cluster", out.n)
+	}
+	r, why := refine(p, r, out, math.Inf(1))
+	if why != "" || r.extra <= defaultExtraIndices {
+		t.Fatalf("next recipe: extra indices %d, stop %q; want the count raised", r.extra, why)
+	}
+	if out, err = compute(p, r); err != nil {
+		t.Fatal(err)
+	}
+	if out.n <= p.Eigenvalues+defaultExtraIndices || out.lg == nil {
+		t.Fatalf("N = %d (stage B ran: %v), want N past the default indices", out.n, out.lg != nil)
+	}
+	res, err := assemble(p, r, out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := end{dirichlet: true}
+	truth := rectangleEigenvalues("50", "1", [4]end{d, d, d, d}, 2)
+	for k := 1; k <= 2; k++ {
+		requireBig(t, fmt.Sprintf("lambda%d", k), res.lambda[k-1], truth[k-1], 1, 1e-2)
+	}
+	res.refinement = &Refinement{Target: "1e-2", TargetRule: TargetRule, StopReason: StopTime}
+	c, err := res.certificate(p, Options{Now: fixedTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if m := methodOf(t, c); m.ExtraIndices != r.extra || m.N != out.n {
+		t.Errorf("method records extra_indices %d and N %d, want %d and %d", m.ExtraIndices, m.N, r.extra, out.n)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Errorf("the certificate does not verify: %v", err)
+	}
+	for _, bad := range []int{-1, maxExtraIndices + 1} {
+		err := Check(editMethod(t, data, func(m *Method) { m.ExtraIndices = bad }))
+		var fe *certs.FormatError
+		if !errors.As(err, &fe) || !strings.Contains(err.Error(), "extra_indices") {
+			t.Errorf("extra_indices %d: %v, want a format error naming the field", bad, err)
+		}
+	}
+	err = Check(editMethod(t, data, func(m *Method) { m.ExtraIndices = defaultExtraIndices }))
+	var mismatch *MismatchError
+	if !errors.As(err, &mismatch) {
+		t.Errorf("extra_indices edited to the default: %v, want a mismatch", err)
+	}
+}
+
+// TestThinRectangleLong (GAPCERT_LONG=1 only; tens of minutes): the
+// 1:200 Dirichlet rectangle to relative width 1e-8 (measured on two shared
+// cores: separation at step 3 with 6·10⁵ stage-A unknowns and N = 34;
+// λ1 and λ2 at 2.5·10⁻¹⁰ at step 6, 25600 triangles of degree 6, after
+// 23.5 minutes, peak memory 2.9 GB; the gap at 6.8·10⁻⁶ by the target
+// rule). Its eigenvalues
+// π²(1 + k²/200²) (common practice: separation of variables;
+// rectangleEigenvalues at about 60 digits) form a cluster with spacings
+// (2k + 1)π²/200², below the stage-A deficit up to k ≈ 25 even at
+// 6·10⁵ stage-A unknowns, so the driver raises the extra indices and
+// stage B runs with N past the cluster's first members. λ1 and λ2 are
+// enclosed, contain the closed form and meet the target; Check replays
+// the certificate.
+func TestThinRectangleLong(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("tens of minutes; set GAPCERT_LONG=1")
+	}
+	p := parseProblem(t, thinRectangleProblem(t, "200"))
+	// The target rule includes the gap (3π²/200², which would need
+	// absolute widths near 10⁻¹¹), so the run is ended once λ1 and λ2
+	// meet the target; Certify then returns its best step.
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	progress := func(format string, args ...any) {
+		t.Logf(format, args...)
+		if len(args) >= 7 {
+			w1, ok1 := args[5].(float64)
+			w2, ok2 := args[6].(float64)
+			if ok1 && ok2 && w1 <= 1e-8 && w2 <= 1e-8 {
+				cancel()
+			}
+		}
+	}
+	c, err := Certify(ctx, p, Options{RelWidth: "1e-8", TimeLimit: 60 * time.Minute, Now: fixedTime, Progress: progress})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := methodOf(t, c)
+	t.Logf("extra_indices %d, N %d, widths %v, stop %q", m.ExtraIndices, m.N, c.Results.RelativeWidths, m.Refinement.StopReason)
+	if m.ExtraIndices <= defaultExtraIndices || m.N <= p.Eigenvalues+defaultExtraIndices {
+		t.Errorf("extra_indices %d, N %d: want the count raised and N past the default indices", m.ExtraIndices, m.N)
+	}
+	d := end{dirichlet: true}
+	truth := rectangleEigenvalues("200", "1", [4]end{d, d, d, d}, 2)
+	for k := 1; k <= 2; k++ {
+		requireBig(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, c, k), truth[k-1], 1, 1e-8)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Errorf("the certificate does not verify: %v", err)
 	}
 }
