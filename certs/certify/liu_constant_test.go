@@ -137,51 +137,7 @@ func crQuotient(v [3][2]float64, deg int, mean bool) float64 {
 		row[0] = 1 // φ_00 = 1 and the others are orthogonal to it
 		rows = append(rows, row)
 	}
-	cons := mat.NewDense(len(rows), nb, nil)
-	for i, r := range rows {
-		cons.SetRow(i, r)
-	}
-	var svd mat.SVD
-	if !svd.Factorize(cons, mat.SVDFull) {
-		panic("SVD failed")
-	}
-	var vt mat.Dense
-	svd.VTo(&vt)
-	z := vt.Slice(0, nb, len(rows), nb)
-	var tm, tk, mz, kz mat.Dense
-	tm.Mul(z.T(), mm)
-	mz.Mul(&tm, z)
-	tk.Mul(z.T(), kk)
-	kz.Mul(&tk, z)
-	n := nb - len(rows)
-	ms, ks := mat.NewSymDense(n, nil), mat.NewSymDense(n, nil)
-	for a := 0; a < n; a++ {
-		for b := 0; b <= a; b++ {
-			ms.SetSym(a, b, (mz.At(a, b)+mz.At(b, a))/2)
-			ks.SetSym(a, b, (kz.At(a, b)+kz.At(b, a))/2)
-		}
-	}
-	var chol mat.Cholesky
-	if !chol.Factorize(ks) {
-		panic("stiffness not positive definite on the constrained space")
-	}
-	var l mat.TriDense
-	chol.LTo(&l)
-	var a, at mat.Dense
-	a.Solve(&l, ms)
-	at.Solve(&l, a.T())
-	sym := mat.NewSymDense(n, nil)
-	for i := 0; i < n; i++ {
-		for j := 0; j <= i; j++ {
-			sym.SetSym(i, j, (at.At(i, j)+at.At(j, i))/2)
-		}
-	}
-	var eig mat.EigenSym
-	if !eig.Factorize(sym, false) {
-		panic("eigen decomposition failed")
-	}
-	vals := eig.Values(nil)
-	return vals[len(vals)-1]
+	return largestQuotientOnNullSpace(rows, mm, kk, nb)
 }
 
 func longestEdge(v [3][2]float64) float64 {

@@ -555,8 +555,16 @@ func maxPoincareQuotient(v [3][2]float64, edges, mean bool) float64 {
 		}
 		rows = append(rows, row)
 	}
-	// Null space of the constraints (right singular vectors), without the
-	// constants when no condition removes them.
+	// Without the constants when no condition removes them.
+	return largestQuotientOnNullSpace(rows, mm, kk, nb)
+}
+
+// largestQuotientOnNullSpace returns the largest ρ of M x = ρ K x on the
+// null space of the constraint rows (right singular vectors of the
+// constraint matrix): with K = LLᵀ on that space, the largest eigenvalue
+// of L⁻¹ M L⁻ᵀ. M and K are nb×nb; a floating-point computation for
+// test oracles only.
+func largestQuotientOnNullSpace(rows [][]float64, mm, kk mat.Matrix, nb int) float64 {
 	cons := mat.NewDense(len(rows), nb, nil)
 	for i, r := range rows {
 		cons.SetRow(i, r)
@@ -581,16 +589,14 @@ func maxPoincareQuotient(v [3][2]float64, edges, mean bool) float64 {
 			ks.SetSym(a, b, (kz.At(a, b)+kz.At(b, a))/2)
 		}
 	}
-	// Largest ρ of M x = ρ K x: with K = LLᵀ, the eigenvalues of L⁻¹ M L⁻ᵀ.
 	var chol mat.Cholesky
 	if !chol.Factorize(ks) {
 		panic("stiffness not positive definite on the constrained space")
 	}
 	var l mat.TriDense
 	chol.LTo(&l)
-	var a mat.Dense
+	var a, at mat.Dense
 	a.Solve(&l, ms)
-	var at mat.Dense
 	at.Solve(&l, a.T())
 	sym := mat.NewSymDense(n, nil)
 	for i := 0; i < n; i++ {
