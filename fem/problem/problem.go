@@ -192,34 +192,11 @@ func (r *reader) checkKeys(obj *node, path string, allowed []string) {
 func nearest(k string, allowed []string) string {
 	best, bestD := "", 3
 	for _, a := range allowed {
-		if d := editDistance(strings.ToLower(k), a); d < bestD {
+		if d := claim.EditDistance(strings.ToLower(k), a); d < bestD {
 			best, bestD = a, d
 		}
 	}
 	return best
-}
-
-func editDistance(a, b string) int {
-	if len(a) > 64 || len(b) > 64 {
-		return 1 << 30
-	}
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(a); i++ {
-		cur[0] = i
-		for j := 1; j <= len(b); j++ {
-			c := prev[j-1]
-			if a[i-1] != b[j-1] {
-				c++
-			}
-			cur[j] = min(c, prev[j]+1, cur[j-1]+1)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(b)]
 }
 
 // number reads one exact number at path; ok is false after reporting.

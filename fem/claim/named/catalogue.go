@@ -187,7 +187,7 @@ func Lookup(text string) (Claim, error) {
 	e := &NameError{Text: text}
 	best := 3
 	for _, c := range catalogue {
-		if d := editDistance(key, c.Name); d < best {
+		if d := claim.EditDistance(key, c.Name); d < best {
 			e.Nearest, best = c.Text(), d
 		}
 	}
@@ -199,27 +199,4 @@ func normalise(text string) string {
 	s = strings.TrimPrefix(s, Prefix)
 	s = strings.TrimSpace(s)
 	return strings.ReplaceAll(strings.ToLower(s), "-", "_")
-}
-
-func editDistance(a, b string) int {
-	if len(a) > 64 || len(b) > 64 {
-		return 1 << 30
-	}
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(a); i++ {
-		cur[0] = i
-		for j := 1; j <= len(b); j++ {
-			c := prev[j-1]
-			if a[i-1] != b[j-1] {
-				c++
-			}
-			cur[j] = min(c, prev[j]+1, cur[j-1]+1)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(b)]
 }
