@@ -1,0 +1,86 @@
+package groundstate
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"gapcert/interval"
+)
+
+// On (0, π) with Dirichlet ends and V = 0 the eigenpairs are (k², sin kx)
+// (closed form). For ũ = sin x + ε sin jx (j ≥ 2), by orthogonality
+//
+//	b(ũ, ũ) = (π/2)(1 + ε²),  a(ũ, ũ) = (π/2)(1 + j²ε²),
+//	‖ũ − P₁ũ‖²/‖ũ‖² = ε²/(1 + ε²),  a(w, w)/‖ũ‖² = j²ε²/(1 + ε²).
+//
+// For j = 2 the bounds (E1) and (E2) are equalities; for j = 3 (E1) is
+// 8/3 times the truth (R − 1 = 8ε²/(1 + ε²), λ2 − λ1 = 3).
+func TestEigenvectorErrorOnSineModes(t *testing.T) {
+	halfPi := interval.Pi().DivF(2)
+	lambda1 := interval.Point(1)
+	lambda2 := interval.Point(4)
+	for _, tc := range []struct {
+		j      float64
+		eps    float64
+		ratioL float64 // bound/truth for L2 (exact arithmetic)
+		ratioE float64 // bound/truth for the energy
+	}{
+		{2, 1e-3, 1, 1},
+		{2, 0.1, 1, 1},
+		{3, 1e-3, 8.0 / 3, (8.0 / 3) * (4.0 / 9)},
+		{3, 0.1, 8.0 / 3, (8.0 / 3) * (4.0 / 9)},
+	} {
+		e := interval.Point(tc.eps)
+		e2 := e.Sqr()
+		bUU := halfPi.Mul(e2.AddF(1))
+		aUU := halfPi.Mul(e2.MulF(tc.j * tc.j).AddF(1))
+		got, err := EigenvectorError(aUU, bUU, lambda1, lambda2, 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		trueL := e2.Div(e2.AddF(1))
+		trueE := trueL.MulF(tc.j * tc.j)
+		if !(trueL.Hi <= got.L2) || !(trueE.Hi <= got.Energy) {
+			t.Fatalf("j=%v ε=%v: bounds %g, %g below the truth %v, %v", tc.j, tc.eps, got.L2, got.Energy, trueL, trueE)
+		}
+		rl, re := got.L2/trueL.Mid(), got.Energy/trueE.Mid()
+		t.Logf("j=%v ε=%v: L2 bound/truth %.6f, energy bound/truth %.6f", tc.j, tc.eps, rl, re)
+		if math.Abs(rl-tc.ratioL) > 1e-9*tc.ratioL || math.Abs(re-tc.ratioE) > 1e-9*tc.ratioE {
+			t.Errorf("ratios %.12g, %.12g, want %.12g, %.12g", rl, re, tc.ratioL, tc.ratioE)
+		}
+	}
+}
+
+// With a shift γ the energy bound grows by (λ1 + γ)·L2 and stays above
+// the truth a(w, w) + γ‖w‖².
+func TestEigenvectorErrorShiftedEnergy(t *testing.T) {
+	halfPi := interval.Pi().DivF(2)
+	eps := interval.Point(0.01)
+	e2 := eps.Sqr()
+	bUU := halfPi.Mul(e2.AddF(1))
+	aUU := halfPi.Mul(e2.MulF(4).AddF(1))
+	got, err := EigenvectorError(aUU, bUU, interval.Point(1), interval.Point(4), 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	truth := e2.Div(e2.AddF(1)).MulF(4 + 2)
+	if !(truth.Hi <= got.Energy) || got.Energy > 1.000001*truth.Hi {
+		t.Fatalf("energy bound %g, truth %v (equality expected for j = 2)", got.Energy, truth)
+	}
+}
+
+func TestEigenvectorErrorRefusesWithoutSeparation(t *testing.T) {
+	// ũ = sin x + sin 3x: R = 5 ≥ λ2 = 4.
+	halfPi := interval.Pi().DivF(2)
+	_, err := EigenvectorError(halfPi.MulF(10), halfPi.MulF(2), interval.Point(1), interval.Point(4), 0)
+	var ns *NotSeparatedError
+	if !errors.As(err, &ns) {
+		t.Fatalf("err = %v, want *NotSeparatedError", err)
+	}
+	// λ2's lower end touching R.Hi is refused too.
+	_, err = EigenvectorError(interval.Point(2), interval.Point(1), interval.Point(1), interval.New(2, 3), 0)
+	if !errors.As(err, &ns) {
+		t.Fatalf("err = %v, want *NotSeparatedError", err)
+	}
+}
