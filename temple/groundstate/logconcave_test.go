@@ -73,8 +73,8 @@ func expCase(t testing.TB) (Problem, interval.I) {
 func TestLogConcavityVerdicts(t *testing.T) {
 	robin, robinLambda := robinCase(t)
 	for _, tc := range []struct {
-		name   string
-		make   func(testing.TB) (Problem, interval.I)
+		name string
+		make func(testing.TB) (Problem, interval.I)
 		want Verdict
 	}{
 		// Convex V, Dirichlet: log-concave (Brascamp–Lieb).
