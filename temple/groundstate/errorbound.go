@@ -44,6 +44,14 @@ func (e *NotSeparatedError) Error() string {
 //	L2     ≥ (R − λ1)/(λ2 − λ1),
 //	Energy ≥ (R − λ1) + (λ1 + γ)·[0, L2].
 //
+// Clusters: with lambda2 an enclosure of λ_{m+1} instead of λ2, and P₁
+// replaced by the projection P_m on the span of the first m eigenfunctions,
+// the same bounds hold for ‖ũ − P_mũ‖² (the proof in the package doc with
+// a(u, u) ≥ λ1‖u‖² for u in that span, a(w, w) ≥ λ_{m+1}‖w‖², and then
+// a(w, w) = a(ũ, ũ) − a(u, u) ≤ (R − λ1)‖ũ‖² + λ1‖w‖²). This is a bound for
+// one vector; the distance between an m-dimensional approximate subspace
+// and the exact one is not bounded here.
+//
 // It returns a *NotSeparatedError, and no bounds, when lambda2.Lo ≤ R.Hi
 // (this includes λ1 not certified simple, since R ≥ λ1). It panics if bUU
 // is not positive or if lambda1 + gamma may be negative (then V + γ ≥ 0

@@ -84,3 +84,25 @@ func TestEigenvectorErrorRefusesWithoutSeparation(t *testing.T) {
 		t.Fatalf("err = %v, want *NotSeparatedError", err)
 	}
 }
+
+// Cluster version, m = 2 on (0, π): ũ = sin x + sin 2x + ε sin 3x has
+// ‖ũ − P₂ũ‖²/‖ũ‖² = ε²/(2 + ε²) (closed form), R = (5 + 9ε²)/(2 + ε²),
+// and with λ3 = 9 in place of λ2 the bound is (R − 1)/8 = (3 + 8ε²)/(8(2 + ε²)):
+// true, but not small, as the λ2 component raises R (a limitation of the
+// Rayleigh-quotient bound for clusters).
+func TestEigenvectorErrorClusterOfTwo(t *testing.T) {
+	halfPi := interval.Pi().DivF(2)
+	e2 := interval.Point(0.01).Sqr()
+	bUU := halfPi.Mul(e2.AddF(2))
+	aUU := halfPi.Mul(e2.MulF(9).AddF(5))
+	got, err := EigenvectorError(aUU, bUU, interval.Point(1), interval.Point(9), 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	truth := e2.Div(e2.AddF(2))
+	want := e2.MulF(8).AddF(3).Div(e2.AddF(2).MulF(8))
+	if !(truth.Hi <= got.L2) || !want.Contains(got.L2) && got.L2 > want.Hi*(1+1e-12) {
+		t.Fatalf("bound %g, truth %v, closed form of the bound %v", got.L2, truth, want)
+	}
+	t.Logf("cluster bound %.6g, truth %.6g", got.L2, truth.Mid())
+}

@@ -158,15 +158,25 @@ var errStepTooSmall = errors.New("no a priori enclosure down to the smallest ste
 //     model operations of taylor.go. If the solution lies in the models
 //     before an iteration it lies in them after it, since each operation
 //     encloses its exact result pointwise; so the solution lies in the
-//     final models, whose remainders shrink like (h‖A‖)^n/n! from |B|
-//     plus the truncation of terms of degree > Degree, each enclosed by
-//     c·[0, 1].
+//     final models. The remainder of the final models is the sum of
+//     (i) the a priori box carried through the iterations, which is
+//     multiplied by h‖A‖/n at the n-th, so it shrinks like |B|(h‖A‖)^n/n!,
+//     (ii) the truncated terms c ξ^k, k > Degree, each enclosed by
+//     c·[0, 1] (ξ ∈ [0, 1]), and (iii) V's Taylor remainder R, which enters
+//     each product q·w by f g ∈ p q + ρ(range q + σ) + (range p)σ
+//     (mulModels) and is integrated by ∫_0^ξ ρ ∈ [0, 1]·ρ (integrate).
 //
 // Against the wrapping effect the fundamental matrix of the shot,
 // Φ_{k+1} = M_k(1) Φ_k, is propagated apart from the initial vector y0
-// (an interval for Robin α), and the state at node k is Φ_k y0: the
-// columns of Φ are exact solutions with point data, so only the step
-// enclosures widen them, and y0 is multiplied in once per node. Steps are
+// (an interval for Robin α), and the state at node k is Φ_k y0, so the
+// width of y0 is multiplied in once per node instead of being rotated
+// through every step. The product of interval matrices still widens by
+// rad(Φ_{k+1}) ≤ |M_k|·rad(Φ_k) + rad(M_k)·|Φ_k| per step; where V ≥ λ on
+// the step the entries of M_k are ≥ 0 and |M_k| = M_k (no wrapping), where
+// V < λ |M_k| exceeds the rotation M_k, and the excess compounds only over
+// the oscillatory part of the shot. (Measured: sin x on (0, π) with
+// λ = 1 exactly, 8, 32, 158 steps to π/2 give widths 6e-15, 3e-14, 1.4e-13
+// at x = 1.5; a QR (Lohner) step is not needed at these sizes.) Steps are
 // halved when stage 2 fails or h²·|Q| > 1/4 (a choice).
 //
 // Every operation is outward rounded; h is the interval s1 − s0 of two
