@@ -44,9 +44,11 @@ func dirichletProblem(v string, a, b string) Problem {
 }
 
 // Harmonic oscillator V = x² on (−8, 8), Dirichlet (harmonic_long.json).
-// On the whole line λ1 = 1 with u = exp(−x²/2) (closed form); the
-// truncation to (−8, 8) raises λ1 by less than the enclosure's width, and
-// the enclosure below is the certified one of the truncated problem.
+// On the whole line λ1 = 1 with u = exp(−x²/2) (closed form). Truncation
+// to (−8, 8) raises λ1 (min–max: the truncated form domain is a subspace of
+// the whole-line one), here by at most 2.1e-14 (the certified upper end
+// below); the verdict uses the certified enclosure of the truncated
+// problem, never the whole-line value.
 func harmonicCase(t testing.TB) (Problem, interval.I) {
 	return dirichletProblem("x^2", "-8", "8"), certified(t, "0.99999999994691313", "1.0000000000000209")
 }
@@ -81,7 +83,7 @@ func TestLogConcavityVerdicts(t *testing.T) {
 		{"harmonic", harmonicCase, Proven},
 		{"cubic convex", cubicCase, Proven},
 		{"exp convex", expCase, Proven},
-		// V = 0, Robin α > 0: u = cos(k(x − c)) > 0, (log u)″ = −k²/cos² < 0.
+		// V = 0, Robin α > 0: u = cos(kx) > 0, (log u)″ = −k²/cos²(kx) < 0.
 		{"robin V=0", func(testing.TB) (Problem, interval.I) { return robin, robinLambda }, Proven},
 		// V(0) = 6 > λ1 ≈ 3.741 and u′(0) = 0 by symmetry, so
 		// g(0) = (6 − λ1)u(0)² > 0: not log-concave near 0.

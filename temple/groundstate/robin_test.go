@@ -5,16 +5,24 @@ import (
 	"testing"
 
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 	"gapcert/interval/formula"
 )
 
-// Robin V = 0 on (−1, 1) with α = 1 at both ends. Derivation: the even
+// Robin V = 0 on (−1, 1) with α = 1/3 at both ends (not a float: α is the
+// tightest enclosure of the rational, so the initial data are intervals). Derivation: the even
 // functions u = cos(k x) satisfy −u′(−1) + αu(−1) = 0 iff
 // −k sin k + α cos k = 0, i.e. k tan k = α; for k ∈ (0, π/2) this has one
 // root (k tan k increases from 0 to ∞ there), and u > 0 on [−1, 1], so by
 // Sturm's theorem it is the ground state and λ1 = k². With the left
 // normalisation u(−1) = 1 of the package, u = cos(kx)/cos k.
-const robinAlpha = 1
+func robinAlpha() interval.I {
+	a, err := decimalio.Parse("1/3")
+	if err != nil {
+		panic(err)
+	}
+	return a
+}
 
 // robinRoot encloses the root k of k tan k = α in (0, π/2) by bisection
 // with interval evaluations: the invariant is f(lo) < 0 < f(hi) for
@@ -27,9 +35,9 @@ func robinRoot(t testing.TB) interval.I {
 		if err != nil {
 			t.Fatal(err)
 		}
-		return K.Mul(tan).Sub(interval.Point(robinAlpha))
+		return K.Mul(tan).Sub(robinAlpha())
 	}
-	lo, hi := 0.5, 1.5
+	lo, hi := 0.1, 1.5
 	if !(f(lo).Hi < 0 && f(hi).Lo > 0) {
 		t.Fatal("robinRoot: bad bracket")
 	}
@@ -52,7 +60,7 @@ func robinRoot(t testing.TB) interval.I {
 }
 
 func robinCase(t testing.TB) (Problem, interval.I) {
-	alpha := interval.Point(robinAlpha)
+	alpha := robinAlpha()
 	p := Problem{V: formula.MustParse("0"), A: interval.Point(-1), B: interval.Point(1),
 		Left: Boundary{Kind: Robin, Alpha: alpha}, Right: Boundary{Kind: Robin, Alpha: alpha}}
 	return p, robinRoot(t).Sqr()
