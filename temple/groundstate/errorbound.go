@@ -2,6 +2,7 @@ package groundstate
 
 import (
 	"fmt"
+	"math"
 
 	"gapcert/interval"
 )
@@ -54,15 +55,16 @@ func (e *NotSeparatedError) Error() string {
 //
 // It returns a *NotSeparatedError, and no bounds, when lambda2.Lo ≤ R.Hi
 // (this includes λ1 not certified simple, since R ≥ λ1). It panics if bUU
-// is not positive or if lambda1 + gamma may be negative (then V + γ ≥ 0
-// cannot hold, as λ1 ≥ inf V).
+// is not positive or if lambda1 + gamma < 0 (then V + γ ≥ 0 cannot hold,
+// as λ1 ≥ inf V); the part of lambda1 + gamma below 0 is cut off.
 func EigenvectorError(aUU, bUU, lambda1, lambda2 interval.I, gamma float64) (VectorError, error) {
 	if !bUU.Positive() {
 		panic("groundstate: b(ũ, ũ) must be positive")
 	}
-	shifted := lambda1.AddF(gamma)
-	if shifted.Lo < 0 {
-		panic("groundstate: λ1 + γ may be negative; the shift does not make the form positive")
+	// V + γ ≥ 0 gives λ1 + γ ≥ 0, so the enclosure may be cut at 0.
+	shifted, ok := lambda1.AddF(gamma).Intersection(interval.New(0, math.Inf(1)))
+	if !ok {
+		panic("groundstate: λ1 + γ < 0; the shift does not make the form positive")
 	}
 	r := aUU.Div(bUU)
 	if lambda2.Lo <= r.Hi {

@@ -161,7 +161,8 @@ func LogConcavity(p Problem, lambda interval.I, opt Options) (*LogConcavityResul
 		res.Verdict = Proven
 		return res, nil
 	}
-	res.Reason = fmt.Sprintf("%d pieces have neither g ≤ 0 nor a certified g > 0 with u > 0 after %d bisections "+
-		"(narrow the enclosure of λ1, or raise MaxDepth or MaxPieces)", undecided, opt.MaxDepth)
+	res.Reason = fmt.Sprintf("%d pieces have neither g ≤ 0 nor a certified g > 0 with u > 0 "+
+		"within %d bisections per cell and %d pieces in all (narrow the enclosure of λ1, or raise MaxDepth or MaxPieces)",
+		undecided, opt.MaxDepth, opt.MaxPieces)
 	return res, nil
 }
