@@ -106,3 +106,26 @@ func TestEigenvectorErrorClusterOfTwo(t *testing.T) {
 	}
 	t.Logf("cluster bound %.6g, truth %.6g", got.L2, truth.Mid())
 }
+
+// Neumann on (0, π), V = 0: λ1 = 0 (constants), λ2 = 1 (cos x). For
+// ũ = 1 + ε cos x: b = π(1 + ε²/2), a = (π/2)ε², truth ε²/(2 + ε²), and the
+// bound R/(1 − 0) is the truth. λ1's enclosure reaches below 0 (as certified
+// enclosures of 0 do); λ1 + γ is cut at 0.
+func TestEigenvectorErrorNeumannZeroEigenvalue(t *testing.T) {
+	pi := interval.Pi()
+	e2 := interval.Point(0.01).Sqr()
+	bUU := pi.Mul(e2.DivF(2).AddF(1))
+	aUU := pi.DivF(2).Mul(e2)
+	got, err := EigenvectorError(aUU, bUU, interval.New(-1e-15, 1e-15), interval.New(1-1e-15, 1+1e-15), 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	truth := e2.Div(e2.AddF(2))
+	if !(truth.Hi <= got.L2) || got.L2 > truth.Hi+1e-14 {
+		t.Fatalf("bound %g, truth %v", got.L2, truth)
+	}
+	// Energy: a(w, w)/‖ũ‖² = truth (λ2 = 1); the bound adds only enclosure widths.
+	if !(truth.Hi <= got.Energy) || got.Energy > truth.Hi+1e-14 {
+		t.Fatalf("energy bound %g, truth %v", got.Energy, truth)
+	}
+}
