@@ -94,6 +94,12 @@ func (e *InconsistentError) Error() string {
 //   - Undecided otherwise, after bisecting each undecided piece up to
 //     MaxDepth times within MaxPieces evaluations, with the worst margin.
 //
+// Only λ1 ∈ lambda is needed, not a separation from λ2: every member of
+// the enclosed family shares the verdict's inequality, and the ground
+// state (normalised at either end) is the member λ = λ1. A lambda that
+// also holds λ2 makes the family hold the second eigenfunction, whose
+// interior zero keeps such a run undecided near it.
+//
 // It returns an *IntegrationError when a shot fails and an
 // *InconsistentError when u is certified negative on a piece (lambda then
 // does not enclose λ1). Misuse panics as for Shoot.

@@ -147,6 +147,27 @@ func TestLogConcavityWideLambdaIsUndecided(t *testing.T) {
 	}
 }
 
+// An enclosure that holds λ1 and λ2 of the double well (not separating
+// them) still holds λ1, so any verdict is true for the ground state; the
+// family then holds the odd second eigenfunction too, whose zero at 0 keeps
+// u > 0 from being certified near the barrier's centre.
+func TestLogConcavityLambdaOverTwoEigenvalues(t *testing.T) {
+	p, lambda1 := doubleWellCase(t)
+	lambda2 := certified(t, "4.8838804515639182", "4.8838804515659718") // double_well.json, as above
+	res, err := LogConcavity(p, lambda1.Hull(lambda2), Options{MaxPieces: 1 << 14})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("%v: %s; worst %.3g at %v", res.Verdict, res.Reason, res.WorstUpper, res.WorstAt)
+	if res.Verdict == Proven {
+		t.Fatalf("false verdict %v", res.Verdict)
+	}
+	if res.Verdict == Disproven {
+		w := res.Witness
+		t.Logf("witness x ∈ %v, u ∈ %v, g ∈ %v", w.X, w.U, w.G)
+	}
+}
+
 func BenchmarkLogConcavityDoubleWell(b *testing.B) {
 	p, lambda := doubleWellCase(b)
 	for i := 0; i < b.N; i++ {
