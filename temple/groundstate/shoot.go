@@ -315,14 +315,15 @@ func aPriori(w0, p0, qRange, hUnit interval.I) (bw, bp interval.I, ok bool) {
 		if nw.Subset(bw) && np.Subset(bp) {
 			return bw, bp, true
 		}
-		bw, bp = inflate(bw.Hull(nw)), inflate(bp.Hull(np))
+		bw, bp = chooseWider(bw.Hull(nw)), chooseWider(bp.Hull(np))
 	}
 	return bw, bp, false
 }
 
-// inflate widens x by a tenth of its width and a little more (a choice).
-func inflate(x interval.I) interval.I {
-	d := 0.1*(x.Hi-x.Lo) + 1e-15*x.Mag() + 1e-300
+// chooseWider widens x by a tenth of its width and a little more (a
+// choice: the box it builds is verified by aPriori's inclusion test).
+func chooseWider(x interval.I) interval.I {
+	d := float64(0.1*(x.Hi-x.Lo)) + float64(1e-15*x.Mag()) + 1e-300
 	return interval.New(x.Lo-d, x.Hi+d)
 }
 
