@@ -222,7 +222,9 @@ func referenceProblem(p *problem.Problem, r *named.ReferenceProblem) (*problem.P
 }
 
 // exactText returns the exact text of the quantity q of the polygon p (the
-// common Robin coefficient, the diameter), or the reason it has none.
+// common Robin coefficient, the diameter), or the reason it has none. A
+// reference problem in the catalogue that needs another quantity is a
+// defect of this package and panics.
 func exactText(p *problem.Problem, q string) (string, string) {
 	switch q {
 	case claim.Alpha:
@@ -234,7 +236,7 @@ func exactText(p *problem.Problem, q string) (string, string) {
 	case claim.Diameter:
 		return diameterText(p)
 	}
-	return "", "no exact text of " + q + " is written for a reference problem"
+	panic("certify: no exact text of the quantity " + q + " for a reference problem")
 }
 
 // diameterText returns an exact text of the diameter of the polygon, the
