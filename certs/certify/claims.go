@@ -1,7 +1,6 @@
 package certify
 
 import (
-	"encoding/json"
 	"fmt"
 	"math/big"
 	"time"
@@ -122,13 +121,9 @@ func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text st
 	return r, nil
 }
 
-// Reference computations: the relative width asked of the reference gap
-// (far below the widths of polygon enclosures, so that the comparison is
-// limited by the polygon) and the budget for reaching it.
-const (
-	referenceRelWidth  = "1e-10"
-	referenceTimeLimit = 20 * time.Second
-)
+// referenceTimeLimit is the budget of a reference computation (its target
+// is part of its problem, named.ReferenceProblem).
+const referenceTimeLimit = 20 * time.Second
 
 // reference returns the certificate of the reference quantity of the
 // built-in claim c (the i-th claim of p) and its certified enclosure. When
@@ -136,10 +131,10 @@ const (
 // diameter that cannot be written exactly), ref is nil and reason says
 // why; the claim is then undecided.
 func reference(p *problem.Problem, c named.Claim, i int, opt Options) (ref *certs.Reference, gap interval.I, reason string, err error) {
-	if c.Reference != named.RobinIntervalGap {
-		return nil, gap, "", fmt.Errorf("built-in claim %s: unknown reference %q", c.Text(), c.Reference)
+	if c.ReferenceProblem == nil {
+		return nil, gap, "", fmt.Errorf("built-in claim %s: no problem for the reference %q", c.Text(), c.Reference)
 	}
-	sub, why := robinIntervalProblem(p)
+	sub, why := referenceProblem(p, c.ReferenceProblem)
 	if sub == nil {
 		return nil, gap, "the reference gap is not defined for this problem: " + why, nil
 	}
@@ -202,39 +197,46 @@ func referenceValue(r certs.Results, c named.Claim) (interval.I, error) {
 	return b.Interval()
 }
 
-// robinIntervalProblem returns the problem −u″ = λu on (0, D), D the exact
-// diameter of the polygon p, with p's common Robin coefficient α at both
-// ends (parameters carried over, since α and the coordinates may name
-// them), or nil and the reason it cannot be stated.
-func robinIntervalProblem(p *problem.Problem) (*problem.Problem, string) {
-	alpha, ok := hypothesis.CommonAlpha(p)
-	if !ok {
-		return nil, "the sides do not have one common Robin coefficient"
-	}
-	d, why := diameterText(p)
-	if why != "" {
-		return nil, why
+// referenceProblem returns the reference problem r (package
+// fem/claim/named) of p, written with the exact texts of the quantities it
+// needs (parameters carried over, since those texts may name them), or nil
+// and the reason it cannot be stated.
+func referenceProblem(p *problem.Problem, r *named.ReferenceProblem) (*problem.Problem, string) {
+	inputs := map[string]string{}
+	for _, q := range r.Inputs {
+		text, why := exactText(p, q)
+		if why != "" {
+			return nil, why
+		}
+		inputs[q] = text
 	}
 	params := map[string]string{}
 	for name, v := range p.Params {
 		params[name] = v.Text
 	}
-	src, err := json.Marshal(map[string]any{
-		"name":        "interval (0, D) with the Robin coefficient of the polygon",
-		"domain":      map[string]any{"interval": []string{"0", d}},
-		"parameters":  params,
-		"boundary":    map[string]string{"robin": alpha.Text},
-		"eigenvalues": 2,
-		"target":      map[string]string{"relative_width": referenceRelWidth},
-	})
+	sub, err := problem.Parse(r.File(inputs, params))
 	if err != nil {
-		return nil, err.Error()
-	}
-	sub, err := problem.Parse(src)
-	if err != nil {
-		return nil, "the interval problem is not valid: " + err.Error()
+		return nil, "the reference problem is not valid: " + err.Error()
 	}
 	return sub, ""
+}
+
+// exactText returns the exact text of the quantity q of the polygon p (the
+// common Robin coefficient, the diameter), or the reason it has none. A
+// reference problem in the catalogue that needs another quantity is a
+// defect of this package and panics.
+func exactText(p *problem.Problem, q string) (string, string) {
+	switch q {
+	case claim.Alpha:
+		alpha, ok := hypothesis.CommonAlpha(p)
+		if !ok {
+			return "", "the sides do not have one common Robin coefficient"
+		}
+		return alpha.Text, ""
+	case claim.Diameter:
+		return diameterText(p)
+	}
+	panic("certify: no exact text of the quantity " + q + " for a reference problem")
 }
 
 // diameterText returns an exact text of the diameter of the polygon, the

@@ -9,12 +9,12 @@ import (
 )
 
 // referenceNames returns the names of the reference quantities of built-in
-// claims (named.Claim.Reference) that a formula may use, sorted. For
-// @robin_comparison, package certs/certify stores the certificate of
-// −u″ = λu on (0, D), D the polygon's diameter, with the polygon's Robin
-// coefficient at both ends; robin_interval_gap is the result of that
-// certificate that the catalogue names (named.Claim.ReferenceResult, its
-// gap).
+// claims (named.Claim.Reference) that a formula may use, sorted. The
+// catalogue says which problem each one's certificate certifies
+// (named.Claim.ReferenceProblem; for @robin_comparison −u″ = λu on (0, D),
+// D the polygon's diameter, with the polygon's Robin coefficient at both
+// ends) and which of its results it is (named.Claim.ReferenceResult; for
+// robin_interval_gap the gap).
 func referenceNames() []string {
 	var names []string
 	for _, c := range named.All() {

@@ -1,6 +1,7 @@
 package named
 
 import (
+	"encoding/json"
 	"fmt"
 	"slices"
 	"strings"
@@ -35,12 +36,49 @@ type Claim struct {
 	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon)
 	Hypotheses []string
 	// Reference is the name of a quantity used in Inequality that is
-	// certified by a separate computation ("" if none), and
-	// ReferenceResult the quantity of that computation's certificate it
-	// denotes (a name of claim.Quantities, e.g. "gap").
-	Reference       string
-	ReferenceResult string
-	Source          string // the theorem, or the conjecture and where it is proved
+	// certified by a separate computation ("" if none), ReferenceResult
+	// the quantity of that computation's certificate it denotes (a name
+	// of claim.Quantities, e.g. "gap"), and ReferenceProblem the problem
+	// that computation certifies.
+	Reference        string
+	ReferenceResult  string
+	ReferenceProblem *ReferenceProblem
+	Source           string // the theorem, or the conjecture and where it is proved
+}
+
+// ReferenceProblem is the problem whose certificate gives a built-in
+// claim's reference quantity, written in exact texts of quantities of the
+// claim's own problem.
+type ReferenceProblem struct {
+	// Inputs are the quantities of the claim's problem (names of
+	// claim.Quantities) whose exact texts the reference problem is
+	// written with, in the order in which a caller looks for them (the
+	// first one missing says why the reference cannot be stated).
+	Inputs []string
+	// file returns the problem file as a JSON object, from the exact
+	// text of each input and the parameters of the claim's problem (name
+	// → exact text), which the texts may name.
+	file func(inputs, params map[string]string) map[string]any
+}
+
+// File returns the reference problem file (JSON) from the exact text of
+// each of r.Inputs and the parameters of the claim's problem (name → exact
+// text), which those texts may name. The same texts give the same bytes.
+// A missing input is a misuse and panics.
+func (r *ReferenceProblem) File(inputs, params map[string]string) []byte {
+	for _, q := range r.Inputs {
+		if _, ok := inputs[q]; !ok {
+			panic("named: reference problem without the exact text of " + q)
+		}
+	}
+	if params == nil {
+		params = map[string]string{}
+	}
+	data, err := json.Marshal(r.file(inputs, params))
+	if err != nil {
+		panic("named: reference problem: " + err.Error())
+	}
+	return data
 }
 
 // Text returns the claim as written in a problem file ("@name").
@@ -129,13 +167,33 @@ var catalogue = []Claim{
 	// Laugesen, The Robin Laplacian — spectral conjectures, rectangular
 	// theorems, arXiv:1905.07658 (2019).
 	{
-		Name:            "robin_comparison",
-		Inequality:      "gap >= " + RobinIntervalGap,
-		Dims:            []int{2},
-		Hypotheses:      []string{RobinBoundary, ZeroPotential, ConvexDomain, Rectangle},
-		Reference:       RobinIntervalGap,
-		ReferenceResult: claim.Gap,
-		Source:          "the Robin gap conjecture for convex domains (open); proved for rectangles by R. S. Laugesen, The Robin Laplacian — spectral conjectures, rectangular theorems, arXiv:1905.07658",
+		Name:             "robin_comparison",
+		Inequality:       "gap >= " + RobinIntervalGap,
+		Dims:             []int{2},
+		Hypotheses:       []string{RobinBoundary, ZeroPotential, ConvexDomain, Rectangle},
+		Reference:        RobinIntervalGap,
+		ReferenceResult:  claim.Gap,
+		ReferenceProblem: robinInterval,
+		Source:           "the Robin gap conjecture for convex domains (open); proved for rectangles by R. S. Laugesen, The Robin Laplacian — spectral conjectures, rectangular theorems, arXiv:1905.07658",
+	},
+}
+
+// robinInterval is the reference problem of @robin_comparison: −u″ = λu on
+// (0, D), D the diameter of the domain, with the domain's common Robin
+// coefficient α at both ends, its two lowest eigenvalues at the relative
+// width 1e-10 (far below the widths of polygon enclosures, so that the
+// comparison is limited by the polygon).
+var robinInterval = &ReferenceProblem{
+	Inputs: []string{claim.Alpha, claim.Diameter},
+	file: func(in, params map[string]string) map[string]any {
+		return map[string]any{
+			"name":        "interval (0, D) with the Robin coefficient of the polygon",
+			"domain":      map[string]any{"interval": []string{"0", in[claim.Diameter]}},
+			"parameters":  params,
+			"boundary":    map[string]string{"robin": in[claim.Alpha]},
+			"eigenvalues": 2,
+			"target":      map[string]string{"relative_width": "1e-10"},
+		}
 	},
 }
 

@@ -11,8 +11,10 @@
 // Each Claim has an inequality in the grammar of package claim over
 // certified quantities (claim.Quantities, and for some claims a Reference
 // quantity that is certified separately, with ReferenceResult naming the
-// result of the separate certificate it denotes: this catalogue is the one
-// place that says so), the dimensions it applies to, and the names of the
+// result of the separate certificate it denotes and ReferenceProblem the
+// problem that certificate certifies: this catalogue is the one place that
+// says so, for the certifier and for the pictures of sweeps), the
+// dimensions it applies to, and the names of the
 // hypotheses of its theorem (decided per problem by package
 // certs/hypothesis). The catalogue:
 //
