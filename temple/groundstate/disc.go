@@ -1,6 +1,7 @@
 package groundstate
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -74,6 +75,8 @@ func (e *PotentialError) Error() string {
 
 func (e *PotentialError) Unwrap() error { return e.Err }
 
+var errUnboundedModel = errors.New("the Taylor model does not bound V on the disc")
+
 // EnclosePoint returns an enclosure of u(x0), x0 = d.Centre, for every
 // weak solution u ∈ H¹(B) of −Δu + V u = λ1 u on B = B_R(x0) with
 // ‖u − ũ‖_{L²(B)} ≤ errB, where ũ is the polynomial of d and λ1 is any
@@ -132,6 +135,10 @@ func EnclosePoint(v *formula.Expr, lambda interval.I, errB float64, d Disc, opt 
 		residual = residual.Sub(kernelMass.Mul(rho.Mul(rangeOnBox(u, R))))
 	}
 	vRange := rangeOnBox(pv, R).Add(rho)
+	if !vRange.IsBounded() {
+		// (D3) needs V ∈ L^∞(B); the model must show it.
+		return PointEnclosure{}, &PotentialError{Centre: d.Centre, Radius: R, Err: errUnboundedModel}
+	}
 	supLV := lambda.Sub(vRange).Mag()
 	e := interval.Point(errB)
 	r := interval.Point(R)
