@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"math/rand"
+	"os"
 	"sort"
 	"testing"
 
@@ -301,12 +302,21 @@ func checkNarrow(t *testing.T, name string, runs []enclosureRun, slack float64) 
 	}
 }
 
+// pointCount is the number of random points of the containment tests:
+// 1,200, or 24,000 with GAPCERT_LONG=1.
+func pointCount() int {
+	if os.Getenv("GAPCERT_LONG") == "1" {
+		return 24000
+	}
+	return 1200
+}
+
 // Unit square, u = sin πx sin πy: containment at 1,200 random points with
 // discs of radius 0.95, 0.5 and 0.1 times the distance to the boundary,
 // ũ the Taylor polynomial of degree 16 in each variable.
 func TestEnclosePointUnitSquare(t *testing.T) {
 	c := squareCase()
-	runs := runEnclosures(t, c, 1200, 16, []float64{0.95, 0.5, 0.1},
+	runs := runEnclosures(t, c, pointCount(), 16, []float64{0.95, 0.5, 0.1},
 		func(r *rand.Rand) [2]float64 { return [2]float64{r.Float64(), r.Float64()} }, distSquare, 1)
 	if len(runs) < 1000 {
 		t.Fatalf("only %d points", len(runs))
@@ -371,7 +381,7 @@ func TestEnclosePointUnitSquare(t *testing.T) {
 // points, ũ the total-degree-16 Taylor polynomial.
 func TestEnclosePointEquilateralTriangle(t *testing.T) {
 	c := triangleCase()
-	runs := runEnclosures(t, c, 1200, 16, []float64{0.95, 0.5, 0.1}, randomInTriangle, distTriangle, 2)
+	runs := runEnclosures(t, c, pointCount(), 16, []float64{0.95, 0.5, 0.1}, randomInTriangle, distTriangle, 2)
 	if len(runs) < 1000 {
 		t.Fatalf("only %d points", len(runs))
 	}

@@ -105,7 +105,8 @@
 // Regularity. Δu = (V − λ1)u ∈ L²(B) as V ∈ L^∞(B), so u ∈ H²(B′) for
 // every disc B′ with closure in B (interior H² regularity, Gilbarg and
 // Trudinger, Theorem 8.8), and in two dimensions H² functions are
-// continuous (Sobolev embedding, ibid. Theorem 7.26), so u(x0) is defined.
+// continuous (Sobolev embedding W^{m,p} ⊂ C for mp > n; Adams and
+// Fournier, Theorem 4.12), so u(x0) is defined.
 // Only V ∈ L^∞(B) is needed; EnclosePoint proves it by a Taylor model of V
 // on a triangle containing B (V continuous there). Also
 // −Δe = (λ1 − V)e + r̃ ∈ L²(B) with
@@ -119,14 +120,14 @@
 // Mean-value identity with a source. For ρ < R, G_ρ(x) = (1/2π)
 // log(ρ/|x − x0|) is the Green function of B_ρ with pole x0 (zero on ∂B_ρ,
 // −ΔG_ρ = δ_{x0}, ∂G_ρ/∂n = −1/(2πρ) on ∂B_ρ), and Green's representation
-// formula (Gilbarg and Trudinger, (2.16)) gives for w ∈ C²(closure B_ρ)
+// formula (Gilbarg and Trudinger, §2.4) gives for w ∈ C²(closure B_ρ)
 //
 //	w(x0) = (1/(2πρ))∫_{∂B_ρ} w ds + ∫_{B_ρ} G_ρ·(−Δw) dx.
 //
 // Both sides are continuous in the H²(B_ρ) norm (the point value by the
 // embedding, the boundary mean by the trace theorem, the last term as
 // G_ρ ∈ L²(B_ρ)), and smooth functions are dense in H²(B_ρ), so it holds
-// for e. Multiply by 2ρ/R² and integrate over ρ ∈ (0, R): the boundary
+// for e. (Check with w = |x − x0|²: 0 = ρ² − 4·∫_{B_ρ} G_ρ = ρ² − 4·ρ²/4.) Multiply by 2ρ/R² and integrate over ρ ∈ (0, R): the boundary
 // means give (1/(πR²))∫_B e (polar coordinates), and by Fubini (K below is
 // in L²(B) and −Δe ∈ L²(B)) the volume terms give ∫_B K(|x − x0|)(−Δe)
 // with
@@ -227,6 +228,8 @@
 //	K. Makino and M. Berz, Taylor models and other validated functional
 //	inclusion methods, Int. J. Pure Appl. Math. 4 (2003) 379–456.
 //	D. Gilbarg and N. S. Trudinger, Elliptic Partial Differential
-//	Equations of Second Order, 2nd ed., Springer, 1983 (Theorems 7.26,
-//	8.8, Lemma 7.6, formula (2.16); numbering recalled from memory).
+//	Equations of Second Order, 2nd ed., Springer, 1983 (§2.4, Lemma 7.6,
+//	Theorem 8.8; numbering recalled from memory).
+//	R. A. Adams and J. J. F. Fournier, Sobolev Spaces, 2nd ed., Academic
+//	Press, 2003 (Theorem 4.12; numbering recalled from memory).
 package groundstate
