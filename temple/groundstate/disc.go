@@ -25,16 +25,14 @@ type Disc struct {
 
 // DiscOptions controls EnclosePoint. Zero values take the defaults.
 type DiscOptions struct {
-	// VOrder is the highest order of the Taylor model of V on a triangle
-	// around the disc (default 8); the order with the smallest remainder is
-	// used. A polynomial V of degree ≤ 12 is modelled with order ≥ its
-	// degree, so its model is exact (zero remainder).
+	// VOrder is the highest order of the Taylor models of V on a triangle
+	// around the disc (default 8). Of these and the second-order and range
+	// models on the disc's bounding box (potential.go), the one with the
+	// smallest remainder is used. A polynomial V of degree ≤ 12 is
+	// modelled with order ≥ its degree, so its model is exact (zero
+	// remainder).
 	VOrder int
 }
-
-// maxExactVDegree is the largest degree of a polynomial V whose model is
-// made exact by raising the order.
-const maxExactVDegree = 12
 
 // PointEnclosure is the result of EnclosePoint: an enclosure of u(x0) and
 // the terms of inequality (D3) of the package doc it is made of,
@@ -59,9 +57,9 @@ type PointEnclosure struct {
 	VRemainder interval.I
 }
 
-// PotentialError reports that V could not be modelled on the triangle
-// around a disc (V not defined or not smooth there), so no enclosure was
-// computed.
+// PotentialError reports that V could not be bounded on a disc (V not
+// defined on the disc's bounding box, or no model with a finite
+// remainder), so no enclosure was computed.
 type PotentialError struct {
 	Centre [2]float64
 	Radius float64
@@ -69,13 +67,13 @@ type PotentialError struct {
 }
 
 func (e *PotentialError) Error() string {
-	return fmt.Sprintf("groundstate: no Taylor model of V around the disc of radius %g at (%g, %g): %v",
+	return fmt.Sprintf("groundstate: no model of V on the disc of radius %g at (%g, %g): %v",
 		e.Radius, e.Centre[0], e.Centre[1], e.Err)
 }
 
 func (e *PotentialError) Unwrap() error { return e.Err }
 
-var errUnboundedModel = errors.New("the Taylor model does not bound V on the disc")
+var errUnboundedModel = errors.New("the model does not bound V on the disc")
 
 // EnclosePoint returns an enclosure of u(x0), x0 = d.Centre, for every
 // weak solution u ∈ H¹(B) of −Δu + V u = λ1 u on B = B_R(x0) with
@@ -91,17 +89,17 @@ var errUnboundedModel = errors.New("the Taylor model does not bound V on the dis
 //	u(x0) ∈ ũ(x0) + ∫_B K r̃ + [−1, 1]·(E_B/√(πR²) + ‖K‖₂·sup_B|λ − V|·E_B),
 //
 // r̃ = (λ − V)ũ + Δũ, with ‖K‖₂ = R·√(5/(96π)), the integrals of K
-// against the monomials of (D4), and V = P_V + ρ on B by a Taylor model
-// (formula.Expr.Model2 on a right triangle containing B, rewritten in
-// powers of x − x0, y − y0), so that ∫_B K V ũ ∈ ∫_B K P_V ũ +
+// against the monomials of (D4), and V ∈ P_V + ρ on B by a model of
+// potential.go (a polynomial in x − x0, y − y0 and an interval), so that
+// ∫_B K V ũ ∈ ∫_B K P_V ũ +
 // (R²/8)·(ρ·range_B ũ) since K ≥ 0 and ∫_B K = R²/8. Every term is
 // evaluated in outward rounded interval arithmetic, λ over all of lambda.
 //
 // Hypotheses. Checked here (misuse panics): v non-nil, lambda bounded,
 // errB finite and ≥ 0, R > 0 finite, the centre finite, Coef non-empty
-// with bounded entries. Checked by the computation: V has a Taylor model
-// (so it is defined, smooth and bounded) on a triangle containing B, else a
-// *PotentialError. The caller's, not checkable here: lambda ∋ λ1, errB ≥
+// with bounded entries. Checked by the computation: V is bounded on B (a
+// model with a finite remainder exists), else a *PotentialError. The
+// caller's, not checkable here: lambda ∋ λ1, errB ≥
 // ‖u − ũ‖_{L²(B)}, B ⊂ Ω and ũ equal to the polynomial on B. If one of
 // those fails the result can be false: too small an errB drops part of the
 // mean and kernel terms, a wrong λ shifts the residual term by
@@ -211,85 +209,6 @@ func kernelMoment(a, b int, R float64) interval.I {
 	}
 	c = c.DivF(float64(n + 2)).DivF(float64(n + 2)).DivF(float64(n + 4))
 	return c.Mul(interval.Point(R).PowInt(n + 2))
-}
-
-// potentialOnDisc returns a polynomial P_V in (x − x0, y − y0) and an
-// interval rho with V(x) ∈ P_V(x − x0) + rho for every x in the disc
-// B_R(x0).
-//
-// The model is formula.Expr.Model2 on the right triangle T with the exact
-// float vertices p0 = (a0, b0), p0 + (L, 0), p0 + (0, L), where a0 ≤ x0 − R,
-// b0 ≤ y0 − R (rounded down) and L ≥ (x0 − a0) + (y0 − b0) + √2·R (rounded
-// up). T contains B: on B, x ≥ x0 − R ≥ a0, y ≥ b0, and
-// (x − a0) + (y − b0) ≤ (x0 − a0) + (y0 − b0) + √2·R ≤ L (the largest value
-// of d_x + d_y on |d| ≤ R is √2·R). On T the model gives V ∈ Σ C[i][j] ξ^i
-// η^j + rho with ξ = (x − a0)/L = α + β d_x, η = γ + β d_y, α = (x0 − a0)/L,
-// γ = (y0 − b0)/L, β = 1/L exactly; the powers (α + β d)^i are expanded in
-// interval arithmetic, which contains each exact coefficient.
-func potentialOnDisc(v *formula.Expr, x0 [2]float64, R float64, order int) ([][]interval.I, interval.I, error) {
-	if p, ok := v.Polynomial(); ok && p.Degree() <= maxExactVDegree {
-		order = max(order, p.Degree(), 1)
-	}
-	a0 := interval.SubDown(x0[0], R)
-	b0 := interval.SubDown(x0[1], R)
-	cx := interval.Point(x0[0]).Sub(interval.Point(a0))
-	cy := interval.Point(x0[1]).Sub(interval.Point(b0))
-	sqrt2, _ := interval.Point(2).Sqrt()
-	L := cx.Add(cy).Add(sqrt2.MulF(R)).Hi
-	vert := [3][2]interval.I{
-		{interval.Point(a0), interval.Point(b0)},
-		{interval.Point(a0).AddF(L), interval.Point(b0)},
-		{interval.Point(a0), interval.Point(b0).AddF(L)},
-	}
-	m, err := chooseModel(v, vert, order)
-	if err != nil {
-		return nil, interval.I{}, err
-	}
-	beta := interval.Point(1).DivF(L)
-	q := len(m.C) - 1
-	px := affinePowers(cx.DivF(L), beta, q)
-	py := affinePowers(cy.DivF(L), beta, q)
-	out := make([][]interval.I, q+1)
-	for a := range out {
-		out[a] = make([]interval.I, q+1-a)
-	}
-	for i, row := range m.C {
-		for j, c := range row {
-			if c.Lo == 0 && c.Hi == 0 {
-				continue
-			}
-			for a := 0; a <= i; a++ {
-				ca := c.Mul(px[i][a])
-				for b := 0; b <= j; b++ {
-					out[a][b] = out[a][b].Add(ca.Mul(py[j][b]))
-				}
-			}
-		}
-	}
-	return out, m.R, nil
-}
-
-// chooseModel returns the Taylor model of v on the triangle vert with the
-// smallest remainder among the orders 1, …, order (a polynomial V of degree
-// ≤ order has remainder 0 at order). Every candidate is a valid model; the
-// choice only decides which is used. The remainders of formula.Model2 come
-// from interval jets over the triangle's bounding box, which can grow with
-// the order faster than the Taylor terms shrink on a large triangle (for
-// instance 1/cosh(x)² on a triangle of diameter 1), so the highest order is
-// not always the best. It returns the error of the last order tried when no
-// order gives a model.
-func chooseModel(v *formula.Expr, vert [3][2]interval.I, order int) (formula.Model2, error) {
-	best, err := v.Model2(vert, order)
-	if err != nil || best.R.Mag() == 0 {
-		return best, err
-	}
-	for q := order - 1; q >= 1; q-- {
-		m, err := v.Model2(vert, q)
-		if err == nil && m.R.Mag() < best.R.Mag() {
-			best = m
-		}
-	}
-	return best, nil
 }
 
 // affinePowers returns p[i][k], enclosures of the coefficient of d^k in

@@ -526,11 +526,77 @@ func TestEnclosePointRefusals(t *testing.T) {
 			_, _ = EnclosePoint(tc.v, tc.lambda, tc.e, tc.d, DiscOptions{})
 		}()
 	}
-	for _, src := range []string{"1/x", "log(x)", "abs(x)"} {
+	for _, src := range []string{"1/x", "log(x)", "sqrt(x)"} {
 		_, err := EnclosePoint(formula.MustParse(src), c.lambda, 0, Disc{Centre: [2]float64{0.02, 0.5}, Radius: 0.05, Coef: coef}, DiscOptions{})
 		var pe *PotentialError
 		if !errors.As(err, &pe) {
 			t.Errorf("V = %s across x = 0: error %v, want *PotentialError", src, err)
+		}
+	}
+	// exp(exp(x)) near x = 7 (about e^1097): defined and smooth, but its
+	// model's enclosures overflow, so boundedness of V is not shown.
+	_, err := EnclosePoint(formula.MustParse("exp(exp(x))"), c.lambda, 0, Disc{Centre: [2]float64{7, 0}, Radius: 0.5, Coef: coef}, DiscOptions{})
+	if !errors.Is(err, errUnboundedModel) {
+		t.Errorf("V = exp(exp(x)) at x = 7: error %v, want the unbounded-model refusal", err)
+	}
+}
+
+// A potential with a kink: u = exp(−|x|³/6 − y²/2) = e^{−φ} solves
+// −Δu + V u = 0 with V = |∇φ|² − Δφ = x⁴/4 + y² − |x| − 1 (φ is C², so u
+// is a classical solution; a construction of this file). V has no Taylor
+// model on a disc across x = 0, and the range model is used. ũ = (f(x0) +
+// f′(x0)d_x)·T_N g(d_y) with f = exp(−|x|³/6), g = exp(−y²/2); by Taylor's
+// theorem for f ∈ C², |f − T_1 f| ≤ sup|f″|·R²/2 with
+// f″ = (x⁴/4 − |x|)·f.
+func TestEnclosePointKinkedPotential(t *testing.T) {
+	v := formula.MustParse("x^4/4 + y^2 - abs(x) - 1")
+	u := formula.MustParse("exp(-abs(x)^3/6 - y^2/2)")
+	f := formula.MustParse("exp(-abs(x)^3/6)")
+	df := formula.MustParse("-x*abs(x)/2*exp(-abs(x)^3/6)")
+	d2f := formula.MustParse("(x^4/4 - abs(x))*exp(-abs(x)^3/6)")
+	g := expPolySeries([]float64{0, 0, -0.5})
+	lambda := interval.New(-1e-12, 1e-12)
+	at := func(e *formula.Expr, x interval.I) interval.I {
+		r, err := e.Eval(map[string]interval.I{"x": x})
+		if err != nil {
+			t.Fatal(err)
+		}
+		return r
+	}
+	const N = 12
+	rng := rand.New(rand.NewSource(5))
+	for i := range 200 {
+		p := [2]float64{0.2 * (2*rng.Float64() - 1), 2*rng.Float64() - 1}
+		R := []float64{0.3, 0.1, 0.02}[i%3]
+		hx := interval.New(interval.SubDown(p[0], R), interval.AddUp(p[0], R))
+		hy := interval.New(interval.SubDown(p[1], R), interval.AddUp(p[1], R))
+		f0, f1 := at(f, interval.Point(p[0])), at(df, interval.Point(p[0]))
+		gy := g(interval.Point(p[1]), N)
+		coef := [][]interval.I{make([]interval.I, N+1), make([]interval.I, N+1)}
+		for b := range gy {
+			coef[0][b] = f0.Mul(gy[b])
+			coef[1][b] = f1.Mul(gy[b])
+		}
+		r2 := interval.Point(R).Sqr()
+		mf := interval.Point(at(d2f, hx).Mag()).Mul(r2).DivF(2)
+		gh := g(hy, N+1)
+		mg := interval.Point(gh[N+1].Mag()).Mul(interval.Point(R).PowInt(N + 1))
+		F, G := interval.Point(at(f, hx).Mag()), interval.Point(gh[0].Mag())
+		sup := mf.Mul(G).Add(F.Add(mf).Mul(mg)).Hi
+		enc, err := EnclosePoint(v, lambda, errL2(sup, R), Disc{Centre: p, Radius: R, Coef: coef}, DiscOptions{})
+		if err != nil {
+			t.Fatalf("at %v: %v", p, err)
+		}
+		ex, _ := u.Eval(map[string]interval.I{"x": interval.Point(p[0]), "y": interval.Point(p[1])})
+		if !contains(enc.U, ex) {
+			t.Fatalf("at %v (R = %g): %v misses u = %v", p, R, enc.U, ex)
+		}
+		owed := (lambda.Wid() + enc.VRemainder.Wid()) * r2.Hi / 8 * rangeOnBox(coef, R).Mag() * (1 + 1e-9)
+		if w := enc.U.Wid(); w > 2*(enc.MeanBound+enc.KernelBound)*(1+1e-9)+owed+1e-12 {
+			t.Errorf("at %v (R = %g): width %g (mean %g, kernel %g, remainder %v)", p, R, w, enc.MeanBound, enc.KernelBound, enc.VRemainder)
+		}
+		if i < 3 {
+			t.Logf("R = %g: width %.3g, |ρ| = %.3g", R, enc.U.Wid(), enc.VRemainder.Mag())
 		}
 	}
 }

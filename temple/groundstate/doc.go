@@ -107,8 +107,8 @@
 // Trudinger, Theorem 8.8), and in two dimensions H² functions are
 // continuous (Sobolev embedding W^{m,p} ⊂ C for mp > n; Adams and
 // Fournier, Theorem 4.12), so u(x0) is defined.
-// Only V ∈ L^∞(B) is needed; EnclosePoint proves it by a Taylor model of V
-// on a triangle containing B (V continuous there). Also
+// Only V ∈ L^∞(B) is needed (V may have kinks); EnclosePoint proves it by
+// a model V ∈ P_V + ρ with a finite remainder on a set containing B. Also
 // −Δe = (λ1 − V)e + r̃ ∈ L²(B) with
 //
 //	r̃ := (λ1 − V)ũ + Δũ,
@@ -173,7 +173,9 @@
 //
 //	∫_B K d_x^a d_y^b = 2R^{n+2}(a−1)!!(b−1)!! / ((n+2)²(n+4)·n!!)   (a, b even).  (D4)
 //
-// With a Taylor model V ∈ P_V + ρ on B (P_V a polynomial, ρ an interval),
+// With a model V ∈ P_V + ρ on B (P_V a polynomial, ρ an interval: a
+// Taylor model on a triangle containing B, a second-order expansion with
+// Lagrange remainder over the bounding box, or the range of V there),
 // r̃ = λũ + Δũ − P_V ũ − ρ(x)ũ: the polynomial part is integrated with
 // (D4), and ρ(x)ũ(x) ∈ ρ·range_B ũ at each point, so with K ≥ 0 its
 // integral lies in (R²/8)·ρ·range_B ũ.
