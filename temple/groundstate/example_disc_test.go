@@ -36,3 +36,31 @@ func ExampleEnclosePoint() {
 	// true [0, 0]
 	// half-width 1.128e-06
 }
+
+// A certified failure of log-concavity: u = 1 + x² − y² solves −Δu = 0·u
+// and log u = log(1 + x²) on the x-axis is convex for |x| < 1. At
+// x = (−1/2, 0), y = (1/2, 0) and m = (0, 0): u(m)² = 1 < u(x)·u(y) =
+// 25/16. ũ = u on each disc, written around its centre (c, 0):
+// 1 + (c + d_x)² − d_y² = (1 + c²) + 2c·d_x + d_x² − d_y².
+func ExampleCertifyMidpoint() {
+	p := interval.Point
+	disc := func(c float64) groundstate.Disc {
+		return groundstate.Disc{
+			Centre: [2]float64{c, 0},
+			Radius: 0.25,
+			Coef: [][]interval.I{
+				{p(1 + c*c), {}, p(-1)}, // 1, d_y, d_y²
+				{p(2 * c)},              // d_x
+				{p(1)},                  // d_x²
+			},
+		}
+	}
+	res, err := groundstate.CertifyMidpoint(formula.MustParse("0"), p(0), 1e-6,
+		disc(-0.5), disc(0.5), disc(0), groundstate.DiscOptions{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("certified %v, margin %.4f (exact 9/16 = 0.5625)\n", res.Certified, res.Margin)
+	// Output: certified true, margin 0.5625 (exact 9/16 = 0.5625)
+}

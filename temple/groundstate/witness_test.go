@@ -155,3 +155,13 @@ func TestExactMidpoint(t *testing.T) {
 	}()
 	_, _ = CertifyMidpoint(c.v, c.lambda, E, dx, dy, dm, DiscOptions{})
 }
+
+func BenchmarkCertifyMidpoint(b *testing.B) {
+	c := quarticWellCase()
+	dx, dy, dm, E := triple(c, [2]float64{-0.5, 0.1}, [2]float64{0.5, 0.1}, 0.3, 0.3, 0.3, 12, 0)
+	for b.Loop() {
+		if _, err := CertifyMidpoint(c.v, c.lambda, E, dx, dy, dm, DiscOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
