@@ -43,8 +43,8 @@ type PointEnclosure struct {
 	U interval.I
 	// Approx encloses ũ(x0) (the constant coefficient).
 	Approx interval.I
-	// Residual encloses ∫_B K r̃ at λ = λ1 (for every λ in the given
-	// enclosure).
+	// Residual encloses ∫_B K r̃ for every λ in the given enclosure, so at
+	// λ = λ1.
 	Residual interval.I
 	// MeanBound ≥ E_B/√(πR²), the bound of the mean of e over B.
 	MeanBound float64
@@ -52,8 +52,8 @@ type PointEnclosure struct {
 	KernelBound float64
 	// VRange encloses the range of V on B.
 	VRange interval.I
-	// VRemainder is the remainder ρ of the model of V on B
-	// (V ∈ P_V + ρ); it is 0 for a polynomial V of degree ≤ 12.
+	// VRemainder is the remainder τ of the model of V on B
+	// (V ∈ P_V + τ); it is 0 for a polynomial V of degree ≤ 12.
 	VRemainder interval.I
 }
 
@@ -89,18 +89,18 @@ var errUnboundedModel = errors.New("the model does not bound V on the disc")
 //	u(x0) ∈ ũ(x0) + ∫_B K r̃ + [−1, 1]·(E_B/√(πR²) + ‖K‖₂·sup_B|λ − V|·E_B),
 //
 // r̃ = (λ − V)ũ + Δũ, with ‖K‖₂ = R·√(5/(96π)), the integrals of K
-// against the monomials of (D4), and V ∈ P_V + ρ on B by a model of
+// against the monomials of (D4), and V ∈ P_V + τ on B by a model of
 // potential.go (a polynomial in x − x0, y − y0 and an interval), so that
-// ∫_B K V ũ ∈ ∫_B K P_V ũ +
-// (R²/8)·(ρ·range_B ũ) since K ≥ 0 and ∫_B K = R²/8. Every term is
-// evaluated in outward rounded interval arithmetic, λ over all of lambda.
+// ∫_B K V ũ ∈ ∫_B K P_V ũ + (R²/8)·(τ·range_B ũ) since K ≥ 0 and
+// ∫_B K = R²/8. Every term is evaluated in outward rounded interval
+// arithmetic, λ over all of lambda.
 //
 // Hypotheses. Checked here (misuse panics): v non-nil, lambda bounded,
 // errB finite and ≥ 0, R > 0 finite, the centre finite, Coef non-empty
 // with bounded entries. Checked by the computation: V is bounded on B (a
 // model with a finite remainder exists), else a *PotentialError. The
-// caller's, not checkable here: lambda ∋ λ1, errB ≥
-// ‖u − ũ‖_{L²(B)}, B ⊂ Ω and ũ equal to the polynomial on B. If one of
+// caller's, not checkable here: lambda ∋ λ1, errB ≥ ‖u − ũ‖_{L²(B)},
+// B ⊂ Ω and ũ equal to the polynomial on B. If one of
 // those fails the result can be false: too small an errB drops part of the
 // mean and kernel terms, a wrong λ shifts the residual term by
 // (λ − λ1)∫_B K ũ (see the tests).
@@ -126,7 +126,7 @@ func EnclosePoint(v *formula.Expr, lambda interval.I, errB float64, d Disc, opt 
 			residual = residual.Add(c.Mul(kernelMoment(a, b, R)))
 		}
 	}
-	// −∫_B K ρ ũ with ρ(x) ∈ rho and ũ(x) ∈ range_B ũ: the integrand lies in
+	// −∫_B K τ ũ with τ(x) ∈ rho and ũ(x) ∈ range_B ũ: the integrand lies in
 	// rho·range pointwise and K ≥ 0, so the integral lies in (∫_B K)·that.
 	kernelMass := interval.Point(R).Sqr().DivF(8)
 	if rho.Lo != 0 || rho.Hi != 0 {

@@ -189,9 +189,9 @@ type enclosureRun struct {
 	enc     PointEnclosure
 	exact   interval.I
 	sup     float64 // sup_B |u − ũ| bound of the test
-	// lamTerm ≥ (wid([λ]) + wid(ρ))·∫_B K |ũ|, the width the residual
+	// lamTerm ≥ (wid([λ]) + wid(τ))·∫_B K |ũ|, the width the residual
 	// integral owes to the width of the enclosure of λ1 and to the
-	// remainder ρ of V's model.
+	// remainder τ of V's model.
 	lamTerm float64
 }
 
@@ -221,7 +221,7 @@ func runEnclosures(t *testing.T, c exactCase, n, deg int, fracs []float64, point
 		if ex.Wid() <= enc.U.Wid()/4 {
 			strong++
 		}
-		// ∫_B K |ũ| (|λ| wid + |ρ|) ≤ (R²/8)·sup|ũ|·(…): the width the
+		// ∫_B K |ũ| (wid [λ] + wid τ) ≤ (R²/8)·sup|ũ|·(…): the width the
 		// residual integral owes to the widths of [λ] and of V's remainder.
 		lamTerm := (c.lambda.Wid() + enc.VRemainder.Wid()) * R * R / 8 * rangeOnBox(coef, R).Mag() * (1 + 1e-9)
 		runs = append(runs, enclosureRun{dist: d, R: R, enc: enc, exact: ex, sup: sup, lamTerm: lamTerm})
@@ -596,7 +596,7 @@ func TestEnclosePointKinkedPotential(t *testing.T) {
 			t.Errorf("at %v (R = %g): width %g (mean %g, kernel %g, remainder %v)", p, R, w, enc.MeanBound, enc.KernelBound, enc.VRemainder)
 		}
 		if i < 3 {
-			t.Logf("R = %g: width %.3g, |ρ| = %.3g", R, enc.U.Wid(), enc.VRemainder.Mag())
+			t.Logf("R = %g: width %.3g, |τ| = %.3g", R, enc.U.Wid(), enc.VRemainder.Mag())
 		}
 	}
 }

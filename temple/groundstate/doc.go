@@ -108,7 +108,7 @@
 // continuous (Sobolev embedding W^{m,p} ⊂ C for mp > n; Adams and
 // Fournier, Theorem 4.12), so u(x0) is defined.
 // Only V ∈ L^∞(B) is needed (V may have kinks); EnclosePoint proves it by
-// a model V ∈ P_V + ρ with a finite remainder on a set containing B. Also
+// a model V ∈ P_V + τ with a finite remainder on a set containing B. Also
 // −Δe = (λ1 − V)e + r̃ ∈ L²(B) with
 //
 //	r̃ := (λ1 − V)ũ + Δũ,
@@ -173,18 +173,18 @@
 //
 //	∫_B K d_x^a d_y^b = 2R^{n+2}(a−1)!!(b−1)!! / ((n+2)²(n+4)·n!!)   (a, b even).  (D4)
 //
-// With a model V ∈ P_V + ρ on B (P_V a polynomial, ρ an interval: a
+// With a model V ∈ P_V + τ on B (P_V a polynomial, τ an interval: a
 // Taylor model on a triangle containing B, a second-order expansion with
 // Lagrange remainder over the bounding box, or the range of V there),
-// r̃ = λũ + Δũ − P_V ũ − ρ(x)ũ: the polynomial part is integrated with
-// (D4), and ρ(x)ũ(x) ∈ ρ·range_B ũ at each point, so with K ≥ 0 its
-// integral lies in (R²/8)·ρ·range_B ũ.
+// r̃ = λũ + Δũ − P_V ũ − τ(x)ũ: the polynomial part is integrated with
+// (D4), and τ(x)ũ(x) ∈ τ·range_B ũ at each point, so with K ≥ 0 its
+// integral lies in (R²/8)·τ·range_B ũ.
 //
 // Width against R (points near the boundary). The width of (D3) is
 //
 //	2E_B/(√π·R) + 2R·√(5/(96π))·sup_B|λ − V|·E_B + width(∫_B K r̃),
 //
-// the last term of order R²·(wid[λ] + wid ρ)·sup|ũ| plus rounding. E_B
+// the last term of order R²·(wid[λ] + wid τ)·sup|ũ| plus rounding. E_B
 // comes from a global bound and does not shrink with B, so for a fixed
 // bound the first term, which grows like 1/R, dominates as soon as
 // √(5/96)·sup|λ − V|·R² < 1 (the ratio of the second term to the first).

@@ -6,11 +6,11 @@ import (
 )
 
 // This file models V on a disc B_R(x0): a polynomial P_V in
-// d = x − x0 with interval coefficients and an interval ρ such that
+// d = x − x0 with interval coefficients and an interval τ such that
 //
-//	V(x0 + d) ∈ P_V(d) + ρ   for every |d| < R.                      (M)
+//	V(x0 + d) ∈ P_V(d) + τ   for every |d| < R.                      (M)
 //
-// Several valid models are built and the one with the smallest |ρ| is
+// Several valid models are built and the one with the smallest |τ| is
 // used (a choice among proven models; the proof only needs (M)).
 
 // maxExactVDegree is the largest degree of a polynomial V whose model is
@@ -20,7 +20,7 @@ const maxExactVDegree = 12
 // potentialOnDisc returns a model (M) of v on B_R(x0), from the candidates
 // triangleModel (orders 1, …, order, or the degree of a polynomial V of
 // degree ≤ 12, which is exact), hessianModel and rangeModel, keeping the one
-// with the smallest |ρ|. It returns an error only when no candidate
+// with the smallest |τ|. It returns an error only when no candidate
 // exists (the error of the highest-order Taylor model).
 func potentialOnDisc(v *formula.Expr, x0 [2]float64, R float64, order int) ([][]interval.I, interval.I, error) {
 	if p, ok := v.Polynomial(); ok && p.Degree() <= maxExactVDegree {
@@ -58,7 +58,7 @@ func potentialOnDisc(v *formula.Expr, x0 [2]float64, R float64, order int) ([][]
 // L ≥ (x0 − a0) + (y0 − b0) + √2·R (rounded up), rewritten in powers of d.
 // T contains B: on B, x ≥ x0 − R ≥ a0, y ≥ b0, and (x − a0) + (y − b0) ≤
 // (x0 − a0) + (y0 − b0) + √2·R ≤ L (the largest value of d_x + d_y on
-// |d| ≤ R is √2·R). On T the model gives V ∈ Σ C[i][j] ξ^i η^j + ρ with
+// |d| ≤ R is √2·R). On T the model gives V ∈ Σ C[i][j] ξ^i η^j + τ with
 // ξ = (x − a0)/L = α + β d_x, η = γ + β d_y, α = (x0 − a0)/L,
 // γ = (y0 − b0)/L, β = 1/L exactly; the powers (α + β d)^i are expanded in
 // interval arithmetic, which contains each exact coefficient.
@@ -131,7 +131,7 @@ func discBox(x0 [2]float64, R float64) map[string]interval.I {
 //
 // With H ⊇ ∇²V(Q) (formula.Expr.Hessian, which also proves V smooth on Q)
 // and M its midpoint matrix, P_V = V(x0) + ∇V(x0)·d + ½ dᵀM d (interval
-// coefficients from the point evaluations) and ρ = ½(H_xx − M_xx)·[0, R²] +
+// coefficients from the point evaluations) and τ = ½(H_xx − M_xx)·[0, R²] +
 // (H_xy − M_xy)·[−R²/2, R²/2] + ½(H_yy − M_yy)·[0, R²], as d_x², d_y² ≤ R²
 // and |d_x d_y| ≤ (d_x² + d_y²)/2 ≤ R²/2.
 func hessianModel(v *formula.Expr, x0 [2]float64, R float64) ([][]interval.I, interval.I, error) {
@@ -165,7 +165,7 @@ func hessianModel(v *formula.Expr, x0 [2]float64, R float64) ([][]interval.I, in
 	return p, rho, nil
 }
 
-// rangeModel is P_V = m, ρ = r − m for an enclosure r of the range of V on
+// rangeModel is P_V = m, τ = r − m for an enclosure r of the range of V on
 // the box [x0 − R, x0 + R]² ⊇ B (formula.Expr.Eval) and the float m nearest
 // its midpoint: V ∈ m + (r − m) at every point of B whatever the
 // smoothness of V (a kink of abs, min or max inside B is allowed), as long

@@ -22,10 +22,10 @@ func evalPoly(p [][]interval.I, dx, dy interval.I) interval.I {
 	return s
 }
 
-// Every model of potential.go satisfies (M): V(x0 + d) ∈ P_V(d) + ρ at
+// Every model of potential.go satisfies (M): V(x0 + d) ∈ P_V(d) + τ at
 // 300 random points of the disc (V by interval evaluation at the point,
 // d = x − x0 enclosed exactly), for smooth, rational, polynomial and
-// kinked V; a polynomial V of degree ≤ 12 has ρ = 0.
+// kinked V; a polynomial V of degree ≤ 12 has τ = 0.
 func TestPotentialModelsContainV(t *testing.T) {
 	rng := rand.New(rand.NewSource(9))
 	for _, src := range []string{
