@@ -82,7 +82,8 @@ var errUnboundedModel = errors.New("the model does not bound V on the disc")
 // state on the first eigenspace, B inside the domain Ω and inside one
 // element (where ũ is one polynomial), and errB any upper bound of
 // ‖ũ − P₁ũ‖_{L²(Ω)} (EigenvectorError gives one), this encloses the
-// value at x0 of the ground state P₁ũ.
+// value at x0 of the ground state P₁ũ. InscribedRadius gives the largest
+// radius with B inside a triangular element.
 //
 // The enclosure is inequality (D3) of the package doc:
 //
