@@ -192,9 +192,10 @@
 // and the width grows like E/dist(x0, ∂Ω) (with Dirichlet conditions u
 // itself vanishes there, so the relative width grows faster). A driver
 // should therefore use, at each point, the largest disc inside the
-// element containing it (InscribedRadius) (the incircle when x0 is the incentre), and pick
-// evaluation points away from element edges; a sharper treatment of points
-// near ∂Ω (reflected kernels for half-discs) is not done here.
+// element containing it (InscribedRadius; the incircle when x0 is the
+// incentre), and pick evaluation points away from element edges; a
+// sharper treatment of points near ∂Ω (reflected kernels for half-discs)
+// is not done here.
 //
 // # A witness of failure of log-concavity (CertifyMidpoint)
 //
