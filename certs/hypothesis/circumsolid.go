@@ -1,0 +1,299 @@
+package hypothesis
+
+import (
+	"fmt"
+
+	"gapcert/certs"
+	"gapcert/fem/problem"
+	"gapcert/interval"
+)
+
+// Names under which the circumsolid decisions are recorded.
+const (
+	// TangentialPolygon: the polygon is convex and one circle touches
+	// every side (see Tangential).
+	TangentialPolygon = "tangential_polygon"
+	// CircumsolidProduct: the domain is a product of circumsolids (see
+	// ProductOfCircumsolids).
+	CircumsolidProduct = "circumsolid_product"
+)
+
+// Tangential decides whether the polygon is tangential: convex, with a
+// circle that touches every side, that is, the circle is tangent to the
+// line L_i of each side S_i at a point of the closed segment S_i. (This
+// is the usual definition of a tangential polygon, common practice; in
+// the words of Andrews–Clutterbuck–Hauer cited at ProductOfCircumsolids,
+// a convex polygon circumscribed about a disc.)
+//
+// Characterisation used. Let P be convex with counterclockwise vertices
+// v_0, …, v_{n−1}, n ≥ 3, no three consecutive collinear (fem/problem
+// guarantees the last), e_i = v_{i+1} − v_i, ℓ_i = |e_i|, and
+// d_i(c) = e_i × (c − v_i)/ℓ_i the signed distance of c from L_i,
+// positive on the side of P. Then
+//
+//	P is tangential ⇔ the linear system e_i × c − ℓ_i·r = e_i × v_i
+//	(i = 0, …, n−1) in the unknowns c ∈ R², r ∈ R has a solution,
+//
+// and the solution is then the incentre c and the inradius r = 2|P|/ℓ
+// (ℓ the perimeter). Proof. (⇒) Let the circle C (centre c, radius
+// ρ > 0) touch L_i at t_i ∈ S_i for every i. If the closed disc D̄ of C
+// lay on the outer side of some L_i, then D̄ ∩ P ⊆ D̄ ∩ L_i = {t_i}; every
+// t_j lies in D̄ ∩ P, so t_j = t_i for all j, and L_j, the tangent of C at
+// t_j, would equal L_i for all j, which is false for the non-collinear
+// sides S_0, S_1. So D̄ is on the inner side of every L_i, d_i(c) = ρ for
+// all i, and (c, ρ) solves the system. (⇐) Summing ℓ_i·d_i(c) =
+// Σ e_i × (c − v_i) = (Σ e_i) × c + Σ v_i × v_{i+1} = 2|P| (the first sum
+// vanishes around a closed polygon, the second is the shoelace formula)
+// for every c, so a solution has r = 2|P|/ℓ > 0. Then d_i(c) = r for all
+// i: the closed disc B of radius r about c lies in every inner half-plane
+// and so in P (a convex polygon is the intersection of the inner
+// half-planes of its sides), and the foot t_i = c − r·ñ_i (ñ_i the inner
+// unit normal) lies on L_i and in B ⊆ P, hence in P ∩ L_i = S_i. ∎
+//
+// Deciding the system. Any three distinct sides of a convex polygon have
+// a non-singular 3×3 system: row i is ℓ_i·(ñ_i, −1), and
+// det[(ñ_i, −1)] = −det[(ñ_i, 1)] is minus twice the signed area of the
+// triangle with corners ñ_0, ñ_1, ñ_2 on the unit circle, which is not 0
+// because the inner normals of the sides of a convex polygon are pairwise
+// distinct (the directions of e_0, …, e_{n−1} turn strictly and by 2π in
+// all) and three distinct points of a circle are not collinear. So sides
+// 0, 1, 2 fix (c, r), and side j ≥ 3 is satisfied if and only if the 4×4
+// determinant D_j of rows 0, 1, 2, j of the augmented matrix
+// [−e_y, e_x, −ℓ, e × v] vanishes (by the Schur complement, D_j is
+// det(rows 0, 1, 2) times the residual of row j). Expanding along the
+// ℓ column, D_j = Σ_p (−1)^{p+1}·ℓ_{k_p}·M_p over the rows k_0, …, k_3 =
+// 0, 1, 2, j, with M_p the 3×3 minor of the columns −e_y, e_x, e × v
+// without row p. Every triangle is tangential (its incircle: Euclid,
+// Elements IV.4); for n ≥ 4 the verdict is "proven" if every D_j is 0 and
+// "disproven" with the witness side j if some D_j is not.
+//
+// Exactness. When every coordinate is read as a surd (see numberSurd:
+// rationals, √ of rationals, cos and sin of multiples of π/12, …), the
+// minors M_p and the squared lengths ℓ_k² are surds. The terms whose ℓ_k²
+// is rational are surds themselves; the others are grouped by ℓ_k² up to
+// rational square factors (ℓ_k = w·ℓ_g, w rational). D_j = 0 is concluded
+// only when the first part and every group's coefficient vanish exactly;
+// D_j ≠ 0 is concluded exactly when there is no group, or one group and a
+// vanishing first part (D_j = C·ℓ_g with C ≠ 0 and ℓ_g > 0). Otherwise,
+// and for coordinates that are not read as surds, only the interval
+// enclosure of D_j is used, which can show D_j ≠ 0 but never D_j = 0: a
+// tangential polygon with such coordinates is "undecided", never guessed.
+// A polygon that is not convex is "disproven" (a tangential polygon is
+// convex by definition) with its re-entrant vertex as the witness.
+func Tangential(p *problem.Problem) certs.Hypothesis {
+	h := certs.Hypothesis{Name: TangentialPolygon}
+	if p.Dim == 1 {
+		return undecidedAt(h, "the domain is an interval, not a polygon")
+	}
+	switch c := ConvexDomain(p); c.Verdict {
+	case certs.Disproven:
+		return disproven(h, "not convex, and a tangential polygon is convex by definition: "+c.Detail, c.Witness)
+	case certs.Undecided:
+		return undecidedAt(h, "cannot decide convexity: "+c.Detail)
+	}
+	n := len(p.Vertices)
+	if n == 3 {
+		return proven(h, "every triangle has an incircle")
+	}
+	v, exact := surdVertices(p.Vertices)
+	undecided := -1
+	for j := 3; j < n; j++ {
+		rows := [4]int{0, 1, 2, j}
+		var zero, ok bool
+		if exact {
+			zero, ok = tangencyResidualZeroSurd(v, rows)
+		} else {
+			zero, ok = tangencyResidualZeroInterval(p.Vertices, rows)
+		}
+		switch {
+		case ok && !zero:
+			return disproven(h, fmt.Sprintf("side %d does not touch the circle that touches sides 0, 1 and 2", j), &certs.Witness{Side: intPtr(j)})
+		case !ok && undecided < 0:
+			undecided = j
+		}
+	}
+	if undecided >= 0 {
+		why := "the enclosures cannot show that side %d is tangent to the circle that touches sides 0, 1 and 2 (an equality; coordinates that are rationals, square roots of rationals or cos, sin of multiples of pi/12 decide it exactly)"
+		return undecidedAt(h, fmt.Sprintf(why, undecided))
+	}
+	return proven(h, fmt.Sprintf("convex, and the circle that touches sides 0, 1 and 2 touches all %d sides (decided exactly)", n))
+}
+
+// ProductOfCircumsolids decides whether the domain is a product of
+// circumsolids.
+//
+// Andrews, Clutterbuck and Hauer call a bounded convex domain a
+// circumsolid when it is circumscribed about a ball: every supporting
+// hyperplane of a face of its boundary touches one inscribed ball. Their
+// non-concavity theorem for the Robin ground state at small Robin
+// parameter excludes exactly the convex polyhedral domains that are
+// (after a rigid motion) products of circumsolids. In one dimension the
+// convex domains are intervals, and an interval is circumscribed about
+// itself, so every interval is a circumsolid. In two dimensions a product
+// of circumsolids is either one two-dimensional circumsolid, which for a
+// polygon is a tangential polygon (see Tangential), or the product of two
+// intervals, a rectangle (see Rectangle: four right angles, so a rotated
+// rectangle counts, being a product after a rotation). Hence a polygon is
+// a product of circumsolids if and only if it is tangential or a
+// rectangle (a square is both); an interval is one.
+//
+// The verdict is "proven" if either decision is proven, "disproven" if
+// both are disproven (the witness is that of Tangential, with the vertex
+// of Rectangle's witness), and "undecided" otherwise.
+//
+// References:
+//
+//	B. Andrews, J. Clutterbuck and D. Hauer, Non-concavity of the Robin
+//	ground state, Camb. J. Math. 8 (2020), 243–310, arXiv:1711.02779.
+func ProductOfCircumsolids(p *problem.Problem) certs.Hypothesis {
+	h := certs.Hypothesis{Name: CircumsolidProduct}
+	if p.Dim == 1 {
+		return proven(h, "an interval is a one-dimensional circumsolid")
+	}
+	t, r := Tangential(p), Rectangle(p)
+	switch {
+	case t.Verdict == certs.Proven:
+		return proven(h, "a tangential polygon, a two-dimensional circumsolid: "+t.Detail)
+	case r.Verdict == certs.Proven:
+		return proven(h, "a rectangle, the product of two intervals: "+r.Detail)
+	case t.Verdict == certs.Disproven && r.Verdict == certs.Disproven:
+		w := *t.Witness
+		if w.Vertex == nil && r.Witness.Vertex != nil {
+			w.Vertex, w.Point = r.Witness.Vertex, r.Witness.Point
+		}
+		return disproven(h, fmt.Sprintf("neither tangential (%s) nor a rectangle (%s)", t.Detail, r.Detail), &w)
+	case t.Verdict == certs.Undecided:
+		return undecidedAt(h, "not a rectangle or undecided, and cannot decide tangentiality: "+t.Detail)
+	}
+	return undecidedAt(h, "not tangential, and cannot decide whether it is a rectangle: "+r.Detail)
+}
+
+// surdVertices reads every coordinate exactly (numberSurd); ok is false
+// if some coordinate is not read.
+func surdVertices(vs [][2]problem.Number) (v [][2]surd, ok bool) {
+	v = make([][2]surd, len(vs))
+	for i, p := range vs {
+		for k := range 2 {
+			if v[i][k], ok = numberSurd(p[k]); !ok {
+				return nil, false
+			}
+		}
+	}
+	return v, true
+}
+
+// sideRowSurd returns the exact entries −e_y, e_x, e × v and ℓ² of the row
+// of side i.
+func sideRowSurd(v [][2]surd, i int) (a, b, h, l2 surd) {
+	p, q := v[i], v[(i+1)%len(v)]
+	ex, ey := q[0].sub(p[0]), q[1].sub(p[1])
+	return ey.neg(), ex, ex.mul(p[1]).sub(ey.mul(p[0])), ex.mul(ex).add(ey.mul(ey))
+}
+
+func det3Surd(m [3][3]surd) surd {
+	t := func(i, j, k int) surd { return m[0][i].mul(m[1][j]).mul(m[2][k]) }
+	return t(0, 1, 2).add(t(1, 2, 0)).add(t(2, 0, 1)).sub(t(2, 1, 0)).sub(t(0, 2, 1)).sub(t(1, 0, 2))
+}
+
+// tangencyResidualZeroSurd decides whether D = Σ_p (−1)^{p+1} ℓ_{k_p} M_p
+// over the four rows is 0, exactly where the rules of Tangential allow
+// and else by the enclosure of D (which decides only D ≠ 0).
+func tangencyResidualZeroSurd(v [][2]surd, rows [4]int) (zero, ok bool) {
+	var cols [4][3]surd
+	var l2 [4]surd
+	for p, k := range rows {
+		a, b, h, s := sideRowSurd(v, k)
+		cols[p], l2[p] = [3]surd{a, b, h}, s
+	}
+	var exact surd // the terms whose ℓ is a surd
+	type group struct{ l2, coef surd }
+	var groups []group // coef·√l2 with irrational l2, one per class
+	for p := range 4 {
+		var m [3][3]surd
+		r := 0
+		for q := range 4 {
+			if q != p {
+				m[r] = cols[q]
+				r++
+			}
+		}
+		mp := det3Surd(m)
+		if p%2 == 0 {
+			mp = mp.neg() // (−1)^{p+1}
+		}
+		if s, isRat := l2[p].rat(); isRat {
+			exact = exact.add(mp.mul(sqrtRatSurd(s)))
+			continue
+		}
+		placed := false
+		for g := range groups {
+			if w, ok := l2[p].ratioSquare(groups[g].l2); ok {
+				groups[g].coef = groups[g].coef.add(mp.scale(w))
+				placed = true
+				break
+			}
+		}
+		if !placed {
+			groups = append(groups, group{l2: l2[p], coef: mp})
+		}
+	}
+	allZero := exact.isZero()
+	for _, g := range groups {
+		allZero = allZero && g.coef.isZero()
+	}
+	switch {
+	case allZero:
+		return true, true
+	case len(groups) == 0:
+		return false, true // a nonzero surd
+	case len(groups) == 1 && exact.isZero():
+		return false, true // coef ≠ 0 times √l2 with l2 > 0
+	}
+	d := exact.enclose()
+	for _, g := range groups {
+		l, _ := g.l2.enclose().Sqrt()
+		d = d.Add(g.coef.enclose().Mul(l))
+	}
+	if d.ContainsZero() {
+		return false, false
+	}
+	return false, true
+}
+
+// tangencyResidualZeroInterval encloses D from the coordinate enclosures;
+// it decides only D ≠ 0.
+func tangencyResidualZeroInterval(v [][2]problem.Number, rows [4]int) (zero, ok bool) {
+	var cols [4][3]interval.I
+	var l [4]interval.I
+	for p, k := range rows {
+		a, b := v[k], v[(k+1)%len(v)]
+		ex, ey := b[0].Val.Sub(a[0].Val), b[1].Val.Sub(a[1].Val)
+		cols[p] = [3]interval.I{ey.Neg(), ex, ex.Mul(a[1].Val).Sub(ey.Mul(a[0].Val))}
+		l[p], _ = ex.Sqr().Add(ey.Sqr()).Sqrt() // a sum of squares
+	}
+	var d interval.I
+	for p := range 4 {
+		var m [3][3]interval.I
+		r := 0
+		for q := range 4 {
+			if q != p {
+				m[r] = cols[q]
+				r++
+			}
+		}
+		t := det3Interval(m).Mul(l[p])
+		if p%2 == 0 {
+			t = t.Neg()
+		}
+		d = d.Add(t)
+	}
+	if d.ContainsZero() {
+		return false, false
+	}
+	return false, true
+}
+
+func det3Interval(m [3][3]interval.I) interval.I {
+	t := func(i, j, k int) interval.I { return m[0][i].Mul(m[1][j]).Mul(m[2][k]) }
+	return t(0, 1, 2).Add(t(1, 2, 0)).Add(t(2, 0, 1)).Sub(t(2, 1, 0)).Sub(t(0, 2, 1)).Sub(t(1, 0, 2))
+}
