@@ -21,9 +21,9 @@ const (
 // Tangential decides whether the polygon is tangential: convex, with a
 // circle that touches every side, that is, the circle is tangent to the
 // line L_i of each side S_i at a point of the closed segment S_i. (This
-// is the usual definition of a tangential polygon, common practice; in
-// the words of Andrews–Clutterbuck–Hauer cited at ProductOfCircumsolids,
-// a convex polygon circumscribed about a disc.)
+// is the usual definition of a tangential polygon, common practice: a
+// convex polygon circumscribed about a disc, the two-dimensional
+// circumsolid of ProductOfCircumsolids.)
 //
 // Characterisation used. Let P be convex with counterclockwise vertices
 // v_0, …, v_{n−1}, n ≥ 3, no three consecutive collinear (fem/problem
@@ -122,14 +122,17 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 // ProductOfCircumsolids decides whether the domain is a product of
 // circumsolids.
 //
-// Andrews, Clutterbuck and Hauer call a bounded convex domain a
-// circumsolid when it is circumscribed about a ball: every supporting
-// hyperplane of a face of its boundary touches one inscribed ball. Their
-// non-concavity theorem for the Robin ground state at small Robin
-// parameter excludes exactly the convex polyhedral domains that are
-// (after a rigid motion) products of circumsolids. In one dimension the
-// convex domains are intervals, and an interval is circumscribed about
-// itself, so every interval is a circumsolid. In two dimensions a product
+// Andrews, Clutterbuck and Hauer (§8, "Quadratic solutions and
+// circumsolids") prove that on a convex polyhedral domain the Robin ground
+// state is not log-concave for small Robin parameter unless the domain is
+// in a special class, which they classify through circumsolids and their
+// products. We use the notion as we recall it from that section (the
+// exact wording of the definition was not checked against the paper): a
+// convex polytope is a circumsolid when it is circumscribed about a ball,
+// every facet touching one inscribed ball, and the special class consists
+// of the products of circumsolids, after a rigid motion. In one
+// dimension the convex domains are intervals, and an interval is
+// circumscribed about itself, so every interval is a circumsolid. In two dimensions a product
 // of circumsolids is either one two-dimensional circumsolid, which for a
 // polygon is a tangential polygon (see Tangential), or the product of two
 // intervals, a rectangle (see Rectangle: four right angles, so a rotated
