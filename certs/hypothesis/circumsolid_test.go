@@ -14,7 +14,7 @@ import (
 
 // polygonProblem returns the Dirichlet problem with V = 0 on the polygon
 // with the given coordinate texts.
-func polygonProblem(t *testing.T, xy ...string) *problem.Problem {
+func polygonProblem(t testing.TB, xy ...string) *problem.Problem {
 	t.Helper()
 	var b strings.Builder
 	b.WriteString(`{"polygon":[`)
@@ -25,7 +25,11 @@ func polygonProblem(t *testing.T, xy ...string) *problem.Problem {
 		fmt.Fprintf(&b, `[%q,%q]`, xy[i], xy[i+1])
 	}
 	b.WriteString(`]}`)
-	return parse(t, problemText(b.String(), "0", `"dirichlet"`))
+	p, err := parseProblem(problemText(b.String(), "0", `"dirichlet"`))
+	if err != nil {
+		t.Fatalf("%v: %v", xy, err)
+	}
+	return p
 }
 
 // regularPolygon returns the coordinate texts of the regular n-gon with
