@@ -2,6 +2,7 @@ package hypothesis
 
 import (
 	"fmt"
+	"math/big"
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
@@ -67,17 +68,23 @@ const (
 // Elements IV.4); for n ≥ 4 the verdict is "proven" if every D_j is 0 and
 // "disproven" with the witness side j if some D_j is not.
 //
-// Exactness. When every coordinate is read as a surd (see numberSurd:
-// rationals, √ of rationals, cos and sin of multiples of π/12, …), the
-// minors M_p and the squared lengths ℓ_k² are surds. The terms whose ℓ_k²
-// is rational are surds themselves; the others are grouped by ℓ_k² up to
-// rational square factors (ℓ_k = w·ℓ_g, w rational). D_j = 0 is concluded
-// only when the first part and every group's coefficient vanish exactly;
-// D_j ≠ 0 is concluded exactly when there is no group, or one group and a
-// vanishing first part (D_j = C·ℓ_g with C ≠ 0 and ℓ_g > 0). Otherwise,
-// and for coordinates that are not read as surds, only the interval
-// enclosure of D_j is used, which can show D_j ≠ 0 but never D_j = 0: a
-// tangential polygon with such coordinates is "undecided", never guessed.
+// Exactness. The coordinates are read exactly, as surds if every one is
+// (numberSurd: rationals, √ of rationals, cos and sin of multiples of
+// π/12, …), else in one cyclotomic field Q(ζ_m) if every one is
+// (cycVertices: cos and sin of any rational multiple of π, rationals,
+// √(s²k) for k ∈ {1, 2, 3, 6}; φ(m) ≤ 240, which covers every regular
+// polygon that fem/problem accepts). The minors M_p and the squared
+// lengths ℓ_k² are then field elements with an exact zero test. The terms
+// whose ℓ_k lies in the field (ℓ_k² rational: always for surds, when a
+// rational square in Q(ζ_m)) form one field element; the others are
+// grouped by ℓ_k² up to rational square factors (ℓ_k = w·ℓ_g, w
+// rational). D_j = 0 is concluded only when that element and every
+// group's coefficient vanish exactly; D_j ≠ 0 is concluded exactly when
+// there is no group, or one group and a vanishing first part (D_j = C·ℓ_g
+// with C ≠ 0 and ℓ_g > 0). Otherwise, and for coordinates that are read in
+// neither way, only the interval enclosure of D_j is used, which can show
+// D_j ≠ 0 but never D_j = 0: a tangential polygon with such coordinates
+// is "undecided", never guessed.
 // A polygon that is not convex is "disproven" (a tangential polygon is
 // convex by definition) with its re-entrant vertex as the witness.
 func Tangential(p *problem.Problem) certs.Hypothesis {
@@ -95,16 +102,15 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 	if n == 3 {
 		return proven(h, "every triangle has an incircle")
 	}
-	v, exact := surdVertices(p.Vertices)
+	residual := func(j int) (zero, ok bool) { return tangencyResidualZeroInterval(p.Vertices, [4]int{0, 1, 2, j}) }
+	if v, ok := surdVertices(p.Vertices); ok {
+		residual = newTangencyTest(v).residualZero
+	} else if v, ok := cycVertices(p.Vertices); ok {
+		residual = newTangencyTest(v).residualZero
+	}
 	undecided := -1
 	for j := 3; j < n; j++ {
-		rows := [4]int{0, 1, 2, j}
-		var zero, ok bool
-		if exact {
-			zero, ok = tangencyResidualZeroSurd(v, rows)
-		} else {
-			zero, ok = tangencyResidualZeroInterval(p.Vertices, rows)
-		}
+		zero, ok := residual(j)
 		switch {
 		case ok && !zero:
 			return disproven(h, fmt.Sprintf("side %d does not touch the circle that touches sides 0, 1 and 2", j), &certs.Witness{Side: intPtr(j)})
@@ -185,48 +191,80 @@ func surdVertices(vs [][2]problem.Number) (v [][2]surd, ok bool) {
 	return v, true
 }
 
-// sideRowSurd returns the exact entries −e_y, e_x, e × v and ℓ² of the row
-// of side i.
-func sideRowSurd(v [][2]surd, i int) (a, b, h, l2 surd) {
+// exactField is an exact field of real numbers with a zero test: the
+// surds (surd.go) or a cyclotomic field (cyclotomic.go).
+type exactField[T any] interface {
+	add(T) T
+	sub(T) T
+	mul(T) T
+	neg() T
+	scale(*big.Rat) T
+	isZero() bool
+	// rat returns the value if it is rational.
+	rat() (*big.Rat, bool)
+	// ratioSquare returns w > 0 with x = w²·y, if x is such a multiple of y.
+	ratioSquare(T) (*big.Rat, bool)
+	// sqrtRat returns √q as an element of the field, if it is one.
+	sqrtRat(*big.Rat) (T, bool)
+	enclose() interval.I
+}
+
+// sideRow returns the exact entries −e_y, e_x, e × v and ℓ² of the row of
+// side i.
+func sideRow[T exactField[T]](v [][2]T, i int) (a, b, h, l2 T) {
 	p, q := v[i], v[(i+1)%len(v)]
 	ex, ey := q[0].sub(p[0]), q[1].sub(p[1])
 	return ey.neg(), ex, ex.mul(p[1]).sub(ey.mul(p[0])), ex.mul(ex).add(ey.mul(ey))
 }
 
-func det3Surd(m [3][3]surd) surd {
-	t := func(i, j, k int) surd { return m[0][i].mul(m[1][j]).mul(m[2][k]) }
-	return t(0, 1, 2).add(t(1, 2, 0)).add(t(2, 0, 1)).sub(t(2, 1, 0)).sub(t(0, 2, 1)).sub(t(1, 0, 2))
+// cross returns the cross product x × y of 3-vectors.
+func cross[T exactField[T]](x, y [3]T) [3]T {
+	return [3]T{x[1].mul(y[2]).sub(x[2].mul(y[1])), x[2].mul(y[0]).sub(x[0].mul(y[2])), x[0].mul(y[1]).sub(x[1].mul(y[0]))}
 }
 
-// tangencyResidualZeroSurd decides whether D = Σ_p (−1)^{p+1} ℓ_{k_p} M_p
-// over the four rows is 0, exactly where the rules of Tangential allow
-// and else by the enclosure of D (which decides only D ≠ 0).
-func tangencyResidualZeroSurd(v [][2]surd, rows [4]int) (zero, ok bool) {
-	var cols [4][3]surd
-	var l2 [4]surd
-	for p, k := range rows {
-		a, b, h, s := sideRowSurd(v, k)
-		cols[p], l2[p] = [3]surd{a, b, h}, s
+func dot[T exactField[T]](x, y [3]T) T { return x[0].mul(y[0]).add(x[1].mul(y[1])).add(x[2].mul(y[2])) }
+
+// tangencyTest decides D_j for the sides j ≥ 3 of one polygon. The minor
+// of rows r, s, j is the triple product det[r; s; j] = row_j · (r × s),
+// so the cross products of rows 0, 1, 2 are computed once.
+type tangencyTest[T exactField[T]] struct {
+	v             [][2]T
+	l2            [3]T
+	x01, x02, x12 [3]T
+	m3            T // det[row 0; row 1; row 2]
+}
+
+func newTangencyTest[T exactField[T]](v [][2]T) *tangencyTest[T] {
+	t := &tangencyTest[T]{v: v}
+	var r [3][3]T
+	for k := range 3 {
+		a, b, h, l2 := sideRow(v, k)
+		r[k], t.l2[k] = [3]T{a, b, h}, l2
 	}
-	var exact surd // the terms whose ℓ is a surd
-	type group struct{ l2, coef surd }
-	var groups []group // coef·√l2 with irrational l2, one per class
-	for p := range 4 {
-		var m [3][3]surd
-		r := 0
-		for q := range 4 {
-			if q != p {
-				m[r] = cols[q]
-				r++
-			}
-		}
-		mp := det3Surd(m)
-		if p%2 == 0 {
-			mp = mp.neg() // (−1)^{p+1}
-		}
+	t.x01, t.x02, t.x12 = cross(r[0], r[1]), cross(r[0], r[2]), cross(r[1], r[2])
+	t.m3 = dot(r[2], t.x01)
+	return t
+}
+
+// residualZero decides whether D_j = Σ_p (−1)^{p+1} ℓ_{k_p} M_p over the
+// rows k = 0, 1, 2, j is 0, exactly where the rules of Tangential allow
+// and else by the enclosure of D_j (which decides only D_j ≠ 0).
+func (t *tangencyTest[T]) residualZero(j int) (zero, ok bool) {
+	a, b, h, l2j := sideRow(t.v, j)
+	rj := [3]T{a, b, h}
+	// M_p without row p: p = 0, 1, 2 involve row j; p = 3 is m3. The sign
+	// (−1)^{p+1} is applied here.
+	minors := [4]T{dot(rj, t.x12).neg(), dot(rj, t.x02), dot(rj, t.x01).neg(), t.m3}
+	l2 := [4]T{t.l2[0], t.l2[1], t.l2[2], l2j}
+	exact := t.m3.sub(t.m3) // the terms whose ℓ is in the field
+	type group struct{ l2, coef T }
+	var groups []group // coef·√l2 with √l2 outside the field, one per class
+	for p, mp := range minors {
 		if s, isRat := l2[p].rat(); isRat {
-			exact = exact.add(mp.mul(sqrtRatSurd(s)))
-			continue
+			if l, inField := mp.sqrtRat(s); inField {
+				exact = exact.add(mp.mul(l))
+				continue
+			}
 		}
 		placed := false
 		for g := range groups {
@@ -248,7 +286,7 @@ func tangencyResidualZeroSurd(v [][2]surd, rows [4]int) (zero, ok bool) {
 	case allZero:
 		return true, true
 	case len(groups) == 0:
-		return false, true // a nonzero surd
+		return false, true // a nonzero element of the field
 	case len(groups) == 1 && exact.isZero():
 		return false, true // coef ≠ 0 times √l2 with l2 > 0
 	}

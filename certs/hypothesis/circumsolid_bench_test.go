@@ -11,8 +11,8 @@ import (
 // BenchmarkTangential measures the exact decisions on the largest inputs:
 // a 100-gon (the most vertices fem/problem accepts) circumscribed about
 // the unit circle with rational vertices, 97 determinants over big
-// rationals and square classes, and the regular 24-gon with surd
-// vertices.
+// rationals and square classes, the regular 24-gon with surd vertices,
+// and the regular 100-gon in the cyclotomic field Q(ζ_100) of degree 40.
 func BenchmarkTangential(b *testing.B) {
 	for _, c := range []struct {
 		name string
@@ -20,6 +20,7 @@ func BenchmarkTangential(b *testing.B) {
 	}{
 		{"rational100", polygonProblem(b, ratTexts(randomTangential(rand.New(rand.NewPCG(3, 3)), 100))...)},
 		{"regular24", polygonProblem(b, regularPolygon(24)...)},
+		{"regular100", polygonProblem(b, regularPolygon(100)...)},
 	} {
 		b.Run(c.name, func(b *testing.B) {
 			for b.Loop() {

@@ -75,6 +75,12 @@ func TestTangentialCases(t *testing.T) {
 		{"regular octagon", regularPolygon(8), certs.Proven, certs.Proven},
 		{"regular dodecagon", regularPolygon(12), certs.Proven, certs.Proven},
 		{"regular 24-gon", regularPolygon(24), certs.Proven, certs.Proven},
+		{"regular pentagon", regularPolygon(5), certs.Proven, certs.Proven},
+		{"regular heptagon", regularPolygon(7), certs.Proven, certs.Proven},
+		{"regular 9-gon", regularPolygon(9), certs.Proven, certs.Proven},
+		// Inscribed in the unit circle at 0, 2π/5, 2π/3, 5π/4, 7π/4: a
+		// cyclic pentagon with unequal sides.
+		{"cyclic pentagon", []string{"1", "0", "cos(2*pi/5)", "sin(2*pi/5)", "cos(2*pi/3)", "sin(2*pi/3)", "cos(5*pi/4)", "sin(5*pi/4)", "cos(7*pi/4)", "sin(7*pi/4)"}, certs.Disproven, certs.Disproven},
 		{"square rotated by pi/12", []string{"0", "0", "cos(pi/12)", "sin(pi/12)", "cos(pi/12)-sin(pi/12)", "sin(pi/12)+cos(pi/12)", "-sin(pi/12)", "cos(pi/12)"}, certs.Proven, certs.Proven},
 		// The L-shape of three unit squares is not convex (vertex 3).
 		{"L-shape", []string{"0", "0", "2", "0", "2", "1", "1", "1", "1", "2", "0", "2"}, certs.Disproven, certs.Disproven},
@@ -110,15 +116,17 @@ func TestTangentialWitness(t *testing.T) {
 // TestTangentialIntervalsOnly: coordinates not read exactly (exp(0) is 1,
 // but exp is not among the exact forms) leave a tangential square
 // undecided, never proven, while a non-tangential trapezoid is still
-// disproven by the enclosure of its residual; the regular pentagon
-// (cos(2π/5) is exact but sin(2π/5) = √(10 + 2√5)/4 is not a surd) is
+// disproven by the enclosure of its residual; the regular pentagon written
+// with the nested radical sin(2π/5) = √(10 + 2√5)/4 (common practice) is
 // undecided although tangential. The interval is not a polygon, but it is
 // a circumsolid (an interval is its own inscribed ball).
 func TestTangentialIntervalsOnly(t *testing.T) {
 	requireVerdict(t, "square with exp(0)", Tangential(polygonProblem(t, "0", "0", "exp(0)", "0", "1", "1", "0", "1")), certs.Undecided)
 	requireVerdict(t, "trapezoid with exp(0)", Tangential(polygonProblem(t, "0", "0", "3*exp(0)", "0", "2", "1", "1", "1")), certs.Disproven)
-	requireVerdict(t, "regular pentagon", Tangential(polygonProblem(t, regularPolygon(5)...)), certs.Undecided)
-	requireVerdict(t, "regular pentagon (product)", ProductOfCircumsolids(polygonProblem(t, regularPolygon(5)...)), certs.Undecided)
+	pentagon := regularPolygon(5)
+	pentagon[3], pentagon[9] = "sqrt(10+2*sqrt(5))/4", "-sqrt(10+2*sqrt(5))/4"
+	requireVerdict(t, "regular pentagon, nested radicals", Tangential(polygonProblem(t, pentagon...)), certs.Undecided)
+	requireVerdict(t, "regular pentagon, nested radicals (product)", ProductOfCircumsolids(polygonProblem(t, pentagon...)), certs.Undecided)
 	p := parse(t, problemText(`{"interval":["0","1"]}`, "0", `"dirichlet"`))
 	requireVerdict(t, "interval", Tangential(p), certs.Undecided)
 	requireVerdict(t, "interval (product)", ProductOfCircumsolids(p), certs.Proven)

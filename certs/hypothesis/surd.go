@@ -13,7 +13,8 @@ import (
 // they hold every coordinate, edge vector, squared side length and
 // determinant of a polygon whose vertices are rational or built from
 // rationals with +, −, ·, division by a nonzero q·√r, √ of a
-// nonnegative rational, and cos, sin of integer multiples of π/12.
+// nonnegative rational, and cos, sin of integer multiples of π/12
+// (other rational multiples of π: cyclotomic.go).
 //
 // Zero test. Call r and s equivalent when r/s is the square of a
 // rational. A surd is kept normalised: terms with equivalent radicands are
@@ -107,6 +108,9 @@ func normalise(s surd) surd {
 }
 
 func (s surd) isZero() bool { return len(s) == 0 }
+
+// sqrtRat returns √q (q ≥ 0), always a surd.
+func (surd) sqrtRat(q *big.Rat) (surd, bool) { return sqrtRatSurd(q), true }
 
 // rat returns the value of s and true when s is rational.
 func (s surd) rat() (*big.Rat, bool) {
