@@ -113,16 +113,16 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 		zero, ok := residual(j)
 		switch {
 		case ok && !zero:
-			return disproven(h, fmt.Sprintf("side %d does not touch the circle that touches sides 0, 1 and 2", j), &certs.Witness{Side: intPtr(j)})
+			return disproven(h, fmt.Sprintf("the line of side %d is not tangent to the circle tangent to the lines of sides 0, 1 and 2 on the polygon's side", j), &certs.Witness{Side: intPtr(j)})
 		case !ok && undecided < 0:
 			undecided = j
 		}
 	}
 	if undecided >= 0 {
-		why := "the enclosures cannot show that side %d is tangent to the circle that touches sides 0, 1 and 2 (an equality; coordinates that are rationals, square roots of rationals or cos, sin of multiples of pi/12 decide it exactly)"
+		why := "cannot decide whether the line of side %d is tangent to the circle tangent to the lines of sides 0, 1 and 2: an equality, which enclosures cannot show (coordinates built from rationals, square roots of rationals and cos, sin of rational multiples of pi are decided exactly)"
 		return undecidedAt(h, fmt.Sprintf(why, undecided))
 	}
-	return proven(h, fmt.Sprintf("convex, and the circle that touches sides 0, 1 and 2 touches all %d sides (decided exactly)", n))
+	return proven(h, fmt.Sprintf("convex, and the circle tangent to the lines of sides 0, 1 and 2 is tangent to the lines of all %d sides (decided exactly)", n))
 }
 
 // ProductOfCircumsolids decides whether the domain is a product of
@@ -171,10 +171,8 @@ func ProductOfCircumsolids(p *problem.Problem) certs.Hypothesis {
 			w.Vertex, w.Point = r.Witness.Vertex, r.Witness.Point
 		}
 		return disproven(h, fmt.Sprintf("neither tangential (%s) nor a rectangle (%s)", t.Detail, r.Detail), &w)
-	case t.Verdict == certs.Undecided:
-		return undecidedAt(h, "not a rectangle or undecided, and cannot decide tangentiality: "+t.Detail)
 	}
-	return undecidedAt(h, "not tangential, and cannot decide whether it is a rectangle: "+r.Detail)
+	return undecidedAt(h, fmt.Sprintf("tangential: %s (%s); rectangle: %s (%s)", t.Verdict, t.Detail, r.Verdict, r.Detail))
 }
 
 // surdVertices reads every coordinate exactly (numberSurd); ok is false

@@ -24,6 +24,6 @@ func ExampleTangential() {
 		fmt.Printf("%s: %s (%s); %s: %s\n", t.Name, t.Verdict, t.Detail, c.Name, c.Verdict)
 	}
 	// Output:
-	// tangential_polygon: proven (convex, and the circle that touches sides 0, 1 and 2 touches all 4 sides (decided exactly)); circumsolid_product: proven
-	// tangential_polygon: disproven (side 3 does not touch the circle that touches sides 0, 1 and 2); circumsolid_product: disproven
+	// tangential_polygon: proven (convex, and the circle tangent to the lines of sides 0, 1 and 2 is tangent to the lines of all 4 sides (decided exactly)); circumsolid_product: proven
+	// tangential_polygon: disproven (the line of side 3 is not tangent to the circle tangent to the lines of sides 0, 1 and 2 on the polygon's side); circumsolid_product: disproven
 }

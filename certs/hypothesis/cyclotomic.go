@@ -31,8 +31,14 @@ import (
 // value is its real part Σ c_j cos(2πj/m), which is enclosed with the
 // interval cosine.
 
-// maxCyclotomicDegree bounds φ(m); the regular 100-gon needs φ(100) = 40.
-const maxCyclotomicDegree = 240
+// Bounds on the cyclotomic fields used, which keep the tables small: the
+// vertices of a regular n-gon, cos(2πk/n) and sin(2πk/n), lie in Q(ζ_m)
+// with m | 4n, so n ≤ 100 (fem/problem's limit) needs m ≤ 400 and
+// φ(m) ≤ 160.
+const (
+	maxCyclotomicOrder  = 1000
+	maxCyclotomicDegree = 240
+)
 
 // rootTerm is c·e^{iπq}, q ∈ [0, 2).
 type rootTerm struct{ q, c *big.Rat }
@@ -208,10 +214,9 @@ func cyclotomicPoly(m int, memo map[int][]*big.Int) []*big.Int {
 	return p
 }
 
-// newCycField returns Q(ζ_m), or false if φ(m) exceeds
-// maxCyclotomicDegree.
+// newCycField returns Q(ζ_m), or false if m or φ(m) exceeds its bound.
 func newCycField(m int) (*cycField, bool) {
-	if m < 1 || m > 8*maxCyclotomicDegree {
+	if m < 1 || m > maxCyclotomicOrder {
 		return nil, false
 	}
 	pi := cyclotomicPoly(m, map[int][]*big.Int{})
@@ -400,7 +405,7 @@ func cycVertices(vs [][2]problem.Number) (v [][2]cyc, ok bool) {
 			sums[i][k] = s
 		}
 	}
-	if !m.IsInt64() || m.Int64() > 8*maxCyclotomicDegree {
+	if !m.IsInt64() || m.Int64() > maxCyclotomicOrder {
 		return nil, false
 	}
 	f, ok := newCycField(int(m.Int64()))
