@@ -47,9 +47,10 @@ func regularPolygon(n int) []string {
 // IV.4); a regular polygon has an incircle about its centre (common
 // practice); quadrilaterals by Pitot's theorem and its converse — a convex
 // quadrilateral with sides a, b, c, d in order is tangential if and only
-// if a + c = b + d (Pitot 1725, converse Durrande 1815; see e.g.
-// M. Josefsson, More characterizations of tangential quadrilaterals,
-// Forum Geom. 11 (2011), 65–82, Theorem 1) — which makes kites and
+// if a + c = b + d (Pitot 1725, converse Durrande 1815, as stated in the
+// introduction of M. Josefsson and M. Dalcín, More new characterizations
+// of tangential quadrilaterals, Int. J. Geom. 10 (2021), no. 3, 21–47) —
+// which makes kites and
 // rhombi tangential, non-square rectangles not (2a ≠ 2b), the trapezoid
 // with sides 3, √2, 1, √2 not (4 ≠ 2√2), and the isosceles trapezoid with
 // bases 4, 1 and legs 5/2 tangential (5 = 5).
