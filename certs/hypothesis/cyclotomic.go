@@ -22,7 +22,8 @@ import (
 // 1, ζ, …, ζ^{d−1}, d = φ(m), reduced modulo the cyclotomic polynomial
 // Φ_m, which is the minimal polynomial of ζ_m over Q (Φ_m is irreducible
 // over Q: Gauss for prime m, Dedekind in general; see e.g. S. Lang,
-// Algebra, rev. 3rd ed., Springer 2002, VI, Theorem 3.1). So the basis is
+// Algebra, rev. 3rd ed., Springer 2002, ch. VI §3 — the theorem number is
+// recalled, not checked). So the basis is
 // linearly independent over Q, the vector is unique, and an element is 0
 // if and only if every coefficient is 0. Φ_m is computed exactly as
 // (x^m − 1)/Π_{d | m, d < m} Φ_d (common practice).
