@@ -148,7 +148,10 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 //
 // The verdict is "proven" if either decision is proven, "disproven" if
 // both are disproven (the witness is that of Tangential, with the vertex
-// of Rectangle's witness), and "undecided" otherwise.
+// of Rectangle's witness), and "undecided" otherwise. Where Rectangle
+// cannot decide a right angle from enclosures, the corners of a
+// quadrilateral whose coordinates are read exactly (as for Tangential) are
+// decided by the exact zero test of (v_{i−1} − v_i)·(v_{i+1} − v_i).
 //
 // References:
 //
@@ -160,6 +163,9 @@ func ProductOfCircumsolids(p *problem.Problem) certs.Hypothesis {
 		return proven(h, "an interval is a one-dimensional circumsolid")
 	}
 	t, r := Tangential(p), Rectangle(p)
+	if r.Verdict == certs.Undecided {
+		r = rectangleExact(p, r)
+	}
 	switch {
 	case t.Verdict == certs.Proven:
 		return proven(h, "a tangential polygon, a two-dimensional circumsolid: "+t.Detail)
@@ -173,6 +179,44 @@ func ProductOfCircumsolids(p *problem.Problem) certs.Hypothesis {
 		return disproven(h, fmt.Sprintf("neither tangential (%s) nor a rectangle (%s)", t.Detail, r.Detail), &w)
 	}
 	return undecidedAt(h, fmt.Sprintf("tangential: %s (%s); rectangle: %s (%s)", t.Verdict, t.Detail, r.Verdict, r.Detail))
+}
+
+// rectangleExact decides the right angles of a quadrilateral whose
+// coordinates are read exactly (surds, else a cyclotomic field); it
+// returns undecided unchanged otherwise.
+func rectangleExact(p *problem.Problem, undecided certs.Hypothesis) certs.Hypothesis {
+	if len(p.Vertices) != 4 {
+		return undecided
+	}
+	corner := -1
+	if v, ok := surdVertices(p.Vertices); ok {
+		corner = firstObliqueCorner(v)
+	} else if v, ok := cycVertices(p.Vertices); ok {
+		corner = firstObliqueCorner(v)
+	} else {
+		return undecided
+	}
+	h := certs.Hypothesis{Name: undecided.Name}
+	if corner >= 0 {
+		q := p.Vertices[corner]
+		return disproven(h, fmt.Sprintf("the corner at vertex %d is not a right angle (decided exactly)", corner),
+			&certs.Witness{Vertex: intPtr(corner), Point: []string{q[0].Text, q[1].Text}})
+	}
+	return proven(h, "four vertices, every corner a right angle (decided exactly)")
+}
+
+// firstObliqueCorner returns the first vertex i of the quadrilateral v
+// with (v_{i−1} − v_i)·(v_{i+1} − v_i) ≠ 0, or −1 if every corner is right.
+func firstObliqueCorner[T exactField[T]](v [][2]T) int {
+	n := len(v)
+	for i := range n {
+		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
+		d := a[0].sub(b[0]).mul(c[0].sub(b[0])).add(a[1].sub(b[1]).mul(c[1].sub(b[1])))
+		if !d.isZero() {
+			return i
+		}
+	}
+	return -1
 }
 
 // surdVertices reads every coordinate exactly (numberSurd); ok is false

@@ -82,6 +82,10 @@ func TestTangentialCases(t *testing.T) {
 		// Inscribed in the unit circle at 0, 2π/5, 2π/3, 5π/4, 7π/4: a
 		// cyclic pentagon with unequal sides.
 		{"cyclic pentagon", []string{"1", "0", "cos(2*pi/5)", "sin(2*pi/5)", "cos(2*pi/3)", "sin(2*pi/3)", "cos(5*pi/4)", "sin(5*pi/4)", "cos(7*pi/4)", "sin(7*pi/4)"}, certs.Disproven, certs.Disproven},
+		// 2 by 1, rotated by π/6 and by 2π/5: not tangential, and a
+		// rectangle decided exactly (Rectangle's enclosures cannot).
+		{"rectangle 2 by 1 rotated by pi/6", []string{"0", "0", "sqrt(3)", "1", "sqrt(3)-1/2", "1+sqrt(3)/2", "-1/2", "sqrt(3)/2"}, certs.Disproven, certs.Proven},
+		{"rectangle 2 by 1 rotated by 2pi/5", []string{"0", "0", "2*cos(2*pi/5)", "2*sin(2*pi/5)", "2*cos(2*pi/5)-sin(2*pi/5)", "2*sin(2*pi/5)+cos(2*pi/5)", "-sin(2*pi/5)", "cos(2*pi/5)"}, certs.Disproven, certs.Proven},
 		{"square rotated by pi/12", []string{"0", "0", "cos(pi/12)", "sin(pi/12)", "cos(pi/12)-sin(pi/12)", "sin(pi/12)+cos(pi/12)", "-sin(pi/12)", "cos(pi/12)"}, certs.Proven, certs.Proven},
 		// The L-shape of three unit squares is not convex (vertex 3).
 		{"L-shape", []string{"0", "0", "2", "0", "2", "1", "1", "1", "1", "2", "0", "2"}, certs.Disproven, certs.Disproven},
@@ -128,6 +132,18 @@ func TestTangentialIntervalsOnly(t *testing.T) {
 	pentagon[3], pentagon[9] = "sqrt(10+2*sqrt(5))/4", "-sqrt(10+2*sqrt(5))/4"
 	requireVerdict(t, "regular pentagon, nested radicals", Tangential(polygonProblem(t, pentagon...)), certs.Undecided)
 	requireVerdict(t, "regular pentagon, nested radicals (product)", ProductOfCircumsolids(polygonProblem(t, pentagon...)), certs.Undecided)
+	// A unit square with vertex 3 moved by δ = √2 − 1.4142135623730951
+	// ≈ −1.2e-17: the enclosures cannot see that corner 0 is oblique, the
+	// exact test can; tangency (Pitot defect 1 − δ − √(1 + δ²) ≈ −δ) needs
+	// √(1 + δ²), a square root of a surd, and stays undecided.
+	nearSquare := polygonProblem(t, "0", "0", "1", "0", "1", "1", "sqrt(2)-1.4142135623730951", "1")
+	requireVerdict(t, "near-square, Rectangle", Rectangle(nearSquare), certs.Undecided)
+	requireVerdict(t, "near-square", Tangential(nearSquare), certs.Undecided)
+	h := ProductOfCircumsolids(nearSquare)
+	requireVerdict(t, "near-square (product)", h, certs.Undecided)
+	if !strings.Contains(h.Detail, "vertex 0 is not a right angle (decided exactly)") {
+		t.Errorf("near-square: %s, want corner 0 decided oblique exactly", h.Detail)
+	}
 	p := parse(t, problemText(`{"interval":["0","1"]}`, "0", `"dirichlet"`))
 	requireVerdict(t, "interval", Tangential(p), certs.Undecided)
 	requireVerdict(t, "interval (product)", ProductOfCircumsolids(p), certs.Proven)
