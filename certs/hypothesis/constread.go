@@ -23,7 +23,10 @@ import (
 // algebra allows them, sqrt, and cos, sin of rational multiples of π
 // (sin tπ = cos((1/2 − t)π)). Anything else (parameters, e, exp, log,
 // other functions) is not read, and the caller falls back to the number's
-// interval enclosure. As a guard against a misreading, a value is used
+// interval enclosure. Values that outgrow the algebra's size bounds
+// (fits; rationals of more than maxRatBits bits) are not read either, so
+// that a short formula such as ((1e400)^64)^64 cannot make the reader run
+// for minutes or exhaust memory. As a guard against a misreading, a value is used
 // only when its enclosure meets the number's own enclosure (see the
 // callers).
 
@@ -42,6 +45,26 @@ type constAlgebra[T any] interface {
 	// cosPi returns cos(tπ).
 	cosPi(t *big.Rat) (T, bool)
 	enclose(a T) interval.I
+	// fits reports whether a is within the algebra's size bounds.
+	fits(a T) bool
+}
+
+// maxRatBits bounds the size of the rationals the reader builds: the bit
+// lengths of numerator and denominator together.
+const maxRatBits = 4096
+
+// ratFits reports whether q is within maxRatBits.
+func ratFits(q *big.Rat) bool { return q.Num().BitLen()+q.Denom().BitLen() <= maxRatBits }
+
+// bounded returns v, ok, with ok false if v outgrows the size bounds.
+func (r *constReader[T]) bounded(v piVal[T], ok bool) (piVal[T], bool) {
+	switch {
+	case !ok:
+		return v, false
+	case v.pi != nil:
+		return v, ratFits(v.pi)
+	}
+	return v, r.alg.fits(v.v)
 }
 
 // readConst reads text in the algebra alg and returns its value, and
@@ -91,7 +114,7 @@ func (r *constReader[T]) expr() (piVal[T], bool) {
 		if op == '-' {
 			w = r.neg(w)
 		}
-		v, ok = r.add(v, w)
+		v, ok = r.bounded(r.add(v, w))
 	}
 	return v, ok
 }
@@ -110,7 +133,7 @@ func (r *constReader[T]) term() (piVal[T], bool) {
 				break
 			}
 		}
-		v, ok = r.mul(v, w)
+		v, ok = r.bounded(r.mul(v, w))
 	}
 	return v, ok
 }
@@ -153,11 +176,13 @@ func (r *constReader[T]) power() (piVal[T], bool) {
 		}
 		k = -k
 	}
-	out := r.alg.fromRat(big.NewRat(1, 1))
+	out := piVal[T]{v: r.alg.fromRat(big.NewRat(1, 1))}
 	for range k {
-		out = r.alg.mul(out, base.v)
+		if out, ok = r.bounded(piVal[T]{v: r.alg.mul(out.v, base.v)}, true); !ok {
+			return piVal[T]{}, false
+		}
 	}
-	return piVal[T]{v: out}, true
+	return out, true
 }
 
 func (r *constReader[T]) atom() (piVal[T], bool) {
@@ -191,7 +216,7 @@ func (r *constReader[T]) atom() (piVal[T], bool) {
 			return piVal[T]{}, false
 		}
 		r.pos++
-		return r.apply(name, arg)
+		return r.bounded(r.apply(name, arg))
 	}
 	return piVal[T]{}, false
 }
@@ -228,7 +253,7 @@ func (r *constReader[T]) number() (piVal[T], bool) {
 	if err != nil {
 		return piVal[T]{}, false
 	}
-	return piVal[T]{v: r.alg.fromRat(q)}, true
+	return r.bounded(piVal[T]{v: r.alg.fromRat(q)}, true)
 }
 
 func (r *constReader[T]) neg(v piVal[T]) piVal[T] {

@@ -132,6 +132,32 @@ func (rootAlgebra) enclose(a rootSum) interval.I {
 	return v
 }
 
+// fits bounds the order of the roots of unity (rootOrder ≤
+// maxCyclotomicOrder, which also bounds the number of terms) and the size
+// of every coefficient.
+func (rootAlgebra) fits(a rootSum) bool {
+	if rootOrder(a).Cmp(big.NewInt(maxCyclotomicOrder)) > 0 {
+		return false
+	}
+	for _, t := range a {
+		if !ratFits(t.c) {
+			return false
+		}
+	}
+	return true
+}
+
+// rootOrder returns the least common multiple of the orders 2·den(q) of
+// the roots of unity e^{iπq} of a (1 for a rational).
+func rootOrder(a rootSum) *big.Int {
+	m := big.NewInt(1)
+	for _, t := range a {
+		order := new(big.Int).Mul(big.NewInt(2), t.q.Denom())
+		m.Div(new(big.Int).Mul(m, order), new(big.Int).GCD(nil, nil, m, order))
+	}
+	return m
+}
+
 // mergeRoots reduces exponents to [0, 2), writes e^{iπ} as −1, merges
 // equal exponents and drops zero coefficients.
 func mergeRoots(a rootSum) rootSum {
@@ -399,10 +425,8 @@ func cycVertices(vs [][2]problem.Number) (v [][2]cyc, ok bool) {
 			} else if s, ok = readConst[rootSum](rootAlgebra{}, p[k].Text, p[k].Val); !ok {
 				return nil, false
 			}
-			for _, t := range s {
-				order := new(big.Int).Mul(big.NewInt(2), t.q.Denom()) // e^{iπq} is a root of unity of this order
-				m.Div(new(big.Int).Mul(m, order), new(big.Int).GCD(nil, nil, m, order))
-			}
+			order := rootOrder(s)
+			m.Div(new(big.Int).Mul(m, order), new(big.Int).GCD(nil, nil, m, order))
 			sums[i][k] = s
 		}
 	}

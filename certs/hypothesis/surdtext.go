@@ -30,6 +30,23 @@ func (surdAlgebra) rat(a surd) (*big.Rat, bool)     { return a.rat() }
 func (surdAlgebra) sqrtRat(q *big.Rat) (surd, bool) { return sqrtRatSurd(q), true }
 func (surdAlgebra) enclose(a surd) interval.I       { return a.enclose() }
 
+// maxSurdTerms bounds the number of terms of a surd read: 2^6, the terms
+// of a product of sums over six pairwise inequivalent radicands.
+const maxSurdTerms = 64
+
+// fits bounds the number of terms and the size of every rational.
+func (surdAlgebra) fits(a surd) bool {
+	if len(a) > maxSurdTerms {
+		return false
+	}
+	for _, t := range a {
+		if !ratFits(t.q) || !ratFits(t.r) {
+			return false
+		}
+	}
+	return true
+}
+
 // inv inverts a single nonzero term: 1/(q·√r) = √r/(q·r).
 func (surdAlgebra) inv(a surd) (surd, bool) {
 	if len(a) != 1 {

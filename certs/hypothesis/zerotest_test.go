@@ -376,3 +376,36 @@ func TestZeroTestRandomSurds(t *testing.T) {
 		t.Errorf("%d zero and %d nonzero sums; want at least 100 each", zeros, nonzeros)
 	}
 }
+
+// TestReadConstSizeBounds: values whose exact form would grow beyond the
+// bounds (rationals of more than maxRatBits bits, surds of more than
+// maxSurdTerms terms, roots of unity of order above
+// maxCyclotomicOrder) are refused (before these bounds,
+// cos(pi*(((1e400)^64)^64)^16) took over a minute to read and the root
+// sum below 4 s; larger exponents exhaust time or memory) while they are read, so that a short
+// formula cannot make the reader run for minutes or exhaust memory; the
+// readable neighbours stay readable.
+func TestReadConstSizeBounds(t *testing.T) {
+	eight := "(sqrt(2)+sqrt(3)+sqrt(5)+sqrt(7)+sqrt(11)+sqrt(13)+sqrt(17)+sqrt(19))"
+	three := "(cos(pi/7)+cos(pi/11)+cos(pi/13))"
+	for _, tc := range []struct {
+		text       string
+		surd, root bool
+	}{
+		{"cos(pi*((1e400)^64)^64)", false, false},
+		{"(1e300)^64-(1e300)^64", false, false},
+		{eight + "^4-" + eight + "^4", false, false}, // 1 + 28 + 70 terms
+		{three + "^12-" + three + "^12", false, false},
+		{"cos(pi*(1e400)^2)", true, true},
+		{"(sqrt(2)+sqrt(3))^64", true, true},
+		{"(sqrt(2)+sqrt(3)+sqrt(5)+sqrt(7)+sqrt(11)+sqrt(13))^2", true, false},
+		{"(cos(pi/7)+cos(pi/11))^12", false, true},
+	} {
+		if _, ok := readConst[surd](surdAlgebra{}, tc.text, interval.Entire()); ok != tc.surd {
+			t.Errorf("%s: read as a surd %v, want %v", tc.text, ok, tc.surd)
+		}
+		if _, ok := readConst[rootSum](rootAlgebra{}, tc.text, interval.Entire()); ok != tc.root {
+			t.Errorf("%s: read as a root sum %v, want %v", tc.text, ok, tc.root)
+		}
+	}
+}
