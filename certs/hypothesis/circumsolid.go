@@ -68,15 +68,15 @@ const (
 // Elements IV.4); for n ≥ 4 the verdict is "proven" if every D_j is 0 and
 // "disproven" with the witness side j if some D_j is not.
 //
-// Exactness. The coordinates are read exactly, as surds if every one is
-// (numberSurd: rationals, √ of rationals, cos and sin of multiples of
-// π/12, …), else in one cyclotomic field Q(ζ_m) if every one is
-// (cycVertices: cos and sin of any rational multiple of π, rationals,
-// √(s²k) for k ∈ {1, 2, 3, 6}; φ(m) ≤ 240, which covers every regular
-// polygon that fem/problem accepts). The minors M_p and the squared
-// lengths ℓ_k² are then field elements with an exact zero test. The terms
-// whose ℓ_k lies in the field (ℓ_k² rational: always for surds, when a
-// rational square in Q(ζ_m)) form one field element; the others are
+// Exactness. The coordinates are read exactly (package algebraic), as
+// surds if every one is (surdVertices: rationals, √ of rationals, cos and
+// sin of multiples of π/12, …), else in one cyclotomic field Q(ζ_m) if
+// every one is (cycVertices: cos and sin of any rational multiple of π,
+// rationals, √(s²k) for k ∈ {1, 2, 3, 6}; φ(m) ≤ 240, which covers every
+// regular polygon that fem/problem accepts). The minors M_p and the
+// squared lengths ℓ_k² are then field elements with an exact zero test.
+// The terms whose ℓ_k is seen to lie in the field (ℓ_k² rational, and for
+// Q(ζ_m) the square of a rational) form one field element; the others are
 // grouped by ℓ_k² up to rational square factors (ℓ_k = w·ℓ_g, w
 // rational). D_j = 0 is concluded only when that element and every
 // group's coefficient vanish exactly; D_j ≠ 0 is concluded exactly when
@@ -211,60 +211,46 @@ func firstObliqueCorner[T exactField[T]](v [][2]T) int {
 	n := len(v)
 	for i := range n {
 		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
-		d := a[0].sub(b[0]).mul(c[0].sub(b[0])).add(a[1].sub(b[1]).mul(c[1].sub(b[1])))
-		if !d.isZero() {
+		d := a[0].Sub(b[0]).Mul(c[0].Sub(b[0])).Add(a[1].Sub(b[1]).Mul(c[1].Sub(b[1])))
+		if !d.IsZero() {
 			return i
 		}
 	}
 	return -1
 }
 
-// surdVertices reads every coordinate exactly (numberSurd); ok is false
-// if some coordinate is not read.
-func surdVertices(vs [][2]problem.Number) (v [][2]surd, ok bool) {
-	v = make([][2]surd, len(vs))
-	for i, p := range vs {
-		for k := range 2 {
-			if v[i][k], ok = numberSurd(p[k]); !ok {
-				return nil, false
-			}
-		}
-	}
-	return v, true
-}
-
 // exactField is an exact field of real numbers with a zero test: the
-// surds (surd.go) or a cyclotomic field (cyclotomic.go).
+// surds or a cyclotomic field of package algebraic.
 type exactField[T any] interface {
-	add(T) T
-	sub(T) T
-	mul(T) T
-	neg() T
-	scale(*big.Rat) T
-	isZero() bool
-	// rat returns the value if it is rational.
-	rat() (*big.Rat, bool)
-	// ratioSquare returns w > 0 with x = w²·y, if x is such a multiple of y.
-	ratioSquare(T) (*big.Rat, bool)
-	// sqrtRat returns √q as an element of the field, if it is one.
-	sqrtRat(*big.Rat) (T, bool)
-	enclose() interval.I
+	Add(T) T
+	Sub(T) T
+	Mul(T) T
+	Neg() T
+	Scale(*big.Rat) T
+	IsZero() bool
+	// Rat returns the value if it is rational.
+	Rat() (*big.Rat, bool)
+	// RatioSquare returns w > 0 with x = w²·y, if x is such a multiple of y.
+	RatioSquare(T) (*big.Rat, bool)
+	// SqrtRat returns √q as an element of the field, if it is one.
+	SqrtRat(*big.Rat) (T, bool)
+	Enclose() interval.I
 }
 
 // sideRow returns the exact entries −e_y, e_x, e × v and ℓ² of the row of
 // side i.
 func sideRow[T exactField[T]](v [][2]T, i int) (a, b, h, l2 T) {
 	p, q := v[i], v[(i+1)%len(v)]
-	ex, ey := q[0].sub(p[0]), q[1].sub(p[1])
-	return ey.neg(), ex, ex.mul(p[1]).sub(ey.mul(p[0])), ex.mul(ex).add(ey.mul(ey))
+	ex, ey := q[0].Sub(p[0]), q[1].Sub(p[1])
+	return ey.Neg(), ex, ex.Mul(p[1]).Sub(ey.Mul(p[0])), ex.Mul(ex).Add(ey.Mul(ey))
 }
 
 // cross returns the cross product x × y of 3-vectors.
 func cross[T exactField[T]](x, y [3]T) [3]T {
-	return [3]T{x[1].mul(y[2]).sub(x[2].mul(y[1])), x[2].mul(y[0]).sub(x[0].mul(y[2])), x[0].mul(y[1]).sub(x[1].mul(y[0]))}
+	return [3]T{x[1].Mul(y[2]).Sub(x[2].Mul(y[1])), x[2].Mul(y[0]).Sub(x[0].Mul(y[2])), x[0].Mul(y[1]).Sub(x[1].Mul(y[0]))}
 }
 
-func dot[T exactField[T]](x, y [3]T) T { return x[0].mul(y[0]).add(x[1].mul(y[1])).add(x[2].mul(y[2])) }
+func dot[T exactField[T]](x, y [3]T) T { return x[0].Mul(y[0]).Add(x[1].Mul(y[1])).Add(x[2].Mul(y[2])) }
 
 // tangencyTest decides D_j for the sides j ≥ 3 of one polygon. The minor
 // of rows r, s, j is the triple product det[r; s; j] = row_j · (r × s),
@@ -296,22 +282,22 @@ func (t *tangencyTest[T]) residualZero(j int) (zero, ok bool) {
 	rj := [3]T{a, b, h}
 	// M_p without row p: p = 0, 1, 2 involve row j; p = 3 is m3. The sign
 	// (−1)^{p+1} is applied here.
-	minors := [4]T{dot(rj, t.x12).neg(), dot(rj, t.x02), dot(rj, t.x01).neg(), t.m3}
+	minors := [4]T{dot(rj, t.x12).Neg(), dot(rj, t.x02), dot(rj, t.x01).Neg(), t.m3}
 	l2 := [4]T{t.l2[0], t.l2[1], t.l2[2], l2j}
-	exact := t.m3.sub(t.m3) // the terms whose ℓ is in the field
+	exact := t.m3.Sub(t.m3) // the terms whose ℓ is in the field
 	type group struct{ l2, coef T }
 	var groups []group // coef·√l2 with √l2 outside the field, one per class
 	for p, mp := range minors {
-		if s, isRat := l2[p].rat(); isRat {
-			if l, inField := mp.sqrtRat(s); inField {
-				exact = exact.add(mp.mul(l))
+		if s, isRat := l2[p].Rat(); isRat {
+			if l, inField := mp.SqrtRat(s); inField {
+				exact = exact.Add(mp.Mul(l))
 				continue
 			}
 		}
 		placed := false
 		for g := range groups {
-			if w, ok := l2[p].ratioSquare(groups[g].l2); ok {
-				groups[g].coef = groups[g].coef.add(mp.scale(w))
+			if w, ok := l2[p].RatioSquare(groups[g].l2); ok {
+				groups[g].coef = groups[g].coef.Add(mp.Scale(w))
 				placed = true
 				break
 			}
@@ -320,22 +306,22 @@ func (t *tangencyTest[T]) residualZero(j int) (zero, ok bool) {
 			groups = append(groups, group{l2: l2[p], coef: mp})
 		}
 	}
-	allZero := exact.isZero()
+	allZero := exact.IsZero()
 	for _, g := range groups {
-		allZero = allZero && g.coef.isZero()
+		allZero = allZero && g.coef.IsZero()
 	}
 	switch {
 	case allZero:
 		return true, true
 	case len(groups) == 0:
 		return false, true // a nonzero element of the field
-	case len(groups) == 1 && exact.isZero():
+	case len(groups) == 1 && exact.IsZero():
 		return false, true // coef ≠ 0 times √l2 with l2 > 0
 	}
-	d := exact.enclose()
+	d := exact.Enclose()
 	for _, g := range groups {
-		l, _ := g.l2.enclose().Sqrt()
-		d = d.Add(g.coef.enclose().Mul(l))
+		l, _ := g.l2.Enclose().Sqrt()
+		d = d.Add(g.coef.Enclose().Mul(l))
 	}
 	if d.ContainsZero() {
 		return false, false

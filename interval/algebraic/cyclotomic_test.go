@@ -1,4 +1,4 @@
-package hypothesis
+package algebraic
 
 import (
 	"fmt"
@@ -47,13 +47,13 @@ func TestCyclotomicPoly(t *testing.T) {
 }
 
 // cycOf reads text as a root sum and maps it into Q(ζ_m).
-func cycOf(t *testing.T, f *cycField, text string) cyc {
+func cycOf(t *testing.T, f *CyclotomicField, text string) Cyclotomic {
 	t.Helper()
-	s, ok := readConst[rootSum](rootAlgebra{}, text, constNumber(t, text).Val)
+	s, ok := ReadRootSum(canonical(t, text))
 	if !ok {
 		t.Fatalf("%s not read", text)
 	}
-	return f.element(s)
+	return f.Element(s)
 }
 
 // TestCyclotomicIdentities checks identities of trigonometry and roots of
@@ -68,38 +68,38 @@ func TestCyclotomicIdentities(t *testing.T) {
 	for _, k := range []int{1, 2, 3, 7, 11, 29} {
 		c := cycOf(t, f, fmt.Sprintf("cos(%d*pi/30)", k))
 		s := cycOf(t, f, fmt.Sprintf("sin(%d*pi/30)", k))
-		if !c.mul(c).add(s.mul(s)).sub(one).isZero() {
+		if !c.Mul(c).Add(s.Mul(s)).Sub(one).IsZero() {
 			t.Errorf("cos² + sin² ≠ 1 at %dπ/30", k)
 		}
-		if e := c.enclose(); math.Abs(e.Mid()-math.Cos(float64(k)*math.Pi/30)) > 1e-14 {
+		if e := c.Enclose(); math.Abs(e.Mid()-math.Cos(float64(k)*math.Pi/30)) > 1e-14 {
 			t.Errorf("cos(%dπ/30) enclosure %v", k, e)
 		}
-		if e := s.enclose(); math.Abs(e.Mid()-math.Sin(float64(k)*math.Pi/30)) > 1e-14 {
+		if e := s.Enclose(); math.Abs(e.Mid()-math.Sin(float64(k)*math.Pi/30)) > 1e-14 {
 			t.Errorf("sin(%dπ/30) enclosure %v", k, e)
 		}
 	}
 	// 4cos²(2π/5) + 2cos(2π/5) − 1 = 0, since 2cos(2π/5) = (√5 − 1)/2.
 	c := cycOf(t, f, "2*cos(2*pi/5)")
-	if !c.mul(c).add(c).sub(one).isZero() {
+	if !c.Mul(c).Add(c).Sub(one).IsZero() {
 		t.Error("(2cos(2π/5))² + 2cos(2π/5) − 1 ≠ 0")
 	}
 	// Σ_k cos(2πk/5) = 0 (the fifth roots of unity sum to 0), and
 	// (√2·√3)² = 6.
 	sum := cycOf(t, f, "0")
 	for k := range 5 {
-		sum = sum.add(cycOf(t, f, fmt.Sprintf("cos(%d*pi/5)", 2*k)))
+		sum = sum.Add(cycOf(t, f, fmt.Sprintf("cos(%d*pi/5)", 2*k)))
 	}
-	if !sum.isZero() {
+	if !sum.IsZero() {
 		t.Error("Σ cos(2πk/5) ≠ 0")
 	}
 	r6 := cycOf(t, f, "sqrt(2)*sqrt(3)")
-	if !r6.mul(r6).sub(one.scale(big.NewRat(6, 1))).isZero() || r6.enclose().Mid() < 2.449 {
-		t.Errorf("√2·√3: square ≠ 6 or value %v", r6.enclose())
+	if !r6.Mul(r6).Sub(one.Scale(big.NewRat(6, 1))).IsZero() || r6.Enclose().Mid() < 2.449 {
+		t.Errorf("√2·√3: square ≠ 6 or value %v", r6.Enclose())
 	}
-	if c.isZero() || !c.sub(c).isZero() {
+	if c.IsZero() || !c.Sub(c).IsZero() {
 		t.Error("zero test")
 	}
-	if _, ok := readConst[rootSum](rootAlgebra{}, "sqrt(5)", constNumber(t, "sqrt(5)").Val); ok {
+	if _, ok := ReadRootSum(canonical(t, "sqrt(5)")); ok {
 		t.Error("sqrt(5) read, but only √(s²k), k ∈ {1, 2, 3, 6}, is")
 	}
 }

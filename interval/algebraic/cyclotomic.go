@@ -1,36 +1,15 @@
-package hypothesis
+package algebraic
 
 import (
 	"math/big"
 
-	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
 )
 
-// This file holds exact arithmetic in cyclotomic fields Q(ζ_m), ζ_m =
-// e^{2πi/m}, which hold cos and sin of every rational multiple of π (as
-// (ζ^a + ζ^{−a})/2 and (ζ^a − ζ^{−a})/(2i)), hence the vertices of regular
-// polygons written with cos(2*k*pi/n), sin(2*k*pi/n).
-//
-// Reading. A constant formula is first read as a formal sum Σ c·e^{iπq}
-// (rootSum, rational c and q ∈ [0, 2)); once every coordinate of a polygon
-// is read, m is the least common multiple of the orders 2·den(q), and each
-// sum becomes an element of Q(ζ_m) (e^{iπq} = ζ_m^{qm/2}).
-//
-// Zero test. An element is kept as its coefficient vector in the basis
-// 1, ζ, …, ζ^{d−1}, d = φ(m), reduced modulo the cyclotomic polynomial
-// Φ_m, which is the minimal polynomial of ζ_m over Q (Φ_m is irreducible
-// over Q: Gauss for prime m, Dedekind in general; see e.g. S. Lang,
-// Algebra, rev. 3rd ed., Springer 2002, ch. VI §3 — the theorem number is
-// recalled, not checked). So the basis is
-// linearly independent over Q, the vector is unique, and an element is 0
-// if and only if every coefficient is 0. Φ_m is computed exactly as
-// (x^m − 1)/Π_{d | m, d < m} Φ_d (common practice).
-//
-// Values. Every element built here from real formulas is real, so its
-// value is its real part Σ c_j cos(2πj/m), which is enclosed with the
-// interval cosine.
+// This file holds the formal root sums read from formulas and the
+// arithmetic of cyclotomic fields; the zero test rests on the
+// irreducibility of Φ_m (see the package documentation).
 
 // Bounds on the cyclotomic fields used, which keep the tables small: the
 // vertices of a regular n-gon, cos(2πk/n) and sin(2πk/n), lie in Q(ζ_m)
@@ -44,31 +23,33 @@ const (
 // rootTerm is c·e^{iπq}, q ∈ [0, 2).
 type rootTerm struct{ q, c *big.Rat }
 
-// rootSum is a formal sum of rootTerms with distinct q and nonzero c;
-// e^{iπ} is written −1, so a sum with the single exponent 0 is rational.
-type rootSum []rootTerm
+// RootSum is a formal sum Σ c·e^{iπq} with rational c ≠ 0 and distinct
+// rational q ∈ [0, 2); e^{iπ} is written −1, so a sum with the single
+// exponent 0 is rational. It is not a normal form (1 + ζ_3 + ζ_3² is a
+// nonzero RootSum of value 0); zero tests belong to CyclotomicField.
+type RootSum []rootTerm
 
 // rootAlgebra is the algebra of formal root sums for readConst.
 type rootAlgebra struct{}
 
-func (rootAlgebra) fromRat(x *big.Rat) rootSum {
-	return mergeRoots(rootSum{{q: new(big.Rat), c: new(big.Rat).Set(x)}})
+func (rootAlgebra) fromRat(x *big.Rat) RootSum {
+	return mergeRoots(RootSum{{q: new(big.Rat), c: new(big.Rat).Set(x)}})
 }
 
-func (rootAlgebra) add(a, b rootSum) rootSum {
-	return mergeRoots(append(append(rootSum{}, a...), b...))
+func (rootAlgebra) add(a, b RootSum) RootSum {
+	return mergeRoots(append(append(RootSum{}, a...), b...))
 }
 
-func (rootAlgebra) neg(a rootSum) rootSum {
-	out := make(rootSum, len(a))
+func (rootAlgebra) neg(a RootSum) RootSum {
+	out := make(RootSum, len(a))
 	for i, t := range a {
 		out[i] = rootTerm{q: t.q, c: new(big.Rat).Neg(t.c)}
 	}
 	return out
 }
 
-func (rootAlgebra) mul(a, b rootSum) rootSum {
-	var out rootSum
+func (rootAlgebra) mul(a, b RootSum) RootSum {
+	var out RootSum
 	for _, s := range a {
 		for _, t := range b {
 			out = append(out, rootTerm{q: new(big.Rat).Add(s.q, t.q), c: new(big.Rat).Mul(s.c, t.c)})
@@ -77,7 +58,7 @@ func (rootAlgebra) mul(a, b rootSum) rootSum {
 	return mergeRoots(out)
 }
 
-func (rootAlgebra) rat(a rootSum) (*big.Rat, bool) {
+func (rootAlgebra) rat(a RootSum) (*big.Rat, bool) {
 	switch {
 	case len(a) == 0:
 		return new(big.Rat), true
@@ -88,7 +69,7 @@ func (rootAlgebra) rat(a rootSum) (*big.Rat, bool) {
 }
 
 // inv inverts nonzero rationals only.
-func (alg rootAlgebra) inv(a rootSum) (rootSum, bool) {
+func (alg rootAlgebra) inv(a RootSum) (RootSum, bool) {
 	x, ok := alg.rat(a)
 	if !ok || x.Sign() == 0 {
 		return nil, false
@@ -98,7 +79,7 @@ func (alg rootAlgebra) inv(a rootSum) (rootSum, bool) {
 
 // sqrtRat returns √x for x = s²·k with rational s and k ∈ {1, 2, 3, 6},
 // using √2 = 2cos(π/4) and √3 = 2cos(π/6).
-func (alg rootAlgebra) sqrtRat(x *big.Rat) (rootSum, bool) {
+func (alg rootAlgebra) sqrtRat(x *big.Rat) (RootSum, bool) {
 	for _, k := range []int64{1, 2, 3, 6} {
 		s, ok := ratSqrt(new(big.Rat).Quo(x, big.NewRat(k, 1)))
 		if !ok {
@@ -119,12 +100,12 @@ func (alg rootAlgebra) sqrtRat(x *big.Rat) (rootSum, bool) {
 }
 
 // cosPi returns cos(tπ) = (e^{iπt} + e^{−iπt})/2.
-func (rootAlgebra) cosPi(t *big.Rat) (rootSum, bool) {
+func (rootAlgebra) cosPi(t *big.Rat) (RootSum, bool) {
 	half := big.NewRat(1, 2)
-	return mergeRoots(rootSum{{q: new(big.Rat).Set(t), c: half}, {q: new(big.Rat).Neg(t), c: new(big.Rat).Set(half)}}), true
+	return mergeRoots(RootSum{{q: new(big.Rat).Set(t), c: half}, {q: new(big.Rat).Neg(t), c: new(big.Rat).Set(half)}}), true
 }
 
-func (rootAlgebra) enclose(a rootSum) interval.I {
+func (rootAlgebra) enclose(a RootSum) interval.I {
 	var v interval.I
 	for _, t := range a {
 		v = v.Add(decimalio.FromRat(t.c).Mul(interval.Cos(interval.Pi().Mul(decimalio.FromRat(t.q)))))
@@ -135,7 +116,7 @@ func (rootAlgebra) enclose(a rootSum) interval.I {
 // fits bounds the order of the roots of unity (rootOrder ≤
 // maxCyclotomicOrder, which also bounds the number of terms) and the size
 // of every coefficient.
-func (rootAlgebra) fits(a rootSum) bool {
+func (rootAlgebra) fits(a RootSum) bool {
 	if rootOrder(a).Cmp(big.NewInt(maxCyclotomicOrder)) > 0 {
 		return false
 	}
@@ -149,7 +130,7 @@ func (rootAlgebra) fits(a rootSum) bool {
 
 // rootOrder returns the least common multiple of the orders 2·den(q) of
 // the roots of unity e^{iπq} of a (1 for a rational).
-func rootOrder(a rootSum) *big.Int {
+func rootOrder(a RootSum) *big.Int {
 	m := big.NewInt(1)
 	for _, t := range a {
 		order := new(big.Int).Mul(big.NewInt(2), t.q.Denom())
@@ -160,9 +141,9 @@ func rootOrder(a rootSum) *big.Int {
 
 // mergeRoots reduces exponents to [0, 2), writes e^{iπ} as −1, merges
 // equal exponents and drops zero coefficients.
-func mergeRoots(a rootSum) rootSum {
+func mergeRoots(a RootSum) RootSum {
 	two := big.NewRat(2, 1)
-	var out rootSum
+	var out RootSum
 	for _, t := range a {
 		q := new(big.Rat).Set(t.q)
 		// q mod 2 in [0, 2): subtract 2·floor(q/2).
@@ -196,17 +177,17 @@ func mergeRoots(a rootSum) rootSum {
 	return out[:k]
 }
 
-// cycField is Q(ζ_m) with the tables used by its arithmetic.
-type cycField struct {
+// CyclotomicField is Q(ζ_m) with the tables used by its arithmetic.
+type CyclotomicField struct {
 	m, deg int
 	phi    []*big.Rat   // Φ_m, monic, coefficients from x^0 to x^deg
 	pow    [][]*big.Rat // x^a mod Φ_m for 0 ≤ a < m
 	cos    []interval.I // enclosures of cos(2πj/m), 0 ≤ j < deg
 }
 
-// cyc is an element of a cycField: Σ c[j] ζ^j, len(c) = deg.
-type cyc struct {
-	f *cycField
+// Cyclotomic is an element of a CyclotomicField: Σ c[j] ζ^j, len(c) = deg.
+type Cyclotomic struct {
+	f *CyclotomicField
 	c []*big.Rat
 }
 
@@ -242,7 +223,7 @@ func cyclotomicPoly(m int, memo map[int][]*big.Int) []*big.Int {
 }
 
 // newCycField returns Q(ζ_m), or false if m or φ(m) exceeds its bound.
-func newCycField(m int) (*cycField, bool) {
+func newCycField(m int) (*CyclotomicField, bool) {
 	if m < 1 || m > maxCyclotomicOrder {
 		return nil, false
 	}
@@ -251,7 +232,7 @@ func newCycField(m int) (*cycField, bool) {
 	if deg > maxCyclotomicDegree {
 		return nil, false
 	}
-	f := &cycField{m: m, deg: deg}
+	f := &CyclotomicField{m: m, deg: deg}
 	for _, c := range pi {
 		f.phi = append(f.phi, new(big.Rat).SetInt(c))
 	}
@@ -277,7 +258,7 @@ func newCycField(m int) (*cycField, bool) {
 	return f, true
 }
 
-func (f *cycField) zeroVec() []*big.Rat {
+func (f *CyclotomicField) zeroVec() []*big.Rat {
 	v := make([]*big.Rat, f.deg)
 	for i := range v {
 		v[i] = new(big.Rat)
@@ -285,24 +266,24 @@ func (f *cycField) zeroVec() []*big.Rat {
 	return v
 }
 
-// element returns the element of f equal to the root sum a; every
+// Element returns the element of f equal to the root sum a; every
 // exponent q of a must satisfy qm/2 ∈ Z.
-func (f *cycField) element(a rootSum) cyc {
+func (f *CyclotomicField) Element(a RootSum) Cyclotomic {
 	v := f.zeroVec()
 	for _, t := range a {
 		e := new(big.Rat).Mul(t.q, big.NewRat(int64(f.m), 2))
 		if !e.IsInt() {
-			panic("hypothesis: root of unity outside the field")
+			panic("algebraic: root of unity outside the field")
 		}
 		p := f.pow[e.Num().Int64()]
 		for j := range v {
 			v[j].Add(v[j], new(big.Rat).Mul(t.c, p[j]))
 		}
 	}
-	return cyc{f: f, c: v}
+	return Cyclotomic{f: f, c: v}
 }
 
-func (a cyc) combine(b cyc, sign int) cyc {
+func (a Cyclotomic) combine(b Cyclotomic, sign int) Cyclotomic {
 	v := a.f.zeroVec()
 	for j := range v {
 		if sign > 0 {
@@ -311,22 +292,29 @@ func (a cyc) combine(b cyc, sign int) cyc {
 			v[j].Sub(a.c[j], b.c[j])
 		}
 	}
-	return cyc{f: a.f, c: v}
+	return Cyclotomic{f: a.f, c: v}
 }
 
-func (a cyc) add(b cyc) cyc { return a.combine(b, 1) }
-func (a cyc) sub(b cyc) cyc { return a.combine(b, -1) }
-func (a cyc) neg() cyc      { return a.scale(big.NewRat(-1, 1)) }
+// Add returns a + b (both of one field).
+func (a Cyclotomic) Add(b Cyclotomic) Cyclotomic { return a.combine(b, 1) }
 
-func (a cyc) scale(s *big.Rat) cyc {
+// Sub returns a − b.
+func (a Cyclotomic) Sub(b Cyclotomic) Cyclotomic { return a.combine(b, -1) }
+
+// Neg returns −a.
+func (a Cyclotomic) Neg() Cyclotomic { return a.Scale(big.NewRat(-1, 1)) }
+
+// Scale returns s·a for a rational s.
+func (a Cyclotomic) Scale(s *big.Rat) Cyclotomic {
 	v := a.f.zeroVec()
 	for j := range v {
 		v[j].Mul(a.c[j], s)
 	}
-	return cyc{f: a.f, c: v}
+	return Cyclotomic{f: a.f, c: v}
 }
 
-func (a cyc) mul(b cyc) cyc {
+// Mul returns a·b, reduced modulo Φ_m.
+func (a Cyclotomic) Mul(b Cyclotomic) Cyclotomic {
 	d := a.f.deg
 	r := make([]*big.Rat, 2*d-1)
 	for i := range r {
@@ -351,10 +339,11 @@ func (a cyc) mul(b cyc) cyc {
 			r[k-d+i].Sub(r[k-d+i], t.Mul(r[k], a.f.phi[i]))
 		}
 	}
-	return cyc{f: a.f, c: r[:d]}
+	return Cyclotomic{f: a.f, c: r[:d]}
 }
 
-func (a cyc) isZero() bool {
+// IsZero reports whether a is 0, exactly.
+func (a Cyclotomic) IsZero() bool {
 	for _, x := range a.c {
 		if x.Sign() != 0 {
 			return false
@@ -363,7 +352,8 @@ func (a cyc) isZero() bool {
 	return true
 }
 
-func (a cyc) rat() (*big.Rat, bool) {
+// Rat returns the value of a and true when a is rational.
+func (a Cyclotomic) Rat() (*big.Rat, bool) {
 	for _, x := range a.c[1:] {
 		if x.Sign() != 0 {
 			return nil, false
@@ -372,15 +362,15 @@ func (a cyc) rat() (*big.Rat, bool) {
 	return new(big.Rat).Set(a.c[0]), true
 }
 
-// ratioSquare returns a rational w > 0 with a = w²·b and true, if there
+// RatioSquare returns a rational w > 0 with a = w²·b and true, if there
 // is one (b ≠ 0).
-func (a cyc) ratioSquare(b cyc) (*big.Rat, bool) {
+func (a Cyclotomic) RatioSquare(b Cyclotomic) (*big.Rat, bool) {
 	for j, y := range b.c {
 		if y.Sign() == 0 {
 			continue
 		}
 		c := new(big.Rat).Quo(a.c[j], y)
-		if c.Sign() <= 0 || !a.sub(b.scale(c)).isZero() {
+		if c.Sign() <= 0 || !a.Sub(b.Scale(c)).IsZero() {
 			return nil, false
 		}
 		return ratSqrt(c)
@@ -388,19 +378,20 @@ func (a cyc) ratioSquare(b cyc) (*big.Rat, bool) {
 	return nil, false
 }
 
-// sqrtRat returns √x when x is the square of a rational.
-func (a cyc) sqrtRat(x *big.Rat) (cyc, bool) {
+// SqrtRat returns √x as an element of a's field when x is the square of
+// a rational.
+func (a Cyclotomic) SqrtRat(x *big.Rat) (Cyclotomic, bool) {
 	s, ok := ratSqrt(x)
 	if !ok {
-		return cyc{}, false
+		return Cyclotomic{}, false
 	}
 	v := a.f.zeroVec()
 	v[0].Set(s)
-	return cyc{f: a.f, c: v}, true
+	return Cyclotomic{f: a.f, c: v}, true
 }
 
-// enclose encloses the value of a real element: Σ c_j cos(2πj/m).
-func (a cyc) enclose() interval.I {
+// Enclose encloses the value of a real element: Σ c_j cos(2πj/m).
+func (a Cyclotomic) Enclose() interval.I {
 	var v interval.I
 	for j, x := range a.c {
 		if x.Sign() != 0 {
@@ -410,38 +401,28 @@ func (a cyc) enclose() interval.I {
 	return v
 }
 
-// cycVertices reads every coordinate as a root sum (readConst with
-// rootAlgebra) and returns the vertices in the smallest cyclotomic field
-// holding them all; ok is false if some coordinate is not read or the
-// field's degree exceeds maxCyclotomicDegree.
-func cycVertices(vs [][2]problem.Number) (v [][2]cyc, ok bool) {
-	sums := make([][2]rootSum, len(vs))
-	m := big.NewInt(1)
-	for i, p := range vs {
-		for k := range 2 {
-			var s rootSum
-			if p[k].Rat != nil {
-				s = rootAlgebra{}.fromRat(p[k].Rat)
-			} else if s, ok = readConst[rootSum](rootAlgebra{}, p[k].Text, p[k].Val); !ok {
-				return nil, false
-			}
-			order := rootOrder(s)
-			m.Div(new(big.Int).Mul(m, order), new(big.Int).GCD(nil, nil, m, order))
-			sums[i][k] = s
+// NewRootSum returns the root sum of the rational q.
+func NewRootSum(q *big.Rat) RootSum { return rootAlgebra{}.fromRat(q) }
+
+// ReadRootSum reads the constant formula text (in the canonical form of
+// package formula) as a root sum, exactly; ok is false if some step leaves
+// the root sums (see the package documentation), or if the value's
+// enclosure misses val, the enclosure of the same text by package formula.
+func ReadRootSum(text string, val interval.I) (s RootSum, ok bool) {
+	return readConst[RootSum](rootAlgebra{}, text, val)
+}
+
+// CyclotomicFieldOf returns the smallest cyclotomic field Q(ζ_m) that
+// holds every one of sums (m is the least common multiple of their orders,
+// and at least 2); ok is false if m exceeds 1000 or φ(m) exceeds 240.
+func CyclotomicFieldOf(sums ...RootSum) (f *CyclotomicField, ok bool) {
+	m := big.NewInt(2)
+	for _, s := range sums {
+		order := rootOrder(s)
+		m.Div(new(big.Int).Mul(m, order), new(big.Int).GCD(nil, nil, m, order))
+		if m.Cmp(big.NewInt(maxCyclotomicOrder)) > 0 {
+			return nil, false
 		}
 	}
-	if !m.IsInt64() || m.Int64() > maxCyclotomicOrder {
-		return nil, false
-	}
-	f, ok := newCycField(int(m.Int64()))
-	if !ok {
-		return nil, false
-	}
-	v = make([][2]cyc, len(vs))
-	for i := range sums {
-		for k := range 2 {
-			v[i][k] = f.element(sums[i][k])
-		}
-	}
-	return v, true
+	return newCycField(int(m.Int64()))
 }

@@ -1,4 +1,4 @@
-package hypothesis
+package algebraic
 
 import (
 	"math/big"
@@ -7,8 +7,8 @@ import (
 	"gapcert/interval/decimalio"
 )
 
-// This file reads the exact value of a constant number of a problem file
-// (its canonical formula text, problem.Number.Text) in an exact algebra:
+// This file reads the exact value of a constant formula (in the canonical
+// text of package formula, as problem files store it) in an exact algebra:
 // the surds (surd.go) or the sums of rational multiples of roots of unity
 // (cyclotomic.go). The text is read in the grammar of package
 // interval/formula:
@@ -26,9 +26,9 @@ import (
 // interval enclosure. Values that outgrow the algebra's size bounds
 // (fits; rationals of more than maxRatBits bits) are not read either, so
 // that a short formula such as ((1e400)^64)^64 cannot make the reader run
-// for minutes or exhaust memory. As a guard against a misreading, a value is used
-// only when its enclosure meets the number's own enclosure (see the
-// callers).
+// for minutes or exhaust memory. As a guard against a misreading, a value
+// is returned only when its enclosure meets the enclosure of the same
+// text by package formula.
 
 // constAlgebra is an exact algebra of real numbers the reader evaluates
 // in; an operation whose result is not in the algebra reports false.

@@ -1,4 +1,4 @@
-package hypothesis
+package algebraic
 
 import (
 	"fmt"
@@ -72,19 +72,19 @@ func TestReadConstAgainstFormula(t *testing.T) {
 				t.Errorf("%s in %s: %v, formula gives %v", text, name, enc, val)
 			}
 		}
-		if s, ok := readConst[surd](surdAlgebra{}, text, val); ok {
+		if s, ok := readConst[Surd](surdAlgebra{}, text, val); ok {
 			readSurd++
-			check("surds", s.enclose())
+			check("surds", s.Enclose())
 		}
-		if r, ok := readConst[rootSum](rootAlgebra{}, text, val); ok {
+		if r, ok := readConst[RootSum](rootAlgebra{}, text, val); ok {
 			readRoot++
 			check("root sums", rootAlgebra{}.enclose(r))
 		}
 		// Without the guard: a misreading must not hide behind it.
-		if s, ok := readConst[surd](surdAlgebra{}, text, interval.Entire()); ok {
-			check("surds, unguarded", s.enclose())
+		if s, ok := readConst[Surd](surdAlgebra{}, text, interval.Entire()); ok {
+			check("surds, unguarded", s.Enclose())
 		}
-		if r, ok := readConst[rootSum](rootAlgebra{}, text, interval.Entire()); ok {
+		if r, ok := readConst[RootSum](rootAlgebra{}, text, interval.Entire()); ok {
 			check("root sums, unguarded", rootAlgebra{}.enclose(r))
 		}
 	}

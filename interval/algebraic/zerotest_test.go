@@ -1,4 +1,4 @@
-package hypothesis
+package algebraic
 
 import (
 	"fmt"
@@ -6,7 +6,6 @@ import (
 	"math/rand/v2"
 	"testing"
 
-	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/formula"
 )
@@ -105,15 +104,17 @@ func readExactly(t *testing.T, src string, guarded bool) exactReading {
 			t.Fatalf("%s: %v", src, err)
 		}
 	}
-	n := problem.Number{Text: e.String(), Val: val}
 	var r exactReading
-	if s, ok := numberSurd(n); ok {
-		r.surdRead, r.surdZero = true, s.isZero()
-		r.enclosures = append(r.enclosures, s.enclose())
+	if s, ok := ReadSurd(e.String(), val); ok {
+		r.surdRead, r.surdZero = true, s.IsZero()
+		r.enclosures = append(r.enclosures, s.Enclose())
 	}
-	if v, ok := cycVertices([][2]problem.Number{{n, n}}); ok {
-		r.cycRead, r.cycZero = true, v[0][0].isZero()
-		r.enclosures = append(r.enclosures, v[0][0].enclose())
+	if s, ok := ReadRootSum(e.String(), val); ok {
+		if f, ok := CyclotomicFieldOf(s); ok {
+			c := f.Element(s)
+			r.cycRead, r.cycZero = true, c.IsZero()
+			r.enclosures = append(r.enclosures, c.Enclose())
+		}
 	}
 	return r
 }
@@ -380,11 +381,10 @@ func TestZeroTestRandomSurds(t *testing.T) {
 // TestReadConstSizeBounds: values whose exact form would grow beyond the
 // bounds (rationals of more than maxRatBits bits, surds of more than
 // maxSurdTerms terms, roots of unity of order above
-// maxCyclotomicOrder) are refused (before these bounds,
-// cos(pi*(((1e400)^64)^64)^16) took over a minute to read and the root
-// sum below 4 s; larger exponents exhaust time or memory) while they are read, so that a short
-// formula cannot make the reader run for minutes or exhaust memory; the
-// readable neighbours stay readable.
+// maxCyclotomicOrder) are refused while they are read, so that a short
+// formula cannot make the reader run for minutes or exhaust memory (before
+// these bounds, cos(pi*(((1e400)^64)^64)^16) took over a minute to read and
+// the root sum below 4 s); the readable neighbours stay readable.
 func TestReadConstSizeBounds(t *testing.T) {
 	eight := "(sqrt(2)+sqrt(3)+sqrt(5)+sqrt(7)+sqrt(11)+sqrt(13)+sqrt(17)+sqrt(19))"
 	three := "(cos(pi/7)+cos(pi/11)+cos(pi/13))"
@@ -401,10 +401,10 @@ func TestReadConstSizeBounds(t *testing.T) {
 		{"(sqrt(2)+sqrt(3)+sqrt(5)+sqrt(7)+sqrt(11)+sqrt(13))^2", true, false},
 		{"(cos(pi/7)+cos(pi/11))^12", false, true},
 	} {
-		if _, ok := readConst[surd](surdAlgebra{}, tc.text, interval.Entire()); ok != tc.surd {
+		if _, ok := readConst[Surd](surdAlgebra{}, tc.text, interval.Entire()); ok != tc.surd {
 			t.Errorf("%s: read as a surd %v, want %v", tc.text, ok, tc.surd)
 		}
-		if _, ok := readConst[rootSum](rootAlgebra{}, tc.text, interval.Entire()); ok != tc.root {
+		if _, ok := readConst[RootSum](rootAlgebra{}, tc.text, interval.Entire()); ok != tc.root {
 			t.Errorf("%s: read as a root sum %v, want %v", tc.text, ok, tc.root)
 		}
 	}
