@@ -2,6 +2,7 @@ package algebraic
 
 import (
 	"math/big"
+	"slices"
 
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -167,14 +168,7 @@ func mergeRoots(a RootSum) RootSum {
 			out = append(out, rootTerm{q: q, c: c})
 		}
 	}
-	k := 0
-	for _, t := range out {
-		if t.c.Sign() != 0 {
-			out[k] = t
-			k++
-		}
-	}
-	return out[:k]
+	return slices.DeleteFunc(out, func(t rootTerm) bool { return t.c.Sign() == 0 })
 }
 
 // CyclotomicField is Q(ζ_m) with the tables used by its arithmetic.

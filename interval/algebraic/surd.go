@@ -2,6 +2,7 @@ package algebraic
 
 import (
 	"math/big"
+	"slices"
 
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -79,14 +80,7 @@ func normalise(s Surd) Surd {
 		}
 		out = append(out, surdTerm{q: q, r: r})
 	}
-	k := 0
-	for _, t := range out {
-		if t.q.Sign() != 0 {
-			out[k] = t
-			k++
-		}
-	}
-	return out[:k]
+	return slices.DeleteFunc(out, func(t surdTerm) bool { return t.q.Sign() == 0 })
 }
 
 // IsZero reports whether s is 0, exactly.
