@@ -17,6 +17,8 @@ var deciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.ZeroPotential:     ZeroPotential,
 	named.Triangle:          Triangle,
 	named.Rectangle:         Rectangle,
+
+	TangentialPolygon: Tangential, CircumsolidProduct: ProductOfCircumsolids,
 }
 
 // Decide returns the verdict on the hypothesis called name for p; ok is

@@ -5,7 +5,9 @@
 // detail in words.
 //
 // Guarantees. "proven" and "disproven" are decided exactly (boundary
-// kinds, vertex counts, big.Rat arithmetic on rational coordinates) or by
+// kinds, vertex counts, big.Rat arithmetic on rational coordinates, and
+// the exact algebraic numbers of package interval/algebraic for tangency
+// and right angles at irrational coordinates) or by
 // outward-rounded interval arithmetic (package interval) whose enclosure
 // settles the sign in question; a sign that the enclosures do not settle
 // gives "undecided", never a guess. Floating point at round-to-nearest only
