@@ -186,3 +186,45 @@ func TestLogConcavityWitnessInsideForEveryExactEnd(t *testing.T) {
 		t.Fatalf("witness X = %v reaches outside [A.Hi, B.Lo] = [%v, %v]", w.X, p.A.Hi, p.B.Lo)
 	}
 }
+
+// mustPanic reports whether f panics.
+func mustPanic(f func()) (panicked bool) {
+	defer func() { panicked = recover() != nil }()
+	f()
+	return false
+}
+
+// An interval.I written as a struct literal can have Lo > Hi (no
+// constructor ran). Such a "λ enclosure" is misuse and must panic: with
+// λ = {Lo: 10, Hi: 3.741…} for the double well (λ1 ≈ 3.74106), LogConcavity
+// answers proven, which is false (the ground state is not log-concave,
+// TestLogConcavityVerdicts); EigenvectorError with λ2 = {Lo: 100, Hi: 2}
+// returns a small bound from a wrong gap. The same holds for the ends and
+// the Robin coefficient (A = {Lo: 1, Hi: −1} passes the length check).
+//
+// Fails at the time of writing (no check of the intervals' ends).
+func TestInvalidIntervalsPanic(t *testing.T) {
+	p, _ := doubleWellCase(t)
+	reversed := interval.I{Lo: 10, Hi: 3.7410583827548427}
+	if !mustPanic(func() { _, _ = LogConcavity(p, reversed, Options{MaxPieces: 1 << 12}) }) {
+		t.Error("LogConcavity accepted λ = {Lo: 10, Hi: 3.74…}")
+	}
+	if !mustPanic(func() { _, _ = Shoot(p, LeftEnd, reversed, 1, Options{}) }) {
+		t.Error("Shoot accepted λ = {Lo: 10, Hi: 3.74…}")
+	}
+	q := p
+	q.A = interval.I{Lo: -2.4, Hi: -2.6}
+	if !mustPanic(func() { _, _ = Shoot(q, LeftEnd, interval.Point(3.75), 1, Options{}) }) {
+		t.Error("Shoot accepted A = {Lo: −2.4, Hi: −2.6}")
+	}
+	q = p
+	q.Left = Boundary{Kind: Robin, Alpha: interval.I{Lo: 1, Hi: 0}}
+	if !mustPanic(func() { _, _ = Shoot(q, LeftEnd, interval.Point(3.75), 1, Options{}) }) {
+		t.Error("Shoot accepted α = {Lo: 1, Hi: 0}")
+	}
+	if !mustPanic(func() {
+		_, _ = EigenvectorError(interval.Point(1.5), interval.Point(1), interval.Point(1), interval.I{Lo: 100, Hi: 2}, 0)
+	}) {
+		t.Error("EigenvectorError accepted λ2 = {Lo: 100, Hi: 2}")
+	}
+}
