@@ -110,6 +110,7 @@ func (e *InconsistentError) Error() string {
 // does not enclose λ1). Misuse panics as for Shoot.
 func LogConcavity(p Problem, lambda interval.I, opt Options) (*LogConcavityResult, error) {
 	length := checkProblem(p)
+	mustBeLambda(lambda)
 	opt = opt.withDefaults(length.Mid())
 	enc, err := Enclose(p, lambda, opt)
 	if err != nil {

@@ -196,6 +196,7 @@ var errStepTooSmall = errors.New("no a priori enclosure down to the smallest ste
 // A ≥ B, reach ≤ 0 or beyond (B − A).Lo, or an unknown boundary kind.
 func Shoot(p Problem, end End, lambda interval.I, reach float64, opt Options) (*Shot, error) {
 	length := checkProblem(p)
+	mustBeLambda(lambda)
 	if !(reach > 0) || reach > length.Lo {
 		panic("groundstate: reach must lie in (0, b − a]")
 	}
@@ -274,11 +275,29 @@ func kinkDistances(v *formula.Expr, start interval.I, sigma, reach float64) []fl
 	return out
 }
 
+// mustBeInterval panics unless x is an interval: no NaN end and Lo ≤ Hi
+// (an interval.I written as a struct literal need not be one).
+func mustBeInterval(name string, x interval.I) {
+	if !(x.Lo <= x.Hi) {
+		panic(fmt.Sprintf("groundstate: %s = %v is not an interval", name, x))
+	}
+}
+
+// mustBeLambda panics unless lambda is a bounded interval.
+func mustBeLambda(lambda interval.I) {
+	mustBeInterval("λ", lambda)
+	if !lambda.IsBounded() {
+		panic("groundstate: the enclosure of λ must be bounded")
+	}
+}
+
 // checkProblem panics on misuse and returns an enclosure of b − a.
 func checkProblem(p Problem) interval.I {
 	if p.V == nil {
 		panic("groundstate: nil potential")
 	}
+	mustBeInterval("a", p.A)
+	mustBeInterval("b", p.B)
 	length := p.B.Sub(p.A)
 	if !length.Positive() || !length.IsBounded() {
 		panic("groundstate: the interval's ends must be bounded with a < b")
@@ -287,6 +306,7 @@ func checkProblem(p Problem) interval.I {
 		switch bc.Kind {
 		case Dirichlet, Neumann:
 		case Robin:
+			mustBeInterval("α", bc.Alpha)
 			if !bc.Alpha.IsBounded() {
 				panic("groundstate: unbounded Robin coefficient")
 			}
@@ -467,6 +487,7 @@ type Enclosure struct {
 // (a choice) with lambda ∋ λ1; see Shoot.
 func Enclose(p Problem, lambda interval.I, opt Options) (*Enclosure, error) {
 	checkProblem(p)
+	mustBeLambda(lambda)
 	split := p.A.Add(p.B).Mid() / 2
 	left, err := Shoot(p, LeftEnd, lambda, interval.Point(split).Sub(p.A).Hi, opt)
 	if err != nil {
