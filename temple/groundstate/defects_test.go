@@ -43,9 +43,8 @@ func refSolutionAcrossKink(vLeft, vRight polyPotential, kink float64, lambda *bi
 // have a node at 0 encloses the solution; this test expects Shoot to
 // succeed and contain the reference solution (piecewise, 256 bits).
 //
-// Fails at the time of writing: Shoot's steps from −1 (MaxStep 3/64) do not
-// stop at 0, Model1 refuses abs on the step that contains 0, and Shoot
-// returns an *IntegrationError instead of halving or splitting the step.
+// Without a node at 0 (steps of 3/64 from −1) Model1 refuses abs on the
+// step that contains 0; Shoot ends a step at each listed kink.
 func TestShootThroughListedKink(t *testing.T) {
 	p := Problem{V: formula.MustParse("abs(x)"), A: interval.Point(-1), B: interval.Point(2),
 		Left: Boundary{Kind: Dirichlet}, Right: Boundary{Kind: Dirichlet}}
@@ -88,9 +87,9 @@ func TestShootThroughListedKink(t *testing.T) {
 // exact one, whose minimum is 1/16). This test expects Shoot to succeed
 // and contain the reference solution (256 bits).
 //
-// Fails at the time of writing: Shoot returns the Model1 domain error as an
-// *IntegrationError at once; it halves only when the a priori enclosure
-// fails.
+// Shoot answers a Model1 error with a smaller step, and keeps V's Taylor
+// remainder small (on the default step it was ±3.2, which made u(2.9)
+// about 17 wide).
 func TestShootHalvesStepOnOverestimatedDomain(t *testing.T) {
 	v := polyPotential{
 		Coef: []*big.Rat{big.NewRat(1, 1)},
@@ -137,8 +136,7 @@ func TestShootHalvesStepOnOverestimatedDomain(t *testing.T) {
 // waits 30 s (a run that terminates takes milliseconds; V = x² on (−8, 8)
 // needs steps well below 16).
 //
-// Fails at the time of writing (Shoot loops forever; the goroutine is left
-// spinning until the test binary exits).
+// (If Shoot hangs, the goroutine spins until the test binary exits.)
 func TestShootInfiniteMaxStepTerminates(t *testing.T) {
 	p := Problem{V: formula.MustParse("x^2"), A: interval.Point(-8), B: interval.Point(8),
 		Left: Boundary{Kind: Dirichlet}, Right: Boundary{Kind: Dirichlet}}
@@ -171,7 +169,7 @@ func TestShootInfiniteMaxStepTerminates(t *testing.T) {
 // V = 10 − 10x with a Neumann left end and λ = 1: g(a) = V(a) − λ > 0, so
 // the first piece of the left shot is a witness.
 //
-// Fails at the time of writing (X = [−0.01, 0.04125]).
+// (The hull over every exact end was X = [−0.01, 0.04125].)
 func TestLogConcavityWitnessInsideForEveryExactEnd(t *testing.T) {
 	p := Problem{V: formula.MustParse("10 - 10*x"), A: interval.New(-0.01, 0.01), B: interval.Point(2),
 		Left: Boundary{Kind: Neumann}, Right: Boundary{Kind: Dirichlet}}
@@ -196,13 +194,11 @@ func mustPanic(f func()) (panicked bool) {
 
 // An interval.I written as a struct literal can have Lo > Hi (no
 // constructor ran). Such a "λ enclosure" is misuse and must panic: with
-// λ = {Lo: 10, Hi: 3.741…} for the double well (λ1 ≈ 3.74106), LogConcavity
-// answers proven, which is false (the ground state is not log-concave,
+// λ = {Lo: 10, Hi: 3.741…} for the double well (λ1 ≈ 3.74106), an
+// unchecked LogConcavity answered proven, which is false (the ground state is not log-concave,
 // TestLogConcavityVerdicts); EigenvectorError with λ2 = {Lo: 100, Hi: 2}
-// returns a small bound from a wrong gap. The same holds for the ends and
+// returned a small bound from a wrong gap. The same holds for the ends and
 // the Robin coefficient (A = {Lo: 1, Hi: −1} passes the length check).
-//
-// Fails at the time of writing (no check of the intervals' ends).
 func TestInvalidIntervalsPanic(t *testing.T) {
 	p, _ := doubleWellCase(t)
 	reversed := interval.I{Lo: 10, Hi: 3.7410583827548427}
