@@ -54,10 +54,15 @@ func (e *NotSeparatedError) Error() string {
 // and the exact one is not bounded here.
 //
 // It returns a *NotSeparatedError, and no bounds, when lambda2.Lo ≤ R.Hi
-// (this includes λ1 not certified simple, since R ≥ λ1). It panics if bUU
-// is not positive or if lambda1 + gamma < 0 (then V + γ ≥ 0 cannot hold,
-// as λ1 ≥ inf V); the part of lambda1 + gamma below 0 is cut off.
+// (this includes λ1 not certified simple, since R ≥ λ1). It panics if an
+// argument is not an interval (Lo > Hi or NaN), if bUU is not positive or
+// if lambda1 + gamma < 0 (then V + γ ≥ 0 cannot hold, as λ1 ≥ inf V); the
+// part of lambda1 + gamma below 0 is cut off.
 func EigenvectorError(aUU, bUU, lambda1, lambda2 interval.I, gamma float64) (VectorError, error) {
+	mustBeInterval("a(ũ, ũ)", aUU)
+	mustBeInterval("b(ũ, ũ)", bUU)
+	mustBeInterval("λ1", lambda1)
+	mustBeInterval("λ2", lambda2)
 	if !bUU.Positive() {
 		panic("groundstate: b(ũ, ũ) must be positive")
 	}

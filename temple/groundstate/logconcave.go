@@ -33,6 +33,9 @@ func (v Verdict) String() string {
 // Witness is a set of points where log u is strictly convex: for every x
 // in X and every member of the shot's family (the ground state among them),
 // g(x) = (V − λ)u² − u′² ∈ G with G.Lo > 0 and u(x) ∈ U with U.Lo > 0.
+// When an end of the interval is known only as an enclosure, X holds the
+// points certified for every exact end in it (never points outside the
+// interval).
 type Witness struct {
 	X, U, DU, G interval.I
 	// From is the end whose normalisation U and DU carry.
@@ -88,7 +91,9 @@ func (e *InconsistentError) Error() string {
 //     the right shot [split, b], so g ≤ 0 on all of (a, b), where u > 0
 //     (Sturm), and log u is concave on (a, b) (and u is log-concave on
 //     [a, b], with log 0 = −∞ at a Dirichlet end).
-//   - Disproven at the first piece with g.Lo > 0 and u.Lo > 0: there
+//   - Disproven at the first piece with g.Lo > 0 and u.Lo > 0 whose points
+//     are certain for every exact end in the end enclosure
+//     (certainPoints; all of them when the ends are exact): there
 //     (log u)″ > 0 for the ground state, so log u is strictly convex on an
 //     interval and not concave.
 //   - Undecided otherwise, after bisecting each undecided piece up to
@@ -105,6 +110,7 @@ func (e *InconsistentError) Error() string {
 // does not enclose λ1). Misuse panics as for Shoot.
 func LogConcavity(p Problem, lambda interval.I, opt Options) (*LogConcavityResult, error) {
 	length := checkProblem(p)
+	mustBeLambda(lambda)
 	opt = opt.withDefaults(length.Mid())
 	enc, err := Enclose(p, lambda, opt)
 	if err != nil {
@@ -143,11 +149,9 @@ func LogConcavity(p Problem, lambda interval.I, opt Options) (*LogConcavityResul
 			}
 			continue
 		}
-		if g.Lo > 0 && w.Lo > 0 {
+		if x, certain := pc.shot.certainPoints(pc.cell, pc.xi); certain && g.Lo > 0 && w.Lo > 0 {
 			res.Verdict = Disproven
-			res.Witness = &Witness{
-				X: pc.shot.points(pc.cell, pc.xi), U: w, DU: ws.MulF(pc.shot.sigma), G: g, From: pc.shot.End,
-			}
+			res.Witness = &Witness{X: x, U: w, DU: ws.MulF(pc.shot.sigma), G: g, From: pc.shot.End}
 			res.WorstUpper, res.WorstAt = g.Hi, res.Witness.X
 			return res, nil
 		}

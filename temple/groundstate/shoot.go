@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 
 	"gapcert/interval"
 	"gapcert/interval/formula"
@@ -52,8 +53,11 @@ const (
 // Options controls the validated integration and the verdict search.
 // Zero values take the defaults.
 type Options struct {
-	// MaxStep is the largest step (default (b − a)/64). Steps are halved
-	// where the a priori enclosure fails or h²·max|V − λ| > 1/4.
+	// MaxStep is the largest step (default (b − a)/64, at most b − a).
+	// Steps are halved where V has no Taylor model, the a priori
+	// enclosure fails or h²·max|V − λ| > 1/4, and (at most 4 times) where
+	// h² times V's Taylor remainder exceeds 2⁻⁵²; they end at the kinks
+	// of V that formula.Kinks lists.
 	MaxStep float64
 	// Degree is the degree of the Taylor models in the step variable
 	// (default 14) and of V's model (min(Degree, 10)).
@@ -66,9 +70,12 @@ type Options struct {
 }
 
 func (o Options) withDefaults(length float64) Options {
-	if o.MaxStep <= 0 {
+	if !(o.MaxStep > 0) { // also NaN
 		o.MaxStep = length / 64
 	}
+	// A step longer than the interval is never taken; an infinite MaxStep
+	// would also survive halving (∞/2 = ∞).
+	o.MaxStep = math.Min(o.MaxStep, length)
 	if o.Degree <= 0 {
 		o.Degree = 14
 	}
@@ -177,14 +184,19 @@ var errStepTooSmall = errors.New("no a priori enclosure down to the smallest ste
 // the oscillatory part of the shot. (Measured: sin x on (0, π) with
 // λ = 1 exactly, 8, 32, 158 steps to π/2 give widths 6e-15, 3e-14, 1.4e-13
 // at x = 1.5; a QR (Lohner) step is not needed at these sizes.) Steps are
-// halved when stage 2 fails or h²·|Q| > 1/4 (a choice).
+// halved when V has no Taylor model on the step (a kink inside it, or an
+// interval overestimation that makes V look undefined), when stage 2
+// fails, when h²·|Q| > 1/4, and up to 4 times when h²·|R| > 2⁻⁵²; a step
+// ends at each kink that formula.Kinks lists, where Model1 takes one
+// branch on each closed step (all choices).
 //
 // Every operation is outward rounded; h is the interval s1 − s0 of two
-// floats. Shoot returns an *IntegrationError when a step fails below
-// (reach)·2⁻⁴⁰ or V has no Taylor model on a step. It panics on a nil V,
+// floats. Shoot returns an *IntegrationError (with V's formula error
+// when that was the last cause) when a step fails below (reach)·2⁻⁴⁰. It panics on a nil V,
 // A ≥ B, reach ≤ 0 or beyond (B − A).Lo, or an unknown boundary kind.
 func Shoot(p Problem, end End, lambda interval.I, reach float64, opt Options) (*Shot, error) {
 	length := checkProblem(p)
+	mustBeLambda(lambda)
 	if !(reach > 0) || reach > length.Lo {
 		panic("groundstate: reach must lie in (0, b − a]")
 	}
@@ -198,19 +210,28 @@ func Shoot(p Problem, end End, lambda interval.I, reach float64, opt Options) (*
 	phi := [2][2]interval.I{{interval.Point(1), {}}, {{}, interval.Point(1)}}
 	shot := &Shot{End: end, Reach: reach, start: start, sigma: sigma}
 	minStep := math.Ldexp(reach, -40)
+	kinks := kinkDistances(p.V, start, sigma, reach)
 	s, h := 0.0, opt.MaxStep
 	for s < reach {
 		s1 := math.Min(s+h, reach)
+		for _, d := range kinks { // a step ends at a listed kink (a choice)
+			if d > s && d < s1 {
+				s1 = d
+				break
+			}
+		}
 		x0, x1 := start.AddF(sigma*s), start.AddF(sigma*s1)
 		hI := interval.Point(s1).Sub(interval.Point(s))
-		q, m, ok, err := stepModels(p.V, x0, x1, hI, lambda, opt.Degree, order)
-		if err != nil {
-			return nil, &IntegrationError{End: end, At: x0.Hull(x1), Err: err}
-		}
-		if !ok {
-			h /= 2
+		q, m, ok, err := stepModels(p.V, x0, x1, hI, lambda, opt.Degree, order, math.Ldexp(opt.MaxStep, -4))
+		if err != nil || !ok {
+			// A smaller step shrinks the a priori box and the interval
+			// overestimation that can make V look undefined on a step.
+			h = (s1 - s) / 2
 			if h < minStep {
-				return nil, &IntegrationError{End: end, At: x0.Hull(x1), Err: errStepTooSmall}
+				if err == nil {
+					err = errStepTooSmall
+				}
+				return nil, &IntegrationError{End: end, At: x0.Hull(x1), Err: err}
 			}
 			continue
 		}
@@ -230,11 +251,53 @@ func Shoot(p Problem, end End, lambda interval.I, reach float64, opt Options) (*
 	return shot, nil
 }
 
+// kinkDistances returns, in increasing order, the distances d ∈ (0, reach)
+// from the start end at which V has a kink listed by formula.Kinks, for
+// which start + σd is exactly that kink (start a point and the float
+// arithmetic exact); Shoot ends a step there so that Model1 sees one branch
+// on each closed step. Other kinks are left to Model1, which refuses a step
+// containing them.
+func kinkDistances(v *formula.Expr, start interval.I, sigma, reach float64) []float64 {
+	if !start.IsPoint() {
+		return nil
+	}
+	var out []float64
+	for _, k := range v.Kinks() {
+		d := sigma * (k - start.Lo)
+		if !(d > 0 && d < reach) {
+			continue
+		}
+		if x := start.AddF(sigma * d); x.IsPoint() && x.Lo == k {
+			out = append(out, d)
+		}
+	}
+	sort.Float64s(out)
+	return out
+}
+
+// mustBeInterval panics unless x is an interval: no NaN end and Lo ≤ Hi
+// (an interval.I written as a struct literal need not be one).
+func mustBeInterval(name string, x interval.I) {
+	if !(x.Lo <= x.Hi) {
+		panic(fmt.Sprintf("groundstate: %s = %v is not an interval", name, x))
+	}
+}
+
+// mustBeLambda panics unless lambda is a bounded interval.
+func mustBeLambda(lambda interval.I) {
+	mustBeInterval("λ", lambda)
+	if !lambda.IsBounded() {
+		panic("groundstate: the enclosure of λ must be bounded")
+	}
+}
+
 // checkProblem panics on misuse and returns an enclosure of b − a.
 func checkProblem(p Problem) interval.I {
 	if p.V == nil {
 		panic("groundstate: nil potential")
 	}
+	mustBeInterval("a", p.A)
+	mustBeInterval("b", p.B)
 	length := p.B.Sub(p.A)
 	if !length.Positive() || !length.IsBounded() {
 		panic("groundstate: the interval's ends must be bounded with a < b")
@@ -243,6 +306,7 @@ func checkProblem(p Problem) interval.I {
 		switch bc.Kind {
 		case Dirichlet, Neumann:
 		case Robin:
+			mustBeInterval("α", bc.Alpha)
 			if !bc.Alpha.IsBounded() {
 				panic("groundstate: unbounded Robin coefficient")
 			}
@@ -271,7 +335,7 @@ func initialVector(bc Boundary) [2]interval.I {
 // stepModels returns the model of q = V − λ and the Taylor models of the
 // fundamental matrix on one step (stages 1–3 of Shoot); ok is false when
 // the step should be halved.
-func stepModels(v *formula.Expr, x0, x1, h, lambda interval.I, deg, order int) (q tmodel, m [2][2]tmodel, ok bool, err error) {
+func stepModels(v *formula.Expr, x0, x1, h, lambda interval.I, deg, order int, remainderFloor float64) (q tmodel, m [2][2]tmodel, ok bool, err error) {
 	vm, err := v.Model1(x0, x1, order)
 	if err != nil {
 		return q, m, false, err
@@ -279,7 +343,14 @@ func stepModels(v *formula.Expr, x0, x1, h, lambda interval.I, deg, order int) (
 	q = tmodel{c: append([]interval.I(nil), vm.C...), r: vm.R}
 	q.c[0] = q.c[0].Sub(lambda)
 	qRange := q.eval(unit)
-	if !qRange.IsBounded() || float64(h.Hi*h.Hi)*qRange.Mag() > 0.25 {
+	h2 := float64(h.Hi * h.Hi)
+	if !qRange.IsBounded() || float64(h2*qRange.Mag()) > 0.25 {
+		return q, m, false, nil
+	}
+	// V's Taylor remainder enters the step's matrix as about h²·|R| (a
+	// choice: keep it at rounding level, halving the step up to 4 times
+	// for it; R shrinks like h^(order+1)).
+	if float64(h2*q.r.Mag()) > 0x1p-52 && h.Hi > remainderFloor {
 		return q, m, false, nil
 	}
 	hUnit := h.Mul(unit)
@@ -332,6 +403,27 @@ func (c *Cell) state(xi interval.I) (w, ws interval.I) {
 	w = c.m[0][0].eval(xi).Mul(c.y[0]).Add(c.m[0][1].eval(xi).Mul(c.y[1]))
 	ws = c.m[1][0].eval(xi).Mul(c.y[0]).Add(c.m[1][1].eval(xi).Mul(c.y[1]))
 	return w, ws
+}
+
+// certainPoints returns the points x that are, for every exact end in the
+// shot's end enclosure, of the form start + σ(s0 + ξh) with ξ ∈ xi: the
+// intersection over the exact ends (outer ends rounded inward), and false
+// if it is empty.
+func (s *Shot) certainPoints(c *Cell, xi interval.I) (interval.I, bool) {
+	sLo := interval.Point(c.s0).Add(c.h.MulF(xi.Lo)) // ∋ the exact nearest distance
+	sHi := interval.Point(c.s0).Add(c.h.MulF(xi.Hi)) // ∋ the exact farthest distance
+	var lo, hi float64
+	if s.sigma > 0 {
+		lo = interval.AddUp(s.start.Hi, sLo.Hi)
+		hi = interval.AddDown(s.start.Lo, sHi.Lo)
+	} else {
+		lo = interval.SubUp(s.start.Hi, sHi.Lo)
+		hi = interval.SubDown(s.start.Lo, sLo.Hi)
+	}
+	if !(lo <= hi) {
+		return interval.I{}, false
+	}
+	return interval.New(lo, hi), true
 }
 
 // points returns an enclosure of the points x = start + σ(s0 + ξh), ξ ∈ xi.
@@ -395,6 +487,7 @@ type Enclosure struct {
 // (a choice) with lambda ∋ λ1; see Shoot.
 func Enclose(p Problem, lambda interval.I, opt Options) (*Enclosure, error) {
 	checkProblem(p)
+	mustBeLambda(lambda)
 	split := p.A.Add(p.B).Mid() / 2
 	left, err := Shoot(p, LeftEnd, lambda, interval.Point(split).Sub(p.A).Hi, opt)
 	if err != nil {
