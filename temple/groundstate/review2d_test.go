@@ -169,6 +169,12 @@ func TestReviewPotentialModelsOnCircle(t *testing.T) {
 		{"log(1 + x^2 + y^2)", [2]float64{-3, 2}, 2},
 		{"cos(x*y)", [2]float64{0, 0}, 1e-150},
 		{"x^2 + y^2", [2]float64{1e8, 1e8}, 1e-9},
+		{"(x^2)^0.75", [2]float64{0.05, 0}, 0.3},
+		{"(x^2 + y^2)^0.25", [2]float64{0.01, -0.02}, 0.2},
+		{"abs(x)^2.5 + y", [2]float64{0, 0}, 0.5},
+		{"x^(1/3) + 2", [2]float64{1, 0}, 0.9},
+		{"atan(1e6*x)", [2]float64{1e-4, 0}, 2e-4},
+		{"tanh(50*(x - y))", [2]float64{0.1, 0.1}, 0.3},
 	}
 	for _, c := range cases {
 		v := formula.MustParse(c.src)
@@ -189,7 +195,7 @@ func TestReviewPotentialModelsOnCircle(t *testing.T) {
 		cs = append(cs, cand{"range", p, rho, err})
 		p, rho, err = potentialOnDisc(v, c.x0, c.R, 8)
 		cs = append(cs, cand{"chosen", p, rho, err})
-		usable := 0
+		usable, checked := 0, 0
 		for _, m := range cs {
 			if m.err != nil {
 				continue
@@ -213,6 +219,7 @@ func TestReviewPotentialModelsOnCircle(t *testing.T) {
 				if err != nil {
 					t.Fatalf("%s: V at (%g, %g): %v", c.src, px, py, err)
 				}
+				checked++
 				mod := evalPoly(m.p, dx, dy).Add(m.rho)
 				if mod.Hi < ex.Lo || ex.Hi < mod.Lo {
 					t.Fatalf("%s, x0 = %v, R = %g, %s model: V(%.17g, %.17g) ∈ %v outside %v", c.src, c.x0, c.R, m.name, px, py, ex, mod)
@@ -221,7 +228,10 @@ func TestReviewPotentialModelsOnCircle(t *testing.T) {
 		}
 		if usable == 0 {
 			t.Logf("%s at %v, R = %g: no model (refused)", c.src, c.x0, c.R)
+		} else if checked < 300*usable {
+			t.Errorf("%s: only %d points checked for %d models", c.src, checked, usable)
 		}
+		t.Logf("%s: %d models, %d points checked; chosen remainder %v", c.src, usable, checked, cs[len(cs)-1].rho)
 	}
 }
 
@@ -306,5 +316,152 @@ func TestReviewInscribedRadiusExact(t *testing.T) {
 	}
 	if inside < 300 || outside < 300 {
 		t.Fatalf("only %d inside and %d outside", inside, outside)
+	}
+}
+
+// Coarse ũ (Taylor degree 1 to 5 on large discs): the residual ∫_B K r̃ is
+// large and signed, and the enclosure with the honest bound E_B must still
+// contain u(x0); for the square, the triangle and the oscillator.
+func TestReviewEnclosePointCoarseApproximation(t *testing.T) {
+	rng := rand.New(rand.NewSource(11))
+	type dom struct {
+		c     exactCase
+		point func() [2]float64
+		dist  func([2]float64) float64
+	}
+	doms := []dom{
+		{squareCase(), func() [2]float64 { return [2]float64{rng.Float64(), rng.Float64()} }, distSquare},
+		{triangleCase(), func() [2]float64 { return randomInTriangle(rng) }, distTriangle},
+		{oscillatorCase(), func() [2]float64 { return [2]float64{4*rng.Float64() - 2, 4*rng.Float64() - 2} }, func([2]float64) float64 { return 1 }},
+	}
+	maxRes := 0.0
+	for _, d := range doms {
+		for i := range 300 {
+			p := d.point()
+			R := 0.95 * d.dist(p)
+			if R < 1e-3 {
+				continue
+			}
+			deg := 1 + i%5
+			coef, sup := d.c.taylor(p, R, deg)
+			E := errL2(sup, R)
+			enc, err := EnclosePoint(d.c.v, d.c.lambda, E, Disc{Centre: p, Radius: R, Coef: coef}, DiscOptions{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !contains(enc.U, d.c.value(p)) {
+				t.Fatalf("%s, degree %d, p = %v, R = %g: %v misses u = %v (residual %v)", d.c.name, deg, p, R, enc.U, d.c.value(p), enc.Residual)
+			}
+			maxRes = max(maxRes, enc.Residual.Mag())
+		}
+	}
+	t.Logf("largest |∫K r̃| %.3g", maxRes)
+	if maxRes < 0.05 {
+		t.Errorf("the residual term never mattered (largest %g)", maxRes)
+	}
+}
+
+// No witness where u is log-concave: the square, the equilateral triangle
+// (Dirichlet, V = 0, convex: Brascamp–Lieb) and the harmonic oscillator
+// (Gaussian), with coarse and fine ũ and a range of bounds E, 600 random
+// triples each. Any certified triple would be a false witness.
+func TestReviewNoWitnessForLogConcave(t *testing.T) {
+	rng := rand.New(rand.NewSource(13))
+	type dom struct {
+		c     exactCase
+		point func() [2]float64
+		dist  func([2]float64) float64
+	}
+	doms := []dom{
+		{squareCase(), func() [2]float64 { return [2]float64{rng.Float64(), rng.Float64()} }, distSquare},
+		{triangleCase(), func() [2]float64 { return randomInTriangle(rng) }, distTriangle},
+		{oscillatorCase(), func() [2]float64 { return [2]float64{6*rng.Float64() - 3, 6*rng.Float64() - 3} }, func([2]float64) float64 { return 1 }},
+	}
+	best := math.Inf(-1)
+	for _, d := range doms {
+		tried := 0
+		for tried < 600 {
+			x, y := d.point(), d.point()
+			if rng.Intn(3) == 0 { // close pairs: the margin is of order |x − y|²
+				y = [2]float64{x[0] + 0.01*(rng.Float64()-0.5), x[1] + 0.01*(rng.Float64()-0.5)}
+			}
+			m, ok := ExactMidpoint(x, y)
+			if !ok || d.dist(x) < 1e-3 || d.dist(y) < 1e-3 || d.dist(m) < 1e-3 {
+				continue
+			}
+			if d.c.name == "equilateral triangle" && (distTriangle(y) <= 0 || !insideTriangle(y)) {
+				continue
+			}
+			tried++
+			deg := []int{2, 6, 14}[tried%3]
+			floor := []float64{0, 1e-12, 1e-6}[(tried/3)%3]
+			dx, dy, dm, E := triple(d.c, x, y, 0.9*d.dist(x), 0.9*d.dist(y), 0.9*d.dist(m), deg, floor)
+			res, err := CertifyMidpoint(d.c.v, d.c.lambda, E, dx, dy, dm, DiscOptions{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if res.Certified {
+				t.Fatalf("%s: false witness x = %v, y = %v (degree %d, E = %g): margin %g, truth %v",
+					d.c.name, x, y, deg, E, res.Margin, exactMargin(d.c, x, y, m))
+			}
+			best = max(best, res.Margin)
+		}
+	}
+	t.Logf("largest margin over log-concave triples %.3g (must stay ≤ 0)", best)
+}
+
+// insideTriangle reports whether p is inside the equilateral triangle
+// (0, 0), (1, 0), (1/2, √3/2) (float; only to pick test points).
+func insideTriangle(p [2]float64) bool {
+	s3 := math.Sqrt(3)
+	return p[1] > 0 && s3*p[0]-p[1] > 0 && s3*(1-p[0])-p[1] > 0
+}
+
+// Degenerate but legal inputs: a point λ, E = 0, a constant ũ, a tiny
+// radius. u = 1 solves −Δu + V u = λu for V = λ = 3; with ũ = 1 exactly
+// and E = 0 the enclosure is [1, 1] up to rounding, and with ũ = 1 + δ and
+// E = 0 (a false hypothesis) it is shifted, as documented.
+func TestReviewEnclosePointDegenerate(t *testing.T) {
+	v := formula.MustParse("3")
+	for _, R := range []float64{1e-300, 1e-5, 1, 1e5} {
+		enc, err := EnclosePoint(v, interval.Point(3), 0, Disc{Centre: [2]float64{0.25, -4}, Radius: R, Coef: [][]interval.I{{interval.Point(1)}}}, DiscOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !enc.U.Contains(1) || enc.U.Wid() > 1e-15 {
+			t.Errorf("R = %g: %v", R, enc.U)
+		}
+	}
+}
+
+// Extreme scales with a genuine u (the square's sin πx sin πy): discs of
+// radius 1e-150 and 1e-30, and u scaled by 2^600 and 2^-600 (ũ, E and the
+// exact value scaled alike; powers of two keep the scaling exact).
+func TestReviewEnclosePointExtremeScales(t *testing.T) {
+	c := squareCase()
+	p := [2]float64{0.3, 0.6}
+	for _, R := range []float64{1e-150, 1e-30, 0.25} {
+		for _, sc := range []float64{0x1p600, 1, 0x1p-600} {
+			coef, sup := c.taylor(p, R, 12)
+			for a := range coef {
+				for b := range coef[a] {
+					coef[a][b] = coef[a][b].MulF(sc)
+				}
+			}
+			E := interval.Point(errL2(sup, R)).MulF(sc).Hi
+			enc, err := EnclosePoint(c.v, c.lambda, E, Disc{Centre: p, Radius: R, Coef: coef}, DiscOptions{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			ex := c.value(p).MulF(sc)
+			if !contains(enc.U, ex) {
+				t.Fatalf("R = %g, scale %g: %v misses %v", R, sc, enc.U, ex)
+			}
+			// A bound E at the bottom of the subnormal range is no longer
+			// relative to u; only containment is asked there.
+			if rel := enc.U.Wid() / ex.Mid(); rel > 1e-8 && E > 0x1p-1000 {
+				t.Errorf("R = %g, scale %g: relative width %g", R, sc, rel)
+			}
+		}
 	}
 }
