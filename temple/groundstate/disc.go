@@ -46,9 +46,10 @@ type PointEnclosure struct {
 	// Residual encloses ∫_B K r̃ for every λ in the given enclosure, so at
 	// λ = λ1.
 	Residual interval.I
-	// MeanBound ≥ E_B/√(πR²), the bound of the mean of e over B.
+	// MeanBound ≥ E_B/√(πR²), the bound of the mean of e over B (+∞ if
+	// it overflows, and then U is the whole line).
 	MeanBound float64
-	// KernelBound ≥ ‖K‖_{L²(B)}·sup_B |λ − V|·E_B.
+	// KernelBound ≥ ‖K‖_{L²(B)}·sup_B |λ − V|·E_B (+∞ if it overflows).
 	KernelBound float64
 	// VRange encloses the range of V on B.
 	VRange interval.I
@@ -138,13 +139,17 @@ func EnclosePoint(v *formula.Expr, lambda interval.I, errB float64, d Disc, opt 
 		// (D3) needs V ∈ L^∞(B); the model must show it.
 		return PointEnclosure{}, &PotentialError{Centre: d.Centre, Radius: R, Err: errUnboundedModel}
 	}
-	supLV := lambda.Sub(vRange).Mag()
+	// The bounds stay intervals until the end: E/√(πR²) and sup|λ − V| may
+	// overflow to +∞ (a huge E on a tiny disc, a huge λ against a huge V),
+	// and then the enclosure is the whole line, not a panic.
+	supLV := lambda.Sub(vRange).Abs()
 	e := interval.Point(errB)
 	r := interval.Point(R)
 	sqrtPi, _ := interval.Pi().Sqrt()
-	meanBound := e.Div(sqrtPi.Mul(r)).Hi
-	kernelBound := kernelL2Factor().Mul(r).Mul(interval.Point(supLV)).Mul(e).Hi
-	rad := interval.Point(meanBound).Add(interval.Point(kernelBound)).Hi
+	mean := e.Div(sqrtPi.Mul(r))
+	kernel := kernelL2Factor().Mul(r).Mul(supLV).Mul(e)
+	meanBound, kernelBound := mean.Hi, kernel.Hi
+	rad := mean.Add(kernel).Hi
 	approx := coefAt(u, 0, 0)
 	return PointEnclosure{
 		U:           approx.Add(residual).Add(interval.New(-rad, rad)),
