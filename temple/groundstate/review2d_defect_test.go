@@ -29,3 +29,32 @@ func TestReviewEnclosePointOverflowDoesNotPanic(t *testing.T) {
 	run("sup|λ − V| overflows", "-1.5e308 + 0*x", interval.Point(1.5e308), 1e-3, Disc{Centre: [2]float64{0, 0}, Radius: 0.5, Coef: one})
 	run("kernel term overflows", "1e300*(1 + x^2)", interval.Point(0), 1e10, Disc{Centre: [2]float64{0, 0}, Radius: 1e10, Coef: one})
 }
+
+// Intervals written as struct literals bypass interval.New: an enclosure
+// of λ1 or a coefficient with Lo > Hi (ends swapped by a caller) or a NaN
+// end is misuse that EnclosePoint must refuse (panic), not turn into an
+// "enclosure" with Lo > Hi, which Positive() and the margin of
+// CertifyMidpoint would read as a certified sign.
+func TestReviewEnclosePointRejectsInvalidIntervals(t *testing.T) {
+	v := formula.MustParse("x^2")
+	one := [][]interval.I{{interval.Point(1)}}
+	bad := interval.I{Lo: 3, Hi: 1}
+	for _, tc := range []struct {
+		name   string
+		lambda interval.I
+		coef   [][]interval.I
+	}{
+		{"λ with Lo > Hi", bad, one},
+		{"coefficient with Lo > Hi", interval.Point(1), [][]interval.I{{bad}}},
+	} {
+		func() {
+			defer func() {
+				if recover() == nil {
+					t.Errorf("%s: no panic", tc.name)
+				}
+			}()
+			enc, err := EnclosePoint(v, tc.lambda, 1e-3, Disc{Radius: 0.5, Coef: tc.coef}, DiscOptions{})
+			t.Logf("%s: U = %v, err %v", tc.name, enc.U, err)
+		}()
+	}
+}
