@@ -1,6 +1,7 @@
 package groundstate
 
 import (
+	"fmt"
 	"math"
 	"math/big"
 	"math/rand"
@@ -463,5 +464,87 @@ func TestReviewEnclosePointExtremeScales(t *testing.T) {
 				t.Errorf("R = %g, scale %g: relative width %g", R, sc, rel)
 			}
 		}
+	}
+}
+
+// (D2) against quadrature: ∫_0^1 k(t)² t dt = 5/48, so ‖K‖²_{L²(B_1)} =
+// 5/(96π), and kernelL2Factor encloses its square root.
+func TestReviewKernelL2Norm(t *testing.T) {
+	q := radialQuad(func(s float64) float64 { return (-math.Log(s) - (1-s*s)/2) * s })
+	if math.Abs(q-5.0/48) > 1e-13 {
+		t.Errorf("∫k²t = %.17g, want 5/48", q)
+	}
+	want := math.Sqrt(q / (2 * math.Pi))
+	f := kernelL2Factor()
+	if !(f.Lo-1e-13 <= want && want <= f.Hi+1e-13) || f.Wid() > 1e-15 {
+		t.Errorf("kernelL2Factor %v, quadrature %.17g", f, want)
+	}
+}
+
+// Random kinked potentials |a x + b y − c| + min(x, s) − max(y, s′) with
+// the kink lines through, beside or tangent to the disc and crossing the
+// triangle around it: every model that is returned satisfies (M) at 150
+// points of the disc (200 random cases).
+func TestReviewPotentialModelsRandomKinks(t *testing.T) {
+	rng := rand.New(rand.NewSource(21))
+	used := map[string]int{}
+	for range 200 {
+		x0 := [2]float64{rng.Float64()*2 - 1, rng.Float64()*2 - 1}
+		R := math.Ldexp(0.5+rng.Float64()/2, -rng.Intn(8))
+		th := 2 * math.Pi * rng.Float64()
+		a, b := math.Cos(th), math.Sin(th)
+		// The kink line at signed distance off·R from x0 (off in [−3, 3]).
+		off := 6*rng.Float64() - 3
+		c := a*x0[0] + b*x0[1] + off*R
+		s1 := x0[0] + (6*rng.Float64()-3)*R
+		s2 := x0[1] + (6*rng.Float64()-3)*R
+		src := fmt.Sprintf("abs(%.17g*x + %.17g*y - %.17g) + min(x, %.17g) - max(y, %.17g)", a, b, c, s1, s2)
+		v := formula.MustParse(src)
+		type cand struct {
+			name string
+			p    [][]interval.I
+			rho  interval.I
+			err  error
+		}
+		var cs []cand
+		for _, q := range []int{1, 3, 8} {
+			p, rho, err := triangleModel(v, x0, R, q)
+			cs = append(cs, cand{fmt.Sprintf("triangle %d", q), p, rho, err})
+		}
+		p, rho, err := hessianModel(v, x0, R)
+		cs = append(cs, cand{"hessian", p, rho, err})
+		p, rho, err = potentialOnDisc(v, x0, R, 8)
+		cs = append(cs, cand{"chosen", p, rho, err})
+		for _, m := range cs {
+			if m.err != nil {
+				continue
+			}
+			used[m.name]++
+			for i := range 150 {
+				phi := 2 * math.Pi * rng.Float64()
+				sr := 1 - math.Ldexp(rng.Float64(), -30)
+				if i%3 == 0 {
+					sr = math.Sqrt(rng.Float64())
+				}
+				px, py := x0[0]+R*sr*math.Cos(phi), x0[1]+R*sr*math.Sin(phi)
+				dx := interval.Point(px).Sub(interval.Point(x0[0]))
+				dy := interval.Point(py).Sub(interval.Point(x0[1]))
+				if dx.Sqr().Add(dy.Sqr()).Hi >= interval.Point(R).Sqr().Lo {
+					continue
+				}
+				ex, err := v.Eval(map[string]interval.I{"x": interval.Point(px), "y": interval.Point(py)})
+				if err != nil {
+					t.Fatal(err)
+				}
+				mod := evalPoly(m.p, dx, dy).Add(m.rho)
+				if mod.Hi < ex.Lo || ex.Hi < mod.Lo {
+					t.Fatalf("%s, x0 = %v, R = %g, %s model: V(%.17g, %.17g) ∈ %v outside %v", src, x0, R, m.name, px, py, ex, mod)
+				}
+			}
+		}
+	}
+	t.Logf("models returned (of 200 cases): %v", used)
+	if used["triangle 8"] < 10 || used["hessian"] < 30 {
+		t.Errorf("too few smooth models exercised: %v", used)
 	}
 }
