@@ -322,7 +322,8 @@ func TestReviewInscribedRadiusExact(t *testing.T) {
 
 // Coarse ũ (Taylor degree 1 to 5 on large discs): the residual ∫_B K r̃ is
 // large and signed, and the enclosure with the honest bound E_B must still
-// contain u(x0); for the square, the triangle and the oscillator.
+// contain u(x0); for the square, the triangle, the oscillator, Pöschl–Teller
+// and the quartic double well.
 func TestReviewEnclosePointCoarseApproximation(t *testing.T) {
 	rng := rand.New(rand.NewSource(11))
 	type dom struct {
@@ -334,6 +335,10 @@ func TestReviewEnclosePointCoarseApproximation(t *testing.T) {
 		{squareCase(), func() [2]float64 { return [2]float64{rng.Float64(), rng.Float64()} }, distSquare},
 		{triangleCase(), func() [2]float64 { return randomInTriangle(rng) }, distTriangle},
 		{oscillatorCase(), func() [2]float64 { return [2]float64{4*rng.Float64() - 2, 4*rng.Float64() - 2} }, func([2]float64) float64 { return 1 }},
+		// V not a polynomial (Taylor models with remainders) and a
+		// polynomial V of degree 6, on discs of radius up to 1.2.
+		{poschlTellerCase(), func() [2]float64 { return [2]float64{4*rng.Float64() - 2, 4*rng.Float64() - 2} }, func([2]float64) float64 { return 0.05 + 1.2*rng.Float64() }},
+		{quarticWellCase(), func() [2]float64 { return [2]float64{3*rng.Float64() - 1.5, 3*rng.Float64() - 1.5} }, func([2]float64) float64 { return 0.05 + 0.8*rng.Float64() }},
 	}
 	maxRes := 0.0
 	for _, d := range doms {
