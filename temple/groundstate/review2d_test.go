@@ -176,6 +176,8 @@ func TestReviewPotentialModelsOnCircle(t *testing.T) {
 		{"x^(1/3) + 2", [2]float64{1, 0}, 0.9},
 		{"atan(1e6*x)", [2]float64{1e-4, 0}, 2e-4},
 		{"tanh(50*(x - y))", [2]float64{0.1, 0.1}, 0.3},
+		{"x*y*(1 + x*y)^2", [2]float64{0, 0}, 0.7},
+		{"sinh(2*x*y)", [2]float64{0.3, -0.3}, 0.8},
 	}
 	for _, c := range cases {
 		v := formula.MustParse(c.src)
