@@ -46,9 +46,10 @@ type PointEnclosure struct {
 	// Residual encloses ∫_B K r̃ for every λ in the given enclosure, so at
 	// λ = λ1.
 	Residual interval.I
-	// MeanBound ≥ E_B/√(πR²), the bound of the mean of e over B.
+	// MeanBound ≥ E_B/√(πR²), the bound of the mean of e over B (+∞ if
+	// it overflows, and then U is the whole line).
 	MeanBound float64
-	// KernelBound ≥ ‖K‖_{L²(B)}·sup_B |λ − V|·E_B.
+	// KernelBound ≥ ‖K‖_{L²(B)}·sup_B |λ − V|·E_B (+∞ if it overflows).
 	KernelBound float64
 	// VRange encloses the range of V on B.
 	VRange interval.I
@@ -98,7 +99,8 @@ var errUnboundedModel = errors.New("the model does not bound V on the disc")
 //
 // Hypotheses. Checked here (misuse panics): v non-nil, lambda bounded,
 // errB finite and ≥ 0, R > 0 finite, the centre finite, Coef non-empty
-// with bounded entries. Checked by the computation: V is bounded on B (a
+// with bounded entries, lambda and the entries valid intervals (Lo ≤ Hi,
+// no NaN end; a struct literal may not be). Checked by the computation: V is bounded on B (a
 // model with a finite remainder exists), else a *PotentialError. The
 // caller's, not checkable here: lambda ∋ λ1, errB ≥ ‖u − ũ‖_{L²(B)},
 // B ⊂ Ω and ũ equal to the polynomial on B. If one of
@@ -138,13 +140,17 @@ func EnclosePoint(v *formula.Expr, lambda interval.I, errB float64, d Disc, opt 
 		// (D3) needs V ∈ L^∞(B); the model must show it.
 		return PointEnclosure{}, &PotentialError{Centre: d.Centre, Radius: R, Err: errUnboundedModel}
 	}
-	supLV := lambda.Sub(vRange).Mag()
+	// The bounds stay intervals until the end: E/√(πR²) and sup|λ − V| may
+	// overflow to +∞ (a huge E on a tiny disc, a huge λ against a huge V),
+	// and then the enclosure is the whole line, not a panic.
+	supLV := lambda.Sub(vRange).Abs()
 	e := interval.Point(errB)
 	r := interval.Point(R)
 	sqrtPi, _ := interval.Pi().Sqrt()
-	meanBound := e.Div(sqrtPi.Mul(r)).Hi
-	kernelBound := kernelL2Factor().Mul(r).Mul(interval.Point(supLV)).Mul(e).Hi
-	rad := interval.Point(meanBound).Add(interval.Point(kernelBound)).Hi
+	mean := e.Div(sqrtPi.Mul(r))
+	kernel := kernelL2Factor().Mul(r).Mul(supLV).Mul(e)
+	meanBound, kernelBound := mean.Hi, kernel.Hi
+	rad := mean.Add(kernel).Hi
 	approx := coefAt(u, 0, 0)
 	return PointEnclosure{
 		U:           approx.Add(residual).Add(interval.New(-rad, rad)),
@@ -162,8 +168,8 @@ func checkDisc(v *formula.Expr, lambda interval.I, errB float64, d Disc) {
 	switch {
 	case v == nil:
 		panic("groundstate: nil potential")
-	case !lambda.IsBounded():
-		panic("groundstate: the enclosure of λ1 must be bounded")
+	case !validBounded(lambda):
+		panic("groundstate: the enclosure of λ1 must be a bounded interval (Lo ≤ Hi, finite ends)")
 	case math.IsNaN(errB) || math.IsInf(errB, 0) || errB < 0:
 		panic("groundstate: the L² error bound must be finite and ≥ 0")
 	case !(d.Radius > 0) || math.IsInf(d.Radius, 0):
@@ -175,11 +181,18 @@ func checkDisc(v *formula.Expr, lambda interval.I, errB float64, d Disc) {
 	}
 	for _, row := range d.Coef {
 		for _, c := range row {
-			if !c.IsBounded() {
-				panic("groundstate: the coefficients of the polynomial on the disc must be bounded")
+			if !validBounded(c) {
+				panic("groundstate: the coefficients of the polynomial on the disc must be bounded intervals (Lo ≤ Hi, finite ends)")
 			}
 		}
 	}
+}
+
+// validBounded reports whether x is an interval with finite ends and
+// Lo ≤ Hi (false for NaN ends), as interval.New would build it; a struct
+// literal may not be.
+func validBounded(x interval.I) bool {
+	return x.Lo <= x.Hi && x.IsBounded()
 }
 
 // kernelL2Factor encloses √(5/(96π)), the L² norm of K over the disc of

@@ -43,7 +43,14 @@ func ExactMidpoint(p, q [2]float64) ([2]float64, bool) {
 //
 // The hypotheses are those of EnclosePoint for each disc; the centre of m
 // must be exactly the midpoint of the centres of x and y (ExactMidpoint),
-// else CertifyMidpoint panics. Errors are those of EnclosePoint.
+// else CertifyMidpoint panics. Errors are those of EnclosePoint. Two more
+// are the caller's and are needed for a certified triple to say that the
+// ground state is not log-concave (package doc, "A witness of failure"):
+// λ1 is simple and P₁ is the projection on its eigenspace, so errL2 must
+// come from (E1) with an enclosure of λ2 (EigenvectorError refuses when
+// λ1 is not separated from it), never from the cluster form with
+// λ_{m+1}, whose P_mũ may change sign; and Ω is convex (for a non-convex
+// Ω the triple shows that u extended by 0 is not log-concave).
 func CertifyMidpoint(v *formula.Expr, lambda interval.I, errL2 float64, x, y, m Disc, opt DiscOptions) (MidpointResult, error) {
 	mid, ok := ExactMidpoint(x.Centre, y.Centre)
 	if !ok || mid != m.Centre {
