@@ -11,7 +11,7 @@ import (
 // tiny disc makes E/√(πR²) overflow; a huge λ against a huge V makes
 // sup|λ − V| overflow. Both are legal numerical inputs: the result must be
 // an enclosure (possibly the whole line) or a typed error, never a panic.
-func TestReviewEnclosePointOverflowDoesNotPanic(t *testing.T) {
+func TestEnclosePointOverflowDoesNotPanic(t *testing.T) {
 	run := func(name string, v string, lambda interval.I, E float64, d Disc) {
 		t.Helper()
 		defer func() {
@@ -35,7 +35,7 @@ func TestReviewEnclosePointOverflowDoesNotPanic(t *testing.T) {
 // end is misuse that EnclosePoint must refuse (panic), not turn into an
 // "enclosure" with Lo > Hi, which Positive() and the margin of
 // CertifyMidpoint would read as a certified sign.
-func TestReviewEnclosePointRejectsInvalidIntervals(t *testing.T) {
+func TestEnclosePointRejectsInvalidIntervals(t *testing.T) {
 	v := formula.MustParse("x^2")
 	one := [][]interval.I{{interval.Point(1)}}
 	bad := interval.I{Lo: 3, Hi: 1}

@@ -61,7 +61,7 @@ func radialQuad(f func(float64) float64) float64 {
 // ∫_0^{2π} e^{z cos θ} dθ = 2πI₀(z), common practice) and
 // ∫_B K w = 2πR²∫_0^1 K(Rt) t I₀(kRt) dt, so (D1) reads
 // 1 = 2I₁(kR)/(kR) − k²R²∫_0^1 k(t) t I₀(kRt) dt.
-func TestReviewIdentityD1OnExponential(t *testing.T) {
+func TestIdentityD1OnExponential(t *testing.T) {
 	for _, kr := range []float64{0.1, 1, 3, 7, 15} {
 		mean := 2 * besselI(1, kr) / kr
 		src := kr * kr * radialQuad(func(s float64) float64 { return s * besselI(0, kr*s) })
@@ -75,7 +75,7 @@ func TestReviewIdentityD1OnExponential(t *testing.T) {
 // radial part by radialQuad, angular part by the trapezoid rule with 64
 // nodes (exact for trigonometric polynomials of degree < 64), so
 // ∫_B K d_x^a d_y^b = (R^{n+2}/2π)·∫_0^1 k t^{n+1} dt·∫ cos^a sin^b dθ.
-func TestReviewKernelMomentsAllParities(t *testing.T) {
+func TestKernelMomentsAllParities(t *testing.T) {
 	for _, R := range []float64{0.37, 1, 2.5} {
 		for a := range 9 {
 			for b := range 9 {
@@ -107,7 +107,7 @@ func TestReviewKernelMomentsAllParities(t *testing.T) {
 // kernelMoment at radii whose powers underflow or overflow: the enclosure
 // must contain 2R^{n+2}(a−1)!!(b−1)!!/((n+2)²(n+4)n!!) computed in
 // math/big (exact rational times R^{n+2} to 400 bits).
-func TestReviewKernelMomentExtremeRadius(t *testing.T) {
+func TestKernelMomentExtremeRadius(t *testing.T) {
 	dfact := func(k int) int64 {
 		p := int64(1)
 		for j := k; j > 1; j -= 2 {
@@ -147,7 +147,7 @@ func TestReviewKernelMomentExtremeRadius(t *testing.T) {
 // across the disc, a kink line through the centre, a polynomial of degree
 // 13 (above the exact-model degree), huge values, centres far from the
 // origin, tiny and large radii.
-func TestReviewPotentialModelsOnCircle(t *testing.T) {
+func TestPotentialModelsOnCircle(t *testing.T) {
 	rng := rand.New(rand.NewSource(77))
 	type tc struct {
 		src string
@@ -242,7 +242,7 @@ func TestReviewPotentialModelsOnCircle(t *testing.T) {
 // triangles and points, R ≤ the distance to each side line (R² ≤
 // cross²/|q − p|² exactly, in big.Rat), and R is within 1e-13 times the
 // triangle's size of the true nearest distance; x0 outside or on a side gives ok = false.
-func TestReviewInscribedRadiusExact(t *testing.T) {
+func TestInscribedRadiusExact(t *testing.T) {
 	rng := rand.New(rand.NewSource(5))
 	rat := func(f float64) *big.Rat { return new(big.Rat).SetFloat64(f) }
 	inside, outside := 0, 0
@@ -326,7 +326,7 @@ func TestReviewInscribedRadiusExact(t *testing.T) {
 // large and signed, and the enclosure with the honest bound E_B must still
 // contain u(x0); for the square, the triangle, the oscillator, Pöschl–Teller
 // and the quartic double well.
-func TestReviewEnclosePointCoarseApproximation(t *testing.T) {
+func TestEnclosePointCoarseApproximation(t *testing.T) {
 	rng := rand.New(rand.NewSource(11))
 	type dom struct {
 		c     exactCase
@@ -373,7 +373,7 @@ func TestReviewEnclosePointCoarseApproximation(t *testing.T) {
 // (Dirichlet, V = 0, convex: Brascamp–Lieb) and the harmonic oscillator
 // (Gaussian), with coarse and fine ũ and a range of bounds E, 600 random
 // triples each. Any certified triple would be a false witness.
-func TestReviewNoWitnessForLogConcave(t *testing.T) {
+func TestNoWitnessForLogConcave(t *testing.T) {
 	rng := rand.New(rand.NewSource(13))
 	type dom struct {
 		c     exactCase
@@ -429,7 +429,7 @@ func insideTriangle(p [2]float64) bool {
 // radius. u = 1 solves −Δu + V u = λu for V = λ = 3; with ũ = 1 exactly
 // and E = 0 the enclosure is [1, 1] up to rounding, and with ũ = 1 + δ and
 // E = 0 (a false hypothesis) it is shifted, as documented.
-func TestReviewEnclosePointDegenerate(t *testing.T) {
+func TestEnclosePointDegenerate(t *testing.T) {
 	v := formula.MustParse("3")
 	for _, R := range []float64{1e-300, 1e-5, 1, 1e5} {
 		enc, err := EnclosePoint(v, interval.Point(3), 0, Disc{Centre: [2]float64{0.25, -4}, Radius: R, Coef: [][]interval.I{{interval.Point(1)}}}, DiscOptions{})
@@ -445,7 +445,7 @@ func TestReviewEnclosePointDegenerate(t *testing.T) {
 // Extreme scales with a genuine u (the square's sin πx sin πy): discs of
 // radius 1e-150 and 1e-30, and u scaled by 2^600 and 2^-600 (ũ, E and the
 // exact value scaled alike; powers of two keep the scaling exact).
-func TestReviewEnclosePointExtremeScales(t *testing.T) {
+func TestEnclosePointExtremeScales(t *testing.T) {
 	c := squareCase()
 	p := [2]float64{0.3, 0.6}
 	for _, R := range []float64{1e-150, 1e-30, 0.25} {
@@ -476,7 +476,7 @@ func TestReviewEnclosePointExtremeScales(t *testing.T) {
 
 // (D2) against quadrature: ∫_0^1 k(t)² t dt = 5/48, so ‖K‖²_{L²(B_1)} =
 // 5/(96π), and kernelL2Factor encloses its square root.
-func TestReviewKernelL2Norm(t *testing.T) {
+func TestKernelL2Norm(t *testing.T) {
 	q := radialQuad(func(s float64) float64 { return (-math.Log(s) - (1-s*s)/2) * s })
 	if math.Abs(q-5.0/48) > 1e-13 {
 		t.Errorf("∫k²t = %.17g, want 5/48", q)
@@ -492,7 +492,7 @@ func TestReviewKernelL2Norm(t *testing.T) {
 // the kink lines through, beside or tangent to the disc and crossing the
 // triangle around it: every model that is returned satisfies (M) at 150
 // points of the disc (200 random cases).
-func TestReviewPotentialModelsRandomKinks(t *testing.T) {
+func TestPotentialModelsRandomKinks(t *testing.T) {
 	rng := rand.New(rand.NewSource(21))
 	used := map[string]int{}
 	for range 200 {
