@@ -29,7 +29,7 @@ func (d intervalDomain) trial(r recipe, _ *outcome) (discrete.Trial, error) {
 		return nil, err
 	}
 	left, right := ends(d.p)
-	return &line.Trial{Space: line.NewLagrange(mesh, r.degree, left, right), V: pot}, nil
+	return line.NewTrial(line.NewLagrange(mesh, r.degree, left, right), pot), nil
 }
 
 // located: every stage-A index is located by bisection.

@@ -24,6 +24,14 @@ import (
 // mesh for stage B, which has its own shift γ_B ≥ γ.
 type polygon struct{ p *problem.Problem }
 
+// located: approximate stage-A eigenvalues locate the shifts of the
+// verified counts of the first indices (at most the default count); the
+// further ones are bounded by slicing (sliceStageA), which needs no
+// eigenvectors.
+func (d polygon) located(want int) int {
+	return min(want, d.p.Eigenvalues+defaultExtraIndices+1)
+}
+
 func (d polygon) trial(r recipe, out *outcome) (discrete.Trial, error) {
 	out.polygon = &polygonRecord{}
 	m, err := trialMesh(d.p, r)
@@ -35,15 +43,7 @@ func (d polygon) trial(r recipe, out *outcome) (discrete.Trial, error) {
 		return nil, err
 	}
 	out.polygon.triangles = len(m.Tris)
-	return &tri.Trial{Space: tri.NewLagrange(m, r.degree, sideConditions(d.p)), V: pot}, nil
-}
-
-// located: approximate stage-A eigenvalues locate the shifts of the
-// verified counts of the first indices (at most the default count); the
-// further ones are bounded by slicing (sliceStageA), which needs no
-// eigenvectors.
-func (d polygon) located(want int) int {
-	return min(want, d.p.Eigenvalues+defaultExtraIndices+1)
+	return tri.NewTrial(tri.NewLagrange(m, r.degree, sideConditions(d.p)), pot), nil
 }
 
 func (d polygon) stageA(r recipe, gamma interval.I, _ []float64, located int, out *outcome) (discrete.StageA, error) {

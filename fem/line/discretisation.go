@@ -9,42 +9,22 @@ import (
 	"gapcert/interval"
 )
 
-// This file presents the spaces of this package through the interfaces of
-// package fem/discrete: the trial space P_p (Trial), the mean-preserving
-// P2 space of the projection bounds (StageA) and the continuous flux space
-// of the Lehmann–Goerisch bounds (FluxSpace). The float sides use the
-// banded solvers of package enclose/band; the interval sides are the
-// functions of this package, whose guarantees are stated there.
-
-var (
-	_ discrete.Trial   = (*Trial)(nil)
-	_ discrete.StageA  = (*StageA)(nil)
-	_ discrete.Flux    = (*FluxSpace)(nil)
-	_ discrete.Counter = (*StageA)(nil)
-)
+// The spaces of this package as the interfaces of package fem/discrete,
+// with the banded solvers of package enclose/band for their float sides:
+// Trial (P_p), StageA (mean-preserving P2), FluxSpace (continuous fluxes).
 
 // Trial is the conforming space P_p with the potential V of the problem.
-type Trial struct {
-	Space *Lagrange
-	V     *Potential
+type Trial = discrete.Conforming[*Lagrange, *Potential, *band.Sym]
+
+// NewTrial returns the trial space s with the potential v.
+func NewTrial(s *Lagrange, v *Potential) *Trial {
+	return &Trial{Space: s, V: v, Lowest: band.LowestEigs}
 }
 
-// N returns the dimension of the space.
-func (t *Trial) N() int { return t.Space.N() }
-
-// ApproxEigenvectors returns approximations of the lowest count
-// eigenvectors of the float pencil of a + shift·b (band.LowestEigs; a
-// choice).
-func (t *Trial) ApproxEigenvectors(count int, shift float64) ([][]float64, error) {
-	k, m := t.Space.AssembleApprox(t.V, shift)
-	_, vecs, err := band.LowestEigs(k, m, count)
-	return vecs, err
-}
-
-// RitzMatrices returns Lagrange.RitzMatrices(vecs, V, gamma).
-func (t *Trial) RitzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *enclose.Sym, err error) {
-	return t.Space.RitzMatrices(vecs, t.V, gamma)
-}
+var (
+	_ discrete.StageA = (*StageA)(nil)
+	_ discrete.Flux   = (*FluxSpace)(nil)
+)
 
 // StageA is the interval pencil of the mean-preserving P2 space
 // (MeanP2.Matrices) with its projection constant C_h = h/(2π) and its

@@ -19,7 +19,7 @@ func TestDiscretisationConformance(t *testing.T) {
 	dirichlet := line.End{Dirichlet: true}
 	zero := []interval.I{interval.Point(0)}
 	mesh := line.Uniform(a, b, 8)
-	trial := &line.Trial{Space: line.NewLagrange(mesh, 6, dirichlet, dirichlet), V: line.PolynomialPotential(mesh, zero)}
+	trial := line.NewTrial(line.NewLagrange(mesh, 6, dirichlet, dirichlet), line.PolynomialPotential(mesh, zero))
 	gamma := interval.Point(1)
 	discretetest.Run(t, discretetest.Case{
 		Name:  "interval (0, pi), Dirichlet",

@@ -9,43 +9,12 @@ import (
 	"gapcert/interval"
 )
 
-// This file presents the spaces of this package through the interfaces of
-// package fem/discrete: the trial space P_p (Trial), the Crouzeix–Raviart
-// or enriched Crouzeix–Raviart space of the projection bounds (StageA) and
-// the Raviart–Thomas flux space of the Lehmann–Goerisch bounds
-// (FluxSpace). The float sides use the sparse solvers of package
-// enclose/sparse; the interval sides are the functions of this package,
-// whose guarantees are stated there.
+// Trial, StageA and FluxSpace present the conforming P_p space, the
+// (enriched) Crouzeix–Raviart spaces and the Raviart–Thomas fluxes as the
+// interfaces of package fem/discrete; their float sides use the sparse
+// solvers of package enclose/sparse.
 
-var (
-	_ discrete.Trial      = (*Trial)(nil)
-	_ discrete.StageA     = (*StageA)(nil)
-	_ discrete.Flux       = (*FluxSpace)(nil)
-	_ discrete.Indicators = (*FluxSpace)(nil)
-)
-
-// Trial is the conforming space P_p with the potential V of the problem.
-type Trial struct {
-	Space *Lagrange
-	V     *Potential
-}
-
-// N returns the dimension of the space.
-func (t *Trial) N() int { return t.Space.N() }
-
-// ApproxEigenvectors returns approximations of the lowest count
-// eigenvectors of the float pencil of a + shift·b (sparse.LowestEigs; a
-// choice).
-func (t *Trial) ApproxEigenvectors(count int, shift float64) ([][]float64, error) {
-	k, m := t.Space.AssembleApprox(t.V, shift)
-	_, vecs, err := sparse.LowestEigs(k, m, count)
-	return vecs, err
-}
-
-// RitzMatrices returns Lagrange.RitzMatrices(vecs, V, gamma).
-func (t *Trial) RitzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *enclose.Sym, err error) {
-	return t.Space.RitzMatrices(vecs, t.V, gamma)
-}
+var _ discrete.Indicators = (*FluxSpace)(nil)
 
 // StageA is the interval pencil of a CR or ECR space
 // (Projection.Matrices) with its projection constant, the constant of the
@@ -130,4 +99,12 @@ func (f *FluxSpace) LGMatrix(trial, fluxes [][]float64) (*enclose.Sym, error) {
 // Indicators returns Flux.Indicators.
 func (f *FluxSpace) Indicators(trial, fluxes [][]float64, lambda []float64) []float64 {
 	return f.flux.Indicators(f.trial.Space, trial, fluxes, lambda)
+}
+
+// Trial is P_p on a triangle mesh with the potential V of the problem.
+type Trial = discrete.Conforming[*Lagrange, *Potential, *sparse.Sym]
+
+// NewTrial returns the trial space s with the potential v.
+func NewTrial(s *Lagrange, v *Potential) *Trial {
+	return &Trial{Space: s, V: v, Lowest: sparse.LowestEigs}
 }
