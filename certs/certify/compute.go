@@ -49,6 +49,13 @@ type discretisation interface {
 	// stallNote is what the stall warning adds about the cause ("" or
 	// text starting with "; ").
 	stallNote() string
+	// first is the first recipe of the domain, without its shifts, for
+	// Taylor models of order taylor and π²/D² ≥ scale.
+	first(taylor int, scale float64) recipe
+	// fluxShift is the shift γ_B of stage B recorded in the recipe for
+	// the shift γ and bounds inf ≤ V ≤ sup on the domain (0: stage B
+	// uses γ).
+	fluxShift(gamma, inf, sup float64) float64
 	// cellLower returns min over the cells of the first stage-A mesh of
 	// r of the lower end of the enclosure of V there (initialRecipe).
 	cellLower(r recipe) (float64, error)

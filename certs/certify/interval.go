@@ -32,6 +32,16 @@ func (d intervalDomain) trial(r recipe, _ *outcome) (discrete.Trial, error) {
 	return line.NewTrial(line.NewLagrange(mesh, r.degree, left, right), pot), nil
 }
 
+// first: P_8 on 8 cells, fluxes of degree 9, stage A on
+// firstStageACells cells.
+func (intervalDomain) first(taylor int, scale float64) recipe {
+	return recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: firstStageACells, scale: scale,
+		extra: defaultExtraIndices}
+}
+
+// fluxShift: stage B on intervals uses γ.
+func (intervalDomain) fluxShift(_, _, _ float64) float64 { return 0 }
+
 // located: every stage-A index is located by bisection.
 func (intervalDomain) located(want int) int { return want }
 

@@ -24,6 +24,31 @@ import (
 // mesh for stage B, which has its own shift γ_B ≥ γ.
 type polygon struct{ p *problem.Problem }
 
+// first: P_4 on the first mesh refined once, RT_3 fluxes, stage A on
+// three refinements.
+func (polygon) first(taylor int, scale float64) recipe {
+	return recipe{degree: 4, fluxDegree: 3, taylor: min(taylor, polygonModelOrder), weightTaylor: polygonWeightOrder,
+		scale: scale, refine: 1, stageARefine: 3, extra: defaultExtraIndices}
+}
+
+// fluxShift: stage B on polygons has its own shift γ_B ≥ γ. Its weight
+// 1/(V + γ_B) is modelled by Taylor models on triangles, whose remainders
+// shrink like (h·|∇V|/(V + γ_B))^(order+1): keeping V + γ_B ≥ 2 osc V
+// makes them converge on coarse meshes, while stage A keeps the small γ
+// (its projection bound loses accuracy like C_h²(λ + γ)). Measured on a
+// trapezoid with V = x² + y² (osc 2.5) at degree 6: γ = 1.6 gives no
+// stage-B bound below 128 triangles, 6.3 relative width 9e-6 at 32 and
+// 9e-10 at 128. Any γ_B ≥ γ is sound (a choice; inf V and sup V here are
+// only enclosure ends).
+func (polygon) fluxShift(gamma, inf, sup float64) float64 {
+	if osc := sup - inf; osc > 0 && !math.IsInf(osc, 0) {
+		if gb := roundShift(interval.SubUp(2*osc, inf)); gb > gamma && !math.IsInf(gb, 0) {
+			return gb
+		}
+	}
+	return gamma
+}
+
 // located: approximate stage-A eigenvalues locate the shifts of the
 // verified counts of the first indices (at most the default count); the
 // further ones are bounded by slicing (sliceStageA), which needs no

@@ -61,7 +61,9 @@ const (
 // which only the cell ranges inf_T(V + γ) are used.
 const stageATaylor = 4
 
-// initialRecipe chooses the first mesh, degrees, Taylor order and shift.
+// initialRecipe chooses the first mesh, degrees and Taylor order
+// (discretisation.first), the shift γ and the shift of stage B
+// (discretisation.fluxShift).
 //
 // The shift γ is an exact float64 with γ ≥ π²/D² − inf V, so that
 // c = V + γ ≥ π²/D² > 0 on the domain (required by stage A, c_T ≥ 0, and by
@@ -87,12 +89,8 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 	if poly, ok := p.Potential.Polynomial(); ok {
 		taylor = max(poly.Degree(), 1) // exact model
 	}
-	r := recipe{cells: 8, degree: 8, fluxDegree: 9, taylor: taylor, weightTaylor: modelOrder, stageACells: 256, scale: scale.Lo,
-		extra: defaultExtraIndices}
-	if p.Dim == 2 {
-		r = recipe{degree: 4, fluxDegree: 3, taylor: min(taylor, polygonModelOrder), weightTaylor: polygonWeightOrder,
-			scale: scale.Lo, refine: 1, stageARefine: 3, extra: defaultExtraIndices}
-	}
+	dom := discretisationOf(p)
+	r := dom.first(taylor, scale.Lo)
 	// inf V ≥ both the enclosure over the domain and the least cell
 	// enclosure over the first stage-A mesh (the cells tile the domain);
 	// the larger one is the tighter bound.
@@ -105,24 +103,7 @@ func initialRecipe(p *problem.Problem) (recipe, error) {
 		return recipe{}, fmt.Errorf("the potential's range %v is outside what float64 can handle (hint: rescale the potential or the domain)", vr)
 	}
 	r.gamma = roundShift(g)
-	if p.Dim == 2 {
-		// Stage B on polygons has its own shift γ_B ≥ γ. Its weight
-		// 1/(V + γ_B) is modelled by Taylor models on triangles, whose
-		// remainders shrink like (h·|∇V|/(V + γ_B))^(order+1): keeping
-		// V + γ_B ≥ 2 osc V makes them converge on coarse meshes, while
-		// stage A keeps the small γ (its projection bound loses accuracy
-		// like C_h²(λ + γ)). Measured on a trapezoid with V = x² + y²
-		// (osc 2.5) at degree 6: γ = 1.6 gives no stage-B bound below 128
-		// triangles, 6.3 relative width 9e-6 at 32 and 9e-10 at 128. Any
-		// γ_B ≥ γ is sound (a choice; inf V and sup V here are only
-		// enclosure ends).
-		r.fluxGamma = r.gamma
-		if osc := vr.Hi - inf; osc > 0 && !math.IsInf(osc, 0) {
-			if gb := roundShift(interval.SubUp(2*osc, inf)); gb > r.gamma && !math.IsInf(gb, 0) {
-				r.fluxGamma = gb
-			}
-		}
-	}
+	r.fluxGamma = dom.fluxShift(r.gamma, inf, vr.Hi)
 	return r, nil
 }
 
