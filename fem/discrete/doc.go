@@ -13,7 +13,9 @@
 // input; each method's doc comment says which side it is on.
 //
 // The interval (package fem/line) and triangle (package fem/tri) element
-// packages implement these interfaces in their files discretisation.go.
+// packages implement these interfaces in their files discretisation.go,
+// their trial spaces through the one generic adapter Conforming, and run
+// the conformance suite of package fem/discrete/discretetest on them.
 // The shifted eigenvalues are Λ_k = λ_k + γ throughout, γ an exact float
 // chosen so that V + γ ≥ 0.
 package discrete
