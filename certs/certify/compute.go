@@ -3,52 +3,70 @@ package certify
 import (
 	"fmt"
 
-	"gapcert/enclose"
-	"gapcert/enclose/band"
-	"gapcert/fem/line"
+	"gapcert/certs/certify/proof"
+	"gapcert/fem/discrete"
 	"gapcert/fem/problem"
 	"gapcert/interval"
-	"gapcert/temple"
 )
 
-// recipe is the input of one deterministic computation.
-type recipe struct {
-	degree int // p of the conforming trial space
-	taylor int // order of the Taylor models of V
-	gamma  float64
-	scale  float64 // π²/D² rounded down; only for choosing shifts
+// This file is the method, written once for every discretisation: the
+// Ritz step, the verified stage-A search, the choice of N, stage B with
+// its shift, in this order. The bounds come from package proof; the
+// spaces, and every choice of a dimension, from a discretisation.
 
-	// fluxGamma is the shift γ_B ≥ γ of stage B on polygons (0 on
-	// intervals, where stage B uses γ).
-	fluxGamma float64
-
-	// marks lists, per adaptive round on the polygon trial mesh (after the
-	// uniform and graded levels), the triangles marked for bisection.
-	marks [][]int
-
-	// Intervals.
-	cells, fluxDegree int // polygons: fluxDegree −1 runs stage A alone (convergence studies)
-	weightTaylor      int // order of the Taylor models of 1/(V + γ)
-	stageACells       int
-
-	// Polygons: uniform refinements of the initial triangulation for the
-	// trial space and for stage A, and extra levels toward re-entrant
-	// corners (both meshes).
-	refine, stageARefine, graded int
-
-	// extra is how many eigenvalues past the requested ones are bounded
-	// (Ritz upper bounds of Λ_1..Λ_(m+extra), stage-A lower bounds of
-	// Λ_1..Λ_(m+extra+1)), so that N can be raised past a cluster that
-	// meets the last requested eigenvalue.
-	extra int
+// discretisation is the choosing side of one kind of domain (interval.go,
+// polygon.go): it builds the spaces of a recipe (package fem/discrete)
+// and chooses the next recipe. compute and Certify are written against it.
+type discretisation interface {
+	// trial builds the trial space of r (recording its sizes in out).
+	trial(r recipe, out *outcome) (discrete.Trial, error)
+	// located is how many of the want stage-A eigenvalues the stage-A
+	// space locates in floating point; the others are bounded by
+	// spectrum slicing (sliceStageA).
+	located(want int) int
+	// stageA builds the stage-A space of r for V + γ (recording its sizes
+	// in out). ritz holds the Ritz upper bounds, which may place brackets.
+	stageA(r recipe, gamma interval.I, ritz []float64, located int, out *outcome) (discrete.StageA, error)
+	// search is the placement of the shifts of the verified counts.
+	search() discrete.ShiftSearch
+	// stageBShift is the shift of stage B for r.
+	stageBShift(r recipe) proof.StageBShift
+	// flux builds the flux space of r for the trial space t with the
+	// weight 1/(V + γ_B).
+	flux(r recipe, t discrete.Trial, gammaB interval.I) (discrete.Flux, error)
+	// signFailure reports whether err says that V + γ ≥ 0 (or > 0) could
+	// not be verified on a cell, and the cell's enclosure of V + γ.
+	signFailure(err error) (interval.I, bool)
+	// next chooses the recipe after r (refine).
+	next(r recipe, out *outcome, gain float64) (recipe, string)
+	// memory estimates the peak memory of r in bytes (memoryEstimate).
+	memory(r recipe) int64
+	// stalls reports whether a step that narrowed the widths by the
+	// factor gain counts toward a stall, and stallSteps how many such
+	// steps in a row stop the run (Certify).
+	stalls(gain float64, out *outcome, best *result) bool
+	stallSteps() int
+	// stallNote is what the stall warning adds about the cause ("" or
+	// text starting with "; ").
+	stallNote() string
+	// first is the first recipe of the domain, without its shifts, for
+	// Taylor models of order taylor and π²/D² ≥ scale.
+	first(taylor int, scale float64) recipe
+	// fluxShift is the shift γ_B of stage B recorded in the recipe for
+	// the shift γ and bounds inf ≤ V ≤ sup on the domain (0: stage B
+	// uses γ).
+	fluxShift(gamma, inf, sup float64) float64
+	// cellLower returns min over the cells of the first stage-A mesh of
+	// r of the lower end of the enclosure of V there (initialRecipe).
+	cellLower(r recipe) (float64, error)
 }
 
-// describe is a one-line summary of the recipe for progress lines.
-func (r recipe) describe() string {
-	if r.refine > 0 || r.stageARefine > 0 {
-		return fmt.Sprintf("refinements %d, degree %d, stage-A refinements %d, graded %d, extra indices %d", r.refine, r.degree, r.stageARefine, r.graded, r.extra)
+// discretisationOf returns the discretisation of the problem's domain.
+func discretisationOf(p *problem.Problem) discretisation {
+	if p.Dim == 2 {
+		return polygon{p}
 	}
-	return fmt.Sprintf("cells %d, degree %d, stage-A cells %d", r.cells, r.degree, r.stageACells)
+	return intervalDomain{p}
 }
 
 // outcome holds the verified one-sided bounds of Λ_k = λ_k + γ that one
@@ -63,7 +81,7 @@ type outcome struct {
 	ch     interval.I
 	notes  []string
 
-	polygon *polygonRecord // nil for intervals
+	polygon *polygonRecord // set by the polygon discretisation; nil for intervals
 }
 
 // polygonRecord is what a polygon computation records besides its bounds.
@@ -89,86 +107,94 @@ func (out *outcome) describe() string {
 		out.polygon.triangles, out.polygon.stageAUnknowns, out.polygon.fluxUnknowns, stage)
 }
 
-// Extra indices (recipe.extra): the first recipe bounds
-// defaultExtraIndices eigenvalues past the requested ones; the polygon
-// driver raises the count up to maxExtraIndices when no N separates
-// (refinePolygon).
-const (
-	defaultExtraIndices = 3
-	maxExtraIndices     = 64
-)
-
-// stageATaylor caps the Taylor order of the stage-A potential models, of
-// which only the cell ranges inf_T(V + γ) are used.
-const stageATaylor = 4
-
 // compute runs the three stages once. Every number it returns as a bound is
-// verified; the floating-point parts only choose vectors, shifts and fluxes.
+// verified (package proof); the floating-point parts only choose vectors,
+// shifts and fluxes.
 func compute(p *problem.Problem, r recipe) (*outcome, error) {
-	if p.Dim == 2 {
-		return computePolygon(p, r)
-	}
+	d := discretisationOf(p)
 	want := p.Eigenvalues + r.extra
 	gamma := interval.Point(r.gamma)
-	left, right := ends(p)
-
 	out := &outcome{}
 
-	// Stage 1: Rayleigh–Ritz upper bounds.
-	mesh := intervalMesh(p, r.cells)
-	pot, err := line.FromExpr(mesh, p.Potential, r.taylor)
+	// Upper bounds: Rayleigh–Ritz.
+	trial, err := d.trial(r, out)
 	if err != nil {
 		return nil, err
 	}
-	space := line.NewLagrange(mesh, r.degree, left, right)
-	if space.N() < want+1 {
-		return nil, fmt.Errorf("the trial space of dimension %d is too small for %d eigenvalues", space.N(), want)
+	if trial.N() < want+1 {
+		return nil, fmt.Errorf("the trial space of dimension %d is too small for %d eigenvalues", trial.N(), want)
 	}
-	kApprox, mApprox := space.AssembleApprox(pot, r.gamma)
-	_, vecs, err := band.LowestEigs(kApprox, mApprox, want)
+	vecs, err := trial.ApproxEigenvectors(want, r.gamma)
 	if err != nil {
 		return nil, fmt.Errorf("the approximate eigenvectors could not be computed: %w", err)
 	}
-	a0, a1, err := space.RitzMatrices(vecs, pot, gamma)
+	a0, a1, err := trial.RitzMatrices(vecs, gamma)
 	if err != nil {
 		return nil, err
 	}
-	if out.ritz, err = ritzUpper(a0, a1); err != nil {
+	if out.ritz, err = proof.RitzUpper(a0, a1); err != nil {
 		return nil, err
 	}
 
-	// Stage A: projection lower bounds for Λ_1 … Λ_{want+1}.
-	out.stageA, out.ch, err = stageA(p, r, gamma, left, right, out.ritz, want+1)
+	// Lower bounds, stage A: projection bounds of Λ_1..Λ_(want+1).
+	located := d.located(want + 1)
+	sa, err := d.stageA(r, gamma, out.ritz, located, out)
 	if err != nil {
 		return nil, err
 	}
+	out.ch = sa.ProjectionConstant()
+	lhs, err := stageALower(sa, d.search(), out.ritz, want+1, located)
+	if err != nil {
+		return nil, err
+	}
+	out.stageA = make([]float64, want+1)
+	for i, lh := range lhs {
+		out.stageA[i] = proof.ProjectionLower(lh, sa.FormShift(), out.ch)
+	}
 
-	// Stage B: Lehmann–Goerisch.
-	if !chooseN(p, out) {
+	// Lower bounds, stage B: Lehmann–Goerisch with the first N trial
+	// functions.
+	if r.fluxDegree < 0 || !chooseN(p, out) {
 		return out, nil
 	}
-	weight, err := pot.InverseShifted(gamma, r.weightTaylor)
-	if err != nil {
-		return nil, err
-	}
-	flux := line.NewFlux(mesh, r.fluxDegree, left, right)
-	fluxes := make([][]float64, out.n)
-	for i := range fluxes {
-		fluxes[i] = flux.MinimizeApprox(space, vecs[i], weight)
-		if fluxes[i] == nil {
-			out.notes = append(out.notes, "stage B skipped: the flux least-squares system could not be factored")
-			return out, nil
+	shift := d.stageBShift(r)
+	out.lgRho = shift.Rho(out.rho)
+	trialN := vecs[:out.n]
+	b0, b1 := proof.Leading(a0, out.n), proof.Leading(a1, out.n)
+	if shift.GammaB != r.gamma {
+		if b0, b1, err = trial.RitzMatrices(trialN, interval.Point(shift.GammaB)); err != nil {
+			return nil, err
 		}
 	}
-	l0, l1, l2, err := line.LGMatrices(space, vecs[:out.n], flux, fluxes, pot, weight, gamma)
+	flux, err := d.flux(r, trial, interval.Point(shift.GammaB))
 	if err != nil {
 		return nil, err
 	}
-	out.lg, err = temple.LehmannGoerisch(l0, l1, l2, out.rho)
+	if out.polygon != nil {
+		out.polygon.fluxUnknowns = flux.N()
+	}
+	fluxes, err := flux.Choose(trialN)
+	if err != nil {
+		out.notes = append(out.notes, "stage B skipped: "+err.Error())
+		return out, nil
+	}
+	a2, err := flux.LGMatrix(trialN, fluxes)
+	if err != nil {
+		return nil, err
+	}
+	lg, err := shift.StageB(b0, b1, a2, out.lgRho)
 	if err != nil {
 		out.notes = append(out.notes, "stage B gave no bound: "+err.Error())
-		out.lg = nil
+		return out, nil
 	}
+	if ind, ok := flux.(discrete.Indicators); ok && out.polygon != nil {
+		lamB := make([]float64, out.n) // approximate Λ^B_i, for the indicators only
+		for i := range lamB {
+			lamB[i] = out.ritz[i] - r.gamma + shift.GammaB
+		}
+		out.polygon.indicators = ind.Indicators(trialN, fluxes, lamB)
+	}
+	out.lg = lg
 	return out, nil
 }
 
@@ -186,134 +212,4 @@ func chooseN(p *problem.Problem, out *outcome) bool {
 	}
 	out.notes = append(out.notes, "stage B skipped: no N with a stage-A lower bound of lambda_{N+1} above the Ritz upper bound of lambda_N; lower bounds are from stage A only")
 	return false
-}
-
-// ritzUpper returns upper bounds of Λ_1..Λ_n from the enclosed Ritz pencil
-// (a0, a1) of n trial functions: by the min–max principle Λ_k ≤ μ_k for the
-// exact pencil, which is a member of the interval one, and μ_k is at most
-// the upper end of its enclosure.
-func ritzUpper(a0, a1 *enclose.Sym) ([]float64, error) {
-	mu, err := enclose.Eigenvalues(a0, a1)
-	if err != nil {
-		return nil, fmt.Errorf("the Ritz pencil could not be enclosed: %w", err)
-	}
-	upper := make([]float64, len(mu))
-	for k := range upper {
-		upper[k] = mu[k].Hi
-	}
-	return upper, nil
-}
-
-// stageA returns verified lower bounds of Λ_1..Λ_count from the projection
-// bound of Liu (2015) on the mean-preserving P2 space (packages enclose and
-// fem/line, package docs):
-// Λ_k ≥ λ_{h,k}/(1 + C_h² λ_{h,k}), where λ_{h,k} ≥ σ' is proved by the
-// verified inertia count #{λ_h < σ'} ≤ k − 1 (package enclose/band, Verified
-// counts). upper holds the
-// Ritz upper bounds of Λ_k, used only to choose the search brackets.
-func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, upper []float64, count int) ([]float64, interval.I, error) {
-	mesh := intervalMesh(p, r.stageACells)
-	// Only the cell ranges of V matter here; a low-order model gives them.
-	pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
-	if err != nil {
-		return nil, interval.I{}, err
-	}
-	space := line.NewMeanP2(mesh, left, right)
-	k, m, mMin, err := space.Matrices(pot, gamma)
-	if err != nil {
-		return nil, interval.I{}, err
-	}
-	ch := space.ProjectionConstant()
-	c2 := ch.Hi * ch.Hi
-	lower := make([]float64, count)
-	prev := 0.0
-	for i := range lower {
-		// λ_h/(1 + C²λ_h) ≤ Λ_k gives λ_{h,k} ≤ Λ_k/(1 − C²Λ_k): a bracket
-		// end for the search (a choice; a wrong guess costs only width).
-		guess := 2 * upper[len(upper)-1]
-		if i < len(upper) && c2*upper[i] < 0.5 {
-			guess = upper[i] / (1 - c2*upper[i]) * (1 + 1e-9)
-		}
-		lh := verifiedDiscreteLower(k, m, mMin, max(prev, 0), guess, i+1)
-		prev = lh
-		lower[i] = enclose.ProjectionLower(lh, ch)
-	}
-	return lower, ch, nil
-}
-
-// verifiedDiscreteLower returns a float ℓ with λ_{h,index} ≥ ℓ for every
-// member of the interval pencil ([K], [M]). A floating-point Sturm
-// bisection on the midpoint pencil in [lo, hi] locates λ_{h,index} (a
-// choice); then shifts σ below it are verified: when band.CountBelow
-// shows at most index − 1 eigenvalues below the corrected shift σ', then
-// λ_{h,index} ≥ σ'. The largest verified σ' is returned, lo if nothing
-// verifies (lo must be a known lower bound: 0 always is, since the stage-A
-// pencil is positive semidefinite as c_T ≥ 0 and α ≥ 0).
-func verifiedDiscreteLower(k, m *band.ISym, mMin, lo, hi float64, index int) float64 {
-	km, mm := k.Mid(), m.Mid()
-	shifted := band.NewSym(km.N, km.W)
-	var f band.LDL
-	below := func(sigma float64) int { // approximate count, a choice
-		for i := range shifted.Data {
-			shifted.Data[i] = km.Data[i] - sigma*mm.Data[i]
-		}
-		if !f.Factorize(shifted) {
-			return index // treat a breakdown as "too high"
-		}
-		return f.NegCount()
-	}
-	a, b := lo, hi
-	for it := 0; it < 100 && b-a > 1e-15*b; it++ {
-		mid := a + (b-a)/2
-		if below(mid) <= index-1 {
-			a = mid
-		} else {
-			b = mid
-		}
-	}
-	// Near an eigenvalue the factorization without pivoting has tiny
-	// pivots and a large residual, so σ' can fall far below σ; shifts
-	// further from λ_{h,index} lose distance but may gain residual. Shifts
-	// stepping away geometrically are tried and the best verified σ' is
-	// kept. The search stops once eight verified shifts in a row did not improve
-	// (σ' is not monotone in the shift: measured on (0, 1), Dirichlet, 256
-	// cells, three were too few for λ_{h,2}).
-	best, stale := lo, 0
-	delta := 1e-13 * a
-	for try := 0; try < 30 && a-delta > lo && stale < 8; try++ {
-		n, sigmaPrime, ok := band.CountBelow(k, m, mMin, a-delta)
-		if ok && n <= index-1 {
-			if sigmaPrime > best {
-				best, stale = sigmaPrime, 0
-			} else {
-				stale++
-			}
-		}
-		delta *= 4
-	}
-	return best
-}
-
-// intervalMesh returns the n-cell uniform mesh of the problem's interval
-// with a node at every kink of the potential that formula.Expr.Kinks
-// finds (abs, min, max of affine arguments vanishing at an exact float), so
-// that the Taylor models of V are formed on both sides of the kink; a cell
-// with any other kink inside gets a range model (line.FromExpr). The mesh
-// depends only on the problem and n, so Check rebuilds it.
-func intervalMesh(p *problem.Problem, n int) *line.Mesh {
-	return line.UniformWith(p.Interval[0].Val, p.Interval[1].Val, n, p.Potential.Kinks())
-}
-
-// ends converts the problem's boundary conditions to the 1D element ends.
-func ends(p *problem.Problem) (left, right line.End) {
-	conv := func(bc problem.BC) line.End {
-		switch bc.Kind {
-		case problem.Dirichlet:
-			return line.End{Dirichlet: true}
-		case problem.Robin:
-			return line.End{Alpha: bc.Alpha.Val}
-		}
-		return line.End{} // Neumann: α = 0
-	}
-	return conv(p.Boundary[0]), conv(p.Boundary[1])
 }

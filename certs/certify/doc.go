@@ -56,6 +56,27 @@
 // other stop reasons (time, memory, stalled widths, an interrupt) are
 // records of the run, accepted when the recomputed widths miss the target.
 //
+// # Where things are
+//
+// The proving side is package certify/proof: what is enclosed and by
+// which theorem (Ritz upper bounds, count-to-bound, projection bounds,
+// Lehmann–Goerisch with the shift conversions, the enclosures of λ_k). It
+// holds no choices; the interval matrices it is given come from the
+// element packages through the interfaces of package fem/discrete
+// (fem/line and fem/tri, files discretisation.go), whose interval sides
+// carry their own guarantees.
+//
+// The method is written once: compute.go runs the stages of one
+// computation, stagea.go places the shifts of the verified stage-A counts
+// (the discretisation's ShiftSearch, spectrum slicing), loop.go is the
+// refinement loop of Certify. Every choice of a dimension is in its
+// discretisation: interval.go (meshes with kink nodes, the interval
+// refinement rule), polygon.go and polygon_refine.go (first mesh,
+// singular corners, grading, Dörfler marks, extra indices, the polygon
+// refinement rule), thin.go (first meshes of thin polygons). recipe.go
+// chooses the first recipe and the shifts, memory.go estimates memory,
+// result.go and certificate.go write the results, check.go re-checks.
+//
 // # Stage B and its shift
 //
 // Stage B needs ρ̂ ≤ Λ_(N+1). N is the least index ≥ the requested count

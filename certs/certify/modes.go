@@ -4,8 +4,6 @@ import (
 	"fmt"
 
 	"gapcert/certs"
-	"gapcert/enclose/band"
-	"gapcert/enclose/sparse"
 	"gapcert/fem/line"
 	"gapcert/fem/problem"
 	"gapcert/fem/tri"
@@ -34,38 +32,21 @@ func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Mod
 		return nil, fmt.Errorf("method.gamma %q is not an exact float64", m.Gamma)
 	}
 	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo, cells: m.Cells,
-		refine: m.Refinements, graded: m.GradedLevels}
-	if p.Dim == 1 {
-		mesh := intervalMesh(p, r.cells)
-		pot, err := line.FromExpr(mesh, p.Potential, r.taylor)
-		if err != nil {
-			return nil, err
-		}
-		left, right := ends(p)
-		space := line.NewLagrange(mesh, r.degree, left, right)
-		k, mm := space.AssembleApprox(pot, r.gamma)
-		_, vecs, err := band.LowestEigs(k, mm, count)
-		if err != nil {
-			return nil, err
-		}
-		return &Modes{Count: count, Eval: func(i int, x, _ float64) float64 { return space.Eval(vecs[i], x) }}, nil
-	}
-	r.marks = m.AdaptiveMarks
-	mesh, err := trialMesh(p, r)
+		refine: m.Refinements, graded: m.GradedLevels, marks: m.AdaptiveMarks}
+	trial, err := discretisationOf(p).trial(r, &outcome{})
 	if err != nil {
 		return nil, err
 	}
-	pot, err := tri.NewPotential(mesh, p.Potential, r.taylor)
+	vecs, err := trial.ApproxEigenvectors(count, r.gamma)
 	if err != nil {
 		return nil, err
 	}
-	space := tri.NewLagrange(mesh, r.degree, sideConditions(p))
-	k, mm := space.AssembleApprox(pot, r.gamma)
-	_, vecs, err := sparse.LowestEigs(k, mm, count)
-	if err != nil {
-		return nil, err
+	if t, ok := trial.(*line.Trial); ok {
+		return &Modes{Count: count, Eval: func(i int, x, _ float64) float64 { return t.Space.Eval(vecs[i], x) }}, nil
 	}
+	space := trial.(*tri.Trial).Space
 	modes := &Modes{Count: count, Eval: func(i int, x, y float64) float64 { return space.Eval(vecs[i], x, y) }}
+	mesh := space.Mesh()
 	for t := range mesh.Tris {
 		var tr [3][2]float64
 		for j, v := range mesh.Vertices(t) {

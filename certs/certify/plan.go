@@ -1,0 +1,50 @@
+package certify
+
+import (
+	"gapcert/fem/problem"
+)
+
+// Plan describes the first computation Certify would run on a problem:
+// the sizes of its meshes and spaces and an estimate of its peak memory
+// (larger meshes follow if the target width is not met).
+type Plan struct {
+	Kind             string
+	Degree           int
+	Cells            int // intervals: P_p cells
+	StageACells      int
+	Triangles        int // polygons: trial-mesh triangles
+	StageATriangles  int
+	StageASpace      string
+	MemoryEstimate   int64 // bytes, polygons only
+	ReentrantCorners []int
+	SingularCorners  []int // vertices the trial mesh is graded (and adaptively refined) toward
+}
+
+// FirstPlan returns the plan of the first computation of Certify.
+func FirstPlan(p *problem.Problem) (Plan, error) {
+	if err := checkMeshable(p); err != nil {
+		return Plan{}, err
+	}
+	r, err := initialRecipe(p)
+	if err != nil {
+		return Plan{}, err
+	}
+	if p.Dim == 1 {
+		return Plan{Kind: KindInterval, Degree: r.degree, Cells: r.cells, StageACells: r.stageACells}, nil
+	}
+	m, err := polygonMesh(p, r.refine, r.graded)
+	if err != nil {
+		return Plan{}, err
+	}
+	ma, err := polygonMesh(p, r.stageARefine, r.graded)
+	if err != nil {
+		return Plan{}, err
+	}
+	space := "enriched-crouzeix-raviart"
+	if usesCR(p) {
+		space = "crouzeix-raviart"
+	}
+	return Plan{Kind: KindPolygon, Degree: r.degree, Triangles: len(m.Tris), StageATriangles: len(ma.Tris),
+		StageASpace: space, MemoryEstimate: memoryEstimate(p, r), ReentrantCorners: reentrantCorners(p),
+		SingularCorners: singularCorners(p)}, nil
+}
