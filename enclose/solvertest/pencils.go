@@ -60,7 +60,7 @@ func tridiagIdentity(n int) pencil {
 	return pencil{"tridiag(−1,2,−1), M = I", n, e, want}
 }
 
-// p1Line is the P1 finite-element pencil of −u'' = λu on (0, 1) with u = 0
+// p1Line is the P1 finite-element pencil of −u″ = λu on (0, 1) with u = 0
 // at both ends, on N uniform elements (h = 1/N, n = N − 1 interior nodes):
 // K = (1/h)·tridiag(−1, 2, −1), M = (h/6)·tridiag(1, 4, 1), with K − shift·M
 // in place of K. N should be a power of 2 so that K is exact in float64.
@@ -84,7 +84,7 @@ func p1Line(nElem int, shift float64) pencil {
 	for k := 1; k <= n; k++ {
 		want[k-1] = p1Eigenvalue(k, h) - shift
 	}
-	return pencil{"P1 pencil of −u'' on (0, 1)", n, e, want}
+	return pencil{"P1 pencil of −u″ on (0, 1)", n, e, want}
 }
 
 func p1Eigenvalue(k int, h float64) float64 {
@@ -106,7 +106,7 @@ func doubled(p pencil) pencil {
 	return pencil{p.name + " twice (double eigenvalues)", 2 * p.n, e, want}
 }
 
-// p1LineInterval is the interval P1 pencil of −u'' on (0, 1) on N uniform
+// p1LineInterval is the interval P1 pencil of −u″ on (0, 1) on N uniform
 // elements (N a power of 2), whose entries are intervals of relative
 // radius about rel around the exact entries, placed off centre: the exact
 // entry a lies in [a − rel·|a|, a + 3rel·|a|] (outward rounded), so the
