@@ -1,7 +1,6 @@
 package band
 
 import (
-	"errors"
 	"math"
 
 	"gapcert/enclose/internal/subspace"
@@ -11,50 +10,29 @@ import (
 // here is a bound.
 
 // ErrNotConverged is returned by LowestEigs when the eigenpairs do not reach
-// the accuracy it promises.
-var ErrNotConverged = errors.New("band: eigenpairs did not converge")
-
-// ErrNotPositiveDefinite is returned by LowestEigs when M (or a projected
+// the accuracy it promises, ErrNotPositiveDefinite when M (or a projected
 // mass matrix) is not positive definite in floating point.
-var ErrNotPositiveDefinite = errors.New("band: mass matrix is not positive definite")
-
-// approxOptions is the floating-point route of LowestEigs: plain subspace
-// iteration (one block), input of each solve recomputed as M·x, symmetrised
-// projected matrices, dot products summed in index order, converged at
-// relative residual 1e-14.
-var approxOptions = subspace.Options{
-	Tol: 1e-14, Accept: 1e-11,
-	KrylovSteps: 1, FreshMassProducts: true, SymmetrizeRitz: true,
-	Vec:          subspace.LoopKernels,
-	NotConverged: ErrNotConverged, NotPositiveDefinite: ErrNotPositiveDefinite,
-}
+var ErrNotConverged, ErrNotPositiveDefinite = subspace.NewErrors("band")
 
 // LowestEigs returns approximations of the lowest count eigenvalues of
 // Kx = λMx (K symmetric, possibly indefinite; M symmetric positive
 // definite), ascending, and approximately M-orthonormal eigenvectors
-// vecs[i] of length N. The result is deterministic.
+// vecs[i] of length N, deterministically. It panics if the sizes differ or
+// count is not in 1 … N.
 //
-// Small problems (N ≤ 200) are solved densely (gonum: Cholesky of M, then
-// the symmetric eigensolver). Larger ones use shift-invert subspace
-// iteration with p = count + 8 vectors, full M-orthonormalisation by
-// modified Gram–Schmidt (twice) and Rayleigh–Ritz on the p-dimensional
-// subspace at every step, which handles multiple and clustered eigenvalues
-// (the iteration of enclose/internal/subspace with one block). The shift σ
-// is kept below λ_1 (the float factorization of K − σM has no negative
-// pivot) and moved towards the lowest Ritz value as it converges. Iteration
-// stops when every wanted pair has relative residual
-// ‖Kx − λMx‖₂ ≤ 1e-14·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂; if it stagnates above that,
-// pairs down to 1e-11 are accepted, otherwise ErrNotConverged is returned.
-//
-// LowestEigs panics if the sizes differ or count is not in 1 … N.
+// The method is the shift-invert subspace iteration of package
+// enclose/internal/subspace (dense for N ≤ 200) with p = count + 8 vectors
+// and one block: Rayleigh–Ritz on span((K − σM)⁻¹MX) at every step, the
+// solve input M·x recomputed from each vector, the projected matrices
+// symmetrised, dot products summed in index order. A pair is accepted at
+// relative residual ‖Kx − λMx‖₂ ≤ 1e-14·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂, or at 1e-11
+// when the iteration stagnates; else the error is ErrNotConverged.
 func LowestEigs(k, m *Sym, count int) (vals []float64, vecs [][]float64, err error) {
-	if k.N != m.N {
-		panic("band: dimension mismatch")
-	}
-	if count < 1 || count > k.N {
-		panic("band: eigenpair count out of range")
-	}
-	return subspace.Lowest(newPencil(k, m), count, approxOptions)
+	return subspace.Lowest(newPencil(k, m), count, subspace.Options{
+		Name: "band", Tol: 1e-14, Accept: 1e-11, KrylovSteps: 1,
+		FreshMassProducts: true, SymmetrizeRitz: true, Vec: subspace.LoopKernels,
+		NotConverged: ErrNotConverged, NotPositiveDefinite: ErrNotPositiveDefinite,
+	})
 }
 
 // pencil is the banded pencil (K, M) with the factorization of K − σM, as
@@ -66,13 +44,14 @@ type pencil struct {
 }
 
 func newPencil(k, m *Sym) *pencil {
+	if k.N != m.N {
+		panic("band: dimension mismatch")
+	}
 	return &pencil{k: k, m: m, shifted: NewSym(k.N, max(k.W, m.W))}
 }
 
-func (a *pencil) Dim() int                        { return a.k.N }
-func (a *pencil) Entries(i, j int) (k, m float64) { return a.k.At(i, j), a.m.At(i, j) }
-func (a *pencil) MulKTo(dst, x []float64)         { a.k.MulVecTo(dst, x) }
-func (a *pencil) MulMTo(dst, x []float64)         { a.m.MulVecTo(dst, x) }
+func (a *pencil) Dim() int                         { return a.k.N }
+func (a *pencil) Matrices() (k, m subspace.Matrix) { return a.k, a.m }
 func (a *pencil) InfNorms() (normK, normM float64) {
 	return infNorm(a.k), infNorm(a.m)
 }

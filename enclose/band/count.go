@@ -9,20 +9,6 @@ import (
 	"gapcert/interval"
 )
 
-// parallelEntries is the number of band entries above which CountBelow
-// splits the residual enclosure over the available CPUs.
-const parallelEntries = 1 << 15
-
-// CountBelow returns a verified count for the interval pencil ([K], [M]):
-// for every K ∈ [K] and M ∈ [M] with λ_min(M) ≥ mMin,
-//
-//	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
-//
-// It is NewCounter(k, m).CountBelow(mMin, sigma); see Counter.CountBelow.
-func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
-	return NewCounter(k, m).CountBelow(mMin, sigma)
-}
-
 // Counter evaluates CountBelow for one interval pencil at many shifts,
 // reusing its workspaces. It implements enclose.Counter. A Counter is not
 // safe for concurrent use; its results are those of CountBelow bit for
@@ -44,6 +30,16 @@ func NewCounter(k, m *ISym) *Counter {
 	w := max(k.W, m.W)
 	c := NewSym(k.N, w)
 	return &Counter{k: k, m: m, w: w, c: c, mag: make([]float64, len(c.Data))}
+}
+
+// CountBelow returns a verified count for the interval pencil ([K], [M]):
+// for every K ∈ [K] and M ∈ [M] with λ_min(M) ≥ mMin,
+//
+//	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
+//
+// It is NewCounter(k, m).CountBelow(mMin, sigma); see Counter.CountBelow.
+func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
+	return NewCounter(k, m).CountBelow(mMin, sigma)
 }
 
 // CountBelow returns a verified count for the pencil of c: for every
@@ -71,6 +67,10 @@ func NewCounter(k, m *ISym) *Counter {
 func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
 	return enclose.CountFromResidual(mMin, sigma, c.factorResidual)
 }
+
+// parallelEntries is the number of band entries above which CountBelow
+// splits the residual enclosure over the available CPUs.
+const parallelEntries = 1 << 15
 
 // factorResidual factors mid(K) − σ·mid(M) and bounds its residual (see
 // CountBelow).

@@ -1,33 +1,12 @@
 package band
 
 import (
-	"crypto/sha256"
-	"encoding/binary"
-	"encoding/hex"
 	"math"
 	"testing"
 
+	"gapcert/enclose/solvertest"
 	"gapcert/interval"
 )
-
-// digest returns the SHA-256 of the IEEE bits of every float, in order.
-func digest(vals []float64, vecs [][]float64) string {
-	h := sha256.New()
-	var b [8]byte
-	put := func(v float64) {
-		binary.LittleEndian.PutUint64(b[:], math.Float64bits(v))
-		h.Write(b[:])
-	}
-	for _, v := range vals {
-		put(v)
-	}
-	for _, x := range vecs {
-		for _, v := range x {
-			put(v)
-		}
-	}
-	return hex.EncodeToString(h.Sum(nil))
-}
 
 // doubledT returns the direct sum of two copies of (T, 6I − T) of size
 // half each: every eigenvalue is double.
@@ -65,12 +44,7 @@ func TestLowestEigsBits(t *testing.T) {
 			tc.k, tc.m = doubledT(700)
 		}
 		vals, vecs, err := LowestEigs(tc.k, tc.m, tc.count)
-		if err != nil {
-			t.Fatalf("%s: %v", tc.name, err)
-		}
-		if got := digest(vals, vecs); got != tc.want {
-			t.Errorf("%s: digest %s, recorded %s", tc.name, got, tc.want)
-		}
+		solvertest.CheckDigest(t, tc.name, tc.want, vals, vecs, err)
 	}
 }
 
@@ -97,7 +71,7 @@ func TestCountBelowBits(t *testing.T) {
 		}
 	}
 	const recorded = "e505187655ba45748e866c405a8efaa037aa8850fa2c03094194028c46039ee1"
-	if d := digest(got, nil); d != recorded {
+	if d := solvertest.Digest(got, nil); d != recorded {
 		t.Errorf("digest %s, recorded %s (values %v)", d, recorded, got)
 	}
 }

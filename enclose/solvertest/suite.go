@@ -1,6 +1,9 @@
 package solvertest
 
 import (
+	"crypto/sha256"
+	"encoding/binary"
+	"encoding/hex"
 	"math"
 	"math/rand/v2"
 	"runtime"
@@ -171,6 +174,38 @@ func lowestEigsDeterministic(t *testing.T, impl Impl) {
 	}
 }
 
+// Digest returns the SHA-256 (hex) of the IEEE 754 bits of vals and then
+// of every entry of vecs, in order: a fingerprint of a solver's exact
+// output, for tests that pin it bit for bit.
+func Digest(vals []float64, vecs [][]float64) string {
+	h := sha256.New()
+	var b [8]byte
+	put := func(v float64) {
+		binary.LittleEndian.PutUint64(b[:], math.Float64bits(v))
+		h.Write(b[:])
+	}
+	for _, v := range vals {
+		put(v)
+	}
+	for _, x := range vecs {
+		for _, v := range x {
+			put(v)
+		}
+	}
+	return hex.EncodeToString(h.Sum(nil))
+}
+
+// CheckDigest reports an error unless err is nil and the Digest of vals
+// and vecs is want.
+func CheckDigest(t *testing.T, name, want string, vals []float64, vecs [][]float64, err error) {
+	t.Helper()
+	if err != nil {
+		t.Errorf("%s: %v", name, err)
+	} else if got := Digest(vals, vecs); got != want {
+		t.Errorf("%s: digest %s, recorded %s", name, got, want)
+	}
+}
+
 func sameBits(a, b []float64) bool {
 	return slices.EqualFunc(a, b, func(x, y float64) bool { return math.Float64bits(x) == math.Float64bits(y) })
 }
@@ -208,21 +243,10 @@ func countContainsClosedForm(t *testing.T, impl Impl) {
 				t.Errorf("N = %d, rel = %g, σ = %g: factorization failed", tc.nElem, tc.rel, sigma)
 				continue
 			}
-			below := 0
-			for _, w := range want {
-				if w < sp {
-					below++
-				}
-			}
-			if below > got {
+			if below := numBelow(want, sp); below > got {
 				t.Errorf("N = %d, rel = %g, σ = %g: count %d, σ' = %.17g, but %d eigenvalues below σ'", tc.nElem, tc.rel, sigma, got, sp, below)
 			}
-			truth := 0
-			for _, w := range want {
-				if w < sigma {
-					truth++
-				}
-			}
+			truth := numBelow(want, sigma)
 			tol := lossBound(tc.rel, sigma, h, mMin)
 			if got != truth || !(sp <= sigma) || !(sigma-sp <= tol) {
 				t.Errorf("N = %d, rel = %g, σ = %g: count %d (true %d), σ − σ' = %g (allowed %g)", tc.nElem, tc.rel, sigma, got, truth, sigma-sp, tol)
@@ -273,23 +297,10 @@ func countContainsRandomMembers(t *testing.T, impl Impl) {
 		// Shifts between a member's eigenvalue and the midpoint's: the float
 		// factorization (of the midpoint) miscounts the member there, so
 		// only the residual correction can keep the promise.
-		between := make([]float64, 6)
-		for k := range between {
-			between[k] = (vals[k] + midVals[k]) / 2
-		}
-		for _, sigma := range between {
-			got, sp, ok := c.CountBelow(mMin, sigma)
-			if !ok {
-				t.Fatalf("σ = %g: factorization failed", sigma)
-			}
-			below := 0
-			for _, v := range vals {
-				if v < sp {
-					below++
-				}
-			}
-			if below > got {
-				t.Errorf("member %d, σ = %.17g between its and the midpoint's eigenvalue: count %d, σ' = %.17g, but %d eigenvalues below σ'", member, sigma, got, sp, below)
+		for k := 0; k < 6; k++ {
+			sigma := (vals[k] + midVals[k]) / 2
+			if got, sp, ok := c.CountBelow(mMin, sigma); !ok || numBelow(vals, sp) > got {
+				t.Errorf("member %d, σ = %.17g between its and the midpoint's eigenvalue: count %d, σ' = %.17g, ok %v, but %d eigenvalues below σ'", member, sigma, got, sp, ok, numBelow(vals, sp))
 			}
 		}
 		for _, sigma := range trialShifts(want, 8) {
@@ -297,13 +308,7 @@ func countContainsRandomMembers(t *testing.T, impl Impl) {
 			if !ok {
 				t.Fatalf("σ = %g: factorization failed", sigma)
 			}
-			below := 0
-			for _, v := range vals {
-				if v < sp {
-					below++
-				}
-			}
-			if below > got {
+			if below := numBelow(vals, sp); below > got {
 				t.Errorf("member %d, σ = %g: count %d, σ' = %.17g, but %d eigenvalues below σ'", member, sigma, got, sp, below)
 			}
 			if tol := lossBound(rel, sigma, h, mMin); !(sigma-sp <= tol) {
@@ -337,6 +342,17 @@ func countDeterministic(t *testing.T, impl Impl) {
 	if !sameBits(one, two) {
 		t.Errorf("GOMAXPROCS 1: %v; GOMAXPROCS 2, other order: %v", one, two)
 	}
+}
+
+// numBelow returns #{v ∈ vals : v < s}.
+func numBelow(vals []float64, s float64) int {
+	n := 0
+	for _, v := range vals {
+		if v < s {
+			n++
+		}
+	}
+	return n
 }
 
 // lossBound is the allowed σ − σ' for the interval P1 pencil of

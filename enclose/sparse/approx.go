@@ -1,66 +1,44 @@
 package sparse
 
 import (
-	"errors"
 	"math"
 
 	"gapcert/enclose/internal/subspace"
 )
 
-// This file only chooses: approximate eigenpairs in floating point. Nothing
-// here is a bound.
+// Approximate eigenpairs in floating point: choices only, never bounds.
 
-// ErrNotConverged is returned by LowestEigs when the eigenpairs do not reach
-// the accuracy it promises.
-var ErrNotConverged = errors.New("sparse: eigenpairs did not converge")
+// Errors of LowestEigs: the pairs missed the promised accuracy, or M (or a
+// projected mass matrix) is not positive definite in floating point.
+var ErrNotConverged, ErrNotPositiveDefinite = subspace.NewErrors("sparse")
 
-// ErrNotPositiveDefinite is returned by LowestEigs when M (or a projected
-// mass matrix) is not positive definite in floating point.
-var ErrNotPositiveDefinite = errors.New("sparse: mass matrix is not positive definite")
-
-// approxOptions is the floating-point route of LowestEigs: a block Krylov
-// basis of three blocks, solves fed with the products M·x kept by the
-// M-orthonormalisation, unsymmetrised projected matrices, gonum's vector
-// kernels, converged at relative residual 1e-13.
-var approxOptions = subspace.Options{
-	Tol: 1e-13, Accept: 1e-11,
-	KrylovSteps: 3, FreshMassProducts: false, SymmetrizeRitz: false,
-	Vec:          subspace.GonumKernels,
-	NotConverged: ErrNotConverged, NotPositiveDefinite: ErrNotPositiveDefinite,
-}
-
-// LowestEigs returns approximations of the lowest count eigenvalues of
-// Kx = λMx (K symmetric, possibly indefinite; M symmetric positive
-// definite), ascending, and approximately M-orthonormal eigenvectors
-// vecs[i] of length N. The result is deterministic.
+// LowestEigs approximates the count lowest eigenpairs of the pencil
+// Kx = λMx, with K symmetric (indefinite allowed) and M symmetric positive
+// definite: eigenvalues ascending, eigenvectors of length N approximately
+// M-orthonormal; the same input gives the same bits. Sizes that differ, or
+// a count outside 1 … N, panic.
 //
-// Small problems (N ≤ 200) are solved densely (gonum: Cholesky of M, then
-// the symmetric eigensolver). Larger ones use shift-invert block subspace
-// iteration with a block of p = count + 8 vectors, accelerated by a block
-// Krylov basis [Op X, Op² X, Op³ X], Op = (K − σM)⁻¹M, at every step (the
-// iteration of enclose/internal/subspace with three blocks): full
-// M-orthonormalisation by modified Gram–Schmidt (twice) and Rayleigh–Ritz
-// on the 3p-dimensional basis, keeping the p lowest Ritz vectors. A block
-// larger than the multiplicity handles multiple and clustered eigenvalues.
-// K − σM is ordered (Order) and analyzed once, on the union of the patterns
-// of K and M, and refactored for each shift. The shift σ starts at 0 when
-// K factors with no negative pivot (K positive definite, the common case of
-// shifted problems), else at a Gershgorin-type estimate below the spectrum;
-// it is kept below λ_1 (the float factorization of K − σM has no negative
-// pivot) and moved towards the lowest Ritz value as it converges. Iteration
-// stops when every wanted pair has relative residual
-// ‖Kx − λMx‖₂ ≤ 1e-13·(‖K‖∞ + |λ|‖M‖∞)‖x‖₂; if it stagnates above that,
-// pairs down to 1e-11 are accepted, otherwise ErrNotConverged is returned.
+// It runs the iteration of package enclose/internal/subspace (a dense
+// solve up to N = 200) with a block of count + 8 vectors and a Krylov
+// basis of three blocks [Op X, Op² X, Op³ X], Op = (K − σM)⁻¹M, on which
+// Rayleigh–Ritz runs at each step; the solves take the products M·x kept
+// by the M-orthonormalisation, and dot products use gonum's kernels.
+// K − σM is ordered (Order) and analyzed once on the union of the patterns
+// of K and M and refactored for each shift. Pairs converge at relative
+// residual 1e-13 (‖Kx − λMx‖₂ over (‖K‖∞ + |λ|‖M‖∞)‖x‖₂), or 1e-11 when
+// progress stalls; otherwise ErrNotConverged.
 //
-// LowestEigs panics if the sizes differ or count is not in 1 … N.
+// Reference: R. G. Grimes, J. G. Lewis, H. D. Simon, A shifted block
+// Lanczos algorithm for solving sparse symmetric generalized
+// eigenproblems, SIAM J. Matrix Anal. Appl. 15 (1994) 228–272.
 func LowestEigs(k, m *Sym, count int) (vals []float64, vecs [][]float64, err error) {
 	if k.N() != m.N() {
 		panic("sparse: dimension mismatch")
 	}
-	if count < 1 || count > k.N() {
-		panic("sparse: eigenpair count out of range")
-	}
-	return subspace.Lowest(&pencil{k: k, m: m}, count, approxOptions)
+	return subspace.Lowest(&pencil{k: k, m: m}, count, subspace.Options{
+		Name: "sparse", Tol: 1e-13, Accept: 1e-11, KrylovSteps: 3, Vec: subspace.GonumKernels,
+		NotConverged: ErrNotConverged, NotPositiveDefinite: ErrNotPositiveDefinite,
+	})
 }
 
 // pencil is the sparse pencil (K, M) with the factorization of K − σM, as
@@ -75,10 +53,8 @@ type pencil struct {
 	block        []float64 // workspace of the block solves
 }
 
-func (a *pencil) Dim() int                        { return a.k.N() }
-func (a *pencil) Entries(i, j int) (k, m float64) { return a.k.At(i, j), a.m.At(i, j) }
-func (a *pencil) MulKTo(dst, x []float64)         { a.k.MulVecTo(dst, x) }
-func (a *pencil) MulMTo(dst, x []float64)         { a.m.MulVecTo(dst, x) }
+func (a *pencil) Dim() int                         { return a.k.N() }
+func (a *pencil) Matrices() (k, m subspace.Matrix) { return a.k, a.m }
 func (a *pencil) InfNorms() (normK, normM float64) {
 	return infNorm(a.k), infNorm(a.m)
 }

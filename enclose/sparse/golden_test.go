@@ -1,33 +1,12 @@
 package sparse
 
 import (
-	"crypto/sha256"
-	"encoding/binary"
-	"encoding/hex"
 	"math"
 	"testing"
 
+	"gapcert/enclose/solvertest"
 	"gapcert/interval"
 )
-
-// digest returns the SHA-256 of the IEEE bits of every float, in order.
-func digest(vals []float64, vecs [][]float64) string {
-	h := sha256.New()
-	var b [8]byte
-	put := func(v float64) {
-		binary.LittleEndian.PutUint64(b[:], math.Float64bits(v))
-		h.Write(b[:])
-	}
-	for _, v := range vals {
-		put(v)
-	}
-	for _, x := range vecs {
-		for _, v := range x {
-			put(v)
-		}
-	}
-	return hex.EncodeToString(h.Sum(nil))
-}
 
 // TestLowestEigsBits pins the exact floating-point output of LowestEigs on
 // fixed pencils: the eigenvectors and shifts chosen from it feed the
@@ -51,12 +30,7 @@ func TestLowestEigsBits(t *testing.T) {
 		{"P1 m=30", k30, m30, 10, "5fc27466ceb85c7fcc967cae3e0b412a5329304c0444b96c1e3ef486fa87e5f8"},
 	} {
 		vals, vecs, err := LowestEigs(tc.k, tc.m, tc.count)
-		if err != nil {
-			t.Fatalf("%s: %v", tc.name, err)
-		}
-		if got := digest(vals, vecs); got != tc.want {
-			t.Errorf("%s: digest %s, recorded %s", tc.name, got, tc.want)
-		}
+		solvertest.CheckDigest(t, tc.name, tc.want, vals, vecs, err)
 	}
 }
 
@@ -85,7 +59,7 @@ func TestCountBelowBits(t *testing.T) {
 		}
 	}
 	const recorded = "97838d2b88bad62557f3f76af1c329d4ce2479d8378d7fdd95e3741e18ddb1ec"
-	if d := digest(got, nil); d != recorded {
+	if d := solvertest.Digest(got, nil); d != recorded {
 		t.Errorf("digest %s, recorded %s (values %v)", d, recorded, got)
 	}
 }

@@ -1,6 +1,7 @@
 package subspace
 
 import (
+	"errors"
 	"math"
 	"math/rand/v2"
 	"sort"
@@ -9,16 +10,21 @@ import (
 	"gapcert/enclose/internal/geneig"
 )
 
+// Matrix is a symmetric matrix as the iteration uses it.
+type Matrix interface {
+	// At returns entry (i, j) (used only by the dense path).
+	At(i, j int) float64
+	// MulVecTo sets dst = S x (dst does not alias x).
+	MulVecTo(dst, x []float64)
+}
+
 // Pencil is what the iteration needs of a symmetric pencil (K, M) in some
 // storage. The methods are floating-point choices, not bounds.
 type Pencil interface {
 	// Dim returns the order n of K and M.
 	Dim() int
-	// Entries returns K_ij and M_ij (used only by the dense path).
-	Entries(i, j int) (k, m float64)
-	// MulKTo and MulMTo set dst = K x and dst = M x (dst does not alias x).
-	MulKTo(dst, x []float64)
-	MulMTo(dst, x []float64)
+	// Matrices returns K and M.
+	Matrices() (k, m Matrix)
 	// FactorShift factors K − σM in floating point, replacing any earlier
 	// factorization, and reports whether it succeeded with no negative
 	// pivot (so σ lies below the spectrum, up to rounding).
@@ -43,6 +49,8 @@ type Kernels struct {
 
 // Options fix the floating-point route of Lowest.
 type Options struct {
+	// Name prefixes the misuse panics (the storage's package name).
+	Name string
 	// Tol is the relative residual at which a pair counts as converged;
 	// Accept is the level accepted when the iteration stagnates.
 	Tol, Accept float64
@@ -95,9 +103,12 @@ const (
 // stagnates above that, pairs down to opt.Accept are accepted, otherwise
 // opt.NotConverged is returned.
 //
-// The caller checks 1 ≤ count ≤ n.
+// Lowest panics if count is not in 1 … n.
 func Lowest(a Pencil, count int, opt Options) (vals []float64, vecs [][]float64, err error) {
 	n := a.Dim()
+	if count < 1 || count > n {
+		panic(opt.Name + ": eigenpair count out of range")
+	}
 	p := min(n, count+extraVectors)
 	if n <= denseLimit || 3*p > n {
 		return denseLowest(a, count, &opt)
@@ -108,10 +119,11 @@ func Lowest(a Pencil, count int, opt Options) (vals []float64, vecs [][]float64,
 // denseLowest solves the full generalized problem with gonum.
 func denseLowest(a Pencil, count int, opt *Options) ([]float64, [][]float64, error) {
 	n := a.Dim()
+	k, m := a.Matrices()
 	kd, md := make([]float64, n*n), make([]float64, n*n)
 	for i := 0; i < n; i++ {
 		for j := 0; j < n; j++ {
-			kd[i*n+j], md[i*n+j] = a.Entries(i, j)
+			kd[i*n+j], md[i*n+j] = k.At(i, j), m.At(i, j)
 		}
 	}
 	vals, z, err := opt.dense(kd, md, n)
@@ -126,6 +138,14 @@ func denseLowest(a Pencil, count int, opt *Options) ([]float64, [][]float64, err
 		}
 	}
 	return vals[:count], vecs, nil
+}
+
+// NewErrors returns the errors of a storage's LowestEigs (prefixed by its
+// package name): the pairs did not reach the promised accuracy, and M (or
+// a projected mass matrix) is not positive definite in floating point.
+func NewErrors(name string) (notConverged, notPositiveDefinite error) {
+	return errors.New(name + ": eigenpairs did not converge"),
+		errors.New(name + ": mass matrix is not positive definite")
 }
 
 // dense returns the eigenvalues (ascending) and B-orthonormal eigenvectors
@@ -148,6 +168,7 @@ func (opt *Options) dense(a, b []float64, n int) ([]float64, []float64, error) {
 // Ritz vectors are formed.
 type iteration struct {
 	a      Pencil
+	k, m   Matrix
 	opt    *Options
 	n, p   int         // order, block size
 	q      int         // size of the basis
@@ -177,6 +198,7 @@ func newIteration(a Pencil, p int, opt *Options) *iteration {
 		ak: make([]float64, q*q), am: make([]float64, q*q), order: make([]int, q),
 		theta: make([]float64, p), rng: rand.New(rand.NewPCG(1, 2))}
 	it.kx, it.mx = it.ky[:p], it.my[:p]
+	it.k, it.m = a.Matrices()
 	return it
 }
 
@@ -206,7 +228,7 @@ iterate:
 			}
 			if opt.FreshMassProducts {
 				for c := range src {
-					a.MulMTo(it.y[from+c], src[c])
+					it.m.MulVecTo(it.y[from+c], src[c])
 				}
 				a.SolveTo(it.y[from:to], it.y[from:to])
 			} else {
@@ -285,14 +307,14 @@ func (it *iteration) mOrthonormalize(v, mv [][]float64, from int) {
 	dot, axpy, scale := it.opt.Vec.Dot, it.opt.Vec.Axpy, it.opt.Vec.Scale
 	for c := from; c < len(v); c++ {
 		for attempt := 0; attempt < 4; attempt++ {
-			it.a.MulMTo(mv[c], v[c])
+			it.m.MulVecTo(mv[c], v[c])
 			norm0 := math.Sqrt(math.Abs(dot(mv[c], v[c])))
 			for pass := 0; pass < 2; pass++ {
 				for d := 0; d < c; d++ {
 					axpy(v[c], -dot(mv[d], v[c]), v[d])
 				}
 			}
-			it.a.MulMTo(mv[c], v[c])
+			it.m.MulVecTo(mv[c], v[c])
 			norm := math.Sqrt(math.Abs(dot(mv[c], v[c])))
 			if norm > 1e-8*norm0 && norm > 0 && !math.IsInf(norm, 0) {
 				scale(v[c], 1/norm)
@@ -310,10 +332,10 @@ func (it *iteration) mOrthonormalize(v, mv [][]float64, from int) {
 // span(y), ascending Ritz values in theta, and fills kx = K x, mx = M x.
 // On entry my holds M y.
 func (it *iteration) rayleighRitz() error {
-	p, q, a := it.p, it.q, it.a
+	p, q := it.p, it.q
 	dot, axpy := it.opt.Vec.Dot, it.opt.Vec.Axpy
 	for c := 0; c < q; c++ {
-		a.MulKTo(it.ky[c], it.y[c])
+		it.k.MulVecTo(it.ky[c], it.y[c])
 	}
 	ak, am := it.ak, it.am
 	for i := 0; i < q; i++ {
@@ -345,8 +367,8 @@ func (it *iteration) rayleighRitz() error {
 		for d := 0; d < q; d++ {
 			axpy(x, z[d*q+o], it.y[d])
 		}
-		a.MulKTo(it.kx[c], x)
-		a.MulMTo(it.mx[c], x)
+		it.k.MulVecTo(it.kx[c], x)
+		it.m.MulVecTo(it.mx[c], x)
 	}
 	return nil
 }
