@@ -39,6 +39,7 @@ type Counter struct {
 	c            *Sym          // mid(K) − σ·mid(M), a choice
 	f            LDL
 	rows         *lRows // row structure of L, the same for every shift
+	work         residualWork
 }
 
 // NewCounter prepares CountBelow for the pencil ([K], [M]). It panics if
@@ -129,7 +130,7 @@ func (c *Counter) factorResidual(sigma float64) (neg int, r float64, ok bool) {
 	for q, v := range c.mLow.val {
 		c.shiftedM.val[q] = v.Mul(ms)
 	}
-	return c.f.NegCount(), residualBound(&c.f, c.rows, c.kLow, c.shiftedM), true
+	return c.f.NegCount(), residualBound(&c.f, c.rows, c.kLow, c.shiftedM, &c.work), true
 }
 
 // lowerColumns is a permuted lower triangle by columns with interval
@@ -205,14 +206,23 @@ func newLRows(f *LDL) *lRows {
 	return t
 }
 
+// residualWork holds the magnitudes of the residual entries and the row
+// sums, reused across the shifts of a Counter (every entry is rewritten
+// at each use).
+type residualWork struct {
+	magD, magL, sum []float64
+}
+
 // residualBound returns r ≥ max_i Σ_j |R_ij| for R = A + B − L D Lᵀ and
-// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards.
-func residualBound(f *LDL, t *lRows, a, b *lowerColumns) float64 {
+// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards. ws
+// is a workspace.
+func residualBound(f *LDL, t *lRows, a, b *lowerColumns, ws *residualWork) float64 {
 	n := len(f.D)
 	lp := f.Sym.colPtr
 	work := t.work
-	magD := make([]float64, n)
-	magL := make([]float64, len(f.Row))
+	ws.magD, ws.magL, ws.sum = resize(ws.magD, n), resize(ws.magL, len(f.Row)), resize(ws.sum, n)
+	magD, magL, sum := ws.magD, ws.magL, ws.sum
+	clear(sum)
 	columns := func(from, to int, acc []interval.I, mark []int32) {
 		for j := from; j < to; j++ {
 			residualColumn(f, t, a, b, j, acc, mark, magD, magL)
@@ -249,7 +259,6 @@ func residualBound(f *LDL, t *lRows, a, b *lowerColumns) float64 {
 	} else {
 		columns(0, n, make([]interval.I, n), make([]int32, n))
 	}
-	sum := make([]float64, n)
 	for j := 0; j < n; j++ {
 		sum[j] = interval.AddUp(sum[j], magD[j])
 		for q := lp[j]; q < lp[j+1]; q++ {

@@ -926,6 +926,25 @@ func BenchmarkCountBelow(b *testing.B) {
 	}
 }
 
+// BenchmarkCounterShifts: one Counter on the P1 pencil at four shifts, as
+// the stage-A searches use it (the workspaces are reused across shifts).
+func BenchmarkCounterShifts(b *testing.B) {
+	for _, side := range benchSides[:2] {
+		k, m := benchGrid(side)
+		b.Run(fmt.Sprintf("n=%d", side*side), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				c := NewCounter(k, m)
+				for _, sigma := range []float64{20, 50, 100, 200} {
+					if _, _, ok := c.CountBelow(1e-9, sigma); !ok {
+						b.Fatal("factorization failed")
+					}
+				}
+			}
+		})
+	}
+}
+
 // BenchmarkLowestEigs: the 10 lowest eigenpairs of the P1 pencil.
 func BenchmarkLowestEigs(b *testing.B) {
 	for _, side := range benchSides[:2] {
