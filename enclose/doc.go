@@ -113,8 +113,26 @@
 // #neg(C) = #neg(D). A count n with #{μ < τ} ≤ i − 1 proves μ_i ≥ τ, and
 // #{μ < τ} ≥ i proves μ_i < τ; Eigenvalues bisects on such counts. The
 // large sparse pencils of the finite-element spaces are counted the same
-// way with a floating-point factorization and an enclosed residual
-// (packages enclose/band and enclose/sparse, CountBelow).
+// way with a floating-point factorization and an enclosed residual: the
+// Counter interface, implemented by packages enclose/band and
+// enclose/sparse, and CountFromResidual, which states the inequalities.
+//
+// # Mass bounds
+//
+// The callers of a Counter (packages fem/line and fem/tri) obtain mMin,
+// the lower bound of λ_min(M) over the members, elementwise. If
+// the exact mass matrix is M = Σ_T E_Tᵀ M_T E_T, M_T the element matrix on
+// the degrees of freedom of element T (E_T the restriction, x_T = E_T x)
+// and M_T ⪰ diag(t_(T,i))_(i ∈ T) with every t_(T,i) ≥ 0 (for example
+// t_(T,i) = t_T ≤ λ_min(M_T)), then
+//
+//	xᵀMx = Σ_T x_Tᵀ M_T x_T ≥ Σ_T Σ_(i ∈ T) t_(T,i) x_i² = Σ_i (Σ_(T ∋ i) t_(T,i)) x_i² ≥ min_i (Σ_(T ∋ i) t_(T,i)) |x|².
+//
+// Removing degrees of freedom (Dirichlet values) keeps the inequality on
+// the rest (a principal submatrix of M_T − diag(t_(T,i)) is still
+// positive semidefinite). A member M' of the interval matrix differs
+// from M by a symmetric E with |E_ij| ≤ wid([M]_ij), so λ_min(M') ≥
+// λ_min(M) − ‖E‖₂ ≥ λ_min(M) − ‖E‖∞ (Weyl; ‖E‖₂ = ρ(E) ≤ ‖E‖∞).
 //
 // References:
 //
@@ -123,8 +141,8 @@
 //	the form of a sum of positive and negative squares, Philosophical
 //	Magazine 4 (1852) 138–142.
 //	G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins
-//	University Press, 2013, §8.4 (Sturm counts and bisection for symmetric
-//	eigenvalues).
+//	University Press, 2013, §8.1 (Weyl's inequalities), §8.4 (Sturm counts
+//	and bisection for symmetric eigenvalues).
 //	X. Liu, A framework of verified eigenvalue bounds for self-adjoint
 //	differential operators, Applied Mathematics and Computation 267 (2015)
 //	341–355.

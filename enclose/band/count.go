@@ -5,15 +5,45 @@ import (
 	"runtime"
 	"sync"
 
+	"gapcert/enclose"
 	"gapcert/interval"
 )
 
-// parallelEntries is the number of band entries above which CountBelow
-// splits the residual enclosure over the available CPUs.
-const parallelEntries = 1 << 15
+// Counter evaluates CountBelow for one interval pencil at many shifts,
+// reusing its workspaces. It implements enclose.Counter. A Counter is not
+// safe for concurrent use; its results are those of CountBelow bit for
+// bit.
+type Counter struct {
+	k, m *ISym
+	w    int
+	c    *Sym // mid(K) − σ·mid(M), a choice
+	f    LDL
+	mag  []float64 // |R_ij| ≤ mag, in the layout of Sym
+}
+
+// NewCounter prepares CountBelow for the pencil ([K], [M]). It panics if
+// the sizes differ.
+func NewCounter(k, m *ISym) *Counter {
+	if k.N != m.N {
+		panic("band: dimension mismatch")
+	}
+	w := max(k.W, m.W)
+	c := NewSym(k.N, w)
+	return &Counter{k: k, m: m, w: w, c: c, mag: make([]float64, len(c.Data))}
+}
 
 // CountBelow returns a verified count for the interval pencil ([K], [M]):
 // for every K ∈ [K] and M ∈ [M] with λ_min(M) ≥ mMin,
+//
+//	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
+//
+// It is NewCounter(k, m).CountBelow(mMin, sigma); see Counter.CountBelow.
+func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
+	return NewCounter(k, m).CountBelow(mMin, sigma)
+}
+
+// CountBelow returns a verified count for the pencil of c: for every
+// member (K, M) with λ_min(M) ≥ mMin,
 //
 //	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
 //
@@ -23,54 +53,38 @@ const parallelEntries = 1 << 15
 // sigmaPrime = σ − r/mMin (rounded down), where r is an upper bound, over
 // all members, of the largest absolute row sum of the residual
 // R = (K − σM) − LDLᵀ, enclosed entry by entry in outward rounded interval
-// arithmetic (L has the bandwidth of the pencil, so R is banded too).
-// ok = false if the factorization broke down (zero or non-finite pivot).
-//
-// The chain of inequalities, for every member (K, M):
-//
-//	K − σ'M = LDLᵀ + R + (σ − σ')M        (definition of R)
-//	        ⪰ LDLᵀ + R + rI               ((σ − σ') ≥ r/mMin ≥ 0, M ⪰ mMin·I)
-//	        ⪰ LDLᵀ                        (R symmetric, ‖R‖₂ = ρ(R) ≤ ‖R‖∞ ≤ r).
-//
-// By Weyl's monotonicity theorem (A ⪰ B implies λ_k(A) ≥ λ_k(B) for every
-// k) #neg(K − σ'M) ≤ #neg(LDLᵀ) = #neg(D), the last equality by Sylvester's
-// law of inertia (L is nonsingular). Since M is positive definite,
-// K − σ'M = M^{1/2}(M^{−1/2}KM^{−1/2} − σ'I)M^{1/2}, so Sylvester again gives
-// #{λ < σ'} = #neg(K − σ'M) ≤ n. Hence if n ≤ k − 1 then λ_k ≥ σ'.
+// arithmetic (L has the bandwidth of the pencil, so R is banded too). The
+// inequalities that make this a proof are stated and cited at
+// enclose.CountFromResidual (here with P = I). ok = false if the
+// factorization broke down (zero or non-finite pivot).
 //
 // The residual is computed in parallel for large matrices; the result does
 // not depend on GOMAXPROCS (each entry is enclosed identically, and the
 // row sums and their maximum are taken sequentially).
 //
-// CountBelow panics if the sizes differ or mMin is not a positive number.
-//
-// References:
-//
-//	G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
-//	Hopkins University Press, 2013, §8.1 (Weyl's inequalities, Sylvester's
-//	law of inertia).
-func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
-	if k.N != m.N {
-		panic("band: dimension mismatch")
-	}
-	if !(mMin > 0) || math.IsInf(mMin, 1) {
-		panic("band: mMin must be a positive finite lower bound of λ_min(M)")
-	}
-	if math.IsNaN(sigma) || math.IsInf(sigma, 0) {
-		panic("band: shift must be finite")
-	}
-	nn, w := k.N, max(k.W, m.W)
-	c := NewSym(nn, w)
+// CountBelow panics if mMin is not a positive finite number or sigma is
+// not finite.
+func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
+	return enclose.CountFromResidual(mMin, sigma, c.factorResidual)
+}
+
+// parallelEntries is the number of band entries above which CountBelow
+// splits the residual enclosure over the available CPUs.
+const parallelEntries = 1 << 15
+
+// factorResidual factors mid(K) − σ·mid(M) and bounds its residual (see
+// CountBelow).
+func (c *Counter) factorResidual(sigma float64) (neg int, r float64, ok bool) {
+	k, m, w, nn := c.k, c.m, c.w, c.k.N
 	for i := 0; i < nn; i++ {
 		for j := max(0, i-w); j <= i; j++ {
-			c.Data[i*(w+1)+i-j] = k.At(i, j).Mid() - sigma*m.At(i, j).Mid()
+			c.c.Data[i*(w+1)+i-j] = k.At(i, j).Mid() - sigma*m.At(i, j).Mid()
 		}
 	}
-	f, ok := c.Factor()
-	if !ok {
-		return 0, sigma, false
+	if !c.f.Factorize(c.c) {
+		return 0, 0, false
 	}
-	mag := make([]float64, len(c.Data))
+	f, mag := &c.f, c.mag
 	rows := func(from, to int) {
 		ld := make([]interval.I, w)
 		for i := from; i < to; i++ {
@@ -91,7 +105,6 @@ func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok 
 	} else {
 		rows(0, nn)
 	}
-	r := 0.0
 	for i := 0; i < nn; i++ {
 		s := 0.0
 		for j := max(0, i-w); j <= i; j++ {
@@ -102,10 +115,7 @@ func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok 
 		}
 		r = math.Max(r, s)
 	}
-	if math.IsNaN(r) {
-		r = math.Inf(1)
-	}
-	return f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
+	return f.NegCount(), r, true
 }
 
 // residualRow sets mag[i−j] ≥ |R_ij| for j = max(0, i−w) … i and every

@@ -6,6 +6,7 @@ import (
 	"sync"
 	"sync/atomic"
 
+	"gapcert/enclose"
 	"gapcert/interval"
 )
 
@@ -18,68 +19,17 @@ const parallelWork = 1 << 16
 //
 //	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
 //
-// sigma is a trial shift (a choice), mMin > 0 a caller-verified lower bound
-// of λ_min(M) over all members of [M]. CountBelow forms the floating-point
-// matrix S = mid(K) − σ·mid(M) on the union of the patterns of [K] and [M],
-// orders it (Order), factors PᵀSP = L D Lᵀ (Symbolic.Factor) and returns
-// n = #neg(D) and sigmaPrime = σ − r/mMin (rounded down), where r is an
-// upper bound, over all members, of the largest absolute row sum of the
-// residual
-//
-//	R = Pᵀ(K − σM)P − L D Lᵀ.
-//
-// The pattern of L (with the unit diagonal) contains the permuted pattern
-// of K − σM (the symbolic analysis is done on the union pattern), so R
-// vanishes outside the pattern of L + Lᵀ. Each entry of R on it,
-// R_ij = (K − σM)_{perm[i], perm[j]} − Σ_{q ≤ j} L_iq D_q L_jq (i ≥ j,
-// L_jj = 1), is enclosed in interval arithmetic from the interval entries
-// of [K], [M] and the floating-point numbers L_iq, D_q, column by column of
-// L (the sums of products step one ulp outward after each rounded
-// operation, see residualColumn; the row sums are rounded upwards). ok =
-// false if the factorization broke down (zero or non-finite pivot,
-// non-finite L).
-//
-// The chain of inequalities, for every member (K, M), with P the
-// permutation matrix (P e_k = e_{perm[k]}) and R' = P R Pᵀ:
-//
-//	K − σ'M = P L D Lᵀ Pᵀ + R' + (σ − σ')M   (definition of R)
-//	        ⪰ P L D Lᵀ Pᵀ + R' + rI          ((σ − σ') ≥ r/mMin ≥ 0, M ⪰ mMin·I)
-//	        ⪰ P L D Lᵀ Pᵀ                    (R' symmetric, ‖R'‖₂ = ρ(R') ≤ ‖R'‖∞ = ‖R‖∞ ≤ r).
-//
-// By Weyl's monotonicity theorem (A ⪰ B implies λ_k(A) ≥ λ_k(B) for every
-// k) #neg(K − σ'M) ≤ #neg(P L D Lᵀ Pᵀ) = #neg(D), the last equality by
-// Sylvester's law of inertia (PL is nonsingular). Since M is positive
-// definite, K − σ'M = M^{1/2}(M^{−1/2}KM^{−1/2} − σ'I)M^{1/2}, so Sylvester
-// again gives #{λ < σ'} = #neg(K − σ'M) ≤ n. Hence if n ≤ k − 1 then
-// λ_k ≥ σ'.
-//
-// The residual is enclosed in parallel over blocks of columns; every entry
-// is enclosed by the same operations in the same order whatever the number
-// of CPUs, and the row sums and their maximum are taken sequentially, so
-// the result does not depend on GOMAXPROCS.
-//
-// CountBelow is NewCounter(k, m).CountBelow(mMin, sigma); a Counter saves
-// the ordering and the symbolic analysis when many shifts are tried. It
-// panics if the sizes differ, mMin is not a positive finite number or
-// sigma is not finite.
-//
-// References:
-//
-//	G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
-//	Hopkins University Press, 2013, §8.1 (Weyl's inequalities, Sylvester's
-//	law of inertia).
-//	J. J. Sylvester, A demonstration of the theorem that every homogeneous
-//	quadratic polynomial is reducible by real orthogonal substitutions to
-//	the form of a sum of positive and negative squares, Philosophical
-//	Magazine 4 (1852) 138–142.
+// It is NewCounter(k, m).CountBelow(mMin, sigma); see Counter.CountBelow. A
+// Counter saves the ordering and the symbolic analysis when many shifts
+// are tried.
 func CountBelow(k, m *ISym, mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
 	return NewCounter(k, m).CountBelow(mMin, sigma)
 }
 
 // Counter evaluates CountBelow for one interval pencil at many shifts,
 // doing the ordering, the symbolic analysis and the permutation of [K] and
-// [M] once. A Counter is not safe for concurrent use; its results are those
-// of CountBelow bit for bit.
+// [M] once. It implements enclose.Counter. A Counter is not safe for
+// concurrent use; its results are those of CountBelow bit for bit.
 type Counter struct {
 	k, m         *ISym
 	fromK, fromM []int
@@ -89,6 +39,7 @@ type Counter struct {
 	c            *Sym          // mid(K) − σ·mid(M), a choice
 	f            LDL
 	rows         *lRows // row structure of L, the same for every shift
+	work         residualWork
 }
 
 // NewCounter prepares CountBelow for the pencil ([K], [M]). It panics if
@@ -113,15 +64,47 @@ func NewCounter(k, m *ISym) *Counter {
 	return c
 }
 
-// CountBelow returns CountBelow(k, m, mMin, sigma) for the pencil of c
-// (see the function CountBelow for the guarantee and its proof).
+// CountBelow returns a verified count for the pencil of c: for every
+// member (K, M) with λ_min(M) ≥ mMin,
+//
+//	#{eigenvalues of Kx = λMx below sigmaPrime} ≤ n.
+//
+// sigma is a trial shift (a choice), mMin > 0 a caller-verified lower bound
+// of λ_min(M) over all members of [M]. CountBelow forms the floating-point
+// matrix S = mid(K) − σ·mid(M) on the union of the patterns of [K] and [M],
+// orders it (Order), factors PᵀSP = L D Lᵀ (Symbolic.Factor) and returns
+// n = #neg(D) and sigmaPrime = σ − r/mMin (rounded down), where r is an
+// upper bound, over all members, of the largest absolute row sum of the
+// residual
+//
+//	R = Pᵀ(K − σM)P − L D Lᵀ.
+//
+// The inequalities that make this a proof are stated and cited at
+// enclose.CountFromResidual. The pattern of L (with the unit diagonal)
+// contains the permuted pattern of K − σM (the symbolic analysis is done on
+// the union pattern), so R vanishes outside the pattern of L + Lᵀ. Each
+// entry of R on it, R_ij = (K − σM)_{perm[i], perm[j]} − Σ_{q ≤ j} L_iq D_q
+// L_jq (i ≥ j, L_jj = 1), is enclosed in interval arithmetic from the
+// interval entries of [K], [M] and the floating-point numbers L_iq, D_q,
+// column by column of L (the sums of products step one ulp outward after
+// each rounded operation, see residualColumn; the row sums are rounded
+// upwards). ok = false if the factorization broke down (zero or non-finite
+// pivot, non-finite L).
+//
+// The residual is enclosed in parallel over blocks of columns; every entry
+// is enclosed by the same operations in the same order whatever the number
+// of CPUs, and the row sums and their maximum are taken sequentially, so
+// the result does not depend on GOMAXPROCS.
+//
+// CountBelow panics if mMin is not a positive finite number or sigma is
+// not finite.
 func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
-	if !(mMin > 0) || math.IsInf(mMin, 1) {
-		panic("sparse: mMin must be a positive finite lower bound of λ_min(M)")
-	}
-	if math.IsNaN(sigma) || math.IsInf(sigma, 0) {
-		panic("sparse: shift must be finite")
-	}
+	return enclose.CountFromResidual(mMin, sigma, c.factorResidual)
+}
+
+// factorResidual factors Pᵀ(mid(K) − σ·mid(M))P and bounds its residual
+// (see CountBelow).
+func (c *Counter) factorResidual(sigma float64) (neg int, r float64, ok bool) {
 	// The matrix to factor is a choice; its rounding errors are part of R.
 	clear(c.c.Val)
 	for q, v := range c.k.Val {
@@ -131,11 +114,11 @@ func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok
 		c.c.Val[at(c.fromM, q)] -= sigma * v.Mid()
 	}
 	if !c.f.Factorize(c.sym, c.c) {
-		return 0, sigma, false
+		return 0, 0, false
 	}
 	for _, v := range c.f.Val {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return 0, sigma, false
+			return 0, 0, false
 		}
 	}
 	if c.rows == nil {
@@ -147,11 +130,7 @@ func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok
 	for q, v := range c.mLow.val {
 		c.shiftedM.val[q] = v.Mul(ms)
 	}
-	r := residualBound(&c.f, c.rows, c.kLow, c.shiftedM)
-	if math.IsNaN(r) {
-		r = math.Inf(1)
-	}
-	return c.f.NegCount(), interval.SubDown(sigma, interval.DivUp(r, mMin)), true
+	return c.f.NegCount(), residualBound(&c.f, c.rows, c.kLow, c.shiftedM, &c.work), true
 }
 
 // lowerColumns is a permuted lower triangle by columns with interval
@@ -227,14 +206,23 @@ func newLRows(f *LDL) *lRows {
 	return t
 }
 
+// residualWork holds the magnitudes of the residual entries and the row
+// sums, reused across the shifts of a Counter (every entry is rewritten
+// at each use).
+type residualWork struct {
+	magD, magL, sum []float64
+}
+
 // residualBound returns r ≥ max_i Σ_j |R_ij| for R = A + B − L D Lᵀ and
-// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards.
-func residualBound(f *LDL, t *lRows, a, b *lowerColumns) float64 {
+// every A ∈ [A], B ∈ [B] (both on the pattern of L), rounded upwards. ws
+// is a workspace.
+func residualBound(f *LDL, t *lRows, a, b *lowerColumns, ws *residualWork) float64 {
 	n := len(f.D)
 	lp := f.Sym.colPtr
 	work := t.work
-	magD := make([]float64, n)
-	magL := make([]float64, len(f.Row))
+	ws.magD, ws.magL, ws.sum = resize(ws.magD, n), resize(ws.magL, len(f.Row)), resize(ws.sum, n)
+	magD, magL, sum := ws.magD, ws.magL, ws.sum
+	clear(sum)
 	columns := func(from, to int, acc []interval.I, mark []int32) {
 		for j := from; j < to; j++ {
 			residualColumn(f, t, a, b, j, acc, mark, magD, magL)
@@ -271,7 +259,6 @@ func residualBound(f *LDL, t *lRows, a, b *lowerColumns) float64 {
 	} else {
 		columns(0, n, make([]interval.I, n), make([]int32, n))
 	}
-	sum := make([]float64, n)
 	for j := 0; j < n; j++ {
 		sum[j] = interval.AddUp(sum[j], magD[j])
 		for q := lp[j]; q < lp[j+1]; q++ {

@@ -23,7 +23,7 @@ func TestResidualBoundExact(t *testing.T) {
 		if _, _, ok := c.CountBelow(1, tc.sigma); !ok {
 			t.Fatalf("%s: factorization failed", tc.name)
 		}
-		r := residualBound(&c.f, c.rows, c.kLow, c.shiftedM)
+		r := residualBound(&c.f, c.rows, c.kLow, c.shiftedM, &residualWork{})
 		n := tc.k.N()
 		perm := c.sym.perm
 		// Exact L D Lᵀ and exact K − σM (products of floats are exact

@@ -12,8 +12,10 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
 
+	"gapcert/enclose/internal/geneig"
 	"gapcert/interval"
 )
 
@@ -136,7 +138,7 @@ func full(s *Sym) []float64 {
 // denseGeneralizedEigs returns the eigenvalues of (K, M) from gonum.
 func denseGeneralizedEigs(t *testing.T, k, m *Sym) []float64 {
 	t.Helper()
-	vals, _, err := denseGeneralized(full(k), full(m), k.N())
+	vals, _, err := geneig.Solve(full(k), full(m), k.N())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -924,6 +926,25 @@ func BenchmarkCountBelow(b *testing.B) {
 	}
 }
 
+// BenchmarkCounterShifts: one Counter on the P1 pencil at four shifts, as
+// the stage-A searches use it (the workspaces are reused across shifts).
+func BenchmarkCounterShifts(b *testing.B) {
+	for _, side := range benchSides[:2] {
+		k, m := benchGrid(side)
+		b.Run(fmt.Sprintf("n=%d", side*side), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				c := NewCounter(k, m)
+				for _, sigma := range []float64{20, 50, 100, 200} {
+					if _, _, ok := c.CountBelow(1e-9, sigma); !ok {
+						b.Fatal("factorization failed")
+					}
+				}
+			}
+		})
+	}
+}
+
 // BenchmarkLowestEigs: the 10 lowest eigenpairs of the P1 pencil.
 func BenchmarkLowestEigs(b *testing.B) {
 	for _, side := range benchSides[:2] {
@@ -956,4 +977,15 @@ func peakRSS() float64 {
 		}
 	}
 	return 0
+}
+
+// dot returns x·y (a check, not part of the solver).
+func dot(x, y []float64) float64 { return floats.Dot(x, y) }
+
+func newVectors(p, n int) [][]float64 {
+	v := make([][]float64, p)
+	for i := range v {
+		v[i] = make([]float64, n)
+	}
+	return v
 }

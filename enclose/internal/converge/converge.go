@@ -1,8 +1,8 @@
-// Package converge holds the convergence control shared by the
-// shift-invert subspace eigensolvers of enclose/band and enclose/sparse:
-// relative residuals of Ritz pairs, the stagnation rule, and the movement
-// of the shift toward the lowest Ritz value. Everything here chooses (when
-// to stop, where to shift); nothing is a bound.
+// Package converge holds the convergence control of the shift-invert
+// subspace iteration of enclose/internal/subspace (which serves every
+// storage): relative residuals of Ritz pairs, the stagnation rule, and the
+// movement of the shift toward the lowest Ritz value. Everything here
+// chooses (when to stop, where to shift); nothing is a bound.
 package converge
 
 import "math"
