@@ -2,6 +2,7 @@ package certify
 
 import (
 	"gapcert/certs/certify/proof"
+	"gapcert/enclose"
 	"gapcert/fem/discrete"
 )
 
@@ -48,7 +49,7 @@ func stageALower(sa discrete.StageA, search discrete.ShiftSearch, ritz []float64
 // in the shift (measured on (0, 1), Dirichlet, 256 cells: three shifts
 // were too few for λ_{h,2}), hence the search parameters of each
 // discretisation.
-func verifiedLower(c discrete.Counter, mMin, approx, lo float64, index int, search discrete.ShiftSearch) float64 {
+func verifiedLower(c enclose.Counter, mMin, approx, lo float64, index int, search discrete.ShiftSearch) float64 {
 	best, stale := lo, 0
 	delta := search.First * approx
 	for try := 0; try < search.Tries && approx-delta > lo; try++ {
@@ -85,7 +86,7 @@ func verifiedLower(c discrete.Counter, mMin, approx, lo float64, index int, sear
 // λ_{h,j}, and half-way down the spacing when that counted too many. At
 // most maxSliceCounts indices get shifts of their own (every stride-th
 // from the last; the others keep the bound of a lower shift).
-func sliceStageA(c discrete.Counter, mMin, lastApprox float64, ritz, lhs []float64, solved int) {
+func sliceStageA(c enclose.Counter, mMin, lastApprox float64, ritz, lhs []float64, solved int) {
 	ratio := lastApprox / ritz[solved-1]
 	est := func(j int) float64 { // estimate of λ_{h,j}, j > solved
 		if j == solved {

@@ -5,20 +5,6 @@ import (
 	"gapcert/interval"
 )
 
-// Counter counts, with a proof, the eigenvalues of an interval pencil
-// ([K], [M]) below a shift.
-type Counter interface {
-	// CountBelow factors K − σM in floating point (a choice) and returns
-	// n and σ′ ≤ σ such that, when ok, every member of the interval
-	// pencil has exactly n eigenvalues below σ′ (Sylvester's law of
-	// inertia with a verified bound of the factorization's residual;
-	// packages enclose/band and enclose/sparse, Verified counts). mMin must
-	// be a positive lower bound of the least eigenvalue of every member
-	// of [M]. ok is false when the factorization breaks down or its
-	// residual is too large for the count to be proved.
-	CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok bool)
-}
-
 // Trial is a conforming trial space V_h ⊂ H¹ (Dirichlet conditions
 // imposed exactly) with the potential of the problem, for Rayleigh–Ritz
 // upper bounds.
@@ -45,7 +31,9 @@ type Trial interface {
 // Λ_{h,k} give Λ_k ≥ c + Λ_{h,k}'/(1 + C_h² Λ_{h,k}') with
 // Λ_{h,k}' = Λ_{h,k} − c, c = FormShift (see enclose.ProjectionLower).
 type StageA interface {
-	Counter
+	// CountBelow is the verified count of the pencil (enclose.Counter:
+	// Sylvester's law of inertia with an enclosed residual).
+	enclose.Counter
 	// MassMin is a positive lower bound of the least eigenvalue of every
 	// member of [M], for CountBelow.
 	MassMin() float64

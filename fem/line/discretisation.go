@@ -28,8 +28,9 @@ var (
 
 // StageA is the interval pencil of the mean-preserving P2 space
 // (MeanP2.Matrices) with its projection constant C_h = h/(2π) and its
-// verified count (band.CountBelow).
+// verified count (band.Counter).
 type StageA struct {
+	*band.Counter
 	k, m  *band.ISym
 	mMin  float64
 	ch    interval.I
@@ -56,7 +57,7 @@ func NewStageAPencil(k, m *band.ISym, mMin float64, ch interval.I, upper []float
 	if len(upper) == 0 {
 		panic("line: stage A needs at least one upper bound to place its brackets")
 	}
-	return &StageA{k: k, m: m, mMin: mMin, ch: ch, upper: upper}
+	return &StageA{Counter: band.NewCounter(k, m), k: k, m: m, mMin: mMin, ch: ch, upper: upper}
 }
 
 // MassMin returns the lower bound of the mass matrix's least eigenvalue
@@ -69,11 +70,6 @@ func (s *StageA) ProjectionConstant() interval.I { return s.ch }
 // FormShift returns 0: the form of the mean-preserving P2 pencil has no
 // constant part apart from the projection bound.
 func (s *StageA) FormShift() float64 { return 0 }
-
-// CountBelow returns band.CountBelow for the pencil.
-func (s *StageA) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok bool) {
-	return band.CountBelow(s.k, s.m, mMin, sigma)
-}
 
 // Locate returns Bisect(index, lo, hi). The bracket end hi comes from
 // λ_h/(1 + C²λ_h) ≤ Λ_k, that is λ_{h,k} ≤ Λ_k/(1 − C²Λ_k), with the

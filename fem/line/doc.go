@@ -73,7 +73,7 @@
 // these constraints; the derivation is in the MeanP2 doc). The theorem
 // and its proof (package enclose, Projection lower bounds) then give
 // λ_k + γ ≥ λ_(h,k)/(1 + C_h² λ_(h,k)), evaluated by enclose.ProjectionLower
-// from a verified count (band.CountBelow) with the mass bound of
+// from a verified count (band.Counter) with the mass bound of
 // MeanP2.Matrices (package enclose/band, Mass bounds).
 //
 // # Lehmann–Goerisch fluxes (stage B)

@@ -11,7 +11,7 @@
 //
 //   - min–max principle (Courant–Fischer): RitzUpper;
 //   - Sylvester's law of inertia, through the verified counts of a
-//     discrete pencil (package fem/discrete, Counter): CountLower and
+//     discrete pencil (package enclose, Counter): CountLower and
 //     SliceLower;
 //   - the projection bound of Liu (2015) (package enclose, Projection
 //     bounds): ProjectionLower;

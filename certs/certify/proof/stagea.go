@@ -4,16 +4,15 @@ import (
 	"math"
 
 	"gapcert/enclose"
-	"gapcert/fem/discrete"
 	"gapcert/interval"
 )
 
 // CountLower returns σ′ and true when the verified count of c at the
 // shift sigma shows at most index − 1 eigenvalues below σ′: then every
 // member of the interval pencil has λ_{h,index} ≥ σ′ (Sylvester's law of
-// inertia, package fem/discrete, Counter). It returns false when the
+// inertia, package enclose, Counter). It returns false when the
 // count fails or shows more. sigma is a choice.
-func CountLower(c discrete.Counter, mMin, sigma float64, index int) (float64, bool) {
+func CountLower(c enclose.Counter, mMin, sigma float64, index int) (float64, bool) {
 	n, sigmaPrime, ok := c.CountBelow(mMin, sigma)
 	if ok && n <= index-1 {
 		return sigmaPrime, true
