@@ -5,6 +5,8 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/band"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/interval"
 )
 
@@ -106,7 +108,7 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 	nv := len(trial)
 	p, q := s.p, f.p
 	d := max(p, q-1)
-	acc := newAccum(nv)
+	acc := ritz.NewAccumulator(nv)
 	uw := newCellWork(p, nv)
 	sw := newCellWork(q, nv)
 	gd := tripleTable(0, d, d).IV
@@ -124,34 +126,34 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		hinv := h.Recip()
 		for i := 0; i < nv; i++ {
 			s.localCoef(uw.cf[i], trial[i], c)
-			applyF(uw.u[i], s.basis.IV, uw.cf[i])
+			bernstein.ApplyF(uw.u[i], s.basis.IV, uw.cf[i])
 			f.localCoef(sw.cf[i], flux[i], c)
-			applyF(sw.u[i], f.basis.IV, sw.cf[i])
-			applyF(sw.gu[i], sw.mloc, sw.cf[i])
+			bernstein.ApplyF(sw.u[i], f.basis.IV, sw.cf[i])
+			bernstein.ApplyF(sw.gu[i], sw.mloc, sw.cf[i])
 			bernDeriv(sw.d[i], sw.u[i])
 			bernElevate(fi[i], uw.u[i])
 			bernElevate(tmp, sw.d[i])
 			for k := range fi[i] {
 				fi[i][k] = fi[i][k].Add(tmp[k].Mul(hinv))
 			}
-			applyI(gfi[i], gd, fi[i])
-			ffi[i] = dotI(fi[i], gfi[i])
+			bernstein.ApplyI(gfi[i], gd, fi[i])
+			ffi[i] = bernstein.DotI(fi[i], gfi[i])
 		}
 		bern, rem := w.Model(c)
-		weightedGram(wg, bern, interval.Point(rem.Mid()), d)
+		bernstein.WeightedGram(wg, tripleTable(len(bern)-1, d, d).IV, bern, interval.Point(rem.Mid()), d+1)
 		for i := 0; i < nv; i++ {
-			applyI(wfi[i], wg, fi[i])
+			bernstein.ApplyI(wfi[i], wg, fi[i])
 		}
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				t := dotF(sw.cf[j], sw.gu[i]).Add(dotI(fi[j], wfi[i]))
+				t := bernstein.DotF(sw.cf[j], sw.gu[i]).Add(bernstein.DotI(fi[j], wfi[i]))
 				t = h.Mul(t)
-				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
+				if r := bernstein.RemainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
 					r = interval.MulUp(r, h.Hi)
 					t = t.Add(interval.I{Lo: -r, Hi: r})
 				}
-				acc.add(i, j, t)
+				acc.Add(i, j, t)
 			}
 		}
 	}
@@ -166,11 +168,11 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		for i := 0; i < nv; i++ {
 			si := f.endValue(flux[i], e.side)
 			for j := 0; j <= i; j++ {
-				acc.add(i, j, inv.MulF(si).MulF(f.endValue(flux[j], e.side)))
+				acc.Add(i, j, inv.MulF(si).MulF(f.endValue(flux[j], e.side)))
 			}
 		}
 	}
-	return a0, a1, acc.sym(), nil
+	return a0, a1, acc.Sym(), nil
 }
 
 // MinimizeApprox returns the flux σ of this space that minimises

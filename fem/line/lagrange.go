@@ -3,6 +3,8 @@ package line
 import (
 	"gapcert/enclose"
 	"gapcert/enclose/band"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/interval"
 )
 
@@ -166,28 +168,28 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 	s.checkPotential(v)
 	s.checkVecs(vecs)
 	nv := len(vecs)
-	a, b := newAccum(nv), newAccum(nv)
+	a, b := ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
 	w := newCellWork(s.p, nv)
 	for c := 0; c < s.mesh.Cells(); c++ {
 		w.load(&s.space, vecs, c)
 		h := s.mesh.H(c)
 		bern, rem := v.Model(c)
-		weightedGram(w.wg, bern, gamma.AddF(rem.Mid()), s.p)
+		bernstein.WeightedGram(w.wg, tripleTable(len(bern)-1, s.p, s.p).IV, bern, gamma.AddF(rem.Mid()), s.p+1)
 		w.weighted()
 		hinv := h.Recip()
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				mass := dotF(w.cf[j], w.gu[i])
-				st := dotF(w.cf[j], w.gd[i])
-				pot := dotI(w.u[j], w.wu[i])
-				b.add(i, j, h.Mul(mass))
+				mass := bernstein.DotF(w.cf[j], w.gu[i])
+				st := bernstein.DotF(w.cf[j], w.gd[i])
+				pot := bernstein.DotI(w.u[j], w.wu[i])
+				b.Add(i, j, h.Mul(mass))
 				t := hinv.Mul(st).Add(h.Mul(pot))
-				if r := remainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
+				if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
 					r = interval.MulUp(r, h.Hi)
 					t = t.Add(interval.I{Lo: -r, Hi: r})
 				}
-				a.add(i, j, t)
+				a.Add(i, j, t)
 			}
 		}
 	}
@@ -202,34 +204,11 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 			ui := s.endValue(vecs[i], e.side)
 			for j := 0; j <= i; j++ {
 				uj := s.endValue(vecs[j], e.side)
-				a.add(i, j, e.end.Alpha.MulF(ui).MulF(uj))
+				a.Add(i, j, e.end.Alpha.MulF(ui).MulF(uj))
 			}
 		}
 	}
-	return a.sym(), b.sym(), nil
-}
-
-// accum is a lower-triangular interval accumulator.
-type accum struct {
-	n int
-	v []interval.I
-}
-
-func newAccum(n int) *accum { return &accum{n: n, v: make([]interval.I, n*(n+1)/2)} }
-
-func (a *accum) add(i, j int, x interval.I) {
-	k := i*(i+1)/2 + j
-	a.v[k] = a.v[k].Add(x)
-}
-
-func (a *accum) sym() *enclose.Sym {
-	s := enclose.NewSym(a.n)
-	for i := 0; i < a.n; i++ {
-		for j := 0; j <= i; j++ {
-			s.Set(i, j, a.v[i*(i+1)/2+j])
-		}
-	}
-	return s
+	return a.Sym(), b.Sym(), nil
 }
 
 // cellWork holds, for one cell, the data of nv functions of a degree-p
@@ -270,16 +249,16 @@ func newCellWork(p, nv int) *cellWork {
 func (w *cellWork) load(s *space, vecs [][]float64, k int) {
 	for i, x := range vecs {
 		s.localCoef(w.cf[i], x, k)
-		applyF(w.u[i], s.basis.IV, w.cf[i])
-		applyF(w.gu[i], w.mloc, w.cf[i])
-		applyF(w.gd[i], w.kloc, w.cf[i])
-		w.mii[i] = dotF(w.cf[i], w.gu[i])
+		bernstein.ApplyF(w.u[i], s.basis.IV, w.cf[i])
+		bernstein.ApplyF(w.gu[i], w.mloc, w.cf[i])
+		bernstein.ApplyF(w.gd[i], w.kloc, w.cf[i])
+		w.mii[i] = bernstein.DotF(w.cf[i], w.gu[i])
 	}
 }
 
 // weighted computes wu = wg·u for every function.
 func (w *cellWork) weighted() {
 	for i := range w.u {
-		applyI(w.wu[i], w.wg, w.u[i])
+		bernstein.ApplyI(w.wu[i], w.wg, w.u[i])
 	}
 }

@@ -7,6 +7,8 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 
@@ -214,7 +216,7 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 	gn := tripleTable(0, nb, nb).IV
 	gd := tripleTable(0, d, d).IV
 	elevP, elevK := elevationTable(p, d).IV, elevationTable(k, d).IV
-	acc := newAccum(nv)
+	acc := ritz.NewAccumulator(nv)
 	x := make([][]float64, nv)
 	uc := make([][]float64, nv)
 	type vecs struct{ c, gc [2][]interval.I }
@@ -247,7 +249,7 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 			}
 			for c := 0; c < 2; c++ {
 				exactCombination(sv[i].c[c], ref.compT[c], x[i])
-				applyI(sv[i].gc[c], gn, sv[i].c[c])
+				bernstein.ApplyI(sv[i].gc[c], gn, sv[i].c[c])
 			}
 			exactCombination(dv[i], ref.divT, x[i])
 			for b := range dv[i] {
@@ -258,38 +260,38 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 					fi[i][b] = interval.Point(u)
 				}
 			} else {
-				applyF(fi[i], elevP, uc[i])
+				bernstein.ApplyF(fi[i], elevP, uc[i])
 			}
 			if d == k {
 				copy(tmp, dv[i])
 			} else {
-				applyI(tmp, elevK, dv[i])
+				bernstein.ApplyI(tmp, elevK, dv[i])
 			}
 			for b := range fi[i] {
 				fi[i][b] = fi[i][b].Add(tmp[b])
 			}
-			applyI(gtmp, gd, fi[i])
-			ffi[i] = dotI(fi[i], gtmp)
+			bernstein.ApplyI(gtmp, gd, fi[i])
+			ffi[i] = bernstein.DotI(fi[i], gtmp)
 		}
 		bern, rem := w.Model(t)
 		if !rem.IsBounded() || !hull(bern).IsBounded() {
 			return nil, errUnbounded
 		}
-		weightedGram(wg, bern, w.q, interval.Point(rem.Mid()), d)
+		bernstein.WeightedGram(wg, tripleTable(w.q, d, d).IV, bern, interval.Point(rem.Mid()), dim(d))
 		for i := 0; i < nv; i++ {
-			applyI(wfi[i], wg, fi[i])
+			bernstein.ApplyI(wfi[i], wg, fi[i])
 		}
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				m := kk[0][0].Mul(dotI(sv[j].c[0], sv[i].gc[0])).
-					Add(kk[0][1].Mul(dotI(sv[j].c[0], sv[i].gc[1]).Add(dotI(sv[j].c[1], sv[i].gc[0])))).
-					Add(kk[1][1].Mul(dotI(sv[j].c[1], sv[i].gc[1])))
-				e := dotI(fi[j], wfi[i])
-				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
+				m := kk[0][0].Mul(bernstein.DotI(sv[j].c[0], sv[i].gc[0])).
+					Add(kk[0][1].Mul(bernstein.DotI(sv[j].c[0], sv[i].gc[1]).Add(bernstein.DotI(sv[j].c[1], sv[i].gc[0])))).
+					Add(kk[1][1].Mul(bernstein.DotI(sv[j].c[1], sv[i].gc[1])))
+				e := bernstein.DotI(fi[j], wfi[i])
+				if r := bernstein.RemainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
 					e = e.Add(interval.I{Lo: -r, Hi: r})
 				}
-				acc.add(i, j, quarter.Mul(m).Add(g.Area.Mul(e)))
+				acc.Add(i, j, quarter.Mul(m).Add(g.Area.Mul(e)))
 			}
 		}
 	}
@@ -303,15 +305,15 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 		scale := re.alpha.Mul(re.length).Recip().MulF(ref.edgeScale * ref.edgeScale)
 		for i := 0; i < nv; i++ {
 			f.local(x[i], flux[i], re.t)
-			applyF(gi[i], ge, x[i][re.i*(k+1):(re.i+1)*(k+1)])
+			bernstein.ApplyF(gi[i], ge, x[i][re.i*(k+1):(re.i+1)*(k+1)])
 		}
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				acc.add(i, j, scale.Mul(dotF(x[j][re.i*(k+1):(re.i+1)*(k+1)], gi[i])))
+				acc.Add(i, j, scale.Mul(bernstein.DotF(x[j][re.i*(k+1):(re.i+1)*(k+1)], gi[i])))
 			}
 		}
 	}
-	return acc.sym(), nil
+	return acc.Sym(), nil
 }
 
 // MinimizeApprox returns, for each trial function ũ (coefficients in s),
@@ -622,7 +624,7 @@ func exactCombination(dst []interval.I, a, x []float64) {
 			rest = rest.Add(interval.I{Lo: e, Hi: e}).Add(interval.I{Lo: q, Hi: q})
 		}
 		if overflow {
-			applyF(dst[b:b+1], intervalRow(row), x)
+			bernstein.ApplyF(dst[b:b+1], intervalRow(row), x)
 			continue
 		}
 		dst[b] = rest.AddF(s)

@@ -3,6 +3,8 @@ package tri
 import (
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
@@ -226,7 +228,7 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		}
 	}
 	nv := len(vecs)
-	a, b := newAccum(nv), newAccum(nv)
+	a, b := ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
 	w := newRitzWork(s.p, v.q, nv)
 	for t := range s.mesh.Tris {
 		if !w.load(s, vecs, t) {
@@ -237,22 +239,22 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		if !rem.IsBounded() || !hull(bern).IsBounded() {
 			return nil, nil, errUnbounded
 		}
-		weightedGram(w.wg, bern, v.q, gamma.AddF(rem.Mid()), s.p)
+		bernstein.WeightedGram(w.wg, tripleTable(v.q, s.p, s.p).IV, bern, gamma.AddF(rem.Mid()), dim(s.p))
 		gg := gradGram(g.Grad)
 		w.derived(s, gg)
 		rrad := rem.Rad()
 		pp := float64(s.p * s.p)
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				mass := dotF(w.cf[j], w.gu[i])
-				st := dotI(w.d[j][0], w.h[i][0]).Add(dotI(w.d[j][1], w.h[i][1])).MulF(pp)
-				pot := dotF(w.cf[j], w.wu[i])
-				b.add(i, j, g.Area.Mul(mass))
+				mass := bernstein.DotF(w.cf[j], w.gu[i])
+				st := bernstein.DotI(w.d[j][0], w.h[i][0]).Add(bernstein.DotI(w.d[j][1], w.h[i][1])).MulF(pp)
+				pot := bernstein.DotF(w.cf[j], w.wu[i])
+				b.Add(i, j, g.Area.Mul(mass))
 				e := st.Add(pot)
-				if r := remainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
+				if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
 					e = e.Add(interval.I{Lo: -r, Hi: r})
 				}
-				a.add(i, j, g.Area.Mul(e))
+				a.Add(i, j, g.Area.Mul(e))
 			}
 		}
 	}
@@ -274,36 +276,13 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		}
 		scale := re.alpha.Mul(re.length)
 		for i := 0; i < nv; i++ {
-			applyF(gd, ge, di[i])
+			bernstein.ApplyF(gd, ge, di[i])
 			for j := 0; j <= i; j++ {
-				a.add(i, j, scale.Mul(dotF(di[j], gd)))
+				a.Add(i, j, scale.Mul(bernstein.DotF(di[j], gd)))
 			}
 		}
 	}
-	return a.sym(), b.sym(), nil
-}
-
-// accum is a lower-triangular interval accumulator.
-type accum struct {
-	n int
-	v []interval.I
-}
-
-func newAccum(n int) *accum { return &accum{n: n, v: make([]interval.I, n*(n+1)/2)} }
-
-func (a *accum) add(i, j int, x interval.I) {
-	k := i*(i+1)/2 + j
-	a.v[k] = a.v[k].Add(x)
-}
-
-func (a *accum) sym() *enclose.Sym {
-	s := enclose.NewSym(a.n)
-	for i := 0; i < a.n; i++ {
-		for j := 0; j <= i; j++ {
-			s.Set(i, j, a.v[i*(i+1)/2+j])
-		}
-	}
-	return s
+	return a.Sym(), b.Sym(), nil
 }
 
 // ritzWork holds, for one triangle, the data of nv functions of degree p:
@@ -354,8 +333,8 @@ func (w *ritzWork) load(s *Lagrange, vecs [][]float64, t int) bool {
 		return false
 	}
 	for i := range vecs {
-		applyF(w.gu[i], w.gramP, w.cf[i])
-		w.mii[i] = dotF(w.cf[i], w.gu[i])
+		bernstein.ApplyF(w.gu[i], w.gramP, w.cf[i])
+		w.mii[i] = bernstein.DotF(w.cf[i], w.gu[i])
 	}
 	return true
 }
@@ -363,7 +342,7 @@ func (w *ritzWork) load(s *Lagrange, vecs [][]float64, t int) bool {
 // derived computes wu, d and h (after wg is set).
 func (w *ritzWork) derived(s *Lagrange, g [2][2]interval.I) {
 	for i := range w.cf {
-		applyF(w.wu[i], w.wg, w.cf[i])
+		bernstein.ApplyF(w.wu[i], w.wg, w.cf[i])
 		for k := 0; k < 2; k++ {
 			diffF(w.d[i][k], s.pairs[k], w.cf[i])
 		}
@@ -373,7 +352,7 @@ func (w *ritzWork) derived(s *Lagrange, g [2][2]interval.I) {
 			}
 		}
 		for l := 0; l < 2; l++ {
-			applyI(w.tmp, w.gramQ, w.d[i][l])
+			bernstein.ApplyI(w.tmp, w.gramQ, w.d[i][l])
 			for k := 0; k < 2; k++ {
 				for b, x := range w.tmp {
 					w.h[i][k][b] = w.h[i][k][b].Add(g[k][l].Mul(x))

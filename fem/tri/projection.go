@@ -9,6 +9,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"gapcert/enclose/sparse"
+	"gapcert/fem/internal/bernstein"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -294,9 +295,9 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 			w := [4]float64{1, 1, 1, -3}
 			var tmp [6]interval.I
 			for i := 0; i < 4; i++ {
-				applyI(tmp[:], gram, phi[i][:])
+				bernstein.ApplyI(tmp[:], gram, phi[i][:])
 				for j := 0; j <= i; j++ {
-					mt[i][j] = g.Area.Mul(dotI(phi[j][:], tmp[:]))
+					mt[i][j] = g.Area.Mul(bernstein.DotI(phi[j][:], tmp[:]))
 					mt[j][i] = mt[i][j]
 					if d[i] < 0 || d[j] < 0 {
 						continue
