@@ -5,6 +5,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
 	"gapcert/fem/line"
 	"gapcert/fem/problem"
 	"gapcert/interval"
@@ -152,19 +153,19 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 		return nil, err
 	}
 	flux := line.NewFlux(mesh, r.fluxDegree, left, right)
-	fluxes := make([][]float64, out.n)
-	for i := range fluxes {
-		fluxes[i] = flux.MinimizeApprox(space, vecs[i], weight)
-		if fluxes[i] == nil {
-			out.notes = append(out.notes, "stage B skipped: the flux least-squares system could not be factored")
-			return out, nil
-		}
+	trial := vecs[:out.n]
+	fluxes, err := flux.MinimizeApprox(space, trial, weight)
+	if err != nil {
+		out.notes = append(out.notes, "stage B skipped: "+err.Error())
+		return out, nil
 	}
-	l0, l1, l2, err := line.LGMatrices(space, vecs[:out.n], flux, fluxes, pot, weight, gamma)
+	l2, err := flux.LGMatrix(space, trial, fluxes, pot, weight, gamma)
 	if err != nil {
 		return nil, err
 	}
-	out.lg, err = temple.LehmannGoerisch(l0, l1, l2, out.rho)
+	// The Ritz matrices of the first N vectors are, bit for bit, the
+	// leading blocks of those of all vectors (fem/line, Flux.LGMatrix).
+	out.lg, err = temple.LehmannGoerisch(leading(a0, out.n), leading(a1, out.n), l2, out.rho)
 	if err != nil {
 		out.notes = append(out.notes, "stage B gave no bound: "+err.Error())
 		out.lg = nil
@@ -211,7 +212,7 @@ func ritzUpper(a0, a1 *enclose.Sym) ([]float64, error) {
 // verified inertia count #{λ_h < σ'} ≤ k − 1 (package enclose/band, Verified
 // counts). upper holds the
 // Ritz upper bounds of Λ_k, used only to choose the search brackets.
-func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right line.End, upper []float64, count int) ([]float64, interval.I, error) {
+func stageA(p *problem.Problem, r recipe, gamma interval.I, left, right boundary.Condition, upper []float64, count int) ([]float64, interval.I, error) {
 	mesh := intervalMesh(p, r.stageACells)
 	// Only the cell ranges of V matter here; a low-order model gives them.
 	pot, err := line.FromExpr(mesh, p.Potential, min(r.taylor, stageATaylor))
@@ -304,16 +305,7 @@ func intervalMesh(p *problem.Problem, n int) *line.Mesh {
 	return line.UniformWith(p.Interval[0].Val, p.Interval[1].Val, n, p.Potential.Kinks())
 }
 
-// ends converts the problem's boundary conditions to the 1D element ends.
-func ends(p *problem.Problem) (left, right line.End) {
-	conv := func(bc problem.BC) line.End {
-		switch bc.Kind {
-		case problem.Dirichlet:
-			return line.End{Dirichlet: true}
-		case problem.Robin:
-			return line.End{Alpha: bc.Alpha.Val}
-		}
-		return line.End{} // Neumann: α = 0
-	}
-	return conv(p.Boundary[0]), conv(p.Boundary[1])
+// ends returns the problem's conditions at the two ends.
+func ends(p *problem.Problem) (left, right boundary.Condition) {
+	return p.Boundary[0].Condition(), p.Boundary[1].Condition()
 }

@@ -7,6 +7,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/fem/problem"
 	"gapcert/fem/tri"
@@ -275,7 +276,7 @@ func usesCR(p *problem.Problem) bool {
 		return false
 	}
 	for _, bc := range p.Boundary {
-		if bc.Kind == problem.Neumann || (bc.Kind == problem.Robin && bc.Alpha.Val.Hi == 0) {
+		if bc.Kind == boundary.Neumann || (bc.Kind == boundary.Robin && bc.Alpha.Val.Hi == 0) {
 			return false
 		}
 	}
@@ -284,16 +285,11 @@ func usesCR(p *problem.Problem) bool {
 
 // sideConditions converts the problem's per-side conditions to those of
 // the sides of the first mesh's polygon (startMesh).
-func sideConditions(p *problem.Problem) []tri.BC {
+func sideConditions(p *problem.Problem) []boundary.Condition {
 	f := startMesh(p)
-	bcs := make([]tri.BC, len(f.side))
+	bcs := make([]boundary.Condition, len(f.side))
 	for j, i := range f.side {
-		switch bc := p.Boundary[i]; bc.Kind {
-		case problem.Dirichlet:
-			bcs[j] = tri.BC{Dirichlet: true}
-		case problem.Robin:
-			bcs[j] = tri.BC{Alpha: bc.Alpha.Val}
-		}
+		bcs[j] = p.Boundary[i].Condition()
 	}
 	return bcs
 }
@@ -389,7 +385,7 @@ func singularCorners(p *problem.Problem) []int {
 	var out []int
 	for i := range p.Vertices {
 		cross, dot := cornerTurn(p, i)
-		mixed := (p.Boundary[(i+n-1)%n].Kind == problem.Dirichlet) != (p.Boundary[i].Kind == problem.Dirichlet)
+		mixed := (p.Boundary[(i+n-1)%n].Kind == boundary.Dirichlet) != (p.Boundary[i].Kind == boundary.Dirichlet)
 		// θ > π/2 ⇔ the edges' outgoing directions from v_i have a negative dot product or the corner is re-entrant.
 		if cross < 0 || (mixed && dot < 0) {
 			out = append(out, i)

@@ -5,6 +5,8 @@ import (
 	"math/big"
 	"testing"
 
+	"gapcert/enclose"
+	"gapcert/fem/boundary"
 	"gapcert/interval"
 )
 
@@ -154,4 +156,35 @@ func checkEncloses(t *testing.T, what string, x interval.I, r *big.Rat, maxRel, 
 	if w := relWidth(x, floor); w > maxRel {
 		t.Errorf("%s: %v relative width %g > %g", what, x, w, maxRel)
 	}
+}
+
+// Conditions of the tests (package fem/boundary).
+var (
+	dirichlet = boundary.Condition{Kind: boundary.Dirichlet}
+	neumann   = boundary.Condition{Kind: boundary.Neumann}
+)
+
+// robin returns the Robin condition with the coefficient enclosure a.
+func robin(a interval.I) boundary.Condition {
+	return boundary.Condition{Kind: boundary.Robin, Alpha: a}
+}
+
+// lgMatrices returns the three matrices of the Lehmann–Goerisch theorem:
+// the Ritz matrices of the trial functions and the flux matrix.
+func lgMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w *Potential, gamma interval.I) (a0, a1, a2 *enclose.Sym, err error) {
+	if a2, err = f.LGMatrix(s, trial, flux, v, w, gamma); err != nil {
+		return nil, nil, nil, err
+	}
+	a0, a1, err = s.RitzMatrices(trial, v, gamma)
+	return a0, a1, a2, err
+}
+
+// minimizeOne returns the least-squares flux of one trial function, nil if
+// the system could not be factored.
+func minimizeOne(f *Flux, s *Lagrange, u []float64, w *Potential) []float64 {
+	fl, err := f.MinimizeApprox(s, [][]float64{u}, w)
+	if err != nil {
+		return nil
+	}
+	return fl[0]
 }

@@ -3,6 +3,7 @@ package line
 import (
 	"gapcert/enclose"
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
 	"gapcert/fem/internal/bernstein"
 	"gapcert/fem/internal/ritz"
 	"gapcert/interval"
@@ -15,18 +16,19 @@ import (
 //
 //	a(u, v) = ∫u'v' + ∫Vuv + α_L u(a)v(a) + α_R u(b)v(b),   b(u, v) = ∫uv,
 //
-// the Robin terms present at non-Dirichlet ends (α = 0 for Neumann).
+// the end terms present at natural ends (α = 0 for Neumann; package
+// fem/boundary).
 type Lagrange struct {
 	space
-	left, right End
+	ends
 }
 
 // NewLagrange returns the degree-p space on m with the given end
-// conditions. It panics if p < 1 or a Robin α is not an enclosure ≥ 0.
-func NewLagrange(m *Mesh, p int, left, right End) *Lagrange {
-	left.check()
-	right.check()
-	return &Lagrange{space: newSpace(m, p, left.Dirichlet, right.Dirichlet), left: left, right: right}
+// conditions. It panics if p < 1 or a condition is not valid
+// (boundary.Condition.Check).
+func NewLagrange(m *Mesh, p int, left, right boundary.Condition) *Lagrange {
+	e := newEnds(left, right)
+	return &Lagrange{space: newSpace(m, p, left.Essential(), right.Essential()), ends: e}
 }
 
 // N returns the dimension of the space.
@@ -92,13 +94,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 			}
 		}
 	}
-	if !s.left.Dirichlet {
-		k.Add(s.dof(0, 0), s.dof(0, 0), s.left.Alpha.Mid())
-	}
-	if !s.right.Dirichlet {
-		g := s.dof(s.mesh.Cells()-1, p)
-		k.Add(g, g, s.right.Alpha.Mid())
-	}
+	s.endTermsApprox(k)
 	return k, m
 }
 
@@ -193,21 +189,7 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 			}
 		}
 	}
-	for _, e := range []struct {
-		end  End
-		side Side
-	}{{s.left, Left}, {s.right, Right}} {
-		if e.end.Dirichlet {
-			continue
-		}
-		for i := 0; i < nv; i++ {
-			ui := s.endValue(vecs[i], e.side)
-			for j := 0; j <= i; j++ {
-				uj := s.endValue(vecs[j], e.side)
-				a.Add(i, j, e.end.Alpha.MulF(ui).MulF(uj))
-			}
-		}
-	}
+	s.endTerms(a, vecs)
 	return a.Sym(), b.Sym(), nil
 }
 

@@ -7,6 +7,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/internal/bernstein"
 	"gapcert/fem/internal/ritz"
 	"gapcert/fem/mesh"
@@ -51,22 +52,12 @@ type Flux struct {
 	nEdge int         // kept edge DOFs, numbered 0 … nEdge−1 before the interior ones
 	dofs  [][]int     // per triangle, global index of each local DOF (−1: removed)
 	sign  [][]float64 // per triangle, ±1 for each local DOF
-	robin []fluxRobin
+	robin []sideEdge  // boundary edges with α > 0
 }
-
-// fluxRobin is a boundary edge with α > 0: local edge i of triangle t.
-type fluxRobin struct {
-	t, i   int
-	alpha  interval.I
-	length interval.I
-}
-
-// fluxFree reports whether the normal flux may be nonzero on a side.
-func fluxFree(bc BC) bool { return bc.Dirichlet || bc.Alpha.Lo > 0 }
 
 // NewFlux returns RT_k on m with the side conditions bc (as for
 // NewLagrange). It panics if k < 0 or bc does not fit the mesh.
-func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
+func NewFlux(m *mesh.Mesh, k int, bc []boundary.Condition) *Flux {
 	checkBC(m, bc)
 	ref := rtReference(k)
 	edges, triEdges := m.Edges()
@@ -78,7 +69,7 @@ func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
 		edgeOf[ab] = e
 	}
 	for _, be := range m.Bnd {
-		if fluxFree(bc[be.Side]) {
+		if bc[be.Side].FluxFree() {
 			continue
 		}
 		e := edgeOf[[2]int{min(be.A, be.B), max(be.A, be.B)}]
@@ -122,15 +113,7 @@ func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
 		}
 		f.dofs[t], f.sign[t] = d, s
 	}
-	owners := m.BoundaryOwners()
-	for k, be := range m.Bnd {
-		c := bc[be.Side]
-		if c.Dirichlet || !(c.Alpha.Lo > 0) {
-			continue
-		}
-		ti := owners[k]
-		f.robin = append(f.robin, fluxRobin{t: ti[0], i: ti[1], alpha: c.Alpha, length: m.Geom(ti[0]).EdgeLen[ti[1]]})
-	}
+	f.robin = termEdges(m, bc, boundary.Condition.AlphaPositive)
 	return f
 }
 
@@ -295,24 +278,7 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 			}
 		}
 	}
-	ge := edgeGramTable(k).IV
-	gi := make([][]interval.I, nv)
-	for i := range gi {
-		gi[i] = make([]interval.I, k+1)
-	}
-	for _, re := range f.robin {
-		// g = edgeScale · (local edge DOFs): the stored basis is scaled.
-		scale := re.alpha.Mul(re.length).Recip().MulF(ref.edgeScale * ref.edgeScale)
-		for i := 0; i < nv; i++ {
-			f.local(x[i], flux[i], re.t)
-			bernstein.ApplyF(gi[i], ge, x[i][re.i*(k+1):(re.i+1)*(k+1)])
-		}
-		for i := 0; i < nv; i++ {
-			for j := 0; j <= i; j++ {
-				acc.Add(i, j, scale.Mul(bernstein.DotF(x[j][re.i*(k+1):(re.i+1)*(k+1)], gi[i])))
-			}
-		}
-	}
+	f.edgeTerms(acc, flux, x)
 	return acc.Sym(), nil
 }
 
@@ -402,21 +368,7 @@ func (f *Flux) MinimizeApprox(s *Lagrange, trial [][]float64, w *Potential) ([][
 			}
 		}
 	}
-	k := f.k
-	ge := edgeGramTable(k).FL
-	for _, rb := range f.robin {
-		sc := f.ref.edgeScale * f.ref.edgeScale / (rb.alpha.Mid() * rb.length.Mid())
-		d, sg := f.dofs[rb.t], f.sign[rb.t]
-		for a := 0; a <= k; a++ {
-			la := rb.i*(k+1) + a
-			for c := 0; c <= a; c++ {
-				lc := rb.i*(k+1) + c
-				if d[la] >= 0 && d[lc] >= 0 {
-					b.Add(d[la], d[lc], sg[la]*sg[lc]*sc*ge[a*(k+1)+c])
-				}
-			}
-		}
-	}
+	f.edgeTermsApprox(b)
 	out := make([][]float64, len(trial))
 	for i := range out {
 		out[i] = make([]float64, f.n)
