@@ -204,6 +204,7 @@ func (f *Flux) MinimizeApprox(s *Lagrange, trial [][]float64, w *Potential) ([][
 	c := make([]float64, p+1)
 	wq := make([]float64, q*q)
 	wpq := make([]float64, (p+1)*q)
+	kloc, work := make([]float64, q1*q1), make([]float64, q*q1)
 	for cell := 0; cell < f.mesh.Cells(); cell++ {
 		h := f.mesh.H(cell).Mid()
 		bern, rem := w.Model(cell)
@@ -226,7 +227,7 @@ func (f *Flux) MinimizeApprox(s *Lagrange, trial [][]float64, w *Potential) ([][
 				wpq[ab] += wk * t3u[k*(p+1)*q+ab]
 			}
 		}
-		kloc := congruenceF(D, wq, q, q1)
+		congruenceFTo(kloc, work, D, wq, q, q1)
 		for v, u := range trial {
 			s.localCoef(c, u, cell)
 			for i := 0; i <= p; i++ {

@@ -64,6 +64,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 	g := tripleTable(0, p, p).FL
 	mref := congruenceF(T, g, p1, p1)
 	w := make([]float64, p1*p1)
+	wloc, work := make([]float64, p1*p1), make([]float64, p1*p1)
 	for c := 0; c < s.mesh.Cells(); c++ {
 		h := s.mesh.H(c).Mid()
 		bern, rem := v.Model(c)
@@ -78,7 +79,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 				w[ab] += pj * tr[j*p1*p1+ab]
 			}
 		}
-		wloc := congruenceF(T, w, p1, p1)
+		congruenceFTo(wloc, work, T, w, p1, p1)
 		for a := 0; a < p1; a++ {
 			ga := s.dof(c, a)
 			if ga < 0 {
@@ -101,7 +102,13 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 // congruenceF returns Xᵀ G X for X r×c (row-major) and G r×r, in floating
 // point (a choice).
 func congruenceF(x, g []float64, r, c int) []float64 {
-	gx := make([]float64, r*c)
+	return congruenceFTo(make([]float64, c*c), make([]float64, r*c), x, g, r, c)
+}
+
+// congruenceFTo sets dst (c×c) to Xᵀ G X as congruenceF does, with work
+// (length ≥ r·c) as scratch, and returns dst.
+func congruenceFTo(dst, work, x, g []float64, r, c int) []float64 {
+	gx := work[:r*c]
 	for i := 0; i < r; i++ {
 		for l := 0; l < c; l++ {
 			acc := 0.0
@@ -111,7 +118,7 @@ func congruenceF(x, g []float64, r, c int) []float64 {
 			gx[i*c+l] = acc
 		}
 	}
-	out := make([]float64, c*c)
+	out := dst[:c*c]
 	for a := 0; a < c; a++ {
 		for b := 0; b < c; b++ {
 			acc := 0.0

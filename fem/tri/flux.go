@@ -419,6 +419,8 @@ type localFluxSystem struct {
 	abbInvAbe  []float64   // ni × ne: A_bb⁻¹ A_be
 	zb         [][]float64 // per trial function, ni: A_bb⁻¹ r_b
 	wkk, wpk   []float64
+	dloc       []float64 // nd × nd, and its scratch dwork (nk × nd)
+	dwork      []float64
 	uc         []float64
 	abb        *mat.SymDense
 	chol       mat.Cholesky
@@ -431,7 +433,8 @@ func newLocalFluxSystem(f *Flux, s *Lagrange, w *Potential) *localFluxSystem {
 	ne := 3 * (f.k + 1)
 	ni := nd - ne
 	ls := &localFluxSystem{f: f, s: s, w: w, loc: make([]float64, nd*nd), abbInvAbe: make([]float64, ni*ne),
-		wkk: make([]float64, dim(f.k)*dim(f.k)), wpk: make([]float64, dim(s.p)*dim(f.k)), uc: make([]float64, dim(s.p))}
+		wkk: make([]float64, dim(f.k)*dim(f.k)), wpk: make([]float64, dim(s.p)*dim(f.k)), uc: make([]float64, dim(s.p)),
+		dloc: make([]float64, nd*nd), dwork: make([]float64, dim(f.k)*nd)}
 	// Reference mass blocks M_rs[l·nd + l'] = φ̂_(l,r)ᵀ G φ̂_(l',s).
 	gn := tripleTable(0, ref.n, ref.n).FL
 	for r := 0; r < 2; r++ {
@@ -460,7 +463,7 @@ func (ls *localFluxSystem) build(t int, trial [][]float64) error {
 	weightedGramF(ls.wkk, bern, ls.w.q, rem.Mid(), k, k)
 	weightedGramF(ls.wpk, bern, ls.w.q, rem.Mid(), p, k)
 	divT := ref.divT
-	dloc := congruence(divT, divT, ls.wkk, nd, nk)
+	dloc := congruenceTo(ls.dloc, ls.dwork, divT, divT, ls.wkk, nd, nk)
 	m := ls.mref
 	for ab := range ls.loc {
 		ls.loc[ab] = quarter * (kk[0][0].Mid()*m[0][0][ab] + kk[0][1].Mid()*(m[0][1][ab]+m[1][0][ab]) +
@@ -595,7 +598,14 @@ func intervalRow(row []float64) []interval.I {
 // congruence returns C[l·nd + m] = Σ_(β,γ) A[β·nd + l] G[β·nb + γ] B[γ·nd + m]
 // for nd functions with nb coefficients each (floating point; a choice).
 func congruence(a, b, g []float64, nd, nb int) []float64 {
-	gb := make([]float64, nb*nd)
+	return congruenceTo(make([]float64, nd*nd), make([]float64, nb*nd), a, b, g, nd, nb)
+}
+
+// congruenceTo sets dst (nd×nd) to what congruence returns, with work
+// (length ≥ nb·nd) as scratch, and returns dst.
+func congruenceTo(dst, work, a, b, g []float64, nd, nb int) []float64 {
+	gb := work[:nb*nd]
+	clear(gb)
 	for be := 0; be < nb; be++ {
 		for ga := 0; ga < nb; ga++ {
 			gv := g[be*nb+ga]
@@ -607,7 +617,8 @@ func congruence(a, b, g []float64, nd, nb int) []float64 {
 			}
 		}
 	}
-	out := make([]float64, nd*nd)
+	out := dst[:nd*nd]
+	clear(out)
 	for be := 0; be < nb; be++ {
 		for l := 0; l < nd; l++ {
 			al := a[be*nd+l]
