@@ -276,7 +276,7 @@ func usesCR(p *problem.Problem) bool {
 		return false
 	}
 	for _, bc := range p.Boundary {
-		if bc.Kind == boundary.Neumann || (bc.Kind == boundary.Robin && bc.Alpha.Val.Hi == 0) {
+		if c := bc.Condition(); !c.Essential() && !c.HasTerm() {
 			return false
 		}
 	}
@@ -385,7 +385,7 @@ func singularCorners(p *problem.Problem) []int {
 	var out []int
 	for i := range p.Vertices {
 		cross, dot := cornerTurn(p, i)
-		mixed := (p.Boundary[(i+n-1)%n].Kind == boundary.Dirichlet) != (p.Boundary[i].Kind == boundary.Dirichlet)
+		mixed := p.Boundary[(i+n-1)%n].Condition().Essential() != p.Boundary[i].Condition().Essential()
 		// θ > π/2 ⇔ the edges' outgoing directions from v_i have a negative dot product or the corner is re-entrant.
 		if cross < 0 || (mixed && dot < 0) {
 			out = append(out, i)

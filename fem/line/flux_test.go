@@ -3,14 +3,14 @@ package line
 import (
 	"errors"
 	"fmt"
-	"gapcert/fem/boundary"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 	"gapcert/temple"
 )
 

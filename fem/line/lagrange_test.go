@@ -2,8 +2,6 @@ package line
 
 import (
 	"fmt"
-	"gapcert/fem/boundary"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -11,7 +9,9 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 )
 
 func pt(x float64) interval.I { return interval.Point(x) }

@@ -2,15 +2,15 @@ package line
 
 import (
 	"fmt"
-	"gapcert/fem/boundary"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
 	"os"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 )
 
 // TestLongRitzSweep runs RitzMatrices against the exact math/big evaluation
