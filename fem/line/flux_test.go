@@ -117,18 +117,7 @@ func exactA2(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, cinv *bi
 			}
 		}
 	}
-	for i := range trial {
-		for j := range trial {
-			if alphaL != nil {
-				t := new(big.Rat).Mul(ratOf(f.endValue(flux[i], Left)), ratOf(f.endValue(flux[j], Left)))
-				out[i][j].Add(out[i][j], t.Quo(t, alphaL))
-			}
-			if alphaR != nil {
-				t := new(big.Rat).Mul(ratOf(f.endValue(flux[i], Right)), ratOf(f.endValue(flux[j], Right)))
-				out[i][j].Add(out[i][j], t.Quo(t, alphaR))
-			}
-		}
-	}
+	addExactEndTerms(out, &f.space, flux, alphaL, alphaR, true)
 	return out
 }
 

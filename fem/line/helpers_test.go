@@ -188,3 +188,28 @@ func minimizeOne(f *Flux, s *Lagrange, u []float64, w *Potential) []float64 {
 	}
 	return fl[0]
 }
+
+// addExactEndTerms adds c·x_i(e)x_j(e) to dst[i][j] at each end e with a
+// coefficient (alphaL, alphaR; nil: none), c = α, or 1/α when inverse, from
+// the exact end values of the vectors xs of sp (math/big).
+func addExactEndTerms(dst [][]*big.Rat, sp *space, xs [][]float64, alphaL, alphaR *big.Rat, inverse bool) {
+	for _, e := range []struct {
+		side  Side
+		alpha *big.Rat
+	}{{Left, alphaL}, {Right, alphaR}} {
+		if e.alpha == nil {
+			continue
+		}
+		for i := range xs {
+			for j := range xs {
+				t := new(big.Rat).Mul(ratOf(sp.endValue(xs[i], e.side)), ratOf(sp.endValue(xs[j], e.side)))
+				if inverse {
+					t.Quo(t, e.alpha)
+				} else {
+					t.Mul(t, e.alpha)
+				}
+				dst[i][j].Add(dst[i][j], t)
+			}
+		}
+	}
+}

@@ -176,18 +176,7 @@ func exactRitz(s *Lagrange, vecs [][]float64, vc []*big.Rat, gamma *big.Rat, alp
 			}
 		}
 	}
-	for i := range vecs {
-		for j := range vecs {
-			if alphaL != nil {
-				t := new(big.Rat).Mul(ratOf(s.endValue(vecs[i], Left)), ratOf(s.endValue(vecs[j], Left)))
-				a[i][j].Add(a[i][j], t.Mul(t, alphaL))
-			}
-			if alphaR != nil {
-				t := new(big.Rat).Mul(ratOf(s.endValue(vecs[i], Right)), ratOf(s.endValue(vecs[j], Right)))
-				a[i][j].Add(a[i][j], t.Mul(t, alphaR))
-			}
-		}
-	}
+	addExactEndTerms(a, &s.space, vecs, alphaL, alphaR, false)
 	return a, b
 }
 
