@@ -107,7 +107,7 @@
 //
 // Any σ_i is admissible; the minimiser of ‖w_i‖_X (σ_i ≈ ∇u_i/Λ_i for an
 // eigenpair) gives the sharpest bounds. The concrete spaces and the
-// enclosures of A0, A1, A2 are in packages fem/line (LGMatrices; d = 1,
+// enclosures of A0, A1, A2 are in packages fem/line (Flux.LGMatrix; d = 1,
 // where H(div) = H¹ and the boundary integrals are end-point values) and
 // fem/tri (Flux.LGMatrix, Raviart–Thomas fluxes).
 //

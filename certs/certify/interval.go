@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"gapcert/certs/certify/proof"
+	"gapcert/fem/boundary"
 	"gapcert/fem/discrete"
 	"gapcert/fem/line"
 	"gapcert/fem/problem"
@@ -162,18 +163,9 @@ func intervalMesh(p *problem.Problem, n int) *line.Mesh {
 	return line.UniformWith(p.Interval[0].Val, p.Interval[1].Val, n, p.Potential.Kinks())
 }
 
-// ends converts the problem's boundary conditions to the 1D element ends.
-func ends(p *problem.Problem) (left, right line.End) {
-	conv := func(bc problem.BC) line.End {
-		switch bc.Kind {
-		case problem.Dirichlet:
-			return line.End{Dirichlet: true}
-		case problem.Robin:
-			return line.End{Alpha: bc.Alpha.Val}
-		}
-		return line.End{} // Neumann: α = 0
-	}
-	return conv(p.Boundary[0]), conv(p.Boundary[1])
+// ends returns the problem's conditions at the two ends.
+func ends(p *problem.Problem) (left, right boundary.Condition) {
+	return p.Boundary[0].Condition(), p.Boundary[1].Condition()
 }
 
 // Caps of the 1D meshes: trial cells and stage-A cells.

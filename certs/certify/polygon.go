@@ -7,6 +7,7 @@ import (
 	"sort"
 
 	"gapcert/certs/certify/proof"
+	"gapcert/fem/boundary"
 	"gapcert/fem/discrete"
 	"gapcert/fem/mesh"
 	"gapcert/fem/problem"
@@ -152,7 +153,7 @@ func usesCR(p *problem.Problem) bool {
 		return false
 	}
 	for _, bc := range p.Boundary {
-		if bc.Kind == problem.Neumann || (bc.Kind == problem.Robin && bc.Alpha.Val.Hi == 0) {
+		if c := bc.Condition(); !c.Essential() && !c.HasTerm() {
 			return false
 		}
 	}
@@ -161,16 +162,11 @@ func usesCR(p *problem.Problem) bool {
 
 // sideConditions converts the problem's per-side conditions to those of
 // the sides of the first mesh's polygon (startMesh).
-func sideConditions(p *problem.Problem) []tri.BC {
+func sideConditions(p *problem.Problem) []boundary.Condition {
 	f := startMesh(p)
-	bcs := make([]tri.BC, len(f.side))
+	bcs := make([]boundary.Condition, len(f.side))
 	for j, i := range f.side {
-		switch bc := p.Boundary[i]; bc.Kind {
-		case problem.Dirichlet:
-			bcs[j] = tri.BC{Dirichlet: true}
-		case problem.Robin:
-			bcs[j] = tri.BC{Alpha: bc.Alpha.Val}
-		}
+		bcs[j] = p.Boundary[i].Condition()
 	}
 	return bcs
 }
@@ -266,7 +262,7 @@ func singularCorners(p *problem.Problem) []int {
 	var out []int
 	for i := range p.Vertices {
 		cross, dot := cornerTurn(p, i)
-		mixed := (p.Boundary[(i+n-1)%n].Kind == problem.Dirichlet) != (p.Boundary[i].Kind == problem.Dirichlet)
+		mixed := p.Boundary[(i+n-1)%n].Condition().Essential() != p.Boundary[i].Condition().Essential()
 		// θ > π/2 ⇔ the edges' outgoing directions from v_i have a negative dot product or the corner is re-entrant.
 		if cross < 0 || (mixed && dot < 0) {
 			out = append(out, i)

@@ -15,6 +15,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"gapcert/certs"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/fem/problem"
 	"gapcert/fem/tri"
@@ -441,7 +442,7 @@ func TestPolygonAdversarialProjectionConstants(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		bc := make([]tri.BC, 3)
+		bc := []boundary.Condition{{Kind: boundary.Neumann}, {Kind: boundary.Neumann}, {Kind: boundary.Neumann}}
 		for _, enriched := range []bool{false, true} {
 			proj := tri.NewCR(m, bc)
 			if enriched {

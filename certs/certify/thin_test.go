@@ -40,8 +40,8 @@ func TestThinFirstMesh(t *testing.T) {
 		if want := sideConditions(p)[j]; bcs[j] != want {
 			t.Fatal("side conditions not deterministic")
 		}
-		if (s == 0 || s == 3) != bcs[j].Dirichlet {
-			t.Errorf("side %d (on side %d): Dirichlet %v", j, s, bcs[j].Dirichlet)
+		if (s == 0 || s == 3) != bcs[j].Essential() {
+			t.Errorf("side %d (on side %d): Dirichlet %v", j, s, bcs[j].Essential())
 		}
 		if s == 2 && bcs[j].Alpha.Lo != 2 {
 			t.Errorf("side %d (on side 2): alpha %v", j, bcs[j].Alpha)

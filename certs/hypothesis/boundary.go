@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"gapcert/certs"
+	"gapcert/fem/boundary"
 	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 )
@@ -13,7 +14,7 @@ import (
 func DirichletBoundary(p *problem.Problem) certs.Hypothesis {
 	h := certs.Hypothesis{Name: named.DirichletBoundary}
 	for i, bc := range p.Boundary {
-		if bc.Kind != problem.Dirichlet {
+		if bc.Kind != boundary.Dirichlet {
 			return disproven(h, fmt.Sprintf("side %d has a %s condition", i, bc.Kind), &certs.Witness{Side: intPtr(i)})
 		}
 	}
@@ -27,9 +28,9 @@ func NeumannBoundary(p *problem.Problem) certs.Hypothesis {
 	undecided := -1
 	for i, bc := range p.Boundary {
 		switch bc.Kind {
-		case problem.Neumann:
+		case boundary.Neumann:
 			continue
-		case problem.Dirichlet:
+		case boundary.Dirichlet:
 			return disproven(h, fmt.Sprintf("side %d has the Dirichlet condition", i), &certs.Witness{Side: intPtr(i)})
 		}
 		switch zero, ok := isZero(bc.Alpha); {
@@ -53,7 +54,7 @@ func NeumannBoundary(p *problem.Problem) certs.Hypothesis {
 func RobinBoundary(p *problem.Problem) certs.Hypothesis {
 	h := certs.Hypothesis{Name: named.RobinBoundary}
 	for i, bc := range p.Boundary {
-		if bc.Kind == problem.Dirichlet {
+		if bc.Kind == boundary.Dirichlet {
 			return disproven(h, fmt.Sprintf("side %d has the Dirichlet condition", i), &certs.Witness{Side: intPtr(i)})
 		}
 	}

@@ -16,6 +16,7 @@ import (
 	"gapcert/certs/certify"
 	"gapcert/certs/outfile"
 	"gapcert/certs/plot"
+	"gapcert/fem/boundary"
 	"gapcert/fem/problem"
 	"gapcert/interval/decimalio"
 )
@@ -179,7 +180,7 @@ func drawModes(dir string, p *problem.Problem, c *certs.Certificate) ([]string, 
 	}
 	for _, bc := range p.Boundary {
 		side := plot.Side{Kind: bc.Kind.String()}
-		if bc.Kind == problem.Robin {
+		if bc.Kind == boundary.Robin {
 			side.Alpha = bc.Alpha.Text
 			if r := bc.Alpha.Rat; r != nil && r.RatString() != side.Alpha {
 				side.Alpha += " = " + r.RatString() // a parameter's value

@@ -11,6 +11,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"gapcert/certs/certify"
+	"gapcert/fem/boundary"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -98,7 +99,7 @@ func formatNumber(n problem.Number) string {
 }
 
 func formatBC(bc problem.BC) string {
-	if bc.Kind == problem.Robin {
+	if bc.Kind == boundary.Robin {
 		return "robin, α = " + formatNumber(bc.Alpha)
 	}
 	return bc.Kind.String()

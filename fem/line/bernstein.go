@@ -1,8 +1,6 @@
 package line
 
 import (
-	"math"
-
 	"gapcert/interval"
 )
 
@@ -96,94 +94,6 @@ func bernIntegral(b []interval.I) interval.I {
 		s = s.Add(v)
 	}
 	return s.DivF(float64(len(b)))
-}
-
-// applyF sets dst[i] ⊇ Σ_l t[i*len(c)+l] c[l]: an enclosed rational matrix
-// applied to exact float coefficients.
-func applyF(dst []interval.I, t []interval.I, c []float64) {
-	nc := len(c)
-	for i := range dst {
-		acc := interval.I{}
-		row := t[i*nc : (i+1)*nc]
-		for l, cl := range c {
-			if cl != 0 {
-				acc = acc.Add(row[l].MulF(cl))
-			}
-		}
-		dst[i] = acc
-	}
-}
-
-// applyI sets dst[i] ⊇ Σ_j g[i*len(b)+j] b[j].
-func applyI(dst []interval.I, g []interval.I, b []interval.I) {
-	nb := len(b)
-	for i := range dst {
-		acc := interval.I{}
-		row := g[i*nb : (i+1)*nb]
-		for j, bj := range b {
-			acc = acc.Add(row[j].Mul(bj))
-		}
-		dst[i] = acc
-	}
-}
-
-// dotF returns an enclosure of Σ c_i b_i for exact floats c_i.
-func dotF(c []float64, b []interval.I) interval.I {
-	acc := interval.I{}
-	for i, ci := range c {
-		if ci != 0 {
-			acc = acc.Add(b[i].MulF(ci))
-		}
-	}
-	return acc
-}
-
-// dotI returns an enclosure of Σ a_i b_i.
-func dotI(a, b []interval.I) interval.I {
-	acc := interval.I{}
-	for i := range a {
-		acc = acc.Add(a[i].Mul(b[i]))
-	}
-	return acc
-}
-
-// weightedGram sets dst[a*(n+1)+b] ⊇ ∫_0^1 P B^n_a B^n_b for P = Σ_k p_k B^r_k
-// (r = len(p)−1) plus the constant shift s: the exact weighted Gram
-// matrix of the degree-n Bernstein basis. The shift enters every
-// coefficient of P (partition of unity).
-func weightedGram(dst []interval.I, p []interval.I, shift interval.I, n int) {
-	r := len(p) - 1
-	t := tripleTable(r, n, n).IV
-	n1 := n + 1
-	for ab := range dst[:n1*n1] {
-		dst[ab] = interval.I{}
-	}
-	for k := 0; k <= r; k++ {
-		pk := p[k].Add(shift)
-		blk := t[k*n1*n1 : (k+1)*n1*n1]
-		for a := 0; a < n1; a++ {
-			for b := a; b < n1; b++ {
-				dst[a*n1+b] = dst[a*n1+b].Add(pk.Mul(blk[a*n1+b]))
-			}
-		}
-	}
-	for a := 0; a < n1; a++ {
-		for b := 0; b < a; b++ {
-			dst[a*n1+b] = dst[b*n1+a]
-		}
-	}
-}
-
-// remainderBound returns t ≥ r·√(x)·√(y) for r, x, y ≥ 0 (upper rounded),
-// the bound r_rad ‖u‖‖v‖ of a remainder term (package doc, Remainders).
-func remainderBound(r, x, y float64) float64 {
-	if r == 0 {
-		return 0
-	}
-	if math.IsInf(r, 1) || math.IsNaN(r) {
-		return math.Inf(1)
-	}
-	return interval.MulUp(r, interval.MulUp(interval.SqrtUp(math.Max(x, 0)), interval.SqrtUp(math.Max(y, 0))))
 }
 
 // deCasteljau evaluates Σ b_i B^n_i(ξ) in floating point (a choice: used

@@ -1,7 +1,7 @@
 package line
 
 import (
-	"errors"
+	"gapcert/fem/boundary"
 
 	"gapcert/enclose"
 	"gapcert/enclose/band"
@@ -115,10 +115,6 @@ func (s *StageA) Bisect(index int, lo, hi float64) float64 {
 	return a
 }
 
-// errFluxFactor reports a flux least-squares system whose float
-// factorization failed.
-var errFluxFactor = errors.New("the flux least-squares system could not be factored")
-
 // FluxSpace is the continuous flux space of degree q on the trial mesh
 // with the weight 1/(V + γ_B) (Potential.InverseShifted).
 type FluxSpace struct {
@@ -131,7 +127,7 @@ type FluxSpace struct {
 // NewFluxSpace returns the flux space of degree q with the ends of the
 // trial space and the weight 1/(V + γ_B) of Taylor order weightOrder, or
 // the error of InverseShifted when V + γ_B > 0 cannot be verified.
-func NewFluxSpace(t *Trial, q int, left, right End, gammaB interval.I, weightOrder int) (*FluxSpace, error) {
+func NewFluxSpace(t *Trial, q int, left, right boundary.Condition, gammaB interval.I, weightOrder int) (*FluxSpace, error) {
 	w, err := t.V.InverseShifted(gammaB, weightOrder)
 	if err != nil {
 		return nil, err
@@ -142,22 +138,13 @@ func NewFluxSpace(t *Trial, q int, left, right End, gammaB interval.I, weightOrd
 // N returns the dimension of the flux space.
 func (f *FluxSpace) N() int { return f.flux.N() }
 
-// Choose returns Flux.MinimizeApprox for each trial function (a choice),
-// or an error when a float factorization failed.
+// Choose returns Flux.MinimizeApprox for the trial functions (a choice),
+// or ErrFluxFactor when the float factorization failed.
 func (f *FluxSpace) Choose(trial [][]float64) ([][]float64, error) {
-	fluxes := make([][]float64, len(trial))
-	for i := range fluxes {
-		fluxes[i] = f.flux.MinimizeApprox(f.trial.Space, trial[i], f.weight)
-		if fluxes[i] == nil {
-			return nil, errFluxFactor
-		}
-	}
-	return fluxes, nil
+	return f.flux.MinimizeApprox(f.trial.Space, trial, f.weight)
 }
 
-// LGMatrix returns the matrix a2 of LGMatrices for the trial functions and
-// their fluxes.
+// LGMatrix returns Flux.LGMatrix for the trial functions and their fluxes.
 func (f *FluxSpace) LGMatrix(trial, fluxes [][]float64) (*enclose.Sym, error) {
-	_, _, a2, err := LGMatrices(f.trial.Space, trial, f.flux, fluxes, f.trial.V, f.weight, f.gamma)
-	return a2, err
+	return f.flux.LGMatrix(f.trial.Space, trial, fluxes, f.trial.V, f.weight, f.gamma)
 }

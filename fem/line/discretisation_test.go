@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
 	"gapcert/fem/discrete"
 	"gapcert/fem/discrete/discretetest"
 	"gapcert/fem/line"
@@ -16,7 +17,7 @@ import (
 // eigenvalues are k² (closed form), shifted by γ = 1.
 func TestDiscretisationConformance(t *testing.T) {
 	a, b := interval.Point(0), interval.Pi()
-	dirichlet := line.End{Dirichlet: true}
+	dirichlet := boundary.Condition{Kind: boundary.Dirichlet}
 	zero := []interval.I{interval.Point(0)}
 	mesh := line.Uniform(a, b, 8)
 	trial := line.NewTrial(line.NewLagrange(mesh, 6, dirichlet, dirichlet), line.PolynomialPotential(mesh, zero))

@@ -10,7 +10,7 @@
 // with a(u, v) = ∫u'v' + ∫Vuv + α_L u(a)v(a) + α_R u(b)v(b), b(u, v) = ∫uv.
 //
 // Guarantees. Every matrix this package returns as an interval matrix
-// (RitzMatrices, MeanP2.Matrices, LGMatrices) encloses, entry by entry, the
+// (RitzMatrices, MeanP2.Matrices, Flux.LGMatrix) encloses, entry by entry, the
 // exact forms for the exact mesh, the exact functions defined by the given
 // float64 coefficients, and every exact value of the inputs inside their
 // enclosures (nodes, α, γ, potential models). The integrals are exact on
@@ -26,7 +26,7 @@
 // Potentials come from formula Taylor models (FromExpr), from exact
 // polynomials (PolynomialPotential) or any ModelFunc; the Lehmann–Goerisch
 // weight 1/(V + γ) is derived from them with a verified remainder
-// (InverseShifted, InverseShiftedExpr), and LGMatrices accepts only such a
+// (InverseShifted, InverseShiftedExpr), and Flux.LGMatrix accepts only such a
 // weight for the same V and γ.
 //
 // Functions and files named Approx, approx or choose work at round-to-
@@ -44,7 +44,7 @@
 // because |V − P − r_mid| ≤ r_rad pointwise and ∫ |uv| ≤ ‖u‖ ‖v‖
 // (Cauchy–Schwarz). The first integral is exact (Bernstein products); the
 // second is enclosed by ±r_rad ‖u‖ ‖v‖ with the norms from exact Gram
-// matrices, rounded up (remainderBound).
+// matrices, rounded up (RemainderBound of package fem/internal/bernstein).
 //
 // # Projection lower bound (stage A)
 //
@@ -96,10 +96,13 @@
 //
 // because the remaining end terms have φ(e) = 0 (Dirichlet) or σ(e) = 0
 // (the other ends). This is the hypothesis (Tφ, w_i)_X = b(φ, ũ_i) of the
-// Lehmann–Goerisch theorem (package temple) for every σ_i of the space,
-// and LGMatrices encloses
+// Lehmann–Goerisch theorem (package temple) for every σ_i of the space;
+// RitzMatrices encloses
 //
 //	A0 = M(ũ_i, ũ_j),  A1 = b(ũ_i, ũ_j),
+//
+// and Flux.LGMatrix encloses
+//
 //	A2 = (w_i, w_j)_X = ∫σ_iσ_j + ∫(ũ_i + σ_i')(ũ_j + σ_j')/c + Σ_(α_e > 0) σ_i(e)σ_j(e)/α_e.
 //
 // For an exact eigenpair (u, Λ), σ = u'/Λ gives w = Tu/Λ (as −u″ + cu = Λu

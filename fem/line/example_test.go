@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"gapcert/fem/boundary"
 	"gapcert/fem/line"
 	"gapcert/interval"
 )
@@ -13,7 +14,7 @@ import (
 // sin x in P4 on 8 cells.
 func ExampleLagrange_RitzMatrices() {
 	m := line.Uniform(interval.Point(0), interval.Point(math.Pi), 8)
-	dir := line.End{Dirichlet: true}
+	dir := boundary.Condition{Kind: boundary.Dirichlet}
 	s := line.NewLagrange(m, 4, dir, dir)
 	u := s.Interpolate(math.Sin, math.Cos)
 	a0, a1, err := s.RitzMatrices([][]float64{u}, line.PolynomialPotential(m, nil), interval.I{})

@@ -5,6 +5,9 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/interval"
 )
 
@@ -36,17 +39,14 @@ import (
 //	comparison, arXiv:1602.08961 (2016).
 type Flux struct {
 	space
-	left, right End
+	ends
 }
 
-// constrained reports whether the flux must vanish at this end.
-func constrained(e End) bool { return !e.Dirichlet && !e.robinPositive() }
-
-// NewFlux returns the degree-q flux space on m for the given end conditions.
-func NewFlux(m *Mesh, q int, left, right End) *Flux {
-	left.check()
-	right.check()
-	return &Flux{space: newSpace(m, q, constrained(left), constrained(right)), left: left, right: right}
+// NewFlux returns the degree-q flux space on m for the given end
+// conditions (as for NewLagrange).
+func NewFlux(m *Mesh, q int, left, right boundary.Condition) *Flux {
+	e := newEnds(left, right)
+	return &Flux{space: newSpace(m, q, fluxConstrained(left), fluxConstrained(right)), ends: e}
 }
 
 // N returns the dimension.
@@ -65,18 +65,23 @@ func (f *Flux) Interpolate(g, dg func(x float64) float64) []float64 {
 	return f.space.interpolate(g, dg)
 }
 
-// ErrWeightMismatch is returned by LGMatrices when w was not made by
+// ErrWeightMismatch is returned by LGMatrix when w was not made by
 // v.InverseShifted(gamma, ·) or v.InverseShiftedExpr(gamma, ·): only then
 // is w known to enclose 1/(V + γ).
 var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(gamma) or v.InverseShiftedExpr(gamma) for the same v and gamma")
 
-// LGMatrices returns interval matrices, for the trial functions ũ_i (the
-// coefficient vectors trial[i] in s) and fluxes σ_i (flux[i] in f):
+// LGMatrix returns the interval matrix of the Lehmann–Goerisch bounds, for
+// the trial functions ũ_i (the coefficient vectors trial[i] in s) and
+// fluxes σ_i (flux[i] in f):
 //
-//	a0_ij ⊇ a(ũ_i, ũ_j) + γ b(ũ_i, ũ_j),   a1_ij ⊇ b(ũ_i, ũ_j),
 //	a2_ij ⊇ ∫σ_iσ_j + ∫(ũ_i + σ_i')(ũ_j + σ_j')/c + Σ_(Robin ends, α>0) σ_i σ_j/α,
 //
-// c = V + γ, valid for every exact input inside the enclosures. ∫σ_iσ_j is
+// c = V + γ, valid for every exact input inside the enclosures. The other
+// two matrices of the theorem, a(ũ_i, ũ_j) + γ b(ũ_i, ũ_j) and
+// b(ũ_i, ũ_j), are s.RitzMatrices(trial, v, gamma); for the first N of a
+// larger set of vectors they are bit for bit the leading N×N blocks of
+// that set's Ritz matrices (each entry is accumulated from its own two
+// vectors only). ∫σ_iσ_j is
 // h·c_iᵀ M_loc c_j with the exact local mass matrix (as in RitzMatrices). The weight
 // w must be v.InverseShifted(gamma, ·) or v.InverseShiftedExpr(gamma, ·)
 // (else ErrWeightMismatch): its cell
@@ -84,7 +89,7 @@ var ErrWeightMismatch = errors.New("line: the weight must be v.InverseShifted(ga
 // r_mid ∫fg ± r_rad ‖f‖‖g‖ as in RitzMatrices. On a cell of length h,
 // (ũ + σ')(x_k + ξh) = ũ(ξ) + σ̃'(ξ)/h is formed in Bernstein form of degree
 // max(p, q−1) (exact elevation), and ∫ = h∫_0^1.
-func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w *Potential, gamma interval.I) (a0, a1, a2 *enclose.Sym, err error) {
+func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *Potential, gamma interval.I) (*enclose.Sym, error) {
 	if f.mesh != s.mesh {
 		panic("line: flux and trial spaces on different meshes")
 	}
@@ -97,16 +102,13 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		}
 	}
 	if w == nil || v == nil || w.inverseOf != v || w.shift != gamma {
-		return nil, nil, nil, ErrWeightMismatch
+		return nil, ErrWeightMismatch
 	}
-	a0, a1, err = s.RitzMatrices(trial, v, gamma)
-	if err != nil {
-		return nil, nil, nil, err
-	}
+	s.checkVecs(trial)
 	nv := len(trial)
 	p, q := s.p, f.p
 	d := max(p, q-1)
-	acc := newAccum(nv)
+	acc := ritz.NewAccumulator(nv)
 	uw := newCellWork(p, nv)
 	sw := newCellWork(q, nv)
 	gd := tripleTable(0, d, d).IV
@@ -124,75 +126,67 @@ func LGMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w 
 		hinv := h.Recip()
 		for i := 0; i < nv; i++ {
 			s.localCoef(uw.cf[i], trial[i], c)
-			applyF(uw.u[i], s.basis.IV, uw.cf[i])
+			bernstein.ApplyF(uw.u[i], s.basis.IV, uw.cf[i])
 			f.localCoef(sw.cf[i], flux[i], c)
-			applyF(sw.u[i], f.basis.IV, sw.cf[i])
-			applyF(sw.gu[i], sw.mloc, sw.cf[i])
+			bernstein.ApplyF(sw.u[i], f.basis.IV, sw.cf[i])
+			bernstein.ApplyF(sw.gu[i], sw.mloc, sw.cf[i])
 			bernDeriv(sw.d[i], sw.u[i])
 			bernElevate(fi[i], uw.u[i])
 			bernElevate(tmp, sw.d[i])
 			for k := range fi[i] {
 				fi[i][k] = fi[i][k].Add(tmp[k].Mul(hinv))
 			}
-			applyI(gfi[i], gd, fi[i])
-			ffi[i] = dotI(fi[i], gfi[i])
+			bernstein.ApplyI(gfi[i], gd, fi[i])
+			ffi[i] = bernstein.DotI(fi[i], gfi[i])
 		}
 		bern, rem := w.Model(c)
-		weightedGram(wg, bern, interval.Point(rem.Mid()), d)
+		bernstein.WeightedGram(wg, tripleTable(len(bern)-1, d, d).IV, bern, interval.Point(rem.Mid()), d+1)
 		for i := 0; i < nv; i++ {
-			applyI(wfi[i], wg, fi[i])
+			bernstein.ApplyI(wfi[i], wg, fi[i])
 		}
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				t := dotF(sw.cf[j], sw.gu[i]).Add(dotI(fi[j], wfi[i]))
+				t := bernstein.DotF(sw.cf[j], sw.gu[i]).Add(bernstein.DotI(fi[j], wfi[i]))
 				t = h.Mul(t)
-				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
+				if r := bernstein.RemainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
 					r = interval.MulUp(r, h.Hi)
 					t = t.Add(interval.I{Lo: -r, Hi: r})
 				}
-				acc.add(i, j, t)
+				acc.Add(i, j, t)
 			}
 		}
 	}
-	for _, e := range []struct {
-		end  End
-		side Side
-	}{{f.left, Left}, {f.right, Right}} {
-		if !e.end.robinPositive() {
-			continue
-		}
-		inv := e.end.Alpha.Recip()
-		for i := 0; i < nv; i++ {
-			si := f.endValue(flux[i], e.side)
-			for j := 0; j <= i; j++ {
-				acc.add(i, j, inv.MulF(si).MulF(f.endValue(flux[j], e.side)))
-			}
-		}
-	}
-	return a0, a1, acc.sym(), nil
+	f.endTerms(acc, flux)
+	return acc.Sym(), nil
 }
 
-// MinimizeApprox returns the flux σ of this space that minimises
-// ‖w‖²_X = ‖σ‖² + ‖(ũ + σ')/√c‖² + Σ_Robin σ(e)²/α for the trial function
-// ũ (coefficients u in s), with 1/c taken from w (midpoints): the solution
-// of the normal equations, for all τ,
+// ErrFluxFactor is returned by MinimizeApprox when the float
+// factorization of its least-squares system fails.
+var ErrFluxFactor = errors.New("the flux least-squares system could not be factored")
+
+// MinimizeApprox returns, for each trial function ũ (the coefficient
+// vectors trial[i] in s), the flux σ of this space that minimises
+// ‖w‖²_X = ‖σ‖² + ‖(ũ + σ')/√c‖² + Σ_Robin σ(e)²/α, with 1/c taken from w
+// (midpoints): the solution of the normal equations, for all τ,
 //
-//	(σ, τ) + ((σ' + ũ)/c, τ') + Σ_Robin σ τ/α = 0,
+//	(σ, τ) + ((σ' + ũ)/c, τ') + Σ_Robin σ τ/α = 0.
 //
-// one banded SPD solve in floating point. A choice: any σ is admissible.
-// It returns nil if the float factorization fails.
-func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 {
+// The system matrix does not depend on ũ: one banded SPD factorization in
+// floating point and one solve per trial function. A choice: any σ is
+// admissible. It returns ErrFluxFactor if the factorization fails.
+func (f *Flux) MinimizeApprox(s *Lagrange, trial [][]float64, w *Potential) ([][]float64, error) {
 	if s.mesh != f.mesh || w.mesh != f.mesh {
 		panic("line: spaces and weight on different meshes")
 	}
-	if len(u) != s.n {
-		panic("line: coefficient vector length mismatch")
-	}
+	s.checkVecs(trial)
 	p, q := s.p, f.p
 	q1 := q + 1
 	g := band.NewSym(f.n, q)
-	rhs := make([]float64, f.n)
+	rhs := make([][]float64, len(trial))
+	for i := range rhs {
+		rhs[i] = make([]float64, f.n)
+	}
 	T := f.basis.FL
 	D := make([]float64, q*q1) // derivative of the flux basis, degree q−1
 	for i := 0; i < q; i++ {
@@ -203,10 +197,14 @@ func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 
 	mref := congruenceF(T, tripleTable(0, q, q).FL, q1, q1)
 	gq1 := tripleTable(0, q-1, q-1).FL
 	gpq := tripleTable(0, p, q-1).FL
-	ub := make([]float64, p+1)
+	ub := make([][]float64, len(trial))
+	for i := range ub {
+		ub[i] = make([]float64, p+1)
+	}
 	c := make([]float64, p+1)
 	wq := make([]float64, q*q)
 	wpq := make([]float64, (p+1)*q)
+	kloc, work := make([]float64, q1*q1), make([]float64, q*q1)
 	for cell := 0; cell < f.mesh.Cells(); cell++ {
 		h := f.mesh.H(cell).Mid()
 		bern, rem := w.Model(cell)
@@ -229,14 +227,16 @@ func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 
 				wpq[ab] += wk * t3u[k*(p+1)*q+ab]
 			}
 		}
-		kloc := congruenceF(D, wq, q, q1)
-		s.localCoef(c, u, cell)
-		for i := 0; i <= p; i++ {
-			acc := 0.0
-			for l := 0; l <= p; l++ {
-				acc += s.basis.FL[i*(p+1)+l] * c[l]
+		congruenceFTo(kloc, work, D, wq, q, q1)
+		for v, u := range trial {
+			s.localCoef(c, u, cell)
+			for i := 0; i <= p; i++ {
+				acc := 0.0
+				for l := 0; l <= p; l++ {
+					acc += s.basis.FL[i*(p+1)+l] * c[l]
+				}
+				ub[v][i] = acc
 			}
-			ub[i] = acc
 		}
 		for a := 0; a < q1; a++ {
 			ga := f.dof(cell, a)
@@ -249,33 +249,26 @@ func (f *Flux) MinimizeApprox(s *Lagrange, u []float64, w *Potential) []float64 
 				}
 			}
 			// rhs: −∫_0^1 ũ w̃ τ̃_a' dξ (the factors h and 1/h cancel).
-			acc := 0.0
-			for i := 0; i <= p; i++ {
-				for b := 0; b < q; b++ {
-					acc += ub[i] * wpq[i*q+b] * D[b*q1+a]
+			for v := range trial {
+				acc := 0.0
+				for i := 0; i <= p; i++ {
+					for b := 0; b < q; b++ {
+						acc += ub[v][i] * wpq[i*q+b] * D[b*q1+a]
+					}
 				}
+				rhs[v][ga] -= acc
 			}
-			rhs[ga] -= acc
 		}
 	}
-	for _, e := range []struct {
-		end  End
-		side Side
-	}{{f.left, Left}, {f.right, Right}} {
-		if !e.end.robinPositive() {
-			continue
-		}
-		gi := f.dof(0, 0)
-		if e.side == Right {
-			gi = f.dof(f.mesh.Cells()-1, q)
-		}
-		g.Add(gi, gi, 1/e.end.Alpha.Mid())
-	}
+	f.endTermsApprox(g)
 	fac, ok := g.Factor()
 	if !ok {
-		return nil
+		return nil, ErrFluxFactor
 	}
-	out := make([]float64, f.n)
-	fac.SolveTo(out, rhs)
-	return out
+	out := make([][]float64, len(trial))
+	for v := range out {
+		out[v] = make([]float64, f.n)
+		fac.SolveTo(out[v], rhs[v])
+	}
+	return out, nil
 }

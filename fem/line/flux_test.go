@@ -3,13 +3,14 @@ package line
 import (
 	"errors"
 	"fmt"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 	"gapcert/temple"
 )
 
@@ -116,18 +117,7 @@ func exactA2(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, cinv *bi
 			}
 		}
 	}
-	for i := range trial {
-		for j := range trial {
-			if alphaL != nil {
-				t := new(big.Rat).Mul(ratOf(f.endValue(flux[i], Left)), ratOf(f.endValue(flux[j], Left)))
-				out[i][j].Add(out[i][j], t.Quo(t, alphaL))
-			}
-			if alphaR != nil {
-				t := new(big.Rat).Mul(ratOf(f.endValue(flux[i], Right)), ratOf(f.endValue(flux[j], Right)))
-				out[i][j].Add(out[i][j], t.Quo(t, alphaR))
-			}
-		}
-	}
+	addExactEndTerms(out, &f.space, flux, alphaL, alphaR, true)
 	return out
 }
 
@@ -139,12 +129,12 @@ func TestLGMatricesExact(t *testing.T) {
 	alpha := ratFrac(1, 3)
 	for _, tc := range []struct {
 		p, q, cells int
-		left, right End
+		left, right boundary.Condition
 		robinL      bool
 	}{
-		{3, 4, 3, End{Alpha: decimalio.FromRat(alpha)}, End{}, true},
-		{2, 2, 2, End{Dirichlet: true}, End{Dirichlet: true}, false},
-		{5, 6, 2, End{}, End{Dirichlet: true}, false},
+		{3, 4, 3, robin(decimalio.FromRat(alpha)), neumann, true},
+		{2, 2, 2, dirichlet, dirichlet, false},
+		{5, 6, 2, neumann, dirichlet, false},
 	} {
 		m := Uniform(pt(-0.5), pt(1), tc.cells)
 		s := NewLagrange(m, tc.p, tc.left, tc.right)
@@ -166,7 +156,7 @@ func TestLGMatricesExact(t *testing.T) {
 				flux[i][l] = rng.NormFloat64()
 			}
 		}
-		_, _, a2, err := LGMatrices(s, trial, f, flux, v, w, gamma)
+		_, _, a2, err := lgMatrices(s, trial, f, flux, v, w, gamma)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -180,7 +170,7 @@ func TestLGMatricesExact(t *testing.T) {
 				checkEncloses(t, fmt.Sprintf("p=%d q=%d A2(%d,%d)", tc.p, tc.q, i, j), a2.At(i, j), ex[i][j], 1e-11, 1)
 			}
 		}
-		if _, _, _, err := LGMatrices(s, trial, f, flux, v, w, pt(0.75)); !errors.Is(err, ErrWeightMismatch) {
+		if _, _, _, err := lgMatrices(s, trial, f, flux, v, w, pt(0.75)); !errors.Is(err, ErrWeightMismatch) {
 			t.Errorf("a weight for another γ was accepted: %v", err)
 		}
 	}
@@ -196,7 +186,7 @@ func TestFluxOfExactEigenfunction(t *testing.T) {
 	// common practice) must then
 	// return a lower bound of Λ_1 = 2 that is sharp.
 	m := Uniform(pt(0), pt(math.Pi), 8)
-	dir := End{Dirichlet: true}
+	dir := dirichlet
 	s := NewLagrange(m, 10, dir, dir)
 	f := NewFlux(m, 10, dir, dir)
 	v := PolynomialPotential(m, nil)
@@ -206,7 +196,7 @@ func TestFluxOfExactEigenfunction(t *testing.T) {
 		t.Fatal(err)
 	}
 	u := s.Interpolate(math.Sin, math.Cos)
-	sigma := f.MinimizeApprox(s, u, w)
+	sigma := minimizeOne(f, s, u, w)
 	for _, x := range []float64{0, 0.3, 1.5, 2.9, math.Pi} {
 		if d := math.Abs(f.Eval(sigma, x) - math.Cos(x)/2); d > 1e-9 {
 			t.Errorf("minimising flux at %g off cos/2 by %g", x, d)
@@ -214,7 +204,7 @@ func TestFluxOfExactEigenfunction(t *testing.T) {
 	}
 	exactSigma := f.Interpolate(func(x float64) float64 { return math.Cos(x) / 2 }, func(x float64) float64 { return -math.Sin(x) / 2 })
 	for name, fl := range map[string][]float64{"minimised": sigma, "interpolated": exactSigma} {
-		a0, a1, a2, err := LGMatrices(s, [][]float64{u}, f, [][]float64{fl}, v, w, gamma)
+		a0, a1, a2, err := lgMatrices(s, [][]float64{u}, f, [][]float64{fl}, v, w, gamma)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -256,7 +246,7 @@ func TestFluxRobinEnds(t *testing.T) {
 		t.Fatalf("λ_2 = %g", lam2)
 	}
 	m := Uniform(pt(0), pt(1), 6)
-	rob := End{Alpha: pt(1)}
+	rob := robin(pt(1))
 	s := NewLagrange(m, 6, rob, rob)
 	f := NewFlux(m, 7, rob, rob)
 	v := PolynomialPotential(m, nil)
@@ -264,8 +254,8 @@ func TestFluxRobinEnds(t *testing.T) {
 	w, _ := v.InverseShifted(gamma, 2)
 	kk, mm := s.AssembleApprox(v, 0)
 	u := inverseIterate(kk, mm, s.N())
-	sigma := f.MinimizeApprox(s, u, w)
-	a0, a1, a2, err := LGMatrices(s, [][]float64{u}, f, [][]float64{sigma}, v, w, gamma)
+	sigma := minimizeOne(f, s, u, w)
+	a0, a1, a2, err := lgMatrices(s, [][]float64{u}, f, [][]float64{sigma}, v, w, gamma)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -5,6 +5,8 @@ import (
 	"math/big"
 	"testing"
 
+	"gapcert/enclose"
+	"gapcert/fem/boundary"
 	"gapcert/interval"
 )
 
@@ -153,5 +155,61 @@ func checkEncloses(t *testing.T, what string, x interval.I, r *big.Rat, maxRel, 
 	}
 	if w := relWidth(x, floor); w > maxRel {
 		t.Errorf("%s: %v relative width %g > %g", what, x, w, maxRel)
+	}
+}
+
+// Conditions of the tests (package fem/boundary).
+var (
+	dirichlet = boundary.Condition{Kind: boundary.Dirichlet}
+	neumann   = boundary.Condition{Kind: boundary.Neumann}
+)
+
+// robin returns the Robin condition with the coefficient enclosure a.
+func robin(a interval.I) boundary.Condition {
+	return boundary.Condition{Kind: boundary.Robin, Alpha: a}
+}
+
+// lgMatrices returns the three matrices of the Lehmann–Goerisch theorem:
+// the Ritz matrices of the trial functions and the flux matrix.
+func lgMatrices(s *Lagrange, trial [][]float64, f *Flux, flux [][]float64, v, w *Potential, gamma interval.I) (a0, a1, a2 *enclose.Sym, err error) {
+	if a2, err = f.LGMatrix(s, trial, flux, v, w, gamma); err != nil {
+		return nil, nil, nil, err
+	}
+	a0, a1, err = s.RitzMatrices(trial, v, gamma)
+	return a0, a1, a2, err
+}
+
+// minimizeOne returns the least-squares flux of one trial function, nil if
+// the system could not be factored.
+func minimizeOne(f *Flux, s *Lagrange, u []float64, w *Potential) []float64 {
+	fl, err := f.MinimizeApprox(s, [][]float64{u}, w)
+	if err != nil {
+		return nil
+	}
+	return fl[0]
+}
+
+// addExactEndTerms adds c·x_i(e)x_j(e) to dst[i][j] at each end e with a
+// coefficient (alphaL, alphaR; nil: none), c = α, or 1/α when inverse, from
+// the exact end values of the vectors xs of sp (math/big).
+func addExactEndTerms(dst [][]*big.Rat, sp *space, xs [][]float64, alphaL, alphaR *big.Rat, inverse bool) {
+	for _, e := range []struct {
+		side  Side
+		alpha *big.Rat
+	}{{Left, alphaL}, {Right, alphaR}} {
+		if e.alpha == nil {
+			continue
+		}
+		for i := range xs {
+			for j := range xs {
+				t := new(big.Rat).Mul(ratOf(sp.endValue(xs[i], e.side)), ratOf(sp.endValue(xs[j], e.side)))
+				if inverse {
+					t.Quo(t, e.alpha)
+				} else {
+					t.Mul(t, e.alpha)
+				}
+				dst[i][j].Add(dst[i][j], t)
+			}
+		}
 	}
 }

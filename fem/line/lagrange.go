@@ -3,6 +3,9 @@ package line
 import (
 	"gapcert/enclose"
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/interval"
 )
 
@@ -13,18 +16,19 @@ import (
 //
 //	a(u, v) = ∫u'v' + ∫Vuv + α_L u(a)v(a) + α_R u(b)v(b),   b(u, v) = ∫uv,
 //
-// the Robin terms present at non-Dirichlet ends (α = 0 for Neumann).
+// the end terms present at natural ends (α = 0 for Neumann; package
+// fem/boundary).
 type Lagrange struct {
 	space
-	left, right End
+	ends
 }
 
 // NewLagrange returns the degree-p space on m with the given end
-// conditions. It panics if p < 1 or a Robin α is not an enclosure ≥ 0.
-func NewLagrange(m *Mesh, p int, left, right End) *Lagrange {
-	left.check()
-	right.check()
-	return &Lagrange{space: newSpace(m, p, left.Dirichlet, right.Dirichlet), left: left, right: right}
+// conditions. It panics if p < 1 or a condition is not valid
+// (boundary.Condition.Check).
+func NewLagrange(m *Mesh, p int, left, right boundary.Condition) *Lagrange {
+	e := newEnds(left, right)
+	return &Lagrange{space: newSpace(m, p, left.Essential(), right.Essential()), ends: e}
 }
 
 // N returns the dimension of the space.
@@ -60,6 +64,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 	g := tripleTable(0, p, p).FL
 	mref := congruenceF(T, g, p1, p1)
 	w := make([]float64, p1*p1)
+	wloc, work := make([]float64, p1*p1), make([]float64, p1*p1)
 	for c := 0; c < s.mesh.Cells(); c++ {
 		h := s.mesh.H(c).Mid()
 		bern, rem := v.Model(c)
@@ -74,7 +79,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 				w[ab] += pj * tr[j*p1*p1+ab]
 			}
 		}
-		wloc := congruenceF(T, w, p1, p1)
+		congruenceFTo(wloc, work, T, w, p1, p1)
 		for a := 0; a < p1; a++ {
 			ga := s.dof(c, a)
 			if ga < 0 {
@@ -90,20 +95,20 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *band.Sym) 
 			}
 		}
 	}
-	if !s.left.Dirichlet {
-		k.Add(s.dof(0, 0), s.dof(0, 0), s.left.Alpha.Mid())
-	}
-	if !s.right.Dirichlet {
-		g := s.dof(s.mesh.Cells()-1, p)
-		k.Add(g, g, s.right.Alpha.Mid())
-	}
+	s.endTermsApprox(k)
 	return k, m
 }
 
 // congruenceF returns Xᵀ G X for X r×c (row-major) and G r×r, in floating
 // point (a choice).
 func congruenceF(x, g []float64, r, c int) []float64 {
-	gx := make([]float64, r*c)
+	return congruenceFTo(make([]float64, c*c), make([]float64, r*c), x, g, r, c)
+}
+
+// congruenceFTo sets dst (c×c) to Xᵀ G X as congruenceF does, with work
+// (length ≥ r·c) as scratch, and returns dst.
+func congruenceFTo(dst, work, x, g []float64, r, c int) []float64 {
+	gx := work[:r*c]
 	for i := 0; i < r; i++ {
 		for l := 0; l < c; l++ {
 			acc := 0.0
@@ -113,7 +118,7 @@ func congruenceF(x, g []float64, r, c int) []float64 {
 			gx[i*c+l] = acc
 		}
 	}
-	out := make([]float64, c*c)
+	out := dst[:c*c]
 	for a := 0; a < c; a++ {
 		for b := 0; b < c; b++ {
 			acc := 0.0
@@ -166,70 +171,33 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 	s.checkPotential(v)
 	s.checkVecs(vecs)
 	nv := len(vecs)
-	a, b := newAccum(nv), newAccum(nv)
+	a, b := ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
 	w := newCellWork(s.p, nv)
 	for c := 0; c < s.mesh.Cells(); c++ {
 		w.load(&s.space, vecs, c)
 		h := s.mesh.H(c)
 		bern, rem := v.Model(c)
-		weightedGram(w.wg, bern, gamma.AddF(rem.Mid()), s.p)
+		bernstein.WeightedGram(w.wg, tripleTable(len(bern)-1, s.p, s.p).IV, bern, gamma.AddF(rem.Mid()), s.p+1)
 		w.weighted()
 		hinv := h.Recip()
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				mass := dotF(w.cf[j], w.gu[i])
-				st := dotF(w.cf[j], w.gd[i])
-				pot := dotI(w.u[j], w.wu[i])
-				b.add(i, j, h.Mul(mass))
+				mass := bernstein.DotF(w.cf[j], w.gu[i])
+				st := bernstein.DotF(w.cf[j], w.gd[i])
+				pot := bernstein.DotI(w.u[j], w.wu[i])
+				b.Add(i, j, h.Mul(mass))
 				t := hinv.Mul(st).Add(h.Mul(pot))
-				if r := remainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
+				if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
 					r = interval.MulUp(r, h.Hi)
 					t = t.Add(interval.I{Lo: -r, Hi: r})
 				}
-				a.add(i, j, t)
+				a.Add(i, j, t)
 			}
 		}
 	}
-	for _, e := range []struct {
-		end  End
-		side Side
-	}{{s.left, Left}, {s.right, Right}} {
-		if e.end.Dirichlet {
-			continue
-		}
-		for i := 0; i < nv; i++ {
-			ui := s.endValue(vecs[i], e.side)
-			for j := 0; j <= i; j++ {
-				uj := s.endValue(vecs[j], e.side)
-				a.add(i, j, e.end.Alpha.MulF(ui).MulF(uj))
-			}
-		}
-	}
-	return a.sym(), b.sym(), nil
-}
-
-// accum is a lower-triangular interval accumulator.
-type accum struct {
-	n int
-	v []interval.I
-}
-
-func newAccum(n int) *accum { return &accum{n: n, v: make([]interval.I, n*(n+1)/2)} }
-
-func (a *accum) add(i, j int, x interval.I) {
-	k := i*(i+1)/2 + j
-	a.v[k] = a.v[k].Add(x)
-}
-
-func (a *accum) sym() *enclose.Sym {
-	s := enclose.NewSym(a.n)
-	for i := 0; i < a.n; i++ {
-		for j := 0; j <= i; j++ {
-			s.Set(i, j, a.v[i*(i+1)/2+j])
-		}
-	}
-	return s
+	s.endTerms(a, vecs)
+	return a.Sym(), b.Sym(), nil
 }
 
 // cellWork holds, for one cell, the data of nv functions of a degree-p
@@ -270,16 +238,16 @@ func newCellWork(p, nv int) *cellWork {
 func (w *cellWork) load(s *space, vecs [][]float64, k int) {
 	for i, x := range vecs {
 		s.localCoef(w.cf[i], x, k)
-		applyF(w.u[i], s.basis.IV, w.cf[i])
-		applyF(w.gu[i], w.mloc, w.cf[i])
-		applyF(w.gd[i], w.kloc, w.cf[i])
-		w.mii[i] = dotF(w.cf[i], w.gu[i])
+		bernstein.ApplyF(w.u[i], s.basis.IV, w.cf[i])
+		bernstein.ApplyF(w.gu[i], w.mloc, w.cf[i])
+		bernstein.ApplyF(w.gd[i], w.kloc, w.cf[i])
+		w.mii[i] = bernstein.DotF(w.cf[i], w.gu[i])
 	}
 }
 
 // weighted computes wu = wg·u for every function.
 func (w *cellWork) weighted() {
 	for i := range w.u {
-		applyI(w.wu[i], w.wg, w.u[i])
+		bernstein.ApplyI(w.wu[i], w.wg, w.u[i])
 	}
 }

@@ -2,7 +2,6 @@ package line
 
 import (
 	"fmt"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -10,10 +9,10 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 )
-
-var neumann = End{}
 
 func pt(x float64) interval.I { return interval.Point(x) }
 
@@ -177,18 +176,7 @@ func exactRitz(s *Lagrange, vecs [][]float64, vc []*big.Rat, gamma *big.Rat, alp
 			}
 		}
 	}
-	for i := range vecs {
-		for j := range vecs {
-			if alphaL != nil {
-				t := new(big.Rat).Mul(ratOf(s.endValue(vecs[i], Left)), ratOf(s.endValue(vecs[j], Left)))
-				a[i][j].Add(a[i][j], t.Mul(t, alphaL))
-			}
-			if alphaR != nil {
-				t := new(big.Rat).Mul(ratOf(s.endValue(vecs[i], Right)), ratOf(s.endValue(vecs[j], Right)))
-				a[i][j].Add(a[i][j], t.Mul(t, alphaR))
-			}
-		}
-	}
+	addExactEndTerms(a, &s.space, vecs, alphaL, alphaR, false)
 	return a, b
 }
 
@@ -207,12 +195,12 @@ func TestRitzMatricesExact(t *testing.T) {
 	alpha := ratFrac(1, 3)
 	for _, tc := range []struct {
 		p, cells, nv int
-		left, right  End
+		left, right  boundary.Condition
 	}{
-		{1, 3, 2, End{Alpha: ratInterval(alpha)}, End{Dirichlet: true}},
-		{3, 3, 3, End{Alpha: ratInterval(alpha)}, End{Dirichlet: true}},
-		{6, 2, 3, End{Dirichlet: true}, End{}},
-		{10, 2, 2, End{Alpha: ratInterval(alpha)}, End{Alpha: ratInterval(alpha)}},
+		{1, 3, 2, robin(ratInterval(alpha)), dirichlet},
+		{3, 3, 3, robin(ratInterval(alpha)), dirichlet},
+		{6, 2, 3, dirichlet, neumann},
+		{10, 2, 2, robin(ratInterval(alpha)), robin(ratInterval(alpha))},
 	} {
 		m := Uniform(pt(0.25), pt(1.75), tc.cells)
 		s := NewLagrange(m, tc.p, tc.left, tc.right)
@@ -229,10 +217,10 @@ func TestRitzMatricesExact(t *testing.T) {
 			t.Fatal(err)
 		}
 		var aL, aR *big.Rat
-		if !tc.left.Dirichlet && tc.left.Alpha.Hi > 0 {
+		if !tc.left.Essential() && tc.left.Alpha.Hi > 0 {
 			aL = alpha
 		}
-		if !tc.right.Dirichlet && tc.right.Alpha.Hi > 0 {
+		if !tc.right.Essential() && tc.right.Alpha.Hi > 0 {
 			aR = alpha
 		}
 		ea, eb := exactRitz(s, vecs, vc, gamma, aL, aR)
@@ -253,7 +241,7 @@ func TestRitzMatricesVsFloatAssembly(t *testing.T) {
 	m := Uniform(pt(-1), pt(2), 9)
 	v := PolynomialPotential(m, []interval.I{pt(3), pt(0), pt(-1)})
 	for _, p := range []int{2, 5, 8} {
-		s := NewLagrange(m, p, End{Alpha: pt(2)}, End{Alpha: pt(0)})
+		s := NewLagrange(m, p, robin(pt(2)), robin(pt(0)))
 		kb, mb := s.AssembleApprox(v, 0.5)
 		n := s.N()
 		K, M := mat.NewSymDense(n, nil), mat.NewSymDense(n, nil)
@@ -296,7 +284,7 @@ func TestRayleighQuotientConvergence(t *testing.T) {
 			var errs []float64
 			for _, n := range []int{8, 16, 32} {
 				m := Uniform(pt(0), pt(math.Pi), n)
-				s := NewLagrange(m, p, End{Dirichlet: true}, End{Dirichlet: true})
+				s := NewLagrange(m, p, dirichlet, dirichlet)
 				u := s.Interpolate(func(x float64) float64 { return math.Sin(k * x) },
 					func(x float64) float64 { return k * math.Cos(k*x) })
 				a0, a1, _ := s.RitzMatrices([][]float64{u}, PolynomialPotential(m, nil), interval.I{})
@@ -322,7 +310,7 @@ func TestRayleighQuotientConvergence(t *testing.T) {
 
 func TestEvalInterpolate(t *testing.T) {
 	m := Uniform(pt(0), pt(1), 5)
-	s := NewLagrange(m, 6, End{}, End{Dirichlet: true})
+	s := NewLagrange(m, 6, neumann, dirichlet)
 	u := s.Interpolate(math.Exp, math.Exp) // e^x does not vanish at 1: the end value is dropped
 	for _, x := range []float64{0, 0.13, 0.5, 0.77} {
 		if d := math.Abs(s.Eval(u, x) - math.Exp(x)); d > 1e-7 {

@@ -2,14 +2,15 @@ package line
 
 import (
 	"fmt"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 	"math/rand/v2"
 	"os"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 )
 
 // TestLongRitzSweep runs RitzMatrices against the exact math/big evaluation
@@ -34,7 +35,7 @@ func TestLongRitzSweep(t *testing.T) {
 		vc := []*big.Rat{big.NewRat(int64(rng.IntN(9)-4), 3), big.NewRat(int64(rng.IntN(9)-4), 7), big.NewRat(int64(rng.IntN(5)), 5)}
 		viv := []interval.I{decimalio.FromRat(vc[0]), decimalio.FromRat(vc[1]), decimalio.FromRat(vc[2])}
 		alpha := big.NewRat(int64(rng.IntN(7)), 3)
-		ends := []End{{Dirichlet: true}, {Alpha: decimalio.FromRat(alpha)}}
+		ends := []boundary.Condition{dirichlet, robin(decimalio.FromRat(alpha))}
 		left, right := ends[rng.IntN(2)], ends[rng.IntN(2)]
 		s := NewLagrange(m, p, left, right)
 		if s.N() == 0 {
@@ -53,10 +54,10 @@ func TestLongRitzSweep(t *testing.T) {
 			t.Fatal(err)
 		}
 		var aL, aR *big.Rat
-		if !left.Dirichlet {
+		if !left.Essential() {
 			aL = alpha
 		}
-		if !right.Dirichlet {
+		if !right.Essential() {
 			aR = alpha
 		}
 		ea, eb := exactRitz(s, vecs, vc, gamma, aL, aR)

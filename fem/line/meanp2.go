@@ -2,12 +2,13 @@ package line
 
 import (
 	"fmt"
-	"gapcert/interval/decimalio"
 	"math"
 	"math/big"
 
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
 	"gapcert/interval"
+	"gapcert/interval/decimalio"
 )
 
 // MeanP2 is the stage-A space of the projection lower bound (package doc)
@@ -63,22 +64,20 @@ import (
 //	C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
 //	Math. Comp. 83 (2014).
 type MeanP2 struct {
-	mesh        *Mesh
-	left, right End
-	n           int
-	shift       int
+	mesh *Mesh
+	ends
+	n     int
+	shift int
 }
 
-// NewMeanP2 returns the stage-A space on m.
-func NewMeanP2(m *Mesh, left, right End) *MeanP2 {
-	left.check()
-	right.check()
-	s := &MeanP2{mesh: m, left: left, right: right, n: 2*m.Cells() + 1}
-	if left.Dirichlet {
+// NewMeanP2 returns the stage-A space on m (conditions as for NewLagrange).
+func NewMeanP2(m *Mesh, left, right boundary.Condition) *MeanP2 {
+	s := &MeanP2{mesh: m, ends: newEnds(left, right), n: 2*m.Cells() + 1}
+	if left.Essential() {
 		s.n--
 		s.shift = 1
 	}
-	if right.Dirichlet {
+	if right.Essential() {
 		s.n--
 	}
 	return s
@@ -92,7 +91,7 @@ func (s *MeanP2) Mesh() *Mesh { return s.mesh }
 
 // NodeDof returns the index of the nodal value at node k, −1 if removed.
 func (s *MeanP2) NodeDof(k int) int {
-	if (k == 0 && s.left.Dirichlet) || (k == s.mesh.Cells() && s.right.Dirichlet) {
+	if s.endRemoved(k) {
 		return -1
 	}
 	return 2*k - s.shift
@@ -214,13 +213,7 @@ func (s *MeanP2) Matrices(v *Potential, gamma interval.I) (k, mass *band.ISym, m
 		}
 		k.Add(idx[1], idx[1], h.MulF(ct))
 	}
-	if !s.left.Dirichlet {
-		k.Add(0, 0, s.left.Alpha)
-	}
-	if !s.right.Dirichlet {
-		g := s.NodeDof(nc)
-		k.Add(g, g, s.right.Alpha)
-	}
+	s.endTerms(k)
 	var split [3]float64
 	for i, r := range meanP2MassSplit {
 		split[i] = decimalio.FromRat(r).Lo

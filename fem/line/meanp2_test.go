@@ -11,6 +11,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"gapcert/enclose/band"
+	"gapcert/fem/boundary"
 	"gapcert/interval"
 )
 
@@ -58,7 +59,7 @@ func TestMeanP2CoefficientsAreValuesAndMeans(t *testing.T) {
 	// cell means reproduce ∫f'g' and ∫fg exactly (math/big, monomial form).
 	rng := rand.New(rand.NewPCG(5, 6))
 	m, _ := NewMesh([]interval.I{pt(-1), pt(-0.5), pt(0.25), pt(1), pt(1.5)})
-	s := NewMeanP2(m, End{}, End{})
+	s := NewMeanP2(m, neumann, neumann)
 	v := PolynomialPotential(m, nil)
 	k, mass, _, err := s.Matrices(v, interval.I{})
 	if err != nil {
@@ -130,11 +131,11 @@ func TestMeanP2MassBound(t *testing.T) {
 	// mMin ≤ λ_min(M) (gonum on the midpoint matrix) and within a factor 2.
 	for _, tc := range []struct {
 		n           int
-		left, right End
+		left, right boundary.Condition
 	}{
-		{4, End{Dirichlet: true}, End{Dirichlet: true}},
-		{10, End{}, End{Alpha: pt(1)}},
-		{33, End{Dirichlet: true}, End{}},
+		{4, dirichlet, dirichlet},
+		{10, neumann, robin(pt(1))},
+		{33, dirichlet, neumann},
 	} {
 		m := Uniform(pt(0), pt(2), tc.n)
 		s := NewMeanP2(m, tc.left, tc.right)
@@ -175,7 +176,7 @@ func TestMeanP2ProjectionLowerBound(t *testing.T) {
 		var prevErr float64
 		for _, n := range []int{8, 16, 32} {
 			m := Uniform(pt(0), pt(math.Pi), n)
-			s := NewMeanP2(m, End{Dirichlet: true}, End{Dirichlet: true})
+			s := NewMeanP2(m, dirichlet, dirichlet)
 			k, mass, _, err := s.Matrices(PolynomialPotential(m, []interval.I{pt(tc.vconst)}), pt(tc.gamma))
 			if err != nil {
 				t.Fatal(err)
@@ -202,7 +203,7 @@ func TestMeanP2ProjectionLowerBound(t *testing.T) {
 func TestMeanP2SignError(t *testing.T) {
 	// V = x − 1 on (0, 2) with γ = 0.5 is negative near 0: c_T < 0 must be refused.
 	m := Uniform(pt(0), pt(2), 4)
-	s := NewMeanP2(m, End{Dirichlet: true}, End{})
+	s := NewMeanP2(m, dirichlet, neumann)
 	_, _, _, err := s.Matrices(PolynomialPotential(m, []interval.I{pt(-1), pt(1)}), pt(0.5))
 	var se *SignError
 	if !errors.As(err, &se) || se.Cell != 0 {
@@ -217,7 +218,7 @@ func TestProjectionConstant(t *testing.T) {
 	// π to 40 digits (common practice): the upper end must be ≥ h/(2π).
 	pi, _ := new(big.Rat).SetString("3.141592653589793238462643383279502884197")
 	m := Uniform(pt(0), pt(1), 3)
-	c := NewMeanP2(m, End{}, End{}).ProjectionConstant()
+	c := NewMeanP2(m, neumann, neumann).ProjectionConstant()
 	want := new(big.Rat).Quo(ratOf(m.HMax()), new(big.Rat).Mul(pi, big.NewRat(2, 1)))
 	checkEncloses(t, "h/(2π)", interval.I{Lo: 0, Hi: c.Hi}, want, math.Inf(1), 1)
 	if w, _ := want.Float64(); c.Hi > w*(1+1e-14) {

@@ -37,7 +37,7 @@ type Potential struct {
 	rng  []interval.I
 
 	// For a weight made by InverseShifted: the potential and shift it
-	// inverts (LGMatrices checks them).
+	// inverts (Flux.LGMatrix checks them).
 	inverseOf *Potential
 	shift     interval.I
 

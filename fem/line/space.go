@@ -1,26 +1,5 @@
 package line
 
-import (
-	"gapcert/interval"
-)
-
-// End is the boundary condition at one end of the interval: Dirichlet
-// (u = 0), or Robin ∂u/∂n + αu = 0 with Alpha an enclosure of the exact
-// α ≥ 0 (Neumann is Robin with Alpha = [0, 0]).
-type End struct {
-	Dirichlet bool
-	Alpha     interval.I
-}
-
-func (e End) check() {
-	if !e.Dirichlet && !(e.Alpha.Lo >= 0 && e.Alpha.IsBounded()) {
-		panic("line: Robin coefficient must be a bounded enclosure of α ≥ 0")
-	}
-}
-
-// robinPositive reports whether the end is Robin with α verified > 0.
-func (e End) robinPositive() bool { return !e.Dirichlet && e.Alpha.Lo > 0 }
-
 // space is the continuous piecewise polynomial space of degree p on a mesh
 // in the hierarchical basis of hierarchicalRat, with the vertex function at
 // an end removed when that end is constrained to zero.

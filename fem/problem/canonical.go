@@ -6,6 +6,8 @@ import (
 	"encoding/hex"
 	"encoding/json"
 	"strconv"
+
+	"gapcert/fem/boundary"
 )
 
 // Canonical returns the canonical JSON text of p: no insignificant
@@ -22,7 +24,7 @@ func (p *Problem) Canonical() []byte {
 			b.WriteByte(',')
 		}
 		switch bc.Kind {
-		case Robin:
+		case boundary.Robin:
 			b.WriteString(`{"robin":`)
 			writeString(&b, bc.Alpha.Text)
 			b.WriteByte('}')

@@ -8,40 +8,31 @@ import (
 	"strconv"
 	"strings"
 
+	"gapcert/fem/boundary"
 	"gapcert/fem/claim"
 	"gapcert/fem/claim/named"
 	"gapcert/interval"
 	"gapcert/interval/formula"
 )
 
-// BCKind is the kind of boundary condition on one side.
-type BCKind int
-
-const (
-	Dirichlet BCKind = iota // u = 0
-	Neumann                 // ∂u/∂n = 0
-	Robin                   // ∂u/∂n + α u = 0, α ≥ 0
-)
-
-// String returns the kind's name as written in problem files.
-func (k BCKind) String() string {
-	switch k {
-	case Dirichlet:
-		return "dirichlet"
-	case Neumann:
-		return "neumann"
-	case Robin:
-		return "robin"
-	}
-	return "BCKind(" + strconv.Itoa(int(k)) + ")"
+// BC is the boundary condition on one side as the file states it: the
+// kind and, for Robin, the exact coefficient (its canonical text is part of
+// the problem's canonical form). Alpha is 0 unless Kind is Robin; a Robin
+// condition with α = 0 stays Robin in the text but is the Neumann condition
+// (package fem/boundary). Condition gives the form the computation uses.
+type BC struct {
+	Kind  boundary.Kind
+	Alpha Number
 }
 
-// BC is the boundary condition on one side. Alpha is 0 unless Kind is
-// Robin; a Robin condition with α = 0 stays Robin in the text but is the
-// Neumann condition.
-type BC struct {
-	Kind  BCKind
-	Alpha Number
+// Condition returns the condition for the element spaces: the kind, and
+// for Robin the enclosure of the exact α.
+func (bc BC) Condition() boundary.Condition {
+	c := boundary.Condition{Kind: bc.Kind}
+	if bc.Kind == boundary.Robin {
+		c.Alpha = bc.Alpha.Val
+	}
+	return c
 }
 
 // Problem is a validated eigenvalue problem −Δu + V u = λu read from a
@@ -432,9 +423,9 @@ func (r *reader) bc(n *node, path string, params map[string]Number) (BC, bool) {
 	case kindString:
 		switch n.str {
 		case "dirichlet":
-			return BC{Kind: Dirichlet, Alpha: zeroNumber()}, true
+			return BC{Kind: boundary.Dirichlet, Alpha: zeroNumber()}, true
 		case "neumann":
-			return BC{Kind: Neumann, Alpha: zeroNumber()}, true
+			return BC{Kind: boundary.Neumann, Alpha: zeroNumber()}, true
 		case "robin":
 			r.iss.add(path, "a Robin condition needs its coefficient", `write {"robin": "1.5"}`)
 			return BC{}, false
@@ -468,7 +459,7 @@ func (r *reader) bc(n *node, path string, params map[string]Number) (BC, bool) {
 			r.iss.add(apath, "negative Robin coefficient", "α must be ≥ 0 (α = 0 is the Neumann condition)")
 			return BC{}, false
 		}
-		return BC{Kind: Robin, Alpha: alpha}, true
+		return BC{Kind: boundary.Robin, Alpha: alpha}, true
 	}
 	r.iss.add(path, "a boundary condition must be a string or an object, not "+n.kind.String(), bcHint)
 	return BC{}, false
@@ -687,7 +678,7 @@ func (p *Problem) ClaimScope() claim.Scope {
 func (p *Problem) RobinAlpha() (alpha Number, why string) {
 	first := -1
 	for i, bc := range p.Boundary {
-		if bc.Kind != Robin {
+		if bc.Kind != boundary.Robin {
 			continue
 		}
 		if first < 0 {

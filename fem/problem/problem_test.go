@@ -10,6 +10,7 @@ import (
 	"strings"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
 )
 
@@ -216,7 +217,7 @@ func TestReversedBoundary(t *testing.T) {
 		a, b := p.Vertices[k], p.Vertices[(k+1)%n]
 		seg := key([2]int64{a[0].Rat.Num().Int64(), a[1].Rat.Num().Int64()}, [2]int64{b[0].Rat.Num().Int64(), b[1].Rat.Num().Int64()})
 		got := bc.Kind.String()
-		if bc.Kind == Robin {
+		if bc.Kind == boundary.Robin {
 			got += " " + bc.Alpha.Text
 		}
 		if want[seg] != got {

@@ -55,7 +55,7 @@ func TestProjectionConstantRoundsUp(t *testing.T) {
 			}
 		}
 		c2 := new(big.Rat).Mul(big.NewRat(1893*1893, 10000*10000), h2) // (0.1893 h)², exact
-		bc := make([]BC, 3)
+		bc := allBC(3, neumann)
 		for _, s := range []*Projection{NewCR(m, bc), NewECR(m, bc)} {
 			got := s.ProjectionConstant().Hi
 			g := new(big.Rat).SetFloat64(got)

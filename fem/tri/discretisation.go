@@ -5,6 +5,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/discrete"
 	"gapcert/interval"
 )
@@ -75,7 +76,7 @@ type FluxSpace struct {
 // NewFluxSpace returns RT_k with the side conditions bc and the weight
 // 1/(V + γ_B) of Taylor order weightOrder, or the error of InverseShifted
 // when V + γ_B > 0 cannot be verified.
-func NewFluxSpace(t *Trial, k int, bc []BC, gammaB interval.I, weightOrder int) (*FluxSpace, error) {
+func NewFluxSpace(t *Trial, k int, bc []boundary.Condition, gammaB interval.I, weightOrder int) (*FluxSpace, error) {
 	w, err := t.V.InverseShifted(gammaB, weightOrder)
 	if err != nil {
 		return nil, err

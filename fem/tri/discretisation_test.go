@@ -3,6 +3,7 @@ package tri
 import (
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/fem/discrete"
 	"gapcert/fem/discrete/discretetest"
 	"gapcert/fem/mesh"
@@ -28,7 +29,7 @@ func TestDiscretisationConformance(t *testing.T) {
 	exact := []interval.I{pi2.MulF(2).AddF(1), pi2.MulF(5).AddF(1), pi2.MulF(5).AddF(1), pi2.MulF(8).AddF(1)}
 	for _, sp := range []struct {
 		name string
-		new  func(*mesh.Mesh, []BC) *Projection
+		new  func(*mesh.Mesh, []boundary.Condition) *Projection
 	}{{"ECR", NewECR}, {"CR", NewCR}} {
 		discretetest.Run(t, discretetest.Case{
 			Name:  "unit square, Dirichlet, " + sp.name,

@@ -74,7 +74,7 @@
 // because |V − P − r_mid| ≤ r_rad pointwise and ∫_T |uv| ≤ ‖u‖_T ‖v‖_T
 // (Cauchy–Schwarz). The first integral is exact (Bernstein products); the
 // second is enclosed by ±r_rad ‖u‖_T ‖v‖_T with the norms from exact Gram
-// matrices, rounded up (remainderBound).
+// matrices, rounded up (RemainderBound of package fem/internal/bernstein).
 //
 // # Projection lower bound (stage A)
 //

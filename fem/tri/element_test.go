@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"gapcert/enclose"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
@@ -33,7 +34,7 @@ func unitVecs(n int) [][]float64 {
 // matrices, common practice), from both the verified and the float path.
 func TestP1ReferenceElement(t *testing.T) {
 	m := refTriangle(t)
-	s := NewLagrange(m, 1, allBC(3, BC{}))
+	s := NewLagrange(m, 1, allBC(3, neumann))
 	v := mustPotential(t, m, "0", 1)
 	if s.N() != 3 {
 		t.Fatalf("N = %d", s.N())
@@ -85,7 +86,7 @@ func TestConstantFunctionIntegrals(t *testing.T) {
 	for _, c := range cases {
 		for _, p := range []int{1, 2, 3} {
 			m := unitSquare(t, 2)
-			s := NewLagrange(m, p, allBC(4, BC{Alpha: c.alpha}))
+			s := NewLagrange(m, p, allBC(4, robin(c.alpha)))
 			v := mustPotential(t, m, c.v, c.order)
 			one := make([]float64, s.N())
 			for i := range one {
@@ -126,7 +127,7 @@ func TestRitzMatricesMatchFloatAssembly(t *testing.T) {
 		t.Fatal(err)
 	}
 	m = m.Refine().Refine()
-	bc := []BC{dirichlet, {Alpha: interval.Point(1.5)}, {}, dirichlet}
+	bc := []boundary.Condition{dirichlet, robin(interval.Point(1.5)), neumann, dirichlet}
 	for _, p := range []int{1, 2, 3, 4} {
 		s := NewLagrange(m, p, bc)
 		v := mustPotential(t, m, "x*y - x^3/4 + 2", 3)
@@ -176,7 +177,7 @@ func TestLagrangeDofCounts(t *testing.T) {
 			if n := NewLagrange(m, p, allBC(4, dirichlet)).N(); n != (g-1)*(g-1) {
 				t.Errorf("p=%d lev=%d Dirichlet: N = %d, want %d", p, lev, n, (g-1)*(g-1))
 			}
-			if n := NewLagrange(m, p, allBC(4, BC{})).N(); n != (g+1)*(g+1) {
+			if n := NewLagrange(m, p, allBC(4, neumann)).N(); n != (g+1)*(g+1) {
 				t.Errorf("p=%d lev=%d Neumann: N = %d, want %d", p, lev, n, (g+1)*(g+1))
 			}
 		}
@@ -188,7 +189,7 @@ func TestLagrangeDofCounts(t *testing.T) {
 func TestInterpolateReproducesPolynomials(t *testing.T) {
 	m := unitSquare(t, 1)
 	for _, p := range []int{1, 2, 3, 4} {
-		s := NewLagrange(m, p, allBC(4, BC{}))
+		s := NewLagrange(m, p, allBC(4, neumann))
 		f := func(x, y float64) float64 { return math.Pow(x, float64(p)) - 2*x*math.Pow(y, float64(p-1)) + 0.5 }
 		c := s.Interpolate(f)
 		for _, q := range [][2]float64{{0.1, 0.2}, {0.7, 0.3}, {0.5, 0.5}, {1, 1}, {0.33, 0.9}} {

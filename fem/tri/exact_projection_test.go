@@ -5,6 +5,7 @@ import (
 	"math/big"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
@@ -59,7 +60,7 @@ func TestProjectionMatricesContainExact(t *testing.T) {
 		t.Fatal(err)
 	}
 	m := m0.Refine()
-	bc := []BC{{Alpha: interval.Point(1.5)}, dirichlet, {Alpha: interval.Point(0.25)}, {}}
+	bc := []boundary.Condition{robin(interval.Point(1.5)), dirichlet, robin(interval.Point(0.25)), neumann}
 	alpha := []*big.Rat{big.NewRat(3, 2), nil, big.NewRat(1, 4), nil}
 	v := mustPotential(t, m, "x*y + 1", 1)
 	gamma := interval.Point(0.5)

@@ -6,6 +6,7 @@ import (
 	"math/rand/v2"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
@@ -188,7 +189,7 @@ func ratIn(r *big.Rat, x interval.I) bool {
 // Dirichlet/Robin/Neumann sides; and they are narrow.
 func TestRitzMatricesContainExactForms(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 4))
-	bc := []BC{dirichlet, {Alpha: interval.Point(1.5)}, {}, {Alpha: interval.Point(0.25)}}
+	bc := []boundary.Condition{dirichlet, robin(interval.Point(1.5)), neumann, robin(interval.Point(0.25))}
 	alpha := []*big.Rat{nil, big.NewRat(3, 2), nil, big.NewRat(1, 4)}
 	checkRitzExact(t, unitSquare(t, 1), bc, alpha, []int{1, 2, 3, 4}, rng)
 }
@@ -196,7 +197,7 @@ func TestRitzMatricesContainExactForms(t *testing.T) {
 // checkRitzExact compares RitzMatrices of three random integer vectors
 // (V = xy + 2 − x²/4, γ = 1/2) with the exact forms; the mesh nodes must be
 // exact floats and the Robin sides (alpha[side] ≠ nil) axis-parallel.
-func checkRitzExact(t *testing.T, m *mesh.Mesh, bc []BC, alpha []*big.Rat, degrees []int, rng *rand.Rand) {
+func checkRitzExact(t *testing.T, m *mesh.Mesh, bc []boundary.Condition, alpha []*big.Rat, degrees []int, rng *rand.Rand) {
 	t.Helper()
 	vPoly := rpoly{{1, 1}: big.NewRat(1, 1), {0, 0}: big.NewRat(2, 1), {2, 0}: big.NewRat(-1, 4)} // xy + 2 − x²/4
 	gamma := big.NewRat(1, 2)

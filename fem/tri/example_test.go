@@ -6,6 +6,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/fem/tri"
 	"gapcert/interval"
@@ -22,7 +23,8 @@ func Example() {
 		panic(err)
 	}
 	m = m.Refine().Refine().Refine().Refine()
-	bc := []tri.BC{{Dirichlet: true}, {Dirichlet: true}, {Dirichlet: true}, {Dirichlet: true}}
+	dir := boundary.Condition{Kind: boundary.Dirichlet}
+	bc := []boundary.Condition{dir, dir, dir, dir}
 	zero, _ := formula.Parse("0")
 	v, err := tri.NewPotential(m, zero, 1)
 	if err != nil {

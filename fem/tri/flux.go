@@ -7,6 +7,9 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 
@@ -49,22 +52,12 @@ type Flux struct {
 	nEdge int         // kept edge DOFs, numbered 0 … nEdge−1 before the interior ones
 	dofs  [][]int     // per triangle, global index of each local DOF (−1: removed)
 	sign  [][]float64 // per triangle, ±1 for each local DOF
-	robin []fluxRobin
+	robin []sideEdge  // boundary edges with α > 0
 }
-
-// fluxRobin is a boundary edge with α > 0: local edge i of triangle t.
-type fluxRobin struct {
-	t, i   int
-	alpha  interval.I
-	length interval.I
-}
-
-// fluxFree reports whether the normal flux may be nonzero on a side.
-func fluxFree(bc BC) bool { return bc.Dirichlet || bc.Alpha.Lo > 0 }
 
 // NewFlux returns RT_k on m with the side conditions bc (as for
 // NewLagrange). It panics if k < 0 or bc does not fit the mesh.
-func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
+func NewFlux(m *mesh.Mesh, k int, bc []boundary.Condition) *Flux {
 	checkBC(m, bc)
 	ref := rtReference(k)
 	edges, triEdges := m.Edges()
@@ -76,7 +69,7 @@ func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
 		edgeOf[ab] = e
 	}
 	for _, be := range m.Bnd {
-		if fluxFree(bc[be.Side]) {
+		if bc[be.Side].FluxFree() {
 			continue
 		}
 		e := edgeOf[[2]int{min(be.A, be.B), max(be.A, be.B)}]
@@ -120,15 +113,7 @@ func NewFlux(m *mesh.Mesh, k int, bc []BC) *Flux {
 		}
 		f.dofs[t], f.sign[t] = d, s
 	}
-	owners := m.BoundaryOwners()
-	for k, be := range m.Bnd {
-		c := bc[be.Side]
-		if c.Dirichlet || !(c.Alpha.Lo > 0) {
-			continue
-		}
-		ti := owners[k]
-		f.robin = append(f.robin, fluxRobin{t: ti[0], i: ti[1], alpha: c.Alpha, length: m.Geom(ti[0]).EdgeLen[ti[1]]})
-	}
+	f.robin = termEdges(m, bc, boundary.Condition.AlphaPositive)
 	return f
 }
 
@@ -214,7 +199,7 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 	gn := tripleTable(0, nb, nb).IV
 	gd := tripleTable(0, d, d).IV
 	elevP, elevK := elevationTable(p, d).IV, elevationTable(k, d).IV
-	acc := newAccum(nv)
+	acc := ritz.NewAccumulator(nv)
 	x := make([][]float64, nv)
 	uc := make([][]float64, nv)
 	type vecs struct{ c, gc [2][]interval.I }
@@ -247,7 +232,7 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 			}
 			for c := 0; c < 2; c++ {
 				exactCombination(sv[i].c[c], ref.compT[c], x[i])
-				applyI(sv[i].gc[c], gn, sv[i].c[c])
+				bernstein.ApplyI(sv[i].gc[c], gn, sv[i].c[c])
 			}
 			exactCombination(dv[i], ref.divT, x[i])
 			for b := range dv[i] {
@@ -258,60 +243,43 @@ func (f *Flux) LGMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v, w *
 					fi[i][b] = interval.Point(u)
 				}
 			} else {
-				applyF(fi[i], elevP, uc[i])
+				bernstein.ApplyF(fi[i], elevP, uc[i])
 			}
 			if d == k {
 				copy(tmp, dv[i])
 			} else {
-				applyI(tmp, elevK, dv[i])
+				bernstein.ApplyI(tmp, elevK, dv[i])
 			}
 			for b := range fi[i] {
 				fi[i][b] = fi[i][b].Add(tmp[b])
 			}
-			applyI(gtmp, gd, fi[i])
-			ffi[i] = dotI(fi[i], gtmp)
+			bernstein.ApplyI(gtmp, gd, fi[i])
+			ffi[i] = bernstein.DotI(fi[i], gtmp)
 		}
 		bern, rem := w.Model(t)
 		if !rem.IsBounded() || !hull(bern).IsBounded() {
 			return nil, errUnbounded
 		}
-		weightedGram(wg, bern, w.q, interval.Point(rem.Mid()), d)
+		bernstein.WeightedGram(wg, tripleTable(w.q, d, d).IV, bern, interval.Point(rem.Mid()), dim(d))
 		for i := 0; i < nv; i++ {
-			applyI(wfi[i], wg, fi[i])
+			bernstein.ApplyI(wfi[i], wg, fi[i])
 		}
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				m := kk[0][0].Mul(dotI(sv[j].c[0], sv[i].gc[0])).
-					Add(kk[0][1].Mul(dotI(sv[j].c[0], sv[i].gc[1]).Add(dotI(sv[j].c[1], sv[i].gc[0])))).
-					Add(kk[1][1].Mul(dotI(sv[j].c[1], sv[i].gc[1])))
-				e := dotI(fi[j], wfi[i])
-				if r := remainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
+				m := kk[0][0].Mul(bernstein.DotI(sv[j].c[0], sv[i].gc[0])).
+					Add(kk[0][1].Mul(bernstein.DotI(sv[j].c[0], sv[i].gc[1]).Add(bernstein.DotI(sv[j].c[1], sv[i].gc[0])))).
+					Add(kk[1][1].Mul(bernstein.DotI(sv[j].c[1], sv[i].gc[1])))
+				e := bernstein.DotI(fi[j], wfi[i])
+				if r := bernstein.RemainderBound(rrad, ffi[i].Hi, ffi[j].Hi); r != 0 {
 					e = e.Add(interval.I{Lo: -r, Hi: r})
 				}
-				acc.add(i, j, quarter.Mul(m).Add(g.Area.Mul(e)))
+				acc.Add(i, j, quarter.Mul(m).Add(g.Area.Mul(e)))
 			}
 		}
 	}
-	ge := edgeGramTable(k).IV
-	gi := make([][]interval.I, nv)
-	for i := range gi {
-		gi[i] = make([]interval.I, k+1)
-	}
-	for _, re := range f.robin {
-		// g = edgeScale · (local edge DOFs): the stored basis is scaled.
-		scale := re.alpha.Mul(re.length).Recip().MulF(ref.edgeScale * ref.edgeScale)
-		for i := 0; i < nv; i++ {
-			f.local(x[i], flux[i], re.t)
-			applyF(gi[i], ge, x[i][re.i*(k+1):(re.i+1)*(k+1)])
-		}
-		for i := 0; i < nv; i++ {
-			for j := 0; j <= i; j++ {
-				acc.add(i, j, scale.Mul(dotF(x[j][re.i*(k+1):(re.i+1)*(k+1)], gi[i])))
-			}
-		}
-	}
-	return acc.sym(), nil
+	f.edgeTerms(acc, flux, x)
+	return acc.Sym(), nil
 }
 
 // MinimizeApprox returns, for each trial function ũ (coefficients in s),
@@ -400,21 +368,7 @@ func (f *Flux) MinimizeApprox(s *Lagrange, trial [][]float64, w *Potential) ([][
 			}
 		}
 	}
-	k := f.k
-	ge := edgeGramTable(k).FL
-	for _, rb := range f.robin {
-		sc := f.ref.edgeScale * f.ref.edgeScale / (rb.alpha.Mid() * rb.length.Mid())
-		d, sg := f.dofs[rb.t], f.sign[rb.t]
-		for a := 0; a <= k; a++ {
-			la := rb.i*(k+1) + a
-			for c := 0; c <= a; c++ {
-				lc := rb.i*(k+1) + c
-				if d[la] >= 0 && d[lc] >= 0 {
-					b.Add(d[la], d[lc], sg[la]*sg[lc]*sc*ge[a*(k+1)+c])
-				}
-			}
-		}
-	}
+	f.edgeTermsApprox(b)
 	out := make([][]float64, len(trial))
 	for i := range out {
 		out[i] = make([]float64, f.n)
@@ -465,6 +419,8 @@ type localFluxSystem struct {
 	abbInvAbe  []float64   // ni × ne: A_bb⁻¹ A_be
 	zb         [][]float64 // per trial function, ni: A_bb⁻¹ r_b
 	wkk, wpk   []float64
+	dloc       []float64 // nd × nd, and its scratch dwork (nk × nd)
+	dwork      []float64
 	uc         []float64
 	abb        *mat.SymDense
 	chol       mat.Cholesky
@@ -477,7 +433,8 @@ func newLocalFluxSystem(f *Flux, s *Lagrange, w *Potential) *localFluxSystem {
 	ne := 3 * (f.k + 1)
 	ni := nd - ne
 	ls := &localFluxSystem{f: f, s: s, w: w, loc: make([]float64, nd*nd), abbInvAbe: make([]float64, ni*ne),
-		wkk: make([]float64, dim(f.k)*dim(f.k)), wpk: make([]float64, dim(s.p)*dim(f.k)), uc: make([]float64, dim(s.p))}
+		wkk: make([]float64, dim(f.k)*dim(f.k)), wpk: make([]float64, dim(s.p)*dim(f.k)), uc: make([]float64, dim(s.p)),
+		dloc: make([]float64, nd*nd), dwork: make([]float64, dim(f.k)*nd)}
 	// Reference mass blocks M_rs[l·nd + l'] = φ̂_(l,r)ᵀ G φ̂_(l',s).
 	gn := tripleTable(0, ref.n, ref.n).FL
 	for r := 0; r < 2; r++ {
@@ -506,7 +463,7 @@ func (ls *localFluxSystem) build(t int, trial [][]float64) error {
 	weightedGramF(ls.wkk, bern, ls.w.q, rem.Mid(), k, k)
 	weightedGramF(ls.wpk, bern, ls.w.q, rem.Mid(), p, k)
 	divT := ref.divT
-	dloc := congruence(divT, divT, ls.wkk, nd, nk)
+	dloc := congruenceTo(ls.dloc, ls.dwork, divT, divT, ls.wkk, nd, nk)
 	m := ls.mref
 	for ab := range ls.loc {
 		ls.loc[ab] = quarter * (kk[0][0].Mid()*m[0][0][ab] + kk[0][1].Mid()*(m[0][1][ab]+m[1][0][ab]) +
@@ -622,7 +579,7 @@ func exactCombination(dst []interval.I, a, x []float64) {
 			rest = rest.Add(interval.I{Lo: e, Hi: e}).Add(interval.I{Lo: q, Hi: q})
 		}
 		if overflow {
-			applyF(dst[b:b+1], intervalRow(row), x)
+			bernstein.ApplyF(dst[b:b+1], intervalRow(row), x)
 			continue
 		}
 		dst[b] = rest.AddF(s)
@@ -641,7 +598,14 @@ func intervalRow(row []float64) []interval.I {
 // congruence returns C[l·nd + m] = Σ_(β,γ) A[β·nd + l] G[β·nb + γ] B[γ·nd + m]
 // for nd functions with nb coefficients each (floating point; a choice).
 func congruence(a, b, g []float64, nd, nb int) []float64 {
-	gb := make([]float64, nb*nd)
+	return congruenceTo(make([]float64, nd*nd), make([]float64, nb*nd), a, b, g, nd, nb)
+}
+
+// congruenceTo sets dst (nd×nd) to what congruence returns, with work
+// (length ≥ nb·nd) as scratch, and returns dst.
+func congruenceTo(dst, work, a, b, g []float64, nd, nb int) []float64 {
+	gb := work[:nb*nd]
+	clear(gb)
 	for be := 0; be < nb; be++ {
 		for ga := 0; ga < nb; ga++ {
 			gv := g[be*nb+ga]
@@ -653,7 +617,8 @@ func congruence(a, b, g []float64, nd, nb int) []float64 {
 			}
 		}
 	}
-	out := make([]float64, nd*nd)
+	out := dst[:nd*nd]
+	clear(out)
 	for be := 0; be < nb; be++ {
 		for l := 0; l < nd; l++ {
 			al := a[be*nd+l]

@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 	"gapcert/temple"
@@ -168,7 +169,7 @@ type perturbation struct {
 // functions and ρ = (1 − 10⁻⁹)·Λ_(N+1) (≤ Λ_(N+1) by the enclosure) for
 // the optimal fluxes, and for each perturbation of them (nil entries where
 // A0 − 2ρA1 + ρ²A2 is not verified positive definite).
-func lgBounds(t *testing.T, m *mesh.Mesh, p, k int, bc []BC, vsrc string, gamma float64, exact []interval.I,
+func lgBounds(t *testing.T, m *mesh.Mesh, p, k int, bc []boundary.Condition, vsrc string, gamma float64, exact []interval.I,
 	perturbs []perturbation) (lower []float64, other map[string][]float64) {
 	t.Helper()
 	n := len(exact) - 1
@@ -285,7 +286,7 @@ func robinSq(alphaL, L float64, k int) interval.I {
 // (Neumann) (Lamé; M. A. Pinsky, SIAM J. Math. Anal. 11 (1980) 819–827).
 // The optimal fluxes must give bounds below the truth and within tol.
 func TestLGAdversarialGeometries(t *testing.T) {
-	D, N := dirichlet, BC{}
+	D, N := dirichlet, neumann
 	rect := [][3]int{{0, 1, 2}, {0, 2, 3}}
 	rectOther := [][3]int{{0, 1, 3}, {1, 2, 3}} // the other diagonal
 	r2, _ := interval.Point(2).Sqrt()
@@ -303,42 +304,42 @@ func TestLGAdversarialGeometries(t *testing.T) {
 		verts  [][2]interval.I
 		tris   [][3]int
 		levels int
-		bc     []BC
+		bc     []boundary.Condition
 		gamma  float64
 		exact  []interval.I // Λ_1..Λ_(N+1)
 		tol    float64
 	}{
-		{"rotated 2×1 Dirichlet", movedRectangle(2, 1, 1), rect, 2, []BC{D, D, D, D}, 1,
+		{"rotated 2×1 Dirichlet", movedRectangle(2, 1, 1), rect, 2, []boundary.Condition{D, D, D, D}, 1,
 			shifted(1, piSq(1.25, 1), piSq(2, 1), piSq(3.25, 1)), 1e-7},
-		{"rotated 2×1 Dirichlet, other diagonal", movedRectangle(2, 1, 1), rectOther, 2, []BC{D, D, D, D}, 1,
+		{"rotated 2×1 Dirichlet, other diagonal", movedRectangle(2, 1, 1), rectOther, 2, []boundary.Condition{D, D, D, D}, 1,
 			shifted(1, piSq(1.25, 1), piSq(2, 1), piSq(3.25, 1)), 1e-7},
 		// Side 10⁻³ and 10³, with γ scaled like λ (as the driver scales it
 		// with π²/D²) and, for the tiny one, also with γ = 1 ≪ λ, which is
 		// sound but less sharp (the weight 1/c amplifies the error of
 		// ũ + div σ).
-		{"tiny rotated square, mixed", movedRectangle(1, 1, 1e-3), rect, 2, []BC{D, N, D, N}, 1e6,
+		{"tiny rotated square, mixed", movedRectangle(1, 1, 1e-3), rect, 2, []boundary.Condition{D, N, D, N}, 1e6,
 			shifted(1e6, piSq(1e6, 1), piSq(2e6, 1)), 1e-8},
-		{"tiny rotated square, mixed, γ = 1", movedRectangle(1, 1, 1e-3), rect, 2, []BC{D, N, D, N}, 1,
+		{"tiny rotated square, mixed, γ = 1", movedRectangle(1, 1, 1e-3), rect, 2, []boundary.Condition{D, N, D, N}, 1,
 			shifted(1, piSq(1e6, 1), piSq(2e6, 1)), 3e-6},
-		{"huge rotated square, Dirichlet", movedRectangle(1, 1, 1e3), rect, 2, []BC{D, D, D, D}, 1e-6,
+		{"huge rotated square, Dirichlet", movedRectangle(1, 1, 1e3), rect, 2, []boundary.Condition{D, D, D, D}, 1e-6,
 			shifted(1e-6, piSq(2e-6, 1), piSq(5e-6, 1)), 1e-8},
 		// Aspect 1:20, Dirichlet on the long sides, Neumann on the short:
 		// λ = n²π²/b² + (m − 1)²π², b = 1/20: 400π², 401π², 404π².
-		{"1:20 mixed", movedRectangle(1, 0.05, 1), rect, 2, []BC{D, N, D, N}, 400,
+		{"1:20 mixed", movedRectangle(1, 0.05, 1), rect, 2, []boundary.Condition{D, N, D, N}, 400,
 			shifted(400, piSq(400, 1), piSq(401, 1), piSq(404, 1)), 1e-7},
 		// Dirichlet at the bottom, Neumann elsewhere on the unit square:
 		// (k − ½)²π² in y, (m − 1)²π² in x.
-		{"one Dirichlet side", movedRectangle(1, 1, 1), rect, 2, []BC{D, N, N, N}, 1,
+		{"one Dirichlet side", movedRectangle(1, 1, 1), rect, 2, []boundary.Condition{D, N, N, N}, 1,
 			shifted(1, piSq(0.25, 1), piSq(1.25, 1), piSq(2.25, 1)), 1e-8},
 		// Robin α = 10⁹ (nearly Dirichlet) and α = 10⁻⁹ (nearly Neumann)
 		// on all four sides of the unit square.
-		{"Robin 1e9", movedRectangle(1, 1, 1), rect, 2, allBC(4, BC{Alpha: interval.Point(1e9)}), 1,
+		{"Robin 1e9", movedRectangle(1, 1, 1), rect, 2, allBC(4, robin(interval.Point(1e9))), 1,
 			shifted(1, rb(1e9, 1, 1), rb(1e9, 1, 2)), 1e-8},
-		{"Robin 1e-9", movedRectangle(1, 1, 1), rect, 2, allBC(4, BC{Alpha: interval.Point(1e-9)}), 1,
+		{"Robin 1e-9", movedRectangle(1, 1, 1), rect, 2, allBC(4, robin(interval.Point(1e-9))), 1,
 			shifted(1, rb(1e-9, 1, 1), rb(1e-9, 1, 2)), 1e-8},
 		// Robin α ∈ [1, 1 + 2⁻²⁰] (an interval-valued parameter): the bound
 		// holds for every α in it, so it must lie below Λ(α = 1).
-		{"Robin interval α", movedRectangle(1, 1, 1), rect, 2, allBC(4, BC{Alpha: interval.I{Lo: 1, Hi: 1 + 0x1p-20}}), 1,
+		{"Robin interval α", movedRectangle(1, 1, 1), rect, 2, allBC(4, robin(interval.I{Lo: 1, Hi: 1 + 0x1p-20})), 1,
 			shifted(1, rb(1, 1, 1), rb(1, 1, 2)), 1e-6},
 		// Equilateral triangles of side √2 at (√2, π) and of side 10⁻³.
 		{"equilateral √2 Dirichlet", equilateralAt(math.Sqrt2, r2, interval.Pi()), [][3]int{{0, 1, 2}}, 3, allBC(3, D), 1,
@@ -416,7 +417,7 @@ func TestLGAdversarialPotentials(t *testing.T) {
 func TestLGAdversarialFluxes(t *testing.T) {
 	const gamma = 1
 	g := interval.Point(gamma)
-	D, N := dirichlet, BC{}
+	D, N := dirichlet, neumann
 	rng := rand.New(rand.NewPCG(3, 9))
 	scale := func(c float64) func([][]float64) [][]float64 {
 		return func(best [][]float64) [][]float64 {
@@ -467,12 +468,12 @@ func TestLGAdversarialFluxes(t *testing.T) {
 	cases := []struct {
 		name  string
 		m     *mesh.Mesh
-		bc    []BC
+		bc    []boundary.Condition
 		exact []interval.I
 	}{
-		{"rotated mixed rectangle", polygonMeshOf(t, movedRectangle(2, 1, 1), [][3]int{{0, 1, 2}, {0, 2, 3}}, 2), []BC{D, N, D, N},
+		{"rotated mixed rectangle", polygonMeshOf(t, movedRectangle(2, 1, 1), [][3]int{{0, 1, 2}, {0, 2, 3}}, 2), []boundary.Condition{D, N, D, N},
 			[]interval.I{piSq(1, 1).Add(g), piSq(1.25, 1).Add(g), piSq(2, 1).Add(g)}},
-		{"Robin square", unitSquare(t, 2), allBC(4, BC{Alpha: interval.Point(1)}),
+		{"Robin square", unitSquare(t, 2), allBC(4, robin(interval.Point(1))),
 			[]interval.I{x1.Add(x1).Add(g), x1.Add(x2).Add(g), x1.Add(x2).Add(g), x2.Add(x2).Add(g)}},
 	}
 	for _, c := range cases {
@@ -511,11 +512,11 @@ func TestLGRelabelledMeshes(t *testing.T) {
 	for start := 0; start < 4; start++ {
 		for _, tris := range [][][3]int{{{0, 1, 2}, {0, 2, 3}}, {{0, 1, 3}, {1, 2, 3}}} {
 			verts := make([][2]interval.I, 4)
-			bc := make([]BC, 4)
+			bc := allBC(4, neumann)
 			for i := range verts {
 				verts[i] = corners[(start+i)%4]
 				if (start+i)%4 != 0 {
-					bc[i] = BC{}
+					bc[i] = neumann
 				} else {
 					bc[i] = dirichlet // side from (0,0) to (1,0)
 				}

@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 	"gapcert/temple"
@@ -13,7 +14,7 @@ import (
 
 // lgLowest runs the Lehmann–Goerisch bound with the first n trial
 // functions and the flux space of degree k, shift gamma and rho.
-func lgLowest(t *testing.T, s *Lagrange, vecs [][]float64, k int, bc []BC, v *Potential, gamma, rho float64) []float64 {
+func lgLowest(t *testing.T, s *Lagrange, vecs [][]float64, k int, bc []boundary.Condition, v *Potential, gamma, rho float64) []float64 {
 	t.Helper()
 	g := interval.Point(gamma)
 	w, err := v.InverseShifted(g, 8)
@@ -107,19 +108,19 @@ func robinRoot(alpha float64, k int) float64 {
 //     with x_k the roots of robinRoot, so Λ_1 = 2x_1² + γ, Λ_2 = Λ_3 = x_1² + x_2² + γ.
 func TestLGMixedAndRobinRectangles(t *testing.T) {
 	const gamma = 1
-	neu := BC{}
-	robin := BC{Alpha: interval.Point(1)}
+	neu := neumann
+	rob := robin(interval.Point(1))
 	pi2 := math.Pi * math.Pi
 	x1, x2 := robinRoot(1, 1), robinRoot(1, 2)
 	cases := []struct {
 		name  string
 		m     *mesh.Mesh
-		bc    []BC
+		bc    []boundary.Condition
 		exact []float64 // Λ_1..Λ_N
 		rho   float64   // ≤ Λ_{N+1}
 	}{
-		{"mixed", rectangle(t, 2, 1, 2), []BC{dirichlet, neu, dirichlet, neu}, []float64{pi2 + gamma, 1.25*pi2 + gamma}, 0.999*2*pi2 + gamma},
-		{"robin", rectangle(t, 1, 1, 2), allBC(4, robin), []float64{2*x1*x1 + gamma, x1*x1 + x2*x2 + gamma, x1*x1 + x2*x2 + gamma}, 0.999*2*x2*x2 + gamma},
+		{"mixed", rectangle(t, 2, 1, 2), []boundary.Condition{dirichlet, neu, dirichlet, neu}, []float64{pi2 + gamma, 1.25*pi2 + gamma}, 0.999*2*pi2 + gamma},
+		{"robin", rectangle(t, 1, 1, 2), allBC(4, rob), []float64{2*x1*x1 + gamma, x1*x1 + x2*x2 + gamma, x1*x1 + x2*x2 + gamma}, 0.999*2*x2*x2 + gamma},
 	}
 	for _, c := range cases {
 		s := NewLagrange(c.m, 6, c.bc)
@@ -149,7 +150,7 @@ func TestLGMixedAndRobinRectangles(t *testing.T) {
 func TestLGPerturbedFluxesStaySound(t *testing.T) {
 	const gamma = 1
 	pi2 := math.Pi * math.Pi
-	bc := []BC{dirichlet, {}, dirichlet, {}}
+	bc := []boundary.Condition{dirichlet, neumann, dirichlet, neumann}
 	m := rectangle(t, 2, 1, 1)
 	s := NewLagrange(m, 5, bc)
 	v := mustPotential(t, m, "0", 1)

@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"gapcert/enclose"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 	"gapcert/interval/formula"
@@ -26,15 +27,24 @@ func unitSquare(t testing.TB, levels int) *mesh.Mesh {
 	return m
 }
 
-func allBC(n int, c BC) []BC {
-	out := make([]BC, n)
+func allBC(n int, c boundary.Condition) []boundary.Condition {
+	out := make([]boundary.Condition, n)
 	for i := range out {
 		out[i] = c
 	}
 	return out
 }
 
-var dirichlet = BC{Dirichlet: true}
+// Conditions of the tests (package fem/boundary).
+var (
+	dirichlet = boundary.Condition{Kind: boundary.Dirichlet}
+	neumann   = boundary.Condition{Kind: boundary.Neumann}
+)
+
+// robin returns the Robin condition with the coefficient enclosure a.
+func robin(a interval.I) boundary.Condition {
+	return boundary.Condition{Kind: boundary.Robin, Alpha: a}
+}
 
 func mustExpr(t testing.TB, src string) *formula.Expr {
 	t.Helper()

@@ -1,8 +1,6 @@
 package tri
 
 import (
-	"math"
-
 	"gapcert/interval"
 )
 
@@ -63,95 +61,4 @@ func diffF(dst []interval.I, pairs [][2]int, c []float64) {
 	for b, pr := range pairs {
 		dst[b] = interval.Point(c[pr[0]]).Sub(interval.Point(c[pr[1]]))
 	}
-}
-
-// applyI sets dst[i] ⊇ Σ_j g[i·len(b) + j] b[j].
-func applyI(dst []interval.I, g []interval.I, b []interval.I) {
-	nb := len(b)
-	for i := range dst {
-		acc := interval.I{}
-		row := g[i*nb : (i+1)*nb]
-		for j, bj := range b {
-			if bj.Lo == 0 && bj.Hi == 0 {
-				continue
-			}
-			acc = acc.Add(row[j].Mul(bj))
-		}
-		dst[i] = acc
-	}
-}
-
-// applyF sets dst[i] ⊇ Σ_j g[i·len(c) + j] c[j] for exact floats c.
-func applyF(dst []interval.I, g []interval.I, c []float64) {
-	nc := len(c)
-	for i := range dst {
-		acc := interval.I{}
-		row := g[i*nc : (i+1)*nc]
-		for j, cj := range c {
-			if cj != 0 {
-				acc = acc.Add(row[j].MulF(cj))
-			}
-		}
-		dst[i] = acc
-	}
-}
-
-// dotI returns an enclosure of Σ a_i b_i.
-func dotI(a, b []interval.I) interval.I {
-	acc := interval.I{}
-	for i := range a {
-		acc = acc.Add(a[i].Mul(b[i]))
-	}
-	return acc
-}
-
-// dotF returns an enclosure of Σ c_i b_i for exact floats c_i.
-func dotF(c []float64, b []interval.I) interval.I {
-	acc := interval.I{}
-	for i, ci := range c {
-		if ci != 0 {
-			acc = acc.Add(b[i].MulF(ci))
-		}
-	}
-	return acc
-}
-
-// weightedGram sets dst[a·N_p + b] ⊇ ∫_T (P + s) B^p_α B^p_β / |T| for
-// P = Σ_κ w_κ B^q_κ (q the degree of len(w) coefficients) and the constant
-// s: the exact weighted Gram matrix of the degree-p basis. The shift enters
-// every coefficient of P (partition of unity).
-func weightedGram(dst []interval.I, w []interval.I, q int, s interval.I, p int) {
-	t := tripleTable(q, p, p).IV
-	np := dim(p)
-	nn := np * np
-	for ab := range dst[:nn] {
-		dst[ab] = interval.I{}
-	}
-	for k := range w {
-		wk := w[k].Add(s)
-		blk := t[k*nn : (k+1)*nn]
-		for a := 0; a < np; a++ {
-			for b := a; b < np; b++ {
-				dst[a*np+b] = dst[a*np+b].Add(wk.Mul(blk[a*np+b]))
-			}
-		}
-	}
-	for a := 0; a < np; a++ {
-		for b := 0; b < a; b++ {
-			dst[a*np+b] = dst[b*np+a]
-		}
-	}
-}
-
-// remainderBound returns t ≥ r·√x·√y for r, x, y ≥ 0 (upper rounded): the
-// bound r_rad ‖u‖‖v‖ of a remainder term (Cauchy–Schwarz; package doc,
-// Remainders).
-func remainderBound(r, x, y float64) float64 {
-	if r == 0 {
-		return 0
-	}
-	if math.IsInf(r, 1) || math.IsNaN(r) || math.IsInf(x, 1) || math.IsInf(y, 1) {
-		return math.Inf(1)
-	}
-	return interval.MulUp(r, interval.MulUp(interval.SqrtUp(math.Max(x, 0)), interval.SqrtUp(math.Max(y, 0))))
 }

@@ -3,28 +3,12 @@ package tri
 import (
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
-
-// BC is the boundary condition on one polygon side: Dirichlet (u = 0), or
-// Robin ∂u/∂n + αu = 0 with Alpha an enclosure of the exact α ≥ 0
-// (Neumann is Robin with Alpha = [0, 0]).
-type BC struct {
-	Dirichlet bool
-	Alpha     interval.I
-}
-
-func checkBC(m *mesh.Mesh, bc []BC) {
-	if len(bc) != m.NumCorners() {
-		panic("tri: one boundary condition per polygon side required")
-	}
-	for _, c := range bc {
-		if !c.Dirichlet && !(c.Alpha.Lo >= 0 && c.Alpha.IsBounded()) {
-			panic("tri: Robin coefficient must be a bounded enclosure of α ≥ 0")
-		}
-	}
-}
 
 // Lagrange is the conforming space of continuous piecewise polynomials of
 // degree p on a triangle mesh, in the Bernstein basis, with u = 0 exactly
@@ -54,19 +38,12 @@ func checkBC(m *mesh.Mesh, bc []BC) {
 type Lagrange struct {
 	mesh  *mesh.Mesh
 	p     int
-	bc    []BC
+	bc    []boundary.Condition
 	n     int
 	dofs  [][]int // per triangle, global index of each local multi-index (−1: removed)
 	robin []robinEdge
 	pairs [2][][2]int
 	ref   *refTables
-}
-
-// robinEdge is a boundary edge on a side with α ≠ 0.
-type robinEdge struct {
-	dofs   []int // global DOFs along the edge from A to B (−1: removed)
-	alpha  interval.I
-	length interval.I
 }
 
 // refTables holds the reference tables a space of degree p uses.
@@ -77,8 +54,8 @@ type refTables struct {
 
 // NewLagrange returns the degree-p space on m with bc[i] the condition on
 // polygon side i. It panics if p < 1, len(bc) is not the number of sides or
-// a Robin α is not a bounded enclosure ≥ 0.
-func NewLagrange(m *mesh.Mesh, p int, bc []BC) *Lagrange {
+// a condition is not valid (boundary.Condition.Check).
+func NewLagrange(m *mesh.Mesh, p int, bc []boundary.Condition) *Lagrange {
 	if p < 1 {
 		panic("tri: polynomial degree must be ≥ 1")
 	}
@@ -99,7 +76,7 @@ func NewLagrange(m *mesh.Mesh, p int, bc []BC) *Lagrange {
 		return nNodes + edgeOf[[2]int{a, b}]*nEdge + expB - 1
 	}
 	for _, be := range m.Bnd {
-		if !bc[be.Side].Dirichlet {
+		if !bc[be.Side].Essential() {
 			continue
 		}
 		removed[be.A], removed[be.B] = true, true
@@ -155,23 +132,15 @@ func NewLagrange(m *mesh.Mesh, p int, bc []BC) *Lagrange {
 		}
 		s.dofs[t] = d
 	}
-	// Robin edges: find each boundary edge A→B in its (counterclockwise) triangle.
-	owners := m.BoundaryOwners()
-	for k, be := range m.Bnd {
-		c := bc[be.Side]
-		if c.Dirichlet || c.Alpha.Hi == 0 {
-			continue
-		}
-		ti := owners[k]
-		t, i := ti[0], ti[1]
-		ja, jb := (i+1)%3, (i+2)%3
+	for _, e := range termEdges(m, bc, boundary.Condition.HasTerm) {
 		along := make([]int, p+1)
+		ja, jb := (e.i+1)%3, (e.i+2)%3
 		for k := 0; k <= p; k++ {
 			var a [3]int
 			a[ja], a[jb] = p-k, k
-			along[k] = s.dofs[t][ix.pos[a]]
+			along[k] = s.dofs[e.t][ix.pos[a]]
 		}
-		s.robin = append(s.robin, robinEdge{dofs: along, alpha: c.Alpha, length: m.Geom(t).EdgeLen[i]})
+		s.robin = append(s.robin, robinEdge{dofs: along, alpha: e.alpha, length: e.length})
 	}
 	return s
 }
@@ -226,7 +195,7 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		}
 	}
 	nv := len(vecs)
-	a, b := newAccum(nv), newAccum(nv)
+	a, b := ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
 	w := newRitzWork(s.p, v.q, nv)
 	for t := range s.mesh.Tris {
 		if !w.load(s, vecs, t) {
@@ -237,73 +206,27 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		if !rem.IsBounded() || !hull(bern).IsBounded() {
 			return nil, nil, errUnbounded
 		}
-		weightedGram(w.wg, bern, v.q, gamma.AddF(rem.Mid()), s.p)
+		bernstein.WeightedGram(w.wg, tripleTable(v.q, s.p, s.p).IV, bern, gamma.AddF(rem.Mid()), dim(s.p))
 		gg := gradGram(g.Grad)
 		w.derived(s, gg)
 		rrad := rem.Rad()
 		pp := float64(s.p * s.p)
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				mass := dotF(w.cf[j], w.gu[i])
-				st := dotI(w.d[j][0], w.h[i][0]).Add(dotI(w.d[j][1], w.h[i][1])).MulF(pp)
-				pot := dotF(w.cf[j], w.wu[i])
-				b.add(i, j, g.Area.Mul(mass))
+				mass := bernstein.DotF(w.cf[j], w.gu[i])
+				st := bernstein.DotI(w.d[j][0], w.h[i][0]).Add(bernstein.DotI(w.d[j][1], w.h[i][1])).MulF(pp)
+				pot := bernstein.DotF(w.cf[j], w.wu[i])
+				b.Add(i, j, g.Area.Mul(mass))
 				e := st.Add(pot)
-				if r := remainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
+				if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
 					e = e.Add(interval.I{Lo: -r, Hi: r})
 				}
-				a.add(i, j, g.Area.Mul(e))
+				a.Add(i, j, g.Area.Mul(e))
 			}
 		}
 	}
-	ge := s.ref.edgeGram.IV
-	p1 := s.p + 1
-	di := make([][]float64, nv)
-	for i := range di {
-		di[i] = make([]float64, p1)
-	}
-	gd := make([]interval.I, p1)
-	for _, re := range s.robin {
-		for i := 0; i < nv; i++ {
-			for k, g := range re.dofs {
-				di[i][k] = 0
-				if g >= 0 {
-					di[i][k] = vecs[i][g]
-				}
-			}
-		}
-		scale := re.alpha.Mul(re.length)
-		for i := 0; i < nv; i++ {
-			applyF(gd, ge, di[i])
-			for j := 0; j <= i; j++ {
-				a.add(i, j, scale.Mul(dotF(di[j], gd)))
-			}
-		}
-	}
-	return a.sym(), b.sym(), nil
-}
-
-// accum is a lower-triangular interval accumulator.
-type accum struct {
-	n int
-	v []interval.I
-}
-
-func newAccum(n int) *accum { return &accum{n: n, v: make([]interval.I, n*(n+1)/2)} }
-
-func (a *accum) add(i, j int, x interval.I) {
-	k := i*(i+1)/2 + j
-	a.v[k] = a.v[k].Add(x)
-}
-
-func (a *accum) sym() *enclose.Sym {
-	s := enclose.NewSym(a.n)
-	for i := 0; i < a.n; i++ {
-		for j := 0; j <= i; j++ {
-			s.Set(i, j, a.v[i*(i+1)/2+j])
-		}
-	}
-	return s
+	s.edgeTerms(a, vecs)
+	return a.Sym(), b.Sym(), nil
 }
 
 // ritzWork holds, for one triangle, the data of nv functions of degree p:
@@ -354,8 +277,8 @@ func (w *ritzWork) load(s *Lagrange, vecs [][]float64, t int) bool {
 		return false
 	}
 	for i := range vecs {
-		applyF(w.gu[i], w.gramP, w.cf[i])
-		w.mii[i] = dotF(w.cf[i], w.gu[i])
+		bernstein.ApplyF(w.gu[i], w.gramP, w.cf[i])
+		w.mii[i] = bernstein.DotF(w.cf[i], w.gu[i])
 	}
 	return true
 }
@@ -363,7 +286,7 @@ func (w *ritzWork) load(s *Lagrange, vecs [][]float64, t int) bool {
 // derived computes wu, d and h (after wg is set).
 func (w *ritzWork) derived(s *Lagrange, g [2][2]interval.I) {
 	for i := range w.cf {
-		applyF(w.wu[i], w.wg, w.cf[i])
+		bernstein.ApplyF(w.wu[i], w.wg, w.cf[i])
 		for k := 0; k < 2; k++ {
 			diffF(w.d[i][k], s.pairs[k], w.cf[i])
 		}
@@ -373,7 +296,7 @@ func (w *ritzWork) derived(s *Lagrange, g [2][2]interval.I) {
 			}
 		}
 		for l := 0; l < 2; l++ {
-			applyI(w.tmp, w.gramQ, w.d[i][l])
+			bernstein.ApplyI(w.tmp, w.gramQ, w.d[i][l])
 			for k := 0; k < 2; k++ {
 				for b, x := range w.tmp {
 					w.h[i][k][b] = w.h[i][k][b].Add(g[k][l].Mul(x))
@@ -433,22 +356,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *sparse.Sym
 			}
 		}
 	}
-	ge := s.ref.edgeGram.FL
-	p1 := s.p + 1
-	for _, re := range s.robin {
-		sc := re.alpha.Mid() * re.length.Mid()
-		for a := 0; a < p1; a++ {
-			if re.dofs[a] < 0 {
-				continue
-			}
-			for b := 0; b <= a; b++ {
-				if re.dofs[b] < 0 {
-					continue
-				}
-				kb.Add(re.dofs[a], re.dofs[b], sc*ge[a*p1+b])
-			}
-		}
-	}
+	s.edgeTermsApprox(kb)
 	return kb.Build(), mb.Build()
 }
 

@@ -38,7 +38,7 @@ func TestLongRandomTrapezoids(t *testing.T) {
 		for r := 0; r <= trial%2; r++ {
 			m = m.Refine()
 		}
-		bc := make([]BC, 4)
+		bc := allBC(4, neumann)
 		alpha := make([]*big.Rat, 4)
 		for side := range bc {
 			switch k := rng.IntN(3); {
@@ -47,7 +47,7 @@ func TestLongRandomTrapezoids(t *testing.T) {
 			case side%2 == 0 && k == 1:
 				al := big.NewRat(int64(rng.IntN(8)+1), 4)
 				f, _ := al.Float64()
-				bc[side], alpha[side] = BC{Alpha: interval.Point(f)}, al
+				bc[side], alpha[side] = robin(interval.Point(f)), al
 			}
 		}
 		checkRitzExact(t, m, bc, alpha, []int{1 + trial%4}, rng)

@@ -6,6 +6,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
@@ -17,7 +18,7 @@ var piI = interval.I{Lo: math.Pi, Hi: math.Nextafter(math.Pi, 4)}
 // (Rayleigh–Ritz in P_p with enclose.Eigenvalues) and a verified lower
 // bound (ECR or CR projection: λ_(h,k) ≥ σ′ from sparse.CountBelow, then
 // enclose.ProjectionLower), for V = 0 (γ = 0).
-func verifiedBounds(t *testing.T, m *mesh.Mesh, bc []BC, p, count int, enriched bool) (lower, upper []float64) {
+func verifiedBounds(t *testing.T, m *mesh.Mesh, bc []boundary.Condition, p, count int, enriched bool) (lower, upper []float64) {
 	t.Helper()
 	v := mustPotential(t, m, "0", 1)
 	s := NewLagrange(m, p, bc)
@@ -101,18 +102,18 @@ func TestVerifiedBoundsClosedForms(t *testing.T) {
 	cases := []struct {
 		name     string
 		mesh     func(*testing.T) *mesh.Mesh
-		bc       []BC
+		bc       []boundary.Condition
 		want     []interval.I
 		enriched bool
 		relWidth []float64 // demanded (upper − lower)/truth where truth > 0 (measured widths plus a quarter; stage A is O(h²))
 	}{
 		{"equilateral Dirichlet", func(t *testing.T) *mesh.Mesh { return equilateral(t, 3) }, allBC(3, dirichlet),
 			[]interval.I{c.MulF(3), c.MulF(7), c.MulF(7)}, true, []float64{0.10, 0.21, 0.21}},
-		{"equilateral Neumann", func(t *testing.T) *mesh.Mesh { return equilateral(t, 3) }, allBC(3, BC{}),
+		{"equilateral Neumann", func(t *testing.T) *mesh.Mesh { return equilateral(t, 3) }, allBC(3, neumann),
 			[]interval.I{{}, c, c}, true, []float64{0, 0.037, 0.037}},
-		{"square mixed, CR", square, []BC{{}, dirichlet, {}, dirichlet},
+		{"square mixed, CR", square, []boundary.Condition{neumann, dirichlet, neumann, dirichlet},
 			[]interval.I{pi2, pi2.MulF(2), pi2.MulF(4)}, false, []float64{0.041, 0.065, 0.15}},
-		{"square mixed, ECR", square, []BC{{}, dirichlet, {}, dirichlet},
+		{"square mixed, ECR", square, []boundary.Condition{neumann, dirichlet, neumann, dirichlet},
 			[]interval.I{pi2, pi2.MulF(2), pi2.MulF(4)}, true, []float64{0.041, 0.065, 0.15}},
 		{"L-shape Dirichlet", lshape, allBC(6, dirichlet),
 			[]interval.I{{Lo: 9.6397238 - 1e-6, Hi: 9.6397238 + 1e-6}}, true, []float64{0.14}},

@@ -9,6 +9,8 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
@@ -61,35 +63,29 @@ import (
 //	249 (2010) 118–135.
 type Projection struct {
 	mesh     *mesh.Mesh
-	bc       []BC
+	bc       []boundary.Condition
 	enriched bool
 	n        int
-	edgeDof  []int    // DOF of each mesh edge (−1: Dirichlet)
-	triEdges [][3]int // mesh edge opposite each local vertex
-	meanBase int      // ECR: DOF of the mean of triangle t is meanBase + t
-	robin    []cRobin // boundary edges with α ≠ 0
-}
-
-type cRobin struct {
-	dof    int
-	alpha  interval.I
-	length interval.I
+	edgeDof  []int            // DOF of each mesh edge (−1: Dirichlet)
+	triEdges [][3]int         // mesh edge opposite each local vertex
+	meanBase int              // ECR: DOF of the mean of triangle t is meanBase + t
+	robin    []projectionEdge // boundary edges with α ≠ 0
 }
 
 // NewCR returns the Crouzeix–Raviart space (piecewise P1, DOFs the edge
 // means; basis φ_e = 1 − 2λ_i on a triangle whose edge e is opposite local
 // vertex i, so m_e'(φ_e) = δ_ee'). See Matrices for the form it carries,
 // which is sharp when V is constant.
-func NewCR(m *mesh.Mesh, bc []BC) *Projection { return newProjection(m, bc, false) }
+func NewCR(m *mesh.Mesh, bc []boundary.Condition) *Projection { return newProjection(m, bc, false) }
 
 // NewECR returns the enriched Crouzeix–Raviart space ECR(T) = P1 +
 // span{x² + y²} (Hu–Huang–Lin 2014), DOFs the three edge means and the
 // element mean. The local basis is built per triangle in physical
 // coordinates (see ecrBasis; x² + y² is not preserved by non-orthogonal
 // affine maps, so there is no single reference basis).
-func NewECR(m *mesh.Mesh, bc []BC) *Projection { return newProjection(m, bc, true) }
+func NewECR(m *mesh.Mesh, bc []boundary.Condition) *Projection { return newProjection(m, bc, true) }
 
-func newProjection(m *mesh.Mesh, bc []BC, enriched bool) *Projection {
+func newProjection(m *mesh.Mesh, bc []boundary.Condition, enriched bool) *Projection {
 	checkBC(m, bc)
 	edges, triEdges := m.Edges()
 	edgeOf := make(map[[2]int]int, len(edges))
@@ -99,7 +95,7 @@ func newProjection(m *mesh.Mesh, bc []BC, enriched bool) *Projection {
 	s := &Projection{mesh: m, bc: bc, enriched: enriched, edgeDof: make([]int, len(edges)), triEdges: triEdges}
 	dirichlet := make([]bool, len(edges))
 	for _, be := range m.Bnd {
-		if bc[be.Side].Dirichlet {
+		if bc[be.Side].Essential() {
 			dirichlet[edgeOf[[2]int{min(be.A, be.B), max(be.A, be.B)}]] = true
 		}
 	}
@@ -114,14 +110,8 @@ func newProjection(m *mesh.Mesh, bc []BC, enriched bool) *Projection {
 		s.meanBase = s.n
 		s.n += len(m.Tris)
 	}
-	owners := m.BoundaryOwners()
-	for k, be := range m.Bnd {
-		c := bc[be.Side]
-		if c.Dirichlet || c.Alpha.Hi == 0 {
-			continue
-		}
-		ti := owners[k]
-		s.robin = append(s.robin, cRobin{dof: s.edgeDof[triEdges[ti[0]][ti[1]]], alpha: c.Alpha, length: m.Geom(ti[0]).EdgeLen[ti[1]]})
+	for _, e := range termEdges(m, bc, boundary.Condition.HasTerm) {
+		s.robin = append(s.robin, projectionEdge{dof: s.edgeDof[triEdges[e.t][e.i]], alpha: e.alpha, length: e.length})
 	}
 	return s
 }
@@ -294,9 +284,9 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 			w := [4]float64{1, 1, 1, -3}
 			var tmp [6]interval.I
 			for i := 0; i < 4; i++ {
-				applyI(tmp[:], gram, phi[i][:])
+				bernstein.ApplyI(tmp[:], gram, phi[i][:])
 				for j := 0; j <= i; j++ {
-					mt[i][j] = g.Area.Mul(dotI(phi[j][:], tmp[:]))
+					mt[i][j] = g.Area.Mul(bernstein.DotI(phi[j][:], tmp[:]))
 					mt[j][i] = mt[i][j]
 					if d[i] < 0 || d[j] < 0 {
 						continue
@@ -343,11 +333,7 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 			}
 		}
 	}
-	for _, r := range s.robin {
-		if r.dof >= 0 {
-			kb.Add(r.dof, r.dof, r.alpha.Mul(r.length))
-		}
-	}
+	s.edgeTerms(kb)
 	k, mass = kb.Build(), mb.Build()
 	structured := math.Inf(1)
 	for _, x := range diag {

@@ -67,7 +67,7 @@ func TestCRUnitSquareDirichlet(t *testing.T) {
 // unit square, where every triangle has area 2^(−2lev−1).
 func TestCRMassDiagonal(t *testing.T) {
 	m := unitSquare(t, 2)
-	s := NewCR(m, allBC(4, BC{}))
+	s := NewCR(m, allBC(4, neumann))
 	v := mustPotential(t, m, "0", 1)
 	_, mass, mMin, err := s.Matrices(v, interval.I{})
 	if err != nil {
