@@ -70,6 +70,61 @@ type Results struct {
 	Diameter       Bound             `json:"diameter"`
 	GapD2OverPi2   Bound             `json:"gap_d2_over_pi2"`
 	RelativeWidths map[string]string `json:"relative_widths"`
+	GroundState    *GroundState      `json:"ground_state,omitempty"`
+}
+
+// GroundState is what a certificate proves about the ground state u of the
+// problem (results.ground_state, present when it was asked for). Values of
+// u enclose the multiple named by Normalization.
+type GroundState struct {
+	// Normalization names the multiple of the ground state that Points
+	// and the witness's values enclose (NormalizationL2).
+	Normalization string `json:"normalization"`
+	// L2Error is an upper bound of ‖ũ − P₁ũ‖/‖ũ‖ for the approximate
+	// ground state ũ of the certified step (its first Ritz vector), ""
+	// when λ1 is not shown to be separated from λ2.
+	L2Error string `json:"l2_error_upper,omitempty"`
+	// LogConcavity is Proven, Disproven (with Witness) or Undecided.
+	LogConcavity string `json:"log_concavity"`
+	// Reason says what the verdict rests on, or why it is undecided.
+	Reason  string        `json:"reason"`
+	Witness *ShapeWitness `json:"witness,omitempty"`
+	// Margin encloses the best candidate's margin when the verdict is
+	// undecided (a positive lower end would have been a witness).
+	Margin *Bound       `json:"margin,omitempty"`
+	Points []PointValue `json:"points,omitempty"`
+}
+
+// NormalizationL2 is the ground state u > 0 with ∫u² = 1.
+const NormalizationL2 = "positive, unit L2 norm"
+
+// ShapeWitness is a certified failure of log-concavity of the ground state.
+//
+// Kind WitnessConvexInterval (intervals): Points holds the ends [lo, hi] of
+// an interval on which (log u)″ > 0; Values[0] encloses
+// g = (V − λ1)u² − u′² there, and Margin encloses g's lower end.
+//
+// Kind WitnessMidpoint (polygons): Points holds x, y and m = (x + y)/2;
+// Values u(x), u(y), u(m); Margin encloses u(x)u(y) − u(m)², whose lower
+// end is positive, so log u(m) < (log u(x) + log u(y))/2.
+type ShapeWitness struct {
+	Kind   string     `json:"kind"`
+	Points [][]string `json:"points"`
+	Values []Bound    `json:"values"`
+	Margin Bound      `json:"margin"`
+}
+
+// Kinds of a ShapeWitness.
+const (
+	WitnessConvexInterval = "convex_interval"
+	WitnessMidpoint       = "midpoint_triple"
+)
+
+// PointValue is an enclosure of u at a point given in the problem (its
+// exact coordinates as written there).
+type PointValue struct {
+	At    []string `json:"at"`
+	Value Bound    `json:"value"`
 }
 
 // Verdicts of a claim.
@@ -99,7 +154,8 @@ type ClaimResult struct {
 	Reference  *Reference   `json:"reference,omitempty"`
 }
 
-// Verdicts of a hypothesis (besides Undecided).
+// Verdicts of a hypothesis and of a ground state's log-concavity (besides
+// Undecided).
 const (
 	Proven    = "proven"
 	Disproven = "disproven"
