@@ -38,6 +38,19 @@ func SliceLower(lower []float64, from, n int, sigmaPrime float64) {
 // bound (enclose.ProjectionLower; package enclose, Projection bounds). As
 // g(c) = c + f(lh − c) increases in c (f′ ≤ 1), any 0 ≤ c ≤ the form's
 // constant is sound, and c = 0 is the plain bound f(Λ_h).
+//
+// Indices beyond the dimension n of the stage-A space (the interval
+// discretisation meets them with a recorded recipe of one to three
+// stage-A cells; polygons refuse such spaces): the pencil has no λ_{h,k}
+// for k > n, and a verified count shows at most n ≤ k − 1 eigenvalues
+// below every shift, so CountLower and SliceLower give any σ′ (the
+// convention λ_{h,k} = +∞), and the result c + f(σ′ − c) < c + 1/C² is
+// still a lower bound of Λ_k: P_h maps onto an n-dimensional space, so its
+// kernel has codimension ≤ n, and there (H3) gives
+// ‖u‖ ≤ C_h ‖u‖_{a_h} (a_h without the constant c), so by the max–min
+// form of the min–max principle (Courant–Hilbert, above) the (n + 1)-th
+// eigenvalue of that form is ≥ 1/C_h², and Λ_k ≥ c + 1/C_h² for k > n
+// (the same step as for k ≤ n, V + γ ≥ c).
 func ProjectionLower(lh, c float64, ch interval.I) float64 {
 	if c == 0 {
 		return enclose.ProjectionLower(lh, ch)
