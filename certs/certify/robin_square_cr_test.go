@@ -31,12 +31,12 @@ func robin1D(alpha float64) (float64, float64) {
 	return 4 * even * even, 4 * odd * odd
 }
 
-// TestReviewRobinSquareCR certifies −Δu + 7u on the unit square with
+// TestRobinSquareCR certifies −Δu + 7u on the unit square with
 // Robin α on every side (constant V, no Neumann side: the plain
 // Crouzeix–Raviart stage A with its form constant c), where λ2 = λ3 is a
 // double eigenvalue, against the sums of the 1D Robin eigenvalues, and
 // the same with robin 0 on one pair of opposite sides (enriched space).
-func TestReviewRobinSquareCR(t *testing.T) {
+func TestRobinSquareCR(t *testing.T) {
 	sq := `[["0","0"],["1","0"],["1","1"],["0","1"]]`
 	for _, alpha := range []string{"1", "30"} {
 		a := map[string]float64{"1": 1, "30": 30}[alpha]

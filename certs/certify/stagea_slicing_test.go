@@ -32,12 +32,12 @@ func (f *fakeStageA) ProjectionConstant() interval.I            { return interva
 func (f *fakeStageA) FormShift() float64                        { return 0 }
 func (f *fakeStageA) Locate(i int, lo float64) (float64, error) { return f.eig[i-1], nil }
 
-// TestReviewStageALowerNeverAbove checks the stage-A search with spectrum
+// TestStageALowerNeverAbove checks the stage-A search with spectrum
 // slicing on random spectra with clusters (repeated eigenvalues, as on a
 // square) and breakdowns: every returned bound of λ_{h,j} must be ≤ λ_{h,j}.
 // The Ritz bounds given to the slicing are deliberately poor estimates
 // (they only place shifts).
-func TestReviewStageALowerNeverAbove(t *testing.T) {
+func TestStageALowerNeverAbove(t *testing.T) {
 	rng := rand.New(rand.NewSource(11))
 	for trial := 0; trial < 300; trial++ {
 		count := 3 + rng.Intn(80)

@@ -22,7 +22,7 @@ import (
 // piSq returns an enclosure of (cπ)² for an exact float c.
 func piSq(c float64) interval.I { return interval.Pi().MulF(c).Sqr() }
 
-func TestReviewRobinZeroInterval(t *testing.T) {
+func TestRobinZeroInterval(t *testing.T) {
 	for _, tc := range []struct {
 		bc, potential string
 		truth         []interval.I
@@ -45,7 +45,7 @@ func TestReviewRobinZeroInterval(t *testing.T) {
 	}
 }
 
-func TestReviewMixedSquare(t *testing.T) {
+func TestMixedSquare(t *testing.T) {
 	sq := `[["0","0"],["1","0"],["1","1"],["0","1"]]`
 	for _, tc := range []struct {
 		sides     []string // bottom, right, top, left

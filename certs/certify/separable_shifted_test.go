@@ -8,7 +8,7 @@ import (
 	"gapcert/interval"
 )
 
-// TestReviewSeparableShifted compares the polygon pipeline with the
+// TestSeparableShifted compares the polygon pipeline with the
 // interval pipeline on separable problems: on the unit square with
 // V(x, y) = W(x), the eigenvalues are the sorted sums μ_i + ν_j of the
 // eigenvalues μ_i of −u″ + Wu on (0, 1) and ν_j of −u″ on (0, 1) with the
@@ -17,7 +17,7 @@ import (
 // γ_B ≠ γ (the potential oscillates); μ_2 + π² and μ_1 + 4π² lie within
 // about 0.1 of each other (a near cluster at λ2, λ3). Both enclosures of
 // each eigenvalue are true, so they must intersect.
-func TestReviewSeparableShifted(t *testing.T) {
+func TestSeparableShifted(t *testing.T) {
 	for _, tc := range []struct {
 		w        string
 		x, y     [2]string // conditions at x = 0, 1 and y = 0, 1

@@ -2,11 +2,11 @@ package certify
 
 import "testing"
 
-// TestReviewSmallStageASpace computes with stage-A spaces smaller than
+// TestSmallStageASpace computes with stage-A spaces smaller than
 // the number of bounded eigenvalues (a recipe a certificate may record:
 // stage_a_cells 1 or 2): every lower bound of Λ_k must stay ≤ the exact
 // Λ_k = (kπ)² + γ of −u″ on (0, 1) with Dirichlet ends (common practice).
-func TestReviewSmallStageASpace(t *testing.T) {
+func TestSmallStageASpace(t *testing.T) {
 	p := parseProblem(t, `{"domain":{"interval":["0","1"]},"potential":"0","boundary":["dirichlet","dirichlet"],"eigenvalues":2}`)
 	for _, cells := range []int{1, 2, 3} {
 		r, err := initialRecipe(p)

@@ -48,12 +48,12 @@ func shootDirichlet(v func(float64) float64, x0 float64, k int, lo, hi float64) 
 	return (lo + hi) / 2
 }
 
-// TestReviewKinkedPotential certifies −u″ + Vu on (0, 1), Dirichlet, for
+// TestKinkedPotential certifies −u″ + Vu on (0, 1), Dirichlet, for
 // potentials with a kink at an exact float (a mesh node) and at 1/3 (not
 // a float: the cell holding it gets a range model), and requires every
 // enclosure of λ1..λ3 to contain the shooting reference up to its own
 // accuracy (1e-9 relative) and to be narrow.
-func TestReviewKinkedPotential(t *testing.T) {
+func TestKinkedPotential(t *testing.T) {
 	abs := func(x float64) float64 {
 		if x < 0 {
 			return -x
