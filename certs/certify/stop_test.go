@@ -343,17 +343,16 @@ func TestStopReasonsLong(t *testing.T) {
 // published tests, which agree with them).
 func TestStopAtFloatResolution(t *testing.T) {
 	p := parseProblem(t, `{"domain":{"interval":["-2","2"]},"potential":"x^2","boundary":"dirichlet","eigenvalues":2}`)
-	start := time.Now()
-	c, err := Certify(context.Background(), p, Options{RelWidth: MinRelWidth, TimeLimit: time.Minute})
+	c, err := Certify(context.Background(), p, Options{RelWidth: MinRelWidth, TimeLimit: ampleLimit})
 	if err != nil {
 		t.Fatal(err)
 	}
+	// With a time limit far above the run's needs (it stalls after 5 steps,
+	// 0.2 s measured), a run that did not detect the stall would end at
+	// the refinement cap or the time limit, not here.
 	ref, _ := RefinementOf(c)
 	if ref.StopReason != StopStalled {
 		t.Errorf("stopped: %q, want %q", ref.StopReason, StopStalled)
-	}
-	if d := time.Since(start); d > 20*time.Second {
-		t.Errorf("took %v", d)
 	}
 	joined := strings.Join(c.Warnings, "\n")
 	if !strings.Contains(joined, "the widths stalled: steps ") || !strings.Contains(joined, "stopped: widths stalled") {
