@@ -35,15 +35,16 @@ func bigDecimal(t *testing.T, s string) *big.Float {
 // [−15920, 15979]).
 //
 // No run is stopped by the time limit. The λ widths (about 1 ulp) are
-// reached at the first step, where the gap, relative to its own size
-// (3π² or π²), is about 1e8 (1e12) times wider; so each run asks for the
-// gap's width at which its λ widths are at most maxWidth (the gap's
-// absolute width is the sum of theirs) and reaches it at the first step:
-// for c = 1e8, 3e-9·3π² ≤ 1e-15·1e8. Asking for 1e-15 would refine to
-// the cap (about 4 s per case, measured) without narrowing anything. The
-// stage-A case c = 1e15 never separates its eigenvalues (gap 67 at best),
-// so its run is ended at the first step with λ widths below maxWidth
-// (step 4, about 1 s; stage A alone runs to the cap in about 20 s).
+// reached at the first step, where the gap's width relative to its own
+// size (3π², or π² for Neumann ends) is larger by about |λ|/gap (3·10⁶
+// for c = 1e8); so each run asks for the gap width at which its λ widths
+// are at most maxWidth (the gap's absolute width is the sum of theirs),
+// and reaches it at the first step: for c = 1e8, 3e-9·3π² ≤ 1e-15·1e8.
+// Asking for 1e-15 would refine to the cap (about 4 s per case,
+// measured) without narrowing anything. The stage-A case c = 1e15 never
+// separates its eigenvalues (relative gap width 67 at best), so its run
+// is ended at the first step with λ widths below maxWidth (certifyUntil:
+// step 4, about 1 s; stage A alone runs to its cap in about 20 s).
 func TestConstantPotentialShifts(t *testing.T) {
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for _, tc := range []struct {
