@@ -15,15 +15,15 @@ import (
 	"gapcert/interval"
 )
 
-// certifyClaims certifies src at relWidth with a fixed time and returns the
-// certificate as written and as read back.
+// certifyClaims certifies src at relWidth with a fixed time and the ample
+// time limit and returns the certificate as written and as read back.
 func certifyClaims(t *testing.T, src string, relWidth float64) ([]byte, *certs.Certificate) {
 	t.Helper()
 	p, err := problem.Parse([]byte(src))
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), Now: fixedTime, Tool: "gapcert test"})
+	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit, Now: fixedTime, Tool: "gapcert test"})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}

@@ -1,37 +1,17 @@
 package certify
 
 import (
-	"context"
 	"fmt"
 	"math"
 	"math/big"
-	"strconv"
 	"testing"
-	"time"
 
 	"gapcert/certs"
-	"gapcert/fem/problem"
 )
 
 // Adversarial tests of the shift γ (of either sign) and of potentials with
 // kinks, each against a reference computed independently of the finite
 // elements.
-
-// certifyWithBudget is certifyText with a time budget (the bounds are
-// verified whatever the budget; the tests below check containment, and
-// narrowness where the budget allows it).
-func certifyWithBudget(t *testing.T, src string, relWidth float64, limit time.Duration) (*problem.Problem, *certs.Certificate) {
-	t.Helper()
-	p, err := problem.Parse([]byte(src))
-	if err != nil {
-		t.Fatalf("problem %s: %v", src, err)
-	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: strconv.FormatFloat(relWidth, 'g', -1, 64), TimeLimit: limit})
-	if err != nil {
-		t.Fatalf("certify %s: %v", src, err)
-	}
-	return p, c
-}
 
 // bigDecimal is the exact decimal s as a seriesPrec-bit big.Float.
 func bigDecimal(t *testing.T, s string) *big.Float {
@@ -53,25 +33,42 @@ func bigDecimal(t *testing.T, s string) *big.Float {
 // c = 1e15 the rounded shift leaves V + γ ≈ 1.3e7, and only the stage-A
 // bounds remain: measured λ widths ≈ 1.6e4, relative 1.6e-11, and gap
 // [−15920, 15979]).
+//
+// No run is stopped by the time limit. The λ widths (about 1 ulp) are
+// reached at the first step, where the gap's width relative to its own
+// size (3π², or π² for Neumann ends) is larger by about |λ|/gap (3·10⁶
+// for c = 1e8); so each run asks for the gap width at which its λ widths
+// are at most maxWidth (the gap's absolute width is the sum of theirs),
+// and reaches it at the first step: for c = 1e8, 3e-9·3π² ≤ 1e-15·1e8.
+// Asking for 1e-15 would refine to the cap (about 4 s per case,
+// measured) without narrowing anything. The stage-A case c = 1e15 never
+// separates its eigenvalues (relative gap width 67 at best), so its run
+// is ended at the first step with λ widths below maxWidth (certifyUntil:
+// step 4, about 1 s; stage A alone runs to its cap in about 20 s).
 func TestConstantPotentialShifts(t *testing.T) {
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for _, tc := range []struct {
 		c, bc    string
+		target   float64 // the run's target, met at the first step (0: stage A, see above)
 		maxWidth float64 // of λ_1, λ_2 relative to max(|λ|, π²)
-		budget   time.Duration
 	}{
-		{"1e8", "dirichlet", 1e-15, time.Second},
-		{"1e8", "neumann", 1e-15, time.Second},
-		{"1e12", "dirichlet", 1e-15, time.Second},
-		// Stage A alone: its width shrinks with the time spent (1.6e-11
-		// after 1 s on an idle machine, 2.5e-10 on a loaded one), so this
-		// case gets a longer budget.
-		{"1e15", "dirichlet", 1e-10, 5 * time.Second},
-		{"-1e8", "dirichlet", 1e-15, time.Second},
-		{"123456789.123456789", "dirichlet", 1e-15, time.Second},
+		{"1e8", "dirichlet", 3e-9, 1e-15},
+		{"1e8", "neumann", 1e-8, 1e-15},
+		{"1e12", "dirichlet", 3e-5, 1e-15},
+		{"1e15", "dirichlet", 0, 1e-10},
+		{"-1e8", "dirichlet", 3e-9, 1e-15},
+		{"123456789.123456789", "dirichlet", 4e-9, 1e-15},
 	} {
 		src := fmt.Sprintf(`{"domain":{"interval":["0","1"]},"potential":"%s","boundary":"%s","eigenvalues":2}`, tc.c, tc.bc)
-		_, cert := certifyWithBudget(t, src, 1e-15, tc.budget)
+		var cert *certs.Certificate
+		if tc.target == 0 {
+			_, cert = certifyUntil(t, src, 1e-15, func(_ int, w1, w2 float64) bool { return w1 <= tc.maxWidth && w2 <= tc.maxWidth })
+		} else {
+			_, cert = certifyText(t, src, tc.target)
+			if ref, err := RefinementOf(cert); err != nil || ref.StopReason != StopTarget {
+				t.Errorf("%s %s: stopped: %v (%v), want the target reached at the first step", tc.c, tc.bc, ref, err)
+			}
+		}
 		c := bigDecimal(t, tc.c)
 		for k := 1; k <= 2; k++ {
 			m := float64(k * k)
@@ -111,8 +108,15 @@ func decodeMethodInto(c *certs.Certificate, m *Method) error {
 // Dirichlet (stage A on the plain Crouzeix–Raviart space, with its
 // constant shift c = min_T (V + γ)): λ = 1e12 + π²(m² + n²) (separation
 // of variables, common practice), so λ_1 = 1e12 + 2π², λ_2 = 1e12 + 5π².
+// The target 3e-4 is the gap's width (relative to 3π²) at which the λ
+// widths are at most 1e-14 of 1e12 (3e-4·3π² ≤ 1e-2); the run reaches it
+// at step 3 (gap 8.2e-6, λ 1.2e-16; about 1 s measured), where a target
+// of 1e-14 would refine on for minutes without narrowing λ.
 func TestConstantPotentialSquare(t *testing.T) {
-	_, cert := certifyWithBudget(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"1e12","boundary":"dirichlet","eigenvalues":2}`, 1e-14, 3*time.Second)
+	_, cert := certifyText(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"1e12","boundary":"dirichlet","eigenvalues":2}`, 3e-4)
+	if ref, err := RefinementOf(cert); err != nil || ref.StopReason != StopTarget {
+		t.Errorf("stopped: %v (%v), want the target reached", ref, err)
+	}
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for k, m := range []float64{2, 5} {
 		truth := new(big.Float).SetPrec(seriesPrec).Mul(pi2, bigF(m))
@@ -127,15 +131,15 @@ func TestConstantPotentialSquare(t *testing.T) {
 // lies inside a cell (range model there), and the shift is negative.
 // Reference: λ_k = 1e8 + μ_k with μ_k those of |x − 1/3| by series
 // shooting (kinkReference); V − 1e8 ∈ [0, 2/3] brackets μ_k in
-// [k²π², k²π² + 2/3]. The budget is far above what the run needs (it
-// ends at the refinement cap in a few seconds unloaded), so that the
-// narrowness checked does not depend on the machine's load.
+// [k²π², k²π² + 2/3]. The run ends at the refinement cap (about 5 s
+// measured) well inside the ample time limit, so the narrowness checked
+// does not depend on the machine's load.
 func TestShiftedKinkInsideCell(t *testing.T) {
 	third := new(big.Float).SetPrec(seriesPrec).Quo(bigF(1), bigF(3))
 	twoThirds := new(big.Float).SetPrec(seriesPrec).Quo(bigF(2), bigF(3))
 	q := math.Pi * math.Pi
 	mu := [2]*big.Float{kinkReference(t, third, twoThirds, q-1e-9, q+2.0/3), kinkReference(t, third, twoThirds, 4*q-1e-9, 4*q+2.0/3)}
-	_, cert := certifyWithBudget(t, `{"domain":{"interval":["0","1"]},"potential":"1e8 + abs(x - 1/3)","boundary":"dirichlet","eigenvalues":2}`, 1e-14, 60*time.Second)
+	_, cert := certifyText(t, `{"domain":{"interval":["0","1"]},"potential":"1e8 + abs(x - 1/3)","boundary":"dirichlet","eigenvalues":2}`, 1e-14)
 	for k := 1; k <= 2; k++ {
 		truth := new(big.Float).SetPrec(seriesPrec).Add(bigF(1e8), mu[k-1])
 		requireContains(t, fmt.Sprintf("lambda%d", k), eigenEnclosure(t, cert, k), truth, q, 1e-13)
@@ -215,10 +219,11 @@ func diamondReference(t *testing.T, c float64) [2]*big.Float {
 // decided on each triangle itself); c = 1/10 makes it cross triangles on
 // every uniform refinement (range models there; 1/8 would lie on mesh
 // lines from the fourth level on). Also with 1e8 added (negative shift).
-// Measured widths: 1.7e-3 for c = 0 (the Taylor remainder of the weight
-// 1/(V + γ) with V + γ ≥ 2.47 on 8 trial triangles limits stage B within
-// this budget; with 1e8 added the rounded shift leaves V + γ ≥ 8 and the
-// widths fall to 1e-8), 6e-3 for c = 1/10.
+// Each run ends by reaching its target (within 1 s, measured), where the
+// widths are: 1.7e-3 for c = 0 (the Taylor remainder of the weight
+// 1/(V + γ) with V + γ ≥ 2.47 on 8 trial triangles limits stage B at that
+// step; with 1e8 added the rounded shift leaves V + γ ≥ 8 and the widths
+// fall to 1e-8), 6e-3 for c = 1/10.
 func TestDiamondKinks(t *testing.T) {
 	scale := math.Pi * math.Pi / 4 // π²/D², D = 2
 	for _, tc := range []struct {
@@ -234,7 +239,7 @@ func TestDiamondKinks(t *testing.T) {
 	} {
 		ref := diamondReference(t, tc.c)
 		src := fmt.Sprintf(`{"domain":{"polygon":[["1","0"],["0","1"],["-1","0"],["0","-1"]]},"potential":"%s","boundary":"dirichlet","eigenvalues":2}`, tc.pot)
-		_, cert := certifyWithBudget(t, src, tc.target, 3*time.Second)
+		_, cert := certifyText(t, src, tc.target)
 		for k := 1; k <= 2; k++ {
 			truth := new(big.Float).SetPrec(seriesPrec).Add(ref[k-1], bigF(tc.offset))
 			got := eigenEnclosure(t, cert, k)
@@ -263,7 +268,7 @@ func TestConstantPotentialEquilateral(t *testing.T) {
 	pi2 := new(big.Float).SetPrec(seriesPrec).Mul(bigPi(), bigPi())
 	for _, c := range []string{"0", "1e8"} {
 		src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],["1","0"],["1/2","sqrt(3)/2"]]},"potential":"%s","boundary":"dirichlet","eigenvalues":2}`, c)
-		_, cert := certifyWithBudget(t, src, 1e-6, 3*time.Second)
+		_, cert := certifyText(t, src, 1e-6)
 		for k, m := range []int64{3, 7} {
 			truth := new(big.Float).SetPrec(seriesPrec).Mul(pi2, big.NewFloat(float64(16*m)))
 			truth.Quo(truth, bigF(9))

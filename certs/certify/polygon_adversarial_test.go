@@ -32,25 +32,34 @@ import (
 // monotonicity in the boundary condition and, for Dirichlet conditions, in
 // the domain).
 
-// polygonLimit is the refinement budget of one adversarial polygon.
-const polygonLimit = 5 * time.Second
-
 // longPolygons reports whether the opt-in long campaign runs.
 func longPolygons() bool { return os.Getenv("GAPCERT_LONG") == "1" }
 
-// certifyPolygon parses and certifies src with a target and a budget and
-// returns the problem, the certificate and the enclosures of λ1..λm.
-func certifyPolygon(t *testing.T, src string, relWidth float64, limit time.Duration) (*problem.Problem, *certs.Certificate, []interval.I) {
+// certifyPolygon parses and certifies src with a target and the ample time
+// limit and returns the problem, the certificate and the enclosures of
+// λ1..λm. The adversarial polygons end by reaching their targets (within
+// 1.5 s each, measured on two shared cores), so the widths checked do not
+// depend on the machine's load.
+func certifyPolygon(t *testing.T, src string, relWidth float64) (*problem.Problem, *certs.Certificate, []interval.I) {
 	t.Helper()
-	p, err := problem.Parse([]byte(src))
-	if err != nil {
-		t.Fatalf("problem %s: %v", src, err)
-	}
 	start := time.Now()
-	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: limit})
-	if err != nil {
-		t.Fatalf("certify %s: %v", src, err)
-	}
+	p, c := certifyText(t, src, relWidth)
+	return p, c, polygonEnclosures(t, src, c, start)
+}
+
+// certifyPolygonFirstStep is certifyPolygon ended after its first step
+// (certifyUntil), for polygons whose target is minutes away.
+func certifyPolygonFirstStep(t *testing.T, src string, relWidth float64) (*problem.Problem, *certs.Certificate, []interval.I) {
+	t.Helper()
+	start := time.Now()
+	p, c := certifyUntil(t, src, relWidth, func(step int, _, _ float64) bool { return step >= 1 })
+	return p, c, polygonEnclosures(t, src, c, start)
+}
+
+// polygonEnclosures returns the enclosures of λ1..λm of c (certified from
+// src since start, which is logged with the widths in verbose runs).
+func polygonEnclosures(t *testing.T, src string, c *certs.Certificate, start time.Time) []interval.I {
+	t.Helper()
 	if testing.Verbose() {
 		t.Logf("%s: %.2fs, widths %v", src, time.Since(start).Seconds(), c.Results.RelativeWidths)
 	}
@@ -58,7 +67,7 @@ func certifyPolygon(t *testing.T, src string, relWidth float64, limit time.Durat
 	for k := range c.Results.Eigenvalues {
 		lambda = append(lambda, eigenEnclosure(t, c, k+1))
 	}
-	return p, c, lambda
+	return lambda
 }
 
 // polygonText is the problem text of the polygon verts (JSON) with the
@@ -86,16 +95,17 @@ func bigGap(truth []*big.Float) *big.Float {
 // 10⁻³) and huge (10³), far from the origin, listed clockwise, rotated by
 // the irrational angle of 1 radian; the potentials are ±10⁶ and the Robin
 // parameters 10⁻⁹ and 10⁹. Every enclosure must contain the truth and,
-// except in the two cases marked loose, reach relative width 2·10⁻²
-// (λ_k) and 4·10⁻² (gap) within the budget, twice to four times the
-// requested 10⁻² (one refinement level less than the loop stops at).
+// except in the cases marked loose, reach relative width 2·10⁻² (λ_k)
+// and 4·10⁻² (gap); each of these runs ends by reaching the requested
+// 10⁻² (within 1 s each, measured on two shared cores).
 //
 // The loose cases, where only containment and a positive lower end are
-// demanded: the 50:1 Dirichlet rectangle (its triangles keep aspect 50
-// under red refinement and the projection constant grows with the longest
-// edge: relative width 0.53 after 3 s), and V ≡ 10⁶ (the shift makes
-// Λ_h ≈ 10⁶, and λ_h/(1 + C_h²λ_h) is then far below λ_h: the lower end
-// of λ1 was 2.4·10⁴ after 5 s, for λ1 = 10⁶ + 2π²). With V ≡ −10⁶ the
+// demanded, take their first step only (certifyPolygonFirstStep): the
+// 50:1 Dirichlet rectangle (its triangles keep aspect 50 under red
+// refinement and the projection constant grows with the longest edge:
+// relative width 0.02 after the first step, and the target is met only at
+// the fourth, after about 20 s), and in the long campaign V ≡ 10⁶ with
+// Neumann sides and the huge rectangle with α = 10⁹. With V ≡ −10⁶ the
 // λ_k are narrow relative to their size 10⁶ but the gap is not demanded
 // narrow: the shift γ is rounded up to a multiple of 512 there, which
 // puts V + γ ≈ 450 and Λ_h ≈ 470 for λ ≈ −10⁶ + 20, and the same loss
@@ -124,7 +134,7 @@ func TestPolygonAdversarialRectangles(t *testing.T) {
 		{"huge", rect("1000", "1500"), "1000", "1500", "0", [4]end{n, r("1/400"), d, n}, ccw, false, false},
 		{"far away", `[["1000","-1000"],["1001","-1000"],["1001","-999"],["1000","-999"]]`, "1", "1", "0",
 			[4]end{r("3"), d, n, r("1/2")}, ccw, false, false},
-		{"V = 10^6", rect("1", "1"), "1", "1", "1000000", [4]end{d, d, d, d}, ccw, true, false},
+		{"V = 10^6", rect("1", "1"), "1", "1", "1000000", [4]end{d, d, d, d}, ccw, false, false},
 		{"V = -10^6", rect("1", "1"), "1", "1", "-1000000", [4]end{d, r("1"), d, n}, ccw, false, true},
 		{"Robin 1e-9", rect("1", "1"), "1", "1", "0", [4]end{r("1e-9"), r("1e-9"), r("1e-9"), r("1e-9")}, ccw, false, false},
 		{"Robin 1e-9 and 1e9", rect("2", "1"), "2", "1", "0", [4]end{r("1e-9"), r("1e9"), r("1e9"), r("1e-9")}, ccw, false, false},
@@ -156,11 +166,11 @@ func TestPolygonAdversarialRectangles(t *testing.T) {
 			fileSides = append(fileSides, sideJSON(c.sides[c.order[i]]))
 		}
 		src := polygonText(c.verts, c.c, fileSides, 3)
-		limit := polygonLimit
+		certify := certifyPolygon
 		if c.loose {
-			limit = polygonLimit / 2
+			certify = certifyPolygonFirstStep
 		}
-		p, cert, lambda := certifyPolygon(t, src, 1e-2, limit)
+		p, cert, lambda := certify(t, src, 1e-2)
 		truth := rectangleEigenvalues(c.a, c.b, c.sides, 3)
 		for _, x := range truth {
 			x.Add(x, bigDec(c.c))
@@ -241,7 +251,7 @@ func TestPolygonAdversarialTriangles(t *testing.T) {
 		)
 	}
 	for _, c := range cases {
-		p, cert, lambda := certifyPolygon(t, polygonText(c.verts, "0", c.sides, 3), 1e-2, polygonLimit)
+		p, cert, lambda := certifyPolygon(t, polygonText(c.verts, "0", c.sides, 3), 1e-2)
 		scale := scaleOf(p)
 		for k := range c.m {
 			requireEnclosure(t, fmt.Sprintf("%s: lambda%d", c.what, k+1), lambda[k], c.unit.MulF(c.m[k]), scale, 2e-2)
@@ -279,7 +289,7 @@ func TestPolygonAdversarialNonConvex(t *testing.T) {
 		}
 		return s
 	}
-	_, _, l := certifyPolygon(t, polygonText(lShape, "0", dirichlet(6), 3), 1e-2, polygonLimit)
+	_, _, l := certifyPolygon(t, polygonText(lShape, "0", dirichlet(6), 3), 1e-2)
 	requireEnclosure(t, "L-shape lambda3", l[2], interval.Pi().Sqr().MulF(2), 1, 2e-2)
 	if longPolygons() {
 		// (x, y) ↦ 1000·R(1)(x, y) applied to the six vertices.
@@ -287,14 +297,14 @@ func TestPolygonAdversarialNonConvex(t *testing.T) {
 		for _, v := range [][2]string{{"0", "0"}, {"2", "0"}, {"2", "1"}, {"1", "1"}, {"1", "2"}, {"0", "2"}} {
 			vs = append(vs, fmt.Sprintf(`["1000*(%s*cos(1)-%s*sin(1))","1000*(%s*sin(1)+%s*cos(1))"]`, v[0], v[1], v[0], v[1]))
 		}
-		_, _, lr := certifyPolygon(t, polygonText("["+strings.Join(vs, ",")+"]", "0", dirichlet(6), 3), 1e-2, polygonLimit)
+		_, _, lr := certifyPolygon(t, polygonText("["+strings.Join(vs, ",")+"]", "0", dirichlet(6), 3), 1e-2)
 		for k := range l {
 			requireOverlap(t, fmt.Sprintf("L-shape lambda%d, unrotated and rotated", k+1), l[k], lr[k].MulF(1e6))
 		}
 	}
 
 	const notched = `[["0","0"],["1","0"],["1","1"],["11/20","1"],["1/2","1-sqrt(2)/20"],["9/20","1"],["0","1"]]`
-	_, _, ld := certifyPolygon(t, polygonText(notched, "0", dirichlet(7), 3), 1e-2, polygonLimit)
+	_, _, ld := certifyPolygon(t, polygonText(notched, "0", dirichlet(7), 3), 1e-2)
 	square := []float64{2, 5, 5}
 	inner := rectangleEigenvalues("1", "9/10", [4]end{{dirichlet: true}, {dirichlet: true}, {dirichlet: true}, {dirichlet: true}}, 3)
 	for k := range ld {
@@ -315,7 +325,7 @@ func TestPolygonAdversarialNonConvex(t *testing.T) {
 	}
 	chain := [][]interval.I{}
 	for _, s := range []string{`"neumann"`, `{"robin":"1e-9"}`, `{"robin":"1"}`} {
-		_, _, x := certifyPolygon(t, polygonText(notched, "0", side(s), 3), 1e-2, polygonLimit)
+		_, _, x := certifyPolygon(t, polygonText(notched, "0", side(s), 3), 1e-2)
 		chain = append(chain, x)
 	}
 	chain = append(chain, ld)
@@ -347,7 +357,7 @@ func TestPolygonAdversarialSteepWell(t *testing.T) {
 	_, c1 := certifyText(t, `{"domain":{"interval":["0","1"]},"potential":"10000*(x-1/2)^2","boundary":"dirichlet","eigenvalues":2}`, 1e-10)
 	mu1 := eigenEnclosure(t, c1, 1)
 	_, _, l := certifyPolygon(t, polygonText(`[["0","0"],["1","0"],["1","1"],["0","1"]]`, "10000*(x-1/2)^2",
-		[]string{`"dirichlet"`, `"dirichlet"`, `"dirichlet"`, `"dirichlet"`}, 2), 1e-2, polygonLimit)
+		[]string{`"dirichlet"`, `"dirichlet"`, `"dirichlet"`, `"dirichlet"`}, 2), 1e-2)
 	pi2 := interval.Pi().Sqr()
 	for k, truth := range []interval.I{mu1.Add(pi2), mu1.Add(pi2.MulF(4))} {
 		requireEnclosure(t, fmt.Sprintf("steep well lambda%d", k+1), l[k], truth, 1, 0.2)
@@ -388,7 +398,7 @@ func TestPolygonAdversarialDeterminism(t *testing.T) {
 	if !reflect.DeepEqual(outs[0].ritz, outs[1].ritz) || !reflect.DeepEqual(outs[0].stageA, outs[1].stageA) {
 		t.Errorf("GOMAXPROCS changes the bounds:\n1: %v %v\n2: %v %v", outs[0].ritz, outs[0].stageA, outs[1].ritz, outs[1].stageA)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-2", TimeLimit: polygonLimit, Now: fixedTime, Tool: "gapcert test"})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-2", TimeLimit: ampleLimit, Now: fixedTime, Tool: "gapcert test"})
 	if err != nil {
 		t.Fatal(err)
 	}

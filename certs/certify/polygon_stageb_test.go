@@ -23,7 +23,7 @@ func TestCheckPolygonStageB(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-4", Now: fixedTime})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-4", TimeLimit: ampleLimit, Now: fixedTime})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -119,7 +119,7 @@ func TestCheckSeparateStageBShift(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-5", Now: fixedTime})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-5", TimeLimit: ampleLimit, Now: fixedTime})
 	if err != nil {
 		t.Fatal(err)
 	}

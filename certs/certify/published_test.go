@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math/big"
 	"testing"
+	"time"
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
@@ -12,14 +13,64 @@ import (
 	"gapcert/interval/decimalio"
 )
 
-// certifyText parses a problem and certifies it at the given target.
+// ampleLimit is the time limit of the test runs that assert widths. It is
+// far above what any of them needs (each ends by reaching its target,
+// stalling, at the refinement cap, or at a step chosen by certifyUntil,
+// within seconds on an idle machine), so that no run is stopped by the
+// time limit: which steps run, and so the widths checked, do not depend on
+// the machine's load. Speed is measured by the benchmarks, never here.
+const ampleLimit = 10 * time.Minute
+
+// certifyText parses a problem and certifies it at the given target, with
+// the ample time limit.
 func certifyText(t *testing.T, src string, relWidth float64) (*problem.Problem, *certs.Certificate) {
 	t.Helper()
 	p, err := problem.Parse([]byte(src))
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth)})
+	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit})
+	if err != nil {
+		t.Fatalf("certify %s: %v", src, err)
+	}
+	return p, c
+}
+
+// certifyUntil certifies src at the target relWidth with the ample time
+// limit and ends the run, by cancelling its context, after the first step
+// for which enough(step, w1, w2) holds (steps counted from 1; w1 and w2 the
+// target-rule widths of λ1 and λ2 reported by the step's progress line).
+// Certify then returns the best step so far with stop reason
+// StopInterrupted. For runs whose target cannot be met quickly (a gap
+// far wider than the eigenvalues, a long way to the target), it fixes the
+// steps that run by their widths or their count, never by the clock.
+func certifyUntil(t *testing.T, src string, relWidth float64, enough func(step int, w1, w2 float64) bool) (*problem.Problem, *certs.Certificate) {
+	t.Helper()
+	p, err := problem.Parse([]byte(src))
+	if err != nil {
+		t.Fatalf("problem %s: %v", src, err)
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	progress := func(format string, args ...any) {
+		if len(args) < 7 {
+			t.Errorf("progress line %q has %d arguments, want at least 7", format, len(args))
+			cancel()
+			return
+		}
+		step, ok0 := args[1].(int)
+		w1, ok1 := args[5].(float64)
+		w2, ok2 := args[6].(float64)
+		if !ok0 || !ok1 || !ok2 {
+			t.Errorf("progress line %q: arguments %v are not the step and the widths of lambda1 and lambda2", format, args)
+			cancel()
+			return
+		}
+		if enough(step, w1, w2) {
+			cancel()
+		}
+	}
+	c, err := Certify(ctx, p, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit, Progress: progress})
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}

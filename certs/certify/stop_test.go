@@ -130,9 +130,14 @@ func TestStopTimeLimitRecorded(t *testing.T) {
 }
 
 // TestRefusedUpFront: targets and time limits out of range are refused
-// with a *TargetError before anything is computed.
+// with a *TargetError before anything is computed. The context is
+// cancelled beforehand: a Certify that started computing would return the
+// context's error (no step finished), so the *TargetError shows the
+// refusal came first, whatever the machine's speed.
 func TestRefusedUpFront(t *testing.T) {
 	p := parseProblem(t, checkProblem)
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
 	for _, opt := range []Options{
 		{RelWidth: "1e-300"},
 		{RelWidth: "1e-16"},
@@ -141,15 +146,14 @@ func TestRefusedUpFront(t *testing.T) {
 		{RelWidth: "abc"},
 		{TimeLimit: -5 * time.Second},
 	} {
-		start := time.Now()
-		_, err := Certify(context.Background(), p, opt)
+		_, err := Certify(ctx, p, opt)
 		var te *TargetError
 		if !errors.As(err, &te) || !strings.Contains(err.Error(), "hint:") {
 			t.Errorf("%+v: error %v, want a *TargetError with a hint", opt, err)
 		}
-		if d := time.Since(start); d > time.Second {
-			t.Errorf("%+v: refused after %v", opt, d)
-		}
+	}
+	if _, err := Certify(ctx, p, Options{}); !errors.Is(err, context.Canceled) {
+		t.Errorf("valid options under a cancelled context: %v, want %v", err, context.Canceled)
 	}
 	if _, err := ParseTarget(MinRelWidth); err != nil {
 		t.Errorf("the floor itself is refused: %v", err)
@@ -343,17 +347,16 @@ func TestStopReasonsLong(t *testing.T) {
 // published tests, which agree with them).
 func TestStopAtFloatResolution(t *testing.T) {
 	p := parseProblem(t, `{"domain":{"interval":["-2","2"]},"potential":"x^2","boundary":"dirichlet","eigenvalues":2}`)
-	start := time.Now()
-	c, err := Certify(context.Background(), p, Options{RelWidth: MinRelWidth, TimeLimit: time.Minute})
+	c, err := Certify(context.Background(), p, Options{RelWidth: MinRelWidth, TimeLimit: ampleLimit})
 	if err != nil {
 		t.Fatal(err)
 	}
+	// With a time limit far above the run's needs (it stalls after 5 steps,
+	// 0.2 s measured), a run that did not detect the stall would end at
+	// the refinement cap or the time limit, not here.
 	ref, _ := RefinementOf(c)
 	if ref.StopReason != StopStalled {
 		t.Errorf("stopped: %q, want %q", ref.StopReason, StopStalled)
-	}
-	if d := time.Since(start); d > 20*time.Second {
-		t.Errorf("took %v", d)
 	}
 	joined := strings.Join(c.Warnings, "\n")
 	if !strings.Contains(joined, "the widths stalled: steps ") || !strings.Contains(joined, "stopped: widths stalled") {
