@@ -3,7 +3,6 @@ package certify
 import (
 	"math"
 	"testing"
-	"time"
 
 	"gapcert/interval"
 )
@@ -44,7 +43,7 @@ func TestRobinSquareCR(t *testing.T) {
 		truth := []float64{2*m1 + 7, m1 + m2 + 7, m1 + m2 + 7}
 		r := `{"robin":"` + alpha + `"}`
 		src := polygonText(sq, "7", []string{r, r, r, r}, 3)
-		p, c, lambda := certifyPolygon(t, src, 1e-6, 20*time.Second)
+		p, c, lambda := certifyPolygon(t, src, 1e-6)
 		if c.Method == nil {
 			t.Fatal("no method")
 		}
@@ -61,7 +60,7 @@ func TestRobinSquareCR(t *testing.T) {
 	}
 	r, z := `{"robin":"1"}`, `{"robin":"0"}`
 	src := polygonText(sq, "7", []string{z, r, z, r}, 3)
-	p, _, lambda := certifyPolygon(t, src, 1e-6, 20*time.Second)
+	p, _, lambda := certifyPolygon(t, src, 1e-6)
 	for k, tr := range truth {
 		requireEnclosure(t, src, lambda[k], interval.I{Lo: tr * (1 - 4e-15), Hi: tr * (1 + 4e-15)}, scaleOf(p), 1e-4)
 	}
