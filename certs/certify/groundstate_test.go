@@ -47,7 +47,6 @@ func boundOf(t testing.TB, b certs.Bound) interval.I {
 func TestGroundStateSine(t *testing.T) {
 	c := certifyGroundState(t, `{"domain":{"interval":["0","pi"]},"boundary":"dirichlet","points":[["0"],["0.1"],["1"],["pi/2"],["2.5"],["3.1"],["pi"]]}`, "1e-10")
 	gs := c.Results.GroundState
-	t.Logf("%+v", *gs)
 	if gs.LogConcavity != certs.Proven {
 		t.Errorf("verdict %s (%s), want proven", gs.LogConcavity, gs.Reason)
 	}
@@ -238,5 +237,20 @@ func TestGroundStateCheck(t *testing.T) {
 	data, _ = c.Marshal()
 	if err := Check(data); err != nil {
 		t.Errorf("certificate without the block: %v", err)
+	}
+}
+
+// TestGroundStateNeedsLambda2: the block needs λ2, and a problem with one
+// eigenvalue (possible only when edited in Go: the reader refuses it) is
+// refused before computing, with a hint.
+func TestGroundStateNeedsLambda2(t *testing.T) {
+	p, err := problem.Parse([]byte(`{"domain":{"interval":["0","1"]},"boundary":"dirichlet"}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Eigenvalues = 1
+	_, err = Certify(context.Background(), p, Options{GroundState: true})
+	if err == nil || !strings.Contains(err.Error(), "needs lambda2") || !strings.Contains(err.Error(), "hint") {
+		t.Fatalf("got %v, want a refusal naming lambda2 with a hint", err)
 	}
 }
