@@ -34,6 +34,13 @@ func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certific
 	for k, w := range res.widths {
 		c.Results.RelativeWidths[fmt.Sprintf("lambda%d", k+1)] = fmt.Sprintf("%.3g", w)
 	}
+	if opt.GroundState {
+		gs, err := groundState(res.groundStateInputs(p))
+		if err != nil {
+			return nil, err
+		}
+		c.Results.GroundState = gs
+	}
 	claims, err := evaluateClaims(p, res, opt)
 	if err != nil {
 		return nil, err
@@ -56,6 +63,12 @@ func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certific
 		Time:      now().UTC().Format(time.RFC3339),
 	}
 	return c, nil
+}
+
+// groundStateInputs is what the step hands to the ground-state block.
+func (res *result) groundStateInputs(p *problem.Problem) groundStateInputs {
+	return groundStateInputs{p: p, lambda1: res.lambda[0], lambda2: res.lambda[1], gamma: res.r.gamma,
+		trial: res.out.trial, u: res.out.ground, energy: res.out.groundEnergy, norm2: res.out.groundNorm2}
 }
 
 // method records the recipe and each stage's bounds.

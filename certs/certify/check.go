@@ -42,7 +42,8 @@ func (e *MismatchError) Error() string {
 // canonical form (compared as JSON values: white space, key order and
 // string escapes may differ) and hashes to problem_sha256, recomputes the
 // certificate from the recorded problem and method with the same
-// deterministic code, and demands that the recorded results, claims
+// deterministic code (results.ground_state too when the certificate has
+// it), and demands that the recorded results, claims
 // (hypotheses and references included) and method equal the recomputed
 // ones field for field, and that every warning of the recomputation is
 // recorded (the certificate may hold more: refinement warnings depend on
@@ -86,7 +87,7 @@ func Check(data []byte) error {
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
 	}
-	fresh, err := res.certificate(p, Options{recorded: cert})
+	fresh, err := res.certificate(p, Options{recorded: cert, GroundState: cert.Results.GroundState != nil})
 	if err != nil {
 		return fmt.Errorf("recomputation failed: %w", err)
 	}

@@ -81,6 +81,15 @@ type outcome struct {
 	ch     interval.I
 	notes  []string
 
+	// The approximate ground state ũ of the step, kept for the ground-state
+	// block (groundStateInputs): the trial space, ũ's coefficients (the
+	// first approximate eigenvector) and the [0, 0] entries of the Ritz
+	// matrices, enclosing a(ũ, ũ) + γ‖ũ‖² and ‖ũ‖².
+	trial        discrete.Trial
+	ground       []float64
+	groundEnergy interval.I
+	groundNorm2  interval.I
+
 	polygon *polygonRecord // set by the polygon discretisation; nil for intervals
 }
 
@@ -135,6 +144,8 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	if out.ritz, err = proof.RitzUpper(a0, a1); err != nil {
 		return nil, err
 	}
+	out.trial, out.ground = trial, vecs[0]
+	out.groundEnergy, out.groundNorm2 = a0.At(0, 0), a1.At(0, 0)
 
 	// Lower bounds, stage A: projection bounds of Λ_1..Λ_(want+1).
 	located := d.located(want + 1)

@@ -28,7 +28,9 @@ const DefaultTimeLimit = 60 * time.Second
 // way.
 //
 // A target or time limit out of range is refused with a *TargetError
-// before anything is computed. When ctx is cancelled, Certify returns at
+// before anything is computed, and so is Options.GroundState on a problem
+// with fewer than two eigenvalues (the reader refuses such files; a
+// problem edited in Go may have one). When ctx is cancelled, Certify returns at
 // once the certificate of the best step finished so far, with stop reason
 // StopInterrupted (its bounds are verified and Check reproduces them), or
 // ctx's error if no step has finished; the step in progress is abandoned
@@ -43,6 +45,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	target, err := ParseTarget(targetText)
 	if err != nil {
 		return nil, err
+	}
+	if opt.GroundState && p.Eigenvalues < 2 {
+		return nil, fmt.Errorf("the ground state needs lambda2, but the problem asks for %d eigenvalue (hint: ask for \"eigenvalues\": 2 or more)", p.Eigenvalues)
 	}
 	limit := opt.TimeLimit
 	switch {

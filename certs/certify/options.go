@@ -24,6 +24,12 @@ type Options struct {
 	Now       func() time.Time
 	Progress  func(format string, args ...any) // nil = quiet
 	Memory    int64                            // memory budget in bytes; 0 = DefaultMemory
+	// GroundState adds results.ground_state to the certificate: the
+	// verdict on log-concavity of the ground state, the L2 error bound of
+	// the approximate ground state and its values at the problem's
+	// points, for the certified step (groundstate.go). It needs λ2, which
+	// every problem has (the reader refuses fewer than two eigenvalues).
+	GroundState bool
 
 	recorded *certs.Certificate // set by Check: reference certificates of claims are taken from it, not computed
 	ctx      context.Context    // set by Certify: reference certifications of claims run under it

@@ -23,13 +23,14 @@ import (
 
 // certifyFlags are the options shared by certify and demo.
 type certifyFlags struct {
-	out       string
-	relWidth  string
-	timeLimit time.Duration
-	quiet     bool
-	progress  bool
-	strict    bool
-	plotDir   string
+	out         string
+	relWidth    string
+	timeLimit   time.Duration
+	quiet       bool
+	progress    bool
+	strict      bool
+	plotDir     string
+	groundState bool
 }
 
 func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
@@ -39,6 +40,7 @@ func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
 	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
 	cmd.Flags().BoolVar(&f.strict, "strict", false, "exit with status 4 when the target width is not reached (the certificate is written either way)")
+	cmd.Flags().BoolVar(&f.groundState, "ground-state", false, "also certify the ground state: log-concave or not (with a witness), the L2 error of the approximate ground state, and its values at the problem's \"points\" (results.ground_state)")
 	cmd.Flags().StringVar(&f.plotDir, "plot", "", "also draw the mesh and the first two approximate eigenfunctions (PNG and SVG) into this directory; the pictures are approximations, not part of the proof")
 }
 
@@ -63,6 +65,12 @@ stalled, refinement cap, no eigenvalue separation, interrupted) and give
 each enclosure's width: absolute, relative to its own size, and by the
 target rule width / max(|midpoint|, π²/D²). The bounds are verified
 either way.
+
+With --ground-state the certificate also holds results.ground_state for
+the certified step: whether the ground state is log-concave (proven,
+disproven with a witness, or undecided with the reason), an upper bound of
+the L2 error of the approximate ground state, and enclosures of the ground
+state (u > 0, ∫u² = 1) at the problem's "points"; check recomputes it.
 
 On an interrupt (Ctrl-C) certify prints "interrupted" and the best
 verified bounds reached so far, writes them as a certificate whose stop
@@ -97,7 +105,7 @@ reached, 130 when interrupted.`,
 
 // runCertify certifies p, prints the table and writes the certificate.
 func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out string) error {
-	opt := certify.Options{TimeLimit: f.timeLimit, Tool: "gapcert " + Version}
+	opt := certify.Options{TimeLimit: f.timeLimit, Tool: "gapcert " + Version, GroundState: f.groundState}
 	if f.relWidth != "" {
 		if _, err := certify.ParseTarget(f.relWidth); err != nil {
 			return &exitError{code: exitFailure, err: fmt.Errorf("--rel-width: %v", err)}
@@ -259,6 +267,9 @@ func printCertificate(w io.Writer, p *problem.Problem, c *certs.Certificate) {
 			}
 		}
 	}
+	if gs := c.Results.GroundState; gs != nil {
+		printGroundState(w, gs)
+	}
 	if ref, err := certify.RefinementOf(c); err == nil && ref != nil {
 		fmt.Fprintf(w, "\nwidth: upper bound of upper − lower; relative: width / least |value| in the enclosure;\ntarget rule: %s\n", ref.TargetRule)
 		verdict := "not reached"
@@ -269,6 +280,25 @@ func printCertificate(w io.Writer, p *problem.Problem, c *certs.Certificate) {
 	}
 	for _, warn := range c.Warnings {
 		fmt.Fprintf(w, "\nwarning: %s\n", warn)
+	}
+}
+
+// printGroundState prints results.ground_state.
+func printGroundState(w io.Writer, gs *certs.GroundState) {
+	fmt.Fprintf(w, "\nground state (%s):\n", gs.Normalization)
+	fmt.Fprintf(w, "  log-concave: %s\n  %s\n", gs.LogConcavity, gs.Reason)
+	if wt := gs.Witness; wt != nil {
+		var pts []string
+		for _, p := range wt.Points {
+			pts = append(pts, "("+strings.Join(p, ", ")+")")
+		}
+		fmt.Fprintf(w, "  witness (%s): %s, margin ≥ %s\n", wt.Kind, strings.Join(pts, " "), wt.Margin.Lower)
+	}
+	if gs.L2Error != "" {
+		fmt.Fprintf(w, "  ‖ũ − P₁ũ‖/‖ũ‖ ≤ %s\n", gs.L2Error)
+	}
+	for _, p := range gs.Points {
+		fmt.Fprintf(w, "  u(%s) ∈ [%s, %s]\n", strings.Join(p.At, ", "), p.Value.Lower, p.Value.Upper)
 	}
 }
 

@@ -151,6 +151,13 @@ func describe(w io.Writer, file string, p *problem.Problem) {
 	for _, c := range p.Claims {
 		fmt.Fprintf(w, "claim:       %s\n", c)
 	}
+	for _, pt := range p.Points {
+		var cs []string
+		for _, c := range pt {
+			cs = append(cs, formatNumber(c))
+		}
+		fmt.Fprintf(w, "point:       (%s)\n", strings.Join(cs, ", "))
+	}
 	fmt.Fprintf(w, "sha256:      %s\n", p.SHA256())
 	describePlan(w, p)
 }

@@ -14,7 +14,8 @@ import (
 // whitespace, object keys sorted, every number as its canonical exact text
 // (Number.Text) in a string, the potential as its canonical formula text
 // with parameter names unbound, the boundary as the explicit per-side list,
-// every default filled in and the polygon in counterclockwise order.
+// every default filled in and the polygon in counterclockwise order;
+// "points" appears only when the problem has points.
 // Parse(p.Canonical()) gives a problem with the same Canonical text.
 func (p *Problem) Canonical() []byte {
 	var b bytes.Buffer
@@ -73,7 +74,27 @@ func (p *Problem) Canonical() []byte {
 		b.WriteByte(':')
 		writeString(&b, p.Params[name].Text)
 	}
-	b.WriteString(`},"potential":`)
+	b.WriteByte('}')
+	if len(p.Points) > 0 {
+		// Written only when present, so that the canonical text (and hash)
+		// of a problem without points is what it was before the key existed.
+		b.WriteString(`,"points":[`)
+		for i, pt := range p.Points {
+			if i > 0 {
+				b.WriteByte(',')
+			}
+			b.WriteByte('[')
+			for j, c := range pt {
+				if j > 0 {
+					b.WriteByte(',')
+				}
+				writeString(&b, c.Text)
+			}
+			b.WriteByte(']')
+		}
+		b.WriteByte(']')
+	}
+	b.WriteString(`,"potential":`)
 	writeString(&b, p.potentialText)
 	b.WriteString(`,"target":{"relative_width":`)
 	writeString(&b, p.RelWidth.Text)

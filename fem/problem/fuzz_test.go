@@ -19,6 +19,9 @@ func FuzzParse(f *testing.F) {
 			f.Add(data)
 		}
 	}
+	// Problems with points (the key is optional in every file above).
+	f.Add([]byte(`{"domain":{"interval":["0","pi"]},"boundary":"dirichlet","points":[["0"],["pi/2"],["1/3"]]}`))
+	f.Add([]byte(`{"domain":{"polygon":[["0","0"],["2","0"],["2","2"],["1","1"],["0","2"]]},"boundary":"dirichlet","points":[["1","1/2"],["sqrt(2)/2","1/3"]]}`))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		p, err := Parse(data)
 		if err != nil {

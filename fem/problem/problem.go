@@ -63,6 +63,11 @@ type Problem struct {
 	RelWidth    Number // target relative width, in (0, 1)
 	Claims      []string
 
+	// Points are the points of the closed domain at which a certificate
+	// that asks for the ground state encloses it (key "points"; one exact
+	// number per coordinate, in the file's order). Empty by default.
+	Points [][]Number
+
 	potentialText string // canonical text of the potential as written (parameters unbound)
 	reversed      bool
 	convex        string
@@ -129,7 +134,7 @@ type reader struct {
 	badParams map[string]bool
 }
 
-var topKeys = []string{"name", "domain", "potential", "parameters", "boundary", "eigenvalues", "target", "claims"}
+var topKeys = []string{"name", "domain", "potential", "parameters", "boundary", "eigenvalues", "target", "claims", "points"}
 
 func (r *reader) problem(root *node) *Problem {
 	r.checkKeys(root, "", topKeys)
@@ -155,6 +160,7 @@ func (r *reader) problem(root *node) *Problem {
 	eigOK := r.eigenvalues(root.get("eigenvalues"), p)
 	r.target(root.get("target"), p)
 	r.claims(root.get("claims"), p, geomOK && bcOK && eigOK)
+	r.points(root.get("points"), p, geomOK)
 	return p
 }
 
