@@ -17,7 +17,7 @@ import (
 
 // The ground state on a polygon (results.ground_state). Every number
 // reported is a bound from package temple/groundstate; the floating-point
-// search of groundstate_polygon_search.go only chooses where to look.
+// search of groundstate_polygon_search_approx.go only chooses where to look.
 //
 // The chain, for the approximate ground state ũ (the trial function with
 // coefficients in.u) and u = P₁ũ its projection on the first eigenspace:
@@ -73,8 +73,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 	aUU := in.energy.Sub(in.norm2.MulF(in.gamma))
 	ve, err := groundstate.EigenvectorError(aUU, in.norm2, in.lambda1, in.lambda2, in.gamma)
 	if err != nil {
-		gs.Reason = "λ1 is not shown to be separated from λ2 (the Rayleigh quotient of the approximate ground state, " +
-			ve.Rayleigh.String() + ", is not certified below λ2): no error bound, no values, no verdict; " + err.Error()
+		gs.Reason = "λ1 is not shown to be separated from λ2, so no error bound, no values and no verdict: " + err.Error()
 		return gs, nil
 	}
 	if !(ve.L2 < 1) {

@@ -10,10 +10,12 @@ import (
 // polygonGroundStateInputs builds the inputs of the ground-state
 // certification the way the certified step does: one computation of the
 // driver (compute, assemble) on the first recipe with refine uniform
-// refinements of the trial mesh, its certified λ1 and λ2, and the first
+// refinements of the trial mesh, followed by steps − 1 refinements chosen
+// by the driver (its next recipe), the certified λ1 and λ2 of the last
+// step, and the first
 // approximate eigenvector of its trial space with the [0, 0] entries of
 // its Ritz matrices.
-func polygonGroundStateInputs(t testing.TB, src string, refine int) groundStateInputs {
+func polygonGroundStateInputs(t testing.TB, src string, refine, steps int) groundStateInputs {
 	t.Helper()
 	p, err := problem.Parse([]byte(src))
 	if err != nil {
@@ -24,13 +26,23 @@ func polygonGroundStateInputs(t testing.TB, src string, refine int) groundStateI
 		t.Fatal(err)
 	}
 	r.refine = refine
-	out, err := compute(p, r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := assemble(p, r, out)
-	if err != nil {
-		t.Fatal(err)
+	var res *result
+	for step := 1; ; step++ {
+		out, err := compute(p, r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if res, err = assemble(p, r, out); err != nil {
+			t.Fatal(err)
+		}
+		if step >= steps {
+			break
+		}
+		next, why := polygon{p}.next(r, out, 2)
+		if why != "" {
+			t.Fatalf("no refinement after step %d: %s", step, why)
+		}
+		r = next
 	}
 	trial, err := polygon{p}.trial(r, &outcome{})
 	if err != nil {

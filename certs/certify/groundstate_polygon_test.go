@@ -6,6 +6,7 @@ import (
 	"math/big"
 	"math/rand"
 	"os"
+	"strings"
 	"testing"
 
 	"gapcert/certs"
@@ -38,7 +39,7 @@ func boundInterval(t *testing.T, b certs.Bound) interval.I {
 // inside one triangle and gets the whole line; no witness is certified (u
 // is log-concave).
 func TestPolygonGroundStateUnitSquareValues(t *testing.T) {
-	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 3)
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 3, 1)
 	onEdge := [2]float64{0.40625, 0.59375}
 	pts := [][2]float64{{0.53125, 0.484375}, onEdge, {0.28125, 0.203125}, {0.84375, 0.671875},
 		{0.09375, 0.453125}, {0.96875, 0.96875 - 1.0/64}, {0.671875, 0.046875}}
@@ -144,7 +145,7 @@ func TestPolygonGroundStateNoWitnessWhereLogConcave(t *testing.T) {
 		} else {
 			src = fmt.Sprintf(`{"domain":{"polygon":%s},"boundary":"dirichlet"}`, randomConvexPolygon(rng))
 		}
-		in := polygonGroundStateInputs(t, src, 1)
+		in := polygonGroundStateInputs(t, src, 1, 1)
 		gs, err := polygonGroundState(in, nil)
 		if err != nil {
 			t.Fatalf("%s: %v", src, err)
@@ -161,4 +162,46 @@ func TestPolygonGroundStateNoWitnessWhereLogConcave(t *testing.T) {
 		}
 	}
 	t.Logf("%d cases, no witness; largest lower end of a best margin %.3g", cases, worst)
+}
+
+// When λ2's lower end is not above the Rayleigh quotient of ũ (here λ2
+// replaced by λ1's enclosure, as for a cluster), the block is undecided
+// with the reason, without an error bound, values or witness.
+func TestPolygonGroundStateRefusesWithoutSeparation(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 1, 1)
+	in.lambda2 = in.lambda1
+	gs, err := polygonGroundState(in, [][2]problem.Number{dyadicPoint(0.53125, 0.484375)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs.LogConcavity != certs.Undecided || gs.Witness != nil || gs.L2Error != "" || gs.Points != nil ||
+		!strings.Contains(gs.Reason, "not shown to be separated") {
+		t.Fatalf("got %+v, want undecided without bounds and the reason", gs)
+	}
+}
+
+// A point whose coordinates are not binary floats is refused with its
+// index and a hint.
+func TestPolygonGroundStateRefusesNonBinaryPoint(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 1, 1)
+	third := problem.Number{Text: "1/3", Val: interval.Point(1).DivF(3), Rat: big.NewRat(1, 3)}
+	_, err := polygonGroundState(in, [][2]problem.Number{dyadicPoint(0.5, 0.25), {third, third}})
+	if err == nil || !strings.Contains(err.Error(), "points[1]") || !strings.Contains(err.Error(), "hint") {
+		t.Fatalf("error %v, want a refusal of points[1] with a hint", err)
+	}
+}
+
+// On a non-convex domain (an L shape) a certified triple would not show
+// that the ground state is not log-concave: the verdict is never
+// disproven there.
+func TestPolygonGroundStateNonConvexNeverDisproven(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]},"boundary":"dirichlet"}`, 1, 1)
+	gs, err := polygonGroundState(in, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs.LogConcavity != certs.Undecided || gs.Witness != nil || gs.Margin == nil {
+		t.Fatalf("got %s (%s), want undecided with a margin", gs.LogConcavity, gs.Reason)
+	}
+	t.Logf("L shape: %s; margin %+v", gs.Reason, *gs.Margin)
 }

@@ -87,7 +87,10 @@ func (g *polygonGS) bestTriple() (*triple, int, error) {
 }
 
 // searchTriples returns the polygonCandidates best triples of the grid
-// search, best first.
+// searches, best first: one grid over the whole polygon and, around each
+// corner of the polygon, grids with steps h/4, h/16, h/64 (log u may fail
+// to be concave only near a corner: at a corner of angle θ > π/2 the
+// ground state has a term r^(π/θ) whose Hessian is unbounded).
 func (g *polygonGS) searchTriples() []triple {
 	m := g.space.Mesh()
 	xmin, ymin := math.Inf(1), math.Inf(1)
@@ -103,11 +106,35 @@ func (g *polygonGS) searchTriples() []triple {
 		return nil
 	}
 	h := math.Exp2(math.Floor(math.Log2(span / polygonSearchCells)))
+	top, all := g.searchGrid(xmin, ymin, xmax, ymax, h, 0)
+	for c := range m.NumCorners() {
+		cx, cy := m.Nodes[c][0].Mid(), m.Nodes[c][1].Mid()
+		for s := h / 4; s >= h/64; s /= 4 {
+			r := polygonCornerCells * s
+			_, near := g.searchGrid(cx-r, cy-r, cx+r, cy+r, s, top)
+			all = append(all, near...)
+		}
+	}
+	sort.SliceStable(all, func(k, l int) bool { return all[k].score > all[l].score })
+	return all[:min(len(all), polygonCandidates)]
+}
+
+// polygonCornerCells is the half side, in steps, of a grid about a corner.
+const polygonCornerCells = 12
+
+// searchGrid searches the grid of step h (coarse points, h/2 fine points)
+// over the box [x0, x1]×[y0, y1] and returns the largest grid value of ũ
+// and the polygonCandidates best triples whose values are above
+// polygonSearchFloor·max(top, that largest value).
+func (g *polygonGS) searchGrid(x0, y0, x1, y1, h, top float64) (float64, []triple) {
 	hf := h / 2
-	ox := math.Floor(xmin/h)*h + h*13/32
-	oy := math.Floor(ymin/h)*h + h*7/32
-	nx := int((xmax-ox)/hf) + 1
-	ny := int((ymax-oy)/hf) + 1
+	ox := math.Floor(x0/h)*h + h*13/32
+	oy := math.Floor(y0/h)*h + h*7/32
+	nx := int((x1-ox)/hf) + 1
+	ny := int((y1-oy)/hf) + 1
+	if nx <= 0 || ny <= 0 {
+		return top, nil
+	}
 	val := make([]float64, nx*ny)
 	dist := make([]float64, nx*ny)
 	for i := range val {
@@ -117,7 +144,6 @@ func (g *polygonGS) searchTriples() []triple {
 	// The expected half-width of an enclosure at a grid point: the mean
 	// term E/(√π R) of the disc enclosure, which dominates.
 	spread := func(k int) float64 { return g.errL2 / (math.SqrtPi * dist[k]) }
-	top := 0.0
 	for _, u := range val {
 		if u > top {
 			top = u
@@ -163,7 +189,7 @@ func (g *polygonGS) searchTriples() []triple {
 			worst = best[len(best)-1].score
 		}
 	}
-	return best
+	return top, best
 }
 
 // sample sets val[j*nx+i] to ũ(ox + i·hf, oy + j·hf) in floating point for
