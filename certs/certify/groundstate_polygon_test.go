@@ -205,3 +205,88 @@ func TestPolygonGroundStateNonConvexNeverDisproven(t *testing.T) {
 	}
 	t.Logf("L shape: %s; margin %+v", gs.Reason, *gs.Margin)
 }
+
+// checkWitness checks what a disproven verdict must carry: three points
+// with m the exact midpoint of x and y, positive values, a positive lower
+// end of the margin, consistent with the values, on a convex domain.
+func checkWitness(t *testing.T, gs *certs.GroundState) {
+	t.Helper()
+	w := gs.Witness
+	if w == nil || w.Kind != certs.WitnessMidpoint || len(w.Points) != 3 || len(w.Values) != 3 {
+		t.Fatalf("disproven without a midpoint witness: %+v", gs)
+	}
+	var c [3][2]*big.Rat
+	for i, p := range w.Points {
+		for k := range 2 {
+			r, err := decimalio.ParseRat(p[k])
+			if err != nil {
+				t.Fatal(err)
+			}
+			c[i][k] = r
+		}
+	}
+	for k := range 2 {
+		mid := new(big.Rat).Add(c[0][k], c[1][k])
+		if mid.Quo(mid, big.NewRat(2, 1)).Cmp(c[2][k]) != 0 {
+			t.Fatalf("witness m = %v is not the midpoint of %v and %v", w.Points[2], w.Points[0], w.Points[1])
+		}
+	}
+	x, y, m := boundInterval(t, w.Values[0]), boundInterval(t, w.Values[1]), boundInterval(t, w.Values[2])
+	margin := boundInterval(t, w.Margin)
+	if !x.Positive() || !y.Positive() || !(margin.Lo > 0) {
+		t.Fatalf("witness values %v %v %v, margin %v", x, y, m, margin)
+	}
+	if x.Mul(y).Sub(m.Sqr()).Hi < margin.Lo {
+		t.Fatalf("margin %v above what the values allow", margin)
+	}
+}
+
+// A sweep of the Robin coefficient on an isosceles trapezoid (convex,
+// neither tangential: 2 + 0.2 ≠ 2·√(0.81 + 0.81), nor a rectangle), where
+// Andrews, Clutterbuck and Hauer (arXiv:1711.02779) show that the ground
+// state is not log-concave for small α. Each verdict is consistent: a
+// disproven one carries a checked witness, an undecided one the best
+// margin.
+func TestPolygonGroundStateRobinTrapezoidSweep(t *testing.T) {
+	for _, alpha := range []string{"0.01", "0.05", "0.1", "0.3"} {
+		src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],["2","0"],["1.1","0.9"],["0.9","0.9"]]},"boundary":{"robin":%q}}`, alpha)
+		in := polygonGroundStateInputs(t, src, 2, 1)
+		gs, err := polygonGroundState(in, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		switch gs.LogConcavity {
+		case certs.Disproven:
+			checkWitness(t, gs)
+			t.Logf("α = %s: disproven, margin %+v", alpha, gs.Witness.Margin)
+		case certs.Undecided:
+			if gs.Margin == nil || gs.Reason == "" {
+				t.Fatalf("α = %s: undecided without margin or reason: %+v", alpha, gs)
+			}
+			t.Logf("α = %s: undecided, L2 error %s, best margin %+v", alpha, gs.L2Error, *gs.Margin)
+		default:
+			t.Fatalf("α = %s: verdict %s", alpha, gs.LogConcavity)
+		}
+	}
+}
+
+// A double well V = 7680((x − 1/2)² − 1/16)² on the unit square with
+// Dirichlet conditions: the ground state dips between the wells at
+// x = 1/4 and 3/4, so log u is not concave across the middle, and the
+// chain certifies a witness once λ1 is narrow (seven driver steps, about
+// five minutes on 2 cores, so only with GAPCERT_LONG=1).
+func TestPolygonGroundStateDoubleWellWitness(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("about five minutes; set GAPCERT_LONG=1")
+	}
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"7680*((x-1/2)^2-1/16)^2","boundary":"dirichlet"}`, 1, 7)
+	gs, err := polygonGroundState(in, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs.LogConcavity != certs.Disproven {
+		t.Fatalf("verdict %s (%s), want disproven", gs.LogConcavity, gs.Reason)
+	}
+	checkWitness(t, gs)
+	t.Logf("witness %+v; L2 error %s", *gs.Witness, gs.L2Error)
+}
