@@ -66,6 +66,9 @@ func (g *polygonGS) bestTriple() (*triple, int, error) {
 	tried := 0
 	for i := range cands {
 		c := &cands[i]
+		if m, ok := groundstate.ExactMidpoint(c.x, c.y); !ok || m != c.m {
+			continue // far from the origin the grid sums may round
+		}
 		dx, okx := g.disc(c.x)
 		dy, oky := g.disc(c.y)
 		dm, okm := g.disc(c.m)
