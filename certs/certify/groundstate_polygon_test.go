@@ -291,3 +291,51 @@ func TestPolygonGroundStateDoubleWellWitness(t *testing.T) {
 	checkWitness(t, gs)
 	t.Logf("witness %+v; L2 error %s", *gs.Witness, gs.L2Error)
 }
+
+// 1000 random dyadic points of the unit square (Dirichlet, u = 2 sin πx
+// sin πy with unit L² norm; common practice): every bounded value
+// contains u, points on mesh edges get the whole line; the widths near
+// the centre and near the boundary are logged.
+func TestPolygonGroundStateUnitSquareRandomPoints(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 3, 1)
+	rng := rand.New(rand.NewSource(5))
+	var pts [][2]float64
+	var at [][2]problem.Number
+	for range 1000 {
+		p := [2]float64{float64(1+rng.Intn(1023)) / 1024, float64(1+rng.Intn(1023)) / 1024}
+		pts = append(pts, p)
+		at = append(at, dyadicPoint(p[0], p[1]))
+	}
+	gs, err := polygonGroundState(in, at)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pi := interval.Pi()
+	unbounded := 0
+	var centre, edge float64
+	var widths []float64
+	for i, p := range pts {
+		v := boundInterval(t, gs.Points[i].Value)
+		if !v.IsBounded() {
+			unbounded++
+			continue
+		}
+		truth := interval.Sin(pi.MulF(p[0])).Mul(interval.Sin(pi.MulF(p[1]))).MulF(2)
+		if !truth.Subset(v) {
+			t.Fatalf("u(%g, %g) = %v not inside %v", p[0], p[1], truth, v)
+		}
+		widths = append(widths, v.Wid())
+		if math.Abs(p[0]-0.5) < 0.1 && math.Abs(p[1]-0.5) < 0.1 {
+			centre = math.Max(centre, v.Wid())
+		}
+		if math.Min(math.Min(p[0], 1-p[0]), math.Min(p[1], 1-p[1])) < 0.05 {
+			edge = math.Max(edge, v.Wid())
+		}
+	}
+	if unbounded > 100 {
+		t.Errorf("%d of 1000 points without a disc", unbounded)
+	}
+	sortFloats(widths)
+	t.Logf("1000 points: %d on mesh edges (whole line); median width %.3g; widest value near the centre %.3g, within 0.05 of the boundary %.3g",
+		unbounded, widths[len(widths)/2], centre, edge)
+}
