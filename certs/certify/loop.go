@@ -30,7 +30,8 @@ const DefaultTimeLimit = 60 * time.Second
 // A target or time limit out of range is refused with a *TargetError
 // before anything is computed, and so is Options.GroundState on a problem
 // with fewer than two eigenvalues (the reader refuses such files; a
-// problem edited in Go may have one). When ctx is cancelled, Certify returns at
+// problem edited in Go may have one) or, on a polygon, with a point whose
+// coordinates are not float64 values exactly. When ctx is cancelled, Certify returns at
 // once the certificate of the best step finished so far, with stop reason
 // StopInterrupted (its bounds are verified and Check reproduces them), or
 // ctx's error if no step has finished; the step in progress is abandoned
@@ -48,6 +49,11 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	}
 	if opt.GroundState && p.Eigenvalues < 2 {
 		return nil, fmt.Errorf("the ground state needs lambda2, but the problem asks for %d eigenvalue (hint: ask for \"eigenvalues\": 2 or more)", p.Eigenvalues)
+	}
+	if opt.GroundState && p.Dim == 2 {
+		if _, err := polygonPoints(p); err != nil {
+			return nil, err
+		}
 	}
 	limit := opt.TimeLimit
 	switch {
