@@ -67,8 +67,8 @@ func robinGapMargin(length string, left, right end) *big.Float {
 // the other end of (0, 3/2) (coefficients that differ; gap 5.8154…,
 // margin 1.4289…; both to 4 digits from the same roots computed
 // independently with mpmath). The first certificate
-// verifies, and an edited verdict on the log-concavity hypothesis is
-// refused.
+// verifies; an edited verdict on the log-concavity hypothesis, or the
+// block removed under a proven one, is refused.
 func TestRobinLogConcaveGap(t *testing.T) {
 	for _, tc := range []struct {
 		src, length string
@@ -104,6 +104,14 @@ func TestRobinLogConcaveGap(t *testing.T) {
 		var mm *MismatchError
 		if err := Check(out); !errors.As(err, &mm) {
 			t.Errorf("edited log-concavity hypothesis: want a mismatch report, got %v", err)
+		}
+		// Without the block the recomputed hypothesis is undecided, so a
+		// recorded proven verdict no longer verifies.
+		stripped, _ := certs.Unmarshal(data)
+		stripped.Results.GroundState = nil
+		out, _ = stripped.Marshal()
+		if err := Check(out); !errors.As(err, &mm) || !strings.Contains(err.Error(), "claims") {
+			t.Errorf("proven log-concavity without the block: want a mismatch of the claims, got %v", err)
 		}
 	}
 }
