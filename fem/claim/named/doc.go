@@ -1,6 +1,7 @@
 // Package named is the catalogue of built-in claims: inequalities from
-// published theorems (and one open conjecture) that a problem file names
-// instead of writing them out.
+// published theorems, one open conjecture and one theorem proved below
+// ("The Robin gap under log-concavity") that a problem file names instead
+// of writing them out.
 //
 // A problem's "claims" list may hold, besides inequalities "lhs REL rhs",
 // the name of a built-in claim with the prefix "@", e.g.
