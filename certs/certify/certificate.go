@@ -41,7 +41,7 @@ func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certific
 		}
 		c.Results.GroundState = gs
 	}
-	claims, err := evaluateClaims(p, res, opt)
+	claims, err := evaluateClaims(p, res, c.Results.GroundState, opt)
 	if err != nil {
 		return nil, err
 	}

@@ -22,17 +22,21 @@ import (
 // A built-in claim "@name" (package fem/claim/named) is its catalogue
 // inequality, evaluated the same way, together with the verdicts on the
 // hypotheses of its theorem (package certs/hypothesis) and, for a claim
-// with a reference quantity, the certificate of that quantity. The
+// with a reference quantity, the certificate of that quantity. A
+// hypothesis about the ground state itself (log-concavity) is decided from
+// gs, the certificate's own results.ground_state (nil when it was not
+// asked for: the hypothesis is then undecided and says how to ask for
+// it; hypothesis.DecideCertified). The
 // reference certificate is computed by Certify, or, when opt.recorded is
 // set (the re-check), taken from the recorded claim and verified by Check;
 // a recorded reference that is missing, of another problem or does not
 // verify is a *MismatchError.
-func evaluateClaims(p *problem.Problem, res *result, opt Options) ([]certs.ClaimResult, error) {
+func evaluateClaims(p *problem.Problem, res *result, gs *certs.GroundState, opt Options) ([]certs.ClaimResult, error) {
 	env := claimEnv(p, res)
 	var out []certs.ClaimResult
 	for i, text := range p.Claims {
 		if named.IsNamed(text) {
-			r, err := evaluateNamed(p, env, i, text, opt)
+			r, err := evaluateNamed(p, gs, env, i, text, opt)
 			if err != nil {
 				return nil, err
 			}
@@ -81,8 +85,9 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 	return env
 }
 
-// evaluateNamed evaluates the built-in claim text, the i-th claim of p.
-func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text string, opt Options) (certs.ClaimResult, error) {
+// evaluateNamed evaluates the built-in claim text, the i-th claim of p,
+// whose certificate has the ground-state block gs (or nil).
+func evaluateNamed(p *problem.Problem, gs *certs.GroundState, env map[string]interval.I, i int, text string, opt Options) (certs.ClaimResult, error) {
 	c, err := named.Lookup(text)
 	if err != nil {
 		return certs.ClaimResult{}, fmt.Errorf("claim %q: %w", text, err)
@@ -90,7 +95,7 @@ func evaluateNamed(p *problem.Problem, env map[string]interval.I, i int, text st
 	cl := c.Parse()
 	var hyps []certs.Hypothesis
 	for _, name := range c.Hypotheses {
-		h, ok := hypothesis.Decide(name, p)
+		h, ok := hypothesis.DecideCertified(name, p, gs)
 		if !ok {
 			return certs.ClaimResult{}, fmt.Errorf("built-in claim %s: no decision procedure for the hypothesis %q", c.Text(), name)
 		}

@@ -29,4 +29,15 @@
 // problem.Triangles, refined by midpoint subdivision where undecided, each
 // evaluated over its bounding box). See ConvexPotential for why success of
 // the enclosure on every cell also proves V to be C².
+//
+// Continuity of V (ContinuousPotential) follows from V being defined at
+// every point of each cell of a cover of the closed domain, each
+// operation of the formula grammar being continuous on its domain.
+//
+// One hypothesis is about the ground state itself, not the problem:
+// log_concave_ground_state (LogConcaveGroundState) takes over the verdict
+// of the certificate's own results.ground_state, which package
+// certs/certify certifies by validated enclosures of the ground state;
+// DecideCertified decides it from that block and every other hypothesis
+// from the problem (Decide).
 package hypothesis

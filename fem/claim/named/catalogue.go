@@ -22,6 +22,15 @@ const (
 	ZeroPotential     = "zero_potential" // V ≡ 0
 	Triangle          = "triangle"
 	Rectangle         = "rectangle"
+	// RobinOrNeumannSides: ∂u/∂n + α_i·u = 0 on every side i, the α_i ≥ 0
+	// possibly different (Neumann: α_i = 0); no Dirichlet side.
+	RobinOrNeumannSides = "robin_or_neumann_sides"
+	// ContinuousPotential: V is continuous on the closed domain.
+	ContinuousPotential = "continuous_potential"
+	// LogConcaveGroundState: the ground state u > 0 has log u concave on
+	// the closed domain; decided from the certificate's own
+	// results.ground_state, not from the problem.
+	LogConcaveGroundState = "log_concave_ground_state"
 )
 
 // RobinIntervalGap is the reference quantity of @robin_comparison: the gap
@@ -175,6 +184,21 @@ var catalogue = []Claim{
 		ReferenceResult:  claim.Gap,
 		ReferenceProblem: robinInterval,
 		Source:           "the Robin gap conjecture for convex domains (open); proved for rectangles by R. S. Laugesen, The Robin Laplacian — spectral conjectures, rectangular theorems, arXiv:1905.07658",
+	},
+	// The Robin gap bound under log-concavity, on an interval (a, b) of
+	// length L = D: with a Robin or Neumann condition at each end (the two
+	// coefficients may differ) and V continuous on [a, b], if the ground
+	// state u1 is log-concave, then λ2 − λ1 ≥ π²/L². Proved in the package
+	// documentation ("The Robin gap under log-concavity"), self-contained;
+	// the weighted one-dimensional bound it rests on is classical (L. E.
+	// Payne and H. F. Weinberger, Arch. Rational Mech. Anal. 5 (1960)
+	// 286–292, §2 and its Remark 1; cited from a secondary source).
+	{
+		Name:       "robin_log_concave_gap",
+		Inequality: "gap >= pi^2/D^2",
+		Dims:       []int{1},
+		Hypotheses: []string{RobinOrNeumannSides, ContinuousPotential, LogConcaveGroundState},
+		Source:     "proved in the documentation of package fem/claim/named (ground-state substitution v = u2/u1 and a Dirichlet problem for v′√(u1²)); the weighted one-dimensional bound is classical: L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292, §2 (cited from a secondary source)",
 	},
 }
 
