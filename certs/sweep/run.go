@@ -67,6 +67,10 @@ const (
 	RefineFactor    = 10
 )
 
+// noGroundState says why a certificate without results.ground_state is not
+// one of a family that asks for it.
+const noGroundState = "has no results.ground_state, which the family asks for (\"ground_state\": true)"
+
 // rejectedSuffix is appended to the name of a set-aside certificate.
 const rejectedSuffix = ".rejected"
 
@@ -124,6 +128,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		Shard:        shard,
 		Parameters:   f.ParamNames(),
 		TotalPoints:  len(f.Points),
+		GroundState:  f.GroundState,
 	}
 	var mine []*FamilyPoint
 	for _, pt := range f.Points {
@@ -225,7 +230,7 @@ func (r *runner) point(pt *FamilyPoint) Point {
 	data, err := os.ReadFile(path)
 	switch {
 	case err == nil:
-		cert, why := verifyFor(data, hash)
+		cert, why := verifyFor(data, hash, r.f.GroundState)
 		if why == "" {
 			p.Status = StatusReused
 			p.RelWidth = r.widths[sha256Hex(data)]
@@ -263,9 +268,10 @@ func (r *runner) point(pt *FamilyPoint) Point {
 }
 
 // verifyFor checks a certificate file of the point with problem hash
-// hash: it must verify (certify.Check) and record that problem. It returns
-// the certificate, or why it is not acceptable.
-func verifyFor(data []byte, hash string) (*certs.Certificate, string) {
+// hash: it must verify (certify.Check), record that problem and, when
+// groundState is set, hold results.ground_state. It returns the
+// certificate, or why it is not acceptable.
+func verifyFor(data []byte, hash string, groundState bool) (*certs.Certificate, string) {
 	if err := certify.Check(data); err != nil {
 		return nil, "does not verify (" + oneLine(err) + ")"
 	}
@@ -275,6 +281,9 @@ func verifyFor(data []byte, hash string) (*certs.Certificate, string) {
 	}
 	if cert.ProblemSHA256 != hash {
 		return nil, "holds another problem (problem_sha256 " + cert.ProblemSHA256 + ")"
+	}
+	if groundState && cert.Results.GroundState == nil {
+		return nil, noGroundState
 	}
 	return cert, ""
 }
@@ -311,6 +320,7 @@ func (r *runner) certify(pt *FamilyPoint, w float64) ([]byte, *certs.Certificate
 	}
 	cert, err := certify.Certify(context.Background(), pt.Problem, certify.Options{
 		RelWidth: text, TimeLimit: r.limit, Tool: r.opt.Tool, Now: r.opt.Now, Memory: r.opt.Memory,
+		GroundState: r.f.GroundState,
 	})
 	if err != nil {
 		return nil, nil, err
