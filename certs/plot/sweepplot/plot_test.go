@@ -63,6 +63,7 @@ func TestGoldenSVG(t *testing.T) {
 		{"band_margin", func(path string) error { return goldenBand(t).WritePanel(path, MarginPanel) }},
 		{"robin_band_width", func(path string) error { return robinBand(t).WritePanel(path, WidthPanel) }},
 		{"map_sequential", sequentialMap(t).Write},
+		{"shape", goldenShape(t).Write},
 	} {
 		path := filepath.Join(dir, c.golden+".svg")
 		if err := c.write(path); err != nil {
