@@ -75,7 +75,7 @@ problem.
 
 Exit status: 0 on success, 1 on bad usage, an unreadable summary, an
 unknown parameter or name or an empty sweep, 3 if the summary disagrees
-with a certificate file.`,
+with a certificate file or a certificate drawn alone does not verify.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			fail := func(err error) error { return &exitError{code: exitFailure, err: err} }
