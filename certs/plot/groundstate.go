@@ -46,7 +46,9 @@ type GroundState struct {
 	// verdict is undecided (nil when the certificate has none).
 	Margin *interval.I
 	// Points are the problem's points (y = 0 on an interval), Values the
-	// enclosures of u there (empty when the certificate gives none).
+	// enclosures of u there (empty when the certificate gives none). On
+	// an interval the values are drawn against x in any order of the
+	// points; on a polygon only along a segment (Arc).
 	Points [][2]float64
 	Values []interval.I
 	// Arc is the arc length of each point from the first along the
@@ -292,7 +294,7 @@ func (g *GroundState) picture() picture {
 		caption = append(caption, fmt.Sprintf("No witness certified; the best candidate's margin lies in [%.3g, %.3g].", g.Margin.Lo, g.Margin.Hi))
 	}
 	switch {
-	case g.Arc != nil && len(g.Values) > 0:
+	case (g.Arc != nil || g.Dim == 1) && len(g.Values) > 0:
 		panels = append(panels, gsPanel{plot: g.valuePanel(&legend), height: valuePanelHeight})
 		caption = append(caption, "The values are certified at the marked points only: nothing is drawn between them.")
 	case len(g.Points) > 1 && len(g.Values) > 0:

@@ -181,6 +181,50 @@ func TestGroundStateSweep(t *testing.T) {
 		t.Errorf("rerun over a certificate without ground_state: status %s, error %q", p.Status, p.Error)
 	}
 
+	// An edited verdict in a certificate of the directory is caught by
+	// the re-check of both a rerun and merge.
+	edited := t.TempDir()
+	for _, name := range append(certFiles(t, dir), filepath.Join(dir, FamilyFileName)) {
+		data, err := os.ReadFile(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if strings.HasPrefix(filepath.Base(name), "p0000-") {
+			changed := strings.Replace(string(data), `"log_concavity": "disproven"`, `"log_concavity": "undecided"`, 1)
+			if changed == string(data) {
+				t.Fatal("the edit changed nothing")
+			}
+			data = []byte(changed)
+		}
+		if err := os.WriteFile(filepath.Join(edited, filepath.Base(name)), data, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	_, err = Merge([]string{edited}, t.TempDir(), nil)
+	if !errors.As(err, &me) || me.Issues[0].Kind != IssueTampered || me.Issues[0].Index != 0 || !strings.Contains(me.Issues[0].Msg, "ground_state") {
+		t.Errorf("merge of an edited verdict: %v, want a tampered issue at point 0 naming ground_state", err)
+	}
+	rerun, err = Run(f, edited, testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p := rerun.Points[0]; p.Status != StatusRejected || !strings.Contains(p.Error, "ground_state") {
+		t.Errorf("rerun over an edited verdict: status %s, error %q", p.Status, p.Error)
+	}
+
+	// The summary is read strictly inside the block too.
+	sumData, err := os.ReadFile(filepath.Join(dir, "summary.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := UnmarshalSummary(sumData); err != nil {
+		t.Fatal(err)
+	}
+	variant := strings.Replace(string(sumData), `"log_concavity"`, `"Log_Concavity"`, 1)
+	if _, err := UnmarshalSummary([]byte(variant)); err == nil || !strings.Contains(err.Error(), "Log_Concavity") {
+		t.Errorf("a case variant inside ground_state: %v", err)
+	}
+
 	// Merge re-verifies and keeps the blocks.
 	merged, err := Merge([]string{dir}, filepath.Join(t.TempDir(), "merged"), nil)
 	if err != nil {

@@ -48,7 +48,8 @@ type RunOptions struct {
 	// Certificates do not depend on it, except through the time limit.
 	Jobs int
 	// Progress receives one line per point, naming it by its index (from
-	// 0, as in file names and summaries), with its status and verdict, the
+	// 0, as in file names and summaries), with its status and verdict (and
+	// the log-concavity verdict of its ground state, when certified), the
 	// widest relative width its certificate reached, the width target, the
 	// point's time and the time since the run started; nil = quiet.
 	Progress func(format string, args ...any)
@@ -150,6 +151,9 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		msg := p.Status
 		if p.Verdict != "" {
 			msg += ", " + p.Verdict
+		}
+		if p.GroundState != nil {
+			msg += ", log-concave " + p.GroundState.LogConcavity
 		}
 		if p.Error != "" {
 			msg += ": " + p.Error
