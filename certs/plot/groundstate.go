@@ -293,6 +293,9 @@ func (g *GroundState) picture() picture {
 	case g.WitnessKind == "" && g.Margin != nil:
 		caption = append(caption, fmt.Sprintf("No witness certified; the best candidate's margin lies in [%.3g, %.3g].", g.Margin.Lo, g.Margin.Hi))
 	}
+	if g.Verdict == certs.Undecided && g.Reason != "" {
+		caption = append(caption, wrapWords("Undecided: "+g.Reason, captionWidth, maxReasonLines)...)
+	}
 	switch {
 	case (g.Arc != nil || g.Dim == 1) && len(g.Values) > 0:
 		panels = append(panels, gsPanel{plot: g.valuePanel(&legend), height: valuePanelHeight})
@@ -303,6 +306,40 @@ func (g *GroundState) picture() picture {
 		caption = append(caption, "The certificate gives no values of u at the points (see its reason).")
 	}
 	return stacked(panels, legend, caption)
+}
+
+// The certificate's reason for an undecided verdict is written under the
+// picture in at most maxReasonLines lines of at most captionWidth runes.
+const (
+	captionWidth   = 86
+	maxReasonLines = 4
+)
+
+// wrapWords breaks s into lines of at most width runes at spaces (a longer
+// word gets a line of its own), at most maxLines of them, the last ending
+// in "…" when text was left out.
+func wrapWords(s string, width, maxLines int) []string {
+	var lines []string
+	line := ""
+	for _, w := range strings.Fields(s) {
+		switch {
+		case line == "":
+			line = w
+		case len([]rune(line))+1+len([]rune(w)) <= width:
+			line += " " + w
+		default:
+			lines = append(lines, line)
+			line = w
+		}
+	}
+	if line != "" {
+		lines = append(lines, line)
+	}
+	if len(lines) > maxLines {
+		lines = lines[:maxLines]
+		lines[maxLines-1] += " …"
+	}
+	return lines
 }
 
 // xRange is the x range of the panels of an interval: the interval,

@@ -11,6 +11,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/plot/vg"
+
 	"gapcert/certs"
 	"gapcert/certs/certify"
 	"gapcert/fem/problem"
@@ -115,6 +117,54 @@ func TestGroundStateWithoutBlock(t *testing.T) {
 	c.Results.GroundState = nil
 	if _, err := NewGroundState(c, p); err == nil || !strings.Contains(err.Error(), "--ground-state") {
 		t.Errorf("error %v, want one with the hint --ground-state", err)
+	}
+}
+
+// TestGroundStateUndecided: an undecided block without values (λ1 not
+// separated from λ2: the symmetric double well 200(x² − 1)² on (−3, 3),
+// whose two lowest eigenvalues, near 27.76, differ by less than the widths
+// of their enclosures at the target 1e-3; measured) says why under the
+// picture, and draws no value panel; the picture is also written as PNG.
+func TestGroundStateUndecided(t *testing.T) {
+	c, p := certifiedGroundState(t, `{"name": "deep double well", "domain": {"interval": ["-3", "3"]}, "potential": "200*(x^2-1)^2",
+	  "boundary": "dirichlet", "points": [["0"], ["1"]], "target": {"relative_width": "1e-3"}}`)
+	g, err := NewGroundState(c, p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if g.Verdict != certs.Undecided || len(g.Values) != 0 {
+		t.Fatalf("verdict %s with %d values, want undecided without values", g.Verdict, len(g.Values))
+	}
+	dir := t.TempDir()
+	path := filepath.Join(dir, "gs.svg")
+	if err := g.Write(path); err != nil {
+		t.Fatal(err)
+	}
+	text := strings.Join(texts(parseSVG(t, path)), "\n")
+	for _, w := range []string{"log-concave: undecided", "Undecided: lambda1 is not shown to be separated", "The certificate gives no values of u at the points"} {
+		if !strings.Contains(text, w) {
+			t.Errorf("picture lacks %q; texts:\n%s", w, text)
+		}
+	}
+	if strings.Contains(text, "\nu\n") {
+		t.Error("a value panel was drawn without values")
+	}
+	png := filepath.Join(dir, "gs.png")
+	if err := g.Write(png); err != nil {
+		t.Fatal(err)
+	}
+	if img := decodePNG(t, png); img.Bounds().Dx() != int(math.Round(float64(pictureWidth/vg.Inch)*PNGDPI)) {
+		t.Errorf("PNG width %d", img.Bounds().Dx())
+	}
+}
+
+// TestWrapWords: lines of at most the width, words kept whole, the rest
+// cut with an ellipsis.
+func TestWrapWords(t *testing.T) {
+	got := wrapWords("aa bb cc dddddd ee", 5, 3)
+	want := []string{"aa bb", "cc", "dddddd …"}
+	if !reflect.DeepEqual(got, want) {
+		t.Errorf("wrapWords: %q, want %q", got, want)
 	}
 }
 
