@@ -72,6 +72,13 @@ func TestGroundStateInterval(t *testing.T) {
 	if err := g.Write(path); err != nil {
 		t.Fatal(err)
 	}
+	again := filepath.Join(dir, "again.svg")
+	if err := g.Write(again); err != nil {
+		t.Fatal(err)
+	}
+	if a, b := mustRead(t, path), mustRead(t, again); string(a) != string(b) {
+		t.Error("two writes of the same picture differ")
+	}
 	got := summarise(t, path)
 	text := "\n" + strings.Join(got.Texts, "\n") + "\n"
 	for _, w := range []string{
@@ -248,4 +255,13 @@ func TestGroundStatePolygonPicture(t *testing.T) {
 	if strings.Contains(text, "arc length") || !strings.Contains(text, "do not lie on one segment in order") {
 		t.Errorf("without a segment: texts\n%s", text)
 	}
+}
+
+func mustRead(t *testing.T, path string) []byte {
+	t.Helper()
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return data
 }

@@ -137,6 +137,7 @@ func TestPNG(t *testing.T) {
 	for name, pic := range map[string]picture{
 		"band": goldenBand(t).picture(NoPanel), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture(NoPanel),
 		"band and widths": goldenBand(t).picture(WidthPanel), "band and margins": goldenBand(t).picture(MarginPanel),
+		"log-concavity": goldenShape(t).picture(),
 	} {
 		path := filepath.Join(dir, name+".png")
 		if err := pic.write(path); err != nil {
