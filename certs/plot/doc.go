@@ -1,12 +1,17 @@
 // Package plot implements pictures of certified problems: the mesh of a
 // polygon and the first approximate eigenfunctions of an interval or a
-// polygon, written as PNG or SVG files.
+// polygon, and the ground-state block of a certificate (GroundState),
+// written as PNG or SVG files.
 //
 // Everything in this package is floating point at round-to-nearest and
-// belongs to the choosing side of gapcert: the pictures show approximations
-// and are no part of any proof. Every picture says so in its caption (the
-// text in Caption). The certified enclosures appear only as the label text
-// the caller passes in; the package never computes or rounds a bound.
+// belongs to the choosing side of gapcert: the pictures of modes show
+// approximations and are no part of any proof. Every such picture says so
+// in its caption (the text in Caption). The certified enclosures appear
+// only as the label text the caller passes in, or, in the ground-state
+// picture, as the certificate's enclosures of u read back outward
+// (certs.Bound.Interval) and drawn as bars at the problem's points only;
+// the package never computes or rounds a bound. Whether the points lie on
+// one segment in order is decided exactly on their rational coordinates.
 //
 // Guarantees:
 //   - output is deterministic: the same Modes give the same picture sizes,

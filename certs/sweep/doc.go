@@ -22,7 +22,8 @@
 //	  ],
 //	  "claims": ["gap >= 3*pi^2/D^2"],                 optional, appended to the template's
 //	  "relative_width": "0.05",                        optional target of every point
-//	  "time_limit": "10s"                              optional budget of every point
+//	  "time_limit": "10s",                             optional budget of every point
+//	  "ground_state": true                             optional: certify every point's ground state
 //	}
 //
 // A range gives count evenly spaced exact rationals lo + k(hi − lo)/(count − 1),
@@ -32,7 +33,12 @@
 // JSON numbers, read exactly (package interval/decimalio). A parameter
 // may not be swept twice nor also be fixed in the template's own
 // "parameters". relative_width lies in (0, 1); time_limit is a Go duration
-// ("90s", "2m").
+// ("90s", "2m"). With "ground_state": true every certificate also holds
+// results.ground_state (certify.Options.GroundState: the log-concavity
+// verdict of the ground state, its witness or best margin, the L2 error
+// bound and the values at the problem's points), and a certificate
+// without the block is not a certificate of the family (not reused, not
+// merged).
 //
 // # Expansion
 //

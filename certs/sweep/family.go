@@ -42,6 +42,9 @@ type Family struct {
 	// point (0 = the certification default).
 	RelWidth  string
 	TimeLimit time.Duration
+	// GroundState asks every point's certificate for its ground-state
+	// block (certify.Options.GroundState, results.ground_state).
+	GroundState bool
 	// Points are all points of the family in expansion order.
 	Points []*FamilyPoint
 
@@ -112,6 +115,7 @@ type familyFile struct {
 	Claims        []string          `json:"claims"`
 	RelativeWidth json.RawMessage   `json:"relative_width"`
 	TimeLimit     *string           `json:"time_limit"`
+	GroundState   *bool             `json:"ground_state"`
 }
 
 type paramFile struct {
@@ -137,7 +141,7 @@ func ParseFamily(data []byte) (*Family, error) {
 	var ff familyFile
 	if err := strictjson.Decode(data, &ff); err != nil {
 		path, msg := strictIssue("", err)
-		return nil, invalid(path, msg, "a family file is one JSON object with the keys name, template, parameters, claims, relative_width, time_limit, each once and spelled so")
+		return nil, invalid(path, msg, "a family file is one JSON object with the keys name, template, parameters, claims, relative_width, time_limit, ground_state, each once and spelled so")
 	}
 	sum := sha256.Sum256(data)
 	f := &Family{Name: ff.Name, SHA256: hex.EncodeToString(sum[:]), data: append([]byte(nil), data...)}
@@ -198,6 +202,9 @@ func ParseFamily(data []byte) (*Family, error) {
 		} else {
 			f.TimeLimit = d
 		}
+	}
+	if ff.GroundState != nil {
+		f.GroundState = *ff.GroundState
 	}
 	if len(iss) > 0 || template == nil {
 		return nil, &InvalidError{Issues: iss}

@@ -126,6 +126,8 @@ func TestFamilyErrors(t *testing.T) {
 		{"missing template", `{"parameters": [{"name": "L", "values": ["1"]}]}`, "template: missing template"},
 		{"huge value", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1e-5000"]}]}`, "too large or too finely divided"},
 		{"bad width", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "relative_width": "1"}`, "relative_width: must lie in (0, 1)"},
+		{"ground state not a boolean", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "ground_state": "yes"}`, "ground_state"},
+		{"ground state case variant", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "Ground_State": true}`, `unknown key "Ground_State"`},
 		{"bad time limit", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "time_limit": "soon"}`, "time_limit:"},
 		{"family claim beyond the eigenvalues", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "claims": ["gap > 0", "lambda5 >= 1"]}`, `claims[1]: point 0 (L=1): claim "lambda5 >= 1", column 1: lambda5 is not certified: the problem asks for 2 eigenvalues (hint: set "eigenvalues": 5 or more)`},
 		{"family claim of a polygon quantity", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1", "2"]}], "claims": ["area > 0"]}`, `claims[0]: point 0 (L=1): claim "area > 0", column 1: area is defined for polygons only (hint: on an interval use D, its length)`},

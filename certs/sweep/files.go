@@ -113,8 +113,12 @@ func UnmarshalSummary(data []byte) (*Summary, error) {
 // status, verdict, lambda<k>_lower/upper for each eigenvalue of the first
 // point, gap_lower/upper, gap_d2_over_pi2_lower/upper, one verdict column
 // per claim named by the claim's text ("gap >= 3*pi^2/D^2",
-// "@triangle_gap"; every point of a family has the same claims), file,
-// certificate_sha256, error. Bounds are the certificate's decimal strings.
+// "@triangle_gap"; every point of a family has the same claims), when the
+// summary's family asks for the ground state (Summary.GroundState) the
+// columns log_concavity (proven, disproven, undecided), witness (its
+// kind), shape_margin_lower/upper (ShapeMargin) and l2_error_upper, then
+// file, certificate_sha256, error. Bounds are the certificate's decimal
+// strings.
 func SummaryCSV(s *Summary) ([]byte, error) {
 	eigen := 0
 	var claimTexts []string
@@ -133,6 +137,9 @@ func SummaryCSV(s *Summary) ([]byte, error) {
 	}
 	header = append(header, "gap_lower", "gap_upper", "gap_d2_over_pi2_lower", "gap_d2_over_pi2_upper")
 	header = append(header, claimTexts...)
+	if s.GroundState {
+		header = append(header, "log_concavity", "witness", "shape_margin_lower", "shape_margin_upper", "l2_error_upper")
+	}
 	header = append(header, "file", "certificate_sha256", "error")
 	var buf bytes.Buffer
 	w := csv.NewWriter(&buf)
@@ -160,6 +167,9 @@ func SummaryCSV(s *Summary) ([]byte, error) {
 				row = append(row, "")
 			}
 		}
+		if s.GroundState {
+			row = append(row, groundStateColumns(p.GroundState)...)
+		}
 		row = append(row, p.File, p.CertificateSHA256, p.Error)
 		if err := w.Write(row); err != nil {
 			return nil, err
@@ -167,6 +177,23 @@ func SummaryCSV(s *Summary) ([]byte, error) {
 	}
 	w.Flush()
 	return buf.Bytes(), w.Error()
+}
+
+// groundStateColumns returns the ground-state columns of SummaryCSV for
+// one point (empty strings where the point has nothing to say).
+func groundStateColumns(gs *certs.GroundState) []string {
+	if gs == nil {
+		return []string{"", "", "", "", ""}
+	}
+	kind := ""
+	if gs.Witness != nil {
+		kind = gs.Witness.Kind
+	}
+	lo, hi := "", ""
+	if m := ShapeMargin(gs); m != nil {
+		lo, hi = m.Lower, m.Upper
+	}
+	return []string{gs.LogConcavity, kind, lo, hi, gs.L2Error}
 }
 
 // writeSummary writes s as base.json and base.csv in dir, replacing
@@ -195,6 +222,7 @@ func fillFromCertificate(p *Point, c *certs.Certificate) {
 	p.Diameter = c.Results.Diameter
 	p.GapD2OverPi2 = c.Results.GapD2OverPi2
 	p.Claims = c.Claims
+	p.GroundState = c.Results.GroundState
 	p.Verdict = worstVerdict(c.Claims)
 }
 

@@ -22,11 +22,12 @@ const StatusVerified = "verified"
 
 // Kinds of merge issues.
 const (
-	IssueFamily    = "family"    // the directories hold different or no family files
-	IssueForeign   = "foreign"   // a certificate file that is not of a point of the family
-	IssueTampered  = "tampered"  // a certificate of a point that does not verify
-	IssueMissing   = "missing"   // a point without a certificate
-	IssueDuplicate = "duplicate" // a point with more than one certificate
+	IssueFamily    = "family"     // the directories hold different or no family files
+	IssueForeign   = "foreign"    // a certificate file that is not of a point of the family
+	IssueTampered  = "tampered"   // a certificate of a point that does not verify
+	IssueMissing   = "missing"    // a point without a certificate
+	IssueDuplicate = "duplicate"  // a point with more than one certificate
+	IssueNoGround  = "incomplete" // a certificate without the ground-state block its family asks for
 )
 
 // MergeIssue is one defect found by Merge. Index is the point (−1 when
@@ -79,10 +80,11 @@ func (e *MergeError) Error() string {
 // file named *.cert.json in them must be the certificate of a point of
 // the family: its name gives a point index and the point's problem hash
 // prefix, it records exactly the expansion of that point (problem_sha256
-// equal to the point's problem hash) and it verifies (certify.Check).
-// Every point must have exactly one such certificate. Otherwise Merge
-// returns a *MergeError listing each foreign, tampered, duplicate and
-// missing file or point, and writes nothing. Nothing is written either
+// equal to the point's problem hash), it verifies (certify.Check), and it
+// holds results.ground_state when the family asks for it. Every point must
+// have exactly one such certificate. Otherwise Merge returns a *MergeError
+// listing each foreign, tampered, incomplete, duplicate and missing file
+// or point, and writes nothing. Nothing is written either
 // when outDir already holds a different file under the name of a
 // certificate or of the family file, or a certificate file that is not
 // one of the merged ones. The certificates are written first (each
@@ -171,6 +173,7 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 		Shard:        whole,
 		Parameters:   f.ParamNames(),
 		TotalPoints:  len(f.Points),
+		GroundState:  f.GroundState,
 	}
 	var sources []verifiedFile
 	for _, pt := range f.Points {
@@ -362,6 +365,9 @@ func mergeFile(f *Family, path string) (*Point, *MergeIssue) {
 	}
 	if err := certify.Check(data); err != nil {
 		return nil, &MergeIssue{Kind: IssueTampered, Index: index, File: path, Msg: oneLine(err)}
+	}
+	if f.GroundState && cert.Results.GroundState == nil {
+		return nil, &MergeIssue{Kind: IssueNoGround, Index: index, File: path, Msg: noGroundState}
 	}
 	p := &Point{Index: index, Params: f.ParamText(pt), Status: StatusVerified, CertificateSHA256: sha256Hex(data)}
 	fillFromCertificate(p, cert)

@@ -48,7 +48,8 @@ type RunOptions struct {
 	// Certificates do not depend on it, except through the time limit.
 	Jobs int
 	// Progress receives one line per point, naming it by its index (from
-	// 0, as in file names and summaries), with its status and verdict, the
+	// 0, as in file names and summaries), with its status and verdict (and
+	// the log-concavity verdict of its ground state, when certified), the
 	// widest relative width its certificate reached, the width target, the
 	// point's time and the time since the run started; nil = quiet.
 	Progress func(format string, args ...any)
@@ -66,6 +67,10 @@ const (
 	MaxRefineRounds = 3
 	RefineFactor    = 10
 )
+
+// noGroundState says why a certificate without results.ground_state is not
+// one of a family that asks for it.
+const noGroundState = "has no results.ground_state, which the family asks for (\"ground_state\": true)"
 
 // rejectedSuffix is appended to the name of a set-aside certificate.
 const rejectedSuffix = ".rejected"
@@ -124,6 +129,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		Shard:        shard,
 		Parameters:   f.ParamNames(),
 		TotalPoints:  len(f.Points),
+		GroundState:  f.GroundState,
 	}
 	var mine []*FamilyPoint
 	for _, pt := range f.Points {
@@ -145,6 +151,9 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		msg := p.Status
 		if p.Verdict != "" {
 			msg += ", " + p.Verdict
+		}
+		if p.GroundState != nil {
+			msg += ", log-concave " + p.GroundState.LogConcavity
 		}
 		if p.Error != "" {
 			msg += ": " + p.Error
@@ -225,7 +234,7 @@ func (r *runner) point(pt *FamilyPoint) Point {
 	data, err := os.ReadFile(path)
 	switch {
 	case err == nil:
-		cert, why := verifyFor(data, hash)
+		cert, why := verifyFor(data, hash, r.f.GroundState)
 		if why == "" {
 			p.Status = StatusReused
 			p.RelWidth = r.widths[sha256Hex(data)]
@@ -263,9 +272,10 @@ func (r *runner) point(pt *FamilyPoint) Point {
 }
 
 // verifyFor checks a certificate file of the point with problem hash
-// hash: it must verify (certify.Check) and record that problem. It returns
-// the certificate, or why it is not acceptable.
-func verifyFor(data []byte, hash string) (*certs.Certificate, string) {
+// hash: it must verify (certify.Check), record that problem and, when
+// groundState is set, hold results.ground_state. It returns the
+// certificate, or why it is not acceptable.
+func verifyFor(data []byte, hash string, groundState bool) (*certs.Certificate, string) {
 	if err := certify.Check(data); err != nil {
 		return nil, "does not verify (" + oneLine(err) + ")"
 	}
@@ -275,6 +285,9 @@ func verifyFor(data []byte, hash string) (*certs.Certificate, string) {
 	}
 	if cert.ProblemSHA256 != hash {
 		return nil, "holds another problem (problem_sha256 " + cert.ProblemSHA256 + ")"
+	}
+	if groundState && cert.Results.GroundState == nil {
+		return nil, noGroundState
 	}
 	return cert, ""
 }
@@ -311,6 +324,7 @@ func (r *runner) certify(pt *FamilyPoint, w float64) ([]byte, *certs.Certificate
 	}
 	cert, err := certify.Certify(context.Background(), pt.Problem, certify.Options{
 		RelWidth: text, TimeLimit: r.limit, Tool: r.opt.Tool, Now: r.opt.Now, Memory: r.opt.Memory,
+		GroundState: r.f.GroundState,
 	})
 	if err != nil {
 		return nil, nil, err

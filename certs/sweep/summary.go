@@ -23,6 +23,9 @@ type Summary struct {
 	Parameters []string `json:"parameters"`
 	// TotalPoints is the number of points of the whole family (all shards).
 	TotalPoints int `json:"total_points"`
+	// GroundState is set when the family asks every certificate for its
+	// ground-state block; then each certified point carries it.
+	GroundState bool `json:"ground_state,omitempty"`
 	// Points are the points of this run, in increasing Index.
 	Points []Point `json:"points"`
 }
@@ -72,10 +75,30 @@ type Point struct {
 	Diameter     certs.Bound         `json:"diameter"`
 	GapD2OverPi2 certs.Bound         `json:"gap_d2_over_pi2"`
 	Claims       []certs.ClaimResult `json:"claims"`
+	// GroundState is the certificate's results.ground_state, copied
+	// whole (nil when the family does not ask for it, or when there is
+	// no certificate).
+	GroundState *certs.GroundState `json:"ground_state,omitempty"`
 	// Verdict is the least favourable verdict over Claims (fails before
 	// undecided before holds), "" when there are no claims or no
 	// certificate.
 	Verdict string `json:"verdict"`
 	Status  string `json:"status"`
 	Error   string `json:"error,omitempty"`
+}
+
+// ShapeMargin returns the margin a summary lists for a ground state's
+// log-concavity verdict: the witness's margin when the verdict is
+// disproven (see certs.ShapeWitness: its lower end is positive), the best
+// candidate's margin when it is undecided and one was recorded, else nil.
+// It is copied from the certificate, never computed.
+func ShapeMargin(gs *certs.GroundState) *certs.Bound {
+	switch {
+	case gs == nil:
+		return nil
+	case gs.Witness != nil:
+		m := gs.Witness.Margin
+		return &m
+	}
+	return gs.Margin
 }

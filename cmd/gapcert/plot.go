@@ -1,19 +1,27 @@
 package main
 
 import (
+	"encoding/json"
 	"errors"
 	"fmt"
+	"io"
+	"os"
 
 	"github.com/spf13/cobra"
 
+	"gapcert/certs"
+	"gapcert/certs/certify"
+	"gapcert/certs/plot"
 	"gapcert/certs/plot/sweepplot"
+	"gapcert/fem/problem"
 )
 
 func newPlotCmd() *cobra.Command {
 	var x, y, quantity, reference, threshold, relation, claim, out, band string
+	var shape bool
 	cmd := &cobra.Command{
-		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N) --out FILE.png|.svg",
-		Short: "Draw the certified results of a sweep against its parameters",
+		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N | --log-concavity) --out FILE.png|.svg\n  gapcert plot CERT.json --out FILE.png|.svg",
+		Short: "Draw the certified results of a sweep against its parameters, or a certificate's ground state",
 		Long: `plot draws the certified results of a sweep ("gapcert sweep"), read from
 its summary (SUMMARY.json; for a directory DIR/summary.json, written by
 an unsharded sweep or by merge, else the one summary-shard-i-of-n.json of
@@ -47,6 +55,19 @@ panel of each enclosure's width hi − lo on a logarithmic axis, and --band
 margin (with --threshold) a panel of the certified enclosure of quantity −
 threshold with the line 0, on its own axis.
 
+Log-concavity, --x PARAM --log-concavity: the certified verdict on the
+log-concavity of the ground state (proven, disproven with a witness,
+undecided) at each point of a one-parameter sweep whose family asks for
+the ground state ("ground_state": true).
+
+A certificate, CERT.json (written by certify --ground-state): check
+re-verifies it first (exit 3 if it does not verify), then the picture
+shows the domain with the log-concavity witness marked (the convex
+interval on an interval; the points x, y, their midpoint m and the chord
+on a polygon) and the problem's points; when those lie on one segment in
+order (decided exactly), a second panel draws the certified enclosure of
+u at each of them against the arc length, certified at those points only.
+
 The format follows the extension of --out (.png or .svg). Only the
 sampled points are certified; the pictures say so. This command draws
 sweeps; "certify --plot DIR" draws the approximate eigenfunctions of one
@@ -54,16 +75,27 @@ problem.
 
 Exit status: 0 on success, 1 on bad usage, an unreadable summary, an
 unknown parameter or name or an empty sweep, 3 if the summary disagrees
-with a certificate file.`,
+with a certificate file or a certificate drawn alone does not verify.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			fail := func(err error) error { return &exitError{code: exitFailure, err: err} }
-			switch {
-			case out == "":
+			if out == "" {
 				return fail(errors.New("--out FILE.png or FILE.svg is required"))
+			}
+			if isCertificate(args[0]) {
+				for _, name := range []string{"x", "y", "quantity", "reference", "threshold", "relation", "claim", "band", "log-concavity"} {
+					if cmd.Flags().Changed(name) {
+						return fail(fmt.Errorf("--%s belongs to a sweep; %s is a certificate, drawn with --out alone", name, args[0]))
+					}
+				}
+				return plotCertificate(cmd, args[0], out)
+			}
+			switch {
 			case x == "":
 				return fail(errors.New("--x PARAM is required"))
-			case y == "" && quantity == "":
+			case shape && (y != "" || quantity != "" || reference != "" || threshold != "" || claim != "" || band != ""):
+				return fail(errors.New("--log-concavity draws the ground state's verdicts over one parameter; it takes --x alone"))
+			case y == "" && quantity == "" && !shape:
 				return fail(errors.New("give --quantity EXPR (a band over one parameter) or --y PARAM and --claim N (a map over two)"))
 			case y != "" && (quantity != "" || reference != "" || threshold != ""):
 				return fail(errors.New("--y draws a map of a claim's margin; --quantity, --reference and --threshold belong to a band over one parameter"))
@@ -93,14 +125,21 @@ with a certificate file.`,
 			}
 			var write func(string) error
 			var missing, uncertified int
-			if y == "" {
+			switch {
+			case shape:
+				sh, err := s.Shape(x)
+				if err != nil {
+					return fail(err)
+				}
+				write, missing, uncertified = sh.Write, sh.Missing, len(sh.Uncertified)
+			case y == "":
 				b, err := s.Band(x, sweepplot.BandSpec{Quantity: quantity, Reference: reference, Threshold: threshold, Rel: relation})
 				if err != nil {
 					return fail(err)
 				}
 				write = func(path string) error { return b.WritePanel(path, panel) }
 				missing, uncertified = b.Missing, len(b.Uncertified)
-			} else {
+			default:
 				m, err := s.Map(x, y, claim)
 				if err != nil {
 					return fail(err)
@@ -133,5 +172,61 @@ with a certificate file.`,
 	f.StringVar(&y, "y", "", "the second parameter, on the vertical axis (map)")
 	f.StringVar(&claim, "claim", "", "the claim of a map: its number (1-based) or its text")
 	f.StringVarP(&out, "out", "o", "", "the picture file, .png or .svg")
+	f.BoolVar(&shape, "log-concavity", false, "draw the certified log-concavity verdict of the ground state at each point (one-parameter sweep with \"ground_state\": true)")
 	return cmd
+}
+
+// maxPlotInput bounds what isCertificate reads of a file.
+const maxPlotInput = 256 << 20
+
+// isCertificate reports whether path is a file whose "format" is the
+// certificate format. It only chooses the kind of picture: the file is
+// then read strictly by the certificate reader.
+func isCertificate(path string) bool {
+	st, err := os.Stat(path)
+	if err != nil || !st.Mode().IsRegular() {
+		return false
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return false
+	}
+	defer f.Close()
+	var head struct {
+		Format string `json:"format"`
+	}
+	err = json.NewDecoder(io.LimitReader(f, maxPlotInput)).Decode(&head)
+	return err == nil && head.Format == certs.Format
+}
+
+// plotCertificate re-verifies the certificate at path (certify.Check)
+// and draws its ground-state block into out.
+func plotCertificate(cmd *cobra.Command, path, out string) error {
+	if err := checkPictureFile(out, path); err != nil {
+		return err
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return readFailure(err)
+	}
+	if err := checkExit(path, certify.Check(data)); err != nil {
+		return err
+	}
+	c, err := certs.Unmarshal(data)
+	if err != nil {
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", path, err)}
+	}
+	p, err := problem.Parse(c.Problem)
+	if err != nil {
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: the recorded problem does not parse: %v", path, err)}
+	}
+	g, err := plot.NewGroundState(c, p)
+	if err != nil {
+		return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", path, err)}
+	}
+	if err := g.Write(out); err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	fmt.Fprintf(cmd.OutOrStdout(), "%s: certificate verifies; picture written to %s\n", path, out)
+	return nil
 }

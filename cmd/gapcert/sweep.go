@@ -52,6 +52,9 @@ recomputes the point). --refine-undecided recomputes points whose claims
 are undecided with a width target 10 times below the widest width reached,
 at most 3 times, keeping a new certificate only if it verifies.
 --jobs N certifies N points at a time. "gapcert merge" gathers the shards.
+A family with "ground_state": true certifies every point's ground state
+(as certify --ground-state); the summaries then list each point's
+log-concavity verdict, witness kind and margin.
 
 Exit status: 0 if every point has a valid certificate, 1 on a failure
 (including a point that could not be certified), 2 if the family file or
@@ -211,6 +214,15 @@ func printSweepCounts(w io.Writer, s *sweep.Summary) {
 	fmt.Fprintf(w, "points: %s\n", strings.Join(parts, ", "))
 	if len(verdict) > 0 {
 		fmt.Fprintf(w, "claims: %d all hold, %d undecided, %d fail\n", verdict[certs.Holds], verdict[certs.Undecided], verdict[certs.Fails])
+	}
+	if s.GroundState {
+		shape := map[string]int{}
+		for _, p := range s.Points {
+			if p.GroundState != nil {
+				shape[p.GroundState.LogConcavity]++
+			}
+		}
+		fmt.Fprintf(w, "ground state log-concave: %d proven, %d disproven (with a witness), %d undecided\n", shape[certs.Proven], shape[certs.Disproven], shape[certs.Undecided])
 	}
 	for _, p := range s.Points {
 		for _, c := range p.Claims {

@@ -6,7 +6,9 @@
 // optional second certified band (a reference), a threshold, and each
 // point marked by its verdict; for a two-parameter sweep, a map of cells
 // coloured by a certified lower bound of one claim's margin, undecided and
-// failing cells marked. Under a band, a second panel (Panel) may show the
+// failing cells marked; for a one-parameter sweep whose family asks for
+// the ground state, the certified log-concavity verdict of the ground
+// state at each point (Sweep.Shape). Under a band, a second panel (Panel) may show the
 // width of each enclosure on a logarithmic axis, or the enclosure of
 // quantity − threshold on its own axis, for enclosures too narrow to see
 // against the range of the quantity. A map's colour scale is diverging
@@ -32,7 +34,8 @@
 // come from the summary's points, each read back outward from its decimal
 // strings (certs.Bound.Interval), and are cross-checked against the
 // certificate files beside the summary (file SHA-256, problem hash and
-// every enclosure and claim result, string for string); reference
+// every enclosure, claim result and ground-state block, string for
+// string); reference
 // quantities are the decimal strings of the reference certificates,
 // read back outward likewise; a quantity, reference or threshold is
 // enclosed in interval arithmetic over them

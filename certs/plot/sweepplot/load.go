@@ -44,8 +44,8 @@ type Sweep struct {
 // sweep.SummaryIn) and cross-checks every point against its
 // certificate file when the file is in the summary's directory: the file's
 // SHA-256 must be the point's certificate_sha256, and its problem hash,
-// eigenvalue, gap, diameter and D²·gap/π² enclosures and claim results
-// must be those of the point, string for string (a claim's reference
+// eigenvalue, gap, diameter and D²·gap/π² enclosures, claim results and
+// ground-state block must be those of the point, string for string (a claim's reference
 // certificate only when the summary carries one). The reference quantities
 // of built-in claims (Sweep.References) are read from the certificate
 // file, never from the summary. A point whose file is absent is counted in
@@ -150,6 +150,7 @@ func crossCheck(pt sweep.Point, raw []byte) (*problem.Problem, map[string]certs.
 		same("diameter", r.Diameter, pt.Diameter),
 		same("gap_d2_over_pi2", r.GapD2OverPi2, pt.GapD2OverPi2),
 		same("claims", asSummarised(c.Claims, pt.Claims), nonNil(pt.Claims)),
+		same("ground_state", r.GroundState, pt.GroundState),
 	} {
 		if chk != nil {
 			return nil, nil, chk

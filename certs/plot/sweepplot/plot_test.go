@@ -63,6 +63,7 @@ func TestGoldenSVG(t *testing.T) {
 		{"band_margin", func(path string) error { return goldenBand(t).WritePanel(path, MarginPanel) }},
 		{"robin_band_width", func(path string) error { return robinBand(t).WritePanel(path, WidthPanel) }},
 		{"map_sequential", sequentialMap(t).Write},
+		{"shape", goldenShape(t).Write},
 	} {
 		path := filepath.Join(dir, c.golden+".svg")
 		if err := c.write(path); err != nil {
@@ -136,6 +137,7 @@ func TestPNG(t *testing.T) {
 	for name, pic := range map[string]picture{
 		"band": goldenBand(t).picture(NoPanel), "map": goldenMap(t).picture(), "robin band": robinBand(t).picture(NoPanel),
 		"band and widths": goldenBand(t).picture(WidthPanel), "band and margins": goldenBand(t).picture(MarginPanel),
+		"log-concavity": goldenShape(t).picture(),
 	} {
 		path := filepath.Join(dir, name+".png")
 		if err := pic.write(path); err != nil {

@@ -14,7 +14,7 @@ var update = flag.Bool("update", false, "recompute the sweeps in testdata/sweeps
 
 // sweepNames are the sweeps of the tests: testdata/families/NAME.json run
 // by sweep.Run into testdata/sweeps/NAME (with -update).
-var sweepNames = []string{"convex", "triangle", "robin", "robin_mixed"}
+var sweepNames = []string{"convex", "triangle", "robin", "robin_mixed", "hump"}
 
 func sweepDir(name string) string { return filepath.Join("testdata", "sweeps", name) }
 
