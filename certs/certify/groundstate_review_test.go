@@ -47,13 +47,13 @@ func TestGroundStateReviewClosedForms(t *testing.T) {
 		},
 		{
 			// Neumann, V = 0 on (1/10, 7/10): λ1 = 0, u = 1/√(3/5).
-			// g = −λ1u² − u′² is 0 for the exact u, so g ≤ 0 cannot be
-			// shown where the enclosure of λ1 reaches below 0; the
-			// verdict may be undecided, never disproven.
-			name: "neumann constant",
-			src:  `{"domain":{"interval":["1/10","7/10"]},"boundary":"neumann","points":[["1/10"],["1/3"],["0.5"],["7/10"]]}`,
-			xs:   []float64{0.1, 1.0 / 3, 0.5, 0.7},
-			want: func(float64) float64 { return 1 / math.Sqrt(0.6) },
+			// g = −λ1u² − u′² is 0 for the exact u: g ≤ 0 is shown only
+			// because the enclosure of λ1 is cut at inf V = 0.
+			name:    "neumann constant",
+			src:     `{"domain":{"interval":["1/10","7/10"]},"boundary":"neumann","points":[["1/10"],["1/3"],["0.5"],["7/10"]]}`,
+			xs:      []float64{0.1, 1.0 / 3, 0.5, 0.7},
+			want:    func(float64) float64 { return 1 / math.Sqrt(0.6) },
+			verdict: certs.Proven,
 		},
 		{
 			// Dirichlet on (1, 1 + π), both ends irrational or shifted:
