@@ -1,7 +1,9 @@
 package certify
 
 import (
+	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"gapcert/certs"
@@ -442,5 +444,56 @@ func TestGroundStateReviewFloatReferences(t *testing.T) {
 				t.Logf("u(%s) = %.12g in %v (width %.3g)", gs.Points[i].At[0], u, got, got.Wid())
 			}
 		})
+	}
+}
+
+// TestGroundStateReviewCheck: Check reproduces the block of a problem
+// with irrational points and ends, and of the asymmetric well (witness in
+// the right shot), and refuses an edited witness value or margin.
+func TestGroundStateReviewCheck(t *testing.T) {
+	c := certifyGroundState(t, `{"domain":{"interval":["1","1+pi"]},"boundary":[{"robin":"1/3"},"dirichlet"],"points":[["1"],["1+pi/3"],["sqrt(5)"],["1+pi"]]}`, "1e-8")
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("Robin–Dirichlet certificate does not verify: %v", err)
+	}
+	c = certifyGroundState(t, `{"domain":{"interval":["-3","2"]},"potential":"6*(x^2-1)^2","boundary":"dirichlet"}`, "1e-8")
+	if data, err = c.Marshal(); err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("asymmetric well does not verify: %v", err)
+	}
+	w := c.Results.GroundState.Witness
+	if w == nil {
+		t.Fatalf("no witness: %s", c.Results.GroundState.Reason)
+	}
+	for _, old := range []string{`"lower": "` + w.Values[0].Lower + `"`, `"upper": "` + w.Margin.Upper + `"`} {
+		edited := strings.Replace(string(data), old, strings.Replace(old, `": "`, `": "1`, 1), 1)
+		if edited == string(data) {
+			t.Fatalf("the edit of %s changed nothing", old)
+		}
+		var mm *MismatchError
+		if err := Check([]byte(edited)); !errors.As(err, &mm) {
+			t.Errorf("edited %s: want a mismatch, got %v", old, err)
+		}
+	}
+}
+
+// TestGroundStateReviewConstantPotential: Neumann with V = 3 on (0, 1):
+// λ1 = 3 exactly and u = 1 (common practice); with λ1 cut at inf V the
+// verdict is proven.
+func TestGroundStateReviewConstantPotential(t *testing.T) {
+	c := certifyGroundState(t, `{"domain":{"interval":["0","1"]},"boundary":"neumann","potential":"3","points":[["0"],["1/3"],["1"]]}`, "1e-9")
+	gs := c.Results.GroundState
+	if gs.LogConcavity != certs.Proven {
+		t.Errorf("verdict %s (%s), want proven", gs.LogConcavity, gs.Reason)
+	}
+	for _, pv := range gs.Points {
+		if got := boundOf(t, pv.Value); !containsRef(got, 1, 0) || got.Wid() > 1e-9 {
+			t.Errorf("u(%s) in %v, want 1 inside, narrow", pv.At[0], got)
+		}
 	}
 }
