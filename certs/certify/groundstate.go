@@ -117,7 +117,7 @@ func shootingProblem(p *problem.Problem) groundstate.Problem {
 //	a(u, u) = ∫u′² + ∫V u² + Σ α u(end)² ≥ inf V·∫u²,
 //
 // so λ1 = min a(u, u)/∫u² ≥ inf V (the Rayleigh quotient; common
-// practice). Where V is constant and equal to λ1 (Neumann with V = c) the
+// practice; robinNonnegative checks α ≥ 0 again). Where V is constant and equal to λ1 (Neumann with V = c) the
 // exact g is 0, and only a λ1 enclosure that does not reach below V lets
 // the verdict show g ≤ 0.
 func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
@@ -128,8 +128,10 @@ func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 		return gs, nil
 	}
 	lambda := in.lambda1
-	if cut, ok := lambda.Intersection(interval.New(in.p.PotentialRange().Lo, math.Inf(1))); ok {
-		lambda = cut
+	if robinNonnegative(in.p) {
+		if cut, ok := lambda.Intersection(interval.New(in.p.PotentialRange().Lo, math.Inf(1))); ok {
+			lambda = cut
+		}
 	}
 	gp := shootingProblem(in.p)
 	lc, err := groundstate.LogConcavity(gp, lambda, groundstate.Options{})
@@ -180,6 +182,17 @@ func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 		gs.Points = append(gs.Points, certs.PointValue{At: []string{pt[0].Text}, Value: certs.NewBound(u.Div(n), Digits)})
 	}
 	return gs, nil
+}
+
+// robinNonnegative reports that every Robin coefficient of p is enclosed
+// in [0, ∞), so that λ1 ≥ inf V (groundStateInterval).
+func robinNonnegative(p *problem.Problem) bool {
+	for _, bc := range p.Boundary {
+		if bc.Kind == boundary.Robin && !(bc.Alpha.Val.Lo >= 0) {
+			return false
+		}
+	}
+	return true
 }
 
 // inwardEnds returns decimal texts lo, hi with x.Lo ≤ lo ≤ hi ≤ x.Hi: a
