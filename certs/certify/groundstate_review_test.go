@@ -496,3 +496,30 @@ func TestGroundStateReviewConstantPotential(t *testing.T) {
 		}
 	}
 }
+
+// TestGroundStateReviewWideLambda: with a coarse target (0.5) the first
+// step's enclosure of λ1 is wide (about 2%); the values of the
+// asymmetric well with Robin α = 1/2 at −5/2 and Dirichlet at 3 are then
+// wide, but still hold the independent RK4 reference, and the verdict is
+// not proven (the ground state dips at 0).
+func TestGroundStateReviewWideLambda(t *testing.T) {
+	c := certifyGroundState(t, `{"domain":{"interval":["-5/2","3"]},"potential":"6*(x^2-1)^2","boundary":[{"robin":"1/2"},"dirichlet"],"points":[["-5/2"],["-1"],["0"],["1"],["2"]]}`, "0.5")
+	gs := c.Results.GroundState
+	lam1 := boundOf(t, c.Results.Eigenvalues[0].Bound())
+	v := func(x float64) float64 { return 6 * (x*x - 1) * (x*x - 1) }
+	ref := newFloatGroundBC(v, -2.5, 3, [2]float64{1, 0.5}, [2]float64{0, -1}, lam1.Lo-0.1, lam1.Hi+0.1)
+	if !containsRef(lam1, ref.lam, 1e-9) {
+		t.Fatalf("float reference λ1 %.15g, certified %v", ref.lam, lam1)
+	}
+	if gs.LogConcavity == certs.Proven {
+		t.Errorf("verdict proven (%s) for a ground state with a dip", gs.Reason)
+	}
+	for i, x := range []float64{-2.5, -1, 0, 1, 2} {
+		got := boundOf(t, gs.Points[i].Value)
+		u, _ := ref.unit(x)
+		if !containsRef(got, u, 1e-9) {
+			t.Errorf("u(%s) in %v, reference %.15g", gs.Points[i].At[0], got, u)
+		}
+		t.Logf("λ1 in %v: u(%s) in %v (width %.2g), reference %.12g", lam1, gs.Points[i].At[0], got, got.Wid(), u)
+	}
+}
