@@ -3,6 +3,7 @@ package certify
 import (
 	"errors"
 	"fmt"
+	"math"
 	"sort"
 
 	"gapcert/certs"
@@ -108,6 +109,17 @@ func shootingProblem(p *problem.Problem) groundstate.Problem {
 // block is Undecided with that reason and has no values, so that a λ1
 // enclosure that also holds λ2 never yields a statement about the second
 // eigenfunction.
+//
+// The enclosure of λ1 is first cut at inf V (the verified lower end of V's
+// range over the domain): with Robin coefficients α ≥ 0 (the reader
+// refuses others) every u in the form domain has
+//
+//	a(u, u) = ∫u′² + ∫V u² + Σ α u(end)² ≥ inf V·∫u²,
+//
+// so λ1 = min a(u, u)/∫u² ≥ inf V (the Rayleigh quotient; common
+// practice; robinNonnegative checks α ≥ 0 again). Where V is constant and equal to λ1 (Neumann with V = c) the
+// exact g is 0, and only a λ1 enclosure that does not reach below V lets
+// the verdict show g ≤ 0.
 func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 	gs := &certs.GroundState{LogConcavity: certs.Undecided}
 	if gap := in.lambda2.Sub(in.lambda1); gap.Lo <= 0 {
@@ -115,8 +127,14 @@ func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 			decimalio.FormatLower(gap.Lo, 6))
 		return gs, nil
 	}
+	lambda := in.lambda1
+	if robinNonnegative(in.p) {
+		if cut, ok := lambda.Intersection(interval.New(in.p.PotentialRange().Lo, math.Inf(1))); ok {
+			lambda = cut
+		}
+	}
 	gp := shootingProblem(in.p)
-	lc, err := groundstate.LogConcavity(gp, in.lambda1, groundstate.Options{})
+	lc, err := groundstate.LogConcavity(gp, lambda, groundstate.Options{})
 	var ie *groundstate.IntegrationError
 	if errors.As(err, &ie) {
 		gs.Reason = "the validated integration of the ground state failed: " + err.Error()
@@ -127,7 +145,7 @@ func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 		// certified λ1 enclosure would be wrong. Stop with the reason.
 		return nil, fmt.Errorf("ground state: %w", err)
 	}
-	sv, err := newShotValues(gp, in.lambda1)
+	sv, err := newShotValues(gp, lambda)
 	if err != nil {
 		gs.Reason = "the ground state could not be normalised: " + err.Error()
 		return gs, nil
@@ -164,6 +182,17 @@ func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 		gs.Points = append(gs.Points, certs.PointValue{At: []string{pt[0].Text}, Value: certs.NewBound(u.Div(n), Digits)})
 	}
 	return gs, nil
+}
+
+// robinNonnegative reports that every Robin coefficient of p is enclosed
+// in [0, ∞), so that λ1 ≥ inf V (groundStateInterval).
+func robinNonnegative(p *problem.Problem) bool {
+	for _, bc := range p.Boundary {
+		if bc.Kind == boundary.Robin && !(bc.Alpha.Val.Lo >= 0) {
+			return false
+		}
+	}
+	return true
 }
 
 // inwardEnds returns decimal texts lo, hi with x.Lo ≤ lo ≤ hi ≤ x.Hi: a

@@ -188,7 +188,11 @@ var errStepTooSmall = errors.New("no a priori enclosure down to the smallest ste
 // interval overestimation that makes V look undefined), when stage 2
 // fails, when h²·|Q| > 1/4, and up to 4 times when h²·|R| > 2⁻⁵²; a step
 // ends at each kink that formula.Kinks lists, where Model1 takes one
-// branch on each closed step (all choices).
+// branch on each closed step (all choices). A kink that no step can end at
+// (not a float, or not reached exactly) leaves V without a Taylor model on
+// the steps containing it; once such a step is at most MaxStep·2⁻²⁸ long,
+// stage 1 uses V's range over the step as a constant model instead
+// (stepModels).
 //
 // Every operation is outward rounded; h is the interval s1 − s0 of two
 // floats. Shoot returns an *IntegrationError (with V's formula error
@@ -332,16 +336,35 @@ func initialVector(bc Boundary) [2]interval.I {
 	}
 }
 
+// rangeBits: a step at most remainderFloor·2⁻²⁴ long on which V has no
+// Taylor model takes V's range as its model (a choice: there V's range
+// widens the step's matrix by about h²·wid(range), far below rounding).
+const rangeBits = 24
+
 // stepModels returns the model of q = V − λ and the Taylor models of the
 // fundamental matrix on one step (stages 1–3 of Shoot); ok is false when
-// the step should be halved.
+// the step should be halved. Where V has no Taylor model on a step of at
+// most remainderFloor·2⁻²⁴ (rangeBits), q is the constant model of V's
+// range over the step minus λ.
 func stepModels(v *formula.Expr, x0, x1, h, lambda interval.I, deg, order int, remainderFloor float64) (q tmodel, m [2][2]tmodel, ok bool, err error) {
 	vm, err := v.Model1(x0, x1, order)
-	if err != nil {
+	switch {
+	case err == nil:
+		q = tmodel{c: append([]interval.I(nil), vm.C...), r: vm.R}
+		q.c[0] = q.c[0].Sub(lambda)
+	case h.Hi <= math.Ldexp(remainderFloor, -rangeBits):
+		// No Taylor model (a kink of V inside the step that no step can
+		// end at, such as |x − 1/3|): on a step this short, the constant
+		// model with V's range over the step (V(x) ∈ V(hull) for every x
+		// of the step, inclusion isotonicity of interval evaluation).
+		vr, rerr := v.Eval(map[string]interval.I{"x": x0.Hull(x1)})
+		if rerr != nil || !vr.IsBounded() {
+			return q, m, false, err
+		}
+		q = constModel(vr.Sub(lambda))
+	default:
 		return q, m, false, err
 	}
-	q = tmodel{c: append([]interval.I(nil), vm.C...), r: vm.R}
-	q.c[0] = q.c[0].Sub(lambda)
 	qRange := q.eval(unit)
 	h2 := float64(h.Hi * h.Hi)
 	if !qRange.IsBounded() || float64(h2*qRange.Mag()) > 0.25 {

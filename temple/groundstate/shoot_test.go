@@ -98,3 +98,46 @@ func TestEncloseSinWithWrongLambdaMissesSin(t *testing.T) {
 		t.Fatalf("u(1.5) ∈ %v contains sin 1.5 although λ ∈ [1.001, 1.002]", u)
 	}
 }
+
+// TestShootKinkNotFloat: V = 20|x − 1/3| on (0, 1), Dirichlet, with a kink
+// that no step can end at. The shot passes it on short steps modelled by
+// V's range, and at x = 1/2 its enclosure holds a float RK4 reference of
+// the same initial value problem (u(0) = 0, u′(0) = 1, λ = 10; classical
+// RK4 with 2·10⁵ steps, 1e4 of them on each side of... the kink inside one
+// step costs O(h²) ≈ 1e-10 there; common practice).
+func TestShootKinkNotFloat(t *testing.T) {
+	v, err := formula.Parse("20*abs(x-1/3)")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := Problem{V: v, A: interval.Point(0), B: interval.Point(1),
+		Left: Boundary{Kind: Dirichlet}, Right: Boundary{Kind: Dirichlet}}
+	shot, err := Shoot(p, LeftEnd, interval.Point(10), 0.5, Options{})
+	if err != nil {
+		t.Fatalf("the shot stops at the kink: %v", err)
+	}
+	u, du, ok := shot.At(0.5)
+	if !ok {
+		t.Fatal("no enclosure at 1/2")
+	}
+	const n = 200000
+	h := 0.5 / n
+	f := func(x, u, du float64) (float64, float64) { return du, (20*math.Abs(x-1.0/3) - 10) * u }
+	x, ru, rdu := 0.0, 0.0, 1.0
+	for i := 0; i < n; i++ {
+		k1u, k1d := f(x, ru, rdu)
+		k2u, k2d := f(x+h/2, ru+h/2*k1u, rdu+h/2*k1d)
+		k3u, k3d := f(x+h/2, ru+h/2*k2u, rdu+h/2*k2d)
+		k4u, k4d := f(x+h, ru+h*k3u, rdu+h*k3d)
+		ru += h / 6 * (k1u + 2*k2u + 2*k3u + k4u)
+		rdu += h / 6 * (k1d + 2*k2d + 2*k3d + k4d)
+		x = float64(i+1) * h
+	}
+	t.Logf("u(1/2) in %v (width %.3g), reference %.15g; u′ in %v, reference %.15g", u, u.Wid(), ru, du, rdu)
+	if u.Lo > ru+1e-9 || u.Hi < ru-1e-9 || du.Lo > rdu+1e-9 || du.Hi < rdu-1e-9 {
+		t.Errorf("the enclosures miss the reference")
+	}
+	if u.Wid() > 1e-9 || du.Wid() > 1e-9 {
+		t.Errorf("enclosures wider than 1e-9")
+	}
+}
