@@ -25,10 +25,10 @@ func containsRef(got interval.I, want, tol float64) bool {
 	return got.Lo <= want+tol && got.Hi >= want-tol
 }
 
-// TestGroundStateReviewClosedForms: values at the points against closed
+// TestGroundStateAgainstClosedForms: values at the points against closed
 // forms of the L2-normalised ground state (common practice:
 // −u″ = λu with the stated end conditions).
-func TestGroundStateReviewClosedForms(t *testing.T) {
+func TestGroundStateAgainstClosedForms(t *testing.T) {
 	for _, tc := range []struct {
 		name, src string
 		xs        []float64
@@ -223,13 +223,13 @@ func (g *floatGround) unit(x float64) (float64, float64) {
 	return u / n, du / n
 }
 
-// TestGroundStateReviewAsymmetricWell: V = 6(x² − 1)² on (−3, 2),
+// TestGroundStateAgainstAsymmetricWell: V = 6(x² − 1)² on (−3, 2),
 // Dirichlet. The split point is −1/2, the dip of the ground state near
 // x = 0 lies in the right shot, whose normalisation (u′(2) = −1) differs
 // from the left one (u′(−3) = 1) by a large factor: the witness's g must
 // be rescaled by ratio²/∫u_L². Values and the witness's g are compared
 // with the float reference (independent RK4 shooting).
-func TestGroundStateReviewAsymmetricWell(t *testing.T) {
+func TestGroundStateAgainstAsymmetricWell(t *testing.T) {
 	c := certifyGroundState(t, `{"domain":{"interval":["-3","2"]},"potential":"6*(x^2-1)^2","boundary":"dirichlet","points":[["-3"],["-1"],["-1/2"],["0"],["1/3"],["1"],["2"]]}`, "1e-9")
 	gs := c.Results.GroundState
 	lam1 := boundOf(t, c.Results.Eigenvalues[0].Bound())
@@ -262,13 +262,13 @@ func TestGroundStateReviewAsymmetricWell(t *testing.T) {
 	}
 }
 
-// TestGroundStateReviewL2Error: the L2 error bound of the first Ritz
+// TestGroundStateAgainstL2Error: the L2 error bound of the first Ritz
 // vector ũ of the first step holds the true ‖ũ − P₁ũ‖/‖ũ‖, computed in
 // float from ũ and the closed-form ground state φ (P₁ũ = (ũ, φ)φ for
 // ‖φ‖ = 1) by 40-point Gauss–Legendre quadrature on every cell's worth of
 // 2000 equal pieces (common practice), and is narrow for what (E1) can
 // give with the certified λ1.
-func TestGroundStateReviewL2Error(t *testing.T) {
+func TestGroundStateAgainstL2Error(t *testing.T) {
 	for _, tc := range []struct {
 		name, src string
 		a, b      float64
@@ -364,11 +364,11 @@ func gaussLegendre40() (xs, ws []float64) {
 	return xs, ws
 }
 
-// TestGroundStateReviewFloatReferences: values at the points against the
+// TestGroundStateAgainstFloatReferences: values at the points against the
 // independent float reference for a Robin problem with different α at
 // the two ends and V with kinks inside cells (at 1/3, not a float) and at
 // a float, and the verdict where it is known.
-func TestGroundStateReviewFloatReferences(t *testing.T) {
+func TestGroundStateAgainstFloatReferences(t *testing.T) {
 	for _, tc := range []struct {
 		name, src   string
 		v           func(float64) float64
@@ -446,10 +446,10 @@ func TestGroundStateReviewFloatReferences(t *testing.T) {
 	}
 }
 
-// TestGroundStateReviewCheck: Check reproduces the block of a problem
+// TestGroundStateAgainstCheck: Check reproduces the block of a problem
 // with irrational points and ends, and of the asymmetric well (witness in
 // the right shot), and refuses an edited witness value or margin.
-func TestGroundStateReviewCheck(t *testing.T) {
+func TestGroundStateAgainstCheck(t *testing.T) {
 	c := certifyGroundState(t, `{"domain":{"interval":["1","1+pi"]},"boundary":[{"robin":"1/3"},"dirichlet"],"points":[["1"],["1+pi/3"],["sqrt(5)"],["1+pi"]]}`, "1e-8")
 	data, err := c.Marshal()
 	if err != nil {
@@ -481,10 +481,10 @@ func TestGroundStateReviewCheck(t *testing.T) {
 	}
 }
 
-// TestGroundStateReviewConstantPotential: Neumann with V = 3 on (0, 1):
+// TestGroundStateAgainstConstantPotential: Neumann with V = 3 on (0, 1):
 // λ1 = 3 exactly and u = 1 (common practice); with λ1 cut at inf V the
 // verdict is proven.
-func TestGroundStateReviewConstantPotential(t *testing.T) {
+func TestGroundStateAgainstConstantPotential(t *testing.T) {
 	c := certifyGroundState(t, `{"domain":{"interval":["0","1"]},"boundary":"neumann","potential":"3","points":[["0"],["1/3"],["1"]]}`, "1e-9")
 	gs := c.Results.GroundState
 	if gs.LogConcavity != certs.Proven {
@@ -497,12 +497,12 @@ func TestGroundStateReviewConstantPotential(t *testing.T) {
 	}
 }
 
-// TestGroundStateReviewWideLambda: with a coarse target (0.5) the first
+// TestGroundStateAgainstWideLambda: with a coarse target (0.5) the first
 // step's enclosure of λ1 is wide (about 2%); the values of the
 // asymmetric well with Robin α = 1/2 at −5/2 and Dirichlet at 3 are then
 // wide, but still hold the independent RK4 reference, and the verdict is
 // not proven (the ground state dips at 0).
-func TestGroundStateReviewWideLambda(t *testing.T) {
+func TestGroundStateAgainstWideLambda(t *testing.T) {
 	c := certifyGroundState(t, `{"domain":{"interval":["-5/2","3"]},"potential":"6*(x^2-1)^2","boundary":[{"robin":"1/2"},"dirichlet"],"points":[["-5/2"],["-1"],["0"],["1"],["2"]]}`, "0.5")
 	gs := c.Results.GroundState
 	lam1 := boundOf(t, c.Results.Eigenvalues[0].Bound())
