@@ -1,6 +1,7 @@
 package sweepplot
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"math"
@@ -154,15 +155,7 @@ func (s *Sweep) Band(x string, spec BandSpec) (*Band, error) {
 	if len(b.Points) == 0 {
 		return nil, errors.New("empty sweep: no point has a certificate")
 	}
-	slices.SortStableFunc(b.Points, func(p, q BandPoint) int {
-		switch {
-		case p.X < q.X:
-			return -1
-		case p.X > q.X:
-			return 1
-		}
-		return 0
-	})
+	slices.SortStableFunc(b.Points, func(p, q BandPoint) int { return cmp.Compare(p.X, q.X) })
 	return b, nil
 }
 

@@ -1,6 +1,7 @@
 package sweepplot
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"slices"
@@ -80,15 +81,7 @@ func (s *Sweep) Shape(x string) (*Shape, error) {
 	if len(sh.Points) == 0 {
 		return nil, errors.New("no point has a ground-state verdict (hint: add \"ground_state\": true to the family file and run the sweep again)")
 	}
-	slices.SortStableFunc(sh.Points, func(p, q ShapePoint) int {
-		switch {
-		case p.X < q.X:
-			return -1
-		case p.X > q.X:
-			return 1
-		}
-		return 0
-	})
+	slices.SortStableFunc(sh.Points, func(p, q ShapePoint) int { return cmp.Compare(p.X, q.X) })
 	return sh, nil
 }
 
