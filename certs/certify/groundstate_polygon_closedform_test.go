@@ -3,10 +3,12 @@ package certify
 import (
 	"math"
 	"math/rand"
+	"os"
 	"testing"
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
+	"gapcert/fem/tri"
 )
 
 // closedFormCase is a polygon problem whose ground state with unit L²
@@ -155,9 +157,23 @@ func closedFormCases() []closedFormCase {
 // or narrow, and no witness is certified (all these ground states are
 // log-concave: products of log-concave factors, Brascamp–Lieb).
 func TestPolygonGroundStateClosedForms(t *testing.T) {
+	testClosedForms(t, 3, 1)
+}
+
+// The same after five driver steps (the meshes the certified step chooses;
+// about 25 s, so only with GAPCERT_LONG=1).
+func TestPolygonGroundStateClosedFormsDriverSteps(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("about 25 s; set GAPCERT_LONG=1")
+	}
+	testClosedForms(t, 1, 5)
+}
+
+func testClosedForms(t *testing.T, refine, steps int) {
 	for ci, c := range closedFormCases() {
 		t.Run(c.name, func(t *testing.T) {
-			in := polygonGroundStateInputs(t, c.src, 3, 1)
+			in := polygonGroundStateInputs(t, c.src, refine, steps)
+			t.Logf("degree %d, %d triangles", in.trial.(*tri.Trial).Space.Degree(), len(in.trial.(*tri.Trial).Space.Mesh().Tris))
 			rng := rand.New(rand.NewSource(int64(100 + ci)))
 			var pts [][2]float64
 			var at [][2]problem.Number
