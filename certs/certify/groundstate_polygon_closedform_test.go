@@ -224,3 +224,37 @@ func testClosedForms(t *testing.T, refine, steps int) {
 		})
 	}
 }
+
+// The approximate ground state with the opposite sign (−ũ, same Ritz
+// entries) gives the same normalised values: u = P₁ũ is then a negative
+// multiple of the ground state, and the block must report u/‖u‖ with the
+// positive sign either way (unit square, Dirichlet: 2 sin πx sin πy,
+// common practice).
+func TestPolygonGroundStateSignOfTheVector(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 2, 1)
+	pts := [][2]float64{{0.53125, 0.484375}, {0.28125, 0.203125}, {0.09375, 0.453125}}
+	var at [][2]problem.Number
+	for _, p := range pts {
+		at = append(at, dyadicPoint(p[0], p[1]))
+	}
+	plus, err := polygonGroundState(in, at)
+	if err != nil {
+		t.Fatal(err)
+	}
+	neg := make([]float64, len(in.u))
+	for i, c := range in.u {
+		neg[i] = -c
+	}
+	in.u = neg
+	minus, err := polygonGroundState(in, at)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, p := range pts {
+		a, b := boundInterval(t, plus.Points[i].Value), boundInterval(t, minus.Points[i].Value)
+		truth := 2 * math.Sin(math.Pi*p[0]) * math.Sin(math.Pi*p[1])
+		if a != b || !(a.Lo <= truth && truth <= a.Hi) || !a.Positive() {
+			t.Errorf("u(%v) = %.15g: %v from ũ, %v from −ũ", p, truth, a, b)
+		}
+	}
+}
