@@ -9,6 +9,8 @@ import (
 	"gapcert/certs"
 	"gapcert/fem/problem"
 	"gapcert/fem/tri"
+	"gapcert/interval"
+	"gapcert/temple/groundstate"
 )
 
 // closedFormCase is a polygon problem whose ground state with unit L²
@@ -257,4 +259,44 @@ func TestPolygonGroundStateSignOfTheVector(t *testing.T) {
 			t.Errorf("u(%v) = %.15g: %v from ũ, %v from −ũ", p, truth, a, b)
 		}
 	}
+}
+
+// Points where the ground state has no disc inside one mesh triangle get
+// the whole line, never a bounded value: a corner of the domain, a point
+// of a side, points outside the domain (beside a side, beyond a corner,
+// far away) and mesh vertices and edges inside (the unit square after two
+// uniform refinements has vertices at multiples of 1/4 and the diagonals
+// of its squares; these points are checked to be on them).
+func TestPolygonGroundStateNoValueWithoutDisc(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":{"robin":"1"}}`, 2, 1)
+	m := in.trial.(*tri.Trial).Space.Mesh()
+	pts := [][2]float64{{0, 0}, {1, 1}, {0, 0.375}, {0.6875, 1}, {-0.25, 0.5}, {0.5, 1.0625}, {1.5, 1.5}, {-3, 7}, {0.5, 0.5}, {0.25, 0.75}}
+	// A mesh vertex and the midpoint of a mesh edge of the refined mesh.
+	v := m.Vertices(len(m.Tris) / 2)
+	pts = append(pts, [2]float64{v[0][0].Lo, v[0][1].Lo})
+	if mid, ok := exactMid(v[0], v[1]); ok {
+		pts = append(pts, mid)
+	}
+	var at [][2]problem.Number
+	for _, p := range pts {
+		at = append(at, dyadicPoint(p[0], p[1]))
+	}
+	gs, err := polygonGroundState(in, at)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, p := range pts {
+		if v := boundInterval(t, gs.Points[i].Value); v.IsBounded() {
+			t.Errorf("a bounded value %v at %v, which is on a mesh edge or not inside the domain", v, p)
+		}
+	}
+}
+
+// exactMid is the midpoint of two point vertices, if they are points and
+// the midpoint is exact.
+func exactMid(a, b [2]interval.I) ([2]float64, bool) {
+	if !a[0].IsPoint() || !a[1].IsPoint() || !b[0].IsPoint() || !b[1].IsPoint() {
+		return [2]float64{}, false
+	}
+	return groundstate.ExactMidpoint([2]float64{a[0].Lo, a[1].Lo}, [2]float64{b[0].Lo, b[1].Lo})
 }
