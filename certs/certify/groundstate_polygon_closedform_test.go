@@ -1,9 +1,11 @@
 package certify
 
 import (
+	"errors"
 	"math"
 	"math/rand"
 	"os"
+	"strings"
 	"testing"
 
 	"gapcert/certs"
@@ -299,4 +301,51 @@ func exactMid(a, b [2]interval.I) ([2]float64, bool) {
 		return [2]float64{}, false
 	}
 	return groundstate.ExactMidpoint([2]float64{a[0].Lo, a[1].Lo}, [2]float64{b[0].Lo, b[1].Lo})
+}
+
+// The polygon block end to end: Certify with the ground state on the unit
+// square (Dirichlet, u = 2 sin πx sin πy; common practice) gives values at
+// the problem's points containing u, Check verifies the certificate, and
+// an edited value or margin is a mismatch naming the ground state.
+func TestPolygonGroundStateCertifyAndCheck(t *testing.T) {
+	c := certifyGroundState(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet","points":[["0.53125","0.484375"],["0.28125","0.203125"],["1/2","1/2"]]}`, "1e-4")
+	gs := c.Results.GroundState
+	xs := [][2]float64{{0.53125, 0.484375}, {0.28125, 0.203125}}
+	for i, p := range xs {
+		v := boundInterval(t, gs.Points[i].Value)
+		truth := 2 * math.Sin(math.Pi*p[0]) * math.Sin(math.Pi*p[1])
+		if !(v.Lo <= truth && truth <= v.Hi) || !(v.Wid() < 0.05) {
+			t.Errorf("u(%v) = %.15g, certified %v", p, truth, v)
+		}
+	}
+	if gs.LogConcavity != certs.Undecided || gs.Margin == nil {
+		t.Fatalf("verdict %s, margin %v (%s)", gs.LogConcavity, gs.Margin, gs.Reason)
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("fresh certificate does not verify: %v", err)
+	}
+	lastDigit := func(s string) string {
+		d := s[len(s)-1]
+		if d == '9' {
+			return s[:len(s)-1] + "8"
+		}
+		return s[:len(s)-1] + string(d+1)
+	}
+	for _, tc := range []struct{ name, old, new string }{
+		{"point value", `"lower": "` + gs.Points[1].Value.Lower + `"`, `"lower": "` + lastDigit(gs.Points[1].Value.Lower) + `"`},
+		{"margin", `"upper": "` + gs.Margin.Upper + `"`, `"upper": "` + lastDigit(gs.Margin.Upper) + `"`},
+	} {
+		edited := strings.Replace(string(data), tc.old, tc.new, 1)
+		if edited == string(data) {
+			t.Fatalf("%s: the edit changed nothing", tc.name)
+		}
+		var mm *MismatchError
+		if err := Check([]byte(edited)); !errors.As(err, &mm) || !strings.Contains(err.Error(), "ground_state") {
+			t.Errorf("%s: want a mismatch naming the ground state, got %v", tc.name, err)
+		}
+	}
 }
