@@ -96,6 +96,23 @@ func closedFormCases() []closedFormCase {
 			},
 		},
 		{
+			// [0, 2]×[0, 1] turned by θ with cos θ = 4/5, sin θ = 3/5
+			// (rational vertices that are not binary: enclosures): with
+			// s = (4x + 3y)/5 ∈ [0, 2] and t = (4y − 3x)/5 ∈ [0, 1],
+			// u = (2/√2)·sin(πs/2)·sin(πt).
+			name: "rectangle turned by atan(3/4), Dirichlet",
+			src:  `{"domain":{"polygon":[["0","0"],["8/5","6/5"],["1","2"],["-3/5","4/5"]]},"boundary":"dirichlet"}`,
+			box:  [4]float64{-0.6, 0, 1.6, 2},
+			inside: func(x, y float64) bool {
+				s, t := (4*x+3*y)/5, (4*y-3*x)/5
+				return s > 0 && s < 2 && t > 0 && t < 1
+			},
+			u: func(x, y float64) float64 {
+				s, t := (4*x+3*y)/5, (4*y-3*x)/5
+				return math.Sqrt2 * math.Sin(math.Pi*s/2) * math.Sin(math.Pi*t)
+			},
+		},
+		{
 			name: "equilateral triangle, Dirichlet",
 			src:  `{"domain":{"polygon":[["0","0"],["1","0"],["1/2","sqrt(3)/2"]]},"boundary":"dirichlet"}`,
 			box:  [4]float64{0, 0, 1, 0.87},
