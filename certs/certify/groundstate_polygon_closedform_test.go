@@ -366,3 +366,33 @@ func TestPolygonGroundStateCertifyAndCheck(t *testing.T) {
 		}
 	}
 }
+
+// Points ever closer to a side (down to a subnormal distance) and to a
+// mesh edge: the discs shrink to radii where the mean term overflows. Each
+// value is a valid enclosure (no NaN end) that contains 2 sin πx sin πy
+// (unit square, Dirichlet; common practice) or is the whole line.
+func TestPolygonGroundStateTinyDiscs(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 2, 1)
+	var pts [][2]float64
+	for _, e := range []int{-20, -60, -200, -600, -1000, -1070} {
+		pts = append(pts, [2]float64{math.Ldexp(1, e), 0.3}, [2]float64{0.3, 0.25 + math.Ldexp(1, e/20-2)})
+	}
+	var at [][2]problem.Number
+	for _, p := range pts {
+		at = append(at, dyadicPoint(p[0], p[1]))
+	}
+	gs, err := polygonGroundState(in, at)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, p := range pts {
+		v := boundInterval(t, gs.Points[i].Value)
+		if math.IsNaN(v.Lo) || math.IsNaN(v.Hi) || v.Lo > v.Hi {
+			t.Fatalf("u(%v): %v is not an interval", p, v)
+		}
+		truth := 2 * math.Sin(math.Pi*p[0]) * math.Sin(math.Pi*p[1])
+		if v.IsBounded() && !(v.Lo <= truth && truth <= v.Hi) {
+			t.Errorf("u(%v) = %.17g not inside %v", p, truth, v)
+		}
+	}
+}
