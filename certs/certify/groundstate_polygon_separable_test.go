@@ -3,6 +3,7 @@ package certify
 import (
 	"fmt"
 	"math/rand"
+	"os"
 	"strings"
 	"testing"
 
@@ -44,6 +45,9 @@ func TestPolygonGroundStateWitnessAgainstSeparation(t *testing.T) {
 		{"turned square shifted by 1/3", "1/3", 1.0 / 3, true, `[["0","1/3"],["1","1/3"],["1","4/3"],["0","4/3"]]`},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
+			if tc.turned && os.Getenv("GAPCERT_LONG") != "1" {
+				t.Skip("the turned and shifted square repeats the unit square's check with enclosed vertices (GAPCERT_LONG=1)")
+			}
 			along, across := 0, 1 // the coordinate V depends on, and the other
 			s := "x"
 			if tc.turned {
