@@ -1,11 +1,10 @@
 package main
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
-	"io"
 	"os"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -14,6 +13,7 @@ import (
 	"gapcert/certs/plot"
 	"gapcert/certs/plot/sweepplot"
 	"gapcert/fem/problem"
+	"gapcert/fem/problem/strictjson"
 )
 
 func newPlotCmd() *cobra.Command {
@@ -179,24 +179,35 @@ with a certificate file or a certificate drawn alone does not verify.`,
 // maxPlotInput bounds what isCertificate reads of a file.
 const maxPlotInput = 256 << 20
 
-// isCertificate reports whether path is a file whose "format" is the
-// certificate format. It only chooses the kind of picture: the file is
-// then read strictly by the certificate reader.
+// isCertificate reports whether path is a file that claims the
+// certificate format: a "format" key of that value, or any repeated or
+// case-variant "format" key (so that the certificate reader, which is
+// strict, refuses such a file instead of another reader guessing). It only
+// chooses the kind of picture: the file is then read strictly.
 func isCertificate(path string) bool {
 	st, err := os.Stat(path)
-	if err != nil || !st.Mode().IsRegular() {
+	if err != nil || !st.Mode().IsRegular() || st.Size() > maxPlotInput {
 		return false
 	}
-	f, err := os.Open(path)
+	data, err := os.ReadFile(path)
 	if err != nil {
 		return false
 	}
-	defer f.Close()
-	var head struct {
-		Format string `json:"format"`
+	head, dups, err := strictjson.Parse(data)
+	if err != nil || head.Kind != strictjson.Object {
+		return false
 	}
-	err = json.NewDecoder(io.LimitReader(f, maxPlotInput)).Decode(&head)
-	return err == nil && head.Format == certs.Format
+	for _, d := range dups {
+		if strings.EqualFold(d.Path, "format") {
+			return true
+		}
+	}
+	for i, k := range head.Keys {
+		if strings.EqualFold(k, "format") && (k != "format" || head.Elems[i].Str == certs.Format) {
+			return true
+		}
+	}
+	return false
 }
 
 // plotCertificate re-verifies the certificate at path (certify.Check)
