@@ -1,0 +1,93 @@
+package certify
+
+import (
+	"context"
+	"fmt"
+	"testing"
+
+	"gapcert/certs"
+	"gapcert/certs/hypothesis"
+	"gapcert/fem/problem"
+)
+
+// robinWedgeTrapezoid is a long right trapezoid, 6 long, 1 wide at x = 0
+// and 0.3 wide at x = 6: convex, not a rectangle (the corner at (6, 0.3)
+// is not a right angle) and not tangential (a quadrilateral with an
+// incircle has equal sums of opposite sides, Pitot's theorem; here
+// 6 + √(36 + 0.49) ≠ 0.3 + 1).
+//
+// Why log u fails to be concave here, a heuristic of ours that the test
+// does not rely on: for small α the Robin ground state is u ≈ 1 − αφ with
+// Δφ = |∂Ω|/|Ω| in Ω and ∂φ/∂n = 1 on ∂Ω (the expansion of Andrews,
+// Clutterbuck and Hauer, arXiv:1711.02779, whose theorem says φ is convex
+// only on circumsolids). Across a long domain of width w(x), φ ≈ y²/w(x)
+// up to terms in x, so ∂²φ/∂x² ≈ |∂Ω|/|Ω| − 2/w(x) < 0 where the domain
+// is narrower than about its mean width: there log u is convex along x
+// over a long stretch, far from the corners, and the float margin
+// (u(x)u(y) − u(m)²)/u(m)² is about 3% at α = 0.1, large against the
+// enclosures' loss. Near an obtuse corner alone (the isosceles trapezoid
+// of TestPolygonGroundStateRobinTrapezoidSweep) the margins measured are
+// 1e-6 to 1e-4, on discs of radius 1e-3 or less, too small to certify.
+const robinWedgeTrapezoid = `{"domain":{"polygon":[["0","0"],["6","0"],["6","0.3"],["0","1"]]},"boundary":{"robin":%q}}`
+
+// certifyRobinWedge certifies the trapezoid with Robin coefficient alpha
+// and the ground-state block through the driver (target 1e-8, ended by
+// the target, not the clock).
+func certifyRobinWedge(t testing.TB, alpha string) (*problem.Problem, *certs.Certificate) {
+	t.Helper()
+	p, err := problem.Parse([]byte(fmt.Sprintf(robinWedgeTrapezoid, alpha)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-8", TimeLimit: ampleLimit, Now: fixedTime, Tool: "gapcert test", GroundState: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c.Results.GroundState == nil {
+		t.Fatal("no results.ground_state")
+	}
+	return p, c
+}
+
+// A certified witness that the Robin ground state (V = 0, α = 1/10 on
+// every side) of a convex quadrilateral that is neither tangential nor a
+// rectangle is not log-concave, as Andrews, Clutterbuck and Hauer
+// (arXiv:1711.02779) predict for small α, found by the driver with
+// --ground-state, and re-checked by Check.
+func TestPolygonGroundStateRobinWedgeWitness(t *testing.T) {
+	p, c := certifyRobinWedge(t, "0.1")
+	for _, h := range []certs.Hypothesis{hypothesis.ConvexDomain(p), hypothesis.Tangential(p), hypothesis.Rectangle(p), hypothesis.ProductOfCircumsolids(p)} {
+		want := certs.Disproven
+		if h.Name == hypothesis.ConvexDomain(p).Name {
+			want = certs.Proven
+		}
+		if h.Verdict != want {
+			t.Fatalf("%s: %s (%s), want %s", h.Name, h.Verdict, h.Detail, want)
+		}
+	}
+	gs := c.Results.GroundState
+	if gs.LogConcavity != certs.Disproven {
+		t.Fatalf("verdict %s (%s), want disproven", gs.LogConcavity, gs.Reason)
+	}
+	checkWitness(t, gs)
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatalf("check: %v", err)
+	}
+	t.Logf("witness %v, margin %+v, L2 error %s", gs.Witness.Points, gs.Witness.Margin, gs.L2Error)
+}
+
+// BenchmarkCertifyRobinWedgeWitness measures the whole certification of
+// the witness on the trapezoid at α = 1/10: the driver to the target
+// 1e-8 and the ground-state block.
+func BenchmarkCertifyRobinWedgeWitness(b *testing.B) {
+	for range b.N {
+		_, c := certifyRobinWedge(b, "0.1")
+		if c.Results.GroundState.LogConcavity != certs.Disproven {
+			b.Fatalf("verdict %s", c.Results.GroundState.LogConcavity)
+		}
+	}
+}
