@@ -139,7 +139,7 @@ func TestPolygonGroundStateRobinWedgeSweep(t *testing.T) {
 // rectangle, not tangential: 2 + √(4 + 0.64) ≠ 0.2 + 1), keeps log u
 // convex along x near its narrow end for larger α: witnesses certified
 // through the driver at α = 1 and 1.5 with the target 1e-9 (measured:
-// margins ≥ 1.6e-3 at α = 1 and ≥ 5.8e-4 at α = 1.5, 55 s for both on 2
+// margins ≥ 1.5e-3 at α = 1 and ≥ 5.7e-4 at α = 1.5, 55 s for both on 2
 // shared cores; at α = 2 the best candidate's margin was
 // [−4.3e-5, 1.7e-3], undecided, at 1e-9 as at 1e-10). Only with
 // GAPCERT_LONG=1.
