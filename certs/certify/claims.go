@@ -114,11 +114,12 @@ func shapeMargin(gs *certs.GroundState) (interval.I, string) {
 	return m, ""
 }
 
-// groundStateClaim returns the index of the first claim of p that names
+// GroundStateClaim returns the index of the first claim of p that names
 // shape_margin (directly or through a built-in claim's inequality), or −1.
 // Certify refuses such a problem without Options.GroundState before
-// computing: only results.ground_state gives shape_margin a value.
-func groundStateClaim(p *problem.Problem) int {
+// computing, and package certs/sweep a family without "ground_state":
+// only results.ground_state gives shape_margin a value.
+func GroundStateClaim(p *problem.Problem) int {
 	for i, text := range p.Claims {
 		var cl *claim.Claim
 		if named.IsNamed(text) {

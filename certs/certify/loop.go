@@ -32,7 +32,7 @@ const DefaultTimeLimit = 60 * time.Second
 // with fewer than two eigenvalues (the reader refuses such files; a
 // problem edited in Go may have one) or, on a polygon, with a point whose
 // coordinates are not float64 values exactly, and a problem with a claim
-// naming shape_margin without Options.GroundState (groundStateClaim). When ctx is cancelled, Certify returns at
+// naming shape_margin without Options.GroundState (GroundStateClaim). When ctx is cancelled, Certify returns at
 // once the certificate of the best step finished so far, with stop reason
 // StopInterrupted (its bounds are verified and Check reproduces them), or
 // ctx's error if no step has finished; the step in progress is abandoned
@@ -56,7 +56,7 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			return nil, err
 		}
 	}
-	if i := groundStateClaim(p); i >= 0 && !opt.GroundState {
+	if i := GroundStateClaim(p); i >= 0 && !opt.GroundState {
 		return nil, fmt.Errorf("claims[%d] %q names shape_margin, which only results.ground_state provides (hint: certify with --ground-state, Options.GroundState)", i, p.Claims[i])
 	}
 	limit := opt.TimeLimit
