@@ -87,6 +87,7 @@ func TestNotLogConcaveClaimDoubleWell(t *testing.T) {
 	want := map[string]string{
 		named.ConvexDomain:       certs.Proven,
 		named.RobinBoundary:      certs.Disproven,
+		named.PositiveRobinAlpha: certs.Disproven,
 		named.ZeroPotential:      certs.Disproven,
 		named.CircumsolidProduct: certs.Proven,
 	}

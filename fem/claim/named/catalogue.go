@@ -17,11 +17,14 @@ const (
 	DirichletBoundary = "dirichlet_boundary" // u = 0 on every side
 	NeumannBoundary   = "neumann_boundary"   // ∂u/∂n = 0 on every side
 	RobinBoundary     = "robin_boundary"     // ∂u/∂n + αu = 0 on every side, one α
-	ConvexDomain      = "convex_domain"
-	ConvexPotential   = "convex_potential"
-	ZeroPotential     = "zero_potential" // V ≡ 0
-	Triangle          = "triangle"
-	Rectangle         = "rectangle"
+	// PositiveRobinAlpha: ∂u/∂n + αu = 0 on every side, one α > 0 (robin_boundary
+	// without the Neumann case α = 0).
+	PositiveRobinAlpha = "positive_robin_alpha"
+	ConvexDomain       = "convex_domain"
+	ConvexPotential    = "convex_potential"
+	ZeroPotential      = "zero_potential" // V ≡ 0
+	Triangle           = "triangle"
+	Rectangle          = "rectangle"
 	// RobinOrNeumannSides: ∂u/∂n + α_i·u = 0 on every side i, the α_i ≥ 0
 	// possibly different (Neumann: α_i = 0); no Dirichlet side.
 	RobinOrNeumannSides = "robin_or_neumann_sides"
@@ -214,16 +217,17 @@ var catalogue = []Claim{
 	// witness alone, shape_margin > 0 (a midpoint triple with
 	// u(m)² < u(x)u(y) in results.ground_state, which needs certify
 	// --ground-state). The hypotheses say whether the theorem's setting
-	// applies: convex_domain, robin_boundary (one α on every side) and
-	// zero_potential proven and circumsolid_product DISPROVEN (the
-	// theorem predicts failure only outside the products of
-	// circumsolids).
+	// applies: convex_domain, robin_boundary (one α on every side),
+	// positive_robin_alpha (that α > 0; α = 0 is the Neumann case, whose
+	// ground state is constant) and zero_potential proven, and
+	// circumsolid_product DISPROVEN (the theorem predicts failure only
+	// outside the products of circumsolids).
 	{
 		Name:       "robin_ground_state_not_log_concave",
 		Inequality: claim.ShapeMargin + " > 0",
 		Dims:       []int{2},
-		Hypotheses: []string{ConvexDomain, RobinBoundary, ZeroPotential, CircumsolidProduct},
-		Source:     "B. Andrews, J. Clutterbuck and D. Hauer, Non-concavity of the Robin ground state, Camb. J. Math. 8 (2020) 243–310, arXiv:1711.02779: on a convex polygon that is not a product of circumsolids (circumsolid_product disproven) with V = 0, the Robin ground state is not log-concave for sufficiently small α > 0, with no explicit threshold; the verdict rests on the certified witness alone (shape_margin > 0 needs certify --ground-state)",
+		Hypotheses: []string{ConvexDomain, RobinBoundary, PositiveRobinAlpha, ZeroPotential, CircumsolidProduct},
+		Source:     "B. Andrews, J. Clutterbuck and D. Hauer, Non-concavity of the Robin ground state, Camb. J. Math. 8 (2020) 243–310, arXiv:1711.02779: on a convex polygon that is not a product of circumsolids (circumsolid_product disproven) with V = 0 and one Robin α > 0 on every side, the ground state is not log-concave for sufficiently small α, with no explicit threshold; the verdict rests on the certified witness alone (shape_margin > 0 needs certify --ground-state)",
 	},
 }
 

@@ -35,7 +35,8 @@
 // midpoint triple in results.ground_state: it holds when a triple with
 // u(m)² < u(x)u(y) is certified), and among its recorded hypotheses
 // circumsolid_product must be DISPROVEN for the theorem's setting, the
-// others proven. A problem naming it must be certified with
+// others (convex_domain, robin_boundary, positive_robin_alpha,
+// zero_potential) proven. A problem naming it must be certified with
 // --ground-state (package certs/certify refuses it otherwise, before
 // computing).
 //
