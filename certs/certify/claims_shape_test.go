@@ -233,3 +233,32 @@ func TestShapeMarginWithoutValue(t *testing.T) {
 		t.Errorf("an interval's witness gives shape_margin a value")
 	}
 }
+
+// TestNotLogConcaveClaimTrapezoid: the isosceles trapezoid of
+// TestPolygonGroundStateRobinTrapezoidSweep (convex, neither tangential nor
+// a rectangle) with α = 1/10 and V = 0 is the theorem's setting: every
+// hypothesis is proven except circumsolid_product, which is disproven.
+// The theorem gives no threshold on α, so the verdict is the certificate's
+// own: it holds exactly when the block has a witness (at two uniform
+// refinements it has none: measured undecided, best margin
+// [−0.0020, 0.0019]).
+func TestNotLogConcaveClaimTrapezoid(t *testing.T) {
+	src := fmt.Sprintf(`{"domain":{"polygon":[["0","0"],["2","0"],["1.1","0.9"],["0.9","0.9"]]},"boundary":{"robin":"1/10"},"claims":[%q]}`, notLogConcave)
+	c := certificateAtRefinement(t, src, 2)
+	r := claimByText(t, c, notLogConcave)
+	want := map[string]string{
+		named.ConvexDomain:       certs.Proven,
+		named.RobinBoundary:      certs.Proven,
+		named.PositiveRobinAlpha: certs.Proven,
+		named.ZeroPotential:      certs.Proven,
+		named.CircumsolidProduct: certs.Disproven,
+	}
+	if got := hypothesisVerdicts(r); fmt.Sprint(got) != fmt.Sprint(want) {
+		t.Errorf("hypotheses %v, want %v", got, want)
+	}
+	gs := c.Results.GroundState
+	if (r.Verdict == certs.Holds) != (gs.Witness != nil) || r.Verdict == certs.Fails && gs.Margin == nil {
+		t.Errorf("verdict %s, margin %+v; block %s (%s)", r.Verdict, r.Margin, gs.LogConcavity, gs.Reason)
+	}
+	t.Logf("trapezoid, α = 1/10: %s, margin %+v", r.Verdict, r.Margin)
+}
