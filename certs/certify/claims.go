@@ -3,6 +3,7 @@ package certify
 import (
 	"fmt"
 	"math/big"
+	"slices"
 	"time"
 
 	"gapcert/certs"
@@ -31,12 +32,19 @@ import (
 // set (the re-check), taken from the recorded claim and verified by Check;
 // a recorded reference that is missing, of another problem or does not
 // verify is a *MismatchError.
+//
+// The quantity shape_margin (polygons) is read from gs (shapeMargin); a
+// claim that names it while gs provides none is undecided with the reason.
 func evaluateClaims(p *problem.Problem, res *result, gs *certs.GroundState, opt Options) ([]certs.ClaimResult, error) {
 	env := claimEnv(p, res)
+	shape, shapeWhy := shapeMargin(gs)
+	if shapeWhy == "" {
+		env[claim.ShapeMargin] = shape
+	}
 	var out []certs.ClaimResult
 	for i, text := range p.Claims {
 		if named.IsNamed(text) {
-			r, err := evaluateNamed(p, gs, env, i, text, opt)
+			r, err := evaluateNamed(p, gs, env, shapeWhy, i, text, opt)
 			if err != nil {
 				return nil, err
 			}
@@ -47,9 +55,87 @@ func evaluateClaims(p *problem.Problem, res *result, gs *certs.GroundState, opt 
 		if err != nil {
 			return nil, fmt.Errorf("claim %q: %w", text, err)
 		}
-		out = append(out, certs.EvaluateClaim(cl, env))
+		out = append(out, evaluateClaim(cl, env, shapeWhy))
 	}
 	return out, nil
+}
+
+// evaluateClaim is certs.EvaluateClaim, except that a claim naming
+// shape_margin when it has no value (shapeWhy, from shapeMargin) is
+// undecided with that reason.
+func evaluateClaim(cl *claim.Claim, env map[string]interval.I, shapeWhy string) certs.ClaimResult {
+	r := certs.EvaluateClaim(cl, env)
+	if shapeWhy != "" && slices.Contains(cl.Vars(), claim.ShapeMargin) {
+		r.Verdict, r.Reason = certs.Undecided, shapeWhy
+	}
+	return r
+}
+
+// shapeMargin returns the enclosure of the claim quantity shape_margin
+// (package fem/claim) from the ground-state block gs of a polygon's
+// certificate, or the reason it has none. It is the recorded margin of a
+// midpoint triple x, y, m = (x + y)/2, an enclosure of u(x)u(y) − u(m)²
+// for the ground state u with unit L² norm (the block's normalisation),
+// read back outward from its printed bound:
+//
+//   - the witness's margin when the block has a witness of kind
+//     midpoint_triple (then its lower end is positive);
+//   - else the block's Margin, the margin of the best candidate triple of
+//     the search, when it has one (an enclosure all the same, computed by
+//     the same chain as the witness's: groundstate_polygon.go);
+//   - else none: no block (the ground state was not asked for), or a block
+//     without a candidate (λ1 not separated from λ2, an L2 bound too wide,
+//     no candidate enclosed).
+//
+// A positive lower end says that u(m)² < u(x)u(y) at the recorded triple;
+// with a convex domain log u is then not concave (the block's own verdict
+// says so when it has a witness). A value that is not positive says nothing
+// about log-concavity.
+func shapeMargin(gs *certs.GroundState) (interval.I, string) {
+	const name = "shape_margin has no value: "
+	if gs == nil {
+		return interval.I{}, name + "the certificate has no results.ground_state (certify with --ground-state, Options.GroundState)"
+	}
+	var b *certs.Bound
+	switch {
+	case gs.Witness != nil && gs.Witness.Kind == certs.WitnessMidpoint:
+		b = &gs.Witness.Margin
+	case gs.Witness != nil:
+		return interval.I{}, name + "the witness in results.ground_state is of kind " + gs.Witness.Kind + ", not a midpoint triple"
+	case gs.Margin != nil:
+		b = gs.Margin
+	default:
+		return interval.I{}, name + "results.ground_state (--ground-state) has neither a witness nor a best candidate's margin: " + gs.Reason
+	}
+	m, err := b.Interval()
+	if err != nil {
+		return interval.I{}, name + "the margin in results.ground_state is not an interval: " + err.Error()
+	}
+	return m, ""
+}
+
+// GroundStateClaim returns the index of the first claim of p that names
+// shape_margin (directly or through a built-in claim's inequality), or −1.
+// Certify refuses such a problem without Options.GroundState before
+// computing, and package certs/sweep a family without "ground_state":
+// only results.ground_state gives shape_margin a value.
+func GroundStateClaim(p *problem.Problem) int {
+	for i, text := range p.Claims {
+		var cl *claim.Claim
+		if named.IsNamed(text) {
+			c, err := named.Lookup(text)
+			if err != nil {
+				continue // the reader accepted it; evaluateClaims reports a defect
+			}
+			cl = c.Parse()
+		} else if cl, _ = claim.Parse(text); cl == nil {
+			continue
+		}
+		if slices.Contains(cl.Vars(), claim.ShapeMargin) {
+			return i
+		}
+	}
+	return -1
 }
 
 // claimEnv returns a value for every quantity p provides to its claims
@@ -86,8 +172,9 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 }
 
 // evaluateNamed evaluates the built-in claim text, the i-th claim of p,
-// whose certificate has the ground-state block gs (or nil).
-func evaluateNamed(p *problem.Problem, gs *certs.GroundState, env map[string]interval.I, i int, text string, opt Options) (certs.ClaimResult, error) {
+// whose certificate has the ground-state block gs (or nil); shapeWhy says
+// why shape_margin has no value ("" when env holds it).
+func evaluateNamed(p *problem.Problem, gs *certs.GroundState, env map[string]interval.I, shapeWhy string, i int, text string, opt Options) (certs.ClaimResult, error) {
 	c, err := named.Lookup(text)
 	if err != nil {
 		return certs.ClaimResult{}, fmt.Errorf("claim %q: %w", text, err)
@@ -118,7 +205,7 @@ func evaluateNamed(p *problem.Problem, gs *certs.GroundState, env map[string]int
 			local[c.Reference] = gap
 		}
 	}
-	r := certs.EvaluateClaim(cl, local)
+	r := evaluateClaim(cl, local, shapeWhy)
 	if reason != "" {
 		r.Reason = reason
 	}

@@ -31,7 +31,8 @@ const DefaultTimeLimit = 60 * time.Second
 // before anything is computed, and so is Options.GroundState on a problem
 // with fewer than two eigenvalues (the reader refuses such files; a
 // problem edited in Go may have one) or, on a polygon, with a point whose
-// coordinates are not float64 values exactly. When ctx is cancelled, Certify returns at
+// coordinates are not float64 values exactly, and a problem with a claim
+// naming shape_margin without Options.GroundState (GroundStateClaim). When ctx is cancelled, Certify returns at
 // once the certificate of the best step finished so far, with stop reason
 // StopInterrupted (its bounds are verified and Check reproduces them), or
 // ctx's error if no step has finished; the step in progress is abandoned
@@ -54,6 +55,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		if _, err := polygonPoints(p); err != nil {
 			return nil, err
 		}
+	}
+	if i := GroundStateClaim(p); i >= 0 && !opt.GroundState {
+		return nil, fmt.Errorf("claims[%d] %q names shape_margin, which only results.ground_state provides (hint: certify with --ground-state, Options.GroundState)", i, p.Claims[i])
 	}
 	limit := opt.TimeLimit
 	switch {

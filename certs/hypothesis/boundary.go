@@ -70,6 +70,31 @@ func RobinBoundary(p *problem.Problem) certs.Hypothesis {
 	return proven(h, fmt.Sprintf("every side has the Robin condition with α = %s", a0.Text))
 }
 
+// PositiveRobinAlpha decides whether every side has a Robin condition with
+// one and the same α > 0: RobinBoundary (whose witness it keeps) and α ≠ 0
+// decided exactly (the reader refuses α < 0). All Neumann sides, or
+// Robin sides with α = 0, disprove it with side 0 as witness.
+func PositiveRobinAlpha(p *problem.Problem) certs.Hypothesis {
+	h := certs.Hypothesis{Name: named.PositiveRobinAlpha}
+	switch r := RobinBoundary(p); r.Verdict {
+	case certs.Disproven:
+		return disproven(h, r.Detail, r.Witness)
+	case certs.Undecided:
+		return undecidedAt(h, r.Detail)
+	}
+	a := p.Boundary[0].Alpha
+	if p.Boundary[0].Kind == boundary.Neumann {
+		return disproven(h, "every side has the Neumann condition (α = 0)", &certs.Witness{Side: intPtr(0)})
+	}
+	switch zero, ok := isZero(a); {
+	case !ok:
+		return undecidedAt(h, fmt.Sprintf("cannot decide whether the common Robin coefficient %s is 0", a.Text))
+	case zero:
+		return disproven(h, "every side has the Robin condition with α = 0 (Neumann)", &certs.Witness{Side: intPtr(0)})
+	}
+	return proven(h, fmt.Sprintf("every side has the Robin condition with α = %s > 0", a.Text))
+}
+
 // CommonAlpha returns the Robin coefficient shared by every side (0 for
 // Neumann sides) when RobinBoundary is proven.
 func CommonAlpha(p *problem.Problem) (problem.Number, bool) {

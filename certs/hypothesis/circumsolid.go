@@ -5,6 +5,7 @@ import (
 	"math/big"
 
 	"gapcert/certs"
+	"gapcert/fem/claim/named"
 	"gapcert/fem/problem"
 	"gapcert/interval"
 )
@@ -16,7 +17,7 @@ const (
 	TangentialPolygon = "tangential_polygon"
 	// CircumsolidProduct: the domain is a product of circumsolids (see
 	// ProductOfCircumsolids).
-	CircumsolidProduct = "circumsolid_product"
+	CircumsolidProduct = named.CircumsolidProduct
 )
 
 // Tangential decides whether the polygon is tangential: convex, with a

@@ -19,6 +19,7 @@ var deciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.Rectangle:         Rectangle,
 
 	named.ContinuousPotential: ContinuousPotential, named.RobinOrNeumannSides: RobinOrNeumannSides,
+	named.PositiveRobinAlpha: PositiveRobinAlpha,
 
 	TangentialPolygon: Tangential, CircumsolidProduct: ProductOfCircumsolids,
 }

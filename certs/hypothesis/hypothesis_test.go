@@ -166,6 +166,7 @@ func TestBoundaryHypotheses(t *testing.T) {
 	requireVerdict(t, "dirichlet", DirichletBoundary(p), certs.Proven)
 	requireVerdict(t, "neumann on dirichlet", NeumannBoundary(p), certs.Disproven)
 	requireVerdict(t, "robin on dirichlet", RobinBoundary(p), certs.Disproven)
+	requireVerdict(t, "positive alpha on dirichlet", PositiveRobinAlpha(p), certs.Disproven)
 
 	p = parse(t, problemText(square, "0", `["dirichlet","neumann","dirichlet","dirichlet"]`))
 	h := DirichletBoundary(p)
@@ -177,15 +178,20 @@ func TestBoundaryHypotheses(t *testing.T) {
 	p = parse(t, problemText(square, "0", `["neumann",{"robin":"0"},"neumann","neumann"]`))
 	requireVerdict(t, "neumann with robin 0", NeumannBoundary(p), certs.Proven)
 	requireVerdict(t, "neumann as robin 0", RobinBoundary(p), certs.Proven)
+	requireVerdict(t, "positive alpha on robin 0", PositiveRobinAlpha(p), certs.Disproven)
+	p = parse(t, problemText(square, "0", `"neumann"`))
+	requireVerdict(t, "positive alpha on neumann", PositiveRobinAlpha(p), certs.Disproven)
 
 	p = parse(t, problemText(square, "0", `{"robin":"sqrt(2)"}`))
 	requireVerdict(t, "one robin", RobinBoundary(p), certs.Proven)
+	requireVerdict(t, "positive alpha on robin sqrt(2)", PositiveRobinAlpha(p), certs.Proven)
 	if a, ok := CommonAlpha(p); !ok || a.Text != "sqrt(2)" {
 		t.Errorf("common alpha %q %v", a.Text, ok)
 	}
 	requireVerdict(t, "neumann on robin", NeumannBoundary(p), certs.Disproven)
 
 	p = parse(t, problemText(square, "0", `[{"robin":"1"},{"robin":"1"},{"robin":"2"},{"robin":"1"}]`))
+	requireVerdict(t, "positive alpha on two robin", PositiveRobinAlpha(p), certs.Disproven)
 	h = RobinBoundary(p)
 	requireVerdict(t, "two robin", h, certs.Disproven)
 	if *h.Witness.Side != 2 {

@@ -11,6 +11,7 @@ import (
 	"strings"
 	"time"
 
+	"gapcert/certs/certify"
 	"gapcert/fem/problem"
 	"gapcert/fem/problem/strictjson"
 	"gapcert/interval/decimalio"
@@ -443,6 +444,15 @@ func (f *Family) expand(template map[string]json.RawMessage, claims []string) []
 		}
 		pt.Problem = prob
 		f.Points = append(f.Points, pt)
+	}
+	// Every point has the same claims; one naming shape_margin needs the
+	// ground-state block (certify.GroundStateClaim).
+	if len(f.Points) > 0 && !f.GroundState {
+		if i := certify.GroundStateClaim(f.Points[0].Problem); i >= 0 {
+			iss = append(iss, problem.Issue{Path: familyPath(fmt.Sprintf("claims[%d]", i), templateClaims),
+				Msg:  fmt.Sprintf("claim %q names shape_margin, which only results.ground_state provides", f.Points[0].Problem.Claims[i]),
+				Hint: `set "ground_state": true`})
+		}
 	}
 	return iss
 }

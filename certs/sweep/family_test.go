@@ -132,6 +132,8 @@ func TestFamilyErrors(t *testing.T) {
 		{"family claim beyond the eigenvalues", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "claims": ["gap > 0", "lambda5 >= 1"]}`, `claims[1]: point 0 (L=1): claim "lambda5 >= 1", column 1: lambda5 is not certified: the problem asks for 2 eigenvalues (hint: set "eigenvalues": 5 or more)`},
 		{"family claim of a polygon quantity", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1", "2"]}], "claims": ["area > 0"]}`, `claims[0]: point 0 (L=1): claim "area > 0", column 1: area is defined for polygons only (hint: on an interval use D, its length)`},
 		{"template claim without alpha", `{"template": {"domain": {"interval": ["0", "L"]}, "boundary": "dirichlet", "claims": ["gap > 0", "gap >= alpha"]}, "parameters": [{"name": "L", "values": ["1"]}], "claims": ["gap > 1"]}`, `template.claims[1]: point 0 (L=1): claim "gap >= alpha", column 8: alpha has no value: no side has a Robin condition (hint: `},
+		{"shape_margin without the ground state", `{"template": {"domain": {"polygon": [["0", "0"], ["L", "0"], ["0", "1"]]}, "boundary": {"robin": "1"}, "claims": ["gap > 0"]}, "parameters": [{"name": "L", "values": ["1"]}], "claims": ["@robin_ground_state_not_log_concave"]}`, `claims[0]: claim "@robin_ground_state_not_log_concave" names shape_margin, which only results.ground_state provides (hint: set "ground_state": true)`},
+		{"template shape_margin, ground state false", `{"template": {"domain": {"polygon": [["0", "0"], ["L", "0"], ["0", "1"]]}, "boundary": {"robin": "1"}, "claims": ["shape_margin > 0"]}, "parameters": [{"name": "L", "values": ["1"]}], "ground_state": false}`, `template.claims[0]: claim "shape_margin > 0" names shape_margin`},
 		{"family claim grammar", `{` + tmpl + `, "parameters": [{"name": "L", "values": ["1"]}], "claims": ["gap = 1"]}`, `claims[0]: point 0 (L=1): claim "gap = 1", column 5: "=" is not a relation of a claim (hint: `},
 	} {
 		_, err := ParseFamily([]byte(c.text))
@@ -155,5 +157,15 @@ func TestFamilyGridLimit(t *testing.T) {
 		               {"name": "c", "range": {"lo": "0", "hi": "1", "count": 100}}]}`))
 	if err == nil || !strings.Contains(err.Error(), "more than 100000 points") {
 		t.Errorf("error %v", err)
+	}
+}
+
+// TestFamilyShapeMarginWithGroundState: with "ground_state": true a claim
+// naming shape_margin is accepted (the refusal in TestFamilyErrors is
+// about the missing block only).
+func TestFamilyShapeMarginWithGroundState(t *testing.T) {
+	f, err := ParseFamily([]byte(`{"template": {"domain": {"polygon": [["0", "0"], ["L", "0"], ["0", "1"]]}, "boundary": {"robin": "1"}}, "parameters": [{"name": "L", "values": ["1", "2"]}], "claims": ["@robin_ground_state_not_log_concave", "shape_margin > -1"], "ground_state": true}`))
+	if err != nil || len(f.Points) != 2 {
+		t.Fatalf("%v", err)
 	}
 }

@@ -115,6 +115,9 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if f.timeLimit <= 0 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration (hint: --time-limit 60s)", f.timeLimit)}
 	}
+	if i := certify.GroundStateClaim(p); i >= 0 && !f.groundState {
+		return &exitError{code: exitInvalid, err: fmt.Errorf("claims[%d]: %q names shape_margin, which only results.ground_state provides (hint: add --ground-state)", i, p.Claims[i])}
+	}
 	if progressWanted(cmd, f.quiet, f.progress) {
 		opt.Progress = func(format string, args ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, args...) }
 	}

@@ -144,3 +144,23 @@ func TestSweepGroundStateAndPlots(t *testing.T) {
 		t.Error("a refused plot wrote a picture")
 	}
 }
+
+// TestCertifyShapeMarginNeedsGroundState: a claim naming shape_margin
+// (here through @robin_ground_state_not_log_concave) without
+// --ground-state is refused before computing, exit 2, nothing written.
+func TestCertifyShapeMarginNeedsGroundState(t *testing.T) {
+	dir := t.TempDir()
+	prob := filepath.Join(dir, "robin.json")
+	src := `{"domain":{"polygon":[["0","0"],["2","0"],["1","1"]]},"boundary":{"robin":"1/4"},"claims":["gap > 0","@robin_ground_state_not_log_concave"]}`
+	if err := os.WriteFile(prob, []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	cert := filepath.Join(dir, "robin.cert.json")
+	code, _, errs := execute("certify", prob, "-o", cert)
+	if code != exitInvalid || !strings.Contains(errs, "claims[1]") || !strings.Contains(errs, "--ground-state") {
+		t.Errorf("exit %d, stderr %q", code, errs)
+	}
+	if _, err := os.Stat(cert); !os.IsNotExist(err) {
+		t.Error("a refused certification wrote a certificate")
+	}
+}

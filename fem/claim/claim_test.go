@@ -157,6 +157,8 @@ func TestCheckScope(t *testing.T) {
 		{"diameter > 0", square, 1, "unknown name"},
 		{"robin_interval_gap > 0", square, 1, "unknown name"},
 		{"robin_interval_gap > 0", Scope{Dim: 2, Vertices: 4, Eigenvalues: 2, Extra: []string{"robin_interval_gap"}}, 0, ""},
+		{"shape_margin > 0", square, 0, ""},
+		{"gap + shape_margin > 0", line, 7, "polygons only"},
 		{"lambda4 + area > zeta", line, 1, "lambda4"}, // the first defect in the text
 	} {
 		c, err := Parse(tc.text)
@@ -179,7 +181,7 @@ func TestCheckScope(t *testing.T) {
 
 func TestQuantities(t *testing.T) {
 	q := Quantities()
-	if len(q) != MaxEigenvalue+6 || q[0] != "lambda1" || q[MaxEigenvalue-1] != "lambda20" || !IsQuantity("inradius") || IsQuantity("lambda21") || IsQuantity("pi") {
+	if len(q) != MaxEigenvalue+7 || q[0] != "lambda1" || q[MaxEigenvalue-1] != "lambda20" || !IsQuantity("inradius") || !IsQuantity("shape_margin") || IsQuantity("lambda21") || IsQuantity("pi") {
 		t.Errorf("Quantities() = %v", q)
 	}
 }

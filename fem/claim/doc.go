@@ -34,6 +34,21 @@
 //	inradius             triangles only: 2·area/perimeter
 //	alpha                the Robin coefficient, when the problem has Robin
 //	                     sides and all of them have one coefficient
+//	shape_margin         polygons only: u(x)u(y) − u(m)² for the midpoint
+//	                     triple x, y, m = (x + y)/2 of the ground state u
+//	                     (unit L² norm) recorded in results.ground_state
+//
+// shape_margin is a value of the certificate, not of the problem alone:
+// its enclosure is the witness's margin when results.ground_state has a
+// witness of failed log-concavity, else the margin of the best candidate
+// triple of the search (package certs/certify). The problem file cannot
+// say whether the ground-state block will be computed, so Scope provides
+// shape_margin on every polygon; the certifier refuses, before computing,
+// a claim that names it when the ground state is not asked for, and a
+// claim whose certificate has a block with neither margin is undecided
+// with that reason. "shape_margin > 0" holding shows a triple with
+// u(m)² < u(x)u(y); it failing says only that the recorded triple is not
+// such a witness, nothing about log-concavity.
 //
 // Whether a quantity has a value depends on the problem: Scope describes
 // what a problem provides, and Claim.CheckScope names the first quantity of

@@ -18,6 +18,13 @@ const (
 	Perimeter = "perimeter"
 	Inradius  = "inradius"
 	Alpha     = "alpha"
+	// ShapeMargin is the margin u(x)·u(y) − u(m)² of the midpoint triple
+	// x, y, m = (x + y)/2 that a polygon's certificate records for its
+	// ground state u (unit L² norm): the witness's margin, or the best
+	// candidate's when there is no witness. It has a value only when the
+	// certificate has results.ground_state (certify --ground-state), and
+	// only on polygons.
+	ShapeMargin = "shape_margin"
 )
 
 // Eigenvalue returns the name of the k-th eigenvalue, "lambdak".
@@ -25,14 +32,14 @@ func Eigenvalue(k int) string { return "lambda" + strconv.Itoa(k) }
 
 // Quantities returns every quantity name a claim may use besides pi, e
 // and the problem's parameters: lambda1 … lambda20, gap, D, area,
-// perimeter, inradius, alpha. Which of them a given problem provides is
-// decided by Scope.
+// perimeter, inradius, alpha, shape_margin. Which of them a given problem
+// provides is decided by Scope.
 func Quantities() []string {
-	names := make([]string, 0, MaxEigenvalue+6)
+	names := make([]string, 0, MaxEigenvalue+7)
 	for k := 1; k <= MaxEigenvalue; k++ {
 		names = append(names, Eigenvalue(k))
 	}
-	return append(names, Gap, Diameter, Area, Perimeter, Inradius, Alpha)
+	return append(names, Gap, Diameter, Area, Perimeter, Inradius, Alpha, ShapeMargin)
 }
 
 // IsQuantity reports whether name is one of Quantities.
@@ -96,10 +103,16 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 			return "", ""
 		}
 		return "alpha has no value: " + s.NoAlpha, "alpha is the Robin coefficient shared by every Robin side; write the coefficient itself, or declare it as a parameter"
+	case ShapeMargin:
+		if s.Dim == 2 {
+			return "", ""
+		}
+		return "shape_margin is defined for polygons only (the margin u(x)u(y) - u(m)^2 of a midpoint triple of the ground state)",
+			"on an interval results.ground_state decides log-concavity itself (certify with --ground-state)"
 	}
 	known := fmt.Sprintf("known names: lambda1…lambda%d, gap, D", max(s.Eigenvalues, 1))
 	if s.Dim == 2 {
-		known += ", area, perimeter"
+		known += ", area, perimeter, shape_margin"
 		if s.Vertices == 3 {
 			known += ", inradius"
 		}

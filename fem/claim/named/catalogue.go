@@ -17,11 +17,14 @@ const (
 	DirichletBoundary = "dirichlet_boundary" // u = 0 on every side
 	NeumannBoundary   = "neumann_boundary"   // ∂u/∂n = 0 on every side
 	RobinBoundary     = "robin_boundary"     // ∂u/∂n + αu = 0 on every side, one α
-	ConvexDomain      = "convex_domain"
-	ConvexPotential   = "convex_potential"
-	ZeroPotential     = "zero_potential" // V ≡ 0
-	Triangle          = "triangle"
-	Rectangle         = "rectangle"
+	// PositiveRobinAlpha: ∂u/∂n + αu = 0 on every side, one α > 0 (robin_boundary
+	// without the Neumann case α = 0).
+	PositiveRobinAlpha = "positive_robin_alpha"
+	ConvexDomain       = "convex_domain"
+	ConvexPotential    = "convex_potential"
+	ZeroPotential      = "zero_potential" // V ≡ 0
+	Triangle           = "triangle"
+	Rectangle          = "rectangle"
 	// RobinOrNeumannSides: ∂u/∂n + α_i·u = 0 on every side i, the α_i ≥ 0
 	// possibly different (Neumann: α_i = 0); no Dirichlet side.
 	RobinOrNeumannSides = "robin_or_neumann_sides"
@@ -31,6 +34,9 @@ const (
 	// the closed domain; decided from the certificate's own
 	// results.ground_state, not from the problem.
 	LogConcaveGroundState = "log_concave_ground_state"
+	// CircumsolidProduct: the polygon is a product of circumsolids
+	// (tangential, or a rectangle); decided by certs/hypothesis.
+	CircumsolidProduct = "circumsolid_product"
 )
 
 // RobinIntervalGap is the reference quantity of @robin_comparison: the gap
@@ -199,6 +205,29 @@ var catalogue = []Claim{
 		Dims:       []int{1},
 		Hypotheses: []string{RobinOrNeumannSides, ContinuousPotential, LogConcaveGroundState},
 		Source:     "proved in the documentation of package fem/claim/named (ground-state substitution v = u2/u1 and a Dirichlet problem for v′√(u1²)); the weighted one-dimensional bound is classical: L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292, §2 (cited from a secondary source)",
+	},
+	// B. Andrews, J. Clutterbuck and D. Hauer, Non-concavity of the Robin
+	// ground state, Camb. J. Math. 8 (2020) 243–310, arXiv:1711.02779
+	// (abstract and main results): on a convex polyhedral domain that is
+	// not in a special class (products of circumsolids; in the plane a
+	// tangential polygon or a rectangle), the Robin ground state of −Δ is
+	// not log-concave for all sufficiently small Robin parameters α > 0.
+	// The theorem gives no explicit threshold on α, so for a given α it
+	// predicts nothing checkable: the verdict rests on the certified
+	// witness alone, shape_margin > 0 (a midpoint triple with
+	// u(m)² < u(x)u(y) in results.ground_state, which needs certify
+	// --ground-state). The hypotheses say whether the theorem's setting
+	// applies: convex_domain, robin_boundary (one α on every side),
+	// positive_robin_alpha (that α > 0; α = 0 is the Neumann case, whose
+	// ground state is constant) and zero_potential proven, and
+	// circumsolid_product DISPROVEN (the theorem predicts failure only
+	// outside the products of circumsolids).
+	{
+		Name:       "robin_ground_state_not_log_concave",
+		Inequality: claim.ShapeMargin + " > 0",
+		Dims:       []int{2},
+		Hypotheses: []string{ConvexDomain, RobinBoundary, PositiveRobinAlpha, ZeroPotential, CircumsolidProduct},
+		Source:     "B. Andrews, J. Clutterbuck and D. Hauer, Non-concavity of the Robin ground state, Camb. J. Math. 8 (2020) 243–310, arXiv:1711.02779: on a convex polygon that is not a product of circumsolids (circumsolid_product disproven) with V = 0 and one Robin α > 0 on every side, the ground state is not log-concave for sufficiently small α, with no explicit threshold; the verdict rests on the certified witness alone (shape_margin > 0 needs certify --ground-state)",
 	},
 }
 

@@ -1,5 +1,6 @@
 // Package named is the catalogue of built-in claims: inequalities from
-// published theorems, one open conjecture and one theorem proved below
+// published theorems (one of them a certified failure that a theorem
+// predicts), one open conjecture and one theorem proved below
 // ("The Robin gap under log-concavity") that a problem file names instead
 // of writing them out.
 //
@@ -24,6 +25,20 @@
 //	@payne_weinberger       lambda2 >= pi^2/D^2       intervals and polygons
 //	@robin_comparison       gap >= robin_interval_gap polygons
 //	@robin_log_concave_gap  gap >= pi^2/D^2           intervals
+//	@robin_ground_state_not_log_concave
+//	                        shape_margin > 0          polygons
+//
+// @robin_ground_state_not_log_concave is the one claim whose theorem
+// predicts a failure, and only for sufficiently small α with no explicit
+// threshold (Andrews, Clutterbuck and Hauer, arXiv:1711.02779): its
+// verdict is the certified witness alone (shape_margin, the margin of the
+// midpoint triple in results.ground_state: it holds when a triple with
+// u(m)² < u(x)u(y) is certified), and among its recorded hypotheses
+// circumsolid_product must be DISPROVEN for the theorem's setting, the
+// others (convex_domain, robin_boundary, positive_robin_alpha,
+// zero_potential) proven. A problem naming it must be certified with
+// --ground-state (package certs/certify refuses it otherwise, before
+// computing).
 //
 // A problem file may name a built-in claim when the claim applies to its
 // dimension (Claim.CheckScope). Whether the theorem's hypotheses hold is
