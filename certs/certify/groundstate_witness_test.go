@@ -30,7 +30,7 @@ import (
 // enclosures' loss. Near an obtuse corner alone (the isosceles trapezoid
 // of TestPolygonGroundStateRobinTrapezoidSweep) the margins measured are
 // 1e-6 to 1e-4, on discs of radius 1e-3 or less, too small to certify.
-const robinWedgeTrapezoid = `{"domain":{"polygon":[["0","0"],["6","0"],["6","0.3"],["0","1"]]},"boundary":{"robin":%q}}`
+const robinWedgeTrapezoid = `{"domain":{"polygon":[["0","0"],["6","0"],["6","0.3"],["0","1"]]},"boundary":{"robin":%q},"claims":["@robin_ground_state_not_log_concave"]}`
 
 // certifyRobinWedge certifies the trapezoid with Robin coefficient alpha
 // and the ground-state block through the driver (target 1e-8, ended by
@@ -79,6 +79,20 @@ func TestPolygonGroundStateRobinWedgeWitness(t *testing.T) {
 		t.Fatalf("verdict %s (%s), want disproven", gs.LogConcavity, gs.Reason)
 	}
 	checkWitness(t, gs)
+	// The built-in claim of Andrews–Clutterbuck–Hauer's setting holds, with
+	// every hypothesis of that setting decided as the theorem needs it.
+	if len(c.Claims) != 1 || c.Claims[0].Verdict != certs.Holds {
+		t.Fatalf("claims %+v, want @robin_ground_state_not_log_concave to hold", c.Claims)
+	}
+	for _, h := range c.Claims[0].Hypotheses {
+		want := certs.Proven
+		if h.Name == hypothesis.ProductOfCircumsolids(p).Name {
+			want = certs.Disproven
+		}
+		if h.Verdict != want {
+			t.Errorf("claim hypothesis %s: %s (%s), want %s", h.Name, h.Verdict, h.Detail, want)
+		}
+	}
 	data, err := c.Marshal()
 	if err != nil {
 		t.Fatal(err)
