@@ -88,7 +88,12 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 	}
 	gs := &certs.GroundState{Normalization: certs.NormalizationL2, LogConcavity: certs.Undecided}
 
-	// 1. The L² error bound.
+	// 1. The L² error bound. EigenvectorError needs ‖ũ‖² > 0 (as
+	// groundStateL2, which gives the reason for the block).
+	if !in.norm2.Positive() || !in.energy.IsBounded() {
+		gs.Reason = "no values and no verdict without an L2 error bound"
+		return gs, nil
+	}
 	aUU := in.energy.Sub(in.norm2.MulF(in.gamma))
 	ve, err := groundstate.EigenvectorError(aUU, in.norm2, in.lambda1, in.lambda2, in.gamma)
 	if err != nil {

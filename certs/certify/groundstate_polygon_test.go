@@ -339,3 +339,23 @@ func TestPolygonGroundStateUnitSquareRandomPoints(t *testing.T) {
 	t.Logf("1000 points: %d on mesh edges (whole line); median width %.3g; widest value near the centre %.3g, within 0.05 of the boundary %.3g",
 		unbounded, widths[len(widths)/2], centre, edge)
 }
+
+// When ‖ũ‖² is not enclosed away from 0 (here its enclosure widened down
+// to 0) no error bound exists: the block is undecided without values,
+// not a panic of the error bound.
+func TestPolygonGroundStateNormNotPositive(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 1, 1)
+	in.norm2 = interval.New(0, in.norm2.Hi)
+	gs, err := polygonGroundState(in, [][2]problem.Number{dyadicPoint(0.53125, 0.484375)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs.LogConcavity != certs.Undecided || gs.Witness != nil || gs.L2Error != "" || gs.Points != nil || gs.Reason == "" {
+		t.Fatalf("got %+v, want undecided without bounds, with a reason", gs)
+	}
+	// The whole block says why there is no error bound.
+	in.p.Points = nil
+	if gs, err = groundState(in); err != nil || !strings.Contains(gs.Reason, "not enclosed away from 0") {
+		t.Fatalf("block %+v (%v), want the reason for the missing error bound", gs, err)
+	}
+}
