@@ -97,7 +97,8 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 	aUU := in.energy.Sub(in.norm2.MulF(in.gamma))
 	ve, err := groundstate.EigenvectorError(aUU, in.norm2, in.lambda1, in.lambda2, in.gamma)
 	if err != nil {
-		gs.Reason = "λ1 is not shown to be separated from λ2, so no error bound, no values and no verdict: " + err.Error()
+		// A *NotSeparatedError; groundStateL2 gives its numbers.
+		gs.Reason = "lambda1 is not shown to be separated from lambda2: no values and no verdict are given"
 		return gs, nil
 	}
 	if !(ve.L2 < 1) {
@@ -157,7 +158,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 	case r.Certified && convex.Verdict == certs.Proven:
 		gs.LogConcavity = certs.Disproven
 		gs.Reason = "certified triple u((x+y)/2)^2 < u(x)u(y) with u(x), u(y) > 0 on a convex domain: log u is not concave on the segment [x, y]; " +
-			"λ1 is simple (separated from λ2) and the three values are of the same u = P1ũ"
+			"lambda1 is simple (separated from lambda2) and the three values are of the same u, the projection of the approximate ground state on the first eigenspace"
 		gs.Witness = &certs.ShapeWitness{Kind: certs.WitnessMidpoint,
 			Points: [][]string{exactPoint(best.x), exactPoint(best.y), exactPoint(best.m)},
 			Values: []certs.Bound{bound(normalise(r.X.U)), bound(normalise(r.Y.U)), bound(normalise(r.M.U))},

@@ -359,3 +359,22 @@ func TestPolygonGroundStateNormNotPositive(t *testing.T) {
 		t.Fatalf("block %+v (%v), want the reason for the missing error bound", gs, err)
 	}
 }
+
+// The reason of a block without separation names lambda1 and lambda2 as
+// the certificate's other messages do, and states the missing separation
+// (the Rayleigh quotient not below lambda2) once.
+func TestPolygonGroundStateSeparationReasonOnce(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 1, 1)
+	in.lambda2 = in.lambda1
+	gs, err := groundState(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := gs.Reason
+	if strings.Contains(r, "λ") || !strings.Contains(r, "lambda1") {
+		t.Errorf("reason %q: want lambda1 and lambda2 spelt out", r)
+	}
+	if strings.Count(r, "separated") != 1 || strings.Count(r, "Rayleigh quotient") != 1 {
+		t.Errorf("reason %q: want the missing separation stated once", r)
+	}
+}
