@@ -120,9 +120,13 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 
 	// 3.–5. The witness search.
 	convex := hypothesis.ConvexDomain(in.p)
-	best, tried, err := gd.bestTriple()
+	best, tried, skipped, err := gd.bestTriple()
 	if err != nil {
 		return nil, err
+	}
+	skipNote := ""
+	if skipped > 0 {
+		skipNote = fmt.Sprintf("; %d of the %d candidate triples tried were skipped: V could not be modelled on one of their discs", skipped, tried)
 	}
 	signKnown := false
 	if best != nil {
@@ -148,7 +152,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 		gs.Points = append(gs.Points, certs.PointValue{At: []string{pt[0].Text, pt[1].Text}, Value: bound(normalise(vals[i]))})
 	}
 	if best == nil {
-		gs.Reason = fmt.Sprintf("no candidate triple could be enclosed (%d tried); log-concavity is not decided in two dimensions without a witness", tried)
+		gs.Reason = fmt.Sprintf("no candidate triple could be enclosed (%d tried); log-concavity is not decided in two dimensions without a witness", tried) + skipNote
 		return gs, nil
 	}
 	r := best.res
@@ -175,6 +179,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 			gs.Reason += "; " + bl
 		}
 	}
+	gs.Reason += skipNote
 	return gs, nil
 }
 

@@ -13,6 +13,7 @@ import (
 	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
+	"gapcert/interval/formula"
 )
 
 // dyadicPoint returns the exact problem numbers of (x, y) (binary floats).
@@ -377,4 +378,23 @@ func TestPolygonGroundStateSeparationReasonOnce(t *testing.T) {
 	if strings.Count(r, "separated") != 1 || strings.Count(r, "Rayleigh quotient") != 1 {
 		t.Errorf("reason %q: want the missing separation stated once", r)
 	}
+}
+
+// A candidate triple on whose discs V cannot be modelled is skipped and
+// counted in the reason, not a stop of the whole certificate. V is
+// replaced after reading by sqrt(x − 1/2), undefined on the discs left of
+// x = 1/2 (the values are then not of the problem's ground state: the
+// test is of the search's handling of the refusal only; no point is asked
+// for).
+func TestPolygonGroundStateSkipsUnmodelledCandidates(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 2, 1)
+	in.p.Potential = formula.MustParse("sqrt(x - 1/2)")
+	gs, err := polygonGroundState(in, nil)
+	if err != nil {
+		t.Fatalf("error %v, want the candidate skipped", err)
+	}
+	if gs.LogConcavity != certs.Undecided || !strings.Contains(gs.Reason, "skipped: V could not be modelled") {
+		t.Fatalf("block %+v, want undecided with the skipped candidates counted", gs)
+	}
+	t.Log(gs.Reason)
 }
