@@ -207,7 +207,7 @@ func TestShapeMarginWithoutValue(t *testing.T) {
 	}
 	other, _ := claim.Parse("gap > 0")
 	env := map[string]interval.I{claim.Gap: interval.New(1, 2)}
-	for _, gs := range []*certs.GroundState{nil, {LogConcavity: certs.Undecided, Reason: "λ1 is not shown to be separated from λ2"}} {
+	for _, gs := range []*certs.GroundState{nil, {LogConcavity: certs.Undecided, Reason: "lambda1 is not shown to be separated from lambda2"}} {
 		_, why := shapeMargin(gs)
 		if !strings.Contains(why, "--ground-state") {
 			t.Errorf("reason %q", why)

@@ -120,6 +120,12 @@ func shootingProblem(p *problem.Problem) groundstate.Problem {
 // practice; robinNonnegative checks α ≥ 0 again). Where V is constant and equal to λ1 (Neumann with V = c) the
 // exact g is 0, and only a λ1 enclosure that does not reach below V lets
 // the verdict show g ≤ 0.
+//
+// A proven verdict needs only the sign of g, not the normalisation of u:
+// when the normalisation fails (newShotValues), the verdict is kept
+// without values and Reason says why. A witness (disproven) states values
+// of the normalised ground state, so without the normalisation the block
+// is Undecided.
 func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 	gs := &certs.GroundState{LogConcavity: certs.Undecided}
 	if gap := in.lambda2.Sub(in.lambda1); gap.Lo <= 0 {
@@ -145,16 +151,24 @@ func groundStateInterval(in groundStateInputs) (*certs.GroundState, error) {
 		// certified λ1 enclosure would be wrong. Stop with the reason.
 		return nil, fmt.Errorf("ground state: %w", err)
 	}
+	proven := fmt.Sprintf("log-concave: g = (V - lambda1)u^2 - u'^2 <= 0 on all %d pieces covering the interval, so (log u)'' = g/u^2 <= 0 (validated shooting with lambda1 in its certified enclosure)", lc.Pieces)
 	sv, err := newShotValues(gp, lambda)
 	if err != nil {
-		gs.Reason = "the ground state could not be normalised: " + err.Error()
+		why := "the ground state could not be normalised, so no values are given: " + err.Error()
+		if lc.Verdict == groundstate.Proven {
+			// The sign of g does not depend on the normalisation: the
+			// verdict stands without it.
+			gs.LogConcavity = certs.Proven
+			why = proven + "; " + why
+		}
+		gs.Reason = why
 		return gs, nil
 	}
 	n, _ := sv.norm2.Sqrt() // ∫u_L² > 0, checked by newShotValues
 	switch lc.Verdict {
 	case groundstate.Proven:
 		gs.LogConcavity = certs.Proven
-		gs.Reason = fmt.Sprintf("log-concave: g = (V - lambda1)u^2 - u'^2 <= 0 on all %d pieces covering the interval, so (log u)'' = g/u^2 <= 0 (validated shooting with lambda1 in its certified enclosure)", lc.Pieces)
+		gs.Reason = proven
 	case groundstate.Disproven:
 		w := lc.Witness
 		g := w.G

@@ -88,11 +88,17 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 	}
 	gs := &certs.GroundState{Normalization: certs.NormalizationL2, LogConcavity: certs.Undecided}
 
-	// 1. The L² error bound.
+	// 1. The L² error bound. EigenvectorError needs ‖ũ‖² > 0 (as
+	// groundStateL2, which gives the reason for the block).
+	if !in.norm2.Positive() || !in.energy.IsBounded() {
+		gs.Reason = "no values and no verdict without an L2 error bound"
+		return gs, nil
+	}
 	aUU := in.energy.Sub(in.norm2.MulF(in.gamma))
 	ve, err := groundstate.EigenvectorError(aUU, in.norm2, in.lambda1, in.lambda2, in.gamma)
 	if err != nil {
-		gs.Reason = "λ1 is not shown to be separated from λ2, so no error bound, no values and no verdict: " + err.Error()
+		// A *NotSeparatedError; groundStateL2 gives its numbers.
+		gs.Reason = "lambda1 is not shown to be separated from lambda2: no values and no verdict are given"
 		return gs, nil
 	}
 	if !(ve.L2 < 1) {
@@ -114,9 +120,13 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 
 	// 3.–5. The witness search.
 	convex := hypothesis.ConvexDomain(in.p)
-	best, tried, err := gd.bestTriple()
+	best, tried, skipped, err := gd.bestTriple()
 	if err != nil {
 		return nil, err
+	}
+	skipNote := ""
+	if skipped > 0 {
+		skipNote = fmt.Sprintf("; %d of the %d candidate triples tried were skipped: V could not be modelled on one of their discs", skipped, tried)
 	}
 	signKnown := false
 	if best != nil {
@@ -142,7 +152,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 		gs.Points = append(gs.Points, certs.PointValue{At: []string{pt[0].Text, pt[1].Text}, Value: bound(normalise(vals[i]))})
 	}
 	if best == nil {
-		gs.Reason = fmt.Sprintf("no candidate triple could be enclosed (%d tried); log-concavity is not decided in two dimensions without a witness", tried)
+		gs.Reason = fmt.Sprintf("no candidate triple could be enclosed (%d tried); log-concavity is not decided in two dimensions without a witness", tried) + skipNote
 		return gs, nil
 	}
 	r := best.res
@@ -152,7 +162,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 	case r.Certified && convex.Verdict == certs.Proven:
 		gs.LogConcavity = certs.Disproven
 		gs.Reason = "certified triple u((x+y)/2)^2 < u(x)u(y) with u(x), u(y) > 0 on a convex domain: log u is not concave on the segment [x, y]; " +
-			"λ1 is simple (separated from λ2) and the three values are of the same u = P1ũ"
+			"lambda1 is simple (separated from lambda2) and the three values are of the same u, the projection of the approximate ground state on the first eigenspace"
 		gs.Witness = &certs.ShapeWitness{Kind: certs.WitnessMidpoint,
 			Points: [][]string{exactPoint(best.x), exactPoint(best.y), exactPoint(best.m)},
 			Values: []certs.Bound{bound(normalise(r.X.U)), bound(normalise(r.Y.U)), bound(normalise(r.M.U))},
@@ -169,6 +179,7 @@ func polygonGroundState(in groundStateInputs, points [][2]problem.Number) (*cert
 			gs.Reason += "; " + bl
 		}
 	}
+	gs.Reason += skipNote
 	return gs, nil
 }
 

@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"errors"
 	"math"
 	"math/big"
 	"sort"
@@ -51,7 +52,12 @@ func (g *polygonGS) orient() {
 // expected loss)/ũ(m)² in floating point, the loss from the mean term of
 // the disc enclosures at the three points), certifies
 // the polygonCandidates best ones and returns the one with the largest
-// certified margin (nil if none could be enclosed) and how many were tried.
+// certified margin (nil if none could be enclosed), how many were tried
+// and how many of those were skipped because V could not be modelled on
+// one of their discs (a *groundstate.PotentialError: V undefined or
+// unbounded on the box around a disc, which may reach outside the
+// polygon). Skipping a candidate only makes the answer less useful, never
+// false: the block is then decided on the others.
 //
 // The grid. Step h = 2^k (about polygonSearchCells steps across the
 // polygon), coarse points o + h·(i, j) with a dyadic offset o (a fraction
@@ -60,10 +66,8 @@ func (g *polygonGS) orient() {
 // is a fine point, and every coordinate is a small multiple of h/64, so
 // the sums and halvings are exact in float64 (checked again by
 // groundstate.CertifyMidpoint).
-func (g *polygonGS) bestTriple() (*triple, int, error) {
+func (g *polygonGS) bestTriple() (best *triple, tried, skipped int, err error) {
 	cands := g.searchTriples()
-	var best *triple
-	tried := 0
 	for i := range cands {
 		c := &cands[i]
 		if m, ok := groundstate.ExactMidpoint(c.x, c.y); !ok || m != c.m {
@@ -77,8 +81,13 @@ func (g *polygonGS) bestTriple() (*triple, int, error) {
 		}
 		tried++
 		res, err := groundstate.CertifyMidpoint(g.v, g.lambda, g.errL2, dx, dy, dm, groundstate.DiscOptions{})
+		var pe *groundstate.PotentialError
+		if errors.As(err, &pe) {
+			skipped++
+			continue
+		}
 		if err != nil {
-			return nil, tried, err
+			return nil, tried, skipped, err
 		}
 		c.res = res
 		if best == nil || (res.Certified && !best.res.Certified) ||
@@ -86,7 +95,7 @@ func (g *polygonGS) bestTriple() (*triple, int, error) {
 			best = c
 		}
 	}
-	return best, tried, nil
+	return best, tried, skipped, nil
 }
 
 // searchTriples returns the polygonCandidates best triples of the

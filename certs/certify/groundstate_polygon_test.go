@@ -13,6 +13,7 @@ import (
 	"gapcert/fem/problem"
 	"gapcert/interval"
 	"gapcert/interval/decimalio"
+	"gapcert/interval/formula"
 )
 
 // dyadicPoint returns the exact problem numbers of (x, y) (binary floats).
@@ -338,4 +339,62 @@ func TestPolygonGroundStateUnitSquareRandomPoints(t *testing.T) {
 	sortFloats(widths)
 	t.Logf("1000 points: %d on mesh edges (whole line); median width %.3g; widest value near the centre %.3g, within 0.05 of the boundary %.3g",
 		unbounded, widths[len(widths)/2], centre, edge)
+}
+
+// When ‖ũ‖² is not enclosed away from 0 (here its enclosure widened down
+// to 0) no error bound exists: the block is undecided without values,
+// not a panic of the error bound.
+func TestPolygonGroundStateNormNotPositive(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 1, 1)
+	in.norm2 = interval.New(0, in.norm2.Hi)
+	gs, err := polygonGroundState(in, [][2]problem.Number{dyadicPoint(0.53125, 0.484375)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs.LogConcavity != certs.Undecided || gs.Witness != nil || gs.L2Error != "" || gs.Points != nil || gs.Reason == "" {
+		t.Fatalf("got %+v, want undecided without bounds, with a reason", gs)
+	}
+	// The whole block says why there is no error bound.
+	in.p.Points = nil
+	if gs, err = groundState(in); err != nil || !strings.Contains(gs.Reason, "not enclosed away from 0") {
+		t.Fatalf("block %+v (%v), want the reason for the missing error bound", gs, err)
+	}
+}
+
+// The reason of a block without separation names lambda1 and lambda2 as
+// the certificate's other messages do, and states the missing separation
+// (the Rayleigh quotient not below lambda2) once.
+func TestPolygonGroundStateSeparationReasonOnce(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 1, 1)
+	in.lambda2 = in.lambda1
+	gs, err := groundState(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := gs.Reason
+	if strings.Contains(r, "λ") || !strings.Contains(r, "lambda1") {
+		t.Errorf("reason %q: want lambda1 and lambda2 spelt out", r)
+	}
+	if strings.Count(r, "separated") != 1 || strings.Count(r, "Rayleigh quotient") != 1 {
+		t.Errorf("reason %q: want the missing separation stated once", r)
+	}
+}
+
+// A candidate triple on whose discs V cannot be modelled is skipped and
+// counted in the reason, not a stop of the whole certificate. V is
+// replaced after reading by sqrt(x − 1/2), undefined on the discs left of
+// x = 1/2 (the values are then not of the problem's ground state: the
+// test is of the search's handling of the refusal only; no point is asked
+// for).
+func TestPolygonGroundStateSkipsUnmodelledCandidates(t *testing.T) {
+	in := polygonGroundStateInputs(t, `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":"dirichlet"}`, 2, 1)
+	in.p.Potential = formula.MustParse("sqrt(x - 1/2)")
+	gs, err := polygonGroundState(in, nil)
+	if err != nil {
+		t.Fatalf("error %v, want the candidate skipped", err)
+	}
+	if gs.LogConcavity != certs.Undecided || !strings.Contains(gs.Reason, "skipped: V could not be modelled") {
+		t.Fatalf("block %+v, want undecided with the skipped candidates counted", gs)
+	}
+	t.Log(gs.Reason)
 }

@@ -254,3 +254,28 @@ func TestGroundStateNeedsLambda2(t *testing.T) {
 		t.Fatalf("got %v, want a refusal naming lambda2 with a hint", err)
 	}
 }
+
+// TestGroundStateProvenWithoutNormalisation: −u″ = λu on (0, 1),
+// Dirichlet, has λ1 = π² ≈ 9.87 and λ2 = 4π² ≈ 39.48 (closed form, common
+// practice). With the true but wide enclosure [9, 30] of λ1, V − λ ≤ 0
+// everywhere proves log-concavity, while the shots are not certified
+// positive at the split point (the family holds sin(√λ x)/√λ for λ up to
+// 30), so the normalisation fails: the verdict is kept, no value is given,
+// and the reason says why.
+func TestGroundStateProvenWithoutNormalisation(t *testing.T) {
+	p, err := problem.Parse([]byte(`{"domain":{"interval":["0","1"]},"boundary":"dirichlet","points":[["0.5"]]}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := groundStateInputs{p: p, lambda1: interval.New(9, 30), lambda2: interval.New(39.45, 39.5)}
+	gs, err := groundStateInterval(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if gs.LogConcavity != certs.Proven || len(gs.Points) != 0 || gs.Witness != nil {
+		t.Fatalf("block %+v, want proven without values", *gs)
+	}
+	if !strings.Contains(gs.Reason, "log-concave") || !strings.Contains(gs.Reason, "could not be normalised") {
+		t.Errorf("reason %q: want the verdict's and the normalisation's", gs.Reason)
+	}
+}
