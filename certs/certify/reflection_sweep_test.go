@@ -101,12 +101,16 @@ func bigInterval(x *big.Float) interval.I {
 // m, n ≥ 1 for Dirichlet and m, n ≥ 0 for Neumann (Lamé 1833; proved
 // complete in Pinsky 1980, cited above), so 3, 7 (Dirichlet) and 0, 1
 // (Neumann) times 16π²/(9ℓ²). With the inradius r = ℓ/(2√3) the unit is
-// 4π²/(27r²) (ℓ² = 12r²). Check of the normalisation: ℓ = 1 gives the
-// Dirichlet λ1 = 16π²/3 ≈ 52.638, the value TestEquilateralTriangle
-// certifies.
+// 4π²/(27r²) (ℓ² = 12r²). Derivation of the unit: the reflections in the
+// sides generate a group whose translations form the triangular lattice
+// of spacing d = 2·(altitude) = √3ℓ; an eigenfunction extends to the plane
+// as a combination of plane waves e^{ik·x} with k in the reciprocal
+// lattice, triangular of spacing 2π/(d·sin 60°) = 4π/(3ℓ), whose vectors
+// mb₁ + nb₂ (b₁, b₂ at 60°) have |k|² = (4π/(3ℓ))²(m² + mn + n²); the
+// Dirichlet (odd) combinations vanish unless m, n ≥ 1. Check: ℓ = 1 gives
+// the Dirichlet λ1 = 16π²/3 ≈ 52.638, as in Pinsky.
 func newReflectionCase(rng *rand.Rand, i int) reflectionCase {
 	variant := i / 3 // cycles the triangles' conditions: every 12 cases hold each kind
-
 	dec := func(lo, hi float64) string { return fmt.Sprintf("%.2f", lo+(hi-lo)*rng.Float64()) }
 	x0, y0 := dec(-10, 10), dec(-10, 10)
 	q := 2 + rng.Intn(11)
