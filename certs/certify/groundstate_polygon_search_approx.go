@@ -214,18 +214,8 @@ func (g *polygonGS) searchGrid(x0, y0, x1, y1, h, top float64) (float64, []tripl
 func (g *polygonGS) sample(ox, oy, hf float64, nx, ny int, val, dist []float64) {
 	s := g.space
 	m := s.Mesh()
-	p := s.Degree()
-	// The Bernstein multinomials in the order of LocalDofs: α = (p−i−j, i, j).
-	var alpha [][3]int
-	var weight []float64
-	for i := 0; i <= p; i++ {
-		for j := 0; j <= p-i; j++ {
-			a := [3]int{p - i - j, i, j}
-			alpha = append(alpha, a)
-			f, _ := new(big.Float).SetInt(multinomial(a)).Float64()
-			weight = append(weight, f)
-		}
-	}
+	e := g.newEvaluator()
+	alpha, weight := e.alpha, e.weight
 	for t := range m.Tris {
 		v := m.Vertices(t)
 		var vx, vy [3]float64
