@@ -2,7 +2,6 @@ package plot
 
 import (
 	"context"
-	"encoding/json"
 	"math"
 	"math/big"
 	"os"
@@ -92,29 +91,7 @@ func TestGroundStateInterval(t *testing.T) {
 			t.Errorf("picture lacks %q; texts:\n%s", w, text)
 		}
 	}
-	golden := filepath.Join("testdata", "ground_state_interval.golden.json")
-	if *update {
-		data, err := json.MarshalIndent(got, "", "\t")
-		if err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(golden, append(data, '\n'), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	data, err := os.ReadFile(golden)
-	if err != nil {
-		t.Fatal(err)
-	}
-	var want svgSummary
-	if err := json.Unmarshal(data, &want); err != nil {
-		t.Fatal(err)
-	}
-	if !reflect.DeepEqual(got, want) {
-		b, _ := json.MarshalIndent(got, "", "\t")
-		t.Errorf("structure differs from %s; got\n%s", golden, b)
-	}
+	compareGolden(t, got, filepath.Join("testdata", "ground_state_interval.golden.json"))
 }
 
 // TestGroundStateWithoutBlock: a certificate without results.ground_state

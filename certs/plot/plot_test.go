@@ -398,29 +398,7 @@ func TestGolden(t *testing.T) {
 				t.Fatal(err)
 			}
 			got := summarise(t, filepath.Join(dir, tc.file))
-			path := filepath.Join("testdata", tc.golden+".golden.json")
-			if *update {
-				data, err := json.MarshalIndent(got, "", "\t")
-				if err != nil {
-					t.Fatal(err)
-				}
-				if err := os.WriteFile(path, append(data, '\n'), 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			data, err := os.ReadFile(path)
-			if err != nil {
-				t.Fatal(err)
-			}
-			var want svgSummary
-			if err := json.Unmarshal(data, &want); err != nil {
-				t.Fatal(err)
-			}
-			if !reflect.DeepEqual(got, want) {
-				g, _ := json.MarshalIndent(got, "", "\t")
-				t.Errorf("%s differs from %s; got\n%s", tc.file, path, g)
-			}
+			compareGolden(t, got, filepath.Join("testdata", tc.golden+".golden.json"))
 		})
 	}
 }
@@ -730,5 +708,33 @@ func BenchmarkWrite(b *testing.B) {
 				}
 			}
 		})
+	}
+}
+
+// compareGolden compares the structure of a picture with its golden file
+// (written instead with -update).
+func compareGolden(t *testing.T, got svgSummary, golden string) {
+	t.Helper()
+	if *update {
+		data, err := json.MarshalIndent(got, "", "\t")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(golden, append(data, '\n'), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	data, err := os.ReadFile(golden)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var want svgSummary
+	if err := json.Unmarshal(data, &want); err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(got, want) {
+		b, _ := json.MarshalIndent(got, "", "\t")
+		t.Errorf("structure differs from %s; got\n%s", golden, b)
 	}
 }
