@@ -26,11 +26,11 @@ import (
 // Lehmann–Goerisch bound. The same holds for the net flux of each
 // triangle in any system of the edge DOFs alone.
 //
-// Hybridised solve (the hybridisation of mixed methods, D. N. Arnold and
-// F. Brezzi, RAIRO Modél. Math. Anal. Numér. 19 (1985) 7–32; Brezzi–Fortin
-// 1991, §V.1). The normal continuity of σ and the zero normal flux on
-// flux-free sides are dropped from the space and imposed by multipliers μ
-// (one per edge DOF there):
+// Hybridised solve (the hybridisation of mixed methods: D. N. Arnold and
+// F. Brezzi, RAIRO Modél. Math. Anal. Numér. 19 (1985) 7–32; Brezzi and
+// Fortin, Mixed and Hybrid Finite Element Methods, 1991). The normal
+// continuity of σ and the zero normal flux on flux-free sides are dropped
+// from the space and imposed by multipliers μ (one per edge DOF there):
 //
 //	minimise Σ_T (½ x_Tᵀ A_T x_T − r_Tᵀ x_T)  subject to  Σ_T E_T x_T = 0,
 //
