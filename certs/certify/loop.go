@@ -158,12 +158,12 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		}
 		next, why := d.next(r, out, gain)
 		if why != "" {
-			// A cap or a stall ends the run. A cap is recorded as such only
-			// when the best step is the last one (Check verifies it on the
-			// recorded step); after steps that only widened the widths it is
-			// a stall.
+			// A cap, a stall or the time ends the run. A cap is recorded as
+			// such only when the best step is the last one (Check verifies
+			// it on the recorded step); after steps that only widened the
+			// widths it is a stall.
 			reason = why
-			if best != last && why != StopStalled {
+			if best != last && (why == StopCap || why == StopNoSeparation) {
 				reason = StopStalled
 			}
 			if reason == StopNoSeparation && best.out.n > 0 {

@@ -56,7 +56,7 @@ const timeMargin = 1.5
 
 // kindRecord is what the run measured of the last step of one kind.
 type kindRecord struct {
-	tried   bool
+	tried   bool    // gain is measured (false again once a spent kind is renewed)
 	gain    float64 // factor by which it narrowed the worst width of the step it started from (0: no bound or no stage B)
 	seconds float64 // its wall time
 	ratio   float64 // its wall time over the predicted one (1 until measured), clamped to [¼, 4]
@@ -134,10 +134,15 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 		rec.spent = rec.gain < stallGain
 		if !rec.spent {
 			// What limits the widths may have moved: every other kind
-			// may pay again.
+			// that last narrowed them a little may pay again, and its
+			// last gain no longer predicts its next one (its prior does
+			// again). A kind that widened them or lost stage B stays
+			// spent: on the measured cases that comes from the float64
+			// choices on small elements, which further steps elsewhere
+			// do not repair.
 			for j := range h.kinds {
-				if stepKind(j) != k {
-					h.kinds[j].spent = false
+				if o := &h.kinds[j]; stepKind(j) != k && o.spent && o.gain >= 1 {
+					o.spent, o.tried = false, false
 				}
 			}
 		}
@@ -174,7 +179,7 @@ func (h *stepHistory) expect(d polygon, k stepKind, r recipe) bool {
 // ratioOrOne is the kind's measured ratio of wall time to predicted time,
 // 1 before it is measured.
 func (rec kindRecord) ratioOrOne() float64 {
-	if !rec.tried {
+	if rec.ratio == 0 {
 		return 1
 	}
 	return rec.ratio
@@ -204,7 +209,8 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // dropped. The stop reason says what remained: StopCap when every kind is
 // at its cap, StopTime when the only useful kinds left do not fit in the
 // time, StopStalled when every kind left is spent. The chosen step gets
-// the stage-A rider (withStageARider).
+// the stage-A rider (withStageARider). The first adaptive round waits
+// until grading is spent or at its cap.
 func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, string) {
 	base, baseScore := r, 0.0
 	rho, ritzN, indicators := out.rho, 0.0, []float64(nil)
@@ -233,6 +239,13 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 	for _, k := range choiceOrder {
 		c, ok := applyStep(k, base, indicators)
 		if !ok {
+			continue
+		}
+		if k == kindAdaptive && h != nil && !h.kinds[kindGrade].spent && base.graded < maxGraded && len(base.marks) == 0 {
+			// Marks fix the uniform and graded levels: the first round
+			// waits until grading, the structured refinement toward the
+			// corners, is spent or at its cap.
+			available = true
 			continue
 		}
 		available = true
@@ -293,11 +306,14 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 // cap. The degree rises by 2, as on smooth polygons (a raise by 1 gains
 // too little at the coarse first meshes: measured on the triangle with
 // apex (1/2, 1), the gap's width after the second step is 2.6e-2 at
-// degree 5 and 8.6e-4 at degree 6, for a time of 0.2 s and 0.6 s). A
-// grading or uniform level drops r's adaptive marks (they refer to
-// the triangles of the mesh they were computed on); an adaptive round
-// needs the indicators of r's step.
+// degree 5 and 8.6e-4 at degree 6, for a time of 0.2 s and 0.6 s).
+// Uniform and graded levels stay fixed once there are adaptive marks
+// (they refer to the triangles of the mesh they were computed on;
+// dropping them lost more than the level gained: measured on the
+// L-shape, 5e-8 → 3e-5); an adaptive round needs the indicators of r's
+// step.
 func applyStep(k stepKind, r recipe, indicators []float64) (recipe, bool) {
+	fixed := len(r.marks) > 0
 	switch k {
 	case kindDegree:
 		if r.degree >= maxPolygonDegree {
@@ -305,15 +321,15 @@ func applyStep(k stepKind, r recipe, indicators []float64) (recipe, bool) {
 		}
 		r.degree = min(r.degree+2, maxPolygonDegree)
 	case kindGrade:
-		if r.graded >= maxGraded {
+		if fixed || r.graded >= maxGraded {
 			return r, false
 		}
-		r.graded, r.marks = min(r.graded+2, maxGraded), nil
+		r.graded = min(r.graded+2, maxGraded)
 	case kindUniform:
-		if r.refine >= maxPolygonRefine {
+		if fixed || r.refine >= maxPolygonRefine {
 			return r, false
 		}
-		r.refine, r.marks = r.refine+1, nil
+		r.refine++
 	case kindAdaptive:
 		if indicators == nil || len(r.marks) >= maxAdaptiveRounds {
 			return r, false
@@ -387,7 +403,7 @@ func (h *stepHistory) note() string {
 	var parts []string
 	for _, k := range choiceOrder {
 		rec := h.kinds[k]
-		if !rec.tried {
+		if rec.seconds == 0 {
 			parts = append(parts, stepKindNames[k]+" not tried")
 			continue
 		}

@@ -139,8 +139,8 @@ func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 	}
 	h.pending, h.pendingBase = kindUniform, h.score
 	d.observe(r, out, 1e-5, 1)
-	if h.kinds[kindGrade].spent || h.kinds[kindUniform].spent {
-		t.Errorf("a uniform level gained 9.9: grading spent %v, uniform spent %v", h.kinds[kindGrade].spent, h.kinds[kindUniform].spent)
+	if g := h.kinds[kindGrade]; g.spent || g.tried || h.kinds[kindUniform].spent {
+		t.Errorf("a uniform level gained 9.9: grading %+v (want renewed to its prior), uniform spent %v", g, h.kinds[kindUniform].spent)
 	}
 	if g := h.kinds[kindUniform].gain; g < 9.8 || g > 10 {
 		t.Errorf("uniform gain %g, want 9.9", g)
