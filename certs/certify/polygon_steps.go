@@ -54,12 +54,21 @@ const stageAWorkPerTriangle = 26
 // are within a factor of about 1.5 on the measured cases).
 const timeMargin = 1.5
 
+// minLearnSeconds: a step shorter than this does not set its kind's
+// ratio of measured to predicted time (a choice: below about half a
+// second the fixed costs of a step, which the work does not count,
+// dominate; measured on the trapezoid with the 117° corner: uniform
+// levels of 0.1 to 0.5 s on the first meshes took 4× or more their
+// prediction, so that a later level on 400 triangles was predicted at
+// 16 s and not started with 12 s left).
+const minLearnSeconds = 0.5
+
 // kindRecord is what the run measured of the last step of one kind.
 type kindRecord struct {
 	tried   bool    // gain is measured (false again once a spent kind is renewed)
 	gain    float64 // factor by which it narrowed the worst width of the step it started from (0: no bound or no stage B)
 	seconds float64 // its wall time
-	ratio   float64 // its wall time over the predicted one (1 until measured), clamped to [¼, 4]
+	ratio   float64 // wall time over the predicted one of its last step of minLearnSeconds or more (0: none), clamped to [¼, 4]
 	spent   bool    // it gained less than stallGain, and no other kind has gained since
 }
 
@@ -127,8 +136,7 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 		default:
 			rec.gain = math.Exp(score - h.pendingBase)
 		}
-		rec.ratio = 1
-		if h.pendingCost > 0 {
+		if h.pendingCost > 0 && seconds >= minLearnSeconds {
 			rec.ratio = math.Min(4, math.Max(0.25, seconds/h.pendingCost))
 		}
 		rec.spent = rec.gain < stallGain
