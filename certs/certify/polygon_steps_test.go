@@ -123,8 +123,10 @@ func TestChooseStepByGainPerSecond(t *testing.T) {
 
 // TestObserveSpendsAndRenewsKinds: a step of a kind that gains less than
 // stallGain spends the kind; a later step of another kind that gains
-// renews it (what limits the widths may have moved); a step without a
-// stage-B bound counts as gain 0 and is not the best step.
+// renews it, and returns kinds that gained less than their prior to the
+// prior (what limits the widths may have moved); a step without a
+// stage-B bound counts as gain 0, spends its kind and is not the best
+// step.
 func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 	d, r, out := stepFixture(t)
 	h := d.hist
@@ -137,8 +139,12 @@ func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 	if !h.kinds[kindGrade].spent {
 		t.Errorf("grading gained 1.01: not spent")
 	}
+	h.kinds[kindAdaptive], h.kinds[kindDegree] = measured(1.5), measured(50)
 	h.pending, h.pendingBase = kindUniform, h.score
 	d.observe(r, out, 1e-5, 1)
+	if a, g := h.kinds[kindAdaptive], h.kinds[kindDegree]; a.tried || !g.tried {
+		t.Errorf("after a gain elsewhere: adaptive %+v (gained 1.5 < its prior: want its prior again), degree %+v (gained 50: want kept)", a, g)
+	}
 	if g := h.kinds[kindGrade]; g.spent || g.tried || h.kinds[kindUniform].spent {
 		t.Errorf("a uniform level gained 9.9: grading %+v (want renewed to its prior), uniform spent %v", g, h.kinds[kindUniform].spent)
 	}
