@@ -18,8 +18,9 @@
 //   - Flux: the Raviart–Thomas spaces RT_k ⊂ H(div) (exact rational
 //     reference basis, Piola transform) with the Lehmann–Goerisch matrix A2
 //     (LGMatrix, see Lehmann–Goerisch fluxes), the minimal-norm flux
-//     (MinimizeApprox) and
-//     refinement indicators (Indicators), both choices.
+//     (MinimizeApprox: hybridised, in a basis that separates the
+//     divergence-free fields, so that it stays accurate on triangles of
+//     any size) and refinement indicators (Indicators), both choices.
 //
 // Guarantees. Every interval matrix this package returns (RitzMatrices,
 // Projection.Matrices, Flux.LGMatrix) encloses, entry by entry, the exact forms for the
@@ -188,4 +189,7 @@
 //	lower bounds on eigenvalues, arXiv:1801.02561 (2018).
 //	F. Brezzi, M. Fortin, Mixed and Hybrid Finite Element Methods,
 //	Springer, 1991.
+//	D. N. Arnold, F. Brezzi, Mixed and nonconforming finite element
+//	methods: implementation, postprocessing and error estimates, RAIRO
+//	Modél. Math. Anal. Numér. 19 (1985) 7–32.
 package tri
