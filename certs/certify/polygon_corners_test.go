@@ -143,9 +143,11 @@ const lshapeLambda1 = 9.63972384402194105271
 // levels at 3 uniform levels) — with 24 levels on the stage-A mesh too,
 // its verified bounds were lost (measured, maxStageAGraded). The stage-A
 // lower bound of λ1 holds the published value and is within 5% of it
-// (measured 4.9%), and Check replays the recorded recipe (whose stage B
-// may fail to choose fluxes on the tiny corner elements: the bounds are
-// then stage A's) and refuses graded_levels and degrees past the caps.
+// (measured 4.9%), stage B runs (the hybridised flux choice of package
+// fem/tri stays accurate on the tiny corner elements), the enclosure of
+// λ1 holds the published value and is narrow (relative width 6.9e-5 at
+// degree 4 on one uniform level), and Check replays the recorded recipe and
+// refuses graded_levels and degrees past the caps.
 func TestDeepGradedRecipeVerifies(t *testing.T) {
 	p, err := problem.Parse([]byte(lshapeSource))
 	if err != nil {
@@ -164,12 +166,18 @@ func TestDeepGradedRecipeVerifies(t *testing.T) {
 	if !(lo <= lshapeLambda1) || (lshapeLambda1-lo)/lshapeLambda1 > 0.05 {
 		t.Errorf("stage-A lower bound of lambda1 %.10g, want ≤ %.10g within 5%%", lo, lshapeLambda1)
 	}
+	if out.lg == nil {
+		t.Errorf("stage B gave no bound: %v", out.notes)
+	}
 	res, err := assemble(p, r, out)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if !res.lambda[0].Contains(lshapeLambda1) {
 		t.Errorf("lambda1 enclosure %v misses %.15g", res.lambda[0], lshapeLambda1)
+	}
+	if res.widths[0] > 2e-4 {
+		t.Errorf("lambda1 relative width %.3g, want ≤ 2e-4 (measured 6.9e-5)", res.widths[0])
 	}
 	recordStep(t, res, "1e-2")
 	c, err := res.certificate(p, Options{Now: fixedTime})
