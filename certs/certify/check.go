@@ -312,8 +312,10 @@ func (r recipe) validate(p *problem.Problem) error {
 			return fmt.Errorf("method.refinements %d out of range", r.refine)
 		case r.stageARefine < 0 || r.stageARefine > maxPolygonRefine:
 			return fmt.Errorf("method.stage_a_refinements %d out of range", r.stageARefine)
-		case r.graded < 0 || r.graded > 3*maxPolygonRefine:
-			return fmt.Errorf("method.graded_levels %d out of range", r.graded)
+		case r.degree > maxPolygonDegree:
+			return fmt.Errorf("method.degree %d out of range (1 to %d on polygons)", r.degree, maxPolygonDegree)
+		case r.graded < 0 || r.graded > maxGraded:
+			return fmt.Errorf("method.graded_levels %d out of range (0 to %d)", r.graded, maxGraded)
 		case len(r.marks) > maxAdaptiveRounds:
 			return fmt.Errorf("method.adaptive_marks has %d rounds, more than %d", len(r.marks), maxAdaptiveRounds)
 		case r.fluxDegree < 0 || r.fluxDegree > 16:

@@ -64,7 +64,11 @@ type discretisation interface {
 // discretisationOf returns the discretisation of the problem's domain.
 func discretisationOf(p *problem.Problem) discretisation {
 	if p.Dim == 2 {
-		return polygon{p}
+		d := polygon{p: p}
+		if hasSingularCorners(p) {
+			d.hist = &stepHistory{}
+		}
+		return d
 	}
 	return intervalDomain{p}
 }

@@ -28,7 +28,10 @@
 // for stage A and Raviart–Thomas fluxes for stage B, which has its own
 // shift γ_B ≥ γ (ρ̂ and its bounds are converted between the shifts with
 // directed rounding). The trial mesh is refined uniformly, graded toward
-// singular corners and refined adaptively there (the marks are recorded).
+// singular corners (each by a depth from its exponent; the stage-A mesh
+// by its own rule) and refined adaptively there (the marks are recorded);
+// near singular corners the driver chooses the kind of each step by its
+// measured gain per second (polygon_steps.go).
 //
 // The enclosure of λ_k is [max(stage A, stage B) − γ, Ritz − γ]; the gap
 // λ₂ − λ₁ is enclosed by [ℓ₂ − u₁, u₂ − ℓ₁]. The driver refines the mesh and
@@ -71,9 +74,10 @@
 // (the discretisation's ShiftSearch, spectrum slicing), loop.go is the
 // refinement loop of Certify. Every choice of a dimension is in its
 // discretisation: interval.go (meshes with kink nodes, the interval
-// refinement rule), polygon.go and polygon_refine.go (first mesh,
-// singular corners, grading, Dörfler marks, extra indices, the polygon
-// refinement rule), thin.go (first meshes of thin polygons). recipe.go
+// refinement rule), polygon.go, polygon_refine.go and polygon_steps.go
+// (first mesh, singular corners and their exponents, grading, Dörfler
+// marks, extra indices, the polygon refinement rule and the choice of
+// steps by gain per second), thin.go (first meshes of thin polygons). recipe.go
 // chooses the first recipe and the shifts, memory.go estimates memory,
 // result.go and certificate.go write the results, check.go re-checks.
 //

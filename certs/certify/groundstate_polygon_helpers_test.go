@@ -38,13 +38,13 @@ func polygonGroundStateInputs(t testing.TB, src string, refine, steps int) groun
 		if step >= steps {
 			break
 		}
-		next, why := polygon{p}.next(r, out, 2)
+		next, why := polygon{p: p}.next(r, out, 2)
 		if why != "" {
 			t.Fatalf("no refinement after step %d: %s", step, why)
 		}
 		r = next
 	}
-	trial, err := polygon{p}.trial(r, &outcome{})
+	trial, err := polygon{p: p}.trial(r, &outcome{})
 	if err != nil {
 		t.Fatal(err)
 	}

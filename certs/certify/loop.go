@@ -83,6 +83,19 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	if est := memoryEstimate(p, r); est > budget {
 		return nil, &BudgetError{What: "the first mesh", Need: est, Budget: budget}
 	}
+	// A discretisation that paces itself (polygons with singular corners)
+	// starts a step only when its predicted time fits (chooseStep);
+	// otherwise the next step is expected to cost a few times the last.
+	type pacer interface {
+		pace(deadline time.Time, memory int64) bool
+	}
+	type observer interface {
+		observe(r recipe, out *outcome, worst, seconds float64)
+	}
+	paced := false
+	if pc, ok := d.(pacer); ok {
+		paced = pc.pace(start.Add(limit), budget)
+	}
 	var best *result
 	reason, bestStep := "", 0
 	prevWorst, steps, stalls := 0.0, 0, 0
@@ -116,6 +129,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 				time.Since(start).Seconds(), steps, r.describe(), out.describe(), time.Since(t0).Seconds(),
 				res.widths[0], res.widths[1], res.gapWidth, targetText)
 		}
+		if ob, ok := d.(observer); ok {
+			ob.observe(r, out, res.worst(), time.Since(t0).Seconds())
+		}
 		last := res
 		if best == nil || res.worst() <= best.worst() {
 			best, bestStep = res, steps
@@ -142,12 +158,12 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		}
 		next, why := d.next(r, out, gain)
 		if why != "" {
-			// A cap or a stall ends the run. A cap is recorded as such only
-			// when the best step is the last one (Check verifies it on the
-			// recorded step); after steps that only widened the widths it is
-			// a stall.
+			// A cap, a stall or the time ends the run. A cap is recorded as
+			// such only when the best step is the last one (Check verifies
+			// it on the recorded step); after steps that only widened the
+			// widths it is a stall.
 			reason = why
-			if best != last && why != StopStalled {
+			if best != last && (why == StopCap || why == StopNoSeparation) {
 				reason = StopStalled
 			}
 			if reason == StopNoSeparation && best.out.n > 0 {
@@ -161,7 +177,7 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			break
 		}
 		// The next step costs a few times the last one; stop if it would not fit.
-		if time.Since(start)+4*time.Since(t0) > limit {
+		if !paced && time.Since(start)+4*time.Since(t0) > limit {
 			reason = StopTime
 			break
 		}
@@ -173,7 +189,10 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	}
 	if reason == StopStalled {
 		msg := fmt.Sprintf("the widths stalled: the best step is step %d of %d, and the steps after it widened the widths", bestStep, steps)
-		if stalls >= d.stallSteps() {
+		if paced {
+			msg = fmt.Sprintf("the widths stalled: every kind of step not at its cap narrowed them by less than 5%% or gave no bound (best: step %d of %d)", bestStep, steps)
+			msg += d.stallNote()
+		} else if stalls >= d.stallSteps() {
 			msg = fmt.Sprintf("the widths stalled: steps %d to %d narrowed them by less than 5%% each (best: step %d)", steps-stalls+1, steps, bestStep)
 			msg += d.stallNote()
 		}

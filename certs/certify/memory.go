@@ -25,18 +25,11 @@ func memoryEstimate(p *problem.Problem, r recipe) int64 {
 // stage-A and the stage-B estimates.
 func (d polygon) memory(r recipe) int64 {
 	p := d.p
-	triangles := func(levels int) int64 {
-		t := int64(len(startMesh(p).tris))
-		for i := 0; i < levels; i++ {
-			t *= 4
-		}
-		// Each grading level adds a few dozen triangles per corner.
-		return t + int64(r.graded*len(singularCorners(p)))*40
-	}
+	triangles := func(levels int, corners []corner) int64 { return estimatedTriangles(p, levels, corners) }
 	// Edges ≈ 1.5 per triangle plus one mean per triangle (ECR).
-	stageA := triangles(r.stageARefine) * 5 / 2 * bytesPerUnknown
+	stageA := triangles(r.stageARefine, stageACorners(p, r)) * 5 / 2 * bytesPerUnknown
 	k := int64(max(r.fluxDegree, 0))
-	trial := triangles(r.refine)
+	trial := triangles(r.refine, trialCorners(p, r))
 	for _, marks := range r.marks {
 		trial += 6 * int64(len(marks)) // a bisected triangle and its closure
 	}
@@ -51,4 +44,18 @@ func (d polygon) memory(r recipe) int64 {
 	trialUnknowns := trial * int64(r.degree*r.degree) / 2
 	vectors := (12*(want+8)*trialUnknowns + want*fluxUnknowns) * 8
 	return max(stageA, flux+vectors)
+}
+
+// estimatedTriangles estimates the triangles of polygonMesh(p, levels,
+// corners) without building it: each uniform level has four times the
+// triangles, and each grading level adds a few dozen per corner.
+func estimatedTriangles(p *problem.Problem, levels int, corners []corner) int64 {
+	t := int64(len(startMesh(p).tris))
+	for i := 0; i < levels; i++ {
+		t *= 4
+	}
+	for _, c := range corners {
+		t += int64(c.levels) * 40
+	}
+	return t
 }

@@ -32,11 +32,11 @@ func FirstPlan(p *problem.Problem) (Plan, error) {
 	if p.Dim == 1 {
 		return Plan{Kind: KindInterval, Degree: r.degree, Cells: r.cells, StageACells: r.stageACells}, nil
 	}
-	m, err := polygonMesh(p, r.refine, r.graded)
+	m, err := trialMesh(p, r)
 	if err != nil {
 		return Plan{}, err
 	}
-	ma, err := polygonMesh(p, r.stageARefine, r.graded)
+	ma, err := polygonMesh(p, r.stageARefine, stageACorners(p, r))
 	if err != nil {
 		return Plan{}, err
 	}
@@ -46,5 +46,5 @@ func FirstPlan(p *problem.Problem) (Plan, error) {
 	}
 	return Plan{Kind: KindPolygon, Degree: r.degree, Triangles: len(m.Tris), StageATriangles: len(ma.Tris),
 		StageASpace: space, MemoryEstimate: memoryEstimate(p, r), ReentrantCorners: reentrantCorners(p),
-		SingularCorners: singularCorners(p)}, nil
+		SingularCorners: cornerVertices(trialCorners(p, r))}, nil
 }

@@ -23,7 +23,15 @@ import (
 // P_p on a triangle mesh for Rayleigh–Ritz, (enriched) Crouzeix–Raviart
 // elements on another for stage A, Raviart–Thomas fluxes on the trial
 // mesh for stage B, which has its own shift γ_B ≥ γ.
-type polygon struct{ p *problem.Problem }
+//
+// hist is what the driver measured of the steps of one run (nil when no
+// run is behind the choice, as in Check: the choice then rests on the
+// priors of chooseStep); Certify creates it for polygons with singular
+// corners (discretisationOf).
+type polygon struct {
+	p    *problem.Problem
+	hist *stepHistory
+}
 
 // first: P_4 on the first mesh refined once, RT_3 fluxes, stage A on
 // three refinements.
@@ -73,7 +81,7 @@ func (d polygon) trial(r recipe, out *outcome) (discrete.Trial, error) {
 }
 
 func (d polygon) stageA(r recipe, gamma interval.I, _ []float64, located int, out *outcome) (discrete.StageA, error) {
-	ma, err := polygonMesh(d.p, r.stageARefine, r.graded)
+	ma, err := polygonMesh(d.p, r.stageARefine, stageACorners(d.p, r))
 	if err != nil {
 		return nil, err
 	}
@@ -128,7 +136,7 @@ func (polygon) signFailure(err error) (interval.I, bool) {
 // cellLower returns min over the triangles of the first stage-A mesh of
 // the lower end of the enclosure of V there.
 func (d polygon) cellLower(r recipe) (float64, error) {
-	m, err := polygonMesh(d.p, r.stageARefine, r.graded)
+	m, err := polygonMesh(d.p, r.stageARefine, stageACorners(d.p, r))
 	if err != nil {
 		return 0, err
 	}
@@ -172,9 +180,8 @@ func sideConditions(p *problem.Problem) []boundary.Condition {
 }
 
 // polygonMesh triangulates the polygon (startMesh), refines it uniformly
-// `levels` times and grades it `graded` more levels toward every singular
-// corner.
-func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
+// `levels` times and grades it toward each of the corners by its levels.
+func polygonMesh(p *problem.Problem, levels int, corners []corner) (*mesh.Mesh, error) {
 	f := startMesh(p)
 	m, err := mesh.FromPolygon(f.verts, f.tris)
 	if err != nil {
@@ -183,18 +190,72 @@ func polygonMesh(p *problem.Problem, levels, graded int) (*mesh.Mesh, error) {
 	for i := 0; i < levels; i++ {
 		m = m.Refine()
 	}
-	if graded > 0 {
-		for _, c := range singularCorners(p) {
-			m = m.RefineGraded(f.vertex[c], graded)
+	for _, c := range corners {
+		if c.levels > 0 {
+			m = m.RefineGraded(f.vertex[c.vertex], c.levels)
 		}
 	}
 	return m, nil
 }
 
+// maxStageAGraded caps the grading levels of the stage-A mesh toward one
+// corner. Measured on the L-shape (Dirichlet, Crouzeix–Raviart, relative
+// deficit of the stage-A lower bound of λ1 at 3 to 6 uniform levels):
+// grading gains up to 1.8× by 3 to 4 levels and nothing beyond 6; at 12
+// levels the bounds widen (2× at 5 uniform levels, 30× at 6), at 16 to 20
+// they are lost, and at 28 the verified lower bound of the mass matrix
+// fails (triangles too small for float64).
+const maxStageAGraded = 6
+
+// stageACorners lists the corners toward which the stage-A mesh of r is
+// graded, with their levels: the corners with ν < 1 (cornerExponent at
+// degree 1), each by ⌈s·(1/ν − 1)⌉ + 1 levels for s = r.stageARefine, at
+// most maxStageAGraded. Stage A only supplies ρ̂ and the slicing; its
+// Crouzeix–Raviart eigenvalues converge like h² on smooth eigenfunctions
+// (its projection bound has C_h² ∝ h² in any case, package fem/tri), and
+// a corner term r^ν limits them to h_c^(2ν) on the corner element of size
+// h_c (singularCorners), so h_c = h^(1/ν), s·(1/ν − 1) levels below the
+// uniform mesh of size h ∝ 2^(−s), keeps the corner at the uniform rate
+// (one level more as a margin); exponents ν > 1 do not limit a
+// first-order space (common practice). On the L-shape this gives 3 to 4
+// levels at 3 to 6 uniform levels, where the measured gain ends
+// (maxStageAGraded). The levels depend only on the problem and
+// r.stageARefine, not on the trial mesh's grading, so a check replays
+// them and deep grading of the trial mesh leaves stage A verifiable.
+func stageACorners(p *problem.Problem, r recipe) []corner {
+	cs := singularCorners(p, 1, 0)
+	for k := range cs {
+		cs[k].levels = min(maxStageAGraded, 1+int(math.Ceil(float64(r.stageARefine)*(1/cs[k].nu-1)-exponentTolerance)))
+	}
+	return cs
+}
+
+// cornerVertices returns the vertices of the corners.
+func cornerVertices(cs []corner) []int {
+	var out []int
+	for _, c := range cs {
+		out = append(out, c.vertex)
+	}
+	return out
+}
+
+// hasSingularCorners reports whether the trial mesh of p is graded
+// (trialCorners) at any grading depth.
+func hasSingularCorners(p *problem.Problem) bool {
+	return len(singularCorners(p, gradedDegree, 0)) > 0
+}
+
+// trialCorners lists the corners toward which the trial mesh of r is
+// graded (singularCorners at the trial degree with r.graded levels for
+// the strongest; at gradedDegree, whatever the recipe's degree).
+func trialCorners(p *problem.Problem, r recipe) []corner {
+	return singularCorners(p, gradedDegree, r.graded)
+}
+
 // trialMesh is the mesh of the trial space and the fluxes: polygonMesh
 // followed by the recipe's adaptive rounds (mesh.RefineMarked).
 func trialMesh(p *problem.Problem, r recipe) (*mesh.Mesh, error) {
-	m, err := polygonMesh(p, r.refine, r.graded)
+	m, err := polygonMesh(p, r.refine, trialCorners(p, r))
 	if err != nil {
 		return nil, err
 	}
@@ -249,24 +310,106 @@ func reentrantCorners(p *problem.Problem) []int {
 	return out
 }
 
-// singularCorners lists the vertices near which eigenfunctions are
-// singular, where the driver grades the mesh: near a corner of interior
-// angle θ they behave like r^(π/θ) when both sides are Dirichlet or both
-// not (Neumann, Robin), and like r^(π/(2θ)) when exactly one side is
-// Dirichlet (Grisvard, Elliptic Problems in Nonsmooth Domains, Pitman
-// 1985, §§4–5; Robin sides have the Neumann exponents), so gradients are
-// unbounded for θ > π and for mixed corners with θ > π/2. The angle test
-// is in floating point: it only chooses meshes.
-func singularCorners(p *problem.Problem) []int {
+// corner is a vertex near which eigenfunctions are singular, with the
+// number of grading levels it gets (a choice).
+type corner struct {
+	vertex int     // index in p.Vertices
+	nu     float64 // its leading singular exponent ν (cornerExponent)
+	levels int     // grading levels toward it
+}
+
+// exponentTolerance: an exponent within this distance of an integer is
+// taken as that integer (a choice; the angle comes from float64 midpoints
+// of the exact vertices, accurate to about 1e-15 relative, so exact
+// integer exponents such as π/(π/4) = 4 are never missed; a corner whose
+// exponent is within 1e-9 of an integer k has a singular part
+// r^k·(r^ε − 1) ≈ ε r^k log r of relative size ε ≤ 1e-9, which the trial
+// space's polynomials approximate to far below that.)
+const exponentTolerance = 1e-9
+
+// cornerExponent returns the leading singular exponent ν of the corner at
+// vertex i for trial degree p, and whether it is singular there: the least
+// non-integer exponent below p of the harmonic functions r^ν Φ(θ) that
+// satisfy the sides' conditions on a sector of the corner's interior angle
+// ω, or false when every exponent below p is an integer (then the terms
+// r^ν Φ(θ) are harmonic polynomials, Re or Im of z^ν, and do not limit
+// P_p). Separation of variables in the sector 0 < θ < ω gives
+// Φ” + ν²Φ = 0, and (Grisvard, Elliptic Problems in Nonsmooth Domains,
+// Pitman 1985, ch. 4–5):
+//
+//	Dirichlet–Dirichlet  Φ = sin νθ          ν_k = kπ/ω,        k ≥ 1
+//	Neumann–Neumann      Φ = cos νθ          ν_k = kπ/ω,        k ≥ 1 (k = 0: constants)
+//	Dirichlet–Neumann    Φ = sin νθ, cos νθ  ν_k = (k − ½)π/ω,  k ≥ 1
+//
+// (D–N: Φ(0) = 0 gives sin νθ, Φ'(ω) = ν cos νω = 0 gives νω = (k − ½)π.)
+// A Robin side acts as a Neumann side at leading order: with a constant
+// coefficient the Robin term is one power of r smaller, and the expansion
+// is the Neumann one plus shadow terms r^(ν+1)(log r)^q (Piña-León,
+// Mantič, Jiménez-Alfaro, arXiv:2505.22585, 2025, for Dirichlet–Robin
+// corners). The shadow terms and those of a potential V (also one power
+// of r smaller) are left to the polynomials. The angle is computed in
+// floating point from the vertices' midpoints: a choice of where to grade,
+// never a bound.
+func cornerExponent(p *problem.Problem, i, degree int) (float64, bool) {
 	n := len(p.Vertices)
-	var out []int
-	for i := range p.Vertices {
-		cross, dot := cornerTurn(p, i)
-		mixed := p.Boundary[(i+n-1)%n].Condition().Essential() != p.Boundary[i].Condition().Essential()
-		// θ > π/2 ⇔ the edges' outgoing directions from v_i have a negative dot product or the corner is re-entrant.
-		if cross < 0 || (mixed && dot < 0) {
-			out = append(out, i)
+	omega := cornerAngle(p, i)
+	dirichletBefore := p.Boundary[(i+n-1)%n].Condition().Essential()
+	dirichletAfter := p.Boundary[i].Condition().Essential()
+	offset := 0.0
+	if dirichletBefore != dirichletAfter {
+		offset = 0.5
+	}
+	for k := 1; ; k++ {
+		nu := (float64(k) - offset) * math.Pi / omega
+		if nu >= float64(degree) {
+			return 0, false
 		}
+		if math.Abs(nu-math.Round(nu)) > exponentTolerance*math.Max(1, nu) {
+			return nu, true
+		}
+	}
+}
+
+// cornerAngle returns the interior angle ω ∈ (0, 2π) at vertex i of the
+// counterclockwise polygon (from the vertices' midpoints; a choice): the
+// angle from the direction of the next vertex counterclockwise to that of
+// the previous one.
+func cornerAngle(p *problem.Problem, i int) float64 {
+	n := len(p.Vertices)
+	a, b, c := p.Vertices[(i+n-1)%n], p.Vertices[i], p.Vertices[(i+1)%n]
+	bx, by := b[0].Val.Mid(), b[1].Val.Mid()
+	nx, ny := c[0].Val.Mid()-bx, c[1].Val.Mid()-by // to the next vertex
+	px, py := a[0].Val.Mid()-bx, a[1].Val.Mid()-by // to the previous vertex
+	omega := math.Atan2(nx*py-ny*px, nx*px+ny*py)
+	if omega <= 0 {
+		omega += 2 * math.Pi
+	}
+	return omega
+}
+
+// singularCorners lists the corners at which eigenfunctions are singular
+// for trial degree `degree` (cornerExponent), in vertex order,, with the grading levels of
+// each when the strongest one (least ν) gets `graded` levels: corner c
+// gets ⌈graded·ν_min/ν_c⌉. Near a corner the eigenfunction's singular term
+// r^ν Φ(θ) is approximated on the corner's element of size h_c with an
+// energy error ≈ h_c^ν whatever the degree, so the eigenvalue error it
+// causes is ≈ h_c^(2ν); each grading level halves h_c, and with these
+// levels every corner's contribution is about that of the strongest
+// corner, h^(2ν_min) (common practice of graded meshes: Babuška, Kellogg,
+// Pitkäranta, Numer. Math. 33 (1979) 447–471, recalled from memory). The
+// recipe records only `graded`; the levels of the other corners follow
+// from the problem and the degree, so a check replays them.
+func singularCorners(p *problem.Problem, degree, graded int) []corner {
+	var out []corner
+	nuMin := math.Inf(1)
+	for i := range p.Vertices {
+		if nu, ok := cornerExponent(p, i, degree); ok {
+			out = append(out, corner{vertex: i, nu: nu})
+			nuMin = math.Min(nuMin, nu)
+		}
+	}
+	for k := range out {
+		out[k].levels = int(math.Ceil(float64(graded)*nuMin/out[k].nu - exponentTolerance))
 	}
 	return out
 }

@@ -17,49 +17,68 @@ const maxPolygonRefine = 9
 
 // Adaptive refinement of the trial mesh: Dörfler's bulk parameter θ and
 // the most rounds a recipe may have; maxGraded caps the grading levels
-// the driver chooses (beyond about 12 at degree 8 the float64 solves that
-// choose eigenvectors and fluxes break down: measured on the L-shape and a
-// mixed-condition trapezoid).
+// toward the strongest corner (singularCorners). Measured on the L-shape
+// (Ritz relative error of λ1, one uniform level): degree 8 gains down to
+// 1.2e-10 by 20 levels and stalls there, degree 10 reaches 1.1e-12 at 24;
+// deeper grading is limited by the outer elements, which uniform levels
+// and degree raises serve.
 const (
 	adaptiveTheta     = 0.5
 	maxAdaptiveRounds = 40
-	maxGraded         = 12
+	maxGraded         = 24
 )
 
 // maxPolygonDegree is the largest degree of the polygon trial space the
-// driver chooses (the flux degree is one less).
-const maxPolygonDegree = 8
+// driver chooses near singular corners (the flux degree is one less);
+// maxSmoothDegree the largest on polygons without singular corners, whose
+// widths reach 1e-13 by degree 8 (measured on the unit square and the
+// equilateral triangle).
+const (
+	maxPolygonDegree = 10
+	maxSmoothDegree  = 8
+)
+
+// gradedDegree is the degree up to which singular exponents count when
+// the trial mesh is graded (trialCorners): a corner is graded when one of
+// its exponents below gradedDegree is not an integer. It is fixed, not the
+// recipe's degree, so that raising the degree keeps the trial mesh (and
+// the triangles that adaptive marks refer to); it is part of what a
+// recorded graded_levels means, and changing it changes the meshes of
+// recorded recipes.
+const gradedDegree = maxPolygonDegree
 
 // next chooses the next polygon recipe, or says why there is none (a Stop
 // reason). While stage B does not run, stage A (which converges like h²)
-// is refined; once it runs, the trial space limits the widths and its
-// degree is raised to maxPolygonDegree (unless a step stalled), then its
-// mesh refined, with stage A refined too while ρ̂ is within 10% of the
-// Ritz bound of Λ_N (Lehmann–Goerisch bounds sharpen as ρ̂ moves away
-// from Λ_N); re-entrant corners get more grading levels every step, where
-// the eigenfunctions are singular. gain is the factor by which the
-// last step narrowed the worst width: a degree raise that gained less than
-// 10 stalled (a model remainder or a singularity limits the widths, so the
-// mesh is refined instead), and grading continues while it gains more
-// than 1.5.
+// is refined. Once it runs, polygons without singular corners raise the
+// degree by 2 up to maxSmoothDegree while a raise gains 10 or more, then
+// refine uniformly; polygons with singular corners choose among the kinds
+// of step by measured gain per second (chooseStep). Any step is followed
+// by a stage-A level while ρ̂ is within 10% of the Ritz bound of Λ_N
+// (Lehmann–Goerisch bounds sharpen as ρ̂ moves away from Λ_N). gain is
+// the factor by which the last step narrowed the worst width.
 func (d polygon) next(r recipe, out *outcome, gain float64) (recipe, string) {
 	p := d.p
-	if gain < 0.5 && out.lg != nil && (r.graded > 0 || len(r.marks) > 0) {
-		// The widths doubled with stage B running on a graded mesh: on
-		// strongly graded meshes at high degree the float64 solves that
-		// choose eigenvectors and fluxes degrade, and finer meshes only
-		// make it worse. The best step is kept. (Without stage B, stage
-		// A's widths do not grow with refinement, and other steps help.)
+	corners := hasSingularCorners(p)
+	h := d.hist
+	if !corners && gain < 0.5 && out.lg != nil && len(r.marks) > 0 {
+		// The widths doubled with stage B running on a refined mesh: the
+		// float64 solves that choose eigenvectors and fluxes degrade, and
+		// finer meshes only make it worse. The best step is kept.
 		return r, StopStalled
 	}
 	if out.n > 0 && r.extra > defaultExtraIndices {
 		// Once N separates, the indices past N + 1 only cost time.
 		r.extra = max(defaultExtraIndices, min(r.extra, out.n-p.Eigenvalues+1))
 	}
-	corners := len(singularCorners(p)) > 0
 	// Adaptive marks refer to the triangles of the mesh they were computed
 	// on, so once there are marks the uniform and graded levels stay fixed.
 	fixed := len(r.marks) > 0
+	if out.n > 0 && out.lg == nil && h.hasBest() {
+		// N separates but stage B gave no bound (the flux choice failed
+		// on this mesh): the step is dropped and another kind of step is
+		// taken from the best one (chooseStep).
+		return h.chooseStep(d, r, out)
+	}
 	if out.n == 0 {
 		// No N separates: a cluster meets the last requested eigenvalue
 		// and the stage-A bounds are too wide to pass it with the indices
@@ -96,45 +115,36 @@ func (d polygon) next(r recipe, out *outcome, gain float64) (recipe, string) {
 		if corners && !fixed && r.graded < maxGraded {
 			r.graded++
 		}
+		if !h.expect(d, kindStageA, r) {
+			return r, StopTime
+		}
 		return r, ""
 	}
+	if corners {
+		return h.chooseStep(d, r, out)
+	}
 	switch {
-	case corners && !fixed && r.graded < maxGraded && gain > 1.5:
-		r.graded += 2
-		if r.degree < maxPolygonDegree && r.graded%4 == 0 {
-			r.degree++
-		}
-	case corners && r.degree < maxPolygonDegree:
-		// Deeper grading stalled: the flux least-squares system on tiny
-		// elements is too ill-conditioned for float64 to choose good
-		// fluxes (measured on the L-shape: 14 levels at degree 8 lose
-		// three digits against 12). Raise the degree instead.
-		r.degree++
-	case r.degree < maxPolygonDegree && gain >= 10:
+	case r.degree < maxSmoothDegree && gain >= 10:
 		r.degree += 2
-	case corners && out.polygon.indicators != nil && len(r.marks) < maxAdaptiveRounds:
-		// Near singular corners, once grading and the degree are spent,
-		// refine where the flux misses the gradient (Dörfler marking;
-		// recorded in the recipe, so check replays it). Smooth problems
-		// refine uniformly instead, which gains 2^(2p) per level (measured
-		// on the Robin trapezoid: adaptive rounds took 74 s for a gap
-		// width of 1.6e-9 where uniform levels take 16 s for 1.9e-9; on a
-		// trapezoid with a Dirichlet–Neumann corner of 117° they reach
-		// 1.1e-8 in 30 s where grading alone stopped at 1.6e-7).
-		r.marks = append(append([][]int(nil), r.marks...), dorflerMarks(out.polygon.indicators, adaptiveTheta))
 	case r.refine < maxPolygonRefine && !fixed:
 		r.refine++
 	default:
 		return r, StopCap
 	}
+	return withStageARider(r, out.rho, out.ritz[out.n-1]), ""
+}
+
+// withStageARider returns r with the flux degree one below the trial
+// degree and, while ρ̂ (rho) is within 10% of the Ritz bound ritzN of
+// Λ_N, one more stage-A level. With raised extra indices N lies past a
+// cluster whose spacing keeps ρ̂ within 10% of Λ_N at every stage-A
+// level, so the rule is kept to the default count.
+func withStageARider(r recipe, rho, ritzN float64) recipe {
 	r.fluxDegree = r.degree - 1
-	// With raised extra indices N lies past a cluster whose spacing keeps
-	// ρ̂ within 10% of Λ_N at every stage-A level, so the rule is kept to
-	// the default count.
-	if r.extra == defaultExtraIndices && out.rho-out.ritz[out.n-1] < 0.1*out.ritz[out.n-1] && r.stageARefine < maxPolygonRefine {
+	if r.extra == defaultExtraIndices && rho-ritzN < 0.1*ritzN && r.stageARefine < maxPolygonRefine {
 		r.stageARefine++
 	}
-	return r, ""
+	return r
 }
 
 // neededExtra predicts the extra indices with which an N would separate
@@ -179,18 +189,19 @@ func neededExtra(p *problem.Problem, out *outcome, shrink float64) int {
 	return 0
 }
 
-// stalls: on polygons the widths stall when polygonStalls steps in a
-// row with stage B gain less than stallGain, whatever the width: each
-// kind of step (degree, grading, adaptive rounds, uniform levels) has
-// then been tried. Measured on the L-shape at 1e-12: λ1 stays at
-// relative width 3.6e-4 from step 3 to step 17 (degree 4 to 8, grading 2
-// to 6, 10 adaptive rounds, 108 s).
-func (polygon) stalls(gain float64, out *outcome, _ *result) bool {
-	return gain < stallGain && out.lg != nil
+// stalls: on polygons without singular corners the widths stall when
+// polygonStalls steps in a row with stage B gain less than stallGain,
+// whatever the width. With singular corners chooseStep decides the stall
+// itself (every kind of step spent from the best step), so no count of
+// steps applies.
+func (d polygon) stalls(gain float64, out *outcome, _ *result) bool {
+	return gain < stallGain && out.lg != nil && !hasSingularCorners(d.p)
 }
 
 func (polygon) stallSteps() int { return polygonStalls }
 
-func (polygon) stallNote() string { return "" }
+// stallNote is what the stall warning adds: with singular corners, the
+// last gain of each kind of step (stepHistory.note).
+func (d polygon) stallNote() string { return d.hist.note() }
 
 const polygonStalls = 5

@@ -17,14 +17,18 @@ const (
 	// is at most the target.
 	StopTarget = "target reached"
 	// StopTime: the next step would not have finished within the time
-	// limit (it is expected to take a few times the last one).
+	// limit (it is expected to take a few times the last one; on polygons
+	// with singular corners, every useful step left has a predicted time,
+	// from its unknowns and the measured times, that does not fit).
 	StopTime = "time limit"
 	// StopMemory: the next step's estimated peak memory exceeds the budget.
 	StopMemory = "memory budget"
 	// StopStalled: the last step widened the widths (on polygons whose
 	// stage B ran, the float64 solves that choose eigenvectors and fluxes
 	// degrade on strongly graded meshes, and finer meshes only make it
-	// worse).
+	// worse), or steps in a row narrowed them by less than 5% (on
+	// polygons with singular corners: every kind of step left, taken from
+	// the best step, did).
 	StopStalled = "widths stalled"
 	// StopCap: degree, cells, mesh levels and grading are at their caps
 	// (or at what float64 can mesh), and no step is left.

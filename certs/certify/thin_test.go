@@ -26,7 +26,7 @@ func TestThinFirstMesh(t *testing.T) {
 	if a := minAngle(f.verts, f.tris); a < math.Pi/4-1e-9 {
 		t.Errorf("smallest angle %.3g°", a*180/math.Pi)
 	}
-	m, err := polygonMesh(p, 0, 0)
+	m, err := polygonMesh(p, 0, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

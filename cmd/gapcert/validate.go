@@ -180,7 +180,7 @@ func describePlan(w io.Writer, p *problem.Problem) {
 		fmt.Fprintf(w, "             re-entrant corners at vertices %v\n", plan.ReentrantCorners)
 	}
 	if len(plan.SingularCorners) > 0 {
-		fmt.Fprintf(w, "             singular corners at vertices %v (re-entrant, or > 90° between a Dirichlet side and another kind): meshes are graded toward them and refined adaptively there\n", plan.SingularCorners)
+		fmt.Fprintf(w, "             singular corners at vertices %v (a singular exponent below the top trial degree is not an integer): the trial mesh is graded toward them\n", plan.SingularCorners)
 	}
 	fmt.Fprintln(w, "             (finer meshes follow until the target width is met)")
 }
