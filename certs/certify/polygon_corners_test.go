@@ -149,14 +149,8 @@ const lshapeLambda1 = 9.63972384402194105271
 // degree 4 on one uniform level), and Check replays the recorded recipe and
 // refuses graded_levels and degrees past the caps.
 func TestDeepGradedRecipeVerifies(t *testing.T) {
-	p, err := problem.Parse([]byte(lshapeSource))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := initialRecipe(p)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := parseProblem(t, lshapeSource)
+	r := firstRecipe(t, p)
 	r.graded = maxGraded
 	out, err := compute(p, r)
 	if err != nil {

@@ -3,8 +3,6 @@ package certify
 import (
 	"testing"
 	"time"
-
-	"gapcert/fem/problem"
 )
 
 // stepFixture is a polygon with a singular corner (the L-shape), a
@@ -19,14 +17,8 @@ import (
 // a uniform level (stepWork).
 func stepFixture(t *testing.T) (polygon, recipe, *outcome) {
 	t.Helper()
-	p, err := problem.Parse([]byte(lshapeSource))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := initialRecipe(p)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := parseProblem(t, lshapeSource)
+	r := firstRecipe(t, p)
 	r.degree, r.fluxDegree, r.graded, r.refine = 6, 5, 4, 3
 	m, err := trialMesh(p, r)
 	if err != nil {

@@ -23,6 +23,16 @@ func parseProblem(t *testing.T, src string) *problem.Problem {
 	return p
 }
 
+// firstRecipe returns the first recipe of p (initialRecipe).
+func firstRecipe(t *testing.T, p *problem.Problem) recipe {
+	t.Helper()
+	r, err := initialRecipe(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
 // editMethod returns data with its method block changed by edit.
 func editMethod(t *testing.T, data []byte, edit func(m *Method)) []byte {
 	t.Helper()
