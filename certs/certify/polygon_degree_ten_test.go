@@ -42,15 +42,18 @@ func robinRoot(k int) float64 {
 // hypotenuse, so legs Dirichlet: 5π², 10π² (hypotenuse Dirichlet) and
 // 2π², 5π² (hypotenuse Neumann), legs Neumann, hypotenuse Dirichlet: π²
 // (cos πx + cos πy) and 4π² (cos 2πx − cos 2πy); equilateral triangle of
-// side 1, Dirichlet: 16π²/3 and the double 112π²/9, M. A. Pinsky, SIAM J.
-// Math. Anal. 11 (1980) 819–827; a square with Dirichlet sides y = 0, 1,
-// x = 0 and the Robin side x = 1, ∂u/∂n + u = 0: κ_k² + π² with κ_k the
-// roots of tan κ = −κ, λ1 = κ_1² + π², λ2 = κ_2² + π² (κ_1² + 4π² is
-// larger)), and a quadrilateral with one corner of exactly 90° + atan 1e-12
-// whose λ_k lie between those of the unit square (a subdomain: Dirichlet
-// monotonicity, Courant–Hilbert vol. 1, ch. VI §2) and of the rectangle
-// of width 1 + 1e-12 containing it, and which the driver does not grade
-// (its exponent is within 1e-9 of 2).
+// side 1, Dirichlet: (16π²/9)(m² + mn + n²), m, n ≥ 1, so 16π²/3 and
+// the double 112π²/9 (Lamé's formulas, rederived in B. J. McCartin,
+// Eigenstructure of the equilateral triangle, Part III, IJMMS 2004:16,
+// 807–825; the formula recalled from memory); a square with Dirichlet
+// sides y = 0, 1, x = 0 and the Robin side x = 1, ∂u/∂n + u = 0:
+// κ_k² + π² with κ_k the roots of tan κ = −κ, λ1 = κ_1² + π²,
+// λ2 = κ_2² + π² (κ_1² + 4π² is larger)), and a quadrilateral with
+// corners of exactly 90° ± atan 1e-12, whose λ_k lie between those of the
+// unit square (a subdomain: Dirichlet monotonicity, Courant–Hilbert vol.
+// 1, ch. VI, recalled from memory) and of the rectangle of width
+// 1 + 1e-12 containing it, and which the driver does not grade (its
+// exponents are within 1e-9 of 2).
 func closedFormPolygons() []closedFormPolygon {
 	pi2 := math.Pi * math.Pi
 	eq := func(a, b float64) [2]float64 { return [2]float64{a, b} }
