@@ -318,8 +318,9 @@ func (r recipe) validate(p *problem.Problem) error {
 			return fmt.Errorf("method.graded_levels %d out of range (0 to %d)", r.graded, maxGraded)
 		case len(r.marks) > maxAdaptiveRounds:
 			return fmt.Errorf("method.adaptive_marks has %d rounds, more than %d", len(r.marks), maxAdaptiveRounds)
-		case r.fluxDegree < 0 || r.fluxDegree > 16:
-			return fmt.Errorf("method.flux_degree %d out of range", r.fluxDegree)
+		case r.fluxDegree < 0 || r.fluxDegree > maxPolygonDegree-1:
+			// The driver records fluxes one degree below the trial space.
+			return fmt.Errorf("method.flux_degree %d out of range (0 to %d on polygons)", r.fluxDegree, maxPolygonDegree-1)
 		case r.weightTaylor < 1 || r.weightTaylor > 32:
 			return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
 		}

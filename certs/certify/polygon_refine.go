@@ -91,6 +91,10 @@ func (d polygon) next(r recipe, out *outcome, gain float64) (recipe, string) {
 		// needs.
 		if extra := neededExtra(p, out, 1); extra > r.extra && extra <= maxExtraIndices {
 			r.extra = extra
+			// A paced run has no other time check (Certify).
+			if !h.expect(d, kindStageA, r) {
+				return r, StopTime
+			}
 			return r, ""
 		}
 		if extra := neededExtra(p, out, 0.25); extra > r.extra && extra <= maxExtraIndices && r.stageARefine < maxPolygonRefine {
