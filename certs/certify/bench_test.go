@@ -24,6 +24,34 @@ func benchmarkCertify(b *testing.B, src string, relWidth float64) {
 	}
 }
 
+// heapPeak runs f and returns the largest live heap sampled every period
+// while it runs (after a garbage collection before it starts).
+func heapPeak(period time.Duration, f func()) uint64 {
+	runtime.GC()
+	var peak uint64
+	done := make(chan struct{})
+	sampled := make(chan struct{})
+	go func() {
+		defer close(sampled)
+		t := time.NewTicker(period)
+		defer t.Stop()
+		for {
+			select {
+			case <-done:
+				return
+			case <-t.C:
+				var ms runtime.MemStats
+				runtime.ReadMemStats(&ms)
+				peak = max(peak, ms.HeapAlloc)
+			}
+		}
+	}()
+	f()
+	close(done)
+	<-sampled
+	return peak
+}
+
 // BenchmarkHarmonic: V = x² on (−2, 2), Dirichlet, relative width 1e-10.
 func BenchmarkHarmonic(b *testing.B) {
 	benchmarkCertify(b, `{"domain":{"interval":["-2","2"]},"potential":"x^2","boundary":"dirichlet","eigenvalues":2}`, 1e-10)
@@ -58,26 +86,9 @@ func BenchmarkPolygonStageA(b *testing.B) {
 		b.Run(fmt.Sprintf("refine%d", level), func(b *testing.B) {
 			var peak uint64
 			for i := 0; i < b.N; i++ {
-				runtime.GC()
-				var before runtime.MemStats
-				runtime.ReadMemStats(&before)
-				done := make(chan struct{})
-				go func() { // sample the heap while computing
-					t := time.NewTicker(50 * time.Millisecond)
-					defer t.Stop()
-					for {
-						select {
-						case <-done:
-							return
-						case <-t.C:
-							var ms runtime.MemStats
-							runtime.ReadMemStats(&ms)
-							peak = max(peak, ms.HeapAlloc)
-						}
-					}
-				}()
-				out, err := compute(p, r)
-				close(done)
+				var out *outcome
+				var err error
+				peak = max(peak, heapPeak(50*time.Millisecond, func() { out, err = compute(p, r) }))
 				if err != nil {
 					b.Fatal(err)
 				}

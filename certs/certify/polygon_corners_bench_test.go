@@ -3,11 +3,11 @@ package certify
 import (
 	"context"
 	"os"
-	"runtime"
 	"strconv"
 	"testing"
 	"time"
 
+	"gapcert/certs"
 	"gapcert/fem/problem"
 )
 
@@ -51,24 +51,10 @@ func BenchmarkCornerTargets(b *testing.B) {
 			}
 			var peak uint64
 			for i := 0; i < b.N; i++ {
-				runtime.GC()
-				done := make(chan struct{})
-				go func() {
-					t := time.NewTicker(100 * time.Millisecond)
-					defer t.Stop()
-					for {
-						select {
-						case <-done:
-							return
-						case <-t.C:
-							var ms runtime.MemStats
-							runtime.ReadMemStats(&ms)
-							peak = max(peak, ms.HeapAlloc)
-						}
-					}
-				}()
-				cert, err := Certify(context.Background(), p, Options{RelWidth: "1e-12", TimeLimit: limit})
-				close(done)
+				var cert *certs.Certificate
+				peak = max(peak, heapPeak(100*time.Millisecond, func() {
+					cert, err = Certify(context.Background(), p, Options{RelWidth: "1e-12", TimeLimit: limit})
+				}))
 				if err != nil {
 					b.Fatal(err)
 				}
