@@ -23,14 +23,8 @@ const notLogConcave = "@robin_ground_state_not_log_concave"
 // need, see TestPolygonGroundStateWitnessAgainstSeparation).
 func certificateAtRefinement(t *testing.T, src string, refine int) *certs.Certificate {
 	t.Helper()
-	p, err := problem.Parse([]byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := initialRecipe(p)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := parseProblem(t, src)
+	r := firstRecipe(t, p)
 	r.refine = refine
 	out, err := compute(p, r)
 	if err != nil {

@@ -86,14 +86,8 @@ func closedFormPolygons() []closedFormPolygon {
 // `graded` grading levels, stage A as the first recipe has it.
 func certifyRecipe(t *testing.T, src string, degree, refine, graded int) (*problem.Problem, *result) {
 	t.Helper()
-	p, err := problem.Parse([]byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := initialRecipe(p)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := parseProblem(t, src)
+	r := firstRecipe(t, p)
 	r.degree, r.fluxDegree, r.refine, r.graded = degree, degree-1, refine, graded
 	if err := r.validate(p); err != nil {
 		t.Fatalf("hand-made recipe refused: %v", err)
