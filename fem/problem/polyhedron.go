@@ -42,6 +42,7 @@ type Polyhedron struct {
 	apex      vec3      // a point strictly on the inner side of every face plane
 	apexText  [3]string // its coordinates, as exact text when known
 	convex    string
+	outside   [2]int // a vertex strictly outside a face's plane (vertex, face) when not convex
 }
 
 // Limits of the polyhedron reader.

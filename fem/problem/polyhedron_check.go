@@ -405,7 +405,7 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 	}
 	ph.Faces, ph.Flipped = faces, flip
 	ph.pts, ph.triangles, ph.triFace, ph.apex = pts, tris, triFace, apex
-	ph.convex = convexity(pts, faces, geo)
+	ph.convex, ph.outside[0], ph.outside[1] = convexity(pts, faces, geo)
 	return true
 }
 
@@ -510,24 +510,27 @@ func signedVolume6(pts []vec3, geo []faceGeometry) xnum {
 // convex, near a point of the relative interior of f, P is the inner side
 // of f's plane; the segments from a vertex strictly on the outer side to
 // the points of P there would put points of the outer side near f into P.
-func convexity(pts []vec3, faces [][]int, geo []faceGeometry) string {
+//
+// The verdict "not convex" comes with its witness: a vertex strictly on
+// the outer side of a face's plane.
+func convexity(pts []vec3, faces [][]int, geo []faceGeometry) (verdict string, vertex, face int) {
 	undecided := false
 	for i, f := range faces {
 		v0 := pts[f[0]]
-		for _, q := range pts {
+		for k, q := range pts {
 			s, ok := q.sub(v0).dot(geo[i].normal).sign()
 			switch {
 			case !ok:
 				undecided = true
 			case s > 0:
-				return "not convex"
+				return "not convex", k, i
 			}
 		}
 	}
 	if undecided {
-		return "undecided"
+		return "undecided", 0, 0
 	}
-	return "convex"
+	return "convex", 0, 0
 }
 
 // selfIntersection returns a message naming two faces whose triangles

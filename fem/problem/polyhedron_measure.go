@@ -16,6 +16,13 @@ import (
 // convexity).
 func (ph *Polyhedron) Convex() string { return ph.convex }
 
+// ReentrantVertex returns, when Convex is "not convex", a vertex that lies
+// strictly on the outer side of the plane of a face (the witness of
+// non-convexity), and ok = true.
+func (ph *Polyhedron) ReentrantVertex() (vertex, face int, ok bool) {
+	return ph.outside[0], ph.outside[1], ph.convex == "not convex"
+}
+
 // Volume encloses the volume: a sixth of Σ det(a − o, b − o, c − o) over
 // the outward triangles (a, b, c) of the faces, o the first vertex (the
 // divergence theorem applied to the field (x − o)/3, whose divergence is
