@@ -287,3 +287,17 @@ func TestPolyhedronRandomInvalid(t *testing.T) {
 		}
 	}
 }
+
+// TestPolyhedronClaims: claims on a polyhedron may name volume,
+// surface_area and D, not the polygon quantities.
+func TestPolyhedronClaims(t *testing.T) {
+	file := func(claim string) []byte {
+		return []byte(strings.Replace(string(polyFile(cubeVertices, cubeFaces, `"dirichlet"`)), `"boundary"`, `"claims": ["`+claim+`"], "boundary"`, 1))
+	}
+	if _, err := Parse(file("lambda1*volume^(2/3) >= surface_area/6 + D - sqrt(3)")); err != nil {
+		t.Errorf("volume and surface_area: %v", err)
+	}
+	if _, err := Parse(file("lambda1*area > 1")); err == nil || !strings.Contains(err.Error(), "claims[0]") || !strings.Contains(err.Error(), "area is defined for polygons only") {
+		t.Errorf("area: %v", err)
+	}
+}
