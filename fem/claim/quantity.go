@@ -21,7 +21,7 @@ const (
 	// domain and of its boundary.
 	Volume      = "volume"
 	SurfaceArea = "surface_area"
-	Alpha     = "alpha"
+	Alpha       = "alpha"
 	// ShapeMargin is the margin u(x)·u(y) − u(m)² of the midpoint triple
 	// x, y, m = (x + y)/2 that a polygon's certificate records for its
 	// ground state u (unit L² norm): the witness's margin, or the best
