@@ -20,69 +20,128 @@ import (
 // excludes 0 or is the point 0, so that every exact value inside has that
 // sign. An undecided sign is reported; it is never guessed.
 
-// xnum is a number built from the polyhedron's coordinates: exact (a surd)
-// when every coordinate is one, else only its enclosure. The zero value is
-// 0 in both kinds (an operation with an exact operand is exact; the
-// coordinates of one polyhedron are all of one kind).
+// xnum is a number built from the polyhedron's coordinates: exact (a surd,
+// or an element of one cyclotomic field) when every coordinate is one,
+// else only its enclosure. The zero value is the number 0 of any kind:
+// an operation takes the kind of its exact operand (the coordinates of one
+// polyhedron are all of one kind).
 type xnum struct {
-	s     algebraic.Surd
-	v     interval.I
-	exact bool
+	kind numKind
+	s    algebraic.Surd
+	c    algebraic.Cyclotomic
+	v    interval.I
+}
+
+// numKind says how an xnum is held.
+type numKind uint8
+
+const (
+	enclosed   numKind = iota // only an enclosure
+	surd                      // exact, Σ q_i·√r_i
+	cyclotomic                // exact, in Q(ζ_m)
+)
+
+// like returns a converted to b's kind when a is the zero value.
+func (a xnum) like(b xnum) xnum {
+	if a.kind != enclosed || b.kind == enclosed {
+		return a
+	}
+	switch b.kind {
+	case surd:
+		return xnum{kind: surd}
+	default:
+		return xnum{kind: cyclotomic, c: b.c.Scale(new(big.Rat))}
+	}
 }
 
 func (a xnum) add(b xnum) xnum {
-	if a.exact || b.exact {
-		return xnum{s: a.s.Add(b.s), exact: true}
+	a, b = a.like(b), b.like(a)
+	switch a.kind {
+	case surd:
+		return xnum{kind: surd, s: a.s.Add(b.s)}
+	case cyclotomic:
+		return xnum{kind: cyclotomic, c: a.c.Add(b.c)}
 	}
 	return xnum{v: a.v.Add(b.v)}
 }
 
 func (a xnum) sub(b xnum) xnum {
-	if a.exact || b.exact {
-		return xnum{s: a.s.Sub(b.s), exact: true}
+	a, b = a.like(b), b.like(a)
+	switch a.kind {
+	case surd:
+		return xnum{kind: surd, s: a.s.Sub(b.s)}
+	case cyclotomic:
+		return xnum{kind: cyclotomic, c: a.c.Sub(b.c)}
 	}
 	return xnum{v: a.v.Sub(b.v)}
 }
 
 func (a xnum) mul(b xnum) xnum {
-	if a.exact || b.exact {
-		return xnum{s: a.s.Mul(b.s), exact: true}
+	a, b = a.like(b), b.like(a)
+	switch a.kind {
+	case surd:
+		return xnum{kind: surd, s: a.s.Mul(b.s)}
+	case cyclotomic:
+		return xnum{kind: cyclotomic, c: a.c.Mul(b.c)}
 	}
 	return xnum{v: a.v.Mul(b.v)}
 }
 
 // scale returns q·a for a rational q.
 func (a xnum) scale(q *big.Rat) xnum {
-	if a.exact {
-		return xnum{s: a.s.Scale(q), exact: true}
+	switch a.kind {
+	case surd:
+		return xnum{kind: surd, s: a.s.Scale(q)}
+	case cyclotomic:
+		return xnum{kind: cyclotomic, c: a.c.Scale(q)}
 	}
 	return xnum{v: a.v.Mul(decimalio.FromRat(q))}
 }
 
+// rat returns the value when it is an exact rational.
+func (a xnum) rat() (*big.Rat, bool) {
+	switch a.kind {
+	case surd:
+		return a.s.Rat()
+	case cyclotomic:
+		return a.c.Rat()
+	}
+	return nil, false
+}
+
 // enclose encloses the value.
 func (a xnum) enclose() interval.I {
-	if a.exact {
-		if r, ok := a.s.Rat(); ok {
-			return decimalio.FromRat(r)
-		}
+	if r, ok := a.rat(); ok {
+		return decimalio.FromRat(r)
+	}
+	switch a.kind {
+	case surd:
 		return a.s.Enclose()
+	case cyclotomic:
+		return a.c.Enclose()
 	}
 	return a.v
 }
 
 // sign returns the sign of the value; ok is false when it is not decided.
 func (a xnum) sign() (int, bool) {
-	if a.exact {
-		if a.s.IsZero() {
-			return 0, true
-		}
-		if r, ok := a.s.Rat(); ok {
-			return r.Sign(), true
-		}
-		s, ok := signOf(a.s.Enclose())
-		return s, ok && s != 0
+	zero := false
+	switch a.kind {
+	case surd:
+		zero = a.s.IsZero()
+	case cyclotomic:
+		zero = a.c.IsZero()
+	default:
+		return signOf(a.v)
 	}
-	return signOf(a.v)
+	if zero {
+		return 0, true
+	}
+	if r, ok := a.rat(); ok {
+		return r.Sign(), true
+	}
+	s, ok := signOf(a.enclose())
+	return s, ok && s != 0
 }
 
 // vec3 is a point or vector of three xnum.
@@ -107,6 +166,11 @@ func (a vec3) dot(b vec3) xnum {
 	return a[0].mul(b[0]).add(a[1].mul(b[1])).add(a[2].mul(b[2]))
 }
 
+func (a vec3) neg() vec3 {
+	var z vec3
+	return z.sub(a)
+}
+
 func (a vec3) enclose() [3]interval.I {
 	return [3]interval.I{a[0].enclose(), a[1].enclose(), a[2].enclose()}
 }
@@ -120,29 +184,33 @@ func orient3(a, b, c, d vec3) (int, bool) {
 }
 
 // exactPoints returns the vertices as vec3: surds when every coordinate
-// is read exactly as one (package algebraic), else enclosures.
+// is read exactly as one, else elements of the smallest cyclotomic field
+// holding every coordinate when each is read as a sum of rational
+// multiples of roots of unity (cos and sin of rational multiples of π;
+// package algebraic), else enclosures.
 func exactPoints(vs [][3]Number) []vec3 {
 	out := make([]vec3, len(vs))
-	exact := true
-	for i, p := range vs {
-		for k, n := range p {
-			if !exact {
-				break
+	if surds, ok := readExact(vs, algebraic.NewSurd, algebraic.ReadSurd); ok {
+		for i, p := range surds {
+			for k := range 3 {
+				out[i][k] = xnum{kind: surd, s: p[k]}
 			}
-			if n.Rat != nil {
-				out[i][k] = xnum{s: algebraic.NewSurd(n.Rat), exact: true}
-				continue
-			}
-			s, ok := algebraic.ReadSurd(n.Text, n.Val)
-			if !ok {
-				exact = false
-				break
-			}
-			out[i][k] = xnum{s: s, exact: true}
 		}
-	}
-	if exact {
 		return out
+	}
+	if sums, ok := readExact(vs, algebraic.NewRootSum, algebraic.ReadRootSum); ok {
+		all := make([]algebraic.RootSum, 0, 3*len(sums))
+		for _, p := range sums {
+			all = append(all, p[:]...)
+		}
+		if f, ok := algebraic.CyclotomicFieldOf(all...); ok {
+			for i, p := range sums {
+				for k := range 3 {
+					out[i][k] = xnum{kind: cyclotomic, c: f.Element(p[k])}
+				}
+			}
+			return out
+		}
 	}
 	for i, p := range vs {
 		for k, n := range p {
@@ -150,4 +218,25 @@ func exactPoints(vs [][3]Number) []vec3 {
 		}
 	}
 	return out
+}
+
+// readExact reads every coordinate exactly: a rational with fromRat, a
+// constant formula (its canonical text, guarded by its enclosure) with
+// read.
+func readExact[T any](vs [][3]Number, fromRat func(*big.Rat) T, read func(string, interval.I) (T, bool)) ([][3]T, bool) {
+	out := make([][3]T, len(vs))
+	for i, p := range vs {
+		for k, n := range p {
+			if n.Rat != nil {
+				out[i][k] = fromRat(n.Rat)
+				continue
+			}
+			v, ok := read(n.Text, n.Val)
+			if !ok {
+				return nil, false
+			}
+			out[i][k] = v
+		}
+	}
+	return out, true
 }

@@ -8,6 +8,7 @@ import (
 
 	"gapcert/interval"
 	"gapcert/interval/algebraic"
+	"gapcert/interval/decimalio"
 	"gapcert/interval/formula"
 )
 
@@ -29,10 +30,8 @@ func (ph *Polyhedron) ReentrantVertex() (vertex, face int, ok bool) {
 // 1). The sum is exact for surd coordinates.
 func (ph *Polyhedron) Volume() interval.I {
 	s := ph.volume6()
-	if s.exact {
-		if r, ok := s.s.Rat(); ok {
-			return ratEnclosure(r.Quo(r, big.NewRat(6, 1)))
-		}
+	if r, ok := s.rat(); ok {
+		return decimalio.FromRat(r.Quo(r, big.NewRat(6, 1)))
 	}
 	return s.enclose().Div(interval.Point(6))
 }
@@ -116,9 +115,6 @@ func (ph *Polyhedron) Tetrahedra() [][4]int {
 	return out
 }
 
-// ratEnclosure encloses a rational.
-func ratEnclosure(r *big.Rat) interval.I { return xnum{s: algebraic.NewSurd(r), exact: true}.enclose() }
-
 // potentialRange encloses the range of V over the closed polyhedron as
 // the hull of V over the coordinate boxes of the cone tetrahedra, which
 // cover it (each box holds its tetrahedron).
@@ -160,14 +156,15 @@ func (ph *Polyhedron) potentialRange(v *formula.Expr) (interval.I, string) {
 // orientation is < 0.
 func (ph *Polyhedron) placePoint(pt []Number) (msg, hint string) {
 	pts, apex := ph.pts, ph.apex
-	q, exact := vec3{}, pts[0][0].exact
-	for k := range 3 {
-		switch {
-		case exact && pt[k].Rat != nil:
-			q[k] = xnum{s: algebraic.NewSurd(pt[k].Rat), exact: true}
-		case exact:
-			s, ok := algebraic.ReadSurd(pt[k].Text, pt[k].Val)
-			q[k], exact = xnum{s: s, exact: true}, ok
+	var q vec3
+	exact := pts[0][0].kind == surd
+	if exact {
+		sq, ok := readExact([][3]Number{{pt[0], pt[1], pt[2]}}, algebraic.NewSurd, algebraic.ReadSurd)
+		exact = ok
+		for k := range 3 {
+			if ok {
+				q[k] = xnum{kind: surd, s: sq[0][k]}
+			}
 		}
 	}
 	if !exact {
