@@ -19,12 +19,27 @@ type vec2 [2]xnum
 
 // orient2 returns the sign of (b − a) × (c − a).
 func orient2(a, b, c vec2) (int, bool) {
-	return b[0].sub(a[0]).mul(c[1].sub(a[1])).sub(b[1].sub(a[1]).mul(c[0].sub(a[0]))).sign()
+	f := func(a, b, c vec2) xnum { return b[0].sub(a[0]).mul(c[1].sub(a[1])).sub(b[1].sub(a[1]).mul(c[0].sub(a[0]))) }
+	if s, ok := filtered2(f, a, b, c); ok {
+		return s, true
+	}
+	return f(a, b, c).sign()
+}
+
+// filtered2 is filtered for points of a plane.
+func filtered2(f func(a, b, c vec2) xnum, a, b, c vec2) (int, bool) {
+	s, ok := filtered(func(a, b, c, _ vec3) xnum { return f(vec2{a[0], a[1]}, vec2{b[0], b[1]}, vec2{c[0], c[1]}) },
+		vec3{a[0], a[1], a[1]}, vec3{b[0], b[1], b[1]}, vec3{c[0], c[1], c[1]})
+	return s, ok
 }
 
 // dot2 returns the sign of (b − a)·(c − a).
 func dot2(a, b, c vec2) (int, bool) {
-	return b[0].sub(a[0]).mul(c[0].sub(a[0])).add(b[1].sub(a[1]).mul(c[1].sub(a[1]))).sign()
+	f := func(a, b, c vec2) xnum { return b[0].sub(a[0]).mul(c[0].sub(a[0])).add(b[1].sub(a[1]).mul(c[1].sub(a[1]))) }
+	if s, ok := filtered2(f, a, b, c); ok {
+		return s, true
+	}
+	return f(a, b, c).sign()
 }
 
 // segmentsMeet2 decides whether the closed segments [p1, p2] and [p3, p4]
@@ -515,10 +530,18 @@ func signedVolume6(pts []vec3, geo []faceGeometry) xnum {
 // the outer side of a face's plane.
 func convexity(pts []vec3, faces [][]int, geo []faceGeometry) (verdict string, vertex, face int) {
 	undecided := false
+	encl, _ := enclosedPoints(pts)
 	for i, f := range faces {
-		v0 := pts[f[0]]
+		v0, n := pts[f[0]], geo[i].normal
+		var ne vec3
+		for c := range 3 {
+			ne[c] = xnum{v: n[c].enclose()}
+		}
 		for k, q := range pts {
-			s, ok := q.sub(v0).dot(geo[i].normal).sign()
+			s, ok := encl[k].sub(encl[f[0]]).dot(ne).sign()
+			if !ok {
+				s, ok = q.sub(v0).dot(n).sign()
+			}
 			switch {
 			case !ok:
 				undecided = true
@@ -550,6 +573,7 @@ func (r *reader) selfIntersection(pts []vec3, tris [][3]int, triFace []int) stri
 			box[t][k] = [2]float64{lo, hi}
 		}
 	}
+	encl, exact := enclosedPoints(pts)
 	for s := range tris {
 		for t := s + 1; t < len(tris); t++ {
 			if triFace[s] == triFace[t] {
@@ -564,7 +588,12 @@ func (r *reader) selfIntersection(pts []vec3, tris [][3]int, triFace []int) stri
 			if apart {
 				continue
 			}
-			meet, ok := trianglesOverlap(pts, tris[s], tris[t])
+			// First on the enclosures (every sign they decide holds
+			// for the exact points), then exactly.
+			meet, ok := trianglesOverlap(encl, tris[s], tris[t])
+			if !ok && exact {
+				meet, ok = trianglesOverlap(pts, tris[s], tris[t])
+			}
 			switch {
 			case !ok:
 				return fmt.Sprintf("cannot decide whether faces %d and %d intersect (%s)", triFace[s], triFace[t], polyExactHint)
@@ -775,6 +804,7 @@ func findApex(pts []vec3, faces [][]int, tris [][3]int) (vec3, bool) {
 		cands = append(cands, g.add(v).scale(half))
 	}
 	for _, c := range cands {
+		c = c.withEnclosure()
 		good := true
 		for _, t := range tris {
 			if s, ok := orient3(c, pts[t[0]], pts[t[1]], pts[t[2]]); !ok || s <= 0 {
@@ -787,4 +817,18 @@ func findApex(pts []vec3, faces [][]int, tris [][3]int) (vec3, bool) {
 		}
 	}
 	return vec3{}, false
+}
+
+// enclosedPoints returns the points as enclosures only, and whether the
+// given points are exact (so that an undecided sign may be retried
+// exactly).
+func enclosedPoints(pts []vec3) ([]vec3, bool) {
+	out := make([]vec3, len(pts))
+	exact := len(pts) > 0 && pts[0][0].kind != enclosed
+	for i, p := range pts {
+		for k := range 3 {
+			out[i][k] = xnum{v: p[k].enclose()}
+		}
+	}
+	return out, exact
 }

@@ -25,11 +25,18 @@ import (
 // else only its enclosure. The zero value is the number 0 of any kind:
 // an operation takes the kind of its exact operand (the coordinates of one
 // polyhedron are all of one kind).
+//
+// An exact xnum may carry an enclosure of its value too (hasV, set for the
+// coordinates and the apex candidates): the predicates are first evaluated
+// on these enclosures, a filter that settles most signs at once, and
+// exactly only when the enclosure of the result contains 0 (a sign decided
+// from enclosures holds for the exact value inside them).
 type xnum struct {
 	kind numKind
 	s    algebraic.Surd
 	c    algebraic.Cyclotomic
 	v    interval.I
+	hasV bool
 }
 
 // numKind says how an xnum is held.
@@ -180,7 +187,36 @@ func (a vec3) enclose() [3]interval.I {
 // plane abc into which (b − a) × (c − a) points), −1 for the other side,
 // 0 when the four points are coplanar.
 func orient3(a, b, c, d vec3) (int, bool) {
+	if s, ok := filtered(func(a, b, c, d vec3) xnum { return b.sub(a).cross(c.sub(a)).dot(d.sub(a)) }, a, b, c, d); ok {
+		return s, true
+	}
 	return b.sub(a).cross(c.sub(a)).dot(d.sub(a)).sign()
+}
+
+// filtered evaluates f on the enclosures of exact points that carry them
+// and returns the sign when the enclosure decides it; ok is false when
+// the points are not exact, lack enclosures, or the sign is undecided.
+func filtered(f func(a, b, c, d vec3) xnum, pts ...vec3) (int, bool) {
+	var e [4]vec3
+	for i, p := range pts {
+		for k := range 3 {
+			if p[k].kind == enclosed || !p[k].hasV {
+				return 0, false
+			}
+			e[i][k] = xnum{v: p[k].v}
+		}
+	}
+	return f(e[0], e[1], e[2], e[3]).sign()
+}
+
+// withEnclosure returns a with the enclosure of each coordinate attached.
+func (a vec3) withEnclosure() vec3 {
+	for k := range 3 {
+		if a[k].kind != enclosed {
+			a[k].v, a[k].hasV = a[k].enclose(), true
+		}
+	}
+	return a
 }
 
 // exactPoints returns the vertices as vec3: surds when every coordinate
@@ -193,7 +229,7 @@ func exactPoints(vs [][3]Number) []vec3 {
 	if surds, ok := readExact(vs, algebraic.NewSurd, algebraic.ReadSurd); ok {
 		for i, p := range surds {
 			for k := range 3 {
-				out[i][k] = xnum{kind: surd, s: p[k]}
+				out[i][k] = xnum{kind: surd, s: p[k], v: vs[i][k].Val, hasV: true}
 			}
 		}
 		return out
@@ -206,7 +242,7 @@ func exactPoints(vs [][3]Number) []vec3 {
 		if f, ok := algebraic.CyclotomicFieldOf(all...); ok {
 			for i, p := range sums {
 				for k := range 3 {
-					out[i][k] = xnum{kind: cyclotomic, c: f.Element(p[k])}
+					out[i][k] = xnum{kind: cyclotomic, c: f.Element(p[k]), v: vs[i][k].Val, hasV: true}
 				}
 			}
 			return out
