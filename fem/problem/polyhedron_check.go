@@ -19,7 +19,9 @@ type vec2 [2]xnum
 
 // orient2 returns the sign of (b − a) × (c − a).
 func orient2(a, b, c vec2) (int, bool) {
-	f := func(a, b, c vec2) xnum { return b[0].sub(a[0]).mul(c[1].sub(a[1])).sub(b[1].sub(a[1]).mul(c[0].sub(a[0]))) }
+	f := func(a, b, c vec2) xnum {
+		return b[0].sub(a[0]).mul(c[1].sub(a[1])).sub(b[1].sub(a[1]).mul(c[0].sub(a[0])))
+	}
 	if s, ok := filtered2(f, a, b, c); ok {
 		return s, true
 	}
@@ -35,7 +37,9 @@ func filtered2(f func(a, b, c vec2) xnum, a, b, c vec2) (int, bool) {
 
 // dot2 returns the sign of (b − a)·(c − a).
 func dot2(a, b, c vec2) (int, bool) {
-	f := func(a, b, c vec2) xnum { return b[0].sub(a[0]).mul(c[0].sub(a[0])).add(b[1].sub(a[1]).mul(c[1].sub(a[1]))) }
+	f := func(a, b, c vec2) xnum {
+		return b[0].sub(a[0]).mul(c[0].sub(a[0])).add(b[1].sub(a[1]).mul(c[1].sub(a[1])))
+	}
 	if s, ok := filtered2(f, a, b, c); ok {
 		return s, true
 	}
