@@ -145,14 +145,30 @@ func (r *reader) checkFace(pts []vec3, face []int, i int) (faceGeometry, bool) {
 		r.iss.addf(path, polyExactHint, "cannot decide the plane of face %d", i)
 		return faceGeometry{}, false
 	}
+	// The plane through v0 and the first two consecutive vertices that
+	// span one with it (n ≠ 0 guarantees a pair whose cross product is
+	// nonzero).
+	plane := -1
+	var n0 vec3
+	for j := 1; j+1 < m && plane < 0; j++ {
+		c := pts[face[j]].sub(v0).cross(pts[face[j+1]].sub(v0))
+		if _, zero, ok := dominantAxis(c); ok && !zero {
+			plane, n0 = j, c
+		}
+	}
+	if plane < 0 {
+		r.iss.addf(path, polyExactHint, "cannot decide the plane of face %d", i)
+		return faceGeometry{}, false
+	}
 	for j := 1; j < m; j++ {
-		s, ok := pts[face[j]].sub(v0).dot(n).sign()
+		s, ok := pts[face[j]].sub(v0).dot(n0).sign()
 		switch {
 		case !ok:
 			r.iss.addf(path, polyExactHint, "cannot decide whether face %d is planar (vertex %d)", i, face[j])
 			return faceGeometry{}, false
 		case s != 0:
-			r.iss.addf(path, "every vertex of a face must lie in one plane; split the face into triangles", "face %d is not planar: vertex %d lies off the plane of the others", i, face[j])
+			r.iss.addf(path, "every vertex of a face must lie in one plane; split the face into triangles",
+				"face %d is not planar: vertex %d lies off the plane through vertices %d, %d and %d", i, face[j], face[0], face[plane], face[plane+1])
 			return faceGeometry{}, false
 		}
 	}

@@ -219,7 +219,7 @@ func TestPolyhedronBad(t *testing.T) {
 		{"inconsistent orientation", string(polyFile(rp2, projectivePlaneFaces, `"dirichlet"`)), "cannot be oriented consistently"},
 		{"self-intersecting", string(polyFile(pierced, tri(cubeTris), `"dirichlet"`)), "domain.polyhedron.faces: faces"},
 		{"zero volume", string(polyFile(flat, [][]int{{0, 1, 2}, {0, 3, 1}, {0, 2, 3}, {1, 3, 2}}, `"dirichlet"`)), "domain.polyhedron: the faces enclose zero volume"},
-		{"face conditions", string(polyFile(cubeVertices, cubeFaces, `["dirichlet", "dirichlet"]`)), "boundary: boundary list has 2 entries for 6 sides"},
+		{"face conditions", string(polyFile(cubeVertices, cubeFaces, `["dirichlet", "dirichlet"]`)), "boundary: boundary list has 2 entries for 6 faces"},
 		{"index out of range", string(polyFile(cubeVertices, [][]int{{0, 3, 2, 8}, {4, 7, 6, 5}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}}, `"dirichlet"`)), "domain.polyhedron.faces[0][3]: vertex index 8 out of range"},
 		{"repeated index", string(polyFile(cubeVertices, [][]int{{0, 3, 3, 1}, {4, 7, 6, 5}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}}, `"dirichlet"`)), "domain.polyhedron.faces[0][2]: vertex 3 repeats in face 0"},
 		{"two vertices", string(polyFile(cubeVertices, [][]int{{0, 3}, {4, 7, 6, 5}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}}, `"dirichlet"`)), "domain.polyhedron.faces[0]: face 0 has 2 vertices"},

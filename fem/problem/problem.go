@@ -417,14 +417,14 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 			list = append(list, bc)
 		}
 		if sidesKnown && len(n.vals) != sides {
-			what := "edges"
+			what, side := "edges", "side"
 			if p.Dim == 1 {
 				what = "ends [left, right]"
 			}
 			if p.Polyhedron != nil {
-				what = "faces, in the order of domain.polyhedron.faces"
+				what, side = "faces, in the order of domain.polyhedron.faces", "face"
 			}
-			r.iss.addf("boundary", fmt.Sprintf("give one entry per side: %d %s", sides, what), "boundary list has %d entries for %d sides", len(n.vals), sides)
+			r.iss.addf("boundary", fmt.Sprintf("give one entry per %s: %d %s", side, sides, what), "boundary list has %d entries for %d %ss", len(n.vals), sides, side)
 			return false
 		}
 		if ok && sidesKnown {
