@@ -3,6 +3,7 @@ package certify
 import (
 	"context"
 	"errors"
+	"strings"
 	"testing"
 
 	"gapcert/certs"
@@ -28,5 +29,27 @@ func TestPolyhedronRefused(t *testing.T) {
 	}
 	if _, err := ApproximateModes(p, &certs.Certificate{}, 2); !errors.As(err, &ue) {
 		t.Errorf("ApproximateModes: %v", err)
+	}
+
+	// A certificate of an interval whose problem is replaced by the
+	// polyhedron: Check reports that its method does not fit the problem,
+	// without computing.
+	q, err := problem.Parse([]byte(`{"domain": {"interval": ["0", "1"]}, "boundary": "dirichlet"}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := Certify(context.Background(), q, Options{RelWidth: "1e-4"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c.Problem = p.Canonical()
+	c.ProblemSHA256 = p.SHA256()
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	var fe *certs.FormatError
+	if err := Check(data); !errors.As(err, &fe) || !strings.Contains(err.Error(), "3-dimensional") {
+		t.Errorf("Check: %v", err)
 	}
 }
