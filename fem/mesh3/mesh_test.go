@@ -2,7 +2,9 @@ package mesh3
 
 import (
 	"encoding/json"
+	"fmt"
 	"math"
+	"math/rand"
 	"sort"
 	"strings"
 	"testing"
@@ -36,6 +38,20 @@ var solids = []solid{
 	// Prism over the triangle (0,0), (1,0), (0,1) of height 2: volume 1.
 	{"triangular prism", [][3]string{{"0", "0", "0"}, {"1", "0", "0"}, {"0", "1", "0"}, {"0", "0", "2"}, {"1", "0", "2"}, {"0", "1", "2"}},
 		[][]int{{0, 2, 1}, {3, 4, 5}, {0, 1, 4, 3}, {1, 2, 5, 4}, {2, 0, 3, 5}}, 1},
+	// Prism of height 1 over the regular pentagon inscribed in the unit
+	// circle: volume (5/2)·sin(2π/5) (common practice).
+	{"pentagonal prism", pentagonPrism(), [][]int{{0, 4, 3, 2, 1}, {5, 6, 7, 8, 9}, {0, 1, 6, 5}, {1, 2, 7, 6}, {2, 3, 8, 7}, {3, 4, 9, 8}, {4, 0, 5, 9}},
+		2.5 * math.Sin(2*math.Pi/5)},
+}
+
+func pentagonPrism() [][3]string {
+	var v [][3]string
+	for _, z := range []string{"0", "1"} {
+		for k := range 5 {
+			v = append(v, [3]string{fmt.Sprintf("cos(2*%d*pi/5)", k), fmt.Sprintf("sin(2*%d*pi/5)", k), z})
+		}
+	}
+	return v
 }
 
 func fromSolid(t testing.TB, s solid) *Mesh {
@@ -75,7 +91,7 @@ func TestRefineKeepsTiling(t *testing.T) {
 				for k := range m.Tets {
 					sum = sum.Add(m.Geom(k).Volume)
 				}
-				tol := 4 * s.volume * 0x1p-52
+				tol := 8 * s.volume * 0x1p-52 // the exact volume rounded, and its float evaluation
 				if !(sum.Lo <= s.volume+tol && s.volume-tol <= sum.Hi) {
 					t.Errorf("level %d: volumes sum to %v, exact %v", level, sum, s.volume)
 				}
@@ -245,5 +261,38 @@ func TestFromPolyhedronRejects(t *testing.T) {
 				t.Errorf("error %v, want %q", err, c.want)
 			}
 		})
+	}
+}
+
+// TestFromPolyhedronRandom feeds random tetrahedra over random nodes
+// (fixed seed) to FromPolyhedron, which must return a mesh or an error and
+// never panic; an accepted input must pass the face check again.
+func TestFromPolyhedronRandom(t *testing.T) {
+	rng := rand.New(rand.NewSource(3))
+	for it := 0; it < 2000; it++ {
+		n := 4 + rng.Intn(4)
+		nodes := make([][3]interval.I, n)
+		for i := range nodes {
+			for c := range 3 {
+				nodes[i][c] = interval.Point(float64(rng.Intn(3)))
+			}
+		}
+		tets := make([][4]int, 1+rng.Intn(3))
+		for k := range tets {
+			for j := range 4 {
+				tets[k][j] = rng.Intn(n+1) - rng.Intn(2)
+			}
+		}
+		bnd := make([]BoundaryFace, rng.Intn(6))
+		for k := range bnd {
+			bnd[k] = BoundaryFace{rng.Intn(n), rng.Intn(n), rng.Intn(n), k}
+		}
+		m, err := FromPolyhedron(nodes, tets, bnd)
+		if err == nil {
+			if err := m.checkFaces(); err != nil {
+				t.Fatalf("accepted, then %v", err)
+			}
+			m.Refine()
+		}
 	}
 }
