@@ -432,7 +432,11 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 		r.iss.add(path+".faces", msg, "faces may meet only in their shared edges and vertices")
 		return false
 	}
-	apex, ok := findApex(pts, faces, tris)
+	normals := make([]vec3, len(geo))
+	for i, g := range geo {
+		normals[i] = g.normal
+	}
+	apex, ok := findApex(pts, faces, tris, normals)
 	if !ok {
 		r.iss.add(path, "no tried point lies strictly on the inner side of every face's plane: polyhedra that are not star-shaped from such a point are not supported yet",
 			"split the solid, or give a star-shaped polyhedron (every convex polyhedron is one)")
@@ -795,11 +799,13 @@ func segmentMeetsTriangle(p, q, a, b, c vec3) (meet, ok bool) {
 
 // findApex returns a point strictly on the inner side of every face's
 // plane, trying in turn the vertex centroid, the midpoints between it and
-// each face's vertex centroid, and the midpoints between it and each
-// vertex. A point c qualifies when det(a − c, b − c, d − c) > 0 for every
+// each face's vertex centroid, the midpoints between it and each vertex,
+// and a rational point chosen in floating point (chooseKernelPoint). A
+// point c qualifies when det(a − c, b − c, d − c) > 0 is decided for every
 // outward triangle (a, b, d), so that every cone tetrahedron (c, a, b, d)
-// is positively oriented.
-func findApex(pts []vec3, faces [][]int, tris [][3]int) (vec3, bool) {
+// is positively oriented; the choices only propose, the decision is exact.
+// normals are the faces' outward normals.
+func findApex(pts []vec3, faces [][]int, tris [][3]int, normals []vec3) (vec3, bool) {
 	centroid := func(idx []int) vec3 {
 		var s vec3
 		for k := range 3 {
@@ -822,6 +828,9 @@ func findApex(pts []vec3, faces [][]int, tris [][3]int) (vec3, bool) {
 	}
 	for _, v := range pts {
 		cands = append(cands, g.add(v).scale(half))
+	}
+	for _, q := range chooseKernelPoints(pts, faces, normals) {
+		cands = append(cands, ratPoint(pts[0][0], q))
 	}
 	for _, c := range cands {
 		c = c.withEnclosure()

@@ -382,3 +382,40 @@ func TestPolyhedronNotStarShaped(t *testing.T) {
 		t.Errorf("U prism: %v", err)
 	}
 }
+
+// TestPolyhedronApexChosen: a prism over a long L whose arms are ten times
+// their width is star-shaped only from points of the unit square at its
+// corner; the vertex centroid and the midpoints are not there, and the
+// apex comes from the floating-point choice, decided exactly. Volume:
+// 19 (the L's area) times the height 1.
+func TestPolyhedronApexChosen(t *testing.T) {
+	l := [][2]string{{"0", "0"}, {"10", "0"}, {"10", "1"}, {"1", "1"}, {"1", "10"}, {"0", "10"}}
+	var v [][3]string
+	for _, z := range []string{"0", "1"} {
+		for _, q := range l {
+			v = append(v, [3]string{q[0], q[1], z})
+		}
+	}
+	n := len(l)
+	bottom, top := []int{}, []int{}
+	for k := range n {
+		bottom = append(bottom, (n-k)%n)
+		top = append(top, n+k)
+	}
+	faces := [][]int{bottom, top}
+	for k := range n {
+		faces = append(faces, []int{k, (k + 1) % n, n + (k+1)%n, n + k})
+	}
+	p, err := Parse(polyFile(v, faces, `"dirichlet"`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	containsNarrow(t, "volume", p.Polyhedron.Volume(), 19)
+	apex := p.Polyhedron.Nodes()[len(v)]
+	if !(apex[0].Hi < 1 && apex[1].Hi < 1 && apex[0].Lo > 0 && apex[1].Lo > 0) {
+		t.Errorf("apex %v is not in the kernel (0, 1)² × (0, 1)", apex)
+	}
+	if p.Convex() != "not convex" {
+		t.Errorf("convexity %q", p.Convex())
+	}
+}
