@@ -37,7 +37,7 @@ func (bc BC) Condition() boundary.Condition {
 
 // Problem is a validated eigenvalue problem −Δu + V u = λu read from a
 // problem file. All numbers are exact (see Number); the polygon is simple
-// and counterclockwise.
+// and counterclockwise; the polyhedron is described under Polyhedron.
 type Problem struct {
 	Name string
 	Dim  int // 1, 2 or 3 (the number of coordinates)
@@ -53,13 +53,15 @@ type Problem struct {
 	Polyhedron *Polyhedron
 
 	// Potential is V with the parameters bound: its only free variables
-	// are x (Dim 1) or x and y (Dim 2). It is "0" by default.
+	// are x (Dim 1), x and y (Dim 2) or x, y and z (a polyhedron). It is
+	// "0" by default.
 	Potential *formula.Expr
 	// Params are the named parameters of the file.
 	Params map[string]Number
 
 	// Boundary holds one condition per side: Dim 1 [left, right]; Dim 2
-	// edge i runs from Vertices[i] to Vertices[(i+1) mod n].
+	// edge i runs from Vertices[i] to Vertices[(i+1) mod n]; a polyhedron
+	// has one per face, in the order of Polyhedron.Faces.
 	Boundary []BC
 
 	Eigenvalues int    // how many eigenvalues to enclose, 2 … 20
