@@ -296,3 +296,61 @@ func TestFromPolyhedronRandom(t *testing.T) {
 		}
 	}
 }
+
+// TestGeomUnitTetrahedron: on the tetrahedron 0, e_1, e_2, e_3 the
+// barycentric coordinates are λ_i = x_i (i = 1, 2, 3) and
+// λ_0 = 1 − x − y − z, the volume is 1/6, and the edges have lengths 1
+// (from the origin) and √2 (common practice).
+func TestGeomUnitTetrahedron(t *testing.T) {
+	p := func(x, y, z float64) [3]interval.I {
+		return [3]interval.I{interval.Point(x), interval.Point(y), interval.Point(z)}
+	}
+	m, err := FromPolyhedron([][3]interval.I{p(0, 0, 0), p(1, 0, 0), p(0, 1, 0), p(0, 0, 1)}, [][4]int{{0, 1, 2, 3}},
+		[]BoundaryFace{{1, 2, 3, 0}, {0, 3, 2, 1}, {0, 1, 3, 2}, {0, 2, 1, 3}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := m.Geom(0)
+	want := [4][3]float64{{-1, -1, -1}, {1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
+	for i := range 4 {
+		for k := range 3 {
+			if x := g.Grad[i][k]; !x.Contains(want[i][k]) || x.Wid() > 1e-15 {
+				t.Errorf("∇λ_%d[%d] = %v, want %v", i, k, x, want[i][k])
+			}
+		}
+	}
+	if !g.Volume.Contains(1.0/6) || g.Volume.Wid() > 1e-16 {
+		t.Errorf("volume %v", g.Volume)
+	}
+	for j, le := range LocalEdges {
+		w := 1.0
+		if le[0] != 0 {
+			w = math.Sqrt2
+		}
+		if x := g.EdgeLen[j]; !x.Contains(w) || x.Wid() > 1e-15 {
+			t.Errorf("edge %v length %v, want %v", le, x, w)
+		}
+	}
+	if !g.Diam.Contains(math.Sqrt2) || g.H < math.Sqrt2 {
+		t.Errorf("diameter %v, H %v", g.Diam, g.H)
+	}
+}
+
+// TestRefineEnclosureWidths bounds the growth of the geometry enclosures
+// under refinement: after four levels of the regular tetrahedron (sqrt
+// coordinates) the volume enclosures are within 1e-14 relative width.
+func TestRefineEnclosureWidths(t *testing.T) {
+	m := fromSolid(t, solids[1])
+	for range 4 {
+		m = m.Refine()
+	}
+	worst := 0.0
+	for k := range m.Tets {
+		v := m.Geom(k).Volume
+		worst = math.Max(worst, v.Wid()/v.Lo)
+	}
+	if worst > 1e-14 {
+		t.Errorf("relative width of a volume enclosure %g", worst)
+	}
+	t.Logf("largest relative width of a volume enclosure after 4 levels: %.3g", worst)
+}
