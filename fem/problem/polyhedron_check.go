@@ -281,6 +281,7 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 	ph := p.Polyhedron
 	pts := exactPoints(ph.Vertices)
 	nv, nf := len(pts), len(ph.Faces)
+	before := r.iss.count()
 
 	// Distinct and used vertices.
 	for i := range nv {
@@ -305,7 +306,7 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 			r.iss.addf(fmt.Sprintf("%s.vertices[%d]", path, k), "remove it, or use it in the faces", "vertex %d is on no face", k)
 		}
 	}
-	if r.iss.count() > 0 {
+	if r.iss.count() > before {
 		return false
 	}
 
@@ -346,7 +347,7 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 			r.iss.addf(fmt.Sprintf("%s.faces[%d]", path, u[0].face), hint, "edge %d–%d lies in %d face(s)", e[0], e[1], len(u))
 		}
 	}
-	if r.iss.count() > 0 {
+	if r.iss.count() > before {
 		return false
 	}
 
@@ -428,7 +429,7 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 			triFace = append(triFace, i)
 		}
 	}
-	if msg := r.selfIntersection(pts, tris, triFace); msg != "" {
+	if msg := selfIntersection(pts, tris, triFace); msg != "" {
 		r.iss.add(path+".faces", msg, "faces may meet only in their shared edges and vertices")
 		return false
 	}
@@ -585,7 +586,7 @@ func convexity(pts []vec3, faces [][]int, geo []faceGeometry) (verdict string, v
 // triangles of different faces meet exactly in the convex hull of their
 // common vertices (see trianglesOverlap). Triangles of one face come from
 // the triangulation of a simple polygon and do not overlap.
-func (r *reader) selfIntersection(pts []vec3, tris [][3]int, triFace []int) string {
+func selfIntersection(pts []vec3, tris [][3]int, triFace []int) string {
 	box := make([][3][2]float64, len(tris))
 	for t, tr := range tris {
 		for k := range 3 {

@@ -419,3 +419,13 @@ func TestPolyhedronApexChosen(t *testing.T) {
 		t.Errorf("convexity %q", p.Convex())
 	}
 }
+
+// TestPolyhedronDefectsWithOthers: a defect elsewhere in the file does not
+// hide the polyhedron's own defects.
+func TestPolyhedronDefectsWithOthers(t *testing.T) {
+	file := strings.Replace(string(polyFile(cubeVertices, cubeFaces[:5], `"dirichlet"`)), `{"domain"`, `{"name": 3, "domain"`, 1)
+	_, err := Parse([]byte(file))
+	if err == nil || !strings.Contains(err.Error(), "name: name must be a string") || !strings.Contains(err.Error(), "edge 4–7 lies in 1 face(s)") {
+		t.Errorf("got %v", err)
+	}
+}
