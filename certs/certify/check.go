@@ -57,6 +57,9 @@ func Check(data []byte) error {
 	if err != nil {
 		return err
 	}
+	if err := Supported(p); err != nil {
+		return err
+	}
 	for i, c := range cert.Claims {
 		if c.Reference == nil {
 			continue

@@ -140,7 +140,8 @@ func GroundStateClaim(p *problem.Problem) int {
 
 // claimEnv returns a value for every quantity p provides to its claims
 // (p.ClaimScope, package fem/claim): the certified eigenvalues and gap of res,
-// the diameter, area and perimeter of the domain, the inradius of a
+// the diameter, area and perimeter of a polygon, volume and surface area of
+// a polyhedron, the inradius of a
 // triangle, the common Robin coefficient (p.RobinAlpha), pi, e and the
 // parameters. A parameter named alpha is the value of alpha.
 func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
@@ -155,6 +156,9 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 	}
 	if p.Dim == 2 {
 		env[claim.Area], env[claim.Perimeter] = p.Area(), p.Perimeter()
+	}
+	if ph := p.Polyhedron; ph != nil {
+		env[claim.Volume], env[claim.SurfaceArea] = ph.Volume(), ph.SurfaceArea()
 	}
 	if p.Dim == 2 && len(p.Vertices) == 3 {
 		// The inradius of a triangle is 2·area/perimeter (common practice:

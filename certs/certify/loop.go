@@ -40,6 +40,9 @@ const DefaultTimeLimit = 60 * time.Second
 // time limit is not a hard one: a step starts only if it is expected to
 // end within the limit (a few times the last step), and then finishes.
 func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certificate, error) {
+	if err := Supported(p); err != nil {
+		return nil, err
+	}
 	targetText := p.RelWidth.Text
 	if opt.RelWidth != "" {
 		targetText = opt.RelWidth

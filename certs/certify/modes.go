@@ -23,6 +23,9 @@ type Modes struct {
 // ApproximateModes returns the first count approximate eigenfunctions of
 // the problem on the trial space recorded in the certificate's method.
 func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Modes, error) {
+	if err := Supported(p); err != nil {
+		return nil, err
+	}
 	m, err := decodeMethod(c.Method)
 	if err != nil {
 		return nil, err

@@ -22,6 +22,9 @@ type Plan struct {
 
 // FirstPlan returns the plan of the first computation of Certify.
 func FirstPlan(p *problem.Problem) (Plan, error) {
+	if err := Supported(p); err != nil {
+		return Plan{}, err
+	}
 	if err := checkMeshable(p); err != nil {
 		return Plan{}, err
 	}

@@ -36,6 +36,9 @@ var groundStateDeciders = map[string]func(*certs.GroundState) certs.Hypothesis{
 // false if the name is unknown or names a hypothesis about the ground
 // state (DecideCertified).
 func Decide(name string, p *problem.Problem) (h certs.Hypothesis, ok bool) {
+	if p.Polyhedron != nil {
+		return decidePolyhedron(name, p)
+	}
 	f, ok := deciders[name]
 	if !ok {
 		return certs.Hypothesis{}, false

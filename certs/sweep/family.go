@@ -442,6 +442,14 @@ func (f *Family) expand(template map[string]json.RawMessage, claims []string) []
 			}
 			continue
 		}
+		if err := certify.Supported(prob); err != nil {
+			ue := err.(*certify.UnsupportedError)
+			if !seen[ue.Reason] {
+				seen[ue.Reason] = true
+				iss = append(iss, problem.Issue{Path: familyPath(ue.Path, templateClaims), Msg: fmt.Sprintf("point %d (%s): %s", k, f.describe(pt), ue.Reason), Hint: ue.Hint})
+			}
+			continue
+		}
 		pt.Problem = prob
 		f.Points = append(f.Points, pt)
 	}

@@ -126,11 +126,12 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	c, err := certify.Certify(ctx, p, opt)
 	var budget *certify.BudgetError
 	var target *certify.TargetError
+	var unsupported *certify.UnsupportedError
 	switch {
 	case err != nil && ctx.Err() != nil:
 		fmt.Fprintln(cmd.ErrOrStderr(), "interrupted")
 		return &exitError{code: exitInterrupted, err: errors.New("interrupted before the first step finished: no bounds to report, nothing written")}
-	case errors.As(err, &budget), errors.As(err, &target):
+	case errors.As(err, &budget), errors.As(err, &target), errors.As(err, &unsupported):
 		return &exitError{code: exitInvalid, err: err}
 	case err != nil:
 		return &exitError{code: exitFailure, err: err}

@@ -117,6 +117,8 @@ func describe(w io.Writer, file string, p *problem.Problem) {
 		fmt.Fprintf(w, "  b = %s\n", formatNumber(p.Interval[1]))
 		fmt.Fprintf(w, "length:      %s\n", formatEnclosure(p.Diameter()))
 		fmt.Fprintf(w, "boundary:    left %s, right %s\n", formatBC(p.Boundary[0]), formatBC(p.Boundary[1]))
+	} else if ph := p.Polyhedron; ph != nil {
+		describePolyhedron(w, ph, p.Boundary)
 	} else {
 		n := len(p.Vertices)
 		orient := "counterclockwise as given"
@@ -192,4 +194,31 @@ func sortedKeys(m map[string]problem.Number) []string {
 	}
 	sort.Strings(keys)
 	return keys
+}
+
+// describePolyhedron prints the vertices, outward faces, measures and
+// face conditions of a polyhedron.
+func describePolyhedron(w io.Writer, ph *problem.Polyhedron, bcs []problem.BC) {
+	flipped := 0
+	for _, f := range ph.Flipped {
+		if f {
+			flipped++
+		}
+	}
+	orient := "outward as given"
+	if flipped > 0 {
+		orient = fmt.Sprintf("outward (%d face(s) listed inward in the file were reversed, first vertex kept)", flipped)
+	}
+	fmt.Fprintf(w, "domain:      polyhedron with %d vertices and %d faces, %s\n", len(ph.Vertices), len(ph.Faces), orient)
+	for i, v := range ph.Vertices {
+		fmt.Fprintf(w, "  v%d = (%s, %s, %s)\n", i, formatNumber(v[0]), formatNumber(v[1]), formatNumber(v[2]))
+	}
+	fmt.Fprintf(w, "convexity:   %s\n", ph.Convex())
+	fmt.Fprintf(w, "diameter:    %s\n", formatEnclosure(ph.Diameter()))
+	fmt.Fprintf(w, "volume:      %s\n", formatEnclosure(ph.Volume()))
+	fmt.Fprintf(w, "surface:     %s\n", formatEnclosure(ph.SurfaceArea()))
+	fmt.Fprintf(w, "boundary:\n")
+	for i, f := range ph.Faces {
+		fmt.Fprintf(w, "  face %d %v: %s\n", i, f, formatBC(bcs[i]))
+	}
 }

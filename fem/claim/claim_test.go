@@ -181,7 +181,37 @@ func TestCheckScope(t *testing.T) {
 
 func TestQuantities(t *testing.T) {
 	q := Quantities()
-	if len(q) != MaxEigenvalue+7 || q[0] != "lambda1" || q[MaxEigenvalue-1] != "lambda20" || !IsQuantity("inradius") || !IsQuantity("shape_margin") || IsQuantity("lambda21") || IsQuantity("pi") {
+	if len(q) != MaxEigenvalue+9 || q[0] != "lambda1" || q[MaxEigenvalue-1] != "lambda20" || !IsQuantity("inradius") || !IsQuantity("shape_margin") || !IsQuantity("volume") || !IsQuantity("surface_area") || IsQuantity("lambda21") || IsQuantity("pi") {
 		t.Errorf("Quantities() = %v", q)
+	}
+}
+
+// TestScopeThreeDimensions: volume and surface_area exist in three
+// dimensions only, area and perimeter on polygons only.
+func TestScopeThreeDimensions(t *testing.T) {
+	solid := Scope{Dim: 3, Eigenvalues: 2, NoAlpha: "no side has a Robin condition"}
+	plane := Scope{Dim: 2, Vertices: 4, Eigenvalues: 2, NoAlpha: "no side has a Robin condition"}
+	for _, c := range []struct {
+		scope Scope
+		text  string
+		want  string // "" when the claim is in scope
+	}{
+		{solid, "gap*D^2 >= 3*pi^2", ""},
+		{solid, "lambda1*volume^(2/3) > surface_area/10", ""},
+		{solid, "lambda1*area > 1", "area is defined for polygons only"},
+		{plane, "lambda1*volume > 1", "volume is defined for three-dimensional domains only"},
+		{plane, "surface_area > 1", "surface_area is defined for three-dimensional domains only"},
+	} {
+		cl, err := Parse(c.text)
+		if err != nil {
+			t.Fatal(err)
+		}
+		err = cl.CheckScope(c.scope)
+		switch {
+		case c.want == "" && err != nil:
+			t.Errorf("%q: %v", c.text, err)
+		case c.want != "" && (err == nil || !strings.Contains(err.Error(), c.want)):
+			t.Errorf("%q: %v, want %q", c.text, err, c.want)
+		}
 	}
 }

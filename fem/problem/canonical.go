@@ -14,7 +14,8 @@ import (
 // whitespace, object keys sorted, every number as its canonical exact text
 // (Number.Text) in a string, the potential as its canonical formula text
 // with parameter names unbound, the boundary as the explicit per-side list,
-// every default filled in and the polygon in counterclockwise order;
+// every default filled in, the polygon in counterclockwise order and the
+// polyhedron's faces outward;
 // "points" appears only when the problem has points.
 // Parse(p.Canonical()) gives a problem with the same Canonical text.
 func (p *Problem) Canonical() []byte {
@@ -47,6 +48,8 @@ func (p *Problem) Canonical() []byte {
 		b.WriteByte(',')
 		writeString(&b, p.Interval[1].Text)
 		b.WriteByte(']')
+	} else if p.Polyhedron != nil {
+		p.Polyhedron.writeCanonical(&b)
 	} else {
 		b.WriteString(`"polygon":[`)
 		for i, v := range p.Vertices {

@@ -43,6 +43,18 @@
 // it, so that Boundary[k] of the Problem is the file's entry (n−1−k) mod n,
 // the same edge traversed the other way (see Problem.Reversed).
 //
+// A polyhedron is {"polyhedron": {"vertices": [[x, y, z], …], "faces":
+// [[i, j, k, …], …]}} with 4 to 100 vertices and 4 to 200 faces, each face
+// a cycle of distinct vertex indices in either orientation. Parse checks
+// every property listed in the documentation of Polyhedron (planar simple
+// faces, a closed connected orientable surface with one fan of faces
+// around each vertex, no self-intersection, positive volume, an apex
+// strictly inside every face plane), each decided exactly (rationals,
+// surds or a cyclotomic field, package interval/algebraic) or by
+// enclosures that decide it; an undecided test is reported as such. Faces
+// are stored outward (Polyhedron.Flipped); the boundary list follows the
+// order of the faces, which is kept.
+//
 // Numbers (coordinates, Robin coefficients, the relative width, parameter
 // values) are JSON numbers or strings, read exactly: decimals ("0.1",
 // "-2.5e-3", "1e-300"; exponents within ±400), rationals ("1/3"), or
@@ -52,15 +64,17 @@
 // infinities are not numbers. At most 400 bytes per number.
 //
 // parameters maps names (a letter, then letters, digits or '_'; not x, y,
-// pi, e or a function name) to numbers; a parameter's value may not use
+// z, pi, e or a function name) to numbers; a parameter's value may not use
 // other parameters. Parameters may be used in coordinates, the potential,
 // Robin coefficients and the relative width.
 //
-// potential is a formula in x (interval) or x and y (polygon) and the
+// potential is a formula in x (interval), x and y (polygon) or x, y and z
+// (polyhedron) and the
 // parameters. It must be defined and finite on the closed domain: on an
 // interval this is checked by interval evaluation (bisected up to 1024
 // pieces), on a polygon by formula.RangeTriangle over an ear-clipping
-// triangulation of the polygon. interval(…) is not allowed.
+// triangulation of the polygon, on a polyhedron by interval evaluation on
+// the coordinate boxes of its cone tetrahedra. interval(…) is not allowed.
 //
 // boundary is "dirichlet", "neumann" or {"robin": α} (α ≥ 0) for every
 // side, or a list with one entry per side: [left, right] for an interval,
@@ -73,7 +87,8 @@
 // claims are inequalities "lhs REL rhs" in the grammar of package
 // gapcert/fem/claim (REL one of >=, <=, >, <, or ≥, ≤), and every name a claim
 // uses must be a quantity this problem provides (ClaimScope): lambdak up to
-// "eigenvalues", gap, D, area and perimeter on polygons, inradius on
+// "eigenvalues", gap, D, area and perimeter on polygons, volume and
+// surface_area on polyhedra, inradius on
 // triangles, alpha when the Robin sides share one coefficient
 // (RobinAlpha), pi, e and the parameters. A claim may instead name a
 // built-in claim, "@name" (package gapcert/fem/claim/named, e.g.

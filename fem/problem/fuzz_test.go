@@ -22,6 +22,10 @@ func FuzzParse(f *testing.F) {
 	// Problems with points (the key is optional in every file above).
 	f.Add([]byte(`{"domain":{"interval":["0","pi"]},"boundary":"dirichlet","points":[["0"],["pi/2"],["1/3"]]}`))
 	f.Add([]byte(`{"domain":{"polygon":[["0","0"],["2","0"],["2","2"],["1","1"],["0","2"]]},"boundary":"dirichlet","points":[["1","1/2"],["sqrt(2)/2","1/3"]]}`))
+	// Polyhedra: the unit cube (one face listed inward), and a cube with a
+	// pyramid dent with a point and a potential in x, y, z.
+	f.Add([]byte(`{"domain":{"polyhedron":{"vertices":[["0","0","0"],["1","0","0"],["1","1","0"],["0","1","0"],["0","0","1"],["1","0","1"],["1","1","1"],["0","1","1"]],"faces":[[0,3,2,1],[4,7,6,5],[0,1,5,4],[1,2,6,5],[2,3,7,6],[3,0,4,7]]}},"boundary":"dirichlet"}`))
+	f.Add([]byte(`{"domain":{"polyhedron":{"vertices":[["0","0","0"],["1","0","0"],["1","1","0"],["0","1","0"],["0","0","1"],["1","0","1"],["1","1","1"],["0","1","1"],["1/2","1/2","3/4"]],"faces":[[0,3,2,1],[0,1,5,4],[1,2,6,5],[2,3,7,6],[3,0,4,7],[4,5,8],[5,6,8],[6,7,8],[7,4,8]]}},"boundary":["dirichlet","neumann",{"robin":"1"},"dirichlet","dirichlet","dirichlet","dirichlet","dirichlet","dirichlet"],"potential":"x*y+z^2","points":[["1/2","1/2","1/2"]]}`))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		p, err := Parse(data)
 		if err != nil {

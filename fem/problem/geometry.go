@@ -319,10 +319,13 @@ func strictlyOutside(a, b, c, q [2]Number) bool {
 // (n − 1 − k) mod n (the same edge, traversed the other way).
 func (p *Problem) Reversed() bool { return p.reversed }
 
-// Convex returns "convex" or "not convex" for a polygon, decided exactly
+// Convex returns "convex" or "not convex" for a polygon or a polyhedron, decided exactly
 // (or by intervals that decide every turn), and "undecided" otherwise. An
 // interval is convex.
 func (p *Problem) Convex() (verdict string) {
+	if p.Polyhedron != nil {
+		return p.Polyhedron.Convex()
+	}
 	if p.Dim == 1 {
 		return "convex"
 	}
@@ -366,6 +369,9 @@ func (p *Problem) Perimeter() interval.I {
 // between two vertices (which is the diameter of a polygon, since the
 // distance is convex and so maximal at extreme points), or b − a.
 func (p *Problem) Diameter() interval.I {
+	if p.Polyhedron != nil {
+		return p.Polyhedron.Diameter()
+	}
 	if p.Dim == 1 {
 		return p.length()
 	}

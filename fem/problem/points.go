@@ -38,6 +38,9 @@ func (r *reader) points(n *node, p *Problem, domainOK bool) {
 			if dim == 2 {
 				want = "a point is a list of two numbers [x, y] on a polygon"
 			}
+			if dim == 3 {
+				want = "a point is a list of three numbers [x, y, z] in three dimensions"
+			}
 			r.iss.add(path, want, pointsHint)
 			ok = false
 			continue
@@ -86,6 +89,9 @@ func placePoint(p *Problem, pt []Number) (msg, hint string) {
 			return fmt.Sprintf("the point %s lies outside the interval [%s, %s]", pt[0].Text, p.Interval[0].Text, p.Interval[1].Text), "give a point of the closed domain"
 		}
 		return fmt.Sprintf("cannot decide whether the point %s lies in the interval", pt[0].Text), undecidedHint
+	}
+	if p.Polyhedron != nil {
+		return p.Polyhedron.placePoint(pt)
 	}
 	q := [2]Number{pt[0], pt[1]}
 	outside := true

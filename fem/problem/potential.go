@@ -27,6 +27,9 @@ func potentialRange(p *Problem) (rng interval.I, issue string) {
 		budget := maxPieces
 		return rangeOnInterval(p.Potential, lo, hi, &budget)
 	}
+	if p.Polyhedron != nil {
+		return p.Polyhedron.potentialRange(p.Potential)
+	}
 	for k, t := range p.triangles {
 		var v [3][2]interval.I
 		for j := range 3 {

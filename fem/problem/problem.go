@@ -37,10 +37,10 @@ func (bc BC) Condition() boundary.Condition {
 
 // Problem is a validated eigenvalue problem −Δu + V u = λu read from a
 // problem file. All numbers are exact (see Number); the polygon is simple
-// and counterclockwise.
+// and counterclockwise; the polyhedron is described under Polyhedron.
 type Problem struct {
 	Name string
-	Dim  int // 1 or 2
+	Dim  int // 1, 2 or 3 (the number of coordinates)
 
 	// Interval is (a, b) with a < b (Dim 1).
 	Interval [2]Number
@@ -48,15 +48,20 @@ type Problem struct {
 	// (Dim 2). If the file lists them clockwise they are reversed as
 	// v0, v(n−1), …, v1, keeping v0 first; see Reversed.
 	Vertices [][2]Number
+	// Polyhedron is the polyhedron (Dim 3, domain key "polyhedron"),
+	// else nil.
+	Polyhedron *Polyhedron
 
 	// Potential is V with the parameters bound: its only free variables
-	// are x (Dim 1) or x and y (Dim 2). It is "0" by default.
+	// are x (Dim 1), x and y (Dim 2) or x, y and z (a polyhedron). It is
+	// "0" by default.
 	Potential *formula.Expr
 	// Params are the named parameters of the file.
 	Params map[string]Number
 
 	// Boundary holds one condition per side: Dim 1 [left, right]; Dim 2
-	// edge i runs from Vertices[i] to Vertices[(i+1) mod n].
+	// edge i runs from Vertices[i] to Vertices[(i+1) mod n]; a polyhedron
+	// has one per face, in the order of Polyhedron.Faces.
 	Boundary []BC
 
 	Eigenvalues int    // how many eigenvalues to enclose, 2 … 20
@@ -156,6 +161,9 @@ func (r *reader) problem(root *node) *Problem {
 	if geomOK && p.Dim == 2 {
 		geomOK = r.polygon(p, bcOK)
 	}
+	if geomOK && p.Polyhedron != nil {
+		geomOK = r.checkPolyhedron(p)
+	}
 	r.potential(root.get("potential"), p, geomOK && paramsOK)
 	eigOK := r.eigenvalues(root.get("eigenvalues"), p)
 	r.target(root.get("target"), p)
@@ -222,7 +230,7 @@ func (r *reader) number(n *node, path string, params map[string]Number) (Number,
 	return v, true
 }
 
-var reservedNames = map[string]bool{"x": true, "y": true, "pi": true, "e": true}
+var reservedNames = map[string]bool{"x": true, "y": true, "z": true, "pi": true, "e": true}
 
 // onlyBadParams reports whether names is not empty and holds only
 // parameters whose own value was already reported as invalid.
@@ -255,7 +263,7 @@ func (r *reader) parameters(n *node) map[string]Number {
 			continue
 		}
 		if reservedNames[name] || !isVariableName(name) {
-			r.iss.addf(path, "x and y are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
+			r.iss.addf(path, "x, y and z are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
 			continue
 		}
 		if claim.IsQuantity(name) && name != claim.Alpha {
@@ -286,7 +294,7 @@ func isIdentifier(s string) bool {
 	return true
 }
 
-const domainHint = `write "domain": {"interval": ["a", "b"]} or {"polygon": [["x0", "y0"], ["x1", "y1"], …]}`
+const domainHint = `write "domain": {"interval": ["a", "b"]}, {"polygon": [["x0", "y0"], ["x1", "y1"], …]} or {"polyhedron": {"vertices": […], "faces": […]}}`
 
 // domain reads "domain" into p.Dim and p.Interval or p.Vertices (as
 // written). ok reports that the coordinates are all valid numbers.
@@ -299,8 +307,15 @@ func (r *reader) domain(n *node, p *Problem) bool {
 		r.iss.add("domain", "domain must be an object, not "+n.kind.String(), domainHint)
 		return false
 	}
-	r.checkKeys(n, "domain", []string{"interval", "polygon"})
+	r.checkKeys(n, "domain", []string{"interval", "polygon", "polyhedron"})
 	iv, pg := n.get("interval"), n.get("polygon")
+	if ph := n.get("polyhedron"); ph != nil {
+		if iv != nil || pg != nil {
+			r.iss.add("domain", "domain has a polyhedron and another kind of domain", "give exactly one of them")
+			return false
+		}
+		return r.polyhedron(ph, p)
+	}
 	switch {
 	case iv != nil && pg != nil:
 		r.iss.add("domain", "domain has both an interval and a polygon", "give exactly one of them")
@@ -392,6 +407,9 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 	if p.Dim == 2 {
 		sides = len(p.Vertices)
 	}
+	if p.Polyhedron != nil {
+		sides = len(p.Polyhedron.Faces)
+	}
 	if n.kind == kindArray {
 		ok := true
 		var list []BC
@@ -401,11 +419,14 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 			list = append(list, bc)
 		}
 		if sidesKnown && len(n.vals) != sides {
-			what := "edges"
+			what, side := "edges", "side"
 			if p.Dim == 1 {
 				what = "ends [left, right]"
 			}
-			r.iss.addf("boundary", fmt.Sprintf("give one entry per side: %d %s", sides, what), "boundary list has %d entries for %d sides", len(n.vals), sides)
+			if p.Polyhedron != nil {
+				what, side = "faces, in the order of domain.polyhedron.faces", "face"
+			}
+			r.iss.addf("boundary", fmt.Sprintf("give one entry per %s: %d %s", side, sides, what), "boundary list has %d entries for %d %ss", len(n.vals), sides, side)
 			return false
 		}
 		if ok && sidesKnown {
@@ -514,7 +535,7 @@ func (r *reader) potential(n *node, p *Problem, domainOK bool) {
 			vals[name] = v.Val
 			continue
 		}
-		if name == "x" || name == "y" && p.Dim != 1 {
+		if name == "x" || name == "y" && p.Dim != 1 || name == "z" && p.Dim == 3 {
 			continue
 		}
 		unknown = append(unknown, name)
@@ -526,6 +547,9 @@ func (r *reader) potential(n *node, p *Problem, domainOK bool) {
 		hint := `the potential may use x, y and names declared under "parameters"`
 		if p.Dim == 1 {
 			hint = `on an interval the potential may use x and names declared under "parameters"`
+		}
+		if p.Dim == 3 {
+			hint = `the potential may use x, y, z and names declared under "parameters"`
 		}
 		r.iss.addf("potential", hint, "unknown name %s in the potential", strings.Join(quoteAll(unknown), ", "))
 		return

@@ -120,7 +120,7 @@ func (c Claim) Parse() *claim.Claim {
 // *claim.Error on the claim text ("@name").
 func (c Claim) CheckScope(s claim.Scope) error {
 	if s.Dim != 0 && !c.Applies(s.Dim) {
-		where := map[int]string{1: "an interval", 2: "a polygon"}
+		where := map[int]string{1: "an interval", 2: "a polygon", 3: "a three-dimensional domain"}
 		var ok []string
 		for _, d := range c.Dims {
 			ok = append(ok, where[d])
