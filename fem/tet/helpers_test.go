@@ -68,6 +68,23 @@ func kuhnCells(n int, keep func(c4 [3]int) bool) (pts [][3]int, tets [][4]int) {
 // three nodes).
 func meshOf(t testing.TB, n int, pts [][3]int, tets [][4]int, sides int, side func(f [3][3]int) int) *Mesh {
 	t.Helper()
+	// Keep only the nodes of some tetrahedron, renumbered in order.
+	used := make([]int, len(pts))
+	for i := range used {
+		used[i] = -1
+	}
+	var kept [][3]int
+	newTets := make([][4]int, len(tets))
+	for k, tt := range tets {
+		for i, a := range tt {
+			if used[a] < 0 {
+				used[a] = len(kept)
+				kept = append(kept, pts[a])
+			}
+			newTets[k][i] = used[a]
+		}
+	}
+	pts, tets = kept, newTets
 	count := map[[3]int]int{}
 	for _, tt := range tets {
 		for i := 0; i < 4; i++ {
