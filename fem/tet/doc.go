@@ -17,7 +17,10 @@
 //     with a range enclosure per tetrahedron;
 //   - Lagrange: conforming P_p (any p ≥ 1) in the Bernstein basis, for
 //     Rayleigh–Ritz upper bounds (RitzMatrices) and float assembly
-//     (AssembleApprox) to choose approximate eigenvectors.
+//     (AssembleApprox) to choose approximate eigenvectors;
+//   - Projection: the Crouzeix–Raviart stage-A space CR (face means) with
+//     the interval matrices of its relaxed form and the constant of the
+//     projection lower bound (see Projection lower bound).
 //
 // Guarantees. Every interval matrix this package returns encloses, entry
 // by entry, the exact forms for the exact mesh (every exact node inside
@@ -30,6 +33,9 @@
 // rounded interval arithmetic (package interval) from tables enclosed from
 // math/big. The non-polynomial part of V is carried as a remainder and
 // bounded by Cauchy–Schwarz.
+//
+// ProjectionConstant returns an upper bound of the constant of (H3), with
+// the inequality derived below.
 //
 // Functions named Approx work at round-to-nearest: their results are
 // choices (approximate eigenvectors), never bounds.
@@ -46,4 +52,71 @@
 // (Cauchy–Schwarz); the first integral is exact (Bernstein products), the
 // second is enclosed by ±r_rad ‖u‖_T ‖v‖_T with the norms from exact Gram
 // matrices (RemainderBound of package fem/internal/bernstein).
+//
+// # Projection lower bound (stage A)
+//
+// The theorem and its proof are in the doc of package enclose (Projection
+// lower bounds; X. Liu, A framework of verified eigenvalue bounds for
+// self-adjoint differential operators, Appl. Math. Comput. 267 (2015)
+// 341–355): for a form a_h on H + V_h with a_h ≤ a + γb on H and a
+// projection P_h: H → V_h with
+//
+//	(H2) a_h(u − P_h u, v_h) = 0 for every v_h ∈ V_h,
+//	(H3) ‖u − P_h u‖ ≤ C_h a_h(u − P_h u, u − P_h u)^(1/2),
+//
+// λ_k + γ ≥ λ_(h,k)/(1 + C_h² λ_(h,k)), λ_(h,k) the k-th eigenvalue of
+// (a_h, b) on V_h. Here are the space-specific steps. H = {u ∈ H¹(Ω):
+// u = 0 on Dirichlet faces}, m_S the mean over S, Γ_R the Robin faces
+// (α ≥ 0), and the form, broken over the tetrahedra, is
+//
+//	a_h(u, v) = Σ_T (∇u, ∇v)_T + Σ_(F ⊂ Γ_R) α_F |F| m_F(u) m_F(v).
+//
+// On H it is ≤ the form of −Δ with the Robin terms, by Jensen's
+// inequality |F| m_F(u)² ≤ ∫_F u². P_h u is the CR function with the face
+// means of u; Dirichlet face means of u ∈ H are 0, so e = u − P_h u has
+// zero mean on every face of every tetrahedron.
+//
+// (H2). A CR function v_h has a constant gradient on each tetrahedron, so
+// by Green's formula ∫_T ∇e·∇v_h = Σ_(F ⊂ ∂T) (∇v_h·n_F) ∫_F e = 0, and
+// every face-mean term of a_h vanishes on e.
+//
+// (H3). a_h(e, e) ≥ Σ_T ‖∇e‖²_T. On each tetrahedron T (convex, diameter
+// h_T, its longest edge; centroid x_c; edge lengths ℓ), split ‖e‖²_T =
+// ‖e − m_T(e)‖²_T + |T| m_T(e)²:
+//
+//   - ‖e − m_T(e)‖_T ≤ (h_T/π) ‖∇e‖_T, the Poincaré inequality for convex
+//     domains of any dimension (L. E. Payne, H. F. Weinberger, An optimal
+//     Poincaré inequality for convex domains, Arch. Rational Mech. Anal.
+//     5 (1960) 286–292; M. Bebendorf, A note on the Poincaré inequality
+//     for convex domains, Z. Anal. Anwend. 22 (2003) 751–756, which
+//     completes the proof).
+//   - div((x − x_c)e) = 3e + (x − x_c)·∇e, and (x − x_c)·n_F is constant
+//     on each (plane) face F, so the divergence theorem and the zero face
+//     means give 3∫_T e = −∫_T (x − x_c)·∇e. By Cauchy–Schwarz,
+//     |T| m_T(e)² = (∫_T e)²/|T| ≤ (1/9)(∫_T |x − x_c|²/|T|) ‖∇e‖²_T.
+//     With x − x_c = Σ_i λ_i (v_i − x_c), Σ_i (v_i − x_c) = 0 and
+//     ∫_T λ_i λ_j/|T| = (1 + δ_ij)/20, ∫_T |x − x_c|²/|T| = Σ_i |v_i −
+//     x_c|²/20 = (Σ_(edges) ℓ²)/80 (the sum of squared distances to the
+//     centroid is (1/4) Σ_(i<j) |v_i − v_j|²).
+//
+// So ‖e‖_T ≤ C_T ‖∇e‖_T with C_T² = h_T²/π² + (Σ ℓ²)/720 ≤ (1/π² +
+// 1/120) h_T² (six edges, each ≤ h_T): C_T ≤ 0.3312 h_T. Summing over
+// T, ‖e‖² ≤ max_T C_T² Σ_T ‖∇e‖²_T ≤ C_h² a_h(e, e), C_h = max_T C_T
+// (ProjectionConstant, from enclosures of the edge lengths, rounded up).
+// The same argument in n dimensions gives κ² = 1/π² + 1/(2n(n + 1)(n + 2))
+// (n = 2: 1/48, the constant √(1/π² + 1/48) ≈ 0.298 used for triangles by
+// C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
+// Math. Comp. 83 (2014) 2605–2629, whose paper we could confirm by its
+// abstract but whose statement for n = 3 we did not see; the derivation
+// above does not depend on it).
+//
+// CR shift. CR does not preserve element means, so its form carries one
+// constant c = max(0, min_T c_T) (CRShift; c_T the lower end of an
+// enclosure of V + γ on T, verified ≥ 0, else a *SignError): the matrices
+// of Projection.Matrices are those of a_h + c b. The theorem applied with
+// V = 0 and γ = 0 gives f(μ_(h,k)) ≤ λ_k(−Δ + Robin), f(x) = x/(1 + C_h²
+// x), μ_(h,k) the eigenvalues of a_h, and min–max with V + γ ≥ c on Ω
+// gives λ_k(−Δ + Robin) + c ≤ λ_k + γ. So λ_k + γ ≥ c + f(μ_(h,k)), from
+// a verified lower bound of μ_(h,k) + c (package enclose/sparse,
+// CountBelow) and the mass bound of Projection.Matrices.
 package tet
