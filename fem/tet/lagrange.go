@@ -253,14 +253,29 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		if !rem.IsBounded() || !hull(bern).IsBounded() {
 			return nil, nil, errUnbounded
 		}
-		bernstein.WeightedGram(w.wg, trip, bern, gamma.AddF(rem.Mid()), np)
-		w.derived(s, gradGram(g.Grad))
+		// A constant polynomial part P = w_0 (every coefficient the same
+		// enclosure, by the partition of unity) gives W = (w_0 + γ + r_mid) G^p:
+		// the weighted Gram matrix is not needed.
+		constant := true
+		for _, c := range bern[1:] {
+			constant = constant && c == bern[0]
+		}
+		shift := gamma.AddF(rem.Mid())
+		if !constant {
+			bernstein.WeightedGram(w.wg, trip, bern, shift, np)
+		}
+		w.derived(s, gradGram(g.Grad), !constant)
 		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
 				mass := bernstein.DotF(w.cf[j], w.gu[i])
 				st := bernstein.DotI(w.d[j][0], w.h[i][0]).Add(bernstein.DotI(w.d[j][1], w.h[i][1])).Add(bernstein.DotI(w.d[j][2], w.h[i][2])).MulF(pp)
-				pot := bernstein.DotF(w.cf[j], w.wu[i])
+				var pot interval.I
+				if constant {
+					pot = bern[0].Add(shift).Mul(mass)
+				} else {
+					pot = bernstein.DotF(w.cf[j], w.wu[i])
+				}
 				b.Add(i, j, g.Volume.Mul(mass))
 				e := st.Add(pot)
 				if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
@@ -327,10 +342,12 @@ func (w *ritzWork) load(s *Lagrange, vecs [][]float64, t int) bool {
 	return true
 }
 
-// derived computes wu, d and h (after wg is set).
-func (w *ritzWork) derived(s *Lagrange, g [3][3]interval.I) {
+// derived computes d, h and, if weighted, wu (after wg is set).
+func (w *ritzWork) derived(s *Lagrange, g [3][3]interval.I, weighted bool) {
 	for i := range w.cf {
-		bernstein.ApplyF(w.wu[i], w.wg, w.cf[i])
+		if weighted {
+			bernstein.ApplyF(w.wu[i], w.wg, w.cf[i])
+		}
 		for k := 0; k < 3; k++ {
 			diffF(w.d[i][k], s.pairs[k], w.cf[i])
 			for b := range w.h[i][k] {
