@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"gapcert/enclose"
+	"gapcert/fem/boundary"
 	"gapcert/interval"
 )
 
@@ -13,12 +14,8 @@ import (
 // eigenvalue of the pencil, then Liu's projection bound with the form
 // shift, as certs/certify/proof does it (c + f(σ′ − c), f(x) =
 // x/(1 + C_h² x)).
-func stageALower(t *testing.T, m *Mesh, expr string, bc string, gamma float64, count int) []float64 {
+func stageALower(t *testing.T, m *Mesh, expr string, cond boundary.Condition, gamma float64, count int) []float64 {
 	t.Helper()
-	cond := dirichlet
-	if bc == "neumann" {
-		cond = neumann
-	}
 	v, err := NewPotential(m, mustExpr(t, expr), 2)
 	if err != nil {
 		t.Fatal(err)
@@ -53,7 +50,7 @@ func TestStageAUnitCubeDirichletLowerBoundsConverge(t *testing.T) {
 	prev := math.Inf(1)
 	for _, n := range []int{2, 4, 8} {
 		m := unitCube(t, n)
-		lo := stageALower(t, m, "0", "dirichlet", 0, 4)
+		lo := stageALower(t, m, "0", dirichlet, 0, 4)
 		for k, e := range exact {
 			if lo[k] > e.Hi {
 				t.Fatalf("n = %d: stage-A lower bound %v of λ_%d above the exact %v", n, lo[k], k+1, e)
@@ -84,7 +81,7 @@ func TestUnitCubeNeumann(t *testing.T) {
 		t.Fatal(err)
 	}
 	mu := ritzBounds(t, NewLagrange(m, 3, allBC(6, neumann)), v, 1, 4)
-	lo := stageALower(t, unitCube(t, 4), "0", "neumann", 1, 4)
+	lo := stageALower(t, unitCube(t, 4), "0", neumann, 1, 4)
 	for k, e := range exact {
 		if mu[k].Hi < e.Lo || lo[k] > e.Hi {
 			t.Fatalf("Λ_%d = %v outside [%v, %v]", k+1, e, lo[k], mu[k].Hi)
@@ -124,7 +121,7 @@ func TestOrthoschemeDirichlet(t *testing.T) {
 	}
 	s := NewLagrange(m, 4, allBC(4, dirichlet))
 	mu := ritzBounds(t, s, v, 0, 3)
-	lo := stageALower(t, orthoscheme(t, 8), "0", "dirichlet", 0, 3)
+	lo := stageALower(t, orthoscheme(t, 8), "0", dirichlet, 0, 3)
 	for k, e := range exact {
 		if mu[k].Hi < e.Lo || lo[k] > e.Hi {
 			t.Fatalf("λ_%d = %v outside [%v, %v]", k+1, e, lo[k], mu[k].Hi)
