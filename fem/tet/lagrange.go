@@ -201,6 +201,25 @@ func (s *Lagrange) Mesh() *Mesh { return s.mesh }
 // The slice must not be modified.
 func (s *Lagrange) LocalDofs(t int) []int { return s.dofs[t] }
 
+// MultiIndices returns the multi-indices α (|α| = p, α_j the power of the
+// barycentric coordinate of local vertex j) in the order of LocalDofs and
+// Local (a new slice).
+func (s *Lagrange) MultiIndices() [][4]int {
+	return append([][4]int(nil), multiIndex(4, s.p).alpha...)
+}
+
+// Local sets dst[l] to the Bernstein coefficient of multi-index l on
+// tetrahedron t of the function with global coefficients vec: a copy of
+// the float coefficient, or exactly 0 where the DOF was removed.
+func (s *Lagrange) Local(dst, vec []float64, t int) {
+	for l, g := range s.dofs[t] {
+		dst[l] = 0
+		if g >= 0 {
+			dst[l] = vec[g]
+		}
+	}
+}
+
 func (s *Lagrange) checkPotential(v *Potential) {
 	if v == nil || v.mesh != s.mesh {
 		panic("tet: potential is not on the space's mesh")
@@ -251,7 +270,7 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		g := s.mesh.geom[t]
 		bern, rem := v.Model(t)
 		if !rem.IsBounded() || !hull(bern).IsBounded() {
-			return nil, nil, errUnbounded
+			return nil, nil, errUnboundedModel
 		}
 		// A constant polynomial part P = w_0 (every coefficient the same
 		// enclosure, by the partition of unity) gives W = (w_0 + γ + r_mid) G^p:
@@ -324,12 +343,9 @@ func newRitzWork(p, nv int) *ritzWork {
 func (w *ritzWork) load(s *Lagrange, vecs [][]float64, t int) bool {
 	nz := false
 	for i, x := range vecs {
-		for l, g := range s.dofs[t] {
-			w.cf[i][l] = 0
-			if g >= 0 {
-				w.cf[i][l] = x[g]
-				nz = nz || x[g] != 0
-			}
+		s.Local(w.cf[i], x, t)
+		for _, c := range w.cf[i] {
+			nz = nz || c != 0
 		}
 	}
 	if !nz {

@@ -83,12 +83,8 @@ func TestLagrangeContinuousAcrossFacesAndZeroOnDirichletFaces(t *testing.T) {
 			x[i] = rng.NormFloat64()
 		}
 		local := func(tt int) []float64 {
-			c := make([]float64, len(s.LocalDofs(tt)))
-			for l, g := range s.LocalDofs(tt) {
-				if g >= 0 {
-					c[l] = x[g]
-				}
-			}
+			c := make([]float64, len(s.MultiIndices()))
+			s.Local(c, x, tt)
 			return c
 		}
 		// barycentric coordinates of a face point in tetrahedron tt

@@ -256,3 +256,18 @@ func (m *Mesh) HMax() float64 {
 	}
 	return h
 }
+
+// Faces returns the global numbers of the faces of tetrahedron t, the
+// face opposite local vertex i first (faces are numbered 0, 1, … without
+// gaps, each by its sorted node numbers).
+func (m *Mesh) Faces(t int) [4]int { return m.tetFaces[t] }
+
+// NumFaces returns the number of faces of the mesh.
+func (m *Mesh) NumFaces() int { return len(m.faces) }
+
+// BoundaryFaceNumber returns the global face number of boundary face k
+// (in the order of Boundary).
+func (m *Mesh) BoundaryFaceNumber(k int) int {
+	o := m.bndOwner[k]
+	return m.tetFaces[o[0]][o[1]]
+}

@@ -116,6 +116,12 @@ func (v *Potential) Degree() int { return v.q }
 // be modified.
 func (v *Potential) Model(t int) (bern []interval.I, rem interval.I) { return v.bern[t], v.rem[t] }
 
+// MultiIndices returns the multi-indices of degree Degree() in the order
+// of Model's coefficients (a new slice).
+func (v *Potential) MultiIndices() [][4]int {
+	return append([][4]int(nil), multiIndex(4, v.q).alpha...)
+}
+
 // Range returns an enclosure of V over tetrahedron t.
 func (v *Potential) Range(t int) interval.I { return v.rng[t] }
 
@@ -157,5 +163,5 @@ func (e *SignError) Error() string {
 		v[2][0].Mid(), v[2][1].Mid(), v[2][2].Mid(), v[3][0].Mid(), v[3][1].Mid(), v[3][2].Mid(), e.Range)
 }
 
-// errUnbounded reports a model that is not finite.
-var errUnbounded = errors.New("tet: potential model is not bounded on a tetrahedron")
+// errUnboundedModel reports a model that is not finite.
+var errUnboundedModel = errors.New("tet: potential model is not bounded on a tetrahedron")
