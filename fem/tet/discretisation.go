@@ -30,7 +30,10 @@ type StageA struct {
 	approx  []float64
 }
 
-var _ discrete.StageA = (*StageA)(nil)
+var (
+	_ discrete.StageA = (*StageA)(nil)
+	_ discrete.Trial  = (*Trial)(nil)
+)
 
 // NewStageA assembles the stage-A pencil of s for V + γ
 // (Projection.Matrices; an error when V + γ ≥ 0 cannot be verified) and

@@ -2,6 +2,7 @@ package tet
 
 import (
 	"context"
+	"errors"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -149,6 +150,44 @@ func TestRitzUnitCubeWithPotentialAgainstOneDimensionalSums(t *testing.T) {
 		lo := stageALower(t, unitCube(t, 4), "x^2 + y^2 + z^2", c.cond, 0, 2)
 		if lo[0] > exact[0].Hi || lo[1] > exact[1].Hi || lo[0] < exact[0].Lo/2 {
 			t.Errorf("stage-A bounds %v, exact %v", lo, exact)
+		}
+	}
+}
+
+// A kink of abs inside tetrahedra (|x − 1/2| on the Kuhn mesh of 3³
+// subcubes, whose planes miss x = 1/2) falls back to the range model,
+// which still contains the values at the vertices; InverseShifted refuses
+// a shift with V + γ ≤ 0 somewhere (a *SignError) and models 1/(V + γ)
+// otherwise.
+func TestPotentialKinkAndInverseShifted(t *testing.T) {
+	m := unitCube(t, 3)
+	v, err := NewPotential(m, mustExpr(t, "abs(x - 1/2)"), 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if v.Exact() {
+		t.Error("a kink inside tetrahedra reported an exact model")
+	}
+	for tt := 0; tt < m.NumTets(); tt++ {
+		for _, p := range m.Vertices(tt) {
+			x := new(big.Rat).SetFloat64(p[0].Mid()) // within an ulp of k/3
+			want := new(big.Rat).Abs(new(big.Rat).Sub(x, big.NewRat(1, 2)))
+			if r := v.Range(tt); !ratIn(r.Add(interval.I{Lo: -1e-15, Hi: 1e-15}), want) {
+				t.Fatalf("range %v of tetrahedron %d misses |x − 1/2| at a vertex", r, tt)
+			}
+		}
+	}
+	var se *SignError
+	if _, err := v.InverseShifted(interval.Point(0), 2); err == nil || !errors.As(err, &se) {
+		t.Errorf("V + 0 touches 0 at x = 1/2: error %v, want a *SignError", err)
+	}
+	w, err := v.InverseShifted(interval.Point(1), 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for tt := 0; tt < m.NumTets(); tt++ {
+		if r := w.Range(tt); r.Lo < 1/1.5-1e-12 || r.Hi > 1+1e-12 || r.Lo > r.Hi {
+			t.Fatalf("range of 1/(|x − 1/2| + 1) on tetrahedron %d is %v, outside [2/3, 1]", tt, r)
 		}
 	}
 }
