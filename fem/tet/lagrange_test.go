@@ -42,22 +42,6 @@ func TestRitzUnitCubeDirichletConvergesWithDegree(t *testing.T) {
 	}
 }
 
-// evalLocal returns Σ_α c_α B^p_α(λ) at round-to-nearest (a test helper).
-func evalLocal(p int, c []float64, lam [4]float64) float64 {
-	ix := multiIndex(4, p)
-	s := 0.0
-	for a, al := range ix.alpha {
-		b := float64(multinom(al).Int64())
-		for i := 0; i < 4; i++ {
-			for k := 0; k < al[i]; k++ {
-				b *= lam[i]
-			}
-		}
-		s += c[a] * b
-	}
-	return s
-}
-
 // Conformity of the global numbering: a random function of P_p (p = 1..5)
 // on a Kuhn mesh takes the same value at random points of every interior
 // face from both tetrahedra sharing it (up to rounding), and exactly 0 on
@@ -82,11 +66,6 @@ func TestLagrangeContinuousAcrossFacesAndZeroOnDirichletFaces(t *testing.T) {
 		for i := range x {
 			x[i] = rng.NormFloat64()
 		}
-		local := func(tt int) []float64 {
-			c := make([]float64, len(s.MultiIndices()))
-			s.Local(c, x, tt)
-			return c
-		}
 		// barycentric coordinates of a face point in tetrahedron tt
 		bary := func(tt int, nodes [3]int, w [3]float64) [4]float64 {
 			var lam [4]float64
@@ -106,8 +85,8 @@ func TestLagrangeContinuousAcrossFacesAndZeroOnDirichletFaces(t *testing.T) {
 			}
 			w := [3]float64{1 - a - b, a, b}
 			if len(o) == 2 {
-				u1 := evalLocal(p, local(o[0][0]), bary(o[0][0], key, w))
-				u2 := evalLocal(p, local(o[1][0]), bary(o[1][0], key, w))
+				u1 := s.EvalLocal(x, o[0][0], bary(o[0][0], key, w))
+				u2 := s.EvalLocal(x, o[1][0], bary(o[1][0], key, w))
 				if math.Abs(u1-u2) > 1e-12*(1+math.Abs(u1)) {
 					t.Fatalf("p = %d: face %v: %g from one side, %g from the other", p, key, u1, u2)
 				}
@@ -120,9 +99,52 @@ func TestLagrangeContinuousAcrossFacesAndZeroOnDirichletFaces(t *testing.T) {
 				}
 			}
 			if bc[side].Essential() {
-				if u := evalLocal(p, local(o[0][0]), bary(o[0][0], key, w)); u != 0 {
+				if u := s.EvalLocal(x, o[0][0], bary(o[0][0], key, w)); u != 0 {
 					t.Fatalf("p = %d: value %g on a Dirichlet face", p, u)
 				}
+			}
+		}
+	}
+}
+
+// Interpolate reproduces polynomials of degree ≤ p (Eval at random points
+// within 1e-12), and a leading block of the Ritz matrices depends only on
+// the leading vectors (bit for bit), as discrete.Trial promises.
+func TestInterpolateAndLeadingRitzBlock(t *testing.T) {
+	m := unitCube(t, 2)
+	s := NewLagrange(m, 3, allBC(6, neumann))
+	f := func(x, y, z float64) float64 { return 1 + x*x*y - z*z*z + 2*x*y*z }
+	u := s.Interpolate(f)
+	rng := rand.New(rand.NewPCG(8, 8))
+	for k := 0; k < 50; k++ {
+		x, y, z := rng.Float64(), rng.Float64(), rng.Float64()
+		if d := math.Abs(s.Eval(u, x, y, z) - f(x, y, z)); d > 1e-12 {
+			t.Fatalf("interpolant misses f at (%g, %g, %g) by %g", x, y, z, d)
+		}
+	}
+	sd := NewLagrange(m, 3, allBC(6, dirichlet))
+	v, err := NewPotential(m, mustExpr(t, "x*y + z"), 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var vecs [][]float64
+	for a := 1; a <= 3; a++ {
+		vecs = append(vecs, sd.Interpolate(func(x, y, z float64) float64 {
+			return math.Sin(float64(a)*math.Pi*x) * math.Sin(math.Pi*y) * math.Sin(math.Pi*z)
+		}))
+	}
+	a0, a1, err := sd.RitzMatrices(vecs, v, interval.Point(0.5))
+	if err != nil {
+		t.Fatal(err)
+	}
+	b0, b1, err := sd.RitzMatrices(vecs[:2], v, interval.Point(0.5))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := 0; i < 2; i++ {
+		for j := 0; j <= i; j++ {
+			if a0.At(i, j) != b0.At(i, j) || a1.At(i, j) != b1.At(i, j) {
+				t.Errorf("entry (%d, %d): leading block (%v, %v), full (%v, %v)", i, j, b0.At(i, j), b1.At(i, j), a0.At(i, j), a1.At(i, j))
 			}
 		}
 	}

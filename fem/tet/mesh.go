@@ -271,3 +271,27 @@ func (m *Mesh) BoundaryFaceNumber(k int) int {
 	o := m.bndOwner[k]
 	return m.tetFaces[o[0]][o[1]]
 }
+
+// baryApprox returns float barycentric coordinates of x in the
+// tetrahedron with vertex enclosures v (midpoints; a choice).
+func baryApprox(v [4][3]interval.I, x [3]float64) [4]float64 {
+	var d [3][3]float64
+	var r [3]float64
+	for k := 0; k < 3; k++ {
+		for c := 0; c < 3; c++ {
+			d[k][c] = v[k+1][c].Mid() - v[0][c].Mid()
+		}
+	}
+	for c := 0; c < 3; c++ {
+		r[c] = x[c] - v[0][c].Mid()
+	}
+	crossF := func(a, b [3]float64) [3]float64 {
+		return [3]float64{a[1]*b[2] - a[2]*b[1], a[2]*b[0] - a[0]*b[2], a[0]*b[1] - a[1]*b[0]}
+	}
+	dotF := func(a, b [3]float64) float64 { return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] }
+	det := dotF(d[0], crossF(d[1], d[2]))
+	l1 := dotF(r, crossF(d[1], d[2])) / det
+	l2 := dotF(r, crossF(d[2], d[0])) / det
+	l3 := dotF(r, crossF(d[0], d[1])) / det
+	return [4]float64{1 - l1 - l2 - l3, l1, l2, l3}
+}
