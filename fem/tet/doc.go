@@ -18,8 +18,9 @@
 //   - Lagrange: conforming P_p (any p ≥ 1) in the Bernstein basis, for
 //     Rayleigh–Ritz upper bounds (RitzMatrices) and float assembly
 //     (AssembleApprox) to choose approximate eigenvectors;
-//   - Projection: the Crouzeix–Raviart stage-A space CR (face means) with
-//     the interval matrices of its relaxed form and the constant of the
+//   - Projection: the stage-A spaces CR (Crouzeix–Raviart, face means) and
+//     ECR (enriched, P1 + span{|x|²}: face and element means) with the
+//     interval matrices of their relaxed forms and the constants of the
 //     projection lower bound (see Projection lower bound).
 //
 // Guarantees. Every interval matrix this package returns encloses, entry
@@ -67,20 +68,31 @@
 // λ_k + γ ≥ λ_(h,k)/(1 + C_h² λ_(h,k)), λ_(h,k) the k-th eigenvalue of
 // (a_h, b) on V_h. Here are the space-specific steps. H = {u ∈ H¹(Ω):
 // u = 0 on Dirichlet faces}, m_S the mean over S, Γ_R the Robin faces
-// (α ≥ 0), and the form, broken over the tetrahedra, is
+// (α ≥ 0), c_T the lower end of an enclosure of V + γ on T (verified
+// ≥ 0, else a *SignError), and the forms, broken over the tetrahedra, are
 //
-//	a_h(u, v) = Σ_T (∇u, ∇v)_T + Σ_(F ⊂ Γ_R) α_F |F| m_F(u) m_F(v).
+//	CR:  a_h(u, v) = Σ_T (∇u, ∇v)_T + Σ_(F ⊂ Γ_R) α_F |F| m_F(u) m_F(v)   (+ c b(u, v), see CR shift),
+//	ECR: a_h(u, v) = Σ_T (∇u, ∇v)_T + Σ_T c_T |T| m_T(u) m_T(v) + Σ_(F ⊂ Γ_R) α_F |F| m_F(u) m_F(v).
 //
-// On H it is ≤ the form of −Δ with the Robin terms, by Jensen's
-// inequality |F| m_F(u)² ≤ ∫_F u². P_h u is the CR function with the face
-// means of u; Dirichlet face means of u ∈ H are 0, so e = u − P_h u has
-// zero mean on every face of every tetrahedron.
+// On H both are ≤ a + γb (CR without its c term: ≤ the form of −Δ with
+// the Robin terms), by Jensen's inequality |S| m_S(u)² ≤ ∫_S u². P_h u is
+// the member with the face means (and, for ECR, element means) of u;
+// Dirichlet face means of u ∈ H are 0, so e = u − P_h u has zero mean on
+// every face of every tetrahedron, and for ECR on every tetrahedron.
 //
-// (H2). A CR function v_h has a constant gradient on each tetrahedron, so
-// by Green's formula ∫_T ∇e·∇v_h = Σ_(F ⊂ ∂T) (∇v_h·n_F) ∫_F e = 0, and
-// every face-mean term of a_h vanishes on e.
+// (H2). Every v_h of either space has, on each tetrahedron, a constant
+// Laplacian and a constant normal derivative on each plane face (CR: ∇v_h
+// is constant; ECR adds |x|², with ∇ = 2x, Δ = 6, and x·n constant on a
+// plane), so by Green's formula
 //
-// (H3). a_h(e, e) ≥ Σ_T ‖∇e‖²_T. On each tetrahedron T (convex, diameter
+//	∫_T ∇e·∇v_h = −Δv_h ∫_T e + Σ_(F ⊂ ∂T) ∂_n v_h|_F ∫_F e = 0
+//
+// (for CR Δv_h = 0, so the element mean of e is not needed), and every
+// mean term of a_h vanishes on e.
+//
+// (H3). a_h(e, e) ≥ Σ_T ‖∇e‖²_T (the mean terms are ≥ 0). For ECR, e has
+// zero mean on T, and the Poincaré inequality below gives C_T = h_T/π
+// (≈ 0.3183 h_T). For CR, on each tetrahedron T (convex, diameter
 // h_T, its longest edge; centroid x_c; edge lengths ℓ), split ‖e‖²_T =
 // ‖e − m_T(e)‖²_T + |T| m_T(e)²:
 //
@@ -99,7 +111,7 @@
 //     x_c|²/20 = (Σ_(edges) ℓ²)/80 (the sum of squared distances to the
 //     centroid is (1/4) Σ_(i<j) |v_i − v_j|²).
 //
-// So ‖e‖_T ≤ C_T ‖∇e‖_T with C_T² = h_T²/π² + (Σ ℓ²)/720 ≤ (1/π² +
+// So for CR ‖e‖_T ≤ C_T ‖∇e‖_T with C_T² = h_T²/π² + (Σ ℓ²)/720 ≤ (1/π² +
 // 1/120) h_T² (six edges, each ≤ h_T): C_T ≤ 0.3312 h_T. Summing over
 // T, ‖e‖² ≤ max_T C_T² Σ_T ‖∇e‖²_T ≤ C_h² a_h(e, e), C_h = max_T C_T
 // (ProjectionConstant, from enclosures of the edge lengths, rounded up).
