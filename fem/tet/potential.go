@@ -28,10 +28,18 @@ type Potential struct {
 	expr  *formula.Expr
 }
 
+// maxExactDegree is the largest polynomial degree of V for which
+// NewPotential raises the order to make the model exact (higher degrees
+// keep the requested order and a remainder; the triple tables grow like
+// q³p⁶).
+const maxExactDegree = 6
+
 // NewPotential builds the models of v (variables x, y, z; parameters
-// bound) of Taylor order q = max(order, 1) on every tetrahedron of m, from
+// bound) of Taylor order q ≥ max(order, 1) on every tetrahedron of m, from
 // formula.Expr.Model3 in the reference coordinates (ξ, η, ζ) = (λ_1, λ_2,
-// λ_3) (exact, R_T = 0, when v is a polynomial of degree ≤ q). The
+// λ_3). If v is a polynomial of degree ≤ maxExactDegree
+// (formula.Expr.PolynomialDegree) its degree is used when larger, so that
+// the model is exact (R_T = 0). The
 // monomials ξ^i η^j ζ^l are rewritten in the degree-q Bernstein basis by
 // the exact monomial identity of tables.go. The range of V over T is the
 // hull of the Bernstein coefficients plus R_T (range identity),
@@ -46,6 +54,9 @@ func NewPotential(m *Mesh, v *formula.Expr, order int) (*Potential, error) {
 		panic("tet: nil potential expression")
 	}
 	q := max(order, 1)
+	if d, ok := v.PolynomialDegree("x", "y", "z"); ok && d <= maxExactDegree {
+		q = max(q, d)
+	}
 	trip := monomialTriples(q)
 	w := monomialTable(q).IV
 	nq := dim3(q)
