@@ -273,9 +273,11 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 			return nil, nil, errUnboundedModel
 		}
 		// A constant polynomial part P = w_0 (every coefficient the same
-		// enclosure, by the partition of unity) gives W = (w_0 + γ + r_mid) G^p:
-		// the weighted Gram matrix is not needed.
-		constant := true
+		// exact float w_0, so P = w_0 by the partition of unity) gives
+		// W = (w_0 + γ + r_mid) G^p: the weighted Gram matrix is not needed.
+		// (Equal non-point enclosures would not do: the exact coefficients
+		// inside them may differ from each other.)
+		constant := bern[0].Lo == bern[0].Hi
 		for _, c := range bern[1:] {
 			constant = constant && c == bern[0]
 		}
