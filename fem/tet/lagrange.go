@@ -1,6 +1,10 @@
 package tet
 
 import (
+	"runtime"
+	"sync"
+	"sync/atomic"
+
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
 	"gapcert/fem/boundary"
@@ -258,56 +262,103 @@ func (s *Lagrange) RitzMatrices(vecs [][]float64, v *Potential, gamma interval.I
 		}
 	}
 	nv := len(vecs)
+	// The tetrahedra are summed in fixed blocks of ritzBlock (each block
+	// in order, then the blocks in order), so the result does not depend
+	// on how many goroutines share the blocks.
+	nt := len(s.mesh.tets)
+	blocks := (nt + ritzBlock - 1) / ritzBlock
+	accA, accB := make([]*ritz.Accumulator, blocks), make([]*ritz.Accumulator, blocks)
+	errs := make([]error, blocks)
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), blocks) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			w := newRitzWork(s.p, nv)
+			for {
+				bl := int(next.Add(1)) - 1
+				if bl >= blocks {
+					return
+				}
+				accA[bl], accB[bl] = ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
+				for t := bl * ritzBlock; t < min(nt, (bl+1)*ritzBlock); t++ {
+					if errs[bl] = s.ritzTet(w, vecs, v, gamma, t, accA[bl], accB[bl]); errs[bl] != nil {
+						break
+					}
+				}
+			}
+		}()
+	}
+	wg.Wait()
 	a, b := ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
-	w := newRitzWork(s.p, nv)
-	trip := tripleTable(4, v.q, s.p, s.p).IV
-	np := dim3(s.p)
-	pp := float64(s.p * s.p)
-	for t := range s.mesh.tets {
-		if !w.load(s, vecs, t) {
-			continue
+	for bl := range blocks {
+		if errs[bl] != nil {
+			return nil, nil, errs[bl]
 		}
-		g := s.mesh.geom[t]
-		bern, rem := v.Model(t)
-		if !rem.IsBounded() || !hull(bern).IsBounded() {
-			return nil, nil, errUnboundedModel
-		}
-		// A constant polynomial part P = w_0 (every coefficient the same
-		// exact float w_0, so P = w_0 by the partition of unity) gives
-		// W = (w_0 + γ + r_mid) G^p: the weighted Gram matrix is not needed.
-		// (Equal non-point enclosures would not do: the exact coefficients
-		// inside them may differ from each other.)
-		constant := bern[0].Lo == bern[0].Hi
-		for _, c := range bern[1:] {
-			constant = constant && c == bern[0]
-		}
-		shift := gamma.AddF(rem.Mid())
-		if !constant {
-			bernstein.WeightedGram(w.wg, trip, bern, shift, np)
-		}
-		w.derived(s, gradGram(g.Grad), !constant)
-		rrad := rem.Rad()
+		sa, sb := accA[bl].Sym(), accB[bl].Sym()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
-				mass := bernstein.DotF(w.cf[j], w.gu[i])
-				st := bernstein.DotI(w.d[j][0], w.h[i][0]).Add(bernstein.DotI(w.d[j][1], w.h[i][1])).Add(bernstein.DotI(w.d[j][2], w.h[i][2])).MulF(pp)
-				var pot interval.I
-				if constant {
-					pot = bern[0].Add(shift).Mul(mass)
-				} else {
-					pot = bernstein.DotF(w.cf[j], w.wu[i])
-				}
-				b.Add(i, j, g.Volume.Mul(mass))
-				e := st.Add(pot)
-				if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
-					e = e.Add(interval.I{Lo: -r, Hi: r})
-				}
-				a.Add(i, j, g.Volume.Mul(e))
+				a.Add(i, j, sa.At(i, j))
+				b.Add(i, j, sb.At(i, j))
 			}
 		}
 	}
 	s.faceTerms(a, vecs)
 	return a.Sym(), b.Sym(), nil
+}
+
+// ritzBlock is the number of tetrahedra per block of RitzMatrices.
+const ritzBlock = 32
+
+// ritzTet adds the contributions of tetrahedron t to a and b (see
+// RitzMatrices), with w as workspace.
+func (s *Lagrange) ritzTet(w *ritzWork, vecs [][]float64, v *Potential, gamma interval.I, t int, a, b *ritz.Accumulator) error {
+	if !w.load(s, vecs, t) {
+		return nil
+	}
+	nv := len(vecs)
+	np := dim3(s.p)
+	pp := float64(s.p * s.p)
+	g := s.mesh.geom[t]
+	bern, rem := v.Model(t)
+	if !rem.IsBounded() || !hull(bern).IsBounded() {
+		return errUnboundedModel
+	}
+	// A constant polynomial part P = w_0 (every coefficient the same
+	// exact float w_0, so P = w_0 by the partition of unity) gives
+	// W = (w_0 + γ + r_mid) G^p: the weighted Gram matrix is not needed.
+	// (Equal non-point enclosures would not do: the exact coefficients
+	// inside them may differ from each other.)
+	constant := bern[0].Lo == bern[0].Hi
+	for _, c := range bern[1:] {
+		constant = constant && c == bern[0]
+	}
+	shift := gamma.AddF(rem.Mid())
+	if !constant {
+		bernstein.WeightedGram(w.wg, tripleTable(4, v.q, s.p, s.p).IV, bern, shift, np)
+	}
+	w.derived(s, gradGram(g.Grad), !constant)
+	rrad := rem.Rad()
+	for i := 0; i < nv; i++ {
+		for j := 0; j <= i; j++ {
+			mass := bernstein.DotF(w.cf[j], w.gu[i])
+			st := bernstein.DotI(w.d[j][0], w.h[i][0]).Add(bernstein.DotI(w.d[j][1], w.h[i][1])).Add(bernstein.DotI(w.d[j][2], w.h[i][2])).MulF(pp)
+			var pot interval.I
+			if constant {
+				pot = bern[0].Add(shift).Mul(mass)
+			} else {
+				pot = bernstein.DotF(w.cf[j], w.wu[i])
+			}
+			b.Add(i, j, g.Volume.Mul(mass))
+			e := st.Add(pot)
+			if r := bernstein.RemainderBound(rrad, w.mii[i].Hi, w.mii[j].Hi); r != 0 {
+				e = e.Add(interval.I{Lo: -r, Hi: r})
+			}
+			a.Add(i, j, g.Volume.Mul(e))
+		}
+	}
+	return nil
 }
 
 // ritzWork holds, for one tetrahedron, the data of nv functions of degree

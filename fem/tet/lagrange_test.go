@@ -3,6 +3,7 @@ package tet
 import (
 	"math"
 	"math/rand/v2"
+	"runtime"
 	"testing"
 
 	"gapcert/interval"
@@ -108,8 +109,9 @@ func TestLagrangeContinuousAcrossFacesAndZeroOnDirichletFaces(t *testing.T) {
 }
 
 // Interpolate reproduces polynomials of degree ≤ p (Eval at random points
-// within 1e-12), and a leading block of the Ritz matrices depends only on
-// the leading vectors (bit for bit), as discrete.Trial promises.
+// within 1e-12), a leading block of the Ritz matrices depends only on
+// the leading vectors (bit for bit), as discrete.Trial promises, and the
+// matrices are the same bits with one goroutine as with several.
 func TestInterpolateAndLeadingRitzBlock(t *testing.T) {
 	m := unitCube(t, 2)
 	s := NewLagrange(m, 3, allBC(6, neumann))
@@ -145,6 +147,19 @@ func TestInterpolateAndLeadingRitzBlock(t *testing.T) {
 		for j := 0; j <= i; j++ {
 			if a0.At(i, j) != b0.At(i, j) || a1.At(i, j) != b1.At(i, j) {
 				t.Errorf("entry (%d, %d): leading block (%v, %v), full (%v, %v)", i, j, b0.At(i, j), b1.At(i, j), a0.At(i, j), a1.At(i, j))
+			}
+		}
+	}
+	prev := runtime.GOMAXPROCS(1)
+	c0, c1, err := sd.RitzMatrices(vecs, v, interval.Point(0.5))
+	runtime.GOMAXPROCS(prev)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := 0; i < 3; i++ {
+		for j := 0; j <= i; j++ {
+			if a0.At(i, j) != c0.At(i, j) || a1.At(i, j) != c1.At(i, j) {
+				t.Errorf("entry (%d, %d): (%v, %v) with one goroutine, (%v, %v) with %d", i, j, c0.At(i, j), c1.At(i, j), a0.At(i, j), a1.At(i, j), prev)
 			}
 		}
 	}
