@@ -52,3 +52,35 @@ func TestNewMeshChecks(t *testing.T) {
 		t.Errorf("volumes of the 162 tetrahedra sum to %v, want a narrow enclosure of 1", vol)
 	}
 }
+
+// Misuse panics: a degree below 1, the wrong number of side conditions, a
+// vector of the wrong length, a potential on another mesh.
+func TestMisusePanics(t *testing.T) {
+	m := unitCube(t, 1)
+	other := unitCube(t, 1)
+	v, err := NewPotential(other, mustExpr(t, "0"), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	own, err := NewPotential(m, mustExpr(t, "0"), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := NewLagrange(m, 2, allBC(6, neumann))
+	for name, f := range map[string]func(){
+		"degree 0":            func() { NewLagrange(m, 0, allBC(6, dirichlet)) },
+		"five conditions":     func() { NewLagrange(m, 2, allBC(5, dirichlet)) },
+		"CR, five conditions": func() { NewCR(m, allBC(5, dirichlet)) },
+		"short vector":        func() { _, _, _ = s.RitzMatrices([][]float64{{1}}, own, interval.I{}) },
+		"foreign potential":   func() { s.AssembleApprox(v, 0) },
+	} {
+		func() {
+			defer func() {
+				if recover() == nil {
+					t.Errorf("%s: no panic", name)
+				}
+			}()
+			f()
+		}()
+	}
+}
