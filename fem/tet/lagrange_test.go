@@ -6,6 +6,7 @@ import (
 	"runtime"
 	"testing"
 
+	"gapcert/fem/boundary"
 	"gapcert/interval"
 )
 
@@ -161,6 +162,35 @@ func TestInterpolateAndLeadingRitzBlock(t *testing.T) {
 			if a0.At(i, j) != c0.At(i, j) || a1.At(i, j) != c1.At(i, j) {
 				t.Errorf("entry (%d, %d): (%v, %v) with one goroutine, (%v, %v) with %d", i, j, c0.At(i, j), c1.At(i, j), a0.At(i, j), a1.At(i, j), prev)
 			}
+		}
+	}
+}
+
+// On the Kuhn mesh of 3³ subcubes (nodes k/3, enclosed by intervals that
+// are not points) the constant function 1 (every Bernstein coefficient 1:
+// partition of unity) has b(1, 1) = 1, ∫|∇1|² = 0 and, with Robin α = 1/3
+// (enclosed) on every face, a(1, 1) = α · 6 = 2 (the cube's surface); the
+// Ritz matrices contain these exact values and are narrow (≤ 1e-12).
+func TestRitzMatricesOfConstantWithEnclosedNodesAndRobinFaces(t *testing.T) {
+	m := unitCube(t, 3)
+	third := interval.Point(1).DivF(3)
+	robin := boundary.Condition{Kind: boundary.Robin, Alpha: third}
+	v, err := NewPotential(m, mustExpr(t, "0"), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for p := 1; p <= 3; p++ {
+		s := NewLagrange(m, p, allBC(6, robin))
+		one := make([]float64, s.N())
+		for i := range one {
+			one[i] = 1
+		}
+		a0, a1, err := s.RitzMatrices([][]float64{one}, v, interval.I{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !a1.At(0, 0).Contains(1) || !a0.At(0, 0).Contains(2) || a1.At(0, 0).Wid() > 1e-12 || a0.At(0, 0).Wid() > 1e-12 {
+			t.Errorf("p = %d: b(1, 1) ∈ %v (want 1), a(1, 1) ∈ %v (want 2)", p, a1.At(0, 0), a0.At(0, 0))
 		}
 	}
 }
