@@ -21,7 +21,10 @@
 //   - Projection: the stage-A spaces CR (Crouzeix–Raviart, face means) and
 //     ECR (enriched, P1 + span{|x|²}: face and element means) with the
 //     interval matrices of their relaxed forms and the constants of the
-//     projection lower bound (see Projection lower bound).
+//     projection lower bound (see Projection lower bound);
+//   - Trial and StageA: the interfaces of package fem/discrete
+//     (discretisation.go), with the sparse solvers and verified counts of
+//     package enclose/sparse.
 //
 // Guarantees. Every interval matrix this package returns encloses, entry
 // by entry, the exact forms for the exact mesh (every exact node inside
@@ -33,13 +36,18 @@
 // identities (tables.go, Lagrange.RitzMatrices), evaluated in outward
 // rounded interval arithmetic (package interval) from tables enclosed from
 // math/big. The non-polynomial part of V is carried as a remainder and
-// bounded by Cauchy–Schwarz.
+// bounded by Cauchy–Schwarz. Hypotheses a theorem needs (positive
+// orientation of every tetrahedron, V + γ ≥ 0 on every tetrahedron, an
+// invertible local ECR DOF matrix, a positive mass bound) are checked and
+// reported as errors (*SignError and others), never assumed.
 //
 // ProjectionConstant returns an upper bound of the constant of (H3), with
 // the inequality derived below.
 //
-// Functions named Approx work at round-to-nearest: their results are
-// choices (approximate eigenvectors), never bounds.
+// Functions and files named Approx or approx, and Interpolate, Eval and
+// EvalLocal, work at round-to-nearest: their results are choices
+// (approximate eigenvectors, interpolants, values for pictures), never
+// bounds.
 //
 // # Remainders
 //
