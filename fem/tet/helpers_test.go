@@ -68,6 +68,13 @@ func kuhnCells(n int, keep func(c4 [3]int) bool) (pts [][3]int, tets [][4]int) {
 // three nodes).
 func meshOf(t testing.TB, n int, pts [][3]int, tets [][4]int, sides int, side func(f [3][3]int) int) *Mesh {
 	t.Helper()
+	return meshMoved(t, n, pts, tets, sides, side, nil)
+}
+
+// meshMoved is meshOf with each node moved by move (on its integer
+// coordinates; nil: not moved), the moved coordinates enclosed.
+func meshMoved(t testing.TB, n int, pts [][3]int, tets [][4]int, sides int, side func(f [3][3]int) int, move func(p [3]int) [3]float64) *Mesh {
+	t.Helper()
 	// Keep only the nodes of some tetrahedron, renumbered in order.
 	used := make([]int, len(pts))
 	for i := range used {
@@ -102,8 +109,12 @@ func meshOf(t testing.TB, n int, pts [][3]int, tets [][4]int, sides int, side fu
 	}
 	nodes := make([][3]interval.I, len(pts))
 	for i, p := range pts {
+		var d [3]float64
+		if move != nil {
+			d = move(p)
+		}
 		for c := 0; c < 3; c++ {
-			nodes[i][c] = interval.Point(float64(p[c])).DivF(float64(n))
+			nodes[i][c] = interval.Point(float64(p[c])).DivF(float64(n)).AddF(d[c])
 		}
 	}
 	m, err := NewMesh(nodes, tets, bnd, sides)

@@ -194,3 +194,32 @@ func TestRitzMatricesOfConstantWithEnclosedNodesAndRobinFaces(t *testing.T) {
 		}
 	}
 }
+
+// A Kuhn mesh of 3³ subcubes whose interior nodes are moved at random (up
+// to 0.1/3 per coordinate; boundary nodes stay, so the domain is still the
+// unit cube) gives general tetrahedra: the Ritz bounds of P_3 still
+// contain 3π² and 6π² (triple) and are within 1e-2.
+func TestRitzUnitCubeOnMovedNodes(t *testing.T) {
+	const n = 3
+	rng := rand.New(rand.NewPCG(9, 3))
+	pts, tets := kuhnCells(n, nil)
+	m := meshMoved(t, n, pts, tets, 6, cubeSide(n), func(p [3]int) [3]float64 {
+		var d [3]float64
+		for c := 0; c < 3; c++ {
+			if p[0] > 0 && p[0] < n && p[1] > 0 && p[1] < n && p[2] > 0 && p[2] < n {
+				d[c] = (rng.Float64()*2 - 1) * 0.1 / n
+			}
+		}
+		return d
+	})
+	v, err := NewPotential(m, mustExpr(t, "0"), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mu := ritzBounds(t, NewLagrange(m, 3, allBC(6, dirichlet)), v, 0, 4)
+	for k, e := range []interval.I{pi2.MulF(3), pi2.MulF(6), pi2.MulF(6), pi2.MulF(6)} {
+		if mu[k].Hi < e.Lo || relErr(mu[k].Hi, e) > 1e-2 {
+			t.Errorf("Ritz bound %v of λ_%d = %v", mu[k], k+1, e)
+		}
+	}
+}
