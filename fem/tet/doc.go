@@ -104,12 +104,14 @@
 // h_T, its longest edge; centroid x_c; edge lengths ℓ), split ‖e‖²_T =
 // ‖e − m_T(e)‖²_T + |T| m_T(e)²:
 //
-//   - ‖e − m_T(e)‖_T ≤ (h_T/π) ‖∇e‖_T, the Poincaré inequality for convex
-//     domains of any dimension (L. E. Payne, H. F. Weinberger, An optimal
-//     Poincaré inequality for convex domains, Arch. Rational Mech. Anal.
-//     5 (1960) 286–292; M. Bebendorf, A note on the Poincaré inequality
-//     for convex domains, Z. Anal. Anwend. 22 (2003) 751–756, which
-//     completes the proof).
+//   - ‖e − m_T(e)‖_T ≤ (h_T/π) ‖∇e‖_T, the Poincaré inequality for
+//     bounded convex domains of any dimension with diameter h_T, the
+//     best constant in terms of the diameter alone (L. E. Payne, H. F.
+//     Weinberger, An optimal Poincaré inequality for convex domains, Arch.
+//     Rational Mech. Anal. 5 (1960) 286–292; its proof in higher
+//     dimensions was completed by M. Bebendorf, A note on the Poincaré
+//     inequality for convex domains, Z. Anal. Anwend. 22 (2003) 751–756 —
+//     volume and pages of both recalled from memory).
 //   - div((x − x_c)e) = 3e + (x − x_c)·∇e, and (x − x_c)·n_F is constant
 //     on each (plane) face F, so the divergence theorem and the zero face
 //     means give 3∫_T e = −∫_T (x − x_c)·∇e. By Cauchy–Schwarz,
