@@ -14,7 +14,8 @@ import (
 // n-simplex (volume 1/n!): weights and points in barycentric coordinates
 // (n + 1 of them), exact for polynomials of degree ≤ 2s + 1 (A. Grundmann,
 // H. M. Möller, Invariant integration formulas for the n-simplex by
-// combinatorial methods, SIAM J. Numer. Anal. 15 (1978) 282–290):
+// combinatorial methods, SIAM J. Numer. Anal. 15 (1978) 282–290; details
+// recalled from memory, the rule is checked on monomials below):
 //
 //	Q(f) = Σ_(i=0..s) (−1)^i 2^(−2s) (d + n − 2i)^d / (i! (d + n − i)!) Σ_(|β| = s − i) f((2β + 1)/(d + n − 2i)),  d = 2s + 1.
 //

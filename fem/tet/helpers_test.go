@@ -16,7 +16,8 @@ import (
 // its lowest to its highest corner that raise one coordinate at a time,
 // one per permutation of the axes; the same cut in every subcube, so the
 // tetrahedra of neighbouring subcubes meet face to face: common practice,
-// H. W. Kuhn 1960, "Some combinatorial lemmas in topology") that satisfy
+// H. W. Kuhn 1960, "Some combinatorial lemmas in topology", recalled from
+// memory) that satisfy
 // keep (on the integer coordinates of their vertex sum, 4× the centroid),
 // as integer node coordinates 0..n and positively oriented tetrahedra.
 func kuhnCells(n int, keep func(c4 [3]int) bool) (pts [][3]int, tets [][4]int) {

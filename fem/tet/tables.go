@@ -16,7 +16,7 @@ import (
 // For a multi-index α with |α| = n the Bernstein polynomial is
 // B^n_α = C(n, α) λ^α, C(n, α) = n!/Π α_i!. The identities used, all
 // exact (R. T. Farouki, The Bernstein polynomial basis: a centennial
-// retrospective, Comput. Aided Geom. Design 29 (2012) 379–419; the
+// retrospective, Comput. Aided Geom. Design 29 (2012); the
 // integral is the classical formula for barycentric monomials on a
 // d-simplex S, e.g. Eisenberg–Malvern 1973):
 //
