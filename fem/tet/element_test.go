@@ -342,3 +342,93 @@ func TestPolarMomentAndProjectionConstant(t *testing.T) {
 		t.Errorf("projection constant %v, want ≈ %.17g", ch, want)
 	}
 }
+
+// Robin face terms on one random tetrahedron (α = 1 on every face, V = 0):
+// for u = λ_1 (Bernstein coefficients α_1/p), a(u, u) = ∫_T |∇λ_1|² +
+// Σ_F ∫_F λ_1², and ∫_F λ_1² = |F|/6 on the three faces containing vertex
+// 1 (the triangle integral 2·2!/4! of tables.go), 0 on the fourth. The
+// areas are computed independently in math/big (big.Float square roots of
+// exact squared norms at 200 bits); the enclosure contains the exact value
+// up to that precision and is narrow.
+func TestRobinFaceTermsOnRandomTetrahedron(t *testing.T) {
+	rng := rand.New(rand.NewPCG(21, 4))
+	checked := 0
+	defer func() {
+		if checked < 5 {
+			t.Errorf("only %d of 10 random tetrahedra checked", checked)
+		}
+	}()
+	for trial := 0; trial < 10; trial++ {
+		var f [4][3]float64
+		for i := range f {
+			for c := range f[i] {
+				f[i][c] = rng.Float64()
+			}
+		}
+		d := func(i, c int) float64 { return f[i][c] - f[0][c] }
+		if d(1, 0)*(d(2, 1)*d(3, 2)-d(2, 2)*d(3, 1))-d(1, 1)*(d(2, 0)*d(3, 2)-d(2, 2)*d(3, 0))+d(1, 2)*(d(2, 0)*d(3, 1)-d(2, 1)*d(3, 0)) < 0 {
+			f[1], f[2] = f[2], f[1]
+		}
+		var nodes [][3]interval.I
+		var v [4]ratVec
+		for i := range f {
+			nodes = append(nodes, [3]interval.I{interval.Point(f[i][0]), interval.Point(f[i][1]), interval.Point(f[i][2])})
+			for c := 0; c < 3; c++ {
+				v[i][c] = new(big.Rat).SetFloat64(f[i][c])
+			}
+		}
+		if g, ok := geometry([4][3]interval.I{nodes[0], nodes[1], nodes[2], nodes[3]}); !ok || g.Volume.Lo < 1e-3 {
+			continue
+		}
+		checked++
+		tt := [4]int{0, 1, 2, 3}
+		var bnd []BoundaryFace
+		for i := 0; i < 4; i++ {
+			bnd = append(bnd, BoundaryFace{Nodes: faceNodes(tt, i)})
+		}
+		m, err := NewMesh(nodes, [][4]int{tt}, bnd, 1)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p := 2
+		s := NewLagrange(m, p, []boundary.Condition{{Kind: boundary.Robin, Alpha: interval.Point(1)}})
+		u := make([]float64, s.N())
+		for l, al := range s.MultiIndices() {
+			u[s.LocalDofs(0)[l]] = float64(al[1]) / float64(p)
+		}
+		pot, err := NewPotential(m, mustExpr(t, "0"), 1)
+		if err != nil {
+			t.Fatal(err)
+		}
+		a0, _, err := s.RitzMatrices([][]float64{u}, pot, interval.I{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		// Exact: volume·|∇λ_1|² = |d_2 × d_3|²/(6 D) plus the face terms.
+		d1, d2, d3 := rsub(v[1], v[0]), rsub(v[2], v[0]), rsub(v[3], v[0])
+		cr := rcross(d2, d3)
+		det := rdot(d1, cr)
+		grad2 := new(big.Rat).Quo(rdot(cr, cr), new(big.Rat).Mul(det, big.NewRat(6, 1)))
+		want := new(big.Float).SetPrec(200).SetRat(grad2)
+		for i := 0; i < 4; i++ {
+			if i == 1 {
+				continue
+			}
+			fn := faceNodes(tt, i)
+			n := rcross(rsub(v[fn[1]], v[fn[0]]), rsub(v[fn[2]], v[fn[0]]))
+			area := new(big.Float).SetPrec(200).SetRat(rdot(n, n))
+			area.Sqrt(area)
+			area.Quo(area, big.NewFloat(12)) // |F|/6 = |n|/12
+			want.Add(want, area)
+		}
+		got := a0.At(0, 0)
+		lo, hi := new(big.Float).SetFloat64(got.Lo), new(big.Float).SetFloat64(got.Hi)
+		if lo.Cmp(want) > 0 || hi.Cmp(want) < 0 {
+			w, _ := want.Float64()
+			t.Fatalf("trial %d: a(λ_1, λ_1) = %v misses %.17g", trial, got, w)
+		}
+		if got.Wid() > 1e-12*got.Mid() {
+			t.Errorf("trial %d: %v too wide", trial, got)
+		}
+	}
+}
