@@ -35,7 +35,11 @@ type Model3 struct {
 // of vertices. The g_α(p*) for |α| = q+1 are enclosed by one jet whose
 // constant terms are the bounding box of the tetrahedron (which contains
 // every p*), with the closed branch rule of abs, min and max on that box
-// (see Model1). Each (z − c)^α is bounded by the interval powers of
+// (see Model1). An abs, min or max whose argument (difference) is affine
+// in x, y, z takes, in every jet, the branch decided on the tetrahedron
+// itself (kinkBranches3): a kink along a face of T that is not
+// axis-parallel (|x − y| on a tetrahedron with a face on y = x). Each
+// (z − c)^α is bounded by the interval powers of
 // [−1/4, 3/4]. The polynomial in z − c is rewritten in powers of ξ, η, ζ
 // by the binomial theorem in interval arithmetic. A polynomial f of
 // degree ≤ q gives R = 0. Unlike Model2 there is no subdivision: a domain
@@ -57,7 +61,8 @@ func (e *Expr) Model3(v [4][3]interval.I, order int) (Model3, error) {
 		pc[c] = v[0][c].Add(d[0][c].MulF(xc)).Add(d[1][c].MulF(xc)).Add(d[2][c].MulF(xc))
 	}
 	lc := getLayout(3, order)
-	center, err := jet3(e, lc, pc, d, false)
+	forced := kinkBranches3(e, v)
+	center, err := jet3(e, lc, pc, d, false, forced)
 	if err != nil {
 		return Model3{}, err
 	}
@@ -66,7 +71,7 @@ func (e *Expr) Model3(v [4][3]interval.I, order int) (Model3, error) {
 	for c := range box {
 		box[c] = v[0][c].Hull(v[1][c]).Hull(v[2][c]).Hull(v[3][c])
 	}
-	top, err := jet3(e, lr, box, d, true)
+	top, err := jet3(e, lr, box, d, true, forced)
 	if err != nil {
 		return Model3{}, err
 	}
@@ -105,7 +110,7 @@ func (e *Expr) Model3(v [4][3]interval.I, order int) (Model3, error) {
 }
 
 // jet3 evaluates e in jets of layout l with x, y, z = p + Σ_k d[k] t_k.
-func jet3(e *Expr, l *layout, p [3]interval.I, d [3][3]interval.I, closed bool) ([]interval.I, error) {
+func jet3(e *Expr, l *layout, p [3]interval.I, d [3][3]interval.I, closed bool, forced map[*node]int) ([]interval.I, error) {
 	vars := map[string][]interval.I{}
 	for c, name := range [3]string{"x", "y", "z"} {
 		h := make([]interval.I, l.m)
@@ -118,8 +123,71 @@ func jet3(e *Expr, l *layout, p [3]interval.I, d [3][3]interval.I, closed bool) 
 		vars[name] = h
 	}
 	c := newJetEval(l, vars)
-	c.closed = closed
+	c.closed, c.forced = closed, forced
 	return c.eval(e.root)
+}
+
+// kinkBranches3 decides, for each abs, min and max node of e whose
+// argument (or both arguments) is affine in x, y, z (PolynomialDegree ≤ 1),
+// the sign of the argument (difference) on the tetrahedron v: an affine
+// function's range over a tetrahedron is the hull of its values at the
+// vertices, enclosed by interval evaluation at the vertex enclosures. 1
+// where it is ≥ 0 on T, −1 where ≤ 0; undecided nodes are left out.
+func kinkBranches3(e *Expr, v [4][3]interval.I) map[*node]int {
+	var out map[*node]int
+	affine := func(n *node) bool {
+		d, ok := degreeOf(n, []string{"x", "y", "z"})
+		return ok && d <= 1
+	}
+	var walk func(n *node)
+	walk = func(n *node) {
+		if n == nil || n.isC {
+			return
+		}
+		walk(n.a)
+		walk(n.b)
+		if n.kind != kCall || (n.fn != fAbs && n.fn != fMin && n.fn != fMax) {
+			return
+		}
+		if !affine(n.a) || (n.fn != fAbs && !affine(n.b)) {
+			return
+		}
+		var r interval.I
+		for i, p := range v {
+			env := map[string]interval.I{"x": p[0], "y": p[1], "z": p[2]}
+			a, err := eval(n.a, env)
+			if err != nil {
+				return
+			}
+			if n.fn != fAbs {
+				b, err := eval(n.b, env)
+				if err != nil {
+					return
+				}
+				a = a.Sub(b)
+			}
+			if i == 0 {
+				r = a
+			} else {
+				r = r.Hull(a)
+			}
+		}
+		s := 0
+		switch {
+		case r.Lo >= 0:
+			s = 1
+		case r.Hi <= 0:
+			s = -1
+		default:
+			return
+		}
+		if out == nil {
+			out = map[*node]int{}
+		}
+		out[n] = s
+	}
+	walk(e.root)
+	return out
 }
 
 // RangeTetrahedron returns an enclosure of e over the tetrahedron with
