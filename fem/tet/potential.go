@@ -45,7 +45,8 @@ const maxExactDegree = 6
 // hull of the Bernstein coefficients plus R_T (range identity),
 // intersected with formula.RangeTetrahedron when that succeeds (both
 // contain the range). On a tetrahedron where abs, min or max has a kink
-// the bounding box does not decide (a *formula.SmoothnessError), the model
+// that neither the tetrahedron (affine arguments) nor its bounding box
+// decides (a *formula.SmoothnessError), the model
 // is the range model: every coefficient the midpoint m of the range
 // enclosure r and R_T = r − m, valid since the B^q_κ sum to 1. Any other
 // error of a model is returned with the tetrahedron where it arose.
