@@ -1,0 +1,144 @@
+// Package tet implements the finite elements of gapcert on tetrahedral
+// meshes of a polyhedron, for
+//
+//	−Δu + V u = λ u in Ω,  u = 0 on Dirichlet faces,
+//	∂u/∂n + αu = 0 on Robin faces (α ≥ 0; Neumann for α = 0),
+//
+// with a(u, v) = ∫∇u·∇v + ∫Vuv + Σ_F α_F ∫_F uv and b(u, v) = ∫uv:
+//
+//   - Mesh: what the spaces need of a conforming tetrahedral mesh (node
+//     enclosures, tetrahedra, boundary faces with their polyhedron face),
+//     checked (positive orientation verified, faces shared by at most two
+//     tetrahedra, the faces of one tetrahedron exactly the boundary faces),
+//     with the global edge and face numbering and interval geometry;
+//   - Potential: V held per tetrahedron as a Bernstein polynomial with
+//     interval coefficients plus a remainder interval (from the Taylor
+//     models formula.Expr.Model3; exact for polynomials of degree ≤ q),
+//     with a range enclosure per tetrahedron;
+//   - Lagrange: conforming P_p (any p ≥ 1) in the Bernstein basis, for
+//     Rayleigh–Ritz upper bounds (RitzMatrices) and float assembly
+//     (AssembleApprox) to choose approximate eigenvectors;
+//   - Projection: the stage-A spaces CR (Crouzeix–Raviart, face means) and
+//     ECR (enriched, P1 + span{|x|²}: face and element means) with the
+//     interval matrices of their relaxed forms and the constants of the
+//     projection lower bound (see Projection lower bound);
+//   - Trial and StageA: the interfaces of package fem/discrete
+//     (discretisation.go), with the sparse solvers and verified counts of
+//     package enclose/sparse.
+//
+// Guarantees. Every interval matrix this package returns encloses, entry
+// by entry, the exact forms for the exact mesh (every exact node inside
+// its enclosure), the exact functions defined by the given float64
+// coefficients, and every exact value of the inputs inside their
+// enclosures (α, γ, potential models). The integrals are exact on each
+// tetrahedron: functions are in Bernstein form in the barycentric
+// coordinates, whose products, gradients and integrals are exact rational
+// identities (tables.go, Lagrange.RitzMatrices), evaluated in outward
+// rounded interval arithmetic (package interval) from tables enclosed from
+// math/big. The non-polynomial part of V is carried as a remainder and
+// bounded by Cauchy–Schwarz. Hypotheses a theorem needs (positive
+// orientation of every tetrahedron, V + γ ≥ 0 on every tetrahedron, an
+// invertible local ECR DOF matrix, a positive mass bound) are checked and
+// reported as errors (*SignError and others), never assumed.
+//
+// ProjectionConstant returns an upper bound of the constant of (H3), with
+// the inequality derived below.
+//
+// Functions and files named Approx or approx, and Interpolate, Eval and
+// EvalLocal, work at round-to-nearest: their results are choices
+// (approximate eigenvectors, interpolants, values for pictures), never
+// bounds.
+//
+// # Remainders
+//
+// Where V is carried on a tetrahedron T as a polynomial P plus a remainder
+// interval R = [r_mid − r_rad, r_mid + r_rad] (V(x) − P(x) ∈ R for every
+// x ∈ T), the integrals split as
+//
+//	∫_T V u v = ∫_T (P + r_mid) u v + ∫_T (V − P − r_mid) u v,   |∫_T (V − P − r_mid) u v| ≤ r_rad ‖u‖_T ‖v‖_T,
+//
+// because |V − P − r_mid| ≤ r_rad pointwise and ∫_T |uv| ≤ ‖u‖_T ‖v‖_T
+// (Cauchy–Schwarz); the first integral is exact (Bernstein products), the
+// second is enclosed by ±r_rad ‖u‖_T ‖v‖_T with the norms from exact Gram
+// matrices (RemainderBound of package fem/internal/bernstein).
+//
+// # Projection lower bound (stage A)
+//
+// The theorem and its proof are in the doc of package enclose (Projection
+// lower bounds; X. Liu, A framework of verified eigenvalue bounds for
+// self-adjoint differential operators, Appl. Math. Comput. 267 (2015)
+// 341–355): for a form a_h on H + V_h with a_h ≤ a + γb on H and a
+// projection P_h: H → V_h with
+//
+//	(H2) a_h(u − P_h u, v_h) = 0 for every v_h ∈ V_h,
+//	(H3) ‖u − P_h u‖ ≤ C_h a_h(u − P_h u, u − P_h u)^(1/2),
+//
+// λ_k + γ ≥ λ_(h,k)/(1 + C_h² λ_(h,k)), λ_(h,k) the k-th eigenvalue of
+// (a_h, b) on V_h. Here are the space-specific steps. H = {u ∈ H¹(Ω):
+// u = 0 on Dirichlet faces}, m_S the mean over S, Γ_R the Robin faces
+// (α ≥ 0), c_T the lower end of an enclosure of V + γ on T (verified
+// ≥ 0, else a *SignError), and the forms, broken over the tetrahedra, are
+//
+//	CR:  a_h(u, v) = Σ_T (∇u, ∇v)_T + Σ_(F ⊂ Γ_R) α_F |F| m_F(u) m_F(v)   (+ c b(u, v), see CR shift),
+//	ECR: a_h(u, v) = Σ_T (∇u, ∇v)_T + Σ_T c_T |T| m_T(u) m_T(v) + Σ_(F ⊂ Γ_R) α_F |F| m_F(u) m_F(v).
+//
+// On H both are ≤ a + γb (CR without its c term: ≤ the form of −Δ with
+// the Robin terms), by Jensen's inequality |S| m_S(u)² ≤ ∫_S u². P_h u is
+// the member with the face means (and, for ECR, element means) of u;
+// Dirichlet face means of u ∈ H are 0, so e = u − P_h u has zero mean on
+// every face of every tetrahedron, and for ECR on every tetrahedron.
+//
+// (H2). Every v_h of either space has, on each tetrahedron, a constant
+// Laplacian and a constant normal derivative on each plane face (CR: ∇v_h
+// is constant; ECR adds |x|², with ∇ = 2x, Δ = 6, and x·n constant on a
+// plane), so by Green's formula
+//
+//	∫_T ∇e·∇v_h = −Δv_h ∫_T e + Σ_(F ⊂ ∂T) ∂_n v_h|_F ∫_F e = 0
+//
+// (for CR Δv_h = 0, so the element mean of e is not needed), and every
+// mean term of a_h vanishes on e.
+//
+// (H3). a_h(e, e) ≥ Σ_T ‖∇e‖²_T (the mean terms are ≥ 0). For ECR, e has
+// zero mean on T, and the Poincaré inequality below gives C_T = h_T/π
+// (≈ 0.3183 h_T). For CR, on each tetrahedron T (convex, diameter
+// h_T, its longest edge; centroid x_c; edge lengths ℓ), split ‖e‖²_T =
+// ‖e − m_T(e)‖²_T + |T| m_T(e)²:
+//
+//   - ‖e − m_T(e)‖_T ≤ (h_T/π) ‖∇e‖_T, the Poincaré inequality for
+//     bounded convex domains of any dimension with diameter h_T, the
+//     best constant in terms of the diameter alone (L. E. Payne, H. F.
+//     Weinberger, An optimal Poincaré inequality for convex domains, Arch.
+//     Rational Mech. Anal. 5 (1960) 286–292; its proof in higher
+//     dimensions was completed by M. Bebendorf, A note on the Poincaré
+//     inequality for convex domains, Z. Anal. Anwend. 22 (2003) 751–756 —
+//     volume and pages of both recalled from memory).
+//   - div((x − x_c)e) = 3e + (x − x_c)·∇e, and (x − x_c)·n_F is constant
+//     on each (plane) face F, so the divergence theorem and the zero face
+//     means give 3∫_T e = −∫_T (x − x_c)·∇e. By Cauchy–Schwarz,
+//     |T| m_T(e)² = (∫_T e)²/|T| ≤ (1/9)(∫_T |x − x_c|²/|T|) ‖∇e‖²_T.
+//     With x − x_c = Σ_i λ_i (v_i − x_c), Σ_i (v_i − x_c) = 0 and
+//     ∫_T λ_i λ_j/|T| = (1 + δ_ij)/20, ∫_T |x − x_c|²/|T| = Σ_i |v_i −
+//     x_c|²/20 = (Σ_(edges) ℓ²)/80 (the sum of squared distances to the
+//     centroid is (1/4) Σ_(i<j) |v_i − v_j|²).
+//
+// So for CR ‖e‖_T ≤ C_T ‖∇e‖_T with C_T² = h_T²/π² + (Σ ℓ²)/720 ≤ (1/π² +
+// 1/120) h_T² (six edges, each ≤ h_T): C_T ≤ 0.3312 h_T. Summing over
+// T, ‖e‖² ≤ max_T C_T² Σ_T ‖∇e‖²_T ≤ C_h² a_h(e, e), C_h = max_T C_T
+// (ProjectionConstant, from enclosures of the edge lengths, rounded up).
+// The same argument in n dimensions gives κ² = 1/π² + 1/(2n(n + 1)(n + 2))
+// (n = 2: 1/48, the constant √(1/π² + 1/48) ≈ 0.298 used for triangles by
+// C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
+// Math. Comp. 83 (2014) 2605–2629, whose paper we could confirm by its
+// abstract but whose statement for n = 3 we did not see; the derivation
+// above does not depend on it).
+//
+// CR shift. CR does not preserve element means, so its form carries one
+// constant c = max(0, min_T c_T) (CRShift; c_T the lower end of an
+// enclosure of V + γ on T, verified ≥ 0, else a *SignError): the matrices
+// of Projection.Matrices are those of a_h + c b. The theorem applied with
+// V = 0 and γ = 0 gives f(μ_(h,k)) ≤ λ_k(−Δ + Robin), f(x) = x/(1 + C_h²
+// x), μ_(h,k) the eigenvalues of a_h, and min–max with V + γ ≥ c on Ω
+// gives λ_k(−Δ + Robin) + c ≤ λ_k + γ. So λ_k + γ ≥ c + f(μ_(h,k)), from
+// a verified lower bound of μ_(h,k) + c (package enclose/sparse,
+// CountBelow) and the mass bound of Projection.Matrices.
+package tet
