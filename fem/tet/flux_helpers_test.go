@@ -1,0 +1,420 @@
+package tet
+
+import (
+	"math"
+	"math/rand/v2"
+	"sort"
+	"testing"
+
+	"gapcert/enclose"
+	"gapcert/enclose/sparse"
+	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
+	"gapcert/fem/internal/ritz"
+	"gapcert/interval"
+	"gapcert/temple"
+)
+
+// This file drives the flux tests: tetrahedral meshes of the unit cube
+// (Kuhn's subdivision of n³ subcubes into six tetrahedra each: the
+// subcube with corner c holds, for each permutation π of the axes, the
+// tetrahedron c, c + e_π(0), c + e_π(0) + e_π(1), c + e_1 + e_2 + e_3 —
+// common practice, H. W. Kuhn, Some combinatorial lemmas in topology, IBM
+// J. Res. Dev. 4 (1960) 518–524; it is also the Freudenthal triangulation,
+// cut by the planes x_i = j/n and x_i − x_j = l/n) and a minimal
+// conforming P_p trial space in Bernstein form (test-only: global DOFs by
+// domain point, Dirichlet DOFs removed, float assembly and interval Ritz
+// matrices).
+
+// testMesh is a list of cells with the global face table.
+type testMesh struct {
+	cells  []RTCell
+	owners []int    // cells per face
+	nodes  [][3]int // sorted vertex numbers per face
+}
+
+// kuhnMesh returns the Kuhn subdivision of n³ subcubes of [0, 1]³,
+// keeping the cells whose centroid satisfies keep (nil: all), with the
+// interior grid points moved by jitter(node) (nil: none; exact floats).
+func kuhnMesh(n int, keep func(c [3]float64) bool, jitter func(i, j, l int) [3]float64) testMesh {
+	node := func(i, j, l int) int { return (i*(n+1)+j)*(n+1) + l }
+	coord := func(g [3]int) [3]interval.I {
+		var x [3]interval.I
+		var d [3]float64
+		if jitter != nil && g[0] > 0 && g[0] < n && g[1] > 0 && g[1] < n && g[2] > 0 && g[2] < n {
+			d = jitter(g[0], g[1], g[2])
+		}
+		for a := 0; a < 3; a++ {
+			x[a] = interval.Point(float64(g[a])).DivF(float64(n))
+			if d[a] != 0 {
+				x[a] = x[a].AddF(d[a])
+			}
+		}
+		return x
+	}
+	perms := [6][3]int{{0, 1, 2}, {0, 2, 1}, {1, 0, 2}, {1, 2, 0}, {2, 0, 1}, {2, 1, 0}}
+	var m testMesh
+	faceID := map[[3]int]int{}
+	for i := 0; i < n; i++ {
+		for j := 0; j < n; j++ {
+			for l := 0; l < n; l++ {
+				for _, pi := range perms {
+					var g [4][3]int
+					g[0] = [3]int{i, j, l}
+					for s := 0; s < 3; s++ {
+						g[s+1] = g[s]
+						g[s+1][pi[s]]++
+					}
+					var cen [3]float64
+					for _, v := range g {
+						for a := 0; a < 3; a++ {
+							cen[a] += float64(v[a]) / float64(4*n)
+						}
+					}
+					if keep != nil && !keep(cen) {
+						continue
+					}
+					// det[e_π0, e_π0 + e_π1, e_1 + e_2 + e_3] = sgn π: swap
+					// the last two vertices of odd permutations.
+					if (pi[0] == 0 && pi[1] == 2) || (pi[0] == 1 && pi[1] == 0) || (pi[0] == 2 && pi[1] == 1) {
+						g[2], g[3] = g[3], g[2]
+					}
+					var c RTCell
+					for v := 0; v < 4; v++ {
+						c.Vertices[v] = coord(g[v])
+						c.Nodes[v] = node(g[v][0], g[v][1], g[v][2])
+					}
+					for f := 0; f < 4; f++ {
+						var key [3]int
+						for r, v := range rtFaceVertices[f] {
+							key[r] = c.Nodes[v]
+						}
+						sort.Ints(key[:])
+						id, ok := faceID[key]
+						if !ok {
+							id = len(m.nodes)
+							faceID[key] = id
+							m.nodes = append(m.nodes, key)
+							m.owners = append(m.owners, 0)
+						}
+						m.owners[id]++
+						c.Faces[f] = id
+					}
+					m.cells = append(m.cells, c)
+				}
+			}
+		}
+	}
+	return m
+}
+
+// boundaryAll returns the condition c on every boundary face.
+func (m testMesh) boundaryAll(c boundary.Condition) map[int]boundary.Condition {
+	out := map[int]boundary.Condition{}
+	for f, o := range m.owners {
+		if o == 1 {
+			out[f] = c
+		}
+	}
+	return out
+}
+
+// testTrial is conforming P_p in Bernstein form on a testMesh: one global
+// DOF per domain point, identified by its vertices and their exponents
+// (so neighbours agree without orientation), with the DOFs of domain
+// points on Dirichlet faces removed.
+type testTrial struct {
+	m    testMesh
+	p, n int
+	dofs [][]int
+}
+
+func newTestTrial(m testMesh, p int, dirichlet bool) *testTrial {
+	type key [4][2]int
+	onBoundary := map[key]bool{}
+	if dirichlet {
+		for f, o := range m.owners {
+			if o != 1 {
+				continue
+			}
+			v := m.nodes[f]
+			for mask := 1; mask < 8; mask++ {
+				var k key
+				q := 0
+				for r := 0; r < 3; r++ {
+					if mask&(1<<r) != 0 {
+						k[q] = [2]int{v[r], 1}
+						q++
+					}
+				}
+				for ; q < 4; q++ {
+					k[q] = [2]int{-1, 0}
+				}
+				onBoundary[k] = true
+			}
+		}
+	}
+	ix := rtMulti(p)
+	s := &testTrial{m: m, p: p, dofs: make([][]int, len(m.cells))}
+	ids := map[key]int{}
+	for t, c := range m.cells {
+		d := make([]int, len(ix.alpha))
+		for q, a := range ix.alpha {
+			var k, supp key
+			nz := 0
+			for j := 0; j < 4; j++ {
+				if a[j] > 0 {
+					k[nz] = [2]int{c.Nodes[j], a[j]}
+					nz++
+				}
+			}
+			for r := nz; r < 4; r++ {
+				k[r] = [2]int{-1, 0}
+			}
+			sort.Slice(k[:nz], func(x, y int) bool { return k[x][0] < k[y][0] })
+			for r := 0; r < 4; r++ {
+				supp[r] = [2]int{k[r][0], 0}
+				if k[r][0] >= 0 {
+					supp[r][1] = 1
+				}
+			}
+			if onBoundary[supp] {
+				d[q] = -1
+				continue
+			}
+			id, ok := ids[k]
+			if !ok {
+				id = s.n
+				ids[k] = id
+				s.n++
+			}
+			d[q] = id
+		}
+		s.dofs[t] = d
+	}
+	return s
+}
+
+func (s *testTrial) N() int                 { return s.n }
+func (s *testTrial) Degree() int            { return s.p }
+func (s *testTrial) MultiIndices() [][4]int { return rtMulti(s.p).alpha }
+func (s *testTrial) Local(dst, vec []float64, t int) {
+	for q, g := range s.dofs[t] {
+		dst[q] = 0
+		if g >= 0 {
+			dst[q] = vec[g]
+		}
+	}
+}
+
+// baryGradients encloses ∇λ_j (rows of J⁻¹: row r = (e_(r+1) × e_(r+2))/det J,
+// indices mod 3, and ∇λ_0 = −Σ) and |T| = det J/6.
+func baryGradients(c RTCell) ([4][3]interval.I, interval.I) {
+	var e [3][3]interval.I
+	for r := 0; r < 3; r++ {
+		for x := 0; x < 3; x++ {
+			e[r][x] = c.Vertices[r+1][x].Sub(c.Vertices[0][x])
+		}
+	}
+	g := fluxGeometry(c)
+	var out [4][3]interval.I
+	for r := 0; r < 3; r++ {
+		cr := fluxCross(e[(r+1)%3], e[(r+2)%3])
+		for x := 0; x < 3; x++ {
+			out[r+1][x] = cr[x].Div(g.det)
+			out[0][x] = out[0][x].Sub(out[r+1][x])
+		}
+	}
+	return out, g.det.DivF(6)
+}
+
+// assembleApprox returns the float matrices of a + shift·b and b (−Δ,
+// V = 0, no Robin terms): per cell ∫∇B_α·∇B_β = p²|T| Σ_(j,l) ∇λ_j·∇λ_l
+// G^(p−1)[α − e_j, β − e_l] and ∫B_αB_β = |T| G^p[α, β].
+func (s *testTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
+	p := s.p
+	ix, im := rtMulti(p), rtMulti(p-1)
+	gp, gq := rtTriple(0, p, p).FL, rtTriple(0, p-1, p-1).FL
+	np, nq := len(ix.alpha), len(im.alpha)
+	kb, mb := sparse.NewBuilder(s.n), sparse.NewBuilder(s.n)
+	for t, c := range s.m.cells {
+		gr, vol := baryGradients(c)
+		var gg [4][4]float64
+		for j := 0; j < 4; j++ {
+			for l := 0; l < 4; l++ {
+				for x := 0; x < 3; x++ {
+					gg[j][l] += gr[j][x].Mid() * gr[l][x].Mid()
+				}
+			}
+		}
+		v := vol.Mid()
+		d := s.dofs[t]
+		for a, al := range ix.alpha {
+			if d[a] < 0 {
+				continue
+			}
+			for b := 0; b <= a; b++ {
+				if d[b] < 0 {
+					continue
+				}
+				be := ix.alpha[b]
+				st := 0.0
+				for j := 0; j < 4; j++ {
+					if al[j] == 0 {
+						continue
+					}
+					aj := al
+					aj[j]--
+					for l := 0; l < 4; l++ {
+						if be[l] == 0 {
+							continue
+						}
+						bl := be
+						bl[l]--
+						st += gg[j][l] * gq[im.pos[aj]*nq+im.pos[bl]]
+					}
+				}
+				ms := v * gp[a*np+b]
+				kb.Add(d[a], d[b], float64(p*p)*v*st+shift*ms)
+				mb.Add(d[a], d[b], ms)
+			}
+		}
+	}
+	return kb.Build(), mb.Build()
+}
+
+// ritzMatrices encloses a0 = (∫∇u_i·∇u_j + γ∫u_iu_j) and a1 = (∫u_iu_j)
+// for the functions with coefficients vecs (exact floats), with the same
+// identities as assembleApprox in interval arithmetic.
+func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *enclose.Sym) {
+	p, nv := s.p, len(vecs)
+	ix, im := rtMulti(p), rtMulti(p-1)
+	gp, gq := rtTriple(0, p, p).IV, rtTriple(0, p-1, p-1).IV
+	np, nq := len(ix.alpha), len(im.alpha)
+	acc0, acc1 := ritz.NewAccumulator(nv), ritz.NewAccumulator(nv)
+	c := make([][]float64, nv)
+	gc := make([][]interval.I, nv)
+	dc := make([][4][]interval.I, nv)
+	gdc := make([][4][]interval.I, nv)
+	for i := range c {
+		c[i], gc[i] = make([]float64, np), make([]interval.I, np)
+		for j := 0; j < 4; j++ {
+			dc[i][j], gdc[i][j] = make([]interval.I, nq), make([]interval.I, nq)
+		}
+	}
+	for t, cell := range s.m.cells {
+		gr, vol := baryGradients(cell)
+		var gg [4][4]interval.I
+		for j := 0; j < 4; j++ {
+			for l := 0; l < 4; l++ {
+				for x := 0; x < 3; x++ {
+					gg[j][l] = gg[j][l].Add(gr[j][x].Mul(gr[l][x]))
+				}
+			}
+		}
+		for i := range vecs {
+			s.Local(c[i], vecs[i], t)
+			bernstein.ApplyF(gc[i], gp, c[i])
+			for j := 0; j < 4; j++ {
+				for b, be := range im.alpha {
+					up := be
+					up[j]++
+					dc[i][j][b] = interval.Point(c[i][ix.pos[up]]).MulF(float64(p))
+				}
+				bernstein.ApplyI(gdc[i][j], gq, dc[i][j])
+			}
+		}
+		for i := 0; i < nv; i++ {
+			for k := 0; k <= i; k++ {
+				mass := vol.Mul(bernstein.DotF(c[k], gc[i]))
+				st := interval.I{}
+				for j := 0; j < 4; j++ {
+					for l := 0; l < 4; l++ {
+						st = st.Add(gg[j][l].Mul(bernstein.DotI(dc[k][l], gdc[i][j])))
+					}
+				}
+				acc0.Add(i, k, vol.Mul(st).Add(gamma.Mul(mass)))
+				acc1.Add(i, k, mass)
+			}
+		}
+	}
+	return acc0.Sym(), acc1.Sym()
+}
+
+// lgResult holds the bounds of one Lehmann–Goerisch computation.
+type lgResult struct {
+	lower, upper  []float64 // bounds of λ_1..λ_N
+	trialN, fluxN int
+}
+
+// lehmannGoerischBounds computes Ritz upper bounds and Lehmann–Goerisch
+// lower bounds of λ_1..λ_N of −Δ on the mesh (Dirichlet on every boundary
+// face, or Neumann), with trial space P_p, fluxes RT_k, shift γ and
+// ρ ≤ Λ_(N+1) = λ_(N+1) + γ given by the caller (a closed form in the
+// tests).
+func lehmannGoerischBounds(t testing.TB, m testMesh, dirichlet bool, p, k, nTrial int, gamma, rho float64) lgResult {
+	t.Helper()
+	s := newTestTrial(m, p, dirichlet)
+	kk, mm := s.assembleApprox(gamma)
+	_, vecs, err := sparse.LowestEigs(kk, mm, nTrial)
+	if err != nil {
+		t.Fatalf("approximate eigenvectors: %v", err)
+	}
+	g := interval.Point(gamma)
+	a0, a1 := s.ritzMatrices(vecs, g)
+	cond := boundary.Condition{Kind: boundary.Neumann}
+	if dirichlet {
+		cond = boundary.Condition{Kind: boundary.Dirichlet}
+	}
+	f, err := NewFlux(m.cells, k, m.boundaryAll(cond))
+	if err != nil {
+		t.Fatal(err)
+	}
+	fs, err := NewFluxSpaceFree(s, f, g)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fl, err := fs.Choose(vecs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a2, err := fs.LGMatrix(vecs, fl)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lg, err := temple.LehmannGoerisch(a0, a1, a2, rho)
+	if err != nil {
+		t.Fatalf("Lehmann–Goerisch: %v", err)
+	}
+	ev, err := enclose.Eigenvalues(a0, a1)
+	if err != nil {
+		t.Fatalf("Ritz values: %v", err)
+	}
+	r := lgResult{trialN: s.n, fluxN: f.N()}
+	for i := range lg {
+		r.lower = append(r.lower, interval.SubDown(lg[i], gamma))
+		r.upper = append(r.upper, interval.SubUp(ev[i].Hi, gamma))
+	}
+	return r
+}
+
+// piSquaredTimes encloses c·π² (interval π of package interval).
+func piSquaredTimes(c float64) interval.I { return interval.Pi().Sqr().MulF(c) }
+
+// newJitter returns a fixed-seed jitter of at most amp per coordinate.
+func newJitter(seed uint64, amp float64) func(i, j, l int) [3]float64 {
+	rng := rand.New(rand.NewPCG(seed, 3))
+	cache := map[[3]int][3]float64{}
+	return func(i, j, l int) [3]float64 {
+		k := [3]int{i, j, l}
+		if d, ok := cache[k]; ok {
+			return d
+		}
+		var d [3]float64
+		for a := range d {
+			d[a] = math.Ldexp(math.Round(math.Ldexp((2*rng.Float64()-1)*amp, 30)), -30)
+		}
+		cache[k] = d
+		return d
+	}
+}
