@@ -114,19 +114,16 @@ func TestRTBasisFaceTracesAgainstPointValues(t *testing.T) {
 	}
 }
 
-// grundmannMoeller returns the points and weights of the Grundmann–Möller
-// rule of index s on T̂ (volume 1/6), exact for polynomials of degree
-// ≤ 2s + 1 (A. Grundmann, H. M. Möller, Invariant integration formulas
-// for the n-simplex by combinatorial methods, SIAM J. Numer. Anal. 15
-// (1978) 282–290; the formula is recalled from memory, so the test first
-// checks it against the exact monomial integrals). For n = 3 and
-// m_i = n + 1 + 2(s − i):
+// grundmannMoeller returns the points (barycentric coordinates) and
+// weights of the Grundmann–Möller rule of index s on the reference
+// n-simplex (volume 1/n!), exact for polynomials of degree ≤ 2s + 1
+// (A. Grundmann, H. M. Möller, Invariant integration formulas for the
+// n-simplex by combinatorial methods, SIAM J. Numer. Anal. 15 (1978)
+// 282–290; the formula is recalled from memory, so the test first checks
+// it against the exact monomial integrals). With m_i = n + 1 + 2(s − i):
 //
-//	Q f = Σ_(i=0..s) (−1)^i 2^(−2s) m_i^(2s+1)/(i! (n + 2s + 1 − i)!) Σ_(β ∈ N⁴, |β|=s−i) f((2β_j + 1)/m_i, j = 0..3),
-//
-// the point given by its barycentric coordinates.
-func grundmannMoeller(s int) (pts [][4]*big.Rat, w []*big.Rat) {
-	const n = 3
+//	Q f = Σ_(i=0..s) (−1)^i 2^(−2s) m_i^(2s+1)/(i! (n + 2s + 1 − i)!) Σ_(β ∈ N^(n+1), |β|=s−i) f((2β_j + 1)/m_i, j = 0..n).
+func grundmannMoeller(n, s int) (pts [][]*big.Rat, w []*big.Rat) {
 	for i := 0; i <= s; i++ {
 		m := int64(n + 1 + 2*(s-i))
 		num := new(big.Int).Exp(big.NewInt(m), big.NewInt(int64(2*s+1)), nil)
@@ -136,9 +133,19 @@ func grundmannMoeller(s int) (pts [][4]*big.Rat, w []*big.Rat) {
 		if i%2 == 1 {
 			wi.Neg(wi)
 		}
-		for _, b := range rtMulti(s - i).alpha {
-			var p [4]*big.Rat
-			for j := 0; j < 4; j++ {
+		var betas [][]int
+		if n == 3 {
+			for _, b := range rtMulti(s - i).alpha {
+				betas = append(betas, b[:])
+			}
+		} else {
+			for _, b := range rtFaceMulti(s - i).alpha {
+				betas = append(betas, b[:])
+			}
+		}
+		for _, b := range betas {
+			p := make([]*big.Rat, n+1)
+			for j := range p {
 				p[j] = big.NewRat(int64(2*b[j]+1), m)
 			}
 			pts = append(pts, p)
@@ -148,13 +155,17 @@ func grundmannMoeller(s int) (pts [][4]*big.Rat, w []*big.Rat) {
 	return pts, w
 }
 
+// bary4 returns the first four entries of p as an array.
+func bary4(p []*big.Rat) [4]*big.Rat { return [4]*big.Rat{p[0], p[1], p[2], p[3]} }
+
 // TestGrundmannMoellerAgainstMonomials checks the recalled rule: it must
-// reproduce ∫_T̂ λ^a = a_0! a_1! a_2! a_3!/(|a| + 3)! exactly for
-// |a| ≤ 2s + 1 (the classical barycentric integral, Eisenberg–Malvern
+// reproduce ∫_T̂ λ^a = a_0! a_1! a_2! a_3!/(|a| + 3)! on the tetrahedron
+// and ∫ μ^a = a_0! a_1! a_2!/(|a| + 2)! on the triangle exactly for
+// |a| ≤ 2s + 1 (the classical barycentric integrals, Eisenberg–Malvern
 // 1973).
 func TestGrundmannMoellerAgainstMonomials(t *testing.T) {
 	for s := 0; s <= 3; s++ {
-		pts, w := grundmannMoeller(s)
+		pts, w := grundmannMoeller(3, s)
 		for deg := 0; deg <= 2*s+1; deg++ {
 			for _, a := range rtMulti(deg).alpha {
 				got := new(big.Rat)
@@ -173,6 +184,25 @@ func TestGrundmannMoellerAgainstMonomials(t *testing.T) {
 				}
 			}
 		}
+		pts, w = grundmannMoeller(2, s)
+		for deg := 0; deg <= 2*s+1; deg++ {
+			for _, a := range rtFaceMulti(deg).alpha {
+				got := new(big.Rat)
+				for q, p := range pts {
+					v := new(big.Rat).Set(w[q])
+					for j := 0; j < 3; j++ {
+						for e := 0; e < a[j]; e++ {
+							v.Mul(v, p[j])
+						}
+					}
+					got.Add(got, v)
+				}
+				want := new(big.Rat).Mul(rtFaceIntegral(a), big.NewRat(1, 2))
+				if got.Cmp(want) != 0 {
+					t.Fatalf("triangle s=%d monomial %v: rule gives %s, want %s", s, a, got.RatString(), want.RatString())
+				}
+			}
+		}
 	}
 }
 
@@ -183,7 +213,7 @@ func TestGrundmannMoellerAgainstMonomials(t *testing.T) {
 func TestRTBasisInteriorMomentsByQuadrature(t *testing.T) {
 	for k := 1; k <= 3; k++ {
 		comp, _ := rtBasisRat(k)
-		pts, w := grundmannMoeller(k) // degree (k + 1) + (k − 1) = 2k ≤ 2k + 1
+		pts, w := grundmannMoeller(3, k) // degree (k + 1) + (k − 1) = 2k ≤ 2k + 1
 		nf := rtFaceDim(k)
 		nq := rtDim(k - 1)
 		unit := func(m int) []*big.Rat {
@@ -200,8 +230,8 @@ func TestRTBasisInteriorMomentsByQuadrature(t *testing.T) {
 					got := new(big.Rat)
 					eb := unit(b)
 					for q, p := range pts {
-						v := rtEvalRat(comp[l][c], k+1, p)
-						v.Mul(v, rtEvalRat(eb, k-1, p))
+						v := rtEvalRat(comp[l][c], k+1, bary4(p))
+						v.Mul(v, rtEvalRat(eb, k-1, bary4(p)))
 						got.Add(got, v.Mul(v, w[q]))
 					}
 					want := new(big.Rat)
