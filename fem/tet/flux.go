@@ -80,6 +80,7 @@ func NewFlux(cells []RTCell, k int, bnd map[int]boundary.Condition) (*Flux, erro
 	}
 	faceNodes, owners := fluxFaceTable(cells)
 	nFaces := len(faceNodes)
+	matched := 0
 	for f, ow := range owners {
 		c, ok := bnd[f]
 		if (ow == 1) != ok {
@@ -87,9 +88,10 @@ func NewFlux(cells []RTCell, k int, bnd map[int]boundary.Condition) (*Flux, erro
 		}
 		if ok {
 			c.Check()
+			matched++
 		}
 	}
-	if len(bnd) > nFaces {
+	if matched != len(bnd) {
 		panic("tet: boundary conditions for faces that do not exist")
 	}
 	nf, ni := ref.nFace, ref.ndof-4*ref.nFace

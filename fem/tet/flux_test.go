@@ -270,3 +270,40 @@ func TestLehmannGoerischOrthoscheme(t *testing.T) {
 			c.n, c.p, c.k, r.trialN, r.fluxN, r.lower[0], r.upper[0], r.lower[1], r.upper[1])
 	}
 }
+
+// TestFluxPanicsOnMismatchedBoundary checks the misuse panics of NewFlux:
+// a boundary face without a condition, a condition on an interior face,
+// and a condition on a face that does not exist.
+func TestFluxPanicsOnMismatchedBoundary(t *testing.T) {
+	m := kuhnMesh(1, nil, nil)
+	dir := boundary.Condition{Kind: boundary.Dirichlet}
+	interior := -1
+	for f, o := range m.owners {
+		if o == 2 {
+			interior = f
+			break
+		}
+	}
+	cases := map[string]func(map[int]boundary.Condition){
+		"missing boundary face": func(b map[int]boundary.Condition) {
+			for f := range b {
+				delete(b, f)
+				return
+			}
+		},
+		"interior face":    func(b map[int]boundary.Condition) { b[interior] = dir },
+		"nonexistent face": func(b map[int]boundary.Condition) { b[len(m.owners)+5] = dir },
+	}
+	for name, edit := range cases {
+		t.Run(name, func(t *testing.T) {
+			b := m.boundaryAll(dir)
+			edit(b)
+			defer func() {
+				if recover() == nil {
+					t.Errorf("NewFlux accepted boundary conditions with a %s", name)
+				}
+			}()
+			NewFlux(m.cells, 0, b)
+		})
+	}
+}
