@@ -18,7 +18,7 @@ func benchFluxSetup(b *testing.B, n, k, nv int) (*FluxSpace, [][]float64, [][]fl
 	if err != nil {
 		b.Fatal(err)
 	}
-	s := newTestTrial(m, k+1, true)
+	s := newTestTrial(m, k+1, dirichletAll(m))
 	fs, err := NewFluxSpaceFree(s, f, interval.Point(10))
 	if err != nil {
 		b.Fatal(err)

@@ -202,7 +202,7 @@ func TestFluxLGMatrixAgainstExactQuadrature(t *testing.T) {
 		if want := RTDim(k) - 2*rtFaceDim(k); f.N() != want {
 			t.Fatalf("k=%d: %d flux unknowns, want %d (two faces removed)", k, f.N(), want)
 		}
-		s := newTestTrial(m, p, false)
+		s := newTestTrial(m, p, bnd)
 		const nv = 3
 		trial, flux := make([][]float64, nv), make([][]float64, nv)
 		for i := 0; i < nv; i++ {

@@ -108,6 +108,27 @@ func kuhnMesh(n int, keep func(c [3]float64) bool, jitter func(i, j, l int) [3]f
 	return m
 }
 
+// boundaryWhere returns, on every boundary face, the condition cond(x) of
+// the centroid x of the face (computed from the vertex midpoints).
+func (m testMesh) boundaryWhere(cond func(x [3]float64) boundary.Condition) map[int]boundary.Condition {
+	out := map[int]boundary.Condition{}
+	for _, c := range m.cells {
+		for i, f := range c.Faces {
+			if m.owners[f] != 1 {
+				continue
+			}
+			var x [3]float64
+			for _, j := range rtFaceVertices[i] {
+				for a := 0; a < 3; a++ {
+					x[a] += c.Vertices[j][a].Mid() / 3
+				}
+			}
+			out[f] = cond(x)
+		}
+	}
+	return out
+}
+
 // boundaryAll returns the condition c on every boundary face.
 func (m testMesh) boundaryAll(c boundary.Condition) map[int]boundary.Condition {
 	out := map[int]boundary.Condition{}
@@ -122,19 +143,20 @@ func (m testMesh) boundaryAll(c boundary.Condition) map[int]boundary.Condition {
 // testTrial is conforming P_p in Bernstein form on a testMesh: one global
 // DOF per domain point, identified by its vertices and their exponents
 // (so neighbours agree without orientation), with the DOFs of domain
-// points on Dirichlet faces removed.
+// points on Dirichlet faces removed, and the Robin faces with their α.
 type testTrial struct {
-	m    testMesh
-	p, n int
-	dofs [][]int
+	m     testMesh
+	p, n  int
+	dofs  [][]int
+	robin []fluxFace
 }
 
-func newTestTrial(m testMesh, p int, dirichlet bool) *testTrial {
+func newTestTrial(m testMesh, p int, bnd map[int]boundary.Condition) *testTrial {
 	type key [4][2]int
 	onBoundary := map[key]bool{}
-	if dirichlet {
+	{
 		for f, o := range m.owners {
-			if o != 1 {
+			if o != 1 || !bnd[f].Essential() {
 				continue
 			}
 			v := m.nodes[f]
@@ -191,8 +213,28 @@ func newTestTrial(m testMesh, p int, dirichlet bool) *testTrial {
 			d[q] = id
 		}
 		s.dofs[t] = d
+		for i, f := range c.Faces {
+			if cond, ok := bnd[f]; ok && cond.HasTerm() {
+				s.robin = append(s.robin, fluxFace{t: t, i: i, alpha: cond.WeakAlpha(), area: fluxFaceArea(c, i)})
+			}
+		}
 	}
 	return s
+}
+
+// faceRestriction returns, for local face i, the local index of each face
+// multi-index of degree p (the domain points with α_i = 0).
+func faceRestriction(p, i int) []int {
+	ix := rtMulti(p)
+	var out []int
+	for _, b := range rtFaceMulti(p).alpha {
+		var a [4]int
+		for r, j := range rtFaceVertices[i] {
+			a[j] = b[r]
+		}
+		out = append(out, ix.pos[a])
+	}
+	return out
 }
 
 func (s *testTrial) N() int                 { return s.n }
@@ -229,7 +271,7 @@ func baryGradients(c RTCell) ([4][3]interval.I, interval.I) {
 }
 
 // assembleApprox returns the float matrices of a + shift·b and b (−Δ,
-// V = 0, no Robin terms): per cell ∫∇B_α·∇B_β = p²|T| Σ_(j,l) ∇λ_j·∇λ_l
+// V = 0, with the Robin face terms α|F| G_F): per cell ∫∇B_α·∇B_β = p²|T| Σ_(j,l) ∇λ_j·∇λ_l
 // G^(p−1)[α − e_j, β − e_l] and ∫B_αB_β = |T| G^p[α, β].
 func (s *testTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
 	p := s.p
@@ -280,10 +322,23 @@ func (s *testTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
 			}
 		}
 	}
+	gf := rtFaceGram(p).FL
+	for _, rf := range s.robin {
+		loc := faceRestriction(p, rf.i)
+		d := s.dofs[rf.t]
+		sc := rf.alpha.Mid() * rf.area.Mid()
+		for a, la := range loc {
+			for b := 0; b <= a; b++ {
+				if lb := loc[b]; d[la] >= 0 && d[lb] >= 0 {
+					kb.Add(d[la], d[lb], sc*gf[a*len(loc)+b])
+				}
+			}
+		}
+	}
 	return kb.Build(), mb.Build()
 }
 
-// ritzMatrices encloses a0 = (∫∇u_i·∇u_j + γ∫u_iu_j) and a1 = (∫u_iu_j)
+// ritzMatrices encloses a0 = (∫∇u_i·∇u_j + Σ_Robin α∫_F u_iu_j + γ∫u_iu_j) and a1 = (∫u_iu_j)
 // for the functions with coefficients vecs (exact floats), with the same
 // identities as assembleApprox in interval arithmetic.
 func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *enclose.Sym) {
@@ -338,6 +393,27 @@ func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *en
 			}
 		}
 	}
+	// Robin faces: α ∫_F u_i u_k = α |F| c_iᵀ G_F c_k on the face's domain points.
+	gf := rtFaceGram(p).IV
+	for _, rf := range s.robin {
+		loc := faceRestriction(p, rf.i)
+		ci := make([][]float64, nv)
+		for i := range vecs {
+			s.Local(c[i], vecs[i], rf.t)
+			ci[i] = make([]float64, len(loc))
+			for a, la := range loc {
+				ci[i][a] = c[i][la]
+			}
+		}
+		sc := rf.alpha.Mul(rf.area)
+		g := make([]interval.I, len(loc))
+		for i := 0; i < nv; i++ {
+			bernstein.ApplyF(g, gf, ci[i])
+			for k := 0; k <= i; k++ {
+				acc0.Add(i, k, sc.Mul(bernstein.DotF(ci[k], g)))
+			}
+		}
+	}
 	return acc0.Sym(), acc1.Sym()
 }
 
@@ -348,13 +424,12 @@ type lgResult struct {
 }
 
 // lehmannGoerischBounds computes Ritz upper bounds and Lehmann–Goerisch
-// lower bounds of λ_1..λ_N of −Δ on the mesh (Dirichlet on every boundary
-// face, or Neumann), with trial space P_p, fluxes RT_k, shift γ and
-// ρ ≤ Λ_(N+1) = λ_(N+1) + γ given by the caller (a closed form in the
-// tests).
-func lehmannGoerischBounds(t testing.TB, m testMesh, dirichlet bool, p, k, nTrial int, gamma, rho float64) lgResult {
+// lower bounds of λ_1..λ_N of −Δ on the mesh with the boundary conditions
+// bnd, trial space P_p, fluxes RT_k, shift γ and ρ ≤ Λ_(N+1) = λ_(N+1) + γ
+// given by the caller (a closed form in the tests).
+func lehmannGoerischBounds(t testing.TB, m testMesh, bnd map[int]boundary.Condition, p, k, nTrial int, gamma, rho float64) lgResult {
 	t.Helper()
-	s := newTestTrial(m, p, dirichlet)
+	s := newTestTrial(m, p, bnd)
 	kk, mm := s.assembleApprox(gamma)
 	_, vecs, err := sparse.LowestEigs(kk, mm, nTrial)
 	if err != nil {
@@ -362,11 +437,7 @@ func lehmannGoerischBounds(t testing.TB, m testMesh, dirichlet bool, p, k, nTria
 	}
 	g := interval.Point(gamma)
 	a0, a1 := s.ritzMatrices(vecs, g)
-	cond := boundary.Condition{Kind: boundary.Neumann}
-	if dirichlet {
-		cond = boundary.Condition{Kind: boundary.Dirichlet}
-	}
-	f, err := NewFlux(m.cells, k, m.boundaryAll(cond))
+	f, err := NewFlux(m.cells, k, bnd)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -417,4 +488,9 @@ func newJitter(seed uint64, amp float64) func(i, j, l int) [3]float64 {
 		cache[k] = d
 		return d
 	}
+}
+
+// dirichletAll returns Dirichlet conditions on every boundary face of m.
+func dirichletAll(m testMesh) map[int]boundary.Condition {
+	return m.boundaryAll(boundary.Condition{Kind: boundary.Dirichlet})
 }

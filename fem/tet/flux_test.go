@@ -166,7 +166,7 @@ func TestLehmannGoerischUnitCubeDirichlet(t *testing.T) {
 	}
 	prev := math.Inf(1)
 	for _, c := range cases {
-		r := lehmannGoerischBounds(t, kuhnMesh(c.n, nil, nil), true, c.p, c.k, 1, gamma, rho)
+		r := lehmannGoerischBounds(t, kuhnMesh(c.n, nil, nil), dirichletAll(kuhnMesh(c.n, nil, nil)), c.p, c.k, 1, gamma, rho)
 		lo, hi := r.lower[0], r.upper[0]
 		if !(lo <= truth.Lo && truth.Hi <= hi) {
 			t.Fatalf("n=%d p=%d k=%d: [%.12g, %.12g] misses 3π² = %v", c.n, c.p, c.k, lo, hi, truth)
@@ -196,7 +196,7 @@ func TestLehmannGoerischUnitCubeNeumann(t *testing.T) {
 		n, p, k  int
 		maxWidth float64
 	}{{2, 3, 2, 0.04}, {4, 3, 2, 7e-4}} {
-		r := lehmannGoerischBounds(t, kuhnMesh(c.n, nil, nil), false, c.p, c.k, 4, gamma, rho)
+		r := lehmannGoerischBounds(t, kuhnMesh(c.n, nil, nil), kuhnMesh(c.n, nil, nil).boundaryAll(boundary.Condition{Kind: boundary.Neumann}), c.p, c.k, 4, gamma, rho)
 		if !(r.lower[0] <= 0 && 0 <= r.upper[0]) || r.lower[0] < -1e-9 {
 			t.Fatalf("n=%d: λ_1 ∈ [%g, %g], want 0 inside and a narrow enclosure", c.n, r.lower[0], r.upper[0])
 		}
@@ -256,7 +256,7 @@ func TestLehmannGoerischOrthoscheme(t *testing.T) {
 		if len(m.cells) != c.n*c.n*c.n {
 			t.Fatalf("n=%d: %d cells in the orthoscheme, want n³", c.n, len(m.cells))
 		}
-		r := lehmannGoerischBounds(t, m, true, c.p, c.k, 2, gamma, rho)
+		r := lehmannGoerischBounds(t, m, dirichletAll(m), c.p, c.k, 2, gamma, rho)
 		for i, tr := range truth {
 			if !(r.lower[i] <= tr.Lo && tr.Hi <= r.upper[i]) {
 				t.Fatalf("n=%d p=%d k=%d: λ_%d ∈ [%.12g, %.12g] misses %v", c.n, c.p, c.k, i+1, r.lower[i], r.upper[i], tr)
@@ -305,5 +305,84 @@ func TestFluxPanicsOnMismatchedBoundary(t *testing.T) {
 			}()
 			NewFlux(m.cells, 0, b)
 		})
+	}
+}
+
+// robinRoot encloses the root in (lo, hi) of g(s) = s cos s + α sin s,
+// where g changes sign between lo and hi, by float bisection with every
+// sign decided in interval arithmetic (package interval's Sin and Cos):
+// the result [a, b] has g(a) and g(b) of verified opposite signs, so a
+// root lies inside by continuity.
+func robinRoot(t *testing.T, alpha, lo, hi float64) interval.I {
+	g := func(s float64) interval.I {
+		x := interval.Point(s)
+		return x.Mul(interval.Cos(x)).Add(interval.Sin(x).MulF(alpha))
+	}
+	sign := g(lo).Sign()
+	if sign == 0 || g(hi).Sign() != -sign {
+		t.Fatalf("robinRoot: no verified sign change on [%g, %g]", lo, hi)
+	}
+	for i := 0; i < 200 && hi-lo > 1e-14*hi; i++ {
+		mid := lo + (hi-lo)/2
+		switch v := g(mid).Sign(); v {
+		case sign:
+			lo = mid
+		case -sign:
+			hi = mid
+		default:
+			return interval.I{Lo: lo, Hi: hi}
+		}
+	}
+	return interval.I{Lo: lo, Hi: hi}
+}
+
+// TestLehmannGoerischUnitCubeMixedAndRobin checks faces of three kinds.
+// Separation of variables (common practice) on (0, 1)³ with Dirichlet
+// conditions on every face but x = 1 gives λ = μ + π²(b² + c²), b, c ≥ 1,
+// with μ the eigenvalues of −u″ = μu on (0, 1), u(0) = 0 and at x = 1:
+//
+//   - Neumann, u′(1) = 0: u = sin((a − ½)πx), μ = (a − ½)²π², so λ_1 =
+//     2.25π² and λ_2 = 4.25π² (then 5.25π²);
+//   - Robin, u′(1) + αu(1) = 0 with α = 1: u = sin(sx) with
+//     g(s) = s cos s + α sin s = 0, μ = s². On ((j − ½)π, jπ) tan s + s/α
+//     increases from −∞ to jπ/α > 0, so there is exactly one root s_j there,
+//     and none on (0, π/2) (tan s > 0 > −s/α) or ((j − 1)π, (j − ½)π)
+//     (likewise): λ_1 = s_1² + 2π², λ_2 = min(s_2² + 2π², s_1² + 5π²) =
+//     s_2² + 2π² (s_2 < 5 gives s_2² < 25 < s_1² + 3π²). s_1 and s_2 are
+//     enclosed by robinRoot.
+//
+// The flux norm carries ∫(σ·n)²/α on the Robin face and σ·n = 0 on the
+// Neumann face; the trial space carries α∫_F uv.
+func TestLehmannGoerischUnitCubeMixedAndRobin(t *testing.T) {
+	const gamma = 10
+	pi2 := piSquaredTimes(1)
+	s1 := robinRoot(t, 1, 1.6, 3.1)
+	s2 := robinRoot(t, 1, 4.72, 6.2)
+	for _, c := range []struct {
+		name     string
+		cond     boundary.Condition
+		l1, l2   interval.I
+		maxWidth float64
+	}{
+		{"neumann", boundary.Condition{Kind: boundary.Neumann}, piSquaredTimes(2.25), piSquaredTimes(4.25), 0.015},
+		{"robin", boundary.Condition{Kind: boundary.Robin, Alpha: interval.Point(1)}, s1.Sqr().Add(pi2.MulF(2)), s2.Sqr().Add(pi2.MulF(2)), 0.015},
+	} {
+		m := kuhnMesh(4, nil, nil)
+		bnd := m.boundaryWhere(func(x [3]float64) boundary.Condition {
+			if x[0] == 1 {
+				return c.cond
+			}
+			return boundary.Condition{Kind: boundary.Dirichlet}
+		})
+		rho := interval.SubDown(c.l2.Lo+gamma, 1e-9*c.l2.Lo)
+		r := lehmannGoerischBounds(t, m, bnd, 3, 2, 1, gamma, rho)
+		if !(r.lower[0] <= c.l1.Lo && c.l1.Hi <= r.upper[0]) {
+			t.Fatalf("%s: λ_1 ∈ [%.12g, %.12g] misses %v", c.name, r.lower[0], r.upper[0], c.l1)
+		}
+		if w := r.upper[0] - r.lower[0]; w > c.maxWidth {
+			t.Errorf("%s: λ_1 width %.3g above %.3g", c.name, w, c.maxWidth)
+		}
+		t.Logf("%s at x = 1, n=4 p=3 k=2: λ_1 ∈ [%.10g, %.10g] (exact %.10g), trial %d, flux %d unknowns",
+			c.name, r.lower[0], r.upper[0], c.l1.Mid(), r.trialN, r.fluxN)
 	}
 }
