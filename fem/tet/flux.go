@@ -438,6 +438,25 @@ func (f *Flux) LGMatrix(s FluxTrial, trial [][]float64, flux [][]float64, w Flux
 		mscale := g.det.MulF(6).Recip() // 1/(6 det J)
 		invDet := g.det.Recip()
 		vol := g.det.DivF(6) // |T|
+		coef, rem := w.Model(t)
+		if len(coef) != nq {
+			panic("tet: weight model of the wrong size")
+		}
+		for m, pm := range wPerm {
+			wc[pm] = coef[m]
+		}
+		if !rem.IsBounded() || !fluxBounded(wc) {
+			return nil, errUnbounded
+		}
+		rrad := rem.Rad()
+		// A constant weight w_0 + r_mid multiplies the Gram matrix (the
+		// Bernstein basis of degree 0 is 1); otherwise the weighted Gram
+		// matrix is formed. The norms ‖f_i‖² are needed only for a remainder.
+		constant := nq == 1
+		w0 := wc[0].Add(interval.Point(rem.Mid()))
+		if !constant {
+			bernstein.WeightedGram(wg, tq, wc, interval.Point(rem.Mid()), nd)
+		}
 		for i := 0; i < nv; i++ {
 			f.local(x[i], flux[i], t)
 			s.Local(uraw, trial[i], t)
@@ -467,24 +486,20 @@ func (f *Flux) LGMatrix(s FluxTrial, trial [][]float64, flux [][]float64, w Flux
 			for b := range fi[i] {
 				fi[i][b] = fi[i][b].Add(tmp[b])
 			}
-			bernstein.ApplyI(gtmp, gd, fi[i])
-			ffi[i] = bernstein.DotI(fi[i], gtmp)
+			if constant || rrad != 0 {
+				bernstein.ApplyI(gtmp, gd, fi[i])
+			}
+			if rrad != 0 {
+				ffi[i] = bernstein.DotI(fi[i], gtmp)
+			}
+			if constant {
+				for b := range gtmp {
+					wfi[i][b] = gtmp[b].Mul(w0)
+				}
+			} else {
+				bernstein.ApplyI(wfi[i], wg, fi[i])
+			}
 		}
-		coef, rem := w.Model(t)
-		if len(coef) != nq {
-			panic("tet: weight model of the wrong size")
-		}
-		for m, pm := range wPerm {
-			wc[pm] = coef[m]
-		}
-		if !rem.IsBounded() || !fluxBounded(wc) {
-			return nil, errUnbounded
-		}
-		bernstein.WeightedGram(wg, tq, wc, interval.Point(rem.Mid()), nd)
-		for i := 0; i < nv; i++ {
-			bernstein.ApplyI(wfi[i], wg, fi[i])
-		}
-		rrad := rem.Rad()
 		for i := 0; i < nv; i++ {
 			for j := 0; j <= i; j++ {
 				m := interval.I{}

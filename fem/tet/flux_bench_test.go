@@ -12,7 +12,7 @@ import (
 // benchFluxSetup returns the flux space RT_k on the Kuhn mesh of n³
 // subcubes (Dirichlet), the trial space P_(k+1) and nv random trial
 // vectors with their chosen fluxes (V = 0, γ_B = 10).
-func benchFluxSetup(b *testing.B, n, k, nv int) (*FluxSpace, [][]float64, [][]float64) {
+func benchFluxSetupT(b testing.TB, n, k, nv int) (*FluxSpace, [][]float64, [][]float64) {
 	m := kuhnMesh(n, nil, nil)
 	f, err := NewFlux(m.cells, k, m.boundaryAll(boundary.Condition{Kind: boundary.Dirichlet}))
 	if err != nil {
@@ -44,7 +44,7 @@ func benchFluxSetup(b *testing.B, n, k, nv int) (*FluxSpace, [][]float64, [][]fl
 func BenchmarkFluxLGMatrix(b *testing.B) {
 	for k := 0; k <= 4; k++ {
 		b.Run(fmt.Sprintf("k=%d", k), func(b *testing.B) {
-			fs, trial, flux := benchFluxSetup(b, 4, k, 4)
+			fs, trial, flux := benchFluxSetupT(b, 4, k, 4)
 			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {
@@ -61,7 +61,7 @@ func BenchmarkFluxLGMatrix(b *testing.B) {
 func BenchmarkFluxChoose(b *testing.B) {
 	for k := 0; k <= 3; k++ {
 		b.Run(fmt.Sprintf("k=%d", k), func(b *testing.B) {
-			fs, trial, _ := benchFluxSetup(b, 4, k, 4)
+			fs, trial, _ := benchFluxSetupT(b, 4, k, 4)
 			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {
