@@ -234,24 +234,34 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 		}
 		return z
 	}
-	// Spanning set: e_c m for the monomials m of degree ≤ k, and x h for
-	// the monomials h of degree exactly k.
+	// Spanning set (sparse in Bernstein form): e_c B^k_α for the Bernstein
+	// basis of P_k, written in degree n by the elevation B^k_α =
+	// Σ_j (α_j + 1)/n · B^n_(α+e_j), and x h for the monomials h = ξ^a η^b ζ^d
+	// of degree exactly k, whose components λ_(c+1) h = λ^δ (δ = (0, a, b, d)
+	// + e_(c+1), |δ| = n) are B^n_δ/C(n, δ).
+	in := rtMulti(n)
 	var span []rtField
 	for c := 0; c < 3; c++ {
-		for a := 0; a <= k; a++ {
-			for b := 0; a+b <= k; b++ {
-				for d := 0; a+b+d <= k; d++ {
-					f := rtField{zero(), zero(), zero()}
-					f[c] = rtMonomialRat(n, a, b, d)
-					span = append(span, f)
-				}
+		for _, al := range rtMulti(k).alpha {
+			f := rtField{zero(), zero(), zero()}
+			for j := 0; j < 4; j++ {
+				up := al
+				up[j]++
+				f[c][in.pos[up]].SetFrac64(int64(al[j]+1), int64(n))
 			}
+			span = append(span, f)
 		}
 	}
 	for a := 0; a <= k; a++ {
 		for b := 0; a+b <= k; b++ {
 			d := k - a - b
-			span = append(span, rtField{rtMonomialRat(n, a+1, b, d), rtMonomialRat(n, a, b+1, d), rtMonomialRat(n, a, b, d+1)})
+			f := rtField{zero(), zero(), zero()}
+			for c := 0; c < 3; c++ {
+				delta := [4]int{0, a, b, d}
+				delta[c+1]++
+				f[c][in.pos[delta]].SetFrac(big.NewInt(1), rtMultinom(delta[:]...))
+			}
+			span = append(span, f)
 		}
 	}
 	ndof := RTDim(k)
@@ -262,8 +272,13 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 	for l := range a {
 		a[l] = make([]*big.Rat, ndof)
 	}
+	var gram []*big.Rat
+	if k > 0 {
+		gram = rtTripleRat(0, n, k-1)
+	}
+	red := rtReduction(k)
 	for m, s := range span {
-		for l, v := range rtFunctionals(k, s) {
+		for l, v := range rtFunctionals(k, s, gram, red) {
 			a[l][m] = v
 		}
 	}
@@ -271,21 +286,30 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 	if !ok {
 		panic(fmt.Sprintf("tet: Raviart–Thomas degrees of freedom of degree %d are not unisolvent", k))
 	}
-	comp = make([]rtField, ndof)
-	for l := 0; l < ndof; l++ {
+	// Basis function l = Σ_m span_m X[m][l], over the nonzero entries of
+	// the sparse span.
+	type entry struct{ c, b int }
+	nz := make([][]entry, ndof)
+	for m, s := range span {
 		for c := 0; c < 3; c++ {
-			v := zero()
-			for m, s := range span {
-				if x[m][l].Sign() == 0 {
-					continue
-				}
-				for b := range v {
-					if s[c][b].Sign() != 0 {
-						v[b].Add(v[b], new(big.Rat).Mul(x[m][l], s[c][b]))
-					}
+			for b, v := range s[c] {
+				if v.Sign() != 0 {
+					nz[m] = append(nz[m], entry{c, b})
 				}
 			}
-			comp[l][c] = v
+		}
+	}
+	comp = make([]rtField, ndof)
+	for l := 0; l < ndof; l++ {
+		comp[l] = rtField{zero(), zero(), zero()}
+		for m, s := range span {
+			if x[m][l].Sign() == 0 {
+				continue
+			}
+			for _, e := range nz[m] {
+				v := comp[l][e.c][e.b]
+				v.Add(v, new(big.Rat).Mul(x[m][l], s[e.c][e.b]))
+			}
 		}
 	}
 	div = make([][]*big.Rat, ndof)
@@ -319,12 +343,12 @@ func rtDivergenceRat(s rtField, n int) []*big.Rat {
 }
 
 // rtFunctionals returns the degrees of freedom of the field s (components
-// of degree n = k + 1) in the order of rtRef.
-func rtFunctionals(k int, s rtField) []*big.Rat {
+// of degree n = k + 1) in the order of rtRef, with g = rtTripleRat(0, n,
+// k − 1) (nil for k = 0) and red = rtReduction(k).
+func rtFunctionals(k int, s rtField, g []*big.Rat, red [][]*big.Rat) []*big.Rat {
 	n := k + 1
 	in := rtMulti(n)
 	fn := rtFaceMulti(n)
-	red := rtReduction(k)
 	var out []*big.Rat
 	for i := 0; i < 4; i++ {
 		e := make([]*big.Rat, len(fn.alpha))
@@ -353,7 +377,6 @@ func rtFunctionals(k int, s rtField) []*big.Rat {
 		}
 	}
 	if k > 0 {
-		g := rtTripleRat(0, n, k-1)
 		nq := rtDim(k - 1)
 		sixth := big.NewRat(1, 6) // |T̂|: the table is normalised by |T|
 		for c := 0; c < 3; c++ {
