@@ -41,6 +41,10 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 	for i := range rhs {
 		rhs[i] = make([]float64, f.n)
 	}
+	robinOf := map[int][]int{} // cell → indices into f.robin
+	for ri, rf := range f.robin {
+		robinOf[rf.t] = append(robinOf[rf.t], ri)
+	}
 	uraw, uc := make([]float64, np), make([]float64, np)
 	wu := make([]float64, nk)
 	for t := range f.cells {
@@ -87,7 +91,9 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 				}
 			}
 		}
-		f.robinLocalApprox(loc, t)
+		for _, ri := range robinOf[t] {
+			f.robinLocalApprox(loc, f.robin[ri])
+		}
 		dof, sg := f.dofs[t], f.sign[t]
 		for l := 0; l < nd; l++ {
 			if dof[l] < 0 {
@@ -140,20 +146,16 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 	return out, nil
 }
 
-// robinLocalApprox adds the Robin face terms of cell t to its local matrix
-// (floating point; a choice): (faceScale²/(4α|F|)) G_F on the face DOFs.
-func (f *Flux) robinLocalApprox(loc []float64, t int) {
+// robinLocalApprox adds the term of the Robin face rf to the local matrix
+// of its cell (floating point; a choice): (faceScale²/(4α|F|)) G_F on the
+// face DOFs.
+func (f *Flux) robinLocalApprox(loc []float64, rf fluxFace) {
 	nf, nd := f.ref.nFace, f.ref.ndof
 	ge := rtFaceGram(f.k).FL
-	for _, rf := range f.robin {
-		if rf.t != t {
-			continue
-		}
-		sc := f.ref.faceScale * f.ref.faceScale / (4 * rf.alpha.Mid() * rf.area.Mid())
-		for a := 0; a < nf; a++ {
-			for c := 0; c < nf; c++ {
-				loc[(rf.i*nf+a)*nd+rf.i*nf+c] += sc * ge[a*nf+c]
-			}
+	sc := f.ref.faceScale * f.ref.faceScale / (4 * rf.alpha.Mid() * rf.area.Mid())
+	for a := 0; a < nf; a++ {
+		for c := 0; c < nf; c++ {
+			loc[(rf.i*nf+a)*nd+rf.i*nf+c] += sc * ge[a*nf+c]
 		}
 	}
 }
