@@ -494,3 +494,54 @@ func newJitter(seed uint64, amp float64) func(i, j, l int) [3]float64 {
 func dirichletAll(m testMesh) map[int]boundary.Condition {
 	return m.boundaryAll(boundary.Condition{Kind: boundary.Dirichlet})
 }
+
+// scrambled returns m with its global vertex numbers relabelled by a
+// random permutation and the local vertices of every cell reordered by a
+// random even permutation (which keeps the orientation), so that the
+// faces meet in every relative orientation (fixed seed).
+func scrambled(m testMesh, seed uint64) testMesh {
+	rng := rand.New(rand.NewPCG(seed, 11))
+	maxNode := 0
+	for _, c := range m.cells {
+		for _, v := range c.Nodes {
+			maxNode = max(maxNode, v+1)
+		}
+	}
+	relabel := rng.Perm(maxNode)
+	var even [][4]int
+	for _, q := range [][4]int{
+		{0, 1, 2, 3}, {0, 1, 3, 2}, {0, 2, 1, 3}, {0, 2, 3, 1}, {0, 3, 1, 2}, {0, 3, 2, 1},
+		{1, 0, 2, 3}, {1, 0, 3, 2}, {1, 2, 0, 3}, {1, 2, 3, 0}, {1, 3, 0, 2}, {1, 3, 2, 0},
+		{2, 0, 1, 3}, {2, 0, 3, 1}, {2, 1, 0, 3}, {2, 1, 3, 0}, {2, 3, 0, 1}, {2, 3, 1, 0},
+		{3, 0, 1, 2}, {3, 0, 2, 1}, {3, 1, 0, 2}, {3, 1, 2, 0}, {3, 2, 0, 1}, {3, 2, 1, 0},
+	} {
+		inv := 0
+		for a := 0; a < 4; a++ {
+			for b := a + 1; b < 4; b++ {
+				if q[a] > q[b] {
+					inv++
+				}
+			}
+		}
+		if inv%2 == 0 {
+			even = append(even, q)
+		}
+	}
+	out := testMesh{owners: m.owners, cells: make([]RTCell, len(m.cells)), nodes: make([][3]int, len(m.nodes))}
+	for t, c := range m.cells {
+		q := even[rng.IntN(len(even))]
+		var d RTCell
+		for a := 0; a < 4; a++ {
+			d.Vertices[a] = c.Vertices[q[a]]
+			d.Nodes[a] = relabel[c.Nodes[q[a]]]
+			d.Faces[a] = c.Faces[q[a]]
+		}
+		out.cells[t] = d
+	}
+	for f, v := range m.nodes {
+		w := [3]int{relabel[v[0]], relabel[v[1]], relabel[v[2]]}
+		sort.Ints(w[:])
+		out.nodes[f] = w
+	}
+	return out
+}

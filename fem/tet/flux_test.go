@@ -71,8 +71,8 @@ func faceFlux(f *Flux, vec []float64, t int, nodes [3]int, mu [3]float64) interv
 }
 
 // TestFluxNormalContinuityAcrossFaces checks H(div) conformity on
-// perturbed Kuhn meshes (interior grid points moved at random, fixed
-// seeds): for random global coefficients, the flux density σ·ν_F at
+// perturbed Kuhn meshes (interior grid points moved at random, vertex
+// numbers and local vertex orders scrambled, fixed seeds): for random global coefficients, the flux density σ·ν_F at
 // points of every interior face, enclosed from each of its two cells,
 // agrees (the enclosures intersect, and are narrow, so a sign or
 // permutation error of the face orientation would show), and on Neumann
@@ -81,7 +81,7 @@ func TestFluxNormalContinuityAcrossFaces(t *testing.T) {
 	pts := [][3]float64{{0.25, 0.375, 0.375}, {0.625, 0.125, 0.25}, {0.0625, 0.5, 0.4375}, {1, 0, 0}}
 	for k := 0; k <= 3; k++ {
 		for seed := uint64(1); seed <= 2; seed++ {
-			m := kuhnMesh(2+int(seed)%2, nil, newJitter(seed, 0.04))
+			m := scrambled(kuhnMesh(2+int(seed)%2, nil, newJitter(seed, 0.04)), seed)
 			f, err := NewFlux(m.cells, k, m.boundaryAll(boundary.Condition{Kind: boundary.Neumann}))
 			if err != nil {
 				t.Fatal(err)
@@ -163,6 +163,16 @@ func TestLehmannGoerischUnitCubeDirichlet(t *testing.T) {
 		{2, 3, 2, 0.06},
 		{4, 3, 2, 1.4e-3},
 		{3, 4, 3, 1.6e-4},
+	}
+	// The bounds do not depend on the numbering: a scrambled mesh (random
+	// vertex numbers and local vertex orders) gives the same enclosure up
+	// to rounding.
+	m := kuhnMesh(3, nil, nil)
+	a := lehmannGoerischBounds(t, m, dirichletAll(m), 3, 2, 1, gamma, rho)
+	ms := scrambled(m, 5)
+	b := lehmannGoerischBounds(t, ms, dirichletAll(ms), 3, 2, 1, gamma, rho)
+	if !(b.lower[0] <= truth.Lo && truth.Hi <= b.upper[0]) || math.Abs(a.lower[0]-b.lower[0]) > 1e-9*truth.Mid() {
+		t.Fatalf("scrambled mesh: λ1 ∈ [%.12g, %.12g], unscrambled [%.12g, %.12g]", b.lower[0], b.upper[0], a.lower[0], a.upper[0])
 	}
 	prev := math.Inf(1)
 	for _, c := range cases {
