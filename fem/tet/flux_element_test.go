@@ -261,3 +261,30 @@ func checkWeight(t *testing.T, f *Flux, s *testTrial, trial, flux [][]float64, v
 		}
 	}
 }
+
+// TestFluxWeightRefusals checks the errors of the proving side: V = 0 with
+// γ_B ≤ 0 (no positive weight), and an unbounded weight model.
+func TestFluxWeightRefusals(t *testing.T) {
+	for _, g := range []interval.I{{Lo: 0, Hi: 1}, {Lo: -2, Hi: -1}, interval.Entire()} {
+		if _, err := NewFluxConstantWeight(g); err == nil {
+			t.Errorf("NewFluxConstantWeight(%v) accepted a shift not verified > 0 and bounded", g)
+		}
+	}
+	m, _ := oneCellMesh()
+	bnd := dirichletAll(m)
+	f, err := NewFlux(m.cells, 1, bnd)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := newTestTrial(m, 2, map[int]boundary.Condition{0: {Kind: boundary.Neumann}, 1: {Kind: boundary.Neumann}, 2: {Kind: boundary.Neumann}, 3: {Kind: boundary.Neumann}})
+	trial, flux := [][]float64{make([]float64, s.N())}, [][]float64{make([]float64, f.N())}
+	trial[0][0], flux[0][0] = 1, 1
+	for _, w := range []*polyWeight{
+		{q: 0, coef: []interval.I{{Lo: 0, Hi: 1}}, rem: interval.Entire()},
+		{q: 0, coef: []interval.I{interval.Entire()}},
+	} {
+		if _, err := f.LGMatrix(s, trial, flux, w); err == nil {
+			t.Errorf("LGMatrix accepted the unbounded weight model %v + %v", w.coef, w.rem)
+		}
+	}
+}

@@ -107,6 +107,26 @@ package tet
 // The flux is chosen (Flux.ChooseApprox) by the normal equations of
 // ‖w‖²_X over RT_k, a plain sparse solve in floating point: a choice, any
 // σ is admissible in LGMatrix.
+//
+// Guarantees and inputs. Flux.LGMatrix encloses, entry by entry, A2 for
+// the exact mesh (every exact vertex inside its enclosure), the exact
+// functions given by the float coefficients of the fluxes and of the
+// trial functions, and every exact value inside the enclosures of α and
+// of the weight model. The integrals are exact on each cell: the fields
+// are in Bernstein form in the barycentric coordinates, and products,
+// divergences, elevations and integrals are exact rational identities
+// (raviart_tables.go), evaluated in outward rounded interval arithmetic
+// from tables enclosed from math/big; the reference coefficients are
+// combined with the float coefficients by error-free transformations
+// (fluxExactCombination). What the code checks: positive orientation of
+// every cell (det J > 0 from the enclosures, else ErrOrientation), a
+// bounded weight model, γ_B > 0 for V = 0. What the caller supplies and
+// the doc of each input states: the cells (RTCell: vertex enclosures,
+// global vertex and face numbers; the tiling of Ω is the mesh's proof),
+// the boundary conditions of the boundary faces, a trial space on the
+// same cells (FluxTrial: exact Bernstein coefficients per cell) and a
+// weight that encloses 1/(V + γ_B) (FluxWeight). Functions named Approx
+// work at round-to-nearest: their results are choices, never bounds.
 
 import (
 	"fmt"
