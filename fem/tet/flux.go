@@ -57,15 +57,21 @@ type fluxFace struct {
 	area  interval.I
 }
 
-// ErrOrientation is returned (wrapped) by NewFlux when det J > 0 of a cell
+// FluxOrientationError is returned by NewFlux when det J > 0 of a cell
 // cannot be verified from its vertex enclosures.
-var ErrOrientation = errors.New("tet: a cell is not verified positively oriented")
+type FluxOrientationError struct {
+	Cell int        // index of the cell
+	Det  interval.I // the enclosure of its det J
+}
+
+func (e *FluxOrientationError) Error() string {
+	return fmt.Sprintf("tet: cell %d is not verified positively oriented (det J in %v)", e.Cell, e.Det)
+}
 
 // NewFlux returns RT_k on the cells with the conditions bnd of the
 // boundary faces (keyed by global face number; every face of exactly one
-// cell must have one, and no other). It returns an error wrapping
-// ErrOrientation when a cell is not verified positively oriented, and
-// panics on misuse: k < 0, repeated nodes in a cell, a face shared by more
+// cell must have one, and no other). It returns a *FluxOrientationError
+// when a cell is not verified positively oriented, and panics on misuse: k < 0, repeated nodes in a cell, a face shared by more
 // than two cells or by cells that disagree on its vertices, face numbers
 // with gaps, or conditions that do not match the boundary faces.
 func NewFlux(cells []RTCell, k int, bnd map[int]boundary.Condition) (*Flux, error) {
@@ -74,7 +80,7 @@ func NewFlux(cells []RTCell, k int, bnd map[int]boundary.Condition) (*Flux, erro
 	for t, c := range cells {
 		g := fluxGeometry(c)
 		if !(g.det.Lo > 0) || !g.det.IsBounded() {
-			return nil, fmt.Errorf("%w: cell %d has det J in %v", ErrOrientation, t, g.det)
+			return nil, &FluxOrientationError{Cell: t, Det: g.det}
 		}
 		geom[t] = g
 	}
@@ -369,8 +375,8 @@ func fluxPermutation(order [][4]int, deg int) []int {
 	return perm
 }
 
-// errUnbounded is returned when a weight model is not bounded.
-var errUnbounded = errors.New("tet: the weight model is unbounded")
+// fluxErrUnbounded is returned when a weight model is not bounded.
+var fluxErrUnbounded = errors.New("tet: the weight model is unbounded")
 
 // LGMatrix returns the interval matrix A2 of the Lehmann–Goerisch method
 // (package doc, Raviart–Thomas fluxes on tetrahedra) for the trial
@@ -446,7 +452,7 @@ func (f *Flux) LGMatrix(s FluxTrial, trial [][]float64, flux [][]float64, w Flux
 			wc[pm] = coef[m]
 		}
 		if !rem.IsBounded() || !fluxBounded(wc) {
-			return nil, errUnbounded
+			return nil, fluxErrUnbounded
 		}
 		rrad := rem.Rad()
 		// A constant weight w_0 + r_mid multiplies the Gram matrix (the

@@ -12,13 +12,13 @@ import (
 // benchFluxSetup returns the flux space RT_k on the Kuhn mesh of n³
 // subcubes (Dirichlet), the trial space P_(k+1) and nv random trial
 // vectors with their chosen fluxes (V = 0, γ_B = 10).
-func benchFluxSetupT(b testing.TB, n, k, nv int) (*FluxSpace, [][]float64, [][]float64) {
-	m := kuhnMesh(n, nil, nil)
+func fluxBenchSetup(b testing.TB, n, k, nv int) (*FluxSpace, [][]float64, [][]float64) {
+	m := fluxKuhnMesh(n, nil, nil)
 	f, err := NewFlux(m.cells, k, m.boundaryAll(boundary.Condition{Kind: boundary.Dirichlet}))
 	if err != nil {
 		b.Fatal(err)
 	}
-	s := newTestTrial(m, k+1, dirichletAll(m))
+	s := newFluxTestTrial(m, k+1, fluxDirichletAll(m))
 	fs, err := NewFluxSpaceFree(s, f, interval.Point(10))
 	if err != nil {
 		b.Fatal(err)
@@ -44,7 +44,7 @@ func benchFluxSetupT(b testing.TB, n, k, nv int) (*FluxSpace, [][]float64, [][]f
 func BenchmarkFluxLGMatrix(b *testing.B) {
 	for k := 0; k <= 4; k++ {
 		b.Run(fmt.Sprintf("k=%d", k), func(b *testing.B) {
-			fs, trial, flux := benchFluxSetupT(b, 4, k, 4)
+			fs, trial, flux := fluxBenchSetup(b, 4, k, 4)
 			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {
@@ -61,7 +61,7 @@ func BenchmarkFluxLGMatrix(b *testing.B) {
 func BenchmarkFluxChoose(b *testing.B) {
 	for k := 0; k <= 3; k++ {
 		b.Run(fmt.Sprintf("k=%d", k), func(b *testing.B) {
-			fs, trial, _ := benchFluxSetupT(b, 4, k, 4)
+			fs, trial, _ := fluxBenchSetup(b, 4, k, 4)
 			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {

@@ -9,37 +9,37 @@ import (
 	"gapcert/interval"
 )
 
-// polyWeight is a FluxWeight given by its Bernstein coefficients and
+// fluxPolyWeight is a FluxWeight given by its Bernstein coefficients and
 // remainder on every cell (test data).
-type polyWeight struct {
+type fluxPolyWeight struct {
 	q    int
 	coef []interval.I
 	rem  interval.I
 }
 
-func (w *polyWeight) Degree() int                            { return w.q }
-func (w *polyWeight) MultiIndices() [][4]int                 { return rtMulti(w.q).alpha }
-func (w *polyWeight) Model(t int) ([]interval.I, interval.I) { return w.coef, w.rem }
+func (w *fluxPolyWeight) Degree() int                            { return w.q }
+func (w *fluxPolyWeight) MultiIndices() [][4]int                 { return rtMulti(w.q).alpha }
+func (w *fluxPolyWeight) Model(t int) ([]interval.I, interval.I) { return w.coef, w.rem }
 
-// ratOf returns the exact value of a float.
-func ratOf(x float64) *big.Rat { return new(big.Rat).SetFloat64(x) }
+// fluxRat returns the exact value of a float.
+func fluxRat(x float64) *big.Rat { return new(big.Rat).SetFloat64(x) }
 
-// oneCellMesh returns the cell v_0 = 0, v_1 = (3/4, 1/8, 1/4),
+// fluxOneCell returns the cell v_0 = 0, v_1 = (3/4, 1/8, 1/4),
 // v_2 = (0, 1, 1/8), v_3 = (0, 1/4, 7/8): det J = (3/4)(7/8 − 1/32) > 0, and
 // face 1 (v_0, v_2, v_3) lies in the plane x = 0 with the outward normal
 // −e_1 and the rational area (7/8 − 1/32)/2.
-func oneCellMesh() (testMesh, [4][3]*big.Rat) {
+func fluxOneCell() (fluxMesh, [4][3]*big.Rat) {
 	v := [4][3]float64{{0, 0, 0}, {0.75, 0.125, 0.25}, {0, 1, 0.125}, {0, 0.25, 0.875}}
 	var c RTCell
 	var exact [4][3]*big.Rat
 	for i := range v {
 		for a := 0; a < 3; a++ {
 			c.Vertices[i][a] = interval.Point(v[i][a])
-			exact[i][a] = ratOf(v[i][a])
+			exact[i][a] = fluxRat(v[i][a])
 		}
 		c.Nodes[i] = 10 + i
 	}
-	m := testMesh{cells: []RTCell{c}, owners: []int{1, 1, 1, 1}}
+	m := fluxMesh{cells: []RTCell{c}, owners: []int{1, 1, 1, 1}}
 	for f := 0; f < 4; f++ {
 		c.Faces[f] = f
 		var key [3]int
@@ -52,12 +52,12 @@ func oneCellMesh() (testMesh, [4][3]*big.Rat) {
 	return m, exact
 }
 
-// exactA2 returns the entries of A2 (package doc) for one cell by the exact
+// fluxExactA2 returns the entries of A2 (package doc) for one cell by the exact
 // Grundmann–Möller rules, in math/big: σ = Jσ̂/det J and div σ =
 // div̂σ̂/det J from the scaled reference tables and the exact local
 // coefficients, the weight the polynomial with coefficients wc plus the
 // constant r, and the Robin term of face 1 (normal −e_1, α).
-func exactA2(f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, wq int, wc []*big.Rat, r, alpha *big.Rat) [][]*big.Rat {
+func fluxExactA2(f *Flux, s *fluxTestTrial, trial, flux [][]float64, v [4][3]*big.Rat, wq int, wc []*big.Rat, r, alpha *big.Rat) [][]*big.Rat {
 	ref := f.ref
 	nv := len(trial)
 	var jm [3][3]*big.Rat // jm[a][c]: row a, column c = (v_(c+1) − v_0)_a
@@ -76,7 +76,7 @@ func exactA2(f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, w
 	ratVec := func(xs []float64) []*big.Rat {
 		out := make([]*big.Rat, len(xs))
 		for i, x := range xs {
-			out[i] = ratOf(x)
+			out[i] = fluxRat(x)
 		}
 		return out
 	}
@@ -86,7 +86,7 @@ func exactA2(f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, w
 			acc := new(big.Rat)
 			for l, xl := range x {
 				if xl != 0 && table[b*len(x)+l] != 0 {
-					acc.Add(acc, new(big.Rat).Mul(ratOf(table[b*len(x)+l]), ratOf(xl)))
+					acc.Add(acc, new(big.Rat).Mul(fluxRat(table[b*len(x)+l]), fluxRat(xl)))
 				}
 			}
 			out[b] = acc
@@ -133,9 +133,9 @@ func exactA2(f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, w
 		return sv
 	}
 	deg := 2*max(ref.n, s.p, f.k) + wq
-	pts, w := grundmannMoeller(3, (deg+1)/2)
+	pts, w := rtGrundmannMoeller(3, (deg+1)/2)
 	for q, p := range pts {
-		lam := bary4(p)
+		lam := rtBary4(p)
 		weight := rtEvalRat(wc, wq, lam)
 		weight.Add(weight, r)
 		sv := make([][3]*big.Rat, nv)
@@ -160,7 +160,7 @@ func exactA2(f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, w
 	// Face 1: points μ over (v_0, v_2, v_3), λ_1 = 0; dS = 2|F| dμ;
 	// σ·n = −σ_x.
 	area2 := new(big.Rat).Sub(new(big.Rat).Mul(v[2][1], v[3][2]), new(big.Rat).Mul(v[2][2], v[3][1]))
-	fpts, fw := grundmannMoeller(2, ref.n)
+	fpts, fw := rtGrundmannMoeller(2, ref.n)
 	for q, p := range fpts {
 		lam := [4]*big.Rat{p[0], new(big.Rat), p[1], p[2]}
 		wt := new(big.Rat).Mul(fw[q], area2)
@@ -185,7 +185,7 @@ func exactA2(f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, w
 // With a remainder R = [−r, r] the matrix must contain the exact matrices
 // of the weights Q − r and Q + r (both admissible).
 func TestFluxLGMatrixAgainstExactQuadrature(t *testing.T) {
-	m, v := oneCellMesh()
+	m, v := fluxOneCell()
 	bnd := map[int]boundary.Condition{
 		0: {Kind: boundary.Dirichlet},
 		1: {Kind: boundary.Robin, Alpha: interval.Point(3)},
@@ -202,7 +202,7 @@ func TestFluxLGMatrixAgainstExactQuadrature(t *testing.T) {
 		if want := RTDim(k) - 2*rtFaceDim(k); f.N() != want {
 			t.Fatalf("k=%d: %d flux unknowns, want %d (two faces removed)", k, f.N(), want)
 		}
-		s := newTestTrial(m, p, bnd)
+		s := newFluxTestTrial(m, p, bnd)
 		const nv = 3
 		trial, flux := make([][]float64, nv), make([][]float64, nv)
 		for i := 0; i < nv; i++ {
@@ -220,20 +220,20 @@ func TestFluxLGMatrixAgainstExactQuadrature(t *testing.T) {
 			if len(wc) > 1 {
 				q = 1
 			}
-			w := &polyWeight{q: q}
+			w := &fluxPolyWeight{q: q}
 			wcRat := make([]*big.Rat, len(wc))
 			for i, x := range wc {
 				w.coef = append(w.coef, interval.Point(x))
-				wcRat[i] = ratOf(x)
+				wcRat[i] = fluxRat(x)
 			}
-			checkWeight(t, f, s, trial, flux, v, w, wcRat, p, k)
+			fluxCheckWeight(t, f, s, trial, flux, v, w, wcRat, p, k)
 		}
 	}
 }
 
-// checkWeight compares LGMatrix with the weight w, without and with a
-// remainder, against exactA2 (see TestFluxLGMatrixAgainstExactQuadrature).
-func checkWeight(t *testing.T, f *Flux, s *testTrial, trial, flux [][]float64, v [4][3]*big.Rat, w *polyWeight, wcRat []*big.Rat, p, k int) {
+// fluxCheckWeight compares LGMatrix with the weight w, without and with a
+// remainder, against fluxExactA2 (see TestFluxLGMatrixAgainstExactQuadrature).
+func fluxCheckWeight(t *testing.T, f *Flux, s *fluxTestTrial, trial, flux [][]float64, v [4][3]*big.Rat, w *fluxPolyWeight, wcRat []*big.Rat, p, k int) {
 	t.Helper()
 	nv := len(trial)
 	{
@@ -244,11 +244,11 @@ func checkWeight(t *testing.T, f *Flux, s *testTrial, trial, flux [][]float64, v
 				t.Fatal(err)
 			}
 			for _, shift := range []float64{-r, r} {
-				want := exactA2(f, s, trial, flux, v, w.q, wcRat, ratOf(shift), big.NewRat(3, 1))
+				want := fluxExactA2(f, s, trial, flux, v, w.q, wcRat, fluxRat(shift), big.NewRat(3, 1))
 				for i := 0; i < nv; i++ {
 					for j := 0; j <= i; j++ {
 						got := a2.At(i, j)
-						if ratOf(got.Lo).Cmp(want[i][j]) > 0 || ratOf(got.Hi).Cmp(want[i][j]) < 0 {
+						if fluxRat(got.Lo).Cmp(want[i][j]) > 0 || fluxRat(got.Hi).Cmp(want[i][j]) < 0 {
 							wf, _ := want[i][j].Float64()
 							t.Fatalf("p=%d k=%d q=%d r=%g: entry (%d,%d) = %v misses the exact %.17g", p, k, w.q, r, i, j, got, wf)
 						}
@@ -270,16 +270,16 @@ func TestFluxWeightRefusals(t *testing.T) {
 			t.Errorf("NewFluxConstantWeight(%v) accepted a shift not verified > 0 and bounded", g)
 		}
 	}
-	m, _ := oneCellMesh()
-	bnd := dirichletAll(m)
+	m, _ := fluxOneCell()
+	bnd := fluxDirichletAll(m)
 	f, err := NewFlux(m.cells, 1, bnd)
 	if err != nil {
 		t.Fatal(err)
 	}
-	s := newTestTrial(m, 2, map[int]boundary.Condition{0: {Kind: boundary.Neumann}, 1: {Kind: boundary.Neumann}, 2: {Kind: boundary.Neumann}, 3: {Kind: boundary.Neumann}})
+	s := newFluxTestTrial(m, 2, map[int]boundary.Condition{0: {Kind: boundary.Neumann}, 1: {Kind: boundary.Neumann}, 2: {Kind: boundary.Neumann}, 3: {Kind: boundary.Neumann}})
 	trial, flux := [][]float64{make([]float64, s.N())}, [][]float64{make([]float64, f.N())}
 	trial[0][0], flux[0][0] = 1, 1
-	for _, w := range []*polyWeight{
+	for _, w := range []*fluxPolyWeight{
 		{q: 0, coef: []interval.I{{Lo: 0, Hi: 1}}, rem: interval.Entire()},
 		{q: 0, coef: []interval.I{interval.Entire()}},
 	} {

@@ -26,17 +26,17 @@ import (
 // domain point, Dirichlet DOFs removed, float assembly and interval Ritz
 // matrices).
 
-// testMesh is a list of cells with the global face table.
-type testMesh struct {
+// fluxMesh is a list of cells with the global face table.
+type fluxMesh struct {
 	cells  []RTCell
 	owners []int    // cells per face
 	nodes  [][3]int // sorted vertex numbers per face
 }
 
-// kuhnMesh returns the Kuhn subdivision of n³ subcubes of [0, 1]³,
+// fluxKuhnMesh returns the Kuhn subdivision of n³ subcubes of [0, 1]³,
 // keeping the cells whose centroid satisfies keep (nil: all), with the
 // interior grid points moved by jitter(node) (nil: none; exact floats).
-func kuhnMesh(n int, keep func(c [3]float64) bool, jitter func(i, j, l int) [3]float64) testMesh {
+func fluxKuhnMesh(n int, keep func(c [3]float64) bool, jitter func(i, j, l int) [3]float64) fluxMesh {
 	node := func(i, j, l int) int { return (i*(n+1)+j)*(n+1) + l }
 	coord := func(g [3]int) [3]interval.I {
 		var x [3]interval.I
@@ -53,7 +53,7 @@ func kuhnMesh(n int, keep func(c [3]float64) bool, jitter func(i, j, l int) [3]f
 		return x
 	}
 	perms := [6][3]int{{0, 1, 2}, {0, 2, 1}, {1, 0, 2}, {1, 2, 0}, {2, 0, 1}, {2, 1, 0}}
-	var m testMesh
+	var m fluxMesh
 	faceID := map[[3]int]int{}
 	for i := 0; i < n; i++ {
 		for j := 0; j < n; j++ {
@@ -110,7 +110,7 @@ func kuhnMesh(n int, keep func(c [3]float64) bool, jitter func(i, j, l int) [3]f
 
 // boundaryWhere returns, on every boundary face, the condition cond(x) of
 // the centroid x of the face (computed from the vertex midpoints).
-func (m testMesh) boundaryWhere(cond func(x [3]float64) boundary.Condition) map[int]boundary.Condition {
+func (m fluxMesh) boundaryWhere(cond func(x [3]float64) boundary.Condition) map[int]boundary.Condition {
 	out := map[int]boundary.Condition{}
 	for _, c := range m.cells {
 		for i, f := range c.Faces {
@@ -130,7 +130,7 @@ func (m testMesh) boundaryWhere(cond func(x [3]float64) boundary.Condition) map[
 }
 
 // boundaryAll returns the condition c on every boundary face.
-func (m testMesh) boundaryAll(c boundary.Condition) map[int]boundary.Condition {
+func (m fluxMesh) boundaryAll(c boundary.Condition) map[int]boundary.Condition {
 	out := map[int]boundary.Condition{}
 	for f, o := range m.owners {
 		if o == 1 {
@@ -140,18 +140,18 @@ func (m testMesh) boundaryAll(c boundary.Condition) map[int]boundary.Condition {
 	return out
 }
 
-// testTrial is conforming P_p in Bernstein form on a testMesh: one global
+// fluxTestTrial is conforming P_p in Bernstein form on a fluxMesh: one global
 // DOF per domain point, identified by its vertices and their exponents
 // (so neighbours agree without orientation), with the DOFs of domain
 // points on Dirichlet faces removed, and the Robin faces with their α.
-type testTrial struct {
-	m     testMesh
+type fluxTestTrial struct {
+	m     fluxMesh
 	p, n  int
 	dofs  [][]int
 	robin []fluxFace
 }
 
-func newTestTrial(m testMesh, p int, bnd map[int]boundary.Condition) *testTrial {
+func newFluxTestTrial(m fluxMesh, p int, bnd map[int]boundary.Condition) *fluxTestTrial {
 	type key [4][2]int
 	onBoundary := map[key]bool{}
 	{
@@ -177,7 +177,7 @@ func newTestTrial(m testMesh, p int, bnd map[int]boundary.Condition) *testTrial 
 		}
 	}
 	ix := rtMulti(p)
-	s := &testTrial{m: m, p: p, dofs: make([][]int, len(m.cells))}
+	s := &fluxTestTrial{m: m, p: p, dofs: make([][]int, len(m.cells))}
 	ids := map[key]int{}
 	for t, c := range m.cells {
 		d := make([]int, len(ix.alpha))
@@ -222,9 +222,9 @@ func newTestTrial(m testMesh, p int, bnd map[int]boundary.Condition) *testTrial 
 	return s
 }
 
-// faceRestriction returns, for local face i, the local index of each face
+// fluxFaceRestriction returns, for local face i, the local index of each face
 // multi-index of degree p (the domain points with α_i = 0).
-func faceRestriction(p, i int) []int {
+func fluxFaceRestriction(p, i int) []int {
 	ix := rtMulti(p)
 	var out []int
 	for _, b := range rtFaceMulti(p).alpha {
@@ -237,10 +237,10 @@ func faceRestriction(p, i int) []int {
 	return out
 }
 
-func (s *testTrial) N() int                 { return s.n }
-func (s *testTrial) Degree() int            { return s.p }
-func (s *testTrial) MultiIndices() [][4]int { return rtMulti(s.p).alpha }
-func (s *testTrial) Local(dst, vec []float64, t int) {
+func (s *fluxTestTrial) N() int                 { return s.n }
+func (s *fluxTestTrial) Degree() int            { return s.p }
+func (s *fluxTestTrial) MultiIndices() [][4]int { return rtMulti(s.p).alpha }
+func (s *fluxTestTrial) Local(dst, vec []float64, t int) {
 	for q, g := range s.dofs[t] {
 		dst[q] = 0
 		if g >= 0 {
@@ -249,9 +249,9 @@ func (s *testTrial) Local(dst, vec []float64, t int) {
 	}
 }
 
-// baryGradients encloses ∇λ_j (rows of J⁻¹: row r = (e_(r+1) × e_(r+2))/det J,
+// fluxBaryGradients encloses ∇λ_j (rows of J⁻¹: row r = (e_(r+1) × e_(r+2))/det J,
 // indices mod 3, and ∇λ_0 = −Σ) and |T| = det J/6.
-func baryGradients(c RTCell) ([4][3]interval.I, interval.I) {
+func fluxBaryGradients(c RTCell) ([4][3]interval.I, interval.I) {
 	var e [3][3]interval.I
 	for r := 0; r < 3; r++ {
 		for x := 0; x < 3; x++ {
@@ -273,14 +273,14 @@ func baryGradients(c RTCell) ([4][3]interval.I, interval.I) {
 // assembleApprox returns the float matrices of a + shift·b and b (−Δ,
 // V = 0, with the Robin face terms α|F| G_F): per cell ∫∇B_α·∇B_β = p²|T| Σ_(j,l) ∇λ_j·∇λ_l
 // G^(p−1)[α − e_j, β − e_l] and ∫B_αB_β = |T| G^p[α, β].
-func (s *testTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
+func (s *fluxTestTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
 	p := s.p
 	ix, im := rtMulti(p), rtMulti(p-1)
 	gp, gq := rtTriple(0, p, p).FL, rtTriple(0, p-1, p-1).FL
 	np, nq := len(ix.alpha), len(im.alpha)
 	kb, mb := sparse.NewBuilder(s.n), sparse.NewBuilder(s.n)
 	for t, c := range s.m.cells {
-		gr, vol := baryGradients(c)
+		gr, vol := fluxBaryGradients(c)
 		var gg [4][4]float64
 		for j := 0; j < 4; j++ {
 			for l := 0; l < 4; l++ {
@@ -324,7 +324,7 @@ func (s *testTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
 	}
 	gf := rtFaceGram(p).FL
 	for _, rf := range s.robin {
-		loc := faceRestriction(p, rf.i)
+		loc := fluxFaceRestriction(p, rf.i)
 		d := s.dofs[rf.t]
 		sc := rf.alpha.Mid() * rf.area.Mid()
 		for a, la := range loc {
@@ -341,7 +341,7 @@ func (s *testTrial) assembleApprox(shift float64) (k, m *sparse.Sym) {
 // ritzMatrices encloses a0 = (∫∇u_i·∇u_j + Σ_Robin α∫_F u_iu_j + γ∫u_iu_j) and a1 = (∫u_iu_j)
 // for the functions with coefficients vecs (exact floats), with the same
 // identities as assembleApprox in interval arithmetic.
-func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *enclose.Sym) {
+func (s *fluxTestTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *enclose.Sym) {
 	p, nv := s.p, len(vecs)
 	ix, im := rtMulti(p), rtMulti(p-1)
 	gp, gq := rtTriple(0, p, p).IV, rtTriple(0, p-1, p-1).IV
@@ -358,7 +358,7 @@ func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *en
 		}
 	}
 	for t, cell := range s.m.cells {
-		gr, vol := baryGradients(cell)
+		gr, vol := fluxBaryGradients(cell)
 		var gg [4][4]interval.I
 		for j := 0; j < 4; j++ {
 			for l := 0; l < 4; l++ {
@@ -396,7 +396,7 @@ func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *en
 	// Robin faces: α ∫_F u_i u_k = α |F| c_iᵀ G_F c_k on the face's domain points.
 	gf := rtFaceGram(p).IV
 	for _, rf := range s.robin {
-		loc := faceRestriction(p, rf.i)
+		loc := fluxFaceRestriction(p, rf.i)
 		ci := make([][]float64, nv)
 		for i := range vecs {
 			s.Local(c[i], vecs[i], rf.t)
@@ -417,19 +417,19 @@ func (s *testTrial) ritzMatrices(vecs [][]float64, gamma interval.I) (a0, a1 *en
 	return acc0.Sym(), acc1.Sym()
 }
 
-// lgResult holds the bounds of one Lehmann–Goerisch computation.
-type lgResult struct {
+// fluxLGResult holds the bounds of one Lehmann–Goerisch computation.
+type fluxLGResult struct {
 	lower, upper  []float64 // bounds of λ_1..λ_N
 	trialN, fluxN int
 }
 
-// lehmannGoerischBounds computes Ritz upper bounds and Lehmann–Goerisch
+// fluxLGBounds computes Ritz upper bounds and Lehmann–Goerisch
 // lower bounds of λ_1..λ_N of −Δ on the mesh with the boundary conditions
 // bnd, trial space P_p, fluxes RT_k, shift γ and ρ ≤ Λ_(N+1) = λ_(N+1) + γ
 // given by the caller (a closed form in the tests).
-func lehmannGoerischBounds(t testing.TB, m testMesh, bnd map[int]boundary.Condition, p, k, nTrial int, gamma, rho float64) lgResult {
+func fluxLGBounds(t testing.TB, m fluxMesh, bnd map[int]boundary.Condition, p, k, nTrial int, gamma, rho float64) fluxLGResult {
 	t.Helper()
-	s := newTestTrial(m, p, bnd)
+	s := newFluxTestTrial(m, p, bnd)
 	kk, mm := s.assembleApprox(gamma)
 	_, vecs, err := sparse.LowestEigs(kk, mm, nTrial)
 	if err != nil {
@@ -461,7 +461,7 @@ func lehmannGoerischBounds(t testing.TB, m testMesh, bnd map[int]boundary.Condit
 	if err != nil {
 		t.Fatalf("Ritz values: %v", err)
 	}
-	r := lgResult{trialN: s.n, fluxN: f.N()}
+	r := fluxLGResult{trialN: s.n, fluxN: f.N()}
 	for i := range lg {
 		r.lower = append(r.lower, interval.SubDown(lg[i], gamma))
 		r.upper = append(r.upper, interval.SubUp(ev[i].Hi, gamma))
@@ -469,11 +469,11 @@ func lehmannGoerischBounds(t testing.TB, m testMesh, bnd map[int]boundary.Condit
 	return r
 }
 
-// piSquaredTimes encloses c·π² (interval π of package interval).
-func piSquaredTimes(c float64) interval.I { return interval.Pi().Sqr().MulF(c) }
+// fluxPiSquaredTimes encloses c·π² (interval π of package interval).
+func fluxPiSquaredTimes(c float64) interval.I { return interval.Pi().Sqr().MulF(c) }
 
-// newJitter returns a fixed-seed jitter of at most amp per coordinate.
-func newJitter(seed uint64, amp float64) func(i, j, l int) [3]float64 {
+// fluxJitter returns a fixed-seed jitter of at most amp per coordinate.
+func fluxJitter(seed uint64, amp float64) func(i, j, l int) [3]float64 {
 	rng := rand.New(rand.NewPCG(seed, 3))
 	cache := map[[3]int][3]float64{}
 	return func(i, j, l int) [3]float64 {
@@ -490,16 +490,16 @@ func newJitter(seed uint64, amp float64) func(i, j, l int) [3]float64 {
 	}
 }
 
-// dirichletAll returns Dirichlet conditions on every boundary face of m.
-func dirichletAll(m testMesh) map[int]boundary.Condition {
+// fluxDirichletAll returns Dirichlet conditions on every boundary face of m.
+func fluxDirichletAll(m fluxMesh) map[int]boundary.Condition {
 	return m.boundaryAll(boundary.Condition{Kind: boundary.Dirichlet})
 }
 
-// scrambled returns m with its global vertex numbers relabelled by a
+// fluxScrambled returns m with its global vertex numbers relabelled by a
 // random permutation and the local vertices of every cell reordered by a
 // random even permutation (which keeps the orientation), so that the
 // faces meet in every relative orientation (fixed seed).
-func scrambled(m testMesh, seed uint64) testMesh {
+func fluxScrambled(m fluxMesh, seed uint64) fluxMesh {
 	rng := rand.New(rand.NewPCG(seed, 11))
 	maxNode := 0
 	for _, c := range m.cells {
@@ -527,7 +527,7 @@ func scrambled(m testMesh, seed uint64) testMesh {
 			even = append(even, q)
 		}
 	}
-	out := testMesh{owners: m.owners, cells: make([]RTCell, len(m.cells)), nodes: make([][3]int, len(m.nodes))}
+	out := fluxMesh{owners: m.owners, cells: make([]RTCell, len(m.cells)), nodes: make([][3]int, len(m.nodes))}
 	for t, c := range m.cells {
 		q := even[rng.IntN(len(even))]
 		var d RTCell

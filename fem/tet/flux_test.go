@@ -46,10 +46,10 @@ func fluxValue(f *Flux, vec []float64, t int, lam [4]float64) [3]interval.I {
 	return out
 }
 
-// faceFlux encloses σ·ν_F at the point of face fc with barycentric
+// fluxFaceDensity encloses σ·ν_F at the point of face fc with barycentric
 // coordinates mu over its sorted global vertices, seen from cell t, with
 // ν_F = (P_b − P_a) × (P_c − P_a) from the cell's vertex enclosures.
-func faceFlux(f *Flux, vec []float64, t int, nodes [3]int, mu [3]float64) interval.I {
+func fluxFaceDensity(f *Flux, vec []float64, t int, nodes [3]int, mu [3]float64) interval.I {
 	cell := f.cells[t]
 	var lam [4]float64
 	var p [3][3]interval.I
@@ -72,8 +72,9 @@ func faceFlux(f *Flux, vec []float64, t int, nodes [3]int, mu [3]float64) interv
 
 // TestFluxNormalContinuityAcrossFaces checks H(div) conformity on
 // perturbed Kuhn meshes (interior grid points moved at random, vertex
-// numbers and local vertex orders scrambled, fixed seeds): for random global coefficients, the flux density σ·ν_F at
-// points of every interior face, enclosed from each of its two cells,
+// numbers and local vertex orders scrambled, fixed seeds): for random
+// global coefficients, the flux density σ·ν_F at points of every
+// interior face, enclosed from each of its two cells,
 // agrees (the enclosures intersect, and are narrow, so a sign or
 // permutation error of the face orientation would show), and on Neumann
 // faces σ·n = 0.
@@ -81,7 +82,7 @@ func TestFluxNormalContinuityAcrossFaces(t *testing.T) {
 	pts := [][3]float64{{0.25, 0.375, 0.375}, {0.625, 0.125, 0.25}, {0.0625, 0.5, 0.4375}, {1, 0, 0}}
 	for k := 0; k <= 3; k++ {
 		for seed := uint64(1); seed <= 2; seed++ {
-			m := scrambled(kuhnMesh(2+int(seed)%2, nil, newJitter(seed, 0.04)), seed)
+			m := fluxScrambled(fluxKuhnMesh(2+int(seed)%2, nil, fluxJitter(seed, 0.04)), seed)
 			f, err := NewFlux(m.cells, k, m.boundaryAll(boundary.Condition{Kind: boundary.Neumann}))
 			if err != nil {
 				t.Fatal(err)
@@ -100,14 +101,14 @@ func TestFluxNormalContinuityAcrossFaces(t *testing.T) {
 			nonzero := 0
 			for fc, cs := range cellsOf {
 				for _, mu := range pts {
-					a := faceFlux(f, vec, cs[0], m.nodes[fc], mu)
+					a := fluxFaceDensity(f, vec, cs[0], m.nodes[fc], mu)
 					if len(cs) == 1 {
 						if !a.ContainsZero() || a.Wid() > 1e-9 {
 							t.Fatalf("k=%d: Neumann face %d has flux density %v", k, fc, a)
 						}
 						continue
 					}
-					b := faceFlux(f, vec, cs[1], m.nodes[fc], mu)
+					b := fluxFaceDensity(f, vec, cs[1], m.nodes[fc], mu)
 					if _, ok := a.Intersection(b); !ok {
 						t.Fatalf("k=%d seed %d: face %d flux density %v from cell %d, %v from cell %d", k, seed, fc, a, cs[0], b, cs[1])
 					}
@@ -127,16 +128,18 @@ func TestFluxNormalContinuityAcrossFaces(t *testing.T) {
 }
 
 // TestFluxRefusesUnverifiedOrientation checks that a negatively oriented
-// cell (two vertices swapped) stops the construction with ErrOrientation.
+// cell (two vertices swapped) stops the construction with a
+// *FluxOrientationError naming the cell.
 func TestFluxRefusesUnverifiedOrientation(t *testing.T) {
-	m := kuhnMesh(1, nil, nil)
+	m := fluxKuhnMesh(1, nil, nil)
 	c := &m.cells[3]
 	c.Vertices[2], c.Vertices[3] = c.Vertices[3], c.Vertices[2]
 	c.Nodes[2], c.Nodes[3] = c.Nodes[3], c.Nodes[2]
 	c.Faces[2], c.Faces[3] = c.Faces[3], c.Faces[2]
 	_, err := NewFlux(m.cells, 1, m.boundaryAll(boundary.Condition{Kind: boundary.Dirichlet}))
-	if !errors.Is(err, ErrOrientation) {
-		t.Fatalf("NewFlux on a negatively oriented cell: %v, want ErrOrientation", err)
+	var oe *FluxOrientationError
+	if !errors.As(err, &oe) || oe.Cell != 3 || !(oe.Det.Hi < 0) {
+		t.Fatalf("NewFlux on a negatively oriented cell 3: %v, want a *FluxOrientationError for cell 3", err)
 	}
 }
 
@@ -145,12 +148,12 @@ func TestFluxRefusesUnverifiedOrientation(t *testing.T) {
 // practice): λ_1 = 3π², λ_2 = 6π² (triple). With Neumann conditions a, b,
 // c ≥ 0: 0, π² (triple), 2π² (triple).
 
-// TestLehmannGoerischUnitCubeDirichlet checks that the lower bound of λ_1
+// TestFluxLehmannGoerischUnitCubeDirichlet checks that the lower bound of λ_1
 // from RT_k fluxes contains 3π² with the Ritz upper bound, and that the
 // width falls under refinement in h and in the degrees (ρ = 6π² + γ from
 // the closed form, lowered by a relative 1e-9).
-func TestLehmannGoerischUnitCubeDirichlet(t *testing.T) {
-	truth := piSquaredTimes(3)
+func TestFluxLehmannGoerischUnitCubeDirichlet(t *testing.T) {
+	truth := fluxPiSquaredTimes(3)
 	const gamma = 10
 	rho := (6*math.Pi*math.Pi + gamma) * (1 - 1e-9)
 	cases := []struct {
@@ -167,16 +170,16 @@ func TestLehmannGoerischUnitCubeDirichlet(t *testing.T) {
 	// The bounds do not depend on the numbering: a scrambled mesh (random
 	// vertex numbers and local vertex orders) gives the same enclosure up
 	// to rounding.
-	m := kuhnMesh(3, nil, nil)
-	a := lehmannGoerischBounds(t, m, dirichletAll(m), 3, 2, 1, gamma, rho)
-	ms := scrambled(m, 5)
-	b := lehmannGoerischBounds(t, ms, dirichletAll(ms), 3, 2, 1, gamma, rho)
+	m := fluxKuhnMesh(3, nil, nil)
+	a := fluxLGBounds(t, m, fluxDirichletAll(m), 3, 2, 1, gamma, rho)
+	ms := fluxScrambled(m, 5)
+	b := fluxLGBounds(t, ms, fluxDirichletAll(ms), 3, 2, 1, gamma, rho)
 	if !(b.lower[0] <= truth.Lo && truth.Hi <= b.upper[0]) || math.Abs(a.lower[0]-b.lower[0]) > 1e-9*truth.Mid() {
 		t.Fatalf("scrambled mesh: λ1 ∈ [%.12g, %.12g], unscrambled [%.12g, %.12g]", b.lower[0], b.upper[0], a.lower[0], a.upper[0])
 	}
 	prev := math.Inf(1)
 	for _, c := range cases {
-		r := lehmannGoerischBounds(t, kuhnMesh(c.n, nil, nil), dirichletAll(kuhnMesh(c.n, nil, nil)), c.p, c.k, 1, gamma, rho)
+		r := fluxLGBounds(t, fluxKuhnMesh(c.n, nil, nil), fluxDirichletAll(fluxKuhnMesh(c.n, nil, nil)), c.p, c.k, 1, gamma, rho)
 		lo, hi := r.lower[0], r.upper[0]
 		if !(lo <= truth.Lo && truth.Hi <= hi) {
 			t.Fatalf("n=%d p=%d k=%d: [%.12g, %.12g] misses 3π² = %v", c.n, c.p, c.k, lo, hi, truth)
@@ -196,17 +199,17 @@ func TestLehmannGoerischUnitCubeDirichlet(t *testing.T) {
 	}
 }
 
-// TestLehmannGoerischUnitCubeNeumann checks the four lowest Neumann
+// TestFluxLehmannGoerischUnitCubeNeumann checks the four lowest Neumann
 // eigenvalues 0, π², π², π² (N = 4, ρ = 2π² + γ from the closed form).
-func TestLehmannGoerischUnitCubeNeumann(t *testing.T) {
+func TestFluxLehmannGoerischUnitCubeNeumann(t *testing.T) {
 	const gamma = 1
 	rho := (2*math.Pi*math.Pi + gamma) * (1 - 1e-9)
-	pi2 := piSquaredTimes(1)
+	pi2 := fluxPiSquaredTimes(1)
 	for _, c := range []struct {
 		n, p, k  int
 		maxWidth float64
 	}{{2, 3, 2, 0.04}, {4, 3, 2, 7e-4}} {
-		r := lehmannGoerischBounds(t, kuhnMesh(c.n, nil, nil), kuhnMesh(c.n, nil, nil).boundaryAll(boundary.Condition{Kind: boundary.Neumann}), c.p, c.k, 4, gamma, rho)
+		r := fluxLGBounds(t, fluxKuhnMesh(c.n, nil, nil), fluxKuhnMesh(c.n, nil, nil).boundaryAll(boundary.Condition{Kind: boundary.Neumann}), c.p, c.k, 4, gamma, rho)
 		if !(r.lower[0] <= 0 && 0 <= r.upper[0]) || r.lower[0] < -1e-9 {
 			t.Fatalf("n=%d: λ_1 ∈ [%g, %g], want 0 inside and a narrow enclosure", c.n, r.lower[0], r.upper[0])
 		}
@@ -249,24 +252,24 @@ func TestLehmannGoerischUnitCubeNeumann(t *testing.T) {
 // 0 < a_1 < a_2 < a_3: 14π² (1, 2, 3), 21π² (1, 2, 4), 26π² (1, 3, 4),
 // each simple (no other triple of distinct squares has these sums).
 
-// TestLehmannGoerischOrthoscheme checks λ_1 = 14π² and λ_2 = 21π² of the
+// TestFluxLehmannGoerischOrthoscheme checks λ_1 = 14π² and λ_2 = 21π² of the
 // orthoscheme (N = 2, ρ = 26π² + γ), meshed by the Kuhn cells of the n³
 // subcubes whose centroid has x < y < z (the Freudenthal triangulation
 // is cut by the planes x = y and y = z, so these cells tile T exactly).
-func TestLehmannGoerischOrthoscheme(t *testing.T) {
+func TestFluxLehmannGoerischOrthoscheme(t *testing.T) {
 	keep := func(c [3]float64) bool { return c[0] < c[1] && c[1] < c[2] }
-	truth := []interval.I{piSquaredTimes(14), piSquaredTimes(21)}
+	truth := []interval.I{fluxPiSquaredTimes(14), fluxPiSquaredTimes(21)}
 	const gamma = 100
 	rho := (26*math.Pi*math.Pi + gamma) * (1 - 1e-9)
 	for _, c := range []struct {
 		n, p, k int
 		maxRel  [2]float64
 	}{{4, 3, 2, [2]float64{0.04, 0.4}}, {4, 4, 3, [2]float64{2e-3, 0.03}}, {6, 3, 2, [2]float64{5e-3, 0.06}}} {
-		m := kuhnMesh(c.n, keep, nil)
+		m := fluxKuhnMesh(c.n, keep, nil)
 		if len(m.cells) != c.n*c.n*c.n {
 			t.Fatalf("n=%d: %d cells in the orthoscheme, want n³", c.n, len(m.cells))
 		}
-		r := lehmannGoerischBounds(t, m, dirichletAll(m), c.p, c.k, 2, gamma, rho)
+		r := fluxLGBounds(t, m, fluxDirichletAll(m), c.p, c.k, 2, gamma, rho)
 		for i, tr := range truth {
 			if !(r.lower[i] <= tr.Lo && tr.Hi <= r.upper[i]) {
 				t.Fatalf("n=%d p=%d k=%d: λ_%d ∈ [%.12g, %.12g] misses %v", c.n, c.p, c.k, i+1, r.lower[i], r.upper[i], tr)
@@ -285,7 +288,7 @@ func TestLehmannGoerischOrthoscheme(t *testing.T) {
 // a boundary face without a condition, a condition on an interior face,
 // and a condition on a face that does not exist.
 func TestFluxPanicsOnMismatchedBoundary(t *testing.T) {
-	m := kuhnMesh(1, nil, nil)
+	m := fluxKuhnMesh(1, nil, nil)
 	dir := boundary.Condition{Kind: boundary.Dirichlet}
 	interior := -1
 	for f, o := range m.owners {
@@ -318,19 +321,19 @@ func TestFluxPanicsOnMismatchedBoundary(t *testing.T) {
 	}
 }
 
-// robinRoot encloses the root in (lo, hi) of g(s) = s cos s + α sin s,
+// fluxRobinRoot encloses the root in (lo, hi) of g(s) = s cos s + α sin s,
 // where g changes sign between lo and hi, by float bisection with every
 // sign decided in interval arithmetic (package interval's Sin and Cos):
 // the result [a, b] has g(a) and g(b) of verified opposite signs, so a
 // root lies inside by continuity.
-func robinRoot(t *testing.T, alpha, lo, hi float64) interval.I {
+func fluxRobinRoot(t *testing.T, alpha, lo, hi float64) interval.I {
 	g := func(s float64) interval.I {
 		x := interval.Point(s)
 		return x.Mul(interval.Cos(x)).Add(interval.Sin(x).MulF(alpha))
 	}
 	sign := g(lo).Sign()
 	if sign == 0 || g(hi).Sign() != -sign {
-		t.Fatalf("robinRoot: no verified sign change on [%g, %g]", lo, hi)
+		t.Fatalf("fluxRobinRoot: no verified sign change on [%g, %g]", lo, hi)
 	}
 	for i := 0; i < 200 && hi-lo > 1e-14*hi; i++ {
 		mid := lo + (hi-lo)/2
@@ -346,7 +349,7 @@ func robinRoot(t *testing.T, alpha, lo, hi float64) interval.I {
 	return interval.I{Lo: lo, Hi: hi}
 }
 
-// TestLehmannGoerischUnitCubeMixedAndRobin checks faces of three kinds.
+// TestFluxLehmannGoerischUnitCubeMixedAndRobin checks faces of three kinds.
 // Separation of variables (common practice) on (0, 1)³ with Dirichlet
 // conditions on every face but x = 1 gives λ = μ + π²(b² + c²), b, c ≥ 1,
 // with μ the eigenvalues of −u″ = μu on (0, 1), u(0) = 0 and at x = 1:
@@ -359,25 +362,25 @@ func robinRoot(t *testing.T, alpha, lo, hi float64) interval.I {
 //     and none on (0, π/2) (tan s > 0 > −s/α) or ((j − 1)π, (j − ½)π)
 //     (likewise): λ_1 = s_1² + 2π², λ_2 = min(s_2² + 2π², s_1² + 5π²) =
 //     s_2² + 2π² (s_2 < 5 gives s_2² < 25 < s_1² + 3π²). s_1 and s_2 are
-//     enclosed by robinRoot.
+//     enclosed by fluxRobinRoot.
 //
 // The flux norm carries ∫(σ·n)²/α on the Robin face and σ·n = 0 on the
 // Neumann face; the trial space carries α∫_F uv.
-func TestLehmannGoerischUnitCubeMixedAndRobin(t *testing.T) {
+func TestFluxLehmannGoerischUnitCubeMixedAndRobin(t *testing.T) {
 	const gamma = 10
-	pi2 := piSquaredTimes(1)
-	s1 := robinRoot(t, 1, 1.6, 3.1)
-	s2 := robinRoot(t, 1, 4.72, 6.2)
+	pi2 := fluxPiSquaredTimes(1)
+	s1 := fluxRobinRoot(t, 1, 1.6, 3.1)
+	s2 := fluxRobinRoot(t, 1, 4.72, 6.2)
 	for _, c := range []struct {
 		name     string
 		cond     boundary.Condition
 		l1, l2   interval.I
 		maxWidth float64
 	}{
-		{"neumann", boundary.Condition{Kind: boundary.Neumann}, piSquaredTimes(2.25), piSquaredTimes(4.25), 0.015},
+		{"neumann", boundary.Condition{Kind: boundary.Neumann}, fluxPiSquaredTimes(2.25), fluxPiSquaredTimes(4.25), 0.015},
 		{"robin", boundary.Condition{Kind: boundary.Robin, Alpha: interval.Point(1)}, s1.Sqr().Add(pi2.MulF(2)), s2.Sqr().Add(pi2.MulF(2)), 0.015},
 	} {
-		m := kuhnMesh(4, nil, nil)
+		m := fluxKuhnMesh(4, nil, nil)
 		bnd := m.boundaryWhere(func(x [3]float64) boundary.Condition {
 			if x[0] == 1 {
 				return c.cond
@@ -385,7 +388,7 @@ func TestLehmannGoerischUnitCubeMixedAndRobin(t *testing.T) {
 			return boundary.Condition{Kind: boundary.Dirichlet}
 		})
 		rho := interval.SubDown(c.l2.Lo+gamma, 1e-9*c.l2.Lo)
-		r := lehmannGoerischBounds(t, m, bnd, 3, 2, 1, gamma, rho)
+		r := fluxLGBounds(t, m, bnd, 3, 2, 1, gamma, rho)
 		if !(r.lower[0] <= c.l1.Lo && c.l1.Hi <= r.upper[0]) {
 			t.Fatalf("%s: λ_1 ∈ [%.12g, %.12g] misses %v", c.name, r.lower[0], r.upper[0], c.l1)
 		}

@@ -119,9 +119,9 @@ package tet
 // from tables enclosed from math/big; the reference coefficients are
 // combined with the float coefficients by error-free transformations
 // (fluxExactCombination). What the code checks: positive orientation of
-// every cell (det J > 0 from the enclosures, else ErrOrientation), a
-// bounded weight model, γ_B > 0 for V = 0. What the caller supplies and
-// the doc of each input states: the cells (RTCell: vertex enclosures,
+// every cell (det J > 0 from the enclosures, else a
+// *FluxOrientationError), a bounded weight model, γ_B > 0 for V = 0.
+// What the caller supplies and the doc of each input states: the cells (RTCell: vertex enclosures,
 // global vertex and face numbers; the tiling of Ω is the mesh's proof),
 // the boundary conditions of the boundary faces, a trial space on the
 // same cells (FluxTrial: exact Bernstein coefficients per cell) and a

@@ -43,8 +43,8 @@ func rtFaceEvalRat(c []*big.Rat, k int, mu [3]*big.Rat) *big.Rat {
 	return out
 }
 
-// barycentric returns the barycentric coordinates of the point x of T̂.
-func barycentric(x [3]*big.Rat) [4]*big.Rat {
+// rtBarycentric returns the barycentric coordinates of the point x of T̂.
+func rtBarycentric(x [3]*big.Rat) [4]*big.Rat {
 	l0 := big.NewRat(1, 1)
 	for _, v := range x {
 		l0.Sub(l0, v)
@@ -52,8 +52,8 @@ func barycentric(x [3]*big.Rat) [4]*big.Rat {
 	return [4]*big.Rat{l0, x[0], x[1], x[2]}
 }
 
-// randomRat returns a random rational in [0, 1) with denominator 97.
-func randomRat(rng *rand.Rand) *big.Rat { return big.NewRat(int64(rng.IntN(97)), 97) }
+// rtRandomRat returns a random rational in [0, 1) with denominator 97.
+func rtRandomRat(rng *rand.Rand) *big.Rat { return big.NewRat(int64(rng.IntN(97)), 97) }
 
 // TestRTBasisFaceTracesAgainstPointValues checks the dual basis on every
 // face by exact evaluation: at random rational points of face i the flux
@@ -71,7 +71,7 @@ func TestRTBasisFaceTracesAgainstPointValues(t *testing.T) {
 		nf := ref.nFace
 		for trial := 0; trial < 3; trial++ {
 			// A random point of each face: barycentric μ over the face's vertices.
-			a, b := randomRat(rng), randomRat(rng)
+			a, b := rtRandomRat(rng), rtRandomRat(rng)
 			mu := [3]*big.Rat{new(big.Rat).Sub(big.NewRat(1, 1), new(big.Rat).Add(new(big.Rat).Mul(a, big.NewRat(1, 2)), new(big.Rat).Mul(b, big.NewRat(1, 2)))), new(big.Rat).Mul(a, big.NewRat(1, 2)), new(big.Rat).Mul(b, big.NewRat(1, 2))}
 			for i := 0; i < 4; i++ {
 				var lam [4]*big.Rat
@@ -114,7 +114,7 @@ func TestRTBasisFaceTracesAgainstPointValues(t *testing.T) {
 	}
 }
 
-// grundmannMoeller returns the points (barycentric coordinates) and
+// rtGrundmannMoeller returns the points (barycentric coordinates) and
 // weights of the Grundmann–Möller rule of index s on the reference
 // n-simplex (volume 1/n!), exact for polynomials of degree ≤ 2s + 1
 // (A. Grundmann, H. M. Möller, Invariant integration formulas for the
@@ -123,7 +123,7 @@ func TestRTBasisFaceTracesAgainstPointValues(t *testing.T) {
 // it against the exact monomial integrals). With m_i = n + 1 + 2(s − i):
 //
 //	Q f = Σ_(i=0..s) (−1)^i 2^(−2s) m_i^(2s+1)/(i! (n + 2s + 1 − i)!) Σ_(β ∈ N^(n+1), |β|=s−i) f((2β_j + 1)/m_i, j = 0..n).
-func grundmannMoeller(n, s int) (pts [][]*big.Rat, w []*big.Rat) {
+func rtGrundmannMoeller(n, s int) (pts [][]*big.Rat, w []*big.Rat) {
 	for i := 0; i <= s; i++ {
 		m := int64(n + 1 + 2*(s-i))
 		num := new(big.Int).Exp(big.NewInt(m), big.NewInt(int64(2*s+1)), nil)
@@ -155,17 +155,17 @@ func grundmannMoeller(n, s int) (pts [][]*big.Rat, w []*big.Rat) {
 	return pts, w
 }
 
-// bary4 returns the first four entries of p as an array.
-func bary4(p []*big.Rat) [4]*big.Rat { return [4]*big.Rat{p[0], p[1], p[2], p[3]} }
+// rtBary4 returns the first four entries of p as an array.
+func rtBary4(p []*big.Rat) [4]*big.Rat { return [4]*big.Rat{p[0], p[1], p[2], p[3]} }
 
-// TestGrundmannMoellerAgainstMonomials checks the recalled rule: it must
+// TestRTQuadratureRuleAgainstMonomials checks the recalled rule: it must
 // reproduce ∫_T̂ λ^a = a_0! a_1! a_2! a_3!/(|a| + 3)! on the tetrahedron
 // and ∫ μ^a = a_0! a_1! a_2!/(|a| + 2)! on the triangle exactly for
 // |a| ≤ 2s + 1 (the classical barycentric integrals, Eisenberg–Malvern
 // 1973).
-func TestGrundmannMoellerAgainstMonomials(t *testing.T) {
+func TestRTQuadratureRuleAgainstMonomials(t *testing.T) {
 	for s := 0; s <= 3; s++ {
-		pts, w := grundmannMoeller(3, s)
+		pts, w := rtGrundmannMoeller(3, s)
 		for deg := 0; deg <= 2*s+1; deg++ {
 			for _, a := range rtMulti(deg).alpha {
 				got := new(big.Rat)
@@ -184,7 +184,7 @@ func TestGrundmannMoellerAgainstMonomials(t *testing.T) {
 				}
 			}
 		}
-		pts, w = grundmannMoeller(2, s)
+		pts, w = rtGrundmannMoeller(2, s)
 		for deg := 0; deg <= 2*s+1; deg++ {
 			for _, a := range rtFaceMulti(deg).alpha {
 				got := new(big.Rat)
@@ -213,7 +213,7 @@ func TestGrundmannMoellerAgainstMonomials(t *testing.T) {
 func TestRTBasisInteriorMomentsByQuadrature(t *testing.T) {
 	for k := 1; k <= 3; k++ {
 		comp, _ := rtBasisRat(k)
-		pts, w := grundmannMoeller(3, k) // degree (k + 1) + (k − 1) = 2k ≤ 2k + 1
+		pts, w := rtGrundmannMoeller(3, k) // degree (k + 1) + (k − 1) = 2k ≤ 2k + 1
 		nf := rtFaceDim(k)
 		nq := rtDim(k - 1)
 		unit := func(m int) []*big.Rat {
@@ -230,8 +230,8 @@ func TestRTBasisInteriorMomentsByQuadrature(t *testing.T) {
 					got := new(big.Rat)
 					eb := unit(b)
 					for q, p := range pts {
-						v := rtEvalRat(comp[l][c], k+1, bary4(p))
-						v.Mul(v, rtEvalRat(eb, k-1, bary4(p)))
+						v := rtEvalRat(comp[l][c], k+1, rtBary4(p))
+						v.Mul(v, rtEvalRat(eb, k-1, rtBary4(p)))
 						got.Add(got, v.Mul(v, w[q]))
 					}
 					want := new(big.Rat)
@@ -289,11 +289,11 @@ func TestRTDivergenceTablesByDifferentiation(t *testing.T) {
 					for m, tm := range nodes {
 						y := x
 						y[c] = new(big.Rat).Add(x[c], tm)
-						v := rtEvalRat(comp[l][c], n, barycentric(y))
+						v := rtEvalRat(comp[l][c], n, rtBarycentric(y))
 						sum.Add(sum, v.Mul(v, dl[m]))
 					}
 				}
-				got := rtEvalRat(div[l], k, barycentric(x))
+				got := rtEvalRat(div[l], k, rtBarycentric(x))
 				if got.Cmp(sum) != 0 {
 					t.Fatalf("k=%d function %d: divergence table gives %s, differentiation %s", k, l, got.RatString(), sum.RatString())
 				}
