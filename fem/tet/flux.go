@@ -71,9 +71,10 @@ func (e *FluxOrientationError) Error() string {
 // NewFlux returns RT_k on the cells with the conditions bnd of the
 // boundary faces (keyed by global face number; every face of exactly one
 // cell must have one, and no other). It returns a *FluxOrientationError
-// when a cell is not verified positively oriented, and panics on misuse: k < 0, repeated nodes in a cell, a face shared by more
-// than two cells or by cells that disagree on its vertices, face numbers
-// with gaps, or conditions that do not match the boundary faces.
+// when a cell is not verified positively oriented, and panics on misuse:
+// k < 0, repeated nodes in a cell, a face shared by more than two cells or
+// by cells that disagree on its vertices, face numbers with gaps, or
+// conditions that do not match the boundary faces.
 func NewFlux(cells []RTCell, k int, bnd map[int]boundary.Condition) (*Flux, error) {
 	ref := rtReference(k)
 	geom := make([]fluxGeom, len(cells))
