@@ -489,11 +489,22 @@ func rtRatInverse(a [][]*big.Rat) ([][]*big.Rat, bool) {
 		w[i][n+i].SetInt64(1)
 	}
 	for c := 0; c < n; c++ {
-		piv := -1
+		// Pivot: among the rows with a nonzero in column c, one with the
+		// fewest nonzeros (less fill, smaller numbers; any nonzero pivot is
+		// exact).
+		piv, best := -1, 0
 		for r := c; r < n; r++ {
-			if w[r][c].Sign() != 0 {
-				piv = r
-				break
+			if w[r][c].Sign() == 0 {
+				continue
+			}
+			nz := 0
+			for _, v := range w[r] {
+				if v.Sign() != 0 {
+					nz++
+				}
+			}
+			if piv < 0 || nz < best {
+				piv, best = r, nz
 			}
 		}
 		if piv < 0 {
