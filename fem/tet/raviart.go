@@ -10,7 +10,8 @@ package tet
 // order elliptic problems, Springer LNM 606, 1977; J.-C. Nédélec, Mixed
 // finite elements in R³, Numer. Math. 35 (1980) 315–341; D. Boffi,
 // F. Brezzi, M. Fortin, Mixed Finite Element Methods and Applications,
-// Springer, 2013, §2.3.1).
+// Springer, 2013, §2.3.1; its section numbers here are recalled from
+// memory).
 //
 // Reference element. T̂ has the vertices ξ_0 = 0, ξ_1 = e_1, ξ_2 = e_2,
 // ξ_3 = e_3, barycentric λ_0 = 1 − ξ − η − ζ, λ_1 = ξ, λ_2 = η, λ_3 = ζ, and
@@ -31,8 +32,8 @@ package tet
 //     density g_i = σ̂·ν̂_i;
 //   - inside, the k(k + 1)(k + 2)/2 moments ∫_T̂ σ̂_c B^(k−1)_β, c = 1, 2, 3.
 //
-// They are unisolvent on RT_k (Nédélec 1980, Boffi–Brezzi–Fortin 2013,
-// Prop. 2.3.4, for the equivalent moment form of the face DOFs); here the
+// They are unisolvent on RT_k (Nédélec 1980, and Boffi–Brezzi–Fortin 2013,
+// §2.3, for the equivalent moment form of the face DOFs); here the
 // exact inversion of rtBasisRat verifies it for each k used, and fails
 // loudly otherwise. The basis dual to them is computed once per k in
 // math/big and kept, scaled to integers (rtRef), as the Bernstein
@@ -42,7 +43,9 @@ package tet
 // Jξ, J = [v_1 − v_0, v_2 − v_0, v_3 − v_0], det J = 6|T| > 0 (positive
 // orientation, verified from the enclosures: NewFlux). A member of RT_k(T)
 // is σ(x) = J σ̂(ξ)/det J. Then div σ = (div̂ σ̂)/det J (Boffi–Brezzi–Fortin
-// 2013, Lemma 2.1.6), and for a face with vertices A, B, C (images of
+// 2013, §2.1.3; by the chain rule, div σ = Σ_(a,c) ∂_a(J_(ac) σ̂_c)/det J =
+// Σ_(a,c,b) J_(ac) (J⁻¹)_(ba) ∂̂_b σ̂_c/det J = div̂ σ̂/det J), and for a
+// face with vertices A, B, C (images of
 // Â, B̂, Ĉ) the cofactor identity (Ja) × (Jb) = det J · J^(−T)(a × b),
 // valid for every 3×3 matrix J, gives
 //
@@ -64,16 +67,20 @@ package tet
 // i = 0, [v_1, v_2, v_3], is outward (on T̂, (ξ_2 − ξ_1) × (ξ_3 − ξ_1) =
 // (1, 1, 1)). The cross product (B − A) × (C − A) is alternating in
 // (A, B, C), so ν_F = sgn(π)(−1)^i ν_i, π the permutation that sorts the
-// global numbers of (j_1, j_2, j_3). Hence the local DOF of multi-index β
-// is s = sgn(π)(−1)^i times the global DOF of the multi-index β∘π⁻¹ (the
-// same point of the face, the same Bernstein polynomial). The two cells of
+// global numbers of (j_1, j_2, j_3). Hence σ·ν_i = s σ·ν_F with
+// s = sgn(π)(−1)^i, and the local DOF of a multi-index is s times the
+// global DOF of the multi-index that gives each vertex of the face the
+// same exponent (the same Bernstein polynomial on the face). The two cells of
 // an interior face therefore have normal traces σ·ν_F that are the same
 // polynomial on the face (the same exact values of the global DOFs), the
 // normal component is continuous across every interior face, and the
-// piecewise field lies in H(div; Ω) (Boffi–Brezzi–Fortin 2013, Prop.
-// 2.1.2: a piecewise H(div) field with continuous normal traces is in
-// H(div)). This is combinatorial: it holds for the exact mesh inside the
-// vertex enclosures and any float coefficients, given positive orientation.
+// piecewise field lies in H(div; Ω): for φ ∈ C_c^∞(Ω), Green's formula on
+// each cell gives ∫_Ω σ·∇φ = Σ_T (−∫_T φ div σ + ∫_∂T φ σ·n_T), the face
+// integrals cancel in pairs (σ·n_T = −σ·n_T′ on the face shared by T and
+// T′) and φ = 0 on ∂Ω, so the weak divergence of σ is its cellwise
+// divergence, in L²(Ω) (Boffi–Brezzi–Fortin 2013, §2.1). This is
+// combinatorial: it holds for the exact mesh inside the vertex enclosures
+// and any float coefficients, given positive orientation.
 //
 // Boundary. On a boundary face where the flux must vanish (Neumann, or
 // Robin with α not verified > 0: fem/boundary, Condition.FluxFree) the
