@@ -113,7 +113,8 @@ package tet
 //
 // The flux is chosen (Flux.ChooseApprox) by the normal equations of
 // ‖w‖²_X over RT_k, a plain sparse solve in floating point: a choice, any
-// σ is admissible in LGMatrix.
+// σ is admissible in LGMatrix. Flux.Indicators measures per cell how far
+// the fluxes are from ∇ũ_i/Λ_i (a choice, for refinement).
 //
 // Guarantees and inputs. Flux.LGMatrix encloses, entry by entry, A2 for
 // the exact mesh (every exact vertex inside its enclosure), the exact
