@@ -20,8 +20,9 @@ import (
 // subcube with corner c holds, for each permutation π of the axes, the
 // tetrahedron c, c + e_π(0), c + e_π(0) + e_π(1), c + e_1 + e_2 + e_3 —
 // common practice, H. W. Kuhn, Some combinatorial lemmas in topology, IBM
-// J. Res. Dev. 4 (1960) 518–524; it is also the Freudenthal triangulation,
-// cut by the planes x_i = j/n and x_i − x_j = l/n) and a minimal
+// J. Res. Dev. 4 (1960) 518–524, details recalled from memory; it is also
+// the Freudenthal triangulation, cut by the planes x_i = j/n and
+// x_i − x_j = l/n) and a minimal
 // conforming P_p trial space in Bernstein form (test-only: global DOFs by
 // domain point, Dirichlet DOFs removed, float assembly and interval Ritz
 // matrices).

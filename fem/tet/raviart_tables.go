@@ -16,7 +16,8 @@ import (
 // retrospective, Comput. Aided Geom. Design 29 (2012) 379–419; the
 // integral is the classical formula for barycentric monomials, e.g.
 // A. Eisenberg, L. E. Malvern, On finite element integration in natural
-// co-ordinates, Int. J. Numer. Methods Eng. 7 (1973) 574–575):
+// co-ordinates, Int. J. Numer. Methods Eng. 7 (1973) 574–575; page numbers
+// of both recalled from memory):
 //
 //	∫_T λ^a / |T| = 3! a_0! a_1! a_2! a_3! / (|a| + 3)!              (tetrahedron)
 //	∫_F μ^a / |F| = 2! a_0! a_1! a_2! / (|a| + 2)!                    (triangle F)
