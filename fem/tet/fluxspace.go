@@ -19,21 +19,15 @@ type FluxSpace struct {
 
 // NewFluxSpaceFree returns the flux space of f for the trial space s and
 // V = 0, with the weight 1/γ_B (NewFluxConstantWeight: an error unless
-// γ_B > 0 is verified). A potential V ≠ 0 takes NewFluxSpace with the
-// trial side's model of 1/(V + γ_B).
+// γ_B > 0 is verified). A potential V ≠ 0 needs the weight made from the
+// model of V itself (1/(V + γ_B) with its remainder, a FluxWeight), so
+// that no other weight can be paired with the problem by mistake.
 func NewFluxSpaceFree(s FluxTrial, f *Flux, gammaB interval.I) (*FluxSpace, error) {
 	w, err := NewFluxConstantWeight(gammaB)
 	if err != nil {
 		return nil, err
 	}
-	return NewFluxSpace(s, f, w), nil
-}
-
-// NewFluxSpace returns the flux space of f for the trial space s and the
-// weight w, which must enclose 1/(V + γ_B) of the problem on every cell
-// (FluxWeight).
-func NewFluxSpace(s FluxTrial, f *Flux, w FluxWeight) *FluxSpace {
-	return &FluxSpace{trial: s, flux: f, weight: w}
+	return &FluxSpace{trial: s, flux: f, weight: w}, nil
 }
 
 // N returns the dimension of the flux space.
