@@ -45,13 +45,13 @@ func BenchmarkFluxLGMatrix(b *testing.B) {
 	for k := 0; k <= 4; k++ {
 		b.Run(fmt.Sprintf("k=%d", k), func(b *testing.B) {
 			fs, trial, flux := fluxBenchSetup(b, 4, k, 4)
-			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {
 				if _, err := fs.LGMatrix(trial, flux); err != nil {
 					b.Fatal(err)
 				}
 			}
+			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 		})
 	}
 }
@@ -62,13 +62,13 @@ func BenchmarkFluxChoose(b *testing.B) {
 	for k := 0; k <= 3; k++ {
 		b.Run(fmt.Sprintf("k=%d", k), func(b *testing.B) {
 			fs, trial, _ := fluxBenchSetup(b, 4, k, 4)
-			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {
 				if _, err := fs.Choose(trial); err != nil {
 					b.Fatal(err)
 				}
 			}
+			b.ReportMetric(float64(fs.N()), "flux-unknowns")
 		})
 	}
 }
