@@ -1,0 +1,545 @@
+package tet
+
+// # Raviart–Thomas fluxes on tetrahedra (stage B)
+//
+// (This section belongs to the package documentation.)
+//
+// The flux space of the Lehmann–Goerisch bounds on a tetrahedral mesh of
+// a polyhedron Ω is the Raviart–Thomas space RT_k ⊂ H(div; Ω), k ≥ 0
+// (P.-A. Raviart, J.-M. Thomas, A mixed finite element method for 2nd
+// order elliptic problems, Springer LNM 606, 1977; J.-C. Nédélec, Mixed
+// finite elements in R³, Numer. Math. 35 (1980) 315–341; D. Boffi,
+// F. Brezzi, M. Fortin, Mixed Finite Element Methods and Applications,
+// Springer, 2013, §2.3.1; its section numbers here are recalled from
+// memory).
+//
+// Reference element. T̂ has the vertices ξ_0 = 0, ξ_1 = e_1, ξ_2 = e_2,
+// ξ_3 = e_3, barycentric λ_0 = 1 − ξ − η − ζ, λ_1 = ξ, λ_2 = η, λ_3 = ζ, and
+//
+//	RT_k(T̂) = P_k³ + x P̃_k,   dim = (k + 1)(k + 2)(k + 4)/2,
+//
+// P̃_k the homogeneous polynomials of degree k. Its members have components
+// of degree ≤ k + 1 (kept in Bernstein form of degree n = k + 1),
+// divergence in P_k, and on each face a normal component in P_k (the part
+// x·h, h ∈ P̃_k, has x·ν̂ = const·h on a face, the constant being 0 on the
+// faces through the origin). Local face i is the face opposite vertex i,
+// with its vertices in increasing local order, and ν̂_i is its outward
+// normal times twice its area: ν̂_0 = (1, 1, 1), ν̂_1 = −e_1, ν̂_2 = −e_2,
+// ν̂_3 = −e_3. The degrees of freedom are
+//
+//   - on face i, the (k + 1)(k + 2)/2 Bernstein coefficients (degree k, in
+//     the barycentric coordinates of the face's vertices) of the flux
+//     density g_i = σ̂·ν̂_i;
+//   - inside, the k(k + 1)(k + 2)/2 moments ∫_T̂ σ̂_c B^(k−1)_β, c = 1, 2, 3.
+//
+// They are unisolvent on RT_k (Nédélec 1980, and Boffi–Brezzi–Fortin 2013,
+// §2.3, for the equivalent moment form of the face DOFs); here the
+// exact inversion of rtBasisRat verifies it for each k used, and fails
+// loudly otherwise. The basis dual to them is computed once per k in
+// math/big and kept, scaled to integers (rtRef), as the Bernstein
+// coefficients of its three components and of its divergence.
+//
+// Piola transform. A tetrahedron T with vertices v_0, …, v_3 is x = v_0 +
+// Jξ, J = [v_1 − v_0, v_2 − v_0, v_3 − v_0], det J = 6|T| > 0 (positive
+// orientation, verified from the enclosures: NewFlux). A member of RT_k(T)
+// is σ(x) = J σ̂(ξ)/det J. Then div σ = (div̂ σ̂)/det J (Boffi–Brezzi–Fortin
+// 2013, §2.1.3; by the chain rule, div σ = Σ_(a,c) ∂_a(J_(ac) σ̂_c)/det J =
+// Σ_(a,c,b) J_(ac) (J⁻¹)_(ba) ∂̂_b σ̂_c/det J = div̂ σ̂/det J), and for a
+// face with vertices A, B, C (images of
+// Â, B̂, Ĉ) the cofactor identity (Ja) × (Jb) = det J · J^(−T)(a × b),
+// valid for every 3×3 matrix J, gives
+//
+//	ν = (B − A) × (C − A) = det J · J^(−T) ν̂,   ν̂ = (B̂ − Â) × (Ĉ − Â),
+//	σ(x)·ν = (J σ̂/det J)·(det J J^(−T) ν̂) = σ̂(ξ)·ν̂
+//
+// at corresponding points, exactly. With det J > 0 the map keeps outward
+// normals outward, so the flux density σ·ν_i of the physical face i
+// (outward normal times twice the area) is the reference one: its
+// Bernstein coefficients are the face DOFs.
+//
+// Conformity (H(div)). A face of the mesh with global vertex numbers
+// a < b < c has the global normal ν_F = (P_b − P_a) × (P_c − P_a) and its
+// global DOFs are the degree-k Bernstein coefficients of σ·ν_F in the
+// barycentric coordinates of (P_a, P_b, P_c). In a cell, local face i with
+// vertices j_1 < j_2 < j_3 has (P_(j_2) − P_(j_1)) × (P_(j_3) − P_(j_1)) =
+// (−1)^i ν_i: the oriented boundary of the positively oriented simplex
+// [v_0, v_1, v_2, v_3] is Σ_i (−1)^i [v_0, …, v̂_i, …, v_3], and the term
+// i = 0, [v_1, v_2, v_3], is outward (on T̂, (ξ_2 − ξ_1) × (ξ_3 − ξ_1) =
+// (1, 1, 1)). The cross product (B − A) × (C − A) is alternating in
+// (A, B, C), so ν_F = sgn(π)(−1)^i ν_i, π the permutation that sorts the
+// global numbers of (j_1, j_2, j_3). Hence σ·ν_i = s σ·ν_F with
+// s = sgn(π)(−1)^i, and the local DOF of a multi-index is s times the
+// global DOF of the multi-index that gives each vertex of the face the
+// same exponent (the same Bernstein polynomial on the face). The two cells of
+// an interior face therefore have normal traces σ·ν_F that are the same
+// polynomial on the face (the same exact values of the global DOFs), the
+// normal component is continuous across every interior face, and the
+// piecewise field lies in H(div; Ω): for φ ∈ C_c^∞(Ω), Green's formula on
+// each cell gives ∫_Ω σ·∇φ = Σ_T (−∫_T φ div σ + ∫_∂T φ σ·n_T), the face
+// integrals cancel in pairs (σ·n_T = −σ·n_T′ on the face shared by T and
+// T′) and φ = 0 on ∂Ω, so the weak divergence of σ is its cellwise
+// divergence, in L²(Ω) (Boffi–Brezzi–Fortin 2013, §2.1). This is
+// combinatorial: it holds for the exact mesh inside the vertex enclosures
+// and any float coefficients, given positive orientation.
+//
+// Boundary. On a boundary face where the flux must vanish (Neumann, or
+// Robin with α not verified > 0: fem/boundary, Condition.FluxFree) the
+// face DOFs are removed (exactly 0), so σ·n = 0 there. On Dirichlet faces
+// they are free, on Robin faces with α > 0 they are free and enter the
+// norm with the weight 1/α.
+//
+// Lehmann–Goerisch. With c = V + γ_B verified > 0, M(u, v) = a(u, v) +
+// γ_B b(u, v), X = L²(Ω)³ × L²(Ω) × L²(Γ_R) and Tu = (∇u, √c u,
+// √α u|_(Γ_R)), (Tu, Tv)_X = M(u, v). For a trial function ũ ∈ H and a
+// flux σ put w = (σ, (ũ + div σ)/√c, −(σ·n)/√α on Robin faces with α > 0,
+// 0 elsewhere). Green's formula ∫_Ω ∇φ·σ + ∫_Ω φ div σ = ∫_∂Ω φ σ·n (for
+// φ ∈ H¹(Ω), σ ∈ H(div; Ω) with a piecewise polynomial normal trace)
+// gives, for every φ ∈ H,
+//
+//	(Tφ, w)_X = ∫∇φ·σ + ∫φ div σ + ∫φũ − ∫_(Γ_R, α>0) φ σ·n = b(φ, ũ),
+//
+// because on the rest of ∂Ω either φ = 0 (Dirichlet) or σ·n = 0. That is
+// the hypothesis of the Lehmann–Goerisch theorem (package temple), and
+// Flux.LGMatrix encloses
+//
+//	A2_ij = (w_i, w_j)_X = (σ_i, σ_j) + ((ũ_i + div σ_i)/c, ũ_j + div σ_j) + Σ_(F ⊂ Γ_R, α_F > 0) ∫_F (σ_i·n)(σ_j·n)/α_F.
+//
+// The weight 1/c enters per cell as a Bernstein polynomial Q plus a
+// remainder interval R (FluxWeight), and the term with R is bounded by
+// Cauchy–Schwarz, |∫(R − r_mid) f g| ≤ r_rad ‖f‖‖g‖ (package
+// fem/internal/bernstein, Remainders). For V = 0 the weight is the
+// constant 1/γ_B enclosed (FluxConstantWeight); a potential V ≠ 0 needs
+// a FluxWeight from the trial side's model of 1/(V + γ_B).
+//
+// The flux is chosen (Flux.ChooseApprox) by the normal equations of
+// ‖w‖²_X over RT_k, a plain sparse solve in floating point: a choice, any
+// σ is admissible in LGMatrix. Flux.Indicators measures per cell how far
+// the fluxes are from ∇ũ_i/Λ_i (a choice, for refinement).
+//
+// Guarantees and inputs. Flux.LGMatrix encloses, entry by entry, A2 for
+// the exact mesh (every exact vertex inside its enclosure), the exact
+// functions given by the float coefficients of the fluxes and of the
+// trial functions, and every exact value inside the enclosures of α and
+// of the weight model. The integrals are exact on each cell: the fields
+// are in Bernstein form in the barycentric coordinates, and products,
+// divergences, elevations and integrals are exact rational identities
+// (raviart_tables.go), evaluated in outward rounded interval arithmetic
+// from tables enclosed from math/big; the reference coefficients are
+// combined with the float coefficients by error-free transformations
+// (fluxExactCombination). What the code checks: positive orientation of
+// every cell (det J > 0 from the enclosures, else a
+// *FluxOrientationError), a bounded weight model, γ_B > 0 for V = 0.
+// What the caller supplies and the doc of each input states: the cells (RTCell: vertex enclosures,
+// global vertex and face numbers; the tiling of Ω is the mesh's proof),
+// the boundary conditions of the boundary faces, a trial space on the
+// same cells (FluxTrial: exact Bernstein coefficients per cell) and a
+// weight that encloses 1/(V + γ_B) (FluxWeight). Functions named Approx
+// work at round-to-nearest: their results are choices, never bounds.
+
+import (
+	"fmt"
+	"math/big"
+	"sync"
+)
+
+// rtFaceVertices lists, for each local face i, its local vertices in
+// increasing order.
+var rtFaceVertices = [4][3]int{{1, 2, 3}, {0, 2, 3}, {0, 1, 3}, {0, 1, 2}}
+
+// rtRefNormal is ν̂_i, the outward normal of reference face i times twice
+// its area.
+var rtRefNormal = [4][3]int64{{1, 1, 1}, {-1, 0, 0}, {0, -1, 0}, {0, 0, -1}}
+
+// rtRef is the reference basis of RT_k, scaled to integer coefficients:
+// φ'_l = s_l φ_l with s_l = faceScale for every face function (one common
+// integer, so that the two cells at a face scale its DOFs alike) and the
+// least common denominator of its coefficients for an interior one.
+// Local DOFs are ordered face 0, 1, 2, 3 (each by rtFaceMulti(k)), then
+// the moments (component c = 0, 1, 2, each by rtMulti(k − 1)).
+type rtRef struct {
+	k, n  int // degree and component degree n = k + 1
+	ndof  int
+	nFace int // DOFs per face, (k + 1)(k + 2)/2
+	// compT[c][α·ndof + l]: coefficient α (degree n) of component c of φ'_l;
+	// divT[β·ndof + l]: coefficient β (degree k) of div̂ φ'_l. Every entry
+	// is an integer of at most 53 bits, so exactly a float64.
+	compT     [3][]float64
+	divT      []float64
+	faceScale float64
+}
+
+var (
+	rtRefMu    sync.Mutex
+	rtRefCache = map[int]*rtRef{}
+)
+
+// RTDim returns the dimension (k + 1)(k + 2)(k + 4)/2 of RT_k on one
+// tetrahedron.
+func RTDim(k int) int { return (k + 1) * (k + 2) * (k + 4) / 2 }
+
+// rtReference returns the scaled reference basis of RT_k (cached). It
+// panics for k < 0 or when a scaled coefficient is not an integer of at
+// most 53 bits.
+func rtReference(k int) *rtRef {
+	if k < 0 {
+		panic("tet: Raviart–Thomas degree must be ≥ 0")
+	}
+	rtRefMu.Lock()
+	defer rtRefMu.Unlock()
+	if r, ok := rtRefCache[k]; ok {
+		return r
+	}
+	comp, div := rtBasisRat(k)
+	ndof := RTDim(k)
+	nFace := rtFaceDim(k)
+	scale := make([]*big.Int, ndof)
+	face := big.NewInt(1)
+	for l := 0; l < ndof; l++ {
+		scale[l] = big.NewInt(1)
+		for c := 0; c < 3; c++ {
+			for _, v := range comp[l][c] {
+				scale[l] = rtLCM(scale[l], v.Denom())
+			}
+		}
+		for _, v := range div[l] {
+			scale[l] = rtLCM(scale[l], v.Denom())
+		}
+		if l < 4*nFace {
+			face = rtLCM(face, scale[l])
+		}
+	}
+	for l := 0; l < 4*nFace; l++ {
+		scale[l] = face
+	}
+	exact := func(v *big.Rat, l int) float64 {
+		x := new(big.Rat).Mul(v, new(big.Rat).SetInt(scale[l]))
+		f, isExact := x.Float64()
+		if !x.IsInt() || !isExact || x.Num().BitLen() > 53 {
+			panic(fmt.Sprintf("tet: scaled Raviart–Thomas coefficient %v of degree %d is not a small integer", x, k))
+		}
+		return f
+	}
+	n := k + 1
+	nn, nk := rtDim(n), rtDim(k)
+	r := &rtRef{k: k, n: n, ndof: ndof, nFace: nFace, divT: make([]float64, nk*ndof)}
+	r.faceScale = exact(big.NewRat(1, 1), 0)
+	for c := 0; c < 3; c++ {
+		r.compT[c] = make([]float64, nn*ndof)
+		for l := 0; l < ndof; l++ {
+			for a := 0; a < nn; a++ {
+				r.compT[c][a*ndof+l] = exact(comp[l][c][a], l)
+			}
+		}
+	}
+	for l := 0; l < ndof; l++ {
+		for b := 0; b < nk; b++ {
+			r.divT[b*ndof+l] = exact(div[l][b], l)
+		}
+	}
+	rtRefCache[k] = r
+	return r
+}
+
+func rtLCM(a, b *big.Int) *big.Int {
+	g := new(big.Int).GCD(nil, nil, a, b)
+	return new(big.Int).Mul(a, new(big.Int).Quo(b, g))
+}
+
+// rtField is a vector field on T̂: the Bernstein coefficients (degree n)
+// of its three components.
+type rtField [3][]*big.Rat
+
+// rtBasisRat returns the dual basis of RT_k: comp[l][c] the degree-(k+1)
+// Bernstein coefficients of component c of basis function l, div[l] the
+// degree-k coefficients of its divergence, exactly.
+func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
+	n := k + 1
+	nn := rtDim(n)
+	zero := func() []*big.Rat {
+		z := make([]*big.Rat, nn)
+		for i := range z {
+			z[i] = new(big.Rat)
+		}
+		return z
+	}
+	// Spanning set (sparse in Bernstein form): e_c B^k_α for the Bernstein
+	// basis of P_k, written in degree n by the elevation B^k_α =
+	// Σ_j (α_j + 1)/n · B^n_(α+e_j), and x h for the monomials h = ξ^a η^b ζ^d
+	// of degree exactly k, whose components λ_(c+1) h = λ^δ (δ = (0, a, b, d)
+	// + e_(c+1), |δ| = n) are B^n_δ/C(n, δ).
+	in := rtMulti(n)
+	var span []rtField
+	for c := 0; c < 3; c++ {
+		for _, al := range rtMulti(k).alpha {
+			f := rtField{zero(), zero(), zero()}
+			for j := 0; j < 4; j++ {
+				up := al
+				up[j]++
+				f[c][in.pos[up]].SetFrac64(int64(al[j]+1), int64(n))
+			}
+			span = append(span, f)
+		}
+	}
+	for a := 0; a <= k; a++ {
+		for b := 0; a+b <= k; b++ {
+			d := k - a - b
+			f := rtField{zero(), zero(), zero()}
+			for c := 0; c < 3; c++ {
+				delta := [4]int{0, a, b, d}
+				delta[c+1]++
+				f[c][in.pos[delta]].SetFrac(big.NewInt(1), rtMultinom(delta[:]...))
+			}
+			span = append(span, f)
+		}
+	}
+	ndof := RTDim(k)
+	if len(span) != ndof {
+		panic("tet: Raviart–Thomas spanning set has the wrong size")
+	}
+	a := make([][]*big.Rat, ndof)
+	for l := range a {
+		a[l] = make([]*big.Rat, ndof)
+	}
+	var gram []*big.Rat
+	if k > 0 {
+		gram = rtTripleRat(0, n, k-1)
+	}
+	red := rtReduction(k)
+	for m, s := range span {
+		for l, v := range rtFunctionals(k, s, gram, red) {
+			a[l][m] = v
+		}
+	}
+	x, ok := rtRatInverse(a)
+	if !ok {
+		panic(fmt.Sprintf("tet: Raviart–Thomas degrees of freedom of degree %d are not unisolvent", k))
+	}
+	// Basis function l = Σ_m span_m X[m][l], over the nonzero entries of
+	// the sparse span.
+	type entry struct{ c, b int }
+	nz := make([][]entry, ndof)
+	for m, s := range span {
+		for c := 0; c < 3; c++ {
+			for b, v := range s[c] {
+				if v.Sign() != 0 {
+					nz[m] = append(nz[m], entry{c, b})
+				}
+			}
+		}
+	}
+	comp = make([]rtField, ndof)
+	for l := 0; l < ndof; l++ {
+		comp[l] = rtField{zero(), zero(), zero()}
+		for m, s := range span {
+			if x[m][l].Sign() == 0 {
+				continue
+			}
+			for _, e := range nz[m] {
+				v := comp[l][e.c][e.b]
+				v.Add(v, new(big.Rat).Mul(x[m][l], s[e.c][e.b]))
+			}
+		}
+	}
+	div = make([][]*big.Rat, ndof)
+	for l := range comp {
+		div[l] = rtDivergenceRat(comp[l], n)
+	}
+	return comp, div
+}
+
+// rtDivergenceRat returns the degree-(n−1) Bernstein coefficients of
+// div̂ s for a field of degree n: ∂/∂ξ_c = ∂/∂λ_(c+1) − ∂/∂λ_0 and
+// ∂B^n_α/∂λ_j = n B^(n−1)_(α−e_j), so coefficient β is
+// n Σ_c (s_c[β + e_(c+1)] − s_c[β + e_0]).
+func rtDivergenceRat(s rtField, n int) []*big.Rat {
+	in, ik := rtMulti(n), rtMulti(n-1)
+	out := make([]*big.Rat, len(ik.alpha))
+	fn := new(big.Rat).SetInt64(int64(n))
+	for b, beta := range ik.alpha {
+		d := new(big.Rat)
+		up0 := beta
+		up0[0]++
+		for c := 0; c < 3; c++ {
+			up := beta
+			up[c+1]++
+			d.Add(d, s[c][in.pos[up]])
+			d.Sub(d, s[c][in.pos[up0]])
+		}
+		out[b] = d.Mul(d, fn)
+	}
+	return out
+}
+
+// rtFunctionals returns the degrees of freedom of the field s (components
+// of degree n = k + 1) in the order of rtRef, with g = rtTripleRat(0, n,
+// k − 1) (nil for k = 0) and red = rtReduction(k).
+func rtFunctionals(k int, s rtField, g []*big.Rat, red [][]*big.Rat) []*big.Rat {
+	n := k + 1
+	in := rtMulti(n)
+	fn := rtFaceMulti(n)
+	var out []*big.Rat
+	for i := 0; i < 4; i++ {
+		e := make([]*big.Rat, len(fn.alpha))
+		for m, b := range fn.alpha {
+			var a [4]int
+			for r, j := range rtFaceVertices[i] {
+				a[j] = b[r]
+			}
+			p := in.pos[a]
+			v := new(big.Rat)
+			for c := 0; c < 3; c++ {
+				if nu := rtRefNormal[i][c]; nu != 0 {
+					v.Add(v, new(big.Rat).Mul(s[c][p], new(big.Rat).SetInt64(nu)))
+				}
+			}
+			e[m] = v
+		}
+		for _, row := range red {
+			acc := new(big.Rat)
+			for m, v := range row {
+				if v.Sign() != 0 && e[m].Sign() != 0 {
+					acc.Add(acc, new(big.Rat).Mul(v, e[m]))
+				}
+			}
+			out = append(out, acc)
+		}
+	}
+	if k > 0 {
+		nq := rtDim(k - 1)
+		sixth := big.NewRat(1, 6) // |T̂|: the table is normalised by |T|
+		for c := 0; c < 3; c++ {
+			for b := 0; b < nq; b++ {
+				acc := new(big.Rat)
+				for a := range s[c] {
+					if s[c][a].Sign() != 0 {
+						acc.Add(acc, new(big.Rat).Mul(s[c][a], g[a*nq+b]))
+					}
+				}
+				out = append(out, acc.Mul(acc, sixth))
+			}
+		}
+	}
+	return out
+}
+
+var (
+	rtReductionMu    sync.Mutex
+	rtReductionCache = map[int][][]*big.Rat{}
+)
+
+// rtReduction returns L = (EᵀE)⁻¹Eᵀ for the elevation E of triangle
+// Bernstein coefficients from degree k to k + 1 (E_(αβ) = C(k, β)/C(k+1, α)
+// for α − β a unit multi-index, else 0: the elevation identity with
+// d − m = 1). E has full column rank (elevation is injective), so L is a
+// left inverse: L E c = c, and L maps the degree-(k+1) coefficients of a
+// polynomial of degree ≤ k to its degree-k coefficients exactly.
+func rtReduction(k int) [][]*big.Rat {
+	rtReductionMu.Lock()
+	defer rtReductionMu.Unlock()
+	if l, ok := rtReductionCache[k]; ok {
+		return l
+	}
+	ik, in := rtFaceMulti(k), rtFaceMulti(k+1)
+	e := make([][]*big.Rat, len(in.alpha)) // e[α][β]
+	for a, al := range in.alpha {
+		e[a] = make([]*big.Rat, len(ik.alpha))
+		for b, be := range ik.alpha {
+			e[a][b] = new(big.Rat)
+			if al[0] >= be[0] && al[1] >= be[1] && al[2] >= be[2] {
+				e[a][b].SetFrac(rtMultinom(be[:]...), rtMultinom(al[:]...))
+			}
+		}
+	}
+	nk := len(ik.alpha)
+	ete := make([][]*big.Rat, nk)
+	for i := range ete {
+		ete[i] = make([]*big.Rat, nk)
+		for j := range ete[i] {
+			acc := new(big.Rat)
+			for a := range e {
+				acc.Add(acc, new(big.Rat).Mul(e[a][i], e[a][j]))
+			}
+			ete[i][j] = acc
+		}
+	}
+	inv, ok := rtRatInverse(ete)
+	if !ok {
+		panic("tet: triangle degree elevation is not injective")
+	}
+	l := make([][]*big.Rat, nk)
+	for i := range l {
+		l[i] = make([]*big.Rat, len(in.alpha))
+		for a := range in.alpha {
+			acc := new(big.Rat)
+			for j := 0; j < nk; j++ {
+				acc.Add(acc, new(big.Rat).Mul(inv[i][j], e[a][j]))
+			}
+			l[i][a] = acc
+		}
+	}
+	rtReductionCache[k] = l
+	return l
+}
+
+// rtRatInverse returns the inverse of the square matrix a by Gauss–Jordan
+// elimination in exact arithmetic, or false if a is singular.
+func rtRatInverse(a [][]*big.Rat) ([][]*big.Rat, bool) {
+	n := len(a)
+	w := make([][]*big.Rat, n)
+	for i := range w {
+		w[i] = make([]*big.Rat, 2*n)
+		for j := 0; j < n; j++ {
+			w[i][j] = new(big.Rat).Set(a[i][j])
+		}
+		for j := n; j < 2*n; j++ {
+			w[i][j] = new(big.Rat)
+		}
+		w[i][n+i].SetInt64(1)
+	}
+	for c := 0; c < n; c++ {
+		// Pivot: among the rows with a nonzero in column c, one with the
+		// fewest nonzeros (less fill, smaller numbers; any nonzero pivot is
+		// exact).
+		piv, best := -1, 0
+		for r := c; r < n; r++ {
+			if w[r][c].Sign() == 0 {
+				continue
+			}
+			nz := 0
+			for _, v := range w[r] {
+				if v.Sign() != 0 {
+					nz++
+				}
+			}
+			if piv < 0 || nz < best {
+				piv, best = r, nz
+			}
+		}
+		if piv < 0 {
+			return nil, false
+		}
+		w[c], w[piv] = w[piv], w[c]
+		inv := new(big.Rat).Inv(w[c][c])
+		for j := range w[c] {
+			if w[c][j].Sign() != 0 {
+				w[c][j].Mul(w[c][j], inv)
+			}
+		}
+		for r := 0; r < n; r++ {
+			if r == c || w[r][c].Sign() == 0 {
+				continue
+			}
+			f := new(big.Rat).Set(w[r][c])
+			for j := range w[r] {
+				if w[c][j].Sign() != 0 {
+					w[r][j].Sub(w[r][j], new(big.Rat).Mul(f, w[c][j]))
+				}
+			}
+		}
+	}
+	out := make([][]*big.Rat, n)
+	for i := range out {
+		out[i] = w[i][n:]
+	}
+	return out, true
+}
