@@ -194,4 +194,3 @@ func CornerFileName(problemSHA256 string) string {
 }
 
 const cellSuffix = ".cell.json"
-

@@ -11,6 +11,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"gapcert/certs"
 	"gapcert/certs/cover"
 	"gapcert/certs/sweep"
 )
@@ -158,4 +159,49 @@ func printCoverage(w io.Writer, s *cover.Summary) {
 		}
 		fmt.Fprintf(w, "  cell %s: %s (%s)\n", strings.Join(parts, ", "), r.Verdict, r.Status)
 	}
+}
+
+// runCoverMerge merges cover directories (cover.Merge).
+func runCoverMerge(cmd *cobra.Command, dirs []string, out string, quiet bool) error {
+	var progress func(string, ...any)
+	if !quiet && isTerminal(cmd.ErrOrStderr()) {
+		progress = func(format string, a ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, a...) }
+	}
+	s, err := cover.Merge(dirs, out, progress)
+	var me *cover.MergeError
+	var inv *cover.InvalidError
+	switch {
+	case errors.As(err, &me):
+		return &exitError{code: exitMismatch, err: err}
+	case errors.As(err, &inv):
+		return &exitError{code: exitInvalid, err: err}
+	case err != nil:
+		return &exitError{code: exitFailure, err: err}
+	}
+	w := cmd.OutOrStdout()
+	fmt.Fprintf(w, "merged %d directories: %d cells, every cell certificate verifies\n", len(dirs), len(s.Cells))
+	fmt.Fprintf(w, "tiling: %s\n", s.Tiling)
+	printCoverage(w, s)
+	fmt.Fprintf(w, "summary written to %s\n", filepath.Join(out, "summary.json"))
+	return nil
+}
+
+// checkCoverCell re-verifies a cell certificate with the corner files
+// beside it (cover.CheckCell).
+func checkCoverCell(cmd *cobra.Command, name string, data []byte) error {
+	c, _, err := cover.CheckCell(data, filepath.Dir(name), nil)
+	var mm *cover.MismatchError
+	var bad *certs.FormatError
+	switch {
+	case errors.As(err, &mm), errors.As(err, &bad):
+		return &exitError{code: exitMismatch, err: fmt.Errorf("%s: %v", name, err)}
+	case err != nil:
+		return &exitError{code: exitFailure, err: fmt.Errorf("%s: %v", name, err)}
+	}
+	var parts []string
+	for _, b := range c.Bounds {
+		parts = append(parts, fmt.Sprintf("%s ∈ [%s, %s]", b.Name, b.Lo, b.Hi))
+	}
+	fmt.Fprintf(cmd.OutOrStdout(), "%s: cell certificate verifies (%s: corners recomputed, order, enclosures and verdicts agree; verdict %s)\n", name, strings.Join(parts, ", "), c.Verdict)
+	return nil
 }
