@@ -381,8 +381,8 @@ func decideSign(e *formula.Expr, env map[string]interval.I, wrt, what string) (i
 	evals := 0
 	var lastErr error
 	for len(pieces) > 0 {
-		b := pieces[len(pieces)-1]
-		pieces = pieces[:len(pieces)-1]
+		b := pieces[0] // breadth first: the pieces shrink evenly
+		pieces = pieces[1:]
 		evals++
 		g, err := e.Gradient(b, []string{wrt})
 		if err == nil && !(isFinite(g[0])) {
@@ -433,7 +433,7 @@ func decideSign(e *formula.Expr, env map[string]interval.I, wrt, what string) (i
 		if !ok {
 			return 0, hull, fmt.Errorf("the sign of %s is not decided on the box (%v)", what, err)
 		}
-		pieces = append(pieces, upper, lower)
+		pieces = append(pieces, lower, upper)
 	}
 	switch {
 	case pos == 0 && neg == 0:
