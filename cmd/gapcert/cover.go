@@ -1,11 +1,13 @@
 package main
 
 import (
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"time"
 
@@ -13,6 +15,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/cover"
+	"gapcert/certs/plot/coverplot"
 	"gapcert/certs/sweep"
 )
 
@@ -203,5 +206,47 @@ func checkCoverCell(cmd *cobra.Command, name string, data []byte) error {
 		parts = append(parts, fmt.Sprintf("%s ∈ [%s, %s]", b.Name, b.Lo, b.Hi))
 	}
 	fmt.Fprintf(cmd.OutOrStdout(), "%s: cell certificate verifies (%s: corners recomputed, order, enclosures and verdicts agree; verdict %s)\n", name, strings.Join(parts, ", "), c.Verdict)
+	return nil
+}
+
+// isCoverSummary reports whether path is a cover summary or a directory
+// holding one.
+func isCoverSummary(path string) bool {
+	if st, err := os.Stat(path); err == nil && st.IsDir() {
+		path = filepath.Join(path, "summary.json")
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return false
+	}
+	var head struct {
+		Format string `json:"format"`
+	}
+	return json.Unmarshal(data, &head) == nil && head.Format == cover.SummaryFormat
+}
+
+// plotCover draws the cells of a cover coloured by their verdict on the
+// claim (1-based text; "" = the first).
+func plotCover(cmd *cobra.Command, path, out, claim string) error {
+	n := 1
+	if claim != "" {
+		k, err := strconv.Atoi(claim)
+		if err != nil || k < 1 {
+			return &exitError{code: exitFailure, err: fmt.Errorf("--claim %q: give the claim's number (1-based) in a cover", claim)}
+		}
+		n = k
+	}
+	if err := checkPictureFile(out, path); err != nil {
+		return err
+	}
+	c, err := coverplot.Load(path, n-1)
+	if err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	format := strings.TrimPrefix(strings.ToLower(filepath.Ext(out)), ".")
+	if err := coverplot.Draw(c, out, format); err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	fmt.Fprintf(cmd.OutOrStdout(), "picture written to %s\n", out)
 	return nil
 }
