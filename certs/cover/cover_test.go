@@ -14,7 +14,6 @@ import (
 	"gapcert/certs"
 	"gapcert/certs/certify"
 	"gapcert/certs/sweep"
-	"gapcert/fem/problem"
 )
 
 func fixedNow() time.Time { return time.Date(2026, 1, 2, 3, 4, 5, 0, time.UTC) }
@@ -167,28 +166,61 @@ func TestRobinRectangleComparisonHoldsOnTheWholeRange(t *testing.T) {
 }
 
 // TestCellEnclosesEveryPoint certifies random points inside random cells
-// of the harmonic family separately and demands that each point's
-// eigenvalue and gap enclosures lie inside the cell's (the cell's
-// enclosures hold for every parameter value of the cell).
+// separately and demands that each point's eigenvalue and gap enclosures
+// lie inside the cell's (the cell's enclosures hold for every parameter
+// value of the cell): cells of the harmonic family (c nondecreasing), and
+// of a two-parameter family with a Robin end α = a (nondecreasing) and V =
+// −c·x (nonincreasing in c), so that the product order and a reversed
+// direction are exercised. 30 cells per family by default, 1000 with
+// GAPCERT_LONG=1.
 func TestCellEnclosesEveryPoint(t *testing.T) {
-	cells := 50
+	cells := 30
 	if os.Getenv("GAPCERT_LONG") == "1" {
 		cells = 1000
 	}
-	f := mustFamily(t, strings.Replace(harmonicFamily, `"1e-10"`, `"1e-6"`, 1))
-	dir := t.TempDir()
-	rng := rand.New(rand.NewSource(15))
-	verifier := NewCornerVerifier()
-	e := &engine{f: f, dir: dir, opt: testOptions(), verifier: verifier, corners: map[string]*cornerEntry{}}
-	for i := 0; i < cells; i++ {
-		// A random cell [lo, lo + w] with exact dyadic ends inside [0, 5].
-		lo := big.NewRat(int64(rng.Intn(5*1024)), 1024)
-		w := big.NewRat(int64(1+rng.Intn(64)), 1024)
-		hi := new(big.Rat).Add(lo, w)
-		if hi.Cmp(big.NewRat(5, 1)) > 0 {
-			hi = big.NewRat(5, 1)
+	t.Run("harmonic", func(t *testing.T) {
+		f := mustFamily(t, strings.Replace(harmonicFamily, `"1e-10"`, `"1e-6"`, 1))
+		pointsInsideCells(t, f, cells, 15)
+	})
+	t.Run("robin and reversed potential", func(t *testing.T) {
+		f := mustFamily(t, `{
+		  "template": {"domain": {"interval": ["0", "1"]}, "potential": "-c*x", "boundary": [{"robin": "a"}, "dirichlet"]},
+		  "parameters": [{"name": "a", "range": {"lo": "0", "hi": "4"}, "min_cell": "1/64"},
+		                 {"name": "c", "range": {"lo": "0", "hi": "4"}, "min_cell": "1/64"}],
+		  "relative_width": "1e-6"}`)
+		if f.Dependences[0].Direction != 1 || f.Dependences[1].Direction != -1 {
+			t.Fatalf("directions %d, %d; want +1 (Robin a) and −1 (V = −c·x)", f.Dependences[0].Direction, f.Dependences[1].Direction)
 		}
-		b := Box{Lo: []*big.Rat{lo}, Hi: []*big.Rat{hi}}
+		pointsInsideCells(t, f, cells, 16)
+	})
+}
+
+// pointsInsideCells draws n random cells with dyadic bounds inside the
+// family's box, certifies their corners, then one random point strictly
+// inside each, and demands that the point's λ1, λ2 and gap enclosures lie
+// inside the cell's.
+func pointsInsideCells(t *testing.T, f *Family, n int, seed int64) {
+	dir := t.TempDir()
+	rng := rand.New(rand.NewSource(seed))
+	e := &engine{f: f, dir: dir, opt: testOptions(), verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}}
+	box := f.Box()
+	for i := 0; i < n; i++ {
+		var b Box
+		var point []*big.Rat
+		for j := range f.Params {
+			w := box.Width(j)
+			lo := new(big.Rat).Mul(w, big.NewRat(int64(rng.Intn(1024)), 1024))
+			lo.Add(lo, box.Lo[j])
+			hi := new(big.Rat).Mul(w, big.NewRat(int64(1+rng.Intn(64)), 1024))
+			hi.Add(hi, lo)
+			if hi.Cmp(box.Hi[j]) > 0 {
+				hi.Set(box.Hi[j])
+			}
+			b.Lo, b.Hi = append(b.Lo, lo), append(b.Hi, hi)
+			tpt := big.NewRat(int64(1+rng.Intn(999)), 1000)
+			p := new(big.Rat).Mul(tpt, new(big.Rat).Sub(hi, lo))
+			point = append(point, p.Add(p, lo))
+		}
 		if err := e.certifyCorners([]Box{b}); err != nil {
 			t.Fatal(err)
 		}
@@ -196,15 +228,14 @@ func TestCellEnclosesEveryPoint(t *testing.T) {
 		pl, _ := f.Problem(lv)
 		ph, _ := f.Problem(hv)
 		cl, ch := e.corners[pl.SHA256()], e.corners[ph.SHA256()]
+		if cl.err != nil || ch.err != nil {
+			t.Fatal(cl.err, ch.err)
+		}
 		env, _, err := f.cellQuantities(b, cl.corner, ch.corner)
 		if err != nil {
 			t.Fatal(err)
 		}
-		// A random point strictly inside the cell.
-		tpt := big.NewRat(int64(1+rng.Intn(999)), 1000)
-		c := new(big.Rat).Mul(tpt, new(big.Rat).Sub(hi, lo))
-		c.Add(c, lo)
-		p, err := f.Problem([]*big.Rat{c})
+		p, err := f.Problem(point)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -213,11 +244,8 @@ func TestCellEnclosesEveryPoint(t *testing.T) {
 			t.Fatal(err)
 		}
 		for _, name := range []string{"lambda1", "lambda2", "gap"} {
-			var got certs.Bound
-			switch name {
-			case "gap":
-				got = cert.Results.Gap
-			default:
+			got := cert.Results.Gap
+			if name != "gap" {
 				got = cert.Results.Eigenvalues[name[len(name)-1]-'1'].Bound()
 			}
 			iv, err := got.Interval()
@@ -225,7 +253,7 @@ func TestCellEnclosesEveryPoint(t *testing.T) {
 				t.Fatal(err)
 			}
 			if cellIv := env[name]; !(cellIv.Lo <= iv.Lo && iv.Hi <= cellIv.Hi) {
-				t.Errorf("c = %s in [%s, %s]: %s of the point %v not inside the cell's %v", problem.RatText(c), problem.RatText(lo), problem.RatText(hi), name, iv, cellIv)
+				t.Errorf("point %s of the cell %s: %s %v not inside the cell's %v", f.describe(point), b.Text(f.ParamNames()), name, iv, cellIv)
 			}
 		}
 	}

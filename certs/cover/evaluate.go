@@ -227,8 +227,11 @@ func referenceOver(c named.Claim, i int, low, high corner) (interval.I, string) 
 	}
 	var lows, highs []interval.I
 	for _, cn := range []corner{low, high} {
-		if i >= len(cn.cert.Claims) || cn.cert.Claims[i].Reference == nil {
-			return interval.I{}, fmt.Sprintf("a corner certificate has no reference %s (%s)", c.Reference, cn.cert.Claims[min(i, len(cn.cert.Claims)-1)].Reason)
+		if i >= len(cn.cert.Claims) {
+			return interval.I{}, fmt.Sprintf("a corner certificate has no claim %d", i)
+		}
+		if cn.cert.Claims[i].Reference == nil {
+			return interval.I{}, fmt.Sprintf("a corner certificate has no reference %s (%s)", c.Reference, cn.cert.Claims[i].Reason)
 		}
 		rc, err := certs.Unmarshal(cn.cert.Claims[i].Reference.Certificate)
 		if err != nil {

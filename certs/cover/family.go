@@ -19,6 +19,9 @@ import (
 
 // Limits of a family file.
 const (
+	// MaxParams bounds the number of covered parameters (a cell has 2^n
+	// corners; the family's 2^n box corners are parsed when it is read).
+	MaxParams = 6
 	// MaxRoots bounds the number of boxes of the first split (the product
 	// of the counts).
 	MaxRoots = 10000
@@ -143,6 +146,10 @@ func ParseFamily(data []byte) (*Family, error) {
 	template, fixed := readTemplate(ff.Template, add)
 	if len(ff.Parameters) == 0 {
 		add("parameters", "no parameters to cover", `write "parameters": [{"name": "alpha", "range": {"lo": "0", "hi": "10"}, "min_cell": "1/64"}]`)
+	}
+	if len(ff.Parameters) > MaxParams {
+		add("parameters", fmt.Sprintf("%d parameters; a cover takes at most %d", len(ff.Parameters), MaxParams), "fix some parameters in template.parameters")
+		return nil, &InvalidError{Issues: iss}
 	}
 	seen := map[string]bool{}
 	roots := 1

@@ -25,8 +25,9 @@ import (
 // template uses a parameter in a part that no rule accounts for is
 // refused before anything is certified (analyse).
 //
-// Today's rules order eigenvalues by the min–max principle
-// (ordering.go states and proves the comparison lemma): RobinRule for
+// Today's rules order eigenvalues by the min–max principle (the
+// comparison lemma, stated and proved in the package documentation):
+// RobinRule for
 // Robin coefficients, PotentialRule for the potential. A rule for the
 // geometry (vertex positions) will bound λ_k over a cell by multiples of
 // a reference domain's λ_k instead of an order; it joins this list with
@@ -229,7 +230,8 @@ func walkJSON(v any, path string, leaf func(path, text string)) {
 // when every ∂α_i/∂p has one sign s over the box (decided by interval
 // evaluation of the derivative, package interval/formula, subdividing the
 // box), the quadratic form a(u,u) + Σ_i ∫_{Γ_i} α_i u² is monotone in p
-// with sign s for every u, so by the comparison lemma (ordering.go) every
+// with sign s for every u, so by the comparison lemma (package
+// documentation) every
 // λ_k is monotone in p with sign s.
 type RobinRule struct{}
 
@@ -279,7 +281,8 @@ func templateSide(f *Family, p *problem.Problem, i int) int {
 // potential V(x; p): when ∂V/∂p has one sign s on the domain's bounding
 // box × the parameter box (interval evaluation of the derivative,
 // subdividing both), V(·; p) is pointwise monotone in p with sign s, so
-// is ∫ V u² for every u, and by the comparison lemma (ordering.go) so is
+// is ∫ V u² for every u, and by the comparison lemma (package
+// documentation) so is
 // every λ_k. Several parameters: each by its own sign (the product order
 // of the box).
 type PotentialRule struct{}
