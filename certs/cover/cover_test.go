@@ -380,3 +380,47 @@ func TestMergeOfShards(t *testing.T) {
 		t.Fatalf("missing cell: error %v, want uncovered", err)
 	}
 }
+
+// TestParameterInClaimsOnly covers a parameter that enters only a claim:
+// on (0, 1) with V = 0 and Dirichlet ends the gap is 3π² (λ_k = k²π²,
+// common practice), so "gap >= k*pi^2" holds for k < 3 and fails for
+// k > 3; the eigenvalues do not depend on k (direction 0, one corner per
+// cell), and only the cells next to k = 3 stay undecided.
+func TestParameterInClaimsOnly(t *testing.T) {
+	f := mustFamily(t, `{
+	  "template": {"domain": {"interval": ["0", "1"]}, "boundary": "dirichlet"},
+	  "parameters": [{"name": "k", "range": {"lo": "2", "hi": "4"}, "min_cell": "1/64"}],
+	  "claims": ["gap >= k*pi^2"], "relative_width": "1e-8"}`)
+	if d := f.Dependences[0]; d.Direction != 0 || len(d.Uses) != 0 {
+		t.Fatalf("dependence on k: %+v, want none", d)
+	}
+	s, err := Run(f, t.TempDir(), testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s.Corners != 1 {
+		t.Errorf("%d corner certificates, want 1 (the eigenvalues do not depend on k)", s.Corners)
+	}
+	three := big.NewRat(3, 1)
+	for _, r := range s.Cells {
+		b := mustBox(&Cell{Bounds: r.Bounds}, f)
+		switch r.Verdict {
+		case certs.Holds:
+			if b.Hi[0].Cmp(three) > 0 {
+				t.Errorf("holds on %s, beyond k = 3", b.Text(f.ParamNames()))
+			}
+		case certs.Fails:
+			if b.Lo[0].Cmp(three) < 0 {
+				t.Errorf("fails on %s, below k = 3", b.Text(f.ParamNames()))
+			}
+		case certs.Undecided:
+			if b.Lo[0].Cmp(three) > 0 || b.Hi[0].Cmp(three) < 0 {
+				t.Errorf("undecided on %s, away from k = 3", b.Text(f.ParamNames()))
+			}
+		}
+	}
+	c := s.Claims[0].Coverage
+	if c.Undecided != "0.015625" || c.Holds != "0.4921875" || c.Fails != "0.4921875" {
+		t.Errorf("coverage %+v, want 0.4921875 holds and fails, 0.015625 undecided (two cells of width 1/64 at k = 3)", c)
+	}
+}

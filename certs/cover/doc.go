@@ -64,7 +64,9 @@
 // its uses (uses of opposite signs are refused); with several parameters
 // the order is the product order: for p in a cell [lo, hi], write low for
 // the corner taking lo in each nondecreasing parameter and hi in each
-// nonincreasing one, and high for the opposite corner. Moving one
+// nonincreasing one, and high for the opposite corner (a parameter the
+// operator does not depend on, one that enters only claims or the width
+// target, takes the box's lower end at both). Moving one
 // parameter at a time from low to p and from p to high, each step raises
 // every coefficient, so
 //

@@ -22,7 +22,8 @@ func newBound(x interval.I) certs.Bound { return certs.NewBound(x, boundDigits) 
 // eigenvalues (the family's Dependences) makes extreme: low takes, for
 // each parameter, the end where the operator is smallest (lo for a
 // nondecreasing dependence, hi for a nonincreasing one), high the other
-// end; a parameter the eigenvalues do not depend on takes lo in both. For
+// end; a parameter the eigenvalues do not depend on takes the box's lo in
+// both (so that every cell shares those corners' values). For
 // every point p of b, λ_k(low) ≤ λ_k(p) ≤ λ_k(high) for every k (the
 // comparison lemma, package documentation).
 func (f *Family) Corners(b Box) (low, high []*big.Rat) {
@@ -33,7 +34,7 @@ func (f *Family) Corners(b Box) (low, high []*big.Rat) {
 		case d.Direction < 0:
 			low, high = append(low, b.Hi[j]), append(high, b.Lo[j])
 		default:
-			low, high = append(low, b.Lo[j]), append(high, b.Lo[j])
+			low, high = append(low, f.Params[j].Lo), append(high, f.Params[j].Lo)
 		}
 	}
 	return low, high
