@@ -181,11 +181,9 @@ func (f *Family) cellClaims(b Box, low, high corner) (map[string]interval.I, []c
 			if why != "" {
 				reason = why
 			} else {
-				local = make(map[string]interval.I, len(env)+1)
-				for k, v := range env {
-					local[k] = v
-				}
-				local[c.Reference] = ref
+				// Recorded with the cell's quantities; no other claim can
+				// name it (the reader's scope check).
+				env[c.Reference] = ref
 			}
 		}
 		r := evaluate(c.Parse(), local, noAlpha)

@@ -54,3 +54,27 @@ func TestStrictReading(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestExampleCoverFamilies: the example cover families in
+// testdata/examples read, with the dependences they are examples of.
+func TestExampleCoverFamilies(t *testing.T) {
+	files, _ := filepath.Glob(filepath.Join("..", "..", "testdata", "examples", "*_cover.json"))
+	if len(files) < 2 {
+		t.Fatalf("%d example cover families, want at least 2", len(files))
+	}
+	for _, file := range files {
+		data, err := os.ReadFile(file)
+		if err != nil {
+			t.Fatal(err)
+		}
+		f, err := ParseFamily(data)
+		if err != nil {
+			t.Fatalf("%s: %v", file, err)
+		}
+		for _, d := range f.Dependences {
+			if d.Direction != 1 {
+				t.Errorf("%s: parameter %s has direction %d, want nondecreasing", file, d.Param, d.Direction)
+			}
+		}
+	}
+}
