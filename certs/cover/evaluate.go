@@ -88,7 +88,10 @@ func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interva
 		if highs[k], err = high.eigen(k); err != nil {
 			return nil, "", fmt.Errorf("high corner: %v", err)
 		}
-		env[claim.Eigenvalue(k)] = interval.I{Lo: lows[k].Lo, Hi: max(highs[k].Hi, lows[k].Lo)}
+		if highs[k].Hi < lows[k].Lo {
+			return nil, "", fmt.Errorf("the corner enclosures of lambda%d contradict the order: %v at the low corner, %v at the high one", k, lows[k], highs[k])
+		}
+		env[claim.Eigenvalue(k)] = interval.I{Lo: lows[k].Lo, Hi: highs[k].Hi}
 	}
 	env[claim.Gap] = gapOver(lows, highs)
 	env[claim.Diameter] = ref.Diameter()
@@ -103,9 +106,18 @@ func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interva
 	if why := sharedAlpha(ref); why != "" {
 		noAlpha = why
 	} else {
-		aLow, _ := low.problem.RobinAlpha()
-		aHigh, _ := high.problem.RobinAlpha()
-		env[claim.Alpha] = interval.I{Lo: aLow.Val.Lo, Hi: max(aHigh.Val.Hi, aLow.Val.Lo)}
+		aLow, whyLow := low.problem.RobinAlpha()
+		aHigh, whyHigh := high.problem.RobinAlpha()
+		switch {
+		case whyLow != "":
+			noAlpha = "alpha at the low corner: " + whyLow
+		case whyHigh != "":
+			noAlpha = "alpha at the high corner: " + whyHigh
+		case aHigh.Val.Hi < aLow.Val.Lo:
+			return nil, "", fmt.Errorf("the Robin coefficient contradicts the order: %v at the low corner, %v at the high one", aLow.Val, aHigh.Val)
+		default:
+			env[claim.Alpha] = interval.I{Lo: aLow.Val.Lo, Hi: aHigh.Val.Hi}
+		}
 	}
 	for name, v := range ref.Params {
 		env[name] = v.Val
@@ -119,11 +131,10 @@ func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interva
 // gapOver encloses λ₂ − λ₁ over the cell: [ℓ₂(low) − u₁(high), u₂(high) −
 // ℓ₁(low)] rounded outward.
 func gapOver(lows, highs []interval.I) interval.I {
+	// With ℓ_k(low) ≤ u_k(high) (checked by the callers), hi − lo =
+	// (u₂(high) − ℓ₂(low)) + (u₁(high) − ℓ₁(low)) ≥ 0.
 	lo := interval.SubDown(lows[2].Lo, highs[1].Hi)
 	hi := interval.SubUp(highs[2].Hi, lows[1].Lo)
-	if hi < lo {
-		hi = lo
-	}
 	return interval.I{Lo: lo, Hi: hi}
 }
 
@@ -248,6 +259,11 @@ func referenceOver(c named.Claim, i int, low, high corner) (interval.I, string) 
 			highs = e
 		}
 	}
+	for k := 1; k <= 2; k++ {
+		if highs[k].Hi < lows[k].Lo {
+			return interval.I{}, fmt.Sprintf("the reference enclosures of lambda%d contradict the order (%v at the low corner, %v at the high one)", k, lows[k], highs[k])
+		}
+	}
 	switch c.ReferenceResult {
 	case claim.Gap:
 		return gapOver(lows, highs), ""
@@ -256,7 +272,7 @@ func referenceOver(c named.Claim, i int, low, high corner) (interval.I, string) 
 		if c.ReferenceResult == claim.Eigenvalue(2) {
 			k = 2
 		}
-		return interval.I{Lo: lows[k].Lo, Hi: max(highs[k].Hi, lows[k].Lo)}, ""
+		return interval.I{Lo: lows[k].Lo, Hi: highs[k].Hi}, ""
 	}
 	return interval.I{}, fmt.Sprintf("the reference result %s is not enclosed over a cell", c.ReferenceResult)
 }
