@@ -9,6 +9,7 @@ import (
 
 	"gapcert/certs"
 	"gapcert/certs/certify"
+	"gapcert/certs/cover"
 )
 
 func newCheckCmd() *cobra.Command {
@@ -21,6 +22,11 @@ from the recorded problem and method with the same deterministic code, and
 demands that the recomputation reproduce every recorded bound, stage bound
 and claim verdict digit for digit.
 
+A cell certificate of "gapcert cover" is re-verified with its corner
+certificates (files beside it): each corner is recomputed as above, the
+rules' order and the corners are recomputed from the family file it
+holds, and the cell's enclosures and verdicts are recomputed from them.
+
 Exit status: 0 if the certificate verifies, 1 if it cannot be read, 2 if
 recomputing it would exceed the memory budget (refused before allocating),
 3 if it does not verify (each difference is listed) or is not read
@@ -32,6 +38,9 @@ depth, with the JSON path of the defect.`,
 			data, err := os.ReadFile(args[0])
 			if err != nil {
 				return readFailure(err)
+			}
+			if cover.IsCell(data) {
+				return checkCoverCell(cmd, args[0], data)
 			}
 			if err := checkExit(args[0], certify.Check(data)); err != nil {
 				return err

@@ -7,6 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"gapcert/certs/cover"
 	"gapcert/certs/sweep"
 )
 
@@ -30,6 +31,12 @@ certificates, or other files under those names, is refused), so that
 a claim fails or is undecided. Shards that shared one directory merge
 into it (merge DIR --out DIR).
 
+Cover directories ("gapcert cover") merge the same way: every cell
+certificate is verified (with its corner certificates), and merge proves
+that the cells tile the parameter box with no gap and no overlap (they
+are the leaves of the bisection trees of the first split, compared
+exactly); the summary records the coverage of each claim.
+
 Foreign, tampered, duplicate and missing files or points are listed one per
 line; nothing is written then.
 
@@ -40,6 +47,9 @@ certificate does not verify or the directories do not form the family.`,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := checkMergeOutputs(out, args); err != nil {
 				return err
+			}
+			if cover.IsCoverDir(args[0]) {
+				return runCoverMerge(cmd, args, out, quiet)
 			}
 			var progress func(string, ...any)
 			if !quiet && isTerminal(cmd.ErrOrStderr()) {

@@ -224,7 +224,7 @@ func TestMessagesSayWhatIsWrong(t *testing.T) {
 // with -o, --out, and no command has another spelling of it.
 func TestOneOutputFlag(t *testing.T) {
 	root := newRootCmd(io.Discard, io.Discard)
-	writers := map[string]bool{"certify": true, "demo": true, "report": true, "plot": true, "sweep": true, "merge": true}
+	writers := map[string]bool{"certify": true, "demo": true, "report": true, "plot": true, "sweep": true, "merge": true, "cover": true}
 	for _, c := range root.Commands() {
 		f := c.Flags().Lookup("out")
 		if writers[c.Name()] != (f != nil) {

@@ -68,6 +68,11 @@ on a polygon) and the problem's points; when those lie on one segment in
 order (decided exactly), a second panel draws the certified enclosure of
 u at each of them against the arc length, certified at those points only.
 
+A cover ("gapcert cover"; its directory or summary), [--claim N]: the
+cells coloured by their certified verdict on claim N (1-based, default
+1) — intervals along the axis for one parameter, rectangles for two —
+with each verdict's fraction of the box in the legend.
+
 The format follows the extension of --out (.png or .svg). Only the
 sampled points are certified; the pictures say so. This command draws
 sweeps; "certify --plot DIR" draws the approximate eigenfunctions of one
@@ -89,6 +94,9 @@ with a certificate file or a certificate drawn alone does not verify.`,
 					}
 				}
 				return plotCertificate(cmd, args[0], out)
+			}
+			if isCoverSummary(args[0]) {
+				return plotCover(cmd, args[0], out, claim)
 			}
 			switch {
 			case x == "":

@@ -71,7 +71,7 @@ a target width was not reached, 130 when interrupted.`,
 	root.CompletionOptions.DisableDefaultCmd = true
 	root.SetOut(stdout)
 	root.SetErr(stderr)
-	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd(), newSweepCmd(), newMergeCmd(), newReportCmd(), newPlotCmd())
+	root.AddCommand(newValidateCmd(), newCertifyCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd(), newSweepCmd(), newMergeCmd(), newReportCmd(), newPlotCmd(), newCoverCmd())
 	return root
 }
 
