@@ -158,10 +158,6 @@ func NewSection(ph *problem.Polyhedron, s Slice) (*Section, error) {
 			return nil, &SliceError{Slice: s, Reason: fmt.Sprintf("cannot decide on which side of the plane vertex %d (%s = %s) lies", k, axisNames[a], x.Text),
 				Hint: "move the plane a little"}
 		}
-		if side[k] == 0 {
-			return nil, &SliceError{Slice: s, Reason: fmt.Sprintf("the plane passes through vertex %d, where the section is not drawn", k),
-				Hint: "move the plane a little off the vertex"}
-		}
 		below, above = below || side[k] < 0, above || side[k] > 0
 		if x.Val.Mid() < ph.Vertices[lowest][a].Val.Mid() {
 			lowest = k
@@ -174,6 +170,10 @@ func NewSection(ph *problem.Polyhedron, s Slice) (*Section, error) {
 		lo, hi := ph.Vertices[lowest][a].Text, ph.Vertices[highest][a].Text
 		return nil, &SliceError{Slice: s, Reason: fmt.Sprintf("the plane misses the solid, whose %s runs from %s to %s", axisNames[a], lo, hi),
 			Hint: fmt.Sprintf("give a value strictly between %s and %s", lo, hi)}
+	}
+	if k := slices.Index(side, 0); k >= 0 {
+		return nil, &SliceError{Slice: s, Reason: fmt.Sprintf("the plane passes through vertex %d, where the section is not drawn", k),
+			Hint: "move the plane a little off the vertex"}
 	}
 
 	// The crossing segments, one per crossed triangle, each from one
