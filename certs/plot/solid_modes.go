@@ -8,6 +8,7 @@ import (
 	"gapcert/fem/mesh3"
 	"gapcert/fem/problem"
 	"gapcert/fem/tet"
+	"gapcert/interval/decimalio"
 )
 
 // Size of the trial space of SolidModesOf (choices: enough for a
@@ -214,8 +215,8 @@ func SolidOf(p *problem.Problem) *Solid {
 		side := Side{Kind: bc.Kind.String()}
 		if bc.Kind == boundary.Robin {
 			side.Alpha = bc.Alpha.Text
-			if r := bc.Alpha.Rat; r != nil && r.RatString() != side.Alpha {
-				side.Alpha += " = " + r.RatString() // a parameter's value
+			if _, err := decimalio.ParseRat(side.Alpha); err != nil && bc.Alpha.Rat != nil {
+				side.Alpha += " = " + ratText(bc.Alpha.Rat) // a parameter's value
 			}
 		}
 		s.Boundary = append(s.Boundary, side)

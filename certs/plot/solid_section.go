@@ -241,7 +241,12 @@ func NewSection(ph *problem.Polyhedron, s Slice) (*Section, error) {
 			if faces[(i+n-1)%n] == faces[i] {
 				continue
 			}
-			loop = append(loop, crossing(ph, edges[i], a, c))
+			q, ok := crossing(ph, edges[i], a, c)
+			if !ok {
+				return nil, &SliceError{Slice: s, Reason: fmt.Sprintf("cannot enclose where the edge from vertex %d to vertex %d crosses the plane (its ends are closer than their enclosures)", edges[i][0], edges[i][1]),
+					Hint: "move the plane a little"}
+			}
+			loop = append(loop, q)
 			loopFaces = append(loopFaces, faces[i])
 		}
 		loop, loopFaces = normalLoop(loop, loopFaces)
@@ -252,22 +257,21 @@ func NewSection(ph *problem.Polyhedron, s Slice) (*Section, error) {
 }
 
 // crossing encloses the point where the edge e = (P_i, P_j), i < j,
-// crosses the plane x[a] = c, in the plane's coordinates.
-func crossing(ph *problem.Polyhedron, e [2]int, a int, c interval.I) [2]interval.I {
-	p, q := ph.Vertices[e[0]], ph.Vertices[e[1]]
-	den := q[a].Val.Sub(p[a].Val)
+// crosses the plane x[a] = c, in the plane's coordinates; ok is false when
+// the enclosure of P_j[a] − P_i[a] contains 0 (ends on opposite sides of
+// the plane, decided exactly, can still have overlapping enclosures when
+// they are closer than the enclosures' widths).
+func crossing(ph *problem.Polyhedron, e [2]int, a int, c interval.I) (q [2]interval.I, ok bool) {
+	p, r := ph.Vertices[e[0]], ph.Vertices[e[1]]
+	den := r[a].Val.Sub(p[a].Val)
 	if den.ContainsZero() {
-		// The two ends lie on opposite sides of the plane (decided), so
-		// their enclosures are disjoint unless both are rational and
-		// closer than their enclosures' widths.
-		panic("plot: a crossed edge has ends whose enclosures overlap")
+		return q, false
 	}
 	t := c.Sub(p[a].Val).Div(den)
-	var out [2]interval.I
 	for i, b := range planeAxes[a] {
-		out[i] = p[b].Val.Add(t.Mul(q[b].Val.Sub(p[b].Val)))
+		q[i] = p[b].Val.Add(t.Mul(r[b].Val.Sub(p[b].Val)))
 	}
-	return out
+	return q, true
 }
 
 // normalLoop orders a loop counterclockwise (by the signed area of its

@@ -319,3 +319,82 @@ func correlation(a, b []float64) float64 {
 	}
 	return sab / math.Sqrt(saa*sbb)
 }
+
+// cubeSolid is the unit cube with a condition of every kind and the
+// exact first Dirichlet mode sin(πx) sin(πy) sin(πz) (closed form; the
+// mode of a cube with these conditions is not, but only the drawing
+// matters), sectioned at z = 1/2, with the 12 triangles of its faces as
+// the mesh.
+func cubeSolid(t *testing.T) *Solid {
+	p := polyhedronProblem(t, "unit cube, mixed conditions", cubeVertices, cubeFaces,
+		`["dirichlet", "neumann", "dirichlet", {"robin": "2"}, "dirichlet", {"robin": "1/2"}]`)
+	s := SolidOf(p)
+	var err error
+	if s.Section, err = MidSection(p.Polyhedron); err != nil {
+		t.Fatal(err)
+	}
+	for k, tr := range p.Polyhedron.Triangles() {
+		ft := FaceTriangle{Face: p.Polyhedron.TriangleFaces()[k]}
+		for j, v := range tr {
+			ft.Corners[j] = s.Vertices[v]
+		}
+		s.Triangles = append(s.Triangles, ft)
+	}
+	s.Labels = []string{"sin(πx) sin(πy) sin(πz)"}
+	s.Eval = func(_ int, x, y, z float64) float64 {
+		return math.Sin(math.Pi*x) * math.Sin(math.Pi*y) * math.Sin(math.Pi*z)
+	}
+	s.Samples = 50
+	return s
+}
+
+// TestGoldenSolid compares the structure of the SVG pictures of
+// cubeSolid with testdata/cube_solid*.golden.json; run with -update to
+// rewrite them.
+func TestGoldenSolid(t *testing.T) {
+	dir := t.TempDir()
+	paths, err := WriteSolid(filepath.Join(dir, "cube.svg"), cubeSolid(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, golden := range []string{"cube_solid", "cube_solid_mode1"} {
+		compareGolden(t, summarise(t, paths[i]), filepath.Join("testdata", golden+".golden.json"))
+	}
+}
+
+// TestSolidFrontFaces checks which faces of the unit cube the view shows
+// from the front: the top (face 1), y = 0 (face 2) and x = 1 (face 3), as
+// the viewer looks from the front right and above.
+func TestSolidFrontFaces(t *testing.T) {
+	s := cubeSolid(t)
+	var front []int
+	for i, f := range s.Faces {
+		var pts [][3]float64
+		for _, k := range f {
+			pts = append(pts, s.Vertices[k])
+		}
+		if dot3(faceNormal(pts), view.eye) > 0 {
+			front = append(front, i)
+		}
+	}
+	if !slices.Equal(front, []int{1, 2, 3}) {
+		t.Errorf("front faces %v, want [1 2 3]", front)
+	}
+}
+
+// TestSolidOfBoundary checks the face conditions of SolidOf: kinds in
+// the order of the faces, a Robin coefficient as written, and a
+// parameter's name with its value.
+func TestSolidOfBoundary(t *testing.T) {
+	v, _ := json.Marshal(tetVertices)
+	f, _ := json.Marshal(tetFaces)
+	p, err := problem.Parse([]byte(`{"domain": {"polyhedron": {"vertices": ` + string(v) + `, "faces": ` + string(f) +
+		`}}, "parameters": {"a": "3/4"}, "boundary": ["dirichlet", {"robin": "a"}, {"robin": "2.5"}, "neumann"]}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []Side{{Kind: DirichletSide}, {Kind: RobinSide, Alpha: "a = 0.75"}, {Kind: RobinSide, Alpha: "2.5"}, {Kind: NeumannSide}}
+	if got := SolidOf(p).Boundary; !slices.Equal(got, want) {
+		t.Errorf("sides %v, want %v", got, want)
+	}
+}
