@@ -360,8 +360,8 @@ func (sp *solidPlotter) Plot(c draw.Canvas, p *gplot.Plot) {
 			for j, f := range s.Section.Faces[l] {
 				if f == i {
 					a, b := loop[j], loop[(j+1)%len(loop)]
-					c.StrokeLine2(style, pt(s.Section.point(a[0], a[1])).X, pt(s.Section.point(a[0], a[1])).Y,
-						pt(s.Section.point(b[0], b[1])).X, pt(s.Section.point(b[0], b[1])).Y)
+					from, to := pt(s.Section.point(a[0], a[1])), pt(s.Section.point(b[0], b[1]))
+					c.StrokeLine2(style, from.X, from.Y, to.X, to.Y)
 				}
 			}
 		}
@@ -409,32 +409,26 @@ func (sp *solidPlotter) Plot(c draw.Canvas, p *gplot.Plot) {
 	for i, t := range tips {
 		from, to := pt(o), pt(t)
 		c.StrokeLine2(axisStyle, from.X, from.Y, to.X, to.Y)
-		// Arrow head: two short strokes back from the tip.
+		// Arrow head: two short strokes back from the tip; the label a
+		// little beyond it.
 		dx, dy := float64(to.X-from.X), float64(to.Y-from.Y)
 		l := math.Hypot(dx, dy)
-		if l > 0 {
-			ux, uy := dx/l, dy/l
-			h := float64(vg.Points(5))
-			for _, sgn := range []float64{1, -1} {
-				bx := float64(to.X) - h*ux - sgn*0.45*h*uy
-				by := float64(to.Y) - h*uy + sgn*0.45*h*ux
-				c.StrokeLine2(axisStyle, to.X, to.Y, vg.Length(bx), vg.Length(by))
-			}
+		if l == 0 {
+			continue // an axis along the line of sight (not in this view)
+		}
+		ux, uy := dx/l, dy/l
+		h := float64(vg.Points(5))
+		for _, sgn := range []float64{1, -1} {
+			bx := float64(to.X) - h*ux - sgn*0.45*h*uy
+			by := float64(to.Y) - h*uy + sgn*0.45*h*ux
+			c.StrokeLine2(axisStyle, to.X, to.Y, vg.Length(bx), vg.Length(by))
 		}
 		style := captionStyle
 		style.Color = color.Black
 		style.XAlign, style.YAlign = draw.XCenter, draw.YCenter
-		label := vg.Point{X: to.X + vg.Length(float64(vg.Points(7))*ux(dx, l)), Y: to.Y + vg.Length(float64(vg.Points(7))*ux(dy, l))}
-		c.FillText(style, label, axisNames[i])
+		gap := 1.4 * h
+		c.FillText(style, vg.Point{X: to.X + vg.Length(gap*ux), Y: to.Y + vg.Length(gap*uy)}, axisNames[i])
 	}
-}
-
-// ux returns d/l, or 0 when l is 0.
-func ux(d, l float64) float64 {
-	if l == 0 {
-		return 0
-	}
-	return d / l
 }
 
 // DataRange implements plot.DataRanger.
