@@ -169,7 +169,8 @@ func normalised(a [3]float64) [3]float64 {
 func project(p [3]float64) [2]float64 { return [2]float64{dot3(p, view.right), dot3(p, view.up)} }
 
 // faceNormal returns the unit area vector of the polygon pts (Newell's
-// formula), outward for a face listed counterclockwise from outside.
+// formula, common practice), outward for a face listed counterclockwise
+// from outside.
 func faceNormal(pts [][3]float64) [3]float64 {
 	var n [3]float64
 	for i, p := range pts {
@@ -190,12 +191,14 @@ var (
 	axisStyle     = draw.LineStyle{Color: color.Gray{Y: 0x30}, Width: vg.Points(0.8)}
 )
 
-// faceColour is the fill of a face before shading: light grey, or the
-// colour of its boundary condition (sideStyles) lightened.
-func faceColour(style draw.LineStyle, given bool) color.Color {
-	if !given {
-		return color.Gray{Y: 0xd8}
-	}
+// plainFace is the fill of a face before shading when no boundary
+// conditions are given.
+var plainFace color.Color = color.Gray{Y: 0xd8}
+
+// faceColour is the fill of a face of the given boundary condition's
+// style (sideStyles) before shading: grey for Dirichlet, else its colour
+// lightened.
+func faceColour(style draw.LineStyle) color.Color {
 	if style.Color == Black {
 		return color.Gray{Y: 0xc8}
 	}
@@ -227,10 +230,10 @@ func solidPicture(s *Solid) picture {
 		styles, entries := sideStyles(s.Boundary)
 		sp.fills = make([]color.Color, len(s.Faces))
 		for i := range s.Faces {
-			sp.fills[i] = faceColour(styles[i], true)
+			sp.fills[i] = faceColour(styles[i])
 		}
 		for _, e := range entries {
-			legend.Add(e.text, fillEntry{faceColour(e.style, true)})
+			legend.Add(e.text, fillEntry{faceColour(e.style)})
 			n++
 		}
 	}
@@ -371,7 +374,7 @@ func (sp *solidPlotter) Plot(c draw.Canvas, p *gplot.Plot) {
 		tris[t.Face] = append(tris[t.Face], t.Corners)
 	}
 	for _, f := range front {
-		fill := color.Color(color.Gray{Y: 0xd8})
+		fill := plainFace
 		if sp.fills != nil {
 			fill = sp.fills[f.index]
 		}
