@@ -1,6 +1,8 @@
 // Package plot implements pictures of certified problems: the mesh of a
 // polygon and the first approximate eigenfunctions of an interval or a
-// polygon, and the ground-state block of a certificate (GroundState),
+// polygon, the ground-state block of a certificate (GroundState), and a
+// polyhedron with approximate eigenfunctions on a plane section (Solid,
+// WriteSolid; the modes from SolidModesOf, the section from NewSection),
 // written as PNG or SVG files.
 //
 // Everything in this package is floating point at round-to-nearest and
@@ -26,6 +28,15 @@
 //   - 2D pictures keep the aspect ratio of the domain (one unit of x has the
 //     length of one unit of y), and grid points outside the polygon are left
 //     blank (an even–odd point-in-polygon test in floating point).
+//   - a polyhedron is drawn in one fixed orthographic view; the faces
+//     turned toward the viewer are filled in the painter's order (exact
+//     for convex solids), the edges behind them dashed. Its section by an
+//     axis plane is found from the faces' triangulation: which side of the
+//     plane each vertex lies on is decided exactly (or by disjoint
+//     enclosures), and the loop corners are interval enclosures, so the
+//     outline is the true section up to those enclosures; the modes on it
+//     are floating point like every mode here, and their pictures say
+//     "approximation, not a bound" (SliceNote).
 //
 // Pictures a paper can use: axes are labelled (x, y, u / max |u|) and
 // ticked at round values (RoundTicks, LogTicks); categories are drawn in

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"os"
+	"slices"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -17,10 +18,10 @@ import (
 )
 
 func newPlotCmd() *cobra.Command {
-	var x, y, quantity, reference, threshold, relation, claim, out, band string
+	var x, y, quantity, reference, threshold, relation, claim, out, band, slice string
 	var shape bool
 	cmd := &cobra.Command{
-		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N | --log-concavity) --out FILE.png|.svg\n  gapcert plot CERT.json --out FILE.png|.svg",
+		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N | --log-concavity) --out FILE.png|.svg\n  gapcert plot CERT.json --out FILE.png|.svg\n  gapcert plot POLYHEDRON.json --out FILE.png|.svg [--slice AXIS=VALUE]",
 		Short: "Draw the certified results of a sweep against its parameters, or a certificate's ground state",
 		Long: `plot draws the certified results of a sweep ("gapcert sweep"), read from
 its summary (SUMMARY.json; for a directory DIR/summary.json, written by
@@ -73,6 +74,17 @@ cells coloured by their certified verdict on claim N (1-based, default
 1) — intervals along the axis for one parameter, rectangles for two —
 with each verdict's fraction of the box in the legend.
 
+A problem file of a polyhedron, POLYHEDRON.json [--slice AXIS=VALUE]:
+FILE is the solid seen from the front right and above (faces coloured by
+their boundary condition, the edges behind it dashed, the boundary
+triangles of the mesh, the slice's outline, axes x, y, z), and
+FILE-mode1 and FILE-mode2 the approximate eigenfunctions of λ1 and λ2 on
+the slice, computed in floating point from P_2 or P_3 on a refined
+tetrahedral mesh of the problem: approximations, not bounds. The slice
+is the plane AXIS = VALUE (AXIS x, y or z, VALUE exact, e.g. z=1/2), by
+default z about halfway up; a plane that misses the solid's interior or
+passes through a vertex is refused before anything is computed.
+
 The format follows the extension of --out (.png or .svg). Only the
 sampled points are certified; the pictures say so. This command draws
 sweeps; "certify --plot DIR" draws the approximate eigenfunctions of one
@@ -88,12 +100,26 @@ with a certificate file or a certificate drawn alone does not verify.`,
 				return fail(errors.New("--out FILE.png or FILE.svg is required"))
 			}
 			if isCertificate(args[0]) {
+				if slice != "" {
+					return fail(fmt.Errorf("--slice belongs to the problem file of a polyhedron; %s is a certificate, drawn with --out alone", args[0]))
+				}
 				for _, name := range []string{"x", "y", "quantity", "reference", "threshold", "relation", "claim", "band", "log-concavity"} {
 					if cmd.Flags().Changed(name) {
 						return fail(fmt.Errorf("--%s belongs to a sweep; %s is a certificate, drawn with --out alone", name, args[0]))
 					}
 				}
 				return plotCertificate(cmd, args[0], out)
+			}
+			if isProblemFile(args[0]) {
+				for _, name := range []string{"x", "y", "quantity", "reference", "threshold", "relation", "claim", "band", "log-concavity"} {
+					if cmd.Flags().Changed(name) {
+						return fail(fmt.Errorf("--%s belongs to a sweep; %s is a problem file, drawn with --out and --slice", name, args[0]))
+					}
+				}
+				return plotPolyhedron(cmd, args[0], out, slice)
+			}
+			if slice != "" {
+				return fail(fmt.Errorf("--slice belongs to the problem file of a polyhedron; %s is not one", args[0]))
 			}
 			if isCoverSummary(args[0]) {
 				return plotCover(cmd, args[0], out, claim)
@@ -180,6 +206,7 @@ with a certificate file or a certificate drawn alone does not verify.`,
 	f.StringVar(&y, "y", "", "the second parameter, on the vertical axis (map)")
 	f.StringVar(&claim, "claim", "", "the claim of a map: its number (1-based) or its text")
 	f.StringVarP(&out, "out", "o", "", "the picture file, .png or .svg")
+	f.StringVar(&slice, "slice", "", "the plane of the modes of a polyhedron, AXIS=VALUE (e.g. z=1/2; default z about halfway up)")
 	f.BoolVar(&shape, "log-concavity", false, "draw the certified log-concavity verdict of the ground state at each point (one-parameter sweep with \"ground_state\": true)")
 	return cmd
 }
@@ -247,5 +274,72 @@ func plotCertificate(cmd *cobra.Command, path, out string) error {
 		return &exitError{code: exitFailure, err: err}
 	}
 	fmt.Fprintf(cmd.OutOrStdout(), "%s: certificate verifies; picture written to %s\n", path, out)
+	return nil
+}
+
+// isProblemFile reports whether path is a file whose JSON object has a
+// "domain" key, as problem files have (certificates, summaries and
+// families do not at the top level). It only chooses the kind of
+// picture: the file is then read strictly.
+func isProblemFile(path string) bool {
+	st, err := os.Stat(path)
+	if err != nil || !st.Mode().IsRegular() || st.Size() > maxPlotInput {
+		return false
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return false
+	}
+	head, _, err := strictjson.Parse(data)
+	return err == nil && head.Kind == strictjson.Object && slices.Contains(head.Keys, "domain")
+}
+
+// plotPolyhedron draws the polyhedron of the problem file at path and
+// its first two approximate modes on a slice (the given one or the
+// default) into out and the files beside it (plot.SolidPaths). The slice
+// and the output paths are checked before the modes are computed.
+func plotPolyhedron(cmd *cobra.Command, path, out, slice string) error {
+	fail := func(err error) error { return &exitError{code: exitFailure, err: err} }
+	p, err := loadProblem(path)
+	if err != nil {
+		return err
+	}
+	if p.Polyhedron == nil {
+		return fail(fmt.Errorf("%s: a problem file is drawn here only for a polyhedron (hint: draw an interval or a polygon with certify --plot DIR)", path))
+	}
+	var sec *plot.Section
+	if slice == "" {
+		sec, err = plot.MidSection(p.Polyhedron)
+	} else {
+		var s plot.Slice
+		if s, err = plot.ParseSlice(slice); err == nil {
+			sec, err = plot.NewSection(p.Polyhedron, s)
+		}
+	}
+	if err != nil {
+		return fail(err)
+	}
+	const count = 2
+	paths := plot.SolidPaths(out, count)
+	for _, f := range paths {
+		if err := checkPictureFile(f, path); err != nil {
+			return err
+		}
+	}
+	modes, err := plot.SolidModesOf(p, count)
+	if err != nil {
+		return fail(fmt.Errorf("%s: %v", path, err))
+	}
+	s := plot.SolidOf(p)
+	s.Section, s.Eval, s.Triangles = sec, modes.Eval, modes.Triangles
+	for k := range count {
+		s.Labels = append(s.Labels, fmt.Sprintf("eigenfunction of λ%d", k+1))
+	}
+	written, err := plot.WriteSolid(out, s)
+	if err != nil {
+		return fail(err)
+	}
+	fmt.Fprintf(cmd.OutOrStdout(), "%s: modes from P_%d on %d refinement(s) of the cone tetrahedra (%d unknowns), on the slice %s\npictures (approximations, not bounds) written to %s\n",
+		path, modes.Degree, modes.Levels, modes.Unknowns, sec.Slice, strings.Join(written, ", "))
 	return nil
 }
