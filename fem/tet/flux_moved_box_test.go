@@ -109,15 +109,29 @@ func TestFluxLehmannGoerischMovedBox(t *testing.T) {
 			m := fluxKuhnMesh(4, nil, nil)
 			bnd := m.boundaryWhere(c.cond)
 			rho := interval.SubDown(c.next.Lo+c.gamma, 1e-9*c.next.Lo)
-			r := fluxLGBounds(t, fluxMovedMesh(m, scale), bnd, 3, 2, len(c.want), c.gamma, rho)
-			for i, w := range c.want {
-				if !(r.lower[i] <= w.Lo && w.Hi <= r.upper[i]) {
-					t.Fatalf("λ_%d ∈ [%.12g, %.12g] misses %v", i+1, r.lower[i], r.upper[i], w)
+			// Also with scrambled vertex numbers and local orders (the face
+			// numbers, and so the conditions, are kept), so that the
+			// Neumann and Robin faces meet the cells in every local
+			// position and orientation (Dirichlet faces scrambled: see
+			// TestFluxLehmannGoerischUnitCubeDirichlet).
+			for _, scrambled := range []bool{false, true} {
+				if scrambled && c.name == "dirichlet" {
+					continue
 				}
-				if wd := r.upper[i] - r.lower[i]; wd > c.maxWidth || math.IsNaN(wd) {
-					t.Errorf("λ_%d ∈ [%.12g, %.12g]: width %.3g above %.3g", i+1, r.lower[i], r.upper[i], wd, c.maxWidth)
+				mm := m
+				if scrambled {
+					mm = fluxScrambled(m, 7)
 				}
-				t.Logf("λ_%d ∈ [%.10g, %.10g] (exact %.10g), width %.3g", i+1, r.lower[i], r.upper[i], w.Mid(), r.upper[i]-r.lower[i])
+				r := fluxLGBounds(t, fluxMovedMesh(mm, scale), bnd, 3, 2, len(c.want), c.gamma, rho)
+				for i, w := range c.want {
+					if !(r.lower[i] <= w.Lo && w.Hi <= r.upper[i]) {
+						t.Fatalf("scrambled %v: λ_%d ∈ [%.12g, %.12g] misses %v", scrambled, i+1, r.lower[i], r.upper[i], w)
+					}
+					if wd := r.upper[i] - r.lower[i]; wd > c.maxWidth || math.IsNaN(wd) {
+						t.Errorf("scrambled %v: λ_%d ∈ [%.12g, %.12g]: width %.3g above %.3g", scrambled, i+1, r.lower[i], r.upper[i], wd, c.maxWidth)
+					}
+					t.Logf("scrambled %v: λ_%d ∈ [%.10g, %.10g] (exact %.10g), width %.3g", scrambled, i+1, r.lower[i], r.upper[i], w.Mid(), r.upper[i]-r.lower[i])
+				}
 			}
 		})
 	}
