@@ -136,3 +136,29 @@ func TestFluxLehmannGoerischMovedBox(t *testing.T) {
 		})
 	}
 }
+
+// TestFluxLehmannGoerischMovedOrthoscheme checks the orthoscheme
+// 0 ≤ x ≤ y ≤ z ≤ 1 scaled by 2 and moved by the rotation and translation
+// of fluxMovedMesh: its Dirichlet eigenvalues are those of
+// TestFluxLehmannGoerischOrthoscheme divided by 4, 14π²/4 and 21π²/4
+// (then 26π²/4, which gives ρ). The relative widths must stay within the
+// limits of that test for the same mesh and degrees (n = 4, p = 3, k = 2).
+func TestFluxLehmannGoerischMovedOrthoscheme(t *testing.T) {
+	keep := func(c [3]float64) bool { return c[0] < c[1] && c[1] < c[2] }
+	truth := []interval.I{fluxPiSquaredTimes(14).DivF(4), fluxPiSquaredTimes(21).DivF(4)}
+	const gamma = 25
+	rho := (26*math.Pi*math.Pi/4 + gamma) * (1 - 1e-9)
+	m := fluxKuhnMesh(4, keep, nil)
+	two := interval.Point(2)
+	r := fluxLGBounds(t, fluxMovedMesh(m, [3]interval.I{two, two, two}), fluxDirichletAll(m), 3, 2, 2, gamma, rho)
+	for i, tr := range truth {
+		if !(r.lower[i] <= tr.Lo && tr.Hi <= r.upper[i]) {
+			t.Fatalf("λ_%d ∈ [%.12g, %.12g] misses %v", i+1, r.lower[i], r.upper[i], tr)
+		}
+		rel := (r.upper[i] - r.lower[i]) / tr.Mid()
+		if maxRel := [2]float64{0.04, 0.4}[i]; rel > maxRel {
+			t.Errorf("λ_%d relative width %.3g above %.3g", i+1, rel, maxRel)
+		}
+		t.Logf("λ_%d ∈ [%.10g, %.10g] (exact %.10g), relative width %.3g", i+1, r.lower[i], r.upper[i], tr.Mid(), rel)
+	}
+}
