@@ -13,12 +13,10 @@ import (
 	"gapcert/interval"
 )
 
-// fluxMeshOfPolyhedron reads a polyhedron problem (package problem),
-// meshes it by the cone tetrahedra (mesh3.FromPolyhedron), refines it
-// levels times, and returns the cells with their global faces and, for
-// each boundary face, the polyhedron face it lies in (the labels of
-// mesh3.Mesh.Bnd).
-func fluxMeshOfPolyhedron(t *testing.T, vertices [][3]string, faces [][]int, levels int) (fluxMesh, map[int]int) {
+// polyhedronMesh3 reads a polyhedron problem (package problem), meshes it
+// by the cone tetrahedra (mesh3.FromPolyhedron) and refines it levels
+// times.
+func polyhedronMesh3(t *testing.T, vertices [][3]string, faces [][]int, levels int) *mesh3.Mesh {
 	t.Helper()
 	v, _ := json.Marshal(vertices)
 	f, _ := json.Marshal(faces)
@@ -38,6 +36,14 @@ func fluxMeshOfPolyhedron(t *testing.T, vertices [][3]string, faces [][]int, lev
 	for range levels {
 		m = m.Refine()
 	}
+	return m
+}
+
+// fluxMeshOfMesh3 returns the cells of m with their global faces and, for
+// each boundary face, the polyhedron face it lies in (the labels of
+// m.Bnd).
+func fluxMeshOfMesh3(t *testing.T, m *mesh3.Mesh) (fluxMesh, map[int]int) {
+	t.Helper()
 	var fm fluxMesh
 	faceID := map[[3]int]int{}
 	for _, tet := range m.Tets {
@@ -94,26 +100,8 @@ func fluxMeshOfPolyhedron(t *testing.T, vertices [][3]string, faces [][]int, lev
 // min(μ_2 + 2π²/4, μ_1 + 5π²/4) = μ_2 + 2π²/4 (≈ 11.40 < 13.65, decided
 // below on the enclosures).
 func TestFluxLehmannGoerischRotatedCubePolyhedron(t *testing.T) {
-	// The vertices of R·[0, 2]³ + (1/3, −2/7, 5), R = r/845 with r as in
-	// fluxMovedMesh, in the order (0,0,0), (2,0,0), (2,2,0), (0,2,0),
-	// (0,0,2), (2,0,2), (2,2,2), (0,2,2) before the motion.
-	r := [3][3]int{{507, -676, 0}, {260, 195, -780}, {624, 468, 325}}
-	shift := [3][2]int{{1, 3}, {-2, 7}, {5, 1}}
-	corners := [8][3]int{{0, 0, 0}, {2, 0, 0}, {2, 2, 0}, {0, 2, 0}, {0, 0, 2}, {2, 0, 2}, {2, 2, 2}, {0, 2, 2}}
-	var verts [][3]string
-	for _, p := range corners {
-		var w [3]string
-		for i := range 3 {
-			num := 0
-			for j := range 3 {
-				num += r[i][j] * p[j]
-			}
-			w[i] = strconv.Itoa(num*shift[i][1]+845*shift[i][0]) + "/" + strconv.Itoa(845*shift[i][1])
-		}
-		verts = append(verts, w)
-	}
-	faces := [][]int{{0, 3, 2, 1}, {4, 5, 6, 7}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}}
-	fm, label := fluxMeshOfPolyhedron(t, verts, faces, 1)
+	verts, faces := rotatedCubePolyhedron()
+	fm, label := fluxMeshOfMesh3(t, polyhedronMesh3(t, verts, faces, 1))
 	pi2 := fluxPiSquaredTimes(1)
 	s1 := fluxRobinRoot(t, 2, 1.6, 3.1)
 	s2 := fluxRobinRoot(t, 2, 4.72, 6.2)
@@ -152,5 +140,65 @@ func TestFluxLehmannGoerischRotatedCubePolyhedron(t *testing.T) {
 			t.Logf("%d cells: λ_1 ∈ [%.10g, %.10g] (exact %.10g), width %.3g, trial %d, flux %d unknowns",
 				len(fm.cells), res.lower[0], res.upper[0], c.l1.Mid(), res.upper[0]-res.lower[0], res.trialN, res.fluxN)
 		})
+	}
+}
+
+// rotatedCubePolyhedron returns the vertices (exact rational text) and
+// faces of R·[0, 2]³ + (1/3, −2/7, 5), R = r/845 with r as in
+// fluxMovedMesh; the vertices are the images of (0,0,0), (2,0,0), (2,2,0),
+// (0,2,0), (0,0,2), (2,0,2), (2,2,2), (0,2,2), and face 0 is the image of
+// z = 0.
+func rotatedCubePolyhedron() ([][3]string, [][]int) {
+	r := [3][3]int{{507, -676, 0}, {260, 195, -780}, {624, 468, 325}}
+	shift := [3][2]int{{1, 3}, {-2, 7}, {5, 1}}
+	corners := [8][3]int{{0, 0, 0}, {2, 0, 0}, {2, 2, 0}, {0, 2, 0}, {0, 0, 2}, {2, 0, 2}, {2, 2, 2}, {0, 2, 2}}
+	var verts [][3]string
+	for _, p := range corners {
+		var w [3]string
+		for i := range 3 {
+			num := 0
+			for j := range 3 {
+				num += r[i][j] * p[j]
+			}
+			w[i] = strconv.Itoa(num*shift[i][1]+845*shift[i][0]) + "/" + strconv.Itoa(845*shift[i][1])
+		}
+		verts = append(verts, w)
+	}
+	return verts, [][]int{{0, 3, 2, 1}, {4, 5, 6, 7}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}}
+}
+
+// TestStageARotatedCubePolyhedron runs the same chain into the CR and ECR
+// stage-A lower bounds and the P_3 Ritz upper bounds of the Dirichlet
+// eigenvalues 3π²/4 and 6π²/4 of the rotated cube of edge 2 (two levels of
+// refinement: 768 cone-descended tetrahedra), through NewMesh with the
+// polyhedron faces as sides.
+func TestStageARotatedCubePolyhedron(t *testing.T) {
+	verts, faces := rotatedCubePolyhedron()
+	m3 := polyhedronMesh3(t, verts, faces, 2)
+	var bnd []BoundaryFace
+	for _, b := range m3.Bnd {
+		bnd = append(bnd, BoundaryFace{Nodes: [3]int{b.A, b.B, b.C}, Side: b.Face})
+	}
+	m, err := NewMesh(m3.Nodes, m3.Tets, bnd, len(faces))
+	if err != nil {
+		t.Fatal(err)
+	}
+	exact := []interval.I{pi2.MulF(3).DivF(4), pi2.MulF(6).DivF(4)}
+	v, err := NewPotential(m, mustExpr(t, "0"), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	up := ritzBounds(t, NewLagrange(m, 3, allBC(len(faces), dirichlet)), v, 0, 2)
+	for name, space := range map[string]func(*Mesh, []boundary.Condition) *Projection{"CR": NewCR, "ECR": NewECR} {
+		lo := stageALowerBC(t, space, m, allBC(len(faces), dirichlet), 0, 2)
+		for k, e := range exact {
+			if lo[k] > e.Lo || up[k].Hi < e.Hi {
+				t.Fatalf("%s: λ_%d = %v outside [%v, %v]", name, k+1, e, lo[k], up[k].Hi)
+			}
+			t.Logf("%s: λ_%d = %.10g ∈ [%.8g, %.10g]", name, k+1, e.Mid(), lo[k], up[k].Hi)
+		}
+	}
+	if r := relErr(up[0].Hi, exact[0]); r > 4e-5 { // 1.6e-5 measured when written
+		t.Errorf("Ritz bound of λ_1: relative error %.3g above 4e-5", r)
 	}
 }
