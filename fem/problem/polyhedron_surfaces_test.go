@@ -2,6 +2,7 @@ package problem
 
 import (
 	"errors"
+	"math"
 	"strings"
 	"testing"
 )
@@ -84,6 +85,39 @@ func TestPolyhedronRefusesImproperSurfaces(t *testing.T) {
 			if !found {
 				t.Errorf("got\n%v\nwant an issue containing %q", err, c.want)
 			}
+		})
+	}
+}
+
+// TestPolyhedronCoplanarFaces: faces that share a plane are accepted and
+// measured like one face. The unit cube whose top is four triangles
+// around its centre (1/2, 1/2, 1) (a "dent" of depth 0), and the unit cube
+// whose top is split along a diagonal into two faces, are convex with
+// volume 1, surface area 6 and diameter √3 (common practice); the apex
+// lies strictly inside every face plane, so the top's centre, a vertex on
+// the plane of four faces, is no obstacle.
+func TestPolyhedronCoplanarFaces(t *testing.T) {
+	flatDent := append(append([][3]string{}, cubeVertices...), [3]string{"1/2", "1/2", "1"})
+	for _, c := range []struct {
+		name     string
+		vertices [][3]string
+		faces    [][]int
+	}{
+		{"four top triangles", flatDent, [][]int{{0, 3, 2, 1}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}, {4, 5, 8}, {5, 6, 8}, {6, 7, 8}, {7, 4, 8}}},
+		{"top split in two", cubeVertices, [][]int{{0, 3, 2, 1}, {4, 5, 6}, {4, 6, 7}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			p, err := Parse(polyFile(c.vertices, c.faces, `"dirichlet"`))
+			if err != nil {
+				t.Fatal(err)
+			}
+			ph := p.Polyhedron
+			if ph.Convex() != "convex" {
+				t.Errorf("convexity %q, want convex", ph.Convex())
+			}
+			containsNarrow(t, "volume", ph.Volume(), 1)
+			containsNarrow(t, "surface area", ph.SurfaceArea(), 6)
+			containsNarrow(t, "diameter", ph.Diameter(), math.Sqrt(3))
 		})
 	}
 }
