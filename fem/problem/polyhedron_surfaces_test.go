@@ -23,6 +23,9 @@ import (
 //   - a vertex inserted on an edge of two faces (a collinear run);
 //   - a T-junction: a vertex on an edge used by one face only;
 //   - two cubes sharing an edge, and two cubes sharing only a vertex;
+//   - a dent whose tip is the centre vertex of the opposite face, split
+//     into four triangles around it: a connected surface whose faces
+//     around that vertex form two fans;
 //   - a solid torus (a square frame), whose surface passes every
 //     combinatorial test but is star-shaped from no point.
 func TestPolyhedronRefusesImproperSurfaces(t *testing.T) {
@@ -70,6 +73,8 @@ func TestPolyhedronRefusesImproperSurfaces(t *testing.T) {
 			"lies in 1 face(s)"},
 		{"cubes sharing an edge", edgeCubes, edgeCubeFaces, "edge 2–6 lies in 4 face(s)"},
 		{"cubes sharing a vertex", vertexCubes, vertexCubeFaces, "domain.polyhedron.faces[6]: face 6 is not connected to face 0"},
+		{"pinched vertex", dented("0"), [][]int{{0, 1, 8}, {1, 2, 8}, {2, 3, 8}, {3, 0, 8}, {0, 1, 5, 4}, {1, 2, 6, 5}, {2, 3, 7, 6}, {3, 0, 4, 7}, {4, 5, 8}, {5, 6, 8}, {6, 7, 8}, {7, 4, 8}},
+			"domain.polyhedron.vertices[8]: vertex 8 is pinched"},
 		{"solid torus", frame, frameFaces, "domain.polyhedron: no tried point lies strictly on the inner side of every face's plane"},
 	} {
 		t.Run(c.name, func(t *testing.T) {
