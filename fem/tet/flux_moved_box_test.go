@@ -74,8 +74,9 @@ func TestFluxMovedMatrixIsRotation(t *testing.T) {
 //     λ_1 = μ_1 + 5π², λ_2 = μ_2 + 5π² (μ_2 < 12 < μ_1 + 3π²).
 //
 // TestFluxLehmannGoerischMovedBox checks that the Ritz and
-// Lehmann–Goerisch bounds on the moved Kuhn mesh contain these values
-// (ρ ≤ Λ_(N+1) from the closed forms) and are narrow.
+// Lehmann–Goerisch bounds on the moved Kuhn mesh of 3³ subcubes (P_3,
+// RT_2) contain these values (ρ ≤ Λ_(N+1) from the closed forms) and are
+// narrow.
 func TestFluxLehmannGoerischMovedBox(t *testing.T) {
 	const gamma = 10
 	pi2 := fluxPiSquaredTimes(1)
@@ -95,18 +96,18 @@ func TestFluxLehmannGoerischMovedBox(t *testing.T) {
 		maxWidth float64      // about twice the widest enclosure measured when written
 	}{
 		{"dirichlet", func([3]float64) boundary.Condition { return dir }, gamma,
-			[]interval.I{ninth(49), ninth(61)}, ninth(76), 2},
+			[]interval.I{ninth(49), ninth(61)}, ninth(76), 10},
 		{"neumann", func([3]float64) boundary.Condition { return boundary.Condition{Kind: boundary.Neumann} }, 1,
-			[]interval.I{interval.Point(0), ninth(4), pi2}, ninth(13), 1e-3},
+			[]interval.I{interval.Point(0), ninth(4), pi2}, ninth(13), 4e-3},
 		{"robin", func(x [3]float64) boundary.Condition {
 			if x[0] == 1 {
 				return robin
 			}
 			return dir
-		}, gamma, []interval.I{mu(s1).Add(pi2.MulF(5))}, mu(s2).Add(pi2.MulF(5)), 0.2},
+		}, gamma, []interval.I{mu(s1).Add(pi2.MulF(5))}, mu(s2).Add(pi2.MulF(5)), 0.9},
 	} {
 		t.Run(c.name, func(t *testing.T) {
-			m := fluxKuhnMesh(4, nil, nil)
+			m := fluxKuhnMesh(3, nil, nil)
 			bnd := m.boundaryWhere(c.cond)
 			rho := interval.SubDown(c.next.Lo+c.gamma, 1e-9*c.next.Lo)
 			// Also with scrambled vertex numbers and local orders (the face
