@@ -395,7 +395,7 @@ func (r *reader) checkPolyhedron(p *Problem) bool {
 		}
 	}
 	if msg, v := pinchedVertex(ph.Faces, nv); msg != "" {
-		r.iss.add(fmt.Sprintf("%s.vertices[%d]", path, v), "the faces around a vertex must form one fan", msg)
+		r.iss.add(fmt.Sprintf("%s.vertices[%d]", path, v), msg, "the faces around a vertex must form one fan")
 		return false
 	}
 

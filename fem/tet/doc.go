@@ -126,11 +126,14 @@
 // T, ‖e‖² ≤ max_T C_T² Σ_T ‖∇e‖²_T ≤ C_h² a_h(e, e), C_h = max_T C_T
 // (ProjectionConstant, from enclosures of the edge lengths, rounded up).
 // The same argument in n dimensions gives κ² = 1/π² + 1/(2n(n + 1)(n + 2))
-// (n = 2: 1/48, the constant √(1/π² + 1/48) ≈ 0.298 used for triangles by
-// C. Carstensen, J. Gedicke, Guaranteed lower bounds for eigenvalues,
-// Math. Comp. 83 (2014) 2605–2629, whose paper we could confirm by its
-// abstract but whose statement for n = 3 we did not see; the derivation
-// above does not depend on it).
+// (n = 2: κ² = 1/π² + 1/48, κ ≈ 0.3495; the constant √(1/j_(1,1)² + 1/48)
+// ≈ 0.2984 used for triangles, by C. Carstensen, J. Gedicke, Guaranteed
+// lower bounds for eigenvalues, Math. Comp. 83 (2014) 2605–2629, and in
+// package fem/tri, replaces h/π by h/j_(1,1), j_(1,1) = 3.8317… the first
+// zero of J_1, the mean-zero Poincaré constant of triangles (Laugesen–
+// Siudeja), for which no tetrahedral counterpart is used here. We could
+// confirm that paper by its abstract but did not see a statement for
+// n = 3; the derivation above does not depend on it).
 //
 // CR shift. CR does not preserve element means, so its form carries one
 // constant c = max(0, min_T c_T) (CRShift; c_T the lower end of an
