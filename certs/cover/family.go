@@ -218,6 +218,10 @@ func ParseFamily(data []byte) (*Family, error) {
 		if i := certify.GroundStateClaim(p); i >= 0 {
 			return nil, invalid("claims", fmt.Sprintf("claim %q names shape_margin, which only a certificate's ground-state block provides; a cover does not certify ground states", p.Claims[i]), "remove the claim, or sample it with a sweep")
 		}
+		var unsup *certify.UnsupportedError
+		if err := certify.Supported(p); errors.As(err, &unsup) {
+			return nil, invalid("template."+unsup.Path, unsup.Reason, unsup.Hint)
+		}
 	}
 	deps, err := analyse(f)
 	if err != nil {

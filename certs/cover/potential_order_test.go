@@ -1,31 +1,69 @@
 package cover
 
-import "testing"
+import (
+	"errors"
+	"math/big"
+	"strings"
+	"testing"
+
+	"gapcert/certs/certify"
+	"gapcert/fem/problem"
+)
 
 // TestPotentialOrderOnAPolyhedron decides the sign of ∂V/∂c over the
-// bounding box of a polyhedron, the unit cube moved to x ∈ [−1, 0]: there
-// ∂(c·tanh x)/∂c = tanh x ≤ 0 and ∂(c·atan x)/∂c = atan x ≤ 0 (the
-// eigenvalues decrease in c), and ∂(c·z)/∂c = z ≥ 0 with z ∈ [0, 1].
+// bounding box of a polyhedron, the unit cube moved to x ∈ [−1, 0], by
+// the potential rule itself (ParseFamily refuses polyhedra while they
+// cannot be certified): there ∂(c·tanh x)/∂c = tanh x ≤ 0 and
+// ∂(c·atan x)/∂c = atan x ≤ 0 (the eigenvalues decrease in c), and
+// ∂(c·z)/∂c = z ≥ 0 with z ∈ [0, 1].
 func TestPotentialOrderOnAPolyhedron(t *testing.T) {
 	const cube = `{"polyhedron": {"vertices": [["-1","0","0"],["0","0","0"],["0","1","0"],["-1","1","0"],["-1","0","1"],["0","0","1"],["0","1","1"],["-1","1","1"]],
 	  "faces": [[0,3,2,1],[4,5,6,7],[0,1,5,4],[1,2,6,5],[2,3,7,6],[3,0,4,7]]}}`
+	f := &Family{Params: []Param{{Name: "c", Lo: big.NewRat(0, 1), Hi: big.NewRat(1, 1), MinCell: big.NewRat(1, 8), Count: 1}}}
 	for _, c := range []struct {
 		potential string
-		direction int
+		sign      int
 	}{
 		{"c*tanh(x)", -1},
 		{"c*atan(x)", -1},
 		{"c*z", 1},
 		{"c*(x+1)*y*z", 1},
 	} {
-		f, err := ParseFamily([]byte(`{"template": {"domain": ` + cube + `, "potential": "` + c.potential + `", "boundary": "dirichlet"},
-		  "parameters": [{"name": "c", "range": {"lo": "0", "hi": "1"}, "min_cell": "1/8"}]}`))
+		ref, err := problem.Parse([]byte(`{"domain": ` + cube + `, "potential": "` + c.potential + `", "boundary": "dirichlet", "parameters": {"c": "0"}}`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		uses, err := PotentialRule{}.Order(f, ref, 0)
 		if err != nil {
 			t.Errorf("V = %s: %v", c.potential, err)
 			continue
 		}
-		if d := f.Dependences[0]; d.Direction != c.direction {
-			t.Errorf("V = %s: direction %d (derivative %v), want %d", c.potential, d.Direction, d.Uses[0].Derivative, c.direction)
+		if len(uses) != 1 || uses[0].Sign != c.sign {
+			t.Errorf("V = %s: uses %+v, want one of sign %d", c.potential, uses, c.sign)
 		}
+	}
+}
+
+// TestUnsupportedDomainRefusedBeforeComputing: a family whose corner
+// problems certify.Supported refuses (a polyhedron, today) is an invalid
+// family, refused by ParseFamily with certify's reason, not at the first
+// corner of a run.
+func TestUnsupportedDomainRefusedBeforeComputing(t *testing.T) {
+	const cube = `{"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["1","1","0"],["0","1","0"],["0","0","1"],["1","0","1"],["1","1","1"],["0","1","1"]],
+	  "faces": [[0,3,2,1],[4,5,6,7],[0,1,5,4],[1,2,6,5],[2,3,7,6],[3,0,4,7]]}}`
+	data := []byte(`{"template": {"domain": ` + cube + `, "potential": "c", "boundary": "dirichlet"},
+	  "parameters": [{"name": "c", "range": {"lo": "0", "hi": "1"}, "min_cell": "1/8"}]}`)
+	p, err := ParseFamily(data)
+	if err == nil {
+		box := p.Box()
+		q, _ := p.Problem(box.Lo)
+		if certify.Supported(q) == nil {
+			t.Skip("polyhedra are certified now; nothing to refuse")
+		}
+		t.Fatal("a family of polyhedra was accepted, though its corners cannot be certified")
+	}
+	var inv *InvalidError
+	if !errors.As(err, &inv) || !strings.Contains(err.Error(), "template.domain.polyhedron") {
+		t.Fatalf("error %v, want an *InvalidError at template.domain.polyhedron", err)
 	}
 }
