@@ -67,3 +67,18 @@ func TestUnsupportedDomainRefusedBeforeComputing(t *testing.T) {
 		t.Fatalf("error %v, want an *InvalidError at template.domain.polyhedron", err)
 	}
 }
+
+// TestRecordedDerivativeIsThatOfTheDecidedPieces: for V = c³·x² on
+// (−1, 1), c ∈ [−1, 1], ∂V/∂c = 3c²x² ∈ [0, 3]; the first enclosure on the
+// whole box straddles 0 (c² is evaluated as c·c), the pieces decide the
+// sign, and the recorded derivative is the hull of those pieces, ≥ 0.
+func TestRecordedDerivativeIsThatOfTheDecidedPieces(t *testing.T) {
+	f := mustFamily(t, `{"template": {"domain": {"interval": ["-1","1"]}, "potential": "c^3*x^2", "boundary": "dirichlet"},
+	  "parameters": [{"name": "c", "range": {"lo": "-1", "hi": "1"}, "min_cell": "1/8"}]}`)
+	u := f.Dependences[0].Uses[0]
+	lo, ok1 := new(big.Rat).SetString(u.Derivative[0])
+	hi, ok2 := new(big.Rat).SetString(u.Derivative[1])
+	if u.Sign != 1 || !ok1 || !ok2 || lo.Sign() < 0 || hi.Cmp(big.NewRat(3, 1)) < 0 {
+		t.Errorf("use %+v: want sign +1 and a derivative enclosure inside [0, ∞) containing 3", u)
+	}
+}

@@ -379,7 +379,8 @@ const maxSignPieces = 4096
 // (formula.Gradient), which contains the exact derivative at every point
 // of the piece. Pieces where the enclosure straddles 0 (or where e is not
 // known to be smooth) are bisected in their widest variable, up to
-// maxSignPieces evaluations. It returns the hull of the enclosures, or an
+// maxSignPieces evaluations. It returns the hull of the enclosures on the
+// pieces where the sign was decided (which cover the box), or an
 // error saying why no sign is proved: pieces of opposite strict signs
 // (the derivative takes both signs; the pieces are named) or a
 // subdivision that did not decide.
@@ -403,11 +404,6 @@ func decideSign(e *formula.Expr, env map[string]interval.I, wrt, what string) (i
 		decided := false
 		if err == nil {
 			d := g[0]
-			if !have {
-				hull, have = d, true
-			} else {
-				hull = hull.Hull(d)
-			}
 			switch {
 			case d.Lo == 0 && d.Hi == 0:
 				zero++
@@ -423,6 +419,15 @@ func decideSign(e *formula.Expr, env map[string]interval.I, wrt, what string) (i
 				decided = true
 				if d.Hi < 0 && negBox == nil {
 					negBox = b
+				}
+			}
+			if decided {
+				// The pieces decided cover the box: their hull encloses
+				// the derivative on it.
+				if !have {
+					hull, have = d, true
+				} else {
+					hull = hull.Hull(d)
 				}
 			}
 		} else {
