@@ -326,6 +326,10 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 			return Param{}, false
 		}
 	}
+	if n := gridTextBound(lo, hi, p.Count, depth); n > maxNumberText {
+		add(path+".range", fmt.Sprintf("the bounds of cells down to min_cell (%d bisections of the first split's boxes) may need %d characters, more than the %d a number of a problem may have", depth, n, maxNumberText), "give lo and hi shorter exact texts, or a larger min_cell")
+		return Param{}, false
+	}
 	p.MinCell = mc
 	return p, true
 }
