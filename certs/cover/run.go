@@ -76,7 +76,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 	if err := prepareDir(dir, f, base); err != nil {
 		return nil, err
 	}
-	e := &engine{f: f, dir: dir, opt: opt, verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}}
+	e := &engine{f: f, dir: dir, opt: opt, verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}, usedCorners: map[string]bool{}}
 	if err := e.indexCells(); err != nil {
 		return nil, err
 	}
@@ -124,7 +124,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		}
 		level = next
 	}
-	s := f.summarize(opt.FamilyName, shard, rows, len(e.corners))
+	s := f.summarize(opt.FamilyName, shard, rows, len(e.usedCorners))
 	if err := writeSummary(dir, base, s); err != nil {
 		return s, err
 	}
@@ -164,6 +164,9 @@ type engine struct {
 	// corners holds the certified corners by problem hash.
 	corners         map[string]*cornerEntry
 	computedCorners int
+	// usedCorners holds the corner files named by the cells of the
+	// summary, computed or reused.
+	usedCorners map[string]bool
 }
 
 type cornerEntry struct {
@@ -240,6 +243,7 @@ func (e *engine) existing(b Box) (CellRow, bool) {
 	default:
 		row.Status = StatusReused
 		fillRow(&row, c, data)
+		e.usedCorners[c.Low.File], e.usedCorners[c.High.File] = true, true
 	}
 	return row, true
 }
@@ -379,6 +383,7 @@ func (e *engine) cell(b Box) (CellRow, bool, error) {
 	}
 	row := CellRow{Bounds: c.Bounds, File: name, Status: StatusComputed, Measure: e.f.fraction(b.Measure())}
 	fillRow(&row, c, data)
+	e.usedCorners[c.Low.File], e.usedCorners[c.High.File] = true, true
 	return row, false, nil
 }
 
