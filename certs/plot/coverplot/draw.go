@@ -18,6 +18,7 @@ import (
 	"gapcert/certs"
 	"gapcert/certs/cover"
 	"gapcert/certs/plot"
+	"gapcert/certs/sweep"
 )
 
 // Rect is one cell as drawn: its bounds (floats nearest to the exact
@@ -38,12 +39,16 @@ type Cover struct {
 }
 
 // Load reads the summary at path (a cover summary, or a cover directory
-// holding summary.json), cross-checks every row against its cell
-// certificate beside it (SHA-256 of the file and the verdicts it records)
-// and returns the cells with their verdicts on claim index claim.
+// holding summary.json or one shard summary: sweep.SummaryIn),
+// cross-checks every row against its cell certificate beside it (SHA-256
+// of the file and the verdicts it records) and returns the cells with
+// their verdicts on claim index claim.
 func Load(path string, claim int) (*Cover, error) {
 	if st, err := os.Stat(path); err == nil && st.IsDir() {
-		path = filepath.Join(path, "summary.json")
+		// summary.json, else the directory's one shard summary.
+		if path, err = sweep.SummaryIn(path); err != nil {
+			return nil, err
+		}
 	}
 	data, err := os.ReadFile(path)
 	if err != nil {
