@@ -160,7 +160,9 @@ type engine struct {
 	vmu      sync.Mutex
 	// cells maps the key of every cell file's bounds in dir to its file.
 	cells map[string]string
-	boxes []Box
+	// split holds the keys of the boxes of the bisection trees that
+	// strictly contain a cell file's box (the path from its root down).
+	split map[string]bool
 	// corners holds the certified corners by problem hash.
 	corners         map[string]*cornerEntry
 	computedCorners int
@@ -178,7 +180,8 @@ type cornerEntry struct {
 // indexCells reads the bounds of every cell file in dir (without
 // verifying them: that happens when a box is visited).
 func (e *engine) indexCells() error {
-	e.cells = map[string]string{}
+	e.cells, e.split = map[string]string{}, map[string]bool{}
+	roots := e.f.Roots()
 	entries, err := os.ReadDir(e.dir)
 	if err != nil {
 		return err
@@ -211,7 +214,7 @@ func (e *engine) indexCells() error {
 			continue
 		}
 		e.cells[b.key()] = ent.Name()
-		e.boxes = append(e.boxes, b)
+		e.markAncestors(b, roots)
 	}
 	return nil
 }
@@ -254,14 +257,48 @@ func mustBox(c *Cell, f *Family) Box {
 }
 
 // hasInside reports whether dir holds a cell file strictly inside b (b
-// was split by an earlier run).
-func (e *engine) hasInside(b Box) bool {
-	for _, c := range e.boxes {
-		if c.Inside(b) && !c.Equal(b) {
-			return true
+// was split by an earlier run), b being a box of the bisection trees.
+func (e *engine) hasInside(b Box) bool { return e.split[b.key()] }
+
+// markAncestors records the boxes of the bisection trees that strictly
+// contain c: from the root that contains it (roots are f.Roots()), down
+// through the half that contains it, until a box equals c, is not split,
+// or has no half that contains c. Every box of the trees that strictly
+// contains c is on this path, since the two halves of a box have disjoint
+// interiors and c has positive width in every parameter.
+func (e *engine) markAncestors(c Box, roots []Box) {
+	// The root whose part of each range holds c's lower end.
+	k := 0
+	for j, p := range e.f.Params {
+		q := new(big.Rat).Sub(c.Lo[j], p.Lo)
+		q.Mul(q, big.NewRat(int64(p.Count), 1))
+		q.Quo(q, new(big.Rat).Sub(p.Hi, p.Lo))
+		i := new(big.Int).Quo(q.Num(), q.Denom())
+		if !i.IsInt64() || i.Int64() < 0 || i.Int64() >= int64(p.Count) {
+			return
+		}
+		k = k*p.Count + int(i.Int64())
+	}
+	b := roots[k]
+	if !c.Inside(b) {
+		return
+	}
+	for !b.Equal(c) {
+		e.split[b.key()] = true
+		j := e.f.splitParam(b)
+		if j < 0 {
+			return
+		}
+		lower, upper := b.bisect(j)
+		switch {
+		case c.Inside(lower):
+			b = lower
+		case c.Inside(upper):
+			b = upper
+		default:
+			return
 		}
 	}
-	return false
 }
 
 // certifyCorners certifies (or finds verified in dir) the corners of the
