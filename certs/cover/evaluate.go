@@ -125,6 +125,11 @@ func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interva
 	for j, p := range f.Params {
 		env[p.Name] = b.Enclosure(j)
 	}
+	if _, ok := ref.Params[claim.Alpha]; ok {
+		// A parameter named alpha is what claims mean by alpha (as in
+		// certs/certify), with a value on the cell.
+		noAlpha = ""
+	}
 	return env, noAlpha, nil
 }
 

@@ -218,6 +218,10 @@ func ParseFamily(data []byte) (*Family, error) {
 		if i := certify.GroundStateClaim(p); i >= 0 {
 			return nil, invalid("claims", fmt.Sprintf("claim %q names shape_margin, which only a certificate's ground-state block provides; a cover does not certify ground states", p.Claims[i]), "remove the claim, or sample it with a sweep")
 		}
+		var unsup *certify.UnsupportedError
+		if err := certify.Supported(p); errors.As(err, &unsup) {
+			return nil, invalid("template."+unsup.Path, unsup.Reason, unsup.Hint)
+		}
 	}
 	deps, err := analyse(f)
 	if err != nil {
@@ -321,6 +325,10 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 			add(path+".min_cell", fmt.Sprintf("min_cell %s needs more than %d bisections of the range", problem.RatText(mc), MaxDepth), "give a larger min_cell")
 			return Param{}, false
 		}
+	}
+	if n := gridTextBound(lo, hi, p.Count, depth); n > maxNumberText {
+		add(path+".range", fmt.Sprintf("the bounds of cells down to min_cell (%d bisections of the first split's boxes) may need %d characters, more than the %d a number of a problem may have", depth, n, maxNumberText), "give lo and hi shorter exact texts, or a larger min_cell")
+		return Param{}, false
 	}
 	p.MinCell = mc
 	return p, true

@@ -283,6 +283,31 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 	if err := add(FamilyFileName, famData); err != nil {
 		return nil, err
 	}
+	// One certificate per corner file name: shards certify the corners
+	// they share each on their own, so the same corner problem may come
+	// with certificates that differ in bytes (their provenance, at
+	// least). The version already in outDir is kept when a cell uses it,
+	// else the first met; a cell that names another version is rebuilt on
+	// the kept one (buildCell, as CheckCell recomputes it), so that every
+	// cell in outDir verifies with the corner files beside it.
+	kept := map[string]cornerVersion{}
+	for _, c := range cells {
+		for _, ref := range []CornerRef{c.cell.Low, c.cell.High} {
+			if _, ok := kept[ref.File]; ok {
+				continue
+			}
+			if data, err := os.ReadFile(filepath.Join(outDir, ref.File)); err == nil && sha256Hex(data) == ref.CertificateSHA256 {
+				kept[ref.File] = cornerVersion{dir: outDir, sha: ref.CertificateSHA256}
+			}
+		}
+	}
+	for _, c := range cells {
+		for _, ref := range []CornerRef{c.cell.Low, c.cell.High} {
+			if _, ok := kept[ref.File]; !ok {
+				kept[ref.File] = cornerVersion{dir: c.dir, sha: ref.CertificateSHA256}
+			}
+		}
+	}
 	corners := map[string]bool{}
 	var rows []CellRow
 	for _, c := range cells {
@@ -291,15 +316,30 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 				continue
 			}
 			corners[ref.File] = true
-			data, err := os.ReadFile(filepath.Join(c.dir, ref.File))
+			k := kept[ref.File]
+			data, err := os.ReadFile(filepath.Join(k.dir, ref.File))
 			if err != nil {
 				return nil, err
 			}
-			if sha256Hex(data) != ref.CertificateSHA256 {
-				return nil, fmt.Errorf("%s changed after it was verified; nothing merged (run the merge again)", filepath.Join(c.dir, ref.File))
+			if sha256Hex(data) != k.sha {
+				return nil, fmt.Errorf("%s changed after it was verified; nothing merged (run the merge again)", filepath.Join(k.dir, ref.File))
 			}
 			if err := add(ref.File, data); err != nil {
 				return nil, err
+			}
+		}
+		if kept[c.cell.Low.File].sha != c.cell.Low.CertificateSHA256 || kept[c.cell.High.File].sha != c.cell.High.CertificateSHA256 {
+			rebuilt, err := f.rebuildOnCorners(c.cell, c.box, kept[c.cell.Low.File].sha, kept[c.cell.High.File].sha, verifier)
+			if err != nil {
+				return nil, fmt.Errorf("%s: %v", filepath.Join(c.dir, c.name), err)
+			}
+			data, err := rebuilt.Marshal()
+			if err != nil {
+				return nil, err
+			}
+			c.cell, c.data = rebuilt, data
+			if progress != nil {
+				progress("%s: rebuilt on the corner certificates kept in the merge\n", filepath.Join(c.dir, c.name))
 			}
 		}
 		if err := add(c.name, c.data); err != nil {
@@ -329,6 +369,34 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 		return nil, err
 	}
 	return s, nil
+}
+
+// cornerVersion is the corner certificate a merge keeps for one file
+// name: the directory it is copied from and its SHA-256.
+type cornerVersion struct {
+	dir, sha string
+}
+
+// rebuildOnCorners returns the certificate of the cell c (box b) built on
+// the corner certificates with SHA-256 lowSHA and highSHA, both verified
+// by v already (each is the version another cell of the merge names):
+// the cell's quantities, claims and verdict are recomputed from them
+// (buildCell), its provenance kept.
+func (f *Family) rebuildOnCorners(c *Cell, b Box, lowSHA, highSHA string, v *CornerVerifier) (*Cell, error) {
+	lv, hv := f.Corners(b)
+	var cs [2]corner
+	for i, vals := range [][]*big.Rat{lv, hv} {
+		p, err := f.Problem(vals)
+		if err != nil {
+			return nil, err
+		}
+		cert, ok := v.verified[[2]string{lowSHA, highSHA}[i]]
+		if !ok || cert.ProblemSHA256 != p.SHA256() {
+			return nil, fmt.Errorf("internal: the kept corner certificate of %s was not verified", f.describe(vals))
+		}
+		cs[i] = corner{problem: p, cert: cert}
+	}
+	return f.buildCell(b, cs[0], cs[1], lowSHA, highSHA, c.Provenance)
 }
 
 // IsCoverDir reports whether dir holds the family file of a cover (a

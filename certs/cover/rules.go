@@ -305,9 +305,8 @@ func (r PotentialRule) Order(f *Family, ref *problem.Problem, j int) ([]Use, err
 	}
 	box := paramBox(f, f.Box(), ref)
 	lo, hi := boundingBox(ref)
-	box["x"] = interval.I{Lo: lo[0], Hi: hi[0]}
-	if ref.Dim == 2 {
-		box["y"] = interval.I{Lo: lo[1], Hi: hi[1]}
+	for c, name := range []string{"x", "y", "z"}[:ref.Dim] {
+		box[name] = interval.I{Lo: lo[c], Hi: hi[c]}
 	}
 	sign, d, err := decideSign(e, box, name, "∂V/∂"+name)
 	if err != nil {
@@ -339,17 +338,27 @@ func paramBox(f *Family, b Box, ref *problem.Problem) map[string]interval.I {
 }
 
 // boundingBox encloses the domain's bounding box: [a, b] for an interval,
-// the hull of the vertex enclosures for a polygon.
-func boundingBox(p *problem.Problem) (lo, hi [2]float64) {
+// the hull of the vertex enclosures for a polygon or a polyhedron (the
+// first Dim coordinates are set).
+func boundingBox(p *problem.Problem) (lo, hi [3]float64) {
 	if p.Dim == 1 {
-		return [2]float64{p.Interval[0].Val.Lo, 0}, [2]float64{p.Interval[1].Val.Hi, 0}
+		return [3]float64{p.Interval[0].Val.Lo}, [3]float64{p.Interval[1].Val.Hi}
 	}
-	lo = [2]float64{math.Inf(1), math.Inf(1)}
-	hi = [2]float64{math.Inf(-1), math.Inf(-1)}
+	lo = [3]float64{math.Inf(1), math.Inf(1), math.Inf(1)}
+	hi = [3]float64{math.Inf(-1), math.Inf(-1), math.Inf(-1)}
+	add := func(c int, v problem.Number) {
+		lo[c] = math.Min(lo[c], v.Val.Lo)
+		hi[c] = math.Max(hi[c], v.Val.Hi)
+	}
 	for _, v := range p.Vertices {
-		for c := 0; c < 2; c++ {
-			lo[c] = math.Min(lo[c], v[c].Val.Lo)
-			hi[c] = math.Max(hi[c], v[c].Val.Hi)
+		add(0, v[0])
+		add(1, v[1])
+	}
+	if ph := p.Polyhedron; ph != nil {
+		for _, v := range ph.Vertices {
+			add(0, v[0])
+			add(1, v[1])
+			add(2, v[2])
 		}
 	}
 	return lo, hi
@@ -370,7 +379,8 @@ const maxSignPieces = 4096
 // (formula.Gradient), which contains the exact derivative at every point
 // of the piece. Pieces where the enclosure straddles 0 (or where e is not
 // known to be smooth) are bisected in their widest variable, up to
-// maxSignPieces evaluations. It returns the hull of the enclosures, or an
+// maxSignPieces evaluations. It returns the hull of the enclosures on the
+// pieces where the sign was decided (which cover the box), or an
 // error saying why no sign is proved: pieces of opposite strict signs
 // (the derivative takes both signs; the pieces are named) or a
 // subdivision that did not decide.
@@ -394,11 +404,6 @@ func decideSign(e *formula.Expr, env map[string]interval.I, wrt, what string) (i
 		decided := false
 		if err == nil {
 			d := g[0]
-			if !have {
-				hull, have = d, true
-			} else {
-				hull = hull.Hull(d)
-			}
 			switch {
 			case d.Lo == 0 && d.Hi == 0:
 				zero++
@@ -414,6 +419,15 @@ func decideSign(e *formula.Expr, env map[string]interval.I, wrt, what string) (i
 				decided = true
 				if d.Hi < 0 && negBox == nil {
 					negBox = b
+				}
+			}
+			if decided {
+				// The pieces decided cover the box: their hull encloses
+				// the derivative on it.
+				if !have {
+					hull, have = d, true
+				} else {
+					hull = hull.Hull(d)
 				}
 			}
 		} else {

@@ -76,7 +76,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 	if err := prepareDir(dir, f, base); err != nil {
 		return nil, err
 	}
-	e := &engine{f: f, dir: dir, opt: opt, verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}}
+	e := &engine{f: f, dir: dir, opt: opt, verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}, usedCorners: map[string]bool{}}
 	if err := e.indexCells(); err != nil {
 		return nil, err
 	}
@@ -124,7 +124,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 		}
 		level = next
 	}
-	s := f.summarize(opt.FamilyName, shard, rows, len(e.corners))
+	s := f.summarize(opt.FamilyName, shard, rows, len(e.usedCorners))
 	if err := writeSummary(dir, base, s); err != nil {
 		return s, err
 	}
@@ -160,10 +160,15 @@ type engine struct {
 	vmu      sync.Mutex
 	// cells maps the key of every cell file's bounds in dir to its file.
 	cells map[string]string
-	boxes []Box
+	// split holds the keys of the boxes of the bisection trees that
+	// strictly contain a cell file's box (the path from its root down).
+	split map[string]bool
 	// corners holds the certified corners by problem hash.
 	corners         map[string]*cornerEntry
 	computedCorners int
+	// usedCorners holds the corner files named by the cells of the
+	// summary, computed or reused.
+	usedCorners map[string]bool
 }
 
 type cornerEntry struct {
@@ -175,7 +180,8 @@ type cornerEntry struct {
 // indexCells reads the bounds of every cell file in dir (without
 // verifying them: that happens when a box is visited).
 func (e *engine) indexCells() error {
-	e.cells = map[string]string{}
+	e.cells, e.split = map[string]string{}, map[string]bool{}
+	roots := e.f.Roots()
 	entries, err := os.ReadDir(e.dir)
 	if err != nil {
 		return err
@@ -208,7 +214,7 @@ func (e *engine) indexCells() error {
 			continue
 		}
 		e.cells[b.key()] = ent.Name()
-		e.boxes = append(e.boxes, b)
+		e.markAncestors(b, roots)
 	}
 	return nil
 }
@@ -240,6 +246,7 @@ func (e *engine) existing(b Box) (CellRow, bool) {
 	default:
 		row.Status = StatusReused
 		fillRow(&row, c, data)
+		e.usedCorners[c.Low.File], e.usedCorners[c.High.File] = true, true
 	}
 	return row, true
 }
@@ -250,14 +257,48 @@ func mustBox(c *Cell, f *Family) Box {
 }
 
 // hasInside reports whether dir holds a cell file strictly inside b (b
-// was split by an earlier run).
-func (e *engine) hasInside(b Box) bool {
-	for _, c := range e.boxes {
-		if c.Inside(b) && !c.Equal(b) {
-			return true
+// was split by an earlier run), b being a box of the bisection trees.
+func (e *engine) hasInside(b Box) bool { return e.split[b.key()] }
+
+// markAncestors records the boxes of the bisection trees that strictly
+// contain c: from the root that contains it (roots are f.Roots()), down
+// through the half that contains it, until a box equals c, is not split,
+// or has no half that contains c. Every box of the trees that strictly
+// contains c is on this path, since the two halves of a box have disjoint
+// interiors and c has positive width in every parameter.
+func (e *engine) markAncestors(c Box, roots []Box) {
+	// The root whose part of each range holds c's lower end.
+	k := 0
+	for j, p := range e.f.Params {
+		q := new(big.Rat).Sub(c.Lo[j], p.Lo)
+		q.Mul(q, big.NewRat(int64(p.Count), 1))
+		q.Quo(q, new(big.Rat).Sub(p.Hi, p.Lo))
+		i := new(big.Int).Quo(q.Num(), q.Denom())
+		if !i.IsInt64() || i.Int64() < 0 || i.Int64() >= int64(p.Count) {
+			return
+		}
+		k = k*p.Count + int(i.Int64())
+	}
+	b := roots[k]
+	if !c.Inside(b) {
+		return
+	}
+	for !b.Equal(c) {
+		e.split[b.key()] = true
+		j := e.f.splitParam(b)
+		if j < 0 {
+			return
+		}
+		lower, upper := b.bisect(j)
+		switch {
+		case c.Inside(lower):
+			b = lower
+		case c.Inside(upper):
+			b = upper
+		default:
+			return
 		}
 	}
-	return false
 }
 
 // certifyCorners certifies (or finds verified in dir) the corners of the
@@ -379,6 +420,7 @@ func (e *engine) cell(b Box) (CellRow, bool, error) {
 	}
 	row := CellRow{Bounds: c.Bounds, File: name, Status: StatusComputed, Measure: e.f.fraction(b.Measure())}
 	fillRow(&row, c, data)
+	e.usedCorners[c.Low.File], e.usedCorners[c.High.File] = true, true
 	return row, false, nil
 }
 

@@ -213,7 +213,9 @@ func checkCoverCell(cmd *cobra.Command, name string, data []byte) error {
 // holding one.
 func isCoverSummary(path string) bool {
 	if st, err := os.Stat(path); err == nil && st.IsDir() {
-		path = filepath.Join(path, "summary.json")
+		if path, err = sweep.SummaryIn(path); err != nil {
+			return false
+		}
 	}
 	data, err := os.ReadFile(path)
 	if err != nil {

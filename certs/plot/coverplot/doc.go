@@ -8,8 +8,10 @@
 //
 // Guarantees. The verdicts and the coverage fractions are copied from
 // the summary, whose rows are cross-checked against the cell certificates
-// beside it (the file's SHA-256 and the verdicts it records); a verdict is
-// certified for every parameter value of its cell. Drawing is floating
+// beside it (the file's SHA-256 and the verdicts it records), each row
+// once, and whose fractions must be the exact sums of the measures of
+// those rows; a verdict is certified for every parameter value of its
+// cell. Drawing is floating
 // point: cell bounds are placed at their nearest float, and nothing in
 // the picture adds to what the certificates prove.
 package coverplot

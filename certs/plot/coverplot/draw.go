@@ -18,6 +18,7 @@ import (
 	"gapcert/certs"
 	"gapcert/certs/cover"
 	"gapcert/certs/plot"
+	"gapcert/certs/sweep"
 )
 
 // Rect is one cell as drawn: its bounds (floats nearest to the exact
@@ -38,12 +39,16 @@ type Cover struct {
 }
 
 // Load reads the summary at path (a cover summary, or a cover directory
-// holding summary.json), cross-checks every row against its cell
-// certificate beside it (SHA-256 of the file and the verdicts it records)
-// and returns the cells with their verdicts on claim index claim.
+// holding summary.json or one shard summary: sweep.SummaryIn),
+// cross-checks every row against its cell certificate beside it (SHA-256
+// of the file and the verdicts it records) and returns the cells with
+// their verdicts on claim index claim.
 func Load(path string, claim int) (*Cover, error) {
 	if st, err := os.Stat(path); err == nil && st.IsDir() {
-		path = filepath.Join(path, "summary.json")
+		// summary.json, else the directory's one shard summary.
+		if path, err = sweep.SummaryIn(path); err != nil {
+			return nil, err
+		}
 	}
 	data, err := os.ReadFile(path)
 	if err != nil {
@@ -65,10 +70,28 @@ func Load(path string, claim int) (*Cover, error) {
 		c.Box[j] = [2]float64{ratFloat(p.Lo), ratFloat(p.Hi)}
 	}
 	dir := filepath.Dir(path)
+	// The fractions of the box where the claim holds, fails or is
+	// undecided, summed exactly over the rows drawn: the legend states
+	// the summary's, which must be these.
+	box := big.NewRat(1, 1)
+	for _, p := range s.Parameters {
+		lo, ok1 := new(big.Rat).SetString(p.Lo)
+		hi, ok2 := new(big.Rat).SetString(p.Hi)
+		if !ok1 || !ok2 || lo.Cmp(hi) >= 0 {
+			return nil, fmt.Errorf("%s: the range of %s is not [lo, hi] with exact lo < hi", path, p.Name)
+		}
+		box.Mul(box, hi.Sub(hi, lo))
+	}
+	sums := map[string]*big.Rat{certs.Holds: new(big.Rat), certs.Fails: new(big.Rat), certs.Undecided: new(big.Rat)}
+	seen := map[string]bool{}
 	for _, r := range s.Cells {
 		if r.File == "" || r.Status == cover.StatusRejected {
 			continue
 		}
+		if seen[r.File] {
+			return nil, fmt.Errorf("%s: the summary lists %s twice", path, r.File)
+		}
+		seen[r.File] = true
 		cd, err := os.ReadFile(filepath.Join(dir, r.File))
 		if err != nil {
 			return nil, fmt.Errorf("%s: %v", path, err)
@@ -84,6 +107,21 @@ func Load(path string, claim int) (*Cover, error) {
 		if fmt.Sprintf("%x", sha256Sum(cd)) != r.CertificateSHA256 || !reflect.DeepEqual(verdicts, r.Verdicts) || !reflect.DeepEqual(cell.Bounds, r.Bounds) {
 			return nil, fmt.Errorf("%s: the row of %s disagrees with the certificate file", path, r.File)
 		}
+		if claim >= len(r.Verdicts) {
+			return nil, fmt.Errorf("%s: the row of %s has no verdict on claim %d", path, r.File, claim)
+		}
+		m := big.NewRat(1, 1)
+		for _, b := range r.Bounds {
+			lo, ok1 := new(big.Rat).SetString(b.Lo)
+			hi, ok2 := new(big.Rat).SetString(b.Hi)
+			if !ok1 || !ok2 {
+				return nil, fmt.Errorf("%s: the bounds of %s are not exact numbers", path, r.File)
+			}
+			m.Mul(m, hi.Sub(hi, lo))
+		}
+		if sum, ok := sums[r.Verdicts[claim]]; ok {
+			sum.Add(sum, m.Quo(m, box))
+		}
 		rect := Rect{Verdict: r.Verdicts[claim]}
 		rect.X = [2]float64{ratFloat(r.Bounds[0].Lo), ratFloat(r.Bounds[0].Hi)}
 		if len(r.Bounds) == 2 {
@@ -93,6 +131,11 @@ func Load(path string, claim int) (*Cover, error) {
 	}
 	if len(c.Cells) == 0 {
 		return nil, errors.New(path + ": no cells to draw")
+	}
+	for verdict, text := range map[string]string{certs.Holds: c.Coverage.Holds, certs.Fails: c.Coverage.Fails, certs.Undecided: c.Coverage.Undecided} {
+		if x, ok := new(big.Rat).SetString(text); !ok || x.Cmp(sums[verdict]) != 0 {
+			return nil, fmt.Errorf("%s: the summary gives the claim %s on %s of the box, but its cells on %s", path, verdict, text, sums[verdict].RatString())
+		}
 	}
 	return c, nil
 }
