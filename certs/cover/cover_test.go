@@ -281,6 +281,8 @@ func TestBadFamilies(t *testing.T) {
 		  "parameters": [{"name": "c", "range": {"lo": "0", "hi": "5"}, "min_cell": "1", "min_cell": "2"}]}`, "min_cell"},
 		{"case variant", `{"template": {"domain": {"interval": ["0","1"]}, "potential": "c*x^2", "boundary": "dirichlet"},
 		  "Parameters": [{"name": "c", "range": {"lo": "0", "hi": "5"}, "min_cell": "1"}]}`, "Parameters"},
+		{"count with a factor 3", `{"template": {"domain": {"interval": ["0","1"]}, "potential": "c*x^2", "boundary": "dirichlet"},
+		  "parameters": [{"name": "c", "range": {"lo": "0", "hi": "3", "count": 3}, "min_cell": "1/8"}]}`, "prime factor other than 2 and 5"},
 		{"values instead of a range", `{"template": {"domain": {"interval": ["0","1"]}, "potential": "c*x^2", "boundary": "dirichlet"},
 		  "parameters": [{"name": "c", "values": ["0", "1"], "min_cell": "1"}]}`, "values"},
 	}

@@ -297,6 +297,10 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 			add(path+".range.count", fmt.Sprintf("count %d is not between 1 and %d", p.Count, MaxRoots), "count is the number of equal parts of the first split")
 			return Param{}, false
 		}
+		if !onlyTwosAndFives(p.Count) {
+			add(path+".range.count", fmt.Sprintf("count %d has a prime factor other than 2 and 5", p.Count), "coverage fractions are exact decimals only when every count is 2^i·5^j (1, 2, 4, 5, 8, 10, …)")
+			return Param{}, false
+		}
 	}
 	if len(pf.MinCell) == 0 {
 		add(path+".min_cell", fmt.Sprintf("parameter %q has no min_cell", pf.Name), `give the width below which cells are not split, e.g. "min_cell": "1/64"`)
@@ -472,4 +476,20 @@ func (f *Family) pointJSON(values []*big.Rat) ([]byte, error) {
 	}
 	obj["name"] = label
 	return json.Marshal(obj)
+}
+
+// onlyTwosAndFives reports whether n > 0 has no prime factor but 2 and 5.
+// Every cell of a cover is a box of the first split (count_j equal parts
+// per parameter) bisected some number of times, so its measure is a
+// fraction of the box with denominator Π count_j · 2^m; such a fraction has
+// a terminating decimal expansion exactly when the denominator has no
+// prime factor but 2 and 5.
+func onlyTwosAndFives(n int) bool {
+	for n%2 == 0 {
+		n /= 2
+	}
+	for n%5 == 0 {
+		n /= 5
+	}
+	return n == 1
 }

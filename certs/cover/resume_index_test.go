@@ -14,7 +14,7 @@ import (
 // midpoints or the first split's faces.
 func TestHasInsideIsStrictContainment(t *testing.T) {
 	f := mustFamily(t, `{"template": {"domain": {"interval": ["0", "1"]}, "potential": "a*x^2 + b*x^4", "boundary": "dirichlet"},
-	  "parameters": [{"name": "a", "range": {"lo": "0", "hi": "3", "count": 3}, "min_cell": "3/8"},
+	  "parameters": [{"name": "a", "range": {"lo": "0", "hi": "3", "count": 4}, "min_cell": "3/8"},
 	                 {"name": "b", "range": {"lo": "-1/2", "hi": "1/2", "count": 2}, "min_cell": "1/8"}]}`)
 	var tree []Box
 	level := f.Roots()

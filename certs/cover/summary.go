@@ -21,10 +21,9 @@ const SummaryFormat = "gapcert.cover-summary/v1"
 
 // Summary is the record of a cover run (one shard, or the merge of all):
 // the coverage of each claim and one row per cell. Fractions are of the
-// measure of the whole parameter box, as exact text (problem.RatText: an
-// exact decimal when the fraction's decimal expansion terminates, which it
-// does when every count of the first split has no prime factor but 2 and
-// 5; else the reduced fraction "p/q").
+// measure of the whole parameter box, as exact decimal text
+// (problem.RatText): the family reader admits only counts of the first
+// split with no prime factor but 2 and 5, so every fraction terminates.
 type Summary struct {
 	Format       string          `json:"format"`
 	Family       string          `json:"family"`
