@@ -1,9 +1,11 @@
 package certify
 
 import (
+	"errors"
 	"fmt"
 
 	"gapcert/certs/certify/proof"
+	"gapcert/enclose"
 	"gapcert/fem/discrete"
 	"gapcert/fem/problem"
 	"gapcert/interval"
@@ -193,11 +195,11 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 		out.notes = append(out.notes, "stage B skipped: "+err.Error())
 		return out, nil
 	}
-	a2, err := flux.LGMatrix(trialN, fluxes)
-	if err != nil {
-		return nil, err
+	lg, err := stageB(shift, flux, b0, b1, trialN, fluxes, out.lgRho)
+	var me matrixError
+	if errors.As(err, &me) {
+		return nil, me.err
 	}
-	lg, err := shift.StageB(b0, b1, a2, out.lgRho)
 	if err != nil {
 		out.notes = append(out.notes, "stage B gave no bound: "+err.Error())
 		return out, nil
@@ -212,6 +214,33 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	out.lg = lg
 	return out, nil
 }
+
+// stageB returns the Lehmann–Goerisch bounds of stage B for the Ritz
+// matrices b0, b1 of the first N trial functions, their fluxes and ρ̂_B:
+// with the flux space's own enclosure of the Lehmann matrix B when it has
+// one (discrete.LehmannMatrix: the residual form, narrower), else with
+// A2 (Flux.LGMatrix). An error of the matrices themselves is returned as a
+// matrixError (the step fails); one of the theorem's decision (B not
+// verified positive definite) as it is (stage B gives no bound).
+func stageB(shift proof.StageBShift, flux discrete.Flux, b0, b1 *enclose.Sym, trialN, fluxes [][]float64, rhoB float64) ([]float64, error) {
+	if lm, ok := flux.(discrete.LehmannMatrix); ok {
+		if b, err := lm.LehmannMatrix(trialN, fluxes, rhoB); err == nil {
+			return shift.StageBFromB(b0, b1, b, rhoB)
+		}
+	}
+	a2, err := flux.LGMatrix(trialN, fluxes)
+	if err != nil {
+		return nil, matrixError{err}
+	}
+	return shift.StageB(b0, b1, a2, rhoB)
+}
+
+// matrixError is an error of the interval matrices of stage B (as opposed
+// to a failed decision of the theorem).
+type matrixError struct{ err error }
+
+func (e matrixError) Error() string { return e.err.Error() }
+func (e matrixError) Unwrap() error { return e.err }
 
 // chooseN sets out.n to an N ≥ the requested count m whose
 // ρ̂ = (stage-A lower bound of Λ_{N+1}) exceeds the Ritz upper bound of Λ_N,
