@@ -187,8 +187,8 @@ func (f *Flux) LehmannMatrix(s *Lagrange, trial [][]float64, flux [][]float64, v
 		if !rem.IsBounded() || !hull(bern).IsBounded() || !vr.IsBounded() || !hull(vb).IsBounded() {
 			return nil, errUnbounded
 		}
-		bernstein.WeightedGram(wg, tripleTable(w.q, d, d).IV, bern, interval.Point(rem.Mid()), nd)
-		bernstein.WeightedGram(vg, tripleTable(v.q, p, p).IV, vb, gamma.AddF(vr.Mid()), np)
+		weightedGramOf(wg, w.q, d, bern, interval.Point(rem.Mid()))
+		weightedGramOf(vg, v.q, p, vb, gamma.AddF(vr.Mid()))
 		for i := range wk {
 			bernstein.ApplyI(wk[i].wf, wg, wk[i].fi)
 			bernstein.ApplyF(wk[i].vu, vg, wk[i].cf)
