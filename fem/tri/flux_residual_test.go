@@ -7,6 +7,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/fem/boundary"
+	"gapcert/fem/internal/bernstein"
 	"gapcert/fem/mesh"
 	"gapcert/interval"
 )
@@ -144,5 +145,39 @@ func TestLehmannMatrixRefusesRobinSides(t *testing.T) {
 	}
 	if _, err := f.LehmannMatrix(s, u, sig, v, v, g, 30); !errors.Is(err, ErrWeightMismatch) {
 		t.Errorf("weight not made by InverseShifted: error %v, want ErrWeightMismatch", err)
+	}
+}
+
+// TestWeightedGramOfConstantModel: for a model whose Bernstein coefficients
+// are all the same interval (the weight of a constant V), weightedGramOf
+// uses the degree-0 table; its entries must overlap those of the full sum
+// over the degree-12 table (both enclose the same integrals) and be no
+// wider. A model with one coefficient changed takes the full sum,
+// entry for entry identical to bernstein.WeightedGram.
+func TestWeightedGramOfConstantModel(t *testing.T) {
+	const q, d = 12, 6
+	nd := dim(d)
+	third := interval.Point(1).DivF(3)
+	bern := make([]interval.I, dim(q))
+	for k := range bern {
+		bern[k] = third
+	}
+	s := interval.Point(0.25)
+	short, full := make([]interval.I, nd*nd), make([]interval.I, nd*nd)
+	weightedGramOf(short, q, d, bern, s)
+	bernstein.WeightedGram(full, tripleTable(q, d, d).IV, bern, s, nd)
+	for ab := range short {
+		a, b := short[ab], full[ab]
+		if a.Lo > b.Hi || b.Lo > a.Hi || a.Rad() > b.Rad() {
+			t.Fatalf("entry %d: degree-0 table %v, full sum %v: want overlapping and no wider", ab, a, b)
+		}
+	}
+	bern[5] = interval.Point(0.5)
+	weightedGramOf(short, q, d, bern, s)
+	bernstein.WeightedGram(full, tripleTable(q, d, d).IV, bern, s, nd)
+	for ab := range short {
+		if short[ab] != full[ab] {
+			t.Fatalf("entry %d of a non-constant model: %v, want the full sum %v", ab, short[ab], full[ab])
+		}
 	}
 }
