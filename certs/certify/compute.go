@@ -256,9 +256,9 @@ func (e matrixError) Unwrap() error { return e.err }
 // about Λ_m/(ρ̂ − Λ_m) times the relative widths of the pencil's entries
 // (package temple: μ ≈ Λ/(Λ − ρ̂), B ≈ (ρ̂ − Λ)²/Λ); with ρ̂ just below a
 // close Λ_{m+1} that factor dominates the width. Measured on the generic
-// triangle (0,0), (1,0), (3/10,7/10) at degree 10 on 292 triangles: N = 2
-// (ρ̂ 14% above Λ_2) gives λ2 a relative width of 2.6e-13, N = 3 (ρ̂
-// 56% above) 9.2e-14.
+// triangle (0,0), (1,0), (3/10,7/10) at degree 10 on 292 triangles, with
+// B combined from A0, A1 and A2: N = 2 (ρ̂ 14% above Λ_2) gives λ2 a
+// relative width of 2.6e-13, N = 3 (ρ̂ 56% above) 9.2e-14.
 func chooseN(p *problem.Problem, out *outcome) bool {
 	m := p.Eigenvalues
 	separates := func(n int) bool { return n < len(out.stageA) && n <= len(out.ritz) && out.stageA[n] > out.ritz[n-1] }
