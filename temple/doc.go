@@ -111,6 +111,29 @@
 // where H(div) = H¹ and the boundary integrals are end-point values) and
 // fem/tri (Flux.LGMatrix, Raviart–Thomas fluxes).
 //
+// # The residual form of B
+//
+// By (★) with φ = ũ_j ∈ H, (Tũ_j, w_i)_X = b(ũ_j, ũ_i) = A1_ij, so with
+// r_i = w_i − Tũ_i/ρ
+//
+//	ρ²(r_i, r_j)_X = ρ²(w_i, w_j)_X − ρ(Tũ_i, w_j)_X − ρ(w_i, Tũ_j)_X + (Tũ_i, Tũ_j)_X
+//	             = ρ²A2_ij − 2ρA1_ij + A0_ij = B_ij,
+//
+// an identity of the exact entries (b symmetric). For an eigenpair
+// approximation w_i ≈ Tũ_i/Λ_i the entries of B are about (ρ − Λ_i)²/Λ_i,
+// while those of A0, ρA1 and ρ²A2 are about Λ_i, ρ and ρ²/Λ_i: the
+// combination of their enclosures keeps their widths and loses their
+// common digits: its relative width is about ((ρ + Λ_i)/(ρ − Λ_i))² times
+// theirs. Formed as ρ²(r_i, r_j)_X, with r_i computed in each
+// function before integrating, the enclosure of B has about the relative
+// width of its own integrals. For the second-order problems below,
+//
+//	r_i = (σ_i − ∇ũ_i/ρ, (ũ_i + div σ_i − cũ_i/ρ)/√c, Robin parts),
+//	B_ij = ρ²[(σ_i − ∇ũ_i/ρ, σ_j − ∇ũ_j/ρ) + ∫(f_i − cũ_i/ρ)(f_j − cũ_j/ρ)/c],  f_i = ũ_i + div σ_i,
+//
+// without Robin sides (fem/tri, Flux.LehmannMatrix), and
+// LehmannGoerischFromB takes that enclosure in place of A2.
+//
 // # Conditions and who checks them
 //
 //   - ρ̂ a positive finite float, B positive definite for every member of

@@ -98,13 +98,48 @@ func LehmannGoerisch(a0, a1, a2 *enclose.Sym, rho float64) (lower []float64, err
 	r := interval.Point(rho)
 	twoR := r.MulF(2) // exact unless it overflows; outward rounded in any case
 	r2 := r.Sqr()
-	shifted := enclose.NewSym(n) // A0 − ρA1
 	lehmann := enclose.NewSym(n) // A0 − 2ρA1 + ρ²A2
 	for i := 0; i < n; i++ {
 		for j := 0; j <= i; j++ {
 			m, b, w := a0.At(i, j), a1.At(i, j), a2.At(i, j)
-			shifted.Set(i, j, m.Sub(b.Mul(r)))
 			lehmann.Set(i, j, m.Sub(b.Mul(twoR)).Add(w.Mul(r2)))
+		}
+	}
+	return lehmannBounds(a0, a1, lehmann, r)
+}
+
+// LehmannGoerischFromB is LehmannGoerisch with the caller's enclosure b
+// of B = A0 − 2ρA1 + ρ²A2 in place of a2: the same theorem, the same
+// hypothesis ρ̂ ≤ Λ_(N+1) on the caller, the same result. The caller may
+// enclose B by any exact identity of its entries; the residual form
+// B_ij = ρ²(w_i − Tũ_i/ρ, w_j − Tũ_j/ρ)_X (package doc, The residual form
+// of B) cancels in each function before integrating, so its enclosure is
+// narrower than the combination of those of A0, A1 and A2. It returns an
+// error if rho is not a positive finite float, and panics if the three
+// matrices do not have the same dimension N ≥ 1.
+func LehmannGoerischFromB(a0, a1, b *enclose.Sym, rho float64) (lower []float64, err error) {
+	n := a0.N()
+	if a1.N() != n || b.N() != n {
+		panic("temple: dimension mismatch")
+	}
+	if n < 1 {
+		panic("temple: empty trial space")
+	}
+	if !(rho > 0) || math.IsInf(rho, 1) {
+		return nil, fmt.Errorf("temple: shift rho = %g is not a positive finite number", rho)
+	}
+	return lehmannBounds(a0, a1, b, interval.Point(rho))
+}
+
+// lehmannBounds returns the bounds of LehmannGoerisch from a0, a1, the
+// enclosure lehmann of B and the point interval r = [ρ, ρ] (the
+// Computation paragraph of LehmannGoerisch).
+func lehmannBounds(a0, a1, lehmann *enclose.Sym, r interval.I) ([]float64, error) {
+	n := a0.N()
+	shifted := enclose.NewSym(n) // A0 − ρA1
+	for i := 0; i < n; i++ {
+		for j := 0; j <= i; j++ {
+			shifted.Set(i, j, a0.At(i, j).Sub(a1.At(i, j).Mul(r)))
 		}
 	}
 	if !enclose.PositiveDefinite(lehmann) {
@@ -114,7 +149,7 @@ func LehmannGoerisch(a0, a1, a2 *enclose.Sym, rho float64) (lower []float64, err
 	if err != nil {
 		return nil, fmt.Errorf("temple: enclosing the Lehmann pencil: %w", err)
 	}
-	lower = make([]float64, n)
+	lower := make([]float64, n)
 	for i := range n {
 		lower[n-1-i] = boundFromMu(r, mu[i].Hi)
 	}

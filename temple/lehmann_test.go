@@ -472,3 +472,65 @@ func BenchmarkLehmannGoerisch(b *testing.B) {
 		})
 	}
 }
+
+// TestLehmannGoerischFromB: the oracle's matrices widened to a relative
+// width of 1e-13 (as a finite-element assembly of many contributions
+// makes them) against the same A0, A1 and B = A0 − 2ρA1 + ρ²A2 enclosed
+// to the ulp from its exact value (as the residual form of B makes it,
+// package doc): both give lower bounds of the exact Λ_k, and with the
+// narrow B the bound of Λ_3 = 9 (ρ = Λ_4 = 16, trial vectors 1e-9 from the
+// eigenvectors, so the widths make the distance) is at least 3 times
+// closer. The combination widens B relatively by about
+// ((ρ + Λ)/(ρ − Λ))² ≈ 12.8 times the inputs' width and A0 − ρA1 by
+// (ρ + Λ)/(ρ − Λ) ≈ 3.6 times, so the distance should shrink about
+// (12.8 + 3.6)/3.6 ≈ 4.5 times (measured 4.4).
+func TestLehmannGoerischFromB(t *testing.T) {
+	lam := rats("1", "4", "9", "16", "25", "36")
+	const n, rho = 3, 16.0
+	c := trial(n, len(lam), big.NewRat(1, 1000000000), 7)
+	a0, a1, a2 := pencil(lam, c)
+	b := enclose.NewSym(n)
+	r := new(big.Rat).SetFloat64(rho)
+	for i := 0; i < n; i++ {
+		for j := 0; j <= i; j++ {
+			s := new(big.Rat) // Σ_k c_ik c_jk (Λ_k − 2ρ + ρ²/Λ_k) = Σ_k c_ik c_jk (Λ_k − ρ)²/Λ_k
+			for k := range lam {
+				d := new(big.Rat).Sub(lam[k], r)
+				d.Mul(d, d).Quo(d, lam[k])
+				s.Add(s, d.Mul(d, new(big.Rat).Mul(c[i][k], c[j][k])))
+			}
+			b.Set(i, j, ratInterval(s))
+		}
+	}
+	widen := func(s *enclose.Sym) *enclose.Sym {
+		out := enclose.NewSym(n)
+		for i := 0; i < n; i++ {
+			for j := 0; j <= i; j++ {
+				x := s.At(i, j)
+				h := 1e-13 * math.Max(math.Abs(x.Lo), math.Abs(x.Hi))
+				out.Set(i, j, interval.I{Lo: interval.SubDown(x.Lo, h), Hi: interval.AddUp(x.Hi, h)})
+			}
+		}
+		return out
+	}
+	w0, w1 := widen(a0), widen(a1)
+	plain, err := LehmannGoerisch(w0, w1, widen(a2), rho)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fromB, err := LehmannGoerischFromB(w0, w1, b, rho)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k := 0; k < n; k++ {
+		if !below(plain[k], lam[k]) || !below(fromB[k], lam[k]) {
+			t.Errorf("Λ_%d = %s: bounds %v (A2) and %v (B) not both below", k+1, lam[k].RatString(), plain[k], fromB[k])
+		}
+	}
+	if dp, db := gapOf(lam[2], plain[2]), gapOf(lam[2], fromB[2]); !(db <= dp/3) {
+		t.Errorf("Λ_3: distance %.3g with the narrow B, %.3g with the combination: want at most a third", db, dp)
+	}
+	if _, err := LehmannGoerischFromB(a0, a1, b, 0); err == nil {
+		t.Error("rho = 0 accepted")
+	}
+}

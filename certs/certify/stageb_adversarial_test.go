@@ -16,8 +16,10 @@ import (
 // recipes, and separable potentials agree with the 1D certifier.
 
 // TestChooseNUsesOnlyStageA: ρ̂ must be the stage-A lower bound of
-// Λ_(N+1) for the least N ≥ the requested count whose ρ̂ exceeds the Ritz
-// upper bound of Λ_N, and stage B must not run when there is none (the
+// Λ_(N+1) for an N ≥ the requested count whose ρ̂ exceeds the Ritz upper
+// bound of Λ_N (the least such N, raised by up to two where that at least
+// halves the amplification Λ_m/(ρ̂ − Λ_m) of a least N whose amplification
+// exceeds 2), and stage B must not run when there is none (the
 // Lehmann–Goerisch theorem needs ρ̂ ≤ Λ_(N+1); only stage A bounds
 // Λ_(N+1) from below). Synthetic bounds, index k−1 holding Λ_k.
 func TestChooseNUsesOnlyStageA(t *testing.T) {
@@ -32,7 +34,13 @@ func TestChooseNUsesOnlyStageA(t *testing.T) {
 		{"cluster up to N = 4", []float64{1, 2, 2.05, 2.08, 7, 8}, []float64{1.1, 2.1, 2.1, 2.1, 7.1}, 4, 7},
 		// The Ritz bound of Λ_3 (3.6) is above the stage-A bound of
 		// Λ_3 (3.5): N = 2 cannot be certified; N = 3 can.
-		{"overlap at N = 2", []float64{1, 2, 3.5, 4, 5, 6}, []float64{1.1, 3.6, 3.7, 4.1, 5.1}, 3, 4},
+		// N = 3 would amplify by 3.6/(4 − 3.6) = 9, N = 4 by 2.6.
+		{"overlap at N = 2, raised", []float64{1, 2, 3.5, 4, 5, 6}, []float64{1.1, 3.6, 3.7, 4.1, 5.1}, 4, 5},
+		// N = 2 amplifies by 2.1/(2.3 − 2.1) = 10.5, N = 3 by 1.1 and N =
+		// 4 by 0.72 (not half of 1.1).
+		{"close lambda_3, raised", []float64{1, 2, 2.3, 4, 5, 6}, []float64{1.1, 2.1, 2.2, 4.1, 5.1}, 3, 4},
+		// The cluster Λ_2..Λ_4 ends at the largest N the bounds allow.
+		{"cluster, no room to raise", []float64{1, 2, 2.05, 2.08, 2.09, 9}, []float64{1.1, 2.1, 2.1, 2.1, 2.1}, 5, 9},
 		{"never separated", []float64{1, 1, 1, 1, 1, 1}, []float64{2, 2, 2, 2, 2}, 0, 0},
 		// The last stage-A bound is for Λ_(len(ritz)+1): N may reach len(ritz).
 		{"separated only at the end", []float64{1, 1, 1, 1, 1, 9}, []float64{2, 2, 2, 2, 2}, 5, 9},

@@ -521,13 +521,13 @@ func TestMergeFlags(t *testing.T) {
 }
 
 // TestRefineUndecided: with a loose width (0.05) the claims
-// 4.99π² ≤ λ2 − λ1 ≤ 5.01π² on the right isosceles triangle with legs 1
+// 4.999π² ≤ λ2 − λ1 ≤ 5.001π² on the right isosceles triangle with legs 1
 // (gap exactly 10π² − 5π², common practice: the antisymmetric modes of
 // the unit square) are undecided; --refine-undecided decides them, and the
 // refined enclosure still contains 5π².
 func TestRefineUndecided(t *testing.T) {
 	f := mustFamily(t, []byte(`{"template": {"domain": {"polygon": [["0", "0"], ["1", "0"], ["a", "1"]]}, "boundary": "dirichlet",
-		"claims": ["gap <= 5.01*pi^2", "gap >= 4.99*pi^2"]},
+		"claims": ["gap <= 5.001*pi^2", "gap >= 4.999*pi^2"]},
 		"parameters": [{"name": "a", "values": ["0"]}], "relative_width": "0.05", "time_limit": "60s"}`))
 	dir := t.TempDir()
 	loose, err := Run(f, dir, testOptions())

@@ -72,6 +72,18 @@ type Flux interface {
 	LGMatrix(trial, fluxes [][]float64) (*enclose.Sym, error)
 }
 
+// LehmannMatrix is implemented by flux spaces that can enclose the matrix
+// B = A0 − 2ρA1 + ρ²A2 of the Lehmann–Goerisch theorem (package temple)
+// directly, in a form narrower than the combination of the enclosures of
+// A0, A1 and A2 (the proving side).
+type LehmannMatrix interface {
+	// LehmannMatrix returns an enclosure of B for the trial functions, their
+	// fluxes and the float shift rho > 0, or an error when this space
+	// cannot form it (the caller then combines LGMatrix with the Ritz
+	// matrices).
+	LehmannMatrix(trial, fluxes [][]float64, rho float64) (*enclose.Sym, error)
+}
+
 // Indicators is implemented by flux spaces that can say where the flux
 // misses the gradient most, for adaptive refinement (a choice).
 type Indicators interface {

@@ -97,6 +97,13 @@ func (f *FluxSpace) LGMatrix(trial, fluxes [][]float64) (*enclose.Sym, error) {
 	return f.flux.LGMatrix(f.trial.Space, trial, fluxes, f.trial.V, f.weight, f.gamma)
 }
 
+// LehmannMatrix returns Flux.LehmannMatrix for the trial functions, their
+// fluxes and the shift rho (ErrResidualBoundaryTerm on a mesh with Robin
+// sides).
+func (f *FluxSpace) LehmannMatrix(trial, fluxes [][]float64, rho float64) (*enclose.Sym, error) {
+	return f.flux.LehmannMatrix(f.trial.Space, trial, fluxes, f.trial.V, f.weight, f.gamma, rho)
+}
+
 // Indicators returns Flux.Indicators.
 func (f *FluxSpace) Indicators(trial, fluxes [][]float64, lambda []float64) []float64 {
 	return f.flux.Indicators(f.trial.Space, trial, fluxes, lambda)

@@ -172,6 +172,13 @@
 // MinimizeApprox chooses σ by a least-squares solve, a choice that affects
 // only sharpness.
 //
+// Without Robin sides, Flux.LehmannMatrix encloses the matrix B = A0 −
+// 2ρA1 + ρ²A2 of the theorem itself, in the residual form ρ²(w_i −
+// Tũ_i/ρ, w_j − Tũ_j/ρ)_X (package temple, The residual form of B), with
+// σ_i − ∇ũ_i/ρ formed coefficient by coefficient on each triangle: for
+// approximate eigenpairs the combination of the enclosures of A0, A1 and
+// A2 loses the digits they share, which the residual form never has.
+//
 // References:
 //
 //	X. Liu, A framework of verified eigenvalue bounds for self-adjoint

@@ -77,3 +77,49 @@ func cpuTime() time.Duration {
 	}
 	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
 }
+
+// BenchmarkLehmannMatrices: the proving side of stage B at degree 10
+// (RT_9 fluxes), three trial functions, on the unit square refined to 128
+// triangles with V = 0: LGMatrix (A2, combined with the Ritz matrices by
+// temple.LehmannGoerisch) against LehmannMatrix (B in the residual form,
+// which certs/certify uses on meshes without Robin sides). Reports the
+// process CPU time per operation as BenchmarkMinimizeApprox does.
+func BenchmarkLehmannMatrices(b *testing.B) {
+	m := unitSquare(b, 3)
+	bc := allBC(4, dirichlet)
+	s := NewLagrange(m, 10, bc)
+	v := mustPotential(b, m, "0", 1)
+	g := interval.Point(10)
+	w, err := v.InverseShifted(g, 12)
+	if err != nil {
+		b.Fatal(err)
+	}
+	f := NewFlux(m, 9, bc)
+	vecs := make([][]float64, 3)
+	for i := range vecs {
+		vecs[i] = s.Interpolate(func(x, y float64) float64 {
+			return math.Sin(float64(i+1)*math.Pi*x) * math.Sin(math.Pi*y)
+		})
+	}
+	fluxes, err := f.MinimizeApprox(s, vecs, w)
+	if err != nil {
+		b.Fatal(err)
+	}
+	for _, c := range []struct {
+		name string
+		run  func() error
+	}{
+		{"LGMatrix", func() error { _, err := f.LGMatrix(s, vecs, fluxes, v, w, g); return err }},
+		{"LehmannMatrix", func() error { _, err := f.LehmannMatrix(s, vecs, fluxes, v, w, g, 100); return err }},
+	} {
+		b.Run(c.name, func(b *testing.B) {
+			c0 := cpuTime()
+			for b.Loop() {
+				if err := c.run(); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64((cpuTime()-c0).Nanoseconds())/float64(b.N), "cpu-ns/op")
+		})
+	}
+}

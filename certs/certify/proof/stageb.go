@@ -42,6 +42,19 @@ func (s StageBShift) Rho(rho float64) float64 {
 // index N + 1).
 func (s StageBShift) StageB(a0, a1, a2 *enclose.Sym, rhoB float64) ([]float64, error) {
 	lg, err := temple.LehmannGoerisch(a0, a1, a2, rhoB)
+	return s.convert(lg, err)
+}
+
+// StageBFromB is StageB with an enclosure b of the Lehmann matrix
+// B = A0 − 2ρ̂_B A1 + ρ̂_B² A2 for the same rhoB in place of a2
+// (temple.LehmannGoerischFromB; fem/discrete, Flux LehmannMatrix).
+func (s StageBShift) StageBFromB(a0, a1, b *enclose.Sym, rhoB float64) ([]float64, error) {
+	lg, err := temple.LehmannGoerischFromB(a0, a1, b, rhoB)
+	return s.convert(lg, err)
+}
+
+// convert returns the bounds lg of Λ^B_k as bounds of Λ_k (StageBShift).
+func (s StageBShift) convert(lg []float64, err error) ([]float64, error) {
 	if err != nil || !s.Own {
 		return lg, err
 	}
