@@ -13,7 +13,9 @@ import (
 // residual form of the Lehmann matrix meet beyond the Dirichlet square and
 // triangles: a rotated and moved square (irrational vertices); the Neumann
 // square (λ1 = 0, the stage-B shift γ_B ≠ γ); mixed Dirichlet/Neumann
-// sides (σ·n = 0 on the Neumann sides), also rotated; a Robin side (the
+// sides (σ·n = 0 on the Neumann sides), also rotated; the equilateral
+// triangle rotated by 1 radian and moved (double λ2 = 112π²/9, McCartin
+// 2003); a Robin side (the
 // residual form refuses it and stage B combines A0, A1 and A2); and a
 // constant potential V = 7 on the Dirichlet square (λ = (m² + n²)π² + 7,
 // separation of variables, common practice; the weight 1/(V + γ) is then
@@ -39,6 +41,8 @@ func TestManyTrianglesEncloseMoreClosedForms(t *testing.T) {
 			4, [2]float64{pi2, 4 * pi2}},
 		{"unit square with a Robin side", `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":["dirichlet",{"robin":"1"},"dirichlet","dirichlet"],"eigenvalues":2}`,
 			3, [2]float64{k1*k1 + pi2, k2*k2 + pi2}},
+		{"equilateral triangle rotated by 1 radian and moved, Dirichlet", `{"domain":{"polygon":[["2/7","-5/3"],["2/7+cos(1)","-5/3+sin(1)"],["2/7+cos(1+pi/3)","-5/3+sin(1+pi/3)"]]},"boundary":"dirichlet","eigenvalues":2}`,
+			4, [2]float64{16 * pi2 / 3, 112 * pi2 / 9}},
 		{"unit square, Dirichlet, V = 7", `{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"potential":"7","boundary":"dirichlet","eigenvalues":2}`,
 			3, [2]float64{2*pi2 + 7, 5*pi2 + 7}},
 	}
