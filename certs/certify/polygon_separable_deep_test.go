@@ -8,7 +8,7 @@ import (
 
 // TestDeepSeparablePotentialMeetsOneDimensionalSums: V = x² + y² on the
 // unit square with Dirichlet sides separates (common practice): λ1 = 2μ1
-// and λ2 = λ3 = μ1 + μ2 with μ_k those of −u” + x²u on (0, 1), u(0) =
+// and λ2 = λ3 = μ1 + μ2 with μ_k those of −d²u/dx² + x²u on (0, 1), u(0) =
 // u(1) = 0. At degree 10 on 128 triangles the 2D enclosures (stage B with
 // the residual form of the Lehmann matrix and V ≠ 0 weights) must meet
 // the sums of the 1D certifier's enclosures (both contain the truth) and
