@@ -83,9 +83,13 @@
 //
 // # Stage B and its shift
 //
-// Stage B needs ρ̂ ≤ Λ_(N+1). N is the least index ≥ the requested count
+// Stage B needs ρ̂ ≤ Λ_(N+1). N is an index ≥ the requested count m
 // whose stage-A lower bound ρ̂ of Λ_(N+1) exceeds the Ritz upper bound of
-// Λ_N (chooseN); ρ̂ ≤ Λ_(N+1) holds by stage A. The separation ρ̂ > Λ_N,
+// Λ_N (chooseN); ρ̂ ≤ Λ_(N+1) holds by stage A. chooseN starts from the
+// least such index and raises N by at most 2 to a separating index whose
+// amplification Λ_m/(ρ̂ − Λ_m) of λ_m's error is at most half as large,
+// when that factor exceeds 2 (a close Λ_(N+1), such as the third
+// eigenvalue of a domain whose λ_2 is double, costs digits otherwise). The separation ρ̂ > Λ_N,
 // which the theorem does not need, lets all N bounds appear (at most as
 // many pencil eigenvalues μ_i are negative as there are Λ_k below ρ̂) and
 // keeps ρ̂ away from Λ_1..Λ_N, near which the Lehmann matrix is nearly

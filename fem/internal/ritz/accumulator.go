@@ -11,9 +11,10 @@ import (
 // n×n symmetric matrix. The zero value is not usable; use NewAccumulator.
 //
 // Each end of each entry is summed with compensation, so that the width
-// of an entry is the sum of the widths of its contributions plus a few
-// units in the last place of the total, however many contributions there
-// are. A plain interval sum of n contributions widens by up to one ulp of
+// of an entry is the sum of the widths of its contributions plus about
+// one ulp of the total per contribution (the TwoSum errors are themselves
+// summed with directed rounding) when the contributions cancel, and a few
+// ulps of the total when they do not. A plain interval sum of n contributions widens by up to one ulp of
 // the partial sum at each addition: on a mesh of 700 triangles that is a
 // relative width of about 1e-13, which the Lehmann–Goerisch pencil then
 // amplifies (package temple). The lower ends are summed as follows (the
