@@ -66,6 +66,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	case limit < 0:
 		return nil, &TargetError{Option: "time limit", Value: limit.String(), Msg: "is negative", Hint: "give a positive duration such as 60s"}
 	}
+	if p.IsProduct() {
+		return certifyProduct(ctx, p, opt, target, targetText, limit)
+	}
 	budget := opt.Memory
 	if budget == 0 {
 		budget = DefaultMemory

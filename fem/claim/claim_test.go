@@ -181,7 +181,7 @@ func TestCheckScope(t *testing.T) {
 
 func TestQuantities(t *testing.T) {
 	q := Quantities()
-	if len(q) != MaxEigenvalue+7 || q[0] != "lambda1" || q[MaxEigenvalue-1] != "lambda20" || !IsQuantity("inradius") || !IsQuantity("shape_margin") || IsQuantity("lambda21") || IsQuantity("pi") {
+	if len(q) != MaxEigenvalue+9 || q[0] != "lambda1" || q[MaxEigenvalue-1] != "lambda20" || !IsQuantity("inradius") || !IsQuantity("shape_margin") || !IsQuantity("volume") || !IsQuantity("surface_area") || IsQuantity("lambda21") || IsQuantity("pi") {
 		t.Errorf("Quantities() = %v", q)
 	}
 }

@@ -18,6 +18,10 @@ const (
 	Perimeter = "perimeter"
 	Inradius  = "inradius"
 	Alpha     = "alpha"
+	// Volume and SurfaceArea are the measure of a domain of three or four
+	// coordinates (a product) and of its boundary.
+	Volume      = "volume"
+	SurfaceArea = "surface_area"
 	// ShapeMargin is the margin u(x)·u(y) − u(m)² of the midpoint triple
 	// x, y, m = (x + y)/2 that a polygon's certificate records for its
 	// ground state u (unit L² norm): the witness's margin, or the best
@@ -32,14 +36,14 @@ func Eigenvalue(k int) string { return "lambda" + strconv.Itoa(k) }
 
 // Quantities returns every quantity name a claim may use besides pi, e
 // and the problem's parameters: lambda1 … lambda20, gap, D, area,
-// perimeter, inradius, alpha, shape_margin. Which of them a given problem
-// provides is decided by Scope.
+// perimeter, inradius, alpha, shape_margin, volume, surface_area. Which of
+// them a given problem provides is decided by Scope.
 func Quantities() []string {
-	names := make([]string, 0, MaxEigenvalue+7)
+	names := make([]string, 0, MaxEigenvalue+9)
 	for k := 1; k <= MaxEigenvalue; k++ {
 		names = append(names, Eigenvalue(k))
 	}
-	return append(names, Gap, Diameter, Area, Perimeter, Inradius, Alpha, ShapeMargin)
+	return append(names, Gap, Diameter, Area, Perimeter, Inradius, Alpha, ShapeMargin, Volume, SurfaceArea)
 }
 
 // IsQuantity reports whether name is one of Quantities.
@@ -60,7 +64,7 @@ func eigenvalueIndex(name string) (int, bool) {
 
 // Scope is what a problem provides to its claims.
 type Scope struct {
-	Dim         int // 1: interval, 2: polygon
+	Dim         int // the number of coordinates: 1 interval, 2 polygon, 3 or 4 a product
 	Vertices    int // the polygon's vertices (0 for an interval)
 	Eigenvalues int // the number of certified eigenvalues, lambda1 … lambdaN
 	// NoAlpha says why alpha has no value ("no side has a Robin
@@ -92,7 +96,15 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 		if s.Dim == 2 {
 			return "", ""
 		}
+		if s.Dim > 2 {
+			return fmt.Sprintf("%s is defined for polygons only", name), "on a domain of three or four coordinates use volume and surface_area"
+		}
 		return fmt.Sprintf("%s is defined for polygons only", name), "on an interval use D, its length"
+	case Volume, SurfaceArea:
+		if s.Dim > 2 {
+			return "", ""
+		}
+		return fmt.Sprintf("%s is defined for domains of three or four coordinates only", name), "on a polygon use area and perimeter, on an interval D"
 	case Inradius:
 		if s.Dim == 2 && s.Vertices == 3 {
 			return "", ""
@@ -116,6 +128,9 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 		if s.Vertices == 3 {
 			known += ", inradius"
 		}
+	}
+	if s.Dim > 2 {
+		known += ", volume, surface_area"
 	}
 	if s.NoAlpha == "" {
 		known += ", alpha"
