@@ -141,20 +141,35 @@ func (r *reader) product(n *node, p *Problem) bool {
 	return ok
 }
 
-// productBoundary reads "boundary" of a product: a list with one entry per
-// factor, each that factor's own boundary as a lone interval or polygon
-// takes it. factorsOK reports that the factors were read.
+// productBoundary reads "boundary" of a product: one condition for every
+// face, or a list with one entry per factor, each that factor's own
+// boundary as a lone interval or polygon takes it. factorsOK reports that
+// the factors were read.
 func (r *reader) productBoundary(n *node, p *Problem, factorsOK bool) bool {
 	const hint = `a product's boundary is a list with one entry per factor, each as the factor alone takes it: ["dirichlet", ["neumann", "dirichlet"]]`
 	if n == nil {
 		r.iss.add("boundary", "missing boundary conditions", hint)
 		return false
 	}
-	if n.kind != kindArray {
-		r.iss.add("boundary", "a product's boundary must be a list, not "+n.kind.String(), hint)
-		return false
-	}
 	fs := p.product.factors
+	if n.kind != kindArray {
+		// One condition for every face.
+		bc, ok := r.bc(n, "boundary", p.Params)
+		if !ok || !factorsOK {
+			return false
+		}
+		for _, f := range fs {
+			sides := 2
+			if f.Dim == 2 {
+				sides = len(f.Vertices)
+			}
+			f.Boundary = make([]BC, sides)
+			for k := range f.Boundary {
+				f.Boundary[k] = bc
+			}
+		}
+		return true
+	}
 	if len(n.vals) != len(fs) {
 		r.iss.addf("boundary", hint, "boundary list has %d entries for %d factors", len(n.vals), len(fs))
 		return false
