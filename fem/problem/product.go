@@ -232,7 +232,9 @@ func (r *reader) productPotential(p *Problem) {
 		}
 	}
 	terms := make([][]*formula.Expr, len(pr.factors))
-	for _, t := range e.Summands() {
+	negs := make([][]bool, len(pr.factors))
+	summands, negated := e.Summands()
+	for k, t := range summands {
 		who := -1
 		for _, v := range t.Vars() {
 			i, coord := owner[v]
@@ -248,7 +250,8 @@ func (r *reader) productPotential(p *Problem) {
 		if pr.mixed != "" {
 			break
 		}
-		terms[max(who, 0)] = append(terms[max(who, 0)], t) // constants go to the first factor
+		i := max(who, 0) // constants go to the first factor
+		terms[i], negs[i] = append(terms[i], t), append(negs[i], negated[k])
 	}
 	if pr.mixed != "" {
 		if p.Dim > 2 {
@@ -267,8 +270,15 @@ func (r *reader) productPotential(p *Problem) {
 		part := "0"
 		if ts := terms[i]; len(ts) > 0 {
 			sum := ts[0]
-			for _, t := range ts[1:] {
-				sum = formula.Add(sum, t)
+			if negs[i][0] {
+				sum = formula.Neg(sum)
+			}
+			for k, t := range ts[1:] {
+				if negs[i][k+1] {
+					sum = formula.Sub(sum, t)
+				} else {
+					sum = formula.Add(sum, t)
+				}
 			}
 			part = sum.Rename(local).String()
 		}

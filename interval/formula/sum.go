@@ -1,15 +1,16 @@
 package formula
 
-// Summands returns expressions s_1, …, s_n whose sum is e as a function
-// (exactly, not only numerically): the operands of e's top-level sums and
-// differences, a subtracted operand or one under a unary minus negated.
-// The identities used are a + b = a + b, a − b = a + (−b), −(a + b) =
+// Summands returns expressions s_1, …, s_n and signs such that
+// e = ±s_1 ± … ± s_n as a function (exactly, not only numerically), with
+// s_i subtracted where negated[i]: the operands of e's top-level sums and
+// differences, a subtracted operand or one under a unary minus with its
+// sign flipped. The identities used are a − b = a + (−b), −(a + b) =
 // (−a) + (−b), −(a − b) = (−a) + b and −(−a) = a; each summand is defined
-// exactly where e's corresponding subexpression is, so Σ s_i and e have
-// the same domain. A term that is not a sum or difference is its own
-// single summand. The order is that of the terms in e's text.
-func (e *Expr) Summands() []*Expr {
-	var out []*Expr
+// exactly where e's corresponding subexpression is, so the signed sum and
+// e have the same domain. A term that is not a sum, difference or
+// negation is its own single summand. The order is that of the terms in
+// e's text.
+func (e *Expr) Summands() (terms []*Expr, negated []bool) {
 	var walk func(n *node, neg bool)
 	walk = func(n *node, neg bool) {
 		switch n.kind {
@@ -25,14 +26,18 @@ func (e *Expr) Summands() []*Expr {
 			walk(n.a, !neg)
 			return
 		}
-		if neg {
-			out = append(out, wrap(finish(&node{kind: kNeg, a: n})))
-			return
-		}
-		out = append(out, wrap(n))
+		terms, negated = append(terms, wrap(n)), append(negated, neg)
 	}
 	walk(e.root, false)
-	return out
+	return terms, negated
+}
+
+// Neg returns −a.
+func Neg(a *Expr) *Expr {
+	if a == nil || a.root == nil {
+		panic("formula: nil operand")
+	}
+	return wrap(finish(&node{kind: kNeg, a: a.root}))
 }
 
 // Rename returns e with each free variable named in names replaced by the
