@@ -24,10 +24,10 @@ func mustParse(t *testing.T, text string) *Problem {
 func TestProductGeometry(t *testing.T) {
 	sqrt3 := math.Sqrt(3)
 	for _, tc := range []struct {
-		name, domain, bc                string
-		dim, faces                      int
-		diameter, volume, surface       float64
-		convex                          string
+		name, domain, bc          string
+		dim, faces                int
+		diameter, volume, surface float64
+		convex                    string
 	}{
 		{"unit cube", `[{"interval":["0","1"]},{"interval":["0","1"]},{"interval":["0","1"]}]`, `"dirichlet"`, 3, 6, sqrt3, 1, 6, "convex"},
 		{"box 1×2×3", `[{"interval":["0","1"]},{"interval":["-1","1"]},{"interval":["1/2","7/2"]}]`, `["dirichlet","neumann",[{"robin":"2"},"dirichlet"]]`, 3, 6, math.Sqrt(14), 6, 22, "convex"},
@@ -35,7 +35,7 @@ func TestProductGeometry(t *testing.T) {
 		{"prism", `[{"polygon":[["0","0"],["1","0"],["1/2","sqrt(3)/2"]]},{"interval":["0","2"]}]`, `["dirichlet","neumann"]`, 3, 5, math.Sqrt(5), sqrt3 / 2, 2*sqrt3/4 + 6, "convex"},
 		// L-shape (area 3, perimeter 8, diameter 2√2) × [0, 1].
 		{"L prism", `[{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]},{"interval":["0","1"]}]`, `["dirichlet","dirichlet"]`, 3, 8, 3, 3, 2*3 + 8, "not convex"},
-		{"4D box", `[{"interval":["0","1"]},{"interval":["0","2"]},{"interval":["0","1"]},{"interval":["0","3"]}]`, `"neumann"`, 4, 8, math.Sqrt(15), 6, 2*(6+3+6+2), "convex"},
+		{"4D box", `[{"interval":["0","1"]},{"interval":["0","2"]},{"interval":["0","1"]},{"interval":["0","3"]}]`, `"neumann"`, 4, 8, math.Sqrt(15), 6, 2 * (6 + 3 + 6 + 2), "convex"},
 	} {
 		p := mustParse(t, `{"domain":{"product":`+tc.domain+`},"boundary":`+tc.bc+`}`)
 		if p.Dim != tc.dim || len(p.Boundary) != tc.faces || !p.IsProduct() {
