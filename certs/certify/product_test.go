@@ -348,7 +348,9 @@ func TestProductSweep(t *testing.T) {
 		if i%4 == 3 { // a prism over an equilateral triangle of side s
 			s := []struct{ text, inverseSquare string }{{"1", "1"}, {"3/2", "4/9"}, {"2/3", "9/4"}}[rng.Intn(3)]
 			tri := `{"polygon":[["0","0"],["` + s.text + `","0"],["(` + s.text + `)/2","sqrt(3)*(` + s.text + `)/2"]]}`
-			scaled := func(r string) *big.Float { return new(big.Float).SetPrec(oraclePrec).Mul(piSquaredTimes(r), bigDec(s.inverseSquare)) }
+			scaled := func(r string) *big.Float {
+				return new(big.Float).SetPrec(oraclePrec).Mul(piSquaredTimes(r), bigDec(s.inverseSquare))
+			}
 			if rng.Intn(2) == 0 {
 				factors, bcs = append(factors, tri), append(bcs, `"dirichlet"`)
 				lists = append(lists, []*big.Float{scaled("16/3"), scaled("112/9")})
