@@ -22,6 +22,11 @@ type Plan struct {
 
 // FirstPlan returns the plan of the first computation of Certify.
 func FirstPlan(p *problem.Problem) (Plan, error) {
+	if p.IsProduct() {
+		// Products certify their factors (product.go), each with its own
+		// plan; the plan says only that.
+		return Plan{Kind: KindProduct}, nil
+	}
 	if err := checkMeshable(p); err != nil {
 		return Plan{}, err
 	}
