@@ -79,8 +79,8 @@ type productResult struct {
 	factors []*certs.Certificate
 }
 
-// Factor targets: a 1D factor gets intervalWeight of the share of a
-// polygon factor of the width budget (its enclosures are cheap to narrow),
+// Factor targets: a 1D factor gets intervalWeight times the relative
+// target of a polygon factor (its enclosures are cheap to narrow),
 // and the coarse first pass that chooses the factors' eigenvalue counts
 // runs at coarseTarget with coarseTimeShare of the time limit at most.
 const (
@@ -232,45 +232,67 @@ func factorOrder(p *problem.Problem) []int {
 }
 
 // factorTargets chooses each factor's target relative width (a choice;
-// the product's widths are measured after the fact). The product's λ_k
-// must have widths ≤ target·max(|λ_k|, π²/D²), and each is a sum of one
-// width per factor, so the absolute budget B = target·min_k max(|λ_k|,
-// π²/D²) is split among the factors by weight; factor i's relative target
-// is its share over the largest size max(|λ_j|, π²/D_i²) of its certified
-// eigenvalues (from the coarse pass). The product's gap is the least of
-// the factors' gaps (proof.ProductGap), so each factor's gap needs only
-// the product's gap's absolute target, target·max(|gap|, π²/D²), which
-// caps the relative target at that over the factor's own gap size. The
-// result lies within [MinRelWidth, coarseTarget].
+// the product's widths are measured after the fact). Factor i gets
+// t_i = t·ω_i (ω_i its weight, factorWeight): its certified λ_j then have
+// widths ≤ t_i·max(|λ_j|, π²/D_i²) by its own target rule, and a sum
+// λ_{j_1} + … + λ_{j_F}, whose width is the sum of those, meets the
+// product's rule, width ≤ target·max(|sum|, π²/D²), when
+// t ≤ target·max(|sum|, π²/D²) / Σ_i ω_i·max(|λ_{j_i}|, π²/D_i²). t is the
+// least of these over the tuples that may be among the m lowest (those
+// whose lower end, in the coarse pass, is at most the coarse upper end of
+// λ_m). The product's gap is the least of the factors' gaps
+// (proof.ProductGap), so each factor's gap needs only the product gap's
+// absolute target, which caps t_i at target·max(|gap|, π²/D²) over the
+// factor's own gap size. The result lies within [MinRelWidth, 1e-4].
 func factorTargets(p *problem.Problem, target float64, coarse *productResult, certsF []*certs.Certificate) []string {
 	res := coarse.res
-	size := math.Inf(1)
-	for _, l := range res.lambda {
-		size = math.Min(size, math.Max(math.Abs(l.Mid()), res.scale))
-	}
-	budget := target * size
-	gapBudget := target * math.Max(math.Abs(res.gap.Mid()), res.scale)
-	var total float64
-	for i := range p.Factors() {
-		total += factorWeight(p, i)
-	}
-	const floor = 1e-15 // MinRelWidth
-	out := make([]string, p.Factors())
+	F := len(certsF)
+	lists := make([][]interval.I, F)
+	scales := make([]float64, F)
 	for i, c := range certsF {
-		share := budget * factorWeight(p, i) / total
-		scale := factorScale(c)
-		big := scale
-		for _, e := range c.Results.Eigenvalues {
-			if x, err := e.Bound().Interval(); err == nil {
-				big = math.Max(big, math.Max(math.Abs(x.Lo), math.Abs(x.Hi)))
+		_, lists[i] = factorEigenvalues(c)
+		scales[i] = factorScale(c)
+	}
+	size := func(x interval.I, floor float64) float64 {
+		return math.Max(math.Max(math.Abs(x.Lo), math.Abs(x.Hi)), floor)
+	}
+	upper := res.lambda[len(res.lambda)-1].Hi
+	t := math.Inf(1)
+	idx := make([]int, F)
+	for {
+		var lo, denom float64
+		sum := interval.Point(0)
+		for i, j := range idx {
+			x := lists[i][j]
+			lo += x.Lo
+			sum = sum.Add(x)
+			denom += factorWeight(p, i) * size(x, scales[i])
+		}
+		if lo <= upper {
+			t = math.Min(t, target*size(sum, res.scale)/denom)
+		}
+		k := 0
+		for ; k < F; k++ {
+			idx[k]++
+			if idx[k] < len(lists[k]) {
+				break
 			}
+			idx[k] = 0
 		}
-		t := share / big
+		if k == F {
+			break
+		}
+	}
+	gapBudget := target * size(res.gap, res.scale)
+	const floor = 1e-15 // MinRelWidth
+	out := make([]string, F)
+	for i, c := range certsF {
+		ti := t * factorWeight(p, i)
 		if g, err := c.Results.Gap.Interval(); err == nil {
-			t = math.Min(t, gapBudget/math.Max(math.Max(math.Abs(g.Lo), math.Abs(g.Hi)), scale))
+			ti = math.Min(ti, gapBudget/size(g, scales[i]))
 		}
-		t = math.Min(math.Max(t, floor), 1e-4)
-		out[i] = strconv.FormatFloat(t, 'e', 1, 64)
+		ti = math.Min(math.Max(ti, floor), 1e-4)
+		out[i] = strconv.FormatFloat(ti, 'e', 1, 64)
 		if _, err := ParseTarget(out[i]); err != nil {
 			out[i] = MinRelWidth
 		}

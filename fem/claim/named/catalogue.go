@@ -142,7 +142,9 @@ var catalogue = []Claim{
 	// B. Andrews and J. Clutterbuck, Proof of the fundamental gap
 	// conjecture, J. Amer. Math. Soc. 24 (2011) 899–916: for a bounded
 	// convex domain of diameter D with Dirichlet conditions and a convex
-	// potential V, λ2 − λ1 ≥ 3π²/D². In one dimension: R. Lavine, The
+	// potential V, λ2 − λ1 ≥ 3π²/D², in every dimension n (the domains
+	// of three and four coordinates here are products of convex factors,
+	// convex). In one dimension: R. Lavine, The
 	// eigenvalue gap for one-dimensional convex potentials, Proc. Amer.
 	// Math. Soc. 121 (1994) 815–821.
 	{
@@ -165,8 +167,9 @@ var catalogue = []Claim{
 	},
 	// L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for
 	// convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292: for a
-	// bounded convex domain of diameter D, the first nonzero Neumann
-	// eigenvalue of −Δ (λ2, since λ1 = 0) is at least π²/D².
+	// bounded convex domain of diameter D in R^n, any n, the first
+	// nonzero Neumann eigenvalue of −Δ (λ2, since λ1 = 0) is at least
+	// π²/D².
 	{
 		Name:       "payne_weinberger",
 		Inequality: "lambda2 >= pi^2/D^2",
