@@ -74,9 +74,8 @@ var theoremsProduct = []string{
 
 // productResult is the outcome of a product's combination.
 type productResult struct {
-	res     *result // lambda, gap, scale, widths (out is nil)
-	method  ProductMethod
-	factors []*certs.Certificate
+	res    *result // lambda, gap, scale, widths (out is nil)
+	method ProductMethod
 }
 
 // Factor targets: a 1D factor gets intervalWeight times the relative
@@ -443,7 +442,7 @@ func combineFactors(p *problem.Problem, m []int, cs []*certs.Certificate, target
 		}
 	}
 	pm.Widths = res.widthRecords()
-	return &productResult{res: res, method: pm, factors: cs}, nil, nil
+	return &productResult{res: res, method: pm}, nil, nil
 }
 
 // productEnclosures is the result of a product from its eigenvalue
@@ -498,7 +497,7 @@ func rectangleResult(p *problem.Problem, c *certs.Certificate, targetText string
 	res.warnings = append(res.warnings, c.Warnings...)
 	pm := ProductMethod{Kind: KindProduct, Combination: CombineRectangle, Theorems: []string{"a product of two intervals is a rectangle, certified as that polygon (its certificate is the single factor)"},
 		Factors: []ProductFactor{{Eigenvalues: p.Eigenvalues, Target: targetText, Certificate: data}}, Widths: res.widthRecords()}
-	return &productResult{res: res, method: pm, factors: []*certs.Certificate{c}}, nil
+	return &productResult{res: res, method: pm}, nil
 }
 
 // certificate writes a product's certificate.

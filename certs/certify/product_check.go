@@ -93,7 +93,8 @@ func recordedFactors(p *problem.Problem, m ProductMethod) ([]*certs.Certificate,
 }
 
 // checkProduct is Check for the certificate of a product domain: it reads
-// the method and every factor's certificate strictly (before computing),
+// the method, every factor's certificate and every claim's reference
+// certificate strictly (before computing),
 // checks the canonical problem and its hash, that each factor's
 // certificate certifies the factor's problem (the recorded product's
 // FactorFile with the recorded count and target, or its RectangleFile),
@@ -111,6 +112,14 @@ func checkProduct(cert *certs.Certificate, p *problem.Problem) error {
 	cs, subs, err := recordedFactors(p, m)
 	if err != nil {
 		return err
+	}
+	for i, c := range cert.Claims {
+		if c.Reference == nil {
+			continue
+		}
+		if _, _, _, err := readRecorded(c.Reference.Certificate); err != nil {
+			return certs.AsFormatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
+		}
 	}
 	var bad []string
 	if got := p.SHA256(); got != cert.ProblemSHA256 {
