@@ -142,6 +142,9 @@ func describe(w io.Writer, file string, p *problem.Problem) {
 	if p.PotentialIsPolynomial() {
 		form = "polynomial (exact element integrals)"
 	}
+	if sep, _ := p.Separable(); sep {
+		form = "a sum of the factors' parts, each certified on its factor"
+	}
 	fmt.Fprintf(w, "potential:   %s\n", p.PotentialText())
 	fmt.Fprintf(w, "  form:      %s\n", form)
 	fmt.Fprintf(w, "  range:     %s\n", formatEnclosure(p.PotentialRange()))
