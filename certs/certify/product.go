@@ -100,10 +100,7 @@ func certifyProduct(ctx context.Context, p *problem.Problem, opt Options, target
 		return certifyRectangle(ctx, p, opt, targetText, limit)
 	}
 	F := p.Factors()
-	m := make([]int, F)
-	for i := range m {
-		m[i] = min(p.Eigenvalues, maxFactorEigenvalues)
-	}
+	m := initialCounts(F, p.Eigenvalues)
 	progress := func(format string, args ...any) {
 		if opt.Progress != nil {
 			opt.Progress(format, args...)
@@ -194,6 +191,31 @@ func certifyProduct(ctx context.Context, p *problem.Problem, opt Options, target
 
 // maxFactorEigenvalues is the largest eigenvalue count of a problem file.
 const maxFactorEigenvalues = 20
+
+// initialCounts are the first eigenvalue counts of the factors (a
+// choice): two each (the least a problem file asks for), raised one at a
+// time, the smallest first, until there are at least m sums; the coarse
+// pass raises the counts of the factors whose omitted sums are not
+// decided (proof.ProductSums).
+func initialCounts(F, m int) []int {
+	counts := make([]int, F)
+	total := 1
+	for i := range counts {
+		counts[i] = 2
+		total *= 2
+	}
+	for total < m {
+		i := 0
+		for j := range counts {
+			if counts[j] < counts[i] {
+				i = j
+			}
+		}
+		total = total / counts[i] * (counts[i] + 1)
+		counts[i]++
+	}
+	return counts
+}
 
 // raiseCounts adds one certified eigenvalue to each factor in short;
 // false when one of them is at maxFactorEigenvalues.
