@@ -96,6 +96,12 @@ func certifyProduct(ctx context.Context, p *problem.Problem, opt Options, target
 	}
 	opt.ctx = ctx
 	start := time.Now()
+	// One time stamp for the product's certificate and its factors'.
+	stamp := start
+	if opt.Now != nil {
+		stamp = opt.Now()
+	}
+	opt.Now = func() time.Time { return stamp }
 	if sep, _ := p.Separable(); !sep {
 		return certifyRectangle(ctx, p, opt, targetText, limit)
 	}
