@@ -36,7 +36,8 @@ const MaxProductSums = 1 << 20
 // orthonormal basis of eigenfunctions leaves no room for other
 // eigenvalues, and the multiplicity of a value is the number of tuples
 // with that sum (R. Courant, D. Hilbert, Methods of Mathematical Physics
-// I, 1953, Ch. V: separation of variables for rectangles and boxes).
+// I, 1953, Ch. V: separation of variables for rectangles and boxes;
+// chapter recalled, not looked up).
 //
 // Order statistics. Let S be the certified tuples (j_i ≤ m_i for every
 // i), with sum enclosures [l_s, u_s], and let L_(k) and U_(k) be the k-th
