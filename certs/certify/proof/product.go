@@ -31,8 +31,13 @@ const MaxProductSums = 1 << 20
 // form domain of H (the H¹ functions vanishing on the Dirichlet faces:
 // each factor vanishes on its own Dirichlet sides) and, by Fubini, the
 // form of H, ∫|∇u|² + V u² + Σ_faces α ∫_face u², splits as Σ_i of the
-// form of H_i in the i-th variable times the L² products of the others, so
-// each u is an eigenfunction with eigenvalue Σ_i λ_{j_i}(Ω_i). An
+// form of H_i in the i-th variable times the L² products of the others.
+// So q(u, w) = (Σ_i λ_{j_i}(Ω_i))(u, w) for every w that is a finite sum
+// of products of form-domain functions of the factors, and such sums are
+// dense in the form domain of H in the form norm (on Lipschitz factors,
+// by smoothing and cut-offs; common practice, not proved here), so the
+// identity holds for every w of the form domain and u is an eigenfunction
+// of H with eigenvalue Σ_i λ_{j_i}(Ω_i). An
 // orthonormal basis of eigenfunctions leaves no room for other
 // eigenvalues, and the multiplicity of a value is the number of tuples
 // with that sum (R. Courant, D. Hilbert, Methods of Mathematical Physics
