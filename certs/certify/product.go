@@ -162,6 +162,9 @@ func certifyProduct(ctx context.Context, p *problem.Problem, opt Options, target
 			}
 			progress("factor %d: %d eigenvalues, target %s, time limit %.1fs\n", i, m[i], targets[i], share.Seconds())
 			c, err := certifyFactor(ctx, p, i, m[i], targets[i], share, opt, progress)
+			if err != nil && ctx.Err() != nil {
+				return interruptedProduct(p, m, certsF, targets, coarse, target, targetText, opt, err)
+			}
 			if err != nil {
 				return nil, err
 			}
@@ -193,6 +196,35 @@ func certifyProduct(ctx context.Context, p *problem.Problem, opt Options, target
 	}
 	final.method.Refinement = &Refinement{Target: targetText, TargetRule: TargetRule, StopReason: reason}
 	return final.certificate(p, opt)
+}
+
+// interruptedProduct is the certificate of a product whose final pass
+// was interrupted (ctx ended): each factor's final certificate where it
+// was finished, else its coarse one (target coarseTarget), combined as
+// usual, with the stop reason StopInterrupted (StopTarget if they meet
+// the target all the same); err (the interruption) when they do not
+// combine (the coarse counts were raised since).
+func interruptedProduct(p *problem.Problem, m []int, final []*certs.Certificate, targets []string, coarse []*certs.Certificate, target interval.I, targetText string, opt Options, err error) (*certs.Certificate, error) {
+	cs := make([]*certs.Certificate, len(final))
+	ts := make([]string, len(final))
+	for i := range final {
+		cs[i], ts[i] = final[i], targets[i]
+		if cs[i] == nil {
+			cs[i], ts[i] = coarse[i], coarseTarget
+		}
+	}
+	r, short, cerr := combineFactors(p, m, cs, ts)
+	if cerr != nil || len(short) > 0 {
+		return nil, err
+	}
+	reason := StopInterrupted
+	if r.res.reached(target) {
+		reason = StopTarget // the coarse enclosures meet a coarse target
+	} else {
+		r.res.warnings = append(r.res.warnings, fmt.Sprintf("target relative width %s not reached (stopped: %s); the factors not finished are those of the coarse pass, at relative width %s", targetText, StopInterrupted, coarseTarget))
+	}
+	r.method.Refinement = &Refinement{Target: targetText, TargetRule: TargetRule, StopReason: reason}
+	return r.certificate(p, opt)
 }
 
 // maxFactorEigenvalues is the largest eigenvalue count of a problem file.

@@ -4,6 +4,7 @@ import (
 	"context"
 	"encoding/json"
 	"fmt"
+	"math"
 	"math/big"
 	"math/rand"
 	"os"
@@ -375,5 +376,48 @@ func TestProductSweep(t *testing.T) {
 				t.Errorf("case %d: %v", i, err)
 			}
 		}
+	}
+}
+
+// TestProductInterrupted: a run interrupted at the start of its final
+// pass returns the coarse pass's factors, combined, with the stop reason
+// "interrupted" (the target 1e-15 is beyond the coarse enclosures, whose
+// 1D steps reach about 1e-13 at once), and the certificate verifies.
+func TestProductInterrupted(t *testing.T) {
+	p := parseProblem(t, `{"domain":{"product":[{"interval":["0","1"]},{"interval":["0","2"]},{"interval":["0","1"]}]},"boundary":"dirichlet"}`)
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	progress := func(format string, args ...any) {
+		if strings.Contains(fmt.Sprintf(format, args...), "time limit") { // the first line of the final pass
+			cancel()
+		}
+	}
+	c, err := Certify(ctx, p, Options{RelWidth: "1e-15", TimeLimit: ampleLimit, Progress: progress})
+	if err != nil {
+		t.Fatal(err)
+	}
+	ref, err := RefinementOf(c)
+	if err != nil || ref.StopReason != StopInterrupted {
+		t.Fatalf("refinement %+v, %v", ref, err)
+	}
+	m, _ := decodeProductMethod(c.Method)
+	for i, f := range m.Factors {
+		if f.Target != coarseTarget {
+			t.Errorf("factor %d: target %s, want the coarse pass's %s", i, f.Target, coarseTarget)
+		}
+	}
+	pi2 := math.Pi * math.Pi
+	for k, want := range []float64{2.25 * pi2, 3 * pi2} { // π²(1 + 1/4 + 1), π²(1 + 1 + 1)
+		x, _ := c.Results.Eigenvalues[k].Bound().Interval()
+		if !x.Contains(want) {
+			t.Errorf("lambda%d = %v misses %g", k+1, x, want)
+		}
+	}
+	data, err := c.Marshal()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := Check(data); err != nil {
+		t.Fatal(err)
 	}
 }
