@@ -39,6 +39,10 @@ const DefaultTimeLimit = 60 * time.Second
 // and runs to its end in the background (its memory is freed then). The
 // time limit is not a hard one: a step starts only if it is expected to
 // end within the limit (a few times the last step), and then finishes.
+//
+// A product domain is certified by separation of variables (product.go:
+// each factor by this function, then combined; its certificate embeds the
+// factors'); the ground state is refused on it before computing.
 func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certificate, error) {
 	targetText := p.RelWidth.Text
 	if opt.RelWidth != "" {
