@@ -156,7 +156,7 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 	if p.Dim == 2 {
 		env[claim.Area], env[claim.Perimeter] = p.Area(), p.Perimeter()
 	}
-	if p.Dim > 2 {
+	if p.IsProduct() && p.Dim > 2 {
 		env[claim.Volume], env[claim.SurfaceArea] = p.Volume(), p.SurfaceArea()
 	}
 	if p.Dim == 2 && len(p.Vertices) == 3 {

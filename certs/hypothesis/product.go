@@ -31,8 +31,20 @@ import (
 //     undecided, naming the first factor whose verdict is not proven.
 //   - the polygon shapes (triangle, rectangle, tangential polygon, product
 //     of circumsolids): undecided, decided for polygons only.
+//
+// On a domain of three or four coordinates that is not a product, the
+// same hypotheses are undecided (their deciders read intervals and
+// polygons), with that reason.
 func decideProduct(name string, p *problem.Problem) (certs.Hypothesis, bool) {
 	h := certs.Hypothesis{Name: name}
+	if !p.IsProduct() {
+		switch name {
+		case named.ConvexDomain, named.ConvexPotential, named.ZeroPotential, named.ContinuousPotential,
+			named.Triangle, named.Rectangle, TangentialPolygon, CircumsolidProduct:
+			return undecidedAt(h, fmt.Sprintf("decided for intervals, polygons and products only; the domain has %d coordinates and is not a product", p.Dim)), true
+		}
+		return certs.Hypothesis{}, false
+	}
 	var rule string
 	switch name {
 	case named.ConvexDomain:

@@ -60,8 +60,8 @@
 // value must be finite (beyond about 1.7e308 is an error); NaN and
 // infinities are not numbers. At most 400 bytes per number.
 //
-// parameters maps names (a letter, then letters, digits or '_'; not x, y,
-// pi, e or a function name) to numbers; a parameter's value may not use
+// parameters maps names (a letter, then letters, digits or '_'; not the
+// coordinates x, y, z, w, nor pi, e or a function name) to numbers; a parameter's value may not use
 // other parameters. Parameters may be used in coordinates, the potential,
 // Robin coefficients and the relative width.
 //

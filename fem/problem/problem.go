@@ -236,7 +236,7 @@ func (r *reader) number(n *node, path string, params map[string]Number) (Number,
 	return v, true
 }
 
-var reservedNames = map[string]bool{"x": true, "y": true, "pi": true, "e": true}
+var reservedNames = map[string]bool{"x": true, "y": true, "z": true, "w": true, "pi": true, "e": true}
 
 // onlyBadParams reports whether names is not empty and holds only
 // parameters whose own value was already reported as invalid.
@@ -269,7 +269,7 @@ func (r *reader) parameters(n *node) map[string]Number {
 			continue
 		}
 		if reservedNames[name] || !isVariableName(name) {
-			r.iss.addf(path, "x and y are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
+			r.iss.addf(path, "x, y, z and w are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
 			continue
 		}
 		if claim.IsQuantity(name) && name != claim.Alpha {

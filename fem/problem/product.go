@@ -132,12 +132,6 @@ func (r *reader) product(n *node, p *Problem) bool {
 		return false
 	}
 	p.Dim = dim
-	for _, name := range coordinateNames[2:dim] {
-		if _, clash := p.Params[name]; clash {
-			r.iss.addf("parameters."+name, "choose another name", "parameter name %q is a coordinate of this product of %d coordinates", name, dim)
-			ok = false
-		}
-	}
 	return ok
 }
 
