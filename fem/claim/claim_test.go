@@ -163,8 +163,8 @@ func TestCheckScope(t *testing.T) {
 		{"lambda4 + area > zeta", line, 1, "lambda4"}, // the first defect in the text
 		{"volume*surface_area > D + gap", box, 0, ""},
 		{"gap*D^2 > 0*area", box, 13, "polygons only"},
-		{"volume > 0", square, 1, "three or four coordinates"},
-		{"surface_area > 0", line, 1, "three or four coordinates"},
+		{"volume > 0", square, 1, "three-dimensional domains only"},
+		{"surface_area > 0", line, 1, "three-dimensional domains only"},
 		{"shape_margin > 0", box, 1, "polygons only"},
 	} {
 		c, err := Parse(tc.text)

@@ -104,7 +104,7 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 		if s.Dim > 2 {
 			return "", ""
 		}
-		return fmt.Sprintf("%s is defined for domains of three or four coordinates only", name), "on a polygon use area and perimeter, on an interval D"
+		return fmt.Sprintf("%s is defined for three-dimensional domains only (and products of four coordinates)", name), "on a polygon use area and perimeter, on an interval D"
 	case Inradius:
 		if s.Dim == 2 && s.Vertices == 3 {
 			return "", ""
