@@ -70,6 +70,7 @@ type ProductFactor struct {
 var theoremsProduct = []string{
 	"separation of variables: the eigenvalues of a product with a separable potential are the sums of the factors' eigenvalues, with multiplicity (M. Reed, B. Simon, Methods of Modern Mathematical Physics I, Theorem VIII.33; R. Courant, D. Hilbert, Methods of Mathematical Physics I, Ch. V)",
 	"order statistics of certified sums, with a lower bound of every omitted sum (proved in the doc of gapcert/certs/certify/proof, ProductSums)",
+	"the gap of a product is the least of its factors' gaps (proved in the doc of gapcert/certs/certify/proof, ProductGap)",
 }
 
 // productResult is the outcome of a product's combination.
@@ -79,9 +80,10 @@ type productResult struct {
 }
 
 // Factor targets: a 1D factor gets intervalWeight times the relative
-// target of a polygon factor (its enclosures are cheap to narrow),
-// and the coarse first pass that chooses the factors' eigenvalue counts
-// runs at coarseTarget with coarseTimeShare of the time limit at most.
+// target of a polygon factor (its enclosures are cheap to narrow) and
+// that share of the time; the coarse first pass that chooses the factors'
+// eigenvalue counts runs at coarseTarget with coarseTimeShare of the time
+// limit at most, and raises the counts in at most maxFactorRounds rounds.
 const (
 	intervalWeight  = 0.05
 	coarseTarget    = "1e-4"
