@@ -53,6 +53,9 @@ func (e *MismatchError) Error() string {
 // recomputation would exceed the memory budget, or another error if the
 // certificate cannot be read or recomputed.
 func Check(data []byte) error {
+	if cert, p, ok := productCertificate(data); ok {
+		return checkProduct(cert, p)
+	}
 	cert, p, m, err := readRecorded(data)
 	if err != nil {
 		return err

@@ -160,6 +160,9 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 	if ph := p.Polyhedron; ph != nil {
 		env[claim.Volume], env[claim.SurfaceArea] = ph.Volume(), ph.SurfaceArea()
 	}
+	if p.IsProduct() && p.Dim > 2 {
+		env[claim.Volume], env[claim.SurfaceArea] = p.Volume(), p.SurfaceArea()
+	}
 	if p.Dim == 2 && len(p.Vertices) == 3 {
 		// The inradius of a triangle is 2·area/perimeter (common practice:
 		// the area is the sum of the three triangles on the sides with

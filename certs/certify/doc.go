@@ -46,6 +46,20 @@
 // clipping the best-shaped ears; mesh.FromPolygon proves that the
 // triangles tile the polygon, so this, like every mesh, is only a choice.
 //
+// A product of intervals and polygons with a separable potential
+// (package fem/problem) is certified by separation of variables
+// (product.go): each factor is certified as a lone problem with its part
+// of the potential, the product's λ_k are order statistics of the sums of
+// the factors' enclosures, decided by a lower bound of every sum left out
+// (proof.ProductSums: the theorem and its proof), and the gap is the
+// least of the factors' gaps (proof.ProductGap). The factors' eigenvalue
+// counts come from a coarse first pass, their targets from the product's
+// target and the sizes of their eigenvalues (choices). The product's
+// certificate embeds every factor's certificate in its method
+// (ProductMethod); Check re-verifies each of them by recomputation and
+// recomputes the combination. A product of two intervals whose potential
+// does not separate is certified as its rectangle, a polygon.
+//
 // Check reads a certificate strictly (package strictjson: no repeated or
 // case-variant keys, no unknown keys, at every depth, the method and the
 // embedded reference certificates included), recomputes it from its

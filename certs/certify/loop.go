@@ -39,6 +39,10 @@ const DefaultTimeLimit = 60 * time.Second
 // and runs to its end in the background (its memory is freed then). The
 // time limit is not a hard one: a step starts only if it is expected to
 // end within the limit (a few times the last step), and then finishes.
+//
+// A product domain is certified by separation of variables (product.go:
+// each factor by this function, then combined; its certificate embeds the
+// factors'); the ground state is refused on it before computing.
 func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certificate, error) {
 	if err := Supported(p); err != nil {
 		return nil, err
@@ -68,6 +72,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 		limit = DefaultTimeLimit
 	case limit < 0:
 		return nil, &TargetError{Option: "time limit", Value: limit.String(), Msg: "is negative", Hint: "give a positive duration such as 60s"}
+	}
+	if p.IsProduct() {
+		return certifyProduct(ctx, p, opt, target, targetText, limit)
 	}
 	budget := opt.Memory
 	if budget == 0 {

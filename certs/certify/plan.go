@@ -25,6 +25,11 @@ func FirstPlan(p *problem.Problem) (Plan, error) {
 	if err := Supported(p); err != nil {
 		return Plan{}, err
 	}
+	if p.IsProduct() {
+		// Products certify their factors (product.go), each with its own
+		// plan; the plan says only that.
+		return Plan{Kind: KindProduct}, nil
+	}
 	if err := checkMeshable(p); err != nil {
 		return Plan{}, err
 	}

@@ -172,6 +172,9 @@ func (res *result) widthRecords() []Width {
 // block (read strictly), or nil if it has none (Check rejects such a
 // certificate).
 func RefinementOf(c *certs.Certificate) (*Refinement, error) {
+	if pm, err := decodeProductMethod(c.Method); err == nil && pm.Kind == KindProduct {
+		return pm.Refinement, nil
+	}
 	m, err := decodeMethod(c.Method)
 	if err != nil {
 		return nil, err
@@ -183,6 +186,9 @@ func RefinementOf(c *certs.Certificate) (*Refinement, error) {
 // (read strictly), or nil if it has none (Check rejects such a
 // certificate).
 func WidthsOf(c *certs.Certificate) ([]Width, error) {
+	if pm, err := decodeProductMethod(c.Method); err == nil && pm.Kind == KindProduct {
+		return pm.Widths, nil
+	}
 	m, err := decodeMethod(c.Method)
 	if err != nil {
 		return nil, err

@@ -51,6 +51,8 @@ func TestCatalogueHypothesesDecidable(t *testing.T) {
 	problems := map[int]*problem.Problem{
 		1: parse(t, problemText(`{"interval":["0","1"]}`, "0", `{"robin":"1"}`)),
 		2: parse(t, problemText(square, "0", `{"robin":"1"}`)),
+		3: parse(t, problemText(`{"product":[{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},{"interval":["0","1"]}]}`, "x^2+z", `[{"robin":"1"},"neumann"]`)),
+		4: parse(t, problemText(`{"product":[{"interval":["0","1"]},{"interval":["0","2"]},{"interval":["0","1"]},{"interval":["0","1"]}]}`, "w^2", `["dirichlet","neumann","dirichlet","dirichlet"]`)),
 	}
 	if len(named.All()) == 0 {
 		t.Fatal("the catalogue is empty")

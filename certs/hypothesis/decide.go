@@ -43,6 +43,11 @@ func Decide(name string, p *problem.Problem) (h certs.Hypothesis, ok bool) {
 	if !ok {
 		return certs.Hypothesis{}, false
 	}
+	if p.Dim > 2 {
+		if h, ok := decideProduct(name, p); ok {
+			return h, true
+		}
+	}
 	return f(p), true
 }
 

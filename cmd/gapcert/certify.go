@@ -115,6 +115,9 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if f.timeLimit <= 0 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration (hint: --time-limit 60s)", f.timeLimit)}
 	}
+	if p.IsProduct() && (f.plotDir != "" || f.groundState) {
+		return &exitError{code: exitInvalid, err: errors.New("--plot and --ground-state are not available on product domains yet (hint: certify without them)")}
+	}
 	if i := certify.GroundStateClaim(p); i >= 0 && !f.groundState {
 		return &exitError{code: exitInvalid, err: fmt.Errorf("claims[%d]: %q names shape_margin, which only results.ground_state provides (hint: add --ground-state)", i, p.Claims[i])}
 	}

@@ -111,7 +111,9 @@ func describe(w io.Writer, file string, p *problem.Problem) {
 	if p.Name != "" {
 		fmt.Fprintf(w, "name:        %s\n", p.Name)
 	}
-	if p.Dim == 1 {
+	if p.IsProduct() {
+		describeProduct(w, p)
+	} else if p.Dim == 1 {
 		fmt.Fprintf(w, "domain:      interval (a, b)\n")
 		fmt.Fprintf(w, "  a = %s\n", formatNumber(p.Interval[0]))
 		fmt.Fprintf(w, "  b = %s\n", formatNumber(p.Interval[1]))
@@ -142,6 +144,9 @@ func describe(w io.Writer, file string, p *problem.Problem) {
 	if p.PotentialIsPolynomial() {
 		form = "polynomial (exact element integrals)"
 	}
+	if sep, _ := p.Separable(); sep {
+		form = "a sum of the factors' parts, each certified on its factor"
+	}
 	fmt.Fprintf(w, "potential:   %s\n", p.PotentialText())
 	fmt.Fprintf(w, "  form:      %s\n", form)
 	fmt.Fprintf(w, "  range:     %s\n", formatEnclosure(p.PotentialRange()))
@@ -169,6 +174,14 @@ func describePlan(w io.Writer, p *problem.Problem) {
 	plan, err := certify.FirstPlan(p)
 	if err != nil {
 		fmt.Fprintf(w, "first step:  cannot be planned: %v\n", err)
+		return
+	}
+	if plan.Kind == certify.KindProduct {
+		if sep, _ := p.Separable(); !sep {
+			fmt.Fprintf(w, "first step:  the potential does not separate: the rectangle is certified as a polygon\n")
+			return
+		}
+		fmt.Fprintf(w, "first step:  each factor certified as a lone problem with its part of the potential (separation of variables)\n")
 		return
 	}
 	if plan.Kind == certify.KindInterval {
@@ -220,5 +233,45 @@ func describePolyhedron(w io.Writer, ph *problem.Polyhedron, bcs []problem.BC) {
 	fmt.Fprintf(w, "boundary:\n")
 	for i, f := range ph.Faces {
 		fmt.Fprintf(w, "  face %d %v: %s\n", i, f, formatBC(bcs[i]))
+	}
+}
+
+// describeProduct prints the domain of a product: its factors (each as a
+// lone problem with its part of the potential), its size and its faces'
+// conditions factor by factor.
+func describeProduct(w io.Writer, p *problem.Problem) {
+	fmt.Fprintf(w, "domain:      product of %d factors, coordinates %s\n", p.Factors(), strings.Join(problem.Coordinates(p.Dim), ", "))
+	sep, why := p.Separable()
+	for i := range p.Factors() {
+		if !sep {
+			fmt.Fprintf(w, "  factor %d:  %d coordinate(s)\n", i, p.FactorDim(i))
+			continue
+		}
+		f, err := problem.Parse(p.FactorFile(i, problem.DefaultEigenvalues, problem.DefaultRelWidth))
+		if err != nil {
+			fmt.Fprintf(w, "  factor %d:  %v\n", i, err)
+			continue
+		}
+		var bcs []string
+		for _, bc := range f.Boundary {
+			bcs = append(bcs, formatBC(bc))
+		}
+		if f.Dim == 1 {
+			fmt.Fprintf(w, "  factor %d:  interval (%s, %s); ends %s; its part of V: %s\n", i, formatNumber(f.Interval[0]), formatNumber(f.Interval[1]), strings.Join(bcs, ", "), f.PotentialText())
+		} else {
+			fmt.Fprintf(w, "  factor %d:  polygon with %d vertices (%s); edges %s; its part of V: %s\n", i, len(f.Vertices), f.Convex(), strings.Join(bcs, ", "), f.PotentialText())
+		}
+	}
+	if !sep {
+		fmt.Fprintf(w, "separation:  none (%s)\n", why)
+	}
+	fmt.Fprintf(w, "convexity:   %s\n", p.Convex())
+	fmt.Fprintf(w, "diameter:    %s\n", formatEnclosure(p.Diameter()))
+	if p.Dim > 2 {
+		fmt.Fprintf(w, "volume:      %s\n", formatEnclosure(p.Volume()))
+		fmt.Fprintf(w, "surface:     %s\n", formatEnclosure(p.SurfaceArea()))
+	} else {
+		fmt.Fprintf(w, "area:        %s\n", formatEnclosure(p.Area()))
+		fmt.Fprintf(w, "perimeter:   %s\n", formatEnclosure(p.Perimeter()))
 	}
 }

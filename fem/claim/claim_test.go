@@ -130,6 +130,7 @@ func TestCheckScope(t *testing.T) {
 	triangle := Scope{Dim: 2, Vertices: 3, Eigenvalues: 5}
 	line := Scope{Dim: 1, Eigenvalues: 3, NoAlpha: "the Robin sides have different coefficients"}
 	robinParam := Scope{Dim: 1, Eigenvalues: 2, NoAlpha: "no side has a Robin condition", Params: []string{"alpha"}}
+	box := Scope{Dim: 3, Eigenvalues: 2, NoAlpha: "no side has a Robin condition"}
 	for _, tc := range []struct {
 		text  string
 		scope Scope
@@ -160,6 +161,11 @@ func TestCheckScope(t *testing.T) {
 		{"shape_margin > 0", square, 0, ""},
 		{"gap + shape_margin > 0", line, 7, "polygons only"},
 		{"lambda4 + area > zeta", line, 1, "lambda4"}, // the first defect in the text
+		{"volume*surface_area > D + gap", box, 0, ""},
+		{"gap*D^2 > 0*area", box, 13, "polygons only"},
+		{"volume > 0", square, 1, "three-dimensional domains only"},
+		{"surface_area > 0", line, 1, "three-dimensional domains only"},
+		{"shape_margin > 0", box, 1, "polygons only"},
 	} {
 		c, err := Parse(tc.text)
 		if err != nil {

@@ -17,8 +17,8 @@ const (
 	Area      = "area"
 	Perimeter = "perimeter"
 	Inradius  = "inradius"
-	// Volume and SurfaceArea are the measures of a three-dimensional
-	// domain and of its boundary.
+	// Volume and SurfaceArea are the measures of a domain of three or
+	// four coordinates (a polyhedron or a product) and of its boundary.
 	Volume      = "volume"
 	SurfaceArea = "surface_area"
 	Alpha       = "alpha"
@@ -64,7 +64,7 @@ func eigenvalueIndex(name string) (int, bool) {
 
 // Scope is what a problem provides to its claims.
 type Scope struct {
-	Dim         int // the number of coordinates: 1 interval, 2 polygon, 3 solid
+	Dim         int // the number of coordinates: 1 interval, 2 polygon, 3 polyhedron or product, 4 product
 	Vertices    int // the polygon's vertices (0 for an interval)
 	Eigenvalues int // the number of certified eigenvalues, lambda1 … lambdaN
 	// NoAlpha says why alpha has no value ("no side has a Robin
@@ -96,15 +96,15 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 		if s.Dim == 2 {
 			return "", ""
 		}
-		if s.Dim == 3 {
-			return fmt.Sprintf("%s is defined for polygons only", name), "in three dimensions use volume and surface_area"
+		if s.Dim > 2 {
+			return fmt.Sprintf("%s is defined for polygons only", name), "on a domain of three or four coordinates use volume and surface_area"
 		}
 		return fmt.Sprintf("%s is defined for polygons only", name), "on an interval use D, its length"
 	case Volume, SurfaceArea:
-		if s.Dim == 3 {
+		if s.Dim > 2 {
 			return "", ""
 		}
-		return fmt.Sprintf("%s is defined for three-dimensional domains only", name), "on a polygon use area and perimeter, on an interval D"
+		return fmt.Sprintf("%s is defined for three-dimensional domains only (and products of four coordinates)", name), "on a polygon use area and perimeter, on an interval D"
 	case Inradius:
 		if s.Dim == 2 && s.Vertices == 3 {
 			return "", ""
@@ -129,7 +129,7 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 			known += ", inradius"
 		}
 	}
-	if s.Dim == 3 {
+	if s.Dim > 2 {
 		known += ", volume, surface_area"
 	}
 	if s.NoAlpha == "" {

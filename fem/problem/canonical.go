@@ -21,7 +21,13 @@ import (
 func (p *Problem) Canonical() []byte {
 	var b bytes.Buffer
 	b.WriteString(`{"boundary":[`)
-	for i, bc := range p.Boundary {
+	boundaryList := p.Boundary
+	if p.product != nil {
+		boundaryList = nil
+		b.Write(p.productCanonical("boundary")[1:]) // without its "[", which is written already
+		b.Truncate(b.Len() - 1)                     // and its "]", written below
+	}
+	for i, bc := range boundaryList {
 		if i > 0 {
 			b.WriteByte(',')
 		}
@@ -42,7 +48,10 @@ func (p *Problem) Canonical() []byte {
 		writeString(&b, c)
 	}
 	b.WriteString(`],"domain":{`)
-	if p.Dim == 1 {
+	if p.product != nil {
+		d := p.productCanonical("domain")
+		b.Write(d[1 : len(d)-1]) // "product":[…]
+	} else if p.Dim == 1 {
 		b.WriteString(`"interval":[`)
 		writeString(&b, p.Interval[0].Text)
 		b.WriteByte(',')

@@ -1,8 +1,10 @@
 // Package problem implements gapcert problem files: reading, validation,
 // the exact problem data, its canonical form and hash.
 //
-// A problem is −Δu + V u = λu on an interval or a polygon Ω with
-// Dirichlet, Neumann or Robin conditions per side. Parse returns a Problem
+// A problem is −Δu + V u = λu on an interval, a polygon, or a product
+// Ω = Ω_1 × … × Ω_F of intervals and polygons (up to four coordinates),
+// with Dirichlet, Neumann or Robin conditions per side (per face of a
+// product). Parse returns a Problem
 // only if every check below passed; otherwise it returns an *Error listing
 // every defect with its JSON path and a hint. Guarantees of a returned
 // Problem:
@@ -37,8 +39,15 @@
 //	  "claims": ["gap >= 3*pi^2/D^2"]                   optional
 //	}
 //
-// domain is {"interval": [a, b]} with a < b, or {"polygon": [[x0, y0], …]}
-// with 3 to 100 vertices in either orientation. A clockwise polygon is
+// domain is {"interval": [a, b]} with a < b, {"polygon": [[x0, y0], …]}
+// with 3 to 100 vertices in either orientation, or {"product": [f1, f2, …]}
+// with two to four factors, each {"interval": …} or {"polygon": …} as
+// above (each validated as a lone domain, its errors at its path
+// "domain.product[i].…"), at most four coordinates in all. The
+// coordinates of a product are the factors', concatenated in order and
+// named x, y, z, w: a polygon (x, y) times an interval z; three intervals
+// give the box (x, y, z). A product of two intervals is also stored as the
+// rectangle it is (Vertices, Boundary in its edge order). A clockwise polygon is
 // reversed to v0, v(n−1), …, v1 (v0 stays first) and its boundary list with
 // it, so that Boundary[k] of the Problem is the file's entry (n−1−k) mod n,
 // the same edge traversed the other way (see Problem.Reversed).
@@ -63,14 +72,15 @@
 // value must be finite (beyond about 1.7e308 is an error); NaN and
 // infinities are not numbers. At most 400 bytes per number.
 //
-// parameters maps names (a letter, then letters, digits or '_'; not x, y,
-// z, pi, e or a function name) to numbers; a parameter's value may not use
-// other parameters. Parameters may be used in coordinates, the potential,
-// Robin coefficients and the relative width.
+// parameters maps names (a letter, then letters, digits or '_'; not the
+// coordinates x, y, z, w, nor pi, e or a function name) to numbers; a
+// parameter's value may not use other parameters. Parameters may be used
+// in coordinates, the potential, Robin coefficients and the relative
+// width.
 //
-// potential is a formula in x (interval), x and y (polygon) or x, y and z
-// (polyhedron) and the
-// parameters. It must be defined and finite on the closed domain: on an
+// potential is a formula in x (interval), x and y (polygon), x, y and z
+// (polyhedron), or the coordinates of a product (x, y, z; x, y, z, w),
+// and the parameters. It must be defined and finite on the closed domain: on an
 // interval this is checked by interval evaluation (bisected up to 1024
 // pieces), on a polygon by formula.RangeTriangle over an ear-clipping
 // triangulation of the polygon, on a polyhedron by interval evaluation on
@@ -79,7 +89,21 @@
 // boundary is "dirichlet", "neumann" or {"robin": α} (α ≥ 0) for every
 // side, or a list with one entry per side: [left, right] for an interval,
 // one per edge for a polygon, edge i running from vertex i to vertex i+1
-// (the last from vertex n−1 to vertex 0). Robin with α = 0 is kept as Robin
+// (the last from vertex n−1 to vertex 0). On a product it is one condition
+// for every face, or a list with one entry per factor, each that factor's
+// own boundary as a lone interval or polygon takes it; the face
+// (side s of factor i) × (the other factors) carries the condition of s.
+//
+// On a product the potential is split exactly, from the formula as
+// written, into parts of the factors (Separable, formula.Summands): every
+// summand of its top-level sums and differences must use the coordinates
+// of at most one factor (constants go to the first factor), and each part
+// must be defined and finite on its factor (its problem, FactorFile, is
+// read as a lone problem). A potential that is not such a sum is refused
+// on products of three or four coordinates (the tetrahedral elements it
+// would need do not exist yet) and kept on a product of two intervals,
+// which is certified as its rectangle (RectangleFile). "points" are not
+// available on products. Robin with α = 0 is kept as Robin
 // in the text and acts as Neumann.
 //
 // eigenvalues is the number of eigenvalues to enclose, an integer from 2 to
@@ -87,9 +111,9 @@
 // claims are inequalities "lhs REL rhs" in the grammar of package
 // gapcert/fem/claim (REL one of >=, <=, >, <, or ≥, ≤), and every name a claim
 // uses must be a quantity this problem provides (ClaimScope): lambdak up to
-// "eigenvalues", gap, D, area and perimeter on polygons, volume and
-// surface_area on polyhedra, inradius on
-// triangles, alpha when the Robin sides share one coefficient
+// "eigenvalues", gap, D, area and perimeter on polygons, inradius on
+// triangles, volume and surface_area on polyhedra and on products of
+// three or four coordinates, alpha when the Robin sides share one coefficient
 // (RobinAlpha), pi, e and the parameters. A claim may instead name a
 // built-in claim, "@name" (package gapcert/fem/claim/named, e.g.
 // "@fundamental_gap"): the name must be in the catalogue (read

@@ -142,9 +142,13 @@ const exactHint = "decimal or rational coordinates decide every such test exactl
 // counterclockwise (reversing p.Boundary with the vertices when bcOK),
 // decides convexity and triangulates. It reports defects and returns ok.
 func (r *reader) polygon(p *Problem, bcOK bool) bool {
+	return r.polygonAt(p, bcOK, "domain.polygon")
+}
+
+// polygonAt is polygon for the polygon at path (a JSON path of the file).
+func (r *reader) polygonAt(p *Problem, bcOK bool, path string) bool {
 	v := p.Vertices
 	n := len(v)
-	const path = "domain.polygon"
 	before := r.iss.count()
 	repeated := make([]bool, n)
 	for i := range n {
@@ -326,6 +330,9 @@ func (p *Problem) Convex() (verdict string) {
 	if p.Polyhedron != nil {
 		return p.Polyhedron.Convex()
 	}
+	if p.product != nil {
+		return p.productConvex()
+	}
 	if p.Dim == 1 {
 		return "convex"
 	}
@@ -342,6 +349,9 @@ func (p *Problem) Triangles() [][3]int { return p.triangles }
 
 // Area encloses the area of the polygon (the length of the interval).
 func (p *Problem) Area() interval.I {
+	if p.product != nil && p.Dim > 2 {
+		panic("problem: Area of a product of 3 or 4 coordinates (Volume is its measure)")
+	}
 	if p.Dim == 1 {
 		return p.length()
 	}
@@ -355,6 +365,9 @@ func (p *Problem) Area() interval.I {
 // Perimeter encloses the perimeter of the polygon (2 for an interval: the
 // measure of its boundary, two points).
 func (p *Problem) Perimeter() interval.I {
+	if p.product != nil && p.Dim > 2 {
+		panic("problem: Perimeter of a product of 3 or 4 coordinates (SurfaceArea is its boundary's measure)")
+	}
 	if p.Dim == 1 {
 		return interval.Point(2)
 	}
@@ -371,6 +384,9 @@ func (p *Problem) Perimeter() interval.I {
 func (p *Problem) Diameter() interval.I {
 	if p.Polyhedron != nil {
 		return p.Polyhedron.Diameter()
+	}
+	if p.product != nil {
+		return p.productDiameter()
 	}
 	if p.Dim == 1 {
 		return p.length()

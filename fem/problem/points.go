@@ -24,6 +24,10 @@ func (r *reader) points(n *node, p *Problem, domainOK bool) {
 		r.iss.add("points", "points must be a list of points, not "+n.kind.String(), pointsHint)
 		return
 	}
+	if p.product != nil {
+		r.iss.add("points", "points are not available on product domains", "points give values of the ground state, which gapcert does not certify on products yet; remove \"points\"")
+		return
+	}
 	if len(n.vals) > maxPoints {
 		r.iss.addf("points", "ask for fewer points", "%d points, at most %d", len(n.vals), maxPoints)
 		return

@@ -22,6 +22,9 @@ const maxPieces = 1 << 10
 // covering the domain encloses the range over the domain. It returns a
 // message instead if V may be undefined or unbounded on the domain.
 func potentialRange(p *Problem) (rng interval.I, issue string) {
+	if p.product != nil && p.Dim > 2 {
+		return productPotentialRange(p)
+	}
 	if p.Dim == 1 {
 		lo, hi := p.Interval[0].Val.Lo, p.Interval[1].Val.Hi
 		budget := maxPieces

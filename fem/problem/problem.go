@@ -40,7 +40,10 @@ func (bc BC) Condition() boundary.Condition {
 // and counterclockwise; the polyhedron is described under Polyhedron.
 type Problem struct {
 	Name string
-	Dim  int // 1, 2 or 3 (the number of coordinates)
+	// Dim is the number of coordinates: 1 (interval), 2 (polygon, or a
+	// product of two intervals), 3 (a polyhedron or a product) or 4 (a
+	// product, see Factors).
+	Dim int
 
 	// Interval is (a, b) with a < b (Dim 1).
 	Interval [2]Number
@@ -53,15 +56,17 @@ type Problem struct {
 	Polyhedron *Polyhedron
 
 	// Potential is V with the parameters bound: its only free variables
-	// are x (Dim 1), x and y (Dim 2) or x, y and z (a polyhedron). It is
-	// "0" by default.
+	// are the coordinates, Coordinates(Dim): x (Dim 1), x and y (Dim 2),
+	// x, y, z (Dim 3: a polyhedron or a product), x, y, z, w (Dim 4). It
+	// is "0" by default.
 	Potential *formula.Expr
 	// Params are the named parameters of the file.
 	Params map[string]Number
 
 	// Boundary holds one condition per side: Dim 1 [left, right]; Dim 2
 	// edge i runs from Vertices[i] to Vertices[(i+1) mod n]; a polyhedron
-	// has one per face, in the order of Polyhedron.Faces.
+	// has one per face, in the order of Polyhedron.Faces; a product of 3 or
+	// 4 coordinates lists its faces factor by factor (Factors).
 	Boundary []BC
 
 	Eigenvalues int    // how many eigenvalues to enclose, 2 … 20
@@ -78,6 +83,7 @@ type Problem struct {
 	convex        string
 	triangles     [][3]int
 	vRange        interval.I
+	product       *product // nil unless the domain is a product (product.go)
 }
 
 // Default values of optional keys.
@@ -157,9 +163,15 @@ func (r *reader) problem(root *node) *Problem {
 	paramsOK := len(r.badParams) == 0
 
 	geomOK := r.domain(root.get("domain"), p)
-	bcOK := r.boundary(root.get("boundary"), p, geomOK)
-	if geomOK && p.Dim == 2 {
-		geomOK = r.polygon(p, bcOK)
+	var bcOK bool
+	if p.product != nil {
+		bcOK = r.productBoundary(root.get("boundary"), p, geomOK)
+		geomOK = geomOK && r.productGeometry(p, bcOK)
+	} else {
+		bcOK = r.boundary(root.get("boundary"), p, geomOK)
+		if geomOK && p.Dim == 2 {
+			geomOK = r.polygon(p, bcOK)
+		}
 	}
 	if geomOK && p.Polyhedron != nil {
 		geomOK = r.checkPolyhedron(p)
@@ -167,6 +179,9 @@ func (r *reader) problem(root *node) *Problem {
 	r.potential(root.get("potential"), p, geomOK && paramsOK)
 	eigOK := r.eigenvalues(root.get("eigenvalues"), p)
 	r.target(root.get("target"), p)
+	if p.product != nil && p.Potential != nil && geomOK && bcOK && paramsOK {
+		r.productPotential(p)
+	}
 	r.claims(root.get("claims"), p, geomOK && bcOK && eigOK)
 	r.points(root.get("points"), p, geomOK)
 	return p
@@ -230,7 +245,7 @@ func (r *reader) number(n *node, path string, params map[string]Number) (Number,
 	return v, true
 }
 
-var reservedNames = map[string]bool{"x": true, "y": true, "z": true, "pi": true, "e": true}
+var reservedNames = map[string]bool{"x": true, "y": true, "z": true, "w": true, "pi": true, "e": true}
 
 // onlyBadParams reports whether names is not empty and holds only
 // parameters whose own value was already reported as invalid.
@@ -263,7 +278,7 @@ func (r *reader) parameters(n *node) map[string]Number {
 			continue
 		}
 		if reservedNames[name] || !isVariableName(name) {
-			r.iss.addf(path, "x, y and z are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
+			r.iss.addf(path, "x, y, z and w are the coordinates; pi, e and function names are reserved", "parameter name %q is reserved", name)
 			continue
 		}
 		if claim.IsQuantity(name) && name != claim.Alpha {
@@ -307,14 +322,21 @@ func (r *reader) domain(n *node, p *Problem) bool {
 		r.iss.add("domain", "domain must be an object, not "+n.kind.String(), domainHint)
 		return false
 	}
-	r.checkKeys(n, "domain", []string{"interval", "polygon", "polyhedron"})
+	r.checkKeys(n, "domain", []string{"interval", "polygon", "polyhedron", "product"})
 	iv, pg := n.get("interval"), n.get("polygon")
 	if ph := n.get("polyhedron"); ph != nil {
-		if iv != nil || pg != nil {
+		if iv != nil || pg != nil || n.get("product") != nil {
 			r.iss.add("domain", "domain has a polyhedron and another kind of domain", "give exactly one of them")
 			return false
 		}
 		return r.polyhedron(ph, p)
+	}
+	if pr := n.get("product"); pr != nil {
+		if iv != nil || pg != nil {
+			r.iss.add("domain", "domain has a product and another domain", "give exactly one of them")
+			return false
+		}
+		return r.product(pr, p)
 	}
 	switch {
 	case iv != nil && pg != nil:
@@ -326,14 +348,14 @@ func (r *reader) domain(n *node, p *Problem) bool {
 		}
 		return false
 	case iv != nil:
-		return r.interval(iv, p)
+		return r.interval(iv, p, "domain.interval")
 	default:
-		return r.vertices(pg, p)
+		return r.vertices(pg, p, "domain.polygon")
 	}
 }
 
-func (r *reader) interval(n *node, p *Problem) bool {
-	const path = "domain.interval"
+// interval reads the interval at path (a JSON path of the file) into p.
+func (r *reader) interval(n *node, p *Problem, path string) bool {
 	if n.kind != kindArray || len(n.vals) != 2 {
 		r.iss.add(path, "an interval is a list of two numbers", `write "interval": ["0", "1"]`)
 		return false
@@ -360,8 +382,8 @@ func (r *reader) interval(n *node, p *Problem) bool {
 	return true
 }
 
-func (r *reader) vertices(n *node, p *Problem) bool {
-	const path = "domain.polygon"
+// vertices reads the polygon at path (a JSON path of the file) into p.
+func (r *reader) vertices(n *node, p *Problem, path string) bool {
 	if n.kind != kindArray {
 		r.iss.add(path, "a polygon is a list of vertices, not "+n.kind.String(), `write "polygon": [["0", "0"], ["1", "0"], ["0", "1"]]`)
 		return false
@@ -403,6 +425,12 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 		r.iss.add("boundary", "missing boundary conditions", `write "boundary": "dirichlet", or a list with one entry per side`)
 		return false
 	}
+	return r.boundaryAt(n, p, sidesKnown, "boundary")
+}
+
+// boundaryAt reads the boundary conditions of the interval or polygon p
+// from n, at path (a JSON path of the file).
+func (r *reader) boundaryAt(n *node, p *Problem, sidesKnown bool, path string) bool {
 	sides := 2
 	if p.Dim == 2 {
 		sides = len(p.Vertices)
@@ -414,7 +442,7 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 		ok := true
 		var list []BC
 		for i, e := range n.vals {
-			bc, good := r.bc(e, fmt.Sprintf("boundary[%d]", i), p.Params)
+			bc, good := r.bc(e, fmt.Sprintf("%s[%d]", path, i), p.Params)
 			ok = ok && good
 			list = append(list, bc)
 		}
@@ -426,7 +454,7 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 			if p.Polyhedron != nil {
 				what, side = "faces, in the order of domain.polyhedron.faces", "face"
 			}
-			r.iss.addf("boundary", fmt.Sprintf("give one entry per %s: %d %s", side, sides, what), "boundary list has %d entries for %d %ss", len(n.vals), sides, side)
+			r.iss.addf(path, fmt.Sprintf("give one entry per %s: %d %s", side, sides, what), "boundary list has %d entries for %d %ss", len(n.vals), sides, side)
 			return false
 		}
 		if ok && sidesKnown {
@@ -434,7 +462,7 @@ func (r *reader) boundary(n *node, p *Problem, sidesKnown bool) bool {
 		}
 		return ok && sidesKnown
 	}
-	bc, ok := r.bc(n, "boundary", p.Params)
+	bc, ok := r.bc(n, path, p.Params)
 	if !ok || !sidesKnown {
 		return false
 	}
@@ -535,7 +563,7 @@ func (r *reader) potential(n *node, p *Problem, domainOK bool) {
 			vals[name] = v.Val
 			continue
 		}
-		if name == "x" || name == "y" && p.Dim != 1 || name == "z" && p.Dim == 3 {
+		if isCoordinate(name, p.Dim) {
 			continue
 		}
 		unknown = append(unknown, name)
@@ -545,6 +573,9 @@ func (r *reader) potential(n *node, p *Problem, domainOK bool) {
 	}
 	if len(unknown) > 0 {
 		hint := `the potential may use x, y and names declared under "parameters"`
+		if p.Dim > 2 {
+			hint = fmt.Sprintf(`the potential may use the coordinates %s and names declared under "parameters"`, strings.Join(Coordinates(p.Dim), ", "))
+		}
 		if p.Dim == 1 {
 			hint = `on an interval the potential may use x and names declared under "parameters"`
 		}

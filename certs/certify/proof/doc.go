@@ -19,7 +19,11 @@
 //     conversions of its own shift γ_B: StageB;
 //
 // and Enclose combines them: λ_k ∈ [max(stage A, stage B) − γ, Ritz − γ],
-// all with directed rounding (package interval).
+// all with directed rounding (package interval). On a product domain with
+// a separable problem, ProductSums and ProductGap combine the certified
+// enclosures of the factors (separation of variables; order statistics of
+// the sums with a lower bound of every sum left out; the least factor
+// gap), each proved in its doc comment.
 //
 // References:
 //

@@ -1,7 +1,8 @@
 // Package sweepplot implements pictures of the certified results of a
 // parameter sweep (package certs/sweep), as PNG or SVG files: for a
 // one-parameter sweep, the certified enclosure of a quantity (a formula
-// over λ1…λN, the gap, D, area, perimeter, the parameters and the
+// over λ1…λN, the gap, D, area, perimeter (polygons), volume and
+// surface_area (products of three or four coordinates), the parameters and the
 // reference quantities of built-in claims) against the parameter, with an
 // optional second certified band (a reference), a threshold, and each
 // point marked by its verdict; for a two-parameter sweep, a map of cells

@@ -346,7 +346,7 @@ func (s *Sweep) parseFormula(what, src string) (*formula.Expr, error) {
 			continue
 		}
 		if !slices.Contains(known, v) || v == "alpha" && !s.hasParam(v) {
-			return nil, fmt.Errorf("%s %q: unknown name %q (hint: use lambda1…lambdaN, gap, D, area, perimeter, pi, e, %s and the parameters %s)", what, src, v, strings.Join(referenceNames(), ", "), strings.Join(s.Summary.Parameters, ", "))
+			return nil, fmt.Errorf("%s %q: unknown name %q (hint: use lambda1…lambdaN, gap, D, area, perimeter, volume, surface_area, pi, e, %s and the parameters %s)", what, src, v, strings.Join(referenceNames(), ", "), strings.Join(s.Summary.Parameters, ", "))
 		}
 	}
 	return e, nil
@@ -391,6 +391,9 @@ func (s *Sweep) env(i int) (map[string]interval.I, error) {
 	}
 	if p := s.Problems[i]; p != nil && p.Dim == 2 {
 		env["area"], env["perimeter"] = p.Area(), p.Perimeter()
+	}
+	if p := s.Problems[i]; p != nil && p.IsProduct() && p.Dim > 2 {
+		env["volume"], env["surface_area"] = p.Volume(), p.SurfaceArea()
 	}
 	return env, nil
 }

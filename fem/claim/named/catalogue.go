@@ -48,7 +48,7 @@ const RobinIntervalGap = "robin_interval_gap"
 type Claim struct {
 	Name       string // without Prefix
 	Inequality string // "lhs REL rhs" over certified quantities
-	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon)
+	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon, 3 and 4: products)
 	Hypotheses []string
 	// Reference is the name of a quantity used in Inequality that is
 	// certified by a separate computation ("" if none), ReferenceResult
@@ -120,7 +120,7 @@ func (c Claim) Parse() *claim.Claim {
 // *claim.Error on the claim text ("@name").
 func (c Claim) CheckScope(s claim.Scope) error {
 	if s.Dim != 0 && !c.Applies(s.Dim) {
-		where := map[int]string{1: "an interval", 2: "a polygon", 3: "a three-dimensional domain"}
+		where := map[int]string{1: "an interval", 2: "a polygon", 3: "a domain of three coordinates", 4: "a domain of four coordinates"}
 		var ok []string
 		for _, d := range c.Dims {
 			ok = append(ok, where[d])
@@ -142,13 +142,15 @@ var catalogue = []Claim{
 	// B. Andrews and J. Clutterbuck, Proof of the fundamental gap
 	// conjecture, J. Amer. Math. Soc. 24 (2011) 899–916: for a bounded
 	// convex domain of diameter D with Dirichlet conditions and a convex
-	// potential V, λ2 − λ1 ≥ 3π²/D². In one dimension: R. Lavine, The
+	// potential V, λ2 − λ1 ≥ 3π²/D², in every dimension n (the domains
+	// of three and four coordinates here are products of convex factors,
+	// convex). In one dimension: R. Lavine, The
 	// eigenvalue gap for one-dimensional convex potentials, Proc. Amer.
 	// Math. Soc. 121 (1994) 815–821.
 	{
 		Name:       "fundamental_gap",
 		Inequality: "gap >= 3*pi^2/D^2",
-		Dims:       []int{1, 2},
+		Dims:       []int{1, 2, 3, 4},
 		Hypotheses: []string{DirichletBoundary, ConvexDomain, ConvexPotential},
 		Source:     "B. Andrews and J. Clutterbuck, Proof of the fundamental gap conjecture, J. Amer. Math. Soc. 24 (2011) 899–916; in one dimension R. Lavine, Proc. Amer. Math. Soc. 121 (1994) 815–821",
 	},
@@ -165,12 +167,13 @@ var catalogue = []Claim{
 	},
 	// L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for
 	// convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292: for a
-	// bounded convex domain of diameter D, the first nonzero Neumann
-	// eigenvalue of −Δ (λ2, since λ1 = 0) is at least π²/D².
+	// bounded convex domain of diameter D in R^n, any n, the first
+	// nonzero Neumann eigenvalue of −Δ (λ2, since λ1 = 0) is at least
+	// π²/D².
 	{
 		Name:       "payne_weinberger",
 		Inequality: "lambda2 >= pi^2/D^2",
-		Dims:       []int{1, 2},
+		Dims:       []int{1, 2, 3, 4},
 		Hypotheses: []string{NeumannBoundary, ConvexDomain, ZeroPotential},
 		Source:     "L. E. Payne and H. F. Weinberger, An optimal Poincaré inequality for convex domains, Arch. Rational Mech. Anal. 5 (1960) 286–292",
 	},

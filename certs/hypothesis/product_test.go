@@ -1,0 +1,50 @@
+package hypothesis
+
+import (
+	"strings"
+	"testing"
+
+	"gapcert/certs"
+	"gapcert/fem/claim/named"
+)
+
+// TestProductHypotheses: on products of three or four coordinates the
+// hypotheses about the domain and the potential are decided from the
+// factors (proven when every factor's is, undecided with the factor named
+// otherwise), those about the conditions from the faces, and the polygon
+// shapes are undecided.
+func TestProductHypotheses(t *testing.T) {
+	const square = `{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]}`
+	const lshape = `{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]}`
+	box := parse(t, problemText(`{"product":[`+square+`,{"interval":["0","1"]}]}`, "x^2+y^2+z^4", `"dirichlet"`))
+	for _, name := range []string{named.ConvexDomain, named.ConvexPotential, named.ContinuousPotential, named.DirichletBoundary} {
+		h, _ := Decide(name, box)
+		requireVerdict(t, "square prism: "+name, h, certs.Proven)
+	}
+	h, _ := Decide(named.ZeroPotential, box)
+	requireVerdict(t, "square prism: zero potential", h, certs.Undecided)
+	h, _ = Decide(named.NeumannBoundary, box)
+	requireVerdict(t, "square prism: neumann", h, certs.Disproven)
+
+	// An L-shaped prism is not convex: undecided, naming the factor.
+	l := parse(t, problemText(`{"product":[`+lshape+`,{"interval":["0","1"]}]}`, "0", `"dirichlet"`))
+	h, _ = Decide(named.ConvexDomain, l)
+	requireVerdict(t, "L prism: convex domain", h, certs.Undecided)
+	if !strings.Contains(h.Detail, "factor 0") || !strings.Contains(h.Detail, "disproven") {
+		t.Errorf("L prism: detail %q", h.Detail)
+	}
+	h, _ = Decide(named.ZeroPotential, l)
+	requireVerdict(t, "L prism: zero potential", h, certs.Proven)
+
+	// A concave part makes the convexity of V undecided on the product.
+	c := parse(t, problemText(`{"product":[{"interval":["0","1"]},{"interval":["0","1"]},{"interval":["0","1"]},{"interval":["0","1"]}]}`, "x^2-w^2", `"neumann"`))
+	h, _ = Decide(named.ConvexPotential, c)
+	requireVerdict(t, "4D box: convex potential", h, certs.Undecided)
+	if !strings.Contains(h.Detail, "factor 3") {
+		t.Errorf("4D box: detail %q", h.Detail)
+	}
+	h, _ = Decide(named.NeumannBoundary, c)
+	requireVerdict(t, "4D box: neumann", h, certs.Proven)
+	h, _ = Decide(named.Triangle, c)
+	requireVerdict(t, "4D box: triangle", h, certs.Undecided)
+}
