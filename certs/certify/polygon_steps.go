@@ -512,8 +512,9 @@ const mildDegreeGain = 10
 // for nothing at loose targets (measured on the Robin trapezoid, ν = 4/3,
 // at 1e-6: 13.6 s against 9.0 s with the smooth rule). Once a uniform
 // level gains less than twice 4^ν_min (observe), or the rule's step does
-// not fit in the time, or the last step widened the widths, the choice is
-// chooseStep's. It reports false when it does not choose.
+// not fit in the time or the memory, or the last step widened the widths,
+// the choice is chooseStep's (which takes another kind that fits, or
+// says why none does). It reports false when it does not choose.
 func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
 	h := d.hist
 	if h == nil || h.cornerLimited || h.nuMin(d.p) < 1 || out.lg == nil || (h.best != nil && h.score < h.best.score) {
@@ -528,6 +529,9 @@ func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
 		return r, false
 	}
 	next = withStageARider(next, out.rho, out.ritz[out.n-1])
+	if h.memory > 0 && memoryEstimate(d.p, next) > h.memory {
+		return r, false
+	}
 	if !h.expect(d, k, next) {
 		h.pending = kindNone
 		return r, false
