@@ -303,6 +303,12 @@ func TestMildCornersStartSmooth(t *testing.T) {
 	if next.graded != r.graded+2 {
 		t.Fatalf("after a uniform level that gained 5: graded %d refine %d degree %d, want grading (chooseStep)", next.graded, next.refine, next.degree)
 	}
+	// A smooth step over the memory budget is left to chooseStep.
+	fresh := polygon{p: p, hist: &stepHistory{memory: 1}}
+	fresh.observe(firstRecipe(t, p), out, 1e-2, 0.1)
+	if next, ok := fresh.mildStep(firstRecipe(t, p), out); ok {
+		t.Errorf("over the memory budget: the smooth rule chose degree %d refine %d", next.degree, next.refine)
+	}
 	// The L-shape (ν = 2/3): no smooth start.
 	dl, rl, outl := stepFixture(t)
 	dl.observe(rl, outl, 1e-3, 0.1)
