@@ -100,7 +100,7 @@ type stepHistory struct {
 	pending      stepKind
 	pendingBase  float64 // score of the step the pending one started from
 	pendingCost  float64 // its predicted seconds (0: no prediction)
-	pendingSetup float64 // the part of pendingCost that is the setup of a new degree (setupSeconds)
+	pendingSetup float64 // the part of pendingCost that is the setup of a new degree (setupWork)
 	pendingShare share   // the corner share of the step the pending one started from
 	pendingDeg   int     // the trial degree of that step
 	best         *bestStep
@@ -140,11 +140,14 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 		score = -math.Log(worst)
 	}
 	failed := out.lg == nil && h.pending != kindStageA
-	// The setup of a degree new to the run is not work of the step: it
-	// is left out of what the step teaches about the cost of work.
-	setup := h.setupSeconds(r.degree)
+	// The setup of a degree new to the run is counted apart from the
+	// step's work: work is the part of the seconds the work took.
+	w, setup := h.stepWork(d.p, r), h.setupWork(r.degree)
 	h.degrees |= 1 << uint(r.degree)
-	work := math.Max(seconds-setup, seconds/4)
+	work := seconds
+	if w+setup > 0 {
+		work = seconds * w / (w + setup)
+	}
 	var sh share
 	if out.lg != nil && out.polygon != nil && out.polygon.indicators != nil {
 		sh = cornerShare(d.p, r, out.polygon.indicators)
@@ -190,8 +193,8 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 			}
 		}
 	}
-	if w := h.stepWork(d.p, r); w > 0 && seconds > 0 {
-		h.perWork = work / w
+	if w > 0 && seconds > 0 {
+		h.perWork = seconds / (w + setup)
 	}
 	h.score, h.pending, h.share = score, kindNone, sh
 	if out.lg != nil && (h.best == nil || score >= h.best.score) {
@@ -216,34 +219,40 @@ func (h *stepHistory) expect(d polygon, k stepKind, r recipe) bool {
 	h.pendingShare, h.pendingDeg = h.share, r.degree
 	if h.perWork > 0 {
 		h.pendingCost = h.predict(d.p, k, r)
-		h.pendingSetup = h.setupSeconds(r.degree)
+		h.pendingSetup = h.perWork * h.setupWork(r.degree)
 	}
 	return !h.exceeds(h.pendingCost)
 }
 
 // predict returns the predicted wall time of computing recipe r as a step
-// of kind k: its work (stepWork) times the measured seconds per unit of
-// work and the kind's ratio, plus the setup of a degree new to the run.
+// of kind k: its work (stepWork) times the kind's ratio, plus the setup of
+// a degree new to the run (setupWork), times the measured seconds per
+// unit of work.
 func (h *stepHistory) predict(p *problem.Problem, k stepKind, r recipe) float64 {
-	return h.perWork*h.stepWork(p, r)*h.kinds[k].ratioOrOne() + h.setupSeconds(r.degree)
+	return h.perWork * (h.stepWork(p, r)*h.kinds[k].ratioOrOne() + h.setupWork(r.degree))
 }
 
-// setupSeconds is the predicted time to build the exact tables of trial
-// degree k and flux degree k − 1 (the divergence-adapted Raviart–Thomas
-// basis, the Lagrange and product tables, built once per process), or 0
-// when a step of the run has used the degree. Measured on this machine
-// (the Robin trapezoid on 8 and 32 triangles, a step at a new degree less
-// the same step at a degree already built): 0.4 s at degree 6, 1.3 s at 8,
-// 3.9 s at 10, a factor of about 1.8 per degree. Counted in no step's
+// setupWork is the predicted work (in the units of stepWork) of building
+// the exact tables of trial degree k and flux degree k − 1 (the
+// divergence-adapted Raviart–Thomas basis, the Lagrange and product
+// tables, built once per process), or 0 when a step of the run has used
+// the degree. Measured on an otherwise idle machine (the Robin trapezoid
+// on 8 and 32 triangles, a step at a new degree less the same step at a
+// degree already built): 0.4 s at degree 6, 1.3 s at 8, 3.9 s at 10, a
+// factor of about 1.8 per degree, at 2.7 µs per unit of work
+// (stageAWorkPerTriangle). In units of work it follows the machine's load
+// as the steps do: in seconds, the first degree-8 step of the 117°
+// trapezoid on a loaded machine (4.0 s, predicted setup 1.3 s) made the
+// next uniform level look 7× dearer than it was. Counted in no step's
 // work, the first degree-10 step on 8 triangles (4.1 s, of which 0.2 s of
 // work) made every degree step look 4× (the ratio's clamp) dearer than it
 // is. A prediction only (a process that built the tables before, as in a
 // test, takes less).
-func (h *stepHistory) setupSeconds(k int) float64 {
+func (h *stepHistory) setupWork(k int) float64 {
 	if h == nil || k < 0 || k >= 64 || h.degrees&(1<<uint(k)) != 0 {
 		return 0
 	}
-	return 0.4 * math.Pow(1.8, float64(k-6))
+	return 0.4 / 2.7e-6 * math.Pow(1.8, float64(k-6))
 }
 
 // ratioOrOne is the kind's measured ratio of wall time to predicted time,
@@ -358,10 +367,13 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		// The setup of a new degree is paid once, whenever the degree is
 		// first used: it decides whether the step fits, not which step
 		// pays (counted in the score, it kept the degree at 4 on the
-		// L-shape while grading and uniform levels made every later
-		// degree step dearer: 1.5e-10 at 98 s against 9.5e-12 for the
-		// rule without setups, measured under the same load).
-		rate := math.Min(math.Log(gain), maxLog) / math.Max(cost-h.setupSeconds(c.degree), 1e-9)
+		// L-shape and the 117° trapezoid while cheap grading and uniform
+		// levels made every later degree step dearer).
+		setup := 0.0
+		if h != nil {
+			setup = h.perWork * h.setupWork(c.degree)
+		}
+		rate := math.Min(math.Log(gain), maxLog) / math.Max(cost-setup, 1e-9)
 		cand := &candidate{kind: k, r: c, cost: cost, score: rate}
 		if h != nil && h.memory > 0 && memoryEstimate(d.p, c) > h.memory {
 			if overMemory == nil || cand.score > overMemory.score {
@@ -389,7 +401,7 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		h.pending, h.pendingBase, h.pendingCost, h.pendingSetup = best.kind, baseScore, 0, 0
 		h.pendingShare, h.pendingDeg = sh, base.degree
 		if h.perWork > 0 {
-			h.pendingCost, h.pendingSetup = best.cost, h.setupSeconds(best.r.degree)
+			h.pendingCost, h.pendingSetup = best.cost, h.perWork*h.setupWork(best.r.degree)
 		}
 	}
 	return withStageARider(best.r, rho, ritzN), ""

@@ -219,29 +219,28 @@ func TestChooseStepCheapestToTarget(t *testing.T) {
 }
 
 // TestDegreeSetupIsNotWork: the first step at a degree pays for building
-// its tables (setupSeconds); the prediction of a step at a degree new to
-// the run adds it, and the step's measured time less the setup sets the
-// cost of a unit of work. Made-up: a degree-8 step of 3 s whose setup is
-// predicted at 0.4·1.8² s.
+// its tables (setupWork); the prediction of a step at a degree new to the
+// run adds it, and the step's measured time sets the cost of a unit of
+// work counting it. Made-up: a degree-8 step of 3 s.
 func TestDegreeSetupIsNotWork(t *testing.T) {
 	d, r, out := stepFixture(t)
 	h := d.hist
-	setup := 0.4 * 1.8 * 1.8
-	if s := h.setupSeconds(8); math.Abs(s-setup) > 1e-12 {
+	setup := 0.4 / 2.7e-6 * 1.8 * 1.8
+	if s := h.setupWork(8); math.Abs(s-setup) > 1e-9*setup {
 		t.Fatalf("setup of degree 8 %g, want %g", s, setup)
 	}
 	h.perWork = 1e-6
 	r8 := r
 	r8.degree, r8.fluxDegree = 8, 7
 	work := h.stepWork(d.p, r8)
-	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-(1e-6*work+setup)) > 1e-9 {
-		t.Errorf("predicted %g s for a step at a new degree, want work %g s plus setup %g s", c, 1e-6*work, setup)
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-1e-6*(work+setup)) > 1e-9 {
+		t.Errorf("predicted %g s for a step at a new degree, want work %g s plus setup %g s", c, 1e-6*work, 1e-6*setup)
 	}
 	d.observe(r8, out, 1e-6, 3)
-	if got, want := h.perWork, (3-setup)/work; math.Abs(got-want) > 1e-9*want {
-		t.Errorf("seconds per unit of work %g, want %g (the setup left out)", got, want)
+	if got, want := h.perWork, 3/(work+setup); math.Abs(got-want) > 1e-9*want {
+		t.Errorf("seconds per unit of work %g, want %g (the setup counted)", got, want)
 	}
-	if s := h.setupSeconds(8); s != 0 {
+	if s := h.setupWork(8); s != 0 {
 		t.Errorf("setup of degree 8 after a degree-8 step %g, want 0", s)
 	}
 	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-h.perWork*work) > 1e-9 {
