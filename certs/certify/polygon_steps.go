@@ -281,8 +281,8 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // gained since); it is scored by log(gain)/seconds, with
 //
 //   - gain its predicted gain (predictedGain: from the base step's corner
-//     share for grading and degree steps, else its last measured gain or
-//     priorGain before it is tried), counted at most up to the gain that
+//     share for degree steps, else its last measured gain or priorGain
+//     before it is tried), counted at most up to the gain that
 //     reaches the target width with a margin (targetMargin), so that of
 //     the steps predicted to reach the target the cheapest is taken;
 //   - seconds its predicted wall time: the work of its recipe (stepWork)
@@ -298,8 +298,7 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // StopTime when the only useful kinds left do not fit in the time,
 // StopStalled when every kind left is spent. The chosen step gets the
 // stage-A rider (withStageARider). The first adaptive round waits until
-// grading is spent, at its cap or predicted to gain less than a round
-// (priorGain).
+// grading is spent or at its cap.
 func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, string) {
 	base, baseScore, sh := r, 0.0, share{}
 	rho, ritzN, indicators := out.rho, 0.0, []float64(nil)
@@ -337,12 +336,10 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		if !ok {
 			continue
 		}
-		if k == kindAdaptive && h != nil && !h.kinds[kindGrade].spent && base.graded < maxGraded && len(base.marks) == 0 &&
-			h.predictedGain(d.p, kindGrade, base, sh) >= priorGain[kindAdaptive] {
+		if k == kindAdaptive && h != nil && !h.kinds[kindGrade].spent && base.graded < maxGraded && len(base.marks) == 0 {
 			// Marks fix the uniform and graded levels: the first round
 			// waits until grading, the structured refinement toward the
-			// corners, is spent, at its cap or predicted to gain less
-			// than a round.
+			// corners, is spent or at its cap.
 			available = true
 			continue
 		}
@@ -415,22 +412,30 @@ const targetMargin = 2
 
 // predictedGain returns the factor by which a step of kind k from the
 // base step is predicted to narrow the worst width, given the base
-// step's corner share φ (cornerShare).
-// With a meaningful share the error is split into the part on the
-// triangles at the graded corners, φ, and the rest, 1 − φ; a grading,
-// degree or uniform step shrinks the corner part by cornerFactor and the
-// rest by the factor measured on the run's last step of its kind with a
-// meaningful share (restGain), priorRestGain before (cornerFactor), so
+// step's corner share φ (cornerShare). For a degree step with a
+// meaningful share the error is split into the part on the triangles at
+// the graded corners, φ, and the rest, 1 − φ; the raise shrinks the
+// corner part by cornerFactor and the rest by the factor measured on the
+// run's last degree step with a meaningful share (restGain),
+// priorRestGain before, so
 //
 //	gain = 1 / (φ·corner + (1 − φ)/rest).
 //
 // After deep grading, when the rest limits the widths, this predicts the
 // degree's exponential convergence on the smooth part (measured on the
 // 117° trapezoid at degree 6, 2 uniform and 14 graded levels: share 0.31,
-// grading gained 2.0 and the degree 14.7, while the last measured gains
-// of the two kinds were 8 and 4.9); while the corners limit, grading's
-// 2^(4ν). Otherwise, and for adaptive rounds, the kind's last measured
-// gain, priorGain before it is tried. A nil history has the priors.
+// the degree raise gained 14.7 while the last measured degree gain, from
+// the first mesh, was 4.9), and while the corners limit, that it gains
+// little (share 0.99 at degree 8: predicted 2.0, measured 1.7 and 1.9).
+// Otherwise, and for the other kinds, the kind's last measured gain,
+// priorGain before it is tried. A nil history has the priors.
+//
+// Grading is not predicted from the share: the corner part of the error
+// lies on the graded layers around the corner too, not only on the
+// triangles at it, and the share underestimated it (on the L-shape at
+// degree 6, 3 uniform and 6 graded levels, where λ1's corner term
+// limits the widths, the driver took uniform levels instead and reached
+// 2.8e-6 in the time main's rule reached 2.4e-9).
 func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe, sh share) float64 {
 	gain := priorGain[k]
 	if h == nil {
@@ -458,13 +463,13 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe,
 // degree p shrinks the corner part of the error, for the least exponent
 // ν of the graded corners, and whether the kind is modelled so:
 //
-//	grading (two levels)  2^(−4ν)           the corner elements halve twice, error ≈ h_c^(2ν) (singularCorners)
 //	degree p → p + 2      (p/(p + 2))^(4ν)  the p version approximates r^ν on the corner element with an
 //	                                        energy error ≈ p^(−2ν) (Babuška and Suri, RAIRO Modél. Math.
 //	                                        Anal. Numér. 21 (1987) 199–238, recalled from memory); the
 //	                                        eigenvalue error is its square
 //
-// Uniform levels and adaptive rounds are not modelled. A uniform level
+// Grading is not modelled (predictedGain); nor are uniform levels and
+// adaptive rounds. A uniform level
 // halves the corner elements once (2^(−2ν)) but also narrows the graded
 // layers around them far more than that model says (measured on the 117°
 // trapezoid at degree 10, 2 uniform and 18 graded levels: share 0.98, a
@@ -474,8 +479,6 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe,
 // the measured gain).
 func cornerFactor(k stepKind, p int, nu float64) (float64, bool) {
 	switch k {
-	case kindGrade:
-		return math.Pow(2, -4*nu), true
 	case kindDegree:
 		return math.Pow(float64(p)/float64(p+2), 4*nu), true
 	}
@@ -484,10 +487,10 @@ func cornerFactor(k stepKind, p int, nu float64) (float64, bool) {
 
 // priorRestGain is the factor by which a step of each modelled kind is
 // assumed to narrow the error away from the corners before one with a
-// meaningful corner share is measured (a choice): grading leaves it; the
-// smooth part converges exponentially in the degree (degree 6 → 8
-// narrowed the widths of the unit square 30× or more).
-var priorRestGain = [numStepKinds]float64{kindGrade: 1, kindDegree: 30}
+// meaningful corner share is measured (a choice): the smooth part
+// converges exponentially in the degree (degree 6 → 8 narrowed the
+// widths of the unit square 30× or more).
+var priorRestGain = [numStepKinds]float64{kindDegree: 30}
 
 // maxRestGain bounds a measured rest gain (restGain): a degree step whose
 // gain the corner part alone explains says only that the rest gained

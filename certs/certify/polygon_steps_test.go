@@ -158,35 +158,36 @@ func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 
 // TestChooseStepDegreeAfterDeepGrading: the history of the 117°
 // trapezoid after deep grading at degree 6 (measured there: 2 uniform
-// and 14 graded levels, corner share 0.31, where two more grading levels
-// gained 2.0 and the degree raise 14.7), transposed to the L-shape
-// fixture. The last measured gains, grading 8 and the degree 4.9 (from
-// a coarse first mesh), would choose grading; the corner share predicts
-// that grading gains little once the rest limits the widths and the
-// degree much, so the degree is chosen. With the share at 0.99 (the
-// corners limit), grading is.
+// and 14 graded levels, where the last two grading levels gained 2.0 and
+// the degree raise after them 14.7), transposed to the L-shape fixture.
+// The last measured gains, grading 2.0 and the degree 4.9 (from a coarse
+// first mesh), choose grading, which costs less; with a corner share of
+// 0.2 (the rest of the error limits the widths) the degree is predicted
+// to gain about 8 and is chosen; with a share of 0.99 (the corners
+// limit) about 2, and grading is chosen.
 func TestChooseStepDegreeAfterDeepGrading(t *testing.T) {
 	d, r, out := stepFixture(t)
 	h := d.hist
 	h.perWork = 10 / h.stepWork(d.p, r)
 	h.degrees = 1<<6 | 1<<8 // the tables of degree 8 are built: no setup
-	h.kinds[kindGrade], h.kinds[kindDegree] = measured(8), measured(4.9)
+	h.kinds[kindGrade], h.kinds[kindDegree] = measured(2.0), measured(4.9)
 	h.kinds[kindUniform], h.kinds[kindAdaptive] = measured(1.01), measured(1.01)
-	h.share = share{corner: 0.31, ok: true}
-	if g, d := h.predictedGain(d.p, kindGrade, r, h.share), h.predictedGain(d.p, kindDegree, r, h.share); !(g < 1.5 && d > 5) {
-		t.Errorf("share 0.31: predicted gains grading %.3g (want < 1.5), degree %.3g (want > 5)", g, d)
+	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 {
+		t.Errorf("no share: got degree %d graded %d (%q), want grading (measured 2.0 against 4.9 at 2.4 times the cost)", next.degree, next.graded, why)
+	}
+	h.share = share{corner: 0.2, ok: true}
+	if g := h.predictedGain(d.p, kindDegree, r, h.share); !(g > 7) {
+		t.Errorf("share 0.2: predicted degree gain %.3g, want > 7", g)
 	}
 	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.graded != r.graded {
 		t.Errorf("the rest limits: got degree %d graded %d (%q), want the degree raised", next.degree, next.graded, why)
 	}
 	h.share = share{corner: 0.99, ok: true}
+	if g := h.predictedGain(d.p, kindDegree, r, h.share); !(g < 2.5) {
+		t.Errorf("share 0.99: predicted degree gain %.3g, want < 2.5", g)
+	}
 	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 || next.degree != r.degree {
 		t.Errorf("the corners limit: got degree %d graded %d (%q), want two grading levels", next.degree, next.graded, why)
-	}
-	// Without a meaningful share the last measured gains decide: grading.
-	h.share = share{}
-	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 {
-		t.Errorf("no share: got degree %d graded %d (%q), want grading (measured 8 against 4.9)", next.degree, next.graded, why)
 	}
 }
 
