@@ -97,14 +97,14 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	// starts a step only when its predicted time fits (chooseStep);
 	// otherwise the next step is expected to cost a few times the last.
 	type pacer interface {
-		pace(deadline time.Time, memory int64) bool
+		pace(deadline time.Time, memory int64, target float64) bool
 	}
 	type observer interface {
 		observe(r recipe, out *outcome, worst, seconds float64)
 	}
 	paced := false
 	if pc, ok := d.(pacer); ok {
-		paced = pc.pace(start.Add(limit), budget)
+		paced = pc.pace(start.Add(limit), budget, target.Mid())
 	}
 	var best *result
 	reason, bestStep := "", 0

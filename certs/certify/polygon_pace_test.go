@@ -40,7 +40,7 @@ func TestExtraIndexStepKeepsTheDeadline(t *testing.T) {
 		if !ok || d.hist == nil {
 			t.Fatal("the L-shape's discretisation does not pace itself")
 		}
-		if !d.pace(c.deadline, 0) {
+		if !d.pace(c.deadline, 0, 0) {
 			t.Fatal("pace reports no pacing")
 		}
 		// A step with a known cost per unit of work, as after the first step.

@@ -125,6 +125,9 @@ func (d polygon) next(r recipe, out *outcome, gain float64) (recipe, string) {
 		return r, ""
 	}
 	if corners {
+		if next, ok := d.mildStep(r, out); ok {
+			return next, ""
+		}
 		return h.chooseStep(d, r, out)
 	}
 	switch {

@@ -72,6 +72,7 @@ type kindRecord struct {
 	seconds float64 // its wall time
 	ratio   float64 // wall time over the predicted one of its last step of minLearnSeconds or more (0: none), clamped to [¼, 4]
 	spent   bool    // it gained less than stallGain, and no other kind has gained since (observe)
+	rest    float64 // degree steps: the factor by which the last one with a meaningful corner share narrowed the error away from the corners (restGain; 0: not measured)
 }
 
 // bestStep is the step with the narrowest worst width that stage B ran
@@ -81,6 +82,7 @@ type bestStep struct {
 	score      float64 // −log of its worst width
 	rho, ritzN float64 // ρ̂ and the Ritz bound of Λ_N
 	indicators []float64
+	share      share // its corner share
 }
 
 // stepHistory is what the polygon driver measured of the steps of one
@@ -92,25 +94,36 @@ type stepHistory struct {
 	deadline time.Time // zero: no limit
 	memory   int64     // memory budget in bytes (0: none)
 
-	steps       int
-	score       float64 // −log of the last step's worst width
-	perWork     float64 // seconds per unit of work of the last step (0: unknown)
-	pending     stepKind
-	pendingBase float64 // score of the step the pending one started from
-	pendingCost float64 // its predicted seconds (0: no prediction)
-	best        *bestStep
-	kinds       [numStepKinds]kindRecord
-	triangles   map[[2]int]int // meshTriangles by (uniform, graded) levels
+	steps        int
+	score        float64 // −log of the last step's worst width
+	perWork      float64 // seconds per unit of work of the last step (0: unknown)
+	pending      stepKind
+	pendingBase  float64 // score of the step the pending one started from
+	pendingCost  float64 // its predicted seconds (0: no prediction)
+	pendingSetup float64 // the part of pendingCost that is the setup of a new degree (setupWork)
+	pendingShare share   // the corner share of the step the pending one started from
+	pendingDeg   int     // the trial degree of that step
+	best         *bestStep
+	kinds        [numStepKinds]kindRecord
+	triangles    map[[2]int]int // meshTriangles by (uniform, graded) levels
+
+	target  float64 // the relative width sought (0: none): gains beyond it are worth nothing (chooseStep)
+	degrees uint64  // bit k: trial degree k has been computed in this run (its tables are built)
+	share   share   // the corner share of the last step
+
+	// The mild phase (mildStep) on polygons whose corners all have ν ≥ 1.
+	degreeSlowed  bool // a degree step of the mild phase gained less than mildDegreeGain
+	cornerLimited bool // a uniform level gained less than twice its corner-limited rate 4^ν_min
 }
 
 // pace gives the driver the run's deadline and memory budget, and reports
 // whether it checks the time itself (Certify then starts a step only when
 // the driver chose one that fits).
-func (d polygon) pace(deadline time.Time, memory int64) bool {
+func (d polygon) pace(deadline time.Time, memory int64, target float64) bool {
 	if d.hist == nil {
 		return false
 	}
-	d.hist.deadline, d.hist.memory = deadline, memory
+	d.hist.deadline, d.hist.memory, d.hist.target = deadline, memory, target
 	return true
 }
 
@@ -127,6 +140,18 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 		score = -math.Log(worst)
 	}
 	failed := out.lg == nil && h.pending != kindStageA
+	// The setup of a degree new to the run is counted apart from the
+	// step's work: work is the part of the seconds the work took.
+	w, setup := h.stepWork(d.p, r), h.setupWork(r.degree)
+	h.degrees |= 1 << uint(r.degree)
+	work := seconds
+	if w+setup > 0 {
+		work = seconds * w / (w + setup)
+	}
+	var sh share
+	if out.lg != nil && out.polygon != nil && out.polygon.indicators != nil {
+		sh = cornerShare(d.p, r, out.polygon.indicators)
+	}
 	if k := h.pending; k != kindNone {
 		rec := &h.kinds[k]
 		rec.tried, rec.seconds = true, seconds
@@ -138,8 +163,17 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 		default:
 			rec.gain = math.Exp(score - h.pendingBase)
 		}
-		if h.pendingCost > 0 && seconds >= minLearnSeconds {
-			rec.ratio = math.Min(4, math.Max(0.25, seconds/h.pendingCost))
+		if c := h.pendingCost - h.pendingSetup; c > 0 && work >= minLearnSeconds {
+			rec.ratio = math.Min(4, math.Max(0.25, work/c))
+		}
+		if c, ok := cornerFactor(k, h.pendingDeg, h.nuMin(d.p)); ok && h.pendingShare.ok && rec.gain > 0 && !math.IsInf(rec.gain, 1) {
+			rec.rest = restGain(rec.gain, h.pendingShare.corner, c)
+		}
+		if k == kindDegree && rec.gain < mildDegreeGain {
+			h.degreeSlowed = true
+		}
+		if k == kindUniform && rec.gain < 2*math.Pow(4, h.nuMin(d.p)) {
+			h.cornerLimited = true
 		}
 		rec.spent = rec.gain < stallGain
 		if !rec.spent {
@@ -159,12 +193,12 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 			}
 		}
 	}
-	if w := h.stepWork(d.p, r); w > 0 && seconds > 0 {
-		h.perWork = seconds / w
+	if w > 0 && seconds > 0 {
+		h.perWork = seconds / (w + setup)
 	}
-	h.score, h.pending = score, kindNone
+	h.score, h.pending, h.share = score, kindNone, sh
 	if out.lg != nil && (h.best == nil || score >= h.best.score) {
-		h.best = &bestStep{r: r, score: score, rho: out.rho, ritzN: out.ritz[out.n-1]}
+		h.best = &bestStep{r: r, score: score, rho: out.rho, ritzN: out.ritz[out.n-1], share: sh}
 		if out.polygon != nil {
 			h.best.indicators = out.polygon.indicators
 		}
@@ -181,11 +215,44 @@ func (h *stepHistory) expect(d polygon, k stepKind, r recipe) bool {
 	if h == nil {
 		return true
 	}
-	h.pending, h.pendingBase, h.pendingCost = k, h.score, 0
+	h.pending, h.pendingBase, h.pendingCost, h.pendingSetup = k, h.score, 0, 0
+	h.pendingShare, h.pendingDeg = h.share, r.degree
 	if h.perWork > 0 {
-		h.pendingCost = h.perWork * h.stepWork(d.p, r) * h.kinds[k].ratioOrOne()
+		h.pendingCost = h.predict(d.p, k, r)
+		h.pendingSetup = h.perWork * h.setupWork(r.degree)
 	}
 	return !h.exceeds(h.pendingCost)
+}
+
+// predict returns the predicted wall time of computing recipe r as a step
+// of kind k: its work (stepWork) times the kind's ratio, plus the setup of
+// a degree new to the run (setupWork), times the measured seconds per
+// unit of work.
+func (h *stepHistory) predict(p *problem.Problem, k stepKind, r recipe) float64 {
+	return h.perWork * (h.stepWork(p, r)*h.kinds[k].ratioOrOne() + h.setupWork(r.degree))
+}
+
+// setupWork is the predicted work (in the units of stepWork) of building
+// the exact tables of trial degree k and flux degree k − 1 (the
+// divergence-adapted Raviart–Thomas basis, the Lagrange and product
+// tables, built once per process), or 0 when a step of the run has used
+// the degree. Measured on an otherwise idle machine (the Robin trapezoid
+// on 8 and 32 triangles, a step at a new degree less the same step at a
+// degree already built): 0.4 s at degree 6, 1.3 s at 8, 3.9 s at 10, a
+// factor of about 1.8 per degree, at 2.7 µs per unit of work
+// (stageAWorkPerTriangle). In units of work it follows the machine's load
+// as the steps do: in seconds, the first degree-8 step of the 117°
+// trapezoid on a loaded machine (4.0 s, predicted setup 1.3 s) made the
+// next uniform level look 7× dearer than it was. Counted in no step's
+// work, the first degree-10 step on 8 triangles (4.1 s, of which 0.2 s of
+// work) made every degree step look 4× (the ratio's clamp) dearer than it
+// is. A prediction only (a process that built the tables before, as in a
+// test, takes less).
+func (h *stepHistory) setupWork(k int) float64 {
+	if h == nil || k < 0 || k >= 64 || h.degrees&(1<<uint(k)) != 0 {
+		return 0
+	}
+	return 0.4 / 2.7e-6 * math.Pow(1.8, float64(k-6))
 }
 
 // ratioOrOne is the kind's measured ratio of wall time to predicted time,
@@ -211,20 +278,28 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // costs one step and is not built upon). Each kind of step (kindDegree,
 // kindGrade, kindUniform, kindAdaptive) not at its cap is a candidate
 // unless spent (it last gained less than stallGain, and no other kind has
-// gained since); it is scored by log(gain)/seconds, gain being its last
-// measured gain (priorGain before it is tried) and seconds its predicted
-// wall time: the work of its recipe (stepWork) times the measured seconds
-// per unit of work of the last step and the kind's own ratio of measured
-// to predicted time. Candidates that would exceed the memory budget are
-// taken only when nothing else remains (Certify then stops for memory),
-// and those whose predicted time does not fit in the time left are
-// dropped. The stop reason says what remained: StopCap when every kind is
-// at its cap, StopTime when the only useful kinds left do not fit in the
-// time, StopStalled when every kind left is spent. The chosen step gets
-// the stage-A rider (withStageARider). The first adaptive round waits
-// until grading is spent or at its cap.
+// gained since); it is scored by log(gain)/seconds, with
+//
+//   - gain its predicted gain (predictedGain: from the base step's corner
+//     share for degree steps, else its last measured gain or priorGain
+//     before it is tried), counted at most up to the gain that
+//     reaches the target width with a margin (targetMargin), so that of
+//     the steps predicted to reach the target the cheapest is taken;
+//   - seconds its predicted wall time: the work of its recipe (stepWork)
+//     times the kind's own ratio of measured to predicted time, plus the
+//     setup of a degree new to the run, times the measured seconds per
+//     unit of work of the last step (predict).
+//
+// Candidates that would exceed the memory budget are taken only when
+// nothing else remains (Certify then stops for memory), and those whose
+// predicted time does not fit in the time left are dropped. The stop
+// reason says what remained: StopCap when every kind is at its cap,
+// StopTime when the only useful kinds left do not fit in the time,
+// StopStalled when every kind left is spent. The chosen step gets the
+// stage-A rider (withStageARider). The first adaptive round waits until
+// grading is spent or at its cap.
 func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, string) {
-	base, baseScore := r, 0.0
+	base, baseScore, sh := r, 0.0, share{}
 	rho, ritzN, indicators := out.rho, 0.0, []float64(nil)
 	if out.n > 0 {
 		ritzN = out.ritz[out.n-1]
@@ -233,10 +308,17 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		indicators = out.polygon.indicators
 	}
 	if h != nil {
-		baseScore = h.score
+		baseScore, sh = h.score, h.share
 		if h.best != nil && (h.score < h.best.score || out.lg == nil) {
 			b := h.best
-			base, baseScore, rho, ritzN, indicators = b.r, b.score, b.rho, b.ritzN, b.indicators
+			base, baseScore, rho, ritzN, indicators, sh = b.r, b.score, b.rho, b.ritzN, b.indicators, b.share
+		}
+	}
+	// Gains past the target (with its margin) are worth nothing.
+	maxLog := math.Inf(1)
+	if h != nil && h.target > 0 && !math.IsInf(baseScore, 0) {
+		if need := -baseScore - math.Log(h.target); need > 0 {
+			maxLog = need + math.Log(targetMargin)
 		}
 	}
 	baseWork := 0.0 // computed when first needed
@@ -261,28 +343,30 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 			continue
 		}
 		available = true
-		gain := priorGain[k]
 		if baseWork == 0 {
 			baseWork = h.stepWork(d.p, base)
 		}
 		cost := h.stepWork(d.p, c) / baseWork // relative to the base step
 		if h != nil {
-			rec := h.kinds[k]
-			if rec.spent {
+			if h.kinds[k].spent {
 				continue
 			}
-			if rec.tried {
-				gain = rec.gain
-			}
 			if h.perWork > 0 {
-				cost = h.perWork * h.stepWork(d.p, c) * rec.ratioOrOne()
+				cost = h.predict(d.p, k, c)
 				if h.exceeds(cost) {
 					tooSlow = true
 					continue
 				}
 			}
 		}
-		cand := &candidate{kind: k, r: c, cost: cost, score: math.Log(gain) / math.Max(cost, 1e-9)}
+		gain := h.predictedGain(d.p, k, base, sh)
+		// The setup of a new degree counts in the score: left out, the
+		// degree rose to 8 on the first mesh of the 117° trapezoid, and
+		// the grading steps that followed at degree 8 cost more than at
+		// 6 (7.7e-9 at 26 s against 1.4e-10 at 24 s for grading at
+		// degree 6, measured under the same load).
+		rate := math.Min(math.Log(gain), maxLog) / math.Max(cost, 1e-9)
+		cand := &candidate{kind: k, r: c, cost: cost, score: rate}
 		if h != nil && h.memory > 0 && memoryEstimate(d.p, c) > h.memory {
 			if overMemory == nil || cand.score > overMemory.score {
 				overMemory = cand
@@ -306,12 +390,195 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		return r, StopStalled
 	}
 	if h != nil {
-		h.pending, h.pendingBase, h.pendingCost = best.kind, baseScore, 0
+		h.pending, h.pendingBase, h.pendingCost, h.pendingSetup = best.kind, baseScore, 0, 0
+		h.pendingShare, h.pendingDeg = sh, base.degree
 		if h.perWork > 0 {
-			h.pendingCost = best.cost
+			h.pendingCost, h.pendingSetup = best.cost, h.perWork*h.setupWork(best.r.degree)
 		}
 	}
 	return withStageARider(best.r, rho, ritzN), ""
+}
+
+// targetMargin: a step predicted to narrow the worst width to the target
+// divided by this factor counts as reaching it (a choice: the predicted
+// gains of the measured cases were within a factor of about 2 of the
+// measured ones).
+const targetMargin = 2
+
+// predictedGain returns the factor by which a step of kind k from the
+// base step is predicted to narrow the worst width, given the base
+// step's corner share φ (cornerShare). For a degree step with a
+// meaningful share the error is split into the part on the triangles at
+// the graded corners, φ, and the rest, 1 − φ; the raise shrinks the
+// corner part by cornerFactor and the rest by the factor measured on the
+// run's last degree step with a meaningful share (restGain),
+// priorRestGain before, so
+//
+//	gain = 1 / (φ·corner + (1 − φ)/rest).
+//
+// After deep grading, when the rest limits the widths, this predicts the
+// degree's exponential convergence on the smooth part (measured on the
+// 117° trapezoid at degree 6, 2 uniform and 14 graded levels: share 0.31,
+// the degree raise gained 14.7 while the last measured degree gain, from
+// the first mesh, was 4.9), and while the corners limit, that it gains
+// little (share 0.99 at degree 8: predicted 2.0, measured 1.7 and 1.9).
+// Otherwise, and for the other kinds, the kind's last measured gain,
+// priorGain before it is tried. A nil history has the priors.
+//
+// Grading is not predicted from the share: the corner part of the error
+// lies on the graded layers around the corner too, not only on the
+// triangles at it, and the share underestimated it (on the L-shape at
+// degree 6, 3 uniform and 6 graded levels, where λ1's corner term
+// limits the widths, the driver took uniform levels instead and reached
+// 2.8e-6 in the time in which grading chosen by its measured gain reached
+// 2.4e-9).
+func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe, sh share) float64 {
+	gain := priorGain[k]
+	if h == nil {
+		return gain
+	}
+	rec := h.kinds[k]
+	if rec.tried {
+		gain = rec.gain
+	}
+	if !sh.ok {
+		return gain
+	}
+	corner, ok := cornerFactor(k, base.degree, h.nuMin(p))
+	if !ok {
+		return gain
+	}
+	rest := priorRestGain[k]
+	if rec.rest > 0 {
+		rest = rec.rest
+	}
+	return 1 / (sh.corner*corner + (1-sh.corner)/rest)
+}
+
+// cornerFactor returns the factor by which a step of kind k from trial
+// degree p shrinks the corner part of the error, for the least exponent
+// ν of the graded corners, and whether the kind is modelled so:
+//
+//	degree p → p + 2      (p/(p + 2))^(4ν)  the p version approximates r^ν on the corner element with an
+//	                                        energy error ≈ p^(−2ν) (Babuška and Suri, RAIRO Modél. Math.
+//	                                        Anal. Numér. 21 (1987) 199–238, recalled from memory); the
+//	                                        eigenvalue error is its square
+//
+// Grading is not modelled (predictedGain); nor are uniform levels and
+// adaptive rounds. A uniform level halves the corner elements once
+// (2^(−2ν)) but also narrows the graded layers around them far more than
+// that model says (measured on the 117°
+// trapezoid at degree 10, 2 uniform and 18 graded levels: share 0.98, a
+// uniform level gained 12.7 where the split predicts 2.9), and with the
+// split its predictions chose uniform levels at degree 4 until they no
+// longer fitted in the time (1.2e-8 at 24 s against 1.4e-11 at 22 s with
+// the measured gain).
+func cornerFactor(k stepKind, p int, nu float64) (float64, bool) {
+	switch k {
+	case kindDegree:
+		return math.Pow(float64(p)/float64(p+2), 4*nu), true
+	}
+	return 0, false
+}
+
+// priorRestGain is the factor by which a step of each modelled kind is
+// assumed to narrow the error away from the corners before one with a
+// meaningful corner share is measured (a choice): the smooth part
+// converges exponentially in the degree (degree 6 → 8 narrowed the
+// widths of the unit square 30× or more).
+var priorRestGain = [numStepKinds]float64{kindDegree: 30}
+
+// maxRestGain bounds a measured rest gain (restGain): a degree step whose
+// gain the corner part alone explains says only that the rest gained
+// much.
+const maxRestGain = 1e4
+
+// restGain returns the factor by which a step that narrowed the worst
+// width by gain, from a step with corner share φ, narrowed the rest of
+// the error when it shrank the corner part by the factor corner (solving
+// 1/gain = φ·corner + (1 − φ)/rest), within [1, maxRestGain].
+func restGain(gain, share, corner float64) float64 {
+	if share >= 1 {
+		return maxRestGain
+	}
+	inv := (1/gain - share*corner) / (1 - share)
+	if inv <= 1/maxRestGain {
+		return maxRestGain
+	}
+	return math.Max(1, 1/inv)
+}
+
+// nuMin returns the least singular exponent of the graded corners of p
+// (singularCorners; +Inf without one).
+func (h *stepHistory) nuMin(p *problem.Problem) float64 {
+	nu := math.Inf(1)
+	for _, c := range singularCorners(p, gradedDegree, 0) {
+		nu = math.Min(nu, c.nu)
+	}
+	return nu
+}
+
+// mildDegreeGain: in the mild phase (mildStep) the degree rises while a
+// raise narrows the widths by this factor or more, as on polygons without
+// singular corners (next).
+const mildDegreeGain = 10
+
+// strongCornerStartDegree is the degree to which the first step raises
+// the degree on a polygon with a corner of ν < 1 (mildStep).
+const strongCornerStartDegree = 6
+
+// mildStep chooses the next step on a polygon whose singular corners all
+// have ν ≥ 1 while no uniform level has shown that a corner limits the
+// widths: the rule of polygons without singular corners (next), the
+// degree by 2 while a raise gains mildDegreeGain or more (up to
+// maxPolygonDegree), then uniform levels. Such a corner's term r^ν is in
+// H² and limits a uniform level's gain only to 4^ν (≥ 4), so on the
+// first meshes the smooth part, which the degree and uniform levels
+// serve, limits the widths; grading toward the corners first cost time
+// for nothing at loose targets (measured on the Robin trapezoid, ν = 4/3,
+// at 1e-6: 13.6 s against 9.0 s with the smooth rule). Once a uniform
+// level gains less than twice 4^ν_min (observe), or the rule's step does
+// not fit in the time or the memory, or the last step widened the widths,
+// the choice is chooseStep's (which takes another kind that fits, or
+// says why none does).
+//
+// With a corner of ν < 1 the smooth start is the degree's first raise
+// alone, to strongCornerStartDegree: chosen by predicted gain per second
+// from degree 4, the cheap grading and uniform levels kept the degree at
+// 4 while they made every later degree step dearer (measured under the
+// same load, 1e-12 targets: on the L-shape 1.5e-10 at 98 s, where the
+// degree raised at the second step reached 9.5e-12 at 100 s; on the 117°
+// trapezoid degree 4 for nine steps). It reports false when it does not
+// choose.
+func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
+	h := d.hist
+	if h == nil || h.cornerLimited || out.lg == nil || (h.best != nil && h.score < h.best.score) {
+		return r, false
+	}
+	k := kindUniform
+	top := maxPolygonDegree
+	if h.nuMin(d.p) < 1 {
+		top = strongCornerStartDegree
+	}
+	switch {
+	case !h.degreeSlowed && r.degree < top:
+		k = kindDegree
+	case top < maxPolygonDegree:
+		return r, false
+	}
+	next, ok := applyStep(k, r, nil)
+	if !ok {
+		return r, false
+	}
+	next = withStageARider(next, out.rho, out.ritz[out.n-1])
+	if h.memory > 0 && memoryEstimate(d.p, next) > h.memory {
+		return r, false
+	}
+	if !h.expect(d, k, next) {
+		h.pending = kindNone
+		return r, false
+	}
+	return next, true
 }
 
 // applyStep returns r after one step of kind k, or false when k is at its
@@ -426,4 +693,41 @@ func (h *stepHistory) note() string {
 		note += " (the best step's adaptive marks fix its uniform and graded levels)"
 	}
 	return note
+}
+
+// share is the corner share of a step's indicators (cornerShare).
+type share struct {
+	corner float64 // the share φ ∈ [0, 1] of the indicators on the triangles at the graded corners
+	ok     bool    // it is meaningful (false: not computed, or the corner triangles are more than a quarter of the mesh)
+}
+
+// cornerShare returns the share of the indicators (η_T², package fem/tri)
+// of recipe r's step on the triangles of its trial mesh that have a vertex
+// at a graded corner (trialCorners). It is meaningful when those
+// triangles are at most a quarter of the mesh (on the first meshes every
+// triangle touches a corner, and the share says nothing of the corners).
+// The indicators measure where the Lehmann–Goerisch fluxes miss, which
+// the widths follow; a choice, never a bound.
+func cornerShare(p *problem.Problem, r recipe, indicators []float64) share {
+	m, err := trialMesh(p, r)
+	if err != nil || len(m.Tris) != len(indicators) {
+		return share{}
+	}
+	f := startMesh(p)
+	isCorner := make(map[int]bool)
+	for _, c := range trialCorners(p, r) {
+		isCorner[f.vertex[c.vertex]] = true
+	}
+	total, corner, n := 0.0, 0.0, 0
+	for t, tri := range m.Tris {
+		total += indicators[t]
+		if isCorner[tri[0]] || isCorner[tri[1]] || isCorner[tri[2]] {
+			corner += indicators[t]
+			n++
+		}
+	}
+	if !(total > 0) || 4*n > len(m.Tris) {
+		return share{}
+	}
+	return share{corner: corner / total, ok: true}
 }

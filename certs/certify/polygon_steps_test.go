@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"math"
 	"testing"
 	"time"
 )
@@ -152,5 +153,174 @@ func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 	}
 	if h.best.score >= h.score {
 		t.Errorf("the step without stage B (narrower widths, from stage A) became the best: best score %g, last %g", h.best.score, h.score)
+	}
+}
+
+// TestChooseStepDegreeAfterDeepGrading: the history of the 117°
+// trapezoid after deep grading at degree 6 (measured there: 2 uniform
+// and 14 graded levels, where the last two grading levels gained 2.0 and
+// the degree raise after them 14.7), transposed to the L-shape fixture.
+// The last measured gains, grading 2.0 and the degree 4.9 (from a coarse
+// first mesh), choose grading, which costs less; with a corner share of
+// 0.2 (the rest of the error limits the widths) the degree is predicted
+// to gain about 8 and is chosen; with a share of 0.99 (the corners
+// limit) about 2, and grading is chosen.
+func TestChooseStepDegreeAfterDeepGrading(t *testing.T) {
+	d, r, out := stepFixture(t)
+	h := d.hist
+	h.perWork = 10 / h.stepWork(d.p, r)
+	h.degrees = 1<<6 | 1<<8 // the tables of degree 8 are built: no setup
+	h.kinds[kindGrade], h.kinds[kindDegree] = measured(2.0), measured(4.9)
+	h.kinds[kindUniform], h.kinds[kindAdaptive] = measured(1.01), measured(1.01)
+	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 {
+		t.Errorf("no share: got degree %d graded %d (%q), want grading (measured 2.0 against 4.9 at 2.4 times the cost)", next.degree, next.graded, why)
+	}
+	h.share = share{corner: 0.2, ok: true}
+	if g := h.predictedGain(d.p, kindDegree, r, h.share); !(g > 7) {
+		t.Errorf("share 0.2: predicted degree gain %.3g, want > 7", g)
+	}
+	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.graded != r.graded {
+		t.Errorf("the rest limits: got degree %d graded %d (%q), want the degree raised", next.degree, next.graded, why)
+	}
+	h.share = share{corner: 0.99, ok: true}
+	if g := h.predictedGain(d.p, kindDegree, r, h.share); !(g < 2.5) {
+		t.Errorf("share 0.99: predicted degree gain %.3g, want < 2.5", g)
+	}
+	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 || next.degree != r.degree {
+		t.Errorf("the corners limit: got degree %d graded %d (%q), want two grading levels", next.degree, next.graded, why)
+	}
+}
+
+// TestChooseStepCheapestToTarget: gains past the target are worth
+// nothing, so of two steps predicted to reach it the cheaper is taken. A
+// uniform level measured at 1e6 (cost about 3 times the step) and two
+// grading levels measured at 30 (cost about 1.15): without a target the
+// uniform level scores more per second; with the worst width 5 times the
+// target both reach it, and grading is taken.
+func TestChooseStepCheapestToTarget(t *testing.T) {
+	d, r, out := stepFixture(t)
+	h := d.hist
+	h.perWork = 10 / h.stepWork(d.p, r)
+	h.degrees = 1<<6 | 1<<8
+	h.kinds[kindGrade], h.kinds[kindUniform] = measured(30), measured(1e6)
+	h.kinds[kindDegree], h.kinds[kindAdaptive] = measured(1.01), measured(1.01)
+	h.score = -math.Log(5e-9)
+	if next, why := h.chooseStep(d, r, out); why != "" || next.refine != r.refine+1 {
+		t.Errorf("no target: got refine %d graded %d (%q), want the uniform level", next.refine, next.graded, why)
+	}
+	h.target = 1e-9
+	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 || next.refine != r.refine {
+		t.Errorf("target 1e-9 from 5e-9: got refine %d graded %d (%q), want the cheaper grading step", next.refine, next.graded, why)
+	}
+	// Far from the target the rates decide again.
+	h.score = -math.Log(1e-3)
+	if next, why := h.chooseStep(d, r, out); why != "" || next.refine != r.refine+1 {
+		t.Errorf("target 1e-9 from 1e-3: got refine %d graded %d (%q), want the uniform level", next.refine, next.graded, why)
+	}
+}
+
+// TestDegreeSetupIsNotWork: the first step at a degree pays for building
+// its tables (setupWork); the prediction of a step at a degree new to the
+// run adds it, and the step's measured time sets the cost of a unit of
+// work counting it. Made-up: a degree-8 step of 3 s.
+func TestDegreeSetupIsNotWork(t *testing.T) {
+	d, r, out := stepFixture(t)
+	h := d.hist
+	setup := 0.4 / 2.7e-6 * 1.8 * 1.8
+	if s := h.setupWork(8); math.Abs(s-setup) > 1e-9*setup {
+		t.Fatalf("setup of degree 8 %g, want %g", s, setup)
+	}
+	h.perWork = 1e-6
+	r8 := r
+	r8.degree, r8.fluxDegree = 8, 7
+	work := h.stepWork(d.p, r8)
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-1e-6*(work+setup)) > 1e-9 {
+		t.Errorf("predicted %g s for a step at a new degree, want work %g s plus setup %g s", c, 1e-6*work, 1e-6*setup)
+	}
+	d.observe(r8, out, 1e-6, 3)
+	if got, want := h.perWork, 3/(work+setup); math.Abs(got-want) > 1e-9*want {
+		t.Errorf("seconds per unit of work %g, want %g (the setup counted)", got, want)
+	}
+	if s := h.setupWork(8); s != 0 {
+		t.Errorf("setup of degree 8 after a degree-8 step %g, want 0", s)
+	}
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-h.perWork*work) > 1e-9 {
+		t.Errorf("predicted %g s for a step at a degree already built, want %g", c, h.perWork*work)
+	}
+}
+
+// robinTrapezoidSource is the trapezoid with two 135° Neumann–Robin
+// corners (ν = 4/3) and a Dirichlet base.
+const robinTrapezoidSource = `{"domain":{"polygon":[["0","0"],["3","0"],["2","1"],["1","1"]]},"potential":"x*y","boundary":["dirichlet",{"robin":"3/2"},"neumann",{"robin":"1/4"}]}`
+
+// TestMildCornersStartSmooth: on a polygon whose singular corners all
+// have ν ≥ 1 (the Robin trapezoid, ν = 4/3) the driver starts with the
+// rule of smooth polygons: the degree rises while a raise gains 10 or
+// more, then uniform levels follow; grading becomes a candidate
+// (chooseStep) once a uniform level gains less than twice 4^ν ≈ 12.7,
+// which the corners cause. On the L-shape (ν = 2/3) the choice is
+// chooseStep's once the first raise has brought the degree to
+// strongCornerStartDegree. Made-up outcomes and gains (observe).
+func TestMildCornersStartSmooth(t *testing.T) {
+	p := parseProblem(t, robinTrapezoidSource)
+	if nu := (&stepHistory{}).nuMin(p); math.Abs(nu-4.0/3) > 1e-9 {
+		t.Fatalf("least exponent of the Robin trapezoid %g, want 4/3", nu)
+	}
+	d := polygon{p: p, hist: &stepHistory{}}
+	h := d.hist
+	r := firstRecipe(t, p)
+	out := &outcome{n: 2, rho: 40, ritz: []float64{10, 16, 20}, lg: []float64{9, 15}}
+	step := func(worst float64) recipe {
+		t.Helper()
+		d.observe(r, out, worst, 0.1)
+		next, why := d.next(r, out, 1)
+		if why != "" {
+			t.Fatalf("stop %q", why)
+		}
+		return next
+	}
+	next := step(1e-2)
+	if next.degree != r.degree+2 || next.refine != r.refine || next.graded != 0 {
+		t.Fatalf("first step: degree %d refine %d graded %d, want the degree raised", next.degree, next.refine, next.graded)
+	}
+	r = next
+	next = step(9e-4) // the raise gained 11
+	if next.degree != r.degree+2 {
+		t.Fatalf("after a raise that gained 11: degree %d, want %d", next.degree, r.degree+2)
+	}
+	r = next
+	next = step(5e-4) // the raise gained 2
+	if next.degree != r.degree || next.refine != r.refine+1 || next.graded != 0 {
+		t.Fatalf("after a raise that gained 2: degree %d refine %d graded %d, want a uniform level", next.degree, next.refine, next.graded)
+	}
+	r = next
+	next = step(5e-6) // the uniform level gained 100: the smooth part limits
+	if next.refine != r.refine+1 || next.graded != 0 {
+		t.Fatalf("after a uniform level that gained 100: refine %d graded %d, want another uniform level", next.refine, next.graded)
+	}
+	r = next
+	h.kinds[kindGrade] = measured(100) // so that chooseStep takes grading
+	next = step(1e-6)                  // the uniform level gained 5 < 2·4^(4/3)
+	if next.graded != r.graded+2 {
+		t.Fatalf("after a uniform level that gained 5: graded %d refine %d degree %d, want grading (chooseStep)", next.graded, next.refine, next.degree)
+	}
+	// A smooth step over the memory budget is left to chooseStep.
+	fresh := polygon{p: p, hist: &stepHistory{memory: 1}}
+	fresh.observe(firstRecipe(t, p), out, 1e-2, 0.1)
+	if next, ok := fresh.mildStep(firstRecipe(t, p), out); ok {
+		t.Errorf("over the memory budget: the smooth rule chose degree %d refine %d", next.degree, next.refine)
+	}
+	// The L-shape (ν = 2/3): the smooth start raises the degree from 4
+	// to strongCornerStartDegree, and no further.
+	dl, rl, outl := stepFixture(t)
+	rl.degree, rl.fluxDegree = 4, 3
+	dl.observe(rl, outl, 1e-3, 0.1)
+	if next, ok := dl.mildStep(rl, outl); !ok || next.degree != strongCornerStartDegree || next.refine != rl.refine || next.graded != rl.graded {
+		t.Errorf("L-shape at degree 4: the smooth start chose degree %d refine %d graded %d (%v), want degree %d alone", next.degree, next.refine, next.graded, ok, strongCornerStartDegree)
+	}
+	rl.degree, rl.fluxDegree = strongCornerStartDegree, strongCornerStartDegree-1
+	dl.observe(rl, outl, 1e-4, 0.1)
+	if next, ok := dl.mildStep(rl, outl); ok {
+		t.Errorf("L-shape at degree %d: the smooth start chose degree %d refine %d, want chooseStep's choice", rl.degree, next.degree, next.refine)
 	}
 }
