@@ -271,8 +271,6 @@ func TestBadFamilies(t *testing.T) {
 		  "parameters": [{"name": "c", "range": {"lo": "5", "hi": "5"}, "min_cell": "1"}]}`, "empty range"},
 		{"non-monotone potential", `{"template": {"domain": {"interval": ["0","2"]}, "potential": "sin(c*x)", "boundary": "dirichlet"},
 		  "parameters": [{"name": "c", "range": {"lo": "0", "hi": "5"}, "min_cell": "1/64"}]}`, `parameter "c": ∂V/∂c takes both signs`},
-		{"geometry parameter", `{"template": {"domain": {"polygon": [["0","0"],["1","0"],["a","1"]]}, "boundary": "dirichlet"},
-		  "parameters": [{"name": "a", "range": {"lo": "0", "hi": "1"}, "min_cell": "1/8"}]}`, `parameter "a" enters template.domain`},
 		{"opposite signs", `{"template": {"domain": {"interval": ["0","1"]}, "potential": "-c", "boundary": [{"robin": "c"}, "dirichlet"]},
 		  "parameters": [{"name": "c", "range": {"lo": "0", "hi": "1"}, "min_cell": "1/8"}]}`, "raises the operator through boundary[0].robin but lowers it through potential"},
 		{"unknown key", `{"template": {"domain": {"interval": ["0","1"]}, "potential": "c*x^2", "boundary": "dirichlet"},
