@@ -44,8 +44,14 @@ A cell's eigenvalue bounds come from two certified problems, its low and
 high corners: Robin coefficients and the potential may depend on the
 parameters when the dependence has one sign over the box (decided by
 interval evaluation of the derivative before anything is certified), and
-then λ_k(low) ≤ λ_k(p) ≤ λ_k(high) on the cell (min–max). A parameter in
-the domain's geometry, or with a dependence of both signs, is refused
+then λ_k(low) ≤ λ_k(p) ≤ λ_k(high) on the cell (min–max). The vertices
+of a triangle (Dirichlet and Neumann sides, V = 0) may depend on the
+parameters: a cell then costs one certified problem, the triangle at its
+centre, and λ_k over the cell lies between λ_k there divided by (1 + r)²
+and by (1 − r)², r bounding the distance of the affine maps to the
+identity (the singular values of their Jacobian). A dependence of both
+signs, a moving domain that is not a triangle, a moving triangle with a
+Robin side or a potential, or one that degenerates in the box, is refused
 before computing, with the reason.
 
 DIR receives family.json, one certificate per corner
