@@ -183,7 +183,7 @@ func (f *Family) geometryQuantities(b Box, ref corner, env map[string]interval.I
 	env[claim.Diameter], env[claim.Area], env[claim.Perimeter], env[claim.Inradius] = d, area, perimeter, inradius
 	m := ref.problem.Eigenvalues
 	if !(g.R < 1) {
-		why := fmt.Sprintf("the affine maps from the reference triangle to the cell's triangles are not proved nonsingular (‖A − I‖_F ≤ %.3g, not below 1): the cell may hold a degenerate triangle, so its eigenvalues are not bounded", g.R)
+		why := fmt.Sprintf("the affine maps from the reference triangle to the cell's triangles are not proved nonsingular (the bound r of ‖A − I‖_F over the cell is about %.3g, not below 1, which allows a degenerate triangle), so the cell's eigenvalues are not bounded", g.R)
 		for k := 1; k <= m; k++ {
 			missing[claim.Eigenvalue(k)] = why
 		}
