@@ -197,8 +197,8 @@ func TestCellEnclosesEveryPoint(t *testing.T) {
 
 // pointsInsideCells draws n random cells with dyadic bounds inside the
 // family's box, certifies their corners, then one random point strictly
-// inside each, and demands that the point's λ1, λ2 and gap enclosures lie
-// inside the cell's.
+// inside each, and demands that the point's λ1, λ2, gap and D enclosures
+// lie inside the cell's.
 func pointsInsideCells(t *testing.T, f *Family, n int, seed int64) {
 	dir := t.TempDir()
 	rng := rand.New(rand.NewSource(seed))
@@ -243,9 +243,12 @@ func pointsInsideCells(t *testing.T, f *Family, n int, seed int64) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		for _, name := range []string{"lambda1", "lambda2", "gap"} {
+		for _, name := range []string{"lambda1", "lambda2", "gap", "D"} {
 			got := cert.Results.Gap
-			if name != "gap" {
+			switch name {
+			case "D":
+				got = cert.Results.Diameter
+			case "lambda1", "lambda2":
 				got = cert.Results.Eigenvalues[name[len(name)-1]-'1'].Bound()
 			}
 			iv, err := got.Interval()
