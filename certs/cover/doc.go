@@ -32,7 +32,8 @@
 // template is accounted for by a rule (Rules) or refused with the reason:
 // a dependence whose sign is not decided, dependences of opposite signs,
 // a moving domain that is not a triangle, or a moving triangle with a
-// Robin side, V ≠ 0 or a degenerate triangle in the box.
+// Robin side, a potential that is not constant, or a degenerate triangle
+// in the box.
 //
 // # The comparison lemma
 //
@@ -95,7 +96,8 @@
 // # Geometry
 //
 // GeometryRule covers parameters in the vertices of a triangle (template
-// part "domain"), with Dirichlet and Neumann sides and V = 0. It proves
+// part "domain"), with Dirichlet and Neumann sides and V = 0 (a constant
+// V ≡ c shifts every eigenvalue by c, below). It proves
 // no order: the cell's one certified problem is the triangle Ω at the
 // cell's centre (exact rational parameter values), and for every p in the
 // cell the affine map Φ(x) = A x + b taking Ω's vertices to the vertices
@@ -110,6 +112,7 @@
 //
 //	λ_k ∈ [ℓ_k/(1 + r)², u_k/(1 − r)²]   (r < 1),
 //
+// (with V ≡ c: λ_k ∈ ([ℓ_k, u_k] − c)·[1/(1 + r)², 1/(1 − r)²] + c),
 // the gap lies in [λ₂'s lower end − λ₁'s upper end, λ₂'s upper end − λ₁'s
 // lower end], and D, area, perimeter and inradius are enclosed from the
 // vertex formulas over the cell. When r ≥ 1 (the cell may hold a
@@ -117,8 +120,9 @@
 // that reason and the cell is split. Since r → 0 as a cell shrinks, the
 // cell's enclosures tend to the reference's. A triangle family is refused
 // before computing when its signed area is not proved of one sign on the
-// box, or when it has a Robin side (α ≠ 0) or V ≠ 0, which the affine
-// change of variables does not scale by the same factor.
+// box, or when it has a Robin side (α ≠ 0) or a potential that varies in
+// x, y or a covered parameter, which the affine change of variables does
+// not scale by the same factor.
 //
 // # The cover
 //

@@ -86,8 +86,9 @@ func eigenOf(r certs.Results, k int) (interval.I, error) {
 // In a family whose domain moves (GeometryRule), low and high are the
 // reference triangle at the cell's centre, and instead:
 //
-//   - λ_k ∈ [ℓ_k, u_k]·[1/(1+r)², 1/(1−r)²] with [ℓ_k, u_k] the
-//     reference's enclosure and r ≥ ‖A − I‖_F over the cell (geometryOver);
+//   - λ_k ∈ ([ℓ_k, u_k] − c)·[1/(1+r)², 1/(1−r)²] + c with [ℓ_k, u_k]
+//     the reference's enclosure, V ≡ c, and r ≥ ‖A − I‖_F over the cell
+//     (geometryOver);
 //     when r ≥ 1 the eigenvalues and the gap have no enclosure and the
 //     claims naming them are undecided with that reason;
 //   - gap: λ₂'s lower end minus λ₁'s upper end, and the other way round;
@@ -190,13 +191,18 @@ func (f *Family) geometryQuantities(b Box, ref corner, env map[string]interval.I
 		missing[claim.Gap] = why
 		return nil
 	}
+	c, err := constantPotential(f, ref.problem)
+	if err != nil {
+		return err
+	}
 	eig := make([]interval.I, m+1)
 	for k := 1; k <= m; k++ {
 		e, err := ref.eigen(k)
 		if err != nil {
 			return fmt.Errorf("reference: %v", err)
 		}
-		eig[k] = e.Mul(g.Scale)
+		// V ≡ c shifts every eigenvalue by c (GeometryRule).
+		eig[k] = e.Sub(c).Mul(g.Scale).Add(c)
 		env[claim.Eigenvalue(k)] = eig[k]
 	}
 	env[claim.Gap] = gapOver(eig, eig)

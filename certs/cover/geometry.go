@@ -25,8 +25,9 @@ import (
 // P₀, P₂ − P₀] and F = [Q₁ − Q₀, Q₂ − Q₀] by columns; F is invertible
 // since Ω is a triangle). Let σ_min ≤ σ_max be the singular values of A,
 // with σ_min > 0. Then for the Dirichlet, Neumann or mixed
-// Dirichlet–Neumann Laplacian (V = 0), with side i of Φ(Ω) carrying the
-// condition of side i of Ω, every eigenvalue satisfies
+// Dirichlet–Neumann Laplacian (V = 0; a constant V below), with side i
+// of Φ(Ω) carrying the condition of side i of Ω, every eigenvalue
+// satisfies
 //
 //	λ_k(Ω)/σ_max² ≤ λ_k(Φ(Ω)) ≤ λ_k(Ω)/σ_min².
 //
@@ -58,12 +59,16 @@ import (
 // memory). Taking the max over S of the pointwise inequalities, then the
 // min over the corresponding subspaces, gives the statement. ∎
 //
-// With V ≠ 0 the potential term becomes ∫_Ω (V∘Φ) v² |det A|, which is
-// not V's on Ω; with a Robin side the term α∫_{Γ_i} u² ds becomes
-// α (|P_{i+1} − P_i| / |Q_{i+1} − Q_i|) ∫_{Γ_i} v² ds, scaled by the
-// side's length ratio instead of |det A|. Neither fits the two-sided
-// ratio above, so the rule refuses both (a Robin side with α = 0 is the
-// Neumann condition and is accepted).
+// A constant potential V ≡ c shifts every eigenvalue by c on every
+// domain (the form gains c∫u²), so λ_k(Φ(Ω)) − c lies between (λ_k(Ω) −
+// c)/σ_max² and (λ_k(Ω) − c)/σ_min², where λ_k(Ω) − c ≥ 0 is the
+// Laplacian's. A potential that varies in x or y becomes ∫_Ω (V∘Φ) v²
+// |det A|, which is not V's on Ω; with a Robin side the term α∫_{Γ_i} u²
+// ds becomes α (|P_{i+1} − P_i| / |Q_{i+1} − Q_i|) ∫_{Γ_i} v² ds, scaled
+// by the side's length ratio instead of |det A|. Neither fits the
+// two-sided ratio above, so the rule refuses both (a Robin side with α =
+// 0 is the Neumann condition and is accepted), and a potential that
+// names a covered parameter.
 //
 // # Enclosing the singular values over a cell
 //
@@ -86,7 +91,8 @@ import (
 //	λ_k(p) ∈ λ_k(Ω)·[1/(1 + r)², 1/(1 − r)²] ⊆ [ℓ_k/(1 + r)², u_k/(1 − r)²],
 //
 // with [ℓ_k, u_k] the reference certificate's enclosure (λ_k(Ω) ≥ 0 since
-// the form is nonnegative). As the cell shrinks r → 0, so the cell's
+// the form is nonnegative); with V ≡ c, λ_k(p) ∈ ([ℓ_k, u_k] − c)·[1/(1 +
+// r)², 1/(1 − r)²] + c in interval arithmetic. As the cell shrinks r → 0, so the cell's
 // enclosures tend to the reference's. When r ≥ 1 the cell may contain a
 // degenerate triangle and its eigenvalues are not bounded: the claims
 // that name them are undecided with that reason and the cell is split.
@@ -101,7 +107,8 @@ import (
 //
 // Order refuses, before anything is computed: a domain that is not a
 // triangle (the piecewise affine maps of a triangulation are not
-// implemented), a Robin side with α ≠ 0, V ≠ 0, and a box in which the
+// implemented), a Robin side with α ≠ 0, a potential that is not a
+// constant free of covered parameters, and a box in which the
 // triangle degenerates somewhere (its doubled signed area is not proved
 // of one strict sign on a subdivision of the box).
 type GeometryRule struct{}
@@ -129,8 +136,8 @@ func (r GeometryRule) Order(f *Family, ref *problem.Problem, j int) ([]Use, erro
 			return nil, fmt.Errorf("side %d has a Robin condition (α = %s): under the affine map of the geometry rule the term α∫u² on a side scales with that side's length ratio, not with |det A| as the other terms, so λ_k is not bounded by the reference's through the singular values of A; geometry is covered with Dirichlet and Neumann sides only", templateSide(f, ref, i), bc.Alpha.Text)
 		}
 	}
-	if v := ref.PotentialText(); v != "0" {
-		return nil, fmt.Errorf("the potential is V = %s: under the affine map of the geometry rule V becomes V∘Φ, which is not V, so λ_k is not bounded by the reference's through the singular values of A; geometry is covered with V = 0 only", v)
+	if _, err := constantPotential(f, ref); err != nil {
+		return nil, err
 	}
 	box := paramBox(f, f.Box(), ref)
 	if err := tri.decideNondegenerate(box); err != nil {
@@ -151,6 +158,31 @@ func (r GeometryRule) Order(f *Family, ref *problem.Problem, j int) ([]Use, erro
 		}
 	}
 	return uses, nil
+}
+
+// constantPotential returns the enclosure of V when V is a constant that
+// names no covered parameter, else an error saying why the geometry rule
+// does not apply.
+func constantPotential(f *Family, ref *problem.Problem) (interval.I, error) {
+	text := ref.PotentialText()
+	e, err := formula.Parse(text)
+	if err != nil {
+		return interval.I{}, fmt.Errorf("the potential %q does not read as a formula: %v", text, err)
+	}
+	for _, v := range e.Vars() {
+		covered := false
+		for _, p := range f.Params {
+			covered = covered || p.Name == v
+		}
+		if covered || v == "x" || v == "y" {
+			return interval.I{}, fmt.Errorf("the potential is V = %s: under the affine map of the geometry rule V becomes V∘Φ, which is not V, so λ_k is not bounded by the reference's through the singular values of A; geometry is covered with a constant V only (naming no covered parameter)", text)
+		}
+	}
+	c, err := ref.Potential.EvalConst()
+	if err != nil || !isFinite(c) {
+		return interval.I{}, fmt.Errorf("the constant potential V = %s has no bounded enclosure", text)
+	}
+	return c, nil
 }
 
 func vertexPath(i, c int) string { return fmt.Sprintf("domain.polygon[%d][%d]", i, c) }

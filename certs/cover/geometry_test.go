@@ -132,22 +132,24 @@ func ratBox(bounds ...[2]*big.Rat) Box {
 // m > n ≥ 1): equilateral λ₁ = 16π²/(3s²), λ₂ = 112π²/(9s²); right
 // isosceles λ₁ = 5π²/s², λ₂ = 10π²/s²; Neumann right isosceles (the
 // square's modes cos(mπx/s)cos(nπy/s) + cos(nπx/s)cos(mπy/s), m ≥ n ≥ 0)
-// λ₁ = 0, λ₂ = π²/s². At points spread over the cell the
+// λ₁ = 0, λ₂ = π²/s²; with V ≡ 3 every eigenvalue is shifted by 3. At
+// points spread over the cell the
 // exact values lie in the cell's enclosures, and the enclosures are
 // narrow: within the relative width 4r + 3·10⁻⁴ of the truth's range
 // (first order in r, the bound of ‖A − I‖_F).
 func TestRotatedScaledTrianglesInsideCell(t *testing.T) {
 	cases := []struct {
-		name, polygon, boundary string
-		l1, l2                  float64 // λ_k·s²/π²
+		name, polygon, boundary, potential string
+		shift, l1, l2                      float64 // V, (λ_k − V)·s²/π²
 	}{
-		{"equilateral", `[["0","0"],["s*cos(t)","s*sin(t)"],["s*cos(t+pi/3)","s*sin(t+pi/3)"]]`, "dirichlet", 16.0 / 3, 112.0 / 9},
-		{"right isosceles", `[["0","0"],["s*cos(t)","s*sin(t)"],["-s*sin(t)","s*cos(t)"]]`, "dirichlet", 5, 10},
-		{"right isosceles Neumann", `[["0","0"],["s*cos(t)","s*sin(t)"],["-s*sin(t)","s*cos(t)"]]`, "neumann", 0, 1},
+		{"equilateral", `[["0","0"],["s*cos(t)","s*sin(t)"],["s*cos(t+pi/3)","s*sin(t+pi/3)"]]`, "dirichlet", "0", 0, 16.0 / 3, 112.0 / 9},
+		{"right isosceles", `[["0","0"],["s*cos(t)","s*sin(t)"],["-s*sin(t)","s*cos(t)"]]`, "dirichlet", "0", 0, 5, 10},
+		{"right isosceles V = 3", `[["0","0"],["s*cos(t)","s*sin(t)"],["-s*sin(t)","s*cos(t)"]]`, "dirichlet", "3", 3, 5, 10},
+		{"right isosceles Neumann", `[["0","0"],["s*cos(t)","s*sin(t)"],["-s*sin(t)","s*cos(t)"]]`, "neumann", "0", 0, 0, 1},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
-			family := `{"template": {"domain": {"polygon": ` + c.polygon + `}, "boundary": "` + c.boundary + `"},
+			family := `{"template": {"domain": {"polygon": ` + c.polygon + `}, "boundary": "` + c.boundary + `", "potential": "` + c.potential + `"},
 			  "parameters": [{"name": "s", "range": {"lo": "9/10", "hi": "11/10"}, "min_cell": "1/64"},
 			                 {"name": "t", "range": {"lo": "0", "hi": "1"}, "min_cell": "1/64"}],
 			  "relative_width": "1e-4"}`
@@ -161,10 +163,11 @@ func TestRotatedScaledTrianglesInsideCell(t *testing.T) {
 				t.Fatal(err)
 			}
 			sLo, sHi := 63.0/64, 65.0/64
+			shift := c.shift
 			for i := 0; i <= 8; i++ {
 				s := sLo + (sHi-sLo)*float64(i)/8
 				for k, want := range []float64{c.l1, c.l2} {
-					exact := interval.Pi().Sqr().MulF(want).Div(interval.Point(s).Sqr())
+					exact := interval.Pi().Sqr().MulF(want).Div(interval.Point(s).Sqr()).AddF(shift)
 					cell := env[claim.Eigenvalue(k+1)]
 					if !(cell.Lo <= exact.Lo && exact.Hi <= cell.Hi) {
 						t.Errorf("s = %g: λ%d = %v not inside the cell's %v", s, k+1, exact, cell)
@@ -174,7 +177,7 @@ func TestRotatedScaledTrianglesInsideCell(t *testing.T) {
 			// Narrowness: the truth ranges over [λ(sHi), λ(sLo)].
 			for k, want := range []float64{c.l1, c.l2} {
 				cell := env[claim.Eigenvalue(k+1)]
-				truthLo, truthHi := want*math.Pi*math.Pi/(sHi*sHi), want*math.Pi*math.Pi/(sLo*sLo)
+				truthLo, truthHi := want*math.Pi*math.Pi/(sHi*sHi)+shift, want*math.Pi*math.Pi/(sLo*sLo)+shift
 				slack := (4*g.R+3e-4)*truthHi + 1e-6
 				if cell.Lo < truthLo-slack || cell.Hi > truthHi+slack {
 					t.Errorf("λ%d: cell %v is wider than [%g, %g] ± %g (r = %g)", k+1, cell, truthLo, truthHi, slack, g.R)
@@ -212,6 +215,8 @@ func TestGeometryRefusals(t *testing.T) {
 			"side 0 has a Robin condition"},
 		{"potential", `{"template": {` + tri + `, "potential": "x^2", "boundary": "dirichlet"}, ` + param + `}`,
 			"the potential is V = x^2"},
+		{"potential with a covered parameter", `{"template": {` + tri + `, "potential": "a", "boundary": "dirichlet"}, ` + param + `}`,
+			"naming no covered parameter"},
 		{"quadrilateral", `{"template": {"domain": {"polygon": [["0","0"],["1","0"],["1","1"],["a","1"]]}, "boundary": "dirichlet"}, ` + param + `}`,
 			"has 4 vertices"},
 		{"interval", `{"template": {"domain": {"interval": ["0","1+a"]}, "boundary": "dirichlet"}, ` + param + `}`,

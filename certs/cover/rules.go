@@ -132,7 +132,7 @@ func analyse(f *Family) ([]Dependence, error) {
 			if err != nil {
 				hint := "split the range where the dependence changes direction into separate families, or fix the parameter"
 				if r.Part() == "domain" {
-					hint = "the geometry rule covers nondegenerate triangles with Dirichlet and Neumann sides and V = 0; fix the parameter or sample it with a sweep"
+					hint = "the geometry rule covers nondegenerate triangles with Dirichlet and Neumann sides and a constant V; fix the parameter or sample it with a sweep"
 				}
 				iss = append(iss, problem.Issue{Path: fmt.Sprintf("parameters[%d]", j),
 					Msg: fmt.Sprintf("parameter %q: %v", p.Name, err), Hint: hint})

@@ -45,14 +45,14 @@ high corners: Robin coefficients and the potential may depend on the
 parameters when the dependence has one sign over the box (decided by
 interval evaluation of the derivative before anything is certified), and
 then λ_k(low) ≤ λ_k(p) ≤ λ_k(high) on the cell (min–max). The vertices
-of a triangle (Dirichlet and Neumann sides, V = 0) may depend on the
+of a triangle (Dirichlet and Neumann sides, constant V) may depend on the
 parameters: a cell then costs one certified problem, the triangle at its
-centre, and λ_k over the cell lies between λ_k there divided by (1 + r)²
-and by (1 − r)², r bounding the distance of the affine maps to the
-identity (the singular values of their Jacobian). A dependence of both
-signs, a moving domain that is not a triangle, a moving triangle with a
-Robin side or a potential, or one that degenerates in the box, is refused
-before computing, with the reason.
+centre, and λ_k − V over the cell lies between λ_k − V there divided by
+(1 + r)² and by (1 − r)², r bounding the distance of the affine maps to
+the identity (the singular values of their Jacobian). A dependence of
+both signs, a moving domain that is not a triangle, a moving triangle
+with a Robin side or a varying potential, or one that degenerates in the
+box, is refused before computing, with the reason.
 
 DIR receives family.json, one certificate per corner
 (corner-HASH.cert.json, shared by the cells that meet there), one per
