@@ -15,7 +15,10 @@ import (
 )
 
 // luRowlettFamily is the Dirichlet triangle with base [0, 1] and apex
-// (a, b), a ∈ [aLo, aHi], b ∈ [bLo, bHi], with the claim D²·gap ≥ 64π²/9:
+// (a, b), a ∈ [aLo, aHi], b ∈ [bLo, bHi], with the claim D²·gap ≥ 64π²/9,
+// written out and as the built-in @triangle_gap (whose hypotheses carry
+// over to the cell: the geometry rule keeps triangles, boundary kinds and
+// V):
 // among triangles the equilateral one minimises D²·(λ₂ − λ₁), with value
 // 64π²/9 (Z. Lu and J. Rowlett, The fundamental gap of simplices, Comm.
 // Math. Phys. 319 (2013) 111–145). The regions used below keep the apex
@@ -26,7 +29,7 @@ func luRowlettFamily(aLo, aHi, bLo, bHi string, count int, minCell string) strin
   "template": {"domain": {"polygon": [["0","0"],["1","0"],["a","b"]]}, "boundary": "dirichlet"},
   "parameters": [{"name": "a", "range": {"lo": "` + aLo + `", "hi": "` + aHi + `", "count": ` + itoa(count) + `}, "min_cell": "` + minCell + `"},
                  {"name": "b", "range": {"lo": "` + bLo + `", "hi": "` + bHi + `", "count": ` + itoa(count) + `}, "min_cell": "` + minCell + `"}],
-  "claims": ["D^2*gap >= 64*pi^2/9"],
+  "claims": ["D^2*gap >= 64*pi^2/9", "@triangle_gap"],
   "relative_width": "1e-3"
 }`
 }
@@ -73,6 +76,16 @@ func TestTriangleFamilyLuRowlettHolds(t *testing.T) {
 	}
 	if c.Low.File != c.High.File || c.Low.CertificateSHA256 != c.High.CertificateSHA256 {
 		t.Errorf("a geometry cell has one reference; low %+v, high %+v", c.Low, c.High)
+	}
+	for _, cl := range c.Claims {
+		if cl.Verdict != certs.Holds {
+			t.Errorf("claim %s: %s (%s)", cl.Text, cl.Verdict, cl.Reason)
+		}
+		for _, h := range cl.Hypotheses {
+			if h.Verdict != certs.Proven {
+				t.Errorf("claim %s: hypothesis %s %s (%s)", cl.Text, h.Name, h.Verdict, h.Detail)
+			}
+		}
 	}
 	t.Logf("%d cells, %d reference certificates", len(s.Cells), s.Corners)
 }
