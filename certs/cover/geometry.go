@@ -152,7 +152,7 @@ func (r GeometryRule) Order(f *Family, ref *problem.Problem, j int) ([]Use, erro
 			}
 			g, err := e.Gradient(box, []string{name})
 			if err != nil || !isFinite(g[0]) {
-				return nil, fmt.Errorf("the vertex coordinate %s = %s has no bounded derivative in %s on the box", vertexPath(i, c), e, name)
+				return nil, fmt.Errorf("the derivative of the vertex coordinate %s = %s in %s is not enclosed by interval differentiation on the box (recorded with each use); write the vertex with functions smooth on the box", vertexPath(i, c), e, name)
 			}
 			uses = append(uses, Use{Path: vertexPath(i, c), Rule: r.Name(), Sign: 0, Derivative: boundText(g[0])})
 		}
