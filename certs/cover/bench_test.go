@@ -1,6 +1,7 @@
 package cover
 
 import (
+	"os"
 	"testing"
 	"time"
 )
@@ -34,3 +35,14 @@ func BenchmarkCoverHarmonic(b *testing.B) { benchmarkCover(b, harmonicFamily) }
 // BenchmarkCoverRobinRectangle: the 2×1 rectangle, α ∈ [0, 10],
 // @robin_comparison.
 func BenchmarkCoverRobinRectangle(b *testing.B) { benchmarkCover(b, robinFamily("10", 10)) }
+
+// BenchmarkCoverTriangleGap: Dirichlet triangles with base [0, 1] and apex
+// (a, b) ∈ [1/10, 2/5] × [1/4, 1/2], D²·gap ≥ 64π²/9 (the README's
+// example; one certificate per cell).
+func BenchmarkCoverTriangleGap(b *testing.B) {
+	data, err := os.ReadFile(triangleGapExample)
+	if err != nil {
+		b.Fatal(err)
+	}
+	benchmarkCover(b, string(data))
+}

@@ -37,7 +37,9 @@ type Cell struct {
 	// Order is the family's Dependences.
 	Order []Dependence `json:"order"`
 	// Low and High are the corners whose certificates bound every
-	// eigenvalue on the cell from below and from above.
+	// eigenvalue on the cell from below and from above; for a moving
+	// triangle (GeometryRule) both are the reference triangle at the
+	// cell's centre.
 	Low  CornerRef `json:"low"`
 	High CornerRef `json:"high"`
 	// Quantities enclose each claim quantity over the cell.

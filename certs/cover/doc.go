@@ -2,8 +2,10 @@
 // parameter value of a box, not only at sample points: it splits the
 // parameter box into cells with exact rational bounds, encloses the
 // eigenvalues over each whole cell from two certified problems (the cell's
-// low and high corners), decides the claims on each cell, and bisects the
-// cells where a claim is undecided, down to a smallest width.
+// low and high corners) or, when the parameters move a triangle's
+// vertices, from one (the triangle at the cell's centre), decides the
+// claims on each cell, and bisects the cells where a claim is undecided,
+// down to a smallest width.
 //
 // # Family files
 //
@@ -28,8 +30,10 @@
 // that many equal parts first. Before anything is certified, every corner
 // of the box is parsed as a problem, and every parameter's use in the
 // template is accounted for by a rule (Rules) or refused with the reason:
-// a parameter in the domain's geometry, a dependence whose sign is not
-// decided, dependences of opposite signs.
+// a dependence whose sign is not decided, dependences of opposite signs,
+// a moving domain that is not a triangle, or a moving triangle with a
+// Robin side, a potential that is not constant, or a degenerate triangle
+// in the box.
 //
 // # The comparison lemma
 //
@@ -89,9 +93,36 @@
 // hypotheses of a built-in claim are decided over the cell from the
 // corners' verdicts (cellHypotheses).
 //
-// A later rule for geometry parameters joins Rules with the template part
-// "domain"; until then a family whose domain uses a covered parameter is
-// refused.
+// # Geometry
+//
+// GeometryRule covers parameters in the vertices of a triangle (template
+// part "domain"), with Dirichlet and Neumann sides and V = 0 (a constant
+// V ≡ c shifts every eigenvalue by c, below). It proves
+// no order: the cell's one certified problem is the triangle Ω at the
+// cell's centre (exact rational parameter values), and for every p in the
+// cell the affine map Φ(x) = A x + b taking Ω's vertices to the vertices
+// at p satisfies, by the change of variables v = u∘Φ in the min–max
+// characterisation (proved in GeometryRule's documentation),
+//
+//	λ_k(Ω)/σ_max(A)² ≤ λ_k(Φ(Ω)) ≤ λ_k(Ω)/σ_min(A)².
+//
+// Over the cell, σ_min ≥ 1 − r and σ_max ≤ 1 + r with r ≥ ‖A − I‖_F
+// enclosed by interval evaluation of the vertex formulas on the cell
+// (A = I at the centre), so
+//
+//	λ_k ∈ [ℓ_k/(1 + r)², u_k/(1 − r)²]   (r < 1),
+//
+// (with V ≡ c: λ_k ∈ ([ℓ_k, u_k] − c)·[1/(1 + r)², 1/(1 − r)²] + c),
+// the gap lies in [λ₂'s lower end − λ₁'s upper end, λ₂'s upper end − λ₁'s
+// lower end], and D, area, perimeter and inradius are enclosed from the
+// vertex formulas over the cell. When r ≥ 1 (the cell may hold a
+// degenerate triangle) the claims naming eigenvalues are undecided with
+// that reason and the cell is split. Since r → 0 as a cell shrinks, the
+// cell's enclosures tend to the reference's. A triangle family is refused
+// before computing when its signed area is not proved of one sign on the
+// box, or when it has a Robin side (α ≠ 0) or a potential that varies in
+// x, y or a covered parameter, which the affine change of variables does
+// not scale by the same factor.
 //
 // # The cover
 //
@@ -103,7 +134,8 @@
 // with its undecided claims. So the cells are the leaves of one bisection
 // tree per root, fixed by the family and the verdicts. A cell costs two
 // corner certificates; corners shared by neighbouring cells are certified
-// once (by problem hash).
+// once (by problem hash). A cell of a moving triangle costs one, at its
+// centre (recorded as both its low and its high corner).
 //
 // # Directories
 //

@@ -3,7 +3,6 @@ package cover
 import (
 	"fmt"
 	"math/big"
-	"slices"
 
 	"gapcert/certs"
 	"gapcert/fem/boundary"
@@ -26,9 +25,18 @@ func newBound(x interval.I) certs.Bound { return certs.NewBound(x, boundDigits) 
 // both (so that every cell shares those corners' values). For
 // every point p of b, λ_k(low) ≤ λ_k(p) ≤ λ_k(high) for every k (the
 // comparison lemma, package documentation).
+//
+// A parameter that moves the domain (GeometryRule) takes the cell's
+// centre in both, so low and high are one problem: the reference
+// triangle of the cell, whose eigenvalues bound those of the cell through
+// the singular values of the affine maps (cellQuantities).
 func (f *Family) Corners(b Box) (low, high []*big.Rat) {
 	for j, d := range f.Dependences {
 		switch {
+		case d.geometric():
+			mid := new(big.Rat).Add(b.Lo[j], b.Hi[j])
+			mid.Quo(mid, big.NewRat(2, 1))
+			low, high = append(low, mid), append(high, mid)
 		case d.Direction > 0:
 			low, high = append(low, b.Lo[j]), append(high, b.Hi[j])
 		case d.Direction < 0:
@@ -75,21 +83,46 @@ func eigenOf(r certs.Results, k int) (interval.I, error) {
 //   - the covered parameters: their cell ranges; fixed ones: their values;
 //     pi and e.
 //
-// noAlpha says why alpha has no value ("" when it has).
-func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interval.I, noAlpha string, err error) {
+// In a family whose domain moves (GeometryRule), low and high are the
+// reference triangle at the cell's centre, and instead:
+//
+//   - λ_k ∈ ([ℓ_k, u_k] − c)·[1/(1+r)², 1/(1−r)²] + c with [ℓ_k, u_k]
+//     the reference's enclosure, V ≡ c, and r ≥ ‖A − I‖_F over the cell
+//     (geometryOver);
+//     when r ≥ 1 the eigenvalues and the gap have no enclosure and the
+//     claims naming them are undecided with that reason;
+//   - gap: λ₂'s lower end minus λ₁'s upper end, and the other way round;
+//   - D, area, perimeter, inradius: enclosed over the cell from the vertex
+//     formulas (triangleQuantities).
+//
+// missing maps a quantity without a value to the reason: alpha when the
+// Robin sides do not share one coefficient; the eigenvalues and the gap
+// on a cell where the geometry rule proves no bound.
+func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interval.I, missing map[string]string, err error) {
 	ref := low.problem
 	m := ref.Eigenvalues
 	env = map[string]interval.I{"pi": interval.Pi(), "e": interval.E()}
+	missing = map[string]string{}
+	if f.geometric() {
+		if err := f.geometryQuantities(b, low, env, missing); err != nil {
+			return nil, nil, err
+		}
+		if why := sharedAlpha(ref); why != "" {
+			missing[claim.Alpha] = why
+		}
+		f.paramQuantities(b, ref, env, missing)
+		return env, missing, nil
+	}
 	lows, highs := make([]interval.I, m+1), make([]interval.I, m+1)
 	for k := 1; k <= m; k++ {
 		if lows[k], err = low.eigen(k); err != nil {
-			return nil, "", fmt.Errorf("low corner: %v", err)
+			return nil, nil, fmt.Errorf("low corner: %v", err)
 		}
 		if highs[k], err = high.eigen(k); err != nil {
-			return nil, "", fmt.Errorf("high corner: %v", err)
+			return nil, nil, fmt.Errorf("high corner: %v", err)
 		}
 		if highs[k].Hi < lows[k].Lo {
-			return nil, "", fmt.Errorf("the corner enclosures of lambda%d contradict the order: %v at the low corner, %v at the high one", k, lows[k], highs[k])
+			return nil, nil, fmt.Errorf("the corner enclosures of lambda%d contradict the order: %v at the low corner, %v at the high one", k, lows[k], highs[k])
 		}
 		env[claim.Eigenvalue(k)] = interval.I{Lo: lows[k].Lo, Hi: highs[k].Hi}
 	}
@@ -104,21 +137,29 @@ func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interva
 		}
 	}
 	if why := sharedAlpha(ref); why != "" {
-		noAlpha = why
+		missing[claim.Alpha] = why
 	} else {
 		aLow, whyLow := low.problem.RobinAlpha()
 		aHigh, whyHigh := high.problem.RobinAlpha()
 		switch {
 		case whyLow != "":
-			noAlpha = "alpha at the low corner: " + whyLow
+			missing[claim.Alpha] = "alpha at the low corner: " + whyLow
 		case whyHigh != "":
-			noAlpha = "alpha at the high corner: " + whyHigh
+			missing[claim.Alpha] = "alpha at the high corner: " + whyHigh
 		case aHigh.Val.Hi < aLow.Val.Lo:
-			return nil, "", fmt.Errorf("the Robin coefficient contradicts the order: %v at the low corner, %v at the high one", aLow.Val, aHigh.Val)
+			return nil, nil, fmt.Errorf("the Robin coefficient contradicts the order: %v at the low corner, %v at the high one", aLow.Val, aHigh.Val)
 		default:
 			env[claim.Alpha] = interval.I{Lo: aLow.Val.Lo, Hi: aHigh.Val.Hi}
 		}
 	}
+	f.paramQuantities(b, ref, env, missing)
+	return env, missing, nil
+}
+
+// paramQuantities sets the covered parameters to their cell ranges and
+// the fixed ones to their values; a parameter named alpha is no longer
+// missing.
+func (f *Family) paramQuantities(b Box, ref *problem.Problem, env map[string]interval.I, missing map[string]string) {
 	for name, v := range ref.Params {
 		env[name] = v.Val
 	}
@@ -128,9 +169,50 @@ func (f *Family) cellQuantities(b Box, low, high corner) (env map[string]interva
 	if _, ok := ref.Params[claim.Alpha]; ok {
 		// A parameter named alpha is what claims mean by alpha (as in
 		// certs/certify), with a value on the cell.
-		noAlpha = ""
+		delete(missing, claim.Alpha)
 	}
-	return env, noAlpha, nil
+}
+
+// geometryQuantities fills env with the eigenvalues, the gap and the
+// geometry over the cell b of a family whose domain moves, from the
+// reference certificate ref at the cell's centre (GeometryRule); a
+// quantity it cannot enclose goes to missing with the reason.
+func (f *Family) geometryQuantities(b Box, ref corner, env map[string]interval.I, missing map[string]string) error {
+	centre, _ := f.Corners(b)
+	g, err := f.geometryOver(b, ref.problem, centre)
+	if err != nil {
+		return err
+	}
+	d, area, perimeter, inradius, err := triangleQuantities(g.Vertices)
+	if err != nil {
+		return err
+	}
+	env[claim.Diameter], env[claim.Area], env[claim.Perimeter], env[claim.Inradius] = d, area, perimeter, inradius
+	m := ref.problem.Eigenvalues
+	if !(g.R < 1) {
+		why := fmt.Sprintf("the affine maps from the reference triangle to the cell's triangles are not proved nonsingular (the bound r of ‖A − I‖_F over the cell is about %.3g, not below 1, which allows a degenerate triangle), so the cell's eigenvalues are not bounded", g.R)
+		for k := 1; k <= m; k++ {
+			missing[claim.Eigenvalue(k)] = why
+		}
+		missing[claim.Gap] = why
+		return nil
+	}
+	c, err := constantPotential(f, ref.problem)
+	if err != nil {
+		return err
+	}
+	eig := make([]interval.I, m+1)
+	for k := 1; k <= m; k++ {
+		e, err := ref.eigen(k)
+		if err != nil {
+			return fmt.Errorf("reference: %v", err)
+		}
+		// V ≡ c shifts every eigenvalue by c (GeometryRule).
+		eig[k] = e.Sub(c).Mul(g.Scale).Add(c)
+		env[claim.Eigenvalue(k)] = eig[k]
+	}
+	env[claim.Gap] = gapOver(eig, eig)
+	return nil
 }
 
 // gapOver encloses λ₂ − λ₁ over the cell: [ℓ₂(low) − u₁(high), u₂(high) −
@@ -172,7 +254,7 @@ func sharedAlpha(p *problem.Problem) string {
 // from the reference certificates in the corner certificates
 // (referenceOver).
 func (f *Family) cellClaims(b Box, low, high corner) (map[string]interval.I, []certs.ClaimResult, error) {
-	env, noAlpha, err := f.cellQuantities(b, low, high)
+	env, missing, err := f.cellQuantities(b, low, high)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -183,7 +265,7 @@ func (f *Family) cellClaims(b Box, low, high corner) (map[string]interval.I, []c
 			if err != nil {
 				return nil, nil, fmt.Errorf("claim %q: %v", text, err)
 			}
-			out = append(out, evaluate(cl, env, noAlpha))
+			out = append(out, evaluate(cl, env, missing))
 			continue
 		}
 		c, err := named.Lookup(text)
@@ -193,7 +275,7 @@ func (f *Family) cellClaims(b Box, low, high corner) (map[string]interval.I, []c
 		local := env
 		reason := ""
 		if c.Reference != "" {
-			ref, why := referenceOver(c, i, low, high)
+			ref, why := f.referenceOver(c, i, low, high)
 			if why != "" {
 				reason = why
 			} else {
@@ -202,7 +284,7 @@ func (f *Family) cellClaims(b Box, low, high corner) (map[string]interval.I, []c
 				env[c.Reference] = ref
 			}
 		}
-		r := evaluate(c.Parse(), local, noAlpha)
+		r := evaluate(c.Parse(), local, missing)
 		if reason != "" {
 			r.Verdict, r.Reason = certs.Undecided, reason
 		}
@@ -213,12 +295,16 @@ func (f *Family) cellClaims(b Box, low, high corner) (map[string]interval.I, []c
 	return env, out, nil
 }
 
-// evaluate is certs.EvaluateClaim, with the reason alpha has no value
-// when the claim names it.
-func evaluate(cl *claim.Claim, env map[string]interval.I, noAlpha string) certs.ClaimResult {
+// evaluate is certs.EvaluateClaim, undecided with the reason when the
+// claim names a quantity without a value (missing; the first such name
+// in the claim's order gives the reason).
+func evaluate(cl *claim.Claim, env map[string]interval.I, missing map[string]string) certs.ClaimResult {
 	r := certs.EvaluateClaim(cl, env)
-	if noAlpha != "" && slices.Contains(cl.Vars(), claim.Alpha) {
-		r.Verdict, r.Reason = certs.Undecided, noAlpha
+	for _, v := range cl.Vars() {
+		if why, ok := missing[v]; ok {
+			r.Verdict, r.Reason = certs.Undecided, why
+			break
+		}
 	}
 	return r
 }
@@ -229,13 +315,16 @@ func evaluate(cl *claim.Claim, env map[string]interval.I, noAlpha string) certs.
 // the reference eigenvalues obey the same order (comparison lemma) and the
 // reference gap lies in [ℓ₂(low) − u₁(high), u₂(high) − ℓ₁(low)] of the
 // reference certificates stored in the corner certificates (each verified
-// with its corner). Any other reference gives the reason it is not
-// enclosed.
-func referenceOver(c named.Claim, i int, low, high corner) (interval.I, string) {
+// with its corner). Any other reference, or D in a family whose domain
+// moves, gives the reason it is not enclosed.
+func (f *Family) referenceOver(c named.Claim, i int, low, high corner) (interval.I, string) {
 	if c.ReferenceProblem == nil {
 		return interval.I{}, "the reference has no problem"
 	}
 	for _, in := range c.ReferenceProblem.Inputs {
+		if in == claim.Diameter && f.geometric() {
+			return interval.I{}, fmt.Sprintf("the reference %s depends on D, which the covered geometry changes", c.Reference)
+		}
 		if in != claim.Alpha && in != claim.Diameter {
 			return interval.I{}, fmt.Sprintf("the reference %s depends on %s, which a cover does not order", c.Reference, in)
 		}
@@ -284,10 +373,22 @@ func referenceOver(c named.Claim, i int, low, high corner) (interval.I, string) 
 
 // Hypotheses whose verdict does not depend on the covered parameters: they
 // are decided from the geometry and the kinds of the boundary conditions,
-// which a cover never changes (with α ≥ 0 for robin_or_neumann_sides,
-// which holds on the cell since α(low) ≥ 0 at the lowest corner).
+// which a cover changes only through the geometry rule (with α ≥ 0 for
+// robin_or_neumann_sides, which holds on the cell since α(low) ≥ 0 at the
+// lowest corner).
 var geometryHypotheses = map[string]bool{
 	named.ConvexDomain: true, named.Triangle: true, named.Rectangle: true, named.CircumsolidProduct: true,
+	named.DirichletBoundary: true, named.NeumannBoundary: true, named.RobinOrNeumannSides: true,
+}
+
+// affineHypotheses are those of geometryHypotheses that every
+// nondegenerate affine image of a triangle shares with it (a triangle's
+// image is a convex triangle; the sides keep their boundary kinds), so
+// they hold over a cell of the geometry rule when they hold at its
+// reference triangle. Rectangle and circumsolid_product are not among
+// them.
+var affineHypotheses = map[string]bool{
+	named.ConvexDomain: true, named.Triangle: true,
 	named.DirichletBoundary: true, named.NeumannBoundary: true, named.RobinOrNeumannSides: true,
 }
 
@@ -301,7 +402,9 @@ var potentialHypotheses = map[string]bool{
 //
 //   - disproven at a corner: disproven (the corner is a point of the cell);
 //   - proven at both corners and decided by the geometry and the boundary
-//     kinds (geometryHypotheses): proven;
+//     kinds (geometryHypotheses): proven; in a family whose domain moves
+//     (both corners are the reference triangle) only those that every
+//     affine image of the triangle shares (affineHypotheses);
 //   - zero_potential proven at both corners: proven, since V(low) ≤ V(p) ≤
 //     V(high) pointwise (the potential's order) and both ends are 0;
 //   - another hypothesis on V, proven at both corners, when V uses no
@@ -338,6 +441,10 @@ func (f *Family) cellHypotheses(c named.Claim, i int, low, high corner) []certs.
 			h.Verdict, h.Detail, h.Witness = certs.Disproven, "disproven at the high corner: "+hh.Detail, hh.Witness
 		case hl.Verdict != certs.Proven || hh.Verdict != certs.Proven:
 			h.Detail = "not proven at both corners: " + hl.Detail
+		case geometryHypotheses[name] && f.geometric() && !affineHypotheses[name]:
+			h.Detail = "proven at the cell's reference triangle only; the covered geometry may change it"
+		case geometryHypotheses[name] && f.geometric():
+			h.Verdict, h.Detail = certs.Proven, "proven at the cell's reference triangle; every affine image of a triangle shares it: "+hl.Detail
 		case geometryHypotheses[name]:
 			h.Verdict, h.Detail = certs.Proven, "proven at both corners; decided by the geometry and the boundary kinds, which no covered parameter changes: "+hl.Detail
 		case name == named.ZeroPotential:

@@ -25,14 +25,12 @@ import (
 // template uses a parameter in a part that no rule accounts for is
 // refused before anything is certified (analyse).
 //
-// Today's rules order eigenvalues by the min–max principle (the
-// comparison lemma, stated and proved in the package documentation):
-// RobinRule for
-// Robin coefficients, PotentialRule for the potential. A rule for the
-// geometry (vertex positions) will bound λ_k over a cell by multiples of
-// a reference domain's λ_k instead of an order; it joins this list with
-// the part "domain", and the engine's cell bounds (cellQuantities) learn
-// its form then.
+// RobinRule (Robin coefficients) and PotentialRule (the potential) order
+// eigenvalues by the min–max principle (the comparison lemma, stated and
+// proved in the package documentation). GeometryRule (the vertices of a
+// triangle, part "domain") bounds λ_k over a cell by multiples of the
+// λ_k of the triangle at the cell's centre instead of an order; its uses
+// have sign 0, and Corners and cellQuantities treat it apart.
 type Rule interface {
 	// Name is the rule's name as cell certificates record it.
 	Name() string
@@ -52,7 +50,8 @@ type Use struct {
 	// Rule is the name of the rule that accounts for it.
 	Rule string `json:"rule"`
 	// Sign is +1 (eigenvalues nondecreasing in the parameter through this
-	// use), −1 (nonincreasing) or 0 (no effect).
+	// use), −1 (nonincreasing) or 0 (no effect; for the geometry rule: no
+	// order, the cell is bounded through its reference triangle).
 	Sign int `json:"sign"`
 	// Derivative encloses the derivative of the coefficient in the
 	// parameter over the box (over the domain's bounding box too for the
@@ -71,7 +70,7 @@ type Dependence struct {
 
 // Rules are the rules a cover applies, by the template part each accounts
 // for.
-var Rules = []Rule{RobinRule{}, PotentialRule{}}
+var Rules = []Rule{RobinRule{}, PotentialRule{}, GeometryRule{}}
 
 // Template parts that use parameters without changing the operator: the
 // claims (evaluated over the cell's enclosures), the width target, the
@@ -91,8 +90,9 @@ var identifier = regexp.MustCompile(`[A-Za-z_][A-Za-z0-9_]*`)
 // analyse decides the Dependence of every parameter over the family's
 // whole box, before anything is certified. It refuses (with an
 // *InvalidError naming the parameter and saying why) a parameter used in
-// a part that no rule accounts for (the domain's geometry, today), a use
-// whose sign a rule cannot decide, and uses of opposite signs.
+// a part that no rule accounts for, a use whose sign (or, for the
+// geometry rule, whose hypotheses) a rule cannot decide, and uses of
+// opposite signs.
 func analyse(f *Family) ([]Dependence, error) {
 	box := f.Box()
 	ref, err := f.Problem(box.Lo)
@@ -121,7 +121,7 @@ func analyse(f *Family) ([]Dependence, error) {
 			}
 			why := fmt.Sprintf("no rule bounds the eigenvalues over a cell of %s", partWords(part))
 			iss = append(iss, problem.Issue{Path: fmt.Sprintf("parameters[%d]", j),
-				Msg:  fmt.Sprintf("parameter %q enters template.%s: %s (rules today: Robin coefficients and the potential)", p.Name, paths[0], why),
+				Msg:  fmt.Sprintf("parameter %q enters template.%s: %s (rules today: Robin coefficients, the potential and the vertices of a triangle)", p.Name, paths[0], why),
 				Hint: "fix the parameter in template.parameters and cover the others, or sample it with a sweep"})
 		}
 		for _, r := range Rules {
@@ -130,9 +130,12 @@ func analyse(f *Family) ([]Dependence, error) {
 			}
 			uses, err := r.Order(f, ref, j)
 			if err != nil {
+				hint := "split the range where the dependence changes direction into separate families, or fix the parameter"
+				if r.Part() == "domain" {
+					hint = "the geometry rule covers nondegenerate triangles with Dirichlet and Neumann sides and a constant V; fix the parameter or sample it with a sweep"
+				}
 				iss = append(iss, problem.Issue{Path: fmt.Sprintf("parameters[%d]", j),
-					Msg:  fmt.Sprintf("parameter %q: %v", p.Name, err),
-					Hint: "split the range where the dependence changes direction into separate families, or fix the parameter"})
+					Msg: fmt.Sprintf("parameter %q: %v", p.Name, err), Hint: hint})
 				continue
 			}
 			dep.Uses = append(dep.Uses, uses...)
@@ -172,9 +175,6 @@ func analyse(f *Family) ([]Dependence, error) {
 }
 
 func partWords(part string) string {
-	if part == "domain" {
-		return "geometry parameters (the domain's vertex positions or ends)"
-	}
 	return "parameters used in template." + part
 }
 

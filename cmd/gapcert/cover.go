@@ -44,9 +44,15 @@ A cell's eigenvalue bounds come from two certified problems, its low and
 high corners: Robin coefficients and the potential may depend on the
 parameters when the dependence has one sign over the box (decided by
 interval evaluation of the derivative before anything is certified), and
-then λ_k(low) ≤ λ_k(p) ≤ λ_k(high) on the cell (min–max). A parameter in
-the domain's geometry, or with a dependence of both signs, is refused
-before computing, with the reason.
+then λ_k(low) ≤ λ_k(p) ≤ λ_k(high) on the cell (min–max). The vertices
+of a triangle (Dirichlet and Neumann sides, constant V) may depend on the
+parameters: a cell then costs one certified problem, the triangle at its
+centre, and λ_k − V over the cell lies between λ_k − V there divided by
+(1 + r)² and by (1 − r)², r bounding the distance of the affine maps to
+the identity (the singular values of their Jacobian). A dependence of
+both signs, a moving domain that is not a triangle, a moving triangle
+with a Robin side or a varying potential, or one that degenerates in the
+box, is refused before computing, with the reason.
 
 DIR receives family.json, one certificate per corner
 (corner-HASH.cert.json, shared by the cells that meet there), one per
