@@ -55,3 +55,20 @@ func TestProductNeumannPrismGap(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestProductRobinSquarePrism: the unit square with Robin α = 1 on every
+// side (a polygon factor: its eigenvalues are the sums of two copies of
+// the Robin–Robin interval's, by separation) times (0, 1) with Robin α = 1
+// at z = 0 and Dirichlet at z = 1: the lowest sums of the three intervals'
+// characteristic-equation roots (constantPotentialEigenvalue), λ2 = λ3
+// double, contained at width 1e-10.
+func TestProductRobinSquarePrism(t *testing.T) {
+	src := `{"domain":{"product":[{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},{"interval":["0","1"]}]},"boundary":[{"robin":"1"},[{"robin":"1"},"dirichlet"]],"eigenvalues":4}`
+	p, c, data := certifyProductText(t, src, "1e-10")
+	rr := intervalList("1", robinEnd("1"), robinEnd("1"), 4)
+	lists := [][]*big.Float{rr, rr, intervalList("1", robinEnd("1"), dirichletEnd, 4)}
+	requireEnclosures(t, "Robin square prism", p, c, lowestSums(lists, 4), 1e-10)
+	if err := Check(data); err != nil {
+		t.Fatal(err)
+	}
+}
