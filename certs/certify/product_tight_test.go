@@ -72,3 +72,33 @@ func TestProductRobinSquarePrism(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestProductRectanglePolygonFactors: random rectangles given as polygons
+// (a polygon factor, counterclockwise from (0, 0): sides bottom, right,
+// top, left) with random Dirichlet, Neumann and Robin sides, times a
+// random interval (fixed seed): λ1, λ2, λ3 and the gap against the lowest
+// sums of the three intervals' closed forms and characteristic roots (the
+// rectangle separates: its x-list has the left and right ends, its y-list
+// the bottom and top; common practice), contained at width 1e-9.
+func TestProductRectanglePolygonFactors(t *testing.T) {
+	rng := rand.New(rand.NewSource(1412))
+	lengths := []string{"1/2", "1", "3/2"}
+	ends := []end{dirichletEnd, neumannEnd, robinEnd("1/2"), robinEnd("2")}
+	pick := func() end { return ends[rng.Intn(len(ends))] }
+	for i := range 6 {
+		a, b, l := lengths[rng.Intn(3)], lengths[rng.Intn(3)], lengths[rng.Intn(3)]
+		bottom, right, top, left := pick(), pick(), pick(), pick()
+		z0, z1 := pick(), pick()
+		rect := `{"polygon":[["0","0"],["` + a + `","0"],["` + a + `","` + b + `"],["0","` + b + `"]]}`
+		src := `{"domain":{"product":[` + rect + `,{"interval":["0","` + l + `"]}]},"boundary":[[` +
+			strings.Join([]string{endJSON(bottom), endJSON(right), endJSON(top), endJSON(left)}, ",") + `],[` + endJSON(z0) + `,` + endJSON(z1) + `]],"eigenvalues":3}`
+		lists := [][]*big.Float{intervalList(a, left, right, 3), intervalList(b, bottom, top, 3), intervalList(l, z0, z1, 3)}
+		p, c, data := certifyProductText(t, src, "1e-9")
+		requireEnclosures(t, fmt.Sprintf("case %d %s", i, src), p, c, lowestSums(lists, 3), 1e-9)
+		if i%3 == 0 {
+			if err := Check(data); err != nil {
+				t.Errorf("case %d: %v", i, err)
+			}
+		}
+	}
+}
