@@ -102,3 +102,25 @@ func TestProductRectanglePolygonFactors(t *testing.T) {
 		}
 	}
 }
+
+// TestProductTwentyEigenvalues: the unit 4-cube with Dirichlet faces and
+// the largest eigenvalue count, 20: π² times 4, 7 (×4), 10 (×6), 12 (×4),
+// 13 (×4), 15 (the sums of four squares j², common practice), contained at
+// width 1e-10, and the certificate verifies.
+func TestProductTwentyEigenvalues(t *testing.T) {
+	src := `{"domain":{"product":[{"interval":["0","1"]},{"interval":["0","1"]},{"interval":["0","1"]},{"interval":["0","1"]}]},"boundary":"dirichlet","eigenvalues":20}`
+	p, c, data := certifyProductText(t, src, "1e-11")
+	var want []*big.Float
+	for _, r := range []struct {
+		value string
+		times int
+	}{{"4", 1}, {"7", 4}, {"10", 6}, {"12", 4}, {"13", 4}, {"15", 1}} {
+		for range r.times {
+			want = append(want, piSquaredTimes(r.value))
+		}
+	}
+	requireEnclosures(t, "4-cube, 20 eigenvalues", p, c, want, 1e-10)
+	if err := Check(data); err != nil {
+		t.Fatal(err)
+	}
+}
