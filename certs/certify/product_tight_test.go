@@ -124,3 +124,70 @@ func TestProductTwentyEigenvalues(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestProductNextLowerBelowTruth: the recorded lower bound of each
+// factor's first omitted eigenvalue (method.factors[i].next_lower, read
+// from the factor's stage bounds) lies below the true λ_{m_i+1} of the
+// factor (closed forms and characteristic roots, constantPotentialEigenvalue),
+// and so does method.omitted_lower below the least omitted sum, on random
+// boxes (fixed seed) and a rectangle polygon factor with mixed sides.
+func TestProductNextLowerBelowTruth(t *testing.T) {
+	rng := rand.New(rand.NewSource(1413))
+	lengths := []string{"1/2", "1", "3/2", "2"}
+	ends := []end{dirichletEnd, neumannEnd, robinEnd("1/2"), robinEnd("3")}
+	pick := func() end { return ends[rng.Intn(len(ends))] }
+	for i := range 8 {
+		var factors, bcs []string
+		var truth []func(n int) []*big.Float
+		F := 3
+		if i == 7 {
+			// A rectangle polygon factor: its eigenvalues are the lowest
+			// sums of its two sides' lists.
+			bottom, right, top, left := pick(), pick(), pick(), pick()
+			factors = append(factors, `{"polygon":[["0","0"],["2","0"],["2","1"],["0","1"]]}`)
+			bcs = append(bcs, "["+strings.Join([]string{endJSON(bottom), endJSON(right), endJSON(top), endJSON(left)}, ",")+"]")
+			truth = append(truth, func(n int) []*big.Float {
+				return lowestSums([][]*big.Float{intervalList("2", left, right, n), intervalList("1", bottom, top, n)}, n)
+			})
+			F = 2
+		}
+		for len(factors) < F {
+			l, a, b := lengths[rng.Intn(len(lengths))], pick(), pick()
+			factors = append(factors, `{"interval":["0","`+l+`"]}`)
+			bcs = append(bcs, "["+endJSON(a)+","+endJSON(b)+"]")
+			truth = append(truth, func(n int) []*big.Float { return intervalList(l, a, b, n) })
+		}
+		src := `{"domain":{"product":[` + strings.Join(factors, ",") + `]},"boundary":[` + strings.Join(bcs, ",") + `],"eigenvalues":` + fmt.Sprint(3+rng.Intn(5)) + `}`
+		_, c, _ := certifyProductText(t, src, "1e-8")
+		m, err := decodeProductMethod(c.Method)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var firsts, omittedSums []*big.Float
+		for k, f := range m.Factors {
+			list := truth[k](f.Eigenvalues + 1)
+			firsts = append(firsts, list[0])
+			omittedSums = append(omittedSums, list[f.Eigenvalues])
+			if next := bigDec(f.NextLower); next.Cmp(list[f.Eigenvalues]) > 0 {
+				t.Errorf("case %d %s: factor %d: next_lower %s above the true lambda%d %.20g", i, src, k, f.NextLower, f.Eigenvalues+1, list[f.Eigenvalues])
+			}
+		}
+		// The least sum with an omitted index: λ_{m_k+1} of factor k plus
+		// the other factors' λ1, minimised over k.
+		var least *big.Float
+		for k := range m.Factors {
+			s := new(big.Float).SetPrec(oraclePrec).Set(omittedSums[k])
+			for l := range m.Factors {
+				if l != k {
+					s.Add(s, firsts[l])
+				}
+			}
+			if least == nil || s.Cmp(least) < 0 {
+				least = s
+			}
+		}
+		if om := bigDec(m.OmittedLower); om.Cmp(least) > 0 {
+			t.Errorf("case %d %s: omitted_lower %s above the least omitted sum %.20g", i, src, m.OmittedLower, least)
+		}
+	}
+}
