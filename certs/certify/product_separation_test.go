@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"fmt"
 	"math/big"
 	"strings"
 	"testing"
@@ -22,7 +23,7 @@ import (
 func TestProductPartsRenamedToFactorCoordinates(t *testing.T) {
 	pi2 := interval.Pi().Sqr()
 	oneD := func(length string, n int) []interval.I {
-		src := `{"domain":{"interval":["0","` + length + `"]},"boundary":"dirichlet","potential":"x^2","eigenvalues":` + string(rune('0'+n)) + `}`
+		src := `{"domain":{"interval":["0","` + length + `"]},"boundary":"dirichlet","potential":"x^2","eigenvalues":` + fmt.Sprint(n) + `}`
 		_, c, _ := certifyProductText(t, src, "1e-12")
 		var out []interval.I
 		for _, e := range c.Results.Eigenvalues {
