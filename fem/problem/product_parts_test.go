@@ -3,6 +3,7 @@ package problem
 import (
 	"fmt"
 	"math/rand"
+	"strings"
 	"testing"
 
 	"gapcert/interval"
@@ -89,6 +90,38 @@ func TestProductPartsSumToPotential(t *testing.T) {
 			if _, ok := want.Intersection(sum); !ok || sum.Wid() > 1e-9 || want.Wid() > 1e-9 {
 				t.Fatalf("%s at %v: V = %v, the parts add up to %v", tc.potential, env, want, sum)
 			}
+		}
+	}
+}
+
+// TestProductPotentialMixedTerms: potentials whose terms mix the
+// coordinates of two factors are refused on products of three or four
+// coordinates, naming the term, even when they look separable or are
+// equal to a separable function (the decision is on the formula as
+// written); terms that mix only one factor's coordinates separate.
+func TestProductPotentialMixedTerms(t *testing.T) {
+	const box = `[{"interval":["0","1"]},{"interval":["0","1"]},{"interval":["0","1"]}]`
+	const zPolygon = `[{"interval":["0","1"]},{"polygon":[["0","0"],["1","0"],["0","1"]]}]`
+	for _, tc := range []struct {
+		domain, potential, term string
+	}{
+		{box, "x*y - x*y + y*z", "x*y"},
+		{box, "exp(x + y)", "exp(x+y)"},
+		{box, "(x + y)^2", "(x+y)^2"},
+		{box, "a*(x + z)", "a*(x+z)"},
+		{box, "x + 0*(y*z)", "0*(y*z)"},
+		{zPolygon, "x*y + z", "x*y"},
+	} {
+		src := fmt.Sprintf(`{"domain":{"product":%s},"boundary":"dirichlet","potential":%q,"parameters":{"a":"2"}}`, tc.domain, tc.potential)
+		_, err := Parse([]byte(src))
+		if err == nil || !strings.Contains(err.Error(), "the term "+tc.term+" mixes") {
+			t.Errorf("%s: %v, want a refusal naming the term %s", tc.potential, err, tc.term)
+		}
+	}
+	for _, potential := range []string{"(y + z)^2 + x", "exp(y*z) - x^3", "a*(y - z) + a"} {
+		p := mustParse(t, fmt.Sprintf(`{"domain":{"product":%s},"boundary":"dirichlet","potential":%q,"parameters":{"a":"2"}}`, zPolygon, potential))
+		if ok, why := p.Separable(); !ok {
+			t.Errorf("%s on interval × polygon: not separable: %s", potential, why)
 		}
 	}
 }
