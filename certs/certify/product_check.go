@@ -150,7 +150,14 @@ func checkProduct(cert *certs.Certificate, p *problem.Problem) error {
 	}
 	var pr *productResult
 	if m.Combination == CombineRectangle {
-		pr, err = rectangleResult(p, cs[0], m.Factors[0].Target)
+		// The rectangle's target is its certificate's own (its problem
+		// file carries the product's target, not the one it was run at),
+		// so the recorded method.factors[0].target is compared with it.
+		target := m.Factors[0].Target
+		if ref, rerr := RefinementOf(cs[0]); rerr == nil && ref != nil {
+			target = ref.Target
+		}
+		pr, err = rectangleResult(p, cs[0], target)
 	} else {
 		counts := make([]int, len(m.Factors))
 		targets := make([]string, len(m.Factors))
