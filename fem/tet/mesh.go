@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"sort"
 
+	"gapcert/fem/boundary"
 	"gapcert/fem/mesh3"
 	"gapcert/interval"
 )
@@ -184,4 +185,26 @@ func baryApprox(v [4][3]interval.I, x [3]float64) [4]float64 {
 	l2 := dotF(r, crossF(d[2], d[0])) / det
 	l3 := dotF(r, crossF(d[0], d[1])) / det
 	return [4]float64{1 - l1 - l2 - l3, l1, l2, l3}
+}
+
+// RTCells returns the tetrahedra of m as the flux space takes them
+// (NewFlux): vertex enclosures and node numbers in local order, and the
+// global number of the face opposite each local vertex.
+func (m *Mesh) RTCells() []RTCell {
+	cells := make([]RTCell, len(m.tets))
+	for t, tt := range m.tets {
+		cells[t] = RTCell{Vertices: m.Vertices(t), Nodes: tt, Faces: m.tetFaces[t]}
+	}
+	return cells
+}
+
+// faceConditions returns the condition of every boundary face keyed by
+// its global face number (NewFlux), from the conditions bc of the
+// polyhedron faces.
+func (m *Mesh) faceConditions(bc []boundary.Condition) map[int]boundary.Condition {
+	out := make(map[int]boundary.Condition, len(m.bnd))
+	for k, b := range m.bnd {
+		out[m.BoundaryFaceNumber(k)] = bc[b.Face]
+	}
+	return out
 }
