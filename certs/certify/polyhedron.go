@@ -170,7 +170,7 @@ func (polyhedron) stallNote() string {
 
 // next chooses the next polyhedron recipe, or says why there is none (a
 // Stop reason). While stage B does not run, stage A (which converges like
-// h²) is refined. Once it runs, the degree is raised by one up to
+// h²) is refined. Once it runs, the degree is raised by two up to
 // polyhedronSmoothDegree (the flux degree follows, k = p), then the trial
 // mesh is refined. The stage-A mesh is not refined further once N
 // separates: a level costs eight times the unknowns and far more in its
@@ -192,7 +192,7 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 	}
 	switch {
 	case r.degree < polyhedronSmoothDegree:
-		r.degree++
+		r.degree = min(r.degree+2, polyhedronSmoothDegree)
 	case r.refine < r.stageARefine && r.refine < maxPolyhedronRefine:
 		r.refine++
 	case r.degree < maxPolyhedronDegree:
