@@ -94,6 +94,13 @@ func (res *result) method() Method {
 		m.FluxDegree, m.WeightOrder, m.FluxUnknowns = r.fluxDegree, r.weightTaylor, out.polygon.fluxUnknowns
 		m.FluxGamma = decimalio.FormatExact(r.fluxGamma)
 		m.AdaptiveMarks = r.marks
+	} else if ph := out.polyhedron; ph != nil {
+		m.Kind, m.Theorems = KindPolyhedron, theoremsPolyhedron
+		m.Refinements, m.StageARefinements = r.refine, r.stageARefine
+		m.StageASpace = ph.stageASpace
+		m.Tetrahedra, m.StageATetrahedra = ph.tetrahedra, ph.stageATetrahedra
+		m.FluxDegree, m.WeightOrder, m.FluxUnknowns = r.fluxDegree, r.weightTaylor, ph.fluxUnknowns
+		m.FluxGamma = decimalio.FormatExact(r.fluxGamma)
 	} else {
 		m.Cells, m.FluxDegree, m.WeightOrder, m.StageACells = r.cells, r.fluxDegree, r.weightTaylor, r.stageACells
 	}

@@ -163,7 +163,8 @@ func decodeMethod(raw json.RawMessage) (Method, error) {
 // or a *certs.FormatError naming the field that does not fit p or is out
 // of range.
 func recordedRecipe(p *problem.Problem, m Method) (recipe, error) {
-	if (m.Kind != KindInterval || p.Dim != 1) && (m.Kind != KindPolygon || p.Dim != 2) {
+	if (m.Kind != KindInterval || p.Dim != 1) && (m.Kind != KindPolygon || p.Dim != 2 || p.Polyhedron != nil) &&
+		(m.Kind != KindPolyhedron || p.Polyhedron == nil) {
 		return recipe{}, &certs.FormatError{Path: "method.kind", Msg: fmt.Sprintf("%q does not fit a %d-dimensional problem", m.Kind, p.Dim)}
 	}
 	gamma, err := decimalio.Parse(m.Gamma)
@@ -174,7 +175,7 @@ func recordedRecipe(p *problem.Problem, m Method) (recipe, error) {
 		cells: m.Cells, fluxDegree: m.FluxDegree, weightTaylor: m.WeightOrder, stageACells: m.StageACells,
 		refine: m.Refinements, stageARefine: m.StageARefinements, graded: m.GradedLevels, extra: m.ExtraIndices}
 	r.scale = interval.Pi().Sqr().Div(p.Diameter().Sqr()).Lo
-	if p.Dim == 2 {
+	if p.Dim >= 2 {
 		fg, err := decimalio.Parse(m.FluxGamma)
 		if err != nil || !fg.IsPoint() || fg.Lo < r.gamma {
 			return recipe{}, &certs.FormatError{Path: "method.flux_gamma", Msg: fmt.Sprintf("%q is not an exact float64 ≥ gamma", m.FluxGamma)}
@@ -311,6 +312,23 @@ func (r recipe) validate(p *problem.Problem) error {
 		return fmt.Errorf("method.gamma is not finite")
 	case r.extra < 0 || r.extra > maxExtraIndices:
 		return fmt.Errorf("method.extra_indices %d out of range (0 to %d)", r.extra, maxExtraIndices)
+	}
+	if p.Polyhedron != nil {
+		switch {
+		case r.refine < 0 || r.refine > maxPolyhedronRefine:
+			return fmt.Errorf("method.refinements %d out of range (0 to %d on polyhedra)", r.refine, maxPolyhedronRefine)
+		case r.stageARefine < 0 || r.stageARefine > maxPolyhedronRefine:
+			return fmt.Errorf("method.stage_a_refinements %d out of range (0 to %d on polyhedra)", r.stageARefine, maxPolyhedronRefine)
+		case r.degree > maxPolyhedronDegree:
+			return fmt.Errorf("method.degree %d out of range (1 to %d on polyhedra)", r.degree, maxPolyhedronDegree)
+		case r.graded != 0 || len(r.marks) > 0:
+			return fmt.Errorf("method.graded_levels and method.adaptive_marks are not used on polyhedra")
+		case r.fluxDegree < 0 || r.fluxDegree > maxPolyhedronDegree:
+			return fmt.Errorf("method.flux_degree %d out of range (0 to %d on polyhedra)", r.fluxDegree, maxPolyhedronDegree)
+		case r.weightTaylor < 1 || r.weightTaylor > 32:
+			return fmt.Errorf("method.weight_taylor_order %d out of range", r.weightTaylor)
+		}
+		return nil
 	}
 	if dim == 2 {
 		switch {

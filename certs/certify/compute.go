@@ -65,6 +65,9 @@ type discretisation interface {
 
 // discretisationOf returns the discretisation of the problem's domain.
 func discretisationOf(p *problem.Problem) discretisation {
+	if p.Polyhedron != nil {
+		return polyhedron{p}
+	}
 	if p.Dim == 2 {
 		d := polygon{p: p}
 		if hasSingularCorners(p) {
@@ -96,7 +99,8 @@ type outcome struct {
 	groundEnergy interval.I
 	groundNorm2  interval.I
 
-	polygon *polygonRecord // set by the polygon discretisation; nil for intervals
+	polygon    *polygonRecord    // set by the polygon discretisation; nil otherwise
+	polyhedron *polyhedronRecord // set by the polyhedron discretisation; nil otherwise
 }
 
 // polygonRecord is what a polygon computation records besides its bounds.
@@ -114,6 +118,10 @@ func (out *outcome) describe() string {
 	stage := "stage A only"
 	if out.lg != nil {
 		stage = fmt.Sprintf("stage B with N = %d", out.n)
+	}
+	if ph := out.polyhedron; ph != nil {
+		return fmt.Sprintf(" (%d tetrahedra, %d trial, %d stage-A and %d flux unknowns, %s)",
+			ph.tetrahedra, ph.trialUnknowns, ph.stageAUnknowns, ph.fluxUnknowns, stage)
 	}
 	if out.polygon == nil {
 		return " (" + stage + ")"
@@ -189,6 +197,9 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	}
 	if out.polygon != nil {
 		out.polygon.fluxUnknowns = flux.N()
+	}
+	if out.polyhedron != nil {
+		out.polyhedron.fluxUnknowns = flux.N()
 	}
 	fluxes, err := flux.Choose(trialN)
 	if err != nil {

@@ -58,6 +58,9 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	if opt.GroundState && p.Eigenvalues < 2 {
 		return nil, fmt.Errorf("the ground state needs lambda2, but the problem asks for %d eigenvalue (hint: ask for \"eigenvalues\": 2 or more)", p.Eigenvalues)
 	}
+	if opt.GroundState && p.Polyhedron != nil {
+		return nil, fmt.Errorf("the ground-state block is not available on polyhedra (hint: certify without --ground-state, Options.GroundState)")
+	}
 	if opt.GroundState && p.Dim == 2 {
 		if _, err := polygonPoints(p); err != nil {
 			return nil, err

@@ -6,7 +6,7 @@ package certify
 // its outputs, recorded so that a reader sees each stage's contribution and
 // Check can compare them.
 type Method struct {
-	Kind        string `json:"kind"`                 // KindInterval or KindPolygon
+	Kind        string `json:"kind"`                 // KindInterval, KindPolygon or KindPolyhedron
 	Degree      int    `json:"degree"`               // p of the conforming trial space
 	TaylorOrder int    `json:"taylor_order"`         // order of the Taylor models of V
 	Gamma       string `json:"gamma"`                // the shift γ, an exact float64 in exact decimal
@@ -31,6 +31,11 @@ type Method struct {
 	Triangles         int     `json:"triangles,omitempty"`           // triangles of the trial mesh (a record, not an input)
 	StageATriangles   int     `json:"stage_a_triangles,omitempty"`
 	FluxUnknowns      int     `json:"flux_unknowns,omitempty"` // dimension of RT_k on the trial mesh (a record)
+
+	// Polyhedra (with Refinements, StageARefinements, StageASpace,
+	// FluxDegree, WeightOrder, FluxUnknowns above).
+	Tetrahedra       int `json:"tetrahedra,omitempty"` // tetrahedra of the trial mesh (a record, not an input)
+	StageATetrahedra int `json:"stage_a_tetrahedra,omitempty"`
 
 	N                  int      `json:"n"`                   // trial functions in stage B
 	Rho                string   `json:"rho"`                 // ρ̂ ≤ λ_{N+1} + (γ_B on polygons, else γ), exact float64 in exact decimal; "" if stage B did not run
@@ -62,6 +67,9 @@ type StageBound struct {
 const (
 	KindInterval = "interval-1d"
 	KindPolygon  = "polygon-2d"
+	// KindPolyhedron is P_p on uniformly refined cone tetrahedra, (E)CR
+	// stage A, RT_k fluxes (certs/certify/polyhedron.go).
+	KindPolyhedron = "polyhedron-3d"
 )
 
 // theorems1D are the results a 1D certificate relies on.
@@ -77,5 +85,13 @@ var theoremsPolygon = []string{
 	"min-max principle (Courant-Fischer): Rayleigh-Ritz upper bounds",
 	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds with (enriched) Crouzeix-Raviart elements, C_T = 0.1893 h_T (longest edge; Lemma 3.2 of C. You, H. Xie, X. Liu, arXiv:1808.08148)",
 	"Lehmann-Goerisch with Raviart-Thomas fluxes: H. Behnke, F. Goerisch, Topics in Validated Computations (1994) 277-322; T. Vejchodsky, arXiv:1801.02561",
+	"Sylvester's law of inertia: verified eigenvalue counts",
+}
+
+// theoremsPolyhedron are the results a polyhedron certificate relies on.
+var theoremsPolyhedron = []string{
+	"min-max principle (Courant-Fischer): Rayleigh-Ritz upper bounds",
+	"X. Liu, Appl. Math. Comput. 267 (2015) 341-355: projection lower bounds with (enriched) Crouzeix-Raviart elements on tetrahedra, C_T^2 = h_T^2/pi^2 + (sum of squared edge lengths)/720 (Crouzeix-Raviart) and C_T = h_T/pi (enriched; Payne-Weinberger 1960, Bebendorf 2003), derived in package fem/tet",
+	"Lehmann-Goerisch with Raviart-Thomas fluxes on tetrahedra: H. Behnke, F. Goerisch, Topics in Validated Computations (1994) 277-322; T. Vejchodsky, arXiv:1801.02561",
 	"Sylvester's law of inertia: verified eigenvalue counts",
 }

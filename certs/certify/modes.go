@@ -6,6 +6,7 @@ import (
 	"gapcert/certs"
 	"gapcert/fem/line"
 	"gapcert/fem/problem"
+	"gapcert/fem/tet"
 	"gapcert/fem/tri"
 	"gapcert/interval/decimalio"
 )
@@ -16,8 +17,9 @@ import (
 // eigenvectors are computed again in floating point.
 type Modes struct {
 	Count     int
-	Eval      func(k int, x, y float64) float64 // k-th mode (0-based); y is ignored on intervals
-	Triangles [][3][2]float64                   // the trial mesh (polygons), vertex midpoints
+	Eval      func(k int, x, y float64) float64    // k-th mode (0-based); y is ignored on intervals; nil on polyhedra
+	Eval3     func(k int, x, y, z float64) float64 // polyhedra: k-th mode (0-based) at (x, y, z) (tet.Lagrange.Eval)
+	Triangles [][3][2]float64                      // the trial mesh (polygons), vertex midpoints
 }
 
 // ApproximateModes returns the first count approximate eigenfunctions of
@@ -36,6 +38,9 @@ func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Mod
 	}
 	r := recipe{degree: m.Degree, taylor: m.TaylorOrder, gamma: gamma.Lo, cells: m.Cells,
 		refine: m.Refinements, graded: m.GradedLevels, marks: m.AdaptiveMarks}
+	if p.Polyhedron != nil && (r.refine < 0 || r.refine > maxPolyhedronRefine || r.degree < 1 || r.degree > maxPolyhedronDegree) {
+		return nil, fmt.Errorf("method: degree %d or refinements %d out of range on polyhedra", r.degree, r.refine)
+	}
 	trial, err := discretisationOf(p).trial(r, &outcome{})
 	if err != nil {
 		return nil, err
@@ -46,6 +51,9 @@ func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Mod
 	}
 	if t, ok := trial.(*line.Trial); ok {
 		return &Modes{Count: count, Eval: func(i int, x, _ float64) float64 { return t.Space.Eval(vecs[i], x) }}, nil
+	}
+	if t, ok := trial.(*tet.Trial); ok {
+		return &Modes{Count: count, Eval3: func(i int, x, y, z float64) float64 { return t.Space.Eval(vecs[i], x, y, z) }}, nil
 	}
 	space := trial.(*tri.Trial).Space
 	modes := &Modes{Count: count, Eval: func(i int, x, y float64) float64 { return space.Eval(vecs[i], x, y) }}

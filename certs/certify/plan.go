@@ -15,7 +15,9 @@ type Plan struct {
 	Triangles        int // polygons: trial-mesh triangles
 	StageATriangles  int
 	StageASpace      string
-	MemoryEstimate   int64 // bytes, polygons only
+	Tetrahedra       int // polyhedra: trial-mesh tetrahedra
+	StageATetrahedra int
+	MemoryEstimate   int64 // bytes, polygons and polyhedra only
 	ReentrantCorners []int
 	SingularCorners  []int // vertices the trial mesh is graded (and adaptively refined) toward
 }
@@ -39,6 +41,14 @@ func FirstPlan(p *problem.Problem) (Plan, error) {
 	}
 	if p.Dim == 1 {
 		return Plan{Kind: KindInterval, Degree: r.degree, Cells: r.cells, StageACells: r.stageACells}, nil
+	}
+	if p.Polyhedron != nil {
+		space := "enriched-crouzeix-raviart"
+		if usesCR(p) {
+			space = "crouzeix-raviart"
+		}
+		return Plan{Kind: KindPolyhedron, Degree: r.degree, Tetrahedra: int(polyhedronTetrahedra(p, r.refine)),
+			StageATetrahedra: int(polyhedronTetrahedra(p, r.stageARefine)), StageASpace: space, MemoryEstimate: memoryEstimate(p, r)}, nil
 	}
 	m, err := trialMesh(p, r)
 	if err != nil {

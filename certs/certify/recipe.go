@@ -15,8 +15,8 @@ type recipe struct {
 	gamma  float64
 	scale  float64 // π²/D² rounded down; only for choosing shifts
 
-	// fluxGamma is the shift γ_B ≥ γ of stage B on polygons (0 on
-	// intervals, where stage B uses γ).
+	// fluxGamma is the shift γ_B ≥ γ of stage B on polygons and
+	// polyhedra (0 on intervals, where stage B uses γ).
 	fluxGamma float64
 
 	// marks lists, per adaptive round on the polygon trial mesh (after the
@@ -30,7 +30,8 @@ type recipe struct {
 
 	// Polygons: uniform refinements of the initial triangulation for the
 	// trial space and for stage A, and extra levels toward re-entrant
-	// corners (both meshes).
+	// corners (both meshes). Polyhedra: uniform (Bey) refinements of the
+	// cone tetrahedra for the trial space and for stage A.
 	refine, stageARefine, graded int
 
 	// extra is how many eigenvalues past the requested ones are bounded
@@ -158,7 +159,7 @@ func raiseShift(gamma, scale float64, failed interval.I) float64 {
 // are sound (a choice); the next computation checks its hypotheses again.
 func raiseShifts(r recipe, dim int, failed interval.I) recipe {
 	r.gamma = raiseShift(r.gamma, r.scale, failed)
-	if dim == 2 {
+	if dim >= 2 {
 		r.fluxGamma = math.Max(raiseShift(r.fluxGamma, r.scale, failed), r.gamma)
 	}
 	return r

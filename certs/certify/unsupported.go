@@ -20,16 +20,16 @@ func (e *UnsupportedError) Error() string {
 }
 
 // Supported returns an *UnsupportedError when the problem's domain cannot
-// be certified yet, and nil otherwise. A polyhedron is read and validated
-// by package fem/problem (its tetrahedral meshes are package fem/mesh3),
-// but the tetrahedral elements that would certify its eigenvalues do not
-// exist yet, so Certify, FirstPlan, ApproximateModes and Check refuse it.
+// be certified yet, and nil otherwise. Every domain that fem/problem
+// accepts (intervals, polygons, polyhedra) is certified today; the check
+// stays as the one place where a kind of domain without a discretisation
+// would be refused before anything is computed.
 func Supported(p *problem.Problem) error {
-	if p.Polyhedron != nil {
+	if p.Dim < 1 || p.Dim > 3 || (p.Dim == 3 && p.Polyhedron == nil) {
 		return &UnsupportedError{
-			Path:   "domain.polyhedron",
-			Reason: "polyhedra cannot be certified yet: the tetrahedral elements are not available (the problem file itself is valid)",
-			Hint:   "gapcert validate describes the polyhedron; intervals and polygons are certified today",
+			Path:   "domain",
+			Reason: fmt.Sprintf("a %d-dimensional domain of this kind has no discretisation", p.Dim),
+			Hint:   "intervals, polygons and polyhedra are certified",
 		}
 	}
 	return nil

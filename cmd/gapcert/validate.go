@@ -189,6 +189,12 @@ func describePlan(w io.Writer, p *problem.Problem) {
 			plan.Cells, plan.Degree, plan.StageACells)
 		return
 	}
+	if plan.Kind == certify.KindPolyhedron {
+		fmt.Fprintf(w, "first step:  %d tetrahedra of degree %d (Ritz, Lehmann–Goerisch with Raviart–Thomas fluxes); %d tetrahedra of %s (projection bound), about %.1f MiB\n",
+			plan.Tetrahedra, plan.Degree, plan.StageATetrahedra, plan.StageASpace, float64(plan.MemoryEstimate)/(1<<20))
+		fmt.Fprintln(w, "             (finer meshes follow until the target width is met)")
+		return
+	}
 	fmt.Fprintf(w, "first step:  %d triangles of degree %d (Ritz, Lehmann–Goerisch with Raviart–Thomas fluxes); %d triangles of %s (projection bound), about %.1f MiB\n",
 		plan.Triangles, plan.Degree, plan.StageATriangles, plan.StageASpace, float64(plan.MemoryEstimate)/(1<<20))
 	if len(plan.ReentrantCorners) > 0 {

@@ -6,11 +6,10 @@
 //
 // with a(u, v) = ∫∇u·∇v + ∫Vuv + Σ_F α_F ∫_F uv and b(u, v) = ∫uv:
 //
-//   - Mesh: what the spaces need of a conforming tetrahedral mesh (node
-//     enclosures, tetrahedra, boundary faces with their polyhedron face),
-//     checked (positive orientation verified, faces shared by at most two
-//     tetrahedra, the faces of one tetrahedron exactly the boundary faces),
-//     with the global edge and face numbering and interval geometry;
+//   - Mesh: a view of a mesh of package fem/mesh3 (its proved tiling, node
+//     and geometry enclosures, edge and face numbering, boundary faces with
+//     their polyhedron face) with the number of faces that carry boundary
+//     conditions;
 //   - Potential: V held per tetrahedron as a Bernstein polynomial with
 //     interval coefficients plus a remainder interval (from the Taylor
 //     models formula.Expr.Model3; exact for polynomials of degree ≤ q),

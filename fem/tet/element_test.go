@@ -228,18 +228,11 @@ func TestRitzMatricesContainExactElementIntegrals(t *testing.T) {
 		for i := range f {
 			nodes = append(nodes, [3]interval.I{interval.Point(f[i][0]), interval.Point(f[i][1]), interval.Point(f[i][2])})
 		}
-		if g, ok := geometry([4][3]interval.I{nodes[0], nodes[1], nodes[2], nodes[3]}); !ok || g.Volume.Lo < 1e-3 {
+		if vol := testVolume(nodes); !(vol.Lo >= 1e-3) {
 			continue // near-degenerate: draw again
 		}
 		checked++
-		var bnd []BoundaryFace
-		for i := 0; i < 4; i++ {
-			bnd = append(bnd, BoundaryFace{Nodes: faceNodes(tt, i), Side: 0})
-		}
-		m, err := NewMesh(nodes, [][4]int{tt}, bnd, 1)
-		if err != nil {
-			t.Fatal(err)
-		}
+		m := meshOfTets(t, nodes, [][4]int{tt}, 1, func([3]int) int { return 0 })
 		s := NewLagrange(m, 2, []boundary.Condition{neumann})
 		v, err := NewPotential(m, mustExpr(t, "1 + x*y + z^2"), 2)
 		if err != nil {
@@ -377,19 +370,12 @@ func TestRobinFaceTermsOnRandomTetrahedron(t *testing.T) {
 				v[i][c] = new(big.Rat).SetFloat64(f[i][c])
 			}
 		}
-		if g, ok := geometry([4][3]interval.I{nodes[0], nodes[1], nodes[2], nodes[3]}); !ok || g.Volume.Lo < 1e-3 {
+		if vol := testVolume(nodes); !(vol.Lo >= 1e-3) {
 			continue
 		}
 		checked++
 		tt := [4]int{0, 1, 2, 3}
-		var bnd []BoundaryFace
-		for i := 0; i < 4; i++ {
-			bnd = append(bnd, BoundaryFace{Nodes: faceNodes(tt, i)})
-		}
-		m, err := NewMesh(nodes, [][4]int{tt}, bnd, 1)
-		if err != nil {
-			t.Fatal(err)
-		}
+		m := meshOfTets(t, nodes, [][4]int{tt}, 1, func([3]int) int { return 0 })
 		p := 2
 		s := NewLagrange(m, p, []boundary.Condition{{Kind: boundary.Robin, Alpha: interval.Point(1)}})
 		u := make([]float64, s.N())

@@ -3,11 +3,11 @@ package tet_test
 import (
 	"fmt"
 	"math"
-	"sort"
 
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
 	"gapcert/fem/boundary"
+	"gapcert/fem/mesh3"
 	"gapcert/fem/tet"
 	"gapcert/interval"
 	"gapcert/interval/formula"
@@ -19,8 +19,8 @@ import (
 // orthoscheme derives it): a Rayleigh–Ritz upper bound from P_4 on 8
 // tetrahedra and a projection lower bound from the ECR space on 512.
 func Example() {
-	up := orthoschemeMesh(2)   // 8 tetrahedra for the Ritz bound (P_4)
-	down := orthoschemeMesh(8) // 512 tetrahedra for the ECR bound
+	up := orthoschemeMesh(1)   // 8 tetrahedra for the Ritz bound (P_4)
+	down := orthoschemeMesh(3) // 512 tetrahedra for the ECR bound
 	bc := []boundary.Condition{{Kind: boundary.Dirichlet}}
 	zero, _ := formula.Parse("0")
 	v, err := tet.NewPotential(up, zero, 1)
@@ -70,81 +70,27 @@ func Example() {
 	// 79.13 ≤ λ_1 ≤ 139.84 (14π² = 138.17)
 }
 
-// orthoschemeMesh returns the Kuhn tetrahedra of the n³ subcubes of the
-// unit cube that lie in 0 ≤ z ≤ y ≤ x ≤ 1 (6n³ of them tile the cube; the
-// planes x = y, y = z cut subcubes only along Kuhn faces), all boundary
-// faces on side 0.
-func orthoschemeMesh(n int) *tet.Mesh {
-	var nodes [][3]interval.I
-	id := map[[3]int]int{}
-	for i := 0; i <= n; i++ {
-		for j := 0; j <= i; j++ {
-			for k := 0; k <= j; k++ {
-				id[[3]int{i, j, k}] = len(nodes)
-				nodes = append(nodes, [3]interval.I{interval.Point(float64(i)).DivF(float64(n)),
-					interval.Point(float64(j)).DivF(float64(n)), interval.Point(float64(k)).DivF(float64(n))})
-			}
-		}
+// orthoschemeMesh returns the orthoscheme 0 ≤ z ≤ y ≤ x ≤ 1 as one
+// tetrahedron refined levels times (Bey's red refinement, package
+// fem/mesh3: 8^levels tetrahedra), all boundary faces on side 0.
+func orthoschemeMesh(levels int) *tet.Mesh {
+	pt := func(x, y, z float64) [3]interval.I {
+		return [3]interval.I{interval.Point(x), interval.Point(y), interval.Point(z)}
 	}
-	// A Kuhn tetrahedron raises one axis at a time from a subcube's lowest
-	// corner; it is kept when all its vertices have i ≥ j ≥ k.
-	var tets [][4]int
-	for i := 0; i < n; i++ {
-		for j := 0; j <= i; j++ {
-			for k := 0; k <= j; k++ {
-				for q, path := range [6][3]int{{0, 1, 2}, {1, 2, 0}, {2, 0, 1}, {0, 2, 1}, {1, 0, 2}, {2, 1, 0}} {
-					p := [3]int{i, j, k}
-					tt := [4]int{id[p]}
-					ok := true
-					for s, axis := range path {
-						p[axis]++
-						nd, in := id[p]
-						ok = ok && in
-						tt[s+1] = nd
-					}
-					if !ok {
-						continue
-					}
-					if q >= 3 { // odd permutation: swap for positive orientation
-						tt[1], tt[2] = tt[2], tt[1]
-					}
-					tets = append(tets, tt)
-				}
-			}
-		}
+	nodes := [][3]interval.I{pt(0, 0, 0), pt(1, 0, 0), pt(1, 1, 0), pt(1, 1, 1)}
+	tt := [4]int{0, 1, 2, 3}
+	var bnd []mesh3.BoundaryFace
+	for _, lf := range mesh3.LocalFaces {
+		bnd = append(bnd, mesh3.BoundaryFace{A: tt[lf[0]], B: tt[lf[1]], C: tt[lf[2]]})
 	}
-	// Boundary faces: the faces of exactly one tetrahedron.
-	count := map[[3]int]int{}
-	face := func(tt [4]int, i int) [3]int {
-		var f [3]int
-		k := 0
-		for j := 0; j < 4; j++ {
-			if j != i {
-				f[k] = tt[j]
-				k++
-			}
-		}
-		return f
+	m3, err := mesh3.FromPolyhedron(nodes, [][4]int{tt}, bnd)
+	if err != nil {
+		panic(err)
 	}
-	key := func(f [3]int) [3]int {
-		s := f[:]
-		sort.Ints(s)
-		return [3]int{s[0], s[1], s[2]}
+	for range levels {
+		m3 = m3.Refine()
 	}
-	for _, tt := range tets {
-		for i := 0; i < 4; i++ {
-			count[key(face(tt, i))]++
-		}
-	}
-	var bnd []tet.BoundaryFace
-	for _, tt := range tets {
-		for i := 0; i < 4; i++ {
-			if f := face(tt, i); count[key(f)] == 1 {
-				bnd = append(bnd, tet.BoundaryFace{Nodes: f})
-			}
-		}
-	}
-	m, err := tet.NewMesh(nodes, tets, bnd, 1)
+	m, err := tet.NewMesh(m3, 1)
 	if err != nil {
 		panic(err)
 	}

@@ -7,6 +7,7 @@ import (
 	"gapcert/enclose"
 	"gapcert/enclose/sparse"
 	"gapcert/fem/boundary"
+	"gapcert/fem/mesh3"
 	"gapcert/interval"
 	"gapcert/interval/formula"
 )
@@ -93,21 +94,6 @@ func meshMoved(t testing.TB, n int, pts [][3]int, tets [][4]int, sides int, side
 		}
 	}
 	pts, tets = kept, newTets
-	count := map[[3]int]int{}
-	for _, tt := range tets {
-		for i := 0; i < 4; i++ {
-			count[sort3(faceNodes(tt, i))]++
-		}
-	}
-	var bnd []BoundaryFace
-	for _, tt := range tets {
-		for i := 0; i < 4; i++ {
-			f := faceNodes(tt, i)
-			if count[sort3(f)] == 1 {
-				bnd = append(bnd, BoundaryFace{Nodes: f, Side: side([3][3]int{pts[f[0]], pts[f[1]], pts[f[2]]})})
-			}
-		}
-	}
 	nodes := make([][3]interval.I, len(pts))
 	for i, p := range pts {
 		var d [3]float64
@@ -118,7 +104,35 @@ func meshMoved(t testing.TB, n int, pts [][3]int, tets [][4]int, sides int, side
 			nodes[i][c] = interval.Point(float64(p[c])).DivF(float64(n)).AddF(d[c])
 		}
 	}
-	m, err := NewMesh(nodes, tets, bnd, sides)
+	return meshOfTets(t, nodes, tets, sides, func(f [3]int) int { return side([3][3]int{pts[f[0]], pts[f[1]], pts[f[2]]}) })
+}
+
+// meshOfTets returns the mesh of the positively oriented tetrahedra tets
+// over nodes (mesh3.FromPolyhedron, which proves the tiling), with the
+// boundary triangles found as the faces of exactly one tetrahedron
+// (outward: mesh3.LocalFaces) and the side of each given by side.
+func meshOfTets(t testing.TB, nodes [][3]interval.I, tets [][4]int, sides int, side func(f [3]int) int) *Mesh {
+	t.Helper()
+	count := map[[3]int]int{}
+	for _, tt := range tets {
+		for i := 0; i < 4; i++ {
+			count[sort3(faceNodes(tt, i))]++
+		}
+	}
+	var bnd []mesh3.BoundaryFace
+	for _, tt := range tets {
+		for _, lf := range mesh3.LocalFaces {
+			f := [3]int{tt[lf[0]], tt[lf[1]], tt[lf[2]]}
+			if count[sort3(f)] == 1 {
+				bnd = append(bnd, mesh3.BoundaryFace{A: f[0], B: f[1], C: f[2], Face: side(f)})
+			}
+		}
+	}
+	m3, err := mesh3.FromPolyhedron(nodes, tets, bnd)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, err := NewMesh(m3, sides)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -218,4 +232,16 @@ var pi2 = interval.Pi().Sqr()
 
 func relErr(upper float64, exact interval.I) float64 {
 	return math.Abs(upper-exact.Mid()) / exact.Mid()
+}
+
+// testVolume encloses det(v_1 − v_0, v_2 − v_0, v_3 − v_0)/6, the signed
+// volume of the tetrahedron with vertex enclosures v.
+func testVolume(v [][3]interval.I) interval.I {
+	var d [3][3]interval.I
+	for k := 0; k < 3; k++ {
+		for c := 0; c < 3; c++ {
+			d[k][c] = v[k+1][c].Sub(v[0][c])
+		}
+	}
+	return dot(d[0], cross(d[1], d[2])).DivF(6)
 }

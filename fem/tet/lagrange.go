@@ -134,7 +134,7 @@ func NewLagrange(m *Mesh, p int, bc []boundary.Condition) *Lagrange {
 	}
 	removed := make([]bool, raw)
 	for k, b := range m.bnd {
-		if !bc[b.Side].Essential() {
+		if !bc[b.Face].Essential() {
 			continue
 		}
 		t, i := m.bndOwner[k][0], m.bndOwner[k][1]
@@ -162,7 +162,7 @@ func NewLagrange(m *Mesh, p int, bc []boundary.Condition) *Lagrange {
 	}
 	tx := multiIndex(3, p)
 	for k, b := range m.bnd {
-		c := bc[b.Side]
+		c := bc[b.Face]
 		if !c.HasTerm() {
 			continue
 		}
@@ -320,7 +320,7 @@ func (s *Lagrange) ritzTet(w *ritzWork, vecs [][]float64, v *Potential, gamma in
 	nv := len(vecs)
 	np := dim3(s.p)
 	pp := float64(s.p * s.p)
-	g := s.mesh.geom[t]
+	g := s.mesh.Geom(t)
 	bern, rem := v.Model(t)
 	if !rem.IsBounded() || !hull(bern).IsBounded() {
 		return errUnboundedModel
@@ -518,7 +518,7 @@ func (s *Lagrange) AssembleApprox(v *Potential, shift float64) (k, m *sparse.Sym
 	wloc := make([]float64, nn)
 	pp := float64(s.p * s.p)
 	for t := range s.mesh.tets {
-		g := s.mesh.geom[t]
+		g := s.mesh.Geom(t)
 		vol := g.Volume.Mid()
 		gg := gradGram(g.Grad)
 		var gm [3][3]float64

@@ -96,8 +96,8 @@ func TestLagrangeContinuousAcrossFacesAndZeroOnDirichletFaces(t *testing.T) {
 			}
 			side := -1
 			for k, bf := range m.Boundary() {
-				if sort3(bf.Nodes) == key {
-					side = m.Boundary()[k].Side
+				if sort3([3]int{bf.A, bf.B, bf.C}) == key {
+					side = m.Boundary()[k].Face
 				}
 			}
 			if bc[side].Essential() {

@@ -4,134 +4,68 @@ import (
 	"fmt"
 	"sort"
 
+	"gapcert/fem/boundary"
+	"gapcert/fem/mesh3"
 	"gapcert/interval"
 )
 
-// Mesh is what the spaces of this package need of a conforming mesh of
-// tetrahedra: the node enclosures (every exact node inside its box), the
-// tetrahedra as node numbers, and the boundary faces with the polyhedron
-// face (side) each lies on. A mesh package supplies these; NewMesh checks
-// what the spaces rely on and derives the global edge and face numbering.
+// Mesh is a conforming tetrahedral mesh of package fem/mesh3 (the proved
+// tiling of the exact polyhedron, its node and geometry enclosures, its
+// edge and face numbering) as the spaces of this package use it: a view
+// that adds only the number of polyhedron faces (sides) that boundary
+// conditions are given for. Nothing of the mesh is recomputed here.
 //
-// Local numbering. Local vertex i of a tetrahedron is Tets[t][i]; local
-// face i is the face opposite local vertex i; local edge k joins the
-// local vertices localEdges[k]. Global edges and faces are numbered by
-// their sorted node numbers, so two tetrahedra sharing an edge or a face
-// name it the same way whatever their local orders: this is the
-// orientation the degrees of freedom on edges and faces use.
+// Local numbering (that of fem/mesh3). Local vertex i of a tetrahedron is
+// its i-th node; local face i is the face opposite local vertex i; local
+// edge k joins the local vertices mesh3.LocalEdges[k]. Global edges and
+// faces are numbered by their sorted node numbers (mesh3.Mesh.Edges,
+// Faces), so two tetrahedra sharing an edge or a face name it the same way
+// whatever their local orders: this is the orientation the degrees of
+// freedom on edges and faces use.
 type Mesh struct {
-	nodes [][3]interval.I
-	tets  [][4]int
-	bnd   []BoundaryFace
+	m3    *mesh3.Mesh
 	sides int
 
-	geom     []Geom
-	edges    [][2]int // sorted node pairs
-	tetEdges [][6]int
-	faces    [][3]int // sorted node triples
-	tetFaces [][4]int // face opposite local vertex i
-	bndOwner [][2]int // per boundary face: tetrahedron and local face
+	nodes    [][3]interval.I // m3.Nodes
+	tets     [][4]int        // m3.Tets
+	bnd      []BoundaryFace  // m3.Bnd
+	edges    [][2]int        // sorted node pairs
+	tetEdges [][6]int        // per tetrahedron, its local edges
+	faces    [][3]int        // sorted node triples
+	tetFaces [][4]int        // face opposite local vertex i
+	bndOwner [][2]int        // per boundary face: tetrahedron and local face
 }
 
-// BoundaryFace is a triangle of the boundary (three node numbers, any
-// order) on polyhedron face Side.
-type BoundaryFace struct {
-	Nodes [3]int
-	Side  int
-}
+// BoundaryFace is a boundary triangle of the mesh (outward oriented) with
+// the polyhedron face it lies on (its side).
+type BoundaryFace = mesh3.BoundaryFace
+
+// Geom holds enclosures of the geometry of one exact tetrahedron
+// (mesh3.Geom): volume, barycentric gradients ∇λ_i, edge lengths in the
+// order of mesh3.LocalEdges, and the diameter (the longest edge).
+type Geom = mesh3.Geom
 
 // localEdges lists the local vertex pairs of the six edges.
-var localEdges = [6][2]int{{0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3}}
+var localEdges = mesh3.LocalEdges
 
-// Geom holds enclosures of the geometry of one exact tetrahedron (for
-// every exact choice of its nodes inside their enclosures).
-//
-// With d_k = v_k − v_0 (k = 1, 2, 3) and D = d_1·(d_2 × d_3) > 0 (positive
-// orientation), the volume is D/6 and the barycentric gradients are
-//
-//	∇λ_1 = (d_2 × d_3)/D,  ∇λ_2 = (d_3 × d_1)/D,  ∇λ_3 = (d_1 × d_2)/D,  ∇λ_0 = −∇λ_1 − ∇λ_2 − ∇λ_3,
-//
-// since ∇λ_k·d_l = δ_kl (the rows of J⁻¹, J = [d_1 d_2 d_3], by the
-// cofactor formula) and Σ λ_i = 1.
-type Geom struct {
-	Volume  interval.I
-	Grad    [4][3]interval.I
-	EdgeLen [6]interval.I // edge k joins the local vertices localEdges[k]
-	Diam    interval.I    // the longest edge: the diameter of a tetrahedron (convex hull of its vertices)
+// NewMesh returns the view of m with sides polyhedron faces. It returns an
+// error unless every boundary face of m lies on a face in [0, sides).
+// (That the tetrahedra tile the polyhedron conformingly, positively
+// oriented, is proved by package fem/mesh3 when m is made.)
+func NewMesh(m *mesh3.Mesh, sides int) (*Mesh, error) {
+	for k, b := range m.Bnd {
+		if b.Face < 0 || b.Face >= sides {
+			return nil, fmt.Errorf("tet: boundary face %d (%d, %d, %d) lies on face %d, outside [0, %d)", k, b.A, b.B, b.C, b.Face, sides)
+		}
+	}
+	v := &Mesh{m3: m, sides: sides, nodes: m.Nodes, tets: m.Tets, bnd: m.Bnd, bndOwner: m.BoundaryOwners()}
+	v.edges, v.tetEdges = m.Edges()
+	v.faces, v.tetFaces = m.Faces()
+	return v, nil
 }
 
-// NewMesh checks and indexes a tetrahedral mesh with sides polyhedron
-// faces. It returns an error unless every tetrahedron has a volume
-// verified > 0 with its nodes in the given order (positive orientation),
-// every face of the mesh lies in one or two tetrahedra, every boundary
-// face is a face of exactly one tetrahedron, every face of exactly one
-// tetrahedron is a boundary face, and every side number is in [0, sides).
-// (That the tetrahedra tile a given polyhedron is the mesh package's
-// proof; the spaces need only this conformity.)
-func NewMesh(nodes [][3]interval.I, tets [][4]int, bnd []BoundaryFace, sides int) (*Mesh, error) {
-	m := &Mesh{nodes: nodes, tets: tets, bnd: bnd, sides: sides,
-		geom: make([]Geom, len(tets)), tetEdges: make([][6]int, len(tets)), tetFaces: make([][4]int, len(tets))}
-	edgeOf := map[[2]int]int{}
-	faceOf := map[[3]int]int{}
-	var faceCount []int
-	var faceOwner [][2]int
-	for t, tt := range tets {
-		for _, n := range tt {
-			if n < 0 || n >= len(nodes) {
-				return nil, fmt.Errorf("tet: tetrahedron %d names node %d, outside [0, %d)", t, n, len(nodes))
-			}
-		}
-		g, ok := geometry(m.Vertices(t))
-		if !ok {
-			return nil, fmt.Errorf("tet: tetrahedron %d %v has no volume verified > 0 (hint: list its nodes in positive orientation)", t, tt)
-		}
-		m.geom[t] = g
-		for k, le := range localEdges {
-			key := sort2(tt[le[0]], tt[le[1]])
-			e, ok := edgeOf[key]
-			if !ok {
-				e = len(m.edges)
-				edgeOf[key] = e
-				m.edges = append(m.edges, key)
-			}
-			m.tetEdges[t][k] = e
-		}
-		for i := 0; i < 4; i++ {
-			key := sort3(faceNodes(tt, i))
-			f, ok := faceOf[key]
-			if !ok {
-				f = len(m.faces)
-				faceOf[key] = f
-				m.faces = append(m.faces, key)
-				faceCount = append(faceCount, 0)
-				faceOwner = append(faceOwner, [2]int{t, i})
-			}
-			faceCount[f]++
-			m.tetFaces[t][i] = f
-		}
-	}
-	isBnd := make([]bool, len(m.faces))
-	for k, b := range bnd {
-		if b.Side < 0 || b.Side >= sides {
-			return nil, fmt.Errorf("tet: boundary face %d on side %d, outside [0, %d)", k, b.Side, sides)
-		}
-		f, ok := faceOf[sort3(b.Nodes)]
-		if !ok || faceCount[f] != 1 || isBnd[f] {
-			return nil, fmt.Errorf("tet: boundary face %d %v is not a face of exactly one tetrahedron (or is listed twice)", k, b.Nodes)
-		}
-		isBnd[f] = true
-		m.bndOwner = append(m.bndOwner, faceOwner[f])
-	}
-	for f, c := range faceCount {
-		if c > 2 {
-			return nil, fmt.Errorf("tet: face %v lies in %d tetrahedra", m.faces[f], c)
-		}
-		if c == 1 && !isBnd[f] {
-			return nil, fmt.Errorf("tet: face %v lies in one tetrahedron but is not a boundary face", m.faces[f])
-		}
-	}
-	return m, nil
-}
+// Mesh3 returns the mesh of package fem/mesh3 that m views.
+func (m *Mesh) Mesh3() *mesh3.Mesh { return m.m3 }
 
 func sort2(a, b int) [2]int { return [2]int{min(a, b), max(a, b)} }
 
@@ -153,45 +87,6 @@ func faceNodes(tt [4]int, i int) [3]int {
 		}
 	}
 	return out
-}
-
-// geometry encloses Geom of the tetrahedron with vertex enclosures v; ok
-// is false unless D > 0 is verified.
-func geometry(v [4][3]interval.I) (Geom, bool) {
-	var d [3][3]interval.I
-	for k := 0; k < 3; k++ {
-		for c := 0; c < 3; c++ {
-			d[k][c] = v[k+1][c].Sub(v[0][c])
-		}
-	}
-	cr := [3][3]interval.I{cross(d[1], d[2]), cross(d[2], d[0]), cross(d[0], d[1])}
-	det := dot(d[0], cr[0])
-	if !(det.Lo > 0) || !det.IsBounded() {
-		return Geom{}, false
-	}
-	var g Geom
-	g.Volume = det.DivF(6)
-	for k := 0; k < 3; k++ {
-		for c := 0; c < 3; c++ {
-			g.Grad[k+1][c] = cr[k][c].Div(det)
-		}
-	}
-	for c := 0; c < 3; c++ {
-		g.Grad[0][c] = g.Grad[1][c].Add(g.Grad[2][c]).Add(g.Grad[3][c]).Neg()
-	}
-	for k, le := range localEdges {
-		var s interval.I
-		for c := 0; c < 3; c++ {
-			s = s.Add(v[le[1]][c].Sub(v[le[0]][c]).Sqr())
-		}
-		g.EdgeLen[k], _ = s.Sqrt()
-		if k == 0 {
-			g.Diam = g.EdgeLen[k]
-		} else {
-			g.Diam = g.Diam.Max(g.EdgeLen[k])
-		}
-	}
-	return g, true
 }
 
 func cross(a, b [3]interval.I) [3]interval.I {
@@ -231,7 +126,7 @@ func (m *Mesh) Vertices(t int) [4][3]interval.I {
 }
 
 // Geom returns the geometry enclosures of tetrahedron t.
-func (m *Mesh) Geom(t int) Geom { return m.geom[t] }
+func (m *Mesh) Geom(t int) Geom { return m.m3.Geom(t) }
 
 // NumTets returns the number of tetrahedra.
 func (m *Mesh) NumTets() int { return len(m.tets) }
@@ -250,11 +145,7 @@ func (m *Mesh) Boundary() []BoundaryFace { return m.bnd }
 
 // HMax returns an upper bound of the largest tetrahedron diameter.
 func (m *Mesh) HMax() float64 {
-	h := 0.0
-	for _, g := range m.geom {
-		h = max(h, g.Diam.Hi)
-	}
-	return h
+	return m.m3.HMax()
 }
 
 // Faces returns the global numbers of the faces of tetrahedron t, the
@@ -294,4 +185,26 @@ func baryApprox(v [4][3]interval.I, x [3]float64) [4]float64 {
 	l2 := dotF(r, crossF(d[2], d[0])) / det
 	l3 := dotF(r, crossF(d[0], d[1])) / det
 	return [4]float64{1 - l1 - l2 - l3, l1, l2, l3}
+}
+
+// RTCells returns the tetrahedra of m as the flux space takes them
+// (NewFlux): vertex enclosures and node numbers in local order, and the
+// global number of the face opposite each local vertex.
+func (m *Mesh) RTCells() []RTCell {
+	cells := make([]RTCell, len(m.tets))
+	for t, tt := range m.tets {
+		cells[t] = RTCell{Vertices: m.Vertices(t), Nodes: tt, Faces: m.tetFaces[t]}
+	}
+	return cells
+}
+
+// faceConditions returns the condition of every boundary face keyed by
+// its global face number (NewFlux), from the conditions bc of the
+// polyhedron faces.
+func (m *Mesh) faceConditions(bc []boundary.Condition) map[int]boundary.Condition {
+	out := make(map[int]boundary.Condition, len(m.bnd))
+	for k, b := range m.bnd {
+		out[m.BoundaryFaceNumber(k)] = bc[b.Face]
+	}
+	return out
 }

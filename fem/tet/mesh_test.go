@@ -4,44 +4,29 @@ import (
 	"strings"
 	"testing"
 
+	"gapcert/fem/mesh3"
 	"gapcert/interval"
 )
 
-// NewMesh refuses what the spaces cannot use, each with its reason, and
-// its volume enclosures sum to an enclosure of the cube's volume 1.
+// NewMesh refuses a boundary face whose side has no condition, and the
+// view keeps fem/mesh3's numbering and geometry: its volume enclosures
+// sum to an enclosure of the cube's volume 1.
 func TestNewMeshChecks(t *testing.T) {
-	pts := [][3]float64{{0, 0, 0}, {1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
-	nodes := make([][3]interval.I, len(pts))
-	for i, p := range pts {
-		nodes[i] = [3]interval.I{interval.Point(p[0]), interval.Point(p[1]), interval.Point(p[2])}
-	}
+	nodes := [][3]interval.I{{}, {interval.Point(1), {}, {}}, {{}, interval.Point(1), {}}, {{}, {}, interval.Point(1)}}
 	tt := [4]int{0, 1, 2, 3}
-	all := func() []BoundaryFace {
-		var b []BoundaryFace
-		for i := 0; i < 4; i++ {
-			b = append(b, BoundaryFace{Nodes: faceNodes(tt, i)})
-		}
-		return b
+	var bnd []mesh3.BoundaryFace
+	for i, lf := range mesh3.LocalFaces {
+		bnd = append(bnd, mesh3.BoundaryFace{A: tt[lf[0]], B: tt[lf[1]], C: tt[lf[2]], Face: i})
 	}
-	if _, err := NewMesh(nodes, [][4]int{tt}, all(), 1); err != nil {
+	m3, err := mesh3.FromPolyhedron(nodes, [][4]int{tt}, bnd)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := NewMesh(m3, 4); err != nil {
 		t.Fatalf("reference tetrahedron refused: %v", err)
 	}
-	for _, c := range []struct {
-		name string
-		tets [][4]int
-		bnd  []BoundaryFace
-		want string
-	}{
-		{"negative orientation", [][4]int{{0, 2, 1, 3}}, all(), "positive orientation"},
-		{"node out of range", [][4]int{{0, 1, 2, 7}}, all(), "outside"},
-		{"missing boundary face", [][4]int{tt}, all()[:3], "not a boundary face"},
-		{"face listed twice", [][4]int{tt}, append(all(), all()[0]), "listed twice"},
-		{"side out of range", [][4]int{tt}, []BoundaryFace{{Nodes: [3]int{1, 2, 3}, Side: 3}}, "side 3"},
-	} {
-		_, err := NewMesh(nodes, c.tets, c.bnd, 1)
-		if err == nil || !strings.Contains(err.Error(), c.want) {
-			t.Errorf("%s: error %v, want one mentioning %q", c.name, err, c.want)
-		}
+	if _, err := NewMesh(m3, 3); err == nil || !strings.Contains(err.Error(), "face 3, outside [0, 3)") {
+		t.Errorf("a side without a condition: error %v", err)
 	}
 	m := unitCube(t, 3)
 	var vol interval.I

@@ -26,6 +26,11 @@ type Potential struct {
 	rng   []interval.I
 	exact bool
 	expr  *formula.Expr
+
+	// inverseOf and shift are set on the models made by InverseShifted:
+	// they enclose 1/(V + shift) for the potential inverseOf.
+	inverseOf *Potential
+	shift     interval.I
 }
 
 // maxExactDegree is the largest polynomial degree of V for which
@@ -155,7 +160,12 @@ func (v *Potential) InverseShifted(gamma interval.I, order int) (*Potential, err
 		order = 1 // 1/(V + γ) is constant: its order-1 model is exact
 	}
 	we := formula.Div(formula.Const(interval.I{Lo: 1, Hi: 1}), formula.Add(v.expr, formula.Const(gamma)))
-	return NewPotential(v.mesh, we, order)
+	w, err := NewPotential(v.mesh, we, order)
+	if err != nil {
+		return nil, err
+	}
+	w.inverseOf, w.shift = v, gamma
+	return w, nil
 }
 
 // SignError reports that a quantity a theorem requires nonnegative (or

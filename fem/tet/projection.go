@@ -63,7 +63,7 @@ func newProjection(m *Mesh, bc []boundary.Condition, enriched bool) *Projection 
 	s := &Projection{mesh: m, bc: bc, enriched: enriched, faceDof: make([]int, len(m.faces))}
 	dir := make([]bool, len(m.faces))
 	for k, b := range m.bnd {
-		if bc[b.Side].Essential() {
+		if bc[b.Face].Essential() {
 			o := m.bndOwner[k]
 			dir[m.tetFaces[o[0]][o[1]]] = true
 		}
@@ -80,7 +80,7 @@ func newProjection(m *Mesh, bc []boundary.Condition, enriched bool) *Projection 
 		s.n += len(m.tets)
 	}
 	for k, b := range m.bnd {
-		c := bc[b.Side]
+		c := bc[b.Face]
 		if !c.HasTerm() {
 			continue
 		}
@@ -246,7 +246,7 @@ func (s *Projection) Matrices(v *Potential, gamma interval.I) (k, mass *sparse.I
 	diag := make([]float64, s.n)
 	gram := tripleTable(4, 0, 2, 2).IV
 	for t := range m.tets {
-		g := m.geom[t]
+		g := m.Geom(t)
 		d := s.localDofs(t)
 		var tT float64
 		if s.enriched {
@@ -371,7 +371,7 @@ func (s *Projection) ProjectionConstant() interval.I {
 	best := interval.I{}
 	invPi2 := interval.Pi().Sqr().Recip()
 	for t := range s.mesh.tets {
-		g := s.mesh.geom[t]
+		g := s.mesh.Geom(t)
 		if s.enriched {
 			best = best.Max(g.Diam.Div(interval.Pi()))
 			continue
