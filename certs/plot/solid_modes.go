@@ -59,11 +59,7 @@ func SolidModesOf(p *problem.Problem, count int) (*SolidModes, error) {
 		m3 = m3.Refine()
 		levels++
 	}
-	tb := make([]tet.BoundaryFace, len(m3.Bnd))
-	for i, f := range m3.Bnd {
-		tb[i] = tet.BoundaryFace{Nodes: [3]int{f.A, f.B, f.C}, Side: f.Face}
-	}
-	mesh, err := tet.NewMesh(m3.Nodes, m3.Tets, tb, len(ph.Faces))
+	mesh, err := tet.NewMesh(m3, len(ph.Faces))
 	if err != nil {
 		return nil, fmt.Errorf("the refined mesh: %v", err)
 	}

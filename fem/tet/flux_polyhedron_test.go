@@ -175,11 +175,7 @@ func rotatedCubePolyhedron() ([][3]string, [][]int) {
 func TestStageARotatedCubePolyhedron(t *testing.T) {
 	verts, faces := rotatedCubePolyhedron()
 	m3 := polyhedronMesh3(t, verts, faces, 2)
-	var bnd []BoundaryFace
-	for _, b := range m3.Bnd {
-		bnd = append(bnd, BoundaryFace{Nodes: [3]int{b.A, b.B, b.C}, Side: b.Face})
-	}
-	m, err := NewMesh(m3.Nodes, m3.Tets, bnd, len(faces))
+	m, err := NewMesh(m3, len(faces))
 	if err != nil {
 		t.Fatal(err)
 	}

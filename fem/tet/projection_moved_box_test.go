@@ -5,6 +5,7 @@ import (
 
 	"gapcert/enclose"
 	"gapcert/fem/boundary"
+	"gapcert/fem/mesh3"
 	"gapcert/interval"
 )
 
@@ -29,7 +30,11 @@ func movedUnitCube(t *testing.T, n int, scale [3]interval.I) *Mesh {
 			nodes[k][i] = s
 		}
 	}
-	moved, err := NewMesh(nodes, m.tets, m.bnd, m.sides)
+	m3, err := mesh3.FromPolyhedron(nodes, m.tets, m.bnd)
+	if err != nil {
+		t.Fatal(err)
+	}
+	moved, err := NewMesh(m3, m.sides)
 	if err != nil {
 		t.Fatal(err)
 	}
