@@ -16,7 +16,7 @@ func TestPlot(t *testing.T) {
 	for _, args := range [][]string{
 		{"plot", filepath.Join(testSweeps, "convex"), "--x", "c", "--quantity", "D^2*gap/pi^2", "--threshold", "3 + c^2/100", "--out", band},
 		{"plot", filepath.Join(testSweeps, "robin"), "--x", "alpha", "--quantity", "gap", "--reference", "robin_interval_gap", "--out", robin},
-		{"plot", filepath.Join(testSweeps, "triangle", "summary.json"), "--x", "a", "--y", "b", "--claim", "D^2*gap >= 75.3", "-o", cells},
+		{"plot", filepath.Join(testSweeps, "triangle", "summary.json"), "--x", "a", "--y", "b", "--claim", "D^2*gap >= 75.35", "-o", cells},
 	} {
 		code, out, errs := execute(args...)
 		if code != exitOK || errs != "" || !strings.Contains(out, "picture written to") {

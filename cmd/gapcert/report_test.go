@@ -74,7 +74,7 @@ func TestReportFailures(t *testing.T) {
 		t.Fatal(err)
 	}
 	// A certificate whose λ1 upper end was edited (still well formed).
-	edited := strings.Replace(string(data), `"-0.11024881699207167"`, `"-0.11024881699207166"`, 1)
+	edited := strings.Replace(string(data), `"-0.11024881699207433"`, `"-0.11024881699207432"`, 1)
 	if edited == string(data) {
 		t.Fatal("the edit did not apply")
 	}

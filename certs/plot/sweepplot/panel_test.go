@@ -133,16 +133,20 @@ func TestMapColourScale(t *testing.T) {
 }
 
 // TestShadingOnlyWhenVisible: a band whose enclosures are much narrower
-// than a line draws no shading and names none in its legend; the Robin
-// band, whose gap enclosures are wide enough, does both.
+// than a line draws no shading and names none in its legend; the gap band
+// of the mixed Robin sweep, whose enclosures are wide enough, does both.
 func TestShadingOnlyWhenVisible(t *testing.T) {
 	convex, _ := svgTexts(t, goldenBand(t).Write)
 	if strings.Contains(convex, "shading") {
 		t.Errorf("narrow band names a shading:\n%s", convex)
 	}
-	robin, _ := svgTexts(t, robinBand(t).Write)
-	if !strings.Contains(robin, "shading between points") || strings.Contains(robin, "narrower than a line") && !strings.Contains(robin, "width panel") {
-		t.Errorf("Robin band legend:\n%s", robin)
+	wide, err := load(t, "robin_mixed").Band("alpha", BandSpec{Quantity: "gap"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	robin, _ := svgTexts(t, wide.Write)
+	if !strings.Contains(robin, "shading between points") || strings.Contains(robin, "narrower than a line") {
+		t.Errorf("mixed Robin band legend:\n%s", robin)
 	}
 }
 

@@ -115,11 +115,11 @@ func TestSVGLabels(t *testing.T) {
 			"undecided: neither holds nor fails on the whole enclosures (1)", "fails: D²·gap/π² < 3 + c²/100 for all values in the enclosures (4)",
 			"nothing is certified between the sampled parameter values.", "The enclosures are narrower than a line at this scale (a width panel shows their widths).",
 			"\nD²·gap/π²\n", "\nc\n"},
-		cells: {"claim D²·gap ≥ 75.3", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
+		cells: {"claim D²·gap ≥ 75.35", "colour: certified lower bound of lhs − rhs", "undecided: the enclosure of lhs − rhs does not settle the claim (1)",
 			"fails: certified for the whole enclosure (1)", "unmarked cells hold", "Colour scale diverging about 0", "\na\n", "\nb\n"},
 		robin: {"certified enclosures of gap and of robin_interval_gap", "gap, robin_interval_gap", "reference: certified enclosure of robin_interval_gap at each point",
 			"certified enclosure of gap at each point", "every claim holds (the point's certificate) (3)", "the orange reference bars likewise enclose robin_interval_gap at each point;",
-			"shading between points: for reading only, not certified", "\nα\n"},
+			"The enclosures are narrower than a line at this scale (a width panel shows their widths).", "\nα\n"},
 	} {
 		text := "\n" + strings.Join(summarise(t, path).Texts, "\n") + "\n"
 		for _, w := range want {
