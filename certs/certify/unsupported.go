@@ -21,10 +21,13 @@ func (e *UnsupportedError) Error() string {
 
 // Supported returns an *UnsupportedError when the problem's domain cannot
 // be certified yet, and nil otherwise. Every domain that fem/problem
-// accepts (intervals, polygons, polyhedra) is certified today; the check
+// accepts (intervals, polygons, polyhedra, products) is certified today; the check
 // stays as the one place where a kind of domain without a discretisation
 // would be refused before anything is computed.
 func Supported(p *problem.Problem) error {
+	if p.IsProduct() {
+		return nil
+	}
 	if p.Dim < 1 || p.Dim > 3 || (p.Dim == 3 && p.Polyhedron == nil) {
 		return &UnsupportedError{
 			Path:   "domain",

@@ -1,7 +1,6 @@
 package cover
 
 import (
-	"bytes"
 	"crypto/sha256"
 	"encoding/hex"
 	"encoding/json"
@@ -12,6 +11,7 @@ import (
 	"time"
 
 	"gapcert/certs/certify"
+	"gapcert/certs/sweep"
 	"gapcert/fem/problem"
 	"gapcert/fem/problem/strictjson"
 	"gapcert/interval/decimalio"
@@ -30,8 +30,6 @@ const (
 	MaxDepth = 40
 	// maxNumberText bounds the text of one number.
 	maxNumberText = 400
-	// maxRatBits bounds the numerator and denominator of a bound.
-	maxRatBits = 2000
 	// maxFamilyFile bounds the size of a family file.
 	maxFamilyFile = 1 << 20
 )
@@ -180,7 +178,7 @@ func ParseFamily(data []byte) (*Family, error) {
 		}
 	}
 	if len(ff.RelativeWidth) > 0 {
-		w, err := numberText(ff.RelativeWidth)
+		w, err := sweep.NumberText(ff.RelativeWidth)
 		if err == nil {
 			var r *big.Rat
 			r, err = decimalio.ParseRat(w)
@@ -189,7 +187,7 @@ func ParseFamily(data []byte) (*Family, error) {
 			}
 		}
 		if err != nil {
-			add("relative_width", numberMessage(w, err), `write "relative_width": "1e-6"`)
+			add("relative_width", sweep.NumberMessage(w, err), `write "relative_width": "1e-6"`)
 		} else {
 			f.RelWidth = w
 		}
@@ -281,8 +279,8 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 		add(path+".range", "a range needs lo and hi", `write {"lo": "0", "hi": "10"}`)
 		return Param{}, false
 	}
-	lo, okLo := readRat(pf.Range.Lo, path+".range.lo", add)
-	hi, okHi := readRat(pf.Range.Hi, path+".range.hi", add)
+	lo, okLo := sweep.ReadRat(pf.Range.Lo, path+".range.lo", add)
+	hi, okHi := sweep.ReadRat(pf.Range.Hi, path+".range.hi", add)
 	if !okLo || !okHi {
 		return Param{}, false
 	}
@@ -306,7 +304,7 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 		add(path+".min_cell", fmt.Sprintf("parameter %q has no min_cell", pf.Name), `give the width below which cells are not split, e.g. "min_cell": "1/64"`)
 		return Param{}, false
 	}
-	mc, ok := readRat(pf.MinCell, path+".min_cell", add)
+	mc, ok := sweep.ReadRat(pf.MinCell, path+".min_cell", add)
 	if !ok {
 		return Param{}, false
 	}
@@ -336,53 +334,6 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 	}
 	p.MinCell = mc
 	return p, true
-}
-
-// readRat reads an exact rational written as a JSON number or string.
-func readRat(raw json.RawMessage, path string, add func(path, msg, hint string)) (*big.Rat, bool) {
-	s, err := numberText(raw)
-	if err == nil {
-		var r *big.Rat
-		if r, err = decimalio.ParseRat(s); err == nil {
-			if r.Num().BitLen() <= maxRatBits && r.Denom().BitLen() <= maxRatBits {
-				return r, true
-			}
-			err = fmt.Errorf("%s is too large or too finely divided", s)
-		}
-	}
-	add(path, numberMessage(s, err), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")
-	return nil, false
-}
-
-func numberMessage(s string, err error) string {
-	var se *decimalio.SyntaxError
-	if errors.As(err, &se) {
-		msg := fmt.Sprintf("%q is not a number: column %d: %s", s, se.Col, se.Msg)
-		if se.Hint != "" {
-			msg += " (" + se.Hint + ")"
-		}
-		return msg
-	}
-	return err.Error()
-}
-
-func numberText(raw json.RawMessage) (string, error) {
-	raw = bytes.TrimSpace(raw)
-	var s string
-	switch {
-	case len(raw) > 0 && raw[0] == '"':
-		if err := strictjson.Decode(raw, &s); err != nil {
-			return "", err
-		}
-	case len(raw) > 0 && (raw[0] == '-' || '0' <= raw[0] && raw[0] <= '9'):
-		s = string(raw)
-	default:
-		return "", fmt.Errorf("want a number, not %s", raw)
-	}
-	if len(s) > maxNumberText {
-		return "", fmt.Errorf("number too long (%d bytes, at most %d)", len(s), maxNumberText)
-	}
-	return s, nil
 }
 
 func strictIssue(prefix string, err error) (path, msg string) {

@@ -182,7 +182,7 @@ func ParseFamily(data []byte) (*Family, error) {
 		}
 	}
 	if len(ff.RelativeWidth) > 0 {
-		w, err := numberText(ff.RelativeWidth)
+		w, err := NumberText(ff.RelativeWidth)
 		if err == nil {
 			var r *big.Rat
 			r, err = decimalio.ParseRat(w)
@@ -191,7 +191,7 @@ func ParseFamily(data []byte) (*Family, error) {
 			}
 		}
 		if err != nil {
-			add("relative_width", numberMessage(w, err), `write "relative_width": "0.05"`)
+			add("relative_width", NumberMessage(w, err), `write "relative_width": "0.05"`)
 		} else {
 			f.RelWidth = w
 		}
@@ -276,7 +276,7 @@ func readParam(raw json.RawMessage, path string, add func(path, msg, hint string
 		seen := map[string]bool{}
 		for i, v := range pf.Values {
 			vp := fmt.Sprintf("%s.values[%d]", path, i)
-			r, ok := readRat(v, vp, add)
+			r, ok := ReadRat(v, vp, add)
 			if !ok {
 				return Param{}, false
 			}
@@ -300,8 +300,8 @@ func readRange(r *rangeFile, path string, add func(path, msg, hint string)) ([]*
 		add(path, "a range needs lo, hi and count", `write {"lo": "0", "hi": "1", "count": 5}`)
 		return nil, false
 	}
-	lo, okLo := readRat(r.Lo, path+".lo", add)
-	hi, okHi := readRat(r.Hi, path+".hi", add)
+	lo, okLo := ReadRat(r.Lo, path+".lo", add)
+	hi, okHi := ReadRat(r.Hi, path+".hi", add)
 	if !okLo || !okHi {
 		return nil, false
 	}
@@ -338,25 +338,28 @@ func readRange(r *rangeFile, path string, add func(path, msg, hint string)) ([]*
 	return vals, true
 }
 
-// readRat reads an exact rational written as a JSON number or string.
-func readRat(raw json.RawMessage, path string, add func(path, msg, hint string)) (*big.Rat, bool) {
-	s, err := numberText(raw)
+// ReadRat reads an exact rational written as a JSON number or string (at
+// most 400 characters, numerator and denominator of at most 2000 bits);
+// otherwise it reports the reason at path through add and returns false.
+// Family readers (this package, certs/cover) share it.
+func ReadRat(raw json.RawMessage, path string, add func(path, msg, hint string)) (*big.Rat, bool) {
+	s, err := NumberText(raw)
 	if err == nil {
 		var r *big.Rat
 		if r, err = decimalio.ParseRat(s); err == nil {
 			if r.Num().BitLen() <= maxRatBits && r.Denom().BitLen() <= maxRatBits {
 				return r, true
 			}
-			err = fmt.Errorf("%s is too large or too finely divided for a parameter value", s)
+			err = fmt.Errorf("%s is too large or too finely divided", s)
 		}
 	}
-	add(path, numberMessage(s, err), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")
+	add(path, NumberMessage(s, err), "write an exact decimal such as \"0.25\" or a fraction such as \"1/3\"")
 	return nil, false
 }
 
-// numberMessage says why the text s of a number was not read, with the
+// NumberMessage says why the text s of a number was not read, with the
 // column of a syntax error.
-func numberMessage(s string, err error) string {
+func NumberMessage(s string, err error) string {
 	var se *decimalio.SyntaxError
 	if errors.As(err, &se) {
 		msg := fmt.Sprintf("%q is not a number: column %d: %s", s, se.Col, se.Msg)
@@ -368,8 +371,9 @@ func numberMessage(s string, err error) string {
 	return err.Error()
 }
 
-// numberText returns the text of a JSON number or string.
-func numberText(raw json.RawMessage) (string, error) {
+// NumberText returns the text of a JSON number or string, at most 400
+// characters long.
+func NumberText(raw json.RawMessage) (string, error) {
 	raw = bytes.TrimSpace(raw)
 	var s string
 	switch {
