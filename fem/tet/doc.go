@@ -143,4 +143,138 @@
 // gives λ_k(−Δ + Robin) + c ≤ λ_k + γ. So λ_k + γ ≥ c + f(μ_(h,k)), from
 // a verified lower bound of μ_(h,k) + c (package enclose/sparse,
 // CountBelow) and the mass bound of Projection.Matrices.
+//
+// # Raviart–Thomas fluxes on tetrahedra (stage B)
+//
+// The flux space of the Lehmann–Goerisch bounds on a tetrahedral mesh of
+// a polyhedron Ω is the Raviart–Thomas space RT_k ⊂ H(div; Ω), k ≥ 0
+// (P.-A. Raviart, J.-M. Thomas, A mixed finite element method for 2nd
+// order elliptic problems, Springer LNM 606, 1977; J.-C. Nédélec, Mixed
+// finite elements in R³, Numer. Math. 35 (1980) 315–341; D. Boffi,
+// F. Brezzi, M. Fortin, Mixed Finite Element Methods and Applications,
+// Springer, 2013, §2.3.1; its section numbers here are recalled from
+// memory).
+//
+// Reference element. T̂ has the vertices ξ_0 = 0, ξ_1 = e_1, ξ_2 = e_2,
+// ξ_3 = e_3, barycentric λ_0 = 1 − ξ − η − ζ, λ_1 = ξ, λ_2 = η, λ_3 = ζ, and
+//
+//	RT_k(T̂) = P_k³ + x P̃_k,   dim = (k + 1)(k + 2)(k + 4)/2,
+//
+// P̃_k the homogeneous polynomials of degree k. Its members have components
+// of degree ≤ k + 1 (kept in Bernstein form of degree n = k + 1),
+// divergence in P_k, and on each face a normal component in P_k (the part
+// x·h, h ∈ P̃_k, has x·ν̂ = const·h on a face, the constant being 0 on the
+// faces through the origin). Local face i is the face opposite vertex i,
+// with its vertices in increasing local order, and ν̂_i is its outward
+// normal times twice its area: ν̂_0 = (1, 1, 1), ν̂_1 = −e_1, ν̂_2 = −e_2,
+// ν̂_3 = −e_3. The degrees of freedom are
+//
+//   - on face i, the (k + 1)(k + 2)/2 Bernstein coefficients (degree k, in
+//     the barycentric coordinates of the face's vertices) of the flux
+//     density g_i = σ̂·ν̂_i;
+//   - inside, the k(k + 1)(k + 2)/2 moments ∫_T̂ σ̂_c B^(k−1)_β, c = 1, 2, 3.
+//
+// They are unisolvent on RT_k (Nédélec 1980, and Boffi–Brezzi–Fortin 2013,
+// §2.3, for the equivalent moment form of the face DOFs); here the
+// exact inversion of rtBasisRat verifies it for each k used, and fails
+// loudly otherwise. The basis dual to them is computed once per k in
+// math/big and kept, scaled to integers (rtRef), as the Bernstein
+// coefficients of its three components and of its divergence.
+//
+// Piola transform. A tetrahedron T with vertices v_0, …, v_3 is x = v_0 +
+// Jξ, J = [v_1 − v_0, v_2 − v_0, v_3 − v_0], det J = 6|T| > 0 (positive
+// orientation, verified from the enclosures: NewFlux). A member of RT_k(T)
+// is σ(x) = J σ̂(ξ)/det J. Then div σ = (div̂ σ̂)/det J (Boffi–Brezzi–Fortin
+// 2013, §2.1.3; by the chain rule, div σ = Σ_(a,c) ∂_a(J_(ac) σ̂_c)/det J =
+// Σ_(a,c,b) J_(ac) (J⁻¹)_(ba) ∂̂_b σ̂_c/det J = div̂ σ̂/det J), and for a
+// face with vertices A, B, C (images of
+// Â, B̂, Ĉ) the cofactor identity (Ja) × (Jb) = det J · J^(−T)(a × b),
+// valid for every 3×3 matrix J, gives
+//
+//	ν = (B − A) × (C − A) = det J · J^(−T) ν̂,   ν̂ = (B̂ − Â) × (Ĉ − Â),
+//	σ(x)·ν = (J σ̂/det J)·(det J J^(−T) ν̂) = σ̂(ξ)·ν̂
+//
+// at corresponding points, exactly. With det J > 0 the map keeps outward
+// normals outward, so the flux density σ·ν_i of the physical face i
+// (outward normal times twice the area) is the reference one: its
+// Bernstein coefficients are the face DOFs.
+//
+// Conformity (H(div)). A face of the mesh with global vertex numbers
+// a < b < c has the global normal ν_F = (P_b − P_a) × (P_c − P_a) and its
+// global DOFs are the degree-k Bernstein coefficients of σ·ν_F in the
+// barycentric coordinates of (P_a, P_b, P_c). In a cell, local face i with
+// vertices j_1 < j_2 < j_3 has (P_(j_2) − P_(j_1)) × (P_(j_3) − P_(j_1)) =
+// (−1)^i ν_i: the oriented boundary of the positively oriented simplex
+// [v_0, v_1, v_2, v_3] is Σ_i (−1)^i [v_0, …, v̂_i, …, v_3], and the term
+// i = 0, [v_1, v_2, v_3], is outward (on T̂, (ξ_2 − ξ_1) × (ξ_3 − ξ_1) =
+// (1, 1, 1)). The cross product (B − A) × (C − A) is alternating in
+// (A, B, C), so ν_F = sgn(π)(−1)^i ν_i, π the permutation that sorts the
+// global numbers of (j_1, j_2, j_3). Hence σ·ν_i = s σ·ν_F with
+// s = sgn(π)(−1)^i, and the local DOF of a multi-index is s times the
+// global DOF of the multi-index that gives each vertex of the face the
+// same exponent (the same Bernstein polynomial on the face). The two cells of
+// an interior face therefore have normal traces σ·ν_F that are the same
+// polynomial on the face (the same exact values of the global DOFs), the
+// normal component is continuous across every interior face, and the
+// piecewise field lies in H(div; Ω): for φ ∈ C_c^∞(Ω), Green's formula on
+// each cell gives ∫_Ω σ·∇φ = Σ_T (−∫_T φ div σ + ∫_∂T φ σ·n_T), the face
+// integrals cancel in pairs (σ·n_T = −σ·n_T′ on the face shared by T and
+// T′) and φ = 0 on ∂Ω, so the weak divergence of σ is its cellwise
+// divergence, in L²(Ω) (Boffi–Brezzi–Fortin 2013, §2.1). This is
+// combinatorial: it holds for the exact mesh inside the vertex enclosures
+// and any float coefficients, given positive orientation.
+//
+// Boundary. On a boundary face where the flux must vanish (Neumann, or
+// Robin with α not verified > 0: fem/boundary, Condition.FluxFree) the
+// face DOFs are removed (exactly 0), so σ·n = 0 there. On Dirichlet faces
+// they are free, on Robin faces with α > 0 they are free and enter the
+// norm with the weight 1/α.
+//
+// Lehmann–Goerisch. With c = V + γ_B verified > 0, M(u, v) = a(u, v) +
+// γ_B b(u, v), X = L²(Ω)³ × L²(Ω) × L²(Γ_R) and Tu = (∇u, √c u,
+// √α u|_(Γ_R)), (Tu, Tv)_X = M(u, v). For a trial function ũ ∈ H and a
+// flux σ put w = (σ, (ũ + div σ)/√c, −(σ·n)/√α on Robin faces with α > 0,
+// 0 elsewhere). Green's formula ∫_Ω ∇φ·σ + ∫_Ω φ div σ = ∫_∂Ω φ σ·n (for
+// φ ∈ H¹(Ω), σ ∈ H(div; Ω) with a piecewise polynomial normal trace)
+// gives, for every φ ∈ H,
+//
+//	(Tφ, w)_X = ∫∇φ·σ + ∫φ div σ + ∫φũ − ∫_(Γ_R, α>0) φ σ·n = b(φ, ũ),
+//
+// because on the rest of ∂Ω either φ = 0 (Dirichlet) or σ·n = 0. That is
+// the hypothesis of the Lehmann–Goerisch theorem (package temple), and
+// Flux.LGMatrix encloses
+//
+//	A2_ij = (w_i, w_j)_X = (σ_i, σ_j) + ((ũ_i + div σ_i)/c, ũ_j + div σ_j) + Σ_(F ⊂ Γ_R, α_F > 0) ∫_F (σ_i·n)(σ_j·n)/α_F.
+//
+// The weight 1/c enters per cell as a Bernstein polynomial Q plus a
+// remainder interval R (FluxWeight), and the term with R is bounded by
+// Cauchy–Schwarz, |∫(R − r_mid) f g| ≤ r_rad ‖f‖‖g‖ (package
+// fem/internal/bernstein, Remainders). For V = 0 the weight is the
+// constant 1/γ_B enclosed (FluxConstantWeight); a potential V ≠ 0 needs
+// a FluxWeight from the trial side's model of 1/(V + γ_B).
+//
+// The flux is chosen (Flux.ChooseApprox) by the normal equations of
+// ‖w‖²_X over RT_k, a plain sparse solve in floating point: a choice, any
+// σ is admissible in LGMatrix. Flux.Indicators measures per cell how far
+// the fluxes are from ∇ũ_i/Λ_i (a choice, for refinement).
+//
+// Guarantees and inputs. Flux.LGMatrix encloses, entry by entry, A2 for
+// the exact mesh (every exact vertex inside its enclosure), the exact
+// functions given by the float coefficients of the fluxes and of the
+// trial functions, and every exact value inside the enclosures of α and
+// of the weight model. The integrals are exact on each cell: the fields
+// are in Bernstein form in the barycentric coordinates, and products,
+// divergences, elevations and integrals are exact rational identities
+// (raviart_tables.go), evaluated in outward rounded interval arithmetic
+// from tables enclosed from math/big; the reference coefficients are
+// combined with the float coefficients by error-free transformations
+// (fluxExactCombination). What the code checks: positive orientation of
+// every cell (det J > 0 from the enclosures, else a
+// *FluxOrientationError), a bounded weight model, γ_B > 0 for V = 0.
+// What the caller supplies and the doc of each input states: the cells (RTCell: vertex enclosures,
+// global vertex and face numbers; the tiling of Ω is the mesh's proof),
+// the boundary conditions of the boundary faces, a trial space on the
+// same cells (FluxTrial: exact Bernstein coefficients per cell) and a
+// weight that encloses 1/(V + γ_B) (FluxWeight). Functions named Approx
+// work at round-to-nearest: their results are choices, never bounds.
 package tet
