@@ -82,18 +82,9 @@ func (f *Family) ParamNames() []string {
 
 // InvalidError reports an invalid family file: every defect found, each
 // with its JSON path and a hint. Nothing has been computed or written
-// when it is returned.
-type InvalidError struct {
-	Issues []problem.Issue
-}
-
-func (e *InvalidError) Error() string {
-	lines := make([]string, len(e.Issues))
-	for i, is := range e.Issues {
-		lines[i] = is.String()
-	}
-	return strings.Join(lines, "\n")
-}
+// when it is returned. It is the error of sweep family files, whose layout
+// a cover family shares.
+type InvalidError = sweep.InvalidError
 
 func invalid(path, msg, hint string) *InvalidError {
 	return &InvalidError{Issues: []problem.Issue{{Path: path, Msg: msg, Hint: hint}}}
