@@ -132,7 +132,7 @@ func ParseFamily(data []byte) (*Family, error) {
 	var iss []problem.Issue
 	add := func(path, msg, hint string) { iss = append(iss, problem.Issue{Path: path, Msg: msg, Hint: hint}) }
 
-	template, fixed := readTemplate(ff.Template, add)
+	template, fixed := sweep.ReadTemplate(ff.Template, add)
 	if len(ff.Parameters) == 0 {
 		add("parameters", "no parameters to cover", `write "parameters": [{"name": "alpha", "range": {"lo": "0", "hi": "10"}, "min_cell": "1/64"}]`)
 	}
@@ -218,32 +218,6 @@ func ParseFamily(data []byte) (*Family, error) {
 	}
 	f.Dependences = deps
 	return f, nil
-}
-
-// readTemplate checks that the template is a JSON object and returns its
-// keys with the names of its fixed parameters.
-func readTemplate(raw json.RawMessage, add func(path, msg, hint string)) (map[string]json.RawMessage, map[string]bool) {
-	if len(raw) == 0 {
-		add("template", "missing template", `write "template": {"domain": …, "boundary": …} with the covered parameters used by name`)
-		return nil, nil
-	}
-	var t map[string]json.RawMessage
-	if err := strictjson.Decode(raw, &t); err != nil || t == nil {
-		add("template", "the template must be a problem object", `write "template": {"domain": …, "boundary": …}`)
-		return nil, nil
-	}
-	fixed := map[string]bool{}
-	if pr, ok := t["parameters"]; ok {
-		var m map[string]json.RawMessage
-		if err := strictjson.Decode(pr, &m); err != nil || m == nil {
-			add("template.parameters", "parameters must be an object", `write "parameters": {"k": "2"}`)
-			return nil, nil
-		}
-		for k := range m {
-			fixed[k] = true
-		}
-	}
-	return t, fixed
 }
 
 // readParam reads one entry of "parameters": a name, a range lo < hi with

@@ -149,7 +149,7 @@ func ParseFamily(data []byte) (*Family, error) {
 	var iss []problem.Issue
 	add := func(path, msg, hint string) { iss = append(iss, problem.Issue{Path: path, Msg: msg, Hint: hint}) }
 
-	template, fixed := readTemplate(ff.Template, add)
+	template, fixed := ReadTemplate(ff.Template, add)
 	if len(ff.Parameters) == 0 {
 		add("parameters", "no parameters to sweep", `write "parameters": [{"name": "a", "range": {"lo": "0", "hi": "1", "count": 5}}]`)
 	}
@@ -216,11 +216,12 @@ func ParseFamily(data []byte) (*Family, error) {
 	return f, nil
 }
 
-// readTemplate checks that the template is a JSON object and returns its
-// keys with the names of its fixed parameters.
-func readTemplate(raw json.RawMessage, add func(path, msg, hint string)) (map[string]json.RawMessage, map[string]bool) {
+// ReadTemplate checks that a family's template is a JSON object and
+// returns its keys with the names of its fixed parameters; defects go to
+// add. Family readers (this package, certs/cover) share it.
+func ReadTemplate(raw json.RawMessage, add func(path, msg, hint string)) (map[string]json.RawMessage, map[string]bool) {
 	if len(raw) == 0 {
-		add("template", "missing template", `write "template": {"domain": …, "boundary": …} with the swept parameters used by name`)
+		add("template", "missing template", `write "template": {"domain": …, "boundary": …} with the family's parameters used by name`)
 		return nil, nil
 	}
 	var t map[string]json.RawMessage
