@@ -495,10 +495,24 @@ func (sp *solidPlotter) DataRange() (xmin, xmax, ymin, ymax float64) {
 	return boundingBox(sp.screenPoints())
 }
 
-// sampleSection evaluates mode k of s at the centres of a grid of cells
-// over the section's bounding box, inside its loops (even–odd rule over
-// all loops), and normalises it.
+// sampleSection evaluates mode k of s on its section (sectionValues) and
+// normalises it.
 func sampleSection(s *Solid, k int) (*grid, error) {
+	g, err := sectionValues(s, k)
+	if err != nil {
+		return nil, err
+	}
+	if !normalise(g.z) {
+		return nil, &ModeError{Mode: k}
+	}
+	return g, nil
+}
+
+// sectionValues evaluates mode k of s at the centres of a grid of cells
+// over the section's bounding box, inside its loops (even–odd rule over
+// all loops); the values outside are NaN. A value inside that is not
+// finite is a *ModeError.
+func sectionValues(s *Solid, k int) (*grid, error) {
 	n := s.Samples
 	if n == 0 {
 		n = DefaultSamples2D
@@ -530,9 +544,6 @@ func sampleSection(s *Solid, k int) (*grid, error) {
 			}
 			g.z[r*g.nx+c] = val
 		}
-	}
-	if !normalise(g.z) {
-		return nil, &ModeError{Mode: k}
 	}
 	return g, nil
 }

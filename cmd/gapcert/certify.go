@@ -92,8 +92,9 @@ the certificate's trial space. A polyhedron, or a box or prism given as a
 product: solid (the solid, faces coloured by their condition, a
 polyhedron's mesh on its faces) and solid-mode1, solid-mode2, the
 approximate eigenfunctions of λ1 and λ2 on the plane --slice AXIS=VALUE
-(default z about halfway up; a plane that misses the solid or passes
-through a vertex is refused before computing): on a polyhedron from the
+(default z about halfway up, or x, then y, halfway across when a mode
+nearly vanishes there; a plane that misses the solid or passes through a
+vertex is refused before computing): on a polyhedron from the
 certificate's trial space when it has at most 8000 unknowns, else from a
 smaller one of the picture's own (the output says which); on a product
 the products of the factors' approximate eigenfunctions. They are
@@ -115,7 +116,7 @@ approximations, not bounds, and say so.`,
 		},
 	}
 	f.register(cmd, "")
-	cmd.Flags().StringVar(&f.slice, "slice", "", "with --plot on a three-dimensional domain: the plane of the eigenfunctions, AXIS=VALUE (e.g. z=1/2; default z about halfway up)")
+	cmd.Flags().StringVar(&f.slice, "slice", "", "with --plot on a three-dimensional domain: the plane of the eigenfunctions, AXIS=VALUE (e.g. z=1/2; default z about halfway up, or x or y when a mode vanishes there)")
 	return cmd
 }
 

@@ -13,10 +13,12 @@ import (
 
 // solidPlan is what certify --plot draws of a three-dimensional domain,
 // settled before computing: the polyhedron (the problem's own, or the box
-// or prism a product is) and the section of the modes.
+// or prism a product is) and the section of the modes, --slice or one of
+// the default candidates (plot.DefaultSections; plot.PickSection chooses
+// among them once the modes are known).
 type solidPlan struct {
-	poly    *problem.Problem
-	section *plot.Section
+	poly     *problem.Problem
+	sections []*plot.Section
 }
 
 // planSolid returns the plan of the pictures of a three-dimensional
@@ -44,12 +46,14 @@ func planSolid(p *problem.Problem, f certifyFlags) (*solidPlan, error) {
 	}
 	var err error
 	if f.slice == "" {
-		sp.section, err = plot.MidSection(sp.poly.Polyhedron)
+		sp.sections, err = plot.DefaultSections(sp.poly.Polyhedron)
 	} else {
 		var s plot.Slice
+		var sec *plot.Section
 		if s, err = plot.ParseSlice(f.slice); err == nil {
-			sp.section, err = plot.NewSection(sp.poly.Polyhedron, s)
+			sec, err = plot.NewSection(sp.poly.Polyhedron, s)
 		}
+		sp.sections = []*plot.Section{sec}
 	}
 	if err != nil {
 		return nil, fail(fmt.Errorf("--slice: %v", err))
@@ -63,7 +67,6 @@ func planSolid(p *problem.Problem, f certifyFlags) (*solidPlan, error) {
 func (sp *solidPlan) draw(w io.Writer, dir string, p *problem.Problem, c *certs.Certificate) ([]string, error) {
 	const count = 2
 	s := plot.SolidOf(sp.poly)
-	s.Section = sp.section
 	e := c.Results.Eigenvalues
 	s.Certified = []string{
 		"certified " + enclosureLabel(e[0].Index, e[0].Bound()),
@@ -88,7 +91,8 @@ func (sp *solidPlan) draw(w io.Writer, dir string, p *problem.Problem, c *certs.
 			}
 			s.Labels = append(s.Labels, fmt.Sprintf("eigenfunction of λ%d, factor modes (%s)", k+1, strings.Join(idx, ", ")))
 		}
-		fmt.Fprintf(w, "modes: products of the factors' approximate eigenfunctions on their certified trial spaces (factor modes (1, …) of λ1, of λ2 with factor %d's second), on the slice %s\n", modes.Second+1, sp.section.Slice)
+		s.Section = plot.PickSection(s, sp.sections)
+		fmt.Fprintf(w, "modes: products of the factors' approximate eigenfunctions on their certified trial spaces (factor modes (1, …) of λ1, of λ2 with factor %d's second), on the slice %s\n", modes.Second+1, s.Section.Slice)
 	} else {
 		modes, own, err := plot.SolidModesFor(p, c, count)
 		if err != nil {
@@ -102,8 +106,9 @@ func (sp *solidPlan) draw(w io.Writer, dir string, p *problem.Problem, c *certs.
 		if own != nil {
 			from = fmt.Sprintf("the picture's own trial space (%v)", own)
 		}
+		s.Section = plot.PickSection(s, sp.sections)
 		fmt.Fprintf(w, "modes from %s: P_%d on %d refinement(s) of the cone tetrahedra (%d unknowns), on the slice %s\n",
-			from, modes.Degree, modes.Levels, modes.Unknowns, sp.section.Slice)
+			from, modes.Degree, modes.Levels, modes.Unknowns, s.Section.Slice)
 	}
 	return plot.WriteSolidDir(dir, s, plot.Formats())
 }
