@@ -1,9 +1,12 @@
 package plot
 
 import (
+	"bytes"
 	"context"
 	"encoding/json"
 	"math"
+	"os"
+	"path/filepath"
 	"slices"
 	"strings"
 	"testing"
@@ -216,5 +219,78 @@ func TestSolidModesFor(t *testing.T) {
 	}
 	if _, _, err := SolidModesFor(p, method(0, 1), 1); err == nil {
 		t.Error("a method of degree 0 is accepted")
+	}
+}
+
+// TestGoldenProductSolid compares the structure of the SVG picture of a
+// prism over a triangle given as a product (its polyhedron, faces by
+// condition, the default section, with a line of text in the place of
+// the certified enclosures) with testdata/prism_product_solid.golden.json; run with
+// -update to rewrite it.
+func TestGoldenProductSolid(t *testing.T) {
+	p := parseProblem(t, `{"name": "prism over a triangle", "domain": {"product": [{"polygon": [["0","0"], ["1","0"], ["3/10","7/10"]]}, {"interval": ["0", "1"]}]},
+		"boundary": [["dirichlet", {"robin": "2"}, "neumann"], ["dirichlet", "neumann"]]}`)
+	ph, err := ProductPolyhedron(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := SolidOf(ph)
+	if s.Section, err = MidSection(ph.Polyhedron); err != nil {
+		t.Fatal(err)
+	}
+	s.Certified = []string{"the caller's certified line of λ1"}
+	paths, err := WriteSolidDir(t.TempDir(), s, []string{"svg"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	compareGolden(t, summarise(t, paths[0]), filepath.Join("testdata", "prism_product_solid.golden.json"))
+}
+
+// TestWriteSolidDirDeterministic draws a certified box's solid and the
+// products of its factors' modes twice, in both formats, and checks that
+// the files are the same, byte for byte, in the order of WriteSolidDir.
+func TestWriteSolidDirDeterministic(t *testing.T) {
+	p := parseProblem(t, `{"name": "box", "domain": {"product": [{"interval": ["0","1"]}, {"interval": ["0","2"]}, {"interval": ["0","1/2"]}]},
+		"potential": "x^2 + z", "boundary": ["dirichlet", ["neumann", {"robin": "1"}], ["dirichlet", "neumann"]]}`)
+	c := certified(t, p, "1e-4")
+	var runs [2][][]byte
+	var names [2][]string
+	for i := range runs {
+		modes, err := ProductModesOf(p, c)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ph, err := ProductPolyhedron(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s := SolidOf(ph)
+		secs, err := DefaultSections(ph.Polyhedron)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s.Eval, s.Labels, s.Samples = modes.Eval, []string{"λ1", "λ2"}, 40
+		s.Section = PickSection(s, secs)
+		paths, err := WriteSolidDir(t.TempDir(), s, Formats())
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, path := range paths {
+			data, err := os.ReadFile(path)
+			if err != nil {
+				t.Fatal(err)
+			}
+			runs[i] = append(runs[i], data)
+			names[i] = append(names[i], filepath.Base(path))
+		}
+	}
+	want := []string{"solid.png", "solid.svg", "solid-mode1.png", "solid-mode1.svg", "solid-mode2.png", "solid-mode2.svg"}
+	if !slices.Equal(names[0], want) || !slices.Equal(names[1], want) {
+		t.Fatalf("files %q and %q, want %q", names[0], names[1], want)
+	}
+	for k := range runs[0] {
+		if !bytes.Equal(runs[0][k], runs[1][k]) {
+			t.Errorf("%s differs between two runs", want[k])
+		}
 	}
 }
