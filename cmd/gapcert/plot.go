@@ -308,7 +308,7 @@ func plotPolyhedron(cmd *cobra.Command, path, out, slice string) error {
 		return err
 	}
 	if p.Polyhedron == nil {
-		return fail(fmt.Errorf("%s: a problem file is drawn here only for a polyhedron (hint: draw an interval or a polygon with certify --plot DIR)", path))
+		return fail(fmt.Errorf("%s: a problem file is drawn here only for a polyhedron (hint: certify --plot DIR draws an interval, a polygon, a box or a prism)", path))
 	}
 	var secs []*plot.Section
 	if slice == "" {
