@@ -122,28 +122,35 @@ func polygonTexts(f *problem.Problem) [][2]string {
 }
 
 // ProductModes are approximate eigenfunctions of λ1 and λ2 of a certified
-// product with a separable potential, for pictures: products of its
-// factors' approximate eigenfunctions (floating-point choices, never part
-// of a proof). The form is exact (separation of variables: a product of
-// factor eigenfunctions is an eigenfunction of the product with the sum of
-// their eigenvalues), the factors' eigenvectors are approximations.
+// product, for pictures (floating-point choices, never part of a proof).
+// With a separable potential they are products of the factors'
+// approximate eigenfunctions: the form is exact (separation of variables:
+// a product of factor eigenfunctions is an eigenfunction of the product
+// with the sum of their eigenvalues), the factors' eigenvectors are
+// approximations. A product of two intervals certified as the rectangle it
+// is has the rectangle's approximate eigenfunctions.
 type ProductModes struct {
 	// Second is the factor whose second eigenfunction enters the mode of
 	// λ2 (the others give their first): the factor whose certified gap
 	// has the least midpoint (a choice; when gaps tie, λ2 is multiple and
-	// this is one of its eigenfunctions).
+	// this is one of its eigenfunctions). It is −1 for a rectangle.
 	Second int
+	// Triangles is the rectangle's trial mesh (vertex midpoints), nil for
+	// products of factor modes.
+	Triangles [][3][2]float64
 
 	dims  []int
 	modes []*certify.Modes
 }
 
 // ProductModesOf returns the approximate eigenfunctions of λ1 and λ2 of
-// the separable product p from its certificate c: each factor's certificate
-// (stored in c's method) gives its first two approximate eigenfunctions on
-// its certified trial space (certify.ApproximateModes); the mode of λ1 is
-// the product of the factors' first, the mode of λ2 that with factor
-// Second's second eigenfunction instead. It panics if p is not a product.
+// the product p from its certificate c. For sums of the factors'
+// eigenvalues, each factor's certificate (stored in c's method) gives its
+// first two approximate eigenfunctions on its certified trial space
+// (certify.ApproximateModes); the mode of λ1 is the product of the
+// factors' first, the mode of λ2 that with factor Second's second
+// eigenfunction instead. For a rectangle, they are the rectangle's, on
+// its certified trial space. It panics if p is not a product.
 func ProductModesOf(p *problem.Problem, c *certs.Certificate) (*ProductModes, error) {
 	if !p.IsProduct() {
 		panic("plot: ProductModesOf needs a product problem")
@@ -152,8 +159,10 @@ func ProductModesOf(p *problem.Problem, c *certs.Certificate) (*ProductModes, er
 	if err := strictjson.Decode(c.Method, &pm); err != nil {
 		return nil, fmt.Errorf("the product's method: %v", err)
 	}
-	if pm.Kind != certify.KindProduct || pm.Combination != certify.CombineSums || len(pm.Factors) != p.Factors() {
-		return nil, fmt.Errorf("the product's method is not a combination of %d factors' eigenvalues", p.Factors())
+	rectangle := pm.Combination == certify.CombineRectangle
+	if pm.Kind != certify.KindProduct || !rectangle && (pm.Combination != certify.CombineSums || len(pm.Factors) != p.Factors()) ||
+		rectangle && len(pm.Factors) != 1 {
+		return nil, fmt.Errorf("the product's method is neither a combination of %d factors' eigenvalues nor a rectangle", p.Factors())
 	}
 	out := &ProductModes{Second: -1}
 	best := math.Inf(1)
@@ -167,7 +176,7 @@ func ProductModesOf(p *problem.Problem, c *certs.Certificate) (*ProductModes, er
 			return nil, fmt.Errorf("factor %d's problem: %v", i, err)
 		}
 		count := min(2, len(fc.Results.Eigenvalues))
-		if count == 2 {
+		if count == 2 && !rectangle {
 			l1, err1 := fc.Results.Eigenvalues[0].Bound().Interval()
 			l2, err2 := fc.Results.Eigenvalues[1].Bound().Interval()
 			if err1 == nil && err2 == nil {
@@ -182,15 +191,18 @@ func ProductModesOf(p *problem.Problem, c *certs.Certificate) (*ProductModes, er
 		}
 		out.dims = append(out.dims, fp.Dim)
 		out.modes = append(out.modes, m)
+		if rectangle {
+			out.Triangles = m.Triangles
+		}
 	}
-	if out.Second < 0 {
+	if out.Second < 0 && !rectangle {
 		return nil, fmt.Errorf("no factor's certificate has two eigenvalues")
 	}
 	return out, nil
 }
 
 // Eval returns the approximate eigenfunction of λ_{k+1} (k = 0 or 1) at
-// (x, y, z).
+// (x, y, z) (z is ignored in two dimensions).
 func (m *ProductModes) Eval(k int, x, y, z float64) float64 {
 	pt := [3]float64{x, y, z}
 	v, at := 1.0, 0

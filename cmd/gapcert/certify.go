@@ -208,11 +208,20 @@ func progressWanted(cmd *cobra.Command, quiet, progress bool) bool {
 // problem, labelled with their certified enclosures.
 func drawModes(dir string, p *problem.Problem, c *certs.Certificate) ([]string, error) {
 	const count = 2
-	modes, err := certify.ApproximateModes(p, c, count)
-	if err != nil {
-		return nil, err
+	var m *plot.Modes
+	if p.IsProduct() { // a rectangle: its own modes, or products of its factors'
+		modes, err := plot.ProductModesOf(p, c)
+		if err != nil {
+			return nil, err
+		}
+		m = &plot.Modes{Title: p.Name, Eval: func(k int, x, y float64) float64 { return modes.Eval(k, x, y, 0) }, Triangles: modes.Triangles}
+	} else {
+		modes, err := certify.ApproximateModes(p, c, count)
+		if err != nil {
+			return nil, err
+		}
+		m = &plot.Modes{Title: p.Name, Eval: modes.Eval, Triangles: modes.Triangles}
 	}
-	m := &plot.Modes{Title: p.Name, Eval: modes.Eval, Triangles: modes.Triangles}
 	if p.Dim == 1 {
 		m.Interval = [2]float64{p.Interval[0].Val.Mid(), p.Interval[1].Val.Mid()}
 	} else {

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"math/big"
 	"os"
 	"path/filepath"
@@ -161,5 +162,49 @@ func TestCertifyPlotRefusals(t *testing.T) {
 				t.Fatalf("%v: %s was written", c.args, f)
 			}
 		}
+	}
+}
+
+// TestCertifyPlotRectangleProduct: certify --plot on a product of two
+// intervals draws the rectangle's modes, each labelled with the
+// certificate's enclosure: products of the factors' modes for a
+// separable potential (no mesh), the rectangle's own (with its mesh)
+// when the potential mixes x and y.
+func TestCertifyPlotRectangleProduct(t *testing.T) {
+	dir := t.TempDir()
+	for _, tc := range []struct {
+		name, potential string
+		files           []string
+	}{
+		{"separable", "x^2 + y", []string{"mode1.png", "mode1.svg", "mode2.png", "mode2.svg"}},
+		{"mixed", "x*y", []string{"mesh.png", "mesh.svg", "mode1.png", "mode1.svg", "mode2.png", "mode2.svg"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			file := filepath.Join(dir, tc.name+".json")
+			body := `{"domain": {"product": [{"interval": ["0","1"]}, {"interval": ["0","2"]}]}, "boundary": ["dirichlet", ["neumann", "dirichlet"]], "potential": "` + tc.potential + `"}`
+			if err := os.WriteFile(file, []byte(body), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			pics, cert := filepath.Join(dir, tc.name), filepath.Join(dir, tc.name+".cert.json")
+			if code, out, errs := execute("certify", file, "-q", "--rel-width", "1e-2", "-o", cert, "--plot", pics); code != exitOK {
+				t.Fatalf("exit %d, stdout %q, stderr %q", code, out, errs)
+			}
+			entries, _ := os.ReadDir(pics)
+			var got []string
+			for _, e := range entries {
+				got = append(got, e.Name())
+			}
+			if !slices.Equal(got, tc.files) {
+				t.Errorf("files %q, want %q", got, tc.files)
+			}
+			c := readCertificate(t, cert)
+			for k, e := range c.Results.Eigenvalues[:2] {
+				data, _ := os.ReadFile(filepath.Join(pics, fmt.Sprintf("mode%d.svg", k+1)))
+				want := fmt.Sprintf("[%s, %s]", shortLower(e.Lower), shortUpper(e.Upper))
+				if !strings.Contains(string(data), want) {
+					t.Errorf("mode%d.svg does not carry the certificate's enclosure %s", k+1, want)
+				}
+			}
+		})
 	}
 }
