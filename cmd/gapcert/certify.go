@@ -88,7 +88,8 @@ reached, 130 when interrupted.
 With --plot DIR the pictures are drawn into DIR after the certificate is
 written, titled with its enclosures of λ1, λ2 and the gap. An interval or
 a polygon: mesh (2D) and mode1, mode2, the approximate eigenfunctions on
-the certificate's trial space. A polyhedron, or a box or prism given as a
+the certificate's trial space (a rectangle given as a product: its own,
+or the products of its factors'). A polyhedron, or a box or prism given as a
 product: solid (the solid, faces coloured by their condition, a
 polyhedron's mesh on its faces) and solid-mode1, solid-mode2, the
 approximate eigenfunctions of λ1 and λ2 on the plane --slice AXIS=VALUE
