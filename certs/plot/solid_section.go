@@ -72,8 +72,11 @@ func MidSection(ph *problem.Polyhedron) (*Section, error) { return MidSectionAcr
 // c the midpoint of the least and greatest vertex coordinates along a,
 // rounded to a decimal with a step of a hundredth of the leading power of
 // ten of the extent, moved by such steps (+1, −1, +2, …, up to ±10) while
-// the plane passes through a vertex.
+// the plane passes through a vertex. It panics if a is not 0, 1 or 2.
 func MidSectionAcross(ph *problem.Polyhedron, a int) (*Section, error) {
+	if a < 0 || a > 2 {
+		panic(fmt.Sprintf("plot: MidSectionAcross with axis %d", a))
+	}
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, v := range ph.Vertices {
 		lo, hi = math.Min(lo, v[a].Val.Mid()), math.Max(hi, v[a].Val.Mid())
@@ -136,9 +139,9 @@ const (
 // every one does: the modes are sampled on each candidate, and a
 // candidate is nodal for mode k when its largest |u_k| is below pickNodal
 // times the largest over all candidates. A mode whose nodal set holds the
-// default plane (the second Dirichlet mode of a box twice as tall as wide,
-// sin(πx) sin(πy) sin(πz) on [0, 1]² × [0, 2] at z = 1) would otherwise show the noise of
-// its floating-point zeros. A choice; s.Section is not changed.
+// default plane (the second Dirichlet mode sin(πx) sin(πy) sin(πz) of the
+// box [0, 1]² × [0, 2] at z = 1) would otherwise show the noise of its
+// floating-point zeros. A choice; s.Section is not changed.
 func PickSection(s *Solid, candidates []*Section) *Section {
 	if len(candidates) == 0 {
 		panic("plot: PickSection without candidates")
