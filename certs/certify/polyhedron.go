@@ -1,11 +1,9 @@
 package certify
 
 import (
-	"cmp"
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 
 	"gapcert/certs/certify/proof"
 	"gapcert/fem/boundary"
@@ -205,38 +203,14 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 }
 
 // polyhedronMesh returns the cone tetrahedra of the polyhedron (apex
-// joined to the outward triangles of its faces; fem/problem's Nodes,
-// Triangles and TriangleFaces; package fem/mesh3 proves that they tile
-// it) refined uniformly levels times. The refinement depends on each
-// tetrahedron's local vertex order, so the triangles are put in a form
-// that depends only on the set of triangles: each rotated cyclically (its
-// orientation kept) to start at its least vertex, and sorted by face and
-// vertices. A problem read from its canonical form (Check) then has the
-// same mesh as the problem file it came from, whose inward-listed faces
-// are reversed there.
+// joined to the outward triangles of its faces, in the order of
+// fem/mesh3's Cones, which depends only on the set of triangles, so that
+// a problem read from its canonical form (Check) has the same mesh as the
+// problem file it came from; Cones proves that they tile it) refined
+// uniformly levels times.
 func polyhedronMesh(p *problem.Problem, levels int) (*tet.Mesh, error) {
 	ph := p.Polyhedron
-	faces := ph.TriangleFaces()
-	nodes := ph.Nodes()
-	apex := len(ph.Vertices) // Nodes: the vertices, then the apex
-	bnd := make([]mesh3.BoundaryFace, 0, len(faces))
-	for i, tr := range ph.Triangles() {
-		for tr[0] > tr[1] || tr[0] > tr[2] {
-			tr = [3]int{tr[1], tr[2], tr[0]}
-		}
-		bnd = append(bnd, mesh3.BoundaryFace{A: tr[0], B: tr[1], C: tr[2], Face: faces[i]})
-	}
-	slices.SortFunc(bnd, func(x, y mesh3.BoundaryFace) int {
-		return cmp.Or(cmp.Compare(x.Face, y.Face), cmp.Compare(x.A, y.A), cmp.Compare(x.B, y.B), cmp.Compare(x.C, y.C))
-	})
-	tets := make([][4]int, len(bnd))
-	for i, b := range bnd {
-		// The cone over the outward triangle (a, b, c) with the apex inside
-		// is positively oriented (fem/problem's Tetrahedra; FromPolyhedron
-		// checks it again); a cyclic rotation keeps the orientation.
-		tets[i] = [4]int{apex, b.A, b.B, b.C}
-	}
-	m, err := mesh3.FromPolyhedron(nodes, tets, bnd)
+	m, err := mesh3.Cones(ph.Nodes(), len(ph.Vertices), ph.Triangles(), ph.TriangleFaces())
 	if err != nil {
 		return nil, err
 	}

@@ -2,8 +2,11 @@
 // polygon and the first approximate eigenfunctions of an interval or a
 // polygon, the ground-state block of a certificate (GroundState), and a
 // polyhedron with approximate eigenfunctions on a plane section (Solid,
-// WriteSolid; the modes from SolidModesOf, the section from NewSection),
-// written as PNG or SVG files.
+// WriteSolid, WriteSolidDir; the section from NewSection; the modes from
+// SolidModesOf on a space of the picture's own, from SolidModesFor on a
+// certificate's trial space, or for a box or prism given as a product,
+// drawn as the polyhedron it is (ProductPolyhedron), from ProductModesOf:
+// products of its factors' modes), written as PNG or SVG files.
 //
 // Everything in this package is floating point at round-to-nearest and
 // belongs to the choosing side of gapcert: the pictures of modes show

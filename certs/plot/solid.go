@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"os"
 	"path/filepath"
 	"slices"
 	"sort"
@@ -43,6 +44,11 @@ type Solid struct {
 	// Samples is the number of grid cells along the longer side of the
 	// section's bounding box (0: DefaultSamples2D).
 	Samples int
+
+	// Certified, when not empty, are lines of certified results given by
+	// the caller (e.g. "λ1 ∈ [29.608789, 29.608837]"), printed under the
+	// title of every picture; the package never computes them.
+	Certified []string
 }
 
 // SolidPaths returns the files WriteSolid writes for path: path itself
@@ -74,18 +80,14 @@ func SolidPaths(path string, modes int) []string {
 // It returns the paths written. An unknown format and a mode that cannot
 // be drawn (*ModeError) are errors; malformed input panics.
 func WriteSolid(path string, s *Solid) ([]string, error) {
-	s.check()
 	f := strings.TrimPrefix(strings.ToLower(filepath.Ext(path)), ".")
 	if err := checkFormats([]string{f}); err != nil {
+		s.check()
 		return nil, fmt.Errorf("%s: %v", path, err)
 	}
-	pics := []picture{solidPicture(s)}
-	for k := range s.Labels {
-		g, err := sampleSection(s, k)
-		if err != nil {
-			return nil, err
-		}
-		pics = append(pics, slicePicture(s, k, g))
+	pics, err := solidPictures(s)
+	if err != nil {
+		return nil, err
 	}
 	var written []string
 	for i, p := range SolidPaths(path, len(s.Labels)) {
@@ -95,6 +97,50 @@ func WriteSolid(path string, s *Solid) ([]string, error) {
 		written = append(written, p)
 	}
 	return written, nil
+}
+
+// WriteSolidDir draws s as WriteSolid does into the directory dir
+// (created if missing), in each of formats ("png", "svg"): for each
+// picture in turn, solid.<fmt>, then solid-mode<k>.<fmt> for each label.
+// It returns the paths written.
+func WriteSolidDir(dir string, s *Solid, formats []string) ([]string, error) {
+	if err := checkFormats(formats); err != nil {
+		s.check()
+		return nil, err
+	}
+	pics, err := solidPictures(s)
+	if err != nil {
+		return nil, err
+	}
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return nil, err
+	}
+	var written []string
+	for i := range pics {
+		for _, f := range formats {
+			p := SolidPaths(filepath.Join(dir, "solid."+f), len(s.Labels))[i]
+			if err := writeFile(p, pics[i], f); err != nil {
+				return written, err
+			}
+			written = append(written, p)
+		}
+	}
+	return written, nil
+}
+
+// solidPictures returns the pictures of s: the solid, then each mode on
+// the section.
+func solidPictures(s *Solid) ([]picture, error) {
+	s.check()
+	pics := []picture{solidPicture(s)}
+	for k := range s.Labels {
+		g, err := sampleSection(s, k)
+		if err != nil {
+			return nil, err
+		}
+		pics = append(pics, slicePicture(s, k, g))
+	}
+	return pics, nil
 }
 
 // FaceTriangle is a boundary triangle of a mesh of a solid, on face Face.
@@ -216,7 +262,7 @@ func shade(c color.Color, n [3]float64) color.Color {
 
 // solidPicture draws the solid (see WriteSolid).
 func solidPicture(s *Solid) picture {
-	title := titleOf(&Modes{Title: s.Title}) + "\nboundary"
+	title := solidTitle(s) + "\nboundary"
 	if len(s.Triangles) > 0 {
 		title += fmt.Sprintf(" and mesh: %d boundary triangles", len(s.Triangles))
 	}
@@ -257,6 +303,16 @@ func solidPicture(s *Solid) picture {
 			p.Draw(c)
 		},
 	}
+}
+
+// solidTitle returns the first lines of the title of every picture of
+// s: the problem's name and the certified lines.
+func solidTitle(s *Solid) string {
+	title := titleOf(&Modes{Title: s.Title})
+	for _, line := range s.Certified {
+		title += "\n" + drawable(LambdaSubscripts(line))
+	}
+	return title
 }
 
 // fillEntry is a legend entry of a face colour: a filled square.
@@ -439,10 +495,24 @@ func (sp *solidPlotter) DataRange() (xmin, xmax, ymin, ymax float64) {
 	return boundingBox(sp.screenPoints())
 }
 
-// sampleSection evaluates mode k of s at the centres of a grid of cells
-// over the section's bounding box, inside its loops (even–odd rule over
-// all loops), and normalises it.
+// sampleSection evaluates mode k of s on its section (sectionValues) and
+// normalises it.
 func sampleSection(s *Solid, k int) (*grid, error) {
+	g, err := sectionValues(s, k)
+	if err != nil {
+		return nil, err
+	}
+	if !normalise(g.z) {
+		return nil, &ModeError{Mode: k}
+	}
+	return g, nil
+}
+
+// sectionValues evaluates mode k of s at the centres of a grid of cells
+// over the section's bounding box, inside its loops (even–odd rule over
+// all loops); the values outside are NaN. A value inside that is not
+// finite is a *ModeError.
+func sectionValues(s *Solid, k int) (*grid, error) {
 	n := s.Samples
 	if n == 0 {
 		n = DefaultSamples2D
@@ -475,9 +545,6 @@ func sampleSection(s *Solid, k int) (*grid, error) {
 			g.z[r*g.nx+c] = val
 		}
 	}
-	if !normalise(g.z) {
-		return nil, &ModeError{Mode: k}
-	}
 	return g, nil
 }
 
@@ -485,7 +552,7 @@ func sampleSection(s *Solid, k int) (*grid, error) {
 // grid g, like modePicture on a polygon.
 func slicePicture(s *Solid, k int, g *grid) picture {
 	sec := s.Section
-	p := newPlot(fmt.Sprintf("%s\nmode %d on the slice %s: %s\n%s", titleOf(&Modes{Title: s.Title}), k+1,
+	p := newPlot(fmt.Sprintf("%s\nmode %d on the slice %s:\n%s\n%s", solidTitle(s), k+1,
 		drawable(sec.Slice.String()), drawable(LambdaSubscripts(s.Labels[k])), SliceNote))
 	u, v := planeAxes[sec.Slice.Axis][0], planeAxes[sec.Slice.Axis][1]
 	p.X.Label.Text, p.Y.Label.Text = axisNames[u], axisNames[v]

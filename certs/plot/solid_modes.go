@@ -34,30 +34,61 @@ type SolidModes struct {
 }
 
 // SolidModesOf returns the lowest count approximate eigenfunctions of the
-// polyhedron problem p: the cone tetrahedra of the polyhedron (package
-// fem/mesh3) refined uniformly by Bey's red refinement, Bernstein P_2 or
-// P_3 (see solidModeTets) with the problem's face conditions (package
-// fem/tet), and the lowest eigenvectors of the
-// floating-point pencil a + σ·m, σ = 1 + max(0, −min V) so that the pencil
-// is positive definite, by the sparse subspace iteration of the trial
-// space. It panics if p is not a polyhedron problem.
+// polyhedron problem p on a trial space of its own size (see
+// solidModeTets): the cone tetrahedra refined while they keep within
+// solidModeTets, P_3 when it keeps within about solidModeUnknowns
+// unknowns, else P_2 (SolidModesOn). It panics if p is not a polyhedron
+// problem.
 func SolidModesOf(p *problem.Problem, count int) (*SolidModes, error) {
-	ph := p.Polyhedron
-	if ph == nil {
+	if p.Polyhedron == nil {
 		panic("plot: SolidModesOf needs a polyhedron problem")
 	}
-	var bnd []mesh3.BoundaryFace
-	for k, tr := range ph.Triangles() {
-		bnd = append(bnd, mesh3.BoundaryFace{A: tr[0], B: tr[1], C: tr[2], Face: ph.TriangleFaces()[k]})
+	tets, levels := len(p.Polyhedron.Triangles()), 0
+	for 8*tets <= solidModeTets {
+		tets *= 8
+		levels++
 	}
-	m3, err := mesh3.FromPolyhedron(ph.Nodes(), ph.Tetrahedra(), bnd)
+	degree := 2
+	if 27*tets <= 6*solidModeUnknowns {
+		degree = 3
+	}
+	return SolidModesOn(p, degree, levels, count, 0)
+}
+
+// A TooLargeError reports a trial space with more unknowns than the limit
+// given to SolidModesOn; nothing was solved.
+type TooLargeError struct{ Unknowns, Limit int }
+
+func (e *TooLargeError) Error() string {
+	return fmt.Sprintf("the trial space has %d unknowns, more than the %d a picture may use", e.Unknowns, e.Limit)
+}
+
+// SolidModesOn returns the lowest count approximate eigenfunctions of the
+// polyhedron problem p on Bernstein P_degree with the problem's face
+// conditions (package fem/tet) on the cone tetrahedra of the polyhedron
+// (fem/mesh3's Cones, as the certifier meshes it) refined uniformly levels
+// times by Bey's red refinement: the lowest eigenvectors of the
+// floating-point pencil a + σ·m, σ = 1 + max(0, −min V) so that the
+// pencil is positive definite, by the sparse subspace iteration of the
+// trial space. With these the certifier's recipe (its degree and
+// refinements), the trial space is the certificate's. A positive limit
+// bounds the unknowns: a larger space is a *TooLargeError, found before
+// anything is solved. It panics if p is not a polyhedron problem, degree
+// < 1 or levels < 0.
+func SolidModesOn(p *problem.Problem, degree, levels, count, limit int) (*SolidModes, error) {
+	ph := p.Polyhedron
+	if ph == nil {
+		panic("plot: SolidModesOn needs a polyhedron problem")
+	}
+	if degree < 1 || levels < 0 {
+		panic(fmt.Sprintf("plot: SolidModesOn with degree %d and %d refinements", degree, levels))
+	}
+	m3, err := mesh3.Cones(ph.Nodes(), len(ph.Vertices), ph.Triangles(), ph.TriangleFaces())
 	if err != nil {
 		return nil, fmt.Errorf("the tetrahedra of the polyhedron: %v", err)
 	}
-	levels := 0
-	for 8*len(m3.Tets) <= solidModeTets {
+	for range levels {
 		m3 = m3.Refine()
-		levels++
 	}
 	mesh, err := tet.NewMesh(m3, len(ph.Faces))
 	if err != nil {
@@ -67,11 +98,10 @@ func SolidModesOf(p *problem.Problem, count int) (*SolidModes, error) {
 	for i, b := range p.Boundary {
 		bc[i] = b.Condition()
 	}
-	degree := 2
-	if 27*len(m3.Tets) <= 6*solidModeUnknowns {
-		degree = 3
-	}
 	space := tet.NewLagrange(mesh, degree, bc)
+	if limit > 0 && space.N() > limit {
+		return nil, &TooLargeError{Unknowns: space.N(), Limit: limit}
+	}
 	v, err := tet.NewPotential(mesh, p.Potential, 1)
 	if err != nil {
 		return nil, fmt.Errorf("the potential on the mesh: %v", err)

@@ -1,6 +1,7 @@
 package plot
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"math/big"
@@ -63,14 +64,22 @@ func ParseSlice(text string) (Slice, error) {
 }
 
 // MidSection returns the section of ph by a plane z = c about halfway up
-// (a choice): c is the midpoint of the lowest and highest vertex heights
+// (MidSectionAcross with the z axis).
+func MidSection(ph *problem.Polyhedron) (*Section, error) { return MidSectionAcross(ph, 2) }
+
+// MidSectionAcross returns the section of ph by a plane across axis a
+// (0, 1, 2 for x, y, z) about halfway (a choice): the plane x[a] = c with
+// c the midpoint of the least and greatest vertex coordinates along a,
 // rounded to a decimal with a step of a hundredth of the leading power of
-// ten of the height, moved by such steps (+1, −1, +2, …, up to ±10) while
-// the plane passes through a vertex.
-func MidSection(ph *problem.Polyhedron) (*Section, error) {
+// ten of the extent, moved by such steps (+1, −1, +2, …, up to ±10) while
+// the plane passes through a vertex. It panics if a is not 0, 1 or 2.
+func MidSectionAcross(ph *problem.Polyhedron, a int) (*Section, error) {
+	if a < 0 || a > 2 {
+		panic(fmt.Sprintf("plot: MidSectionAcross with axis %d", a))
+	}
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, v := range ph.Vertices {
-		lo, hi = math.Min(lo, v[2].Val.Mid()), math.Max(hi, v[2].Val.Mid())
+		lo, hi = math.Min(lo, v[a].Val.Mid()), math.Max(hi, v[a].Val.Mid())
 	}
 	// step = 10^e/100 with 10^e ≤ hi − lo, as an exact rational.
 	e := int(math.Floor(math.Log10(hi-lo))) - 2
@@ -88,11 +97,83 @@ func MidSection(ph *problem.Polyhedron) (*Section, error) {
 		}
 		c := new(big.Rat).Mul(step, new(big.Rat).SetFloat64(mid+float64(off)))
 		var sec *Section
-		if sec, err = NewSection(ph, Slice{Axis: 2, Value: c}); err == nil {
+		if sec, err = NewSection(ph, Slice{Axis: a, Value: c}); err == nil {
 			return sec, nil
 		}
 	}
 	return nil, err
+}
+
+// DefaultSections returns the candidate default sections of ph, for
+// PickSection: about halfway across z, x and y in that order
+// (MidSectionAcross), those that can be drawn; the error is z's when none
+// can.
+func DefaultSections(ph *problem.Polyhedron) ([]*Section, error) {
+	var out []*Section
+	var first error
+	for _, a := range []int{2, 0, 1} {
+		sec, err := MidSectionAcross(ph, a)
+		if err != nil {
+			first = cmp.Or(first, err)
+			continue
+		}
+		out = append(out, sec)
+	}
+	if len(out) == 0 {
+		return nil, first
+	}
+	return out, nil
+}
+
+// pickSamples is the grid of PickSection's samples (cells along the
+// longer side), and pickNodal the fraction of a mode's largest sampled
+// magnitude over all candidates below which a section counts as (nearly)
+// a nodal set of that mode (choices).
+const (
+	pickSamples = 24
+	pickNodal   = 0.05
+)
+
+// PickSection returns the first of candidates (at least one) on which no
+// mode of s (s.Eval, one per label) nearly vanishes, or the first when
+// every one does: the modes are sampled on each candidate, and a
+// candidate is nodal for mode k when its largest |u_k| is below pickNodal
+// times the largest over all candidates. A mode whose nodal set holds the
+// default plane (the second Dirichlet mode sin(πx) sin(πy) sin(πz) of the
+// box [0, 1]² × [0, 2] at z = 1) would otherwise show the noise of its
+// floating-point zeros. A choice; s.Section is not changed.
+func PickSection(s *Solid, candidates []*Section) *Section {
+	if len(candidates) == 0 {
+		panic("plot: PickSection without candidates")
+	}
+	peaks := make([][]float64, len(candidates))
+	top := make([]float64, len(s.Labels))
+	for i, sec := range candidates {
+		t := *s
+		t.Section, t.Samples = sec, pickSamples
+		for k := range s.Labels {
+			peak := 0.0 // a mode that is not finite here: drawn nowhere (WriteSolid's error)
+			if g, err := sectionValues(&t, k); err == nil {
+				for _, z := range g.z {
+					if !math.IsNaN(z) {
+						peak = math.Max(peak, math.Abs(z))
+					}
+				}
+			}
+			peaks[i] = append(peaks[i], peak)
+			top[k] = math.Max(top[k], peak)
+		}
+	}
+	for i, sec := range candidates {
+		nodal := false
+		for k, peak := range peaks[i] {
+			nodal = nodal || !(peak >= pickNodal*top[k])
+		}
+		if !nodal {
+			return sec
+		}
+	}
+	return candidates[0]
 }
 
 // A SliceError reports a slice plane that cannot be drawn: it misses the

@@ -398,3 +398,40 @@ func TestSolidOfBoundary(t *testing.T) {
 		t.Errorf("sides %v, want %v", got, want)
 	}
 }
+
+// TestPickSectionAvoidsNodalPlanes checks the default section of the box
+// [0, 1]² × [0, 2] with its first two Dirichlet eigenfunctions
+// sin(πx) sin(πy) sin(πz/2) and sin(πx) sin(πy) sin(πz) (separation of
+// variables, common practice): the second vanishes on z = 1, the first
+// candidate, so the section across x about halfway is drawn; with the
+// first mode alone, z = 1 is.
+func TestPickSectionAvoidsNodalPlanes(t *testing.T) {
+	tall := slices.Clone(cubeVertices)
+	for i := 4; i < 8; i++ {
+		tall[i][2] = "2"
+	}
+	p := polyhedronProblem(t, "tall box", tall, cubeFaces, `"dirichlet"`)
+	secs, err := DefaultSections(p.Polyhedron)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var names []string
+	for _, sec := range secs {
+		names = append(names, sec.Slice.String())
+	}
+	if want := []string{"z = 1", "x = 0.5", "y = 0.5"}; !slices.Equal(names, want) {
+		t.Fatalf("candidates %q, want %q", names, want)
+	}
+	s := SolidOf(p)
+	s.Eval = func(k int, x, y, z float64) float64 {
+		return math.Sin(math.Pi*x) * math.Sin(math.Pi*y) * math.Sin(float64(k+1)*math.Pi*z/2)
+	}
+	s.Labels = []string{"λ1", "λ2"}
+	if got := PickSection(s, secs).Slice.String(); got != "x = 0.5" {
+		t.Errorf("two modes: section %s, want x = 0.5", got)
+	}
+	s.Labels = s.Labels[:1]
+	if got := PickSection(s, secs).Slice.String(); got != "z = 1" {
+		t.Errorf("first mode: section %s, want z = 1", got)
+	}
+}

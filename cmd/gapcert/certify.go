@@ -30,6 +30,7 @@ type certifyFlags struct {
 	progress    bool
 	strict      bool
 	plotDir     string
+	slice       string // certify only: the plane of the pictures of a three-dimensional domain
 	groundState bool
 }
 
@@ -41,7 +42,7 @@ func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
 	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
 	cmd.Flags().BoolVar(&f.strict, "strict", false, "exit with status 4 when the target width is not reached (the certificate is written either way)")
 	cmd.Flags().BoolVar(&f.groundState, "ground-state", false, "also certify the ground state: log-concave or not (with a witness), the L2 error of the approximate ground state, and its values at the problem's \"points\" (results.ground_state)")
-	cmd.Flags().StringVar(&f.plotDir, "plot", "", "also draw the mesh and the first two approximate eigenfunctions (PNG and SVG) into this directory; the pictures are approximations, not part of the proof")
+	cmd.Flags().StringVar(&f.plotDir, "plot", "", "also draw the mesh (a polyhedron: the solid) and the first two approximate eigenfunctions (3D: on a slice) with the certified enclosures, PNG and SVG, into this directory; the eigenfunctions are approximations, not part of the proof")
 }
 
 func newCertifyCmd() *cobra.Command {
@@ -82,7 +83,23 @@ Exit status: 0 on success, 1 on a failure or a bad option (--rel-width
 below 1e-15 or not below 1, --time-limit not positive), 2 if the problem
 file is invalid (its own target below 1e-15 included) or its first mesh
 would exceed the memory budget, 4 with --strict when the target was not
-reached, 130 when interrupted.`,
+reached, 130 when interrupted.
+
+With --plot DIR the pictures are drawn into DIR after the certificate is
+written, titled with its enclosures of λ1, λ2 and the gap. An interval or
+a polygon: mesh (2D) and mode1, mode2, the approximate eigenfunctions on
+the certificate's trial space (a rectangle given as a product: its own,
+or the products of its factors'). A polyhedron, or a box or prism given as a
+product: solid (the solid, faces coloured by their condition, a
+polyhedron's mesh on its faces) and solid-mode1, solid-mode2, the
+approximate eigenfunctions of λ1 and λ2 on the plane --slice AXIS=VALUE
+(default z about halfway up, or x, then y, halfway across when a mode
+nearly vanishes there; a plane that misses the solid or passes through a
+vertex is refused before computing): on a polyhedron from the
+certificate's trial space when it has at most 8000 unknowns, else from a
+smaller one of the picture's own (the output says which); on a product
+the products of the factors' approximate eigenfunctions. They are
+approximations, not bounds, and say so.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			out := f.out
@@ -100,6 +117,7 @@ reached, 130 when interrupted.`,
 		},
 	}
 	f.register(cmd, "")
+	cmd.Flags().StringVar(&f.slice, "slice", "", "with --plot on a three-dimensional domain: the plane of the eigenfunctions, AXIS=VALUE (e.g. z=1/2; default z about halfway up, or x or y when a mode vanishes there)")
 	return cmd
 }
 
@@ -115,8 +133,12 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if f.timeLimit <= 0 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration (hint: --time-limit 60s)", f.timeLimit)}
 	}
-	if p.IsProduct() && (f.plotDir != "" || f.groundState) {
-		return &exitError{code: exitInvalid, err: errors.New("--plot and --ground-state are not available on product domains yet (hint: certify without them)")}
+	if p.IsProduct() && f.groundState {
+		return &exitError{code: exitInvalid, err: errors.New("--ground-state is not available on product domains yet (hint: certify without it)")}
+	}
+	solid, err := planSolid(p, f)
+	if err != nil {
+		return err
 	}
 	if i := certify.GroundStateClaim(p); i >= 0 && !f.groundState {
 		return &exitError{code: exitInvalid, err: fmt.Errorf("claims[%d]: %q names shape_margin, which only results.ground_state provides (hint: add --ground-state)", i, p.Claims[i])}
@@ -158,7 +180,13 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if stopped == certify.StopInterrupted {
 		return &exitError{code: exitInterrupted, err: errors.New("interrupted")}
 	}
-	if f.plotDir != "" {
+	if solid != nil {
+		files, err := solid.draw(cmd.OutOrStdout(), f.plotDir, p, c)
+		if err != nil {
+			return &exitError{code: exitFailure, err: fmt.Errorf("the certificate is written, but the pictures could not be drawn into %s: %v", f.plotDir, err)}
+		}
+		fmt.Fprintf(cmd.OutOrStdout(), "pictures (approximate eigenfunctions, not part of the proof): %s\n", strings.Join(files, ", "))
+	} else if f.plotDir != "" {
 		files, err := drawModes(f.plotDir, p, c)
 		if err != nil {
 			return &exitError{code: exitFailure, err: fmt.Errorf("the certificate is written, but the pictures could not be drawn into %s: %v", f.plotDir, err)}
@@ -181,11 +209,20 @@ func progressWanted(cmd *cobra.Command, quiet, progress bool) bool {
 // problem, labelled with their certified enclosures.
 func drawModes(dir string, p *problem.Problem, c *certs.Certificate) ([]string, error) {
 	const count = 2
-	modes, err := certify.ApproximateModes(p, c, count)
-	if err != nil {
-		return nil, err
+	var m *plot.Modes
+	if p.IsProduct() { // a rectangle: its own modes, or products of its factors'
+		modes, err := plot.ProductModesOf(p, c)
+		if err != nil {
+			return nil, err
+		}
+		m = &plot.Modes{Title: p.Name, Eval: func(k int, x, y float64) float64 { return modes.Eval(k, x, y, 0) }, Triangles: modes.Triangles}
+	} else {
+		modes, err := certify.ApproximateModes(p, c, count)
+		if err != nil {
+			return nil, err
+		}
+		m = &plot.Modes{Title: p.Name, Eval: modes.Eval, Triangles: modes.Triangles}
 	}
-	m := &plot.Modes{Title: p.Name, Eval: modes.Eval, Triangles: modes.Triangles}
 	if p.Dim == 1 {
 		m.Interval = [2]float64{p.Interval[0].Val.Mid(), p.Interval[1].Val.Mid()}
 	} else {
@@ -204,9 +241,15 @@ func drawModes(dir string, p *problem.Problem, c *certs.Certificate) ([]string, 
 		m.Boundary = append(m.Boundary, side)
 	}
 	for _, e := range c.Results.Eigenvalues[:count] {
-		m.Labels = append(m.Labels, fmt.Sprintf("λ%d ∈ [%s, %s]", e.Index, shortLower(e.Lower), shortUpper(e.Upper)))
+		m.Labels = append(m.Labels, enclosureLabel(e.Index, e.Bound()))
 	}
 	return plot.Write(dir, m, plot.Formats())
+}
+
+// enclosureLabel is the label "λk ∈ [lower, upper]" of a certified
+// enclosure, shortened outward (shortLower, shortUpper).
+func enclosureLabel(k int, b certs.Bound) string {
+	return fmt.Sprintf("λ%d ∈ [%s, %s]", k, shortLower(b.Lower), shortUpper(b.Upper))
 }
 
 // shortLower and shortUpper shorten printed bounds to 8 digits for labels,

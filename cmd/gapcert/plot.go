@@ -82,8 +82,11 @@ FILE-mode1 and FILE-mode2 the approximate eigenfunctions of λ1 and λ2 on
 the slice, computed in floating point from P_2 or P_3 on a refined
 tetrahedral mesh of the problem: approximations, not bounds. The slice
 is the plane AXIS = VALUE (AXIS x, y or z, VALUE exact, e.g. z=1/2), by
-default z about halfway up; a plane that misses the solid's interior or
+default z about halfway up (or x, then y, about halfway across when a
+mode nearly vanishes on it); a plane that misses the solid's interior or
 passes through a vertex is refused before anything is computed.
+"certify --plot DIR" draws a certified polyhedron, box or prism with its
+enclosures.
 
 The format follows the extension of --out (.png or .svg). Only the
 sampled points are certified; the pictures say so. This command draws
@@ -295,8 +298,8 @@ func isProblemFile(path string) bool {
 }
 
 // plotPolyhedron draws the polyhedron of the problem file at path and
-// its first two approximate modes on a slice (the given one or the
-// default) into out and the files beside it (plot.SolidPaths). The slice
+// its first two approximate modes on a slice (the given one or a default,
+// plot.DefaultSections and PickSection) into out and the files beside it (plot.SolidPaths). The slice
 // and the output paths are checked before the modes are computed.
 func plotPolyhedron(cmd *cobra.Command, path, out, slice string) error {
 	fail := func(err error) error { return &exitError{code: exitFailure, err: err} }
@@ -305,16 +308,18 @@ func plotPolyhedron(cmd *cobra.Command, path, out, slice string) error {
 		return err
 	}
 	if p.Polyhedron == nil {
-		return fail(fmt.Errorf("%s: a problem file is drawn here only for a polyhedron (hint: draw an interval or a polygon with certify --plot DIR)", path))
+		return fail(fmt.Errorf("%s: a problem file is drawn here only for a polyhedron (hint: certify --plot DIR draws an interval, a polygon, a box or a prism)", path))
 	}
-	var sec *plot.Section
+	var secs []*plot.Section
 	if slice == "" {
-		sec, err = plot.MidSection(p.Polyhedron)
+		secs, err = plot.DefaultSections(p.Polyhedron)
 	} else {
 		var s plot.Slice
+		var sec *plot.Section
 		if s, err = plot.ParseSlice(slice); err == nil {
 			sec, err = plot.NewSection(p.Polyhedron, s)
 		}
+		secs = []*plot.Section{sec}
 	}
 	if err != nil {
 		return fail(err)
@@ -331,15 +336,16 @@ func plotPolyhedron(cmd *cobra.Command, path, out, slice string) error {
 		return fail(fmt.Errorf("%s: %v", path, err))
 	}
 	s := plot.SolidOf(p)
-	s.Section, s.Eval, s.Triangles = sec, modes.Eval, modes.Triangles
+	s.Eval, s.Triangles = modes.Eval, modes.Triangles
 	for k := range count {
 		s.Labels = append(s.Labels, fmt.Sprintf("eigenfunction of λ%d", k+1))
 	}
+	s.Section = plot.PickSection(s, secs)
 	written, err := plot.WriteSolid(out, s)
 	if err != nil {
 		return fail(err)
 	}
 	fmt.Fprintf(cmd.OutOrStdout(), "%s: modes from P_%d on %d refinement(s) of the cone tetrahedra (%d unknowns), on the slice %s\npictures (approximations, not bounds) written to %s\n",
-		path, modes.Degree, modes.Levels, modes.Unknowns, sec.Slice, strings.Join(written, ", "))
+		path, modes.Degree, modes.Levels, modes.Unknowns, s.Section.Slice, strings.Join(written, ", "))
 	return nil
 }

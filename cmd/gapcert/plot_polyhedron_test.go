@@ -47,7 +47,7 @@ func TestPlotPolyhedron(t *testing.T) {
 		{[]string{"plot", cube, "--slice", "x=0", "-o", refused}, "slice x = 0: the plane misses the solid"},
 		{[]string{"plot", cube, "--slice", "z:1/2", "-o", refused}, `slice "z:1/2": want AXIS=VALUE with AXIS x, y or z (hint: --slice z=1/2)`},
 		{[]string{"plot", cube, "--x", "a", "-o", refused}, "--x belongs to a sweep; " + cube + " is a problem file"},
-		{[]string{"plot", square, "-o", refused}, "a problem file is drawn here only for a polyhedron (hint: draw an interval or a polygon with certify --plot DIR)"},
+		{[]string{"plot", square, "-o", refused}, "a problem file is drawn here only for a polyhedron (hint: certify --plot DIR draws an interval, a polygon, a box or a prism)"},
 		{[]string{"plot", filepath.Join(testSweeps, "convex"), "--x", "c", "--quantity", "gap", "--slice", "z=1/2", "-o", refused}, "--slice belongs to the problem file of a polyhedron"},
 	} {
 		code, _, errs := execute(c.args...)
