@@ -8,7 +8,7 @@ import (
 
 // BenchmarkConvexPotentialBudget measures the slowest decision: exp(x + y)
 // has a singular Hessian, so no triangle is decided and the subdivision
-// runs until its budget (maxTriangles) is spent.
+// runs until its budget (maxSimplices) is spent.
 func BenchmarkConvexPotentialBudget(b *testing.B) {
 	p, err := parseProblem(problemText(lshape, "exp(x + y)", `"dirichlet"`))
 	if err != nil {

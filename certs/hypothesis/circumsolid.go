@@ -145,7 +145,10 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 // intervals, a rectangle (see Rectangle: four right angles, so a rotated
 // rectangle counts, being a product after a rotation). Hence a polygon is
 // a product of circumsolids if and only if it is tangential or a
-// rectangle (a square is both); an interval is one.
+// rectangle (a square is both); an interval is one. A polyhedron is
+// decided by polyhedronProduct (a circumsolid, or a right prism over a
+// tangential polygon or a rectangle), a product of intervals and polygons
+// from its factors (decideProduct).
 //
 // The verdict is "proven" if either decision is proven, "disproven" if
 // both are disproven (the witness is that of Tangential, with the vertex
@@ -160,6 +163,9 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 //	ground state, Camb. J. Math. 8 (2020), 243–310, arXiv:1711.02779.
 func ProductOfCircumsolids(p *problem.Problem) certs.Hypothesis {
 	h := certs.Hypothesis{Name: CircumsolidProduct}
+	if p.Polyhedron != nil {
+		return polyhedronProduct(h, p)
+	}
 	if p.Dim == 1 {
 		return proven(h, "an interval is a one-dimensional circumsolid")
 	}
@@ -250,12 +256,21 @@ func sideRow[T exactField[T]](v [][]T, i int) (a, b, h, l2 T) {
 	return ey.Neg(), ex, ex.Mul(p[1]).Sub(ey.Mul(p[0])), ex.Mul(ex).Add(ey.Mul(ey))
 }
 
+// ring is the arithmetic of determinants and vector products: the exact
+// fields (exactField) and the enclosures of package interval.
+type ring[T any] interface {
+	Add(T) T
+	Sub(T) T
+	Mul(T) T
+	Neg() T
+}
+
 // cross returns the cross product x × y of 3-vectors.
-func cross[T exactField[T]](x, y [3]T) [3]T {
+func cross[T ring[T]](x, y [3]T) [3]T {
 	return [3]T{x[1].Mul(y[2]).Sub(x[2].Mul(y[1])), x[2].Mul(y[0]).Sub(x[0].Mul(y[2])), x[0].Mul(y[1]).Sub(x[1].Mul(y[0]))}
 }
 
-func dot[T exactField[T]](x, y [3]T) T { return x[0].Mul(y[0]).Add(x[1].Mul(y[1])).Add(x[2].Mul(y[2])) }
+func dot[T ring[T]](x, y [3]T) T { return x[0].Mul(y[0]).Add(x[1].Mul(y[1])).Add(x[2].Mul(y[2])) }
 
 // tangencyTest decides D_j for the sides j ≥ 3 of one polygon. The minor
 // of rows r, s, j is the triple product det[r; s; j] = row_j · (r × s),
@@ -364,7 +379,7 @@ func tangencyResidualZeroInterval(v [][2]problem.Number, rows [4]int) (zero, ok 
 				r++
 			}
 		}
-		t := det3Interval(m).Mul(l[p])
+		t := det3(m).Mul(l[p])
 		if p%2 == 0 {
 			t = t.Neg()
 		}
@@ -376,7 +391,8 @@ func tangencyResidualZeroInterval(v [][2]problem.Number, rows [4]int) (zero, ok 
 	return false, true
 }
 
-func det3Interval(m [3][3]interval.I) interval.I {
-	t := func(i, j, k int) interval.I { return m[0][i].Mul(m[1][j]).Mul(m[2][k]) }
+// det3 returns the determinant of m (the rule of Sarrus).
+func det3[T ring[T]](m [3][3]T) T {
+	t := func(i, j, k int) T { return m[0][i].Mul(m[1][j]).Mul(m[2][k]) }
 	return t(0, 1, 2).Add(t(1, 2, 0)).Add(t(2, 0, 1)).Sub(t(2, 1, 0)).Sub(t(0, 2, 1)).Sub(t(1, 0, 2))
 }

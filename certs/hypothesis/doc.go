@@ -31,6 +31,14 @@
 // ConvexPotential for why success of the enclosure on every cell also
 // proves V to be C².
 //
+// Circumsolids (Circumsolid, ProductOfCircumsolids): a convex polyhedron
+// has a ball touching every facet if and only if the linear system
+// N_f·c + |N_f|·r = N_f·p_f over its faces has a solution, the
+// three-dimensional form of the tangential polygon's system (the proofs
+// are in the doc comments); the systems are decided exactly for
+// coordinates read as surds or cyclotomic numbers, right prisms from the
+// exact vertices.
+//
 // Continuity of V (ContinuousPotential) follows from V being defined at
 // every point of each cell of a cover of the closed domain, each
 // operation of the formula grammar being continuous on its domain.

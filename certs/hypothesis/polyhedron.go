@@ -24,6 +24,8 @@ var polyhedronDeciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.ZeroPotential:       ZeroPotential,
 	named.ConvexPotential:     ConvexPotential,
 	named.ContinuousPotential: ContinuousPotential,
+	CircumsolidProduct:        ProductOfCircumsolids,
+	CircumsolidPolyhedron:     Circumsolid,
 }
 
 // decidePolyhedron is Decide on a polyhedron.

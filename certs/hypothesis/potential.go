@@ -167,7 +167,7 @@ func principalMinors(v *formula.Expr, box map[string]interval.I, d int) ([]inter
 	for i := range 3 {
 		copy(m[i][:], hs[i])
 	}
-	return []interval.I{hs[0][0], hs[1][1], hs[2][2], minor2(0, 1), minor2(0, 2), minor2(1, 2), det3Interval(m)}, nil
+	return []interval.I{hs[0][0], hs[1][1], hs[2][2], minor2(0, 1), minor2(0, 2), minor2(1, 2), det3(m)}, nil
 }
 
 // minorNames names the principal minors of principalMinors in dimension d.

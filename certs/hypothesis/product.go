@@ -29,8 +29,12 @@ import (
 //     since it is constant in the others; a sum of continuous functions; a
 //     sum of zeros), so each is proven when every factor's is; otherwise
 //     undecided, naming the first factor whose verdict is not proven.
-//   - the polygon shapes (triangle, rectangle, tangential polygon, product
-//     of circumsolids): undecided, decided for polygons only.
+//   - circumsolid_product: a product whose every factor is a product of
+//     circumsolids (an interval always; a polygon that is tangential or a
+//     rectangle, see ProductOfCircumsolids) is one, so it is proven when
+//     every factor's is; otherwise undecided, naming the factor.
+//   - the polygon shapes (triangle, rectangle, tangential polygon):
+//     undecided, decided for polygons only.
 //
 // On a domain of three or four coordinates that is not a product, the
 // same hypotheses are undecided (their deciders read intervals and
@@ -55,7 +59,9 @@ func decideProduct(name string, p *problem.Problem) (certs.Hypothesis, bool) {
 		rule = "V is the sum of the parts"
 	case named.ContinuousPotential:
 		rule = "V is the sum of the parts, each continuous"
-	case named.Triangle, named.Rectangle, TangentialPolygon, CircumsolidProduct:
+	case CircumsolidProduct:
+		rule = "a product of products of circumsolids is a product of circumsolids"
+	case named.Triangle, named.Rectangle, TangentialPolygon:
 		return undecidedAt(h, fmt.Sprintf("decided for polygons only; the domain is a product of %d coordinates", p.Dim)), true
 	default:
 		return certs.Hypothesis{}, false

@@ -11,8 +11,8 @@ import (
 // TestProductHypotheses: on products of three or four coordinates the
 // hypotheses about the domain and the potential are decided from the
 // factors (proven when every factor's is, undecided with the factor named
-// otherwise), those about the conditions from the faces, and the polygon
-// shapes are undecided.
+// otherwise), those about the conditions from the faces, the product of
+// circumsolids from the factors, and the polygon shapes are undecided.
 func TestProductHypotheses(t *testing.T) {
 	const square = `{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]}`
 	const lshape = `{"polygon":[["0","0"],["2","0"],["2","1"],["1","1"],["1","2"],["0","2"]]}`
@@ -47,4 +47,17 @@ func TestProductHypotheses(t *testing.T) {
 	requireVerdict(t, "4D box: neumann", h, certs.Proven)
 	h, _ = Decide(named.Triangle, c)
 	requireVerdict(t, "4D box: triangle", h, certs.Undecided)
+	h, _ = Decide(CircumsolidProduct, c)
+	requireVerdict(t, "4D box: product of circumsolids", h, certs.Proven)
+
+	// A prism over a square is a product of circumsolids; over the
+	// L-shape (not convex, so neither tangential nor a rectangle) it is
+	// undecided, naming the factor.
+	h, _ = Decide(CircumsolidProduct, box)
+	requireVerdict(t, "square prism: product of circumsolids", h, certs.Proven)
+	h, _ = Decide(CircumsolidProduct, l)
+	requireVerdict(t, "L prism: product of circumsolids", h, certs.Undecided)
+	if !strings.Contains(h.Detail, "factor 0") {
+		t.Errorf("L prism: detail %q", h.Detail)
+	}
 }

@@ -139,7 +139,7 @@ func insideSimplex(v simplex, q []float64) bool {
 				e[r][c] = w[r+1][c].Sub(w[0][c])
 			}
 		}
-		if det3Interval(e).Lo < 0 {
+		if det3(e).Lo < 0 {
 			return false
 		}
 	}
