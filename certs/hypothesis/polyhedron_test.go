@@ -33,6 +33,9 @@ func TestPolyhedronHypotheses(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if h, _ := Decide(named.DirichletBoundary, dented); h.Detail != "face 0 has a neumann condition" {
+		t.Errorf("boundary detail on a polyhedron: %q", h.Detail)
+	}
 	h, _ := Decide(named.ConvexDomain, dented)
 	if h.Verdict != certs.Disproven || h.Witness == nil || h.Witness.Vertex == nil {
 		t.Fatalf("dented cube: %+v", h)

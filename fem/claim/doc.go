@@ -31,7 +31,7 @@
 //	gap                  lambda2 − lambda1
 //	D                    the diameter (the length of an interval)
 //	area, perimeter      polygons only
-//	inradius             triangles only: 2·area/perimeter
+//	inradius             triangles: 2·area/perimeter; tetrahedra: 3·volume/surface_area
 //	alpha                the Robin coefficient, when the problem has Robin
 //	                     sides and all of them have one coefficient
 //	shape_margin         polygons only: u(x)u(y) − u(m)² for the midpoint
