@@ -353,6 +353,9 @@ func TestClaimEnvMatchesScope(t *testing.T) {
 		`{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":[{"robin":"1/2"},"dirichlet",{"robin":"0.5"},"neumann"]}`,
 		`{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":{"robin":"a"},"parameters":{"a":"3"}}`,
 		`{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":"dirichlet","parameters":{"alpha":"3"},"eigenvalues":20}`,
+		cubePolyhedron("dirichlet", "0"),
+		`{"domain": {"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["0","1","0"],["0","0","1"]], "faces": [[0,2,1],[0,1,3],[0,3,2],[1,2,3]]}}, "boundary": {"robin": "1"}}`,
+		`{"domain": {"product": [{"polygon": [["0","0"],["1","0"],["0","1"]]}, {"interval": ["0","1"]}]}, "boundary": ["dirichlet", "neumann"]}`,
 	} {
 		p, err := problem.Parse([]byte(src))
 		if err != nil {
