@@ -32,3 +32,34 @@ func BenchmarkConvexPotentialInterval(b *testing.B) {
 		ConvexPotential(p)
 	}
 }
+
+// BenchmarkConvexPotentialPolyhedronBudget measures the slowest decision
+// on a polyhedron: exp(x + y + z) on the unit cube has a singular Hessian,
+// so no tetrahedron is decided and the subdivision runs until its budget
+// (maxSimplices) is spent.
+func BenchmarkConvexPotentialPolyhedronBudget(b *testing.B) {
+	p, err := parseProblem(problemText(unitCube, "exp(x + y + z)", `"dirichlet"`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		if h := ConvexPotential(p); h.Verdict != certs.Undecided {
+			b.Fatal(h.Verdict)
+		}
+	}
+}
+
+// BenchmarkCircumsolidFrustum measures the exact decision of the
+// truncated pyramid of height 2 (a circumsolid, rational coordinates, 6
+// faces) and of its product structure.
+func BenchmarkCircumsolidFrustum(b *testing.B) {
+	p, err := parseProblem(problemText(frustumFile("2", false), "0", `"dirichlet"`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		if h := ProductOfCircumsolids(p); h.Verdict != certs.Proven {
+			b.Fatal(h.Verdict)
+		}
+	}
+}

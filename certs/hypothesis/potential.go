@@ -13,8 +13,9 @@ import (
 )
 
 // Limits of the subdivisions of ConvexPotential: they keep a decision to a
-// fraction of a second (measured: 61 ms when the budget is spent on a
-// polygon, BenchmarkConvexPotentialBudget).
+// fraction of a second (measured when the budget is spent: 55 to 61 ms on
+// a polygon, BenchmarkConvexPotentialBudget; 0.32 s on a polyhedron,
+// where each Hessian has nine entries, BenchmarkConvexPotentialPolyhedronBudget).
 const (
 	intervalCells    = 16   // first subdivision of an interval
 	maxBisections    = 12   // per cell of the first subdivision
@@ -178,9 +179,10 @@ func minorNames(d int) []string {
 	return []string{"H11", "H22", "H33", "H11·H22 − H12²", "H11·H33 − H13²", "H22·H33 − H23²", "det"}
 }
 
-// describeMinors writes "name ∈ enclosure" for each minor.
-func describeMinors(m []interval.I) string {
-	names := minorNames(map[int]int{3: 2, 7: 3}[len(m)])
+// describeMinors writes "name ∈ enclosure" for each principal minor of
+// dimension d.
+func describeMinors(m []interval.I, d int) string {
+	names := minorNames(d)
 	parts := make([]string, len(m))
 	for i, x := range m {
 		parts[i] = fmt.Sprintf("%s ∈ %v", names[i], x)
@@ -213,7 +215,7 @@ func convexOnSimplices(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis 
 		}
 		if pt, ok := centroidInside(c.simplex, tops[c.top]); ok {
 			if mp, err := principalMinors(p.Potential, pointEnv(pt), d); err == nil && someNegative(mp) {
-				return disproven(h, fmt.Sprintf("the Hessian is not positive semidefinite at the witness point (%s there)", describeMinors(mp)),
+				return disproven(h, fmt.Sprintf("the Hessian is not positive semidefinite at the witness point (%s there)", describeMinors(mp, d)),
 					&certs.Witness{Point: pointText(pt)})
 			}
 		}
@@ -233,7 +235,7 @@ func convexOnSimplices(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis 
 			if err != nil {
 				stuck += ": " + err.Error()
 			} else {
-				stuck += " (" + describeMinors(m) + ")"
+				stuck += " (" + describeMinors(m, d) + ")"
 			}
 		}
 	}
