@@ -175,7 +175,8 @@ type Hypothesis struct {
 // (0-based, as in the recorded problem's boundary list), a vertex (0-based
 // index into the recorded polygon), and/or a point of the closed domain
 // given by its exact coordinates (one for an interval, two for a polygon,
-// three for a polyhedron).
+// three for a polyhedron or a product of three coordinates, four for a
+// product of four).
 type Witness struct {
 	Side   *int     `json:"side,omitempty"`
 	Vertex *int     `json:"vertex,omitempty"`
@@ -442,8 +443,8 @@ func (h Hypothesis) validate(path string) error {
 	if w.Side != nil && *w.Side < 0 || w.Vertex != nil && *w.Vertex < 0 {
 		return &FormatError{Path: path + ".witness", Msg: "negative side or vertex index"}
 	}
-	if n := len(w.Point); n > 3 {
-		return &FormatError{Path: path + ".witness.point", Msg: fmt.Sprintf("a point has one to three coordinates, not %d", n)}
+	if n := len(w.Point); n > 4 {
+		return &FormatError{Path: path + ".witness.point", Msg: fmt.Sprintf("a point has one to four coordinates, not %d", n)}
 	}
 	for k, c := range w.Point {
 		if c == "" {
