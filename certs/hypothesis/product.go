@@ -36,7 +36,18 @@ import (
 //   - circumsolid_product: a product whose every factor is a product of
 //     circumsolids (an interval always; a polygon that is tangential or a
 //     rectangle, see ProductOfCircumsolids) is one, so it is proven when
-//     every factor's is; otherwise undecided, naming the factor.
+//     every factor's is. The product Q × I of a polygon Q and an interval
+//     I is disproven when Q is (neither tangential nor a rectangle): by
+//     the classification of polyhedronProduct it would be a circumsolid
+//     or a right prism over a tangential polygon or a rectangle. A ball
+//     in Q × I touching the lateral faces (sides of Q) × I has a centre
+//     whose projection to Q lies at the ball's radius from every side's
+//     line, on the inner side, so Q would be tangential (the system of
+//     Tangential); and Q × I is a right prism over one of its faces only
+//     over Q × {end} or, when Q × {end} is a lateral rectangle of another
+//     prism structure, Q is a rectangle. The witness is the face of the
+//     product over the factor's witness side. Otherwise undecided,
+//     naming the factor.
 //   - the polygon shapes (triangle, rectangle, tangential polygon):
 //     undecided, decided for polygons only.
 //
@@ -91,6 +102,9 @@ func decideProduct(name string, p *problem.Problem) (certs.Hypothesis, bool) {
 			}
 			return disproven(h, fmt.Sprintf("disproven on factor %d (%s), and "+why, i, f.Detail, i), &certs.Witness{Point: productPoint(subs, i, f.Witness.Point)}), true
 		}
+		if f.Verdict == certs.Disproven && name == CircumsolidProduct && p.Dim == 3 && sub.Dim == 2 {
+			return disproven(h, fmt.Sprintf("factor %d is neither tangential nor a rectangle (%s), so the prism over it is not a product of circumsolids", i, f.Detail), productFaceWitness(subs, i, f.Witness)), true
+		}
 		if f.Verdict != certs.Proven {
 			what := "not decided"
 			if f.Verdict == certs.Disproven {
@@ -118,6 +132,28 @@ func productPoint(subs []*problem.Problem, i int, pt []string) []string {
 		default:
 			out = append(out, sub.Vertices[0][0].Text, sub.Vertices[0][1].Text)
 		}
+	}
+	return out
+}
+
+// productFaceWitness maps the witness of factor i (a side of its own) to
+// the product's face over that side: Boundary lists the faces factor by
+// factor (fem/problem), sides of factor 0 first. A witness without a side
+// keeps only its point, completed to a point of the product.
+func productFaceWitness(subs []*problem.Problem, i int, w *certs.Witness) *certs.Witness {
+	out := &certs.Witness{}
+	if w.Side != nil {
+		face := *w.Side
+		for _, sub := range subs[:i] {
+			face += len(sub.Boundary)
+		}
+		out.Side = intPtr(face)
+	}
+	if len(w.Point) > 0 {
+		out.Point = productPoint(subs, i, w.Point)
+	}
+	if out.Side == nil && out.Point == nil {
+		panic("hypothesis: a disproven factor without a side or a point")
 	}
 	return out
 }

@@ -56,12 +56,26 @@ func TestProductHypotheses(t *testing.T) {
 
 	// A prism over a square is a product of circumsolids; over the
 	// L-shape (not convex, so neither tangential nor a rectangle) it is
-	// undecided, naming the factor.
+	// not, naming the factor.
 	h, _ = Decide(CircumsolidProduct, box)
 	requireVerdict(t, "square prism: product of circumsolids", h, certs.Proven)
 	h, _ = Decide(CircumsolidProduct, l)
-	requireVerdict(t, "L prism: product of circumsolids", h, certs.Undecided)
+	requireVerdict(t, "L prism: product of circumsolids", h, certs.Disproven)
 	if !strings.Contains(h.Detail, "factor 0") {
 		t.Errorf("L prism: detail %q", h.Detail)
 	}
+	// The prism over the trapezoid (0,0), (3,0), (2,1), (0,1) (Pitot:
+	// 3 + 1 ≠ 1 + √2, so not tangential; the corner at (3, 0) is not
+	// right) is no product of circumsolids; the witness is the product's
+	// face over the factor's witness side (faces of factor 0 come first).
+	trap := parse(t, problemText(`{"product":[{"polygon":[["0","0"],["3","0"],["2","1"],["0","1"]]},{"interval":["0","1"]}]}`, "0", `"neumann"`))
+	h, _ = Decide(CircumsolidProduct, trap)
+	requireVerdict(t, "trapezoid prism: product of circumsolids", h, certs.Disproven)
+	if h.Witness == nil || h.Witness.Side == nil || *h.Witness.Side > 3 {
+		t.Errorf("trapezoid prism: witness %+v", h.Witness)
+	}
+	// A prism over a non-convex factor in four coordinates: undecided.
+	l4 := parse(t, problemText(`{"product":[`+lshape+`,{"interval":["0","1"]},{"interval":["0","1"]}]}`, "0", `"dirichlet"`))
+	h, _ = Decide(CircumsolidProduct, l4)
+	requireVerdict(t, "L × square: product of circumsolids", h, certs.Undecided)
 }
