@@ -1,7 +1,6 @@
 package certify
 
 import (
-	"context"
 	"math"
 	"os"
 	"strings"
@@ -99,23 +98,7 @@ func TestPolyhedronBuiltinClaims(t *testing.T) {
 // does not depend on how many steps the load of the machine allows.
 func certifyFirstStep(t *testing.T, src string) ([]byte, *certs.Certificate) {
 	t.Helper()
-	p, err := problem.Parse([]byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-3", TimeLimit: time.Millisecond, Now: fixedTime, Tool: "gapcert test"})
-	if err != nil {
-		t.Fatal(err)
-	}
-	data, err := c.Marshal()
-	if err != nil {
-		t.Fatal(err)
-	}
-	back, err := certs.Unmarshal(data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return data, back
+	return certifyClaimsWith(t, src, Options{RelWidth: "1e-3", TimeLimit: time.Millisecond})
 }
 
 // TestTetrahedronInradius: on a tetrahedron the claims' inradius is

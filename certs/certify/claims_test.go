@@ -19,11 +19,19 @@ import (
 // time limit and returns the certificate as written and as read back.
 func certifyClaims(t *testing.T, src string, relWidth float64) ([]byte, *certs.Certificate) {
 	t.Helper()
+	return certifyClaimsWith(t, src, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit})
+}
+
+// certifyClaimsWith certifies src with opt (at the fixed time, named as
+// a test) and returns the certificate as written and as read back.
+func certifyClaimsWith(t *testing.T, src string, opt Options) ([]byte, *certs.Certificate) {
+	t.Helper()
 	p, err := problem.Parse([]byte(src))
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit, Now: fixedTime, Tool: "gapcert test"})
+	opt.Now, opt.Tool = fixedTime, "gapcert test"
+	c, err := Certify(context.Background(), p, opt)
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}
