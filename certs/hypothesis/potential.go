@@ -153,7 +153,8 @@ func secondDerivative(v *formula.Expr, x interval.I) (interval.I, error) {
 }
 
 // principalMinors returns enclosures of the principal minors of the
-// Hessian of V over the box, with their names (minorNames).
+// Hessian of V over the box of d coordinates, in the order of
+// minorNames(d).
 func principalMinors(v *formula.Expr, box map[string]interval.I, d int) ([]interval.I, error) {
 	hs, err := v.Hessian(box, coordinateNames[:d])
 	if err != nil {
@@ -195,9 +196,9 @@ func describeMinors(m []interval.I, d int) string {
 func convexOnSimplices(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis {
 	tops := topSimplices(p)
 	d := tops[0].dim()
-	shape, domain := "triangle", "polygon"
+	shape, shapes, domain := "triangle", "triangles", "polygon"
 	if d == 3 {
-		shape, domain = "tetrahedron", "polyhedron"
+		shape, shapes, domain = "tetrahedron", "tetrahedra", "polyhedron"
 	}
 	var queue []cell
 	for k, t := range tops {
@@ -242,7 +243,7 @@ func convexOnSimplices(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis 
 	if stuck != "" {
 		return undecidedAt(h, fmt.Sprintf("could not decide that the Hessian is positive semidefinite on the %s with %s", shape, stuck))
 	}
-	return proven(h, fmt.Sprintf("the Hessian is positive semidefinite on %d %s covering the %s", evaluated, map[string]string{"triangle": "triangles", "tetrahedron": "tetrahedra"}[shape], domain))
+	return proven(h, fmt.Sprintf("the Hessian is positive semidefinite on %d %s covering the %s", evaluated, shapes, domain))
 }
 
 func allNonnegative(m []interval.I) bool {
