@@ -70,6 +70,11 @@ func frustumFile(height string, splitTop bool) string {
 //     practice): of height 1 a tangential polygon times an interval, of
 //     height 4 = 2·2 a circumsolid too (the ball of radius 2 about the
 //     incentre at mid-height).
+//   - the right prism over the regular pentagon inscribed in the unit
+//     circle (coordinates cos, sin of 2πk/5: the cyclotomic path): its
+//     apothem is cos(π/5) (common practice), so of height 1 it is a
+//     tangential polygon times an interval, of height 2cos(π/5) a
+//     circumsolid with inradius cos(π/5).
 //   - the truncated square pyramid with bottom side a = 4, top side b = 1
 //     and height h: its section through the apex axis and the midlines is
 //     an isosceles trapezoid with parallel sides a, b and legs
@@ -86,6 +91,10 @@ func TestCircumsolidPolyhedra(t *testing.T) {
 	triangle := [][2]string{{"0", "0"}, {"1", "0"}, {"1/2", "sqrt(3)/2"}}
 	trapezoid := [][2]string{{"0", "0"}, {"3", "0"}, {"2", "1"}, {"0", "1"}}
 	rhombus := [][2]string{{"0", "0"}, {"5", "0"}, {"8", "4"}, {"3", "4"}}
+	var pentagon [][2]string
+	for k := range 5 {
+		pentagon = append(pentagon, [2]string{fmt.Sprintf("cos(2*pi*%d/5)", k), fmt.Sprintf("sin(2*pi*%d/5)", k)})
+	}
 	for _, c := range []struct {
 		name, domain        string
 		circumsolid, produc string
@@ -99,6 +108,8 @@ func TestCircumsolidPolyhedra(t *testing.T) {
 		{"equilateral prism", prismFile(triangle, "1"), certs.Disproven, certs.Proven, 0, "triangle face"},
 		{"rhombus prism", prismFile(rhombus, "1"), certs.Disproven, certs.Proven, 0, "tangential polygon face"},
 		{"rhombus prism of height 4", prismFile(rhombus, "4"), certs.Proven, certs.Proven, 2, "a circumsolid"},
+		{"pentagon prism", prismFile(pentagon, "1"), certs.Disproven, certs.Proven, 0, "tangential polygon face"},
+		{"pentagon prism of height 2cos(π/5)", prismFile(pentagon, "2*cos(pi/5)"), certs.Proven, certs.Proven, math.Cos(math.Pi / 5), "a circumsolid"},
 		{"trapezoid prism", prismFile(trapezoid, "1"), certs.Disproven, certs.Disproven, 0, ""},
 		{"frustum h = 2", frustumFile("2", false), certs.Proven, certs.Proven, 1, "a circumsolid"},
 		{"frustum h = 1", frustumFile("1", false), certs.Disproven, certs.Disproven, 0, ""},
