@@ -174,7 +174,9 @@ type Hypothesis struct {
 // Witness is the evidence that a hypothesis fails: a side of the domain
 // (0-based, as in the recorded problem's boundary list), a vertex (0-based
 // index into the recorded polygon), and/or a point of the closed domain
-// given by its exact coordinates (one for an interval, two for a polygon).
+// given by its exact coordinates (one for an interval, two for a polygon,
+// three for a polyhedron or a product of three coordinates, four for a
+// product of four).
 type Witness struct {
 	Side   *int     `json:"side,omitempty"`
 	Vertex *int     `json:"vertex,omitempty"`
@@ -441,8 +443,8 @@ func (h Hypothesis) validate(path string) error {
 	if w.Side != nil && *w.Side < 0 || w.Vertex != nil && *w.Vertex < 0 {
 		return &FormatError{Path: path + ".witness", Msg: "negative side or vertex index"}
 	}
-	if n := len(w.Point); n > 2 {
-		return &FormatError{Path: path + ".witness.point", Msg: fmt.Sprintf("a point has one or two coordinates, not %d", n)}
+	if n := len(w.Point); n > 4 {
+		return &FormatError{Path: path + ".witness.point", Msg: fmt.Sprintf("a point has one to four coordinates, not %d", n)}
 	}
 	for k, c := range w.Point {
 		if c == "" {

@@ -342,7 +342,7 @@ func TestUnmarshalStrictBuiltinClaim(t *testing.T) {
 		{"witness on proven", edit(`"detail": "V'' ≥ 0"`, `"detail": "V'' ≥ 0", "witness": {"side": 0}`), `claims[2].hypotheses[2].witness`},
 		{"empty hypothesis name", edit(`"name": "zero_potential"`, `"name": ""`), `claims[2].hypotheses[3].name`},
 		{"negative side", edit(`"side": 1`, `"side": -1`), `negative`},
-		{"three coordinates", edit(`"sqrt(3)/2"`, `"sqrt(3)/2", "0", "0"`), `witness.point`},
+		{"five coordinates", edit(`"sqrt(3)/2"`, `"sqrt(3)/2", "0", "0", "0"`), `witness.point`},
 		{"unknown hypothesis key", edit(`"detail": "no point found"`, `"detail": "no point found", "why": 1`), `claims[2].hypotheses[3].why: unknown key "why"`},
 		{"bad reference bound", editLast(`"upper": "29.608813204"`, `"upper": "29.6.1"`), `claims[2].reference.certificate`},
 		{"reference not a certificate", edit(`"certificate": {`, `"certificate": {"x": 1,`), `claims[2].reference.certificate`},

@@ -141,8 +141,8 @@ func GroundStateClaim(p *problem.Problem) int {
 // claimEnv returns a value for every quantity p provides to its claims
 // (p.ClaimScope, package fem/claim): the certified eigenvalues and gap of res,
 // the diameter, area and perimeter of a polygon, volume and surface area of
-// a polyhedron, the inradius of a
-// triangle, the common Robin coefficient (p.RobinAlpha), pi, e and the
+// a polyhedron, the inradius of a triangle or a tetrahedron, the common
+// Robin coefficient (p.RobinAlpha), pi, e and the
 // parameters. A parameter named alpha is the value of alpha.
 func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 	env := map[string]interval.I{
@@ -168,6 +168,14 @@ func claimEnv(p *problem.Problem, res *result) map[string]interval.I {
 		// the area is the sum of the three triangles on the sides with
 		// apex at the incentre, each of height r).
 		env[claim.Inradius] = p.Area().MulF(2).Div(p.Perimeter())
+	}
+	if ph := p.Polyhedron; ph != nil && len(ph.Vertices) == 4 {
+		// Every tetrahedron has an inscribed ball, of radius
+		// 3·volume/surface area (common practice: the volume is the sum of
+		// the four cones on the faces with apex at the incentre, each of
+		// height r; certs/hypothesis.Circumsolid proves the same formula
+		// for every circumsolid).
+		env[claim.Inradius] = ph.Volume().MulF(3).Div(ph.SurfaceArea())
 	}
 	if alpha, why := p.RobinAlpha(); why == "" {
 		env[claim.Alpha] = alpha.Val

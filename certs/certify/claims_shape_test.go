@@ -139,23 +139,7 @@ func TestNotLogConcaveClaimRobinRectangle(t *testing.T) {
 // relative width.
 func certifyGroundStateClaimsAt(t *testing.T, src, relWidth string) ([]byte, *certs.Certificate) {
 	t.Helper()
-	p, err := problem.Parse([]byte(src))
-	if err != nil {
-		t.Fatalf("problem %s: %v", src, err)
-	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: relWidth, TimeLimit: ampleLimit, Now: fixedTime, Tool: "gapcert test", GroundState: true})
-	if err != nil {
-		t.Fatalf("certify %s: %v", src, err)
-	}
-	data, err := c.Marshal()
-	if err != nil {
-		t.Fatal(err)
-	}
-	back, err := certs.Unmarshal(data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return data, back
+	return certifyClaimsWith(t, src, Options{RelWidth: relWidth, TimeLimit: ampleLimit, GroundState: true})
 }
 
 // TestShapeMarginRefused: a claim naming shape_margin is refused before

@@ -19,11 +19,19 @@ import (
 // time limit and returns the certificate as written and as read back.
 func certifyClaims(t *testing.T, src string, relWidth float64) ([]byte, *certs.Certificate) {
 	t.Helper()
+	return certifyClaimsWith(t, src, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit})
+}
+
+// certifyClaimsWith certifies src with opt (at the fixed time, named as
+// a test) and returns the certificate as written and as read back.
+func certifyClaimsWith(t *testing.T, src string, opt Options) ([]byte, *certs.Certificate) {
+	t.Helper()
 	p, err := problem.Parse([]byte(src))
 	if err != nil {
 		t.Fatalf("problem %s: %v", src, err)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: widthText(relWidth), TimeLimit: ampleLimit, Now: fixedTime, Tool: "gapcert test"})
+	opt.Now, opt.Tool = fixedTime, "gapcert test"
+	c, err := Certify(context.Background(), p, opt)
 	if err != nil {
 		t.Fatalf("certify %s: %v", src, err)
 	}
@@ -353,6 +361,9 @@ func TestClaimEnvMatchesScope(t *testing.T) {
 		`{"domain":{"polygon":[["0","0"],["1","0"],["1","1"],["0","1"]]},"boundary":[{"robin":"1/2"},"dirichlet",{"robin":"0.5"},"neumann"]}`,
 		`{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":{"robin":"a"},"parameters":{"a":"3"}}`,
 		`{"domain":{"polygon":[["0","0"],["1","0"],["0","1"]]},"boundary":"dirichlet","parameters":{"alpha":"3"},"eigenvalues":20}`,
+		cubePolyhedron("dirichlet", "0"),
+		`{"domain": {"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["0","1","0"],["0","0","1"]], "faces": [[0,2,1],[0,1,3],[0,3,2],[1,2,3]]}}, "boundary": {"robin": "1"}}`,
+		`{"domain": {"product": [{"polygon": [["0","0"],["1","0"],["0","1"]]}, {"interval": ["0","1"]}]}, "boundary": ["dirichlet", "neumann"]}`,
 	} {
 		p, err := problem.Parse([]byte(src))
 		if err != nil {

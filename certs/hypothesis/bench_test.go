@@ -8,7 +8,7 @@ import (
 
 // BenchmarkConvexPotentialBudget measures the slowest decision: exp(x + y)
 // has a singular Hessian, so no triangle is decided and the subdivision
-// runs until its budget (maxTriangles) is spent.
+// runs until its budget (maxSimplices) is spent.
 func BenchmarkConvexPotentialBudget(b *testing.B) {
 	p, err := parseProblem(problemText(lshape, "exp(x + y)", `"dirichlet"`))
 	if err != nil {
@@ -30,5 +30,36 @@ func BenchmarkConvexPotentialInterval(b *testing.B) {
 	}
 	for b.Loop() {
 		ConvexPotential(p)
+	}
+}
+
+// BenchmarkConvexPotentialPolyhedronBudget measures the slowest decision
+// on a polyhedron: exp(x + y + z) on the unit cube has a singular Hessian,
+// so no tetrahedron is decided and the subdivision runs until its budget
+// (maxSimplices) is spent.
+func BenchmarkConvexPotentialPolyhedronBudget(b *testing.B) {
+	p, err := parseProblem(problemText(unitCube, "exp(x + y + z)", `"dirichlet"`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		if h := ConvexPotential(p); h.Verdict != certs.Undecided {
+			b.Fatal(h.Verdict)
+		}
+	}
+}
+
+// BenchmarkCircumsolidFrustum measures the exact decision of the
+// truncated pyramid of height 2 (a circumsolid, rational coordinates, 6
+// faces) and of its product structure.
+func BenchmarkCircumsolidFrustum(b *testing.B) {
+	p, err := parseProblem(problemText(frustumFile("2", false), "0", `"dirichlet"`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		if h := ProductOfCircumsolids(p); h.Verdict != certs.Proven {
+			b.Fatal(h.Verdict)
+		}
 	}
 }

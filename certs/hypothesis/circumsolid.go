@@ -104,9 +104,9 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 		return proven(h, "every triangle has an incircle")
 	}
 	residual := func(j int) (zero, ok bool) { return tangencyResidualZeroInterval(p.Vertices, [4]int{0, 1, 2, j}) }
-	if v, ok := surdVertices(p.Vertices); ok {
+	if v, ok := surdVertices(planarPoints(p.Vertices)); ok {
 		residual = newTangencyTest(v).residualZero
-	} else if v, ok := cycVertices(p.Vertices); ok {
+	} else if v, ok := cycVertices(planarPoints(p.Vertices)); ok {
 		residual = newTangencyTest(v).residualZero
 	}
 	undecided := -1
@@ -145,7 +145,10 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 // intervals, a rectangle (see Rectangle: four right angles, so a rotated
 // rectangle counts, being a product after a rotation). Hence a polygon is
 // a product of circumsolids if and only if it is tangential or a
-// rectangle (a square is both); an interval is one.
+// rectangle (a square is both); an interval is one. A polyhedron is
+// decided by polyhedronProduct (a circumsolid, or a right prism over a
+// tangential polygon or a rectangle), a product of intervals and polygons
+// from its factors (decideProduct).
 //
 // The verdict is "proven" if either decision is proven, "disproven" if
 // both are disproven (the witness is that of Tangential, with the vertex
@@ -160,6 +163,9 @@ func Tangential(p *problem.Problem) certs.Hypothesis {
 //	ground state, Camb. J. Math. 8 (2020), 243–310, arXiv:1711.02779.
 func ProductOfCircumsolids(p *problem.Problem) certs.Hypothesis {
 	h := certs.Hypothesis{Name: CircumsolidProduct}
+	if p.Polyhedron != nil {
+		return polyhedronProduct(h, p)
+	}
 	if p.Dim == 1 {
 		return proven(h, "an interval is a one-dimensional circumsolid")
 	}
@@ -190,9 +196,9 @@ func rectangleExact(p *problem.Problem, undecided certs.Hypothesis) certs.Hypoth
 		return undecided
 	}
 	corner := -1
-	if v, ok := surdVertices(p.Vertices); ok {
+	if v, ok := surdVertices(planarPoints(p.Vertices)); ok {
 		corner = firstObliqueCorner(v)
-	} else if v, ok := cycVertices(p.Vertices); ok {
+	} else if v, ok := cycVertices(planarPoints(p.Vertices)); ok {
 		corner = firstObliqueCorner(v)
 	} else {
 		return undecided
@@ -206,13 +212,17 @@ func rectangleExact(p *problem.Problem, undecided certs.Hypothesis) certs.Hypoth
 	return proven(h, "four vertices, every corner a right angle (decided exactly)")
 }
 
-// firstObliqueCorner returns the first vertex i of the quadrilateral v
-// with (v_{i−1} − v_i)·(v_{i+1} − v_i) ≠ 0, or −1 if every corner is right.
-func firstObliqueCorner[T exactField[T]](v [][2]T) int {
+// firstObliqueCorner returns the first vertex i of the polygon v (points
+// of any number of coordinates) with (v_{i−1} − v_i)·(v_{i+1} − v_i) ≠ 0,
+// or −1 if every corner is right.
+func firstObliqueCorner[T exactField[T]](v [][]T) int {
 	n := len(v)
 	for i := range n {
 		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
-		d := a[0].Sub(b[0]).Mul(c[0].Sub(b[0])).Add(a[1].Sub(b[1]).Mul(c[1].Sub(b[1])))
+		d := a[0].Sub(b[0]).Mul(c[0].Sub(b[0]))
+		for k := 1; k < len(b); k++ {
+			d = d.Add(a[k].Sub(b[k]).Mul(c[k].Sub(b[k])))
+		}
 		if !d.IsZero() {
 			return i
 		}
@@ -240,30 +250,39 @@ type exactField[T any] interface {
 
 // sideRow returns the exact entries −e_y, e_x, e × v and ℓ² of the row of
 // side i.
-func sideRow[T exactField[T]](v [][2]T, i int) (a, b, h, l2 T) {
+func sideRow[T exactField[T]](v [][]T, i int) (a, b, h, l2 T) {
 	p, q := v[i], v[(i+1)%len(v)]
 	ex, ey := q[0].Sub(p[0]), q[1].Sub(p[1])
 	return ey.Neg(), ex, ex.Mul(p[1]).Sub(ey.Mul(p[0])), ex.Mul(ex).Add(ey.Mul(ey))
 }
 
+// ring is the arithmetic of determinants and vector products: the exact
+// fields (exactField) and the enclosures of package interval.
+type ring[T any] interface {
+	Add(T) T
+	Sub(T) T
+	Mul(T) T
+	Neg() T
+}
+
 // cross returns the cross product x × y of 3-vectors.
-func cross[T exactField[T]](x, y [3]T) [3]T {
+func cross[T ring[T]](x, y [3]T) [3]T {
 	return [3]T{x[1].Mul(y[2]).Sub(x[2].Mul(y[1])), x[2].Mul(y[0]).Sub(x[0].Mul(y[2])), x[0].Mul(y[1]).Sub(x[1].Mul(y[0]))}
 }
 
-func dot[T exactField[T]](x, y [3]T) T { return x[0].Mul(y[0]).Add(x[1].Mul(y[1])).Add(x[2].Mul(y[2])) }
+func dot[T ring[T]](x, y [3]T) T { return x[0].Mul(y[0]).Add(x[1].Mul(y[1])).Add(x[2].Mul(y[2])) }
 
 // tangencyTest decides D_j for the sides j ≥ 3 of one polygon. The minor
 // of rows r, s, j is the triple product det[r; s; j] = row_j · (r × s),
 // so the cross products of rows 0, 1, 2 are computed once.
 type tangencyTest[T exactField[T]] struct {
-	v             [][2]T
+	v             [][]T
 	l2            [3]T
 	x01, x02, x12 [3]T
 	m3            T // det[row 0; row 1; row 2]
 }
 
-func newTangencyTest[T exactField[T]](v [][2]T) *tangencyTest[T] {
+func newTangencyTest[T exactField[T]](v [][]T) *tangencyTest[T] {
 	t := &tangencyTest[T]{v: v}
 	var r [3][3]T
 	for k := range 3 {
@@ -285,26 +304,35 @@ func (t *tangencyTest[T]) residualZero(j int) (zero, ok bool) {
 	// (−1)^{p+1} is applied here.
 	minors := [4]T{dot(rj, t.x12).Neg(), dot(rj, t.x02), dot(rj, t.x01).Neg(), t.m3}
 	l2 := [4]T{t.l2[0], t.l2[1], t.l2[2], l2j}
-	exact := t.m3.Sub(t.m3) // the terms whose ℓ is in the field
+	return sqrtSumZero(minors[:], l2[:])
+}
+
+// sqrtSumZero decides whether Σ_p c_p·√s_p = 0 for field elements c_p and
+// s_p ≥ 0: exactly where the rules of Tangential allow (the terms whose
+// √s_p lies in the field form one element; the others are grouped by s_p
+// up to rational square factors, √s_p = w·√s_g with w rational), and else
+// by the enclosure of the sum (which decides only ≠ 0).
+func sqrtSumZero[T exactField[T]](c, s []T) (zero, ok bool) {
+	exact := c[0].Sub(c[0]) // the terms whose square root is in the field
 	type group struct{ l2, coef T }
 	var groups []group // coef·√l2 with √l2 outside the field, one per class
-	for p, mp := range minors {
-		if s, isRat := l2[p].Rat(); isRat {
-			if l, inField := mp.SqrtRat(s); inField {
+	for p, mp := range c {
+		if q, isRat := s[p].Rat(); isRat {
+			if l, inField := mp.SqrtRat(q); inField {
 				exact = exact.Add(mp.Mul(l))
 				continue
 			}
 		}
 		placed := false
 		for g := range groups {
-			if w, ok := l2[p].RatioSquare(groups[g].l2); ok {
+			if w, ok := s[p].RatioSquare(groups[g].l2); ok {
 				groups[g].coef = groups[g].coef.Add(mp.Scale(w))
 				placed = true
 				break
 			}
 		}
 		if !placed {
-			groups = append(groups, group{l2: l2[p], coef: mp})
+			groups = append(groups, group{l2: s[p], coef: mp})
 		}
 	}
 	allZero := exact.IsZero()
@@ -351,7 +379,7 @@ func tangencyResidualZeroInterval(v [][2]problem.Number, rows [4]int) (zero, ok 
 				r++
 			}
 		}
-		t := det3Interval(m).Mul(l[p])
+		t := det3(m).Mul(l[p])
 		if p%2 == 0 {
 			t = t.Neg()
 		}
@@ -363,7 +391,8 @@ func tangencyResidualZeroInterval(v [][2]problem.Number, rows [4]int) (zero, ok 
 	return false, true
 }
 
-func det3Interval(m [3][3]interval.I) interval.I {
-	t := func(i, j, k int) interval.I { return m[0][i].Mul(m[1][j]).Mul(m[2][k]) }
+// det3 returns the determinant of m (the rule of Sarrus).
+func det3[T ring[T]](m [3][3]T) T {
+	t := func(i, j, k int) T { return m[0][i].Mul(m[1][j]).Mul(m[2][k]) }
 	return t(0, 1, 2).Add(t(1, 2, 0)).Add(t(2, 0, 1)).Sub(t(2, 1, 0)).Sub(t(0, 2, 1)).Sub(t(1, 0, 2))
 }

@@ -18,7 +18,11 @@ import (
 // fails (at most maxIntervalCells evaluations); on a polygon they are the
 // triangles of problem.Triangles, each evaluated by formula.RangeTriangle
 // (which checks every domain on enclosures of the sub-expressions over
-// the triangle itself, subdividing where needed). Package formula returns
+// the triangle itself, subdividing where needed); on a polyhedron they
+// are the cone tetrahedra of problem.Polyhedron.Tetrahedra, each
+// evaluated over its coordinate box and split into Bey's eight
+// tetrahedra where that fails (at most maxSplits times, within
+// maxSimplices evaluations). Package formula returns
 // an error instead of clipping when a sub-expression is not defined on
 // all of its argument enclosure, so a successful evaluation over a cell
 // shows V to be a composition, defined at every point of the cell, of the
@@ -40,7 +44,11 @@ func ContinuousPotential(p *problem.Problem) certs.Hypothesis {
 	if p.Dim == 1 {
 		return continuousOnInterval(h, p)
 	}
-	for k, t := range topTriangles(p) {
+	if p.Polyhedron != nil {
+		return continuousOnPolyhedron(h, p)
+	}
+	for k, s := range topSimplices(p) {
+		t := [3][2]interval.I{{s[0][0], s[0][1]}, {s[1][0], s[1][1]}, {s[2][0], s[2][1]}}
 		if _, err := p.Potential.RangeTriangle(t); err != nil {
 			return undecidedAt(h, fmt.Sprintf("could not show V to be defined on all of triangle %d of the triangulation: %v", k, err))
 		}
@@ -67,4 +75,30 @@ func continuousOnInterval(h certs.Hypothesis, p *problem.Problem) certs.Hypothes
 		return undecidedAt(h, fmt.Sprintf("could not show V to be defined on all of [%g, %g]: %v", c.lo, c.hi, err))
 	}
 	return proven(h, fmt.Sprintf("V is defined on each of %d closed cells covering the interval, a composition of functions continuous on their domains", evaluated))
+}
+
+func continuousOnPolyhedron(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis {
+	var queue []cell
+	for k, t := range topSimplices(p) {
+		queue = append(queue, cell{simplex: t, top: k, depth: maxSplits})
+	}
+	evaluated := 0
+	for len(queue) > 0 {
+		c := queue[0]
+		queue = queue[1:]
+		evaluated++
+		box := c.simplex.box()
+		_, err := p.Potential.Eval(box)
+		if err == nil {
+			continue
+		}
+		if c.depth > 0 && evaluated+len(queue)+children(3) <= maxSimplices {
+			for _, s := range c.simplex.split() {
+				queue = append(queue, cell{simplex: s, top: c.top, depth: c.depth - 1})
+			}
+			continue
+		}
+		return undecidedAt(h, fmt.Sprintf("could not show V to be defined on all of a tetrahedron in cone tetrahedron %d (x ∈ %v, y ∈ %v, z ∈ %v): %v", c.top, box["x"], box["y"], box["z"], err))
+	}
+	return proven(h, fmt.Sprintf("V is defined on each of %d closed tetrahedra covering the polyhedron, a composition of functions continuous on their domains", evaluated))
 }

@@ -21,14 +21,23 @@
 //
 // Convexity of V: a C² function on a convex set is convex if and only if
 // its Hessian is positive semidefinite at every point (common practice),
-// and a symmetric 2×2 matrix is positive semidefinite if and only if
-// H11 ≥ 0, H22 ≥ 0 and H11·H22 − H12² ≥ 0 (Sylvester's criterion for
-// semidefiniteness in two dimensions, common practice). The Hessian is
-// enclosed by automatic differentiation (formula.Hessian) over the cells of
-// a subdivision of the domain (intervals: cells; polygons: the triangles of
-// problem.Triangles, refined by midpoint subdivision where undecided, each
-// evaluated over its bounding box). See ConvexPotential for why success of
-// the enclosure on every cell also proves V to be C².
+// and a symmetric matrix is positive semidefinite if and only if every
+// principal minor is ≥ 0 (Sylvester's criterion for semidefiniteness; in
+// two dimensions H11 ≥ 0, H22 ≥ 0 and H11·H22 − H12² ≥ 0). The Hessian
+// is enclosed by automatic differentiation (formula.Hessian) over the
+// cells of a subdivision of the domain (intervals: cells; polygons and
+// polyhedra: the simplices that tile them, refined by midpoint
+// subdivision where undecided, each evaluated over its bounding box). See
+// ConvexPotential for why success of the enclosure on every cell also
+// proves V to be C².
+//
+// Circumsolids (Circumsolid, ProductOfCircumsolids): a convex polyhedron
+// has a ball touching every facet if and only if the linear system
+// N_f·c + |N_f|·r = N_f·p_f over its faces has a solution, the
+// three-dimensional form of the tangential polygon's system (the proofs
+// are in the doc comments); the systems are decided exactly for
+// coordinates read as surds or cyclotomic numbers, right prisms from the
+// exact vertices.
 //
 // Continuity of V (ContinuousPotential) follows from V being defined at
 // every point of each cell of a cover of the closed domain, each

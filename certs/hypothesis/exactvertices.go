@@ -8,9 +8,10 @@ import (
 	"gapcert/interval/algebraic"
 )
 
-// surdVertices reads every coordinate exactly as a surd (package
-// algebraic); ok is false if some coordinate is not read.
-func surdVertices(vs [][2]problem.Number) (v [][2]algebraic.Surd, ok bool) {
+// surdVertices reads every coordinate of the points vs (two or three
+// coordinates each) exactly as a surd (package algebraic); ok is false if
+// some coordinate is not read.
+func surdVertices(vs [][]problem.Number) (v [][]algebraic.Surd, ok bool) {
 	return readVertices(vs, algebraic.NewSurd, algebraic.ReadSurd)
 }
 
@@ -18,22 +19,24 @@ func surdVertices(vs [][2]problem.Number) (v [][2]algebraic.Surd, ok bool) {
 // multiples of roots of unity (package algebraic) and returns the vertices
 // in the smallest cyclotomic field holding them all; ok is false if some
 // coordinate is not read or that field is beyond algebraic's bounds.
-func cycVertices(vs [][2]problem.Number) (v [][2]algebraic.Cyclotomic, ok bool) {
+func cycVertices(vs [][]problem.Number) (v [][]algebraic.Cyclotomic, ok bool) {
 	sums, ok := readVertices(vs, algebraic.NewRootSum, algebraic.ReadRootSum)
 	if !ok {
 		return nil, false
 	}
-	all := make([]algebraic.RootSum, 0, 2*len(sums))
+	var all []algebraic.RootSum
 	for _, s := range sums {
-		all = append(all, s[0], s[1])
+		all = append(all, s...)
 	}
 	f, ok := algebraic.CyclotomicFieldOf(all...)
 	if !ok {
 		return nil, false
 	}
-	v = make([][2]algebraic.Cyclotomic, len(sums))
+	v = make([][]algebraic.Cyclotomic, len(sums))
 	for i, s := range sums {
-		v[i] = [2]algebraic.Cyclotomic{f.Element(s[0]), f.Element(s[1])}
+		for _, x := range s {
+			v[i] = append(v[i], f.Element(x))
+		}
 	}
 	return v, true
 }
@@ -41,9 +44,10 @@ func cycVertices(vs [][2]problem.Number) (v [][2]algebraic.Cyclotomic, ok bool) 
 // readVertices reads every coordinate exactly: a rational with fromRat,
 // a constant formula (its canonical text, guarded by its enclosure) with
 // read.
-func readVertices[T any](vs [][2]problem.Number, fromRat func(*big.Rat) T, read func(string, interval.I) (T, bool)) (v [][2]T, ok bool) {
-	v = make([][2]T, len(vs))
+func readVertices[T any](vs [][]problem.Number, fromRat func(*big.Rat) T, read func(string, interval.I) (T, bool)) (v [][]T, ok bool) {
+	v = make([][]T, len(vs))
 	for i, p := range vs {
+		v[i] = make([]T, len(p))
 		for k, n := range p {
 			if n.Rat != nil {
 				v[i][k] = fromRat(n.Rat)
@@ -53,4 +57,22 @@ func readVertices[T any](vs [][2]problem.Number, fromRat func(*big.Rat) T, read 
 		}
 	}
 	return v, true
+}
+
+// planarPoints returns the polygon's vertices as rows of coordinates.
+func planarPoints(vs [][2]problem.Number) [][]problem.Number {
+	out := make([][]problem.Number, len(vs))
+	for i := range vs {
+		out[i] = vs[i][:]
+	}
+	return out
+}
+
+// spacePoints returns the polyhedron's vertices as rows of coordinates.
+func spacePoints(vs [][3]problem.Number) [][]problem.Number {
+	out := make([][]problem.Number, len(vs))
+	for i := range vs {
+		out[i] = vs[i][:]
+	}
+	return out
 }

@@ -150,8 +150,8 @@ func TestConvexPotentialPolygon(t *testing.T) {
 		x, _ := strconv.ParseFloat(h.Witness.Point[0], 64)
 		y, _ := strconv.ParseFloat(h.Witness.Point[1], 64)
 		inside := false
-		for _, tri := range topTriangles(p) {
-			inside = inside || insideTriangle(tri, [2]float64{x, y})
+		for _, tri := range topSimplices(p) {
+			inside = inside || insideSimplex(tri, []float64{x, y})
 		}
 		if !inside {
 			t.Errorf("%s: witness (%g, %g) not verified inside", tc.v, x, y)

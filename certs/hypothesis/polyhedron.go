@@ -10,9 +10,10 @@ import (
 
 // polyhedronDeciders are the decision procedures that apply to a
 // polyhedron: those that read only the face conditions, convexity (exact,
-// from fem/problem) and V ≡ 0 as a polynomial identity. Every other known
-// hypothesis is undecided on a polyhedron (its procedure reads polygon
-// vertices or triangles).
+// from fem/problem), the procedures on V (over the cone tetrahedra of the
+// polyhedron, the three-dimensional cells of the polygon's triangles) and
+// the product of circumsolids. The polygon shapes (triangle, rectangle,
+// tangential polygon) are undecided, with that reason.
 var polyhedronDeciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.DirichletBoundary:   DirichletBoundary,
 	named.NeumannBoundary:     NeumannBoundary,
@@ -20,7 +21,11 @@ var polyhedronDeciders = map[string]func(*problem.Problem) certs.Hypothesis{
 	named.PositiveRobinAlpha:  PositiveRobinAlpha,
 	named.RobinOrNeumannSides: RobinOrNeumannSides,
 	named.ConvexDomain:        convexPolyhedron,
-	named.ZeroPotential:       zeroPolynomial,
+	named.ZeroPotential:       ZeroPotential,
+	named.ConvexPotential:     ConvexPotential,
+	named.ContinuousPotential: ContinuousPotential,
+	CircumsolidProduct:        ProductOfCircumsolids,
+	CircumsolidPolyhedron:     Circumsolid,
 }
 
 // decidePolyhedron is Decide on a polyhedron.
@@ -31,7 +36,7 @@ func decidePolyhedron(name string, p *problem.Problem) (certs.Hypothesis, bool) 
 	if _, ok := deciders[name]; !ok {
 		return certs.Hypothesis{}, false
 	}
-	return undecidedAt(certs.Hypothesis{Name: name}, "not decided on polyhedra yet"), true
+	return undecidedAt(certs.Hypothesis{Name: name}, "a shape of polygons; the domain is a polyhedron"), true
 }
 
 // convexPolyhedron decides convexity of a polyhedron: it is convex if and
@@ -52,14 +57,4 @@ func convexPolyhedron(p *problem.Problem) certs.Hypothesis {
 			&certs.Witness{Vertex: intPtr(v), Point: []string{q[0].Text, q[1].Text, q[2].Text}})
 	}
 	return undecidedAt(h, "cannot decide on which side of a face's plane some vertex lies")
-}
-
-// zeroPolynomial proves V ≡ 0 when V is the zero polynomial; otherwise it
-// leaves the hypothesis undecided (no point search on polyhedra yet).
-func zeroPolynomial(p *problem.Problem) certs.Hypothesis {
-	h := certs.Hypothesis{Name: named.ZeroPotential}
-	if poly, ok := p.Potential.Polynomial(); ok && poly.Degree() < 0 {
-		return proven(h, "V is the zero polynomial")
-	}
-	return undecidedAt(h, "V is not the zero polynomial; no point with V ≠ 0 is searched on polyhedra yet")
 }

@@ -2,7 +2,7 @@ package hypothesis
 
 import (
 	"fmt"
-	"math"
+	"strings"
 
 	"gapcert/certs"
 	"gapcert/fem/claim/named"
@@ -13,14 +13,15 @@ import (
 )
 
 // Limits of the subdivisions of ConvexPotential: they keep a decision to a
-// fraction of a second (measured: 61 ms when the budget is spent on a
-// polygon, BenchmarkConvexPotentialBudget).
+// fraction of a second (measured when the budget is spent: 55 to 61 ms on
+// a polygon, BenchmarkConvexPotentialBudget; 0.32 s on a polyhedron,
+// where each Hessian has nine entries, BenchmarkConvexPotentialPolyhedronBudget).
 const (
 	intervalCells    = 16   // first subdivision of an interval
 	maxBisections    = 12   // per cell of the first subdivision
 	maxIntervalCells = 4096 // Hessian enclosures on an interval
-	maxSplits        = 5    // midpoint subdivisions per triangle
-	maxTriangles     = 8192 // Hessian enclosures on a polygon
+	maxSplits        = 5    // midpoint subdivisions per triangle or tetrahedron
+	maxSimplices     = 8192 // Hessian enclosures on a polygon or a polyhedron
 )
 
 // ZeroPotential decides whether V ≡ 0: proven when V is a polynomial whose
@@ -44,9 +45,20 @@ func ZeroPotential(p *problem.Problem) certs.Hypothesis {
 //
 // Proven: V is a polynomial of degree ≤ 1 (its Hessian is 0), or the
 // Hessian enclosure over every cell of a subdivision covering the domain
-// is positive semidefinite (intervals: V″ ≥ 0; polygons: H11 ≥ 0,
-// H22 ≥ 0, H11·H22 − H12² ≥ 0, each enclosure evaluated in interval
-// arithmetic, so the inequality holds at every point of the cell). A
+// is positive semidefinite (intervals: V″ ≥ 0; polygons and polyhedra:
+// every principal minor of the Hessian ≥ 0 — H11, H22 and
+// H11·H22 − H12² in two dimensions; H11, H22, H33, the three principal
+// 2×2 minors and the determinant in three — each enclosure evaluated in
+// interval arithmetic, so the inequality holds at every point of the
+// cell). A symmetric matrix is positive semidefinite if and only if all
+// its principal minors are ≥ 0 (Sylvester's criterion for
+// semidefiniteness; R. A. Horn and C. R. Johnson, Matrix Analysis,
+// Cambridge University Press 1985, Theorem 7.2.5, recalled from memory);
+// the leading minors alone do not suffice. The cells are the simplices
+// of topSimplices (the triangles of problem.Triangles; the cone
+// tetrahedra of problem.Polyhedron.Tetrahedra), split by midpoint
+// subdivision where undecided (four triangles, or Bey's eight
+// tetrahedra), each evaluated over its coordinate box. A
 // successful enclosure on a closed cell also shows V to be C² there: the
 // Taylor recurrences of formula.Hessian demand a decided branch of every
 // abs, min and max (argument, or difference of arguments, bounded away
@@ -55,16 +67,17 @@ func ZeroPotential(p *problem.Problem) certs.Hypothesis {
 // these arguments is continuous and nonzero on the domain, hence of one
 // sign, and V is one smooth expression there. A C² function with a
 // positive semidefinite Hessian on a convex set is convex (common
-// practice); on a non-convex polygon the proven statement is that the
-// Hessian is positive semidefinite at every point.
+// practice); on a non-convex polygon or polyhedron the proven statement
+// is that the Hessian is positive semidefinite at every point.
 //
 // Disproven: a float point verified inside the closed domain at which the
 // point enclosure of the Hessian is verified not positive semidefinite
-// (V″ < 0; or H11 < 0, H22 < 0 or H11·H22 − H12² < 0, strictly).
+// (V″ < 0; or some principal minor < 0, strictly).
 //
 // Otherwise undecided, naming the first cell where the subdivision (at
 // most maxBisections halvings per cell on an interval, maxSplits midpoint
-// subdivisions per triangle, within a total budget) stopped.
+// subdivisions per triangle or tetrahedron, within a total budget)
+// stopped.
 func ConvexPotential(p *problem.Problem) certs.Hypothesis {
 	h := certs.Hypothesis{Name: named.ConvexPotential}
 	if poly, ok := p.Potential.Polynomial(); ok && poly.Degree() <= 1 {
@@ -73,15 +86,15 @@ func ConvexPotential(p *problem.Problem) certs.Hypothesis {
 	if p.Dim == 1 {
 		return convexOnInterval(h, p)
 	}
-	return convexOnPolygon(h, p)
+	return convexOnSimplices(h, p)
 }
 
 // cell is one piece of a subdivision with its remaining depth.
 type cell struct {
-	lo, hi float64          // intervals
-	tri    [3][2]interval.I // polygons: vertex enclosures of a sub-triangle
-	top    int              // polygons: index of the triangle of p.Triangles it lies in
-	depth  int
+	lo, hi  float64 // intervals
+	simplex simplex // polygons and polyhedra: a sub-simplex
+	top     int     // polygons and polyhedra: index of the simplex of topSimplices it lies in
+	depth   int
 }
 
 func convexOnInterval(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis {
@@ -139,22 +152,57 @@ func secondDerivative(v *formula.Expr, x interval.I) (interval.I, error) {
 	return hs[0][0], nil
 }
 
-// psd returns the enclosures of H11, H22 and H11·H22 − H12² of V over the
-// box.
-func psd(v *formula.Expr, box map[string]interval.I) ([3]interval.I, error) {
-	hs, err := v.Hessian(box, []string{"x", "y"})
+// principalMinors returns enclosures of the principal minors of the
+// Hessian of V over the box of d coordinates, in the order of
+// minorNames(d).
+func principalMinors(v *formula.Expr, box map[string]interval.I, d int) ([]interval.I, error) {
+	hs, err := v.Hessian(box, coordinateNames[:d])
 	if err != nil {
-		return [3]interval.I{}, err
+		return nil, err
 	}
-	det := hs[0][0].Mul(hs[1][1]).Sub(hs[0][1].Sqr())
-	return [3]interval.I{hs[0][0], hs[1][1], det}, nil
+	if d == 2 {
+		det := hs[0][0].Mul(hs[1][1]).Sub(hs[0][1].Sqr())
+		return []interval.I{hs[0][0], hs[1][1], det}, nil
+	}
+	minor2 := func(i, j int) interval.I { return hs[i][i].Mul(hs[j][j]).Sub(hs[i][j].Sqr()) }
+	var m [3][3]interval.I
+	for i := range 3 {
+		copy(m[i][:], hs[i])
+	}
+	return []interval.I{hs[0][0], hs[1][1], hs[2][2], minor2(0, 1), minor2(0, 2), minor2(1, 2), det3(m)}, nil
 }
 
-func convexOnPolygon(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis {
-	tops := topTriangles(p)
+// minorNames names the principal minors of principalMinors in dimension d.
+func minorNames(d int) []string {
+	if d == 2 {
+		return []string{"H11", "H22", "det"}
+	}
+	return []string{"H11", "H22", "H33", "H11·H22 − H12²", "H11·H33 − H13²", "H22·H33 − H23²", "det"}
+}
+
+// describeMinors writes "name ∈ enclosure" for each principal minor of
+// dimension d.
+func describeMinors(m []interval.I, d int) string {
+	names := minorNames(d)
+	parts := make([]string, len(m))
+	for i, x := range m {
+		parts[i] = fmt.Sprintf("%s ∈ %v", names[i], x)
+	}
+	return strings.Join(parts, ", ")
+}
+
+// convexOnSimplices decides the convexity of V on a polygon or a
+// polyhedron over the simplices of topSimplices, split where undecided.
+func convexOnSimplices(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis {
+	tops := topSimplices(p)
+	d := tops[0].dim()
+	shape, shapes, domain := "triangle", "triangles", "polygon"
+	if d == 3 {
+		shape, shapes, domain = "tetrahedron", "tetrahedra", "polyhedron"
+	}
 	var queue []cell
 	for k, t := range tops {
-		queue = append(queue, cell{tri: t, top: k, depth: maxSplits})
+		queue = append(queue, cell{simplex: t, top: k, depth: maxSplits})
 	}
 	evaluated := 0
 	stuck := ""
@@ -162,130 +210,58 @@ func convexOnPolygon(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis {
 		c := queue[0]
 		queue = queue[1:]
 		evaluated++
-		m, err := psd(p.Potential, boundingBox(c.tri))
-		if err == nil && m[0].Lo >= 0 && m[1].Lo >= 0 && m[2].Lo >= 0 {
+		m, err := principalMinors(p.Potential, c.simplex.box(), d)
+		if err == nil && allNonnegative(m) {
 			continue
 		}
-		if pt, ok := centroidInside(c.tri, tops[c.top]); ok {
-			if mp, err := psd(p.Potential, pointEnv(pt[:])); err == nil && (mp[0].Hi < 0 || mp[1].Hi < 0 || mp[2].Hi < 0) {
-				return disproven(h, fmt.Sprintf("the Hessian is not positive semidefinite at the witness point (H11 ∈ %v, H22 ∈ %v, det ∈ %v there)", mp[0], mp[1], mp[2]),
-					&certs.Witness{Point: pointText(pt[:])})
+		if pt, ok := centroidInside(c.simplex, tops[c.top]); ok {
+			if mp, err := principalMinors(p.Potential, pointEnv(pt), d); err == nil && someNegative(mp) {
+				return disproven(h, fmt.Sprintf("the Hessian is not positive semidefinite at the witness point (%s there)", describeMinors(mp, d)),
+					&certs.Witness{Point: pointText(pt)})
 			}
 		}
-		if c.depth > 0 && evaluated+len(queue)+4 <= maxTriangles {
-			for _, s := range splitTriangle(c.tri) {
-				queue = append(queue, cell{tri: s, top: c.top, depth: c.depth - 1})
+		if c.depth > 0 && evaluated+len(queue)+children(d) <= maxSimplices {
+			for _, s := range c.simplex.split() {
+				queue = append(queue, cell{simplex: s, top: c.top, depth: c.depth - 1})
 			}
 			continue
 		}
 		if stuck == "" {
-			box := boundingBox(c.tri)
-			stuck = fmt.Sprintf("x ∈ %v, y ∈ %v", box["x"], box["y"])
+			box := c.simplex.box()
+			var coords []string
+			for _, name := range coordinateNames[:d] {
+				coords = append(coords, fmt.Sprintf("%s ∈ %v", name, box[name]))
+			}
+			stuck = strings.Join(coords, ", ")
 			if err != nil {
 				stuck += ": " + err.Error()
 			} else {
-				stuck += fmt.Sprintf(" (H11 ∈ %v, H22 ∈ %v, det ∈ %v)", m[0], m[1], m[2])
+				stuck += " (" + describeMinors(m, d) + ")"
 			}
 		}
 	}
 	if stuck != "" {
-		return undecidedAt(h, "could not decide that the Hessian is positive semidefinite on the triangle with "+stuck)
+		return undecidedAt(h, fmt.Sprintf("could not decide that the Hessian is positive semidefinite on the %s with %s", shape, stuck))
 	}
-	return proven(h, fmt.Sprintf("the Hessian is positive semidefinite on %d triangles covering the polygon", evaluated))
+	return proven(h, fmt.Sprintf("the Hessian is positive semidefinite on %d %s covering the %s", evaluated, shapes, domain))
 }
 
-// topTriangles returns the vertex enclosures of the triangles of
-// p.Triangles (counterclockwise), which tile the polygon.
-func topTriangles(p *problem.Problem) [][3][2]interval.I {
-	var out [][3][2]interval.I
-	for _, t := range p.Triangles() {
-		var v [3][2]interval.I
-		for j, k := range t {
-			v[j] = [2]interval.I{p.Vertices[k][0].Val, p.Vertices[k][1].Val}
-		}
-		out = append(out, v)
-	}
-	return out
-}
-
-func boundingBox(v [3][2]interval.I) map[string]interval.I {
-	return map[string]interval.I{
-		"x": v[0][0].Hull(v[1][0]).Hull(v[2][0]),
-		"y": v[0][1].Hull(v[1][1]).Hull(v[2][1]),
-	}
-}
-
-// splitTriangle returns the four midpoint sub-triangles of v
-// (counterclockwise if v is) with enclosed midpoints: for every exact
-// choice of vertices in v, the exact sub-triangles lie in the enclosures
-// and cover the exact triangle.
-func splitTriangle(v [3][2]interval.I) [4][3][2]interval.I {
-	mid := func(p, q [2]interval.I) [2]interval.I {
-		return [2]interval.I{p[0].Add(q[0]).MulF(0.5), p[1].Add(q[1]).MulF(0.5)}
-	}
-	m01, m12, m20 := mid(v[0], v[1]), mid(v[1], v[2]), mid(v[2], v[0])
-	return [4][3][2]interval.I{{v[0], m01, m20}, {m01, v[1], m12}, {m20, m12, v[2]}, {m12, m20, m01}}
-}
-
-// centroidInside chooses a float point near the centroid of the
-// sub-triangle t and returns it if it is verified to lie in the closed
-// triangle top (a triangle of the polygon's triangulation, given by
-// enclosures of its exact vertices): every orientation
-// (top_{j+1} − top_j) × (q − top_j) is enclosed and ≥ 0.
-func centroidInside(t, top [3][2]interval.I) ([2]float64, bool) {
-	var q [2]float64
-	for i := range q {
-		q[i] = (t[0][i].Mid() + t[1][i].Mid() + t[2][i].Mid()) / 3 // a choice
-	}
-	if math.IsNaN(q[0]) || math.IsNaN(q[1]) {
-		return q, false
-	}
-	return q, insideTriangle(top, q)
-}
-
-// insideTriangle reports whether the point q is verified to lie in the
-// closed counterclockwise triangle with vertex enclosures v.
-func insideTriangle(v [3][2]interval.I, q [2]float64) bool {
-	qx, qy := interval.Point(q[0]), interval.Point(q[1])
-	for j := range 3 {
-		a, b := v[j], v[(j+1)%3]
-		o := b[0].Sub(a[0]).Mul(qy.Sub(a[1])).Sub(b[1].Sub(a[1]).Mul(qx.Sub(a[0])))
-		if o.Lo < 0 {
+func allNonnegative(m []interval.I) bool {
+	for _, x := range m {
+		if x.Lo < 0 {
 			return false
 		}
 	}
 	return true
 }
 
-// samplePoints chooses float points verified inside the closed domain:
-// on an interval its midpoint and quarter points, on a polygon points near
-// the centroids of its triangles.
-func samplePoints(p *problem.Problem) [][]float64 {
-	var out [][]float64
-	if p.Dim == 1 {
-		a, b := p.Interval[0].Val, p.Interval[1].Val
-		for _, s := range []float64{0.5, 0.25, 0.75} {
-			x := a.Mid() + s*(b.Mid()-a.Mid()) // a choice
-			if a.Hi <= x && x <= b.Lo {
-				out = append(out, []float64{x})
-			}
-		}
-		return out
-	}
-	for _, t := range topTriangles(p) {
-		if q, ok := centroidInside(t, t); ok {
-			out = append(out, q[:])
+func someNegative(m []interval.I) bool {
+	for _, x := range m {
+		if x.Hi < 0 {
+			return true
 		}
 	}
-	return out
-}
-
-func pointEnv(pt []float64) map[string]interval.I {
-	env := map[string]interval.I{"x": interval.Point(pt[0])}
-	if len(pt) > 1 {
-		env["y"] = interval.Point(pt[1])
-	}
-	return env
+	return false
 }
 
 // pointText prints the exact values of the float coordinates.

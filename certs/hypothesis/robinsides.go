@@ -18,8 +18,8 @@ func RobinOrNeumannSides(p *problem.Problem) certs.Hypothesis {
 	h := certs.Hypothesis{Name: named.RobinOrNeumannSides}
 	for i, bc := range p.Boundary {
 		if bc.Kind == boundary.Dirichlet {
-			return disproven(h, fmt.Sprintf("side %d has the Dirichlet condition", i), &certs.Witness{Side: intPtr(i)})
+			return disproven(h, fmt.Sprintf("%s %d has the Dirichlet condition", piece(p), i), &certs.Witness{Side: intPtr(i)})
 		}
 	}
-	return proven(h, "every side has a Robin or a Neumann condition")
+	return proven(h, "every "+piece(p)+" has a Robin or a Neumann condition")
 }

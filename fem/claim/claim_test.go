@@ -145,6 +145,10 @@ func TestCheckScope(t *testing.T) {
 		{"12*inradius^2 <= 1", square, 4, "triangles only"},
 		{"12*inradius^2 <= 1", triangle, 0, ""},
 		{"inradius > 0", square, 1, "triangles only"},
+		{"inradius > 0", box, 1, "tetrahedra only among domains of three coordinates"},
+		{"inradius > 0", Scope{Dim: 3, Vertices: 4, Eigenvalues: 2}, 0, ""},
+		{"inradius > 0", Scope{Dim: 3, Vertices: 8, Eigenvalues: 2}, 1, "tetrahedra only"},
+		{"gap >= alpha", Scope{Dim: 3, Vertices: 8, Eigenvalues: 2, NoAlpha: "no face has a Robin condition"}, 8, "no face has a Robin condition"},
 		{"alpha > 0", triangle, 0, ""},
 		{"gap >= alpha", square, 8, "no side has a Robin condition"},
 		{"gap >= alpha", line, 8, "different coefficients"},
@@ -219,5 +223,20 @@ func TestScopeThreeDimensions(t *testing.T) {
 		case c.want != "" && (err == nil || !strings.Contains(err.Error(), c.want)):
 			t.Errorf("%q: %v, want %q", c.text, err, c.want)
 		}
+	}
+}
+
+// TestScopeMessagesThreeDimensions: on a domain of three coordinates the
+// refusals name its own quantities and pieces (volume, surface_area,
+// faces), never the polygon's.
+func TestScopeMessagesThreeDimensions(t *testing.T) {
+	solid := Scope{Dim: 3, Vertices: 8, Eigenvalues: 2, NoAlpha: "no face has a Robin condition"}
+	why, hint := solid.Unavailable(Inradius)
+	if !strings.Contains(hint, "volume, surface_area") || strings.Contains(why+hint, "perimeter") {
+		t.Errorf("inradius on a polyhedron: %q, hint %q", why, hint)
+	}
+	why, hint = solid.Unavailable(Alpha)
+	if !strings.Contains(hint, "every Robin face") || strings.Contains(why+hint, "side") {
+		t.Errorf("alpha on a polyhedron: %q, hint %q", why, hint)
 	}
 }

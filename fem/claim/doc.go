@@ -31,9 +31,11 @@
 //	gap                  lambda2 − lambda1
 //	D                    the diameter (the length of an interval)
 //	area, perimeter      polygons only
-//	inradius             triangles only: 2·area/perimeter
+//	volume, surface_area polyhedra and products of three or four coordinates
+//	inradius             triangles: 2·area/perimeter; tetrahedra: 3·volume/surface_area
 //	alpha                the Robin coefficient, when the problem has Robin
-//	                     sides and all of them have one coefficient
+//	                     sides (faces in three dimensions) and all of them
+//	                     have one coefficient
 //	shape_margin         polygons only: u(x)u(y) − u(m)² for the midpoint
 //	                     triple x, y, m = (x + y)/2 of the ground state u
 //	                     (unit L² norm) recorded in results.ground_state

@@ -65,7 +65,7 @@ func eigenvalueIndex(name string) (int, bool) {
 // Scope is what a problem provides to its claims.
 type Scope struct {
 	Dim         int // the number of coordinates: 1 interval, 2 polygon, 3 polyhedron or product, 4 product
-	Vertices    int // the polygon's vertices (0 for an interval)
+	Vertices    int // the polygon's or the polyhedron's vertices (0 for an interval or a product of three or four coordinates)
 	Eigenvalues int // the number of certified eigenvalues, lambda1 … lambdaN
 	// NoAlpha says why alpha has no value ("no side has a Robin
 	// condition", …); "" when the Robin sides share one coefficient.
@@ -106,15 +106,22 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 		}
 		return fmt.Sprintf("%s is defined for three-dimensional domains only (and products of four coordinates)", name), "on a polygon use area and perimeter, on an interval D"
 	case Inradius:
-		if s.Dim == 2 && s.Vertices == 3 {
+		if s.Dim == 2 && s.Vertices == 3 || s.Dim == 3 && s.Vertices == 4 {
 			return "", ""
 		}
-		return "inradius is defined for triangles only (2·area/perimeter)", "for other domains write the bound you need with area, perimeter or D"
+		if s.Dim > 2 {
+			return "inradius is defined for tetrahedra only among domains of three coordinates (3·volume/surface_area)", "for other domains write the bound you need with volume, surface_area or D"
+		}
+		return "inradius is defined for triangles only among polygons (2·area/perimeter; in three dimensions for tetrahedra)", "for other domains write the bound you need with area, perimeter or D"
 	case Alpha:
 		if s.NoAlpha == "" {
 			return "", ""
 		}
-		return "alpha has no value: " + s.NoAlpha, "alpha is the Robin coefficient shared by every Robin side; write the coefficient itself, or declare it as a parameter"
+		piece := "side"
+		if s.Dim > 2 {
+			piece = "face"
+		}
+		return "alpha has no value: " + s.NoAlpha, "alpha is the Robin coefficient shared by every Robin " + piece + "; write the coefficient itself, or declare it as a parameter"
 	case ShapeMargin:
 		if s.Dim == 2 {
 			return "", ""
@@ -131,6 +138,9 @@ func (s Scope) Unavailable(name string) (why, hint string) {
 	}
 	if s.Dim > 2 {
 		known += ", volume, surface_area"
+		if s.Dim == 3 && s.Vertices == 4 {
+			known += ", inradius"
+		}
 	}
 	if s.NoAlpha == "" {
 		known += ", alpha"

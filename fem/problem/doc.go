@@ -112,7 +112,7 @@
 // gapcert/fem/claim (REL one of >=, <=, >, <, or ≥, ≤), and every name a claim
 // uses must be a quantity this problem provides (ClaimScope): lambdak up to
 // "eigenvalues", gap, D, area and perimeter on polygons, inradius on
-// triangles, volume and surface_area on polyhedra and on products of
+// triangles and tetrahedra, volume and surface_area on polyhedra and on products of
 // three or four coordinates, alpha when the Robin sides share one coefficient
 // (RobinAlpha), pi, e and the parameters. A claim may instead name a
 // built-in claim, "@name" (package gapcert/fem/claim/named, e.g.

@@ -723,10 +723,14 @@ func (r *reader) namedClaim(text, path string, dim int, scope claim.Scope) (stri
 }
 
 // ClaimScope returns what the problem provides to its claims (package
-// claim): its dimension and vertices, the number of eigenvalues, its
-// parameters, and whether alpha has a value (RobinAlpha).
+// claim): its dimension and the vertices of its polygon or polyhedron,
+// the number of eigenvalues, its parameters, and whether alpha has a value
+// (RobinAlpha).
 func (p *Problem) ClaimScope() claim.Scope {
 	s := claim.Scope{Dim: p.Dim, Vertices: len(p.Vertices), Eigenvalues: p.Eigenvalues, Params: p.sortedParamNames()}
+	if p.Polyhedron != nil {
+		s.Vertices = len(p.Polyhedron.Vertices)
+	}
 	_, s.NoAlpha = p.RobinAlpha()
 	return s
 }
@@ -735,8 +739,13 @@ func (p *Problem) ClaimScope() claim.Scope {
 // Robin condition (sides of other kinds do not count), the value of the
 // quantity alpha of claims. When there is none, why says so: no Robin
 // side, two Robin sides whose coefficients are decided to differ, or two
-// whose equality cannot be decided (Equal).
+// whose equality cannot be decided (Equal); on a domain of three or four
+// coordinates the reason says "face".
 func (p *Problem) RobinAlpha() (alpha Number, why string) {
+	piece := "side"
+	if p.Dim > 2 {
+		piece = "face"
+	}
 	first := -1
 	for i, bc := range p.Boundary {
 		if bc.Kind != boundary.Robin {
@@ -749,13 +758,13 @@ func (p *Problem) RobinAlpha() (alpha Number, why string) {
 		a := p.Boundary[first].Alpha
 		switch same, decided := Equal(a, bc.Alpha); {
 		case !decided:
-			return Number{}, fmt.Sprintf("cannot decide whether the Robin coefficients %s (side %d) and %s (side %d) are equal", a.Text, first, bc.Alpha.Text, i)
+			return Number{}, fmt.Sprintf("cannot decide whether the Robin coefficients %s (%s %d) and %s (%s %d) are equal", a.Text, piece, first, bc.Alpha.Text, piece, i)
 		case !same:
-			return Number{}, fmt.Sprintf("the Robin sides have different coefficients, %s (side %d) and %s (side %d)", a.Text, first, bc.Alpha.Text, i)
+			return Number{}, fmt.Sprintf("the Robin %ss have different coefficients, %s (%s %d) and %s (%s %d)", piece, a.Text, piece, first, bc.Alpha.Text, piece, i)
 		}
 	}
 	if first < 0 {
-		return Number{}, "no side has a Robin condition"
+		return Number{}, "no " + piece + " has a Robin condition"
 	}
 	return p.Boundary[first].Alpha, ""
 }

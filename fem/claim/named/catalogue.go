@@ -34,8 +34,10 @@ const (
 	// the closed domain; decided from the certificate's own
 	// results.ground_state, not from the problem.
 	LogConcaveGroundState = "log_concave_ground_state"
-	// CircumsolidProduct: the polygon is a product of circumsolids
-	// (tangential, or a rectangle); decided by certs/hypothesis.
+	// CircumsolidProduct: the domain is a product of circumsolids (a
+	// polygon: tangential, or a rectangle; a polyhedron: a circumsolid, or
+	// a right prism over a tangential polygon or a rectangle); decided by
+	// certs/hypothesis.
 	CircumsolidProduct = "circumsolid_product"
 )
 
@@ -48,7 +50,7 @@ const RobinIntervalGap = "robin_interval_gap"
 type Claim struct {
 	Name       string // without Prefix
 	Inequality string // "lhs REL rhs" over certified quantities
-	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon, 3 and 4: products)
+	Dims       []int  // the dimensions of domain it applies to (1: interval, 2: polygon, 3: polyhedron or product, 4: product)
 	Hypotheses []string
 	// Reference is the name of a quantity used in Inequality that is
 	// certified by a separate computation ("" if none), ReferenceResult
@@ -120,7 +122,7 @@ func (c Claim) Parse() *claim.Claim {
 // *claim.Error on the claim text ("@name").
 func (c Claim) CheckScope(s claim.Scope) error {
 	if s.Dim != 0 && !c.Applies(s.Dim) {
-		where := map[int]string{1: "an interval", 2: "a polygon", 3: "a domain of three coordinates", 4: "a domain of four coordinates"}
+		where := map[int]string{1: "an interval", 2: "a polygon", 3: "a polyhedron or a product of three coordinates", 4: "a product of four coordinates"}
 		var ok []string
 		for _, d := range c.Dims {
 			ok = append(ok, where[d])
@@ -142,9 +144,9 @@ var catalogue = []Claim{
 	// B. Andrews and J. Clutterbuck, Proof of the fundamental gap
 	// conjecture, J. Amer. Math. Soc. 24 (2011) 899–916: for a bounded
 	// convex domain of diameter D with Dirichlet conditions and a convex
-	// potential V, λ2 − λ1 ≥ 3π²/D², in every dimension n (the domains
-	// of three and four coordinates here are products of convex factors,
-	// convex). In one dimension: R. Lavine, The
+	// potential V, λ2 − λ1 ≥ 3π²/D², in every dimension n (so on convex
+	// polyhedra and on products of convex factors alike; convexity of the
+	// domain and of V is decided per problem). In one dimension: R. Lavine, The
 	// eigenvalue gap for one-dimensional convex potentials, Proc. Amer.
 	// Math. Soc. 121 (1994) 815–821.
 	{

@@ -68,4 +68,11 @@ func TestLookup(t *testing.T) {
 	if err := c.CheckScope(claim.Scope{Dim: 1, Eigenvalues: 2}); !errors.As(err, &ce) || ce.Hint != "it applies to a polygon" {
 		t.Errorf("@triangle_gap on an interval: %v", err)
 	}
+	if err := c.CheckScope(claim.Scope{Dim: 3, Vertices: 4, Eigenvalues: 2}); !errors.As(err, &ce) || ce.Msg != `built-in claim "@triangle_gap" does not apply to a polyhedron or a product of three coordinates` {
+		t.Errorf("@triangle_gap on a tetrahedron: %v", err)
+	}
+	fg, _ := Lookup("@fundamental_gap")
+	if err := fg.CheckScope(claim.Scope{Dim: 3, Vertices: 8, Eigenvalues: 2}); err != nil {
+		t.Errorf("@fundamental_gap on a polyhedron: %v", err)
+	}
 }

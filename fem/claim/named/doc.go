@@ -20,9 +20,9 @@
 // hypotheses of its theorem (decided per problem by package
 // certs/hypothesis). The catalogue:
 //
-//	@fundamental_gap        gap >= 3*pi^2/D^2         intervals, polygons, products (3, 4 coordinates)
+//	@fundamental_gap        gap >= 3*pi^2/D^2         intervals, polygons, polyhedra, products (3, 4 coordinates)
 //	@triangle_gap           D^2*gap >= 64*pi^2/9      polygons
-//	@payne_weinberger       lambda2 >= pi^2/D^2       intervals, polygons, products (3, 4 coordinates)
+//	@payne_weinberger       lambda2 >= pi^2/D^2       intervals, polygons, polyhedra, products (3, 4 coordinates)
 //	@robin_comparison       gap >= robin_interval_gap polygons
 //	@robin_log_concave_gap  gap >= pi^2/D^2           intervals
 //	@robin_ground_state_not_log_concave
