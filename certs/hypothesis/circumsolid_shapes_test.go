@@ -208,6 +208,11 @@ var lPrism = solidFile([][3]string{
 //   - the regular hexagon of circumradius 1 has inradius √3/2: the right
 //     prism over it of height 1 is a product but has no ball, of height
 //     √3 it is a circumsolid;
+//   - the regular pentagon of circumradius 1 has inradius cos(π/5) ≈ 0.809:
+//     the right prism over it of height √2 (coordinates in Q(ζ_40)) is a
+//     product and has no ball (√2/2 ≠ cos(π/5)); of height 2cos(π/5) it
+//     is a circumsolid; the right prism over the regular heptagon
+//     (coordinates in Q(ζ_7)) of height 1 is a product;
 //   - the truncated tetrahedron (see truncatedTetrahedron): no ball, 12
 //     vertices but no face whose normal line through one vertex meets
 //     another, so no product;
@@ -241,6 +246,9 @@ func TestCircumsolidShapes(t *testing.T) {
 		{"square pyramid, apex 1e-12 off the axis", pyramid("1/2", nearHalf, "1"), certs.Disproven, certs.Disproven, 0, ""},
 		{"hexagonal prism", prismFile(hexagon(), "1"), certs.Disproven, certs.Proven, 0, "tangential polygon face"},
 		{"hexagonal prism of height √3", prismFile(hexagon(), "sqrt(3)"), certs.Proven, certs.Proven, math.Sqrt(3) / 2, "a circumsolid"},
+		{"pentagonal prism of height √2", prismFile(regularGon(5), "sqrt(2)"), certs.Disproven, certs.Proven, 0, "tangential polygon face"},
+		{"pentagonal prism of height 2cos(π/5)", prismFile(regularGon(5), "2*cos(pi/5)"), certs.Proven, certs.Proven, rho5, "a circumsolid"},
+		{"heptagonal prism", prismFile(regularGon(7), "1"), certs.Disproven, certs.Proven, 0, "tangential polygon face"},
 		{"truncated tetrahedron", truncatedTetrahedron(), certs.Disproven, certs.Disproven, 0, ""},
 		{"box 1e-12 off the cube", parallelepiped("1", "1", "0", "1.000000000001"), certs.Disproven, certs.Proven, 0, "a box"},
 		{"L-shaped prism", lPrism, certs.Disproven, certs.Disproven, 0, "not convex"},
@@ -269,6 +277,16 @@ func hexagon() [][2]string {
 	var out [][2]string
 	for k := range 6 {
 		out = append(out, [2]string{fmt.Sprintf("cos(pi*%d/3)", k), fmt.Sprintf("sin(pi*%d/3)", k)})
+	}
+	return out
+}
+
+// regularGon returns the regular n-gon of circumradius 1, counterclockwise
+// (exact texts cos, sin of 2πk/n).
+func regularGon(n int) [][2]string {
+	var out [][2]string
+	for k := range n {
+		out = append(out, [2]string{fmt.Sprintf("cos(2*pi*%d/%d)", k, n), fmt.Sprintf("sin(2*pi*%d/%d)", k, n)})
 	}
 	return out
 }
