@@ -305,3 +305,29 @@ func TestCircumsolidNearMissEnclosed(t *testing.T) {
 	h, _ = Decide(CircumsolidProduct, p)
 	requireVerdict(t, "box 2^-40 off the cube: product", h, certs.Undecided)
 }
+
+// TestCircumsolidCyclotomicNearMiss: the pyramid over the regular
+// heptagon of circumradius 1 with apex (0, 0, 1) is a circumsolid (a
+// pyramid over a tangential base with apex above the incentre, see
+// TestCircumsolidShapes: inradius ρ/(ρ + √(1 + ρ²)), ρ = cos(π/7)),
+// decided exactly in Q(ζ_7); with the apex moved to (10⁻¹², 0, 1) it is
+// not (the lateral faces' distances from any axis point differ), and the
+// decision must not say proven — the residual's terms lie in different
+// square classes and their enclosure does not exclude 0 at 10⁻¹², so
+// undecided is the expected answer, disproven acceptable.
+func TestCircumsolidCyclotomicNearMiss(t *testing.T) {
+	p := parse(t, problemText(regularPyramid(7, "1"), "0", `"neumann"`))
+	h, _ := Decide(CircumsolidPolyhedron, p)
+	requireVerdict(t, "heptagonal pyramid", h, certs.Proven)
+	rho := math.Cos(math.Pi / 7)
+	if r, want := insphereRadius(p.Polyhedron), rho/(rho+math.Sqrt(1+rho*rho)); math.Abs(r.Mid()-want) > 1e-15 || r.Wid() > 1e-14 {
+		t.Errorf("inradius %v, want %v", r, want)
+	}
+	off := strings.Replace(regularPyramid(7, "1"), `["0","0","1"]`, `["1/10^12","0","1"]`, 1)
+	p = parse(t, problemText(off, "0", `"neumann"`))
+	for _, name := range []string{CircumsolidPolyhedron, CircumsolidProduct} {
+		if h, _ := Decide(name, p); h.Verdict == certs.Proven {
+			t.Errorf("%s of the heptagonal pyramid with its apex 1e-12 off the axis: proven (%s)", name, h.Detail)
+		}
+	}
+}
