@@ -48,7 +48,7 @@ func positiveDefiniteByShift(h [][]interval.I) bool {
 		for j := range k {
 			pivot = pivot.Sub(l[k][j].Sqr())
 		}
-		if pivot.Lo <= 0 {
+		if !(pivot.Lo > 0) { // also refuses NaN
 			return false
 		}
 		lkk, _ := pivot.Sqrt() // pivot > 0
