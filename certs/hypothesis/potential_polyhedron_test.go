@@ -12,6 +12,10 @@ import (
 	"gapcert/interval"
 )
 
+// unitEdgeTetrahedron is the regular tetrahedron of unit edge on the plane
+// z = 0, with surd coordinates.
+const unitEdgeTetrahedron = `{"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["1/2","sqrt(3)/2","0"],["1/2","sqrt(3)/6","sqrt(6)/3"]], "faces": [[0,2,1],[0,1,3],[1,2,3],[2,0,3]]}}`
+
 // minEigen3 returns the least eigenvalue of the symmetric 3×3 matrix h
 // (the trigonometric closed form of the cubic's roots, O. K. Smith,
 // Eigenvalues of a symmetric 3 × 3 matrix, Comm. ACM 4 (1961) 168,
@@ -78,7 +82,11 @@ func minEigen3(h [3][3]float64) float64 {
 //     decided from Hessians: the first is convex, the second concave, and
 //     the concave one must never be "proven" from the cells on either side
 //     of the kink (the same for min(x, y), concave, and max(x, y),
-//     convex); |x − 2| is affine on the cube (2 − x), proven.
+//     convex); |x − 2| is affine on the cube (2 − x), proven;
+//   - on the regular tetrahedron of unit edge with surd coordinates (its
+//     cone tetrahedra have irrational vertices, enclosed):
+//     x² + y² + z² − xy (Hessian eigenvalues 1, 3, 2) is proven,
+//     x² + y² − z² (H33 = −2) disproven at a point verified inside.
 func TestConvexPotentialPolyhedronPatterns(t *testing.T) {
 	for _, c := range []struct {
 		domain, v, want string
@@ -100,6 +108,8 @@ func TestConvexPotentialPolyhedronPatterns(t *testing.T) {
 		{unitCube, "min(x,y)", certs.Undecided, nil},
 		{unitCube, "max(x,y)", certs.Undecided, nil},
 		{unitCube, "abs(x-2)", certs.Proven, nil},
+		{unitEdgeTetrahedron, "x^2+y^2+z^2-x*y", certs.Proven, nil},
+		{unitEdgeTetrahedron, "x^2+y^2-z^2", certs.Disproven, func(x, y, z float64) [3][3]float64 { return [3][3]float64{{2, 0, 0}, {0, 2, 0}, {0, 0, -2}} }},
 	} {
 		p := parse(t, problemText(c.domain, c.v, `"dirichlet"`))
 		h, _ := Decide(named.ConvexPotential, p)
