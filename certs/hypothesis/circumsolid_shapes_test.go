@@ -151,6 +151,40 @@ func truncatedTetrahedron() string {
 	return solidFile(vs, faces)
 }
 
+// rhombicDodecahedron returns the rhombic dodecahedron with vertices
+// (±1, ±1, ±1), (±2, 0, 0), (0, ±2, 0), (0, 0, ±2s) (s = "1": the
+// Catalan solid; other s: its image under the stretch z ↦ sz, an affine
+// map, so the faces stay planar). Its twelve rhombi lie in the planes
+// ±x ± y = 2 and ±x ± z/s = 2, ±y ± z/s = 2.
+func rhombicDodecahedron(s string) string {
+	vs := [][3]string{{"2", "0", "0"}, {"-2", "0", "0"}, {"0", "2", "0"}, {"0", "-2", "0"}, {"0", "0", "2*" + s}, {"0", "0", "-2*" + s}}
+	index := map[[3]int]int{}
+	for _, x := range []int{1, -1} {
+		for _, y := range []int{1, -1} {
+			for _, z := range []int{1, -1} {
+				index[[3]int{x, y, z}] = len(vs)
+				vs = append(vs, [3]string{fmt.Sprint(x), fmt.Sprint(y), fmt.Sprintf("%d*%s", z, s)})
+			}
+		}
+	}
+	axis := func(i, sign int) int { return 2*i + (1-sign)/2 } // the vertex 2·sign·e_i
+	var faces [][]int
+	for _, ij := range [][3]int{{0, 1, 2}, {0, 2, 1}, {1, 2, 0}} {
+		i, j, k := ij[0], ij[1], ij[2]
+		for _, si := range []int{1, -1} {
+			for _, sj := range []int{1, -1} {
+				corner := func(sk int) int {
+					var c [3]int
+					c[i], c[j], c[k] = si, sj, sk
+					return index[c]
+				}
+				faces = append(faces, []int{axis(i, si), corner(1), axis(j, sj), corner(-1)})
+			}
+		}
+	}
+	return solidFile(vs, faces)
+}
+
 // lPrism is the L-shaped prism ([0, 2]² minus (1, 2]²) × [0, 1], not
 // convex (the notch's edge at x = y = 1 is re-entrant).
 var lPrism = solidFile([][3]string{
@@ -218,6 +252,11 @@ var lPrism = solidFile([][3]string{
 //     another, so no product;
 //   - the box [0, 1]² × [0, 1 + 10⁻¹²] (a near miss of the cube): no ball
 //     (the z faces are 10⁻¹² farther apart than the others) but a box;
+//   - the rhombic dodecahedron (see rhombicDodecahedron): every face plane
+//     is at distance 2/√2 = √2 from the origin, a circumsolid of inradius
+//     √2 (derived here); stretched by 1 + 10⁻¹² in z, the planes
+//     ±x ± z/s = 2 move to distance 2/√(1 + 1/s²) ≠ √2: none, and with
+//     14 vertices and rhombic faces no right prism either;
 //   - the L-shaped prism: not convex, so neither.
 func TestCircumsolidShapes(t *testing.T) {
 	nearHalf := "0.500000000001" // 1/2 + 10⁻¹², exactly
@@ -251,6 +290,8 @@ func TestCircumsolidShapes(t *testing.T) {
 		{"heptagonal prism", prismFile(regularGon(7), "1"), certs.Disproven, certs.Proven, 0, "tangential polygon face"},
 		{"truncated tetrahedron", truncatedTetrahedron(), certs.Disproven, certs.Disproven, 0, ""},
 		{"box 1e-12 off the cube", parallelepiped("1", "1", "0", "1.000000000001"), certs.Disproven, certs.Proven, 0, "a box"},
+		{"rhombic dodecahedron", rhombicDodecahedron("1"), certs.Proven, certs.Proven, math.Sqrt2, "a circumsolid"},
+		{"rhombic dodecahedron stretched by 1e-12", rhombicDodecahedron("1.000000000001"), certs.Disproven, certs.Disproven, 0, ""},
 		{"L-shaped prism", lPrism, certs.Disproven, certs.Disproven, 0, "not convex"},
 	} {
 		t.Run(c.name, func(t *testing.T) {
