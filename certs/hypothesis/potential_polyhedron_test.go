@@ -12,6 +12,9 @@ import (
 	"gapcert/interval"
 )
 
+// centredCube is the cube [−1, 1]³.
+var centredCube = solidFile([][3]string{{"-1", "-1", "-1"}, {"1", "-1", "-1"}, {"1", "1", "-1"}, {"-1", "1", "-1"}, {"-1", "-1", "1"}, {"1", "-1", "1"}, {"1", "1", "1"}, {"-1", "1", "1"}}, hexahedronFaces)
+
 // unitEdgeTetrahedron is the regular tetrahedron of unit edge on the plane
 // z = 0, with surd coordinates.
 const unitEdgeTetrahedron = `{"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["1/2","sqrt(3)/2","0"],["1/2","sqrt(3)/6","sqrt(6)/3"]], "faces": [[0,2,1],[0,1,3],[1,2,3],[2,0,3]]}}`
@@ -83,6 +86,15 @@ func minEigen3(h [3][3]float64) float64 {
 //     the concave one must never be "proven" from the cells on either side
 //     of the kink (the same for min(x, y), concave, and max(x, y),
 //     convex); |x − 2| is affine on the cube (2 − x), proven;
+//   - on the cube [−1, 1]³: x⁴ + y⁴ + z⁴ and (x² + y² + z²)² are convex
+//     with Hessians singular at the origin or on coordinate planes; the
+//     interval Hessian of x⁴ over a box straddling x = 0 is symmetric
+//     about 0 (over x ∈ [−1/16, 1/16] it is [−0.047, 0.047], the sign of
+//     12x² lost), and the cone tetrahedra's subdivisions keep straddling
+//     the planes, so these stay undecided — never disproven;
+//     x² + y² + z² + xyz has H = [[2, z, y], [z, 2, x], [y, x, 2]] with
+//     determinant 8 + 2xyz − 2(x² + y² + z²) ≥ 0 on the cube (0 at
+//     (1, 1, −1)) and 2×2 minors ≥ 3: convex, proven;
 //   - on the regular tetrahedron of unit edge with surd coordinates (its
 //     cone tetrahedra have irrational vertices, enclosed):
 //     x² + y² + z² − xy (Hessian eigenvalues 1, 3, 2) is proven,
@@ -108,6 +120,9 @@ func TestConvexPotentialPolyhedronPatterns(t *testing.T) {
 		{unitCube, "min(x,y)", certs.Undecided, nil},
 		{unitCube, "max(x,y)", certs.Undecided, nil},
 		{unitCube, "abs(x-2)", certs.Proven, nil},
+		{centredCube, "x^4+y^4+z^4", "", nil},
+		{centredCube, "(x^2+y^2+z^2)^2", "", nil},
+		{centredCube, "x^2+y^2+z^2+x*y*z", certs.Proven, nil},
 		{unitEdgeTetrahedron, "x^2+y^2+z^2-x*y", certs.Proven, nil},
 		{unitEdgeTetrahedron, "x^2+y^2-z^2", certs.Disproven, func(x, y, z float64) [3][3]float64 { return [3][3]float64{{2, 0, 0}, {0, 2, 0}, {0, 0, -2}} }},
 	} {
