@@ -27,7 +27,12 @@
 // is enclosed by automatic differentiation (formula.Hessian) over the
 // cells of a subdivision of the domain (intervals: cells; polygons and
 // polyhedra: the simplices that tile them, refined by midpoint
-// subdivision where undecided, each evaluated over its bounding box). See
+// subdivision where undecided, each evaluated over its bounding box; on a
+// polyhedron a cell also passes when the Hessian enclosure is verified
+// positive definite: λ_min(H) ≥ λ_min(M − σI) for the midpoint matrix M
+// and σ the Frobenius norm of the radii, by Weyl's inequality, with
+// M − σI checked by an interval Cholesky factorisation; see
+// positiveDefiniteByShift). See
 // ConvexPotential for why success of the enclosure on every cell also
 // proves V to be C².
 //

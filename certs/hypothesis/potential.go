@@ -50,7 +50,10 @@ func ZeroPotential(p *problem.Problem) certs.Hypothesis {
 // H11·H22 − H12² in two dimensions; H11, H22, H33, the three principal
 // 2×2 minors and the determinant in three — each enclosure evaluated in
 // interval arithmetic, so the inequality holds at every point of the
-// cell). A symmetric matrix is positive semidefinite if and only if all
+// cell; on a polyhedron, where the 3×3 determinant's interval expansion
+// cancels badly, a cell also passes when its Hessian enclosure is verified
+// positive definite by positiveDefiniteByShift). A symmetric matrix is
+// positive semidefinite if and only if all
 // its principal minors are ≥ 0 (Sylvester's criterion for
 // semidefiniteness; R. A. Horn and C. R. Johnson, Matrix Analysis,
 // Cambridge University Press 1985, Theorem 7.2.5, recalled from memory);
@@ -160,16 +163,22 @@ func principalMinors(v *formula.Expr, box map[string]interval.I, d int) ([]inter
 	if err != nil {
 		return nil, err
 	}
+	return minorsOf(hs, d), nil
+}
+
+// minorsOf returns the principal minors of the Hessian enclosure hs of
+// dimension d, in the order of minorNames.
+func minorsOf(hs [][]interval.I, d int) []interval.I {
 	if d == 2 {
 		det := hs[0][0].Mul(hs[1][1]).Sub(hs[0][1].Sqr())
-		return []interval.I{hs[0][0], hs[1][1], det}, nil
+		return []interval.I{hs[0][0], hs[1][1], det}
 	}
 	minor2 := func(i, j int) interval.I { return hs[i][i].Mul(hs[j][j]).Sub(hs[i][j].Sqr()) }
 	var m [3][3]interval.I
 	for i := range 3 {
 		copy(m[i][:], hs[i])
 	}
-	return []interval.I{hs[0][0], hs[1][1], hs[2][2], minor2(0, 1), minor2(0, 2), minor2(1, 2), det3(m)}, nil
+	return []interval.I{hs[0][0], hs[1][1], hs[2][2], minor2(0, 1), minor2(0, 2), minor2(1, 2), det3(m)}
 }
 
 // minorNames names the principal minors of principalMinors in dimension d.
@@ -210,8 +219,12 @@ func convexOnSimplices(h certs.Hypothesis, p *problem.Problem) certs.Hypothesis 
 		c := queue[0]
 		queue = queue[1:]
 		evaluated++
-		m, err := principalMinors(p.Potential, c.simplex.box(), d)
-		if err == nil && allNonnegative(m) {
+		hs, err := p.Potential.Hessian(c.simplex.box(), coordinateNames[:d])
+		var m []interval.I
+		if err == nil {
+			m = minorsOf(hs, d)
+		}
+		if err == nil && (allNonnegative(m) || d == 3 && positiveDefiniteByShift(hs)) {
 			continue
 		}
 		if pt, ok := centroidInside(c.simplex, tops[c.top]); ok {
