@@ -161,6 +161,9 @@ func (r *reader) checkFace(pts []vec3, face []int, i int) (faceGeometry, bool) {
 		return faceGeometry{}, false
 	}
 	for j := 1; j < m; j++ {
+		if j == plane || j == plane+1 {
+			continue // on the plane they define (n0 is their cross product)
+		}
 		s, ok := pts[face[j]].sub(v0).dot(n0).sign()
 		switch {
 		case !ok:

@@ -429,3 +429,17 @@ func TestPolyhedronDefectsWithOthers(t *testing.T) {
 		t.Errorf("got %v", err)
 	}
 }
+
+// TestPolyhedronInexactTriangleFaces: a triangular face is planar whatever
+// its coordinates, so a tetrahedron with a coordinate that is only
+// enclosed (e) is accepted. The tetrahedron (0,0,0), (1,0,0), (0,1,0),
+// (0,0,e) has volume e/6 (common practice: a corner simplex has volume
+// abc/6).
+func TestPolyhedronInexactTriangleFaces(t *testing.T) {
+	v := [][3]string{{"0", "0", "0"}, {"1", "0", "0"}, {"0", "1", "0"}, {"0", "0", "exp(1)"}}
+	p, err := Parse(polyFile(v, [][]int{{0, 2, 1}, {0, 1, 3}, {1, 2, 3}, {2, 0, 3}}, `"dirichlet"`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	containsNarrow(t, "volume", p.Polyhedron.Volume(), math.E/6)
+}
