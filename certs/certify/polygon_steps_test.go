@@ -166,7 +166,7 @@ func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 // fixture. With a corner share of 0.99 (the corners limit) the raise
 // alone is predicted to gain less than 2.5, which made the one-step
 // chooser grade at degree 6; with the 13 levels it brings, far more, and
-// the raise is taken.
+// the raise is taken, unless grading on its own gained little.
 func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 	d, r, out := stepFixture(t)
 	h := d.hist
@@ -193,10 +193,21 @@ func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.graded != 17 {
 		t.Errorf("share 0.99: got degree %d graded %d (%q), want degree 8 with 17 levels", next.degree, next.graded, why)
 	}
+	// The levels gain no more than grading gained on its own: after two
+	// levels gained 1.3 (the widths limited elsewhere) the raise is
+	// predicted to gain about 12, and a uniform level measured at 4 is
+	// taken.
+	h.kinds[kindGrade], h.kinds[kindUniform] = measured(1.3), measured(4)
+	if g := h.predictedGain(d.p, kindDegree, r, raised, corners); !(g > 10 && g < 15) {
+		t.Errorf("grading measured at 1.3: predicted gain of the raise with 13 levels %.3g, want about 12", g)
+	}
+	if next, why := h.chooseStep(d, r, out); why != "" || next.refine != r.refine+1 || next.degree != r.degree {
+		t.Errorf("grading measured at 1.3: got degree %d refine %d graded %d (%q), want a uniform level", next.degree, next.refine, next.graded, why)
+	}
 	// At the depth of degree 6 grading alone is no candidate, however
 	// much it last gained; at degree 10 (the cap) it is.
 	h.share = share{}
-	h.kinds[kindGrade], h.kinds[kindDegree] = measured(1e6), measured(1.5)
+	h.kinds[kindGrade], h.kinds[kindDegree], h.kinds[kindUniform] = measured(1e6), measured(1.5), measured(1.01)
 	deep := r
 	deep.graded = 13
 	if next, why := h.chooseStep(d, deep, out); why != "" || next.graded != 17 || next.degree != 8 {
