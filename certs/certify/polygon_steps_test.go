@@ -218,6 +218,18 @@ func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 	if next, why := h.chooseStep(d, top, out); why != "" || next.graded != 23 {
 		t.Errorf("at degree %d: got graded %d (%q), want 23", maxPolygonDegree, next.graded, why)
 	}
+	// Without a corner of ν < 1 (the Robin trapezoid, ν = 4/3) there is
+	// no hp line: the steps are applyStep's.
+	mild := parseProblem(t, robinTrapezoidSource)
+	if n, ok := hpGraded(mild, 8); ok {
+		t.Errorf("Robin trapezoid: hp depth %d at degree 8, want none", n)
+	}
+	if next, ok := onHPLine(mild, kindDegree, r, recipe{degree: 8, graded: 4}); !ok || next.graded != 4 {
+		t.Errorf("Robin trapezoid: a degree raise grades to %d (%v), want 4", next.graded, ok)
+	}
+	if next, ok := onHPLine(mild, kindGrade, r, recipe{degree: 6, graded: 24}); !ok || next.graded != 24 {
+		t.Errorf("Robin trapezoid: grading to 24 at degree 6 gives %d (%v), want 24", next.graded, ok)
+	}
 	// Below the depth of degree 6 grading stops at it.
 	below := r
 	below.graded = 12
