@@ -641,10 +641,6 @@ func (h *stepHistory) nuMin(p *problem.Problem) float64 {
 // singular corners (next).
 const mildDegreeGain = 10
 
-// strongCornerStartDegree is the degree to which the first step raises
-// the degree on a polygon with a corner of ν < 1 (mildStep).
-const strongCornerStartDegree = 6
-
 // mildStep chooses the next step on a polygon whose singular corners all
 // have ν ≥ 1 while no uniform level has shown that a corner limits the
 // widths: the rule of polygons without singular corners (next), the
@@ -660,32 +656,26 @@ const strongCornerStartDegree = 6
 // the choice is chooseStep's (which takes another kind that fits, or
 // says why none does).
 //
-// With a corner of ν < 1 the smooth start is the degree's first raise
-// alone, to strongCornerStartDegree (the hp line, onHPLine, starts after
-// it: its 13 levels at the L-shape's first raise cost the Neumann L-shape
-// with V = exp(−r²), whose widths the smooth part limits at first, 27 s
-// on a loaded machine for a gain of 2): chosen by predicted gain per second
-// from degree 4, the cheap grading and uniform levels kept the degree at
-// 4 while they made every later degree step dearer (measured under the
-// same load, 1e-12 targets: on the L-shape 1.5e-10 at 98 s, where the
-// degree raised at the second step reached 9.5e-12 at 100 s; on the 117°
-// trapezoid degree 4 for nine steps). It reports false when it does not
-// choose.
+// A polygon with a corner of ν < 1 has no mild phase: its steps follow
+// the hp line (onHPLine) from the first. The line's cap on grading at
+// degree 4 (hpGraded) ends the grading that kept the degree at 4 for nine
+// steps on the 117° trapezoid, so the degree is not raised ahead of the
+// corners: with a first raise to degree 6 the Neumann L-shape with
+// V = exp(−r²) graded at degree 6 on 4 uniform levels, 12 to 17 s a step,
+// where at degree 4 the same levels took 3.6 to 5 s and gained as much
+// (measured on an otherwise idle machine: λ2 3.8e-9 at 82 s against
+// 3.0e-10 at 94 s). It reports false when it does not choose.
 func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
 	h := d.hist
 	if h == nil || h.cornerLimited || out.lg == nil || (h.best != nil && h.score < h.best.score) {
 		return r, false
 	}
-	k := kindUniform
-	top := maxPolygonDegree
-	if h.nuMin(d.p) < 1 {
-		top = strongCornerStartDegree
-	}
-	switch {
-	case !h.degreeSlowed && r.degree < top:
-		k = kindDegree
-	case top < maxPolygonDegree:
+	if _, line := hpGraded(d.p, r.degree); line {
 		return r, false
+	}
+	k := kindUniform
+	if !h.degreeSlowed && r.degree < maxPolygonDegree {
+		k = kindDegree
 	}
 	next, ok := applyStep(k, r, nil)
 	if !ok {
