@@ -228,9 +228,18 @@ func (h *stepHistory) expect(d polygon, k stepKind, from, r recipe) bool {
 // predict returns the predicted wall time of computing recipe r as a step
 // of kind k: its work (stepWork) times the kind's ratio, plus the setup of
 // a degree new to the run (setupWork), times the measured seconds per
-// unit of work.
+// unit of work. A degree step's ratio counts only when it is 1 or more:
+// a ratio below 1 learned at a low degree on a small mesh (where stage A,
+// whose work is a rough count, takes much of the time) made the raises
+// to degree 8 of the Neumann L-shape and the 117° trapezoid look half as
+// dear as they were, and they ended 28 s and 3.6 s after the time limit
+// (loaded machine).
 func (h *stepHistory) predict(p *problem.Problem, k stepKind, r recipe) float64 {
-	return h.perWork * (h.stepWork(p, r)*h.kinds[k].ratioOrOne() + h.setupWork(r.degree))
+	ratio := h.kinds[k].ratioOrOne()
+	if k == kindDegree {
+		ratio = math.Max(1, ratio)
+	}
+	return h.perWork * (h.stepWork(p, r)*ratio + h.setupWork(r.degree))
 }
 
 // setupWork is the predicted work (in the units of stepWork) of building
@@ -330,7 +339,8 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		score float64
 	}
 	var best, overMemory *candidate
-	available, tooSlow := false, false
+	available, tooSlow, structured := false, false, false
+	_, line := hpGraded(d.p, base.degree)
 	for _, k := range choiceOrder {
 		c, ok := applyStep(k, base, indicators)
 		if ok {
@@ -339,10 +349,14 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		if !ok {
 			continue
 		}
-		if k == kindAdaptive && h != nil && len(base.marks) == 0 && h.structuredLeft(d.p, base) {
+		if k == kindAdaptive && h != nil && len(base.marks) == 0 && structured {
 			// Marks fix the uniform and graded levels: the first round
-			// waits until the structured refinement toward the corners
-			// is spent or at its cap.
+			// waits while a structured step toward the corners is a
+			// candidate that fits: grading, or on the hp line the degree
+			// (each raise grades further; measured on the 117°
+			// trapezoid, a round at degree 6 with 20 levels gained 8.5,
+			// to 2.6e-12 for the gap, and left the run no step toward
+			// degree 10, where one step reaches 1.4e-12).
 			available = true
 			continue
 		}
@@ -362,6 +376,9 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 					continue
 				}
 			}
+		}
+		if k == kindGrade || (k == kindDegree && line) {
+			structured = true
 		}
 		gain := h.predictedGain(d.p, k, base, c, sh)
 		// The setup of a new degree counts in the score: left out, the
@@ -401,24 +418,6 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		}
 	}
 	return withStageARider(best.r, rho, ritzN), ""
-}
-
-// structuredLeft reports whether a structured step toward the corners
-// remains from r, for which the first adaptive round waits (its marks fix
-// the uniform and graded levels): grading not spent and below its cap,
-// or, on a polygon with an hp line (hpGraded), the degree not spent and
-// below its cap (each raise grades further; marks would stop the line at
-// the present degree: measured on the 117° trapezoid, a round at degree
-// 6 with 20 levels gained 8.5, to 2.6e-12 for the gap, and left the run
-// no step toward degree 10, where one step reaches 1.4e-12).
-func (h *stepHistory) structuredLeft(p *problem.Problem, r recipe) bool {
-	if next, ok := applyStep(kindGrade, r, nil); ok && !h.kinds[kindGrade].spent {
-		if _, ok := onHPLine(p, kindGrade, r, next); ok {
-			return true
-		}
-	}
-	_, line := hpGraded(p, r.degree)
-	return line && !h.kinds[kindDegree].spent && r.degree < maxPolygonDegree
 }
 
 // targetMargin: a step predicted to narrow the worst width to the target

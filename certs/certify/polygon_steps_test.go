@@ -213,6 +213,14 @@ func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 	if next, why := h.chooseStep(d, deep, out); why != "" || next.graded != 17 || next.degree != 8 {
 		t.Errorf("at the depth of degree 6: got degree %d graded %d (%q), want degree 8 with 17 levels", next.degree, next.graded, why)
 	}
+	// There, with the raise not fitting in the time left, the adaptive
+	// round (measured at 2) no longer waits for it.
+	h.kinds[kindAdaptive] = measured(2)
+	h.deadline = time.Now().Add(time.Duration(float64(time.Second) * 1.5 * timeMargin * h.perWork * h.stepWork(d.p, deep)))
+	if next, why := h.chooseStep(d, deep, out); why != "" || len(next.marks) != 1 {
+		t.Errorf("at the depth of degree 6 with the raise too slow: got degree %d graded %d, %d rounds (%q), want an adaptive round", next.degree, next.graded, len(next.marks), why)
+	}
+	h.deadline = time.Time{}
 	top := deep
 	top.degree, top.fluxDegree, top.graded = maxPolygonDegree, maxPolygonDegree-1, 21
 	if next, why := h.chooseStep(d, top, out); why != "" || next.graded != 23 {
@@ -293,6 +301,19 @@ func TestDegreeSetupIsNotWork(t *testing.T) {
 	}
 	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-h.perWork*work) > 1e-9 {
 		t.Errorf("predicted %g s for a step at a degree already built, want %g", c, h.perWork*work)
+	}
+	// A kind's measured ratio scales its prediction, a degree step's
+	// only when it is 1 or more.
+	h.kinds[kindDegree].ratio, h.kinds[kindUniform].ratio = 0.5, 0.5
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-h.perWork*work) > 1e-9 {
+		t.Errorf("degree ratio 0.5: predicted %g s, want %g (the ratio counts from 1)", c, h.perWork*work)
+	}
+	if c := h.predict(d.p, kindUniform, r8); math.Abs(c-0.5*h.perWork*work) > 1e-9 {
+		t.Errorf("uniform ratio 0.5: predicted %g s, want %g", c, 0.5*h.perWork*work)
+	}
+	h.kinds[kindDegree].ratio = 2
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-2*h.perWork*work) > 1e-9 {
+		t.Errorf("degree ratio 2: predicted %g s, want %g", c, 2*h.perWork*work)
 	}
 }
 
