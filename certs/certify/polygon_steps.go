@@ -533,13 +533,13 @@ func (h *stepHistory) gradeGain() float64 {
 // levels is ≈ 4^(−νn) (singularCorners), and that of the layers, on which
 // the eigenfunction is analytic at a distance from the corner comparable
 // to their size, falls exponentially in p, ≈ e^(−2bp); the two balance at
-// n = (2b/ln 4)·p/ν. The constant b depends on the elements' shapes and
-// is not known in closed form for these meshes; κ = 2b/ln 4 = 1.35 is
-// measured: the fastest recipes of a whole-recipe search at degree 10
-// had 18 graded levels on the 117° trapezoid (ν ≈ 0.772; 1.4e-12 for the
-// gap at 3 uniform levels in 9.2 s) and 20 on the L-shape (ν = 2/3;
-// λ1 at 1e-12, deeper grading gaining nothing, maxGraded), κ = 1.39 and
-// 1.33.
+// n = (2b/ln 4)·p/ν (a model of the trade, not a theorem). The constant
+// b depends on the elements' shapes and is not known in closed form for
+// these meshes; κ = 2b/ln 4 = 1.35 is calibrated on two measured recipes
+// at degree 10: on the 117° trapezoid (ν ≈ 0.772) 18 graded levels at 3
+// uniform levels gave the gap 1.4e-12 in one step of 9.2 s, and on the
+// L-shape (ν = 2/3) the driver's narrowest step had 20 levels (λ1 1.9e-12;
+// deeper grading gains little there, maxGraded), κ = 1.39 and 1.33.
 const hpLevelsPerDegree = 1.35
 
 // hpGraded returns the grading depth the hp line pairs with trial degree
@@ -549,11 +549,12 @@ const hpLevelsPerDegree = 1.35
 // element method converges exponentially on meshes geometrically refined
 // toward the singular corners when the number of refinement layers grows
 // in proportion to the (uniform) polynomial degree (Schötzau and Schwab,
-// Math. Models Methods Appl. Sci. 25 (2015) 1617–1661, for uniform
-// degrees on σ-geometric meshes; on regular simplicial meshes from
-// bisection trees, as here, Numer. Math. (2019),
+// Math. Models Methods Appl. Sci. 25 (2015) 1617–1661, uniform degrees on
+// σ-geometric meshes of polyhedra; for regular simplicial meshes
+// geometrically refined by bisection trees, as here, Numer. Math. (2019),
 // doi:10.1007/s00211-019-01085-z; in two dimensions Schwab, p- and
-// hp-Finite Element Methods, Oxford 1998, ch. 4, recalled from memory),
+// hp-Finite Element Methods, Oxford 1998, ch. 4; the proportionality of
+// layers and degree is recalled from memory),
 // while grading past the layers' accuracy or raising the degree with a
 // coarse corner element gains little: a chooser that looks one step
 // ahead, rating grading and the degree apart, finds neither (measured on
@@ -662,8 +663,10 @@ const mildDegreeGain = 10
 // corners: with a first raise to degree 6 the Neumann L-shape with
 // V = exp(−r²) graded at degree 6 on 4 uniform levels, 12 to 17 s a step,
 // where at degree 4 the same levels took 3.6 to 5 s and gained as much
-// (measured on an otherwise idle machine: λ2 3.8e-9 at 82 s against
-// 3.0e-10 at 94 s). It reports false when it does not choose.
+// (measured on a nearly idle machine: λ2 3.8e-9 at 82 s against 3.0e-10
+// at 94 s; the later run also had N = 7 trial functions against 5,
+// chooseN, about 14% more time per step). It reports false when it does
+// not choose.
 func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
 	h := d.hist
 	if h == nil || h.cornerLimited || out.lg == nil || (h.best != nil && h.score < h.best.score) {
