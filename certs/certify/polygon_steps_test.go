@@ -36,9 +36,10 @@ func stepFixture(t *testing.T) (polygon, recipe, *outcome) {
 	return polygon{p: p, hist: &stepHistory{}}, r, out
 }
 
-// measured returns a record of a tried kind with the gain.
+// measured returns a record of a tried kind with the gain (of two
+// levels, for grading).
 func measured(gain float64) kindRecord {
-	return kindRecord{tried: true, gain: gain, seconds: 1, ratio: 1, spent: gain < stallGain}
+	return kindRecord{tried: true, gain: gain, seconds: 1, ratio: 1, spent: gain < stallGain, levels: 2}
 }
 
 // TestChooseStepByGainPerSecond drives chooseStep on made-up histories:
@@ -186,6 +187,9 @@ func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 		t.Errorf("share 0.99, the raise alone: predicted gain %.3g, want < 2.5", g)
 	}
 	raised.graded = 17
+	if g := (&stepHistory{}).predictedGain(d.p, kindDegree, r, raised, corners); !(g < 2.5) {
+		t.Errorf("share 0.99, grading not yet measured: predicted gain of the raise with 13 levels %.3g, want < 2.5 (no credit for the levels)", g)
+	}
 	if g := h.predictedGain(d.p, kindDegree, r, raised, corners); !(g > 100) {
 		t.Errorf("share 0.99, the raise with 13 levels: predicted gain %.3g, want > 100", g)
 	}
