@@ -405,14 +405,18 @@ const trapezoid117Source = `{"domain":{"polygon":[["0","0"],["3/2","0"],["1","1"
 //	layers   l·4^(−νu)·e^(−2p)          the graded layers around it: no grading helps, the degree does
 //	smooth   s·4^(−pu)                  the rest of the polygon
 //
-// with c = 1.5e-3, l = 1.25e-3 and s = 1e-3 (so that at degree 6 and 2
-// uniform levels grading gains about 8 per two levels up to 12 levels
-// and stalls near 1e-9 after 14, and the degree raise from 6 to 8 at 3
-// uniform and 14 graded levels gains about 50, as measured on the
-// trapezoid); the indicators put the corner part on the triangles at the
+// with c = 9e-3, l = 4.2e-3 and s = 1e-4, so that at degree 6 and 2
+// uniform levels two grading levels gain about 8.5 up to 10 levels, and
+// the widths stall near 3e-9 after 12, and the raise from degree 6 with
+// 11 levels to 8 with 14 at 3 uniform levels gains about 30 (measured on
+// the trapezoid: 8.5 per two levels up to 12, 9.6e-10 at 14, and 57 for
+// that raise). The indicators put the corner part on the triangles at the
 // corner and the rest on the others, evenly. A step takes the work of its
-// recipe (stepWork) at 2.7 µs per unit, plus the setup of a degree new to
-// the run (setupWork), the chooser's own model, on an idle machine.
+// recipe (stepWork) at 2.0 µs per unit, plus the setup of a degree new to
+// the run (setupWork): the chooser's own model, with the unit a little
+// cheaper than its prior of 2.7 µs (the degree-10 step of 3 uniform and
+// 18 graded levels took 9.2 s on an idle machine, where the prior
+// predicts 13.2 s).
 //
 // It starts from the first recipe of the trapezoid, with a budget of 30
 // model seconds and a target of 1e-12, and returns the worst width
@@ -492,8 +496,10 @@ func runHPTrap(t *testing.T, budget float64) (float64, float64, []recipe) {
 // reaches the target within the budget, raising the degree to 10 on the
 // hp line (hpGraded). A chooser that rates grading and the degree one
 // step ahead and apart grades at degree 6 while grading gains, and then
-// raises the degree on a mesh made dear by the uniform levels between
-// (measured on the trapezoid itself: 2.6e-12 after 28 s).
+// raises the degree on a mesh made dear by the levels between: the
+// chooser before the hp line reached 1.13e-12 on this model after 25.8
+// model seconds, with no step left that fits (measured on the trapezoid
+// itself: 2.6e-12 after 28 s).
 func TestChooserLeavesTheHPTrap(t *testing.T) {
 	worst, seconds, path := runHPTrap(t, 30)
 	for _, r := range path {
