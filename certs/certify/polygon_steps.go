@@ -307,8 +307,11 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // reason says what remained: StopCap when every kind is at its cap,
 // StopTime when the only useful kinds left do not fit in the time,
 // StopStalled when every kind left is spent. The chosen step gets the
-// stage-A rider (withStageARider). The first adaptive round waits until
-// grading is spent or at its cap.
+// stage-A rider (withStageARider). On a polygon with a corner of ν < 1
+// the steps follow the hp line (onHPLine: a degree raise grades to the
+// depth of its degree, grading alone stops at the depth of the present
+// one). The first adaptive round waits while grading, or on the hp line
+// the degree, is a candidate that fits in the time.
 func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, string) {
 	base, baseScore, sh := r, 0.0, share{}
 	rho, ritzN, indicators := out.rho, 0.0, []float64(nil)
