@@ -469,15 +469,6 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base, next r
 	if !sh.ok {
 		return gain
 	}
-	if _, line := hpGraded(p, base.degree); line && k == kindUniform && rec.tried && rec.gain > 1 {
-		// On the hp line a uniform level halves the corner element once,
-		// 4^(−ν) on the corner part, and narrows the rest as the last
-		// level did: its last gain alone, measured while the rest
-		// limited, took the 117° trapezoid to 4 uniform levels at degree
-		// 4 (the last level gained 16, the next one 3.6), which made
-		// every later degree raise four times dearer.
-		return 1 / (sh.corner*math.Pow(4, -h.nuMin(p)) + (1-sh.corner)/rec.gain)
-	}
 	corner, ok := cornerFactor(k, base.degree, next.graded-base.graded, h.nuMin(p), h.levelGain())
 	if !ok {
 		return gain

@@ -204,16 +204,6 @@ func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 	if g := h.predictedGain(d.p, kindDegree, r, raised, corners); !(g > 10 && g < 15) {
 		t.Errorf("grading measured at 1.3: predicted gain of the raise with 13 levels %.3g, want about 12", g)
 	}
-	// A uniform level last measured at 16 is predicted to halve the
-	// corner element once (4^(−2/3) on the corner part) and to narrow
-	// the rest by 16: about 2.5 with the corners limiting, about 7.7
-	// with a share of 0.2.
-	h.kinds[kindUniform] = measured(16)
-	for _, c := range []struct{ phi, lo, hi float64 }{{0.99, 2.3, 2.7}, {0.2, 7, 8.5}} {
-		if g := h.predictedGain(d.p, kindUniform, r, r, share{corner: c.phi, ok: true}); !(g > c.lo && g < c.hi) {
-			t.Errorf("uniform level measured at 16, share %g: predicted %.3g, want in (%g, %g)", c.phi, g, c.lo, c.hi)
-		}
-	}
 	// At the depth of degree 6 grading alone is no candidate, however
 	// much it last gained; at degree 10 (the cap) it is.
 	h.share = share{}
