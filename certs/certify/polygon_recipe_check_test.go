@@ -17,8 +17,9 @@ import (
 const trapezoidDN117Source = `{"domain":{"polygon":[["0","0"],["3/2","0"],["1","1"],["0","1"]]},"potential":"x*y","boundary":[{"robin":"1"},"dirichlet","neumann","dirichlet"],"eigenvalues":2}`
 
 // TestCheckReplaysDrivenPolygonRecipe: a certificate that the polygon
-// driver produced on a polygon with singular corners (graded levels > 0,
-// a raised degree) verifies, and Check finds every edit of its graded
+// driver produced on a polygon with singular corners (graded levels > 0;
+// at this target the hp line keeps degree 4, and the degree edit goes to
+// 2, a degree the driver never records but Check accepts) verifies, and Check finds every edit of its graded
 // levels, degree and stage-A levels: a recipe within the caps recomputes
 // to other bounds (a mismatch), and one past them (degree 11, graded 25,
 // a flux degree above degree cap − 1, which the driver never records) is
@@ -34,8 +35,8 @@ func TestCheckReplaysDrivenPolygonRecipe(t *testing.T) {
 		t.Fatal(err)
 	}
 	m := methodOf(t, c)
-	if m.GradedLevels == 0 || m.Degree <= 4 {
-		t.Fatalf("the driver recorded graded_levels %d and degree %d; the test needs a graded step with a raised degree", m.GradedLevels, m.Degree)
+	if m.GradedLevels == 0 || m.Degree < 3 {
+		t.Fatalf("the driver recorded graded_levels %d and degree %d; the test needs a graded step of degree 3 or more", m.GradedLevels, m.Degree)
 	}
 	if err := Check(data); err != nil {
 		t.Fatalf("the driven certificate does not verify: %v", err)

@@ -92,7 +92,7 @@ func (d polygon) next(r recipe, out *outcome, gain float64) (recipe, string) {
 		if extra := neededExtra(p, out, 1); extra > r.extra && extra <= maxExtraIndices {
 			r.extra = extra
 			// A paced run has no other time check (Certify).
-			if !h.expect(d, kindStageA, r) {
+			if !h.expect(d, kindStageA, r, r) {
 				return r, StopTime
 			}
 			return r, ""
@@ -119,7 +119,7 @@ func (d polygon) next(r recipe, out *outcome, gain float64) (recipe, string) {
 		if corners && !fixed && r.graded < maxGraded {
 			r.graded++
 		}
-		if !h.expect(d, kindStageA, r) {
+		if !h.expect(d, kindStageA, r, r) {
 			return r, StopTime
 		}
 		return r, ""

@@ -73,6 +73,7 @@ type kindRecord struct {
 	ratio   float64 // wall time over the predicted one of its last step of minLearnSeconds or more (0: none), clamped to [¼, 4]
 	spent   bool    // it gained less than stallGain, and no other kind has gained since (observe)
 	rest    float64 // degree steps: the factor by which the last one with a meaningful corner share narrowed the error away from the corners (restGain; 0: not measured)
+	levels  int     // the grading levels its last step added
 }
 
 // bestStep is the step with the narrowest worst width that stage B ran
@@ -94,18 +95,19 @@ type stepHistory struct {
 	deadline time.Time // zero: no limit
 	memory   int64     // memory budget in bytes (0: none)
 
-	steps        int
-	score        float64 // −log of the last step's worst width
-	perWork      float64 // seconds per unit of work of the last step (0: unknown)
-	pending      stepKind
-	pendingBase  float64 // score of the step the pending one started from
-	pendingCost  float64 // its predicted seconds (0: no prediction)
-	pendingSetup float64 // the part of pendingCost that is the setup of a new degree (setupWork)
-	pendingShare share   // the corner share of the step the pending one started from
-	pendingDeg   int     // the trial degree of that step
-	best         *bestStep
-	kinds        [numStepKinds]kindRecord
-	triangles    map[[2]int]int // meshTriangles by (uniform, graded) levels
+	steps         int
+	score         float64 // −log of the last step's worst width
+	perWork       float64 // seconds per unit of work of the last step (0: unknown)
+	pending       stepKind
+	pendingBase   float64 // score of the step the pending one started from
+	pendingCost   float64 // its predicted seconds (0: no prediction)
+	pendingSetup  float64 // the part of pendingCost that is the setup of a new degree (setupWork)
+	pendingShare  share   // the corner share of the step the pending one started from
+	pendingDeg    int     // the trial degree of that step
+	pendingLevels int     // the grading levels the pending step adds to that step's (a degree step on the hp line, hpGraded)
+	best          *bestStep
+	kinds         [numStepKinds]kindRecord
+	triangles     map[[2]int]int // meshTriangles by (uniform, graded) levels
 
 	target  float64 // the relative width sought (0: none): gains beyond it are worth nothing (chooseStep)
 	degrees uint64  // bit k: trial degree k has been computed in this run (its tables are built)
@@ -154,7 +156,7 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 	}
 	if k := h.pending; k != kindNone {
 		rec := &h.kinds[k]
-		rec.tried, rec.seconds = true, seconds
+		rec.tried, rec.seconds, rec.levels = true, seconds, h.pendingLevels
 		switch {
 		case failed || math.IsInf(score, -1):
 			rec.gain = 0
@@ -166,7 +168,7 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 		if c := h.pendingCost - h.pendingSetup; c > 0 && work >= minLearnSeconds {
 			rec.ratio = math.Min(4, math.Max(0.25, work/c))
 		}
-		if c, ok := cornerFactor(k, h.pendingDeg, h.nuMin(d.p)); ok && h.pendingShare.ok && rec.gain > 0 && !math.IsInf(rec.gain, 1) {
+		if c, ok := cornerFactor(k, h.pendingDeg, h.pendingLevels, h.nuMin(d.p), h.levelGain()); ok && h.pendingShare.ok && rec.gain > 0 && !math.IsInf(rec.gain, 1) {
 			rec.rest = restGain(rec.gain, h.pendingShare.corner, c)
 		}
 		if k == kindDegree && rec.gain < mildDegreeGain {
@@ -209,14 +211,14 @@ func (d polygon) observe(r recipe, out *outcome, worst, seconds float64) {
 func (h *stepHistory) hasBest() bool { return h != nil && h.best != nil }
 
 // expect records the kind of the step about to be computed from the last
-// one (r is its recipe), and reports whether its predicted time fits in
-// the time left.
-func (h *stepHistory) expect(d polygon, k stepKind, r recipe) bool {
+// one (from is the last recipe, r the next one), and reports whether its
+// predicted time fits in the time left.
+func (h *stepHistory) expect(d polygon, k stepKind, from, r recipe) bool {
 	if h == nil {
 		return true
 	}
 	h.pending, h.pendingBase, h.pendingCost, h.pendingSetup = k, h.score, 0, 0
-	h.pendingShare, h.pendingDeg = h.share, r.degree
+	h.pendingShare, h.pendingDeg, h.pendingLevels = h.share, from.degree, r.graded-from.graded
 	if h.perWork > 0 {
 		h.pendingCost = h.predict(d.p, k, r)
 		h.pendingSetup = h.perWork * h.setupWork(r.degree)
@@ -227,9 +229,18 @@ func (h *stepHistory) expect(d polygon, k stepKind, r recipe) bool {
 // predict returns the predicted wall time of computing recipe r as a step
 // of kind k: its work (stepWork) times the kind's ratio, plus the setup of
 // a degree new to the run (setupWork), times the measured seconds per
-// unit of work.
+// unit of work. A degree step's ratio counts only when it is 1 or more:
+// a ratio below 1 learned at a low degree on a small mesh (where stage A,
+// whose work is a rough count, takes much of the time) made the raises
+// to degree 8 of the Neumann L-shape and the 117° trapezoid look half as
+// dear as they were, and they ended 28 s and 3.6 s after the time limit
+// (loaded machine).
 func (h *stepHistory) predict(p *problem.Problem, k stepKind, r recipe) float64 {
-	return h.perWork * (h.stepWork(p, r)*h.kinds[k].ratioOrOne() + h.setupWork(r.degree))
+	ratio := h.kinds[k].ratioOrOne()
+	if k == kindDegree {
+		ratio = math.Max(1, ratio)
+	}
+	return h.perWork * (h.stepWork(p, r)*ratio + h.setupWork(r.degree))
 }
 
 // setupWork is the predicted work (in the units of stepWork) of building
@@ -296,8 +307,11 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // reason says what remained: StopCap when every kind is at its cap,
 // StopTime when the only useful kinds left do not fit in the time,
 // StopStalled when every kind left is spent. The chosen step gets the
-// stage-A rider (withStageARider). The first adaptive round waits until
-// grading is spent or at its cap.
+// stage-A rider (withStageARider). On a polygon with a corner of ν < 1
+// the steps follow the hp line (onHPLine: a degree raise grades to the
+// depth of its degree, grading alone stops at the depth of the present
+// one). The first adaptive round waits while grading, or on the hp line
+// the degree, is a candidate that fits in the time.
 func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, string) {
 	base, baseScore, sh := r, 0.0, share{}
 	rho, ritzN, indicators := out.rho, 0.0, []float64(nil)
@@ -329,16 +343,24 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		score float64
 	}
 	var best, overMemory *candidate
-	available, tooSlow := false, false
+	available, tooSlow, structured := false, false, false
+	_, line := hpGraded(d.p, base.degree)
 	for _, k := range choiceOrder {
 		c, ok := applyStep(k, base, indicators)
+		if ok {
+			c, ok = onHPLine(d.p, k, base, c)
+		}
 		if !ok {
 			continue
 		}
-		if k == kindAdaptive && h != nil && !h.kinds[kindGrade].spent && base.graded < maxGraded && len(base.marks) == 0 {
+		if k == kindAdaptive && h != nil && len(base.marks) == 0 && structured {
 			// Marks fix the uniform and graded levels: the first round
-			// waits until grading, the structured refinement toward the
-			// corners, is spent or at its cap.
+			// waits while a structured step toward the corners is a
+			// candidate that fits: grading, or on the hp line the degree
+			// (each raise grades further; measured on the 117°
+			// trapezoid, a round at degree 6 with 20 levels gained 8.5,
+			// to 2.6e-12 for the gap, and left the run no step toward
+			// degree 10, where one step reaches 1.4e-12).
 			available = true
 			continue
 		}
@@ -359,7 +381,10 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 				}
 			}
 		}
-		gain := h.predictedGain(d.p, k, base, sh)
+		if k == kindGrade || (k == kindDegree && line) {
+			structured = true
+		}
+		gain := h.predictedGain(d.p, k, base, c, sh)
 		// The setup of a new degree counts in the score: left out, the
 		// degree rose to 8 on the first mesh of the 117° trapezoid, and
 		// the grading steps that followed at degree 8 cost more than at
@@ -391,7 +416,7 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 	}
 	if h != nil {
 		h.pending, h.pendingBase, h.pendingCost, h.pendingSetup = best.kind, baseScore, 0, 0
-		h.pendingShare, h.pendingDeg = sh, base.degree
+		h.pendingShare, h.pendingDeg, h.pendingLevels = sh, base.degree, best.r.graded-base.graded
 		if h.perWork > 0 {
 			h.pendingCost, h.pendingSetup = best.cost, h.perWork*h.setupWork(best.r.degree)
 		}
@@ -406,8 +431,8 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 const targetMargin = 2
 
 // predictedGain returns the factor by which a step of kind k from the
-// base step is predicted to narrow the worst width, given the base
-// step's corner share φ (cornerShare). For a degree step with a
+// base step to next is predicted to narrow the worst width, given the
+// base step's corner share φ (cornerShare). For a degree step with a
 // meaningful share the error is split into the part on the triangles at
 // the graded corners, φ, and the rest, 1 − φ; the raise shrinks the
 // corner part by cornerFactor and the rest by the factor measured on the
@@ -432,7 +457,7 @@ const targetMargin = 2
 // limits the widths, the driver took uniform levels instead and reached
 // 2.8e-6 in the time in which grading chosen by its measured gain reached
 // 2.4e-9).
-func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe, sh share) float64 {
+func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base, next recipe, sh share) float64 {
 	gain := priorGain[k]
 	if h == nil {
 		return gain
@@ -444,7 +469,7 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe,
 	if !sh.ok {
 		return gain
 	}
-	corner, ok := cornerFactor(k, base.degree, h.nuMin(p))
+	corner, ok := cornerFactor(k, base.degree, next.graded-base.graded, h.nuMin(p), h.levelGain())
 	if !ok {
 		return gain
 	}
@@ -456,15 +481,28 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe,
 }
 
 // cornerFactor returns the factor by which a step of kind k from trial
-// degree p shrinks the corner part of the error, for the least exponent
-// ν of the graded corners, and whether the kind is modelled so:
+// degree p that adds `levels` grading levels (a degree step on the hp
+// line, hpGraded; 0 otherwise) shrinks the corner part of the error, for
+// the least exponent ν of the graded corners, and whether the kind is
+// modelled so:
 //
 //	degree p → p + 2      (p/(p + 2))^(4ν)  the p version approximates r^ν on the corner element with an
 //	                                        energy error ≈ p^(−2ν) (Babuška and Suri, RAIRO Modél. Math.
 //	                                        Anal. Numér. 21 (1987) 199–238, recalled from memory); the
 //	                                        eigenvalue error is its square
+//	and levels more       × max(4^(−ν·levels), g^(−levels))
+//	                                        each level halves the corner element, whose eigenvalue error
+//	                                        is ≈ h_c^(2ν) (singularCorners), but the levels gain no more
+//	                                        than grading gained on its own, g per level (levelGain)
 //
-// Grading is not modelled (predictedGain); nor are uniform levels and
+// The bound by g keeps the model to what the run measured: on the
+// Neumann L-shape with V = exp(−r²) the widths are first limited by the
+// weight's Taylor models on the coarse mesh, which only uniform levels
+// narrow; without the bound the raise to degree 8 with 15 more levels
+// was taken there after two grading levels had gained 1.3, and it took
+// 76 s (loaded machine) for a gain of 1.07.
+//
+// Grading alone is not modelled (predictedGain); nor are uniform levels and
 // adaptive rounds. A uniform level halves the corner elements once
 // (2^(−2ν)) but also narrows the graded layers around them far more than
 // that model says (measured on the 117°
@@ -473,12 +511,104 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base recipe,
 // split its predictions chose uniform levels at degree 4 until they no
 // longer fitted in the time (1.2e-8 at 24 s against 1.4e-11 at 22 s with
 // the measured gain).
-func cornerFactor(k stepKind, p int, nu float64) (float64, bool) {
+func cornerFactor(k stepKind, p, levels int, nu, g float64) (float64, bool) {
 	switch k {
 	case kindDegree:
-		return math.Pow(float64(p)/float64(p+2), 4*nu), true
+		n := float64(max(0, levels))
+		return math.Pow(float64(p)/float64(p+2), 4*nu) * math.Max(math.Pow(4, -nu*n), math.Pow(g, -n)), true
 	}
 	return 0, false
+}
+
+// levelGain is the factor by which one grading level is expected to
+// narrow the worst width when a degree raise brings it: the last grading
+// step's gain per level, at least 1, and 1 before a grading step is
+// measured (also for a nil history): the levels earn credit once grading
+// has shown that the corners limit (before, the Neumann L-shape took the
+// raise to degree 6 with 11 more levels first, 8 s for a gain of 2, where
+// grading at degree 4 gains 2 to 6 per step at a third of the cost).
+func (h *stepHistory) levelGain() float64 {
+	if h == nil {
+		return 1
+	}
+	rec := h.kinds[kindGrade]
+	if rec.seconds == 0 || rec.levels < 1 {
+		return 1
+	}
+	return math.Pow(math.Max(1, rec.gain), 1/float64(rec.levels))
+}
+
+// hpLevelsPerDegree is κ of the hp line (hpGraded), a choice: the
+// grading depth at which, at trial degree p, the corner element and the
+// graded layers around it are about equally accurate. On a geometric
+// mesh with factor ½ the eigenvalue error of the corner element of n
+// levels is ≈ 4^(−νn) (singularCorners), and that of the layers, on which
+// the eigenfunction is analytic at a distance from the corner comparable
+// to their size, falls exponentially in p, ≈ e^(−2bp); the two balance at
+// n = (2b/ln 4)·p/ν (a model of the trade, not a theorem). The constant
+// b depends on the elements' shapes and is not known in closed form for
+// these meshes; κ = 2b/ln 4 = 1.35 is calibrated on two measured recipes
+// at degree 10: on the 117° trapezoid (ν ≈ 0.772) 18 graded levels at 3
+// uniform levels gave the gap 1.4e-12 in one step of 9.2 s, and on the
+// L-shape (ν = 2/3) the driver's narrowest step had 20 levels (λ1 1.9e-12;
+// deeper grading gains little there, maxGraded), κ = 1.39 and 1.33.
+const hpLevelsPerDegree = 1.35
+
+// hpGraded returns the grading depth the hp line pairs with trial degree
+// k on p, ⌈κ·k/ν_min⌉ (κ = hpLevelsPerDegree, ν_min the least exponent of
+// the graded corners) at most maxGraded, and whether p has such a line:
+// polygons with a corner of ν_min < 1. The hp version of the finite
+// element method converges exponentially on meshes geometrically refined
+// toward the singular corners when the number of refinement layers grows
+// in proportion to the (uniform) polynomial degree (Schötzau and Schwab,
+// Math. Models Methods Appl. Sci. 25 (2015) 1617–1661, uniform degrees on
+// σ-geometric meshes of polyhedra; for regular simplicial meshes
+// geometrically refined by bisection trees, as here, Numer. Math. (2019),
+// doi:10.1007/s00211-019-01085-z; in two dimensions Schwab, p- and
+// hp-Finite Element Methods, Oxford 1998, ch. 4; the proportionality of
+// layers and degree is recalled from memory),
+// while grading past the layers' accuracy or raising the degree with a
+// coarse corner element gains little: a chooser that looks one step
+// ahead, rating grading and the degree apart, finds neither (measured on
+// the 117° trapezoid: graded 20 levels at degree 6 and stopped at 2.6e-12
+// after 28 s, where degree 10 with 18 levels gives 1.4e-12 in one step of
+// 9.2 s). Corners with ν ≥ 1, whose singular terms are in H², keep the
+// rules of the mild phase (mildStep): their widths are limited by the
+// smooth part first (the regular pentagon reaches 1e-12 at degree 10 with
+// 0 to 6 levels). A choice of where to go, never a bound.
+func hpGraded(p *problem.Problem, k int) (int, bool) {
+	nu := (*stepHistory)(nil).nuMin(p)
+	if !(nu < 1) {
+		return 0, false
+	}
+	return min(maxGraded, int(math.Ceil(hpLevelsPerDegree*float64(k)/nu-exponentTolerance))), true
+}
+
+// onHPLine returns the step of kind k from r (next, from applyStep) on the
+// hp line of p (hpGraded), and whether the kind is a candidate there:
+// without adaptive marks (which fix the levels), a degree raise also
+// grades to the depth of its new degree, and grading alone stops at the
+// depth of the present degree until the degree is at its cap (from there
+// only grading serves the corners). On polygons without an hp line the
+// step is next as it is.
+func onHPLine(p *problem.Problem, k stepKind, r, next recipe) (recipe, bool) {
+	if len(r.marks) > 0 {
+		return next, true
+	}
+	switch k {
+	case kindDegree:
+		if n, ok := hpGraded(p, next.degree); ok {
+			next.graded = max(next.graded, n)
+		}
+	case kindGrade:
+		if n, ok := hpGraded(p, r.degree); ok && r.degree < maxPolygonDegree && next.graded > max(n, r.graded) {
+			if r.graded >= n {
+				return r, false
+			}
+			next.graded = n
+		}
+	}
+	return next, true
 }
 
 // priorRestGain is the factor by which a step of each modelled kind is
@@ -523,10 +653,6 @@ func (h *stepHistory) nuMin(p *problem.Problem) float64 {
 // singular corners (next).
 const mildDegreeGain = 10
 
-// strongCornerStartDegree is the degree to which the first step raises
-// the degree on a polygon with a corner of ν < 1 (mildStep).
-const strongCornerStartDegree = 6
-
 // mildStep chooses the next step on a polygon whose singular corners all
 // have ν ≥ 1 while no uniform level has shown that a corner limits the
 // widths: the rule of polygons without singular corners (next), the
@@ -542,29 +668,28 @@ const strongCornerStartDegree = 6
 // the choice is chooseStep's (which takes another kind that fits, or
 // says why none does).
 //
-// With a corner of ν < 1 the smooth start is the degree's first raise
-// alone, to strongCornerStartDegree: chosen by predicted gain per second
-// from degree 4, the cheap grading and uniform levels kept the degree at
-// 4 while they made every later degree step dearer (measured under the
-// same load, 1e-12 targets: on the L-shape 1.5e-10 at 98 s, where the
-// degree raised at the second step reached 9.5e-12 at 100 s; on the 117°
-// trapezoid degree 4 for nine steps). It reports false when it does not
-// choose.
+// A polygon with a corner of ν < 1 has no mild phase: its steps follow
+// the hp line (onHPLine) from the first. The line's cap on grading at
+// degree 4 (hpGraded) ends the grading that kept the degree at 4 for nine
+// steps on the 117° trapezoid, so the degree is not raised ahead of the
+// corners: with a first raise to degree 6 the Neumann L-shape with
+// V = exp(−r²) graded at degree 6 on 4 uniform levels, 12 to 17 s a step,
+// where at degree 4 the same levels took 3.6 to 5 s and gained as much
+// (measured on a nearly idle machine: λ2 3.8e-9 at 82 s against 3.0e-10
+// at 94 s; the later run also had N = 7 trial functions against 5,
+// chooseN, about 14% more time per step). It reports false when it does
+// not choose.
 func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
 	h := d.hist
 	if h == nil || h.cornerLimited || out.lg == nil || (h.best != nil && h.score < h.best.score) {
 		return r, false
 	}
-	k := kindUniform
-	top := maxPolygonDegree
-	if h.nuMin(d.p) < 1 {
-		top = strongCornerStartDegree
-	}
-	switch {
-	case !h.degreeSlowed && r.degree < top:
-		k = kindDegree
-	case top < maxPolygonDegree:
+	if _, line := hpGraded(d.p, r.degree); line {
 		return r, false
+	}
+	k := kindUniform
+	if !h.degreeSlowed && r.degree < maxPolygonDegree {
+		k = kindDegree
 	}
 	next, ok := applyStep(k, r, nil)
 	if !ok {
@@ -574,7 +699,7 @@ func (d polygon) mildStep(r recipe, out *outcome) (recipe, bool) {
 	if h.memory > 0 && memoryEstimate(d.p, next) > h.memory {
 		return r, false
 	}
-	if !h.expect(d, k, next) {
+	if !h.expect(d, k, r, next) {
 		h.pending = kindNone
 		return r, false
 	}

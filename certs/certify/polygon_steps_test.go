@@ -13,9 +13,10 @@ import (
 // to the marks).
 //
 // The trial mesh has 3 uniform levels (376 triangles); predicted costs
-// relative to the step: about 1.15 for two grading levels, 1.02 for an
-// adaptive round of one triangle, 2.8 for a degree raise by 2 and 3 for
-// a uniform level (stepWork).
+// relative to the step: about 1.16 for two grading levels, 1.02 for an
+// adaptive round of one triangle, 6.2 for a degree raise by 2 (which on
+// the hp line also grades to 17 levels, hpGraded) and 3 for a uniform
+// level (stepWork).
 func stepFixture(t *testing.T) (polygon, recipe, *outcome) {
 	t.Helper()
 	p := parseProblem(t, lshapeSource)
@@ -35,9 +36,10 @@ func stepFixture(t *testing.T) (polygon, recipe, *outcome) {
 	return polygon{p: p, hist: &stepHistory{}}, r, out
 }
 
-// measured returns a record of a tried kind with the gain.
+// measured returns a record of a tried kind with the gain (of two
+// levels, for grading).
 func measured(gain float64) kindRecord {
-	return kindRecord{tried: true, gain: gain, seconds: 1, ratio: 1, spent: gain < stallGain}
+	return kindRecord{tried: true, gain: gain, seconds: 1, ratio: 1, spent: gain < stallGain, levels: 2}
 }
 
 // TestChooseStepByGainPerSecond drives chooseStep on made-up histories:
@@ -57,10 +59,10 @@ func TestChooseStepByGainPerSecond(t *testing.T) {
 	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 || next.degree != r.degree {
 		t.Errorf("grading pays most: got graded %d degree %d (%q)", next.graded, next.degree, why)
 	}
-	// The degree measured at 1e5: log(1e5)/2.8 beats log(30)/1.15.
-	h.kinds[kindDegree] = measured(1e5)
-	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.fluxDegree != r.degree+1 {
-		t.Errorf("the degree pays most: got degree %d flux degree %d (%q)", next.degree, next.fluxDegree, why)
+	// The degree measured at 1e9: log(1e9)/6.2 beats log(30)/1.16.
+	h.kinds[kindDegree] = measured(1e9)
+	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.fluxDegree != r.degree+1 || next.graded != 17 {
+		t.Errorf("the degree pays most: got degree %d flux degree %d graded %d (%q), want 8, 7, 17", next.degree, next.fluxDegree, next.graded, why)
 	}
 	// Grading and the degree spent: an adaptive round (gain 1.1, cost
 	// 1.02) against a uniform level (gain 1.2, cost 3).
@@ -156,38 +158,91 @@ func TestObserveSpendsAndRenewsKinds(t *testing.T) {
 	}
 }
 
-// TestChooseStepDegreeAfterDeepGrading: the history of the 117°
-// trapezoid after deep grading at degree 6 (measured there: 2 uniform
-// and 14 graded levels, where the last two grading levels gained 2.0 and
-// the degree raise after them 14.7), transposed to the L-shape fixture.
-// The last measured gains, grading 2.0 and the degree 4.9 (from a coarse
-// first mesh), choose grading, which costs less; with a corner share of
-// 0.2 (the rest of the error limits the widths) the degree is predicted
-// to gain about 8 and is chosen; with a share of 0.99 (the corners
-// limit) about 2, and grading is chosen.
-func TestChooseStepDegreeAfterDeepGrading(t *testing.T) {
+// TestChooseStepDegreeOnTheHPLine: on the L-shape (ν = 2/3) a degree
+// raise from 6 to 8 also grades to the depth of degree 8 on the hp line,
+// ⌈1.35·8·3/2⌉ = 17 levels (hpGraded), and grading alone stops at the
+// depth of degree 6, 13 levels, until the degree reaches its cap. The
+// history is that of the 117° trapezoid at degree 6 (grading last gained
+// 2.0, the degree 4.9 on a coarse first mesh), transposed to the L-shape
+// fixture. With a corner share of 0.99 (the corners limit) the raise
+// alone is predicted to gain less than 2.5, which made the one-step
+// chooser grade at degree 6; with the 13 levels it brings, far more, and
+// the raise is taken, unless grading on its own gained little.
+func TestChooseStepDegreeOnTheHPLine(t *testing.T) {
 	d, r, out := stepFixture(t)
 	h := d.hist
 	h.perWork = 10 / h.stepWork(d.p, r)
 	h.degrees = 1<<6 | 1<<8 // the tables of degree 8 are built: no setup
 	h.kinds[kindGrade], h.kinds[kindDegree] = measured(2.0), measured(4.9)
 	h.kinds[kindUniform], h.kinds[kindAdaptive] = measured(1.01), measured(1.01)
-	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 {
-		t.Errorf("no share: got degree %d graded %d (%q), want grading (measured 2.0 against 4.9 at 2.4 times the cost)", next.degree, next.graded, why)
+	for _, c := range []struct{ k, graded int }{{6, 13}, {8, 17}, {10, 21}} {
+		if n, ok := hpGraded(d.p, c.k); !ok || n != c.graded {
+			t.Errorf("hp depth of degree %d: %d (%v), want %d", c.k, n, ok, c.graded)
+		}
 	}
-	h.share = share{corner: 0.2, ok: true}
-	if g := h.predictedGain(d.p, kindDegree, r, h.share); !(g > 7) {
-		t.Errorf("share 0.2: predicted degree gain %.3g, want > 7", g)
+	corners := share{corner: 0.99, ok: true}
+	raised := r
+	raised.degree, raised.fluxDegree = 8, 7
+	if g := h.predictedGain(d.p, kindDegree, r, raised, corners); !(g < 2.5) {
+		t.Errorf("share 0.99, the raise alone: predicted gain %.3g, want < 2.5", g)
 	}
-	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.graded != r.graded {
-		t.Errorf("the rest limits: got degree %d graded %d (%q), want the degree raised", next.degree, next.graded, why)
+	raised.graded = 17
+	if g := (&stepHistory{}).predictedGain(d.p, kindDegree, r, raised, corners); !(g < 2.5) {
+		t.Errorf("share 0.99, grading not yet measured: predicted gain of the raise with 13 levels %.3g, want < 2.5 (no credit for the levels)", g)
 	}
-	h.share = share{corner: 0.99, ok: true}
-	if g := h.predictedGain(d.p, kindDegree, r, h.share); !(g < 2.5) {
-		t.Errorf("share 0.99: predicted degree gain %.3g, want < 2.5", g)
+	if g := h.predictedGain(d.p, kindDegree, r, raised, corners); !(g > 100) {
+		t.Errorf("share 0.99, the raise with 13 levels: predicted gain %.3g, want > 100", g)
 	}
-	if next, why := h.chooseStep(d, r, out); why != "" || next.graded != r.graded+2 || next.degree != r.degree {
-		t.Errorf("the corners limit: got degree %d graded %d (%q), want two grading levels", next.degree, next.graded, why)
+	h.share = corners
+	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != r.degree+2 || next.graded != 17 {
+		t.Errorf("share 0.99: got degree %d graded %d (%q), want degree 8 with 17 levels", next.degree, next.graded, why)
+	}
+	// The levels gain no more than grading gained on its own: after two
+	// levels gained 1.3 (the widths limited elsewhere) the raise is
+	// predicted to gain about 12.
+	h.kinds[kindGrade] = measured(1.3)
+	if g := h.predictedGain(d.p, kindDegree, r, raised, corners); !(g > 10 && g < 15) {
+		t.Errorf("grading measured at 1.3: predicted gain of the raise with 13 levels %.3g, want about 12", g)
+	}
+	// At the depth of degree 6 grading alone is no candidate, however
+	// much it last gained; at degree 10 (the cap) it is.
+	h.share = share{}
+	h.kinds[kindGrade], h.kinds[kindDegree], h.kinds[kindUniform] = measured(1e6), measured(1.5), measured(1.01)
+	deep := r
+	deep.graded = 13
+	if next, why := h.chooseStep(d, deep, out); why != "" || next.graded != 17 || next.degree != 8 {
+		t.Errorf("at the depth of degree 6: got degree %d graded %d (%q), want degree 8 with 17 levels", next.degree, next.graded, why)
+	}
+	// There, with the raise not fitting in the time left, the adaptive
+	// round (measured at 2) no longer waits for it.
+	h.kinds[kindAdaptive] = measured(2)
+	h.deadline = time.Now().Add(time.Duration(float64(time.Second) * 1.5 * timeMargin * h.perWork * h.stepWork(d.p, deep)))
+	if next, why := h.chooseStep(d, deep, out); why != "" || len(next.marks) != 1 {
+		t.Errorf("at the depth of degree 6 with the raise too slow: got degree %d graded %d, %d rounds (%q), want an adaptive round", next.degree, next.graded, len(next.marks), why)
+	}
+	h.deadline = time.Time{}
+	top := deep
+	top.degree, top.fluxDegree, top.graded = maxPolygonDegree, maxPolygonDegree-1, 21
+	if next, why := h.chooseStep(d, top, out); why != "" || next.graded != 23 {
+		t.Errorf("at degree %d: got graded %d (%q), want 23", maxPolygonDegree, next.graded, why)
+	}
+	// Without a corner of ν < 1 (the Robin trapezoid, ν = 4/3) there is
+	// no hp line: the steps are applyStep's.
+	mild := parseProblem(t, robinTrapezoidSource)
+	if n, ok := hpGraded(mild, 8); ok {
+		t.Errorf("Robin trapezoid: hp depth %d at degree 8, want none", n)
+	}
+	if next, ok := onHPLine(mild, kindDegree, r, recipe{degree: 8, graded: 4}); !ok || next.graded != 4 {
+		t.Errorf("Robin trapezoid: a degree raise grades to %d (%v), want 4", next.graded, ok)
+	}
+	if next, ok := onHPLine(mild, kindGrade, r, recipe{degree: 6, graded: 24}); !ok || next.graded != 24 {
+		t.Errorf("Robin trapezoid: grading to 24 at degree 6 gives %d (%v), want 24", next.graded, ok)
+	}
+	// Below the depth of degree 6 grading stops at it.
+	below := r
+	below.graded = 12
+	if next, ok := onHPLine(d.p, kindGrade, below, recipe{degree: 6, graded: 14}); !ok || next.graded != 13 {
+		t.Errorf("grading from 12 levels at degree 6: %d (%v), want 13", next.graded, ok)
 	}
 }
 
@@ -247,6 +302,19 @@ func TestDegreeSetupIsNotWork(t *testing.T) {
 	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-h.perWork*work) > 1e-9 {
 		t.Errorf("predicted %g s for a step at a degree already built, want %g", c, h.perWork*work)
 	}
+	// A kind's measured ratio scales its prediction, a degree step's
+	// only when it is 1 or more.
+	h.kinds[kindDegree].ratio, h.kinds[kindUniform].ratio = 0.5, 0.5
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-h.perWork*work) > 1e-9 {
+		t.Errorf("degree ratio 0.5: predicted %g s, want %g (the ratio counts from 1)", c, h.perWork*work)
+	}
+	if c := h.predict(d.p, kindUniform, r8); math.Abs(c-0.5*h.perWork*work) > 1e-9 {
+		t.Errorf("uniform ratio 0.5: predicted %g s, want %g", c, 0.5*h.perWork*work)
+	}
+	h.kinds[kindDegree].ratio = 2
+	if c := h.predict(d.p, kindDegree, r8); math.Abs(c-2*h.perWork*work) > 1e-9 {
+		t.Errorf("degree ratio 2: predicted %g s, want %g", c, 2*h.perWork*work)
+	}
 }
 
 // robinTrapezoidSource is the trapezoid with two 135° Neumann–Robin
@@ -258,9 +326,9 @@ const robinTrapezoidSource = `{"domain":{"polygon":[["0","0"],["3","0"],["2","1"
 // rule of smooth polygons: the degree rises while a raise gains 10 or
 // more, then uniform levels follow; grading becomes a candidate
 // (chooseStep) once a uniform level gains less than twice 4^ν ≈ 12.7,
-// which the corners cause. On the L-shape (ν = 2/3) the choice is
-// chooseStep's once the first raise has brought the degree to
-// strongCornerStartDegree. Made-up outcomes and gains (observe).
+// which the corners cause. On the L-shape (ν = 2/3), which has an hp
+// line (hpGraded), the choice is chooseStep's from the first step.
+// Made-up outcomes and gains (observe).
 func TestMildCornersStartSmooth(t *testing.T) {
 	p := parseProblem(t, robinTrapezoidSource)
 	if nu := (&stepHistory{}).nuMin(p); math.Abs(nu-4.0/3) > 1e-9 {
@@ -310,17 +378,134 @@ func TestMildCornersStartSmooth(t *testing.T) {
 	if next, ok := fresh.mildStep(firstRecipe(t, p), out); ok {
 		t.Errorf("over the memory budget: the smooth rule chose degree %d refine %d", next.degree, next.refine)
 	}
-	// The L-shape (ν = 2/3): the smooth start raises the degree from 4
-	// to strongCornerStartDegree, and no further.
+	// The L-shape (ν = 2/3): no smooth start.
 	dl, rl, outl := stepFixture(t)
 	rl.degree, rl.fluxDegree = 4, 3
 	dl.observe(rl, outl, 1e-3, 0.1)
-	if next, ok := dl.mildStep(rl, outl); !ok || next.degree != strongCornerStartDegree || next.refine != rl.refine || next.graded != rl.graded {
-		t.Errorf("L-shape at degree 4: the smooth start chose degree %d refine %d graded %d (%v), want degree %d alone", next.degree, next.refine, next.graded, ok, strongCornerStartDegree)
-	}
-	rl.degree, rl.fluxDegree = strongCornerStartDegree, strongCornerStartDegree-1
-	dl.observe(rl, outl, 1e-4, 0.1)
 	if next, ok := dl.mildStep(rl, outl); ok {
-		t.Errorf("L-shape at degree %d: the smooth start chose degree %d refine %d, want chooseStep's choice", rl.degree, next.degree, next.refine)
+		t.Errorf("L-shape at degree 4: the smooth start chose degree %d refine %d graded %d, want chooseStep's choice", next.degree, next.refine, next.graded)
+	}
+}
+
+// trapezoid117Source is the trapezoid with a 117° Dirichlet–Neumann
+// corner (ν ≈ 0.772) of the corner benchmarks (cornerCases).
+const trapezoid117Source = `{"domain":{"polygon":[["0","0"],["3/2","0"],["1","1"],["0","1"]]},"potential":"x*y","boundary":[{"robin":"1"},"dirichlet","neumann","dirichlet"],"eigenvalues":2}`
+
+// runHPTrap drives the polygon chooser (next, with observe) on a
+// made-up model of the errors and times of the 117°
+// trapezoid in which grading pays only once the degree is high, and the
+// degree only once the grading is deep (the hp trap). The error of the
+// recipe with degree p, u uniform and n graded levels is the sum of
+//
+//	corner   c·4^(−ν(u+n))·(4/p)^(4ν)   the corner element (singularCorners, cornerFactor)
+//	layers   l·4^(−νu)·e^(−2p)          the graded layers around it: no grading helps, the degree does
+//	smooth   s·4^(−pu)                  the rest of the polygon
+//
+// with c = 9e-3, l = 4.2e-3 and s = 1e-4, so that at degree 6 and 2
+// uniform levels two grading levels gain about 8.5 up to 10 levels, and
+// the widths stall near 3e-9 after 12, and the raise from degree 6 with
+// 11 levels to 8 with 14 at 3 uniform levels gains about 30 (measured on
+// the trapezoid: 8.5 per two levels up to 12, 9.6e-10 at 14, and 57 for
+// that raise). The indicators put the corner part on the triangles at the
+// corner and the rest on the others, evenly. A step takes the work of its
+// recipe (stepWork) at 2.0 µs per unit, plus the setup of a degree new to
+// the run (setupWork): the chooser's own model, with the unit a little
+// cheaper than its prior of 2.7 µs (the degree-10 step of 3 uniform and
+// 18 graded levels took 9.2 s on an idle machine, where the prior
+// predicts 13.2 s).
+//
+// It starts from the first recipe of the trapezoid, with a budget of 30
+// model seconds and a target of 1e-12, and returns the worst width
+// reached within the budget, the model seconds it took and the recipes.
+func runHPTrap(t *testing.T, budget float64) (float64, float64, []recipe) {
+	t.Helper()
+	p := parseProblem(t, trapezoid117Source)
+	nu := (&stepHistory{}).nuMin(p)
+	d, ok := discretisationOf(p).(polygon)
+	if !ok || d.hist == nil {
+		t.Fatal("the trapezoid's discretisation does not pace itself")
+	}
+	const target, perWork = 1e-12, 2.0e-6
+	errorOf := func(r recipe) (corner, rest float64) {
+		pp, u, n := float64(r.degree), float64(r.refine), float64(r.graded)
+		corner = 9e-3 * math.Pow(4, -nu*(u+n)) * math.Pow(4/pp, 4*nu)
+		rest = 4.2e-3*math.Pow(4, -nu*u)*math.Exp(-2*pp) + 1e-4*math.Pow(4, -pp*u)
+		return corner, rest
+	}
+	r := firstRecipe(t, p)
+	elapsed, best := 0.0, math.Inf(1)
+	var path []recipe
+	for step := 0; step < 40; step++ {
+		work := d.hist.stepWork(p, r) + d.hist.setupWork(r.degree)
+		seconds := perWork * work
+		if elapsed+seconds > budget {
+			break
+		}
+		elapsed += seconds
+		path = append(path, r)
+		corner, rest := errorOf(r)
+		worst := corner + rest
+		best = math.Min(best, worst)
+		m, err := trialMesh(p, r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		atCorner := make([]bool, len(m.Tris))
+		nc := 0
+		f := startMesh(p)
+		for ti, tri := range m.Tris {
+			for _, c := range trialCorners(p, r) {
+				v := f.vertex[c.vertex]
+				if tri[0] == v || tri[1] == v || tri[2] == v {
+					atCorner[ti] = true
+				}
+			}
+			if atCorner[ti] {
+				nc++
+			}
+		}
+		ind := make([]float64, len(m.Tris))
+		for ti := range ind {
+			if atCorner[ti] {
+				ind[ti] = corner / float64(nc)
+			} else {
+				ind[ti] = rest / float64(len(m.Tris)-nc)
+			}
+		}
+		out := &outcome{n: 2, rho: 40, ritz: []float64{10, 16, 20}, lg: []float64{9, 15},
+			polygon: &polygonRecord{indicators: ind}}
+		d.observe(r, out, worst, seconds)
+		if worst <= target {
+			break
+		}
+		d.pace(time.Now().Add(time.Duration((budget-elapsed)*float64(time.Second))), 0, target)
+		next, why := d.next(r, out, 1)
+		if why != "" {
+			break
+		}
+		r = next
+	}
+	return best, elapsed, path
+}
+
+// TestChooserLeavesTheHPTrap: on the model of runHPTrap the driver
+// reaches the target within the budget, raising the degree to 10 on the
+// hp line (hpGraded). A chooser that rates grading and the degree one
+// step ahead and apart grades at degree 6 while grading gains, and then
+// raises the degree on a mesh made dear by the levels between: the
+// chooser before the hp line reached 1.13e-12 on this model after 25.8
+// model seconds, with no step left that fits (measured on the trapezoid
+// itself: 2.6e-12 after 28 s).
+func TestChooserLeavesTheHPTrap(t *testing.T) {
+	worst, seconds, path := runHPTrap(t, 30)
+	for _, r := range path {
+		t.Logf("degree %d, %d uniform, %d graded levels", r.degree, r.refine, r.graded)
+	}
+	t.Logf("worst width %.3g after %.1f model seconds", worst, seconds)
+	if worst > 1e-12 {
+		t.Errorf("reached %.3g in %.1f model seconds, want 1e-12 within 30", worst, seconds)
+	}
+	if last := path[len(path)-1]; last.degree != maxPolygonDegree {
+		t.Errorf("last step at degree %d, want %d", last.degree, maxPolygonDegree)
 	}
 }
