@@ -411,12 +411,24 @@ func magnitude(x interval.I) float64 {
 // factor of about the longest row of L). Both are sound; the choice only
 // trades time for the loss σ − σ'. Below sharpWorkLimit the sharp bound
 // alone is used, as it always was; above it the a-priori bound is kept
-// when its loss r/mMin is at most roundoffLossLimit·|σ|, and otherwise the
-// smaller of the two is returned.
+// when its loss r/mMin is at most roundoffLossLimit·|σ| (or the limit set
+// by SetRoundoffLoss), and otherwise the smaller of the two is returned.
 const (
 	sharpWorkLimit    = 1 << 26
 	roundoffLossLimit = 0x1p-30
 )
+
+// SetRoundoffLoss sets the relative loss up to which CountBelow keeps the
+// a-priori residual bound on large pencils: it is kept when
+// r/mMin ≤ rel·|σ| (default 2⁻³⁰; see Residual bounds). A choice that
+// trades the corrected shift σ' against time: both bounds are sound. It
+// panics unless rel ≥ 0.
+func (c *Counter) SetRoundoffLoss(rel float64) {
+	if !(rel >= 0) {
+		panic("sparse: the accepted loss must be nonnegative")
+	}
+	c.lossLimit = rel
+}
 
 // sharpResidualWork returns the number of interval multiply-adds of
 // residualBound for factors with the structure of sym.
