@@ -194,10 +194,10 @@ func (polyhedron) stallNote() string {
 // Stop reason). While stage B does not run, stage A (which converges like
 // h²) is refined, and the degree raised up to polyhedronSeparationDegree.
 // Once it runs, the degree is raised by two up to polyhedronSmoothDegree
-// (the flux degree follows, k = p); then, when ρ̂ limits (amplification
-// above polyhedronMaxAmplification), the stage-A mesh is refined and the
-// indices extended past the next cluster; otherwise the trial mesh is
-// refined. A stage-A level costs eight times the unknowns; its verified
+// (the flux degree follows, k = p); when ρ̂ limits (amplification
+// above polyhedronMaxAmplification), the stage-A mesh is refined, with the
+// step to that degree, and the indices extended past the next cluster;
+// otherwise the trial mesh is refined. A stage-A level costs eight times the unknowns; its verified
 // counts cost about one sparse factorization each since their residual
 // is bounded a priori (package enclose/sparse; measured on the cube's
 // Kuhn meshes: 0.36 s of which 0.02 s for the bound at 11k unknowns,
@@ -220,14 +220,23 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 		return r, ""
 	}
 	lm := out.ritz[p.Eigenvalues-1]
-	switch {
-	case r.degree < polyhedronSmoothDegree:
-		r.degree = min(r.degree+2, polyhedronSmoothDegree)
-	case lm/(out.rho-lm) > polyhedronMaxAmplification && polyhedronTetrahedra(p, r.stageARefine+1) <= maxRhoStageATetrahedra:
+	rhoLimits := lm/(out.rho-lm) > polyhedronMaxAmplification && polyhedronTetrahedra(p, r.stageARefine+1) <= maxRhoStageATetrahedra
+	refineStageA := func() {
 		// ρ̂ limits: a finer stage A raises it, and the indices past the
 		// next cluster let chooseN pass it (maxRaiseN3D).
 		r.stageARefine++
 		r.extra = min(max(r.extra, out.n+maxRaiseN3D-p.Eigenvalues), maxExtraIndices)
+	}
+	switch {
+	case r.degree < polyhedronSmoothDegree:
+		r.degree = min(r.degree+2, polyhedronSmoothDegree)
+		if r.degree == polyhedronSmoothDegree && rhoLimits {
+			// ρ̂ does not depend on the degree: refine stage A with the
+			// last degree step rather than in a step of its own.
+			refineStageA()
+		}
+	case rhoLimits:
+		refineStageA()
 	case r.refine < r.stageARefine && r.refine < maxPolyhedronRefine:
 		r.refine++
 	case r.degree < maxPolyhedronDegree:
