@@ -355,6 +355,41 @@ func TestRoundoffCountClosedForm(t *testing.T) {
 	}
 }
 
+// TestCountBelowResidualChoice: below the work limit the sharp bound
+// alone gives σ'; above it the a-priori bound is kept within the loss
+// limit, the smaller of both beyond it, and the a-priori bound whatever
+// its loss above the fallback limit.
+func TestCountBelowResidualChoice(t *testing.T) {
+	k, m := toISym(grid5(12)), toISym(identity(144))
+	const sigma = 100.0
+	c := NewCounter(k, m)
+	_, sp, ok := c.CountBelow(1, sigma)
+	if !ok {
+		t.Fatal("factorization failed")
+	}
+	sharp, roundoff := c.sharpResidual(sigma), c.roundoffBound(sigma)
+	if !(sharp < roundoff) {
+		t.Fatalf("sharp %g, a priori %g: the case does not tell them apart", sharp, roundoff)
+	}
+	loss := func(r float64) float64 { return interval.SubDown(sigma, interval.DivUp(r, 1)) }
+	for _, tc := range []struct {
+		name              string
+		sharpLimit, fback int
+		lossLimit         float64
+		want              float64
+	}{
+		{"small pencil", sharpWorkLimit, sharpFallbackLimit, roundoffLossLimit, loss(sharp)},
+		{"within the loss limit", -1, sharpFallbackLimit, 1, loss(roundoff)},
+		{"beyond the loss limit", -1, sharpFallbackLimit, 0, loss(sharp)},
+		{"beyond the fallback limit", -1, -1, 0, loss(roundoff)},
+	} {
+		c.sharpLimit, c.fallbackLimit, c.lossLimit = tc.sharpLimit, tc.fback, tc.lossLimit
+		if _, sp, _ = c.CountBelow(1, sigma); sp != tc.want {
+			t.Errorf("%s: σ' = %v, want %v", tc.name, sp, tc.want)
+		}
+	}
+}
+
 // TestRoundoffConformance runs the solver conformance suite with the
 // a-priori residual bound in every count.
 func TestRoundoffConformance(t *testing.T) {
