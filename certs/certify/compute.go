@@ -261,7 +261,8 @@ func (e matrixError) Unwrap() error { return e.err }
 //
 // Which N (a choice; every such N is sound): the least one, N₀, unless
 // its amplification Λ_m/(ρ̂ − Λ_m) (Λ_m its Ritz upper bound) exceeds
-// maxAmplification and a larger N, at most N₀ + maxRaiseN, at least halves
+// maxAmplification and a larger N, at most N₀ + maxRaiseN (maxRaiseN3D in
+// three dimensions), at least halves
 // it (the largest such N whose amplification halves the previous pick's). For an approximate
 // eigenpair, the Lehmann–Goerisch bound t = ρ̂ − ρ̂/(1 − μ) of Λ_m moves by
 // about Λ_m/(ρ̂ − Λ_m) times the relative widths of the pencil's entries
@@ -282,8 +283,11 @@ func chooseN(p *problem.Problem, out *outcome) bool {
 	}
 	lm := out.ritz[m-1]
 	amplification := func(n int) float64 { return lm / (out.stageA[n] - lm) }
-	best := n0
-	for n := n0 + 1; n <= n0+maxRaiseN && amplification(n0) > maxAmplification; n++ {
+	best, raise := n0, maxRaiseN
+	if p.Dim == 3 {
+		raise = maxRaiseN3D
+	}
+	for n := n0 + 1; n <= n0+raise && amplification(n0) > maxAmplification; n++ {
 		if separates(n) && amplification(n) <= amplification(best)/2 {
 			best = n
 		}
@@ -299,3 +303,8 @@ const (
 	maxRaiseN        = 2
 	maxAmplification = 2
 )
+
+// maxRaiseN3D is maxRaiseN in three dimensions, where symmetric domains
+// have triple eigenvalues (the cube's 6π², 9π², 11π²): passing one takes
+// three more trial functions.
+const maxRaiseN3D = 3

@@ -55,6 +55,28 @@ const (
 // times the unknowns.
 const polyhedronSmoothDegree = maxPolyhedronDegree
 
+// polyhedronSeparationDegree is the degree up to which the trial space is
+// raised, two at a time, together with the stage-A level while no N
+// separates: separation needs the Ritz upper bound of Λ_N below the
+// stage-A bound of Λ_(N+1), and P_3 on the 8 tetrahedra of a refined
+// tetrahedron has 10 unknowns (its Ritz bound of λ2 on the orthoscheme
+// 0 ≤ x ≤ y ≤ z ≤ 1 lies far above λ3).
+const polyhedronSeparationDegree = 5
+
+// polyhedronMaxAmplification is the amplification Λ_m/(ρ̂ − Λ_m) above
+// which the driver, at the degree polyhedronSmoothDegree, refines the
+// stage-A mesh before the trial mesh: the Lehmann–Goerisch width of Λ_m
+// grows with it (chooseN). On the Dirichlet cube with stage A on 6144
+// tetrahedra ρ̂ is 64.6 against Λ_2 = 62.5 (amplification 30): the
+// projection bound λ_h/(1 + C²λ_h) loses 28% there; one level halves C.
+const polyhedronMaxAmplification = 4
+
+// maxRhoStageATetrahedra caps the stage-A mesh refined for ρ̂ alone (about
+// 2·10⁵ Crouzeix–Raviart unknowns, one sparse factorization about a
+// minute of CPU per verified count; the cube's fourth level has 49,152
+// tetrahedra): beyond it the trial mesh is refined instead.
+const maxRhoStageATetrahedra = 1 << 16
+
 // first: P_3 on the cone tetrahedra refined once, RT_3 fluxes (k = p:
 // measured on the cube, the Lehmann–Goerisch error is about 1.3 times the
 // Ritz error at k = p and 4 times at k = p − 1), stage A on two levels
@@ -168,14 +190,17 @@ func (polyhedron) stallNote() string {
 
 // next chooses the next polyhedron recipe, or says why there is none (a
 // Stop reason). While stage B does not run, stage A (which converges like
-// h²) is refined. Once it runs, the degree is raised by two up to
-// polyhedronSmoothDegree (the flux degree follows, k = p), then the trial
-// mesh is refined. The stage-A mesh is not refined further once N
-// separates: a level costs eight times the unknowns and far more in its
-// verified count (measured on the cube: 12k stage-A unknowns about 10 s
-// of CPU, 97k about 1000 s), while the Lehmann–Goerisch bounds converge
-// with p at a fixed ρ̂ (see polyhedronSmoothDegree). A choice; every
-// recipe gives sound bounds.
+// h²) is refined, and the degree raised up to polyhedronSeparationDegree.
+// Once it runs, the degree is raised by two up to polyhedronSmoothDegree
+// (the flux degree follows, k = p); when ρ̂ limits (amplification
+// above polyhedronMaxAmplification), the stage-A mesh is refined, with the
+// step to that degree, and the indices extended past the next cluster;
+// otherwise the trial mesh is refined. A stage-A level costs eight times the unknowns; its verified
+// counts cost about one sparse factorization each since their residual
+// is bounded a priori (package enclose/sparse; measured on the cube's
+// Kuhn meshes: 0.36 s of which 0.02 s for the bound at 11k unknowns,
+// where the interval residual took 1.4 s more; 70 s at 94k, where it
+// took about 1000 s). A choice; every recipe gives sound bounds.
 func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 	p := d.p
 	if out.n > 0 && r.extra > defaultExtraIndices {
@@ -186,11 +211,30 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 			return r, StopNoSeparation
 		}
 		r.stageARefine++
+		if r.degree < polyhedronSeparationDegree {
+			r.degree = min(r.degree+2, polyhedronSeparationDegree)
+			r.fluxDegree = r.degree
+		}
 		return r, ""
+	}
+	lm := out.ritz[p.Eigenvalues-1]
+	rhoLimits := lm/(out.rho-lm) > polyhedronMaxAmplification && polyhedronTetrahedra(p, r.stageARefine+1) <= maxRhoStageATetrahedra
+	refineStageA := func() {
+		// ρ̂ limits: a finer stage A raises it, and the indices past the
+		// next cluster let chooseN pass it (maxRaiseN3D).
+		r.stageARefine++
+		r.extra = min(max(r.extra, out.n+maxRaiseN3D-p.Eigenvalues), maxExtraIndices)
 	}
 	switch {
 	case r.degree < polyhedronSmoothDegree:
 		r.degree = min(r.degree+2, polyhedronSmoothDegree)
+		if r.degree == polyhedronSmoothDegree && rhoLimits {
+			// ρ̂ does not depend on the degree: refine stage A with the
+			// last degree step rather than in a step of its own.
+			refineStageA()
+		}
+	case rhoLimits:
+		refineStageA()
 	case r.refine < r.stageARefine && r.refine < maxPolyhedronRefine:
 		r.refine++
 	case r.degree < maxPolyhedronDegree:
@@ -206,8 +250,9 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 // joined to the outward triangles of its faces, in the order of
 // fem/mesh3's Cones, which depends only on the set of triangles, so that
 // a problem read from its canonical form (Check) has the same mesh as the
-// problem file it came from; Cones proves that they tile it) refined
-// uniformly levels times.
+// problem file it came from; Cones proves that they tile it), or the
+// polyhedron itself when it is a tetrahedron, refined uniformly levels
+// times.
 func polyhedronMesh(p *problem.Problem, levels int) (*tet.Mesh, error) {
 	ph := p.Polyhedron
 	m, err := mesh3.Cones(ph.Nodes(), len(ph.Vertices), ph.Triangles(), ph.TriangleFaces())
@@ -233,6 +278,9 @@ func faceConditions(p *problem.Problem) []boundary.Condition {
 // levels) (each level has eight times the tetrahedra).
 func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 	t := int64(len(p.Polyhedron.Tetrahedra()))
+	if len(p.Polyhedron.Vertices) == 4 {
+		t = 1
+	}
 	for range levels {
 		t *= 8
 	}

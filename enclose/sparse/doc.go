@@ -25,9 +25,16 @@
 // Counter.CountBelow factors the permuted float matrix
 // Pᵀ(mid(K) − σ·mid(M))P ≈ LDLᵀ at round-to-nearest (P a fill-reducing
 // permutation; the residual R = Pᵀ(K − σM)P − LDLᵀ vanishes outside the
-// pattern of L + Lᵀ), encloses r ≥ ‖R‖∞ over all members entry by entry in
-// outward rounded arithmetic, and hands #neg(D) and r to
-// enclose.CountFromResidual. Its doc comment states and proves the count
+// pattern of L + Lᵀ), bounds r ≥ ‖R‖∞ over all members, and hands
+// #neg(D) and r to enclose.CountFromResidual. r comes from one of two
+// enclosures: every entry of R by its defining sum in outward rounded
+// arithmetic (sharp, Σ_k ℓ_k² operations for columns of length ℓ_k), or
+// the entrywise enclosure of K − σM − S (S the float matrix factored)
+// plus an a-priori rounding-error bound of the factorization,
+// c·Σ_i |L_ki||d_i|S_i per row with c ≈ (longest row of L)·2⁻⁵³ and S_i
+// the column sums of |L| (O(nnz(L)) operations; Higham 2002, Lemmas 3.1
+// and 8.4, with underflow terms). Large pencils use the second when its
+// loss is small (Counter, Residual bounds). Its doc comment states and proves the count
 // #{λ : Kx = λMx, λ < σ'} ≤ #neg(D) for σ' = σ − r/mMin rounded down
 // (Weyl's monotonicity theorem and Sylvester's law of inertia). Hence if
 // #neg(D) ≤ k − 1 then λ_k ≥ σ' for every member. A poor factorization
@@ -50,6 +57,8 @@
 //	J. W. H. Liu, The role of elimination trees in sparse factorization,
 //	SIAM J. Matrix Anal. Appl. 11 (1990) 134–172.
 //	T. A. Davis, Direct Methods for Sparse Linear Systems, SIAM, 2006.
+//	N. J. Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed.,
+//	SIAM, 2002 (rounding-error analysis of the factorization).
 //	B. N. Parlett, The Symmetric Eigenvalue Problem, SIAM, 1998 (subspace
 //	iteration, Rayleigh–Ritz, the generalized problem and shift-invert).
 package sparse

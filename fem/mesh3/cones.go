@@ -29,6 +29,9 @@ import (
 // gets the same mesh and the same refinements, whatever the order and the
 // starting vertices of the triangles it was given.
 //
+// A tetrahedron (apex 4 over four triangles on the vertices 0–3) is
+// returned as its own one-tetrahedron mesh instead of four cones.
+//
 // Cones panics if triangles and faces differ in length or an index is out
 // of range (misuse); FromPolyhedron's errors are returned.
 func Cones(nodes [][3]interval.I, apex int, triangles [][3]int, faces []int) (*Mesh, error) {
@@ -53,6 +56,15 @@ func Cones(nodes [][3]interval.I, apex int, triangles [][3]int, faces []int) (*M
 	slices.SortFunc(bnd, func(x, y BoundaryFace) int {
 		return cmp.Or(cmp.Compare(x.Face, y.Face), cmp.Compare(x.A, y.A), cmp.Compare(x.B, y.B), cmp.Compare(x.C, y.C))
 	})
+	if apex == 4 && len(bnd) == 4 {
+		// A tetrahedron (vertices 0–3) is its own mesh: the vertex
+		// opposite an outward face lies on its inner side, as the apex
+		// does, so (d, a, b, c) is positively oriented; the four cones
+		// would have its diameter (they share its edges) at four times
+		// the tetrahedra.
+		b := bnd[0]
+		return FromPolyhedron(nodes[:apex], [][4]int{{6 - b.A - b.B - b.C, b.A, b.B, b.C}}, bnd)
+	}
 	tets := make([][4]int, len(bnd))
 	for i, b := range bnd {
 		tets[i] = [4]int{apex, b.A, b.B, b.C}
