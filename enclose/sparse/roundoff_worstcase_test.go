@@ -306,28 +306,32 @@ type boundCase struct {
 
 // checkBoundCase factors the case and checks, exactly, the entrywise
 // inequality of the factorization's residual and r ≥ the worst member's
-// residual. It returns the two ratios (bound/|R_ij| minimum, r/worst) or
-// ok = false if the factorization failed (or r = +∞, which says nothing).
-func checkBoundCase(t *testing.T, tc boundCase) (entryRatio, rowRatio float64, ok bool) {
+// residual. It returns the two ratios (bound/|R_ij| minimum, r/worst) and
+// max |L_ij| (the growth), or ok = false if the factorization failed (or
+// r = +∞, which says nothing).
+func checkBoundCase(t *testing.T, tc boundCase) (entryRatio, rowRatio, growth float64, ok bool) {
 	t.Helper()
 	c := roundoffCounter(tc.k, tc.m)
 	if !factorForBound(c, tc.sigma, tc.perm) {
-		return 0, 0, false
+		return 0, 0, 0, false
 	}
 	if tc.fused {
 		var g LDL
 		if !factorizeFused(&g, c.sym, c.c) {
-			return 0, 0, false
+			return 0, 0, 0, false
 		}
 		c.f = g
 	}
 	r := c.roundoffBound(tc.sigma)
 	if math.IsInf(r, 1) {
-		return 0, 0, false
+		return 0, 0, 0, false
 	}
 	if math.IsNaN(r) || r < 0 {
 		t.Errorf("%s: r = %g", tc.name, r)
-		return 0, 0, false
+		return 0, 0, 0, false
+	}
+	for _, v := range c.f.Val {
+		growth = math.Max(growth, math.Abs(v))
 	}
 	entryRatio, err := entryBoundCheck(c)
 	if err != nil {
@@ -338,38 +342,39 @@ func checkBoundCase(t *testing.T, tc boundCase) (entryRatio, rowRatio float64, o
 	}
 	worst := worstMemberResidual(c, tc.sigma)
 	if worst == nil {
-		return entryRatio, math.Inf(1), true
+		return entryRatio, math.Inf(1), growth, true
 	}
 	if new(big.Rat).SetFloat64(r).Cmp(worst) < 0 {
 		w, _ := worst.Float64()
 		t.Errorf("%s: r = %g below the worst member's residual %g", tc.name, r, w)
 	}
 	w, _ := worst.Float64()
-	return entryRatio, r / w, true
+	return entryRatio, r / w, growth, true
 }
 
 // summary collects the smallest ratios seen over a family of cases.
 type summary struct {
-	cases, failed      int
-	minEntry, minRatio float64
+	cases, failed              int
+	minEntry, minRatio, growth float64
 }
 
 func newSummary() *summary { return &summary{minEntry: math.Inf(1), minRatio: math.Inf(1)} }
 
 func (s *summary) add(t *testing.T, tc boundCase) {
 	t.Helper()
-	e, r, ok := checkBoundCase(t, tc)
+	e, r, g, ok := checkBoundCase(t, tc)
 	if !ok {
 		s.failed++
 		return
 	}
 	s.cases++
+	s.growth = math.Max(s.growth, g)
 	s.minEntry, s.minRatio = math.Min(s.minEntry, e), math.Min(s.minRatio, r)
 }
 
 func (s *summary) log(t *testing.T, name string) {
-	t.Logf("%s: %d cases checked (%d factorizations failed or r = +∞): min bound/|R_ij| %.4g, min r/‖R‖∞ %.6g",
-		name, s.cases, s.failed, s.minEntry, s.minRatio)
+	t.Logf("%s: %d cases checked (%d factorizations failed or r = +∞): min bound/|R_ij| %.4g, min r/‖R‖∞ %.6g, max |L_ij| %.3g",
+		name, s.cases, s.failed, s.minEntry, s.minRatio, s.growth)
 	if s.cases == 0 {
 		t.Errorf("%s: no case checked", name)
 	}
@@ -404,8 +409,9 @@ func TestRoundoffBoundRandomExact(t *testing.T) {
 // one y slot, and the longest row of L) large: an arrow matrix whose hub
 // is eliminated last (row n−1 of L full), the same with the hub first
 // (L full: ũ_r sums r terms), two hubs (every update of row n−1 lands in
-// the slot of n−2), and a dense matrix; each at a shift next to an
-// eigenvalue of (K, I), where pivots are small and L grows.
+// the slot of n−2), a dense matrix, and a dense one whose leading pivot
+// is 1e-13 (growth 1e13); each at a shift next to an eigenvalue of (K, I),
+// where pivots are small and L grows.
 func TestRoundoffBoundLongRows(t *testing.T) {
 	rnd := rand.New(rand.NewPCG(33, 34))
 	const n = 32
@@ -430,12 +436,17 @@ func TestRoundoffBoundLongRows(t *testing.T) {
 	for i := range reversed {
 		reversed[i] = n - 1 - i
 	}
+	// A dense matrix with a leading pivot 1e-13 (natural order): L grows
+	// by 1e13 in its first column and D by as much after it.
+	tiny := randomScaledSym(rnd, n, 1, -1, 1)
+	tiny.Val[tiny.Pat.colPtr[0]] = 1e-13
 	s := newSummary()
 	for _, tc := range []struct {
 		name string
 		k    *Sym
 		perm []int
 	}{
+		{"tiny leading pivot", tiny, naturalOrderOf(n)},
 		{"hub last", arrow([]int{n - 1}), naturalOrderOf(n)},
 		{"hub first (L full)", arrow([]int{n - 1}), reversed},
 		{"two hubs last", arrow([]int{n - 2, n - 1}), naturalOrderOf(n)},
@@ -443,7 +454,11 @@ func TestRoundoffBoundLongRows(t *testing.T) {
 		{"hub, Counter's order", arrow([]int{n / 2}), nil},
 	} {
 		eig := denseGeneralizedEigs(t, tc.k, identity(n))
-		for _, sigma := range []float64{0.5 * (eig[0] + eig[1]), eig[n/2] * (1 + 1e-12), eig[n/2]} {
+		shifts := []float64{0.5 * (eig[0] + eig[1]), eig[n/2] * (1 + 1e-12), eig[n/2]}
+		if tc.k == tiny {
+			shifts = []float64{0, 1e-13 * (1 - 0x1p-20)} // leading pivot 1e-13, about 1e-19
+		}
+		for _, sigma := range shifts {
 			for _, fused := range []bool{false, true} {
 				s.add(t, boundCase{name: fmt.Sprintf("%s σ=%g fused=%v", tc.name, sigma, fused),
 					k: toISym(tc.k), m: toISym(identity(n)), sigma: sigma, perm: tc.perm, fused: fused})
@@ -754,4 +769,101 @@ func TestFactorizeScatterOneEntryPerSlot(t *testing.T) {
 			}
 		}
 	}
+}
+
+// TestRoundoffCountThickMembers: for interval pencils with relative widths
+// up to 1e-4, the count with the a-priori residual bound is true for
+// members at the corners and inside the boxes: no member has more
+// eigenvalues (enclosed by enclose.Eigenvalues, a verified dense method)
+// certainly below σ' than the count.
+func TestRoundoffCountThickMembers(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(48, 49))
+	checked := 0
+	for trial := 0; trial < 4; trial++ {
+		n := 6 + rnd.IntN(6)
+		k, m := randomScaledSym(rnd, n, 0.5, -2, 2), randomSPD(n, 2, uint64(400+trial))
+		rho := []float64{1e-10, 1e-4}[trial%2]
+		widen := func(s *Sym) *ISym {
+			v := make([]interval.I, len(s.Val))
+			for q, x := range s.Val {
+				w := rho * math.Abs(x)
+				v[q] = interval.I{Lo: x - w, Hi: x + w}
+			}
+			return &ISym{Pat: s.Pat, Val: v}
+		}
+		ik, im := widen(k), widen(m)
+		members := make([][2]*enclose.Sym, 0, 4)
+		for pick := 0; pick < 4; pick++ {
+			dk, dm := enclose.NewSym(n), enclose.NewSym(n)
+			for i := 0; i < n; i++ {
+				for j := 0; j <= i; j++ {
+					choose := func(x interval.I) float64 {
+						switch pick {
+						case 0:
+							return x.Lo
+						case 1:
+							return x.Hi
+						}
+						return math.Max(x.Lo, math.Min(x.Hi, x.Lo+rnd.Float64()*(x.Hi-x.Lo)))
+					}
+					dk.Set(i, j, interval.Point(choose(ik.At(i, j))))
+					dm.Set(i, j, interval.Point(choose(im.At(i, j))))
+				}
+			}
+			members = append(members, [2]*enclose.Sym{dk, dm})
+		}
+		// mMin: a lower bound of λ_min over the box of M (Weyl: λ_min(M) ≥
+		// λ_min(mid) − ‖M − mid‖₂, and ‖M − mid‖₂ ≤ ‖M − mid‖∞ ≤ the
+		// largest row sum of the widths Hi − Lo ≥ |M_ij − mid_ij|).
+		mid, id := enclose.NewSym(n), enclose.NewSym(n)
+		radius := 0.0
+		for i := 0; i < n; i++ {
+			id.Set(i, i, interval.Point(1))
+			row := 0.0
+			for j := 0; j < n; j++ {
+				x := im.At(i, j)
+				row = interval.AddUp(row, interval.SubUp(x.Hi, x.Lo))
+				if j <= i {
+					mid.Set(i, j, interval.Point(x.Mid()))
+				}
+			}
+			radius = math.Max(radius, row)
+		}
+		me, err := enclose.Eigenvalues(mid, id)
+		if err != nil {
+			t.Fatal(err)
+		}
+		mMin := interval.SubDown(me[0].Lo, radius)
+		if !(mMin > 0) {
+			t.Fatalf("trial %d: mass matrix not certainly positive definite", trial)
+		}
+		eigs := make([][]interval.I, len(members))
+		for p, mb := range members {
+			if eigs[p], err = enclose.Eigenvalues(mb[0], mb[1]); err != nil {
+				t.Fatal(err)
+			}
+		}
+		c := roundoffCounter(ik, im)
+		for _, e := range eigs[0] {
+			for _, sigma := range []float64{e.Mid(), e.Mid() * (1 + 1e-6), e.Mid() * (1 - 1e-6)} {
+				got, sp, ok := c.CountBelow(mMin, sigma)
+				if !ok {
+					continue
+				}
+				checked++
+				for p, ev := range eigs {
+					below := 0
+					for _, v := range ev {
+						if v.Hi < sp {
+							below++
+						}
+					}
+					if below > got {
+						t.Errorf("trial %d member %d σ=%g: %d eigenvalues below σ'=%g, count %d", trial, p, sigma, below, sp, got)
+					}
+				}
+			}
+		}
+	}
+	t.Logf("%d counts checked against 4 members each", checked)
 }
