@@ -867,3 +867,75 @@ func TestRoundoffCountThickMembers(t *testing.T) {
 	}
 	t.Logf("%d counts checked against 4 members each", checked)
 }
+
+// TestRoundoffBoundRowTight: a 2×2 matrix on which the exact residual
+// norm is 2/3 of r, so r holds where it is tightest and no smaller factor
+// c than about 2/3 of the proved one would do. With d_1 = 1 − 29·2⁻⁵³,
+// a_21 = 2²⁰(1 + β·2⁻⁵²), β = 47453125 (β² ≈ 2⁵¹, so that L_21·a_21 lies
+// next to a midpoint between floats) and a_22 = succ(fl(L_21·a_21)):
+// L_21 = fl(a_21/d_1) and fl(L_21·a_21) both round up by almost half an
+// ulp, so R_21 = a_21 − L_21 d_1 ≈ −u·a_21 and R_22 = (fl(L_21 a_21) −
+// L_21 a_21) + L_21 R_21 ≈ 2u·L_21 a_21 in magnitude with equal signs,
+// while the bound of row 2 is c(|L_21||d_1|(1 + |L_21|) + |d_2|) ≈
+// 3u·L_21² d_1 (d_2 = 2⁻¹², c ≈ 3u): ‖R‖∞/r → 2/3. (Found by a search over
+// β and d_1; the numbers are checked exactly below.)
+func TestRoundoffBoundRowTight(t *testing.T) {
+	d1, a21 := 0x1.fffffffffffe3p-01, 0x1.0000002d413c5p+20
+	a22 := 0x1.0000005a8279ap+40
+	if p := float64(float64(a21/d1) * a21); a22 != math.Nextafter(p, math.Inf(1)) {
+		t.Fatalf("a_22 = %x, want succ(fl(L_21·a_21)) = succ(%x)", a22, p)
+	}
+	k := twoByTwo(d1, a21, a22)
+	c := roundoffCounter(toISym(k), toISym(identity(2)))
+	if !factorForBound(c, 0, naturalOrderOf(2)) {
+		t.Fatal("factorization failed")
+	}
+	r := c.roundoffBound(0)
+	exact := exactResidual(c, pointMember(k, identity(2)), 0)
+	ratio, _ := new(big.Rat).Quo(exact, new(big.Rat).SetFloat64(r)).Float64()
+	t.Logf("‖R‖∞/r = %.6f (r = %g)", ratio, r)
+	if !(ratio < 1) {
+		t.Errorf("r = %g below the exact residual (ratio %g)", r, ratio)
+	}
+	if ratio < 0.66 {
+		t.Errorf("‖R‖∞/r = %g: the case lost its tightness (want ≥ 0.66)", ratio)
+	}
+}
+
+// TestRoundoffBoundDifferencePermuted: the enclosed difference
+// K − σM − S is summed by the rows of the unpermuted pencil and must be
+// added to the factorization term of the same row after the elimination
+// order. The case makes a mismatch visible: row 0 (eliminated last, the
+// order reversed) holds the only wide entry (K_00 of radius 1e-10) and
+// the only O(1) pivot, the other rows are of size 1e-8, so r with the
+// difference of row 0 moved to another row would fall below the worst
+// member's residual, W/2 plus the rounding error of the last pivot.
+func TestRoundoffBoundDifferencePermuted(t *testing.T) {
+	const n = 4
+	b := NewIBuilder(n)
+	b.Add(0, 0, interval.I{Lo: 3.1 - 1e-10, Hi: 3.1 + 1e-10})
+	for i := 1; i < n; i++ {
+		b.Add(i, i, interval.Point(1e-8*(1+float64(i)/7)))
+		b.Add(i, 0, interval.Point(1e-9*(0.3+float64(i)/10)))
+		if i+1 < n {
+			b.Add(i+1, i, interval.Point(1e-10*float64(i)))
+		}
+	}
+	k := b.Build()
+	c := roundoffCounter(k, toISym(identity(n)))
+	reversed := []int{3, 2, 1, 0}
+	if !factorForBound(c, 0, reversed) {
+		t.Fatal("factorization failed")
+	}
+	// The case needs a rounding error in the last pivot (row 0).
+	if f, _ := exactResidual(c, pointMember(k.Mid(), identity(n)), 0).Float64(); !(f > 1e-20) {
+		t.Fatalf("factorization residual %g: the last pivot was exact, the case shows nothing", f)
+	}
+	r := c.roundoffBound(0)
+	worst := worstMemberResidual(c, 0)
+	w, _ := worst.Float64()
+	if new(big.Rat).SetFloat64(r).Cmp(worst) < 0 {
+		t.Errorf("r = %.17g below the worst member's residual %.17g", r, w)
+	}
+	t.Logf("r = %.17g, worst member %.17g", r, w)
+}
