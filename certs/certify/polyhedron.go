@@ -276,3 +276,15 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 	}
 	return t
 }
+
+// stepCost predicts the time of the step from r to next as a multiple of
+// r's (stepCoster): a level of either mesh has eight times the unknowns,
+// and the sparse factorizations of a 3D mesh cost about N² (measured: a
+// stage-A level 17 to 138 times the step before, on the cube, prism,
+// orthoscheme and L-shaped prism); a degree step a few times.
+func (polyhedron) stepCost(r, next recipe) float64 {
+	if next.refine > r.refine || next.stageARefine > r.stageARefine {
+		return 64
+	}
+	return 4
+}
