@@ -1,6 +1,7 @@
 package certify
 
 import (
+	"math/big"
 	"testing"
 
 	"gapcert/certs/certify/proof"
@@ -104,4 +105,24 @@ func TestPolyhedronDirichletCubeLehmannGoerischTriple(t *testing.T) {
 	got := lehmannGoerischWithKnownRho(t, cubePolyhedron("dirichlet", "0"), 4, 4, pi2(9, 1))
 	six := pi2(6, 1)
 	wantEnclosures(t, "Dirichlet cube", got, []interval.I{pi2(3, 1), six, six, six}, []float64{2e-4, 3e-3, 3e-3, 3e-3}, 3.29)
+}
+
+// TestPolyhedronRobinFacesLehmannGoerisch: the unit cube with Robin faces
+// x = 0, x = 1 (α = 1), Dirichlet faces y = 0, y = 1 and Neumann faces
+// z = 0, z = 1 has λ = μ_i + j²π² + l²π² (j ≥ 1, l ≥ 0), μ_i the
+// eigenvalues of −u″ on (0, 1) with u′(0) = u(0), u′(1) = −u(1), enclosed
+// by the 1D certifier (μ1 ≈ 1.7071, μ2 ≈ 13.492): λ1 = μ1 + π², λ2 =
+// μ1 + 2π², λ3 = μ2 + π² (below μ1 + 4π²). With ρ̂ the lower end of μ2 +
+// π², P_4 and RT_4 (free on the Robin faces, entering A2 with the weight
+// 1/α) enclose λ1 and λ2.
+func TestPolyhedronRobinFacesLehmannGoerisch(t *testing.T) {
+	mu := certify1D(t, `{"domain": {"interval": ["0", "1"]}, "boundary": [{"robin": "1"}, {"robin": "1"}], "eigenvalues": 2}`)
+	lambda3 := mu[1].Add(pi2(1, 1))
+	if !(lambda3.Hi < mu[0].Add(pi2(4, 1)).Lo) {
+		t.Fatalf("μ2 + π² is not below μ1 + 4π²: μ ∈ %v, %v", mu[0], mu[1])
+	}
+	one := big.NewRat(1, 1)
+	src := boxPolyhedron(one, one, one, identity, origin, `["neumann","neumann","dirichlet","dirichlet",{"robin": "1"},{"robin": "1"}]`, "0", 2)
+	got := lehmannGoerischWithKnownRho(t, src, 4, 2, lambda3)
+	wantEnclosures(t, "Robin faces", got, []interval.I{mu[0].Add(pi2(1, 1)), mu[0].Add(pi2(2, 1))}, []float64{1e-4, 1e-3}, 3.29)
 }
