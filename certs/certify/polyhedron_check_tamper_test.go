@@ -161,15 +161,10 @@ func TestPolyhedronCheckRefusesOutOfRangeRecipe(t *testing.T) {
 		{func(m *Method) { m.Kind = "tetrahedra" }, "method.kind"},
 	} {
 		edited := editMethod(t, data, c.edit)
-		start := time.Now()
 		err := Check(edited)
 		var fe *certs.FormatError
 		if !errors.As(err, &fe) || !strings.Contains(err.Error(), c.want) {
 			t.Errorf("error %v, want a format error naming %q", err, c.want)
-		}
-		// A refusal reads the file only: far below one step (0.5 s).
-		if d := time.Since(start); d > 200*time.Millisecond {
-			t.Errorf("%q: the refusal took %v; was something computed?", c.want, d)
 		}
 	}
 }
@@ -190,14 +185,10 @@ func TestPolyhedronCheckRefusesRecomputationBeyondMemory(t *testing.T) {
 		{"refinements 4", func(m *Method) { m.Refinements = 4 }},
 		{"degree 8 on three levels", func(m *Method) { m.Degree, m.FluxDegree, m.Refinements = 8, 8, 3 }},
 	} {
-		start := time.Now()
 		err := Check(editMethod(t, data, c.edit))
 		var budget *BudgetError
 		if !errors.As(err, &budget) || budget.Need <= budget.Budget || !strings.Contains(err.Error(), "GiB") {
 			t.Errorf("%s: error %v, want a refusal with the memory estimate", c.name, err)
-		}
-		if d := time.Since(start); d > 200*time.Millisecond {
-			t.Errorf("%s: the refusal took %v; was something computed?", c.name, d)
 		}
 	}
 }
