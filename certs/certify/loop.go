@@ -189,8 +189,13 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			reason = StopMemory
 			break
 		}
-		// The next step costs a few times the last one; stop if it would not fit.
-		if !paced && time.Since(start)+4*time.Since(t0) > limit {
+		// The next step costs a few times the last one (a discretisation
+		// may say how many, stepCost); stop if it would not fit.
+		ratio := 4.0
+		if sc, ok := d.(stepCoster); ok {
+			ratio = sc.stepCost(r, next)
+		}
+		if !paced && time.Since(start)+time.Duration(ratio*float64(time.Since(t0))) > limit {
 			reason = StopTime
 			break
 		}
@@ -217,6 +222,13 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	}
 	best.refinement = &Refinement{Target: targetText, TargetRule: TargetRule, StopReason: reason}
 	return best.certificate(p, opt)
+}
+
+// stepCoster is a discretisation that predicts the time of the step from r
+// to next as a multiple of the time of r's step (a choice: the time limit
+// is not a hard one).
+type stepCoster interface {
+	stepCost(r, next recipe) float64
 }
 
 // Widths stall when the discretisation's number of steps in a row
