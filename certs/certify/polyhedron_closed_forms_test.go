@@ -289,34 +289,6 @@ func TestPolyhedronEquilateralPrism(t *testing.T) {
 	wantEnclosures(t, "equilateral prism", got, []interval.I{pi2(19, 3), pi2(28, 3)}, []float64{3e-2, 0.2}, 4.9)
 }
 
-// TestPolyhedronDirichletOrthoscheme: the orthoscheme 0 ≤ x ≤ y ≤ z ≤ 1
-// (see TestPolyhedronNeumannOrthoscheme) with Dirichlet faces. Its
-// eigenfunctions, extended by odd reflection across x = y and y = z, are
-// the Dirichlet eigenfunctions of the cube that are antisymmetric in
-// x, y, z: det[sin(a_i π x_j)] for 1 ≤ a_1 < a_2 < a_3, which vanish on
-// the faces x = 0 and z = 1 (a column of zeros: sin 0 = sin(a_i π) = 0)
-// and on x = y, y = z (two equal columns). So λ = π²(a_1² + a_2² + a_3²)
-// over distinct positive integers: λ1 = 14π² (1, 2, 3), λ2 = 21π²
-// (1, 2, 4), both simple. Derivation in this comment (reflection, common
-// practice). Four stage-A levels (32,256 unknowns, 152 s measured; the
-// time limit of 5 min lets the fourth start and stops the fifth) do not
-// separate λ2 from λ3 = 26π², so the enclosures are stage A's (wide);
-// TestPolyhedronDirichletOrthoschemeLehmannGoerisch checks stage B here.
-func TestPolyhedronDirichletOrthoscheme(t *testing.T) {
-	longTests(t)
-	src := `{"domain": {"polyhedron": {"vertices": [["0","0","0"],["0","0","1"],["0","1","1"],["1","1","1"]], "faces": [[0,1,2],[0,1,3],[0,2,3],[1,2,3]]}}, "boundary": "dirichlet", "eigenvalues": 2}`
-	p := parseProblem(t, src)
-	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-3", TimeLimit: 5 * time.Minute})
-	if err != nil {
-		t.Fatal(err)
-	}
-	var got []interval.I
-	for _, e := range c.Results.Eigenvalues {
-		got = append(got, boundOf(t, certs.Bound{Lower: e.Lower, Upper: e.Upper}))
-	}
-	wantEnclosures(t, "Dirichlet orthoscheme", got, []interval.I{pi2(14, 1), pi2(21, 1)}, []float64{0.5, 1}, 3.29)
-}
-
 // TestPolyhedronLShapedPrismAgainstProduct: the L-shaped prism
 // ((0, 2)² ∖ [1, 2]²) × (0, 1), given as a polyhedron (not convex: its
 // re-entrant edge at x = y = 1), with a Neumann bottom, a Dirichlet top,

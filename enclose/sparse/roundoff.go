@@ -96,7 +96,7 @@ const underflowUnit = 0x1p-1074
 //
 // E = a_kr − Σ_i L_ri ũ_i − ũ_r, and |ũ_i − L_ki d_i| ≤
 // γ_1|L_ki||d_i| + (1 + γ_1)η₀|d_i|, |ũ_r − L_kr d_r| ≤ u|ũ_r| + η₀|d_r|.
-// Collecting, with γ_m + u ≤ γ_(m+1) and
+// Collecting, with γ_m + u ≤ γ_(m+1) (Higham 2002, Lemma 3.3) and
 //
 //	c = γ_1 + γ_(mMax+1)(1 + γ_1)
 //
@@ -127,7 +127,7 @@ const underflowUnit = 0x1p-1074
 // References:
 //
 //	N. J. Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed.,
-//	SIAM, 2002 (§2.2–2.3 the model of arithmetic, Lemma 3.1, Lemma 8.4;
+//	SIAM, 2002 (§2.2–2.3 the model of arithmetic, Lemma 3.1, Lemma 3.3, Lemma 8.4;
 //	§9.3 and §10.1 the analyses of LU and Cholesky factorization that
 //	this follows).
 //	IEEE Standard for Floating-Point Arithmetic, IEEE 754-2019.
@@ -159,15 +159,15 @@ func (c *Counter) roundoffBound(sigma float64) float64 {
 	}
 	// weight_i ≥ |d_i| S_i; row_k ≥ Σ_{i≤k} |L_ki| weight_i; small_r ≥ t_r.
 	for i := 0; i < n; i++ {
-		weight[i] = up(math.Abs(d[i]) * colSum[i])
+		weight[i] = up(float64(math.Abs(d[i]) * colSum[i]))
 		row[i] = weight[i] // the term i = k (L_kk = 1)
 	}
 	for i := 0; i < n; i++ {
 		w, di := weight[i], math.Abs(d[i])
 		for q := lp[i]; q < lp[i+1]; q++ {
 			k, l := li[q], math.Abs(lx[q])
-			row[k] = up(row[k] + up(l*w))
-			small[k] = up(small[k] + up(l*di))
+			row[k] = up(row[k] + up(float64(l*w)))
+			small[k] = up(small[k] + up(float64(l*di)))
 		}
 	}
 	tMax := 0.0
@@ -175,13 +175,13 @@ func (c *Counter) roundoffBound(sigma float64) float64 {
 		tMax = math.Max(tMax, t)
 	}
 	cf := roundoffFactor(mMax)
-	under := up(up(1+cf) * up(underflowUnit*up(float64(2*mMax)+tMax)))
+	under := up(float64(up(1+cf) * up(float64(underflowUnit*up(float64(2*mMax)+tMax)))))
 	diff := c.differenceRows(sigma)
 	perm := f.Sym.perm
 	r := 0.0
 	for k := 0; k < n; k++ {
 		entries := float64(1 + rowCount[k] + lp[k+1] - lp[k])
-		s := up(up(cf*row[k]) + up(entries*under))
+		s := up(up(float64(cf*row[k])) + up(float64(entries*under)))
 		s = up(s + diff[perm[k]])
 		if math.IsNaN(s) {
 			return math.Inf(1)

@@ -119,7 +119,9 @@ func TestRoundoffBoundExact(t *testing.T) {
 		{"grid5 m=14 scaled 2⁻¹⁰⁷²", scaled(grid5(14), -1072), identity(196), 0, true},
 		// d_1 = 2⁶⁰, L_21 = fl(3·2⁻¹⁰¹⁵/2⁶⁰) = fl(1.5·2⁻¹⁰⁷⁴) = 2⁻¹⁰⁷³ (tie
 		// to even), so R_21 = 3·2⁻¹⁰¹⁵ − 2⁻¹⁰¹³ = −2⁻¹⁰¹⁵: the whole
-		// residual is the underflow of one division, scaled by d_1.
+		// residual is the underflow of one division, scaled by d_1. (The
+		// term c·|d_1| of the bound covers it many times over: the case
+		// checks containment, not that the underflow term t_r is needed.)
 		{"2×2 underflowing division", twoByTwo(0x1p60, 3*0x1p-1015, 1), identity(2), 0, true},
 	} {
 		c := roundoffCounter(toISym(tc.k), toISym(tc.m))
