@@ -219,6 +219,13 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 		r.extra = max(defaultExtraIndices, min(r.extra, out.n-p.Eigenvalues+1))
 	}
 	if out.n == 0 {
+		if L := len(out.ritz); L > p.Eigenvalues && out.ritz[L-1]-out.ritz[p.Eigenvalues-1] < 0.02*out.ritz[L-1] && r.extra < maxExtraIndices {
+			// Every index bounded lies in the cluster of the last one
+			// wanted: no stage-A level separates it before more indices
+			// reach past the cluster.
+			r.extra = min(2*r.extra+2, maxExtraIndices)
+			return r, ""
+		}
 		if r.stageARefine >= maxPolyhedronRefine {
 			return r, StopNoSeparation
 		}
