@@ -74,13 +74,14 @@ func lehmannGoerischWithKnownRho(t *testing.T, src string, degree, n int, rhoLam
 // TestPolyhedronDirichletOrthoscheme): λ1 = 14π², λ2 = 21π², λ3 = 26π².
 // Its stage A separates λ2 from λ3 only past 32,256 stage-A unknowns
 // (measured: four levels, 150 s, still not), so here ρ̂ is λ3 itself.
-// P_5 and RT_5 on 32 tetrahedra enclose λ1 and λ2 (measured relative
-// widths 1.9e-3 and 5.3e-2; P_7, four times the CPU time, gives 3.2e-5 and
-// 2.4e-3).
+// The first mesh is the orthoscheme refined once (8 tetrahedra: a
+// tetrahedron is meshed as itself). P_6 and RT_6 enclose λ1 and λ2
+// (measured relative widths 2.6e-4 and 1.9e-2, 2 s; P_5 gives 6.2e-3 and
+// 3.8e-2, P_7 6.7e-5 and 6.4e-4 in 5 s).
 func TestPolyhedronDirichletOrthoschemeLehmannGoerisch(t *testing.T) {
 	src := `{"domain": {"polyhedron": {"vertices": [["0","0","0"],["0","0","1"],["0","1","1"],["1","1","1"]], "faces": [[0,1,2],[0,1,3],[0,2,3],[1,2,3]]}}, "boundary": "dirichlet", "eigenvalues": 2}`
-	got := lehmannGoerischWithKnownRho(t, src, 5, 2, pi2(26, 1))
-	wantEnclosures(t, "Dirichlet orthoscheme", got, []interval.I{pi2(14, 1), pi2(21, 1)}, []float64{3e-3, 8e-2}, 3.29)
+	got := lehmannGoerischWithKnownRho(t, src, 6, 2, pi2(26, 1))
+	wantEnclosures(t, "Dirichlet orthoscheme", got, []interval.I{pi2(14, 1), pi2(21, 1)}, []float64{1e-3, 4e-2}, 3.29)
 }
 
 // TestPolyhedronEquilateralPrismLehmannGoerisch: the prism over the
