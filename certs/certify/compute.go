@@ -3,6 +3,7 @@ package certify
 import (
 	"errors"
 	"fmt"
+	"time"
 
 	"gapcert/certs/certify/proof"
 	"gapcert/enclose"
@@ -90,6 +91,8 @@ type outcome struct {
 	ch     interval.I
 	notes  []string
 
+	stageATime time.Duration // the wall time of stage A (steers the time predictions only)
+
 	// The approximate ground state ũ of the step, kept for the ground-state
 	// block (groundStateInputs): the trial space, ũ's coefficients (the
 	// first approximate eigenvector) and the [0, 0] entries of the Ritz
@@ -163,6 +166,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 
 	// Lower bounds, stage A: projection bounds of Λ_1..Λ_(want+1).
 	located := d.located(want + 1)
+	startA := time.Now()
 	sa, err := d.stageA(r, gamma, out.ritz, located, out)
 	if err != nil {
 		return nil, err
@@ -176,6 +180,7 @@ func compute(p *problem.Problem, r recipe) (*outcome, error) {
 	for i, lh := range lhs {
 		out.stageA[i] = proof.ProjectionLower(lh, sa.FormShift(), out.ch)
 	}
+	out.stageATime = time.Since(startA)
 
 	// Lower bounds, stage B: Lehmann–Goerisch with the first N trial
 	// functions.

@@ -190,12 +190,12 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			break
 		}
 		// The next step costs a few times the last one (a discretisation
-		// may say how many, stepCost); stop if it would not fit.
-		ratio := 4.0
-		if sc, ok := d.(stepCoster); ok {
-			ratio = sc.stepCost(r, next)
+		// may predict it, stepTimer); stop if it would not fit.
+		predicted := 4 * time.Since(t0)
+		if st, ok := d.(stepTimer); ok {
+			predicted = st.stepTime(r, next, out, time.Since(t0))
 		}
-		if !paced && time.Since(start)+time.Duration(ratio*float64(time.Since(t0))) > limit {
+		if !paced && time.Since(start)+predicted > limit {
 			reason = StopTime
 			break
 		}
@@ -224,11 +224,11 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	return best.certificate(p, opt)
 }
 
-// stepCoster is a discretisation that predicts the time of the step from r
-// to next as a multiple of the time of r's step (a choice: the time limit
-// is not a hard one).
-type stepCoster interface {
-	stepCost(r, next recipe) float64
+// stepTimer is a discretisation that predicts the time of the step from r
+// to next from the time last of r's step and its outcome (a choice: the
+// time limit is not a hard one).
+type stepTimer interface {
+	stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration
 }
 
 // Widths stall when the discretisation's number of steps in a row
