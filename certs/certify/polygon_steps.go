@@ -339,7 +339,7 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 	type candidate struct {
 		kind  stepKind
 		r     recipe
-		cost  float64
+		cost  float64 // its predicted seconds
 		score float64
 	}
 	var best, overMemory *candidate
@@ -390,7 +390,11 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		// the grading steps that followed at degree 8 cost more than at
 		// 6 (7.7e-9 at 26 s against 1.4e-10 at 24 s for grading at
 		// degree 6, measured under the same load).
-		rate := math.Min(math.Log(gain), maxLog) / math.Max(cost, 1e-9)
+		charged := cost
+		if k == kindUniform && line {
+			charged += h.uniformLookahead(d.p, base, c)
+		}
+		rate := math.Min(math.Log(gain), maxLog) / math.Max(charged, 1e-9)
 		cand := &candidate{kind: k, r: c, cost: cost, score: rate}
 		if h != nil && h.memory > 0 && memoryEstimate(d.p, c) > h.memory {
 			if overMemory == nil || cand.score > overMemory.score {
@@ -424,6 +428,61 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 	return withStageARider(best.r, rho, ritzN), ""
 }
 
+// uniformLookahead returns the predicted seconds by which a uniform level
+// from base (to next) on the hp line makes dearer the degree steps still
+// ahead of it (onHPLine: each raises the degree by 2 and grades to the
+// depth of the new degree, up to maxPolygonDegree): the sum over those
+// steps of the predicted time of the step from next less that of the same
+// step from base (predict). Only the steps from base that fit, one after
+// the other, in the time left after the uniform level (with the margin)
+// count: a step the run has no time for costs nothing more. 0 without a
+// measured cost per unit of work, off the hp line, with adaptive marks,
+// or once the degree is spent or at its cap.
+//
+// chooseStep adds it to a uniform level's cost in the score (not to the
+// predicted time that checks the deadline or sets the kind's ratio): the
+// level multiplies the cost of every later raise about by the factor it
+// multiplies the triangles, which a rating one step ahead does not see.
+// Without it the 117° trapezoid took the third and fourth uniform levels
+// at degree 4 (the third gained 16) and raised the degree to 6 on 716
+// triangles, after which no raise fitted in 30 s (gap 9.5e-11, loaded
+// machine), while degree 10 on 3 uniform and 18 graded levels reaches
+// 1.4e-12 in one step of 9.2 s. With it (and the gain of the last raise
+// that graded, predictedGain) the run goes to degree 8 on 2 uniform
+// levels, takes the third there and then degree 10 with 18 levels: gap
+// 3.4e-13 at 26 s, where it stopped at 3.9e-12 at 24 s (two runs each,
+// machine lightly loaded). A choice, never a bound.
+func (h *stepHistory) uniformLookahead(p *problem.Problem, base, next recipe) float64 {
+	if h == nil || h.perWork <= 0 || len(base.marks) > 0 || h.kinds[kindDegree].spent {
+		return 0
+	}
+	if _, line := hpGraded(p, base.degree); !line {
+		return 0
+	}
+	left := math.Inf(1)
+	if !h.deadline.IsZero() {
+		left = time.Until(h.deadline).Seconds()/timeMargin - h.predict(p, kindUniform, next)
+	}
+	extra, planned := 0.0, 0.0
+	from, to := base, next
+	for from.degree < maxPolygonDegree {
+		f, okF := applyStep(kindDegree, from, nil)
+		t, okT := applyStep(kindDegree, to, nil)
+		if !okF || !okT {
+			break
+		}
+		f, _ = onHPLine(p, kindDegree, from, f)
+		t, _ = onHPLine(p, kindDegree, to, t)
+		cf := h.predict(p, kindDegree, f)
+		if planned += cf; planned > left {
+			break
+		}
+		extra += h.predict(p, kindDegree, t) - cf
+		from, to = f, t
+	}
+	return math.Max(0, extra)
+}
+
 // targetMargin: a step predicted to narrow the worst width to the target
 // divided by this factor counts as reaching it (a choice: the predicted
 // gains of the measured cases were within a factor of about 2 of the
@@ -447,8 +506,16 @@ const targetMargin = 2
 // the degree raise gained 14.7 while the last measured degree gain, from
 // the first mesh, was 4.9), and while the corners limit, that it gains
 // little (share 0.99 at degree 8: predicted 2.0, measured 1.7 and 1.9).
-// Otherwise, and for the other kinds, the kind's last measured gain,
-// priorGain before it is tried. A nil history has the priors.
+// A degree step that grades with the raise (on the hp line, onHPLine) is
+// predicted to gain at least what the last degree step that graded gained:
+// along the hp line the error falls exponentially in the degree, by about
+// the same factor per raise (hpGraded). Without that floor the 117°
+// trapezoid, whose raise from degree 4 to 6 with 4 levels gained 3,300,
+// had the raise to 8 predicted at about 3 (the last grading level, taken
+// while λ2 was limited away from the corners, gained 1.07, which bounds
+// the levels' credit, levelGain) and took uniform levels at degree 6
+// instead. Otherwise, and for the other kinds, the kind's last measured
+// gain, priorGain before it is tried. A nil history has the priors.
 //
 // Grading is not predicted from the share: the corner part of the error
 // lies on the graded layers around the corner too, not only on the
@@ -477,7 +544,15 @@ func (h *stepHistory) predictedGain(p *problem.Problem, k stepKind, base, next r
 	if rec.rest > 0 {
 		rest = rec.rest
 	}
-	return 1 / (sh.corner*corner + (1-sh.corner)/rest)
+	gain = 1 / (sh.corner*corner + (1-sh.corner)/rest)
+	if k == kindDegree && next.graded > base.graded && rec.tried && rec.levels > 0 {
+		// Along the hp line each raise by 2 with its levels gains about
+		// the same factor (hpGraded: the error falls exponentially in
+		// the degree there), so a raise with levels gains at least what
+		// the last one with levels gained.
+		gain = math.Max(gain, rec.gain)
+	}
+	return gain
 }
 
 // cornerFactor returns the factor by which a step of kind k from trial

@@ -509,3 +509,98 @@ func TestChooserLeavesTheHPTrap(t *testing.T) {
 		t.Errorf("last step at degree %d, want %d", last.degree, maxPolygonDegree)
 	}
 }
+
+// trapezoidAtDepth returns the 117° trapezoid (ν ≈ 0.772) at degree 4 on 2
+// uniform levels, graded to the depth of degree 4 on the hp line (7
+// levels, hpGraded, so grading alone is no candidate), a history with the
+// tables of degree 4 built and the chooser's prior cost of a unit of work
+// (2.7 µs, stageAWorkPerTriangle), and an outcome whose ρ̂ is far above
+// the Ritz bound of Λ_N (no stage-A level rides along), without
+// indicators. Predicted seconds (stepWork): a uniform level 0.2; the
+// raises along the hp line 0.9, 3.5 and 10.4 on 2 uniform levels and 1.3,
+// 4.6 and 13.2 on 3, plus the setups of degrees 6, 8 and 10 (0.4, 1.3 and
+// 3.9, setupWork).
+func trapezoidAtDepth(t *testing.T) (polygon, recipe, *outcome) {
+	t.Helper()
+	p := parseProblem(t, trapezoid117Source)
+	r := firstRecipe(t, p)
+	r.degree, r.fluxDegree, r.refine = 4, 3, 2
+	if n, ok := hpGraded(p, 4); !ok || n != 7 {
+		t.Fatalf("hp depth of degree 4 on the trapezoid: %d (%v), want 7", n, ok)
+	}
+	r.graded = 7
+	h := &stepHistory{perWork: 2.7e-6, degrees: 1 << 4}
+	out := &outcome{n: 2, rho: 40, ritz: []float64{10, 16, 20}, lg: []float64{9, 15}}
+	return polygon{p: p, hist: h}, r, out
+}
+
+// TestUniformLevelCountsTheRaisesAhead: on the hp line a uniform level
+// makes every raise of the degree still ahead dearer, and its score
+// counts that (uniformLookahead). Made-up history on the 117° trapezoid
+// at the depth of degree 4 (trapezoidAtDepth): the last uniform level
+// gained 16, the degree is not yet tried (prior gain 10). Rated one step
+// ahead the level (0.2 s, log 16 / 0.2 s) beats the raise (1.3 s with its
+// setup); counted with the 4.3 s by which it makes the three raises to
+// degree 10 dearer, it does not, and the raise to degree 6 with 11 levels
+// is taken. With no time for any raise the level is taken.
+func TestUniformLevelCountsTheRaisesAhead(t *testing.T) {
+	d, r, out := trapezoidAtDepth(t)
+	h := d.hist
+	h.kinds[kindUniform] = measured(16)
+	up := r
+	up.refine++
+	if s := h.uniformLookahead(d.p, r, up); !(s > 3.5 && s < 5) {
+		t.Errorf("the raises to degree 10 get dearer by %.3g s, want about 4.3", s)
+	}
+	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != 6 || next.graded != 11 || next.refine != 2 {
+		t.Errorf("got degree %d, %d uniform, %d graded levels (%q), want the raise to degree 6 with 11 levels", next.degree, next.refine, next.graded, why)
+	}
+	if h.pendingCost > 2 {
+		t.Errorf("the raise's predicted time %.3g s, want its own time, about 1.3 s", h.pendingCost)
+	}
+	// 1.5 s left: the raise (1.3 s, 1.6 with the margin) does not fit,
+	// and the level costs no more than itself.
+	h.pending = kindNone
+	h.deadline = time.Now().Add(1500 * time.Millisecond)
+	if s := h.uniformLookahead(d.p, r, up); s != 0 {
+		t.Errorf("with no time for a raise the level is charged %.3g s more, want 0", s)
+	}
+	if next, why := h.chooseStep(d, r, out); why != "" || next.refine != 3 || next.degree != 4 {
+		t.Errorf("with 1.5 s left: got degree %d, %d uniform levels (%q), want the uniform level", next.degree, next.refine, why)
+	}
+}
+
+// TestRaiseOnTheHPLineGainsAsTheLast: a degree raise that grades with it
+// (the hp line) is predicted to gain at least what the last raise that
+// graded gained, however little grading alone last gained. Made-up
+// history after the 117° trapezoid's measured raise from degree 4 to 6
+// with 4 levels (gain 3,300) and a grading level taken while λ2 was
+// limited away from the corners (gain 1.07): with a corner share of 0.9
+// the split alone predicts the raise to degree 8 with 3 levels at about
+// 3, and the chooser took uniform levels instead.
+func TestRaiseOnTheHPLineGainsAsTheLast(t *testing.T) {
+	d, r, out := trapezoidAtDepth(t)
+	h := d.hist
+	r.degree, r.fluxDegree, r.graded = 6, 5, 11
+	h.degrees |= 1 << 6
+	h.kinds[kindGrade] = kindRecord{tried: true, gain: 1.07, seconds: 0.4, ratio: 1, levels: 1}
+	h.kinds[kindDegree] = kindRecord{tried: true, gain: 3300, seconds: 2.3, ratio: 1, levels: 4, rest: maxRestGain}
+	h.kinds[kindUniform] = measured(6.7)
+	h.share = share{corner: 0.9, ok: true}
+	raised, _ := applyStep(kindDegree, r, nil)
+	raised, _ = onHPLine(d.p, kindDegree, r, raised)
+	if raised.graded != 14 {
+		t.Fatalf("the raise to degree 8 grades to %d, want 14", raised.graded)
+	}
+	if g := h.predictedGain(d.p, kindDegree, r, raised, h.share); g < 3300 {
+		t.Errorf("predicted gain of the raise with 3 levels %.3g, want at least 3300", g)
+	}
+	alone := r
+	alone.degree, alone.fluxDegree = 8, 7
+	if g := h.predictedGain(d.p, kindDegree, r, alone, h.share); g > 10 {
+		t.Errorf("predicted gain of the raise without levels %.3g, want the split's (below 10)", g)
+	}
+	if next, why := h.chooseStep(d, r, out); why != "" || next.degree != 8 || next.graded != 14 || next.refine != 2 {
+		t.Errorf("got degree %d, %d uniform, %d graded levels (%q), want the raise to degree 8 with 14 levels", next.degree, next.refine, next.graded, why)
+	}
+}
