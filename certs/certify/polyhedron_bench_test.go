@@ -18,20 +18,24 @@ import (
 // 300 s; its edges are singular, exponent π/ω with ω = arccos(1/3), and
 // the driver does not grade toward them).
 //
-// Measured on the cube (2 shared cores, 1e-8; CPU time of the whole run
-// 245 s, wall 338 s, peak RSS 1.2 GB), steps of P_p on 96 tetrahedra with
-// RT_p fluxes and N = 4:
+// Measured on the cube (idle machine, certify --rel-width 1e-8 with a
+// 400 s limit; 271 s wall and CPU time, peak RSS 1.25 GB), steps of P_p
+// on 96 tetrahedra with RT_p fluxes and N = 4:
 //
 //	p  stage-A unknowns  λ1       λ2       gap      step (wall)
-//	3  1,440             0.46     0.75     2.3      0.5 s (no N separates)
-//	5  11,904            1.7e-6   2.8e-3   5.6e-3   7 s
-//	7  11,904            3.6e-10  5.7e-6   1.1e-5   28 s
-//	8  96,768            1.5e-11  2.3e-9   4.6e-9   302 s
+//	3  1,440             0.46     0.75     2.3      0.2 s (no N separates)
+//	5  11,904            1.6e-6   2.5e-3   5.0e-3   6.7 s
+//	7  11,904            3.3e-10  5.3e-6   1.1e-5   19.8 s
+//	8  96,768            1.3e-11  2.3e-9   4.5e-9   244 s
 //
-// The regular tetrahedron (measured, same machine, limit 300 s): five
-// steps on the 8 tetrahedra of the refined tetrahedron, the last at P_8
-// with 63,488 stage-A unknowns: λ1 7.7e-7, λ2 2.4e-4, gap 5.2e-4 at 170 s
-// (137 s of CPU); the next step, 64 trial tetrahedra at P_8, did not fit.
+// With the 120 s limit of the benchmark the last step does not fit, and
+// the run stops after the third.
+//
+// The regular tetrahedron (idle machine, limit 300 s): five steps on the
+// 8 tetrahedra of the refined tetrahedron, the last at P_8 with 63,488
+// stage-A unknowns: λ1 7.7e-7, λ2 2.4e-4, gap 5.2e-4 at 128 s (131 s of
+// CPU); the next step, 64 trial tetrahedra at P_8, is predicted not to
+// fit.
 // Its Ritz bounds converge slowly in p (edge singularities, no grading).
 //
 // Before the stage-A counts bounded their residual a priori, the fourth
