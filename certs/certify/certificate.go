@@ -15,25 +15,7 @@ import (
 
 // certificate writes the result as a certificate.
 func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certificate, error) {
-	d := p.Diameter()
-	pi2 := interval.Pi().Sqr()
-	c := &certs.Certificate{
-		Format:        certs.Format,
-		Problem:       json.RawMessage(p.Canonical()),
-		ProblemSHA256: p.SHA256(),
-		Warnings:      res.warnings,
-	}
-	for k, l := range res.lambda {
-		b := certs.NewBound(l, Digits)
-		c.Results.Eigenvalues = append(c.Results.Eigenvalues, certs.Eigen{Index: k + 1, Lower: b.Lower, Upper: b.Upper})
-	}
-	c.Results.Gap = certs.NewBound(res.gap, Digits)
-	c.Results.Diameter = certs.NewBound(d, Digits)
-	c.Results.GapD2OverPi2 = certs.NewBound(res.gap.Mul(d.Sqr()).Div(pi2), Digits)
-	c.Results.RelativeWidths = map[string]string{"gap": fmt.Sprintf("%.3g", res.gapWidth)}
-	for k, w := range res.widths {
-		c.Results.RelativeWidths[fmt.Sprintf("lambda%d", k+1)] = fmt.Sprintf("%.3g", w)
-	}
+	c := res.newCertificate(p)
 	if opt.GroundState {
 		gs, err := groundState(res.groundStateInputs(p))
 		if err != nil {
@@ -46,23 +28,46 @@ func (res *result) certificate(p *problem.Problem, opt Options) (*certs.Certific
 		return nil, err
 	}
 	c.Claims = claims
-	method, err := json.Marshal(res.method())
-	if err != nil {
+	if c.Method, err = json.Marshal(res.method()); err != nil {
 		return nil, err
 	}
-	c.Method = method
+	c.Provenance = provenance(opt)
+	return c, nil
+}
+
+// newCertificate returns the certificate of the result's problem with its
+// results (the enclosures, D and D²·gap/π², the relative widths) and
+// warnings; claims, method and provenance are the caller's.
+func (res *result) newCertificate(p *problem.Problem) *certs.Certificate {
+	d := p.Diameter()
+	c := &certs.Certificate{
+		Format:        certs.Format,
+		Problem:       json.RawMessage(p.Canonical()),
+		ProblemSHA256: p.SHA256(),
+		Warnings:      res.warnings,
+	}
+	for k, l := range res.lambda {
+		b := certs.NewBound(l, Digits)
+		c.Results.Eigenvalues = append(c.Results.Eigenvalues, certs.Eigen{Index: k + 1, Lower: b.Lower, Upper: b.Upper})
+	}
+	c.Results.Gap = certs.NewBound(res.gap, Digits)
+	c.Results.Diameter = certs.NewBound(d, Digits)
+	c.Results.GapD2OverPi2 = certs.NewBound(res.gap.Mul(d.Sqr()).Div(interval.Pi().Sqr()), Digits)
+	c.Results.RelativeWidths = map[string]string{"gap": fmt.Sprintf("%.3g", res.gapWidth)}
+	for k, w := range res.widths {
+		c.Results.RelativeWidths[fmt.Sprintf("lambda%d", k+1)] = fmt.Sprintf("%.3g", w)
+	}
+	return c
+}
+
+// provenance records the tool, the Go version, the platform and the time
+// (opt.Now, or the clock).
+func provenance(opt Options) certs.Provenance {
 	now := time.Now
 	if opt.Now != nil {
 		now = opt.Now
 	}
-	c.Provenance = certs.Provenance{
-		Tool:      opt.Tool,
-		GoVersion: runtime.Version(),
-		OS:        runtime.GOOS,
-		Arch:      runtime.GOARCH,
-		Time:      now().UTC().Format(time.RFC3339),
-	}
-	return c, nil
+	return certs.Provenance{Tool: opt.Tool, GoVersion: runtime.Version(), OS: runtime.GOOS, Arch: runtime.GOARCH, Time: now().UTC().Format(time.RFC3339)}
 }
 
 // groundStateInputs is what the step hands to the ground-state block.

@@ -63,20 +63,9 @@ func Check(data []byte) error {
 	if err := Supported(p); err != nil {
 		return err
 	}
-	for i, c := range cert.Claims {
-		if c.Reference == nil {
-			continue
-		}
-		if _, _, _, err := readRecorded(c.Reference.Certificate); err != nil {
-			return certs.AsFormatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
-		}
-	}
-	var bad []string
-	if got := p.SHA256(); got != cert.ProblemSHA256 {
-		bad = append(bad, fmt.Sprintf("problem_sha256 is %s but the recorded problem hashes to %s (the problem or the hash was edited)", cert.ProblemSHA256, got))
-	}
-	for _, d := range differences("problem", cert.Problem, json.RawMessage(p.Canonical())) {
-		bad = append(bad, "the problem is not written in its canonical form: "+strings.Replace(d, ", recomputed ", ", canonical ", 1))
+	bad, err := checkRecordedProblem(cert, p)
+	if err != nil {
+		return err
 	}
 	r, err := recordedRecipe(p, m)
 	if err != nil {
@@ -116,6 +105,28 @@ func Check(data []byte) error {
 		return &MismatchError{Problems: bad}
 	}
 	return nil
+}
+
+// checkRecordedProblem reads every claim's reference certificate strictly
+// (a format error names the claim) and returns the mismatches of the
+// recorded problem: its hash, and its form against the canonical one.
+// Check and checkProduct start with it.
+func checkRecordedProblem(cert *certs.Certificate, p *problem.Problem) (bad []string, err error) {
+	for i, c := range cert.Claims {
+		if c.Reference == nil {
+			continue
+		}
+		if _, _, _, err := readRecorded(c.Reference.Certificate); err != nil {
+			return nil, certs.AsFormatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
+		}
+	}
+	if got := p.SHA256(); got != cert.ProblemSHA256 {
+		bad = append(bad, fmt.Sprintf("problem_sha256 is %s but the recorded problem hashes to %s (the problem or the hash was edited)", cert.ProblemSHA256, got))
+	}
+	for _, d := range differences("problem", cert.Problem, json.RawMessage(p.Canonical())) {
+		bad = append(bad, "the problem is not written in its canonical form: "+strings.Replace(d, ", recomputed ", ", canonical ", 1))
+	}
+	return bad, nil
 }
 
 // readRecorded reads a certificate, its problem and its method strictly.

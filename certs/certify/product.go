@@ -5,7 +5,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
-	"runtime"
 	"strconv"
 	"time"
 
@@ -564,39 +563,15 @@ func rectangleResult(p *problem.Problem, c *certs.Certificate, targetText string
 
 // certificate writes a product's certificate.
 func (pr *productResult) certificate(p *problem.Problem, opt Options) (*certs.Certificate, error) {
-	res := pr.res
-	d := p.Diameter()
-	c := &certs.Certificate{
-		Format:        certs.Format,
-		Problem:       json.RawMessage(p.Canonical()),
-		ProblemSHA256: p.SHA256(),
-		Warnings:      res.warnings,
-	}
-	for k, l := range res.lambda {
-		b := certs.NewBound(l, Digits)
-		c.Results.Eigenvalues = append(c.Results.Eigenvalues, certs.Eigen{Index: k + 1, Lower: b.Lower, Upper: b.Upper})
-	}
-	c.Results.Gap = certs.NewBound(res.gap, Digits)
-	c.Results.Diameter = certs.NewBound(d, Digits)
-	c.Results.GapD2OverPi2 = certs.NewBound(res.gap.Mul(d.Sqr()).Div(interval.Pi().Sqr()), Digits)
-	c.Results.RelativeWidths = map[string]string{"gap": fmt.Sprintf("%.3g", res.gapWidth)}
-	for k, w := range res.widths {
-		c.Results.RelativeWidths[fmt.Sprintf("lambda%d", k+1)] = fmt.Sprintf("%.3g", w)
-	}
-	claims, err := evaluateClaims(p, res, nil, opt)
+	c := pr.res.newCertificate(p)
+	claims, err := evaluateClaims(p, pr.res, nil, opt)
 	if err != nil {
 		return nil, err
 	}
 	c.Claims = claims
-	method, err := json.Marshal(pr.method)
-	if err != nil {
+	if c.Method, err = json.Marshal(pr.method); err != nil {
 		return nil, err
 	}
-	c.Method = method
-	now := time.Now
-	if opt.Now != nil {
-		now = opt.Now
-	}
-	c.Provenance = certs.Provenance{Tool: opt.Tool, GoVersion: runtime.Version(), OS: runtime.GOOS, Arch: runtime.GOARCH, Time: now().UTC().Format(time.RFC3339)}
+	c.Provenance = provenance(opt)
 	return c, nil
 }

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"slices"
-	"strings"
 
 	"gapcert/certs"
 	"gapcert/fem/problem"
@@ -113,20 +112,9 @@ func checkProduct(cert *certs.Certificate, p *problem.Problem) error {
 	if err != nil {
 		return err
 	}
-	for i, c := range cert.Claims {
-		if c.Reference == nil {
-			continue
-		}
-		if _, _, _, err := readRecorded(c.Reference.Certificate); err != nil {
-			return certs.AsFormatError(fmt.Sprintf("claims[%d].reference.certificate", i), err)
-		}
-	}
-	var bad []string
-	if got := p.SHA256(); got != cert.ProblemSHA256 {
-		bad = append(bad, fmt.Sprintf("problem_sha256 is %s but the recorded problem hashes to %s (the problem or the hash was edited)", cert.ProblemSHA256, got))
-	}
-	for _, d := range differences("problem", cert.Problem, json.RawMessage(p.Canonical())) {
-		bad = append(bad, "the problem is not written in its canonical form: "+strings.Replace(d, ", recomputed ", ", canonical ", 1))
+	bad, err := checkRecordedProblem(cert, p)
+	if err != nil {
+		return err
 	}
 	for i, c := range cs {
 		path := fmt.Sprintf("method.factors[%d].certificate", i)

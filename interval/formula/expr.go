@@ -296,14 +296,21 @@ func (e *Expr) Bind(vals map[string]interval.I) *Expr {
 	for k, v := range vals {
 		consts[k] = constNode(v)
 	}
+	return e.substitute(consts)
+}
+
+// substitute returns e with every variable named in by replaced by the
+// node by[name], all at once (Bind, Rename); unchanged subtrees are
+// shared.
+func (e *Expr) substitute(by map[string]*node) *Expr {
 	var walk func(n *node) *node
 	walk = func(n *node) *node {
 		if n == nil || n.isC {
 			return n
 		}
 		if n.kind == kVar {
-			if c, ok := consts[n.name]; ok {
-				return c
+			if v, ok := by[n.name]; ok {
+				return v
 			}
 			return n
 		}

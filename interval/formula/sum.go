@@ -48,22 +48,5 @@ func (e *Expr) Rename(names map[string]string) *Expr {
 	for old, name := range names {
 		vars[old] = Var(name).root
 	}
-	var walk func(n *node) *node
-	walk = func(n *node) *node {
-		if n == nil || n.isC {
-			return n
-		}
-		if n.kind == kVar {
-			if v, ok := vars[n.name]; ok {
-				return v
-			}
-			return n
-		}
-		a, b := walk(n.a), walk(n.b)
-		if a == n.a && b == n.b {
-			return n
-		}
-		return finish(&node{kind: n.kind, fn: n.fn, a: a, b: b})
-	}
-	return wrap(walk(e.root))
+	return e.substitute(vars)
 }
