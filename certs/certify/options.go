@@ -51,8 +51,16 @@ type BudgetError struct {
 }
 
 func (e *BudgetError) Error() string {
-	return fmt.Sprintf("%s would need about %.1f GiB, more than the memory budget of %.1f GiB (hint: ask for a coarser target or a smaller problem)",
-		e.What, float64(e.Need)/(1<<30), float64(e.Budget)/(1<<30))
+	return fmt.Sprintf("%s would need about %s, more than the memory budget of %s (hint: ask for a coarser target, a smaller problem or a larger budget)",
+		e.What, byteSize(e.Need), byteSize(e.Budget))
+}
+
+// byteSize prints a size in GiB from 1 GiB up, else in MiB, to one decimal.
+func byteSize(b int64) string {
+	if b >= 1<<30 {
+		return fmt.Sprintf("%.1f GiB", float64(b)/(1<<30))
+	}
+	return fmt.Sprintf("%.1f MiB", float64(b)/(1<<20))
 }
 
 // DefaultMemory is the memory budget when Options.Memory is 0.

@@ -32,6 +32,7 @@ type certifyFlags struct {
 	plotDir     string
 	slice       string // certify only: the plane of the pictures of a three-dimensional domain
 	groundState bool
+	memory      memoryLimitFlag
 }
 
 func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
@@ -42,6 +43,7 @@ func (f *certifyFlags) register(cmd *cobra.Command, defaultOut string) {
 	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
 	cmd.Flags().BoolVar(&f.strict, "strict", false, "exit with status 4 when the target width is not reached (the certificate is written either way)")
 	cmd.Flags().BoolVar(&f.groundState, "ground-state", false, "also certify the ground state: log-concave or not (with a witness), the L2 error of the approximate ground state, and its values at the problem's \"points\" (results.ground_state)")
+	f.memory.register(cmd, memoryLimitUsage)
 	cmd.Flags().StringVar(&f.plotDir, "plot", "", "also draw the mesh (a polyhedron: the solid) and the first two approximate eigenfunctions (3D: on a slice) with the certified enclosures, PNG and SVG, into this directory; the eigenfunctions are approximations, not part of the proof")
 }
 
@@ -80,9 +82,10 @@ A certificate is written to a temporary file and renamed, so an earlier
 file at the same path stays intact until the new one is complete.
 
 Exit status: 0 on success, 1 on a failure or a bad option (--rel-width
-below 1e-15 or not below 1, --time-limit not positive), 2 if the problem
-file is invalid (its own target below 1e-15 included) or its first mesh
-would exceed the memory budget, 4 with --strict when the target was not
+below 1e-15 or not below 1, --time-limit not positive, --memory-limit
+not a size from 16MiB up), 2 if the problem file is invalid (its own
+target below 1e-15 included) or its first mesh would exceed the memory
+budget (--memory-limit, default 16GiB), 4 with --strict when the target was not
 reached, 130 when interrupted.
 
 With --plot DIR the pictures are drawn into DIR after the certificate is
@@ -133,6 +136,10 @@ func runCertify(cmd *cobra.Command, p *problem.Problem, f certifyFlags, out stri
 	if f.timeLimit <= 0 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration (hint: --time-limit 60s)", f.timeLimit)}
 	}
+	if err := f.memory.parse(); err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	opt.Memory = f.memory.bytes
 	if p.IsProduct() && f.groundState {
 		return &exitError{code: exitInvalid, err: errors.New("--ground-state is not available on product domains yet (hint: certify without it)")}
 	}

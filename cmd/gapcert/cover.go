@@ -25,6 +25,7 @@ type coverFlags struct {
 	jobs     int
 	quiet    bool
 	progress bool
+	memory   memoryLimitFlag
 }
 
 func newCoverCmd() *cobra.Command {
@@ -75,6 +76,7 @@ not verify (left in place).`,
 	cmd.Flags().IntVarP(&f.jobs, "jobs", "j", 1, "corners certified at a time")
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
 	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
+	f.memory.register(cmd, "memory budget of each corner's certification (see certify --memory-limit; default 16GiB)")
 	_ = cmd.MarkFlagRequired("out")
 	return cmd
 }
@@ -83,7 +85,10 @@ func runCover(cmd *cobra.Command, file string, f coverFlags) error {
 	if f.jobs < 1 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--jobs %d: want at least 1", f.jobs)}
 	}
-	opt := cover.RunOptions{FamilyName: filepath.Base(file), Jobs: f.jobs, Tool: "gapcert " + Version}
+	if err := f.memory.parse(); err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	opt := cover.RunOptions{FamilyName: filepath.Base(file), Jobs: f.jobs, Tool: "gapcert " + Version, Memory: f.memory.bytes}
 	if f.shard != "" {
 		s, err := sweep.ParseShard(f.shard)
 		if err != nil {

@@ -28,6 +28,7 @@ type sweepFlags struct {
 	quiet     bool
 	progress  bool
 	strict    bool
+	memory    memoryLimitFlag
 }
 
 func newSweepCmd() *cobra.Command {
@@ -74,6 +75,7 @@ target width (the points are listed).`,
 	cmd.Flags().BoolVarP(&f.quiet, "quiet", "q", false, "no progress lines on stderr")
 	cmd.Flags().BoolVar(&f.progress, "progress", false, "progress lines on stderr also when it is not a terminal (--quiet wins)")
 	cmd.Flags().BoolVar(&f.strict, "strict", false, "exit with status 4 when a point's certificate misses its target width")
+	f.memory.register(cmd, "memory budget of each point's certification (see certify --memory-limit; default 16GiB)")
 	_ = cmd.MarkFlagRequired("out")
 	return cmd
 }
@@ -93,6 +95,10 @@ func runSweep(cmd *cobra.Command, file string, f sweepFlags) error {
 	if f.timeLimit < 0 {
 		return &exitError{code: exitFailure, err: fmt.Errorf("--time-limit %v: want a positive duration", f.timeLimit)}
 	}
+	if err := f.memory.parse(); err != nil {
+		return &exitError{code: exitFailure, err: err}
+	}
+	opt.Memory = f.memory.bytes
 	if f.relWidth != "" {
 		if _, err := certify.ParseTarget(f.relWidth); err != nil {
 			return &exitError{code: exitFailure, err: fmt.Errorf("--rel-width: %v", err)}
