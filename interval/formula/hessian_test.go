@@ -133,3 +133,39 @@ func TestPolynomial(t *testing.T) {
 	}
 
 }
+
+// TestHessianEvenPowersKeepSign: squaring in the jets (powInt) encloses
+// each coefficient of u² by one product per unordered pair and u_a² by
+// interval Sqr, so even powers keep their sign on boxes around 0. Exact
+// ranges by calculus (common practice): ∂²/∂x² x⁴ = 12x² ∈ [0, 12] on
+// [−1, 1]; ∂²/∂x² x⁶ = 30x⁴ ∈ [0, 30·(1/2)⁴] on [−1/2, 1/2]; ∂²/∂x² of
+// (x + y)⁴ is 12(x + y)² ∈ [0, 48] on [−1, 1]²; the mixed entry of
+// x²y² is 4xy ∈ [−4, 4].
+func TestHessianEvenPowersKeepSign(t *testing.T) {
+	for _, c := range []struct {
+		src    string
+		box    I
+		i, j   int
+		lo, hi float64 // the exact range of the entry
+		slack  float64 // the enclosure may exceed it by this much at most
+	}{
+		{"x^4", I{Lo: -1, Hi: 1}, 0, 0, 0, 12, 0},
+		{"x^4+y^4", I{Lo: -1, Hi: 1}, 1, 1, 0, 12, 0},
+		{"x^6", I{Lo: -0.5, Hi: 0.5}, 0, 0, 0, 30.0 / 16, 0},
+		{"(x+y)^4", I{Lo: -1, Hi: 1}, 0, 0, 0, 48, 0},
+		{"x^2*y^2", I{Lo: -1, Hi: 1}, 0, 1, -4, 4, 0},
+		{"x^4", I{Lo: 0.5, Hi: 1}, 0, 0, 3, 12, 1e-12},
+	} {
+		h, err := MustParse(c.src).Hessian(map[string]I{"x": c.box, "y": c.box}, []string{"x", "y"})
+		if err != nil {
+			t.Fatalf("%s: %v", c.src, err)
+		}
+		got := h[c.i][c.j]
+		if !(got.Lo <= c.lo && c.hi <= got.Hi) {
+			t.Errorf("%s: H[%d][%d] = %v misses the exact range [%g, %g]", c.src, c.i, c.j, got, c.lo, c.hi)
+		}
+		if got.Lo < c.lo-c.slack || got.Hi > c.hi+c.slack {
+			t.Errorf("%s: H[%d][%d] = %v, wider than the exact range [%g, %g]", c.src, c.i, c.j, got, c.lo, c.hi)
+		}
+	}
+}

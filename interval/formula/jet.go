@@ -124,6 +124,11 @@ type jetEval struct {
 	// closed sign).
 	closed bool
 
+	// derivatives marks jets of Gradient and Hessian, whose integer powers
+	// are taken by the chain rule (powChain) so that even powers keep
+	// their sign.
+	derivatives bool
+
 	// forced holds branches of abs, min and max nodes decided on the
 	// whole triangle of a Model2 (kinkBranches): on the triangle f equals
 	// the function with these branches, which is smooth wherever its
@@ -197,6 +202,48 @@ func (c *jetEval) mul(u, v []interval.I) []interval.I {
 	h := c.zero()
 	for k := 0; k <= c.l.q; k++ {
 		c.acc(h, u, v, k, 0, k, false)
+	}
+	return h
+}
+
+// powChain returns the jet of u^n, n ≥ 0, for jets of order ≤ 2 by the
+// chain rule (Faà di Bruno at order two; common practice calculus): with
+// f(s) = s^n and u = u₀ + Σ u_i t_i + Σ u_ij t_i t_j + …,
+//
+//	f(u) = f(u₀) + f′(u₀)(Σ u_i t_i + Σ u_ij t_i t_j) + ½f″(u₀)(Σ u_i t_i)² + O(t³),
+//
+// f′(u₀) = n·u₀^(n−1) and ½f″(u₀) = n(n−1)/2·u₀^(n−2) enclosed by
+// interval.PowInt (even powers never negative), the square's diagonal
+// coefficients u_i² by interval Sqr and its others by 2·u_i·u_j. Repeated
+// multiplication (powInt) encloses the same coefficients, but through
+// products like x·x on a box around 0 that lose the sign: on [−1, 1] it
+// gives ∂²x⁴/∂x² ∈ [−12, 12], this [0, 12]. Used for Gradient and Hessian,
+// whose signs decide convexity; models of values keep powInt.
+func (c *jetEval) powChain(u []interval.I, n int) []interval.I {
+	l := c.l
+	h := c.zero()
+	u0 := u[0]
+	h[0] = u0.PowInt(n)
+	if n == 0 || l.q == 0 {
+		return h
+	}
+	d1 := u0.PowInt(n - 1).MulF(float64(n))
+	for a := l.off[1]; a < l.off[l.q+1]; a++ {
+		h[a] = d1.Mul(u[a])
+	}
+	if l.q < 2 || n < 2 {
+		return h
+	}
+	d2 := u0.PowInt(n - 2).Mul(interval.Point(float64(n)).MulF(float64(n - 1)).MulF(0.5))
+	for a := l.off[1]; a < l.off[2]; a++ {
+		row := l.mul[a*l.m:]
+		for b := a; b < l.off[2]; b++ {
+			sq := u[a].Sqr()
+			if b != a {
+				sq = u[a].Mul(u[b]).MulF(2)
+			}
+			h[row[b]] = h[row[b]].Add(d2.Mul(sq))
+		}
 	}
 	return h
 }
@@ -440,6 +487,9 @@ func (c *jetEval) pow(n *node) ([]interval.I, error) {
 		return nil, err
 	}
 	if n.intExp >= 0 {
+		if c.derivatives && c.l.q <= 2 {
+			return c.powChain(u, n.intExp), nil
+		}
 		return c.powInt(u, n.intExp), nil
 	}
 	if r := n.b.rat; r != nil && r.IsInt() && r.Sign() < 0 && r.Num().CmpAbs(bigMaxIntPow) <= 0 {

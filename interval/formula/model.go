@@ -372,6 +372,8 @@ func (e *Expr) derivJets(env map[string]interval.I, vars []string, order int) ([
 		}
 		j[l.off[1]+i] = interval.Point(1)
 	}
-	h, err := newJetEval(l, jv).eval(e.root)
+	c := newJetEval(l, jv)
+	c.derivatives = true
+	h, err := c.eval(e.root)
 	return h, l, err
 }
