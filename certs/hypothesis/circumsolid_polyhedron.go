@@ -96,6 +96,11 @@ func Circumsolid(p *problem.Problem) certs.Hypothesis {
 		}
 		return undecidedAt(h, fmt.Sprintf(why, s.undecided, basis))
 	}
+	if len(ph.Faces) == 4 {
+		// No equation beyond the four of the basis: nothing was decided,
+		// exactly or by enclosures (common practice geometry).
+		return proven(h, fmt.Sprintf("a tetrahedron, and every tetrahedron has a ball tangent to the planes of its four faces inside it; its radius 3·volume/surface area ∈ %v", insphereRadius(ph)))
+	}
 	return proven(h, fmt.Sprintf("convex, and %s is tangent to the planes of all %d faces (decided exactly); its radius 3·volume/surface area ∈ %v", basis, len(ph.Faces), insphereRadius(ph)))
 }
 

@@ -157,4 +157,15 @@ func TestCircumsolidEnclosedCoordinates(t *testing.T) {
 	requireVerdict(t, "box with exp(0)", h, certs.Disproven)
 	h, _ = Decide(CircumsolidProduct, p)
 	requireVerdict(t, "box with exp(0): product", h, certs.Undecided)
+
+	// Every tetrahedron has an inscribed ball (common practice geometry):
+	// proven with enclosed coordinates too, and the detail says why
+	// rather than claiming an exact decision.
+	tetra := `{"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["0","1","0"],["0","0","exp(1)"]], "faces": [[0,2,1],[0,1,3],[0,3,2],[1,2,3]]}}`
+	p = parse(t, problemText(tetra, "0", `"dirichlet"`))
+	h, _ = Decide(CircumsolidPolyhedron, p)
+	requireVerdict(t, "tetrahedron with exp(1)", h, certs.Proven)
+	if !strings.Contains(h.Detail, "every tetrahedron has a ball") || strings.Contains(h.Detail, "decided exactly") {
+		t.Errorf("tetrahedron with exp(1): detail %q", h.Detail)
+	}
 }

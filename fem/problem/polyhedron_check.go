@@ -3,6 +3,7 @@ package problem
 import (
 	"fmt"
 	"math/big"
+	"slices"
 	"sort"
 )
 
@@ -553,6 +554,8 @@ func signedVolume6(pts []vec3, geo []faceGeometry) xnum {
 // convex, near a point of the relative interior of f, P is the inner side
 // of f's plane; the segments from a vertex strictly on the outer side to
 // the points of P there would put points of the outer side near f into P.
+// The vertices of f itself lie on its plane (checkFace proved each face
+// planar), so only the others are tested.
 //
 // The verdict "not convex" comes with its witness: a vertex strictly on
 // the outer side of a face's plane.
@@ -566,6 +569,9 @@ func convexity(pts []vec3, faces [][]int, geo []faceGeometry) (verdict string, v
 			ne[c] = xnum{v: n[c].enclose()}
 		}
 		for k, q := range pts {
+			if slices.Contains(f, k) {
+				continue // on the plane: checkFace proved every face planar
+			}
 			s, ok := encl[k].sub(encl[f[0]]).dot(ne).sign()
 			if !ok {
 				s, ok = q.sub(v0).dot(n).sign()
