@@ -4,6 +4,7 @@ import (
 	"context"
 	"regexp"
 	"strconv"
+	"strings"
 	"testing"
 	"time"
 )
@@ -11,10 +12,11 @@ import (
 // TestMemoryStopWarningStatesSizes: a run stopped by the memory budget
 // warns with the next step's estimate and the budget in the units of
 // BudgetError (MiB below 1 GiB), so that a budget of tens of MiB never
-// reads "about 0.0 GiB". The Dirichlet cube's first step does not reach
-// 1e-6 and its next step refines stage A once (see
-// TestPolyhedronStopsAtMemoryBudget); the budget lies between the two
-// estimates.
+// reads "about 0.0 GiB", and the warning on wide enclosures names
+// --memory-limit. The Dirichlet cube's first step does not reach 1e-6;
+// the budget lies between its estimate and that of the same recipe with
+// stage A refined once, which the loop's next recipe does not undercut
+// (see TestPolyhedronStopsAtMemoryBudget).
 func TestMemoryStopWarningStatesSizes(t *testing.T) {
 	p := parseProblem(t, cubePolyhedron("dirichlet", "0"))
 	r := firstRecipe(t, p)
@@ -49,5 +51,10 @@ func TestMemoryStopWarningStatesSizes(t *testing.T) {
 	}
 	if !found {
 		t.Errorf("warnings %q, want the next step's need and the budget", c.Warnings)
+	}
+	// The gap's enclosure contains 0 after the first step: its warning
+	// names the option that raises the budget, as the time limit's does.
+	if !strings.Contains(strings.Join(c.Warnings, "\n"), "a larger memory budget (--memory-limit) lets refinement continue") {
+		t.Errorf("warnings %q do not name --memory-limit", c.Warnings)
 	}
 }
