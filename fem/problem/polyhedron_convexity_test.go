@@ -102,10 +102,8 @@ func ringBipyramid(rng *rand.Rand, m int) ([][3]*big.Rat, [][]int) {
 		// t = tan(θ/2), θ = 2π(k + jitter)/m, chosen as a rational near it.
 		theta := 2 * math.Pi * (float64(k) + 0.3*rng.Float64()) / float64(m)
 		tf := math.Tan(theta / 2)
+		tf = math.Max(-1<<20, math.Min(tf, 1<<20)) // θ near π: a direction near (−1, 0)
 		t := new(big.Rat).SetFrac64(int64(tf*64), 64)
-		if tf > 1e6 || tf < -1e6 {
-			t.SetInt64(1 << 20)
-		}
 		t2 := new(big.Rat).Mul(t, t)
 		den := new(big.Rat).Add(big.NewRat(1, 1), t2)
 		c := new(big.Rat).Quo(new(big.Rat).Sub(big.NewRat(1, 1), t2), den)
