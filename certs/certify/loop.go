@@ -184,8 +184,8 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			}
 			break
 		}
-		if memoryEstimate(p, next) > budget {
-			best.warnings = append(best.warnings, fmt.Sprintf("the next refinement would need about %.1f GiB, more than the memory budget", float64(memoryEstimate(p, next))/(1<<30)))
+		if need := memoryEstimate(p, next); need > budget {
+			best.warnings = append(best.warnings, fmt.Sprintf("the next refinement would need about %s, more than the memory budget of %s", byteSize(need), byteSize(budget)))
 			reason = StopMemory
 			break
 		}

@@ -79,7 +79,7 @@ func wideWarnings(p *problem.Problem, res *result, reason string) []string {
 	case StopTime:
 		help = "a longer time limit (--time-limit) lets refinement continue"
 	case StopMemory:
-		help = "a larger memory budget (Options.Memory) lets refinement continue"
+		help = "a larger memory budget (--memory-limit) lets refinement continue"
 	case StopInterrupted:
 		help = "let the run finish"
 	default:
