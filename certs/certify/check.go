@@ -52,9 +52,20 @@ func (e *MismatchError) Error() string {
 // listing every differing field by its path, a *BudgetError if the
 // recomputation would exceed the memory budget, or another error if the
 // certificate cannot be read or recomputed.
-func Check(data []byte) error {
+func Check(data []byte) error { return CheckWithin(data, 0) }
+
+// CheckWithin is Check with a memory budget of memory bytes for the
+// recomputation (DefaultMemory when 0), so that a certificate made with a
+// larger Options.Memory can be re-verified on a machine that has it; a
+// recipe whose estimate exceeds the budget is refused (*BudgetError)
+// before anything is allocated. The budget only bounds the work: a
+// certificate verifies under any budget that admits its recipe.
+func CheckWithin(data []byte, memory int64) error {
+	if memory == 0 {
+		memory = DefaultMemory
+	}
 	if cert, p, ok := productCertificate(data); ok {
-		return checkProduct(cert, p)
+		return checkProduct(cert, p, memory)
 	}
 	cert, p, m, err := readRecorded(data)
 	if err != nil {
@@ -71,8 +82,8 @@ func Check(data []byte) error {
 	if err != nil {
 		return err
 	}
-	if est := memoryEstimate(p, r); est > DefaultMemory {
-		return &BudgetError{What: "recomputing this certificate", Need: est, Budget: DefaultMemory}
+	if est := memoryEstimate(p, r); est > memory {
+		return &BudgetError{What: "recomputing this certificate", Need: est, Budget: memory}
 	}
 	out, err := compute(p, r)
 	if err != nil {

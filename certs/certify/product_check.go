@@ -103,7 +103,7 @@ func recordedFactors(p *problem.Problem, m ProductMethod) ([]*certs.Certificate,
 // method must equal the recomputation field for field, and the refinement
 // record must say "target reached" exactly when the recomputed widths meet
 // its target.
-func checkProduct(cert *certs.Certificate, p *problem.Problem) error {
+func checkProduct(cert *certs.Certificate, p *problem.Problem, memory int64) error {
 	m, err := decodeProductMethod(cert.Method)
 	if err != nil {
 		return err
@@ -122,7 +122,7 @@ func checkProduct(cert *certs.Certificate, p *problem.Problem) error {
 			bad = append(bad, fmt.Sprintf("%s certifies another problem than factor %d of the recorded product, %s", path, i, subs[i].Canonical()))
 			continue
 		}
-		err := Check(m.Factors[i].Certificate)
+		err := CheckWithin(m.Factors[i].Certificate, memory)
 		var mm *MismatchError
 		switch {
 		case errors.As(err, &mm):

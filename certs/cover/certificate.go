@@ -181,11 +181,13 @@ func (f *Family) buildCell(b Box, low, high corner, lowSHA, highSHA string, prov
 // one goroutine at a time per file (the engine calls it so).
 type CornerVerifier struct {
 	verified map[string]*certs.Certificate // by certificate SHA-256
+	memory   int64                         // budget of each recomputation
 }
 
-// NewCornerVerifier returns an empty verifier.
-func NewCornerVerifier() *CornerVerifier {
-	return &CornerVerifier{verified: map[string]*certs.Certificate{}}
+// NewCornerVerifier returns an empty verifier whose recomputations have
+// the memory budget memory (certify.CheckWithin; 0: certify.DefaultMemory).
+func NewCornerVerifier(memory int64) *CornerVerifier {
+	return &CornerVerifier{verified: map[string]*certs.Certificate{}, memory: memory}
 }
 
 // Verify reads and verifies one corner certificate file.
@@ -211,7 +213,7 @@ func (v *CornerVerifier) Verify(path, sha, problemSHA256 string) (*certs.Certifi
 	if c.ProblemSHA256 != problemSHA256 {
 		return nil, "", fmt.Errorf("%s records problem %s, not %s", filepath.Base(path), c.ProblemSHA256, problemSHA256)
 	}
-	if err := certify.Check(data); err != nil {
+	if err := certify.CheckWithin(data, v.memory); err != nil {
 		return nil, "", fmt.Errorf("%s does not verify: %v", filepath.Base(path), err)
 	}
 	v.verified[got] = c
@@ -248,7 +250,7 @@ func CheckCell(data []byte, dir string, v *CornerVerifier) (*Cell, *Family, erro
 		return nil, nil, err
 	}
 	if v == nil {
-		v = NewCornerVerifier()
+		v = NewCornerVerifier(0)
 	}
 	var mm []string
 	if sha256Hex([]byte(c.Family)) != c.FamilySHA256 {

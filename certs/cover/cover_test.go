@@ -202,7 +202,7 @@ func TestCellEnclosesEveryPoint(t *testing.T) {
 func pointsInsideCells(t *testing.T, f *Family, n int, seed int64) {
 	dir := t.TempDir()
 	rng := rand.New(rand.NewSource(seed))
-	e := &engine{f: f, dir: dir, opt: testOptions(), verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}}
+	e := &engine{f: f, dir: dir, opt: testOptions(), verifier: NewCornerVerifier(0), corners: map[string]*cornerEntry{}}
 	box := f.Box()
 	for i := 0; i < n; i++ {
 		var b Box
@@ -354,7 +354,7 @@ func TestMergeOfShards(t *testing.T) {
 		}
 	}
 	out := t.TempDir()
-	s, err := Merge([]string{d0, d1}, out, nil)
+	s, err := Merge([]string{d0, d1}, out, MergeOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -370,7 +370,7 @@ func TestMergeOfShards(t *testing.T) {
 	if err := os.WriteFile(cells[0], []byte(edited), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	_, err = Merge([]string{d0, d1}, t.TempDir(), nil)
+	_, err = Merge([]string{d0, d1}, t.TempDir(), MergeOptions{})
 	var me *MergeError
 	if !errors.As(err, &me) || !strings.Contains(err.Error(), IssueTampered) || !strings.Contains(err.Error(), IssueGap) {
 		t.Fatalf("edited cell: error %v, want tampered and uncovered", err)
@@ -378,7 +378,7 @@ func TestMergeOfShards(t *testing.T) {
 	if err := os.Remove(cells[0]); err != nil {
 		t.Fatal(err)
 	}
-	_, err = Merge([]string{d0, d1}, t.TempDir(), nil)
+	_, err = Merge([]string{d0, d1}, t.TempDir(), MergeOptions{})
 	if !errors.As(err, &me) || !strings.Contains(err.Error(), IssueGap) {
 		t.Fatalf("missing cell: error %v, want uncovered", err)
 	}

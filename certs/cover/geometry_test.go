@@ -108,7 +108,7 @@ func TestGeometryCellEnclosesEveryPoint(t *testing.T) {
 func closedFormCell(t *testing.T, family string, b Box) (*Family, corner, map[string]interval.I, map[string]string) {
 	t.Helper()
 	f := mustFamily(t, family)
-	e := &engine{f: f, dir: t.TempDir(), opt: testOptions(), verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}}
+	e := &engine{f: f, dir: t.TempDir(), opt: testOptions(), verifier: NewCornerVerifier(0), corners: map[string]*cornerEntry{}}
 	if err := e.certifyCorners([]Box{b}); err != nil {
 		t.Fatal(err)
 	}

@@ -156,6 +156,15 @@ func interiorsMeet(a, b Box) bool {
 	return true
 }
 
+// MergeOptions are the options of Merge: Progress receives a line per
+// cell certificate verified or rebuilt (nil: none), Memory is the memory
+// budget of each recomputation of a corner certificate
+// (certify.CheckWithin; 0: certify.DefaultMemory).
+type MergeOptions struct {
+	Progress func(format string, args ...any)
+	Memory   int64
+}
+
 // Merge gathers the cell certificates of the cover directories dirs (the
 // outputs of Run, in any split into shards), verifies each (CheckCell,
 // with the corner files of its own directory), proves that the cells tile
@@ -167,7 +176,8 @@ func interiorsMeet(a, b Box) bool {
 // files, a certificate that does not verify, cells that overlap, leave a
 // gap, or are not leaves of the bisection trees — is listed in a
 // *MergeError and nothing is written. outDir may be one of dirs.
-func Merge(dirs []string, outDir string, progress func(format string, args ...any)) (*Summary, error) {
+func Merge(dirs []string, outDir string, opt MergeOptions) (*Summary, error) {
+	progress := opt.Progress
 	if len(dirs) == 0 {
 		return nil, errors.New("no cover directories to merge")
 	}
@@ -199,7 +209,7 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 		box       Box
 	}
 	var cells []found
-	verifier := NewCornerVerifier()
+	verifier := NewCornerVerifier(opt.Memory)
 	famName := FamilyFileName
 	for _, dir := range dirs {
 		entries, err := os.ReadDir(dir)

@@ -41,7 +41,7 @@ func TestMergeOfShardsWithOwnCornerCertificates(t *testing.T) {
 		t.Fatal("the shards share no corner certified with different bytes; the test does not test anything")
 	}
 	for _, out := range []string{t.TempDir(), d1} {
-		if _, err := Merge([]string{d0, d1}, out, nil); err != nil {
+		if _, err := Merge([]string{d0, d1}, out, MergeOptions{}); err != nil {
 			t.Fatal(err)
 		}
 		for _, p := range mustGlob(t, filepath.Join(out, "cell-*"+cellSuffix)) {
@@ -50,7 +50,7 @@ func TestMergeOfShardsWithOwnCornerCertificates(t *testing.T) {
 				t.Errorf("merged into %s: %s does not verify: %v", out, filepath.Base(p), err)
 			}
 		}
-		if _, err := Merge([]string{out}, t.TempDir(), nil); err != nil {
+		if _, err := Merge([]string{out}, t.TempDir(), MergeOptions{}); err != nil {
 			t.Errorf("merge of the merged directory: %v", err)
 		}
 		if out == d1 {

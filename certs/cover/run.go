@@ -76,7 +76,7 @@ func Run(f *Family, dir string, opt RunOptions) (*Summary, error) {
 	if err := prepareDir(dir, f, base); err != nil {
 		return nil, err
 	}
-	e := &engine{f: f, dir: dir, opt: opt, verifier: NewCornerVerifier(), corners: map[string]*cornerEntry{}, usedCorners: map[string]bool{}}
+	e := &engine{f: f, dir: dir, opt: opt, verifier: NewCornerVerifier(opt.Memory), corners: map[string]*cornerEntry{}, usedCorners: map[string]bool{}}
 	if err := e.indexCells(); err != nil {
 		return nil, err
 	}

@@ -281,7 +281,7 @@ func TestReadSweep(t *testing.T) {
 		}
 	}
 	merged := filepath.Join(root, "merged")
-	if _, err := sweep.Merge(shards, merged, nil); err != nil {
+	if _, err := sweep.Merge(shards, merged, sweep.MergeOptions{}); err != nil {
 		t.Fatal(err)
 	}
 	for _, c := range []struct {

@@ -162,7 +162,7 @@ func TestGroundStateSweep(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	_, err = Merge([]string{bare}, t.TempDir(), nil)
+	_, err = Merge([]string{bare}, t.TempDir(), MergeOptions{})
 	var me *MergeError
 	if !errors.As(err, &me) || me.Issues[0].Kind != IssueNoGround || me.Issues[0].Index != 0 {
 		t.Errorf("merge of a certificate without ground_state: %v, want an %s issue at point 0", err, IssueNoGround)
@@ -200,7 +200,7 @@ func TestGroundStateSweep(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	_, err = Merge([]string{edited}, t.TempDir(), nil)
+	_, err = Merge([]string{edited}, t.TempDir(), MergeOptions{})
 	if !errors.As(err, &me) || me.Issues[0].Kind != IssueTampered || me.Issues[0].Index != 0 || !strings.Contains(me.Issues[0].Msg, "ground_state") {
 		t.Errorf("merge of an edited verdict: %v, want a tampered issue at point 0 naming ground_state", err)
 	}
@@ -226,7 +226,7 @@ func TestGroundStateSweep(t *testing.T) {
 	}
 
 	// Merge re-verifies and keeps the blocks.
-	merged, err := Merge([]string{dir}, filepath.Join(t.TempDir(), "merged"), nil)
+	merged, err := Merge([]string{dir}, filepath.Join(t.TempDir(), "merged"), MergeOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -67,6 +67,14 @@ func (e *MergeError) Error() string {
 	return strings.Join(lines, "\n")
 }
 
+// MergeOptions are the options of Merge: Progress receives a line per
+// certificate file with its verdict (nil: none), Memory is the memory budget of
+// each recomputation (certify.CheckWithin; 0: certify.DefaultMemory).
+type MergeOptions struct {
+	Progress func(format string, args ...any)
+	Memory   int64
+}
+
 // Merge gathers the certificates of the sweep directories dirs (outputs of
 // Run, in any split into shards), checks that they form the whole family
 // and makes outDir a sweep directory of the whole family that stands
@@ -91,7 +99,8 @@ func (e *MergeError) Error() string {
 // through a temporary file and a rename), the summary last, so a summary
 // in outDir means that every file it names is there. Certificates are
 // checked on GOMAXPROCS goroutines.
-func Merge(dirs []string, outDir string, progress func(format string, args ...any)) (*Summary, error) {
+func Merge(dirs []string, outDir string, opt MergeOptions) (*Summary, error) {
+	progress := opt.Progress
 	if len(dirs) == 0 {
 		return nil, errors.New("no sweep directories to merge")
 	}
@@ -133,7 +142,7 @@ func Merge(dirs []string, outDir string, progress func(format string, args ...an
 	}
 	checked := make([]checkedFile, len(paths))
 	parallel(len(paths), runtime.GOMAXPROCS(0), func(i int) {
-		checked[i].point, checked[i].issue = mergeFile(f, paths[i])
+		checked[i].point, checked[i].issue = mergeFile(f, paths[i], opt.Memory)
 	})
 	var issues []MergeIssue
 	found := map[int][]string{}
@@ -338,7 +347,7 @@ func commonFamily(dirs []string) (*Family, string, error) {
 
 // mergeFile checks one certificate file against the family and returns its
 // point, or the issue that disqualifies it.
-func mergeFile(f *Family, path string) (*Point, *MergeIssue) {
+func mergeFile(f *Family, path string, memory int64) (*Point, *MergeIssue) {
 	name := filepath.Base(path)
 	index, prefix, ok := parseCertFileName(name)
 	if !ok {
@@ -363,7 +372,7 @@ func mergeFile(f *Family, path string) (*Point, *MergeIssue) {
 	if cert.ProblemSHA256 != hash {
 		return nil, &MergeIssue{Kind: IssueForeign, Index: -1, File: path, Msg: fmt.Sprintf("records problem %s, not point %d of the family (%s)", cert.ProblemSHA256, index, hash)}
 	}
-	if err := certify.Check(data); err != nil {
+	if err := certify.CheckWithin(data, memory); err != nil {
 		return nil, &MergeIssue{Kind: IssueTampered, Index: index, File: path, Msg: oneLine(err)}
 	}
 	if f.GroundState && cert.Results.GroundState == nil {

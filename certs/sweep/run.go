@@ -234,7 +234,7 @@ func (r *runner) point(pt *FamilyPoint) Point {
 	data, err := os.ReadFile(path)
 	switch {
 	case err == nil:
-		cert, why := verifyFor(data, hash, r.f.GroundState)
+		cert, why := verifyFor(data, hash, r.f.GroundState, r.opt.Memory)
 		if why == "" {
 			p.Status = StatusReused
 			p.RelWidth = r.widths[sha256Hex(data)]
@@ -274,9 +274,10 @@ func (r *runner) point(pt *FamilyPoint) Point {
 // verifyFor checks a certificate file of the point with problem hash
 // hash: it must verify (certify.Check), record that problem and, when
 // groundState is set, hold results.ground_state. It returns the
-// certificate, or why it is not acceptable.
-func verifyFor(data []byte, hash string, groundState bool) (*certs.Certificate, string) {
-	if err := certify.Check(data); err != nil {
+// certificate, or why it is not acceptable. memory is the budget of the
+// recomputation (certify.CheckWithin).
+func verifyFor(data []byte, hash string, groundState bool, memory int64) (*certs.Certificate, string) {
+	if err := certify.CheckWithin(data, memory); err != nil {
 		return nil, "does not verify (" + oneLine(err) + ")"
 	}
 	cert, err := certs.Unmarshal(data)
@@ -360,7 +361,7 @@ func (r *runner) refine(p *Point, pt *FamilyPoint, path string) {
 			return
 		}
 		fresh, freshCert, err := r.certify(pt, target)
-		if err != nil || certify.Check(fresh) != nil || freshCert.ProblemSHA256 != p.ProblemSHA256 {
+		if err != nil || certify.CheckWithin(fresh, r.opt.Memory) != nil || freshCert.ProblemSHA256 != p.ProblemSHA256 {
 			return
 		}
 		if err := writeNew(path, fresh, true); err != nil {

@@ -60,7 +60,7 @@ func TestMergeRefusesTamperedKeys(t *testing.T) {
 		if err := os.WriteFile(path, edited, 0o644); err != nil {
 			t.Fatal(err)
 		}
-		_, err := Merge([]string{dir}, out, nil)
+		_, err := Merge([]string{dir}, out, MergeOptions{})
 		var me *MergeError
 		if !errors.As(err, &me) || len(me.Issues) == 0 || me.Issues[0].Kind != IssueTampered || !strings.Contains(me.Issues[0].Msg, v.Path+": ") {
 			t.Errorf("%s: error %v, want a tampered certificate at %s (a Python reader sees %s)", v.Name, err, v.Path, v.Seen)
@@ -72,7 +72,7 @@ func TestMergeRefusesTamperedKeys(t *testing.T) {
 	if err := os.WriteFile(path, good, 0o644); err != nil {
 		t.Fatal(err)
 	}
-	if _, err := Merge([]string{dir}, out, nil); err != nil {
+	if _, err := Merge([]string{dir}, out, MergeOptions{}); err != nil {
 		t.Errorf("the untampered certificate: %v", err)
 	}
 }

@@ -126,7 +126,7 @@ func TestShardsMergeEqualsWhole(t *testing.T) {
 			t.Errorf("shard %d/4 has %d points, want %d", i, len(s.Points), want)
 		}
 	}
-	merged, err := Merge(dirs, filepath.Join(root, "merged"), nil)
+	merged, err := Merge(dirs, filepath.Join(root, "merged"), MergeOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -186,7 +186,7 @@ func TestShardsMergeEqualsWhole(t *testing.T) {
 		t.Errorf("merged directory holds %d certificates, want %d", len(got), len(f.Points))
 	}
 	// The merged directory is itself a sweep directory of the family.
-	if _, err := Merge([]string{filepath.Join(root, "merged")}, filepath.Join(root, "again"), nil); err != nil {
+	if _, err := Merge([]string{filepath.Join(root, "merged")}, filepath.Join(root, "again"), MergeOptions{}); err != nil {
 		t.Errorf("merging the merged directory: %v", err)
 	}
 }
@@ -403,7 +403,7 @@ func TestMergeFlags(t *testing.T) {
 		dirs, sums = append(dirs, dir), append(sums, s)
 	}
 	out := filepath.Join(root, "merged")
-	if _, err := Merge(dirs, out, nil); err != nil {
+	if _, err := Merge(dirs, out, MergeOptions{}); err != nil {
 		t.Fatalf("clean merge: %v", err)
 	}
 	if got, err := SummaryIn(out); err != nil || got != filepath.Join(out, "summary.json") {
@@ -431,7 +431,7 @@ func TestMergeFlags(t *testing.T) {
 		if err := os.WriteFile(filepath.Join(out, c.name), []byte("{}"), 0o644); err != nil {
 			t.Fatal(err)
 		}
-		if _, err := Merge(dirs, out, nil); err == nil || !strings.Contains(err.Error(), c.want) {
+		if _, err := Merge(dirs, out, MergeOptions{}); err == nil || !strings.Contains(err.Error(), c.want) {
 			t.Errorf("merge into a directory holding %s: %v, want %q", c.name, err, c.want)
 		}
 		if files, _ := os.ReadDir(out); len(files) != 1 {
@@ -453,13 +453,13 @@ func TestMergeFlags(t *testing.T) {
 	if _, err := SummaryIn(shared); err == nil || !strings.Contains(err.Error(), "2 shard summaries") {
 		t.Errorf("SummaryIn(shared) = %v", err)
 	}
-	if _, err := Merge([]string{shared}, shared, nil); err != nil {
+	if _, err := Merge([]string{shared}, shared, MergeOptions{}); err != nil {
 		t.Errorf("merging a shared directory into itself: %v", err)
 	}
 	if got, err := SummaryIn(shared); err != nil || got != filepath.Join(shared, "summary.json") {
 		t.Errorf("SummaryIn(shared, merged) = %q, %v", got, err)
 	}
-	if _, err := Merge(append(dirs, dirs[0]), out, nil); err == nil || !strings.Contains(err.Error(), "listed twice") {
+	if _, err := Merge(append(dirs, dirs[0]), out, MergeOptions{}); err == nil || !strings.Contains(err.Error(), "listed twice") {
 		t.Errorf("merge with a directory listed twice: %v", err)
 	}
 
@@ -487,7 +487,7 @@ func TestMergeFlags(t *testing.T) {
 	dup, _ := os.ReadFile(filepath.Join(dirs[2], sums[2].Points[0].File)) // point 2
 	write(filepath.Join(dirs[0], sums[2].Points[0].File), dup)
 
-	_, err = Merge(dirs, out, nil)
+	_, err = Merge(dirs, out, MergeOptions{})
 	var me *MergeError
 	if !errors.As(err, &me) {
 		t.Fatalf("error %v, want a *MergeError", err)
@@ -515,7 +515,7 @@ func TestMergeFlags(t *testing.T) {
 	if _, err := os.Stat(out); err == nil {
 		t.Error("a failed merge created its output directory")
 	}
-	if _, err := Merge(append(dirs, t.TempDir()), out, nil); !errors.As(err, &me) || me.Issues[0].Kind != IssueFamily {
+	if _, err := Merge(append(dirs, t.TempDir()), out, MergeOptions{}); !errors.As(err, &me) || me.Issues[0].Kind != IssueFamily {
 		t.Errorf("merge with a directory without a family: %v", err)
 	}
 }

@@ -13,7 +13,8 @@ import (
 )
 
 func newCheckCmd() *cobra.Command {
-	return &cobra.Command{
+	var memory memoryLimitFlag
+	cmd := &cobra.Command{
 		Use:   "check CERT.json",
 		Short: "Re-verify a certificate by recomputing it",
 		Long: `check reads a certificate, verifies that its format version is known and
@@ -27,28 +28,37 @@ certificates (files beside it): each corner is recomputed as above, the
 rules' order and the corners are recomputed from the family file it
 holds, and the cell's enclosures and verdicts are recomputed from them.
 
-Exit status: 0 if the certificate verifies, 1 if it cannot be read, 2 if
-recomputing it would exceed the memory budget (refused before allocating),
+A certificate made with a larger --memory-limit than the default 16GiB
+needs the same --memory-limit here.
+
+Exit status: 0 if the certificate verifies, 1 if it cannot be read or
+--memory-limit is malformed, 2 if recomputing it would exceed the memory
+budget (refused before allocating),
 3 if it does not verify (each difference is listed) or is not read
 strictly as a certificate: a key given twice, a key not spelled exactly as
 the format defines it (case variants included) or an unknown key, at any
 depth, with the JSON path of the defect.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := memory.parse(); err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
 			data, err := os.ReadFile(args[0])
 			if err != nil {
 				return readFailure(err)
 			}
 			if cover.IsCell(data) {
-				return checkCoverCell(cmd, args[0], data)
+				return checkCoverCell(cmd, args[0], data, memory.bytes)
 			}
-			if err := checkExit(args[0], certify.Check(data)); err != nil {
+			if err := checkExit(args[0], certify.CheckWithin(data, memory.bytes)); err != nil {
 				return err
 			}
 			fmt.Fprintf(cmd.OutOrStdout(), "%s: certificate verifies (recomputed bounds, hash and claims agree)\n", args[0])
 			return nil
 		},
 	}
+	memory.register(cmd, verifyMemoryUsage)
+	return cmd
 }
 
 // checkExit returns the outcome of certify.Check on the certificate file

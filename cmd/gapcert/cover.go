@@ -176,12 +176,12 @@ func printCoverage(w io.Writer, s *cover.Summary) {
 }
 
 // runCoverMerge merges cover directories (cover.Merge).
-func runCoverMerge(cmd *cobra.Command, dirs []string, out string, quiet bool) error {
+func runCoverMerge(cmd *cobra.Command, dirs []string, out string, quiet bool, memory int64) error {
 	var progress func(string, ...any)
 	if !quiet && isTerminal(cmd.ErrOrStderr()) {
 		progress = func(format string, a ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, a...) }
 	}
-	s, err := cover.Merge(dirs, out, progress)
+	s, err := cover.Merge(dirs, out, cover.MergeOptions{Progress: progress, Memory: memory})
 	var me *cover.MergeError
 	var inv *cover.InvalidError
 	switch {
@@ -202,8 +202,8 @@ func runCoverMerge(cmd *cobra.Command, dirs []string, out string, quiet bool) er
 
 // checkCoverCell re-verifies a cell certificate with the corner files
 // beside it (cover.CheckCell).
-func checkCoverCell(cmd *cobra.Command, name string, data []byte) error {
-	c, _, err := cover.CheckCell(data, filepath.Dir(name), nil)
+func checkCoverCell(cmd *cobra.Command, name string, data []byte, memory int64) error {
+	c, _, err := cover.CheckCell(data, filepath.Dir(name), cover.NewCornerVerifier(memory))
 	var mm *cover.MismatchError
 	var bad *certs.FormatError
 	switch {

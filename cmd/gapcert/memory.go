@@ -17,6 +17,8 @@ type memoryLimitFlag struct {
 
 const memoryLimitUsage = "memory budget of one certification, e.g. 4GiB or 512MiB (units KiB, MiB, GiB, TiB; default 16GiB): a step whose estimated peak exceeds it is not started"
 
+const verifyMemoryUsage = "memory budget of each recomputation, as for certify --memory-limit (e.g. 32GiB; default 16GiB): a certificate whose recipe needs more is refused before allocating"
+
 func (m *memoryLimitFlag) register(cmd *cobra.Command, usage string) {
 	cmd.Flags().StringVar(&m.text, "memory-limit", "", usage)
 }

@@ -96,3 +96,36 @@ func TestMemoryLimitFlag(t *testing.T) {
 		t.Errorf("check: exit %d, %s", code, errs)
 	}
 }
+
+// TestMemoryLimitVerify: check, report, merge and plot re-verify with
+// --memory-limit as the budget of each recomputation: a budget below a
+// certificate's recipe refuses it before allocating (exit 2, naming the
+// budget), the default and a sufficient budget verify it, and a malformed
+// value is refused first (exit 1).
+func TestMemoryLimitVerify(t *testing.T) {
+	dir := t.TempDir()
+	cube := writeProblem(t, dir, `{"domain": {"polyhedron": {"vertices": [["0","0","0"],["1","0","0"],["1","1","0"],["0","1","0"],["0","0","1"],["1","0","1"],["1","1","1"],["0","1","1"]],
+		"faces": [[0,3,2,1],[4,5,6,7],[0,1,5,4],[1,2,6,5],[2,3,7,6],[3,0,4,7]]}}, "boundary": "dirichlet", "eigenvalues": 2}`)
+	cert := filepath.Join(dir, "cube.cert.json")
+	if code, _, errs := execute("certify", cube, "-o", cert, "--memory-limit", "64MiB", "--rel-width", "1e-3", "-q"); code != exitOK {
+		t.Fatalf("certify: exit %d, %s", code, errs)
+	}
+	for _, c := range []struct {
+		args []string
+		code int
+		want string
+	}{
+		{[]string{"check", cert, "--memory-limit", "16MiB"}, exitInvalid, "memory budget of 16.0 MiB"},
+		{[]string{"check", cert, "--memory-limit", "64MiB"}, exitOK, ""},
+		{[]string{"check", cert, "--memory-limit", "64 MiB"}, exitFailure, "--memory-limit"},
+		{[]string{"report", cert, "--memory-limit", "16MiB"}, exitInvalid, "memory budget of 16.0 MiB"},
+		{[]string{"report", cert, "--memory-limit", "lots"}, exitFailure, "--memory-limit"},
+		{[]string{"merge", dir, "--out", filepath.Join(dir, "m"), "--memory-limit", "2GB"}, exitFailure, "--memory-limit"},
+		{[]string{"plot", filepath.Join(testdata, "interval_harmonic.json"), "--out", filepath.Join(dir, "p.png"), "--memory-limit", "1GiB"}, exitFailure, "belongs to a certificate drawn alone"},
+	} {
+		code, _, errs := execute(c.args...)
+		if code != c.code || !strings.Contains(errs, c.want) {
+			t.Errorf("%v: exit %d, stderr %q; want %d and %q", c.args, code, errs, c.code, c.want)
+		}
+	}
+}

@@ -14,6 +14,7 @@ import (
 func newMergeCmd() *cobra.Command {
 	var out string
 	var quiet bool
+	var memory memoryLimitFlag
 	cmd := &cobra.Command{
 		Use:   "merge DIR... --out DIR",
 		Short: "Gather the shard directories of a sweep, verify them and write the merged summary",
@@ -45,17 +46,20 @@ verifies, 1 on a failure, 2 if the family file is invalid, 3 if a
 certificate does not verify or the directories do not form the family.`,
 		Args: cobra.MinimumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := memory.parse(); err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
 			if err := checkMergeOutputs(out, args); err != nil {
 				return err
 			}
 			if cover.IsCoverDir(args[0]) {
-				return runCoverMerge(cmd, args, out, quiet)
+				return runCoverMerge(cmd, args, out, quiet, memory.bytes)
 			}
 			var progress func(string, ...any)
 			if !quiet && isTerminal(cmd.ErrOrStderr()) {
 				progress = func(format string, a ...any) { fmt.Fprintf(cmd.ErrOrStderr(), format, a...) }
 			}
-			s, err := sweep.Merge(args, out, progress)
+			s, err := sweep.Merge(args, out, sweep.MergeOptions{Progress: progress, Memory: memory.bytes})
 			var me *sweep.MergeError
 			var inv *sweep.InvalidError
 			switch {
@@ -75,6 +79,7 @@ certificate does not verify or the directories do not form the family.`,
 	}
 	cmd.Flags().StringVarP(&out, "out", "o", "", "directory for the merged summary (required; must not hold a summary)")
 	cmd.Flags().BoolVarP(&quiet, "quiet", "q", false, "no progress lines on stderr")
+	memory.register(cmd, verifyMemoryUsage)
 	_ = cmd.MarkFlagRequired("out")
 	return cmd
 }

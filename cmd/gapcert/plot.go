@@ -20,6 +20,7 @@ import (
 func newPlotCmd() *cobra.Command {
 	var x, y, quantity, reference, threshold, relation, claim, out, band, slice string
 	var shape bool
+	var memory memoryLimitFlag
 	cmd := &cobra.Command{
 		Use:   "plot SUMMARY.json|DIR --x PARAM (--quantity EXPR [--reference EXPR] | --y PARAM --claim N | --log-concavity) --out FILE.png|.svg\n  gapcert plot CERT.json --out FILE.png|.svg\n  gapcert plot POLYHEDRON.json --out FILE.png|.svg [--slice AXIS=VALUE]",
 		Short: "Draw the certified results of a sweep against its parameters, or a certificate's ground state",
@@ -111,7 +112,13 @@ with a certificate file or a certificate drawn alone does not verify.`,
 						return fail(fmt.Errorf("--%s belongs to a sweep; %s is a certificate, drawn with --out alone", name, args[0]))
 					}
 				}
-				return plotCertificate(cmd, args[0], out)
+				if err := memory.parse(); err != nil {
+					return fail(err)
+				}
+				return plotCertificate(cmd, args[0], out, memory.bytes)
+			}
+			if cmd.Flags().Changed("memory-limit") {
+				return fail(fmt.Errorf("--memory-limit belongs to a certificate drawn alone (it bounds its re-verification); %s is not a certificate", args[0]))
 			}
 			if isProblemFile(args[0]) {
 				for _, name := range []string{"x", "y", "quantity", "reference", "threshold", "relation", "claim", "band", "log-concavity"} {
@@ -210,6 +217,7 @@ with a certificate file or a certificate drawn alone does not verify.`,
 	f.StringVar(&claim, "claim", "", "the claim of a map: its number (1-based) or its text")
 	f.StringVarP(&out, "out", "o", "", "the picture file, .png or .svg")
 	f.StringVar(&slice, "slice", "", "the plane of the modes of a polyhedron, AXIS=VALUE (e.g. z=1/2; default z about halfway up)")
+	memory.register(cmd, "a certificate drawn alone: "+verifyMemoryUsage)
 	f.BoolVar(&shape, "log-concavity", false, "draw the certified log-concavity verdict of the ground state at each point (one-parameter sweep with \"ground_state\": true)")
 	return cmd
 }
@@ -250,7 +258,7 @@ func isCertificate(path string) bool {
 
 // plotCertificate re-verifies the certificate at path (certify.Check)
 // and draws its ground-state block into out.
-func plotCertificate(cmd *cobra.Command, path, out string) error {
+func plotCertificate(cmd *cobra.Command, path, out string, memory int64) error {
 	if err := checkPictureFile(out, path); err != nil {
 		return err
 	}
@@ -258,7 +266,7 @@ func plotCertificate(cmd *cobra.Command, path, out string) error {
 	if err != nil {
 		return readFailure(err)
 	}
-	if err := checkExit(path, certify.Check(data)); err != nil {
+	if err := checkExit(path, certify.CheckWithin(data, memory)); err != nil {
 		return err
 	}
 	c, err := certs.Unmarshal(data)

@@ -18,6 +18,7 @@ func newReportCmd() *cobra.Command {
 		format, notation, out string
 		widthDigits           int
 		noCheck               bool
+		memory                memoryLimitFlag
 	)
 	cmd := &cobra.Command{
 		Use:   "report CERT.json|DIR",
@@ -53,9 +54,13 @@ check" does) unless --no-check is given; the caption says which.
 
 Exit status: 0 on success, 1 on bad usage or a file that cannot be read or
 is not a certificate, 2 if re-verifying a certificate would exceed the
-memory budget, 3 if a certificate does not verify.`,
+memory budget (--memory-limit, default 16GiB), 3 if a certificate does
+not verify.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := memory.parse(); err != nil {
+				return &exitError{code: exitFailure, err: err}
+			}
 			opt := report.Options{Format: format, Notation: notation, WidthDigits: widthDigits, Tool: "gapcert " + Version, Checked: !noCheck}
 			if widthDigits < 1 {
 				return &exitError{code: exitFailure, err: fmt.Errorf("--width-digits %d: want at least 1", widthDigits)}
@@ -91,7 +96,7 @@ memory budget, 3 if a certificate does not verify.`,
 			}
 			if !noCheck {
 				for _, e := range entries {
-					if err := checkEntry(e); err != nil {
+					if err := checkEntry(e, memory.bytes); err != nil {
 						return err
 					}
 				}
@@ -118,6 +123,7 @@ memory budget, 3 if a certificate does not verify.`,
 	cmd.Flags().StringVar(&notation, "notation", report.Compact, "enclosure notation: "+strings.Join(report.Notations(), " or "))
 	cmd.Flags().IntVar(&widthDigits, "width-digits", report.DefaultWidthDigits, "significant digits of each enclosure's width kept when shortening")
 	cmd.Flags().BoolVar(&noCheck, "no-check", false, "do not re-verify the certificates (the caption says so)")
+	memory.register(cmd, verifyMemoryUsage)
 	cmd.Flags().StringVarP(&out, "out", "o", "", "write the table to this file instead of stdout")
 	return cmd
 }
@@ -136,7 +142,9 @@ func hashListFile(out string) string {
 
 // checkEntry re-verifies one certificate of a report, with the exit codes
 // of the check command.
-func checkEntry(e report.Entry) error { return checkExit(e.Path, certify.Check(e.Data)) }
+func checkEntry(e report.Entry, memory int64) error {
+	return checkExit(e.Path, certify.CheckWithin(e.Data, memory))
+}
 
 // readPaths lists every file report.Read opened: the certificates and the
 // JSON files it left out.

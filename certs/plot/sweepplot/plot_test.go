@@ -271,7 +271,7 @@ func TestMapOfBuiltInClaim(t *testing.T) {
 		}
 	}
 	merged := filepath.Join(root, "merged")
-	if _, err := sweep.Merge(shards, merged, nil); err != nil {
+	if _, err := sweep.Merge(shards, merged, sweep.MergeOptions{}); err != nil {
 		t.Fatal(err)
 	}
 	pi, _ := decimalio.ParseRat(piDigits)
