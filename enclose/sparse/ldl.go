@@ -3,6 +3,7 @@ package sparse
 import (
 	"math"
 	"slices"
+	"sync"
 )
 
 // Symbolic is the symbolic analysis of PᵀSP for a pattern and an
@@ -19,6 +20,9 @@ type Symbolic struct {
 	uPtr []int
 	uRow []int32
 	uSrc []int
+	// The supernodal structure, computed when first needed.
+	superOnce sync.Once
+	super     *supernodes
 }
 
 // Analyze returns the symbolic analysis of PᵀSP, (PᵀSP)_ij = S_{perm[i],
@@ -107,6 +111,11 @@ func (sym *Symbolic) N() int { return sym.pat.n }
 // NNZ returns the number of entries of L, the unit diagonal included.
 func (sym *Symbolic) NNZ() int { return sym.colPtr[sym.pat.n] + sym.pat.n }
 
+// ColPtr returns the column pointers of L (length N+1; the strictly lower
+// part, so column k has ColPtr()[k+1] − ColPtr()[k] entries below the
+// unit diagonal). The slice must not be modified.
+func (sym *Symbolic) ColPtr() []int { return sym.colPtr }
+
 // Perm returns the elimination order (must not be modified).
 func (sym *Symbolic) Perm() []int { return sym.perm }
 
@@ -127,6 +136,30 @@ type LDL struct {
 	// Workspaces of SolveTo and Factorize.
 	work  []float64
 	iwork []int
+	// algorithm selects the numeric factorization; the zero value chooses
+	// by size (tests force one or the other).
+	algorithm factorAlgorithm
+}
+
+// factorAlgorithm names a numeric factorization of LDL.Factorize.
+type factorAlgorithm int
+
+const (
+	automatic    factorAlgorithm = iota // multifrontal from supernodeWork multiply-adds
+	upLooking                           // row by row (Davis 2005)
+	multifrontal                        // supernodes with dense fronts (factorizeSupernodal)
+)
+
+// factorWork returns the number of multiply-adds of the numeric
+// factorization, Σ_k ℓ_k(ℓ_k+1)/2 over the columns of L (ℓ_k entries
+// below the diagonal).
+func (sym *Symbolic) factorWork() int {
+	w := 0
+	for k := 0; k < sym.pat.n; k++ {
+		l := sym.colPtr[k+1] - sym.colPtr[k]
+		w += l * (l + 1) / 2
+	}
+	return w
 }
 
 // Factor returns the LDLᵀ factorization of PᵀSP for the order perm, or
@@ -167,6 +200,9 @@ func (f *LDL) Factorize(sym *Symbolic, s *Sym) bool {
 	}
 	f.Row = f.Row[:nnz]
 	f.work = resize(f.work, n)
+	if f.algorithm == multifrontal {
+		return f.factorizeSupernodal(sym, s)
+	}
 	y := f.work
 	clear(y)
 	if cap(f.iwork) < 3*n {
