@@ -200,7 +200,7 @@ func (f *LDL) Factorize(sym *Symbolic, s *Sym) bool {
 	}
 	f.Row = f.Row[:nnz]
 	f.work = resize(f.work, n)
-	if f.algorithm == multifrontal {
+	if f.algorithm == multifrontal || f.algorithm == automatic && sym.factorWork() >= supernodeWork {
 		return f.factorizeSupernodal(sym, s)
 	}
 	y := f.work
