@@ -133,93 +133,133 @@ type frontWork struct {
 	front  []float64 // the front, column-major
 	uPanel []float64 // ũ of the current panel, row-major (h × panelWidth)
 	lPanel []float64 // L of the current panel, row-major
+	// idle returns the number of CPUs that no worker uses at the moment
+	// (a choice of how to split an update; it does not change the result).
+	idle func() int
+}
+
+// multifrontalRun is the shared state of one factorizeSupernodal.
+type multifrontalRun struct {
+	mu      sync.Mutex
+	cond    *sync.Cond
+	ready   []int       // supernodes whose children are done, a stack
+	pending []int       // children not yet done
+	updates [][]float64 // update matrix of each finished supernode until its parent takes it
+	free    [][]float64 // buffers of update matrices taken, for reuse
+	active  int         // workers factoring a front
+	failed  bool
+}
+
+// buffer returns a slice of length n from the free buffers, or a new one
+// (its contents are overwritten by the caller). r.mu must be held.
+func (r *multifrontalRun) buffer(n int) []float64 {
+	best := -1
+	for i, b := range r.free {
+		if cap(b) >= n && (best < 0 || cap(b) < cap(r.free[best])) {
+			best = i
+		}
+	}
+	if best < 0 {
+		return make([]float64, n)
+	}
+	b := r.free[best]
+	r.free[best] = r.free[len(r.free)-1]
+	r.free = r.free[:len(r.free)-1]
+	return b[:n]
 }
 
 // factorizeSupernodal overwrites f with the factorization of s by the
 // multifrontal algorithm over the supernodes of sym (see
 // Counter.roundoffBound for the operations it does), processing
-// independent subtrees concurrently on up to GOMAXPROCS goroutines. The
+// independent subtrees concurrently on up to GOMAXPROCS goroutines and
+// splitting the updates of large fronts over the idle CPUs. The
 // operations on each entry, and their order, do not depend on the
 // scheduling, so the result is the same bit for bit. It reports whether
 // every pivot is nonzero and finite.
 func (f *LDL) factorizeSupernodal(sym *Symbolic, s *Sym) bool {
 	sn := sym.supernodal()
 	n := sym.pat.n
-	copy(f.Row, sn.rows)
-	ns := len(sn.start) - 1
-	updates := make([][]float64, ns) // update matrix of each finished supernode
-	pending := make([]int, ns)
-	for p := 0; p < ns; p++ {
-		pending[p] = sn.childPtr[p+1] - sn.childPtr[p]
+	if f.rowsOf != sym {
+		copy(f.Row, sn.rows)
+		f.rowsOf = sym
 	}
-	var (
-		mu     sync.Mutex
-		ready  []int // supernodes whose children are done, a stack
-		failed bool
-		active int
-		cond   = sync.NewCond(&mu)
-	)
+	ns := len(sn.start) - 1
+	r := &multifrontalRun{pending: make([]int, ns), updates: make([][]float64, ns)}
+	r.cond = sync.NewCond(&r.mu)
 	for p := ns - 1; p >= 0; p-- {
-		if pending[p] == 0 {
-			ready = append(ready, p)
+		r.pending[p] = sn.childPtr[p+1] - sn.childPtr[p]
+		if r.pending[p] == 0 {
+			r.ready = append(r.ready, p)
 		}
 	}
 	workers := max(1, runtime.GOMAXPROCS(0))
+	idle := func() int {
+		r.mu.Lock()
+		defer r.mu.Unlock()
+		return workers - r.active
+	}
 	var wg sync.WaitGroup
 	for range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			ws := &frontWork{pos: make([]int32, n)}
+			ws := &frontWork{pos: make([]int32, n), idle: idle}
+			var children [][]float64
 			for {
-				mu.Lock()
-				for len(ready) == 0 && active > 0 && !failed {
-					cond.Wait()
+				r.mu.Lock()
+				for len(r.ready) == 0 && r.active > 0 && !r.failed {
+					r.cond.Wait()
 				}
-				if failed || len(ready) == 0 {
-					mu.Unlock()
-					cond.Broadcast()
+				if r.failed || len(r.ready) == 0 {
+					r.mu.Unlock()
+					r.cond.Broadcast()
 					return
 				}
-				p := ready[len(ready)-1]
-				ready = ready[:len(ready)-1]
-				active++
-				children := make([][]float64, 0, sn.childPtr[p+1]-sn.childPtr[p])
+				p := r.ready[len(r.ready)-1]
+				r.ready = r.ready[:len(r.ready)-1]
+				r.active++
+				children = children[:0]
 				for _, c := range sn.child[sn.childPtr[p]:sn.childPtr[p+1]] {
-					children = append(children, updates[c])
-					updates[c] = nil
+					children = append(children, r.updates[c])
+					r.updates[c] = nil
 				}
-				mu.Unlock()
-				u, ok := f.factorFront(sym, sn, s, p, children, ws)
-				mu.Lock()
-				active--
+				var u []float64
+				if m := len(sn.rows[sym.colPtr[sn.start[p+1]-1]:sym.colPtr[sn.start[p+1]]]); m > 0 && sn.parent[p] >= 0 {
+					u = r.buffer(m * m)
+				}
+				r.mu.Unlock()
+				ok := f.factorFront(sym, sn, s, p, children, u, ws)
+				r.mu.Lock()
+				r.active--
+				r.free = append(r.free, children...)
 				if !ok {
-					failed = true
+					r.failed = true
 				} else {
-					updates[p] = u
+					r.updates[p] = u
 					if q := sn.parent[p]; q >= 0 {
-						pending[q]--
-						if pending[q] == 0 {
-							ready = append(ready, q)
+						r.pending[q]--
+						if r.pending[q] == 0 {
+							r.ready = append(r.ready, q)
 						}
 					}
 				}
-				mu.Unlock()
-				cond.Broadcast()
+				r.mu.Unlock()
+				r.cond.Broadcast()
 			}
 		}()
 	}
 	wg.Wait()
-	return !failed
+	return !r.failed
 }
 
 // factorFront assembles and partially factors the front of supernode p:
 // the entries of PᵀSP in its columns, then the update matrices of its
 // children (ascending), each added entry by entry; then its columns are
-// eliminated (factorDense) and L and D written to f. It returns the
-// update matrix (the rows below the supernode, column-major, lower
-// triangle) and whether every pivot was nonzero and finite.
-func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children [][]float64, ws *frontWork) ([]float64, bool) {
+// eliminated (factorDense) and L and D written to f. The update matrix
+// (the rows below the supernode, column-major, lower triangle) is written
+// to u, of length m² for m such rows (nil at a root). It reports whether
+// every pivot was nonzero and finite.
+func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children [][]float64, u []float64, ws *frontWork) bool {
 	first, below := sn.frontRows(sym, p)
 	w := sn.start[p+1] - first
 	h := 1 + len(below)
@@ -232,7 +272,9 @@ func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children
 		ws.front = make([]float64, h*h)
 	}
 	fr := ws.front[:h*h]
-	clear(fr)
+	for j := 0; j < h; j++ {
+		clear(fr[j*h+j : j*h+h])
+	}
 	for j := first; j < first+w; j++ {
 		col := fr[(j-first)*h:]
 		for q := sn.lPtr[j]; q < sn.lPtr[j+1]; q++ {
@@ -242,31 +284,30 @@ func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children
 	for ci, c := range sn.child[sn.childPtr[p]:sn.childPtr[p+1]] {
 		_, cb := sn.frontRows(sym, int(c))
 		cb = cb[sn.start[c+1]-sn.start[c]-1:] // the rows below child c
-		m, u := len(cb), children[ci]
+		m, uc := len(cb), children[ci]
 		for b := 0; b < m; b++ {
 			col := fr[int(pos[cb[b]])*h:]
-			ub := u[b*m : b*m+m]
+			ub := uc[b*m : b*m+m]
 			for a := b; a < m; a++ {
 				col[pos[cb[a]]] += ub[a]
 			}
 		}
 	}
 	if !factorDense(fr, h, w, ws) {
-		return nil, false
+		return false
 	}
 	for j := 0; j < w; j++ {
 		f.D[first+j] = fr[j*h+j]
 		copy(f.Val[sym.colPtr[first+j]:sym.colPtr[first+j+1]], fr[j*h+j+1:j*h+h])
 	}
 	m := h - w
-	if m == 0 || sn.parent[p] < 0 {
-		return nil, true
+	if u == nil {
+		return true
 	}
-	u := make([]float64, m*m)
 	for b := 0; b < m; b++ {
 		copy(u[b*m+b:b*m+m], fr[(w+b)*h+w+b:(w+b)*h+h])
 	}
-	return u, true
+	return true
 }
 
 // factorDense eliminates the first w columns of the h×h front fr
@@ -309,20 +350,23 @@ func factorDense(fr []float64, h, w int, ws *frontWork) bool {
 				col[k] = l
 			}
 		}
-		updateTrailing(fr, h, p0, p1, up, lp)
+		updateTrailing(fr, h, p0, p1, up, lp, ws.idle)
 	}
 	return true
 }
 
 // updateTrailing sets fr_ki ← fl(fr_ki − fl(ũ_kj L_ij)), j = p0 … p1−1 in
 // order, for every k ≥ i ≥ p1, the columns split over goroutines when the
-// work is large (each entry is updated by one goroutine, by the same
-// operations).
-func updateTrailing(fr []float64, h, p0, p1 int, up, lp []float64) {
+// work is large and CPUs are idle (each entry is updated by one
+// goroutine, by the same operations).
+func updateTrailing(fr []float64, h, p0, p1 int, up, lp []float64, idle func() int) {
 	m := h - p1
 	work := m * (m + 1) / 2 * (p1 - p0)
-	workers := runtime.GOMAXPROCS(0)
-	if workers < 2 || work < parallelFrontWork {
+	workers := 1
+	if work >= parallelFrontWork {
+		workers += idle()
+	}
+	if workers < 2 {
 		updateColumns(fr, h, p0, p1, p1, h, up, lp)
 		return
 	}
@@ -366,12 +410,14 @@ func updateColumns(fr []float64, h, p0, p1, from, to int, up, lp []float64) {
 		}
 		k := i + 1
 		for ; k+3 < h; k += 4 {
-			u0, u1, u2, u3 := up[k*pw:k*pw+nb], up[(k+1)*pw:(k+1)*pw+nb], up[(k+2)*pw:(k+2)*pw+nb], up[(k+3)*pw:(k+3)*pw+nb]
+			u0 := up[k*pw : k*pw+nb]
+			u1, u2, u3 := up[(k+1)*pw:(k+1)*pw+len(u0)], up[(k+2)*pw:(k+2)*pw+len(u0)], up[(k+3)*pw:(k+3)*pw+len(u0)]
+			l0s, l1s := li0[:len(u0)], li1[:len(u0)]
 			a00, a10, a20, a30 := c0[k], c0[k+1], c0[k+2], c0[k+3]
 			a01, a11, a21, a31 := c1[k], c1[k+1], c1[k+2], c1[k+3]
-			for j := range nb {
-				l0, l1 := li0[j], li1[j]
-				x0, x1, x2, x3 := u0[j], u1[j], u2[j], u3[j]
+			for j, x0 := range u0 {
+				l0, l1 := l0s[j], l1s[j]
+				x1, x2, x3 := u1[j], u2[j], u3[j]
 				a00 -= x0 * l0
 				a10 -= x1 * l0
 				a20 -= x2 * l0
