@@ -175,8 +175,10 @@ func Factor(s *Sym, perm []int) (*LDL, bool) {
 
 // Factor returns the LDLᵀ factorization of PᵀSP, s on the analyzed pattern,
 // by the up-looking algorithm (row k of L by a sparse triangular solve along
-// the elimination tree; Davis 2005), or ok = false if a pivot is zero or
-// not finite. No pivoting is done: the matrix may be indefinite (a shifted
+// the elimination tree; Davis 2005) below supernodeWork multiply-adds and
+// by the multifrontal algorithm above (factorizeSupernodal; the package
+// documentation, Factorization), or ok = false if a pivot is zero or
+// not finite. The result does not depend on GOMAXPROCS. No pivoting is done: the matrix may be indefinite (a shifted
 // pencil) as long as no leading minor of PᵀSP vanishes. Factor panics if s
 // is not on the analyzed pattern.
 func (sym *Symbolic) Factor(s *Sym) (*LDL, bool) {
