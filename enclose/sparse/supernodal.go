@@ -171,6 +171,30 @@ func (r *multifrontalRun) buffer(n int) []float64 {
 	return b[:n]
 }
 
+// keepBuffers is the number of free buffers a factorization keeps for
+// reuse; the others are left to the garbage collector.
+const keepBuffers = 16
+
+// keep adds the buffers to the free ones, keeping the keepBuffers
+// largest. r.mu must be held.
+func (r *multifrontalRun) keep(buffers [][]float64) {
+	for _, b := range buffers {
+		if len(r.free) < keepBuffers {
+			r.free = append(r.free, b)
+			continue
+		}
+		least := 0
+		for i, c := range r.free {
+			if cap(c) < cap(r.free[least]) {
+				least = i
+			}
+		}
+		if cap(b) > cap(r.free[least]) {
+			r.free[least] = b
+		}
+	}
+}
+
 // factorizeSupernodal overwrites f with the factorization of s by the
 // multifrontal algorithm over the supernodes of sym (see
 // Counter.roundoffBound for the operations it does), processing
@@ -227,14 +251,14 @@ func (f *LDL) factorizeSupernodal(sym *Symbolic, s *Sym) bool {
 					r.updates[c] = nil
 				}
 				var u []float64
-				if m := len(sn.rows[sym.colPtr[sn.start[p+1]-1]:sym.colPtr[sn.start[p+1]]]); m > 0 && sn.parent[p] >= 0 {
-					u = r.buffer(m * m)
+				if m := sym.colPtr[sn.start[p+1]] - sym.colPtr[sn.start[p+1]-1]; m > 0 && sn.parent[p] >= 0 {
+					u = r.buffer(m * (m + 1) / 2)
 				}
 				r.mu.Unlock()
 				ok := f.factorFront(sym, sn, s, p, children, u, ws)
 				r.mu.Lock()
 				r.active--
-				r.free = append(r.free, children...)
+				r.keep(children)
 				if !ok {
 					r.failed = true
 				} else {
@@ -259,8 +283,8 @@ func (f *LDL) factorizeSupernodal(sym *Symbolic, s *Sym) bool {
 // the entries of PᵀSP in its columns, then the update matrices of its
 // children (ascending), each added entry by entry; then its columns are
 // eliminated (factorDense) and L and D written to f. The update matrix
-// (the rows below the supernode, column-major, lower triangle) is written
-// to u, of length m² for m such rows (nil at a root). It reports whether
+// (the rows below the supernode, lower triangle packed by columns) is
+// written to u, of length m(m+1)/2 for m such rows (nil at a root). It reports whether
 // every pivot was nonzero and finite.
 func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children [][]float64, u []float64, ws *frontWork) bool {
 	first, below := sn.frontRows(sym, p)
@@ -288,12 +312,13 @@ func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children
 		_, cb := sn.frontRows(sym, int(c))
 		cb = cb[sn.start[c+1]-sn.start[c]-1:] // the rows below child c
 		m, uc := len(cb), children[ci]
-		for b := 0; b < m; b++ {
+		for b, off := 0, 0; b < m; b++ {
 			col := fr[int(pos[cb[b]])*h:]
-			ub := uc[b*m : b*m+m]
-			for a := b; a < m; a++ {
-				col[pos[cb[a]]] += ub[a]
+			ub := uc[off : off+m-b]
+			for a, v := range ub {
+				col[pos[cb[b+a]]] += v
 			}
+			off += m - b
 		}
 	}
 	if !factorDense(fr, h, w, ws) {
@@ -307,8 +332,9 @@ func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children
 	if u == nil {
 		return true
 	}
-	for b := 0; b < m; b++ {
-		copy(u[b*m+b:b*m+m], fr[(w+b)*h+w+b:(w+b)*h+h])
+	for b, off := 0, 0; b < m; b++ {
+		copy(u[off:off+m-b], fr[(w+b)*h+w+b:(w+b)*h+h])
+		off += m - b
 	}
 	return true
 }
