@@ -198,3 +198,47 @@ func TestRoundoffBoundMultifrontalTrees(t *testing.T) {
 		t.Error("the multifrontal factors equal the up-looking ones everywhere: no tree tested")
 	}
 }
+
+// TestCountBelowMultifrontalNearEigenvalues: verified counts with the
+// a-priori residual bound only and the multifrontal factorization, on a
+// perturbed 7-point grid (nested dissection: fronts with several
+// children) with a perturbed mass matrix, at shifts within 10⁻¹³ … 10⁻⁶
+// (relative) of its eigenvalues (the dense solver of
+// enclose/internal/geneig, accurate to about 10⁻¹³ relative here): no
+// eigenvalue lies below σ' beyond the count, and the count exceeds no
+// eigenvalue count below σ.
+func TestCountBelowMultifrontalNearEigenvalues(t *testing.T) {
+	rnd := rand.New(rand.NewPCG(71, 72))
+	k := perturbed(grid7(7), 0.3, rnd)
+	m := perturbed(identity(k.N()), 0.2, rnd)
+	eig := denseGeneralizedEigs(t, k, m)
+	c := roundoffCounter(toISym(k), toISym(m))
+	c.f.algorithm = multifrontal
+	const tol = 1e-11 // relative accuracy claimed for the dense eigenvalues, with room
+	checked := 0
+	for i := 0; i < len(eig); i += 17 {
+		e := eig[i]
+		for _, rel := range []float64{-1e-6, -1e-10, -1e-13, 1e-13, 1e-10, 1e-6} {
+			sigma := e * (1 + rel)
+			got, sp, ok := c.CountBelow(0.79, sigma) // M is diagonal with entries in [0.8, 1.2]
+			if !ok {
+				t.Fatalf("σ=%g: count failed", sigma)
+			}
+			certainlyBelow, possiblyBelow := 0, 0
+			for _, v := range eig {
+				if v*(1+tol) < sp {
+					certainlyBelow++
+				}
+				if v*(1-tol) < sigma {
+					possiblyBelow++
+				}
+			}
+			if certainlyBelow > got || got > possiblyBelow {
+				t.Errorf("eigenvalue %d σ=%g (σ'=%g): count %d, eigenvalues certainly below σ' %d, possibly below σ %d",
+					i, sigma, sp, got, certainlyBelow, possiblyBelow)
+			}
+			checked++
+		}
+	}
+	t.Logf("%d counts checked", checked)
+}
