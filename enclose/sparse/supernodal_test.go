@@ -35,7 +35,7 @@ func TestMultifrontalAgrees(t *testing.T) {
 		s    *Sym
 	}{
 		{"grid5 20", grid5(20)},
-		{"grid7 9", grid7(9)},
+		{"grid7 7", grid7(7)},
 		{"random SPD", randomSPD(300, 6, 3)},
 		{"P1 shifted", shifted(k, m, 60)},
 	}
@@ -93,6 +93,15 @@ func TestMultifrontalDeterministic(t *testing.T) {
 			t.Errorf("GOMAXPROCS=%d: factors differ from GOMAXPROCS=1", procs)
 		}
 	}
+	// Refactoring with the same workspaces (kept zero between fronts), of
+	// another matrix and then of the first again.
+	d, v := slices.Clone(first.D), slices.Clone(first.Val)
+	if !first.Factorize(sym, shifted(s, identity(s.N()), 100)) || !first.Factorize(sym, s) {
+		t.Fatal("refactorization failed")
+	}
+	if !slices.Equal(d, first.D) || !slices.Equal(v, first.Val) {
+		t.Error("refactoring with kept workspaces changes the factors")
+	}
 }
 
 // TestMultifrontalBreakdown: a zero pivot is reported.
@@ -104,8 +113,18 @@ func TestMultifrontalBreakdown(t *testing.T) {
 	b.Add(2, 2, 1)
 	s := b.Build()
 	f := &LDL{algorithm: multifrontal}
-	if f.Factorize(analyzePattern(s.Pat, naturalOrder(3)), s) {
+	sym := analyzePattern(s.Pat, naturalOrder(3))
+	if f.Factorize(sym, s) {
 		t.Error("zero pivot not reported")
+	}
+	// The failure leaves no stale front behind.
+	s.Val[0] = 2
+	fresh := &LDL{algorithm: multifrontal}
+	if !f.Factorize(sym, s) || !fresh.Factorize(sym, s) {
+		t.Fatal("factorization failed")
+	}
+	if !slices.Equal(f.D, fresh.D) || !slices.Equal(f.Val, fresh.Val) {
+		t.Errorf("after a failure: D = %v, L = %v; fresh: D = %v, L = %v", f.D, f.Val, fresh.D, fresh.Val)
 	}
 }
 
