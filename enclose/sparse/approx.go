@@ -64,7 +64,6 @@ func (a *pencil) FactorShift(sigma float64) bool {
 		u, fromK, fromM := union(a.k.Pat, a.m.Pat)
 		a.sym, a.fromK, a.fromM = analyzePattern(u, orderPattern(u)), fromK, fromM
 		a.shifted = &Sym{Pat: u, Val: make([]float64, u.NNZ())}
-		a.block = make([]float64, 4*a.k.N())
 	}
 	clear(a.shifted.Val)
 	for q, v := range a.k.Val {
@@ -76,7 +75,7 @@ func (a *pencil) FactorShift(sigma float64) bool {
 	return a.f.Factorize(a.sym, a.shifted) && a.f.NegCount() == 0
 }
 
-func (a *pencil) SolveTo(dst, b [][]float64) { a.f.solveBlockTo(dst, b, a.block) }
+func (a *pencil) SolveTo(dst, b [][]float64) { a.f.solveBlockTo(dst, b, &a.block) }
 
 func (a *pencil) GershgorinRows() (kDiag, kOff, mDiag []float64) {
 	n := a.k.N()

@@ -2,7 +2,9 @@ package sparse
 
 import (
 	"math"
+	"runtime"
 	"slices"
+	"sync"
 )
 
 // Symbolic is the symbolic analysis of PᵀSP for a pattern and an
@@ -19,6 +21,9 @@ type Symbolic struct {
 	uPtr []int
 	uRow []int32
 	uSrc []int
+	// The supernodal structure, computed when first needed.
+	superOnce sync.Once
+	super     *supernodes
 }
 
 // Analyze returns the symbolic analysis of PᵀSP, (PᵀSP)_ij = S_{perm[i],
@@ -107,6 +112,11 @@ func (sym *Symbolic) N() int { return sym.pat.n }
 // NNZ returns the number of entries of L, the unit diagonal included.
 func (sym *Symbolic) NNZ() int { return sym.colPtr[sym.pat.n] + sym.pat.n }
 
+// ColPtr returns the column pointers of L (length N+1; the strictly lower
+// part, so column k has ColPtr()[k+1] − ColPtr()[k] entries below the
+// unit diagonal). The slice must not be modified.
+func (sym *Symbolic) ColPtr() []int { return sym.colPtr }
+
 // Perm returns the elimination order (must not be modified).
 func (sym *Symbolic) Perm() []int { return sym.perm }
 
@@ -127,6 +137,35 @@ type LDL struct {
 	// Workspaces of SolveTo and Factorize.
 	work  []float64
 	iwork []int
+	// algorithm selects the numeric factorization; the zero value chooses
+	// by size (tests force one or the other).
+	algorithm factorAlgorithm
+	// rowsOf is the Symbolic whose row indices Row holds (the
+	// multifrontal algorithm copies them once).
+	rowsOf *Symbolic
+	// fronts are the workspaces of the multifrontal algorithm's workers.
+	fronts []*frontWork
+}
+
+// factorAlgorithm names a numeric factorization of LDL.Factorize.
+type factorAlgorithm int
+
+const (
+	automatic    factorAlgorithm = iota // multifrontal from supernodeWork multiply-adds
+	upLooking                           // row by row (Davis 2005)
+	multifrontal                        // supernodes with dense fronts (factorizeSupernodal)
+)
+
+// factorWork returns the number of multiply-adds of the numeric
+// factorization, Σ_k ℓ_k(ℓ_k+1)/2 over the columns of L (ℓ_k entries
+// below the diagonal).
+func (sym *Symbolic) factorWork() int {
+	w := 0
+	for k := 0; k < sym.pat.n; k++ {
+		l := sym.colPtr[k+1] - sym.colPtr[k]
+		w += l * (l + 1) / 2
+	}
+	return w
 }
 
 // Factor returns the LDLᵀ factorization of PᵀSP for the order perm, or
@@ -138,8 +177,10 @@ func Factor(s *Sym, perm []int) (*LDL, bool) {
 
 // Factor returns the LDLᵀ factorization of PᵀSP, s on the analyzed pattern,
 // by the up-looking algorithm (row k of L by a sparse triangular solve along
-// the elimination tree; Davis 2005), or ok = false if a pivot is zero or
-// not finite. No pivoting is done: the matrix may be indefinite (a shifted
+// the elimination tree; Davis 2005) below supernodeWork multiply-adds and
+// by the multifrontal algorithm above (factorizeSupernodal; the package
+// documentation, Factorization), or ok = false if a pivot is zero or
+// not finite. The result does not depend on GOMAXPROCS. No pivoting is done: the matrix may be indefinite (a shifted
 // pencil) as long as no leading minor of PᵀSP vanishes. Factor panics if s
 // is not on the analyzed pattern.
 func (sym *Symbolic) Factor(s *Sym) (*LDL, bool) {
@@ -164,9 +205,14 @@ func (f *LDL) Factorize(sym *Symbolic, s *Sym) bool {
 	f.Val = resize(f.Val, nnz)
 	if cap(f.Row) < nnz {
 		f.Row = make([]int32, nnz)
+		f.rowsOf = nil
 	}
 	f.Row = f.Row[:nnz]
 	f.work = resize(f.work, n)
+	if f.algorithm == multifrontal || f.algorithm == automatic && sym.factorWork() >= supernodeWork {
+		return f.factorizeSupernodal(sym, s)
+	}
+	f.rowsOf = nil // the loop below rewrites Row
 	y := f.work
 	clear(y)
 	if cap(f.iwork) < 3*n {
@@ -285,70 +331,100 @@ func (f *LDL) SolveTo(dst, b []float64) {
 	}
 }
 
+// solveWidth is the largest number of right-hand sides that solveBlockTo
+// carries through one sweep over L.
+const solveWidth = 16
+
+// parallelSolveWork is the number of multiply-adds (entries of L times
+// right-hand sides) above which solveBlockTo splits the right-hand sides
+// over the available CPUs.
+const parallelSolveWork = 1 << 20
+
 // solveBlockTo solves S x_c = b_c for every c, writing x_c to dst[c] (dst
-// may be b), sweeping L once per group of four right-hand sides. work is a
-// workspace of length ≥ 4·N (allocated if shorter).
-func (f *LDL) solveBlockTo(dst, b [][]float64, work []float64) {
-	const w = 4
-	n := len(f.D)
-	if len(dst) != len(b) {
+// may be b), sweeping L once per group of up to solveWidth right-hand
+// sides, the groups on up to GOMAXPROCS goroutines. Each x_c is computed
+// by the operations of SolveTo, so it is the same bits. *work is a
+// workspace, grown to N·len(b) if shorter.
+func (f *LDL) solveBlockTo(dst, b [][]float64, work *[]float64) {
+	n, r := len(f.D), len(b)
+	if len(dst) != r {
 		panic("sparse: dimension mismatch")
 	}
-	if len(work) < w*n {
-		work = make([]float64, w*n)
+	for c := range b {
+		if len(dst[c]) != n || len(b[c]) != n {
+			panic("sparse: dimension mismatch")
+		}
 	}
+	if r == 0 {
+		return
+	}
+	if cap(*work) < n*r {
+		*work = make([]float64, n*r)
+	}
+	y := (*work)[:n*r]
+	groups := (r + solveWidth - 1) / solveWidth
+	workers := runtime.GOMAXPROCS(0)
+	if workers > 1 && len(f.Val)*r >= parallelSolveWork {
+		groups = max(groups, min(workers, r))
+	}
+	if groups == 1 {
+		f.solveGroup(dst, b, y)
+		return
+	}
+	var wg sync.WaitGroup
+	sem := make(chan struct{}, workers)
+	for g := 0; g < groups; g++ {
+		c0, c1 := g*r/groups, (g+1)*r/groups
+		wg.Add(1)
+		sem <- struct{}{}
+		go func() {
+			defer func() { <-sem; wg.Done() }()
+			f.solveGroup(dst[c0:c1], b[c0:c1], y[n*c0:n*c1])
+		}()
+	}
+	wg.Wait()
+}
+
+// solveGroup solves S x_c = b_c, c < w = len(b), in one sweep over L with
+// y (length ≥ N·w) holding the w vectors entry by entry.
+func (f *LDL) solveGroup(dst, b [][]float64, y []float64) {
+	n, w := len(f.D), len(b)
 	perm, lp, li, lx := f.Sym.perm, f.Sym.colPtr, f.Row, f.Val
-	for from := 0; from < len(b); from += w {
-		r := min(w, len(b)-from)
-		if r < w {
-			for c := from; c < len(b); c++ {
-				f.SolveTo(dst[c], b[c])
-			}
-			return
+	for c, bc := range b {
+		for k, v := range perm {
+			y[k*w+c] = bc[v]
 		}
-		y := work[:w*n]
-		for c := 0; c < w; c++ {
-			if len(dst[from+c]) != n || len(b[from+c]) != n {
-				panic("sparse: dimension mismatch")
-			}
-			bc := b[from+c]
-			for k, v := range perm {
-				y[k*w+c] = bc[v]
+	}
+	for k := 0; k < n; k++ {
+		yk := y[k*w : k*w+w]
+		for q := lp[k]; q < lp[k+1]; q++ {
+			l, i := lx[q], int(li[q])*w
+			yi := y[i : i+len(yk)]
+			for c, v := range yk {
+				yi[c] -= l * v
 			}
 		}
-		for k := 0; k < n; k++ {
-			y0, y1, y2, y3 := y[k*w], y[k*w+1], y[k*w+2], y[k*w+3]
-			for q := lp[k]; q < lp[k+1]; q++ {
-				i, l := int(li[q])*w, lx[q]
-				y[i] -= l * y0
-				y[i+1] -= l * y1
-				y[i+2] -= l * y2
-				y[i+3] -= l * y3
+	}
+	for k := 0; k < n; k++ {
+		d := f.D[k]
+		yk := y[k*w : k*w+w]
+		for c := range yk {
+			yk[c] /= d
+		}
+	}
+	for k := n - 1; k >= 0; k-- {
+		yk := y[k*w : k*w+w]
+		for q := lp[k]; q < lp[k+1]; q++ {
+			l, i := lx[q], int(li[q])*w
+			yi := y[i : i+len(yk)]
+			for c, v := range yi {
+				yk[c] -= l * v
 			}
 		}
-		for k := 0; k < n; k++ {
-			d := f.D[k]
-			y[k*w] /= d
-			y[k*w+1] /= d
-			y[k*w+2] /= d
-			y[k*w+3] /= d
-		}
-		for k := n - 1; k >= 0; k-- {
-			y0, y1, y2, y3 := y[k*w], y[k*w+1], y[k*w+2], y[k*w+3]
-			for q := lp[k]; q < lp[k+1]; q++ {
-				i, l := int(li[q])*w, lx[q]
-				y0 -= l * y[i]
-				y1 -= l * y[i+1]
-				y2 -= l * y[i+2]
-				y3 -= l * y[i+3]
-			}
-			y[k*w], y[k*w+1], y[k*w+2], y[k*w+3] = y0, y1, y2, y3
-		}
-		for c := 0; c < w; c++ {
-			dc := dst[from+c]
-			for k, v := range perm {
-				dc[v] = y[k*w+c]
-			}
+	}
+	for c, dc := range dst {
+		for k, v := range perm {
+			dc[v] = y[k*w+c]
 		}
 	}
 }

@@ -22,7 +22,8 @@ const underflowUnit = 0x1p-1074
 
 // roundoffBound returns r ≥ ‖Pᵀ(K − σM)P − L D Lᵀ‖∞ for every member
 // (K, M) of the pencil of c, for the factorization c.f of the float matrix
-// S = c.c (mid(K) − σ·mid(M) as computed) by LDL.Factorize, rounded
+// S = c.c (mid(K) − σ·mid(M) as computed) by LDL.Factorize (either of
+// its algorithms, up-looking or multifrontal), rounded
 // upwards, in O(nnz(L) + nnz(K) + nnz(M)) operations; +∞ if a quantity
 // overflows. It splits the residual as
 //
@@ -40,18 +41,46 @@ const underflowUnit = 0x1p-1074
 //
 // # The rounding errors of the factorization
 //
-// Factorize computes row k of PᵀSP = A ≈ LDLᵀ by the up-looking
-// algorithm: with y = 0, it scatters y_r = a_kr (r ≤ k; 0 + a is exact),
-// visits the rows r < k of the pattern of row k of L in an order where
-// every i with L_ri ≠ 0 (structurally) comes before r, and at r sets
+// What is computed. Let A = PᵀSP, T_kj = {i < j : L_ki and L_ji
+// structurally nonzero} for j ≤ k, and let ũ_kj (k > j) denote the float
+// that L_kj was divided from. Both algorithms of Factorize compute, for
+// every entry j ≤ k of the pattern of L,
 //
-//	ũ_r = y_r, L_kr = fl(ũ_r / d_r), d_k ← fl(d_k − fl(L_kr ũ_r)),
-//	y_j ← fl(y_j − fl(L_jr ũ_r)) for the stored entries L_jr, r < j < k,
+//	ũ_kj = a_kj − Σ_{i∈T_kj} ũ_ki L_ji,  L_kj = fl(ũ_kj / d_j)   (k > j),
+//	d_j  = a_jj − Σ_{i∈T_jj} ũ_ji L_ji,
 //
-// starting from d_k = a_kk. So ũ_r = fl(a_kr − Σ_{i∈T} L_ri ũ_i), the
-// subtractions in some order, T = {i < r : L_ki, L_ri structurally
-// nonzero}, and d_k = fl(a_kk − Σ_{r<k} L_kr ũ_r) likewise. Let m ≤ mMax
-// be the number of terms (mMax the largest number of off-diagonal entries
+// where each product fl(ũ_ki L_ji) is rounded once (or fused with the
+// subtraction that uses it) and each sum is evaluated by rounded additions
+// and subtractions along some binary tree whose leaves are a_kj and the
+// negated products; an addition with an exact zero operand (the zeroed
+// workspaces to which entries of A are added) is exact and is not counted.
+// The floats ũ_ki and L_ji are the very ones that are stored or divided,
+// and d_j is the pivot stored in D.
+//
+//   - Up-looking (Davis 2005; LDL.Factorize below supernodeWork
+//     multiply-adds): row k of L is found by a sparse triangular solve.
+//     With y = 0 it scatters y_r = a_kr (r ≤ k), visits the rows r < k of
+//     the pattern of row k of L in an order where every i with L_ri ≠ 0
+//     (structurally) comes before r, and at r sets ũ_kr = y_r,
+//     L_kr = fl(ũ_kr / d_r), d_k ← fl(d_k − fl(L_kr ũ_kr)) and
+//     y_j ← fl(y_j − fl(L_jr ũ_kr)) for the stored L_jr, r < j < k,
+//     starting from d_k = a_kk: every sum is a chain, a_kj first, the
+//     products subtracted one by one.
+//   - Multifrontal (factorizeSupernodal; Duff and Reid 1983, Liu 1992):
+//     the columns are grouped into supernodes; the dense front of a
+//     supernode is zeroed, receives the entries of A in its columns and
+//     then, entry by entry, the update matrices of its children, and its
+//     columns are eliminated by panels (factorDense): each entry (k, j)
+//     gets fl(· − fl(ũ_ki L_ji)) for the columns i of each panel in turn;
+//     what is left below the supernode is its update matrix. The sum of
+//     entry (k, j) is thus a tree: a_kj plus the update entries of the
+//     children (each a partial sum over the columns of one subtree,
+//     computed the same way), then chains over the panels of its own
+//     fronts. The columns that reach (k, j) are exactly T_kj: a column i
+//     contributes to the fronts that contain both rows k and j, that is
+//     when L_ki and L_ji are both structurally nonzero.
+//
+// Let m = |T_kj| ≤ mMax (mMax the largest number of off-diagonal entries
 // in a row of L), u = 2⁻⁵³, γ_n = nu/(1 − nu) and η₀ = 2⁻¹⁰⁷⁴.
 //
 // (M) Model. For floats x, y and ◦ ∈ {+, −, ·, /}, rounding to nearest
@@ -67,35 +96,48 @@ const underflowUnit = 0x1p-1074
 // every later operation carries into an entry of L or D, and Factorize
 // reports non-finite pivots; Counter checks L).
 //
-// (S) Sums. Let ŝ be s_0 = a, s_j = fl(s_{j−1} − fl(x_j y_j)),
-// j = 1 … m (floats; any order). By (M),
-// s_j = (s_{j−1} − x_j y_j(1 + ε_j) − α_j)(1 + δ_j) + β_j, so with
-// P = Π_j (1 + δ_j)
+// (S) Sums. Let ŝ be the value of a binary tree of rounded additions whose
+// m + 1 leaves are a and the negated rounded products −fl(x_j y_j),
+// j = 1 … m (negation is exact). By (M) each product is
+// x_j y_j(1 + ε_j) + α_j and each node v computes
+// z_v = (z_left + z_right)(1 + δ_v) + β_v. Let v_1, …, v_p be the nodes on
+// the path from the leaf a up to the root (p ≤ m), w_i the other subtree
+// below v_i, and Q_i = Π_{l≤i}(1 + δ_{v_l}). Dividing
+// z_{v_i} = (z_{v_(i−1)} + z_{w_i})(1 + δ_{v_i}) + β_{v_i} (z_{v_0} = a)
+// by Q_i and summing over i gives
 //
-//	ŝ/P = a − Σ_j x_j y_j (1+ε_j)/Π_{l<j}(1+δ_l)
-//	        − Σ_j α_j/Π_{l<j}(1+δ_l) + Σ_j β_j/Π_{l≤j}(1+δ_l).
+//	ŝ/Q_p = a + Σ_i z_{w_i}/Q_(i−1) + Σ_i β_{v_i}/Q_i.
 //
-// Each product of at most m factors (1 + δ)^(±1) is 1 + θ with |θ| ≤ γ_m
-// (Higham 2002, Lemma 3.1), so
+// Expanding z_{w_i} inside w_i in the same way, a product leaf of w_i
+// enters as −x_j y_j(1 + ε_j) times the factors (1 + δ) of the nodes
+// above it in w_i, divided by Q_(i−1). If w_i has m_i leaves, that is at
+// most 1 + (m_i − 1) + (i − 1) factors (1 + δ)^(±1), and m_i ≤ m − i + 1
+// because w_1, …, w_(i−1) hold a leaf each: at most m factors. So is
+// each β and α term, and Q_p has p ≤ m factors. Each product of at most
+// m factors (1 + δ)^(±1) is 1 + θ with |θ| ≤ γ_m (Higham 2002, Lemma
+// 3.1), so with |ŝ/Q_p − ŝ| ≤ γ_m|ŝ|
 //
-//	|a − Σ_j x_j y_j − ŝ| ≤ γ_m (|ŝ| + Σ_j |x_j y_j|) + 2m(1 + γ_m) η₀.
+//	|a − Σ_j x_j y_j − ŝ| ≤ γ_m (|ŝ| + Σ_j |x_j y_j|) + 2m(1 + γ_m) η₀
 //
-// This is Lemma 8.4 of Higham 2002 (no division), with the underflow
-// terms added.
+// (m products and m additions, each with one underflow term). For a
+// chain (a first, the products subtracted one by one, the up-looking
+// loop) this is Lemma 8.4 of Higham 2002 (no division) with the underflow
+// terms added. The constant does not depend on the shape of the tree, so
+// the multifrontal algorithm needs no other c than the up-looking one.
 //
-// (Q) Quotients. L_kr = fl(ũ_r/d_r) = (ũ_r/d_r)(1 + ζ) + ω with |ζ| ≤ u,
-// |ω| ≤ η₀, so L_kr d_r = ũ_r(1 + ζ) + ω d_r, and
-// ũ_r = (L_kr − ω) d_r/(1 + ζ) gives
-// |ũ_r| ≤ (1 + γ_1)(|L_kr||d_r| + η₀|d_r|) (1/(1 − u) = 1 + γ_1).
+// (Q) Quotients. L_kr = fl(ũ_kr/d_r) = (ũ_kr/d_r)(1 + ζ) + ω with
+// |ζ| ≤ u, |ω| ≤ η₀, so L_kr d_r = ũ_kr(1 + ζ) + ω d_r, and
+// ũ_kr = (L_kr − ω) d_r/(1 + ζ) gives
+// |ũ_kr| ≤ (1 + γ_1)(|L_kr||d_r| + η₀|d_r|) (1/(1 − u) = 1 + γ_1).
 //
-// Off-diagonal entries, r < k. With (S) for ũ_r (x_j y_j = L_ri ũ_i) and
-// (Q) for ũ_r and every ũ_i, i ∈ T,
+// Off-diagonal entries, r < k, T = T_kr. With (S) for ũ_kr
+// (x_i y_i = ũ_ki L_ri) and (Q) for ũ_kr and every ũ_ki, i ∈ T,
 //
 //	R_kr = a_kr − Σ_{i∈T} L_ki d_i L_ri − L_kr d_r
-//	     = E + Σ_i L_ri (ũ_i − L_ki d_i) + (ũ_r − L_kr d_r),
+//	     = E + Σ_i L_ri (ũ_ki − L_ki d_i) + (ũ_kr − L_kr d_r),
 //
-// E = a_kr − Σ_i L_ri ũ_i − ũ_r, and |ũ_i − L_ki d_i| ≤
-// γ_1|L_ki||d_i| + (1 + γ_1)η₀|d_i|, |ũ_r − L_kr d_r| ≤ u|ũ_r| + η₀|d_r|.
+// E = a_kr − Σ_i L_ri ũ_ki − ũ_kr, and |ũ_ki − L_ki d_i| ≤
+// γ_1|L_ki||d_i| + (1 + γ_1)η₀|d_i|, |ũ_kr − L_kr d_r| ≤ u|ũ_kr| + η₀|d_r|.
 // Collecting, with γ_m + u ≤ γ_(m+1) (Higham 2002, Lemma 3.3) and
 //
 //	c = γ_1 + γ_(mMax+1)(1 + γ_1)
@@ -105,9 +147,9 @@ const underflowUnit = 0x1p-1074
 //	|R_kr| ≤ c (|L||D||Lᵀ|)_kr + (1 + c) η₀ (2 mMax + t_r),
 //	t_r = Σ_{i≤r} |L_ri||d_i|   (L_rr = 1).
 //
-// Diagonal entries. The same steps with (S) for d_k (x_j y_j = L_kr ũ_r)
-// give R_kk = E + Σ_r L_kr(ũ_r − L_kr d_r), |E| ≤ γ_m(|d_k| + Σ_r
-// |L_kr||ũ_r|) + 2m(1 + γ_m)η₀, hence the same bound with r = k.
+// Diagonal entries. The same steps with (S) for d_k (x_r y_r = ũ_kr L_kr)
+// give R_kk = E + Σ_r L_kr(ũ_kr − L_kr d_r), |E| ≤ γ_m(|d_k| + Σ_r
+// |L_kr||ũ_kr|) + 2m(1 + γ_m)η₀, hence the same bound with r = k.
 //
 // Row sums. R is symmetric and vanishes outside the pattern of L + Lᵀ
 // (which holds the structure of LDLᵀ: the symbolic analysis is exact), so
@@ -121,8 +163,9 @@ const underflowUnit = 0x1p-1074
 // nearest and then stepped up by up (an upper bound of the exact result),
 // so by monotonicity the computed r is at least the exact right-hand
 // side. The bound relies on Factorize doing exactly the operations listed
-// above; TestRoundoffBoundExact compares it with the exact residual of
-// Factorize's output on hard cases.
+// above (either algorithm); TestRoundoffBoundExact and the tests of
+// roundoff_worstcase_test.go compare it with the exact residual of the
+// output of both algorithms on hard cases.
 //
 // References:
 //
@@ -130,6 +173,13 @@ const underflowUnit = 0x1p-1074
 //	SIAM, 2002 (§2.2–2.3 the model of arithmetic, Lemma 3.1, Lemma 3.3, Lemma 8.4;
 //	§9.3 and §10.1 the analyses of LU and Cholesky factorization that
 //	this follows).
+//	I. S. Duff, J. K. Reid, The multifrontal solution of indefinite sparse
+//	symmetric linear equations, ACM Trans. Math. Software 9 (1983)
+//	302–325.
+//	J. W. H. Liu, The multifrontal method for sparse matrix solution:
+//	theory and practice, SIAM Review 34 (1992) 82–109.
+//	T. A. Davis, Algorithm 849: A concise sparse Cholesky factorization
+//	package, ACM Trans. Math. Software 31 (2005) 587–591.
 //	IEEE Standard for Floating-Point Arithmetic, IEEE 754-2019.
 func (c *Counter) roundoffBound(sigma float64) float64 {
 	f := &c.f

@@ -124,25 +124,28 @@ func TestRoundoffBoundExact(t *testing.T) {
 		// checks containment, not that the underflow term t_r is needed.)
 		{"2×2 underflowing division", twoByTwo(0x1p60, 3*0x1p-1015, 1), identity(2), 0, true},
 	} {
-		c := roundoffCounter(toISym(tc.k), toISym(tc.m))
-		if _, _, ok := c.CountBelow(1, tc.sigma); !ok {
-			t.Fatalf("%s: factorization failed", tc.name)
+		for _, alg := range []factorAlgorithm{upLooking, multifrontal} {
+			c := roundoffCounter(toISym(tc.k), toISym(tc.m))
+			c.f.algorithm = alg
+			if _, _, ok := c.CountBelow(1, tc.sigma); !ok {
+				t.Fatalf("%s: factorization failed", tc.name)
+			}
+			r := c.roundoffBound(tc.sigma)
+			exact := exactResidual(c, pointMember(tc.k, tc.m), tc.sigma)
+			ex, _ := exact.Float64()
+			if new(big.Rat).SetFloat64(r).Cmp(exact) < 0 {
+				t.Errorf("%s: r = %g below the exact residual %g", tc.name, r, ex)
+			}
+			sharp := c.sharpResidual(tc.sigma)
+			if new(big.Rat).SetFloat64(sharp).Cmp(exact) < 0 {
+				t.Errorf("%s: sharp r = %g below the exact residual %g", tc.name, sharp, ex)
+			}
+			rows := maxRowOfL(&c.f)
+			if !tc.loose && r > 64*float64(rows+2)*ex {
+				t.Errorf("%s: r = %g, exact %g: above 64·(longest row + 2) = %d times", tc.name, r, ex, 64*(rows+2))
+			}
+			t.Logf("%s (algorithm %d): r = %.3g, sharp %.3g, exact %.3g, r/exact %.1f, longest row %d", tc.name, alg, r, sharp, ex, r/ex, rows)
 		}
-		r := c.roundoffBound(tc.sigma)
-		exact := exactResidual(c, pointMember(tc.k, tc.m), tc.sigma)
-		ex, _ := exact.Float64()
-		if new(big.Rat).SetFloat64(r).Cmp(exact) < 0 {
-			t.Errorf("%s: r = %g below the exact residual %g", tc.name, r, ex)
-		}
-		sharp := c.sharpResidual(tc.sigma)
-		if new(big.Rat).SetFloat64(sharp).Cmp(exact) < 0 {
-			t.Errorf("%s: sharp r = %g below the exact residual %g", tc.name, sharp, ex)
-		}
-		rows := maxRowOfL(&c.f)
-		if !tc.loose && r > 64*float64(rows+2)*ex {
-			t.Errorf("%s: r = %g, exact %g: above 64·(longest row + 2) = %d times", tc.name, r, ex, 64*(rows+2))
-		}
-		t.Logf("%s: r = %.3g, sharp %.3g, exact %.3g, r/exact %.1f, longest row %d", tc.name, r, sharp, ex, r/ex, rows)
 	}
 }
 

@@ -302,6 +302,9 @@ type boundCase struct {
 	sigma float64
 	perm  []int
 	fused bool // factor with fused multiply-adds (factorizeFused)
+	// algorithm of Factorize (the zero value: chosen by size, so the
+	// up-looking one on these small cases).
+	algorithm factorAlgorithm
 }
 
 // checkBoundCase factors the case and checks, exactly, the entrywise
@@ -312,6 +315,7 @@ type boundCase struct {
 func checkBoundCase(t *testing.T, tc boundCase) (entryRatio, rowRatio, growth float64, ok bool) {
 	t.Helper()
 	c := roundoffCounter(tc.k, tc.m)
+	c.f.algorithm = tc.algorithm
 	if !factorForBound(c, tc.sigma, tc.perm) {
 		return 0, 0, 0, false
 	}
@@ -360,16 +364,26 @@ type summary struct {
 
 func newSummary() *summary { return &summary{minEntry: math.Inf(1), minRatio: math.Inf(1)} }
 
+// add checks the case as given and, unless it is fused, once more with
+// the multifrontal algorithm.
 func (s *summary) add(t *testing.T, tc boundCase) {
 	t.Helper()
-	e, r, g, ok := checkBoundCase(t, tc)
-	if !ok {
-		s.failed++
-		return
+	cases := []boundCase{tc}
+	if !tc.fused && tc.algorithm == automatic {
+		mf := tc
+		mf.name, mf.algorithm = tc.name+" multifrontal", multifrontal
+		cases = append(cases, mf)
 	}
-	s.cases++
-	s.growth = math.Max(s.growth, g)
-	s.minEntry, s.minRatio = math.Min(s.minEntry, e), math.Min(s.minRatio, r)
+	for _, tc := range cases {
+		e, r, g, ok := checkBoundCase(t, tc)
+		if !ok {
+			s.failed++
+			continue
+		}
+		s.cases++
+		s.growth = math.Max(s.growth, g)
+		s.minEntry, s.minRatio = math.Min(s.minEntry, e), math.Min(s.minRatio, r)
+	}
 }
 
 func (s *summary) log(t *testing.T, name string) {
@@ -571,8 +585,13 @@ func TestRoundoffBoundHillClimb(t *testing.T) {
 			return float64(1+rnd.IntN(1<<8)) * 0x1p-1040
 		}, 0.02},
 	}
+	type variant struct {
+		fused     bool
+		algorithm factorAlgorithm
+	}
 	for _, rg := range regimes {
-		for _, fused := range []bool{false, true} {
+		for _, vr := range []variant{{false, upLooking}, {true, upLooking}, {false, multifrontal}} {
+			fused := vr.fused
 			n := rg.n
 			build := func(v []float64) *Sym {
 				b := NewBuilder(n)
@@ -587,6 +606,7 @@ func TestRoundoffBoundHillClimb(t *testing.T) {
 			}
 			score := func(v []float64) float64 {
 				c := roundoffCounter(toISym(build(v)), toISym(identity(n)))
+				c.f.algorithm = vr.algorithm
 				if !factorForBound(c, 0, naturalOrderOf(n)) {
 					return 0
 				}
@@ -632,12 +652,12 @@ func TestRoundoffBoundHillClimb(t *testing.T) {
 				}
 				best = math.Max(best, cur)
 			}
-			t.Logf("%s fused=%v: largest |R_ij|/bound_ij found %.3f", rg.name, fused, best)
+			t.Logf("%s %+v: largest |R_ij|/bound_ij found %.3f", rg.name, vr, best)
 			if !(best < 1) {
-				t.Errorf("%s fused=%v: the entrywise inequality fails (ratio %g)", rg.name, fused, best)
+				t.Errorf("%s %+v: the entrywise inequality fails (ratio %g)", rg.name, vr, best)
 			}
 			if best < rg.least {
-				t.Errorf("%s fused=%v: the search found only %g: it does not approach the bound", rg.name, fused, best)
+				t.Errorf("%s %+v: the search found only %g: it does not approach the bound", rg.name, vr, best)
 			}
 		}
 	}
@@ -703,29 +723,32 @@ func TestRoundoffCountNearEigenvalues(t *testing.T) {
 			t.Fatal(err)
 		}
 		mMin := me[0].Lo
-		c := roundoffCounter(toISym(k), toISym(m))
-		for i, e := range eig {
-			mid := e.Mid()
-			for _, sigma := range []float64{mid, math.Nextafter(mid, math.Inf(1)), mid * (1 + 1e-13), mid * (1 - 1e-13)} {
-				got, sp, ok := c.CountBelow(mMin, sigma)
-				if !ok {
-					continue
-				}
-				checked++
-				below := 0
-				for _, v := range eig {
-					if v.Hi < sp {
-						below++
+		for _, alg := range []factorAlgorithm{upLooking, multifrontal} {
+			c := roundoffCounter(toISym(k), toISym(m))
+			c.f.algorithm = alg
+			for i, e := range eig {
+				mid := e.Mid()
+				for _, sigma := range []float64{mid, math.Nextafter(mid, math.Inf(1)), mid * (1 + 1e-13), mid * (1 - 1e-13)} {
+					got, sp, ok := c.CountBelow(mMin, sigma)
+					if !ok {
+						continue
+					}
+					checked++
+					below := 0
+					for _, v := range eig {
+						if v.Hi < sp {
+							below++
+						}
+					}
+					if below > got {
+						t.Errorf("trial %d eigenvalue %d σ=%g: %d eigenvalues below σ'=%g, count %d", trial, i, sigma, below, sp, got)
 					}
 				}
-				if below > got {
-					t.Errorf("trial %d eigenvalue %d σ=%g: %d eigenvalues below σ'=%g, count %d", trial, i, sigma, below, sp, got)
-				}
-			}
-			if i+1 < n && e.Hi < eig[i+1].Lo {
-				sigma := (e.Hi + eig[i+1].Lo) / 2
-				if got, _, ok := c.CountBelow(mMin, sigma); ok && got != i+1 {
-					t.Errorf("trial %d: σ=%g between eigenvalues %d and %d: count %d", trial, sigma, i+1, i+2, got)
+				if i+1 < n && e.Hi < eig[i+1].Lo {
+					sigma := (e.Hi + eig[i+1].Lo) / 2
+					if got, _, ok := c.CountBelow(mMin, sigma); ok && got != i+1 {
+						t.Errorf("trial %d algorithm %d: σ=%g between eigenvalues %d and %d: count %d", trial, alg, sigma, i+1, i+2, got)
+					}
 				}
 			}
 		}

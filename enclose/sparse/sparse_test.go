@@ -760,31 +760,37 @@ func TestCounterReuse(t *testing.T) {
 	}
 }
 
-// TestSolveBlock: the four-vector block solve agrees with SolveTo for
-// block counts around the block size.
+// TestSolveBlock: the block solve gives the bits of SolveTo for block
+// counts around the group size, in one group and split over goroutines.
 func TestSolveBlock(t *testing.T) {
-	s := shifted(grid5(20), identity(400), 300)
-	f, ok := Factor(s, Order(s))
-	if !ok {
-		t.Fatal("factorization failed")
-	}
 	r := rand.New(rand.NewPCG(9, 9))
-	for count := 1; count <= 9; count++ {
-		b := newVectors(count, 400)
-		for _, v := range b {
-			for i := range v {
-				v[i] = r.Float64()
+	for _, s := range []*Sym{shifted(grid5(20), identity(400), 300), grid7(16)} {
+		f, ok := Factor(s, Order(s))
+		if !ok {
+			t.Fatal("factorization failed")
+		}
+		n := s.N()
+		for _, count := range []int{1, 2, 3, 4, 5, 9, solveWidth, solveWidth + 1, 2*solveWidth + 2} {
+			b := newVectors(count, n)
+			for _, v := range b {
+				for i := range v {
+					v[i] = r.Float64()
+				}
 			}
-		}
-		want := newVectors(count, 400)
-		for c := range b {
-			f.SolveTo(want[c], b[c])
-		}
-		got := newVectors(count, 400)
-		f.solveBlockTo(got, b, nil)
-		for c := range got {
-			if !slices.Equal(got[c], want[c]) {
-				t.Errorf("count %d: vector %d differs", count, c)
+			want := newVectors(count, n)
+			for c := range b {
+				f.SolveTo(want[c], b[c])
+			}
+			if s.N() > 1000 && len(f.Val)*count < parallelSolveWork && count > 8 {
+				t.Fatalf("n=%d count %d: the split over goroutines is not reached", n, count)
+			}
+			got := newVectors(count, n)
+			var work []float64
+			f.solveBlockTo(got, b, &work)
+			for c := range got {
+				if !slices.Equal(got[c], want[c]) {
+					t.Errorf("n=%d count %d: vector %d differs", n, count, c)
+				}
 			}
 		}
 	}
