@@ -143,6 +143,8 @@ type LDL struct {
 	// rowsOf is the Symbolic whose row indices Row holds (the
 	// multifrontal algorithm copies them once).
 	rowsOf *Symbolic
+	// fronts are the workspaces of the multifrontal algorithm's workers.
+	fronts []*frontWork
 }
 
 // factorAlgorithm names a numeric factorization of LDL.Factorize.

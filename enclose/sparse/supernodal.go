@@ -18,7 +18,8 @@ import (
 // unknowns and 7-point grid with 1,728, nested dissection, 2.2·10⁶ and
 // 3.2·10⁶ multiply-adds: within 10% either way); below it the up-looking
 // loop is faster (2 to 4 times at 2.5·10⁵), above it the multifrontal one
-// (4 to 5 times at 1.3·10⁸ and 8.7·10⁹).
+// (3.1 and 5.5 times less CPU time on the cube's stage-A pencils with 1.3·10⁸
+// and 8.7·10⁹ multiply-adds; BenchmarkCubeFactor).
 const supernodeWork = 1 << 21
 
 // panelWidth is the number of columns of a front factored together before
@@ -35,10 +36,11 @@ const parallelFrontWork = 1 << 18
 // their tree, the row indices of L and the lower triangle of PᵀSP by
 // columns.
 type supernodes struct {
-	start    []int   // supernode s holds the columns start[s] … start[s+1]−1
-	parent   []int   // supernode tree; −1 at roots
-	childPtr []int   // children of s: child[childPtr[s]:childPtr[s+1]], ascending
-	child    []int32 //
+	start    []int // supernode s holds the columns start[s] … start[s+1]−1
+	maxFront int   // the largest order of a front
+	parent   []int // supernode tree; −1 at roots
+	childPtr []int // the children of s are child[childPtr[s]:childPtr[s+1]], ascending
+	child    []int32
 	rows     []int32 // row indices of L, laid out as LDL.Row
 	// The lower triangle of PᵀSP by columns: column j holds the rows
 	// lRow[lPtr[j]:lPtr[j+1]] ≥ j with values S.Val[lSrc[·]].
@@ -81,6 +83,9 @@ func newSupernodes(sym *Symbolic) *supernodes {
 	}
 	ns := len(sn.start)
 	sn.start = append(sn.start, n)
+	for _, f := range sn.start[:ns] {
+		sn.maxFront = max(sn.maxFront, 1+cp[f+1]-cp[f])
+	}
 	sn.parent = make([]int, ns)
 	sn.childPtr = make([]int, ns+1)
 	for s := 0; s < ns; s++ {
@@ -130,10 +135,11 @@ func (sn *supernodes) frontRows(sym *Symbolic, s int) (f int, below []int32) {
 	return f, sn.rows[sym.colPtr[f]:sym.colPtr[f+1]]
 }
 
-// frontWork is the workspace of one worker of factorizeSupernodal.
+// frontWork is the workspace of one worker of factorizeSupernodal, kept
+// by the LDL for the next factorization.
 type frontWork struct {
 	pos    []int32   // pos[r]: index of row r in the current front
-	front  []float64 // the front, column-major
+	front  []float64 // the front, column-major; zero between fronts
 	uPanel []float64 // ũ of the current panel, row-major (h × panelWidth)
 	lPanel []float64 // L of the current panel, row-major
 	// idle returns the number of CPUs that no worker uses at the moment
@@ -225,12 +231,19 @@ func (f *LDL) factorizeSupernodal(sym *Symbolic, s *Sym) bool {
 		defer r.mu.Unlock()
 		return workers - r.active
 	}
+	for len(f.fronts) < workers {
+		f.fronts = append(f.fronts, &frontWork{})
+	}
 	var wg sync.WaitGroup
-	for range workers {
+	for t := range workers {
+		ws := f.fronts[t]
+		if len(ws.pos) != n {
+			ws.pos = make([]int32, n)
+		}
+		ws.idle = idle
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			ws := &frontWork{pos: make([]int32, n), idle: idle}
 			var children [][]float64
 			for {
 				r.mu.Lock()
@@ -276,6 +289,10 @@ func (f *LDL) factorizeSupernodal(sym *Symbolic, s *Sym) bool {
 		}()
 	}
 	wg.Wait()
+	if r.failed {
+		// A front left unfinished is not zero: drop the workspaces.
+		f.fronts = nil
+	}
 	return !r.failed
 }
 
@@ -296,12 +313,9 @@ func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children
 		pos[r] = int32(i + 1)
 	}
 	if cap(ws.front) < h*h {
-		ws.front = make([]float64, h*h)
+		ws.front = make([]float64, sn.maxFront*sn.maxFront) // zero
 	}
-	fr := ws.front[:h*h]
-	for j := 0; j < h; j++ {
-		clear(fr[j*h+j : j*h+h])
-	}
+	fr := ws.front[:h*h] // zero: every front clears what it wrote
 	for j := first; j < first+w; j++ {
 		col := fr[(j-first)*h:]
 		for q := sn.lPtr[j]; q < sn.lPtr[j+1]; q++ {
@@ -324,16 +338,20 @@ func (f *LDL) factorFront(sym *Symbolic, sn *supernodes, s *Sym, p int, children
 	if !factorDense(fr, h, w, ws) {
 		return false
 	}
+	// Copy out L, D and the update matrix, clearing the lower triangle of
+	// the front (nothing else was written) for the next one.
 	for j := 0; j < w; j++ {
 		f.D[first+j] = fr[j*h+j]
 		copy(f.Val[sym.colPtr[first+j]:sym.colPtr[first+j+1]], fr[j*h+j+1:j*h+h])
+		clear(fr[j*h+j : j*h+h])
 	}
 	m := h - w
-	if u == nil {
-		return true
-	}
 	for b, off := 0, 0; b < m; b++ {
-		copy(u[off:off+m-b], fr[(w+b)*h+w+b:(w+b)*h+h])
+		col := fr[(w+b)*h+w+b : (w+b)*h+h]
+		if u != nil {
+			copy(u[off:off+m-b], col)
+		}
+		clear(col)
 		off += m - b
 	}
 	return true
