@@ -10,7 +10,9 @@ import (
 // TestMultifrontalBitsOnProcs: the multifrontal factors, the verified
 // count and its σ' (a-priori residual bound), and the block solves are
 // the same bits on 1, 2 and 8 CPUs, each repeated five times (different
-// schedules of the subtrees and of the split updates), on a 27-point 3D
+// schedules of the subtrees and of the split updates) with one Counter
+// whose kept fronts are dirtied by factorizations at another shift
+// between the runs, on a 27-point 3D
 // grid whose top fronts are large enough for the panel updates to be
 // split over the CPUs and on a dense indefinite matrix of one front.
 // Run with -race too.
@@ -41,13 +43,21 @@ func TestMultifrontalBitsOnProcs(t *testing.T) {
 				v[i] = rnd.Float64() - 0.5
 			}
 		}
+		// One Counter for all runs: its LDL keeps the workers' fronts
+		// across factorizations, dirtied in between by a factorization at
+		// another shift.
+		c := roundoffCounter(k, m)
+		c.f.algorithm = multifrontal
+		if tc.perm != nil {
+			c.sym = analyzePattern(c.c.Pat, tc.perm)
+		}
 		for _, procs := range []int{1, 2, 8} {
 			runtime.GOMAXPROCS(procs)
 			for rep := 0; rep < 5; rep++ {
-				c := roundoffCounter(k, m)
-				c.f.algorithm = multifrontal
-				if tc.perm != nil {
-					c.sym = analyzePattern(c.c.Pat, tc.perm)
+				if rep%2 == 1 {
+					if _, _, ok := c.CountBelow(1, 0.75*tc.sigma+1); !ok {
+						t.Fatalf("%s: factorization at the other shift failed", tc.name)
+					}
 				}
 				if rep == 0 && procs == 1 {
 					longest := 0
@@ -66,8 +76,8 @@ func TestMultifrontalBitsOnProcs(t *testing.T) {
 				var work []float64
 				c.f.solveBlockTo(x, b, &work)
 				if first == nil {
-					f := c.f
-					first, firstN, firstSP, firstX = &f, n, sp, x
+					first = &LDL{D: slices.Clone(c.f.D), Val: slices.Clone(c.f.Val)}
+					firstN, firstSP, firstX = n, sp, x
 					continue
 				}
 				if !slices.Equal(first.D, c.f.D) || !slices.Equal(first.Val, c.f.Val) {
