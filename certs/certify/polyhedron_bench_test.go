@@ -2,7 +2,10 @@ package certify
 
 import (
 	"context"
+	"fmt"
 	"strconv"
+	"strings"
+	"syscall"
 	"testing"
 	"time"
 
@@ -47,8 +50,7 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 		limit     time.Duration
 	}{
 		{"cube", cubePolyhedron("dirichlet", "0"), 120 * time.Second},
-		{"regular-tetrahedron", `{"domain": {"polyhedron": {"vertices": [["1","1","1"],["1","-1","-1"],["-1","1","-1"],["-1","-1","1"]],
-			"faces": [[0,1,2],[0,3,1],[0,2,3],[1,3,2]]}}, "boundary": "dirichlet", "eigenvalues": 2}`, 300 * time.Second},
+		{"regular-tetrahedron", regularTetrahedronSource, 300 * time.Second},
 	} {
 		b.Run(c.name, func(b *testing.B) {
 			p, err := problem.Parse([]byte(c.src))
@@ -56,9 +58,19 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 				b.Fatal(err)
 			}
 			for b.Loop() {
-				cert, err := Certify(context.Background(), p, Options{RelWidth: "1e-8", TimeLimit: c.limit})
+				// The convergence table: one progress line per step
+				// (widths, unknowns, step time).
+				var steps []string
+				progress := func(format string, args ...any) { steps = append(steps, fmt.Sprintf(format, args...)) }
+				cpu0 := cpuSeconds(b)
+				cert, err := Certify(context.Background(), p, Options{RelWidth: "1e-8", TimeLimit: c.limit, Progress: progress})
 				if err != nil {
 					b.Fatal(err)
+				}
+				b.ReportMetric(cpuSeconds(b)-cpu0, "cpu-s")
+				b.ReportMetric(peakRSS(b)/(1<<20), "peak-rss-MiB")
+				for _, line := range steps {
+					b.Log(strings.TrimSpace(line))
 				}
 				m, err := decodeMethod(cert.Method)
 				if err != nil {
@@ -75,4 +87,23 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 			}
 		})
 	}
+}
+
+// cpuSeconds is the user and system CPU time of this process so far.
+func cpuSeconds(b *testing.B) float64 {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		b.Fatal(err)
+	}
+	return float64(ru.Utime.Sec+ru.Stime.Sec) + float64(ru.Utime.Usec+ru.Stime.Usec)/1e6
+}
+
+// peakRSS is the peak resident set size of this process in bytes (Linux
+// reports it in KiB), over the whole benchmark process.
+func peakRSS(b *testing.B) float64 {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		b.Fatal(err)
+	}
+	return float64(ru.Maxrss) * 1024
 }

@@ -137,8 +137,8 @@ func TestPolyhedronCheckRefusesOutOfRangeRecipe(t *testing.T) {
 	}{
 		{func(m *Method) { m.Degree = 0 }, "method.degree 0 out of range"},
 		{func(m *Method) { m.Degree = -3 }, "method.degree -3 out of range"},
-		{func(m *Method) { m.Degree = 9 }, "method.degree 9 out of range (1 to 8 on polyhedra)"},
-		{func(m *Method) { m.FluxDegree = 9 }, "method.flux_degree 9 out of range (0 to 8 on polyhedra)"},
+		{func(m *Method) { m.Degree = 13 }, "method.degree 13 out of range (1 to 12 on polyhedra)"},
+		{func(m *Method) { m.FluxDegree = 13 }, "method.flux_degree 13 out of range (0 to 12 on polyhedra)"},
 		{func(m *Method) { m.FluxDegree = -1 }, "method.flux_degree -1 out of range"},
 		{func(m *Method) { m.Refinements = -1 }, "method.refinements -1 out of range"},
 		{func(m *Method) { m.Refinements = 8 }, "method.refinements 8 out of range (0 to 7 on polyhedra)"},

@@ -3,6 +3,7 @@ package tet
 import (
 	"fmt"
 	"math/big"
+	"runtime"
 	"sync"
 )
 
@@ -384,22 +385,34 @@ func rtRatInverse(a [][]*big.Rat) ([][]*big.Rat, bool) {
 		}
 		w[c], w[piv] = w[piv], w[c]
 		inv := new(big.Rat).Inv(w[c][c])
+		var cols []int // the nonzero columns of the pivot row
 		for j := range w[c] {
 			if w[c][j].Sign() != 0 {
 				w[c][j].Mul(w[c][j], inv)
+				cols = append(cols, j)
 			}
 		}
-		for r := 0; r < n; r++ {
-			if r == c || w[r][c].Sign() == 0 {
-				continue
-			}
-			f := new(big.Rat).Set(w[r][c])
-			for j := range w[r] {
-				if w[c][j].Sign() != 0 {
-					w[r][j].Sub(w[r][j], new(big.Rat).Mul(f, w[c][j]))
+		// The other rows are independent given the pivot row: split them
+		// among the cores (exact arithmetic, so the order does not matter).
+		workers := min(runtime.GOMAXPROCS(0), 1+n/64)
+		var wg sync.WaitGroup
+		for g := range workers {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				f, t := new(big.Rat), new(big.Rat)
+				for r := g; r < n; r += workers {
+					if r == c || w[r][c].Sign() == 0 {
+						continue
+					}
+					f.Set(w[r][c])
+					for _, j := range cols {
+						w[r][j].Sub(w[r][j], t.Mul(f, w[c][j]))
+					}
 				}
-			}
+			}()
 		}
+		wg.Wait()
 	}
 	out := make([][]*big.Rat, n)
 	for i := range out {
