@@ -296,9 +296,9 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 // three quarters of the way to Λ_(N+1) (stage A converges like h²), whose
 // Ritz upper bound stands in for it; without one (N is the last index
 // bounded) ρ̂ is taken to limit. Measured with N = 4: the Dirichlet cube
-// (96 tetrahedra, stage A on 6144) expects 10.8 (ρ̂ 64.6, Λ_2 62.5, Λ_5 ≤
-// 92.1), and its level narrowed λ2 from 5.3e-6 to 2.3e-9 with the step to
-// P_8; the regular tetrahedron (8 tetrahedra, stage A on 4096) expects 4.7
+// at P_7 (96 tetrahedra, stage A on 6144) expects 10.3 (ρ̂ 64.71, Λ_2
+// 62.51, Λ_5 ≤ 92.12), and its level narrowed λ2 from 5.3e-6 to 2.3e-9
+// with the step to P_8; the regular tetrahedron (8 tetrahedra, stage A on 4096) expects 4.7
 // (ρ̂ 38.97, Λ_2 36.07, Λ_5 ≤ 53.42), and its level narrowed λ2 at P_8
 // from 1.1e-3 to 2.4e-4 for 100 s of stage A, where the step to P_9
 // without it gave 2.4e-5 for 30 s. A choice; every recipe is sound.

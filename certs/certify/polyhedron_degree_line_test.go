@@ -16,8 +16,9 @@ const regularTetrahedronSource = `{"domain": {"polyhedron": {"vertices": [["1","
 // (shifted Ritz bounds of Λ_1..Λ_5, ρ̂ = stage-A bound of Λ_5, N = 4): the
 // regular tetrahedron at P_8 (8 tetrahedra, stage A on 4096; amplification
 // 12 but a stage-A level expected to widen ρ̂ − Λ_2 only 4.7 times) takes
-// the degree line; the Dirichlet cube (ρ̂ 64.6 against Λ_2 62.5, Λ_5 ≤
-// 92.1: 10.8 times) refines stage A.
+// the degree line; the Dirichlet cube at P_7 (96 tetrahedra, stage A on
+// 6144; ρ̂ 64.71 against Λ_2 62.51, Λ_5 ≤ 92.12: 10.3 times) refines stage
+// A.
 func TestPolyhedronNextRaisesDegreeBeforeTrialMesh(t *testing.T) {
 	d := polyhedron{parseProblem(t, regularTetrahedronSource)}
 	tetra := &outcome{ritz: []float64{20.1053, 36.0711, 36.0711, 36.0744, 53.4242}, rho: 38.9664, n: 4}
@@ -48,7 +49,7 @@ func TestPolyhedronNextRaisesDegreeBeforeTrialMesh(t *testing.T) {
 	}
 
 	cube := polyhedron{parseProblem(t, cubePolyhedron("dirichlet", "0"))}
-	co := &outcome{ritz: []float64{32.9, 62.5, 62.5, 62.5, 92.1}, rho: 64.6, n: 4}
+	co := &outcome{ritz: []float64{32.8987, 62.5075, 62.5075, 62.5075, 92.1163}, rho: 64.7104, n: 4}
 	for _, deg := range []int{7, 9} {
 		r := recipe{degree: deg, fluxDegree: deg, refine: 1, stageARefine: 3, extra: defaultExtraIndices}
 		next, why := cube.next(r, co, 3)
