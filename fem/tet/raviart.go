@@ -170,11 +170,20 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 		gram = rtTripleRat(0, n, k-1)
 	}
 	red := rtReduction(k)
-	for m, s := range span {
-		for l, v := range rtFunctionals(k, s, gram, red) {
-			a[l][m] = v
-		}
+	var wg sync.WaitGroup
+	workers := runtime.GOMAXPROCS(0)
+	for g := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for m := g; m < len(span); m += workers {
+				for l, v := range rtFunctionals(k, span[m], gram, red) {
+					a[l][m] = v
+				}
+			}
+		}()
 	}
+	wg.Wait()
 	x, ok := rtRatInverse(a)
 	if !ok {
 		panic(fmt.Sprintf("tet: Raviart–Thomas degrees of freedom of degree %d are not unisolvent", k))
@@ -193,22 +202,29 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 		}
 	}
 	comp = make([]rtField, ndof)
-	for l := 0; l < ndof; l++ {
-		comp[l] = rtField{zero(), zero(), zero()}
-		for m, s := range span {
-			if x[m][l].Sign() == 0 {
-				continue
-			}
-			for _, e := range nz[m] {
-				v := comp[l][e.c][e.b]
-				v.Add(v, new(big.Rat).Mul(x[m][l], s[e.c][e.b]))
-			}
-		}
-	}
 	div = make([][]*big.Rat, ndof)
-	for l := range comp {
-		div[l] = rtDivergenceRat(comp[l], n)
+	// The basis functions are independent: split them among the cores.
+	for g := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			t := new(big.Rat)
+			for l := g; l < ndof; l += workers {
+				comp[l] = rtField{zero(), zero(), zero()}
+				for m, s := range span {
+					if x[m][l].Sign() == 0 {
+						continue
+					}
+					for _, e := range nz[m] {
+						v := comp[l][e.c][e.b]
+						v.Add(v, t.Mul(x[m][l], s[e.c][e.b]))
+					}
+				}
+				div[l] = rtDivergenceRat(comp[l], n)
+			}
+		}()
 	}
+	wg.Wait()
 	return comp, div
 }
 
