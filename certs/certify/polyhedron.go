@@ -368,10 +368,12 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 // unknowns to about 250 s at 96,768). On a degree step the rest grows
 // like the cube of the dimension of RT_k on a tetrahedron (the exact
 // Raviart–Thomas tables of fem/tet and the element blocks of the flux
-// choice are dense in it), with a margin of a quarter: measured rest
-// times (CPU on a loaded machine) grew 8.7 times from P_5 to P_7 on the cube
-// (cube of the dimensions 9.2), 1.9 and 2.4 times from P_7 to P_8 and P_8
-// to P_9 on the regular tetrahedron (2.5 and 2.3).
+// choice are dense in it), with a margin of a quarter. Measured: building
+// the RT_k tables took 9.9, 24.2 and 52.4 s of CPU at k = 8, 9, 10
+// (ratios 2.45 and 2.17; cubes of the dimension ratios 2.32 and 2.16);
+// the steps' time less stage A on the regular tetrahedron (8 tetrahedra,
+// wall time on a loaded machine) grew 1.9 and 2.4 times from P_7 to P_8
+// and P_8 to P_9 (2.54 and 2.32 in the model).
 func (polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
 	stageA := min(out.stageATime, last)
 	rest := last - stageA
