@@ -50,6 +50,14 @@ import (
 //	8  455    3,960  9.3e-7    1.1e-3
 //	9  680    5,280  2.8e-7    2.4e-5
 //	10 969    6,864  6.3e-8    9.5e-6
+//	11 1,330  8,736  2.4e-7    1.3e-6   (137 s of CPU for the step)
+//
+// At P_11 λ1's Lehmann–Goerisch bound falls back (18.8715845 against
+// 18.8715882 at P_10) while its Ritz bound still improves (18.8715891),
+// as the cube's λ1 does at P_10 (its bound 2.0e-8 below 3π² against
+// 2.1e-9 at P_9); λ2 and the gap keep narrowing, so the step is kept by
+// the worst width. The interval widths of the Ritz and flux matrices grow
+// only by a third per degree there; the cause is open.
 //
 // λ1 ≈ 18.871589: its Ritz bounds (18.8715969, .5912, .5894 at P_8..P_10)
 // and Lehmann–Goerisch bounds (.5793, .5860, .5882) close at the same
