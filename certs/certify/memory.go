@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"gapcert/fem/problem"
+	"gapcert/fem/tet"
 )
 
 // bytesPerUnknown is the peak memory per stage-A unknown of a polygon
@@ -86,7 +87,24 @@ func (d polyhedron) memory(r recipe) int64 {
 	flux := fluxUnknowns * bytesPerFluxUnknown * math.Max(1, k/2)
 	want := float64(d.p.Eigenvalues + r.extra)
 	vectors := (12*(want+8)*nT + want*fluxUnknowns) * 8
-	return int64(math.Min(math.Max(stageA, trial+flux+vectors), math.MaxInt64/2))
+	return int64(math.Min(math.Max(stageA, trial+flux+vectors+rtTableBytes(r.fluxDegree)), math.MaxInt64/2))
+}
+
+// rtTableBytes estimates the peak memory of building the exact reference
+// tables of RT_k (package fem/tet: Gauss–Jordan elimination of the
+// n × 2n rational matrix of its degrees of freedom, n = dim RT_k, whose
+// entries grow with k) as 2n² entries of 100k bytes. Measured peak RSS of
+// the construction alone: 306 MB at k = 8 (n = 540; estimate 466 MB), 516
+// MB at k = 9 (n = 715; 920 MB); of a whole step at P_10 on the regular
+// tetrahedron (8 tetrahedra, stage A on 4096) 1.10 GB (n = 924; 1.7 GB);
+// at k = 12 (n = 1456; 5.1 GB) 2.50 GB for the construction alone (248 s
+// of CPU).
+func rtTableBytes(k int) float64 {
+	if k <= 0 {
+		return 0
+	}
+	n := float64(tet.RTDim(k))
+	return 2 * n * n * 100 * float64(k)
 }
 
 // Memory of polyhedron computations (polyhedron.memory). Measured peak

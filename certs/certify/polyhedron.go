@@ -41,20 +41,24 @@ type polyhedronRecord struct {
 // Recipe ranges on polyhedra: the trial degree p (the flux degree is k =
 // p), and uniform levels of the trial and stage-A meshes (each level has
 // eight times the tetrahedra; the memory estimate stops a run long before
-// the caps).
+// the caps). The degree cap bounds the exact Raviart–Thomas tables of
+// package fem/tet, built in rational arithmetic (RT_12 has 1456 basis
+// functions; measured 248 s of CPU and 2.5 GB to build its tables, the
+// cost growing like the cube of that number).
 const (
-	maxPolyhedronDegree = 8
+	maxPolyhedronDegree = 12
 	maxPolyhedronRefine = 7
 )
 
 // polyhedronSmoothDegree is the degree up to which the driver raises p
-// before it refines the trial mesh. Measured on the unit cube (12 cone
+// two at a time (and with it decides on stage A's level, rhoLimits). Measured on the unit cube (12 cone
 // tetrahedra refined once, 96 tetrahedra; stage A on three levels), the
 // Lehmann–Goerisch error of λ1 falls from 7.6e-4 at p = 3 to 3.2e-7 at 5,
 // 3.2e-9 at 6 and 1.1e-12 at 8 (λ2, three times: 3.4e-2, 6.9e-5, 3.4e-6,
 // 1.3e-9) at 14, 15, 20 and 56 s of CPU time, while a level costs eight
-// times the unknowns.
-const polyhedronSmoothDegree = maxPolyhedronDegree
+// times the unknowns. Past it the degree rises one at a time up to
+// maxPolyhedronDegree before the trial mesh is refined (next).
+const polyhedronSmoothDegree = 8
 
 // polyhedronSeparationDegree is the degree up to which the trial space is
 // raised, two at a time, together with the stage-A level while no N
@@ -205,10 +209,28 @@ func (polyhedron) stallNote() string {
 // Stop reason). While stage B does not run, stage A (which converges like
 // h²) is refined, and the degree raised up to polyhedronSeparationDegree.
 // Once it runs, the degree is raised by two up to polyhedronSmoothDegree
-// (the flux degree follows, k = p); when ρ̂ limits (amplification
-// above polyhedronMaxAmplification), the stage-A mesh is refined, with the
-// step to that degree, and the indices extended past the next cluster;
-// otherwise the trial mesh is refined. A stage-A level costs eight times the unknowns; its verified
+// (the flux degree follows, k = p); when ρ̂ limits (rhoLimits), the
+// stage-A mesh is refined, with the step to that degree, and the indices
+// extended past the next cluster; otherwise the degree is raised by one up
+// to maxPolyhedronDegree, and then the trial mesh is refined.
+//
+// Degree before mesh: on a fixed mesh whose edges include the singular
+// edges of the polyhedron (the cone tetrahedra and their refinements
+// have the polyhedron's edges as element edges), the p-version's
+// eigenvalue error falls like p^(−4α) for the edge exponent α = π/ω of a
+// Dirichlet edge of dihedral angle ω, and exponentially for analytic
+// eigenfunctions, while the h-version's falls like h^(2 min(p, α))
+// (Babuška and Suri, The p and h-p versions of the finite element method,
+// basic principles and properties, SIAM Review 36 (1994); Schwab, p- and
+// hp-Finite Element Methods, Oxford 1998; the rates recalled from memory).
+// A level costs about 64 times the step (eight times the unknowns, sparse
+// factorizations about N²), a degree step two to three times (stepTime):
+// for the regular tetrahedron (α = π/arccos(1/3) ≈ 2.55) a level gains
+// about 2^5.1 ≈ 34 for a 64-fold cost, a degree step at p = 8 about
+// (9/8)^10.2 ≈ 3.3 for a 2.5-fold cost (measured 3.4, λ1), the better rate
+// up to p ≈ 12.
+//
+// A stage-A level costs eight times the unknowns; its verified
 // counts cost about one sparse factorization each since their residual
 // is bounded a priori (package enclose/sparse; measured on the cube's
 // Kuhn meshes: 0.36 s of which 0.02 s for the bound at 11k unknowns,
@@ -237,8 +259,7 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 		}
 		return r, ""
 	}
-	lm := out.ritz[p.Eigenvalues-1]
-	rhoLimits := lm/(out.rho-lm) > polyhedronMaxAmplification && polyhedronTetrahedra(p, r.stageARefine+1) <= maxRhoStageATetrahedra
+	rhoLimits := polyhedronRhoLimits(out, p.Eigenvalues) && polyhedronTetrahedra(p, r.stageARefine+1) <= maxRhoStageATetrahedra
 	refineStageA := func() {
 		// ρ̂ limits: a finer stage A raises it, and the indices past the
 		// next cluster let chooseN pass it (maxRaiseN3D).
@@ -255,16 +276,48 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 		}
 	case rhoLimits:
 		refineStageA()
-	case r.refine < r.stageARefine && r.refine < maxPolyhedronRefine:
-		r.refine++
 	case r.degree < maxPolyhedronDegree:
 		r.degree++
+	case r.refine < r.stageARefine && r.refine < maxPolyhedronRefine:
+		r.refine++
 	default:
 		return r, StopCap
 	}
 	r.fluxDegree = r.degree
 	return r, ""
 }
+
+// polyhedronRhoLimits reports whether ρ̂, the stage-A lower bound of
+// Λ_(N+1), limits the Lehmann–Goerisch bound of Λ_m (m requested
+// eigenvalues) enough to pay for a stage-A level: its amplification
+// Λ_m/(ρ̂ − Λ_m) exceeds polyhedronMaxAmplification, and a level is
+// expected to widen ρ̂ − Λ_m at least polyhedronMinRhoGain times. The
+// Lehmann–Goerisch (Temple) defect of Λ_m is about η²/(ρ̂ − Λ_m) for the
+// residual η of its approximate eigenvector, and a level brings ρ̂ about
+// three quarters of the way to Λ_(N+1) (stage A converges like h²), whose
+// Ritz upper bound stands in for it; without one (N is the last index
+// bounded) ρ̂ is taken to limit. Measured with N = 4: the Dirichlet cube
+// at P_7 (96 tetrahedra, stage A on 6144) expects 10.3 (ρ̂ 64.71, Λ_2
+// 62.51, Λ_5 ≤ 92.12), and its level narrowed λ2 from 5.3e-6 to 2.3e-9
+// with the step to P_8; the regular tetrahedron (8 tetrahedra, stage A on 4096) expects 4.7
+// (ρ̂ 38.97, Λ_2 36.07, Λ_5 ≤ 53.42), and its level narrowed λ2 at P_8
+// from 1.1e-3 to 2.4e-4 for 100 s of stage A, where the step to P_9
+// without it gave 2.4e-5 for 30 s. A choice; every recipe is sound.
+func polyhedronRhoLimits(out *outcome, m int) bool {
+	lm := out.ritz[m-1]
+	if !(lm/(out.rho-lm) > polyhedronMaxAmplification) {
+		return false
+	}
+	if out.n >= len(out.ritz) {
+		return true
+	}
+	expected := out.rho + 0.75*(out.ritz[out.n]-out.rho)
+	return (expected-lm)/(out.rho-lm) >= polyhedronMinRhoGain
+}
+
+// polyhedronMinRhoGain is the least expected widening of ρ̂ − Λ_m for
+// which a stage-A level is taken (polyhedronRhoLimits).
+const polyhedronMinRhoGain = 8
 
 // polyhedronMesh returns the cone tetrahedra of the polyhedron (apex
 // joined to the outward triangles of its faces, in the order of
@@ -313,16 +366,24 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 // factorizations of a 3D mesh cost about N² (so a level costs up to 64
 // times as much; measured with the verified counts of the cheap residual
 // bound on the Dirichlet cube, stage A went from about 5 s at 11,904
-// unknowns to about 250 s at 96,768), and a degree step costs a few times
-// the trial and flux work.
+// unknowns to about 250 s at 96,768). On a degree step the rest grows
+// like the cube of the dimension of RT_k on a tetrahedron (the exact
+// Raviart–Thomas tables of fem/tet and the element blocks of the flux
+// choice are dense in it), with a margin of a quarter. Measured: building
+// the RT_k tables took 9.9, 24.2 and 52.4 s of CPU at k = 8, 9, 10
+// (ratios 2.45 and 2.17; cubes of the dimension ratios 2.32 and 2.16);
+// the steps' time less stage A on the regular tetrahedron (8 tetrahedra,
+// wall time on a loaded machine) grew 1.9 and 2.4 times from P_7 to P_8
+// and P_8 to P_9 (2.54 and 2.32 in the model).
 func (polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
 	stageA := min(out.stageATime, last)
 	rest := last - stageA
 	switch {
 	case next.refine > r.refine:
 		rest *= 64
-	case next.degree != r.degree:
-		rest *= 4
+	case next.fluxDegree != r.fluxDegree:
+		q := float64(tet.RTDim(max(next.fluxDegree, 0))) / float64(tet.RTDim(max(r.fluxDegree, 0)))
+		rest = time.Duration(float64(rest) * 1.25 * q * q * q)
 	}
 	if next.stageARefine > r.stageARefine {
 		stageA *= 64

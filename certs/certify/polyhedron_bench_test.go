@@ -2,7 +2,10 @@ package certify
 
 import (
 	"context"
+	"fmt"
 	"strconv"
+	"strings"
+	"syscall"
 	"testing"
 	"time"
 
@@ -31,12 +34,39 @@ import (
 // With the 120 s limit of the benchmark the last step does not fit, and
 // the run stops after the third.
 //
-// The regular tetrahedron (idle machine, limit 300 s): five steps on the
-// 8 tetrahedra of the refined tetrahedron, the last at P_8 with 63,488
-// stage-A unknowns: λ1 7.7e-7, λ2 2.4e-4, gap 5.2e-4 at 128 s (131 s of
-// CPU); the next step, 64 trial tetrahedra at P_8, is predicted not to
-// fit.
-// Its Ritz bounds converge slowly in p (edge singularities, no grading).
+// The regular tetrahedron: before the degree line, five steps on the 8
+// tetrahedra of the refined tetrahedron, the last at P_8 with stage A on
+// 32,768 tetrahedra (63,488 unknowns): λ1 7.7e-7, λ2 2.4e-4, gap 5.2e-4
+// at 128 s (idle machine, 131 s of CPU); the next step, 64 trial
+// tetrahedra at P_8, was predicted not to fit. With the degree line
+// (stage A stays on 4096 tetrahedra, 7,680 unknowns: a level is expected
+// to widen ρ̂ − Λ_2 only 4.7 times), steps measured one by one with the
+// same recipes (loaded machine; CPU time of a step at P_k is dominated by
+// the exact RT_k tables, built once per process: 9.9, 24, 52 s of CPU at
+// k = 8, 9, 10, peak 306, 516, 927 MB):
+//
+//	p  trial  flux   λ1 width  λ2 width
+//	7  286    2,880  2.1e-5    2.5e-3
+//	8  455    3,960  9.3e-7    1.1e-3
+//	9  680    5,280  2.8e-7    2.4e-5
+//	10 969    6,864  6.3e-8    9.5e-6
+//	11 1,330  8,736  2.4e-7    1.3e-6   (137 s of CPU for the step)
+//
+// At P_11 λ1's Lehmann–Goerisch bound falls back (18.8715845 against
+// 18.8715882 at P_10) while its Ritz bound still improves (18.8715891),
+// as the cube's λ1 does at P_10 (its bound 2.0e-8 below 3π² against
+// 2.1e-9 at P_9); λ2 and the gap keep narrowing, so the step is kept by
+// the worst width. The interval widths of the Ritz and flux matrices grow
+// only by a third per degree there; the cause is open.
+//
+// λ1 ≈ 18.871589: its Ritz bounds (18.8715969, .5912, .5894 at P_8..P_10)
+// and Lehmann–Goerisch bounds (.5793, .5860, .5882) close at the same
+// rate, about 3.1 per degree, as the p-version's p^(−4α) with α ≈ 2.55
+// predicts ((10/9)^10.2 ≈ 2.9): at P_10 both errors are about 1e-6, from
+// the edge singularities, not from ρ̂ (stage A on 32,768 tetrahedra
+// changed λ1's width at P_8 from 9.3e-7 to 7.7e-7). On a loaded machine
+// (load 15 on 2 cores) the run itself stops after P_7 at 114 s, its next
+// step predicted not to fit.
 //
 // Before the stage-A counts bounded their residual a priori, the fourth
 // step kept 11,904 stage-A unknowns (ρ̂ = 64.6 against Λ_2 = 62.5) and
@@ -47,8 +77,7 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 		limit     time.Duration
 	}{
 		{"cube", cubePolyhedron("dirichlet", "0"), 120 * time.Second},
-		{"regular-tetrahedron", `{"domain": {"polyhedron": {"vertices": [["1","1","1"],["1","-1","-1"],["-1","1","-1"],["-1","-1","1"]],
-			"faces": [[0,1,2],[0,3,1],[0,2,3],[1,3,2]]}}, "boundary": "dirichlet", "eigenvalues": 2}`, 300 * time.Second},
+		{"regular-tetrahedron", regularTetrahedronSource, 300 * time.Second},
 	} {
 		b.Run(c.name, func(b *testing.B) {
 			p, err := problem.Parse([]byte(c.src))
@@ -56,9 +85,19 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 				b.Fatal(err)
 			}
 			for b.Loop() {
-				cert, err := Certify(context.Background(), p, Options{RelWidth: "1e-8", TimeLimit: c.limit})
+				// The convergence table: one progress line per step
+				// (widths, unknowns, step time).
+				var steps []string
+				progress := func(format string, args ...any) { steps = append(steps, fmt.Sprintf(format, args...)) }
+				cpu0 := cpuSeconds(b)
+				cert, err := Certify(context.Background(), p, Options{RelWidth: "1e-8", TimeLimit: c.limit, Progress: progress})
 				if err != nil {
 					b.Fatal(err)
+				}
+				b.ReportMetric(cpuSeconds(b)-cpu0, "cpu-s")
+				b.ReportMetric(peakRSS(b)/(1<<20), "peak-rss-MiB")
+				for _, line := range steps {
+					b.Log(strings.TrimSpace(line))
 				}
 				m, err := decodeMethod(cert.Method)
 				if err != nil {
@@ -75,4 +114,23 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 			}
 		})
 	}
+}
+
+// cpuSeconds is the user and system CPU time of this process so far.
+func cpuSeconds(b *testing.B) float64 {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		b.Fatal(err)
+	}
+	return float64(ru.Utime.Sec+ru.Stime.Sec) + float64(ru.Utime.Usec+ru.Stime.Usec)/1e6
+}
+
+// peakRSS is the peak resident set size of this process in bytes (Linux
+// reports it in KiB), over the whole benchmark process.
+func peakRSS(b *testing.B) float64 {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		b.Fatal(err)
+	}
+	return float64(ru.Maxrss) * 1024
 }

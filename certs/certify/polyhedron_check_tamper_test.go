@@ -4,6 +4,7 @@ import (
 	"context"
 	"encoding/json"
 	"errors"
+	"fmt"
 	"strings"
 	"sync"
 	"testing"
@@ -137,8 +138,8 @@ func TestPolyhedronCheckRefusesOutOfRangeRecipe(t *testing.T) {
 	}{
 		{func(m *Method) { m.Degree = 0 }, "method.degree 0 out of range"},
 		{func(m *Method) { m.Degree = -3 }, "method.degree -3 out of range"},
-		{func(m *Method) { m.Degree = 9 }, "method.degree 9 out of range (1 to 8 on polyhedra)"},
-		{func(m *Method) { m.FluxDegree = 9 }, "method.flux_degree 9 out of range (0 to 8 on polyhedra)"},
+		{func(m *Method) { m.Degree = maxPolyhedronDegree + 1 }, fmt.Sprintf("method.degree %d out of range (1 to %d on polyhedra)", maxPolyhedronDegree+1, maxPolyhedronDegree)},
+		{func(m *Method) { m.FluxDegree = maxPolyhedronDegree + 1 }, fmt.Sprintf("method.flux_degree %d out of range (0 to %d on polyhedra)", maxPolyhedronDegree+1, maxPolyhedronDegree)},
 		{func(m *Method) { m.FluxDegree = -1 }, "method.flux_degree -1 out of range"},
 		{func(m *Method) { m.Refinements = -1 }, "method.refinements -1 out of range"},
 		{func(m *Method) { m.Refinements = 8 }, "method.refinements 8 out of range (0 to 7 on polyhedra)"},

@@ -3,6 +3,7 @@ package tet
 import (
 	"fmt"
 	"math/big"
+	"runtime"
 	"sync"
 )
 
@@ -169,11 +170,20 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 		gram = rtTripleRat(0, n, k-1)
 	}
 	red := rtReduction(k)
-	for m, s := range span {
-		for l, v := range rtFunctionals(k, s, gram, red) {
-			a[l][m] = v
-		}
+	var wg sync.WaitGroup
+	workers := runtime.GOMAXPROCS(0)
+	for g := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for m := g; m < len(span); m += workers {
+				for l, v := range rtFunctionals(k, span[m], gram, red) {
+					a[l][m] = v
+				}
+			}
+		}()
 	}
+	wg.Wait()
 	x, ok := rtRatInverse(a)
 	if !ok {
 		panic(fmt.Sprintf("tet: Raviart–Thomas degrees of freedom of degree %d are not unisolvent", k))
@@ -192,22 +202,29 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 		}
 	}
 	comp = make([]rtField, ndof)
-	for l := 0; l < ndof; l++ {
-		comp[l] = rtField{zero(), zero(), zero()}
-		for m, s := range span {
-			if x[m][l].Sign() == 0 {
-				continue
-			}
-			for _, e := range nz[m] {
-				v := comp[l][e.c][e.b]
-				v.Add(v, new(big.Rat).Mul(x[m][l], s[e.c][e.b]))
-			}
-		}
-	}
 	div = make([][]*big.Rat, ndof)
-	for l := range comp {
-		div[l] = rtDivergenceRat(comp[l], n)
+	// The basis functions are independent: split them among the cores.
+	for g := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			t := new(big.Rat)
+			for l := g; l < ndof; l += workers {
+				comp[l] = rtField{zero(), zero(), zero()}
+				for m, s := range span {
+					if x[m][l].Sign() == 0 {
+						continue
+					}
+					for _, e := range nz[m] {
+						v := comp[l][e.c][e.b]
+						v.Add(v, t.Mul(x[m][l], s[e.c][e.b]))
+					}
+				}
+				div[l] = rtDivergenceRat(comp[l], n)
+			}
+		}()
 	}
+	wg.Wait()
 	return comp, div
 }
 
@@ -384,22 +401,34 @@ func rtRatInverse(a [][]*big.Rat) ([][]*big.Rat, bool) {
 		}
 		w[c], w[piv] = w[piv], w[c]
 		inv := new(big.Rat).Inv(w[c][c])
+		var cols []int // the nonzero columns of the pivot row
 		for j := range w[c] {
 			if w[c][j].Sign() != 0 {
 				w[c][j].Mul(w[c][j], inv)
+				cols = append(cols, j)
 			}
 		}
-		for r := 0; r < n; r++ {
-			if r == c || w[r][c].Sign() == 0 {
-				continue
-			}
-			f := new(big.Rat).Set(w[r][c])
-			for j := range w[r] {
-				if w[c][j].Sign() != 0 {
-					w[r][j].Sub(w[r][j], new(big.Rat).Mul(f, w[c][j]))
+		// The other rows are independent given the pivot row: split them
+		// among the cores (exact arithmetic, so the order does not matter).
+		workers := min(runtime.GOMAXPROCS(0), 1+n/64)
+		var wg sync.WaitGroup
+		for g := range workers {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				f, t := new(big.Rat), new(big.Rat)
+				for r := g; r < n; r += workers {
+					if r == c || w[r][c].Sign() == 0 {
+						continue
+					}
+					f.Set(w[r][c])
+					for _, j := range cols {
+						w[r][j].Sub(w[r][j], t.Mul(f, w[c][j]))
+					}
 				}
-			}
+			}()
 		}
+		wg.Wait()
 	}
 	out := make([][]*big.Rat, n)
 	for i := range out {
