@@ -115,7 +115,7 @@ func (d polyhedron) located(want int) int {
 
 func (d polyhedron) trial(r recipe, out *outcome) (discrete.Trial, error) {
 	out.polyhedron = &polyhedronRecord{}
-	m, err := polyhedronMesh(d.p, r.refine)
+	m, err := polyhedronTrialMesh(d.p, r)
 	if err != nil {
 		return nil, err
 	}

@@ -347,6 +347,6 @@ func (m *Mesh) HMax() float64 {
 func (m *Mesh) mustBeBuilt() {
 	if len(m.edge) != len(m.Tets) || len(m.vol) != len(m.Tets) || len(m.swap) != len(m.Tets) ||
 		len(m.parents) != len(m.Nodes)-m.given {
-		panic("mesh3: Mesh not made by FromPolyhedron or Refine")
+		panic("mesh3: Mesh not made by this package")
 	}
 }
