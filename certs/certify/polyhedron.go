@@ -246,6 +246,8 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 		r.extra = min(max(r.extra, out.n+maxRaiseN3D-p.Eigenvalues), maxExtraIndices)
 	}
 	switch {
+	case gradeBeforeDegree(p, r):
+		r.graded++
 	case r.degree < polyhedronSmoothDegree:
 		r.degree = min(r.degree+2, polyhedronSmoothDegree)
 		if r.degree == polyhedronSmoothDegree && rhoLimits {
@@ -315,10 +317,12 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 // bound on the Dirichlet cube, stage A went from about 5 s at 11,904
 // unknowns to about 250 s at 96,768), and a degree step costs a few times
 // the trial and flux work.
-func (polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
+func (d polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
 	stageA := min(out.stageATime, last)
 	rest := last - stageA
 	switch {
+	case next.graded > r.graded:
+		rest = gradedStepTime(d.p, r, next, rest)
 	case next.refine > r.refine:
 		rest *= 64
 	case next.degree != r.degree:
