@@ -76,3 +76,22 @@ func BenchmarkPolyhedronTargets(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkLPrismGrading computes the L-shaped prism with Neumann ends
+// (λ1 = λ1(L), λ2 = λ2(L); lPrismNeumannEnds) on P_4, one uniform level,
+// stage A on three levels, without and with one grading level toward the
+// re-entrant edge, and reports the relative widths of λ1 and λ2 and the
+// trial tetrahedra. Measured in one run on the shared machine (2 cores,
+// load about 7; see the commit that added it for the table).
+func BenchmarkLPrismGrading(b *testing.B) {
+	for _, graded := range []int{0, 1} {
+		b.Run("graded="+strconv.Itoa(graded), func(b *testing.B) {
+			var res *result
+			for b.Loop() {
+				res, _ = certifyLPrismRecipe(b, 4, graded)
+			}
+			b.ReportMetric(res.lambda[0].Wid()/lShapeLambda1, "width-λ1")
+			b.ReportMetric(res.lambda[1].Wid()/lShapeLambda2, "width-λ2")
+		})
+	}
+}

@@ -223,7 +223,9 @@ func unit3(u [3]float64) [3]float64 {
 // after r (with stage B running) grades the trial mesh one level more
 // rather than raising the degree: when an edge has an exponent ν < 1 (a
 // re-entrant Dirichlet or Neumann edge, a mixed edge beyond π/2) and the
-// mesh has fewer than r.degree − 2 levels. Measured on the L-shaped prism
+// mesh has fewer than max(1, r.degree − 4) levels (one level at P_5,
+// three at P_7: a level at P_5 costs about three times the step, and the
+// next about twelve times). Measured on the L-shaped prism
 // ([−1,1]²∖[0,1]² × [0,1], Dirichlet sides, Neumann top and bottom; one
 // uniform level, 160 tetrahedra; stage A on three levels): the Ritz error
 // of λ1 is 1.3e-2 at P_3 (671 unknowns), 5.4e-3 at P_4 (1,625) and 1.9e-3
@@ -234,7 +236,7 @@ func unit3(u [3]float64) [3]float64 {
 // has about three times the tetrahedra (eight for a uniform level). A
 // choice; every recipe gives sound bounds.
 func gradeBeforeDegree(p *problem.Problem, r recipe) bool {
-	if r.graded >= min(r.degree-2, maxPolyhedronGraded) {
+	if r.graded >= min(max(1, r.degree-4), maxPolyhedronGraded) {
 		return false
 	}
 	for _, e := range singularEdges(p, polyhedronGradedDegree, 0) {
