@@ -252,3 +252,24 @@ func TestLPrismGradedCertificate(t *testing.T) {
 		t.Errorf("graded_levels %d: error %v, want a format error", maxPolyhedronGraded+1, err)
 	}
 }
+
+// TestPolyhedronMethodRecordsGrading checks that a polyhedron result's
+// method records the grading levels of its recipe (a check replays the
+// trial mesh from them) and that the recorded recipe reads them back.
+func TestPolyhedronMethodRecordsGrading(t *testing.T) {
+	p := parseProblem(t, lPrismNeumannEnds)
+	r := firstRecipe(t, p)
+	r.graded = 2
+	res := &result{r: r, scale: r.scale, out: &outcome{polyhedron: &polyhedronRecord{}}, lambda: []interval.I{interval.Point(1), interval.Point(2)}}
+	m := res.method()
+	if m.Kind != KindPolyhedron || m.GradedLevels != 2 {
+		t.Fatalf("method kind %q, graded_levels %d, want %q and 2", m.Kind, m.GradedLevels, KindPolyhedron)
+	}
+	back, err := recordedRecipe(p, m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if back.graded != 2 {
+		t.Errorf("recorded recipe has graded %d, want 2", back.graded)
+	}
+}
