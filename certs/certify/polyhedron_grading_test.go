@@ -211,6 +211,7 @@ func certifyLPrismRecipe(t testing.TB, degree, graded int) (*result, []byte) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	res.refinement = &Refinement{Target: "1e-4", TargetRule: TargetRule, StopReason: StopTime}
 	c, err := res.certificate(p, Options{})
 	if err != nil {
 		t.Fatal(err)
