@@ -221,7 +221,7 @@ func polyhedronTrialTetrahedra(p *problem.Problem, r recipe) int64 {
 
 // maxCountedTetrahedra bounds the graded meshes that
 // polyhedronTrialTetrahedra builds to count them.
-const maxCountedTetrahedra = 1 << 17
+const maxCountedTetrahedra = 1 << 15
 
 func sub3f(a, b [3]float64) [3]float64 { return [3]float64{a[0] - b[0], a[1] - b[1], a[2] - b[2]} }
 

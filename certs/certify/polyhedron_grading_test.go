@@ -274,3 +274,15 @@ func TestPolyhedronMethodRecordsGrading(t *testing.T) {
 		t.Errorf("recorded recipe has graded %d, want 2", back.graded)
 	}
 }
+
+// TestPolyhedronDeepGradingRefusedByMemory checks that the deepest
+// recorded grading of the L-shaped prism is refused by the memory
+// estimate (as Check does before recomputing) without being built.
+func TestPolyhedronDeepGradingRefusedByMemory(t *testing.T) {
+	p := parseProblem(t, lPrismNeumannEnds)
+	r := firstRecipe(t, p)
+	r.degree, r.fluxDegree, r.graded = 8, 8, maxPolyhedronGraded
+	if est := memoryEstimate(p, r); est <= DefaultMemory {
+		t.Errorf("graded %d at P_8: memory estimate %d bytes, within the default budget %d", r.graded, est, int64(DefaultMemory))
+	}
+}
