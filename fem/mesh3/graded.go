@@ -21,8 +21,10 @@ type Target struct {
 // its neighbours are split as conformity requires. A mesh without targets
 // or levels is returned as a copy.
 //
-// Which nodes lie on a target is decided exactly, without arithmetic: a
-// given node lies on target (A, B) when it is A or B, and a midpoint node
+// Which nodes lie on a target is decided exactly, without arithmetic, for
+// targets that contain no given node but their ends (edges and vertices of
+// the polyhedron; the caller guarantees it): a given node lies on target
+// (A, B) when it is A or B, and a midpoint node
 // lies on it when both nodes it is the midpoint of do (the midpoint of two
 // points of a segment lies on it; conversely, if it lies on the segment's
 // line while one of its parents does not, neither does the other, and a
