@@ -257,10 +257,10 @@ func unit3(u [3]float64) [3]float64 {
 // prism ((0,2)²∖[1,2]² × (0,1), Neumann bottom and side y = 0, other faces
 // Dirichlet): without grading, P_8 on 160 tetrahedra ended at relative
 // widths 9.5e-4 (λ1), 8.9e-4 (λ2), 2.8e-3 (gap), stopped by the memory
-// budget, after 125 s of CPU time; with it, P_5 graded once gave 4.2e-4,
-// 4.2e-4, 1.3e-3 after 80 s of CPU time, and P_7 graded once 1.9e-4,
-// 1.8e-4, 5.7e-4 (target reached) after 253 s. A choice; every recipe
-// gives sound bounds.
+// budget (125 s of CPU time, 213 s wall, 1.7 GB); with it, P_5 graded
+// once gave 4.2e-4, 4.2e-4, 1.3e-3 at 112 s wall, and P_7 graded once
+// 1.9e-4, 1.8e-4, 5.7e-4, reaching the target (253 s of CPU time, 415 s
+// wall, 3.1 GB). A choice; every recipe gives sound bounds.
 func gradeBeforeDegree(p *problem.Problem, r recipe) bool {
 	if r.graded >= min(max(1, r.degree-4), maxPolyhedronGraded) {
 		return false
