@@ -343,8 +343,10 @@ func (r recipe) validate(p *problem.Problem) error {
 			return fmt.Errorf("method.stage_a_refinements %d out of range (0 to %d on polyhedra)", r.stageARefine, maxPolyhedronRefine)
 		case r.degree > maxPolyhedronDegree:
 			return fmt.Errorf("method.degree %d out of range (1 to %d on polyhedra)", r.degree, maxPolyhedronDegree)
-		case r.graded != 0 || len(r.marks) > 0:
-			return fmt.Errorf("method.graded_levels and method.adaptive_marks are not used on polyhedra")
+		case polyhedronGradingError(p, r.graded) != nil:
+			return polyhedronGradingError(p, r.graded)
+		case len(r.marks) > 0:
+			return fmt.Errorf("method.adaptive_marks are not used on polyhedra")
 		case r.fluxDegree < 0 || r.fluxDegree > maxPolyhedronDegree:
 			return fmt.Errorf("method.flux_degree %d out of range (0 to %d on polyhedra)", r.fluxDegree, maxPolyhedronDegree)
 		case r.weightTaylor < 1 || r.weightTaylor > 32:

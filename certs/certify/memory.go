@@ -74,7 +74,7 @@ func (d polyhedron) memory(r recipe) int64 {
 	// Faces ≈ 2 per tetrahedron, plus one mean per tetrahedron (ECR).
 	nA := 3 * tets
 	stageA := nA*bytesPerUnknown3D + 8*fillPerUnknown43*math.Pow(nA, 4.0/3)
-	tt := float64(polyhedronTetrahedra(d.p, r.refine))
+	tt := float64(polyhedronTrialTetrahedra(d.p, r))
 	p := float64(r.degree)
 	// P_p has about p³/6 unknowns per tetrahedron; each couples with the
 	// (p + 1)(p + 2)(p + 3)/6 of a tetrahedron and its neighbours.

@@ -47,7 +47,7 @@ func FirstPlan(p *problem.Problem) (Plan, error) {
 		if usesCR(p) {
 			space = "crouzeix-raviart"
 		}
-		return Plan{Kind: KindPolyhedron, Degree: r.degree, Tetrahedra: int(polyhedronTetrahedra(p, r.refine)),
+		return Plan{Kind: KindPolyhedron, Degree: r.degree, Tetrahedra: int(polyhedronTrialTetrahedra(p, r)),
 			StageATetrahedra: int(polyhedronTetrahedra(p, r.stageARefine)), StageASpace: space, MemoryEstimate: memoryEstimate(p, r)}, nil
 	}
 	m, err := trialMesh(p, r)

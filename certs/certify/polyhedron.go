@@ -119,7 +119,7 @@ func (d polyhedron) located(want int) int {
 
 func (d polyhedron) trial(r recipe, out *outcome) (discrete.Trial, error) {
 	out.polyhedron = &polyhedronRecord{}
-	m, err := polyhedronMesh(d.p, r.refine)
+	m, err := polyhedronTrialMesh(d.p, r)
 	if err != nil {
 		return nil, err
 	}
@@ -202,7 +202,7 @@ func (polyhedron) stalls(gain float64, out *outcome, _ *result) bool {
 func (polyhedron) stallSteps() int { return 2 }
 
 func (polyhedron) stallNote() string {
-	return "; edge and vertex singularities of a polyhedron slow uniform refinement (no grading toward them)"
+	return "; edge and vertex singularities of a polyhedron slow refinement (isotropic grading toward edges adds tetrahedra along each whole edge)"
 }
 
 // next chooses the next polyhedron recipe, or says why there is none (a
@@ -267,6 +267,8 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 		r.extra = min(max(r.extra, out.n+maxRaiseN3D-p.Eigenvalues), maxExtraIndices)
 	}
 	switch {
+	case gradeBeforeDegree(p, r):
+		r.graded++
 	case r.degree < polyhedronSmoothDegree:
 		r.degree = min(r.degree+2, polyhedronSmoothDegree)
 		if r.degree == polyhedronSmoothDegree && rhoLimits {
@@ -375,10 +377,12 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 // the steps' time less stage A on the regular tetrahedron (8 tetrahedra,
 // wall time on a loaded machine) grew 1.9 and 2.4 times from P_7 to P_8
 // and P_8 to P_9 (2.54 and 2.32 in the model).
-func (polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
+func (d polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
 	stageA := min(out.stageATime, last)
 	rest := last - stageA
 	switch {
+	case next.graded > r.graded:
+		rest = gradedStepTime(d.p, r, next, rest)
 	case next.refine > r.refine:
 		rest *= 64
 	case next.fluxDegree != r.fluxDegree:

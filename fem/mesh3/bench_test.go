@@ -44,3 +44,16 @@ func BenchmarkNumbering(b *testing.B) {
 		m.Faces()
 	}
 }
+
+// BenchmarkRefineToward measures the grading of the L-shaped prism's cone
+// mesh (20 tetrahedra) by five levels toward its re-entrant edge (10,290
+// tetrahedra), with the proof of the graded tiling.
+func BenchmarkRefineToward(b *testing.B) {
+	m := fromSolid(b, lPrism)
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := m.RefineToward([]Target{{3, 9, 5}}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -40,8 +40,18 @@
 // initial mesh is kept at every level (Bey 1995; the children's order in
 // Refine is recalled from the paper, not copied from it, and is checked by
 // this package's tests, which count the similarity classes of the
-// descendants of several tetrahedra over four levels). Grading toward edges and
-// vertices is not provided.
+// descendants of several tetrahedra over four levels).
+//
+// Grading. RefineToward refines a mesh toward segments between given nodes
+// (edges of the polyhedron) and given nodes (its vertices): round by round,
+// the tetrahedra touching a target have all six edges bisected at their
+// exact midpoints, and their neighbours as conformity requires (bisection
+// of marked edges with longest-edge closure, after Rivara and Levin 1992),
+// so the tetrahedra at the targets shrink like 2^(−rounds). Which nodes lie
+// on a target is decided exactly from the nodes' parents (every node made
+// by refinement records the two nodes it is the midpoint of). The graded
+// mesh is not trusted: RefineToward proves its tiling again with the checks
+// of FromPolyhedron.
 //
 // Misuse (indices out of range, a Mesh not made by this package) panics
 // with a message starting "mesh3: "; input that does not describe a valid
@@ -52,6 +62,8 @@
 //	J. Bey, Tetrahedral grid refinement, Computing 55 (1995) 355–378.
 //	J. Bey, Simplicial grid refinement: on Freudenthal's algorithm and the
 //	optimal number of congruence classes, Numer. Math. 85 (2000) 1–29.
+//	M.-C. Rivara, C. Levin, A 3-D refinement algorithm suitable for adaptive
+//	and multi-grid techniques, Commun. Appl. Numer. Methods 8 (1992) 281–290.
 //	E. E. Moise, Geometric Topology in Dimensions 2 and 3, Springer, 1977
 //	(the polyhedral Jordan–Brouwer separation theorem; winding numbers as
 //	degrees).

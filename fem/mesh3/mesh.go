@@ -17,7 +17,7 @@ import (
 // vertex order LocalFaces[i]. Bnd lists every boundary face once, outward
 // oriented.
 //
-// A Mesh is made by FromPolyhedron or Refine; its fields must not be
+// A Mesh is made by FromPolyhedron, Refine or RefineToward; its fields must not be
 // modified, since the element geometry (Geom) and the refinement order are
 // carried with the tetrahedra.
 type Mesh struct {
@@ -25,10 +25,11 @@ type Mesh struct {
 	Tets  [][4]int
 	Bnd   []BoundaryFace
 
-	given int                // number of nodes given to FromPolyhedron
-	swap  []bool             // the refinement order of Tets[t] exchanges its local vertices 2 and 3
-	edge  [][3][3]interval.I // per tetrahedron, e_j = P_j − P_0 (j = 1, 2, 3; local order of Tets)
-	vol   []interval.I       // per tetrahedron, its volume; Lo > 0
+	given   int                // number of nodes given to FromPolyhedron
+	parents [][2]int           // node given+k is the exact midpoint of nodes parents[k]
+	swap    []bool             // the refinement order of Tets[t] exchanges its local vertices 2 and 3
+	edge    [][3][3]interval.I // per tetrahedron, e_j = P_j − P_0 (j = 1, 2, 3; local order of Tets)
+	vol     []interval.I       // per tetrahedron, its volume; Lo > 0
 }
 
 // BoundaryFace is the boundary triangle (A, B, C), counterclockwise seen
@@ -341,9 +342,10 @@ func (m *Mesh) HMax() float64 {
 }
 
 // mustBeBuilt panics unless m carries the geometry of its tetrahedra, as
-// every mesh made by FromPolyhedron or Refine does.
+// every mesh made by this package does.
 func (m *Mesh) mustBeBuilt() {
-	if len(m.edge) != len(m.Tets) || len(m.vol) != len(m.Tets) || len(m.swap) != len(m.Tets) {
-		panic("mesh3: Mesh not made by FromPolyhedron or Refine")
+	if len(m.edge) != len(m.Tets) || len(m.vol) != len(m.Tets) || len(m.swap) != len(m.Tets) ||
+		len(m.parents) != len(m.Nodes)-m.given {
+		panic("mesh3: Mesh not made by this package")
 	}
 }

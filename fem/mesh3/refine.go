@@ -52,13 +52,14 @@ func (m *Mesh) Refine() *Mesh {
 	edges, _ := m.Edges()
 	n0 := len(m.Nodes)
 	r := &Mesh{
-		Nodes: make([][3]interval.I, n0, n0+len(edges)),
-		Tets:  make([][4]int, 0, 8*len(m.Tets)),
-		Bnd:   make([]BoundaryFace, 0, 4*len(m.Bnd)),
-		given: m.given,
-		swap:  make([]bool, 0, 8*len(m.Tets)),
-		edge:  make([][3][3]interval.I, 0, 8*len(m.Tets)),
-		vol:   make([]interval.I, 0, 8*len(m.Tets)),
+		Nodes:   make([][3]interval.I, n0, n0+len(edges)),
+		Tets:    make([][4]int, 0, 8*len(m.Tets)),
+		Bnd:     make([]BoundaryFace, 0, 4*len(m.Bnd)),
+		given:   m.given,
+		parents: append(m.parents[:len(m.parents):len(m.parents)], edges...),
+		swap:    make([]bool, 0, 8*len(m.Tets)),
+		edge:    make([][3][3]interval.I, 0, 8*len(m.Tets)),
+		vol:     make([]interval.I, 0, 8*len(m.Tets)),
 	}
 	copy(r.Nodes, m.Nodes)
 	for _, e := range edges {
