@@ -225,8 +225,8 @@ func starTargets(n, levels int) []Target {
 // slivers, 16 re-entrant edges) round by round: the closure ends, the
 // tiling proof passes every round, no round has more than eight times
 // the tetrahedra (a tetrahedron bisected at all six edges has eight
-// pieces), the factor falls after the first rounds (measured 8.0, 7.3,
-// 4.2, 2.8: the closure's spread ends once the slivers at the edges are
+// pieces), the factor falls after the first rounds (measured 8.0, 7.2,
+// 4.3, 2.9: the closure's spread ends once the slivers at the edges are
 // split), and the tetrahedra at the edges shrink.
 func TestRefineTowardStarPrismSize(t *testing.T) {
 	s := starPrism(16, "1/64")
