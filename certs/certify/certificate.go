@@ -101,7 +101,7 @@ func (res *result) method() Method {
 		m.AdaptiveMarks = r.marks
 	} else if ph := out.polyhedron; ph != nil {
 		m.Kind, m.Theorems = KindPolyhedron, theoremsPolyhedron
-		m.Refinements, m.StageARefinements = r.refine, r.stageARefine
+		m.Refinements, m.StageARefinements, m.GradedLevels = r.refine, r.stageARefine, r.graded
 		m.StageASpace = ph.stageASpace
 		m.Tetrahedra, m.StageATetrahedra = ph.tetrahedra, ph.stageATetrahedra
 		m.FluxDegree, m.WeightOrder, m.FluxUnknowns = r.fluxDegree, r.weightTaylor, ph.fluxUnknowns

@@ -41,6 +41,11 @@ func ApproximateModes(p *problem.Problem, c *certs.Certificate, count int) (*Mod
 	if p.Polyhedron != nil && (r.refine < 0 || r.refine > maxPolyhedronRefine || r.degree < 1 || r.degree > maxPolyhedronDegree) {
 		return nil, fmt.Errorf("method: degree %d or refinements %d out of range on polyhedra", r.degree, r.refine)
 	}
+	if p.Polyhedron != nil {
+		if err := polyhedronGradingError(p, r.graded); err != nil {
+			return nil, err
+		}
+	}
 	trial, err := discretisationOf(p).trial(r, &outcome{})
 	if err != nil {
 		return nil, err
