@@ -211,6 +211,7 @@ func certifyLPrismRecipe(t testing.TB, degree, graded int) (*result, []byte) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	res.refinement = &Refinement{Target: "1e-3", TargetRule: TargetRule, StopReason: StopTime} // as a run stopped by its time limit records it
 	c, err := res.certificate(p, Options{})
 	if err != nil {
 		t.Fatal(err)
