@@ -22,10 +22,11 @@ type Method struct {
 	WeightOrder int `json:"weight_taylor_order,omitempty"` // order of the Taylor models of 1/(V+γ)
 	StageACells int `json:"stage_a_cells,omitempty"`
 
-	// Polygons.
+	// Polygons (and polyhedra: refinements, stage-A refinements, graded
+	// levels toward the strongest singular edge).
 	Refinements       int     `json:"refinements,omitempty"`         // uniform refinements of the trial mesh
 	StageARefinements int     `json:"stage_a_refinements,omitempty"` // uniform refinements of the stage-A mesh
-	GradedLevels      int     `json:"graded_levels,omitempty"`       // extra levels toward each singular corner
+	GradedLevels      int     `json:"graded_levels,omitempty"`       // extra levels toward each singular corner (edge)
 	AdaptiveMarks     [][]int `json:"adaptive_marks,omitempty"`      // per adaptive round of the trial mesh, the triangles bisected
 	StageASpace       string  `json:"stage_a_space,omitempty"`       // "crouzeix-raviart" or "enriched-crouzeix-raviart"
 	Triangles         int     `json:"triangles,omitempty"`           // triangles of the trial mesh (a record, not an input)
@@ -67,8 +68,9 @@ type StageBound struct {
 const (
 	KindInterval = "interval-1d"
 	KindPolygon  = "polygon-2d"
-	// KindPolyhedron is P_p on uniformly refined cone tetrahedra, (E)CR
-	// stage A, RT_k fluxes (certs/certify/polyhedron.go).
+	// KindPolyhedron is P_p on uniformly refined cone tetrahedra graded
+	// toward singular edges, (E)CR stage A, RT_k fluxes
+	// (certs/certify/polyhedron.go, polyhedron_grading.go).
 	KindPolyhedron = "polyhedron-3d"
 )
 

@@ -198,7 +198,7 @@ func (polyhedron) stalls(gain float64, out *outcome, _ *result) bool {
 func (polyhedron) stallSteps() int { return 2 }
 
 func (polyhedron) stallNote() string {
-	return "; edge and vertex singularities of a polyhedron slow uniform refinement (no grading toward them)"
+	return "; edge and vertex singularities of a polyhedron slow refinement (isotropic grading toward edges adds tetrahedra along each whole edge)"
 }
 
 // next chooses the next polyhedron recipe, or says why there is none (a

@@ -190,66 +190,38 @@ func polyhedronTrialMesh(p *problem.Problem, r recipe) (*tet.Mesh, error) {
 	return tet.NewMesh(g, len(p.Polyhedron.Faces))
 }
 
-// maxCountedTetrahedra caps the graded meshes that
-// polyhedronTrialTetrahedra builds to count their tetrahedra, so that the
-// memory estimate of a recipe (a recorded graded_levels up to
-// maxPolyhedronGraded included) is found before anything large is
-// allocated: measured on the L-shaped prism refined once, a grading round
-// keeps about 450 bytes of mesh per tetrahedron and allocates ten times
-// that on the way (6.5·10⁴ tetrahedra: about 30 MB kept, well under a
-// second), while 16 rounds would build 4·10⁷ tetrahedra.
-const maxCountedTetrahedra = 1 << 16
-
 // polyhedronTrialTetrahedra is the number of tetrahedra of the trial
-// mesh of r, polyhedronTetrahedra without grading. With grading it is
-// counted on the graded mesh, built round by round (RefineToward's rounds,
-// one at a time) while it has at most maxCountedTetrahedra; beyond, it is
-// estimated as growing by the last round's factor (at least 2) with every
-// round left, and when the uniform mesh alone has more, as that mesh
-// doubled with every round. Measured, the factor of a round falls toward
-// 2 as the rounds go on (L-shaped prism refined once: 3.4 in the first
-// round, 2.0 from the fifth on; the thin star prism of
-// TestPolyhedronGradedCountPathological: 8.0, 7.2, 4.3, 2.9, 2.5), so the
-// estimate is not below the count there; doubling alone fell 19% short
-// on the star prism after five rounds.
+// mesh of r (for the memory estimate and the plan, before anything is
+// computed): polyhedronTetrahedra without grading; counted on the graded
+// meshes of 1, 2, … levels while they have at most
+// maxCountedTetrahedra (their construction costs far less than a step
+// on them), and beyond that bounded by three times the tetrahedra per
+// further level (measured on the L-shaped prism: 2.2 to 3.7 times per
+// level), so that a deep recorded grading is refused by the memory
+// estimate without being built.
 func polyhedronTrialTetrahedra(p *problem.Problem, r recipe) int64 {
-	uniform := polyhedronTetrahedra(p, r.refine)
-	edges := singularEdges(p, polyhedronGradedDegree, r.graded)
-	if r.graded == 0 || len(edges) == 0 {
-		return uniform
+	n := polyhedronTetrahedra(p, r.refine)
+	if r.graded == 0 || !hasSingularEdges(p) {
+		return n
 	}
-	rounds := 0
-	for _, e := range edges {
-		rounds = max(rounds, e.levels)
-	}
-	grown := func(n int64, factor float64, k int) int64 {
-		return int64(math.Min(float64(n)*math.Pow(factor, float64(k)), math.MaxInt64/4))
-	}
-	if uniform > maxCountedTetrahedra {
-		return grown(uniform, 2, rounds)
-	}
-	m, err := polyhedronMesh(p, r.refine)
-	if err != nil {
-		return uniform
-	}
-	g := m.Mesh3()
-	for j := 1; j <= rounds; j++ {
-		var targets []mesh3.Target
-		for _, e := range edges {
-			if e.levels >= j {
-				targets = append(targets, mesh3.Target{A: e.a, B: e.b, Levels: 1})
-			}
+	for j := 1; j <= r.graded; j++ {
+		if n > maxCountedTetrahedra {
+			return n * int64(math.Pow(3, float64(r.graded-j+1)))
 		}
-		prev := len(g.Tets)
-		if g, err = g.RefineToward(targets); err != nil {
-			return uniform
+		g := r
+		g.graded = j
+		m, err := polyhedronTrialMesh(p, g)
+		if err != nil {
+			return n * int64(math.Pow(3, float64(r.graded-j+1)))
 		}
-		if n := int64(len(g.Tets)); n > maxCountedTetrahedra && j < rounds {
-			return grown(n, math.Max(2, float64(n)/float64(prev)), rounds-j)
-		}
+		n = int64(m.NumTets())
 	}
-	return int64(len(g.Tets))
+	return n
 }
+
+// maxCountedTetrahedra bounds the graded meshes that
+// polyhedronTrialTetrahedra builds to count them.
+const maxCountedTetrahedra = 1 << 15
 
 func sub3f(a, b [3]float64) [3]float64 { return [3]float64{a[0] - b[0], a[1] - b[1], a[2] - b[2]} }
 
@@ -270,7 +242,9 @@ func unit3(u [3]float64) [3]float64 {
 // after r (with stage B running) grades the trial mesh one level more
 // rather than raising the degree: when an edge has an exponent ν < 1 (a
 // re-entrant Dirichlet or Neumann edge, a mixed edge beyond π/2) and the
-// mesh has fewer than r.degree − 2 levels. Measured on the L-shaped prism
+// mesh has fewer than max(1, r.degree − 4) levels (one level at P_5,
+// three at P_7: a level at P_5 costs about three times the step, and the
+// next about twelve times). Measured on the L-shaped prism
 // ([−1,1]²∖[0,1]² × [0,1], Dirichlet sides, Neumann top and bottom; one
 // uniform level, 160 tetrahedra; stage A on three levels): the Ritz error
 // of λ1 is 1.3e-2 at P_3 (671 unknowns), 5.4e-3 at P_4 (1,625) and 1.9e-3
@@ -281,7 +255,7 @@ func unit3(u [3]float64) [3]float64 {
 // has about three times the tetrahedra (eight for a uniform level). A
 // choice; every recipe gives sound bounds.
 func gradeBeforeDegree(p *problem.Problem, r recipe) bool {
-	if r.graded >= min(r.degree-2, maxPolyhedronGraded) {
+	if r.graded >= min(max(1, r.degree-4), maxPolyhedronGraded) {
 		return false
 	}
 	for _, e := range singularEdges(p, polyhedronGradedDegree, 0) {

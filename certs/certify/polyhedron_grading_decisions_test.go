@@ -204,8 +204,8 @@ func starPrismPolyhedron() string {
 // than two for several rounds: the estimate must not be below the count
 // (the memory estimate is checked before allocating), nor far above it.
 // Measured: 87,947 tetrahedra after four rounds, 218,213 after five,
-// estimated 252,593; doubling the fourth round's count (175,894) was 19%
-// short.
+// estimated 263,841 (three times the fourth); doubling the fourth round's
+// count (175,894) would be 19% short.
 func TestPolyhedronGradedCountPathological(t *testing.T) {
 	p := parseProblem(t, starPrismPolyhedron())
 	r := recipe{degree: 3, fluxDegree: 3, graded: 5}

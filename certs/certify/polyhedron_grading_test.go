@@ -211,7 +211,7 @@ func certifyLPrismRecipe(t testing.TB, degree, graded int) (*result, []byte) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	res.refinement = &Refinement{Target: "1e-3", TargetRule: TargetRule, StopReason: StopTime} // as a run stopped by its time limit records it
+	res.refinement = &Refinement{Target: "1e-4", TargetRule: TargetRule, StopReason: StopTime}
 	c, err := res.certificate(p, Options{})
 	if err != nil {
 		t.Fatal(err)
@@ -251,5 +251,38 @@ func TestLPrismGradedCertificate(t *testing.T) {
 	var fe *certs.FormatError
 	if err := Check(editMethod(t, data, func(m *Method) { m.GradedLevels = maxPolyhedronGraded + 1 })); !errors.As(err, &fe) || !strings.Contains(err.Error(), "method.graded_levels") {
 		t.Errorf("graded_levels %d: error %v, want a format error", maxPolyhedronGraded+1, err)
+	}
+}
+
+// TestPolyhedronMethodRecordsGrading checks that a polyhedron result's
+// method records the grading levels of its recipe (a check replays the
+// trial mesh from them) and that the recorded recipe reads them back.
+func TestPolyhedronMethodRecordsGrading(t *testing.T) {
+	p := parseProblem(t, lPrismNeumannEnds)
+	r := firstRecipe(t, p)
+	r.graded = 2
+	res := &result{r: r, scale: r.scale, out: &outcome{polyhedron: &polyhedronRecord{}}, lambda: []interval.I{interval.Point(1), interval.Point(2)}}
+	m := res.method()
+	if m.Kind != KindPolyhedron || m.GradedLevels != 2 {
+		t.Fatalf("method kind %q, graded_levels %d, want %q and 2", m.Kind, m.GradedLevels, KindPolyhedron)
+	}
+	back, err := recordedRecipe(p, m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if back.graded != 2 {
+		t.Errorf("recorded recipe has graded %d, want 2", back.graded)
+	}
+}
+
+// TestPolyhedronDeepGradingRefusedByMemory checks that the deepest
+// recorded grading of the L-shaped prism is refused by the memory
+// estimate (as Check does before recomputing) without being built.
+func TestPolyhedronDeepGradingRefusedByMemory(t *testing.T) {
+	p := parseProblem(t, lPrismNeumannEnds)
+	r := firstRecipe(t, p)
+	r.degree, r.fluxDegree, r.graded = 8, 8, maxPolyhedronGraded
+	if est := memoryEstimate(p, r); est <= DefaultMemory {
+		t.Errorf("graded %d at P_8: memory estimate %d bytes, within the default budget %d", r.graded, est, int64(DefaultMemory))
 	}
 }

@@ -185,22 +185,6 @@ func (m *Mesh) touching(segs [][2]int) []bool {
 	return out
 }
 
-// RefineMarked returns m refined by one round of RefineToward's bisection
-// in which the six edges of every tetrahedron t with marked[t] are split.
-// It panics unless len(marked) == len(m.Tets); it returns an error if the
-// result fails the tiling check.
-func (m *Mesh) RefineMarked(marked []bool) (*Mesh, error) {
-	m.mustBeBuilt()
-	if len(marked) != len(m.Tets) {
-		panic(fmt.Sprintf("mesh3: %d marks for %d tetrahedra", len(marked), len(m.Tets)))
-	}
-	r := m.bisectRound(marked)
-	if err := r.checkTiling(); err != nil {
-		return nil, fmt.Errorf("mesh3: the refined mesh fails the tiling check: %v", err)
-	}
-	return r, nil
-}
-
 // bisectRound performs one round of RefineToward in which the edges of
 // the tetrahedra with refine[t] are marked.
 func (m *Mesh) bisectRound(refine []bool) *Mesh {

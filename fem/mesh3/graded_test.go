@@ -269,7 +269,4 @@ func TestRefineTowardMisuse(t *testing.T) {
 			m.RefineToward(ts)
 		}()
 	}
-	if _, err := m.RefineMarked(make([]bool, len(m.Tets))); err != nil {
-		t.Error(err)
-	}
 }

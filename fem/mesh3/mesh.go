@@ -17,8 +17,7 @@ import (
 // vertex order LocalFaces[i]. Bnd lists every boundary face once, outward
 // oriented.
 //
-// A Mesh is made by FromPolyhedron, Refine, RefineToward or
-// RefineMarked; its fields must not be
+// A Mesh is made by FromPolyhedron, Refine or RefineToward; its fields must not be
 // modified, since the element geometry (Geom) and the refinement order are
 // carried with the tetrahedra.
 type Mesh struct {
