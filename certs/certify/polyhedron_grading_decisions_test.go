@@ -171,11 +171,10 @@ func TestPolyhedronGradedDeterministic(t *testing.T) {
 }
 
 // starPrismPolyhedron is the prism of height 1/64 over the star polygon
-// with 32 vertices alternately on the circles of radii 1 and 3/10 (angle
-// kπ/16), Dirichlet: many faces, 16 re-entrant vertical edges and cone
+// with 2n vertices alternately on the circles of radii 1 and 3/10 (angle
+// kπ/n), Dirichlet: many faces, n re-entrant vertical edges and cone
 // tetrahedra that are thin slivers.
-func starPrismPolyhedron() string {
-	const n = 16
+func starPrismPolyhedron(n int) string {
 	var vs []string
 	for _, z := range []string{"0", "1/64"} {
 		for k := range 2 * n {
@@ -200,22 +199,23 @@ func starPrismPolyhedron() string {
 
 // TestPolyhedronGradedCountPathological checks the count of a graded
 // trial mesh beyond maxCountedTetrahedra against the built mesh on the
-// thin star prism, whose grading rounds multiply the tetrahedra by more
-// than two for several rounds: the estimate must not be below the count
+// thin 25-point star prism (the most vertices a polyhedron may have),
+// refined once and graded three levels, whose levels multiply the
+// tetrahedra by more than three: the estimate must not be below the count
 // (the memory estimate is checked before allocating), nor far above it.
-// Measured: 87,947 tetrahedra after four rounds, 218,213 after five,
-// estimated 263,841 (three times the fourth); doubling the fourth round's
-// count (175,894) would be 19% short.
+// Measured: 8,955, 38,390 and 116,995 tetrahedra after one, two and three
+// levels, estimated 164,559 (the second level's factor 4.3); three times
+// the second level's count (115,170) was 1.6% short.
 func TestPolyhedronGradedCountPathological(t *testing.T) {
-	p := parseProblem(t, starPrismPolyhedron())
-	r := recipe{degree: 3, fluxDegree: 3, graded: 5}
+	p := parseProblem(t, starPrismPolyhedron(25))
+	r := recipe{degree: 3, fluxDegree: 3, refine: 1, graded: 3}
 	est := polyhedronTrialTetrahedra(p, r)
 	m, err := polyhedronTrialMesh(p, r)
 	if err != nil {
 		t.Fatal(err)
 	}
 	n := int64(m.NumTets())
-	t.Logf("graded %d: %d tetrahedra estimated, %d built", r.graded, est, n)
+	t.Logf("refined once, graded %d: %d tetrahedra estimated, %d built", r.graded, est, n)
 	if est < n || est > 4*n {
 		t.Errorf("graded %d: %d tetrahedra estimated, %d built", r.graded, est, n)
 	}
