@@ -148,3 +148,15 @@ func TestPolyhedronModesGradedRange(t *testing.T) {
 		}
 	}
 }
+
+// TestPolyhedronCheckRefusesGradingWithoutSingularEdges: graded_levels 1
+// on the Neumann cube (right-angled edges only: integer exponents, no
+// singular edge, so grading would change nothing) is refused by Check as
+// a format error naming the field, before anything is recomputed.
+func TestPolyhedronCheckRefusesGradingWithoutSingularEdges(t *testing.T) {
+	data, _ := neumannCubeCertificate(t)
+	var fe *certs.FormatError
+	if err := Check(editMethod(t, data, func(m *Method) { m.GradedLevels = 1 })); !errors.As(err, &fe) || !strings.Contains(err.Error(), "method.graded_levels") {
+		t.Errorf("graded_levels 1 on the cube: error %v, want a format error naming the field", err)
+	}
+}
