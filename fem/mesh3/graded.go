@@ -2,6 +2,7 @@ package mesh3
 
 import (
 	"fmt"
+	"math"
 	"slices"
 
 	"gapcert/interval"
@@ -14,6 +15,14 @@ type Target struct {
 	A, B   int
 	Levels int
 }
+
+// lengthBitsDropped is how many low bits of the 52 of the significand of
+// an edge's squared length RefineToward's order rounds away (to nearest),
+// far more than the rounding errors of a length from exact points (a few
+// units in the last place) and far fewer than separate the lengths that
+// matter for the shapes (relative 2^−28 ≈ 4e-9). Exact squared lengths
+// with few bits, such as those of dyadic points, are unchanged.
+const lengthBitsDropped = 24
 
 // RefineToward returns m refined toward the targets: in round j = 1, 2, …
 // up to the largest Levels, every tetrahedron with a node on a target of
@@ -37,8 +46,13 @@ type Target struct {
 //  2. closure (for shape, not for conformity): while a tetrahedron has a
 //     marked edge and its longest edge is unmarked, its longest edge is
 //     marked. Edges are ordered by their length (from the midpoints of the
-//     node enclosures, a choice) and then by their nodes, a strict order
-//     that depends only on the edge. This ends since marks are only added
+//     node enclosures, a choice; the squared length rounded to 28
+//     significant bits, lengthBitsDropped) and then by their nodes, a
+//     strict order that depends only on the edge. The rounding makes
+//     edges of equal exact length whose computed lengths differ by
+//     rounding errors tie, so a polyhedron moved rigidly (an exact
+//     rotation and translation, vertices in the same order) is graded
+//     into the same tetrahedra. This ends since marks are only added
 //     (Rivara's longest-edge propagation, M.-C. Rivara and C. Levin,
 //     Commun. Appl. Numer. Methods 8 (1992) 281–290; the first
 //     bisection of every refined tetrahedron is at its longest edge);
@@ -187,6 +201,7 @@ func (m *Mesh) bisectRound(refine []bool) *Mesh {
 			d := q[c].Mid() - p[c].Mid()
 			len2[k] += float64(d * d)
 		}
+		len2[k] = math.Float64frombits((math.Float64bits(len2[k]) + 1<<(lengthBitsDropped-1)) &^ (1<<lengthBitsDropped - 1))
 	}
 	greater := func(a, b int) bool { return len2[a] > len2[b] || len2[a] == len2[b] && a > b }
 	longest := make([]int, len(m.Tets))
