@@ -368,7 +368,10 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 // factorizations of a 3D mesh cost about N² (so a level costs up to 64
 // times as much; measured with the verified counts of the cheap residual
 // bound on the Dirichlet cube, stage A went from about 5 s at 11,904
-// unknowns to about 250 s at 96,768). On a degree step the rest grows
+// unknowns to about 250 s at 96,768 with the up-looking factorization;
+// the multifrontal one of package enclose/sparse cuts the latter to
+// about 40 s of CPU, so the factor 64 is now on the safe side). On a
+// degree step the rest grows
 // like the cube of the dimension of RT_k on a tetrahedron (the exact
 // Raviart–Thomas tables of fem/tet and the element blocks of the flux
 // choice are dense in it), with a margin of a quarter. Measured: building

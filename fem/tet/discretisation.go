@@ -56,8 +56,8 @@ func NewStageA(s *Projection, v *Potential, gamma interval.I, located int) (*Sta
 // stageARoundoffLoss is the relative loss σ − σ' up to which the verified
 // counts of the stage-A pencil keep the a-priori residual bound of
 // package enclose/sparse (O(nnz(L)) operations) instead of enclosing every
-// residual entry (about 4 times the factorization's time at 12k unknowns,
-// 15 times at 97k). Measured on the Kuhn meshes of the unit cube
+// residual entry (about 4 times the up-looking factorization's time at
+// 12k unknowns, 15 times at 97k; more against the multifrontal one). Measured on the Kuhn meshes of the unit cube
 // (Dirichlet, CR, shifts 0.99λ_(h,2) to 1.5λ_(h,5)): losses 3e-9 to 1.4e-8
 // at 11,400 unknowns, 4e-8 to 6.7e-7 at 47,616, 1.4e-7 to 2e-6 at 93,600,
 // while the stage-A eigenvalues on such meshes lie 1e-3 and more below
