@@ -65,8 +65,8 @@ func TestPolyhedronMixedFacesCommands(t *testing.T) {
 		want           string
 	}{
 		{"a face's condition", `"dirichlet",`, `"neumann",`, exitMismatch, "problem_sha256"},
-		{"degree out of range", `"degree": 3,`, `"degree": 9,`, exitMismatch, "method.degree 9 out of range (1 to 8 on polyhedra)"},
-		{"flux degree out of range", `"flux_degree": 3,`, `"flux_degree": 12,`, exitMismatch, "method.flux_degree 12 out of range"},
+		{"degree out of range", `"degree": 3,`, `"degree": 13,`, exitMismatch, "method.degree 13 out of range (1 to 12 on polyhedra)"},
+		{"flux degree out of range", `"flux_degree": 3,`, `"flux_degree": 13,`, exitMismatch, "method.flux_degree 13 out of range (0 to 12 on polyhedra)"},
 		{"stage-A levels beyond memory", `"stage_a_refinements": 2,`, `"stage_a_refinements": 6,`, exitInvalid, "more than the memory budget"},
 	} {
 		if !strings.Contains(string(data), e.old) {
