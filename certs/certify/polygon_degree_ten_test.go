@@ -89,20 +89,7 @@ func certifyRecipe(t *testing.T, src string, degree, refine, graded int) (*probl
 	p := parseProblem(t, src)
 	r := firstRecipe(t, p)
 	r.degree, r.fluxDegree, r.refine, r.graded = degree, degree-1, refine, graded
-	if err := r.validate(p); err != nil {
-		t.Fatalf("hand-made recipe refused: %v", err)
-	}
-	out, err := compute(p, r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if out.lg == nil {
-		t.Fatalf("degree %d, graded %d: stage B gave no bound (%v)", degree, graded, out.notes)
-	}
-	res, err := assemble(p, r, out)
-	if err != nil {
-		t.Fatal(err)
-	}
+	_, res := assembleRecipe(t, p, r, true)
 	return p, res
 }
 

@@ -41,13 +41,7 @@ func TestLPrismMixedGradedRitz(t *testing.T) {
 	p := parseProblem(t, lPrismPolyhedron(`["neumann", {"robin": "1"}, "dirichlet", "dirichlet", "dirichlet", "dirichlet", "dirichlet", "dirichlet"]`))
 	r := firstRecipe(t, p)
 	r.degree, r.fluxDegree, r.refine, r.stageARefine, r.graded = 3, 3, 1, 1, 1
-	if err := r.validate(p); err != nil {
-		t.Fatal(err)
-	}
-	out, err := compute(p, r)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out := computeRecipe(t, p, r)
 	mu := robinNeumannRoot(1)
 	for i, l := range []float64{lShapeLambda1, lShapeLambda2} {
 		want := l + mu*mu

@@ -65,27 +65,8 @@ func lPrismGradedCertificate(t *testing.T) []byte {
 	p := parseProblem(t, lPrismPolyhedron(`"dirichlet"`))
 	r := firstRecipe(t, p)
 	r.degree, r.fluxDegree, r.refine, r.stageARefine, r.graded = 2, 2, 0, 1, 1
-	if err := r.validate(p); err != nil {
-		t.Fatal(err)
-	}
-	out, err := compute(p, r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := assemble(p, r, out)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res.refinement = &Refinement{Target: "1e-3", TargetRule: TargetRule, StopReason: StopTime} // as a run stopped by its time limit records it
-	c, err := res.certificate(p, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	data, err := c.Marshal()
-	if err != nil {
-		t.Fatal(err)
-	}
-	return data
+	_, res := assembleRecipe(t, p, r, false)
+	return recipeCertificate(t, p, res, "1e-3")
 }
 
 // TestPolyhedronCheckGradedEdits checks Check on a graded polyhedron

@@ -16,17 +16,7 @@ func gradedEnclosures(t *testing.T, src string, degree, graded int) [2]interval.
 	p := parseProblem(t, src)
 	r := firstRecipe(t, p)
 	r.degree, r.fluxDegree, r.refine, r.stageARefine, r.graded = degree, degree, 1, 3, graded
-	if err := r.validate(p); err != nil {
-		t.Fatal(err)
-	}
-	out, err := compute(p, r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := assemble(p, r, out)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out, res := assembleRecipe(t, p, r, false)
 	t.Logf("P_%d graded %d: %d tetrahedra, %d trial unknowns, λ1 ∈ %v, λ2 ∈ %v", degree, graded, out.polyhedron.tetrahedra, out.polyhedron.trialUnknowns, res.lambda[0], res.lambda[1])
 	return [2]interval.I{res.lambda[0], res.lambda[1]}
 }

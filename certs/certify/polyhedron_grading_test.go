@@ -165,13 +165,7 @@ func TestLPrismGradedRitz(t *testing.T) {
 	var errs [2]float64
 	for graded := range errs {
 		r.graded = graded
-		if err := r.validate(p); err != nil {
-			t.Fatal(err)
-		}
-		out, err := compute(p, r)
-		if err != nil {
-			t.Fatal(err)
-		}
+		out := computeRecipe(t, p, r)
 		upper := interval.Point(out.ritz[0]).Sub(interval.Point(r.gamma)).Hi
 		if upper < lShapeLambda1 {
 			t.Fatalf("graded %d: Ritz upper bound %.17g of λ1 below λ1(L) = %.17g", graded, upper, lShapeLambda1)
@@ -197,30 +191,8 @@ func certifyLPrismRecipe(t testing.TB, degree, graded int) (*result, []byte) {
 		t.Fatal(err)
 	}
 	r.degree, r.fluxDegree, r.refine, r.stageARefine, r.graded = degree, degree, 1, 3, graded
-	if err := r.validate(p); err != nil {
-		t.Fatal(err)
-	}
-	out, err := compute(p, r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if out.lg == nil {
-		t.Fatalf("degree %d, graded %d: no stage-B bound (%v)", degree, graded, out.notes)
-	}
-	res, err := assemble(p, r, out)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res.refinement = &Refinement{Target: "1e-4", TargetRule: TargetRule, StopReason: StopTime}
-	c, err := res.certificate(p, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	data, err := c.Marshal()
-	if err != nil {
-		t.Fatal(err)
-	}
-	return res, data
+	_, res := assembleRecipe(t, p, r, true)
+	return res, recipeCertificate(t, p, res, "1e-4")
 }
 
 // TestLPrismGradedCertificate (GAPCERT_LONG=1 only; about a minute on an
