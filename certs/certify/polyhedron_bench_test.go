@@ -21,18 +21,25 @@ import (
 // 300 s; its edges are singular, exponent π/ω with ω = arccos(1/3), and
 // the driver does not grade toward them).
 //
-// Measured on the cube (idle machine, certify --rel-width 1e-8 with a
-// 400 s limit; 271 s wall and CPU time, peak RSS 1.25 GB), steps of P_p
-// on 96 tetrahedra with RT_p fluxes and N = 4:
+// Measured on the cube (idle machine, certify --rel-width 1e-8 with the
+// 120 s limit, multifrontal factorization of package enclose/sparse): the
+// target is reached at 67.3 s wall, 99 s of CPU, peak RSS 1.45 GB; steps
+// of P_p on 96 tetrahedra with RT_p fluxes and N = 4:
 //
 //	p  stage-A unknowns  λ1       λ2       gap      step (wall)
 //	3  1,440             0.46     0.75     2.3      0.2 s (no N separates)
-//	5  11,904            1.6e-6   2.5e-3   5.0e-3   6.7 s
-//	7  11,904            3.3e-10  5.3e-6   1.1e-5   19.8 s
-//	8  96,768            1.3e-11  2.3e-9   4.5e-9   244 s
+//	5  11,904            1.6e-6   2.5e-3   5.0e-3   3.0 s
+//	7  11,904            3.3e-10  5.3e-6   1.1e-5   12.1 s
+//	8  96,768            1.3e-11  2.3e-9   4.5e-9   52.0 s
 //
-// With the 120 s limit of the benchmark the last step does not fit, and
-// the run stops after the third.
+// With the up-looking factorization the last step took 244 s (271 s for
+// the run) and did not fit in 120 s.
+//
+// The regular tetrahedron on the idle machine (300 s limit): P_10 on the
+// 8 tetrahedra at 69 s (λ1 6.3e-8), P_11 at 149 s (λ1 2.4e-7, λ2 1.3e-6,
+// gap 3.2e-6; kept by the worst width), then the next step is predicted
+// not to fit; 244 s of CPU, peak RSS 2.2 GB. The target λ1 ≤ 1e-8 is not
+// reached.
 //
 // The regular tetrahedron: before the degree line, five steps on the 8
 // tetrahedra of the refined tetrahedron, the last at P_8 with stage A on
