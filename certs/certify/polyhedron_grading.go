@@ -165,6 +165,23 @@ func polyhedronGradingError(p *problem.Problem, graded int) error {
 	return nil
 }
 
+// PolyhedronTrialMesh returns the trial mesh of a polyhedron certificate
+// whose method records refinements and gradedLevels, built as the
+// certifier builds it (polyhedronTrialMesh), for pictures of its modes.
+// Values out of the ranges Check accepts are refused.
+func PolyhedronTrialMesh(p *problem.Problem, refinements, gradedLevels int) (*tet.Mesh, error) {
+	if p.Polyhedron == nil {
+		return nil, fmt.Errorf("not a polyhedron problem")
+	}
+	if refinements < 0 || refinements > maxPolyhedronRefine {
+		return nil, fmt.Errorf("method.refinements %d out of range (0 to %d on polyhedra)", refinements, maxPolyhedronRefine)
+	}
+	if err := polyhedronGradingError(p, gradedLevels); err != nil {
+		return nil, err
+	}
+	return polyhedronTrialMesh(p, recipe{refine: refinements, graded: gradedLevels})
+}
+
 // polyhedronTrialMesh is the trial mesh of recipe r: the cone tetrahedra
 // refined uniformly r.refine times (polyhedronMesh), then graded toward
 // the singular edges (singularEdges at polyhedronGradedDegree, the

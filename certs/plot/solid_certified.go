@@ -20,7 +20,9 @@ const certifiedModeUnknowns = 8000
 
 // SolidModesFor returns the lowest count approximate eigenfunctions of
 // the polyhedron problem p certified by c on the certificate's trial space
-// (the degree and refinements its method records; SolidModesOn), or, when
+// (the degree, refinements and grading its method records: SolidModesOn,
+// or on a graded certificate its graded mesh built as the certifier builds
+// it, certify.PolyhedronTrialMesh), or, when
 // that space has more than certifiedModeUnknowns unknowns, on the
 // picture's own smaller space (SolidModesOf). own is nil in the first
 // case, and in the second the *TooLargeError that says why. It panics if
@@ -36,7 +38,18 @@ func SolidModesFor(p *problem.Problem, c *certs.Certificate, count int) (modes *
 	if m.Kind != certify.KindPolyhedron || m.Degree < 1 || m.Refinements < 0 {
 		return nil, nil, fmt.Errorf("the certificate's method (%s, degree %d, %d refinements) is not a trial space on the polyhedron", m.Kind, m.Degree, m.Refinements)
 	}
-	modes, err = SolidModesOn(p, m.Degree, m.Refinements, count, certifiedModeUnknowns)
+	if m.GradedLevels > 0 {
+		mesh, merr := certify.PolyhedronTrialMesh(p, m.Refinements, m.GradedLevels)
+		if merr != nil {
+			return nil, nil, fmt.Errorf("the certificate's trial mesh: %v", merr)
+		}
+		modes, err = solidModesOnMesh(p, mesh, m.Degree, count, certifiedModeUnknowns)
+		if modes != nil {
+			modes.Levels, modes.Graded = m.Refinements, m.GradedLevels
+		}
+	} else {
+		modes, err = SolidModesOn(p, m.Degree, m.Refinements, count, certifiedModeUnknowns)
+	}
 	if errors.As(err, &own) {
 		modes, err = SolidModesOf(p, count)
 	}

@@ -24,6 +24,7 @@ const (
 // pictures, computed in floating point (choices, never part of a proof).
 type SolidModes struct {
 	Degree, Levels, Unknowns int
+	Graded                   int // levels of grading toward singular edges (a certificate's mesh)
 	// Triangles are the boundary triangles of the refined mesh, at the
 	// midpoints of their node enclosures.
 	Triangles []FaceTriangle
@@ -94,6 +95,17 @@ func SolidModesOn(p *problem.Problem, degree, levels, count, limit int) (*SolidM
 	if err != nil {
 		return nil, fmt.Errorf("the refined mesh: %v", err)
 	}
+	s, err := solidModesOnMesh(p, mesh, degree, count, limit)
+	if err != nil {
+		return nil, err
+	}
+	s.Levels = levels
+	return s, nil
+}
+
+// solidModesOnMesh is SolidModesOn on a given tetrahedral mesh of p.
+func solidModesOnMesh(p *problem.Problem, mesh *tet.Mesh, degree, count, limit int) (*SolidModes, error) {
+	m3 := mesh.Mesh3()
 	bc := make([]boundary.Condition, len(p.Boundary))
 	for i, b := range p.Boundary {
 		bc[i] = b.Condition()
@@ -111,7 +123,7 @@ func SolidModesOn(p *problem.Problem, degree, levels, count, limit int) (*SolidM
 	if err != nil {
 		return nil, fmt.Errorf("approximate eigenvectors: %v", err)
 	}
-	s := &SolidModes{Degree: degree, Levels: levels, Unknowns: space.N(), space: space, vecs: vecs,
+	s := &SolidModes{Degree: degree, Unknowns: space.N(), space: space, vecs: vecs,
 		locator: newTetLocator(mesh)}
 	for _, f := range m3.Bnd {
 		tr := FaceTriangle{Face: f.Face}

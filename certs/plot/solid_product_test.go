@@ -294,3 +294,40 @@ func TestWriteSolidDirDeterministic(t *testing.T) {
 		}
 	}
 }
+
+// TestSolidModesForGraded checks that the modes of a graded polyhedron
+// certificate are solved on its graded trial mesh (the L-shaped prism
+// [−1, 1]² ∖ [0, 1]² × [0, 1] graded once toward its re-entrant edge), as
+// certify.PolyhedronTrialMesh builds it, not on the ungraded mesh of the
+// same degree, and that a grading the certifier would refuse (on the
+// cube, which has no singular edge) is refused here too.
+func TestSolidModesForGraded(t *testing.T) {
+	p := polyhedronProblem(t, "L-shaped prism", lPrismVertices, lPrismFaces, `"dirichlet"`)
+	method := func(graded int) *certs.Certificate {
+		m, _ := json.Marshal(certify.Method{Kind: certify.KindPolyhedron, Degree: 2, Refinements: 0, GradedLevels: graded})
+		return &certs.Certificate{Method: m}
+	}
+	graded, own, err := SolidModesFor(p, method(1), 1)
+	if err != nil || own != nil {
+		t.Fatalf("graded: own %v, error %v", own, err)
+	}
+	plain, _, err := SolidModesFor(p, method(0), 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mesh, err := certify.PolyhedronTrialMesh(p, 0, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if graded.Graded != 1 || graded.Levels != 0 || graded.Degree != 2 || len(graded.Triangles) != len(mesh.Mesh3().Bnd) {
+		t.Errorf("graded modes: P_%d on %d refinements graded %d with %d boundary triangles; want P_2, 0, 1 and the %d of the certifier's graded mesh",
+			graded.Degree, graded.Levels, graded.Graded, len(graded.Triangles), len(mesh.Mesh3().Bnd))
+	}
+	if !(graded.Unknowns > plain.Unknowns) || plain.Graded != 0 {
+		t.Errorf("graded space %d unknowns, plain %d (graded %d); want more on the graded mesh", graded.Unknowns, plain.Unknowns, plain.Graded)
+	}
+	cube := polyhedronProblem(t, "cube", cubeVertices, cubeFaces, `"dirichlet"`)
+	if _, _, err := SolidModesFor(cube, method(1), 1); err == nil || !strings.Contains(err.Error(), "without singular edges") {
+		t.Errorf("graded cube: error %v, want the grading refused", err)
+	}
+}

@@ -39,6 +39,11 @@ var (
 	// Prism of height 1 over the equilateral triangle of unit edge.
 	prismVertices = [][3]string{{"0", "0", "0"}, {"1", "0", "0"}, {"1/2", "sqrt(3)/2", "0"}, {"0", "0", "1"}, {"1", "0", "1"}, {"1/2", "sqrt(3)/2", "1"}}
 	prismFaces    = [][]int{{0, 2, 1}, {3, 4, 5}, {0, 1, 4, 3}, {1, 2, 5, 4}, {2, 0, 3, 5}}
+	// The L-shaped prism [−1, 1]² ∖ [0, 1]² × [0, 1]; its re-entrant edge
+	// joins vertices 3 and 9.
+	lPrismVertices = [][3]string{{"-1", "-1", "0"}, {"1", "-1", "0"}, {"1", "0", "0"}, {"0", "0", "0"}, {"0", "1", "0"}, {"-1", "1", "0"},
+		{"-1", "-1", "1"}, {"1", "-1", "1"}, {"1", "0", "1"}, {"0", "0", "1"}, {"0", "1", "1"}, {"-1", "1", "1"}}
+	lPrismFaces = [][]int{{0, 5, 4, 3, 2, 1}, {6, 7, 8, 9, 10, 11}, {0, 1, 7, 6}, {1, 2, 8, 7}, {2, 3, 9, 8}, {3, 4, 10, 9}, {4, 5, 11, 10}, {5, 0, 6, 11}}
 	// The unit cube with a pyramid dent of apex (1/2, 1/2, 3/4) in its top
 	// face: not convex.
 	dentVertices = append(slices.Clone(cubeVertices), [3]string{"1/2", "1/2", "3/4"})

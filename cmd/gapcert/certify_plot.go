@@ -107,8 +107,12 @@ func (sp *solidPlan) draw(w io.Writer, dir string, p *problem.Problem, c *certs.
 			from = fmt.Sprintf("the picture's own trial space (%v)", own)
 		}
 		s.Section = plot.PickSection(s, sp.sections)
-		fmt.Fprintf(w, "modes from %s: P_%d on %d refinement(s) of the cone tetrahedra (%d unknowns), on the slice %s\n",
-			from, modes.Degree, modes.Levels, modes.Unknowns, s.Section.Slice)
+		graded := ""
+		if modes.Graded > 0 {
+			graded = fmt.Sprintf(" graded %d level(s) toward the singular edges", modes.Graded)
+		}
+		fmt.Fprintf(w, "modes from %s: P_%d on %d refinement(s) of the cone tetrahedra%s (%d unknowns), on the slice %s\n",
+			from, modes.Degree, modes.Levels, graded, modes.Unknowns, s.Section.Slice)
 	}
 	return plot.WriteSolidDir(dir, s, plot.Formats())
 }
