@@ -113,10 +113,11 @@ func (c *Counter) CountBelow(mMin, sigma float64) (n int, sigmaPrime float64, ok
 	})
 }
 
-// factorResidual factors Pᵀ(mid(K) − σ·mid(M))P and bounds its residual
-// (see CountBelow and Residual bounds).
-func (c *Counter) factorResidual(mMin, sigma float64) (neg int, r float64, ok bool) {
-	// The matrix to factor is a choice; its rounding errors are part of R.
+// factorShifted forms S = mid(K) − σ·mid(M) on the union pattern and
+// factors it into c.f, reporting whether every pivot is nonzero and
+// finite and every entry of L finite. S is a choice; its rounding errors
+// are part of the residual R.
+func (c *Counter) factorShifted(sigma float64) bool {
 	clear(c.c.Val)
 	for q, v := range c.k.Val {
 		c.c.Val[at(c.fromK, q)] += v.Mid()
@@ -125,12 +126,21 @@ func (c *Counter) factorResidual(mMin, sigma float64) (neg int, r float64, ok bo
 		c.c.Val[at(c.fromM, q)] -= sigma * v.Mid()
 	}
 	if !c.f.Factorize(c.sym, c.c) {
-		return 0, 0, false
+		return false
 	}
 	for _, v := range c.f.Val {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return 0, 0, false
+			return false
 		}
+	}
+	return true
+}
+
+// factorResidual factors Pᵀ(mid(K) − σ·mid(M))P and bounds its residual
+// (see CountBelow and Residual bounds).
+func (c *Counter) factorResidual(mMin, sigma float64) (neg int, r float64, ok bool) {
+	if !c.factorShifted(sigma) {
+		return 0, 0, false
 	}
 	neg = c.f.NegCount()
 	if work := c.sym.sharpResidualWork(); work > c.sharpLimit {

@@ -183,22 +183,7 @@ func factorForBound(c *Counter, sigma float64, perm []int) bool {
 	if perm != nil {
 		c.sym = analyzePattern(c.c.Pat, perm)
 	}
-	clear(c.c.Val)
-	for q, v := range c.k.Val {
-		c.c.Val[at(c.fromK, q)] += v.Mid()
-	}
-	for q, v := range c.m.Val {
-		c.c.Val[at(c.fromM, q)] -= sigma * v.Mid()
-	}
-	if !c.f.Factorize(c.sym, c.c) {
-		return false
-	}
-	for _, v := range c.f.Val {
-		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return false
-		}
-	}
-	return true
+	return c.factorShifted(sigma)
 }
 
 // factorizeFused overwrites f with the factorization of s computed by the
