@@ -355,19 +355,7 @@ func cornerExponent(p *problem.Problem, i, degree int) (float64, bool) {
 	omega := cornerAngle(p, i)
 	dirichletBefore := p.Boundary[(i+n-1)%n].Condition().Essential()
 	dirichletAfter := p.Boundary[i].Condition().Essential()
-	offset := 0.0
-	if dirichletBefore != dirichletAfter {
-		offset = 0.5
-	}
-	for k := 1; ; k++ {
-		nu := (float64(k) - offset) * math.Pi / omega
-		if nu >= float64(degree) {
-			return 0, false
-		}
-		if math.Abs(nu-math.Round(nu)) > exponentTolerance*math.Max(1, nu) {
-			return nu, true
-		}
-	}
+	return sectorExponent(omega, dirichletBefore != dirichletAfter, degree)
 }
 
 // cornerAngle returns the interior angle ω ∈ (0, 2π) at vertex i of the

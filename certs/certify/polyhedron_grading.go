@@ -128,8 +128,10 @@ func singularEdges(p *problem.Problem, degree, graded int) []singularEdge {
 
 // sectorExponent returns the least non-integer exponent below degree of a
 // sector of angle theta whose sides have the same (mixed false) or
-// different (mixed true) kinds of condition (cornerExponent's table), and
-// false when every exponent below degree is an integer.
+// different (mixed true) kinds of condition: kπ/θ, or (k − ½)π/θ when
+// mixed, k = 1, 2, … (see cornerExponent), and false when every exponent
+// below degree is an integer. Polygon corners and polyhedron edges share
+// it.
 func sectorExponent(theta float64, mixed bool, degree int) (float64, bool) {
 	offset := 0.0
 	if mixed {
