@@ -45,6 +45,20 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 	for ri, rf := range f.robin {
 		robinOf[rf.t] = append(robinOf[rf.t], ri)
 	}
+	// The divergence of a basis function has few nonzero coefficients
+	// (rtBasisRat): divCols[l] lists those of function l.
+	type entry struct {
+		row int
+		v   float64
+	}
+	divCols := make([][]entry, nd)
+	for be := 0; be < nk; be++ {
+		for l, v := range ref.divT[be*nd : (be+1)*nd] {
+			if v != 0 {
+				divCols[l] = append(divCols[l], entry{be, v})
+			}
+		}
+	}
 	uraw, uc := make([]float64, np), make([]float64, np)
 	wu := make([]float64, nk)
 	for t := range f.cells {
@@ -68,26 +82,20 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 			loc[ij] = acc / (6 * det)
 		}
 		clear(dw)
-		for be := 0; be < nk; be++ {
-			for ga := 0; ga < nk; ga++ {
-				wv := wkk[be*nk+ga]
-				if wv == 0 {
-					continue
-				}
-				for l := 0; l < nd; l++ {
-					dw[be*nd+l] += wv * ref.divT[ga*nd+l]
+		for l, col := range divCols {
+			for _, e := range col {
+				for be := 0; be < nk; be++ {
+					dw[be*nd+l] += wkk[be*nk+e.row] * e.v
 				}
 			}
 		}
 		dsc := vol / (det * det)
-		for be := 0; be < nk; be++ {
-			for l := 0; l < nd; l++ {
-				a := ref.divT[be*nd+l]
-				if a == 0 {
-					continue
-				}
-				for m := 0; m < nd; m++ {
-					loc[l*nd+m] += dsc * a * dw[be*nd+m]
+		for l, col := range divCols {
+			row := loc[l*nd : (l+1)*nd]
+			for _, e := range col {
+				a := dsc * e.v
+				for m, v := range dw[e.row*nd : (e.row+1)*nd] {
+					row[m] += a * v
 				}
 			}
 		}
