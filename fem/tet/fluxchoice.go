@@ -184,6 +184,8 @@ var (
 // rtMassBlocks returns, for each pair (r, s) at index 3r + s, the float
 // matrix M_rs[l·ndof + m] = ĉ_(l,r)ᵀ G ĉ_(m,s) of the scaled reference
 // basis (G the Gram matrix of degree k + 1 normalised by |T|; a choice).
+// Each component of a basis function has at most three nonzero
+// coefficients (rtBasisRat), so the entries are short sums.
 func rtMassBlocks(k int) [][]float64 {
 	rtMassMu.Lock()
 	defer rtMassMu.Unlock()
@@ -193,28 +195,34 @@ func rtMassBlocks(k int) [][]float64 {
 	ref := rtReference(k)
 	nd, nn := ref.ndof, rtDim(ref.n)
 	g := rtTriple(0, ref.n, ref.n).FL
+	type term struct {
+		a int
+		v float64
+	}
+	var nz [3][][]term // nz[c][l]: the nonzero coefficients of component c of function l
+	for c := 0; c < 3; c++ {
+		nz[c] = make([][]term, nd)
+		for a := 0; a < nn; a++ {
+			for l, v := range ref.compT[c][a*nd : (a+1)*nd] {
+				if v != 0 {
+					nz[c][l] = append(nz[c][l], term{a, v})
+				}
+			}
+		}
+	}
 	out := make([][]float64, 9)
 	for r := 0; r < 3; r++ {
 		for s := 0; s < 3; s++ {
-			gc := make([]float64, nn*nd) // G compT[s]
-			for a := 0; a < nn; a++ {
-				for b := 0; b < nn; b++ {
-					gv := g[a*nn+b]
-					for m := 0; m < nd; m++ {
-						gc[a*nd+m] += gv * ref.compT[s][b*nd+m]
-					}
-				}
-			}
 			blk := make([]float64, nd*nd)
-			for a := 0; a < nn; a++ {
-				for l := 0; l < nd; l++ {
-					cl := ref.compT[r][a*nd+l]
-					if cl == 0 {
-						continue
+			for l := 0; l < nd; l++ {
+				for m := 0; m < nd; m++ {
+					acc := 0.0
+					for _, x := range nz[r][l] {
+						for _, y := range nz[s][m] {
+							acc += x.v * g[x.a*nn+y.a] * y.v
+						}
 					}
-					for m := 0; m < nd; m++ {
-						blk[l*nd+m] += cl * gc[a*nd+m]
-					}
+					blk[l*nd+m] = acc
 				}
 			}
 			out[r*3+s] = blk
