@@ -6,6 +6,7 @@ import (
 	"math"
 	"math/big"
 	"math/rand/v2"
+	"os"
 	"sort"
 	"testing"
 
@@ -517,11 +518,15 @@ func fluxExactDefect(f *Flux, m fluxExactMesh, bnd map[int]boundary.Condition, r
 }
 
 // TestFluxExactTracesDivergenceAndRobinTerms runs fluxExactDefect at
-// k = 0..4 on both two-cell meshes of fluxExactPairs with Neumann,
+// k = 0..4 (with GAPCERT_LONG=1 also 5..7) on both two-cell meshes of fluxExactPairs with Neumann,
 // Dirichlet and mixed (Dirichlet, Robin, Neumann, Robin with α not
 // verified positive) boundary faces, and checks that the cell pair given
 // negatively oriented is refused before renumbering.
 func TestFluxExactTracesDivergenceAndRobinTerms(t *testing.T) {
+	kmax := 4
+	if os.Getenv("GAPCERT_LONG") == "1" {
+		kmax = 7
+	}
 	meshes, refused := fluxExactPairs(t)
 	for mi, m := range meshes {
 		if refused[mi] != nil {
@@ -531,7 +536,7 @@ func TestFluxExactTracesDivergenceAndRobinTerms(t *testing.T) {
 				t.Fatalf("mesh %d: the negatively oriented cell gives %v, want a *FluxOrientationError for cell 1", mi, err)
 			}
 		}
-		for k := 0; k <= 4; k++ {
+		for k := 0; k <= kmax; k++ {
 			for _, kind := range []string{"neumann", "dirichlet", "mixed"} {
 				bnd := fluxExactConditions(m, kind)
 				f, err := NewFlux(m.cells, k, bnd)
