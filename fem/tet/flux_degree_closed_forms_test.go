@@ -21,13 +21,13 @@ type fluxDegreeCase struct {
 	gamma  float64
 	trialP func(k int) int
 	// maxRel[k] is the relative width of λ_1 measured when written, times
-	// about 2 (+Inf where the Lehmann–Goerisch bound is −∞: too few trial
-	// functions on the one-cell mesh at k = 1). Measured with the Whitney
-	// basis and with the basis dual to interior moments before it: equal
-	// to all printed digits for k ≤ 8; at k = 10 the Whitney basis is
-	// narrower (cube 2.4e-10 against 2.9e-10, orthoscheme 2.3e-10 against
-	// 2.8e-10, Neumann face 4.2e-11 against 8.8e-11, Robin face 6.3e-11
-	// against 1.2e-9).
+	// about 2 (+Inf for the cube at k = 1, where the Lehmann–Goerisch
+	// bound is −∞: P_3 on six cells is too coarse). Measured with the
+	// Whitney basis and with the basis dual to interior moments before it:
+	// the same bounds to 12 significant digits for k ≤ 8; at k = 10 the
+	// Whitney basis is narrower (cube 2.4e-10 against 2.9e-10, orthoscheme
+	// 2.3e-10 against 2.8e-10, Neumann face 4.2e-11 against 8.8e-11, Robin
+	// face 6.3e-11 against 1.2e-9).
 	maxRel map[int]float64
 }
 
