@@ -94,16 +94,19 @@ func (d polyhedron) memory(r recipe) int64 {
 // (package fem/tet): the exact rational Bernstein coefficients of the n =
 // dim RT_k basis functions (3n(k+2)(k+3)(k+4)/6 entries, most sharing
 // one zero, 64 bytes each) and the nine float mass blocks of the flux
-// choice (9n² entries), with a margin of a half. Measured peak RSS of
-// building both alone: 45 MB at k = 8 (estimate 57 MB), 118 MB at k = 10
-// (168 MB), 269 MB at k = 12 (463 MB).
+// choice (9n² entries), times 3 for the exact triple tables of the trial
+// and flux spaces built at the same degree. Measured peak RSS of building
+// the RT_k tables and mass blocks alone: 45 MB at k = 8, 118 MB at k = 10,
+// 269 MB at k = 12; of whole steps of the regular tetrahedron (8
+// tetrahedra, stage A on 4096) at P_8, P_10, P_11, P_12: 176, 529, 924 MB
+// and 1.23 GB (estimates of the whole step 0.28, 0.70, 1.07 and 1.57 GB).
 func rtTableBytes(k int) float64 {
 	if k <= 0 {
 		return 0
 	}
 	n := float64(tet.RTDim(k))
 	nn := float64((k + 2) * (k + 3) * (k + 4) / 6)
-	return 1.5 * (9*n*n*8 + 3*n*nn*64)
+	return 3 * (9*n*n*8 + 3*n*nn*64)
 }
 
 // Memory of polyhedron computations (polyhedron.memory). Measured peak
