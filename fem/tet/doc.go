@@ -206,9 +206,10 @@
 // and of its divergence, and rtBasisRat checks every normal trace exactly.
 // Unlike a basis dual to interior moments, whose coefficients grow with k
 // (to 5e10 at k = 11, with cancellation of 4e6 in the float mass matrix),
-// these coefficients are bounded (at most 24 for k ≤ 12), so the float
+// these coefficients stay small (for k ≤ 12 at most 24 in the components
+// and 364 in the divergence, after scaling), so the float
 // matrices of the flux choice keep their accuracy at high degree.
-
+//
 // Piola transform. A tetrahedron T with vertices v_0, …, v_3 is x = v_0 +
 // Jξ, J = [v_1 − v_0, v_2 − v_0, v_3 − v_0], det J = 6|T| > 0 (positive
 // orientation, verified from the enclosures: NewFlux). A member of RT_k(T)

@@ -11,9 +11,9 @@ import (
 // Raviart–Thomas tables are checked by point values (face traces,
 // divergence): up to 3, and with GAPCERT_LONG=1 also
 // 9, the first degree past 8 the polyhedron driver uses (the construction
-// is the same at every degree; its rational entries grow with k, and
-// rtReference refuses a scaled coefficient that is not an integer of at
-// most 53 bits).
+// is the same at every degree, and rtReference refuses a scaled
+// coefficient that is not an integer of at most 53 bits; the tables of
+// every k ≤ 12 are checked modulo a prime in raviart_membership_test.go).
 func rtCheckedDegrees(from int) []int {
 	var ks []int
 	for k := from; k <= 3; k++ {
@@ -74,14 +74,15 @@ func rtBarycentric(x [3]*big.Rat) [4]*big.Rat {
 // rtRandomRat returns a random rational in [0, 1) with denominator 97.
 func rtRandomRat(rng *rand.Rand) *big.Rat { return big.NewRat(int64(rng.IntN(97)), 97) }
 
-// TestRTBasisFaceTracesAgainstPointValues checks the dual basis on every
-// face by exact evaluation: at random rational points of face i the flux
-// density σ̂·ν̂_i of the scaled basis function l, computed from its
-// component coefficients, equals faceScale times the degree-k face
-// Bernstein polynomial with coefficient 1 at l (face DOF of face i) or
-// is 0 (every other function). This is unisolvence and duality for the
-// face functionals, evaluated independently of the degree reduction used
-// to build the basis.
+// TestRTBasisFaceTracesAgainstPointValues checks the normal traces of the
+// basis on every face by exact evaluation: at random rational points of
+// face i the flux density σ̂·ν̂_i of basis function l, computed from its
+// component coefficients, equals the degree-k face Bernstein polynomial
+// with coefficient 1 at l (face function of face i) or is 0 (every other
+// function, the interior ones included), and the scaled table holds
+// faceScale times the same coefficients. So the face DOFs are the
+// Bernstein coefficients of the flux density, checked independently of
+// the trace check inside rtBasisRat.
 func TestRTBasisFaceTracesAgainstPointValues(t *testing.T) {
 	rng := rand.New(rand.NewPCG(14, 1))
 	for _, k := range rtCheckedDegrees(0) {
