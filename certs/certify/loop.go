@@ -190,12 +190,24 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			break
 		}
 		// The next step costs a few times the last one (a discretisation
-		// may predict it, stepTimer); stop if it would not fit.
-		predicted := 4 * time.Since(t0)
-		if st, ok := d.(stepTimer); ok {
-			predicted = st.stepTime(r, next, out, time.Since(t0))
+		// may predict it, stepTimer); stop if it would not fit, unless the
+		// discretisation offers a cheaper step that does (stepFallback).
+		stepDur := time.Since(t0)
+		fits := func(next recipe) bool {
+			predicted := 4 * stepDur
+			if st, ok := d.(stepTimer); ok {
+				predicted = st.stepTime(r, next, out, stepDur)
+			}
+			return paced || time.Since(start)+predicted <= limit
 		}
-		if !paced && time.Since(start)+predicted > limit {
+		if !fits(next) {
+			if fb, ok := d.(stepFallback); ok {
+				if alt, ok := fb.fallback(r, next, out); ok && memoryEstimate(p, alt) <= budget && fits(alt) {
+					next = alt
+				}
+			}
+		}
+		if !fits(next) {
 			reason = StopTime
 			break
 		}
@@ -222,6 +234,13 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 	}
 	best.refinement = &Refinement{Target: targetText, TargetRule: TargetRule, StopReason: reason}
 	return best.certificate(p, opt)
+}
+
+// stepFallback is a discretisation that offers a cheaper step when the
+// one it chose (next) is predicted not to fit in the time left (a
+// choice).
+type stepFallback interface {
+	fallback(r, next recipe, out *outcome) (recipe, bool)
 }
 
 // stepTimer is a discretisation that predicts the time of the step from r

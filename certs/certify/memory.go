@@ -90,21 +90,23 @@ func (d polyhedron) memory(r recipe) int64 {
 	return int64(math.Min(math.Max(stageA, trial+flux+vectors+rtTableBytes(r.fluxDegree)), math.MaxInt64/2))
 }
 
-// rtTableBytes estimates the peak memory of building the exact reference
-// tables of RT_k (package fem/tet: Gauss–Jordan elimination of the
-// n × 2n rational matrix of its degrees of freedom, n = dim RT_k, whose
-// entries grow with k) as 2n² entries of 100k bytes. Measured peak RSS of
-// the construction alone: 306 MB at k = 8 (n = 540; estimate 466 MB), 516
-// MB at k = 9 (n = 715; 920 MB); of a whole step at P_10 on the regular
-// tetrahedron (8 tetrahedra, stage A on 4096) 1.10 GB (n = 924; 1.7 GB);
-// at k = 12 (n = 1456; 5.1 GB) 2.50 GB for the construction alone (248 s
-// of CPU).
+// rtTableBytes estimates the peak memory of the reference tables of RT_k
+// (package fem/tet): the exact rational Bernstein coefficients of the n =
+// dim RT_k basis functions (3n(k+2)(k+3)(k+4)/6 entries, most sharing
+// one zero, 64 bytes each) and the nine float mass blocks of the flux
+// choice (9n² entries), times 3 for the exact triple tables of the trial
+// and flux spaces built at the same degree. Measured peak RSS of building
+// the RT_k tables and mass blocks alone: 45 MB at k = 8, 118 MB at k = 10,
+// 269 MB at k = 12; of whole steps of the regular tetrahedron (8
+// tetrahedra, stage A on 4096) at P_8, P_10, P_11, P_12: 176, 529, 924 MB
+// and 1.23 GB (estimates of the whole step 0.28, 0.70, 1.07 and 1.57 GB).
 func rtTableBytes(k int) float64 {
 	if k <= 0 {
 		return 0
 	}
 	n := float64(tet.RTDim(k))
-	return 2 * n * n * 100 * float64(k)
+	nn := float64((k + 2) * (k + 3) * (k + 4) / 6)
+	return 3 * (9*n*n*8 + 3*n*nn*64)
 }
 
 // Memory of polyhedron computations (polyhedron.memory). Measured peak

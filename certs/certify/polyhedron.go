@@ -41,10 +41,10 @@ type polyhedronRecord struct {
 // Recipe ranges on polyhedra: the trial degree p (the flux degree is k =
 // p), and uniform levels of the trial and stage-A meshes (each level has
 // eight times the tetrahedra; the memory estimate stops a run long before
-// the caps). The degree cap bounds the exact Raviart–Thomas tables of
-// package fem/tet, built in rational arithmetic (RT_12 has 1456 basis
-// functions; measured 248 s of CPU and 2.5 GB to build its tables, the
-// cost growing like the cube of that number).
+// the caps). The degree cap bounds the cost of a step, whose element
+// blocks are dense (RT_12 has 1456 basis functions per tetrahedron, P_12
+// 455): a P_12 step on the regular tetrahedron's 8 tetrahedra took 21 s
+// and 1.23 GB, and check replays it.
 const (
 	maxPolyhedronDegree = 12
 	maxPolyhedronRefine = 7
@@ -289,6 +289,36 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 	return r, ""
 }
 
+// fallback replaces a step of the trial mesh (a uniform or graded level)
+// that is predicted not to fit in the time left by a stage-A level, when
+// ρ̂ amplifies the Lehmann–Goerisch bound of Λ_m and a level is expected
+// to widen ρ̂ − Λ_m at least polyhedronMinFallbackGain times
+// (polyhedronRhoGain), within maxRhoStageATetrahedra: a trial level costs
+// about 64 times the step, a stage-A level 64 times stage A alone, which
+// at the end of the degree line is the smaller part. Measured on the
+// regular tetrahedron at P_12 (8 tetrahedra; expected gain 4.7): stage A
+// on 32,768 tetrahedra instead of 4096 raised ρ̂ from 38.97 to 48.86 and
+// narrowed λ1 from 1.04e-8 to 8.5e-9 and λ2 from 1.5e-7 to 4.1e-8, the
+// step taking 38 s instead of 21 s. A choice; every recipe is sound.
+func (d polyhedron) fallback(r, next recipe, out *outcome) (recipe, bool) {
+	if next.refine == r.refine && next.graded == r.graded {
+		return next, false
+	}
+	if out.n == 0 || r.stageARefine >= maxPolyhedronRefine || polyhedronTetrahedra(d.p, r.stageARefine+1) > maxRhoStageATetrahedra {
+		return next, false
+	}
+	if polyhedronRhoGain(out, d.p.Eigenvalues) < polyhedronMinFallbackGain {
+		return next, false
+	}
+	r.stageARefine++
+	r.extra = min(max(r.extra, out.n+maxRaiseN3D-d.p.Eigenvalues), maxExtraIndices)
+	return r, true
+}
+
+// polyhedronMinFallbackGain is the least expected widening of ρ̂ − Λ_m
+// for which fallback takes a stage-A level.
+const polyhedronMinFallbackGain = 2
+
 // polyhedronRhoLimits reports whether ρ̂, the stage-A lower bound of
 // Λ_(N+1), limits the Lehmann–Goerisch bound of Λ_m (m requested
 // eigenvalues) enough to pay for a stage-A level: its amplification
@@ -306,15 +336,23 @@ func (d polyhedron) next(r recipe, out *outcome, _ float64) (recipe, string) {
 // from 1.1e-3 to 2.4e-4 for 100 s of stage A, where the step to P_9
 // without it gave 2.4e-5 for 30 s. A choice; every recipe is sound.
 func polyhedronRhoLimits(out *outcome, m int) bool {
+	return polyhedronRhoGain(out, m) >= polyhedronMinRhoGain
+}
+
+// polyhedronRhoGain returns the expected widening of ρ̂ − Λ_m by a
+// stage-A level as polyhedronRhoLimits estimates it: +Inf when N is the
+// last index bounded, and 0 when ρ̂ does not amplify (Λ_m/(ρ̂ − Λ_m) ≤
+// polyhedronMaxAmplification).
+func polyhedronRhoGain(out *outcome, m int) float64 {
 	lm := out.ritz[m-1]
 	if !(lm/(out.rho-lm) > polyhedronMaxAmplification) {
-		return false
+		return 0
 	}
 	if out.n >= len(out.ritz) {
-		return true
+		return math.Inf(1)
 	}
 	expected := out.rho + 0.75*(out.ritz[out.n]-out.rho)
-	return (expected-lm)/(out.rho-lm) >= polyhedronMinRhoGain
+	return (expected - lm) / (out.rho - lm)
 }
 
 // polyhedronMinRhoGain is the least expected widening of ρ̂ − Λ_m for
@@ -371,15 +409,12 @@ func polyhedronTetrahedra(p *problem.Problem, levels int) int64 {
 // unknowns to about 250 s at 96,768 with the up-looking factorization;
 // the multifrontal one of package enclose/sparse cuts the latter to
 // about 40 s of CPU, so the factor 64 is now on the safe side). On a
-// degree step the rest grows
-// like the cube of the dimension of RT_k on a tetrahedron (the exact
-// Raviart–Thomas tables of fem/tet and the element blocks of the flux
-// choice are dense in it), with a margin of a quarter. Measured: building
-// the RT_k tables took 9.9, 24.2 and 52.4 s of CPU at k = 8, 9, 10
-// (ratios 2.45 and 2.17; cubes of the dimension ratios 2.32 and 2.16);
-// the steps' time less stage A on the regular tetrahedron (8 tetrahedra,
-// wall time on a loaded machine) grew 1.9 and 2.4 times from P_7 to P_8
-// and P_8 to P_9 (2.54 and 2.32 in the model).
+// degree step the rest grows like the cube of the dimension of RT_k on a
+// tetrahedron (the element blocks of the flux choice and of the
+// Lehmann–Goerisch matrix are dense in it), with a margin of a quarter.
+// Measured on the regular tetrahedron (8 tetrahedra, stage A on 4096,
+// idle machine): the steps from P_8 to P_12 took 3.6, 5.2, 8.3, 13.4 and
+// 21.3 s, ratios 1.46 to 1.62 where the model predicts 2.4 to 2.9.
 func (d polyhedron) stepTime(r, next recipe, out *outcome, last time.Duration) time.Duration {
 	stageA := min(out.stageATime, last)
 	rest := last - stageA

@@ -167,19 +167,48 @@
 // faces through the origin). Local face i is the face opposite vertex i,
 // with its vertices in increasing local order, and ν̂_i is its outward
 // normal times twice its area: ν̂_0 = (1, 1, 1), ν̂_1 = −e_1, ν̂_2 = −e_2,
-// ν̂_3 = −e_3. The degrees of freedom are
+// ν̂_3 = −e_3.
 //
-//   - on face i, the (k + 1)(k + 2)/2 Bernstein coefficients (degree k, in
-//     the barycentric coordinates of the face's vertices) of the flux
-//     density g_i = σ̂·ν̂_i;
-//   - inside, the k(k + 1)(k + 2)/2 moments ∫_T̂ σ̂_c B^(k−1)_β, c = 1, 2, 3.
+// Basis. For a face F = {a < b < c} the Whitney field
 //
-// They are unisolvent on RT_k (Nédélec 1980, and Boffi–Brezzi–Fortin 2013,
-// §2.3, for the equivalent moment form of the face DOFs); here the
-// exact inversion of rtBasisRat verifies it for each k used, and fails
-// loudly otherwise. The basis dual to them is computed once per k in
-// math/big and kept, scaled to integers (rtRef), as the Bernstein
-// coefficients of its three components and of its divergence.
+//	φ_F = 2(λ_a ∇λ_b × ∇λ_c + λ_b ∇λ_c × ∇λ_a + λ_c ∇λ_a × ∇λ_b)
+//
+// lies in RT_0 = {u + s x : u ∈ R³, s ∈ R}, its normal component vanishes
+// on the other three faces, and on F it is constant (the trace property of
+// Whitney forms: D. N. Arnold, R. S. Falk, R. Winther, Finite element
+// exterior calculus, homological techniques, and applications, Acta
+// Numer. 15 (2006) 1–155, §4; here checked exactly for the four faces of
+// T̂, rtWhitneyFlux). For q ∈ P_k, q φ_F ∈ RT_k: with φ_F = u + s x and
+// q = q_< + q_k, q_k homogeneous of degree k, q u + s q_< x ∈ P_k³ and
+// s q_k x ∈ x P̃_k. The basis of RT_k is that of Arnold, Falk and Winther
+// (Geometric decompositions and local bases for spaces of finite element
+// differential forms, Comput. Methods Appl. Mech. Engrg. 198 (2009)
+// 1660–1672, §9: λ^α φ_σ with |α| = k and α_i = 0 for i < min σ), in the
+// Bernstein scaling B^k_α = C(k, α) λ^α:
+//
+//   - face functions: for face i and a multi-index β of degree k over its
+//     vertices, B^k_α φ_F/(φ_F·ν̂_i), α = β on F and α_i = 0. Its flux
+//     density σ̂·ν̂_i is B^k_β on face i, and 0 on the other faces;
+//   - interior functions: B^k_α φ_F with F the face opposite vertex c + 1,
+//     c = 0, 1, 2, and α = γ + e_(c+1), |γ| = k − 1. The factor λ_(c+1)
+//     vanishes on F, so the normal component is 0 on all of ∂T̂.
+//
+// Their number, 4(k + 1)(k + 2)/2 + 3k(k + 1)(k + 2)/6 = (k + 1)(k + 2)(k +
+// 4)/2, is dim RT_k, and they are independent (Arnold–Falk–Winther 2009;
+// tested exactly against the basis dual to the classical degrees of
+// freedom for k ≤ 3, and by the rank modulo a prime for k ≤ 12). The
+// degrees of freedom are therefore the coefficients in this basis: on
+// face i the degree-k Bernstein coefficients of the flux density
+// g_i = σ̂·ν̂_i, inside the coefficients of the interior functions. Since
+// B^k_α λ_a = (α_a + 1)/(k + 1) · B^(k+1)_(α+e_a), every Bernstein
+// coefficient of degree n = k + 1 is a small rational: the basis is kept,
+// scaled to integers (rtRef), as the coefficients of its three components
+// and of its divergence, and rtBasisRat checks every normal trace exactly.
+// Unlike a basis dual to interior moments, whose coefficients grow with k
+// (to 5e10 at k = 11, with cancellation of 4e6 in the float mass matrix),
+// these coefficients stay small (for k ≤ 12 at most 24 in the components
+// and 364 in the divergence, after scaling), so the float
+// matrices of the flux choice keep their accuracy at high degree.
 //
 // Piola transform. A tetrahedron T with vertices v_0, …, v_3 is x = v_0 +
 // Jξ, J = [v_1 − v_0, v_2 − v_0, v_3 − v_0], det J = 6|T| > 0 (positive

@@ -30,7 +30,7 @@ type RTCell struct {
 // Raviart–Thomas fluxes on tetrahedra). Global DOFs: the face DOFs of
 // every face that keeps them (numbered by face, each in the order of
 // rtFaceMulti(k) over the face's sorted global vertices), then the
-// interior moments of every cell.
+// coefficients of the interior functions of every cell.
 type Flux struct {
 	cells []RTCell
 	k     int

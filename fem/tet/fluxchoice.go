@@ -45,6 +45,20 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 	for ri, rf := range f.robin {
 		robinOf[rf.t] = append(robinOf[rf.t], ri)
 	}
+	// The divergence of a basis function has few nonzero coefficients
+	// (rtBasisRat): divCols[l] lists those of function l.
+	type entry struct {
+		row int
+		v   float64
+	}
+	divCols := make([][]entry, nd)
+	for be := 0; be < nk; be++ {
+		for l, v := range ref.divT[be*nd : (be+1)*nd] {
+			if v != 0 {
+				divCols[l] = append(divCols[l], entry{be, v})
+			}
+		}
+	}
 	uraw, uc := make([]float64, np), make([]float64, np)
 	wu := make([]float64, nk)
 	for t := range f.cells {
@@ -68,26 +82,20 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 			loc[ij] = acc / (6 * det)
 		}
 		clear(dw)
-		for be := 0; be < nk; be++ {
-			for ga := 0; ga < nk; ga++ {
-				wv := wkk[be*nk+ga]
-				if wv == 0 {
-					continue
-				}
-				for l := 0; l < nd; l++ {
-					dw[be*nd+l] += wv * ref.divT[ga*nd+l]
+		for l, col := range divCols {
+			for _, e := range col {
+				for be := 0; be < nk; be++ {
+					dw[be*nd+l] += wkk[be*nk+e.row] * e.v
 				}
 			}
 		}
 		dsc := vol / (det * det)
-		for be := 0; be < nk; be++ {
-			for l := 0; l < nd; l++ {
-				a := ref.divT[be*nd+l]
-				if a == 0 {
-					continue
-				}
-				for m := 0; m < nd; m++ {
-					loc[l*nd+m] += dsc * a * dw[be*nd+m]
+		for l, col := range divCols {
+			row := loc[l*nd : (l+1)*nd]
+			for _, e := range col {
+				a := dsc * e.v
+				for m, v := range dw[e.row*nd : (e.row+1)*nd] {
+					row[m] += a * v
 				}
 			}
 		}
@@ -184,6 +192,8 @@ var (
 // rtMassBlocks returns, for each pair (r, s) at index 3r + s, the float
 // matrix M_rs[l·ndof + m] = ĉ_(l,r)ᵀ G ĉ_(m,s) of the scaled reference
 // basis (G the Gram matrix of degree k + 1 normalised by |T|; a choice).
+// Each component of a basis function has at most three nonzero
+// coefficients (rtBasisRat), so the entries are short sums.
 func rtMassBlocks(k int) [][]float64 {
 	rtMassMu.Lock()
 	defer rtMassMu.Unlock()
@@ -193,28 +203,34 @@ func rtMassBlocks(k int) [][]float64 {
 	ref := rtReference(k)
 	nd, nn := ref.ndof, rtDim(ref.n)
 	g := rtTriple(0, ref.n, ref.n).FL
+	type term struct {
+		a int
+		v float64
+	}
+	var nz [3][][]term // nz[c][l]: the nonzero coefficients of component c of function l
+	for c := 0; c < 3; c++ {
+		nz[c] = make([][]term, nd)
+		for a := 0; a < nn; a++ {
+			for l, v := range ref.compT[c][a*nd : (a+1)*nd] {
+				if v != 0 {
+					nz[c][l] = append(nz[c][l], term{a, v})
+				}
+			}
+		}
+	}
 	out := make([][]float64, 9)
 	for r := 0; r < 3; r++ {
 		for s := 0; s < 3; s++ {
-			gc := make([]float64, nn*nd) // G compT[s]
-			for a := 0; a < nn; a++ {
-				for b := 0; b < nn; b++ {
-					gv := g[a*nn+b]
-					for m := 0; m < nd; m++ {
-						gc[a*nd+m] += gv * ref.compT[s][b*nd+m]
-					}
-				}
-			}
 			blk := make([]float64, nd*nd)
-			for a := 0; a < nn; a++ {
-				for l := 0; l < nd; l++ {
-					cl := ref.compT[r][a*nd+l]
-					if cl == 0 {
-						continue
+			for l := 0; l < nd; l++ {
+				for m := 0; m < nd; m++ {
+					acc := 0.0
+					for _, x := range nz[r][l] {
+						for _, y := range nz[s][m] {
+							acc += x.v * g[x.a*nn+y.a] * y.v
+						}
 					}
-					for m := 0; m < nd; m++ {
-						blk[l*nd+m] += cl * gc[a*nd+m]
-					}
+					blk[l*nd+m] = acc
 				}
 			}
 			out[r*3+s] = blk

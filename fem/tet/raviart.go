@@ -3,7 +3,6 @@ package tet
 import (
 	"fmt"
 	"math/big"
-	"runtime"
 	"sync"
 )
 
@@ -20,7 +19,8 @@ var rtRefNormal = [4][3]int64{{1, 1, 1}, {-1, 0, 0}, {0, -1, 0}, {0, 0, -1}}
 // integer, so that the two cells at a face scale its DOFs alike) and the
 // least common denominator of its coefficients for an interior one.
 // Local DOFs are ordered face 0, 1, 2, 3 (each by rtFaceMulti(k)), then
-// the moments (component c = 0, 1, 2, each by rtMulti(k − 1)).
+// the interior functions (c = 0, 1, 2: those of the face opposite vertex
+// c + 1, each by rtMulti(k − 1); see rtBasisRat).
 type rtRef struct {
 	k, n  int // degree and component degree n = k + 1
 	ndof  int
@@ -77,6 +77,9 @@ func rtReference(k int) *rtRef {
 		scale[l] = face
 	}
 	exact := func(v *big.Rat, l int) float64 {
+		if v.Sign() == 0 {
+			return 0
+		}
 		x := new(big.Rat).Mul(v, new(big.Rat).SetInt(scale[l]))
 		f, isExact := x.Float64()
 		if !x.IsInt() || !isExact || x.Num().BitLen() > 53 {
@@ -114,118 +117,161 @@ func rtLCM(a, b *big.Int) *big.Int {
 // of its three components.
 type rtField [3][]*big.Rat
 
-// rtBasisRat returns the dual basis of RT_k: comp[l][c] the degree-(k+1)
-// Bernstein coefficients of component c of basis function l, div[l] the
-// degree-k coefficients of its divergence, exactly.
+// rtBasisRat returns the reference basis of RT_k (ordered as rtRef):
+// comp[l][c] the degree-(k+1) Bernstein coefficients of component c of
+// basis function l, div[l] the degree-k coefficients of its divergence,
+// exactly. The functions are Bernstein polynomials times Whitney face
+// fields (package doc, Reference element):
+//
+//	face i, multi-index β:   B^k_α φ_F / (φ_F·ν̂_i on F),  F the face i, α = β on F and α_i = 0;
+//	interior (c, γ):         B^k_α φ_F,  F the face opposite vertex c + 1, α = γ + e_(c+1), |γ| = k − 1.
+//
+// With B^k_α λ_a = C(k, α)/C(k + 1, α + e_a) B^(k+1)_(α+e_a) =
+// (α_a + 1)/(k + 1) · B^(k+1)_(α+e_a), every coefficient is a small
+// rational. The normal traces are checked exactly here (face function l of
+// face i: σ̂·ν̂_i has the face Bernstein coefficients of the unit vector at
+// its β, and σ̂·ν̂_j = 0 on every other face; interior functions: 0 on
+// every face), and rtBasisRat panics if one fails.
 func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 	n := k + 1
+	in := rtMulti(n)
 	nn := rtDim(n)
+	fk := rtFaceMulti(k)
+	// Most coefficients are 0: they share one value, replaced by a new
+	// one where a term is added.
+	shared := new(big.Rat)
 	zero := func() []*big.Rat {
 		z := make([]*big.Rat, nn)
 		for i := range z {
-			z[i] = new(big.Rat)
+			z[i] = shared
 		}
 		return z
 	}
-	// Spanning set (sparse in Bernstein form): e_c B^k_α for the Bernstein
-	// basis of P_k, written in degree n by the elevation B^k_α =
-	// Σ_j (α_j + 1)/n · B^n_(α+e_j), and x h for the monomials h = ξ^a η^b ζ^d
-	// of degree exactly k, whose components λ_(c+1) h = λ^δ (δ = (0, a, b, d)
-	// + e_(c+1), |δ| = n) are B^n_δ/C(n, δ).
-	in := rtMulti(n)
-	var span []rtField
-	for c := 0; c < 3; c++ {
-		for _, al := range rtMulti(k).alpha {
-			f := rtField{zero(), zero(), zero()}
-			for j := 0; j < 4; j++ {
-				up := al
-				up[j]++
-				f[c][in.pos[up]].SetFrac64(int64(al[j]+1), int64(n))
+	// whitney adds f·B^k_α φ_F to s, F = rtFaceVertices[i]:
+	// φ_F = 2(λ_a ∇λ_b × ∇λ_c + λ_b ∇λ_c × ∇λ_a + λ_c ∇λ_a × ∇λ_b).
+	whitney := func(s rtField, i int, al [4]int, f *big.Rat) {
+		v := rtFaceVertices[i]
+		for r := 0; r < 3; r++ {
+			a, b, c := v[r], v[(r+1)%3], v[(r+2)%3]
+			w := rtCross(rtGradLambda[b], rtGradLambda[c])
+			up := al
+			up[a]++
+			coef := new(big.Rat).Mul(f, big.NewRat(int64(2*(al[a]+1)), int64(n)))
+			for x := 0; x < 3; x++ {
+				if w[x] != 0 {
+					p := in.pos[up]
+					if s[x][p] == shared {
+						s[x][p] = new(big.Rat)
+					}
+					s[x][p].Add(s[x][p], new(big.Rat).Mul(coef, new(big.Rat).SetInt64(w[x])))
+				}
 			}
-			span = append(span, f)
-		}
-	}
-	for a := 0; a <= k; a++ {
-		for b := 0; a+b <= k; b++ {
-			d := k - a - b
-			f := rtField{zero(), zero(), zero()}
-			for c := 0; c < 3; c++ {
-				delta := [4]int{0, a, b, d}
-				delta[c+1]++
-				f[c][in.pos[delta]].SetFrac(big.NewInt(1), rtMultinom(delta[:]...))
-			}
-			span = append(span, f)
 		}
 	}
 	ndof := RTDim(k)
-	if len(span) != ndof {
-		panic("tet: Raviart–Thomas spanning set has the wrong size")
-	}
-	a := make([][]*big.Rat, ndof)
-	for l := range a {
-		a[l] = make([]*big.Rat, ndof)
-	}
-	var gram []*big.Rat
-	if k > 0 {
-		gram = rtTripleRat(0, n, k-1)
-	}
-	red := rtReduction(k)
-	var wg sync.WaitGroup
-	workers := runtime.GOMAXPROCS(0)
-	for g := range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for m := g; m < len(span); m += workers {
-				for l, v := range rtFunctionals(k, span[m], gram, red) {
-					a[l][m] = v
-				}
+	comp = make([]rtField, 0, ndof)
+	for i := 0; i < 4; i++ {
+		inv := new(big.Rat).Inv(new(big.Rat).SetInt64(rtWhitneyFlux(i)))
+		for _, b := range fk.alpha {
+			var al [4]int
+			for r, j := range rtFaceVertices[i] {
+				al[j] = b[r]
 			}
-		}()
+			f := rtField{zero(), zero(), zero()}
+			whitney(f, i, al, inv)
+			comp = append(comp, f)
+		}
 	}
-	wg.Wait()
-	x, ok := rtRatInverse(a)
-	if !ok {
-		panic(fmt.Sprintf("tet: Raviart–Thomas degrees of freedom of degree %d are not unisolvent", k))
-	}
-	// Basis function l = Σ_m span_m X[m][l], over the nonzero entries of
-	// the sparse span.
-	type entry struct{ c, b int }
-	nz := make([][]entry, ndof)
-	for m, s := range span {
+	if k > 0 {
 		for c := 0; c < 3; c++ {
-			for b, v := range s[c] {
-				if v.Sign() != 0 {
-					nz[m] = append(nz[m], entry{c, b})
-				}
+			for _, g := range rtMulti(k - 1).alpha {
+				al := g
+				al[c+1]++
+				f := rtField{zero(), zero(), zero()}
+				whitney(f, c+1, al, big.NewRat(1, 1))
+				comp = append(comp, f)
 			}
 		}
 	}
-	comp = make([]rtField, ndof)
+	if len(comp) != ndof {
+		panic("tet: Raviart–Thomas basis has the wrong size")
+	}
 	div = make([][]*big.Rat, ndof)
-	// The basis functions are independent: split them among the cores.
-	for g := range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			t := new(big.Rat)
-			for l := g; l < ndof; l += workers {
-				comp[l] = rtField{zero(), zero(), zero()}
-				for m, s := range span {
-					if x[m][l].Sign() == 0 {
-						continue
-					}
-					for _, e := range nz[m] {
-						v := comp[l][e.c][e.b]
-						v.Add(v, t.Mul(x[m][l], s[e.c][e.b]))
+	for l := range comp {
+		rtCheckTraces(k, l, comp[l])
+		div[l] = rtDivergenceRat(comp[l], n)
+	}
+	return comp, div
+}
+
+// rtGradLambda holds ∇λ_j on T̂.
+var rtGradLambda = [4][3]int64{{-1, -1, -1}, {1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
+
+// rtCross returns u × v.
+func rtCross(u, v [3]int64) [3]int64 {
+	return [3]int64{u[1]*v[2] - u[2]*v[1], u[2]*v[0] - u[0]*v[2], u[0]*v[1] - u[1]*v[0]}
+}
+
+// rtWhitneyFlux returns the constant value of φ_F·ν̂_i on the face F =
+// rtFaceVertices[i]: there φ_F·ν̂_i = 2 Σ_r λ_(v_r) (∇λ_(v_(r+1)) ×
+// ∇λ_(v_(r+2)))·ν̂_i, and the three dot products are equal (it panics
+// otherwise), so with Σ_r λ_(v_r) = 1 on F the value is twice their common
+// value.
+func rtWhitneyFlux(i int) int64 {
+	v := rtFaceVertices[i]
+	var d [3]int64
+	for r := 0; r < 3; r++ {
+		w := rtCross(rtGradLambda[v[(r+1)%3]], rtGradLambda[v[(r+2)%3]])
+		d[r] = w[0]*rtRefNormal[i][0] + w[1]*rtRefNormal[i][1] + w[2]*rtRefNormal[i][2]
+	}
+	if d[0] != d[1] || d[1] != d[2] || d[0] == 0 {
+		panic(fmt.Sprintf("tet: Whitney field of face %d has a non-constant flux %v", i, d))
+	}
+	return 2 * d[0]
+}
+
+// rtCheckTraces panics unless the normal traces of basis function l are
+// those of rtBasisRat: on each face j the degree-(k+1) coefficients of
+// σ̂·ν̂_j at the multi-indices with α_j = 0 are the trace's coefficients
+// (B^(k+1)_α restricted to face j is the face's B^(k+1) of the same
+// exponents, and vanishes there if α_j > 0), and they must equal the
+// degree elevation to k + 1 of the unit face vector at β (face function l
+// of face j) or be 0.
+func rtCheckTraces(k, l int, s rtField) {
+	n := k + 1
+	in, fn, fk := rtMulti(n), rtFaceMulti(n), rtFaceMulti(k)
+	nf := len(fk.alpha)
+	for j := 0; j < 4; j++ {
+		for _, g := range fn.alpha {
+			var a [4]int
+			for r, v := range rtFaceVertices[j] {
+				a[v] = g[r]
+			}
+			p := in.pos[a]
+			got := new(big.Rat)
+			for c := 0; c < 3; c++ {
+				if nu := rtRefNormal[j][c]; nu != 0 {
+					got.Add(got, new(big.Rat).Mul(s[c][p], new(big.Rat).SetInt64(nu)))
+				}
+			}
+			want := new(big.Rat)
+			if l >= j*nf && l < (j+1)*nf {
+				// Elevation B^k_β = Σ_r C(k, β) C(1, e_r)/C(k+1, β + e_r) B^(k+1)_(β+e_r):
+				// the coefficient at g is (β_r + 1)/(k + 1) = g_r/(k + 1) when g − e_r = β.
+				b := fk.alpha[l-j*nf]
+				for r := 0; r < 3; r++ {
+					d := g
+					d[r]--
+					if d == b {
+						want.SetFrac64(int64(g[r]), int64(n))
 					}
 				}
-				div[l] = rtDivergenceRat(comp[l], n)
 			}
-		}()
+			if got.Cmp(want) != 0 {
+				panic(fmt.Sprintf("tet: Raviart–Thomas basis function %d of degree %d has normal trace coefficient %s on face %d, want %s", l, k, got.RatString(), j, want.RatString()))
+			}
+		}
 	}
-	wg.Wait()
-	return comp, div
 }
 
 // rtDivergenceRat returns the degree-(n−1) Bernstein coefficients of
@@ -249,190 +295,4 @@ func rtDivergenceRat(s rtField, n int) []*big.Rat {
 		out[b] = d.Mul(d, fn)
 	}
 	return out
-}
-
-// rtFunctionals returns the degrees of freedom of the field s (components
-// of degree n = k + 1) in the order of rtRef, with g = rtTripleRat(0, n,
-// k − 1) (nil for k = 0) and red = rtReduction(k).
-func rtFunctionals(k int, s rtField, g []*big.Rat, red [][]*big.Rat) []*big.Rat {
-	n := k + 1
-	in := rtMulti(n)
-	fn := rtFaceMulti(n)
-	var out []*big.Rat
-	for i := 0; i < 4; i++ {
-		e := make([]*big.Rat, len(fn.alpha))
-		for m, b := range fn.alpha {
-			var a [4]int
-			for r, j := range rtFaceVertices[i] {
-				a[j] = b[r]
-			}
-			p := in.pos[a]
-			v := new(big.Rat)
-			for c := 0; c < 3; c++ {
-				if nu := rtRefNormal[i][c]; nu != 0 {
-					v.Add(v, new(big.Rat).Mul(s[c][p], new(big.Rat).SetInt64(nu)))
-				}
-			}
-			e[m] = v
-		}
-		for _, row := range red {
-			acc := new(big.Rat)
-			for m, v := range row {
-				if v.Sign() != 0 && e[m].Sign() != 0 {
-					acc.Add(acc, new(big.Rat).Mul(v, e[m]))
-				}
-			}
-			out = append(out, acc)
-		}
-	}
-	if k > 0 {
-		nq := rtDim(k - 1)
-		sixth := big.NewRat(1, 6) // |T̂|: the table is normalised by |T|
-		for c := 0; c < 3; c++ {
-			for b := 0; b < nq; b++ {
-				acc := new(big.Rat)
-				for a := range s[c] {
-					if s[c][a].Sign() != 0 {
-						acc.Add(acc, new(big.Rat).Mul(s[c][a], g[a*nq+b]))
-					}
-				}
-				out = append(out, acc.Mul(acc, sixth))
-			}
-		}
-	}
-	return out
-}
-
-var (
-	rtReductionMu    sync.Mutex
-	rtReductionCache = map[int][][]*big.Rat{}
-)
-
-// rtReduction returns L = (EᵀE)⁻¹Eᵀ for the elevation E of triangle
-// Bernstein coefficients from degree k to k + 1 (E_(αβ) = C(k, β)/C(k+1, α)
-// for α − β a unit multi-index, else 0: the elevation identity with
-// d − m = 1). E has full column rank (elevation is injective), so L is a
-// left inverse: L E c = c, and L maps the degree-(k+1) coefficients of a
-// polynomial of degree ≤ k to its degree-k coefficients exactly.
-func rtReduction(k int) [][]*big.Rat {
-	rtReductionMu.Lock()
-	defer rtReductionMu.Unlock()
-	if l, ok := rtReductionCache[k]; ok {
-		return l
-	}
-	ik, in := rtFaceMulti(k), rtFaceMulti(k+1)
-	e := make([][]*big.Rat, len(in.alpha)) // e[α][β]
-	for a, al := range in.alpha {
-		e[a] = make([]*big.Rat, len(ik.alpha))
-		for b, be := range ik.alpha {
-			e[a][b] = new(big.Rat)
-			if al[0] >= be[0] && al[1] >= be[1] && al[2] >= be[2] {
-				e[a][b].SetFrac(rtMultinom(be[:]...), rtMultinom(al[:]...))
-			}
-		}
-	}
-	nk := len(ik.alpha)
-	ete := make([][]*big.Rat, nk)
-	for i := range ete {
-		ete[i] = make([]*big.Rat, nk)
-		for j := range ete[i] {
-			acc := new(big.Rat)
-			for a := range e {
-				acc.Add(acc, new(big.Rat).Mul(e[a][i], e[a][j]))
-			}
-			ete[i][j] = acc
-		}
-	}
-	inv, ok := rtRatInverse(ete)
-	if !ok {
-		panic("tet: triangle degree elevation is not injective")
-	}
-	l := make([][]*big.Rat, nk)
-	for i := range l {
-		l[i] = make([]*big.Rat, len(in.alpha))
-		for a := range in.alpha {
-			acc := new(big.Rat)
-			for j := 0; j < nk; j++ {
-				acc.Add(acc, new(big.Rat).Mul(inv[i][j], e[a][j]))
-			}
-			l[i][a] = acc
-		}
-	}
-	rtReductionCache[k] = l
-	return l
-}
-
-// rtRatInverse returns the inverse of the square matrix a by Gauss–Jordan
-// elimination in exact arithmetic, or false if a is singular.
-func rtRatInverse(a [][]*big.Rat) ([][]*big.Rat, bool) {
-	n := len(a)
-	w := make([][]*big.Rat, n)
-	for i := range w {
-		w[i] = make([]*big.Rat, 2*n)
-		for j := 0; j < n; j++ {
-			w[i][j] = new(big.Rat).Set(a[i][j])
-		}
-		for j := n; j < 2*n; j++ {
-			w[i][j] = new(big.Rat)
-		}
-		w[i][n+i].SetInt64(1)
-	}
-	for c := 0; c < n; c++ {
-		// Pivot: among the rows with a nonzero in column c, one with the
-		// fewest nonzeros (less fill, smaller numbers; any nonzero pivot is
-		// exact).
-		piv, best := -1, 0
-		for r := c; r < n; r++ {
-			if w[r][c].Sign() == 0 {
-				continue
-			}
-			nz := 0
-			for _, v := range w[r] {
-				if v.Sign() != 0 {
-					nz++
-				}
-			}
-			if piv < 0 || nz < best {
-				piv, best = r, nz
-			}
-		}
-		if piv < 0 {
-			return nil, false
-		}
-		w[c], w[piv] = w[piv], w[c]
-		inv := new(big.Rat).Inv(w[c][c])
-		var cols []int // the nonzero columns of the pivot row
-		for j := range w[c] {
-			if w[c][j].Sign() != 0 {
-				w[c][j].Mul(w[c][j], inv)
-				cols = append(cols, j)
-			}
-		}
-		// The other rows are independent given the pivot row: split them
-		// among the cores (exact arithmetic, so the order does not matter).
-		workers := min(runtime.GOMAXPROCS(0), 1+n/64)
-		var wg sync.WaitGroup
-		for g := range workers {
-			wg.Add(1)
-			go func() {
-				defer wg.Done()
-				f, t := new(big.Rat), new(big.Rat)
-				for r := g; r < n; r += workers {
-					if r == c || w[r][c].Sign() == 0 {
-						continue
-					}
-					f.Set(w[r][c])
-					for _, j := range cols {
-						w[r][j].Sub(w[r][j], t.Mul(f, w[c][j]))
-					}
-				}
-			}()
-		}
-		wg.Wait()
-	}
-	out := make([][]*big.Rat, n)
-	for i := range out {
-		out[i] = w[i][n:]
-	}
-	return out, true
 }

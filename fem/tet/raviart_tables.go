@@ -218,19 +218,3 @@ func rtFaceGram(k int) *rattable.Table {
 		return out
 	})
 }
-
-// rtMonomialRat returns the degree-n Bernstein coefficients (order of
-// rtMulti(n)) of the monomial λ_1^a λ_2^b λ_3^c = ξ^a η^b ζ^c, a + b + c ≤ n.
-func rtMonomialRat(n, a, b, c int) []*big.Rat {
-	g := [4]int{0, a, b, c}
-	ix := rtMulti(n)
-	out := make([]*big.Rat, len(ix.alpha))
-	for m, d := range ix.alpha {
-		out[m] = new(big.Rat)
-		if d[1] >= g[1] && d[2] >= g[2] && d[3] >= g[3] {
-			num := rtMultinom(d[0], d[1]-g[1], d[2]-g[2], d[3]-g[3])
-			out[m].SetFrac(num, rtMultinom(d[:]...))
-		}
-	}
-	return out
-}

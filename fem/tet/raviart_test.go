@@ -11,9 +11,9 @@ import (
 // Raviart–Thomas tables are checked by point values (face traces,
 // divergence): up to 3, and with GAPCERT_LONG=1 also
 // 9, the first degree past 8 the polyhedron driver uses (the construction
-// is the same at every degree; its rational entries grow with k, and
-// rtReference refuses a scaled coefficient that is not an integer of at
-// most 53 bits).
+// is the same at every degree, and rtReference refuses a scaled
+// coefficient that is not an integer of at most 53 bits; the tables of
+// every k ≤ 12 are checked modulo a prime in raviart_membership_test.go).
 func rtCheckedDegrees(from int) []int {
 	var ks []int
 	for k := from; k <= 3; k++ {
@@ -74,14 +74,15 @@ func rtBarycentric(x [3]*big.Rat) [4]*big.Rat {
 // rtRandomRat returns a random rational in [0, 1) with denominator 97.
 func rtRandomRat(rng *rand.Rand) *big.Rat { return big.NewRat(int64(rng.IntN(97)), 97) }
 
-// TestRTBasisFaceTracesAgainstPointValues checks the dual basis on every
-// face by exact evaluation: at random rational points of face i the flux
-// density σ̂·ν̂_i of the scaled basis function l, computed from its
-// component coefficients, equals faceScale times the degree-k face
-// Bernstein polynomial with coefficient 1 at l (face DOF of face i) or
-// is 0 (every other function). This is unisolvence and duality for the
-// face functionals, evaluated independently of the degree reduction used
-// to build the basis.
+// TestRTBasisFaceTracesAgainstPointValues checks the normal traces of the
+// basis on every face by exact evaluation: at random rational points of
+// face i the flux density σ̂·ν̂_i of basis function l, computed from its
+// component coefficients, equals the degree-k face Bernstein polynomial
+// with coefficient 1 at l (face function of face i) or is 0 (every other
+// function, the interior ones included), and the scaled table holds
+// faceScale times the same coefficients. So the face DOFs are the
+// Bernstein coefficients of the flux density, checked independently of
+// the trace check inside rtBasisRat.
 func TestRTBasisFaceTracesAgainstPointValues(t *testing.T) {
 	rng := rand.New(rand.NewPCG(14, 1))
 	for _, k := range rtCheckedDegrees(0) {
@@ -225,43 +226,200 @@ func TestRTQuadratureRuleAgainstMonomials(t *testing.T) {
 	}
 }
 
-// TestRTBasisInteriorMomentsByQuadrature checks the interior functionals
-// of the dual basis with the exact Grundmann–Möller rule (independent of
-// the triple tables that built the basis): ∫_T̂ φ_(l,c) B^(k−1)_β is 1 for
-// the moment (c, β) of l and 0 otherwise.
-func TestRTBasisInteriorMomentsByQuadrature(t *testing.T) {
-	// Degrees 1 to 3 only: at k = 9 the exact quadrature ran for more than
-	// 50 minutes.
-	for k := 1; k <= 3; k++ {
+// TestRTBasisSpansRaviartThomas checks that the basis of rtBasisRat is a
+// basis of RT_k, against the independent construction rtDualBasisRat (the
+// basis dual to the classical degrees of freedom, built by exact
+// inversion from a spanning set of RT_k): each function f equals
+// Σ_l DOF_l(f) ψ_l exactly, ψ the dual basis, which holds only for f in
+// RT_k (the degrees of freedom are unisolvent on RT_k, not on all of
+// P_(k+1)³), and the matrix of the degrees of freedom of the ndof
+// functions is invertible, so they are independent. Degrees 0 to 3, and
+// 6 with GAPCERT_LONG=1.
+func TestRTBasisSpansRaviartThomas(t *testing.T) {
+	ks := []int{0, 1, 2, 3}
+	if os.Getenv("GAPCERT_LONG") == "1" {
+		ks = append(ks, 6)
+	}
+	for _, k := range ks {
 		comp, _ := rtBasisRat(k)
-		pts, w := rtGrundmannMoeller(3, k) // degree (k + 1) + (k − 1) = 2k ≤ 2k + 1
-		nf := rtFaceDim(k)
-		nq := rtDim(k - 1)
-		unit := func(m int) []*big.Rat {
-			e := make([]*big.Rat, nq)
-			for i := range e {
-				e[i] = new(big.Rat)
-			}
-			e[m].SetInt64(1)
-			return e
+		dual, _ := rtDualBasisRat(k)
+		n := k + 1
+		var gram []*big.Rat
+		if k > 0 {
+			gram = rtTripleRat(0, n, k-1)
 		}
-		for l := range comp {
+		red := rtReduction(k)
+		nd := len(comp)
+		dofs := make([][]*big.Rat, nd) // dofs[l][m]: DOF l of function m
+		for l := range dofs {
+			dofs[l] = make([]*big.Rat, nd)
+		}
+		for m, f := range comp {
+			d := rtFunctionals(k, f, gram, red)
+			for l, v := range d {
+				dofs[l][m] = v
+			}
 			for c := 0; c < 3; c++ {
-				for b := 0; b < nq; b++ {
-					got := new(big.Rat)
-					eb := unit(b)
-					for q, p := range pts {
-						v := rtEvalRat(comp[l][c], k+1, rtBary4(p))
-						v.Mul(v, rtEvalRat(eb, k-1, rtBary4(p)))
-						got.Add(got, v.Mul(v, w[q]))
+				for a := range f[c] {
+					g := new(big.Rat)
+					for l, v := range d {
+						g.Add(g, new(big.Rat).Mul(v, dual[l][c][a]))
 					}
-					want := new(big.Rat)
-					if l == 4*nf+c*nq+b {
-						want.SetInt64(1)
+					if g.Cmp(f[c][a]) != 0 {
+						t.Fatalf("k=%d function %d component %d coefficient %d: %s, but its expansion in the dual basis gives %s", k, m, c, a, f[c][a].RatString(), g.RatString())
 					}
-					if got.Cmp(want) != 0 {
-						t.Fatalf("k=%d function %d component %d moment %d: %s, want %s", k, l, c, b, got.RatString(), want.RatString())
+				}
+			}
+		}
+		if _, ok := rtRatInverse(dofs); !ok {
+			t.Fatalf("k=%d: the basis functions are linearly dependent", k)
+		}
+	}
+}
+
+// TestRTBasisIndependentModPrime checks at the degrees the polyhedron
+// driver uses past 6 (GAPCERT_LONG=1: 7 to 12) that the ndof basis
+// functions are linearly independent: the integer matrix of their scaled
+// Bernstein coefficients has full row rank modulo the prime 2³¹ − 1, so
+// over the rationals too (a nonzero minor mod p is a nonzero integer).
+func TestRTBasisIndependentModPrime(t *testing.T) {
+	if os.Getenv("GAPCERT_LONG") != "1" {
+		t.Skip("set GAPCERT_LONG=1")
+	}
+	const p = 1<<31 - 1
+	for k := 7; k <= 12; k++ {
+		ref := rtReference(k)
+		nd, nn := ref.ndof, rtDim(ref.n)
+		rows := make([][]uint64, nd)
+		for l := range rows {
+			rows[l] = make([]uint64, 3*nn)
+			for c := 0; c < 3; c++ {
+				for a := 0; a < nn; a++ {
+					v := int64(ref.compT[c][a*nd+l])
+					rows[l][c*nn+a] = uint64(((v % p) + p) % p)
+				}
+			}
+		}
+		if r := rankModPrime(rows, p); r != nd {
+			t.Fatalf("k=%d: rank %d mod p, want %d", k, r, nd)
+		}
+	}
+}
+
+// rankModPrime returns the rank of the matrix modulo the prime p < 2³²
+// by Gaussian elimination (the rows are overwritten).
+func rankModPrime(rows [][]uint64, p uint64) int {
+	inv := func(a uint64) uint64 { // a^(p−2) mod p
+		r, e := uint64(1), p-2
+		for ; e > 0; e >>= 1 {
+			if e&1 == 1 {
+				r = r * a % p
+			}
+			a = a * a % p
+		}
+		return r
+	}
+	rank := 0
+	cols := len(rows[0])
+	for c := 0; c < cols && rank < len(rows); c++ {
+		piv := -1
+		for r := rank; r < len(rows); r++ {
+			if rows[r][c] != 0 {
+				piv = r
+				break
+			}
+		}
+		if piv < 0 {
+			continue
+		}
+		rows[rank], rows[piv] = rows[piv], rows[rank]
+		iv := inv(rows[rank][c])
+		for j := c; j < cols; j++ {
+			rows[rank][j] = rows[rank][j] * iv % p
+		}
+		for r := rank + 1; r < len(rows); r++ {
+			f := rows[r][c]
+			if f == 0 {
+				continue
+			}
+			for j := c; j < cols; j++ {
+				rows[r][j] = (rows[r][j] + (p-f)*rows[rank][j]) % p
+			}
+		}
+		rank++
+	}
+	return rank
+}
+
+// TestRTBasisIsBernsteinTimesWhitney checks the basis functions at random
+// rational points against their definition, evaluated independently of
+// the coefficient formula: face function β of face i is
+// B^k_α φ_F/(φ_F·ν̂_i) and interior function (c, γ) is B^k_(γ+e_(c+1)) φ_F
+// (F the face opposite vertex c + 1), with the Whitney field φ_F =
+// 2(λ_a ∇λ_b × ∇λ_c + λ_b ∇λ_c × ∇λ_a + λ_c ∇λ_a × ∇λ_b), F = {a < b < c}
+// (D. N. Arnold, R. S. Falk, R. Winther, Finite element exterior
+// calculus, homological techniques, and applications, Acta Numer. 15
+// (2006) 1–155, §4, recalled from memory), and B^k_α = C(k, α) λ^α.
+func TestRTBasisIsBernsteinTimesWhitney(t *testing.T) {
+	rng := rand.New(rand.NewPCG(14, 3))
+	for _, k := range rtCheckedDegrees(0) {
+		comp, _ := rtBasisRat(k)
+		nf := rtFaceDim(k)
+		for trial := 0; trial < 2; trial++ {
+			x := [3]*big.Rat{rtRandomRat(rng), rtRandomRat(rng), rtRandomRat(rng)}
+			lam := rtBarycentric(x)
+			whitney := func(i int) [3]*big.Rat {
+				v := rtFaceVertices[i]
+				var out [3]*big.Rat
+				for c := range out {
+					out[c] = new(big.Rat)
+				}
+				for r := 0; r < 3; r++ {
+					w := rtCross(rtGradLambda[v[(r+1)%3]], rtGradLambda[v[(r+2)%3]])
+					for c := 0; c < 3; c++ {
+						out[c].Add(out[c], new(big.Rat).Mul(lam[v[r]], big.NewRat(2*w[c], 1)))
 					}
+				}
+				return out
+			}
+			bern := func(al [4]int) *big.Rat {
+				e := make([]*big.Rat, rtDim(k))
+				for m := range e {
+					e[m] = new(big.Rat)
+				}
+				e[rtMulti(k).pos[al]].SetInt64(1)
+				return rtEvalRat(e, k, lam)
+			}
+			check := func(l int, want [3]*big.Rat) {
+				for c := 0; c < 3; c++ {
+					if got := rtEvalRat(comp[l][c], k+1, lam); got.Cmp(want[c]) != 0 {
+						t.Fatalf("k=%d function %d component %d: %s, want %s", k, l, c, got.RatString(), want[c].RatString())
+					}
+				}
+			}
+			for i := 0; i < 4; i++ {
+				phi := whitney(i)
+				flux := new(big.Rat).SetInt64(rtWhitneyFlux(i))
+				for m, b := range rtFaceMulti(k).alpha {
+					var al [4]int
+					for r, j := range rtFaceVertices[i] {
+						al[j] = b[r]
+					}
+					f := new(big.Rat).Quo(bern(al), flux)
+					check(i*nf+m, [3]*big.Rat{new(big.Rat).Mul(f, phi[0]), new(big.Rat).Mul(f, phi[1]), new(big.Rat).Mul(f, phi[2])})
+				}
+			}
+			if k == 0 {
+				continue
+			}
+			nq := rtDim(k - 1)
+			for c := 0; c < 3; c++ {
+				phi := whitney(c + 1)
+				for m, g := range rtMulti(k - 1).alpha {
+					al := g
+					al[c+1]++
+					f := bern(al)
+					check(4*nf+c*nq+m, [3]*big.Rat{new(big.Rat).Mul(f, phi[0]), new(big.Rat).Mul(f, phi[1]), new(big.Rat).Mul(f, phi[2])})
 				}
 			}
 		}
