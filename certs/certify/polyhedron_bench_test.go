@@ -21,63 +21,47 @@ import (
 // 300 s; its edges are singular, exponent π/ω with ω = arccos(1/3), and
 // the driver does not grade toward them).
 //
-// Measured on the cube (idle machine, certify --rel-width 1e-8 with the
-// 120 s limit, multifrontal factorization of package enclose/sparse): the
-// target is reached at 67.3 s wall, 99 s of CPU, peak RSS 1.45 GB; steps
-// of P_p on 96 tetrahedra with RT_p fluxes and N = 4:
+// Measured on the idle machine (one run of the benchmark, certify
+// --rel-width 1e-8 with the time limits above):
+//
+//	problem               wall    CPU     peak RSS  λ1       λ2       gap
+//	cube                  49.5 s  75.5 s  1.47 GB   1.3e-11  2.2e-9   4.5e-9   target reached
+//	regular tetrahedron   61.4 s  86.5 s  2.10 GB   8.5e-9   4.1e-8   9.9e-8   λ1 ≤ 1e-8
+//
+// The cube: steps of P_p on 96 tetrahedra with RT_p fluxes and N = 4
+// (certify --progress, same machine):
 //
 //	p  stage-A unknowns  λ1       λ2       gap      step (wall)
 //	3  1,440             0.46     0.75     2.3      0.2 s (no N separates)
-//	5  11,904            1.6e-6   2.5e-3   5.0e-3   3.0 s
-//	7  11,904            3.3e-10  5.3e-6   1.1e-5   12.1 s
-//	8  96,768            1.3e-11  2.3e-9   4.5e-9   52.0 s
+//	5  11,904            1.6e-6   2.5e-3   5.0e-3   2.8 s
+//	7  11,904            3.3e-10  5.3e-6   1.1e-5   7.5 s
+//	8  96,768            1.3e-11  2.2e-9   4.5e-9   41.0 s
 //
-// With the up-looking factorization the last step took 244 s (271 s for
-// the run) and did not fit in 120 s.
+// The regular tetrahedron: the degree line on its 8 tetrahedra (stage A
+// on 4096, 7,680 unknowns), then, at P_12, a stage-A level in place of the
+// trial-mesh level, which is predicted not to fit (the driver's fallback):
 //
-// The regular tetrahedron on the idle machine (300 s limit): P_10 on the
-// 8 tetrahedra at 69 s (λ1 6.3e-8), P_11 at 149 s (λ1 2.4e-7, λ2 1.3e-6,
-// gap 3.2e-6; kept by the worst width), then the next step is predicted
-// not to fit; 244 s of CPU, peak RSS 2.2 GB. The target λ1 ≤ 1e-8 is not
-// reached.
+//	p   trial  flux    λ1       λ2       gap      at (wall)
+//	7   286    2,880   2.1e-5   2.5e-3   5.6e-3   3.7 s
+//	8   455    3,960   9.3e-7   1.1e-3   2.3e-3   5.8 s
+//	9   680    5,280   2.8e-7   2.4e-5   5.2e-5   9.7 s
+//	10  969    6,864   6.2e-8   9.5e-6   2.1e-5   15.3 s
+//	11  1,330  8,736   2.4e-8   3.2e-7   7.4e-7   24.3 s
+//	12  1,771  10,920  1.0e-8   1.5e-7   3.3e-7   37.1 s
+//	12  stage A on 32,768 (63,488)  8.5e-9  4.1e-8  9.9e-8   62.9 s
 //
-// The regular tetrahedron: before the degree line, five steps on the 8
-// tetrahedra of the refined tetrahedron, the last at P_8 with stage A on
-// 32,768 tetrahedra (63,488 unknowns): λ1 7.7e-7, λ2 2.4e-4, gap 5.2e-4
-// at 128 s (idle machine, 131 s of CPU); the next step, 64 trial
-// tetrahedra at P_8, was predicted not to fit. With the degree line
-// (stage A stays on 4096 tetrahedra, 7,680 unknowns: a level is expected
-// to widen ρ̂ − Λ_2 only 4.7 times), steps measured one by one with the
-// same recipes (loaded machine; CPU time of a step at P_k is dominated by
-// the exact RT_k tables, built once per process: 9.9, 24, 52 s of CPU at
-// k = 8, 9, 10, peak 306, 516, 927 MB):
+// λ1 ≈ 18.8715890: its Ritz and Lehmann–Goerisch errors close at about
+// 3 per degree, as the p-version's p^(−4α) with the edge exponent
+// α = π/arccos(1/3) ≈ 2.55 predicts ((11/10)^10.2 ≈ 2.6); at P_12 the
+// Lehmann–Goerisch error (about 1.5e-7) is twice the Ritz error, and the
+// stage-A level lowers it by raising ρ̂ from 38.97 to 48.86.
 //
-//	p  trial  flux   λ1 width  λ2 width
-//	7  286    2,880  2.1e-5    2.5e-3
-//	8  455    3,960  9.3e-7    1.1e-3
-//	9  680    5,280  2.8e-7    2.4e-5
-//	10 969    6,864  6.3e-8    9.5e-6
-//	11 1,330  8,736  2.4e-7    1.3e-6   (137 s of CPU for the step)
-//
-// At P_11 λ1's Lehmann–Goerisch bound falls back (18.8715845 against
-// 18.8715882 at P_10) while its Ritz bound still improves (18.8715891),
-// as the cube's λ1 does at P_10 (its bound 2.0e-8 below 3π² against
-// 2.1e-9 at P_9); λ2 and the gap keep narrowing, so the step is kept by
-// the worst width. The interval widths of the Ritz and flux matrices grow
-// only by a third per degree there; the cause is open.
-//
-// λ1 ≈ 18.871589: its Ritz bounds (18.8715969, .5912, .5894 at P_8..P_10)
-// and Lehmann–Goerisch bounds (.5793, .5860, .5882) close at the same
-// rate, about 3.1 per degree, as the p-version's p^(−4α) with α ≈ 2.55
-// predicts ((10/9)^10.2 ≈ 2.9): at P_10 both errors are about 1e-6, from
-// the edge singularities, not from ρ̂ (stage A on 32,768 tetrahedra
-// changed λ1's width at P_8 from 9.3e-7 to 7.7e-7). On a loaded machine
-// (load 15 on 2 cores) the run itself stops after P_7 at 114 s, its next
-// step predicted not to fit.
-//
-// Before the stage-A counts bounded their residual a priori, the fourth
-// step kept 11,904 stage-A unknowns (ρ̂ = 64.6 against Λ_2 = 62.5) and
-// ended at λ2 2e-8, gap 3.9e-8; one count on 96,768 took about 1000 s.
+// With the Raviart–Thomas basis dual to interior moments (an exact
+// rational inversion, 248 s of CPU at k = 12) the cube took 67.3 s and the
+// tetrahedron stopped at P_11 after 149 s with λ1 at 2.4e-7: that basis's
+// coefficients (up to 5e10 at k = 11) made the float flux choice lose
+// accuracy past P_10, and λ1's Lehmann–Goerisch bound widened from P_10 to
+// P_11.
 func BenchmarkPolyhedronTargets(b *testing.B) {
 	for _, c := range []struct {
 		name, src string
@@ -146,15 +130,14 @@ func peakRSS(b *testing.B) float64 {
 // (λ1 = λ1(L), λ2 = λ2(L); lPrismNeumannEnds) on P_4, one uniform level,
 // stage A on three levels, without and with one grading level toward the
 // re-entrant edge, and reports the relative widths of λ1 and λ2 and the
-// trial tetrahedra, with the process CPU time. Measured in one run (-count
-// 3, medians) on the shared machine (2 cores, load 15 to 19, so the wall
-// times are about three times the CPU times):
+// trial tetrahedra, with the process CPU time. Measured in one run on the
+// idle machine:
 //
-//	graded  tetrahedra  CPU     wall    λ1 width  λ2 width
-//	0       160         11.3 s  35.6 s  2.3e-2    7.9e-2
-//	1       491         21.6 s  71.3 s  3.4e-3    8.1e-3
+//	graded  tetrahedra  CPU    wall   λ1 width  λ2 width
+//	0       160         5.5 s  3.9 s  2.3e-2    7.9e-2
+//	1       491         9.0 s  6.3 s  3.4e-3    8.1e-3
 //
-// One level: 1.9 times the CPU time, 6.7 and 9.7 times narrower.
+// One level: 1.6 times the CPU time, 6.7 and 9.7 times narrower.
 func BenchmarkLPrismGrading(b *testing.B) {
 	for _, graded := range []int{0, 1} {
 		b.Run("graded="+strconv.Itoa(graded), func(b *testing.B) {
