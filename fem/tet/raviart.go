@@ -204,6 +204,25 @@ func rtBasisRat(k int) (comp []rtField, div [][]*big.Rat) {
 	return comp, div
 }
 
+// rtFluxDensity returns the coefficient of σ̂·ν̂_j at the face multi-index
+// g (over the vertices of face j in increasing order) from the component
+// coefficients s of degree in.n: that of the multi-index with the same
+// exponents and 0 at vertex j.
+func rtFluxDensity(s rtField, j int, g [3]int, in *rtIndex) *big.Rat {
+	var a [4]int
+	for r, v := range rtFaceVertices[j] {
+		a[v] = g[r]
+	}
+	p := in.pos[a]
+	out := new(big.Rat)
+	for c := 0; c < 3; c++ {
+		if nu := rtRefNormal[j][c]; nu != 0 {
+			out.Add(out, new(big.Rat).Mul(s[c][p], new(big.Rat).SetInt64(nu)))
+		}
+	}
+	return out
+}
+
 // rtGradLambda holds ∇λ_j on T̂.
 var rtGradLambda = [4][3]int64{{-1, -1, -1}, {1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
 
@@ -243,17 +262,7 @@ func rtCheckTraces(k, l int, s rtField) {
 	nf := len(fk.alpha)
 	for j := 0; j < 4; j++ {
 		for _, g := range fn.alpha {
-			var a [4]int
-			for r, v := range rtFaceVertices[j] {
-				a[v] = g[r]
-			}
-			p := in.pos[a]
-			got := new(big.Rat)
-			for c := 0; c < 3; c++ {
-				if nu := rtRefNormal[j][c]; nu != 0 {
-					got.Add(got, new(big.Rat).Mul(s[c][p], new(big.Rat).SetInt64(nu)))
-				}
-			}
+			got := rtFluxDensity(s, j, g, in)
 			want := new(big.Rat)
 			if l >= j*nf && l < (j+1)*nf {
 				// Elevation B^k_β = Σ_r C(k, β) C(1, e_r)/C(k+1, β + e_r) B^(k+1)_(β+e_r):

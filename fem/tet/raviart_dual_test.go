@@ -136,18 +136,7 @@ func rtFunctionals(k int, s rtField, g []*big.Rat, red [][]*big.Rat) []*big.Rat 
 	for i := 0; i < 4; i++ {
 		e := make([]*big.Rat, len(fn.alpha))
 		for m, b := range fn.alpha {
-			var a [4]int
-			for r, j := range rtFaceVertices[i] {
-				a[j] = b[r]
-			}
-			p := in.pos[a]
-			v := new(big.Rat)
-			for c := 0; c < 3; c++ {
-				if nu := rtRefNormal[i][c]; nu != 0 {
-					v.Add(v, new(big.Rat).Mul(s[c][p], new(big.Rat).SetInt64(nu)))
-				}
-			}
-			e[m] = v
+			e[m] = rtFluxDensity(s, i, b, in)
 		}
 		for _, row := range red {
 			acc := new(big.Rat)

@@ -286,24 +286,29 @@ func TestRTBasisIndependentModPrime(t *testing.T) {
 	if os.Getenv("GAPCERT_LONG") != "1" {
 		t.Skip("set GAPCERT_LONG=1")
 	}
-	const p = 1<<31 - 1
 	for k := 7; k <= 12; k++ {
-		ref := rtReference(k)
-		nd, nn := ref.ndof, rtDim(ref.n)
-		rows := make([][]uint64, nd)
-		for l := range rows {
-			rows[l] = make([]uint64, 3*nn)
-			for c := 0; c < 3; c++ {
-				for a := 0; a < nn; a++ {
-					v := int64(ref.compT[c][a*nd+l])
-					rows[l][c*nn+a] = uint64(((v % p) + p) % p)
-				}
-			}
-		}
-		if r := rankModPrime(rows, p); r != nd {
+		if r, nd := rtScaledRankModPrime(k); r != nd {
 			t.Fatalf("k=%d: rank %d mod p, want %d", k, r, nd)
 		}
 	}
+}
+
+// rtScaledRankModPrime returns the rank modulo rtModPrime of the integer
+// matrix of the scaled Bernstein coefficients of the basis of RT_k (one
+// row per basis function), and the number of rows.
+func rtScaledRankModPrime(k int) (rank, rows int) {
+	ref := rtReference(k)
+	nd, nn := ref.ndof, rtDim(ref.n)
+	m := make([][]uint64, nd)
+	for l := range m {
+		m[l] = make([]uint64, 3*nn)
+		for c := 0; c < 3; c++ {
+			for a := 0; a < nn; a++ {
+				m[l][c*nn+a] = rtModP(ref.compT[c][a*nd+l])
+			}
+		}
+	}
+	return rankModPrime(m, rtModPrime), nd
 }
 
 // rankModPrime returns the rank of the matrix modulo the prime p < 2³²
