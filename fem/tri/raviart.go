@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math/big"
 	"sync"
+
+	"gapcert/fem/internal/rattable"
 )
 
 // The Raviart–Thomas space of degree k on the reference triangle T̂ with
@@ -168,7 +170,7 @@ func rtBasisRat(k int) (comp, div []*big.Rat) {
 			a[l][m] = v
 		}
 	}
-	x, ok := ratInverse(a)
+	x, ok := rattable.Inverse(a)
 	if !ok {
 		panic(fmt.Sprintf("tri: Raviart–Thomas degrees of freedom of degree %d are not unisolvent", k))
 	}
@@ -281,52 +283,4 @@ func gramRat(m, q int) []*big.Rat {
 		}
 	}
 	return out
-}
-
-// ratInverse returns the inverse of the square matrix a by Gauss–Jordan
-// elimination in exact arithmetic, or false if a is singular.
-func ratInverse(a [][]*big.Rat) ([][]*big.Rat, bool) {
-	n := len(a)
-	w := make([][]*big.Rat, n)
-	for i := range w {
-		w[i] = make([]*big.Rat, 2*n)
-		for j := 0; j < n; j++ {
-			w[i][j] = new(big.Rat).Set(a[i][j])
-		}
-		for j := n; j < 2*n; j++ {
-			w[i][j] = new(big.Rat)
-		}
-		w[i][n+i].SetInt64(1)
-	}
-	for c := 0; c < n; c++ {
-		piv := -1
-		for r := c; r < n; r++ {
-			if w[r][c].Sign() != 0 {
-				piv = r
-				break
-			}
-		}
-		if piv < 0 {
-			return nil, false
-		}
-		w[c], w[piv] = w[piv], w[c]
-		inv := new(big.Rat).Inv(w[c][c])
-		for j := range w[c] {
-			w[c][j].Mul(w[c][j], inv)
-		}
-		for r := 0; r < n; r++ {
-			if r == c || w[r][c].Sign() == 0 {
-				continue
-			}
-			f := new(big.Rat).Set(w[r][c])
-			for j := range w[r] {
-				w[r][j].Sub(w[r][j], new(big.Rat).Mul(f, w[c][j]))
-			}
-		}
-	}
-	out := make([][]*big.Rat, n)
-	for i := range out {
-		out[i] = w[i][n:]
-	}
-	return out, true
 }

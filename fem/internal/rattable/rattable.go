@@ -2,7 +2,8 @@
 // (products, integrals, elevations of polynomial bases), each computed once
 // in math/big and kept in two forms: the tightest float64 enclosure of
 // every entry (for the proving side) and the nearest float64 (for the
-// choosing side).
+// choosing side); and inverts rational matrices exactly (Inverse), as the
+// construction of such tables needs.
 package rattable
 
 import (
