@@ -63,6 +63,58 @@ func TestPolyhedronNextRaisesDegreeBeforeTrialMesh(t *testing.T) {
 	}
 }
 
+// TestPolyhedronFallbackTakesStageALevel: when the step after the degree
+// cap (a trial-mesh level) does not fit in the time left, fallback offers
+// a stage-A level instead, for the regular tetrahedron at P_12 as measured
+// (shifted Ritz bounds of Λ_1..Λ_5, ρ̂ = stage-A bound of Λ_5 on 4096
+// tetrahedra, N = 4: amplification 12, a level expected to widen
+// ρ̂ − Λ_2 4.7 times); and it offers nothing for a degree step, for a
+// stage A at its tetrahedron cap, or when ρ̂ does not amplify (ρ̂ far
+// above Λ_2) or a level is expected to gain less than twofold.
+func TestPolyhedronFallbackTakesStageALevel(t *testing.T) {
+	d := polyhedron{parseProblem(t, regularTetrahedronSource)}
+	tetra := &outcome{ritz: []float64{20.1053, 36.0709, 36.0709, 36.0709, 53.4152}, rho: 38.9664, n: 4}
+	r := recipe{degree: 12, fluxDegree: 12, refine: 1, stageARefine: 4, extra: defaultExtraIndices}
+	next, why := d.next(r, tetra, 3)
+	if why != "" || next.refine != 2 || next.stageARefine != 4 {
+		t.Fatalf("at the degree cap: next %+v (%q), want the trial mesh refined", next, why)
+	}
+	alt, ok := d.fallback(r, next, tetra)
+	if !ok {
+		t.Fatal("no fallback for a trial-mesh level at the degree cap")
+	}
+	if alt.refine != 1 || alt.stageARefine != 5 || alt.degree != 12 || alt.fluxDegree != 12 {
+		t.Errorf("fallback %+v, want stage A refined once, the rest as before", alt)
+	}
+	if alt.extra < tetra.n+maxRaiseN3D-d.p.Eigenvalues {
+		t.Errorf("fallback keeps %d extra indices, want at least %d (past the next cluster)", alt.extra, tetra.n+maxRaiseN3D-d.p.Eigenvalues)
+	}
+
+	degreeStep := r
+	degreeStep.degree, degreeStep.fluxDegree = 11, 11
+	up := degreeStep
+	up.degree, up.fluxDegree = 12, 12
+	if _, ok := d.fallback(degreeStep, up, tetra); ok {
+		t.Error("a fallback for a degree step")
+	}
+	capped := r
+	capped.stageARefine = 5 // the next level would have 8^6 tetrahedra, over maxRhoStageATetrahedra
+	if _, ok := d.fallback(capped, next, tetra); ok {
+		t.Error("a fallback past the stage-A tetrahedron cap")
+	}
+	far := &outcome{ritz: tetra.ritz, rho: 50, n: 4} // Λ_2/(ρ̂ − Λ_2) = 2.6 ≤ 4
+	if _, ok := d.fallback(r, next, far); ok {
+		t.Error("a fallback where ρ̂ does not amplify")
+	}
+	near := &outcome{ritz: []float64{20.1053, 36.0709, 36.0709, 36.0709, 37.5}, rho: 37.0, n: 4} // gain 1.4
+	if g := polyhedronRhoGain(near, 2); !(g > 1 && g < polyhedronMinFallbackGain) {
+		t.Fatalf("expected gain %g, want between 1 and %d", g, polyhedronMinFallbackGain)
+	}
+	if _, ok := d.fallback(r, next, near); ok {
+		t.Error("a fallback for a level expected to gain less than twofold")
+	}
+}
+
 // TestPolyhedronStepTimeOfDegreeSteps: a degree step's rest (the step's
 // time less its stage A) grows like the cube of dim RT_k with a margin of
 // a quarter, and stage A is predicted unchanged: P_8 → P_9 (540 and 715
