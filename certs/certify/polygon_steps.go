@@ -311,7 +311,9 @@ func (h *stepHistory) exceeds(seconds float64) bool {
 // the steps follow the hp line (onHPLine: a degree raise grades to the
 // depth of its degree, grading alone stops at the depth of the present
 // one). The first adaptive round waits while grading, or on the hp line
-// the degree, is a candidate that fits in the time.
+// the degree, is a candidate that fits in the time. Candidates scored
+// within closeCallMargin of the best are settled by their log gain per
+// unit of work, which no measured time enters.
 func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, string) {
 	base, baseScore, sh := r, 0.0, share{}
 	rho, ritzN, indicators := out.rho, 0.0, []float64(nil)
@@ -337,12 +339,14 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 	}
 	baseWork := 0.0 // computed when first needed
 	type candidate struct {
-		kind  stepKind
-		r     recipe
-		cost  float64 // its predicted seconds
-		score float64
+		kind    stepKind
+		r       recipe
+		cost    float64 // its predicted seconds
+		score   float64 // log gain per predicted second
+		perWork float64 // log gain per unit of work (stepWork and setupWork)
 	}
 	var best, overMemory *candidate
+	var fitting []*candidate
 	available, tooSlow, structured := false, false, false
 	_, line := hpGraded(d.p, base.degree)
 	for _, k := range choiceOrder {
@@ -394,16 +398,27 @@ func (h *stepHistory) chooseStep(d polygon, r recipe, out *outcome) (recipe, str
 		if k == kindUniform && line {
 			charged += h.uniformLookahead(d.p, base, c)
 		}
-		rate := math.Min(math.Log(gain), maxLog) / math.Max(charged, 1e-9)
-		cand := &candidate{kind: k, r: c, cost: cost, score: rate}
+		logGain := math.Min(math.Log(gain), maxLog)
+		rate := logGain / math.Max(charged, 1e-9)
+		perWork := logGain / math.Max(h.stepWork(d.p, c)+h.setupWork(c.degree), 1e-9)
+		cand := &candidate{kind: k, r: c, cost: cost, score: rate, perWork: perWork}
 		if h != nil && h.memory > 0 && memoryEstimate(d.p, c) > h.memory {
 			if overMemory == nil || cand.score > overMemory.score {
 				overMemory = cand
 			}
 			continue
 		}
+		fitting = append(fitting, cand)
 		if best == nil || cand.score > best.score {
 			best = cand
+		}
+	}
+	// A close call is settled by the log gain per unit of work
+	// (closeCallMargin).
+	top := best
+	for _, c := range fitting {
+		if c.score*closeCallMargin >= top.score && c.perWork > best.perWork {
+			best = c
 		}
 	}
 	if best == nil {
@@ -488,6 +503,31 @@ func (h *stepHistory) uniformLookahead(p *problem.Problem, base, next recipe) fl
 // gains of the measured cases were within a factor of about 2 of the
 // measured ones).
 const targetMargin = 2
+
+// closeCallMargin: candidates whose scores (log gain per predicted
+// second) are within this factor of the best one are a close call, which
+// chooseStep settles by the log gain (capped at the target, as in the
+// score) per unit of work, the step's work and the setup of a degree new
+// to the run (stepWork, setupWork): counts of the recipes that no
+// measured time enters (a choice). The scores rest on measured times,
+// which vary by ±10 to 20% from run to run on the same machine, through
+// the seconds per unit of work (common to all candidates), each kind's
+// ratio of measured to predicted time, and the time left, which decides
+// whether a raise counts in a uniform level's lookahead
+// (uniformLookahead: it counts only if it fits after the level); scores
+// this close picked the step by the load of the moment. Outside close
+// calls the scores decide, since only they see the time left and what
+// each kind has cost. Measured on the 117° trapezoid after the raise to
+// degree 8 on 2 uniform and 14 graded levels (gap 7.1e-11 at 8 s, a
+// 1e-12 target within 30 s): the raise to degree 10 with 18 levels
+// (predicted 15 s, gain 60 from the last raise) scored 1.09 times the
+// uniform level (5 s, gain 6.6) when the run was 10 to 20% faster and the
+// lookahead counted the raise after the level, 0.69 times when the raise
+// did not fit after it. Taken, the raise gained 7 and the gap stalled at
+// 1e-11; the uniform level (gain 3.4) and then the raise on 3 uniform
+// levels (gain 62) reached the gap 3.4e-13 at 27 s. Per unit of work the
+// level gains 1.5 times as much as the raise.
+const closeCallMargin = 1.5
 
 // predictedGain returns the factor by which a step of kind k from the
 // base step to next is predicted to narrow the worst width, given the
