@@ -3,6 +3,8 @@ package certify
 import (
 	"context"
 	"errors"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -35,18 +37,22 @@ func TestPolyhedronMemoryBudgetBeforeFirstStep(t *testing.T) {
 // the next recipe refines stage A once more, eight times the stage-A
 // tetrahedra. A budget between the two estimates stops the run after the
 // first step with the memory reason, before the next step allocates; the
-// stage-A bounds of that step contain 3π² and 6π² (common practice), the
-// warning names the budget, and Check accepts the record.
+// stage-A bounds of that step contain 3π² and 6π² (common practice), and
+// Check accepts the record. The warning states the next step's estimate
+// and the budget in the units of BudgetError (MiB below 1 GiB, so that a
+// budget of tens of MiB never reads "about 0.0 GiB"), and the warning on
+// wide enclosures names --memory-limit.
 func TestPolyhedronStopsAtMemoryBudget(t *testing.T) {
 	p := parseProblem(t, cubePolyhedron("dirichlet", "0"))
 	r := firstRecipe(t, p)
 	next := r
 	next.stageARefine++
 	lo, hi := memoryEstimate(p, r), memoryEstimate(p, next)
-	if !(lo < hi) {
-		t.Fatalf("estimates %d, %d: the next step is not larger", lo, hi)
+	budget := (lo + hi) / 2
+	if !(lo < budget && budget < hi) {
+		t.Fatalf("estimates %d, %d: want a budget %d between them", lo, hi, budget)
 	}
-	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-6", TimeLimit: 20 * time.Minute, Memory: (lo + hi) / 2, Now: fixedTime})
+	c, err := Certify(context.Background(), p, Options{RelWidth: "1e-6", TimeLimit: 20 * time.Minute, Memory: budget, Now: fixedTime})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -54,9 +60,7 @@ func TestPolyhedronStopsAtMemoryBudget(t *testing.T) {
 	if ref == nil || ref.StopReason != StopMemory {
 		t.Fatalf("stop record %+v, want %q", ref, StopMemory)
 	}
-	if !strings.Contains(strings.Join(c.Warnings, "\n"), "more than the memory budget") {
-		t.Errorf("warnings %q lack the memory budget", c.Warnings)
-	}
+	checkMemoryStopWarnings(t, c.Warnings, budget)
 	pi2 := interval.Pi().Sqr()
 	for k, want := range []interval.I{pi2.MulF(3), pi2.MulF(6)} {
 		got := boundOf(t, certs.Bound{Lower: c.Results.Eigenvalues[k].Lower, Upper: c.Results.Eigenvalues[k].Upper})
@@ -128,5 +132,37 @@ func TestPolyhedronTimeLimitAcrossStageALevels(t *testing.T) {
 	}
 	if ref == nil || ref.StopReason != StopTime {
 		t.Errorf("stop record %+v, want %q", ref, StopTime)
+	}
+}
+
+// checkMemoryStopWarnings checks the warnings of a run stopped by the
+// memory budget: the next step's need (the loop's next recipe may refine
+// more than stage A, so at least the budget) is stated in MiB while below
+// 1 GiB, the budget as byteSize states it, and the warning on wide
+// enclosures (the gap's contains 0 after the first step) names
+// --memory-limit, as the time limit's names its option.
+func checkMemoryStopWarnings(t *testing.T, warnings []string, budget int64) {
+	t.Helper()
+	re := regexp.MustCompile(`the next refinement would need about ([0-9.]+) (MiB|GiB), more than the memory budget of (.*)$`)
+	found := false
+	for _, w := range warnings {
+		m := re.FindStringSubmatch(w)
+		if m == nil {
+			continue
+		}
+		found = true
+		need, _ := strconv.ParseFloat(m[1], 64) // a printed size, only compared
+		if m[3] != byteSize(budget) {
+			t.Errorf("warning %q: budget %q, want %q", w, m[3], byteSize(budget))
+		}
+		if m[2] == "GiB" && need < 1 || m[2] == "MiB" && (need >= 1024 || need < float64(budget)/(1<<20)) {
+			t.Errorf("warning %q: the need is not stated in MiB below 1 GiB or is below the budget", w)
+		}
+	}
+	if !found {
+		t.Errorf("warnings %q, want the next step's need and the budget", warnings)
+	}
+	if !strings.Contains(strings.Join(warnings, "\n"), "a larger memory budget (--memory-limit) lets refinement continue") {
+		t.Errorf("warnings %q do not name --memory-limit", warnings)
 	}
 }
