@@ -45,20 +45,6 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 	for ri, rf := range f.robin {
 		robinOf[rf.t] = append(robinOf[rf.t], ri)
 	}
-	// The divergence of a basis function has few nonzero coefficients
-	// (rtBasisRat): divCols[l] lists those of function l.
-	type entry struct {
-		row int
-		v   float64
-	}
-	divCols := make([][]entry, nd)
-	for be := 0; be < nk; be++ {
-		for l, v := range ref.divT[be*nd : (be+1)*nd] {
-			if v != 0 {
-				divCols[l] = append(divCols[l], entry{be, v})
-			}
-		}
-	}
 	uraw, uc := make([]float64, np), make([]float64, np)
 	wu := make([]float64, nk)
 	for t := range f.cells {
@@ -82,7 +68,9 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 			loc[ij] = acc / (6 * det)
 		}
 		clear(dw)
-		for l, col := range divCols {
+		// The divergence of a basis function has few nonzero coefficients
+		// (rtRef.divCols).
+		for l, col := range ref.divCols {
 			for _, e := range col {
 				for be := 0; be < nk; be++ {
 					dw[be*nd+l] += wkk[be*nk+e.row] * e.v
@@ -90,7 +78,7 @@ func (f *Flux) ChooseApprox(s FluxTrial, trial [][]float64, w FluxWeight) ([][]f
 			}
 		}
 		dsc := vol / (det * det)
-		for l, col := range divCols {
+		for l, col := range ref.divCols {
 			row := loc[l*nd : (l+1)*nd]
 			for _, e := range col {
 				a := dsc * e.v
@@ -193,7 +181,7 @@ var (
 // matrix M_rs[l·ndof + m] = ĉ_(l,r)ᵀ G ĉ_(m,s) of the scaled reference
 // basis (G the Gram matrix of degree k + 1 normalised by |T|; a choice).
 // Each component of a basis function has at most three nonzero
-// coefficients (rtBasisRat), so the entries are short sums.
+// coefficients (rtRef.compCols), so the entries are short sums.
 func rtMassBlocks(k int) [][]float64 {
 	rtMassMu.Lock()
 	defer rtMassMu.Unlock()
@@ -203,21 +191,6 @@ func rtMassBlocks(k int) [][]float64 {
 	ref := rtReference(k)
 	nd, nn := ref.ndof, rtDim(ref.n)
 	g := rtTriple(0, ref.n, ref.n).FL
-	type term struct {
-		a int
-		v float64
-	}
-	var nz [3][][]term // nz[c][l]: the nonzero coefficients of component c of function l
-	for c := 0; c < 3; c++ {
-		nz[c] = make([][]term, nd)
-		for a := 0; a < nn; a++ {
-			for l, v := range ref.compT[c][a*nd : (a+1)*nd] {
-				if v != 0 {
-					nz[c][l] = append(nz[c][l], term{a, v})
-				}
-			}
-		}
-	}
 	out := make([][]float64, 9)
 	for r := 0; r < 3; r++ {
 		for s := 0; s < 3; s++ {
@@ -225,9 +198,9 @@ func rtMassBlocks(k int) [][]float64 {
 			for l := 0; l < nd; l++ {
 				for m := 0; m < nd; m++ {
 					acc := 0.0
-					for _, x := range nz[r][l] {
-						for _, y := range nz[s][m] {
-							acc += x.v * g[x.a*nn+y.a] * y.v
+					for _, x := range ref.compCols[r][l] {
+						for _, y := range ref.compCols[s][m] {
+							acc += x.v * g[x.row*nn+y.row] * y.v
 						}
 					}
 					blk[l*nd+m] = acc

@@ -31,6 +31,33 @@ type rtRef struct {
 	compT     [3][]float64
 	divT      []float64
 	faceScale float64
+	// compCols[c][l] and divCols[l] list the nonzero entries of column l
+	// of compT[c] and divT: each component has at most three, each
+	// divergence few (rtBasisRat), which the float tables of the flux
+	// choice use.
+	compCols [3][][]rtEntry
+	divCols  [][]rtEntry
+}
+
+// rtEntry is a nonzero entry of a column of the reference tables: the
+// coefficient index and its value.
+type rtEntry struct {
+	row int
+	v   float64
+}
+
+// rtColumns returns the nonzero entries of each column of the row-major
+// table t with nd columns.
+func rtColumns(t []float64, nd int) [][]rtEntry {
+	out := make([][]rtEntry, nd)
+	for a := 0; a*nd < len(t); a++ {
+		for l, v := range t[a*nd : (a+1)*nd] {
+			if v != 0 {
+				out[l] = append(out[l], rtEntry{a, v})
+			}
+		}
+	}
+	return out
 }
 
 var (
@@ -104,6 +131,10 @@ func rtReference(k int) *rtRef {
 			r.divT[b*ndof+l] = exact(div[l][b], l)
 		}
 	}
+	for c := 0; c < 3; c++ {
+		r.compCols[c] = rtColumns(r.compT[c], ndof)
+	}
+	r.divCols = rtColumns(r.divT, ndof)
 	rtRefCache[k] = r
 	return r
 }
