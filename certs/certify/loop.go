@@ -201,15 +201,16 @@ func Certify(ctx context.Context, p *problem.Problem, opt Options) (*certs.Certi
 			return paced || time.Since(start)+predicted <= limit
 		}
 		if !fits(next) {
-			if fb, ok := d.(stepFallback); ok {
-				if alt, ok := fb.fallback(r, next, out); ok && memoryEstimate(p, alt) <= budget && fits(alt) {
-					next = alt
-				}
+			fb, ok := d.(stepFallback)
+			var alt recipe
+			if ok {
+				alt, ok = fb.fallback(r, next, out)
 			}
-		}
-		if !fits(next) {
-			reason = StopTime
-			break
+			if !ok || memoryEstimate(p, alt) > budget || !fits(alt) {
+				reason = StopTime
+				break
+			}
+			next = alt
 		}
 		if ctx.Err() != nil {
 			reason = StopInterrupted
