@@ -152,7 +152,7 @@ type rtField [3][]*big.Rat
 // comp[l][c] the degree-(k+1) Bernstein coefficients of component c of
 // basis function l, div[l] the degree-k coefficients of its divergence,
 // exactly. The functions are Bernstein polynomials times Whitney face
-// fields (package doc, Reference element):
+// fields (package doc, Basis):
 //
 //	face i, multi-index β:   B^k_α φ_F / (φ_F·ν̂_i on F),  F the face i, α = β on F and α_i = 0;
 //	interior (c, γ):         B^k_α φ_F,  F the face opposite vertex c + 1, α = γ + e_(c+1), |γ| = k − 1.
